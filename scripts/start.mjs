@@ -1,0 +1,141 @@
+// `npm start`: from a fresh clone to a running Headroom on one port.
+// installs npm dependencies when missing → makes sure PostgreSQL is there → a project-local
+// cluster on 127.0.0.1 (or DATABASE_URL) → migrations → demo seed when empty → client build →
+// the server. Ctrl-C stops the server and the database this script started.
+import { spawn, spawnSync } from 'node:child_process';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import * as pg from './lib/postgres.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+process.chdir(root);
+const dev = process.argv.includes('--dev');
+const started = Date.now();
+const appPort = Number(process.env.PORT ?? 5480);
+
+function run(cmd, args, env = {}) {
+  const result = spawnSync(cmd, args, { stdio: 'inherit', env: { ...process.env, ...env } });
+  if (result.status !== 0) {
+    pg.log(`${cmd} ${args.join(' ')} failed (exit ${result.status}).`);
+    cleanup();
+    process.exit(result.status ?? 1);
+  }
+}
+
+// 1. npm dependencies
+if (!fs.existsSync(path.join(root, 'node_modules', '.package-lock.json'))) {
+  pg.log('installing npm dependencies (npm ci) …');
+  run('npm', ['ci', '--no-audit', '--no-fund'], { PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1' });
+}
+
+// 2. the database
+let databaseUrl = process.env.DATABASE_URL;
+let pgBin = null;
+let pgData = null;
+let weStartedPostgres = false;
+
+function cleanup() {
+  if (weStartedPostgres && pgBin && pgData) {
+    pg.log('stopping PostgreSQL …');
+    pg.stopCluster(pgBin, pgData);
+    weStartedPostgres = false;
+  }
+}
+
+if (databaseUrl) {
+  pg.log('DATABASE_URL is set: using that server (no local cluster started).');
+} else {
+  pgBin = pg.ensurePostgresInstalled();
+  pgData = path.resolve(process.env.HEADROOM_PGDATA ?? path.join(root, '.data', 'pg'));
+  const created = pg.initCluster(pgBin, pgData, Number(process.env.HEADROOM_PG_PORT ?? 54329));
+  const pgPort = pg.clusterPort(pgData);
+  if (created) pg.log(`created a PostgreSQL cluster in ${path.relative(root, pgData) || pgData} (port ${pgPort})`);
+  if (pg.isClusterRunning(pgBin, pgData)) {
+    pg.log(`PostgreSQL is already running on 127.0.0.1:${pgPort}; reusing it.`);
+  } else {
+    if (await pg.portInUse(pgPort)) {
+      pg.log(`port ${pgPort} is taken by another program; set HEADROOM_PGDATA to a new folder and HEADROOM_PG_PORT to a free port.`);
+      process.exit(1);
+    }
+    pg.startCluster(pgBin, pgData);
+    weStartedPostgres = true;
+  }
+  pg.createDatabase(pgBin, pgPort, 'headroom');
+  databaseUrl = pg.databaseUrl(pgPort, 'headroom');
+}
+
+for (const signal of ['SIGINT', 'SIGTERM']) {
+  process.on(signal, () => {
+    if (server) server.kill('SIGTERM');
+    else {
+      cleanup();
+      process.exit(130);
+    }
+  });
+}
+let server = null;
+
+// 3. migrations and the demo seed
+run(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'setup'], { DATABASE_URL: databaseUrl });
+
+// 4. the client
+function newestMtime(target) {
+  if (!fs.existsSync(target)) return 0;
+  const stat = fs.statSync(target);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  let newest = stat.mtimeMs;
+  for (const entry of fs.readdirSync(target)) newest = Math.max(newest, newestMtime(path.join(target, entry)));
+  return newest;
+}
+if (!dev) {
+  const builtAt = newestMtime(path.join(root, 'dist', 'index.html'));
+  const sourcesAt = Math.max(...['src', 'index.html', 'vite.config.ts', 'tailwind.config.ts', 'package-lock.json'].map((p) => newestMtime(path.join(root, p))));
+  if (builtAt < sourcesAt) {
+    pg.log('building the client …');
+    run(process.execPath, [path.join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn']);
+  } else {
+    pg.log('client build is up to date.');
+  }
+}
+
+// 5. the server
+const secretFile = path.join(root, '.data', 'session-secret');
+let sessionSecret = process.env.SESSION_SECRET;
+if (!sessionSecret) {
+  fs.mkdirSync(path.dirname(secretFile), { recursive: true });
+  if (!fs.existsSync(secretFile)) fs.writeFileSync(secretFile, crypto.randomBytes(32).toString('hex'), { mode: 0o600 });
+  sessionSecret = fs.readFileSync(secretFile, 'utf8').trim();
+}
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  PORT: String(appPort),
+  SESSION_SECRET: sessionSecret,
+  NODE_ENV: process.env.NODE_ENV ?? (dev ? 'development' : 'production'),
+  HEADROOM_SERVE_CLIENT: dev ? '0' : '1',
+  PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${appPort}`,
+};
+server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
+server.stdout.on('data', (chunk) => {
+  process.stdout.write(chunk);
+  if (String(chunk).includes('listening on')) {
+    pg.log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+    pg.log(`open http://127.0.0.1:${appPort}/`);
+    pg.log('demo sign-ins (password for all: headroom-demo):');
+    for (const [who, email] of [
+      ['administrator', 'admin@alder-finch.example'],
+      ['designer', 'designer@alder-finch.example'],
+      ['contractor', 'contractor@alder-finch.example'],
+      ['inspector', 'inspector@alder-finch.example'],
+      ['no project (outsider)', 'outsider@alder-finch.example'],
+    ])
+      pg.log(`  ${who.padEnd(22)} ${email}`);
+    if (dev) pg.log('development: run `npx vite` in another terminal for the hot-reloading client.');
+  }
+});
+server.on('exit', (code) => {
+  cleanup();
+  process.exit(code ?? 0);
+});

@@ -1,0 +1,53 @@
+import type { RequestHandler } from 'express';
+import { AppError, forbidden, notFound } from './errors';
+import { membersRepo } from '../repositories/projects';
+import type { Actor } from '../services/context';
+import type { User } from '../../src/shared/api/auth';
+import type { ProjectRole } from '../../src/shared/api/projects';
+import type { Db } from '../db/knex';
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends Omit<import('../../src/shared/api/auth').User, never> {}
+    interface Request {
+      projectRole?: ProjectRole;
+    }
+  }
+}
+
+export const actorOf = (user: User | Express.User | undefined): Actor => {
+  if (!user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
+  return { id: user.id, isAdmin: user.isAdmin, accountRole: user.accountRole };
+};
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  if (!req.user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
+  next();
+};
+
+export const requireAdmin: RequestHandler = (req, _res, next) => {
+  if (!req.user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
+  if (!req.user.isAdmin) throw forbidden('Only administrators manage accounts.');
+  next();
+};
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * Loads the signed-in user's role in :projectId. A non-member gets 404 — the project's
+ * existence is not revealed — and a member whose role is not in `roles` gets 403.
+ */
+export function requireProjectRole(db: Db, roles: readonly ProjectRole[] | 'any'): RequestHandler {
+  return async (req, _res, next) => {
+    if (!req.user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
+    const projectId = String(req.params.projectId ?? '');
+    if (!UUID.test(projectId)) throw notFound('The project');
+    const role = await membersRepo.roleOf(db, projectId, req.user.id);
+    if (!role) throw notFound('The project');
+    if (roles !== 'any' && !roles.includes(role)) throw forbidden(`This needs the ${roles.join(' or ')} role in this project.`);
+    req.projectRole = role;
+    next();
+  };
+}

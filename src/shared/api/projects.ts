@@ -1,0 +1,73 @@
+import { z } from 'zod';
+import { Email } from './auth';
+
+export const PROJECT_ROLES = ['designer', 'contractor', 'inspector'] as const;
+export const ProjectRole = z.enum(PROJECT_ROLES);
+export type ProjectRole = z.infer<typeof ProjectRole>;
+
+export const UNIT_SYSTEMS = ['US', 'SI'] as const;
+export const UnitSystem = z.enum(UNIT_SYSTEMS);
+
+const projectFields = {
+  name: z.string().trim().min(1, 'Enter a project name').max(160),
+  address: z.string().trim().max(300).default(''),
+  /** free text the designer states: code edition and local amendments */
+  codeBasis: z.string().trim().max(2000).default(''),
+  unitSystem: UnitSystem.default('US'),
+  notes: z.string().max(10_000).default(''),
+};
+
+export const CreateProjectBody = z.object(projectFields).strict();
+export type CreateProjectBody = z.input<typeof CreateProjectBody>;
+
+export const UpdateProjectBody = z
+  .object({
+    name: projectFields.name.optional(),
+    address: z.string().trim().max(300).optional(),
+    codeBasis: z.string().trim().max(2000).optional(),
+    unitSystem: UnitSystem.optional(),
+    notes: z.string().max(10_000).optional(),
+    archived: z.boolean().optional(),
+    version: z.number().int().min(1),
+  })
+  .strict();
+export type UpdateProjectBody = z.infer<typeof UpdateProjectBody>;
+
+export const Project = z.object({
+  id: z.string(),
+  name: z.string(),
+  address: z.string(),
+  codeBasis: z.string(),
+  unitSystem: UnitSystem,
+  notes: z.string(),
+  archived: z.boolean(),
+  version: z.number().int(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  /** the signed-in user's role in this project */
+  myRole: ProjectRole,
+});
+export type Project = z.infer<typeof Project>;
+
+export const Member = z.object({
+  userId: z.string(),
+  email: z.string(),
+  name: z.string(),
+  role: ProjectRole,
+  addedAt: z.string(),
+});
+export type Member = z.infer<typeof Member>;
+
+export const AddMemberBody = z.object({ email: Email, role: ProjectRole }).strict();
+export type AddMemberBody = z.infer<typeof AddMemberBody>;
+export const UpdateMemberBody = z.object({ role: ProjectRole }).strict();
+export type UpdateMemberBody = z.infer<typeof UpdateMemberBody>;
+
+export const ProjectParams = z.object({ projectId: z.string().uuid('Not a project id') });
+export const MemberParams = ProjectParams.extend({ userId: z.string().uuid('Not a user id') });
+
+export const ProjectListResponse = z.object({ projects: z.array(Project) });
+export const ProjectResponse = z.object({ project: Project });
+export const ProjectDetailResponse = z.object({ project: Project, members: z.array(Member) });
+export const MemberListResponse = z.object({ members: z.array(Member) });
+export const MemberResponse = z.object({ member: Member });
