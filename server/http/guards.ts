@@ -38,13 +38,21 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /**
  * Loads the signed-in user's role in :projectId. A non-member gets 404 — the project's
  * existence is not revealed — and a member whose role is not in `roles` gets 403.
+ * With `administrators`, a site administrator passes too (membership management).
  */
-export function requireProjectRole(db: Db, roles: readonly ProjectRole[] | 'any'): RequestHandler {
+export function requireProjectRole(db: Db, roles: readonly ProjectRole[] | 'any', opts: { administrators?: boolean } = {}): RequestHandler {
   return async (req, _res, next) => {
     if (!req.user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
     const projectId = String(req.params.projectId ?? '');
     if (!UUID.test(projectId)) throw notFound('The project');
     const role = await membersRepo.roleOf(db, projectId, req.user.id);
+    if (!role && req.user.isAdmin) {
+      // site administrators see every project and manage membership (DESIGN.md) without being members
+      if (!(await db('projects').where({ id: projectId }).first('id'))) throw notFound('The project');
+      if (!opts.administrators) throw forbidden('Administrators manage members; the project’s designers edit it.');
+      req.projectRole = undefined;
+      return next();
+    }
     if (!role) throw notFound('The project');
     if (roles !== 'any' && !roles.includes(role)) throw forbidden(`This needs the ${roles.join(' or ')} role in this project.`);
     req.projectRole = role;

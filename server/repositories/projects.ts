@@ -14,7 +14,7 @@ export interface ProjectRow {
   updated_at: Date;
 }
 
-export const toProject = (row: ProjectRow, myRole: ProjectRole): Project => ({
+export const toProject = (row: ProjectRow, myRole: ProjectRole | null): Project => ({
   id: row.id,
   name: row.name,
   address: row.address,
@@ -42,6 +42,12 @@ export const projectsRepo = {
     db<ProjectRow & { role: ProjectRole }>('projects as p')
       .join('project_members as m', 'm.project_id', 'p.id')
       .where('m.user_id', userId)
+      .select('p.*', 'm.role')
+      .orderBy([{ column: 'p.archived' }, { column: 'p.updated_at', order: 'desc' }]),
+  /** A site administrator sees every project (to manage membership), with their role where they have one. */
+  listAll: (db: Tx, userId: string) =>
+    db<ProjectRow & { role: ProjectRole | null }>('projects as p')
+      .leftJoin('project_members as m', (j) => j.on('m.project_id', 'p.id').andOnVal('m.user_id', userId))
       .select('p.*', 'm.role')
       .orderBy([{ column: 'p.archived' }, { column: 'p.updated_at', order: 'desc' }]),
   findById: (db: Tx, id: string) => db<ProjectRow>('projects').where({ id }).first(),

@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import rateLimit from 'express-rate-limit';
+import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import type { PassportStatic } from 'passport';
 import { AppError } from '../http/errors';
 import { parse } from '../http/validate';
@@ -14,7 +14,7 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
   router.get('/csrf-token', (req, res) => {
     // mark the session so it is saved and its id (to which the token is bound) stays the same
     (req.session as unknown as { csrf?: boolean }).csrf = true;
-    res.json({ token: generateCsrfToken(req as never, res as never, { overwrite: true }) });
+    res.json({ token: generateCsrfToken(req as never, res as never) });
   });
 
   const signInLimiter = rateLimit({
@@ -23,7 +23,7 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
     standardHeaders: 'draft-7',
     legacyHeaders: false,
     // per address and e-mail: one person mistyping does not lock out the office
-    keyGenerator: (req) => `${req.ip}|${String(req.body?.email ?? '').toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
     handler: (_req, res) =>
       res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Wait 15 minutes and try again.' } }),
   });

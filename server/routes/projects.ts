@@ -7,8 +7,9 @@ import type { ServiceContext } from '../services/context';
 
 export function projectsRoutes(ctx: ServiceContext): Router {
   const router = Router();
-  const member = requireProjectRole(ctx.db, 'any');
+  const memberOrAdmin = requireProjectRole(ctx.db, 'any', { administrators: true });
   const designer = requireProjectRole(ctx.db, ['designer']);
+  const membershipManager = requireProjectRole(ctx.db, ['designer'], { administrators: true });
 
   router.get('/projects', requireUser, async (req, res) => {
     res.json({ projects: await projectsService.list(ctx, actorOf(req.user)) });
@@ -19,8 +20,8 @@ export function projectsRoutes(ctx: ServiceContext): Router {
     res.status(201).json({ project: await projectsService.create(ctx, actorOf(req.user), body as Required<typeof body>) });
   });
 
-  router.get('/projects/:projectId', member, async (req, res) => {
-    res.json(await projectsService.get(ctx, String(req.params.projectId), req.projectRole!));
+  router.get('/projects/:projectId', memberOrAdmin, async (req, res) => {
+    res.json(await projectsService.get(ctx, String(req.params.projectId), req.projectRole ?? null));
   });
 
   router.patch('/projects/:projectId', designer, async (req, res) => {
@@ -28,22 +29,22 @@ export function projectsRoutes(ctx: ServiceContext): Router {
     res.json({ project: await projectsService.update(ctx, actorOf(req.user), String(req.params.projectId), body) });
   });
 
-  router.get('/projects/:projectId/members', member, async (req, res) => {
+  router.get('/projects/:projectId/members', memberOrAdmin, async (req, res) => {
     res.json({ members: await membersService.list(ctx, String(req.params.projectId)) });
   });
 
-  router.post('/projects/:projectId/members', designer, async (req, res) => {
+  router.post('/projects/:projectId/members', membershipManager, async (req, res) => {
     const body = parse(AddMemberBody, req.body);
     res.status(201).json({ member: await membersService.add(ctx, actorOf(req.user), String(req.params.projectId), body) });
   });
 
-  router.patch('/projects/:projectId/members/:userId', designer, async (req, res) => {
+  router.patch('/projects/:projectId/members/:userId', membershipManager, async (req, res) => {
     const { projectId, userId } = parse(MemberParams, req.params);
     const body = parse(UpdateMemberBody, req.body);
     res.json({ member: await membersService.setRole(ctx, actorOf(req.user), projectId, userId, body.role) });
   });
 
-  router.delete('/projects/:projectId/members/:userId', designer, async (req, res) => {
+  router.delete('/projects/:projectId/members/:userId', membershipManager, async (req, res) => {
     const { projectId, userId } = parse(MemberParams, req.params);
     await membersService.remove(ctx, actorOf(req.user), projectId, userId);
     res.status(204).end();

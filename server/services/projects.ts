@@ -9,7 +9,7 @@ export const canCreateProjects = (actor: Actor) => actor.isAdmin || actor.accoun
 
 export const projectsService = {
   async list(ctx: ServiceContext, actor: Actor): Promise<Project[]> {
-    const rows = await projectsRepo.listForUser(ctx.db, actor.id);
+    const rows = actor.isAdmin ? await projectsRepo.listAll(ctx.db, actor.id) : await projectsRepo.listForUser(ctx.db, actor.id);
     return rows.map((r) => toProject(r, r.role));
   },
 
@@ -30,7 +30,7 @@ export const projectsService = {
     });
   },
 
-  async get(ctx: ServiceContext, projectId: string, myRole: ProjectRole): Promise<{ project: Project; members: Member[] }> {
+  async get(ctx: ServiceContext, projectId: string, myRole: ProjectRole | null): Promise<{ project: Project; members: Member[] }> {
     const row = await projectsRepo.findById(ctx.db, projectId);
     if (!row) throw notFound('The project');
     return { project: toProject(row, myRole), members: await membersRepo.list(ctx.db, projectId) };

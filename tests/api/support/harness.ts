@@ -81,7 +81,7 @@ export class Client {
   async signIn(email: string, password = PASSWORD) {
     await this.refreshToken();
     const res = await this.agent.post('/api/auth/sign-in').set('x-csrf-token', this.token).send({ email, password });
-    // the session id changed: the token bound to the old one is spent
+    // the session id changed: the token bound to the old one no longer passes
     if (res.status === 200) await this.refreshToken();
     return res;
   }

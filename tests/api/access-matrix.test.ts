@@ -1,0 +1,144 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import { Client, makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
+
+/**
+ * Every API route × every kind of caller → exactly one expected status. The test reads the
+ * routes the app registered and fails when one has no row here, so a new route cannot ship
+ * without its access decided.
+ */
+type Who = 'anonymous' | 'administrator' | 'designer' | 'contractor' | 'inspector' | 'nonMember';
+const WHO: Who[] = ['anonymous', 'administrator', 'designer', 'contractor', 'inspector', 'nonMember'];
+
+interface World {
+  projectId: string;
+  h: Harness;
+}
+interface Row {
+  method: string;
+  path: string;
+  expect: Record<Who, number>;
+  /** the concrete request: URL and body valid enough that only access decides the status */
+  request: (w: World) => Promise<{ url: string; body?: unknown }>;
+}
+
+const all = (status: number): Record<Who, number> => Object.fromEntries(WHO.map((w) => [w, status])) as Record<Who, number>;
+const signedInOnly = (status: number) => ({ ...all(status), anonymous: 401 });
+const adminOnly = (status: number) => ({ ...all(403), anonymous: 401, administrator: status });
+/** members read; a non-member is told nothing (404); administrators manage membership */
+const membersRead = { anonymous: 401, administrator: 200, designer: 200, contractor: 200, inspector: 200, nonMember: 404 };
+const designersWrite = (status: number, admin = 403) => ({ anonymous: 401, administrator: admin, designer: status, contractor: 403, inspector: 403, nonMember: 404 });
+
+const ROWS: Row[] = [
+  { method: 'GET', path: '/api/health', expect: all(200), request: async () => ({ url: '/api/health' }) },
+  { method: 'GET', path: '/api/csrf-token', expect: all(200), request: async () => ({ url: '/api/csrf-token' }) },
+  { method: 'POST', path: '/api/auth/sign-in', expect: all(401), request: async () => ({ url: '/api/auth/sign-in', body: { email: 'nobody@test.example', password: 'wrong password' } }) },
+  { method: 'GET', path: '/api/auth/me', expect: signedInOnly(200), request: async () => ({ url: '/api/auth/me' }) },
+  { method: 'GET', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}` }) },
+  { method: 'POST', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}`, body: { password: 'a long enough password' } }) },
+  { method: 'GET', path: '/api/users', expect: adminOnly(200), request: async () => ({ url: '/api/users' }) },
+  { method: 'POST', path: '/api/users', expect: adminOnly(201), request: async () => ({ url: '/api/users', body: { email: `m-${randomUUID()}@test.example`, name: 'Matrix Person', accountRole: 'inspector' } }) },
+  {
+    method: 'PATCH',
+    path: '/api/users/:userId',
+    expect: adminOnly(200),
+    request: async ({ h }) => {
+      const u = await makeUser(h.db);
+      return { url: `/api/users/${u.id}`, body: { name: 'Renamed Person', version: 1 } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/users/:userId/invitations',
+    expect: adminOnly(201),
+    request: async ({ h }) => ({ url: `/api/users/${(await makeUser(h.db, { status: 'invited' })).id}/invitations` }),
+  },
+  { method: 'GET', path: '/api/projects', expect: signedInOnly(200), request: async () => ({ url: '/api/projects' }) },
+  {
+    method: 'POST',
+    path: '/api/projects',
+    // project creation is for designer accounts and administrators (the non-member here has a designer account)
+    expect: { anonymous: 401, administrator: 201, designer: 201, contractor: 403, inspector: 403, nonMember: 201 },
+    request: async () => ({ url: '/api/projects', body: { name: `Matrix ${randomUUID().slice(0, 8)}` } }),
+  },
+  { method: 'GET', path: '/api/projects/:projectId', expect: membersRead, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}` }) },
+  {
+    method: 'PATCH',
+    path: '/api/projects/:projectId',
+    expect: designersWrite(200),
+    request: async ({ h, projectId }) => {
+      const { version } = await h.db('projects').where({ id: projectId }).first('version');
+      return { url: `/api/projects/${projectId}`, body: { notes: `edited ${randomUUID()}`, version } };
+    },
+  },
+  { method: 'GET', path: '/api/projects/:projectId/members', expect: membersRead, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/members` }) },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/members',
+    expect: designersWrite(201, 201),
+    request: async ({ h, projectId }) => ({ url: `/api/projects/${projectId}/members`, body: { email: (await makeUser(h.db)).email, role: 'contractor' } }),
+  },
+  {
+    method: 'PATCH',
+    path: '/api/projects/:projectId/members/:userId',
+    expect: designersWrite(200, 200),
+    request: async ({ h, projectId }) => {
+      const u = await makeUser(h.db);
+      await h.db('project_members').insert({ project_id: projectId, user_id: u.id, role: 'contractor' });
+      return { url: `/api/projects/${projectId}/members/${u.id}`, body: { role: 'inspector' } };
+    },
+  },
+  {
+    method: 'DELETE',
+    path: '/api/projects/:projectId/members/:userId',
+    expect: designersWrite(204, 204),
+    request: async ({ h, projectId }) => {
+      const u = await makeUser(h.db);
+      await h.db('project_members').insert({ project_id: projectId, user_id: u.id, role: 'contractor' });
+      return { url: `/api/projects/${projectId}/members/${u.id}` };
+    },
+  },
+  // last: it ends the callers' sessions
+  { method: 'POST', path: '/api/auth/sign-out', expect: signedInOnly(204), request: async () => ({ url: '/api/auth/sign-out' }) },
+];
+
+let h: Harness;
+let world: World;
+const clients = {} as Record<Who, Client>;
+
+beforeAll(async () => {
+  h = startHarness();
+  const p = await projectWithRoles(h);
+  world = { h, projectId: p.projectId };
+  clients.designer = p.designer;
+  clients.contractor = await signedIn(h, p.contractorUser);
+  clients.inspector = await signedIn(h, p.inspectorUser);
+  clients.administrator = await signedIn(h, await makeUser(h.db, { isAdmin: true }));
+  clients.nonMember = await signedIn(h, await makeUser(h.db, { accountRole: 'designer' }));
+  clients.anonymous = new Client(h);
+  await clients.anonymous.refreshToken();
+});
+afterAll(() => h.close());
+
+describe('the access matrix', () => {
+  it('when the app registers a route, then the matrix has exactly one row for it', () => {
+    const registered = h.headroom.apiRoutes.map((r) => `${r.method} ${r.path}`).sort();
+    const covered = ROWS.map((r) => `${r.method} ${r.path}`).sort();
+    expect(registered.filter((r) => !covered.includes(r))).toEqual([]);
+    expect(covered.filter((r) => !registered.includes(r))).toEqual([]);
+    expect(new Set(covered).size).toBe(covered.length);
+  });
+
+  for (const row of ROWS) {
+    it(`${row.method} ${row.path} answers each caller as the matrix says`, async () => {
+      const got = {} as Record<Who, number>;
+      for (const who of WHO) {
+        const { url, body } = await row.request(world);
+        const res = row.method === 'GET' ? await clients[who].get(url) : await clients[who].send(row.method, url, body);
+        got[who] = res.status;
+        if (res.status >= 400) expect(res.body.error?.code, `${who}: error body`).toBeTypeOf('string');
+      }
+      expect(got).toEqual(row.expect);
+    });
+  }
+});
