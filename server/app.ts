@@ -13,6 +13,7 @@ import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
 import { usersRoutes } from './routes/users';
 import { projectsRoutes } from './routes/projects';
+import { systemsRoutes } from './routes/systems';
 import type { ServiceContext } from './services/context';
 
 export interface HeadroomApp {
@@ -45,6 +46,7 @@ export function createApp({ config, db }: { config: Config; db: Db }): HeadroomA
   api.use(authRoutes(ctx, passport as never, generateCsrfToken as never));
   api.use(usersRoutes(ctx));
   api.use(projectsRoutes(ctx));
+  api.use(systemsRoutes(ctx));
   api.use((req) => {
     throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
   });

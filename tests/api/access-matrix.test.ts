@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
+import { smallDocument } from './support/documents';
 
 /**
  * Every API route × every kind of caller → exactly one expected status. The test reads the
@@ -13,6 +14,9 @@ const WHO: Who[] = ['anonymous', 'administrator', 'designer', 'contractor', 'ins
 interface World {
   projectId: string;
   h: Harness;
+  systemId: string;
+  revisionId: string;
+  designer: Client;
 }
 interface Row {
   method: string;
@@ -27,6 +31,8 @@ const signedInOnly = (status: number) => ({ ...all(status), anonymous: 401 });
 const adminOnly = (status: number) => ({ ...all(403), anonymous: 401, administrator: status });
 /** members read; a non-member is told nothing (404); administrators manage membership */
 const membersRead = { anonymous: 401, administrator: 200, designer: 200, contractor: 200, inspector: 200, nonMember: 404 };
+/** administrators who are not members may see membership, not the design */
+const membersRead403 = { ...membersRead, administrator: 403 };
 const designersWrite = (status: number, admin = 403) => ({ anonymous: 401, administrator: admin, designer: status, contractor: 403, inspector: 403, nonMember: 404 });
 
 const ROWS: Row[] = [
@@ -98,6 +104,56 @@ const ROWS: Row[] = [
       return { url: `/api/projects/${projectId}/members/${u.id}` };
     },
   },
+  { method: 'GET', path: '/api/projects/:projectId/systems', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/systems` }) },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems',
+    expect: designersWrite(201),
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/systems`, body: { name: 'Matrix system', service: 'cold' } }),
+  },
+  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId', expect: membersRead403, request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/compare',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}/compare?a=${w.revisionId}&b=${w.revisionId}` }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}` }),
+  },
+  {
+    method: 'PUT',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/document',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const { version, document } = await w.h.db('revisions').where({ id: w.revisionId }).first('version', 'document');
+      return { url: `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}/document`, body: { document, version } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue',
+    expect: designersWrite(200),
+    request: async (w) => {
+      // a fresh system each time: issuing is once per draft
+      const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To issue', service: 'cold', document: smallDocument() }).expect(201)).body;
+      return { url: `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, body: { version: 1 } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/revisions',
+    expect: designersWrite(201),
+    request: async (w) => {
+      const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To redraft', service: 'cold', document: smallDocument() }).expect(201)).body;
+      const base = `/api/projects/${w.projectId}/systems/${created.system.id}`;
+      await w.designer.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+      return { url: `${base}/revisions`, body: { fromRevisionId: created.revision.id } };
+    },
+  },
   // last: it ends the callers' sessions
   { method: 'POST', path: '/api/auth/sign-out', expect: signedInOnly(204), request: async () => ({ url: '/api/auth/sign-out' }) },
 ];
@@ -109,7 +165,8 @@ const clients = {} as Record<Who, Client>;
 beforeAll(async () => {
   h = startHarness();
   const p = await projectWithRoles(h);
-  world = { h, projectId: p.projectId };
+  const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Matrix cold', service: 'cold', document: smallDocument() }).expect(201)).body;
+  world = { h, projectId: p.projectId, systemId: created.system.id, revisionId: created.revision.id, designer: p.designer };
   clients.designer = p.designer;
   clients.contractor = await signedIn(h, p.contractorUser);
   clients.inspector = await signedIn(h, p.inspectorUser);

@@ -44,8 +44,8 @@ export const Project = z.object({
   version: z.number().int(),
   createdAt: z.string(),
   updatedAt: z.string(),
-  /** the signed-in user's role in this project */
-  myRole: ProjectRole,
+  /** the signed-in user's role in this project; null for a site administrator who is not a member */
+  myRole: ProjectRole.nullable(),
 });
 export type Project = z.infer<typeof Project>;
 

@@ -1,0 +1,81 @@
+import type { Tx } from '../db/rows';
+
+export interface SystemRow {
+  id: string;
+  project_id: string;
+  name: string;
+  service: 'cold' | 'hot';
+  created_at: Date;
+}
+
+export interface RevisionRow {
+  id: string;
+  system_id: string;
+  number: number;
+  status: 'draft' | 'issued' | 'superseded';
+  document: unknown;
+  analysis: unknown;
+  engine_version: string;
+  version: number;
+  input_hash: string | null;
+  note: string | null;
+  issued_by: string | null;
+  issued_by_name?: string | null;
+  issued_at: Date | null;
+  updated_at: Date;
+}
+
+const revisionColumns = ['r.*', 'u.name as issued_by_name'];
+
+export const systemsRepo = {
+  listForProject: (db: Tx, projectId: string) => db<SystemRow>('systems').where({ project_id: projectId }).orderBy('created_at'),
+  find: (db: Tx, projectId: string, systemId: string) => db<SystemRow>('systems').where({ id: systemId, project_id: projectId }).first(),
+  async insert(db: Tx, values: { project_id: string; name: string; service: SystemRow['service']; created_by: string }) {
+    const [row] = await db<SystemRow>('systems').insert(values).returning('*');
+    return row;
+  },
+};
+
+export const revisionsRepo = {
+  listForSystem: (db: Tx, systemId: string) =>
+    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc'),
+  /** the newest revision of each of the given systems */
+  latestForSystems: (db: Tx, systemIds: string[]) =>
+    db<RevisionRow>('revisions as r')
+      .leftJoin('users as u', 'u.id', 'r.issued_by')
+      .whereIn('r.system_id', systemIds)
+      .distinctOn('r.system_id')
+      .select(revisionColumns)
+      .orderBy([{ column: 'r.system_id' }, { column: 'r.number', order: 'desc' }]),
+  find: (db: Tx, systemId: string, revisionId: string) =>
+    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').where({ 'r.id': revisionId, 'r.system_id': systemId }).first(revisionColumns),
+  findForUpdate: (db: Tx, systemId: string, revisionId: string) => db<RevisionRow>('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first(),
+  draftOf: (db: Tx, systemId: string) => db<RevisionRow>('revisions').where({ system_id: systemId, status: 'draft' }).first(),
+  async nextNumber(db: Tx, systemId: string): Promise<number> {
+    const row = (await db('revisions').where({ system_id: systemId }).max({ n: 'number' }).first()) as { n: number | null };
+    return (row?.n ?? 0) + 1;
+  },
+  async insert(db: Tx, values: { system_id: string; number: number; document: unknown; analysis: unknown; engine_version: string; created_by: string; note?: string | null }) {
+    const [row] = await db<RevisionRow>('revisions')
+      .insert({ ...values, document: JSON.stringify(values.document), analysis: JSON.stringify(values.analysis) } as never)
+      .returning('*');
+    return row as RevisionRow;
+  },
+  /** Optimistic save of a draft: undefined when the version is stale or the revision is no longer a draft. */
+  async saveDraft(db: Tx, revisionId: string, version: number, document: unknown, analysis: unknown, engineVersion: string) {
+    const [row] = await db<RevisionRow>('revisions')
+      .where({ id: revisionId, version, status: 'draft' })
+      .update({ document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: engineVersion, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)
+      .returning('*');
+    return row as RevisionRow | undefined;
+  },
+  async issue(db: Tx, revisionId: string, version: number, by: string, inputHash: string, note: string | null) {
+    const [row] = await db<RevisionRow>('revisions')
+      .where({ id: revisionId, version, status: 'draft' })
+      .update({ status: 'issued', issued_by: by, issued_at: db.fn.now(), input_hash: inputHash, note, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)
+      .returning('*');
+    return row as RevisionRow | undefined;
+  },
+  supersedeIssued: (db: Tx, systemId: string, exceptId: string) =>
+    db('revisions').where({ system_id: systemId, status: 'issued' }).whereNot({ id: exceptId }).update({ status: 'superseded', updated_at: db.fn.now() }),
+};

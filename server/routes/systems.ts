@@ -1,0 +1,61 @@
+import { Router } from 'express';
+import { parse } from '../http/validate';
+import { actorOf, requireProjectRole } from '../http/guards';
+import { systemsService } from '../services/systems';
+import { CompareQuery, CreateSystemBody, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams } from '../../src/shared/api/systems';
+import { ProjectParams } from '../../src/shared/api/projects';
+import type { ServiceContext } from '../services/context';
+
+export function systemsRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+  const member = requireProjectRole(ctx.db, 'any');
+  const designer = requireProjectRole(ctx.db, ['designer']);
+  const base = '/projects/:projectId/systems';
+
+  router.get(base, member, async (req, res) => {
+    const { projectId } = parse(ProjectParams, req.params);
+    res.json({ systems: await systemsService.list(ctx, projectId) });
+  });
+
+  router.post(base, designer, async (req, res) => {
+    const { projectId } = parse(ProjectParams, req.params);
+    const body = parse(CreateSystemBody, req.body);
+    res.status(201).json(await systemsService.create(ctx, actorOf(req.user), projectId, body));
+  });
+
+  router.get(`${base}/:systemId`, member, async (req, res) => {
+    const { projectId, systemId } = parse(SystemParams, req.params);
+    res.json(await systemsService.get(ctx, projectId, systemId));
+  });
+
+  router.get(`${base}/:systemId/compare`, member, async (req, res) => {
+    const { projectId, systemId } = parse(SystemParams, req.params);
+    const { a, b } = parse(CompareQuery, req.query);
+    res.json(await systemsService.compare(ctx, projectId, systemId, a, b));
+  });
+
+  router.post(`${base}/:systemId/revisions`, designer, async (req, res) => {
+    const { projectId, systemId } = parse(SystemParams, req.params);
+    const { fromRevisionId } = parse(NewDraftBody, req.body);
+    res.status(201).json({ revision: await systemsService.newDraft(ctx, actorOf(req.user), projectId, systemId, fromRevisionId) });
+  });
+
+  router.get(`${base}/:systemId/revisions/:revisionId`, member, async (req, res) => {
+    const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
+    res.json({ revision: await systemsService.revision(ctx, projectId, systemId, revisionId) });
+  });
+
+  router.put(`${base}/:systemId/revisions/:revisionId/document`, designer, async (req, res) => {
+    const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
+    const body = parse(SaveDocumentBody, req.body);
+    res.json({ revision: await systemsService.saveDraft(ctx, actorOf(req.user), projectId, systemId, revisionId, body.document, body.version) });
+  });
+
+  router.post(`${base}/:systemId/revisions/:revisionId/issue`, designer, async (req, res) => {
+    const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
+    const body = parse(IssueBody, req.body);
+    res.json({ revision: await systemsService.issue(ctx, actorOf(req.user), projectId, systemId, revisionId, body.version, body.note ?? null) });
+  });
+
+  return router;
+}

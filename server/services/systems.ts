@@ -1,0 +1,213 @@
+import { randomUUID } from 'node:crypto';
+import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
+import { AppError, notFound, staleVersion } from '../http/errors';
+import { fieldsFromZod } from '../http/errors';
+import { projectsRepo } from '../repositories/projects';
+import { revisionsRepo, systemsRepo, type RevisionRow, type SystemRow } from '../repositories/systems';
+import { auditRepo } from '../repositories/audit';
+import { iso } from '../db/rows';
+import { inputHash } from './canonicalJson';
+import type { Actor, ServiceContext } from './context';
+import type { CompareResponse, CreateSystemBody, Revision, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+
+/** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
+export function analyse(document: unknown) {
+  const result = safeAnalyzeSystem(document);
+  return result.ok ? { ok: true as const, analysis: result.analysis } : { ok: false as const, error: result.error.toJSON() };
+}
+type StoredAnalysis = ReturnType<typeof analyse>;
+
+function verdictOf(stored: unknown): RevisionVerdict {
+  const a = stored as StoredAnalysis;
+  if (!a?.ok) return { ok: false, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: (a as { error?: { message?: string } })?.error?.message ?? 'Not analysed' };
+  const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
+  const v = a.analysis.verdict;
+  return {
+    ok: true,
+    allPass: v.allFixturesPass && v.allVelocitiesPass && v.allStaticPass,
+    criticalFixtureId: a.analysis.criticalFixtureId,
+    criticalMargin: critical?.margin ?? null,
+    warningCount: a.analysis.warnings.length,
+    errorMessage: null,
+  };
+}
+
+const toSummary = (r: RevisionRow): RevisionSummary => ({
+  id: r.id,
+  number: r.number,
+  status: r.status,
+  version: r.version,
+  updatedAt: iso(r.updated_at),
+  issuedAt: r.issued_at ? iso(r.issued_at) : null,
+  issuedBy: r.issued_by_name ?? null,
+  inputHash: r.input_hash,
+  verdict: verdictOf(r.analysis),
+});
+const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note });
+const toSystem = (s: SystemRow, latest: RevisionRow | undefined): SystemInfo => ({
+  id: s.id,
+  projectId: s.project_id,
+  name: s.name,
+  service: s.service,
+  createdAt: iso(s.created_at),
+  latest: latest ? toSummary(latest) : null,
+});
+
+/** A new system starts with its source at zero pressure: nothing passes until real figures are entered. */
+function starterDocument(name: string, service: 'cold' | 'hot', unitSystem: 'US' | 'SI', waterTemperature?: number): SystemDocument {
+  // 60 °F cold and 140 °F hot water: common practice for design water temperatures.
+  const defaultTemperature = unitSystem === 'US' ? (service === 'cold' ? 60 : 140) : service === 'cold' ? 15.6 : 60;
+  return SystemDocumentSchema.parse({
+    schemaVersion: 1,
+    id: randomUUID(),
+    name,
+    service,
+    unitSystem,
+    waterTemperature: waterTemperature ?? defaultTemperature,
+    source: { kind: 'utility-main', nodeId: 'connection', staticPressureLow: 0, staticPressureHigh: 0, pressureBasis: 'Not entered yet' },
+    devices: [],
+    nodes: [{ id: 'connection', label: 'Connection to the main', elevation: 0, fixtureGroups: [], checkedFixtures: [] }],
+    segments: [],
+  });
+}
+
+function parseDocument(document: unknown): SystemDocument {
+  const parsed = SystemDocumentSchema.safeParse(document);
+  if (!parsed.success) {
+    const fields = Object.fromEntries(Object.entries(fieldsFromZod(parsed.error)).map(([k, v]) => [`document.${k}`, v]));
+    throw new AppError(400, 'VALIDATION_FAILED', 'The system document does not match the format.', fields);
+  }
+  return parsed.data;
+}
+
+const locked = (r: RevisionRow) =>
+  new AppError(409, 'CONFLICT', `Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
+
+export const systemsService = {
+  async list(ctx: ServiceContext, projectId: string): Promise<SystemInfo[]> {
+    const systems = await systemsRepo.listForProject(ctx.db, projectId);
+    const latest = systems.length ? await revisionsRepo.latestForSystems(ctx.db, systems.map((s) => s.id)) : [];
+    return systems.map((s) => toSystem(s, latest.find((r) => r.system_id === s.id)));
+  },
+
+  async create(ctx: ServiceContext, actor: Actor, projectId: string, body: CreateSystemBody) {
+    const project = await projectsRepo.findById(ctx.db, projectId);
+    if (!project) throw notFound('The project');
+    const document =
+      body.document !== undefined
+        ? { ...parseDocument(body.document), name: body.name, service: body.service }
+        : starterDocument(body.name, body.service, project.unit_system, body.waterTemperature);
+    return ctx.db.transaction(async (trx) => {
+      const system = await systemsRepo.insert(trx, { project_id: projectId, name: body.name, service: body.service, created_by: actor.id });
+      const revision = await revisionsRepo.insert(trx, { system_id: system.id, number: 1, document, analysis: analyse(document), engine_version: ENGINE_VERSION, created_by: actor.id });
+      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'system.created', subjectType: 'system', subjectId: system.id, details: { name: body.name, imported: body.document !== undefined } });
+      return { system: toSystem(system, revision), revision: toRevision(revision) };
+    });
+  },
+
+  async get(ctx: ServiceContext, projectId: string, systemId: string) {
+    const system = await systemsRepo.find(ctx.db, projectId, systemId);
+    if (!system) throw notFound('The system');
+    const revisions = await revisionsRepo.listForSystem(ctx.db, systemId);
+    return { system: toSystem(system, revisions[0]), revisions: revisions.map(toSummary) };
+  },
+
+  async revision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Revision> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    const revision = await revisionsRepo.find(ctx.db, systemId, revisionId);
+    if (!revision) throw notFound('The revision');
+    return toRevision(revision);
+  },
+
+  /** Saves a draft; the server recomputes the analysis with the same engine the client runs. */
+  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, document: SystemDocument, version: number): Promise<Revision> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    const analysis = analyse(document);
+    return ctx.db.transaction(async (trx) => {
+      const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
+      if (!current) throw notFound('The revision');
+      if (current.status !== 'draft') throw locked(current);
+      if (current.version !== version) throw staleVersion();
+      const saved = await revisionsRepo.saveDraft(trx, revisionId, version, document, analysis, ENGINE_VERSION);
+      if (!saved) throw staleVersion();
+      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.saved', subjectType: 'revision', subjectId: revisionId, details: { number: saved.number, version: saved.version } });
+      return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
+    });
+  },
+
+  async issue(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, version: number, note: string | null): Promise<Revision> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    return ctx.db.transaction(async (trx) => {
+      const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
+      if (!current) throw notFound('The revision');
+      if (current.status !== 'draft') throw locked(current);
+      if (current.version !== version) throw staleVersion();
+      if (!(current.analysis as StoredAnalysis).ok) {
+        throw new AppError(409, 'CONFLICT', `This draft cannot be issued: ${(current.analysis as { error: { message: string } }).error.message}`);
+      }
+      const issued = await revisionsRepo.issue(trx, revisionId, version, actor.id, inputHash(current.document), note);
+      if (!issued) throw staleVersion();
+      await revisionsRepo.supersedeIssued(trx, systemId, revisionId);
+      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.issued', subjectType: 'revision', subjectId: revisionId, details: { number: issued.number, inputHash: issued.input_hash } });
+      return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
+    });
+  },
+
+  /** A new draft copied from any revision; a system has at most one draft. */
+  async newDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, fromRevisionId: string): Promise<Revision> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    return ctx.db.transaction(async (trx) => {
+      await trx.raw('SELECT id FROM systems WHERE id = ? FOR UPDATE', [systemId]);
+      const existing = await revisionsRepo.draftOf(trx, systemId);
+      if (existing) throw new AppError(409, 'CONFLICT', `Revision ${existing.number} is already a draft; continue there.`);
+      const from = await revisionsRepo.find(trx, systemId, fromRevisionId);
+      if (!from) throw notFound('The revision');
+      const number = await revisionsRepo.nextNumber(trx, systemId);
+      const revision = await revisionsRepo.insert(trx, {
+        system_id: systemId,
+        number,
+        document: from.document,
+        analysis: analyse(from.document),
+        engine_version: ENGINE_VERSION,
+        created_by: actor.id,
+        note: `Started from revision ${from.number}`,
+      });
+      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.drafted', subjectType: 'revision', subjectId: revision.id, details: { number, from: from.number } });
+      return toRevision((await revisionsRepo.find(trx, systemId, revision.id))!);
+    });
+  },
+
+  async compare(ctx: ServiceContext, projectId: string, systemId: string, aId: string, bId: string): Promise<CompareResponse> {
+    const [a, b] = await Promise.all([this.revision(ctx, projectId, systemId, aId), this.revision(ctx, projectId, systemId, bId)]);
+    const fa = (a.analysis as StoredAnalysis).ok ? (a.analysis as Extract<StoredAnalysis, { ok: true }>).analysis : null;
+    const fb = (b.analysis as StoredAnalysis).ok ? (b.analysis as Extract<StoredAnalysis, { ok: true }>).analysis : null;
+    const ids = [...new Set([...(fa?.fixtures ?? []).map((f) => f.id), ...(fb?.fixtures ?? []).map((f) => f.id)])];
+    const fixtures = ids.map((id) => {
+      const x = fa?.fixtures.find((f) => f.id === id);
+      const y = fb?.fixtures.find((f) => f.id === id);
+      return {
+        id,
+        label: y?.label ?? x?.label ?? id,
+        marginA: x?.margin ?? null,
+        marginB: y?.margin ?? null,
+        delta: x && y ? y.margin - x.margin : null,
+        passA: x?.pass ?? null,
+        passB: y?.pass ?? null,
+      };
+    });
+    const segA = new Map(((a.document as SystemDocument).segments ?? []).map((s) => [s.id, s]));
+    const segB = new Map(((b.document as SystemDocument).segments ?? []).map((s) => [s.id, s]));
+    const segments: CompareResponse['segments'] = [];
+    for (const [id, s] of segA) {
+      const t = segB.get(id);
+      if (!t) segments.push({ id, change: 'removed', fields: [] });
+      else {
+        const keys = [...new Set([...Object.keys(s), ...Object.keys(t)])] as (keyof typeof s)[];
+        const fields = keys.filter((k) => JSON.stringify(s[k]) !== JSON.stringify(t[k]));
+        if (fields.length) segments.push({ id, change: 'changed', fields: fields as string[] });
+      }
+    }
+    for (const id of segB.keys()) if (!segA.has(id)) segments.push({ id, change: 'added', fields: [] });
+    return { a, b, fixtures, segments, pressureUnit: fb?.units.pressure ?? fa?.units.pressure ?? '' };
+  },
+};

@@ -1,0 +1,86 @@
+import { z } from 'zod';
+import { SystemDocumentSchema } from '../../engine/model/schema';
+import { ProjectParams } from './projects';
+
+export const SERVICES = ['cold', 'hot'] as const;
+export const REVISION_STATUSES = ['draft', 'issued', 'superseded'] as const;
+export const RevisionStatus = z.enum(REVISION_STATUSES);
+export type RevisionStatus = z.infer<typeof RevisionStatus>;
+
+export const CreateSystemBody = z
+  .object({
+    name: z.string().trim().min(1, 'Enter a system name').max(160),
+    service: z.enum(SERVICES),
+    /** °F or °C in the project's unit system; default 60 °F / 15.6 °C cold, 140 °F / 60 °C hot */
+    waterTemperature: z.number().min(-10, 'Too cold for liquid water in a building').max(212, 'Too hot').optional(),
+    /** a whole system document (JSON import); otherwise a starter document is made */
+    document: z.unknown().optional(),
+  })
+  .strict();
+export type CreateSystemBody = z.infer<typeof CreateSystemBody>;
+
+export const SaveDocumentBody = z.object({ document: SystemDocumentSchema, version: z.number().int().min(1) }).strict();
+export const IssueBody = z.object({ version: z.number().int().min(1), note: z.string().max(2000).optional() }).strict();
+export const NewDraftBody = z.object({ fromRevisionId: z.string().uuid('Not a revision id') }).strict();
+
+export const SystemParams = ProjectParams.extend({ systemId: z.string().uuid('Not a system id') });
+export const RevisionParams = SystemParams.extend({ revisionId: z.string().uuid('Not a revision id') });
+export const CompareQuery = z.object({ a: z.string().uuid('Not a revision id'), b: z.string().uuid('Not a revision id') });
+
+/** The verdict of a revision in a few numbers, for lists. */
+export const RevisionVerdict = z.object({
+  ok: z.boolean(),
+  allPass: z.boolean().nullable(),
+  criticalFixtureId: z.string().nullable(),
+  criticalMargin: z.number().nullable(),
+  warningCount: z.number().int(),
+  errorMessage: z.string().nullable(),
+});
+export type RevisionVerdict = z.infer<typeof RevisionVerdict>;
+
+export const RevisionSummary = z.object({
+  id: z.string(),
+  number: z.number().int(),
+  status: RevisionStatus,
+  version: z.number().int(),
+  updatedAt: z.string(),
+  issuedAt: z.string().nullable(),
+  issuedBy: z.string().nullable(),
+  inputHash: z.string().nullable(),
+  verdict: RevisionVerdict,
+});
+export type RevisionSummary = z.infer<typeof RevisionSummary>;
+
+export const Revision = RevisionSummary.extend({
+  document: z.unknown(),
+  /** the engine's analysis ({ ok: true, analysis } or { ok: false, error }) computed by the server */
+  analysis: z.unknown(),
+  note: z.string().nullable(),
+});
+export type Revision = z.infer<typeof Revision>;
+
+export const SystemInfo = z.object({
+  id: z.string(),
+  projectId: z.string(),
+  name: z.string(),
+  service: z.enum(SERVICES),
+  createdAt: z.string(),
+  latest: RevisionSummary.nullable(),
+});
+export type SystemInfo = z.infer<typeof SystemInfo>;
+
+export const SystemListResponse = z.object({ systems: z.array(SystemInfo) });
+export const SystemDetailResponse = z.object({ system: SystemInfo, revisions: z.array(RevisionSummary) });
+export const RevisionResponse = z.object({ revision: Revision });
+export const CreateSystemResponse = z.object({ system: SystemInfo, revision: Revision });
+
+export const CompareResponse = z.object({
+  a: RevisionSummary,
+  b: RevisionSummary,
+  fixtures: z.array(
+    z.object({ id: z.string(), label: z.string(), marginA: z.number().nullable(), marginB: z.number().nullable(), delta: z.number().nullable(), passA: z.boolean().nullable(), passB: z.boolean().nullable() }),
+  ),
+  segments: z.array(z.object({ id: z.string(), change: z.enum(['added', 'removed', 'changed']), fields: z.array(z.string()) })),
+  pressureUnit: z.string(),
+});
+export type CompareResponse = z.infer<typeof CompareResponse>;
