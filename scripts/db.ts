@@ -1,5 +1,6 @@
 // Database chores run with tsx: `migrate` (latest), `seed` (demo scenario), `setup` (migrate,
-// then seed the demo when there are no users yet — what `npm start` does).
+// then seed the demo when there are no users yet — what `npm start` does), `catalogs` (migrate and
+// seed only the cited catalogs, for the API tests).
 import { createDb } from '../server/db/knex';
 
 const command = process.argv[2] ?? 'setup';
@@ -12,6 +13,10 @@ const db = createDb(url);
 try {
   const [, applied] = await db.migrate.latest();
   if (applied.length) console.log(`[headroom] applied ${applied.length} migration(s)`);
+  if (command === 'catalogs') {
+    // the API tests' database: the schema and the cited catalogs, no demo scenario
+    await db.seed.run({ specific: '00_catalogs.ts' });
+  }
   if (command === 'seed' || command === 'setup') {
     const { count } = (await db('users').count({ count: '*' }).first()) as { count: string };
     if (command === 'seed' || Number(count) === 0) {

@@ -73,7 +73,7 @@ try {
     env.E2E_DATABASE_URL = pg.databaseUrl(port, 'headroom_e2e');
     env.TEST_PG_BIN = pgBin;
     env.TEST_PG_DATA = pgData;
-    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'migrate'], { DATABASE_URL: env.TEST_DATABASE_URL }) !== 0) throw new Error('migrations failed');
+    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'catalogs'], { DATABASE_URL: env.TEST_DATABASE_URL }) !== 0) throw new Error('migrations failed');
     pg.log(`throw-away PostgreSQL on 127.0.0.1:${port}`);
   }
 

@@ -14,6 +14,7 @@ import { authRoutes } from './routes/auth';
 import { usersRoutes } from './routes/users';
 import { projectsRoutes } from './routes/projects';
 import { systemsRoutes } from './routes/systems';
+import { catalogRoutes } from './routes/catalog';
 import type { ServiceContext } from './services/context';
 
 export interface HeadroomApp {
@@ -47,6 +48,7 @@ export function createApp({ config, db }: { config: Config; db: Db }): HeadroomA
   api.use(usersRoutes(ctx));
   api.use(projectsRoutes(ctx));
   api.use(systemsRoutes(ctx));
+  api.use(catalogRoutes(ctx));
   api.use((req) => {
     throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
   });

@@ -59,6 +59,7 @@ const ROWS: Row[] = [
     expect: adminOnly(201),
     request: async ({ h }) => ({ url: `/api/users/${(await makeUser(h.db, { status: 'invited' })).id}/invitations` }),
   },
+  { method: 'GET', path: '/api/catalog', expect: signedInOnly(200), request: async () => ({ url: '/api/catalog' }) },
   { method: 'GET', path: '/api/projects', expect: signedInOnly(200), request: async () => ({ url: '/api/projects' }) },
   {
     method: 'POST',
