@@ -1,0 +1,6 @@
+export { HUNTER_TABLE_IPC, HUNTER_TABLE_IPC_SOURCE } from './hunterTable';
+export type { HunterTableRow } from './hunterTable';
+export { hunterDesignFlowGpm, hunterDesignFlow } from './hunterDesignFlow';
+export type { DemandCurve, HunterDesignFlowGpm } from './hunterDesignFlow';
+export { hunterBinomialDemand } from './hunterBinomial';
+export type { FixtureUseGroup } from './hunterBinomial';
