@@ -1,6 +1,6 @@
 import { defineConfig } from 'vitest/config';
 
-// Two projects: the pure engine and unit tests (no database), and the API suite, which
+// Two projects: the pure engine, unit and client-logic tests (no database), and the API suite, which
 // scripts/test.mjs runs against a throw-away PostgreSQL cluster (TEST_DATABASE_URL).
 export default defineConfig({
   test: {
@@ -8,7 +8,7 @@ export default defineConfig({
       {
         test: {
           name: 'engine',
-          include: ['tests/engine/**/*.test.ts', 'tests/unit/**/*.test.ts'],
+          include: ['tests/engine/**/*.test.ts', 'tests/unit/**/*.test.ts', 'tests/client/**/*.test.ts'],
           environment: 'node',
           testTimeout: 60_000,
         },

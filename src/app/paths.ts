@@ -1,0 +1,45 @@
+/**
+ * Every route of the client, in one table: the router reads `path`, links call `getHref`.
+ * No other file writes a route string by hand.
+ */
+export const paths = {
+  home: {
+    path: '/',
+    getHref: () => '/',
+  },
+  signIn: {
+    path: '/sign-in',
+    /** `redirectTo` is where to return after signing in; only same-site paths are kept. */
+    getHref: (redirectTo?: string | null) =>
+      redirectTo && isSafeRedirect(redirectTo) && redirectTo !== '/sign-in'
+        ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}`
+        : '/sign-in',
+  },
+  invitation: {
+    path: '/invitations/:token',
+    getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  projects: {
+    path: '/projects',
+    getHref: () => '/projects',
+  },
+  newProject: {
+    path: '/projects/new',
+    getHref: () => '/projects/new',
+  },
+  project: {
+    path: '/projects/:projectId',
+    getHref: (projectId: string) => `/projects/${encodeURIComponent(projectId)}`,
+  },
+  users: {
+    path: '/users',
+    getHref: () => '/users',
+  },
+} as const;
+
+export type PathName = keyof typeof paths;
+
+/** A path on this site (starts with one slash, not two, no scheme): safe to send someone to after sign-in. */
+export function isSafeRedirect(target: string): boolean {
+  return target.startsWith('/') && !target.startsWith('//') && !target.startsWith('/\\');
+}

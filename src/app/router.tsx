@@ -1,0 +1,37 @@
+import type { ReactNode } from 'react';
+import { Navigate, createBrowserRouter } from 'react-router-dom';
+import type { RouteObject } from 'react-router-dom';
+import { RouteErrorBoundary, RouterErrorView } from '../components/errors/route-error-boundary';
+import { paths } from './paths';
+import { AppRoot } from './routes/app-root';
+import { InvitationRoute } from './routes/invitation';
+import { NewProjectRoute } from './routes/new-project';
+import { NotFoundRoute } from './routes/not-found';
+import { ProjectRoute } from './routes/project';
+import { ProjectsRoute } from './routes/projects';
+import { SignInRoute } from './routes/sign-in';
+import { UsersRoute } from './routes/users';
+
+/** Each major route gets its own error boundary, so one failing page leaves the shell and the others working. */
+const guarded = (what: string, element: ReactNode) => <RouteErrorBoundary what={what}>{element}</RouteErrorBoundary>;
+
+export const routes: RouteObject[] = [
+  { path: paths.signIn.path, element: guarded('the sign-in page', <SignInRoute />), errorElement: <RouterErrorView /> },
+  { path: paths.invitation.path, element: guarded('the invitation', <InvitationRoute />), errorElement: <RouterErrorView /> },
+  {
+    element: <AppRoot />,
+    errorElement: <RouterErrorView />,
+    children: [
+      { path: paths.home.path, element: <Navigate replace to={paths.projects.getHref()} /> },
+      { path: paths.projects.path, element: guarded('your projects', <ProjectsRoute />) },
+      { path: paths.newProject.path, element: guarded('the new-project form', <NewProjectRoute />) },
+      { path: paths.project.path, element: guarded('this project', <ProjectRoute />) },
+      { path: paths.users.path, element: guarded('the accounts', <UsersRoute />) },
+      { path: '*', element: <NotFoundRoute /> },
+    ],
+  },
+];
+
+export function createRouter() {
+  return createBrowserRouter(routes);
+}

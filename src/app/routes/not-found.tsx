@@ -1,0 +1,5 @@
+import { NotFoundView } from '../../components/errors/not-found-view';
+
+export function NotFoundRoute() {
+  return <NotFoundView />;
+}

@@ -1,0 +1,49 @@
+import { describe, expect, it } from 'vitest';
+import { matchPath, matchRoutes } from 'react-router-dom';
+import type { RouteObject } from 'react-router-dom';
+import { isSafeRedirect, paths } from '../../src/app/paths';
+import { routes } from '../../src/app/router';
+
+function allPatterns(list: RouteObject[]): string[] {
+  return list.flatMap((route) => [...(route.path ? [route.path] : []), ...allPatterns(route.children ?? [])]);
+}
+
+const TABLE_PATTERNS = Object.values(paths).map((entry) => entry.path);
+
+describe('route table', () => {
+  it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {
+    const used = allPatterns(routes);
+    for (const pattern of used) expect([...TABLE_PATTERNS, '*']).toContain(pattern);
+    for (const pattern of TABLE_PATTERNS) expect(used).toContain(pattern);
+  });
+
+  it('when a link is made for an id with awkward characters, then it matches its own route and gives the id back', () => {
+    const awkward = 'a b/c?d#e';
+    // matchRoutes decodes the address the way the browser router does before matching.
+    const project = matchRoutes(routes, paths.project.getHref(awkward))?.at(-1);
+    expect(project?.route.path).toBe(paths.project.path);
+    expect(project?.params.projectId).toBe(awkward);
+    const invitation = matchPath(paths.invitation.path, paths.invitation.getHref('tok_-9'));
+    expect(invitation?.params.token).toBe('tok_-9');
+  });
+
+  it('when an address is matched, then it reaches the intended page and unknown addresses reach the catch-all', () => {
+    const leaf = (url: string) => matchRoutes(routes, url)?.at(-1)?.route.path;
+    expect(leaf('/projects')).toBe(paths.projects.path);
+    expect(leaf('/projects/new')).toBe(paths.newProject.path);
+    expect(leaf('/projects/3f1c')).toBe(paths.project.path);
+    expect(leaf('/users')).toBe(paths.users.path);
+    expect(leaf('/sign-in')).toBe(paths.signIn.path);
+    expect(leaf('/invitations/xyz')).toBe(paths.invitation.path);
+    expect(leaf('/no/such/page')).toBe('*');
+  });
+
+  it('when sign-in is given a place to return to, then only same-site paths are kept', () => {
+    expect(paths.signIn.getHref('/projects/p1')).toBe('/sign-in?redirectTo=%2Fprojects%2Fp1');
+    expect(paths.signIn.getHref('//evil.example/x')).toBe('/sign-in');
+    expect(paths.signIn.getHref('https://evil.example')).toBe('/sign-in');
+    expect(paths.signIn.getHref('/sign-in')).toBe('/sign-in');
+    expect(isSafeRedirect('/\\evil.example')).toBe(false);
+    expect(isSafeRedirect('/users')).toBe(true);
+  });
+});
