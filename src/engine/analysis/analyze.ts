@@ -1,0 +1,55 @@
+/**
+ * The analysis pipeline: input → validation → topology → demand → hydraulics → checks →
+ * report. Each stage takes the previous stages' results explicitly; nothing is kept between
+ * calls. Structural problems throw EngineInputError; everything else becomes a warning.
+ */
+import { EngineInputError } from '../errors';
+import type { EngineWarning } from '../warnings';
+import { buildModel, parseDocument } from './input';
+import { buildTopology } from './topology';
+import { computeDemand } from './demand';
+import { computeHydraulics } from './hydraulics';
+import { runChecks } from './checks';
+import { assembleReport } from './report';
+import { assertFiniteDeep } from './finite';
+import type { Analysis } from './types';
+import type { SystemDocument } from '../model/schema';
+
+export function analyzeSystem(doc: unknown): Analysis {
+  return analyzeValidated(parseDocument(doc));
+}
+
+/**
+ * The analysis of a document that has already passed the schema (SystemDocumentSchema.parse):
+ * what the live client re-runs on every edit. Catalog, reference and topology checks still run.
+ */
+export function analyzeValidated(parsed: SystemDocument): Analysis {
+  const model = buildModel(parsed);
+  const topo = buildTopology(model);
+  const warnings: EngineWarning[] = [];
+  const demand = computeDemand(model, topo, warnings);
+  const hyd = computeHydraulics(model, topo, demand, warnings);
+  const checks = runChecks(model, hyd, warnings);
+  const analysis = assembleReport(model, topo, demand, hyd, checks, warnings);
+  assertFiniteDeep(analysis.si);
+  return analysis;
+}
+
+export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };
+
+/** Like analyzeSystem, but returns the structured error instead of throwing it. */
+export function safeAnalyzeSystem(doc: unknown): SafeAnalysis {
+  try {
+    return { ok: true, analysis: analyzeSystem(doc) };
+  } catch (e) {
+    if (e instanceof EngineInputError) return { ok: false, error: e };
+    if (e instanceof RangeError) {
+      // A correlation refused its arguments: the document reached it with a value it cannot take.
+      return {
+        ok: false,
+        error: new EngineInputError({ code: 'value-out-of-range', elementType: 'system', message: e.message }),
+      };
+    }
+    throw e;
+  }
+}

@@ -1,0 +1,261 @@
+/**
+ * Stage 5: hydraulics. One forward pass over the breadth-first order computes, for each
+ * segment at its design flow: velocity, Reynolds number, friction factor and loss, fittings'
+ * K (referred to the segment's own velocity) and loss, the size-change loss at its start,
+ * the devices at its inlet, the rise, and the pressures at both ends. Everything is SI.
+ *
+ * Pressure along a segment (the order the ledger repeats, operation for operation):
+ *   p = p(from node); for each device in list order: p −= its loss (a PRV's loss is
+ *   p − min(p, set − fall-off·Q); a booster's is its curve/fixed loss − gain);
+ *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
+ */
+import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
+import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis } from '../fittings';
+import { lossCurveAt } from '../devices/lossCurve';
+import { flowTestPressureAt } from '../supply/flowTest';
+import { G } from '../units';
+import { makeGroupedWarning, makeWarning, type EngineWarning } from '../warnings';
+import type { SiModel } from './input';
+import type { Topology } from './topology';
+import type { DemandResult } from './demand';
+
+/** Relative difference in inside diameter below which two sizes count as equal (round-off of catalog data). */
+const SAME_DIAMETER_RTOL = 1e-9;
+
+export interface DeviceLossSI {
+  deviceId: string;
+  kind: string;
+  label: string;
+  lossPa: number;
+  extrapolated: boolean;
+}
+
+export interface HydraulicsResult {
+  velocity: Float64Array;
+  reynolds: Float64Array;
+  frictionFactor: Float64Array;
+  regime: FlowRegime[];
+  fittingsK: Float64Array;
+  sizeChangeK: Float64Array;
+  frictionLossPa: Float64Array;
+  fittingLossPa: Float64Array;
+  riseM: Float64Array;
+  riseLossPa: Float64Array;
+  deviceLossPa: Float64Array;
+  devices: DeviceLossSI[][];
+  inletPa: Float64Array;
+  outletPa: Float64Array;
+  nodePressurePa: Float64Array;
+  nodeStaticHighPa: Float64Array;
+  nodeStaticLowPa: Float64Array;
+  nodeDevelopedLengthM: Float64Array;
+  source: { pressurePa: number; basis: 'flow-test' | 'low-static' };
+}
+
+export function computeHydraulics(
+  model: SiModel,
+  topo: Topology,
+  demand: DemandResult,
+  warnings: EngineWarning[],
+): HydraulicsResult {
+  const segs = model.segments;
+  const nSegs = segs.length;
+  const nNodes = model.nodeIds.length;
+  const { density: rho, kinematicViscosity: nu } = model.water;
+  const rhoG = rho * G;
+  const method = model.criteria.frictionMethod;
+  const fittingMethod = model.criteria.fittingMethod;
+
+  const r: HydraulicsResult = {
+    velocity: new Float64Array(nSegs),
+    reynolds: new Float64Array(nSegs),
+    frictionFactor: new Float64Array(nSegs),
+    regime: new Array(nSegs),
+    fittingsK: new Float64Array(nSegs),
+    sizeChangeK: new Float64Array(nSegs),
+    frictionLossPa: new Float64Array(nSegs),
+    fittingLossPa: new Float64Array(nSegs),
+    riseM: new Float64Array(nSegs),
+    riseLossPa: new Float64Array(nSegs),
+    deviceLossPa: new Float64Array(nSegs),
+    devices: new Array(nSegs),
+    inletPa: new Float64Array(nSegs),
+    outletPa: new Float64Array(nSegs),
+    nodePressurePa: new Float64Array(nNodes),
+    nodeStaticHighPa: new Float64Array(nNodes),
+    nodeStaticLowPa: new Float64Array(nNodes),
+    nodeDevelopedLengthM: new Float64Array(nNodes),
+    source: sourcePressure(model, demand, warnings),
+  };
+
+  const src = model.source.nodeIdx;
+  r.nodePressurePa[src] = r.source.pressurePa;
+  r.nodeStaticHighPa[src] = model.source.staticHighPa;
+  r.nodeStaticLowPa[src] = model.source.staticLowPa;
+
+  let missingRise = 0;
+  const sizeChangeIds: string[] = [];
+  let boosterSeen = false;
+  for (let k = 0; k < nSegs; k++) {
+    const s = topo.order[k];
+    const seg = segs[s];
+    const Q = demand.designFlowM3s[s];
+    const D = seg.innerDiameterM;
+    const area = (Math.PI * D * D) / 4;
+    const V = Q / area;
+    const Re = (V * D) / nu;
+    const dynamicPressure = 0.5 * rho * V * V;
+    r.velocity[s] = V;
+    r.reynolds[s] = Re;
+
+    // Friction
+    let f = 0;
+    let frictionPa = 0;
+    let regime: FlowRegime = Re >= 4000 ? 'turbulent' : Re >= 2300 ? 'transitional' : 'laminar';
+    if (Q > 0) {
+      if (method === 'hazen-williams') {
+        frictionPa = rhoG * hazenWilliamsHeadLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
+        // Darcy factor equivalent to the Hazen–Williams loss, for reporting and for the fittings.
+        f = (frictionPa * D) / (seg.lengthM * dynamicPressure);
+      } else {
+        const fr = darcyFrictionFactor(method, Re, seg.roughnessM / D);
+        f = fr.f;
+        regime = fr.regime;
+        frictionPa = f * (seg.lengthM / D) * dynamicPressure;
+        if (fr.regime === 'laminar') warnings.push(makeWarning('laminar-flow', 'segment', seg.id, `Re = ${Math.round(Re)}`));
+        else if (fr.regime === 'transitional') warnings.push(makeWarning('transitional-flow', 'segment', seg.id, `Re = ${Math.round(Re)}`));
+        else if (fr.outsideValidity) warnings.push(makeWarning('friction-outside-validity', 'segment', seg.id, fr.note));
+      }
+    }
+    r.frictionFactor[s] = f;
+    r.regime[s] = regime;
+    r.frictionLossPa[s] = frictionPa;
+
+    // Fittings, referred to this segment's velocity; evaluated only with flow (K of the
+    // Reynolds-dependent methods is undefined at Re = 0, and the loss is zero anyway).
+    let kFittings = 0;
+    if (Q > 0) {
+      for (const fit of seg.fittings) {
+        const res = fittingK(fit.typeId, {
+          method: fittingMethod,
+          innerDiameterM: D,
+          nominalSizeIn: seg.nominalSizeIn,
+          nominalSizeKey: seg.nominalSizeKey,
+          Re,
+          frictionFactor: f,
+        });
+        kFittings += fit.count * res.K;
+        if (res.fellBackFrom !== undefined) {
+          warnings.push(
+            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
+          );
+        }
+      }
+    }
+    // Size change at the start of the segment, carrying this segment's flow.
+    let kSize = 0;
+    const parent = topo.parentSeg[s];
+    if (seg.reducerAuto && parent !== -1 && Q > 0) {
+      const Dp = segs[parent].innerDiameterM;
+      if (Math.abs(Dp - D) > SAME_DIAMETER_RTOL * D) {
+        kSize = Dp < D ? changeKBasis(suddenExpansionK(Dp, D), Dp, D) : suddenContractionK(Dp, D);
+        sizeChangeIds.push(seg.id);
+      }
+    }
+    r.fittingsK[s] = kFittings;
+    r.sizeChangeK[s] = kSize;
+    const fittingPa = (kFittings + kSize) * dynamicPressure;
+    r.fittingLossPa[s] = fittingPa;
+
+    // Rise: node elevations are the truth; an entered rise is checked against them.
+    const rise = model.elevationM[seg.to] - model.elevationM[seg.from];
+    if (seg.riseEnteredM === null) missingRise++;
+    else if (Math.abs(seg.riseEnteredM - rise) > model.riseToleranceM) {
+      warnings.push(
+        makeWarning(
+          'rise-elevation-mismatch',
+          'segment',
+          seg.id,
+          `entered rise ${seg.riseEnteredM.toFixed(3)} m, node elevations give ${rise.toFixed(3)} m`,
+        ),
+      );
+    }
+    r.riseM[s] = rise;
+    const risePa = rhoG * rise;
+    r.riseLossPa[s] = risePa;
+
+    // Pressures
+    const inlet = r.nodePressurePa[seg.from];
+    let p = inlet;
+    let staticHigh = r.nodeStaticHighPa[seg.from];
+    let staticLow = r.nodeStaticLowPa[seg.from];
+    let deviceTotal = 0;
+    const devs: DeviceLossSI[] = [];
+    for (const d of model.devicesBySeg[s]) {
+      let loss = 0;
+      let extrapolated = false;
+      if (d.curve) {
+        const c = lossCurveAt(d.curve, Q);
+        loss = c.lossPa;
+        extrapolated = c.extrapolated;
+        if (extrapolated) warnings.push(makeWarning('device-curve-extrapolated', 'device', d.id));
+      } else if (d.fixedLossPa !== null) {
+        loss = Q > 0 ? d.fixedLossPa : 0;
+      }
+      if (d.prv) {
+        const outlet = Math.min(p - loss, d.prv.setPa - d.prv.falloffPaPerM3s * Q);
+        if (d.prv.setPa - d.prv.falloffPaPerM3s * Q > p - loss) {
+          warnings.push(makeWarning('prv-inlet-below-set', 'device', d.id));
+        } else {
+          warnings.push(makeWarning('prv-active', 'device', d.id));
+        }
+        loss = p - outlet;
+        // At no flow the outlet sits at the set pressure (or the inlet, if lower).
+        staticHigh = Math.min(staticHigh, d.prv.setPa);
+        staticLow = Math.min(staticLow, d.prv.setPa);
+      }
+      if (d.boostPa > 0) {
+        loss -= d.boostPa;
+        staticHigh += d.boostPa;
+        staticLow += d.boostPa;
+        boosterSeen = true;
+      }
+      p -= loss;
+      deviceTotal += loss;
+      devs.push({ deviceId: d.id, kind: d.kind, label: d.label, lossPa: loss, extrapolated });
+    }
+    p -= frictionPa;
+    p -= fittingPa;
+    p -= risePa;
+    r.devices[s] = devs;
+    r.deviceLossPa[s] = deviceTotal;
+    r.inletPa[s] = inlet;
+    r.outletPa[s] = p;
+    r.nodePressurePa[seg.to] = p;
+    r.nodeStaticHighPa[seg.to] = staticHigh - risePa;
+    r.nodeStaticLowPa[seg.to] = staticLow - risePa;
+    r.nodeDevelopedLengthM[seg.to] = r.nodeDevelopedLengthM[seg.from] + seg.lengthM;
+  }
+  if (missingRise > 0) {
+    warnings.push(makeWarning('rise-from-elevations', 'system', model.doc.id, `${missingRise} segment(s) without an entered rise`));
+  }
+  if (sizeChangeIds.length > 0) warnings.push(makeGroupedWarning('size-change-loss', 'segment', sizeChangeIds));
+  if (boosterSeen) warnings.push(makeWarning('booster-gain-at-static', 'system', model.doc.id));
+  return r;
+}
+
+function sourcePressure(model: SiModel, demand: DemandResult, warnings: EngineWarning[]): HydraulicsResult['source'] {
+  const src = model.source;
+  const id = model.nodeIds[src.nodeIdx];
+  const min = model.criteria.minStaticPressurePa;
+  if (min !== undefined && src.staticLowPa < min) warnings.push(makeWarning('static-below-min', 'source', id));
+  if (src.flowTest) {
+    const Q = demand.source.designFlowM3s;
+    warnings.push(makeWarning('flow-test-used', 'source', id));
+    if (Q > src.flowTest.testFlowM3s) warnings.push(makeWarning('flow-test-beyond-test-flow', 'source', id));
+    if (src.flowTest.staticPa > src.staticLowPa) warnings.push(makeWarning('flow-test-static-above-low', 'source', id));
+    return { pressurePa: flowTestPressureAt(Q, src.flowTest), basis: 'flow-test' };
+  }
+  warnings.push(makeWarning('source-low-static-used', 'source', id));
+  return { pressurePa: src.staticLowPa, basis: 'low-static' };
+}

@@ -1,0 +1,444 @@
+/**
+ * Stages 1–2: input and validation. The document is parsed with the zod schema (structure,
+ * types, finite numbers, signs), then checked against the catalogs and for references, and
+ * converted to one SI model with index arrays that the later stages walk linearly.
+ */
+import type { z } from 'zod';
+import { SystemDocumentSchema, type SystemDocument } from '../model/schema';
+import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
+import { toSI, type UnitSystem } from '../units';
+import { waterProperties, type WaterProperties } from '../water';
+import { MATERIALS, pipeSize, type MaterialId } from '../catalog/materials';
+import { FIXTURE_TYPES } from '../catalog/fixtures';
+import { DEFAULT_CRITERIA, type Criteria } from '../catalog/criteria';
+import { FITTING_TYPES } from '../fittings';
+import type { DemandCurve } from '../demand';
+
+/** Range of waterProperties (IAPWS at 1 atm, liquid): 0.01–100 °C, per the engine contract. */
+const WATER_T_MIN_C = 0.01;
+const WATER_T_MAX_C = 100;
+/**
+ * Default tolerance between a segment's rise and its node elevations: 0.1 ft (about 1 in),
+ * common practice for floor-to-floor dimensions on riser diagrams; overridable in the criteria.
+ */
+const DEFAULT_RISE_TOLERANCE_M = 0.1 * 0.3048;
+/** Shared (frozen) empty list for the many nodes without fixtures. */
+const NO_GROUPS: SiFixtureGroup[] = Object.freeze([]) as unknown as SiFixtureGroup[];
+
+export interface SiFixtureGroup {
+  fixtureTypeId: string;
+  count: number;
+  wsfu: number;
+  curve: DemandCurve;
+  usage: { flowM3s: number; durationS: number; recurrenceS: number } | null;
+}
+
+export interface SiCheckedFixture {
+  id: string;
+  nodeIdx: number;
+  fixtureTypeId: string;
+  label: string;
+  requiredPa: number;
+  flowRateM3s: number;
+  expectedCritical: boolean;
+}
+
+export interface SiFitting {
+  typeId: string;
+  count: number;
+}
+
+export interface SiDevice {
+  id: string;
+  kind: string;
+  label: string;
+  segIdx: number;
+  fixedLossPa: number | null;
+  curve: { flowM3s: number; lossPa: number }[] | null;
+  prv: { setPa: number; falloffPaPerM3s: number } | null;
+  boostPa: number;
+}
+
+export interface SiSegment {
+  id: string;
+  label: string | null;
+  from: number;
+  to: number;
+  innerDiameterM: number;
+  roughnessM: number;
+  hazenWilliamsC: number;
+  velocityClass: 'copper' | 'plastic' | 'steel';
+  nominalSizeIn: number;
+  nominalSizeKey: string;
+  lengthM: number;
+  riseEnteredM: number | null;
+  fittings: SiFitting[];
+  flowOverrideM3s: number | null;
+  reducerAuto: boolean;
+}
+
+export interface SiModel {
+  doc: SystemDocument;
+  unitSystem: UnitSystem;
+  service: 'cold' | 'hot';
+  water: WaterProperties;
+  criteria: Criteria;
+  riseToleranceM: number;
+  nodeIds: string[];
+  nodeLabels: (string | null)[];
+  nodeIndex: Map<string, number>;
+  elevationM: Float64Array;
+  continuousM3s: Float64Array;
+  groupsByNode: SiFixtureGroup[][];
+  fixtures: SiCheckedFixture[];
+  segments: SiSegment[];
+  segIndex: Map<string, number>;
+  devicesBySeg: SiDevice[][];
+  source: {
+    nodeIdx: number;
+    kind: string;
+    staticLowPa: number;
+    staticHighPa: number;
+    flowTest: { staticPa: number; residualPa: number; testFlowM3s: number } | null;
+  };
+}
+
+/** Stage 1: structure. Throws EngineInputError with every zod issue mapped to an element. */
+export function parseDocument(doc: unknown): SystemDocument {
+  const parsed = SystemDocumentSchema.safeParse(doc, { reportInput: true });
+  if (parsed.success) return parsed.data;
+  const issues = parsed.error.issues.map((issue) => mapIssue(issue, doc));
+  const first = issues[0];
+  throw new EngineInputError({ ...first, issues });
+}
+
+const COLLECTION_TYPES: Record<string, ElementType> = {
+  devices: 'device',
+  nodes: 'node',
+  segments: 'segment',
+  fixtureGroups: 'fixture-group',
+  checkedFixtures: 'checked-fixture',
+  fittings: 'fitting',
+};
+
+function mapIssue(issue: z.core.$ZodIssue, doc: unknown): EngineIssue {
+  const path = issue.path.map((p) => (typeof p === 'symbol' ? String(p) : p));
+  let elementType: ElementType = 'system';
+  let elementId: string | null = null;
+  let cursor: unknown = doc;
+  let parent: unknown = null;
+  for (let i = 0; i < path.length; i++) {
+    parent = cursor;
+    const key = path[i];
+    const next = cursor !== null && typeof cursor === 'object' ? (cursor as Record<string | number, unknown>)[key] : undefined;
+    if (typeof key === 'string' && key in COLLECTION_TYPES && typeof path[i + 1] === 'number') {
+      elementType = COLLECTION_TYPES[key];
+      const item = Array.isArray(next) ? next[path[i + 1] as number] : undefined;
+      const itemId = item && typeof item === 'object' ? (item as Record<string, unknown>).id : undefined;
+      elementId = typeof itemId === 'string' ? itemId : `${key}[${String(path[i + 1])}]`;
+    } else if (key === 'source' && i === 0) {
+      elementType = 'source';
+    } else if (key === 'criteria' && i === 0) {
+      elementType = 'criteria';
+    }
+    cursor = next;
+  }
+  const stringKeys = path.filter((p): p is string => typeof p === 'string');
+  const field = path.length === 0 ? null : stringKeys[stringKeys.length - 1] ?? null;
+
+  let code: ErrorCode = 'schema-violation';
+  const raw = issue as unknown as { code: string; received?: string };
+  const lastKey = path[path.length - 1];
+  const absent =
+    path.length > 0 &&
+    parent !== null &&
+    typeof parent === 'object' &&
+    !Object.prototype.hasOwnProperty.call(parent, lastKey as PropertyKey);
+  if (raw.code !== 'unrecognized_keys' && absent) code = 'missing-field';
+  if (raw.code === 'invalid_type' && (raw.received === 'NaN' || raw.received === 'Infinity' || raw.received === '-Infinity')) {
+    code = 'non-finite-number';
+  }
+  if (raw.code === 'too_small' && field === 'length') code = 'non-positive-length';
+  if (raw.code === 'too_small' && field === 'innerDiameter') code = 'non-positive-diameter';
+  const where = elementId ? `${elementType} "${elementId}"` : elementType;
+  return {
+    code,
+    elementType,
+    elementId,
+    field,
+    path: path as (string | number)[],
+    message: `${where}${field ? `, field "${field}"` : ''}: ${issue.message}`,
+  };
+}
+
+/** Stage 2: references, catalogs and ranges; conversion to SI. */
+export function buildModel(doc: SystemDocument): SiModel {
+  const sys = doc.unitSystem;
+  // The quantities below are pure scalings (units.ts), so one factor each serves every value.
+  const pF = toSI('pressure', 1, sys);
+  const lF = toSI('length', 1, sys);
+  const dF = toSI('diameter', 1, sys);
+  const qF = toSI('flow', 1, sys);
+  const P = (v: number) => v * pF;
+  const L = (v: number) => v * lF;
+  const Dm = (v: number) => v * dF;
+  const Q = (v: number) => v * qF;
+
+  const temperatureC = toSI('temperature', doc.waterTemperature, sys);
+  if (!(temperatureC >= WATER_T_MIN_C && temperatureC <= WATER_T_MAX_C)) {
+    throw inputError(
+      'value-out-of-range',
+      'system',
+      doc.id,
+      'waterTemperature',
+      `water temperature ${doc.waterTemperature} ${sys === 'US' ? '°F' : '°C'} is outside 0.01–100 °C (liquid water at 1 atm)`,
+    );
+  }
+  const water = waterProperties(temperatureC);
+  const criteria = mergeCriteria(doc, P);
+  const riseToleranceM = doc.criteria?.riseTolerance !== undefined ? L(doc.criteria.riseTolerance) : DEFAULT_RISE_TOLERANCE_M;
+
+  // Nodes
+  const nNodes = doc.nodes.length;
+  const nodeIndex = new Map<string, number>();
+  const nodeIds: string[] = new Array(nNodes);
+  const nodeLabels: (string | null)[] = new Array(nNodes);
+  const elevationM = new Float64Array(nNodes);
+  const continuousM3s = new Float64Array(nNodes);
+  const groupsByNode: SiFixtureGroup[][] = new Array(nNodes);
+  const fixtures: SiCheckedFixture[] = [];
+  const fixtureIds = new Set<string>();
+  for (let i = 0; i < nNodes; i++) {
+    const node = doc.nodes[i];
+    if (nodeIndex.has(node.id)) throw inputError('duplicate-id', 'node', node.id, 'id');
+    nodeIndex.set(node.id, i);
+    nodeIds[i] = node.id;
+    nodeLabels[i] = node.label ?? null;
+    elevationM[i] = L(node.elevation);
+    continuousM3s[i] = node.continuousDemand !== undefined ? Q(node.continuousDemand) : 0;
+    const groups: SiFixtureGroup[] = node.fixtureGroups.length === 0 ? NO_GROUPS : [];
+    for (const g of node.fixtureGroups) {
+      const type = FIXTURE_TYPES[g.fixtureTypeId];
+      if (!type) {
+        throw inputError('unknown-catalog-entry', 'fixture-group', node.id, 'fixtureTypeId', `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`);
+      }
+      const basis = g.wsfuBasis ?? doc.service;
+      const perFixture = type.wsfu[basis];
+      groups.push({
+        fixtureTypeId: g.fixtureTypeId,
+        count: g.count,
+        wsfu: (perFixture ?? 0) * g.count,
+        curve: g.demandCurve ?? type.demandCurve,
+        usage: g.usage
+          ? {
+              flowM3s: g.usage.flow !== undefined ? Q(g.usage.flow) : type.flowRateM3s,
+              durationS: g.usage.durationSeconds,
+              recurrenceS: g.usage.recurrenceSeconds,
+            }
+          : null,
+      });
+    }
+    groupsByNode[i] = groups;
+    for (const f of node.checkedFixtures) {
+      if (fixtureIds.has(f.id)) throw inputError('duplicate-id', 'checked-fixture', f.id, 'id');
+      fixtureIds.add(f.id);
+      const type = FIXTURE_TYPES[f.fixtureTypeId];
+      if (!type) {
+        throw inputError('unknown-catalog-entry', 'checked-fixture', f.id, 'fixtureTypeId', `fixture type "${f.fixtureTypeId}" is not in the fixtures catalog`);
+      }
+      const requiredPa =
+        f.minFlowPressure !== undefined
+          ? P(f.minFlowPressure)
+          : criteria.minFlowPressureOverridesPa[f.fixtureTypeId] ?? type.minFlowPressurePa;
+      fixtures.push({
+        id: f.id,
+        nodeIdx: i,
+        fixtureTypeId: f.fixtureTypeId,
+        label: f.label ?? type.label,
+        requiredPa,
+        flowRateM3s: f.flowRate !== undefined ? Q(f.flowRate) : type.flowRateM3s,
+        expectedCritical: f.expectedCritical === true,
+      });
+    }
+  }
+
+  // Source
+  const sourceIdx = nodeIndex.get(doc.source.nodeId);
+  if (sourceIdx === undefined) {
+    throw inputError('no-source', 'source', doc.source.nodeId, 'nodeId', `source node "${doc.source.nodeId}" is not in the system's nodes`);
+  }
+  if (doc.source.staticPressureHigh < doc.source.staticPressureLow) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'staticPressureHigh', 'the high static pressure is below the low static pressure');
+  }
+  const ft = doc.source.flowTest;
+  if (ft && !(ft.residualPressure < ft.staticPressure)) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
+  }
+
+  // Segments
+  const segIndex = new Map<string, number>();
+  const segments: SiSegment[] = [];
+  for (let s = 0; s < doc.segments.length; s++) {
+    const seg = doc.segments[s];
+    if (segIndex.has(seg.id)) throw inputError('duplicate-id', 'segment', seg.id, 'id');
+    segIndex.set(seg.id, s);
+    const from = nodeIndex.get(seg.from);
+    if (from === undefined) throw inputError('unknown-node', 'segment', seg.id, 'from', `node "${seg.from}" is not in the system`);
+    const to = nodeIndex.get(seg.to);
+    if (to === undefined) throw inputError('unknown-node', 'segment', seg.id, 'to', `node "${seg.to}" is not in the system`);
+    let pipe: Pick<SiSegment, 'innerDiameterM' | 'roughnessM' | 'hazenWilliamsC' | 'velocityClass' | 'nominalSizeIn' | 'nominalSizeKey'>;
+    if (seg.custom) {
+      const innerDiameterM = Dm(seg.custom.innerDiameter);
+      pipe = {
+        innerDiameterM,
+        roughnessM: Dm(seg.custom.roughness),
+        hazenWilliamsC: seg.custom.hazenWilliamsC,
+        velocityClass: seg.custom.velocityClass,
+        // A custom pipe has no nominal size: the inside diameter in inches stands in for the
+        // size-dependent fitting data (Crane f_T); stated as an assumption in the README.
+        nominalSizeIn: innerDiameterM / 0.0254,
+        nominalSizeKey: '',
+      };
+    } else {
+      if (seg.material === undefined) {
+        throw inputError('missing-field', 'segment', seg.id, 'material', 'give either material and size, or custom pipe data');
+      }
+      if (seg.size === undefined) throw inputError('missing-field', 'segment', seg.id, 'size', 'give the nominal size of the material');
+      const material = MATERIALS[seg.material as MaterialId];
+      if (!material) {
+        throw inputError('unknown-catalog-entry', 'segment', seg.id, 'material', `material "${seg.material}" is not in the materials catalog`);
+      }
+      const size = pipeSize(seg.material as MaterialId, seg.size);
+      if (!size) {
+        throw inputError('unknown-catalog-entry', 'segment', seg.id, 'size', `size "${seg.size}" is not in the catalog for ${material.label}`);
+      }
+      pipe = {
+        innerDiameterM: size.innerDiameterM,
+        roughnessM: material.roughnessM,
+        hazenWilliamsC: material.hazenWilliamsC,
+        velocityClass: material.velocityClass,
+        nominalSizeIn: size.nominalIn,
+        nominalSizeKey: size.key,
+      };
+    }
+    if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', seg.id, 'innerDiameter');
+    for (const f of seg.fittings) {
+      if (!FITTING_TYPES[f.typeId]) {
+        throw inputError('unknown-catalog-entry', 'fitting', seg.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
+      }
+    }
+    segments.push({
+      id: seg.id,
+      label: seg.label ?? null,
+      from,
+      to,
+      innerDiameterM: pipe.innerDiameterM,
+      roughnessM: pipe.roughnessM,
+      hazenWilliamsC: pipe.hazenWilliamsC,
+      velocityClass: pipe.velocityClass,
+      nominalSizeIn: pipe.nominalSizeIn,
+      nominalSizeKey: pipe.nominalSizeKey,
+      lengthM: L(seg.length),
+      riseEnteredM: seg.rise !== undefined ? L(seg.rise) : null,
+      fittings: seg.fittings,
+      flowOverrideM3s: seg.flowOverride !== undefined ? Q(seg.flowOverride) : null,
+      reducerAuto: seg.reducerAuto,
+    });
+  }
+
+  // Devices
+  const devicesBySeg: SiDevice[][] = segments.map(() => []);
+  const deviceIds = new Set<string>();
+  for (const d of doc.devices) {
+    if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
+    deviceIds.add(d.id);
+    const segIdx = segIndex.get(d.segmentId);
+    if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
+    if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
+    if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
+    devicesBySeg[segIdx].push({
+      id: d.id,
+      kind: d.kind,
+      label: d.label,
+      segIdx,
+      fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
+      curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
+      prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
+      boostPa: d.boost ? P(d.boost.gain) : 0,
+    });
+  }
+
+  if (criteria.demandMethod === 'hunter-binomial') {
+    for (let i = 0; i < nNodes; i++) {
+      for (const g of groupsByNode[i]) {
+        if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
+      }
+    }
+  }
+
+  return {
+    doc,
+    unitSystem: sys,
+    service: doc.service,
+    water,
+    criteria,
+    riseToleranceM,
+    nodeIds,
+    nodeLabels,
+    nodeIndex,
+    elevationM,
+    continuousM3s,
+    groupsByNode,
+    fixtures,
+    segments,
+    segIndex,
+    devicesBySeg,
+    source: {
+      nodeIdx: sourceIdx,
+      kind: doc.source.kind,
+      staticLowPa: P(doc.source.staticPressureLow),
+      staticHighPa: P(doc.source.staticPressureHigh),
+      flowTest: ft ? { staticPa: P(ft.staticPressure), residualPa: P(ft.residualPressure), testFlowM3s: Q(ft.flow) } : null,
+    },
+  };
+}
+
+function mergeCriteria(doc: SystemDocument, P: (v: number) => number): Criteria {
+  const o = doc.criteria;
+  const base = DEFAULT_CRITERIA;
+  if (!o) return base;
+  const velocityLimits = base.velocityLimits.map((lim) => {
+    const over = o.velocityLimits?.find((v) => v.material === lim.material && v.service === lim.service);
+    return over
+      ? { ...lim, maxVelocityMs: toSI('velocity', over.maxVelocity, doc.unitSystem), source: 'system criteria (entered)' }
+      : lim;
+  });
+  for (const v of o.velocityLimits ?? []) {
+    if (!velocityLimits.some((l) => l.material === v.material && l.service === v.service)) {
+      velocityLimits.push({
+        material: v.material,
+        service: v.service,
+        maxVelocityMs: toSI('velocity', v.maxVelocity, doc.unitSystem),
+        source: 'system criteria (entered)',
+      });
+    }
+  }
+  const minFlow: Record<string, number> = { ...base.minFlowPressureOverridesPa };
+  for (const [k, v] of Object.entries(o.minFlowPressures ?? {})) {
+    if (!FIXTURE_TYPES[k]) {
+      throw inputError('unknown-catalog-entry', 'criteria', null, 'minFlowPressures', `fixture type "${k}" is not in the fixtures catalog`);
+    }
+    minFlow[k] = P(v);
+  }
+  return {
+    ...base,
+    maxStaticPressurePa: o.maxStaticPressure !== undefined ? P(o.maxStaticPressure) : base.maxStaticPressurePa,
+    minStaticPressurePa: o.minStaticPressure !== undefined ? P(o.minStaticPressure) : base.minStaticPressurePa,
+    velocityLimits,
+    minFlowPressureOverridesPa: minFlow,
+    demandCurve: o.demandCurve ?? base.demandCurve,
+    demandMethod: o.demandMethod ?? base.demandMethod,
+    frictionMethod: o.frictionMethod ?? base.frictionMethod,
+    fittingMethod: o.fittingMethod ?? base.fittingMethod,
+  };
+}

@@ -1,0 +1,97 @@
+/**
+ * Stage 3: topology. The segments must form a tree rooted at the source node, each segment
+ * running from upstream (`from`) to downstream (`to`). Produces parent pointers and one
+ * breadth-first order of the segments (every segment after the one feeding it), so that the
+ * later stages are single linear passes: forward for pressures, backward for demand.
+ */
+import { inputError } from '../errors';
+import type { SiModel } from './input';
+
+export interface Topology {
+  /** Segment index feeding each node; −1 for the source (and only the source). */
+  feedSeg: Int32Array;
+  /** Segment indices, each after the segment feeding its upstream node. */
+  order: Int32Array;
+  /** Segment index feeding each segment's upstream node; −1 for segments leaving the source. */
+  parentSeg: Int32Array;
+}
+
+export function buildTopology(model: SiModel): Topology {
+  const nNodes = model.nodeIds.length;
+  const segs = model.segments;
+  const nSegs = segs.length;
+  const source = model.source.nodeIdx;
+  const feedSeg = new Int32Array(nNodes).fill(-1);
+
+  for (let s = 0; s < nSegs; s++) {
+    const seg = segs[s];
+    if (seg.from === seg.to) throw inputError('self-loop', 'segment', seg.id, 'to');
+    if (seg.to === source) throw inputError('source-has-feed', 'segment', seg.id, 'to');
+    const existing = feedSeg[seg.to];
+    if (existing !== -1) {
+      throw inputError(
+        'multiple-feeds',
+        'node',
+        model.nodeIds[seg.to],
+        null,
+        `node is fed by segments "${segs[existing].id}" and "${seg.id}"; Headroom analyses trees only (segments run from the source outward)`,
+      );
+    }
+    feedSeg[seg.to] = s;
+  }
+
+  // Children of each node as a compressed adjacency list (counting sort by `from`).
+  const childStart = new Int32Array(nNodes + 1);
+  for (let s = 0; s < nSegs; s++) childStart[segs[s].from + 1]++;
+  for (let i = 0; i < nNodes; i++) childStart[i + 1] += childStart[i];
+  const fill = childStart.slice(0, nNodes);
+  const children = new Int32Array(nSegs);
+  for (let s = 0; s < nSegs; s++) children[fill[segs[s].from]++] = s;
+
+  // Breadth-first from the source.
+  const order = new Int32Array(nSegs);
+  const reached = new Uint8Array(nNodes);
+  reached[source] = 1;
+  let head = 0;
+  let tail = 0;
+  for (let c = childStart[source]; c < childStart[source + 1]; c++) order[tail++] = children[c];
+  while (head < tail) {
+    const s = order[head++];
+    const to = segs[s].to;
+    reached[to] = 1;
+    for (let c = childStart[to]; c < childStart[to + 1]; c++) order[tail++] = children[c];
+  }
+
+  if (tail < nSegs) {
+    // Some segments were not reached: each node has one feed at most, so walking up the feeds
+    // from an unreached segment either closes a loop (a cycle) or stops at a node with no feed.
+    const inOrder = new Uint8Array(nSegs);
+    for (let k = 0; k < tail; k++) inOrder[order[k]] = 1;
+    for (let s = 0; s < nSegs; s++) {
+      if (inOrder[s]) continue;
+      const seen = new Set<number>();
+      let node = segs[s].from;
+      while (feedSeg[node] !== -1 && !seen.has(node)) {
+        seen.add(node);
+        node = segs[feedSeg[node]].from;
+      }
+      if (seen.has(node)) {
+        throw inputError('cycle', 'segment', segs[feedSeg[node]].id, null, `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`);
+      }
+      throw inputError(
+        'disconnected-segment',
+        'segment',
+        segs[s].id,
+        'from',
+        `segment cannot be reached from the source node "${model.nodeIds[source]}" (its upstream end "${model.nodeIds[node]}" has no feed)`,
+      );
+    }
+  }
+  for (let i = 0; i < nNodes; i++) {
+    if (!reached[i]) throw inputError('disconnected-node', 'node', model.nodeIds[i], null);
+  }
+
+  const parentSeg = new Int32Array(nSegs);
+  for (let s = 0; s < nSegs; s++) parentSeg[s] = feedSeg[segs[s].from];
+  return { feedSeg, order, parentSeg };
+}

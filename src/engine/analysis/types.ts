@@ -1,0 +1,192 @@
+/**
+ * The shapes the analysis returns. The top-level fields are in the document's unit system
+ * (see `units`); `si` holds the same results in SI base units (Pa, m, m³/s, m/s) — the numbers
+ * the engine computed, from which the display values were converted — so that a consumer can
+ * convert to another unit system and the ledger can add up exactly.
+ */
+import type { UnitSystem } from '../units';
+import type { EngineWarning } from '../warnings';
+import type { FlowRegime } from '../friction';
+
+export interface DeviceLossResult {
+  deviceId: string;
+  kind: string;
+  label: string;
+  /** Pressure change through the device, as a loss (negative for a booster's net gain). */
+  loss: number;
+  extrapolated: boolean;
+}
+
+export interface SegmentResult {
+  id: string;
+  label: string | null;
+  from: string;
+  to: string;
+  /** Segment feeding this one's upstream node; null at the source. */
+  parentSegmentId: string | null;
+  /** Water supply fixture units downstream of (and served through) this segment. */
+  wsfu: number;
+  demandCurve: 'flush-tank' | 'flush-valve' | null;
+  flowBasis: 'fixture-units' | 'binomial' | 'override' | 'continuous-only' | 'none';
+  designFlow: number;
+  innerDiameter: number;
+  length: number;
+  /** Elevation change used (downstream node − upstream node). */
+  rise: number;
+  velocity: number;
+  reynolds: number;
+  frictionFactor: number;
+  regime: FlowRegime;
+  /** Σ count·K of the fittings, referred to this segment's velocity. */
+  fittingsK: number;
+  /** Sudden expansion or contraction at the segment's start, referred to this segment's velocity. */
+  sizeChangeK: number;
+  /** fittingsK + sizeChangeK, referred to this segment's velocity. */
+  totalK: number;
+  frictionLoss: number;
+  fittingLoss: number;
+  riseLoss: number;
+  deviceLoss: number;
+  devices: DeviceLossResult[];
+  inletPressure: number;
+  outletPressure: number;
+  velocityLimit: number | null;
+  velocityPass: boolean | null;
+  /** Developed length of pipe from the source to this segment's downstream node. */
+  developedLength: number;
+}
+
+export interface NodeResult {
+  id: string;
+  label: string | null;
+  elevation: number;
+  /** Residual (flowing) pressure at design flow. */
+  pressure: number;
+  /** Source high static less the climb (with PRVs and boosters applied) — for the maximum check. */
+  staticPressureHigh: number;
+  /** Source low static less the climb (with PRVs and boosters applied). */
+  staticPressureLow: number;
+  /** True when this node serves fixtures and its high static is within the maximum. */
+  staticPass: boolean | null;
+  developedLength: number;
+  feedSegmentId: string | null;
+}
+
+export interface FixtureResult {
+  id: string;
+  nodeId: string;
+  fixtureTypeId: string;
+  label: string;
+  residual: number;
+  required: number;
+  margin: number;
+  pass: boolean;
+  flowRate: number;
+  elevation: number;
+  developedLength: number;
+  /** Segment ids from the source to the fixture's node. */
+  path: string[];
+}
+
+export interface SourceResult {
+  nodeId: string;
+  kind: string;
+  elevation: number;
+  designFlow: number;
+  /** Pressure available at the source at the design flow: the ledger's start. */
+  pressureAtDesignFlow: number;
+  pressureBasis: 'flow-test' | 'low-static';
+  staticPressureLow: number;
+  staticPressureHigh: number;
+}
+
+export interface MethodUsed {
+  id: string;
+  label: string;
+  source: string;
+}
+
+export interface AnalysisResults {
+  source: SourceResult;
+  segments: SegmentResult[];
+  nodes: NodeResult[];
+  fixtures: FixtureResult[];
+}
+
+export interface Analysis extends AnalysisResults {
+  engineVersion: string;
+  schemaVersion: number;
+  systemId: string;
+  name: string;
+  service: 'cold' | 'hot';
+  unitSystem: UnitSystem;
+  /** Unit of each kind of value in the top-level results. */
+  units: {
+    pressure: string;
+    length: string;
+    elevation: string;
+    diameter: string;
+    flow: string;
+    velocity: string;
+    temperature: string;
+    density: string;
+  };
+  water: { temperature: number; densityKgM3: number; kinematicViscosityM2s: number; dynamicViscosityPaS: number };
+  criticalFixtureId: string | null;
+  verdict: {
+    allFixturesPass: boolean;
+    allVelocitiesPass: boolean;
+    allStaticPass: boolean;
+    failures: number;
+  };
+  methods: {
+    friction: MethodUsed;
+    fittings: MethodUsed;
+    demand: MethodUsed;
+    water: MethodUsed;
+    elevation: MethodUsed;
+    supply: MethodUsed;
+    devices: MethodUsed;
+  };
+  criteria: {
+    maxStaticPressure: number;
+    minStaticPressure: number | null;
+    velocityLimits: { material: string; service: string; maxVelocity: number; source: string }[];
+    demandCurve: string;
+    demandMethod: string;
+    frictionMethod: string;
+    fittingMethod: string;
+    riseTolerance: number;
+  };
+  warnings: EngineWarning[];
+  /** The same results in SI base units: Pa, m, m³/s, m/s. */
+  si: AnalysisResults;
+}
+
+export interface LedgerLine {
+  step: number;
+  kind: 'start' | 'device' | 'friction' | 'fittings' | 'rise';
+  /** Segment id or device id (source node id for the start line). */
+  elementId: string;
+  segmentId: string | null;
+  label: string;
+  /** Signed change in pressure (negative = deduction); for the start line, the start pressure. */
+  change: number;
+  /** Pressure after this line. */
+  pressureAfter: number;
+  changeSI: number;
+  pressureAfterSI: number;
+}
+
+export interface PressureLedger {
+  fixtureId: string;
+  nodeId: string;
+  unitSystem: UnitSystem;
+  pressureUnit: string;
+  lines: LedgerLine[];
+  residual: number;
+  required: number;
+  margin: number;
+  pass: boolean;
+  residualSI: number;
+}

@@ -1,0 +1,39 @@
+/**
+ * Public entry of the Headroom engine (pure: no I/O, no module state). The client and the
+ * server import the same functions.
+ */
+export { analyzeSystem, safeAnalyzeSystem, type SafeAnalysis } from './analysis/analyze';
+export { ledgerFor, formatLedger } from './analysis/ledger';
+export { ENGINE_VERSION, toDisplay } from './analysis/report';
+export type {
+  Analysis,
+  AnalysisResults,
+  SegmentResult,
+  NodeResult,
+  FixtureResult,
+  SourceResult,
+  DeviceLossResult,
+  MethodUsed,
+  LedgerLine,
+  PressureLedger,
+} from './analysis/types';
+export {
+  SystemDocumentSchema,
+  SCHEMA_VERSION,
+  systemDocumentJsonSchema,
+  type SystemDocument,
+  type SystemDocumentInput,
+  type Source,
+  type Device,
+  type DeviceLoss,
+  type SystemNode,
+  type FixtureGroup,
+  type CheckedFixture,
+  type Segment,
+  type Fitting,
+  type CustomPipe,
+  type CriteriaOverrides,
+} from './model/schema';
+export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';
+export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
+export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';

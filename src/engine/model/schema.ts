@@ -1,0 +1,220 @@
+/**
+ * The system document: one water distribution system (a source, in-line devices and a tree of
+ * segments from the source node out to the fixtures), as stored, exchanged and analysed.
+ *
+ * Every number is in the document's `unitSystem`:
+ *   US: pressure psi (gauge), length and elevation ft, inside diameter in, flow gpm, temperature °F,
+ *       velocity ft/s; PRV fall-off psi per gpm.
+ *   SI: pressure kPa (gauge), length and elevation m, inside diameter mm, flow L/s, temperature °C,
+ *       velocity m/s; PRV fall-off kPa per L/s.
+ * Roughness of a custom pipe is in the diameter unit (in or mm).
+ * The analysis converts to SI base units at input (src/engine/units.ts) and back at output.
+ *
+ * Catalog references (material, size, fitting type, fixture type) are plain strings here and are
+ * checked against the catalogs by the validation stage, so the format does not change when a
+ * catalog grows. Objects are strict: an unknown key is an error, which catches misspelt fields.
+ */
+import { z } from 'zod';
+
+export const SCHEMA_VERSION = 1 as const;
+
+const id = () => z.string().min(1).max(200);
+const finite = () => z.number();
+const nonNegative = () => z.number().nonnegative();
+const positive = () => z.number().positive();
+
+export const DemandCurveSchema = z.enum(['flush-tank', 'flush-valve']);
+export const ServiceSchema = z.enum(['cold', 'hot']);
+export const UnitSystemSchema = z.enum(['US', 'SI']);
+export const VelocityClassSchema = z.enum(['copper', 'plastic', 'steel']);
+
+export const FlowTestSchema = z
+  .strictObject({
+    staticPressure: positive().describe('Static pressure during the test (no flow), pressure unit.'),
+    residualPressure: nonNegative().describe('Residual pressure while flowing the test flow, pressure unit.'),
+    flow: positive().describe('Flow during the test, flow unit.'),
+    date: z.string().optional().describe('Date of the test (ISO 8601).'),
+  })
+  .describe('Hydrant flow test (NFPA 291) at the connection.');
+
+export const SourceSchema = z.strictObject({
+  kind: z.enum(['utility-main', 'tank', 'booster-outlet']),
+  nodeId: id().describe('The node where the water enters; its elevation is the connection elevation.'),
+  staticPressureLow: nonNegative().describe('Lowest expected static pressure at the connection, pressure unit.'),
+  staticPressureHigh: nonNegative().describe('Highest expected static pressure at the connection, pressure unit.'),
+  pressureBasis: z
+    .string()
+    .min(1)
+    .describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
+  pressureDate: z.string().optional().describe('Date of the pressure figures (ISO 8601).'),
+  flowTest: FlowTestSchema.optional(),
+});
+
+export const DeviceLossSchema = z.discriminatedUnion('kind', [
+  z.strictObject({
+    kind: z.literal('fixed'),
+    loss: nonNegative().describe('Pressure loss at any flow, pressure unit.'),
+  }),
+  z.strictObject({
+    kind: z.literal('curve'),
+    points: z
+      .array(z.strictObject({ flow: nonNegative(), loss: nonNegative() }))
+      .min(1)
+      .describe("Manufacturer's loss at flow points (flow unit, pressure unit); (0, 0) is implied."),
+  }),
+]);
+
+export const DeviceSchema = z.strictObject({
+  id: id(),
+  kind: z.enum([
+    'meter',
+    'backflow-preventer',
+    'prv',
+    'strainer',
+    'softener',
+    'filter',
+    'water-heater',
+    'booster-pump',
+    'other',
+  ]),
+  label: z.string().min(1),
+  segmentId: id().describe('The segment at whose inlet the device sits; devices on one segment act in list order.'),
+  loss: DeviceLossSchema,
+  prv: z
+    .strictObject({
+      setPressure: positive().describe('Outlet set pressure, pressure unit.'),
+      falloffPerFlow: nonNegative()
+        .default(0)
+        .describe('Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).'),
+    })
+    .optional()
+    .describe('Required when kind is "prv".'),
+  boost: z
+    .strictObject({ gain: nonNegative().describe('Pressure added at the design flow, pressure unit.') })
+    .optional()
+    .describe('Required when kind is "booster-pump".'),
+});
+
+export const FixtureGroupSchema = z.strictObject({
+  fixtureTypeId: id(),
+  count: z.number().int().positive(),
+  demandCurve: DemandCurveSchema.optional().describe("Overrides the fixture type's demand curve."),
+  wsfuBasis: z
+    .enum(['cold', 'hot', 'total'])
+    .optional()
+    .describe("Which fixture-unit load counts: defaults to the system's service (cold or hot)."),
+  usage: z
+    .strictObject({
+      flow: positive().optional().describe("Flow while in use, flow unit; defaults to the fixture type's flow."),
+      durationSeconds: positive(),
+      recurrenceSeconds: positive(),
+    })
+    .optional()
+    .describe("For Hunter's binomial method: flow, duration of use and time between uses."),
+});
+
+export const CheckedFixtureSchema = z.strictObject({
+  id: id(),
+  fixtureTypeId: id(),
+  label: z.string().optional(),
+  minFlowPressure: nonNegative().optional().describe('Overrides the minimum flow pressure, pressure unit.'),
+  flowRate: positive().optional().describe("Overrides the fixture's flow rate (reported), flow unit."),
+  expectedCritical: z.boolean().optional().describe('The designer expects this fixture to be the critical one.'),
+});
+
+export const NodeSchema = z.strictObject({
+  id: id(),
+  label: z.string().optional(),
+  elevation: finite().describe('Elevation, length unit, any datum (the same for all nodes).'),
+  fixtureGroups: z.array(FixtureGroupSchema).default([]),
+  continuousDemand: nonNegative().optional().describe('Continuous demand drawn at this node, flow unit.'),
+  checkedFixtures: z.array(CheckedFixtureSchema).default([]),
+});
+
+export const FittingSchema = z.strictObject({
+  typeId: id(),
+  count: z.number().int().positive(),
+});
+
+export const CustomPipeSchema = z.strictObject({
+  innerDiameter: positive().describe('Inside diameter, diameter unit.'),
+  roughness: nonNegative().describe('Absolute roughness, diameter unit.'),
+  hazenWilliamsC: positive(),
+  velocityClass: VelocityClassSchema.describe('Which velocity limit applies.'),
+});
+
+export const SegmentSchema = z.strictObject({
+  id: id(),
+  label: z.string().optional(),
+  from: id().describe('Upstream node (toward the source).'),
+  to: id().describe('Downstream node.'),
+  material: z.string().min(1).optional().describe('Material id from the materials catalog (with size).'),
+  size: z.string().min(1).optional().describe("Nominal size key in the material's catalog, e.g. \"3/4\"."),
+  custom: CustomPipeSchema.optional().describe('Instead of material and size: a pipe given by its own data.'),
+  length: positive().describe('Developed length of pipe, length unit.'),
+  rise: finite()
+    .optional()
+    .describe('Rise from the upstream to the downstream node, length unit; checked against the node elevations.'),
+  fittings: z.array(FittingSchema).default([]),
+  flowOverride: nonNegative().optional().describe('Design flow to use instead of the fixture-unit demand, flow unit.'),
+  reducerAuto: z
+    .boolean()
+    .default(true)
+    .describe('Add a sudden expansion or contraction loss where the size differs from the feeding segment.'),
+});
+
+export const CriteriaOverridesSchema = z
+  .strictObject({
+    maxStaticPressure: positive().optional(),
+    minStaticPressure: nonNegative().optional(),
+    velocityLimits: z
+      .array(z.strictObject({ material: VelocityClassSchema, service: ServiceSchema, maxVelocity: positive() }))
+      .optional()
+      .describe('Replace the default limit of each material class and service listed.'),
+    minFlowPressures: z
+      .record(z.string(), nonNegative())
+      .optional()
+      .describe('Minimum flow pressure per fixture type id, pressure unit.'),
+    demandCurve: z.enum(['auto', 'flush-tank', 'flush-valve']).optional(),
+    demandMethod: z.enum(['hunter-table', 'hunter-binomial']).optional(),
+    frictionMethod: z.enum(['colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams']).optional(),
+    fittingMethod: z.enum(['crane', 'hooper-2k', 'darby-3k', 'equivalent-length']).optional(),
+    riseTolerance: nonNegative()
+      .optional()
+      .describe('Allowed difference between a rise and its node elevations, length unit.'),
+  })
+  .describe("Overrides of the engine's default criteria; the local code governs.");
+
+export const SystemDocumentSchema = z.strictObject({
+  schemaVersion: z.literal(SCHEMA_VERSION),
+  id: id(),
+  name: z.string().min(1),
+  service: ServiceSchema,
+  unitSystem: UnitSystemSchema,
+  waterTemperature: finite().describe('Water temperature, °F or °C.'),
+  source: SourceSchema,
+  devices: z.array(DeviceSchema).default([]),
+  nodes: z.array(NodeSchema).min(1),
+  segments: z.array(SegmentSchema),
+  criteria: CriteriaOverridesSchema.optional(),
+  notes: z.string().optional(),
+});
+
+export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
+/** What may be written in a file (defaults not yet applied). */
+export type SystemDocumentInput = z.input<typeof SystemDocumentSchema>;
+export type Source = z.infer<typeof SourceSchema>;
+export type Device = z.infer<typeof DeviceSchema>;
+export type DeviceLoss = z.infer<typeof DeviceLossSchema>;
+export type SystemNode = z.infer<typeof NodeSchema>;
+export type FixtureGroup = z.infer<typeof FixtureGroupSchema>;
+export type CheckedFixture = z.infer<typeof CheckedFixtureSchema>;
+export type Segment = z.infer<typeof SegmentSchema>;
+export type Fitting = z.infer<typeof FittingSchema>;
+export type CustomPipe = z.infer<typeof CustomPipeSchema>;
+export type CriteriaOverrides = z.infer<typeof CriteriaOverridesSchema>;
+
+/** The JSON Schema (draft 2020-12) of a system document as written in a file. */
+export function systemDocumentJsonSchema(): Record<string, unknown> {
+  return z.toJSONSchema(SystemDocumentSchema, { io: 'input', target: 'draft-2020-12' }) as Record<string, unknown>;
+}

@@ -1,0 +1,171 @@
+/**
+ * Coded warnings: the system was computed, but a person should look at this. Each code has
+ * a plain-words message and a severity:
+ *   'fail'    — a design criterion is not met (residual below minimum, velocity, static pressure);
+ *   'caution' — the number rests on something shaky (extrapolation, transitional flow, fallback);
+ *   'note'    — an assumption the engine made, stated so the designer can confirm it.
+ */
+
+export type WarningSeverity = 'fail' | 'caution' | 'note';
+
+export const WARNING_CODES = {
+  'residual-below-minimum': {
+    severity: 'fail',
+    message: 'The residual pressure at this fixture is below the minimum flow pressure it needs.',
+  },
+  'velocity-over-limit': {
+    severity: 'fail',
+    message: 'The velocity at design flow is above the limit for this material and service.',
+  },
+  'static-over-max': {
+    severity: 'fail',
+    message:
+      'The static pressure here (source high static plus the drop in elevation) is above the maximum; a pressure-reducing valve is likely needed.',
+  },
+  'static-below-min': {
+    severity: 'caution',
+    message: 'The source low static pressure is below the minimum static pressure of the criteria.',
+  },
+  'device-curve-extrapolated': {
+    severity: 'caution',
+    message: "The design flow is beyond the device's loss curve; its loss was extrapolated (loss ∝ flow²).",
+  },
+  'demand-table-extrapolated': {
+    severity: 'caution',
+    message: 'The fixture units are outside the demand table; the design flow was extrapolated.',
+  },
+  'laminar-flow': {
+    severity: 'caution',
+    message: 'Flow in this segment is laminar at design flow (Reynolds number below 2300); f = 64/Re was used.',
+  },
+  'transitional-flow': {
+    severity: 'caution',
+    message:
+      'Flow in this segment is transitional at design flow (Reynolds number 2300–4000); Churchill (1977) was used and the friction factor is uncertain.',
+  },
+  'friction-outside-validity': {
+    severity: 'caution',
+    message: 'The friction correlation was used outside its published range of validity.',
+  },
+  'segment-no-demand': {
+    severity: 'note',
+    message: 'No fixtures or continuous demand are downstream of this segment; it carries no design flow.',
+  },
+  'fitting-method-fallback': {
+    severity: 'caution',
+    message: 'This fitting type has no data for the chosen loss method; another method was used for it.',
+  },
+  'critical-not-expected': {
+    severity: 'note',
+    message: 'The critical fixture (smallest margin) is not the one marked as expected.',
+  },
+  'critical-not-highest': {
+    severity: 'note',
+    message: 'The critical fixture is not the highest checked fixture; friction and devices, not height, decide it.',
+  },
+  'critical-not-farthest': {
+    severity: 'note',
+    message: 'The critical fixture is not the farthest checked fixture by developed length.',
+  },
+  'rise-elevation-mismatch': {
+    severity: 'caution',
+    message:
+      "The segment's rise does not match the difference of its node elevations; the node elevations were used.",
+  },
+  'rise-from-elevations': {
+    severity: 'note',
+    message: "The segment has no rise entered; it was taken from its node elevations.",
+  },
+  'prv-active': {
+    severity: 'note',
+    message: 'The pressure-reducing valve limits the pressure downstream to its set pressure less its fall-off.',
+  },
+  'prv-inlet-below-set': {
+    severity: 'note',
+    message: "The pressure at the PRV's inlet is below its set pressure at design flow; it passes the inlet pressure.",
+  },
+  'flow-test-used': {
+    severity: 'note',
+    message:
+      'The source pressure at design flow follows the flow test: P(Q) = Ps − (Ps − Pr)·(Q/Qf)^1.85 (NFPA 291).',
+  },
+  'flow-test-beyond-test-flow': {
+    severity: 'caution',
+    message: 'The design flow at the source is above the flow-test flow; the supply curve was extrapolated.',
+  },
+  'flow-test-static-above-low': {
+    severity: 'caution',
+    message:
+      'The flow-test static pressure is above the stated low static pressure; the flow test was used as measured. Check it was taken in the season of lowest pressure.',
+  },
+  'source-low-static-used': {
+    severity: 'note',
+    message: 'No flow test: the source low static pressure was taken as the pressure at design flow.',
+  },
+  'no-velocity-limit': {
+    severity: 'note',
+    message: 'The criteria have no velocity limit for this material class and service; velocity was not checked.',
+  },
+  'size-change-loss': {
+    severity: 'note',
+    message:
+      'The segment differs in size from the one feeding it; a sudden expansion or contraction loss at its start, carrying its own flow, was added.',
+  },
+  'no-checked-fixtures': {
+    severity: 'caution',
+    message: 'The system has no checked fixtures; no residual pressure was compared with a minimum.',
+  },
+  'booster-gain-at-static': {
+    severity: 'note',
+    message: "The booster pump's gain was counted in the static-pressure check as well (worst case for maximum static).",
+  },
+  'flow-override-used': {
+    severity: 'note',
+    message: "The segment's design flow is the entered override, not the fixture-unit demand.",
+  },
+  'water-temperature-assumed-range': {
+    severity: 'note',
+    message: 'Water properties are from IAPWS-95 (density) and IAPWS 2008 (viscosity) at 1 atm.',
+  },
+} as const satisfies Record<string, { severity: WarningSeverity; message: string }>;
+
+export type WarningCode = keyof typeof WARNING_CODES;
+
+export interface EngineWarning {
+  code: WarningCode;
+  severity: WarningSeverity;
+  message: string;
+  elementType: 'system' | 'source' | 'device' | 'node' | 'segment' | 'checked-fixture' | 'fitting';
+  elementId: string | null;
+  /** Extra plain-words detail with the numbers involved, in the document's units. */
+  detail?: string;
+  /** For a warning that stands for many elements of one type (notes repeated along a tree). */
+  elementIds?: string[];
+}
+
+export function makeWarning(
+  code: WarningCode,
+  elementType: EngineWarning['elementType'],
+  elementId: string | null,
+  detail?: string,
+): EngineWarning {
+  const entry = WARNING_CODES[code];
+  const w: EngineWarning = { code, severity: entry.severity, message: entry.message, elementType, elementId };
+  if (detail !== undefined) w.detail = detail;
+  return w;
+}
+
+/**
+ * One warning for many elements: the first id is `elementId`, all are in `elementIds`.
+ * Used for notes that would otherwise repeat on hundreds of segments of a tall building.
+ */
+export function makeGroupedWarning(
+  code: WarningCode,
+  elementType: EngineWarning['elementType'],
+  elementIds: string[],
+  detail?: string,
+): EngineWarning {
+  const w = makeWarning(code, elementType, elementIds[0] ?? null, detail ?? `${elementIds.length} ${elementType}(s)`);
+  w.elementIds = elementIds;
+  return w;
+}
