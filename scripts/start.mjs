@@ -116,6 +116,8 @@ const env = {
   NODE_ENV: process.env.NODE_ENV ?? (dev ? 'development' : 'production'),
   HEADROOM_SERVE_CLIENT: dev ? '0' : '1',
   PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${appPort}`,
+  // no SMTP relay configured: mail goes to the in-process local sink, listed at /api/dev/mail
+  HEADROOM_DEV_MAIL: process.env.HEADROOM_DEV_MAIL ?? (process.env.SMTP_HOST ? '0' : '1'),
 };
 server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
 server.stdout.on('data', (chunk) => {

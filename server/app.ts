@@ -16,17 +16,37 @@ import { projectsRoutes } from './routes/projects';
 import { systemsRoutes } from './routes/systems';
 import { catalogRoutes } from './routes/catalog';
 import type { ServiceContext } from './services/context';
+import { summariesRoutes } from './routes/summaries';
+import { reviewsRoutes } from './routes/reviews';
+import { auditRoutes } from './routes/audit';
+import { devMailRoutes } from './routes/devMail';
+import { createMailer } from './mail/transport';
+import { OutboxWorker } from './mail/worker';
+import { startDevSink, type DevSink } from './mail/devSink';
 
 export interface HeadroomApp {
   app: Express;
   /** every API route, for the access matrix and the contributor guide */
   apiRoutes: { method: string; path: string }[];
+  /** the e-mail outbox worker (started by `startOutbox`, or by the caller with .start()) */
+  outbox: OutboxWorker;
+  /** the local SMTP sink when HEADROOM_DEV_MAIL=1 */
+  devMail: DevSink | null;
   close: () => Promise<void>;
 }
 
 /** The app factory: everything it needs is passed in (no module state), so tests build their own. */
-export function createApp({ config, db }: { config: Config; db: Db }): HeadroomApp {
+export function createApp({ config, db, startOutbox = false }: { config: Config; db: Db; startOutbox?: boolean }): HeadroomApp {
   const ctx: ServiceContext = { config, db };
+  const devMail = config.HEADROOM_DEV_MAIL === '1' ? startDevSink(db, config.DEV_MAIL_PORT) : null;
+  const mailer = createMailer(config, devMail?.ready);
+  const outbox = new OutboxWorker(ctx, mailer, {
+    pollMs: config.OUTBOX_POLL_MS,
+    retryBaseMs: config.OUTBOX_RETRY_BASE_MS,
+    retryMaxMs: config.OUTBOX_RETRY_MAX_MS,
+    leaseSeconds: config.OUTBOX_LEASE_SECONDS,
+  });
+  if (startOutbox) outbox.start();
   const app = express();
   app.disable('x-powered-by');
   if (config.COOKIE_SECURE === '1') app.set('trust proxy', 1);
@@ -49,6 +69,10 @@ export function createApp({ config, db }: { config: Config; db: Db }): HeadroomA
   api.use(projectsRoutes(ctx));
   api.use(systemsRoutes(ctx));
   api.use(catalogRoutes(ctx));
+  api.use(summariesRoutes(ctx));
+  api.use(reviewsRoutes(ctx));
+  api.use(auditRoutes(ctx));
+  api.use(devMailRoutes(ctx));
   api.use((req) => {
     throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
   });
@@ -66,7 +90,12 @@ export function createApp({ config, db }: { config: Config; db: Db }): HeadroomA
   return {
     app,
     apiRoutes: listRoutes(api),
+    outbox,
+    devMail,
     close: async () => {
+      await outbox.stop();
+      mailer.close();
+      await devMail?.close();
       await sessionPool.end();
     },
   };

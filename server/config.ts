@@ -17,6 +17,30 @@ const ConfigSchema = z.object({
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(480),
   /** hours an invitation link stays valid */
   INVITATION_HOURS: z.coerce.number().int().min(1).default(72),
+
+  // ---- e-mail (server/mail): SMTP relay, sender, the outbox worker's pace
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  /** 587: the message submission port (RFC 6409) */
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(587),
+  /** 1: TLS from the first byte (port 465, RFC 8314); 0: plain, upgraded by STARTTLS when offered */
+  SMTP_SECURE: z.enum(['0', '1']).default('0'),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  MAIL_FROM: z.string().default('Headroom <headroom@localhost>'),
+  /** 1: run the local SMTP sink in-process, send all mail to it and list it at /api/dev/mail (development only) */
+  HEADROOM_DEV_MAIL: z.enum(['0', '1']).default('0'),
+  /** port of the local SMTP sink; 0 picks a free one */
+  DEV_MAIL_PORT: z.coerce.number().int().min(0).max(65535).default(0),
+  /** how often the outbox worker looks for due messages (a choice: mail within seconds, light on the database) */
+  OUTBOX_POLL_MS: z.coerce.number().int().min(10).default(2000),
+  /** first retry delay; each further attempt doubles it (30 s, 1 min, 2 min, … a choice) */
+  OUTBOX_RETRY_BASE_MS: z.coerce.number().int().min(1).default(30_000),
+  /** the longest delay between two attempts (1 h, a choice) */
+  OUTBOX_RETRY_MAX_MS: z.coerce.number().int().min(1).default(3_600_000),
+  /** attempts before a message is marked failed: 8 spans about 1 h of outage at the defaults (a choice) */
+  OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(8),
+  /** how long a claimed message is reserved for its worker; longer than the SMTP timeouts (server/mail/transport.ts) added up */
+  OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(1).default(120),
 });
 
 export type Config = z.infer<typeof ConfigSchema>;

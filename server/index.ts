@@ -4,7 +4,8 @@ import { createApp } from './app';
 
 const config = loadConfig();
 const db = createDb(config.DATABASE_URL);
-const { app, close } = createApp({ config, db });
+const { app, close, devMail } = createApp({ config, db, startOutbox: true });
+void devMail?.ready.then(({ port }) => console.log(`[headroom] development mail sink on 127.0.0.1:${port} (messages at /api/dev/mail)`), (err) => console.error('[headroom] the development mail sink did not start:', err));
 
 const server = app.listen(config.PORT, config.HOST, () => {
   const address = server.address();

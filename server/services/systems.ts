@@ -7,6 +7,7 @@ import { revisionsRepo, systemsRepo, type RevisionRow, type SystemRow } from '..
 import { auditRepo } from '../repositories/audit';
 import { iso } from '../db/rows';
 import { inputHash } from './canonicalJson';
+import { summariesService } from './summaries';
 import type { Actor, ServiceContext } from './context';
 import type { CompareResponse, CreateSystemBody, Revision, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
 
@@ -135,9 +136,14 @@ export const systemsService = {
     });
   },
 
+  /**
+   * Issues a draft. Its summary row (pending) is written in the same transaction and the PDF is
+   * made right after the commit (server/services/summaries.ts); a failure there leaves the
+   * revision issued and the summary "failed" with its reason.
+   */
   async issue(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, version: number, note: string | null): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
-    return ctx.db.transaction(async (trx) => {
+    const revision = await ctx.db.transaction(async (trx) => {
       const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
       if (!current) throw notFound('The revision');
       if (current.status !== 'draft') throw locked(current);
@@ -149,8 +155,12 @@ export const systemsService = {
       if (!issued) throw staleVersion();
       await revisionsRepo.supersedeIssued(trx, systemId, revisionId);
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.issued', subjectType: 'revision', subjectId: revisionId, details: { number: issued.number, inputHash: issued.input_hash } });
+      await summariesService.recordIssue(trx, projectId, systemId, revisionId);
       return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
     });
+    // the PDF's own failures are recorded on the summary; anything else must not undo the issue
+    await summariesService.generate(ctx, projectId, systemId, revisionId).catch((err) => console.error(`[headroom] summary of revision ${revisionId}:`, err));
+    return revision;
   },
 
   /** A new draft copied from any revision; a system has at most one draft. */

@@ -3,19 +3,27 @@ import { newToken } from '../auth/tokens';
 import { invitationsRepo } from '../repositories/invitations';
 import { toUser, usersRepo, type UserRow } from '../repositories/users';
 import { auditRepo } from '../repositories/audit';
+import { outboxService } from './outbox';
 import type { Actor, ServiceContext } from './context';
 import type { CreateUserBody, Invitation, UpdateUserBody } from '../../src/shared/api/users';
 import type { User } from '../../src/shared/api/auth';
 import type { Tx } from '../db/rows';
 
-async function issueInvitation(ctx: ServiceContext, trx: Tx, userId: string, actor: Actor | null): Promise<Invitation> {
+/**
+ * A new invitation link for the user (earlier open links stop working). The link is returned to
+ * the administrator and, unless `send` is false (the caller puts it in a message of its own), it
+ * is e-mailed through the outbox in the same transaction.
+ */
+export async function issueInvitation(ctx: ServiceContext, trx: Tx, userId: string, actor: Actor | null, opts: { send?: boolean } = {}): Promise<Invitation> {
   await invitationsRepo.revokeOpen(trx, userId);
   const { token, tokenHash } = newToken();
   const expiresAt = new Date(Date.now() + ctx.config.INVITATION_HOURS * 3600_000);
   await invitationsRepo.insert(trx, { user_id: userId, token_hash: tokenHash, expires_at: expiresAt, created_by: actor?.id ?? null });
   const url = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}/invitations/${token}`;
-  // Until e-mail exists the link is shown to the administrator and written to the server log.
-  if (ctx.config.NODE_ENV !== 'test') console.log(`[headroom] invitation link for user ${userId}: ${url}`);
+  if (opts.send ?? true) {
+    const user = await usersRepo.findById(trx, userId);
+    if (user) await outboxService.enqueueAccountLink(ctx, trx, { userId, email: user.email, name: user.name, url, expiresAt: expiresAt.toISOString(), purpose: 'invitation', createdBy: actor?.id ?? null });
+  }
   return { url, expiresAt: expiresAt.toISOString() };
 }
 

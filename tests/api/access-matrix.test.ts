@@ -35,6 +35,18 @@ const membersRead = { anonymous: 401, administrator: 200, designer: 200, contrac
 const membersRead403 = { ...membersRead, administrator: 403 };
 const designersWrite = (status: number, admin = 403) => ({ anonymous: 401, administrator: admin, designer: status, contractor: 403, inspector: 403, nonMember: 404 });
 
+/** One issued system for the summary rows, made on first use. */
+let issued: Promise<{ base: string; revisionId: string }> | null = null;
+function issuedOnce(w: World) {
+  issued ??= (async () => {
+    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix issued', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
+    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    return { base, revisionId: created.revision.id as string };
+  })();
+  return issued;
+}
+
 const ROWS: Row[] = [
   { method: 'GET', path: '/api/health', expect: all(200), request: async () => ({ url: '/api/health' }) },
   { method: 'GET', path: '/api/csrf-token', expect: all(200), request: async () => ({ url: '/api/csrf-token' }) },
@@ -155,6 +167,86 @@ const ROWS: Row[] = [
       return { url: `${base}/revisions`, body: { fromRevisionId: created.revision.id } };
     },
   },
+  // ---- issued summaries, e-mail, reviews, audit (issue 5); they share one issued revision
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary',
+    expect: membersRead403,
+    request: async (w) => ({ url: `${(await issuedOnce(w)).base}/summary` }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary.pdf',
+    expect: membersRead403,
+    request: async (w) => ({ url: `${(await issuedOnce(w)).base}/summary.pdf` }),
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send',
+    expect: designersWrite(202),
+    request: async (w) => {
+      const { base } = await issuedOnce(w);
+      const inspector = await w.h.db('project_members').where({ project_id: w.projectId, role: 'inspector' }).first('user_id');
+      return { url: `${base}/summary/send`, body: { inspectorIds: [inspector.user_id] } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry',
+    expect: designersWrite(200),
+    request: async (w) => {
+      // only a failed summary is made again: fail it before each call (after the send row, which needs it ready)
+      const { base, revisionId } = await issuedOnce(w);
+      const row = await w.h.db('summaries').where({ revision_id: revisionId }).first('header');
+      await w.h.db('summaries').where({ revision_id: revisionId }).delete();
+      await w.h.db('summaries').insert({ revision_id: revisionId, project_id: w.projectId, header: JSON.stringify(row.header), status: 'failed', error: 'matrix' });
+      return { url: `${base}/summary/retry` };
+    },
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/messages',
+    expect: designersWrite(200),
+    request: async (w) => ({ url: `${(await issuedOnce(w)).base}/messages` }),
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/messages/:messageId/retry',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const [row] = await w.h.db('outbox')
+        .insert({ kind: 'invitation', project_id: w.projectId, to_address: 'matrix@test.example', subject: 'Matrix', text_body: 'Matrix', status: 'failed', attempts: 3, max_attempts: 3, last_error: 'matrix' })
+        .returning('id');
+      return { url: `/api/projects/${w.projectId}/messages/${row.id}/retry` };
+    },
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews',
+    expect: membersRead403,
+    request: async (w) => ({ url: `${(await issuedOnce(w)).base}/reviews` }),
+  },
+  { method: 'GET', path: '/api/projects/:projectId/reviews', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/reviews` }) },
+  {
+    method: 'PATCH',
+    path: '/api/projects/:projectId/reviews/:reviewId',
+    // only the inspector the summary was sent to decides
+    expect: { anonymous: 401, administrator: 403, designer: 403, contractor: 403, inspector: 200, nonMember: 404 },
+    request: async (w) => {
+      const { revisionId } = await issuedOnce(w);
+      const inspector = await w.h.db('project_members').where({ project_id: w.projectId, role: 'inspector' }).first('user_id');
+      await w.h.db('reviews').where({ revision_id: revisionId, reviewer_id: inspector.user_id }).delete();
+      const [row] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: revisionId, reviewer_id: inspector.user_id }).returning('id');
+      return { url: `/api/projects/${w.projectId}/reviews/${row.id}`, body: { decision: 'accepted', version: 1 } };
+    },
+  },
+  { method: 'GET', path: '/api/inbox', expect: signedInOnly(200), request: async () => ({ url: '/api/inbox' }) },
+  { method: 'GET', path: '/api/projects/:projectId/audit', expect: designersWrite(200), request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/audit` }) },
+  // the matrix's app runs without HEADROOM_DEV_MAIL: the development mail routes answer 404 to
+  // everyone (tests/api/mail.test.ts checks them switched on: administrators only)
+  { method: 'GET', path: '/api/dev/mail', expect: all(404), request: async () => ({ url: '/api/dev/mail' }) },
+  { method: 'GET', path: '/api/dev/mail/:mailId', expect: all(404), request: async () => ({ url: '/api/dev/mail/1' }) },
+  { method: 'GET', path: '/api/dev/mail/:mailId/attachments/:index', expect: all(404), request: async () => ({ url: '/api/dev/mail/1/attachments/0' }) },
   // last: it ends the callers' sessions
   { method: 'POST', path: '/api/auth/sign-out', expect: signedInOnly(204), request: async () => ({ url: '/api/auth/sign-out' }) },
 ];

@@ -1,0 +1,54 @@
+/**
+ * The words of Headroom's e-mails. A one-time link is written as {{secret_url}}: the outbox keeps
+ * it in its own column, puts it in at sending time and erases it once the message is sent.
+ */
+import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
+import { utc } from '../pdf/format';
+
+export const SECRET_URL = '{{secret_url}}';
+
+export function invitationMessage(opts: { name: string; expiresAt: string; purpose: 'invitation' | 'password-reset' }) {
+  if (opts.purpose === 'password-reset') {
+    return {
+      subject: 'Headroom: choose a new password',
+      text: [`Hello ${opts.name},`, '', 'Someone asked to reset the password of your Headroom account. Choose a new one here:', '', SECRET_URL, '', `The link works once, until ${utc(opts.expiresAt)}. If you did not ask, ignore this message.`].join('\n'),
+    };
+  }
+  return {
+    subject: 'Your Headroom account',
+    text: [`Hello ${opts.name},`, '', 'An account on Headroom has been made for you. Choose your password here:', '', SECRET_URL, '', `The link works once, until ${utc(opts.expiresAt)}.`].join('\n'),
+  };
+}
+
+export function summaryMessage(opts: {
+  header: SummaryHeader;
+  recipientName: string;
+  senderName: string;
+  viewUrl: string;
+  verdict: string;
+  note?: string;
+  invitation?: { expiresAt: string };
+}) {
+  const h = opts.header;
+  const lines = [
+    `Hello ${opts.recipientName},`,
+    '',
+    `${opts.senderName} sends you the issued summary of a water supply pressure check for review:`,
+    '',
+    `  Project:   ${h.projectName}${h.address ? `, ${h.address}` : ''}`,
+    `  System:    ${h.systemName}`,
+    `  Revision:  ${h.revisionNumber}, issued ${utc(h.issuedAt)} by ${h.preparerName}`,
+    `  Result:    ${opts.verdict}`,
+    `  Inputs:    ${h.inputHash}`,
+    '',
+    'The summary is attached as a PDF. Read it on Headroom, and accept it or return it with comments, here:',
+    '',
+    `  ${opts.viewUrl}`,
+  ];
+  if (opts.invitation) {
+    lines.push('', `You do not have a Headroom account yet. Choose your password first (the link works once, until ${utc(opts.invitation.expiresAt)}):`, '', `  ${SECRET_URL}`);
+  }
+  if (opts.note) lines.push('', `Note from ${opts.senderName}:`, opts.note);
+  lines.push('', '—', SUMMARY_CAUTIONS[0], SUMMARY_CAUTIONS[1]);
+  return { subject: `For review: ${h.projectName}, ${h.systemName}, revision ${h.revisionNumber}`, text: lines.join('\n') };
+}

@@ -1,0 +1,435 @@
+/**
+ * The issued summary: the PDF an inspector receives for one issued revision. Made from the stored
+ * revision (its document and the server's analysis) and the header frozen at issue time, so the
+ * same input gives the same bytes (the dates come from the issue time, not the clock).
+ */
+import { PDFDocument } from 'pdf-lib';
+import { ledgerFor, fromSI, type Analysis, type SystemDocument } from '../../src/engine';
+import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
+import { MATERIALS } from '../../src/engine/catalog/materials';
+import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
+import { FITTING_TYPES } from '../../src/engine/fittings/types';
+import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
+import { embedFonts } from './fonts';
+import { COLORS, Layout, PAGE_SIZES, type Column } from './layout';
+import { drawProfile, profilePoints } from './chart';
+import { num, signed, utc, withUnit } from './format';
+
+export interface SummaryPdfInput {
+  header: SummaryHeader;
+  document: SystemDocument;
+  analysis: Analysis;
+}
+
+export interface SummaryPdf {
+  bytes: Uint8Array;
+  pageCount: number;
+}
+
+const DEVICE_KIND: Record<string, string> = {
+  meter: 'Meter',
+  'backflow-preventer': 'Backflow preventer',
+  prv: 'Pressure-reducing valve',
+  strainer: 'Strainer',
+  softener: 'Softener',
+  filter: 'Filter',
+  'water-heater': 'Water heater',
+  'booster-pump': 'Booster pump',
+  other: 'Other device',
+};
+const SOURCE_KIND: Record<string, string> = { 'utility-main': 'Utility main', tank: 'Tank', 'booster-outlet': 'Booster outlet' };
+const SEVERITY: Record<string, string> = { fail: 'Not met', caution: 'Caution', note: 'Note' };
+
+export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryPdf> {
+  const { header, document: doc, analysis: a } = input;
+  const pdf = await PDFDocument.create({ updateMetadata: false });
+  const issued = new Date(header.issuedAt);
+  pdf.setTitle(`Issued summary: ${header.projectName}, ${header.systemName}, revision ${header.revisionNumber}`);
+  pdf.setAuthor(header.preparerName);
+  pdf.setSubject('Water supply pressure check');
+  pdf.setCreator(`Headroom (engine ${a.engineVersion})`);
+  pdf.setProducer('Headroom');
+  pdf.setCreationDate(issued);
+  pdf.setModificationDate(issued);
+
+  const fonts = await embedFonts(pdf);
+  const L = new Layout(pdf, fonts, a.unitSystem === 'US' ? PAGE_SIZES.letter : PAGE_SIZES.a4);
+  const u = a.units;
+  const P = (v: number | null | undefined) => num(v, u.pressure);
+  const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId) ?? null;
+  const segById = new Map(a.segments.map((s) => [s.id, s]));
+  const docSegById = new Map(doc.segments.map((s) => [s.id, s]));
+  const nodeById = new Map(a.nodes.map((n) => [n.id, n]));
+  const nodeLabel = (id: string) => nodeById.get(id)?.label ?? id;
+
+  // ---- title and verdict
+  L.gap(4);
+  L.draw('Water supply pressure check', L.left, L.y - 16, { font: 'bold', size: 17, color: COLORS.accent });
+  L.gap(22);
+  L.draw('Issued summary', L.left, L.y - 12, { size: 11, color: COLORS.muted });
+  L.gap(22);
+  L.keyValues([
+    ['Project', header.projectName],
+    ['Address', header.address || 'not stated'],
+    ['System', `${header.systemName} (${a.service === 'hot' ? 'hot water' : 'cold water'})`],
+    ['Revision', `${header.revisionNumber}, issued ${utc(header.issuedAt)}`],
+    ['Prepared by', header.preparerEmail ? `${header.preparerName} <${header.preparerEmail}>` : header.preparerName],
+    ...(header.note ? ([['Note', header.note]] as [string, string][]) : []),
+  ]);
+  const failingFixtures = a.fixtures.filter((f) => !f.pass);
+  const failingVelocity = a.segments.filter((s) => s.velocityPass === false);
+  const failingStatic = a.nodes.filter((n) => n.staticPass === false);
+  const allPass = a.verdict.allFixturesPass && a.verdict.allVelocitiesPass && a.verdict.allStaticPass;
+  const verdictLines = [
+    a.fixtures.length === 0
+      ? 'No checked fixtures: no residual pressure was compared with a minimum.'
+      : failingFixtures.length === 0
+        ? `All ${a.fixtures.length} checked fixtures have at least their minimum flow pressure.`
+        : `${failingFixtures.length} of ${a.fixtures.length} checked fixtures fall short of their minimum flow pressure.`,
+    critical
+      ? `Critical fixture (smallest margin): ${critical.label}, residual ${withUnit(critical.residual, u.pressure)}, required ${withUnit(critical.required, u.pressure)}, margin ${signed(critical.margin, u.pressure)} ${u.pressure}.`
+      : 'No critical fixture.',
+    failingVelocity.length ? `${failingVelocity.length} segment(s) above their velocity limit.` : 'Every segment is within its velocity limit (where one applies).',
+    failingStatic.length ? `${failingStatic.length} node(s) above the maximum static pressure.` : `Static pressure stays at or under ${withUnit(a.criteria.maxStaticPressure, u.pressure)} at every fixture node.`,
+  ];
+  verdictBox(L, allPass ? 'Result: every check is met' : 'Result: some checks are not met', verdictLines, !allPass);
+
+  // ---- basis
+  L.heading('Basis');
+  const minimums = new Map<string, { required: number; label: string }>();
+  for (const f of a.fixtures) if (!minimums.has(f.fixtureTypeId)) minimums.set(f.fixtureTypeId, { required: f.required, label: FIXTURE_TYPES[f.fixtureTypeId]?.label ?? f.fixtureTypeId });
+  const overrides = doc.criteria ?? {};
+  L.keyValues([
+    ['Code basis (designer)', header.codeBasis || 'not stated by the designer'],
+    ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : CRITERIA_SOURCES.maxStaticPressurePa}`],
+    ['Minimum static pressure', a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`],
+    ['Water temperature', `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`],
+    ['Engine', `Headroom engine ${a.engineVersion}, document schema ${a.schemaVersion}`],
+  ]);
+  L.heading('Methods', 2);
+  L.table(
+    [
+      { header: 'Step', width: 16 },
+      { header: 'Method', width: 40, wrap: true },
+      { header: 'Published source', width: 44, wrap: true },
+    ],
+    (
+      [
+        ['Demand', a.methods.demand],
+        ['Pipe friction', a.methods.friction],
+        ['Fitting losses', a.methods.fittings],
+        ['Devices', a.methods.devices],
+        ['Supply pressure', a.methods.supply],
+        ['Elevation', a.methods.elevation],
+        ['Water properties', a.methods.water],
+      ] as const
+    ).map(([step, m]) => ({ cells: [step, m.label, m.source] })),
+    { continued: 'Methods' },
+  );
+  L.heading('Minimum flow pressures used', 2);
+  L.table(
+    [
+      { header: 'Fixture type', width: 34, wrap: true },
+      { header: `Minimum (${u.pressure})`, width: 14, align: 'right' },
+      { header: 'Source', width: 52, wrap: true },
+    ],
+    [...minimums].map(([id, m]) => ({
+      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : (FIXTURE_TYPES[id]?.source ?? 'fixture catalog')],
+    })),
+    { continued: 'Minimum flow pressures used' },
+  );
+  L.heading('Velocity limits', 2);
+  L.table(
+    [
+      { header: 'Material class', width: 18 },
+      { header: 'Service', width: 12 },
+      { header: `Limit (${u.velocity})`, width: 14, align: 'right' },
+      { header: 'Source', width: 56, wrap: true },
+    ],
+    a.criteria.velocityLimits.map((v) => ({ cells: [v.material, v.service, num(v.maxVelocity, u.velocity), v.source] })),
+    { continued: 'Velocity limits' },
+  );
+
+  // ---- inputs
+  L.heading('Inputs');
+  L.heading('Supply', 2);
+  const src = doc.source;
+  L.keyValues([
+    ['Source', `${SOURCE_KIND[src.kind] ?? src.kind} at node ${nodeLabel(src.nodeId)} (elevation ${withUnit(a.source.elevation, u.elevation)})`],
+    ['Static pressure', `low ${withUnit(src.staticPressureLow, u.pressure)}, high ${withUnit(src.staticPressureHigh, u.pressure)}`],
+    ['Basis of the figure', src.pressureBasis],
+    ['Date of the figure', src.pressureDate ?? 'not stated'],
+    ...(src.flowTest
+      ? ([
+          [
+            'Flow test',
+            `static ${withUnit(src.flowTest.staticPressure, u.pressure)}, residual ${withUnit(src.flowTest.residualPressure, u.pressure)} at ${withUnit(src.flowTest.flow, u.flow)}${src.flowTest.date ? `, ${src.flowTest.date}` : ''}`,
+          ],
+        ] as [string, string][])
+      : []),
+    ['At design flow', `${withUnit(a.source.pressureAtDesignFlow, u.pressure)} at ${withUnit(a.source.designFlow, u.flow)} (${a.source.pressureBasis === 'flow-test' ? 'from the flow test' : 'the low static pressure'})`],
+  ]);
+
+  L.heading('Devices', 2);
+  const deviceRows = doc.devices.map((d) => {
+    const seg = segById.get(d.segmentId);
+    const r = seg?.devices.find((x) => x.deviceId === d.id);
+    const notes = [
+      r?.extrapolated ? 'loss extrapolated beyond the curve' : '',
+      d.prv ? `set ${withUnit(d.prv.setPressure, u.pressure)}` : '',
+      d.boost ? `adds ${withUnit(d.boost.gain, u.pressure)}` : '',
+      d.loss.kind === 'curve' ? `curve of ${d.loss.points.length} point(s)` : 'fixed loss',
+    ].filter(Boolean);
+    return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };
+  });
+  if (deviceRows.length)
+    L.table(
+      [
+        { header: 'Device', width: 28, wrap: true },
+        { header: 'Kind', width: 16, wrap: true },
+        { header: 'On segment', width: 14 },
+        { header: `Flow (${u.flow})`, width: 10, align: 'right' },
+        { header: `Change (${u.pressure})`, width: 11, align: 'right' },
+        { header: 'Notes', width: 21, wrap: true },
+      ],
+      deviceRows,
+      { continued: 'Devices' },
+    );
+  else L.paragraph('No in-line devices.');
+
+  L.heading('Fixtures served', 2);
+  const fixtureRows: { cells: string[] }[] = [];
+  for (const n of doc.nodes) {
+    for (const g of n.fixtureGroups) {
+      const t = FIXTURE_TYPES[g.fixtureTypeId];
+      const basis = g.wsfuBasis ?? a.service;
+      const each = t ? (t.wsfu[basis] ?? t.wsfu.total) : null;
+      const feed = nodeById.get(n.id)?.feedSegmentId;
+      fixtureRows.push({
+        cells: [
+          n.label ?? n.id,
+          t?.label ?? g.fixtureTypeId,
+          String(g.count),
+          each === null ? '—' : String(each),
+          each === null ? '—' : String(Math.round(each * g.count * 100) / 100),
+          t ? num(fromSI('flow', t.flowRateM3s, a.unitSystem), u.flow) : '—',
+          feed ? num(segById.get(feed)?.designFlow, u.flow) : '—',
+        ],
+      });
+    }
+  }
+  if (fixtureRows.length)
+    L.table(
+      [
+        { header: 'Node', width: 20, wrap: true },
+        { header: 'Fixture type', width: 28, wrap: true },
+        { header: 'Count', width: 8, align: 'right' },
+        { header: 'WSFU each', width: 10, align: 'right' },
+        { header: 'WSFU', width: 9, align: 'right' },
+        { header: `Flow each (${u.flow})`, width: 12, align: 'right' },
+        { header: `Design flow to node (${u.flow})`, width: 13, align: 'right' },
+      ],
+      fixtureRows,
+      { continued: 'Fixtures served' },
+    );
+  else L.paragraph('No fixture groups.');
+
+  L.heading('Segments', 2);
+  L.paragraph(`Design flow and velocity are at the segment's design flow; Sum of K is the fittings' loss coefficients added up, referred to the segment's velocity (with any size change).`, { size: 8, color: COLORS.muted });
+  L.table(
+    [
+      { header: 'Segment', width: 12, wrap: true },
+      { header: 'Material', width: 14, wrap: true },
+      { header: 'Size', width: 6 },
+      { header: `Inside dia. (${u.diameter})`, width: 7, align: 'right' },
+      { header: `Length (${u.length})`, width: 7, align: 'right' },
+      { header: `Rise (${u.elevation})`, width: 6, align: 'right' },
+      { header: 'Fittings', width: 27, wrap: true },
+      { header: 'Sum of K', width: 6, align: 'right' },
+      { header: `Flow (${u.flow})`, width: 7, align: 'right' },
+      { header: `Velocity (${u.velocity})`, width: 8, align: 'right' },
+    ],
+    a.segments.map((s) => {
+      const d = docSegById.get(s.id);
+      // the catalog label without its parenthesis: "PEX tubing, SDR 9 (copper tube size)" → "PEX tubing, SDR 9"
+      const material = d?.material ? (MATERIALS[d.material as keyof typeof MATERIALS]?.label ?? d.material).replace(/\s*\(.*\)\s*$/, '') : 'custom pipe';
+      const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${FITTING_TYPES[f.typeId]?.label ?? f.typeId}`).join('; ');
+      return {
+        cells: [
+          s.id,
+          material,
+          d?.size ?? '—',
+          num(s.innerDiameter, u.diameter),
+          num(s.length, u.length),
+          num(s.rise, u.elevation),
+          fittings || 'none',
+          s.totalK.toFixed(2),
+          num(s.designFlow, u.flow),
+          `${num(s.velocity, u.velocity)}${s.velocityPass === false ? ' over' : ''}`,
+        ],
+        style: s.velocityPass === false ? { fail: true } : undefined,
+      };
+    }),
+    { continued: 'Segments', size: 7 },
+  );
+
+  // ---- results
+  L.heading('Results');
+  L.heading('Checked fixtures', 2);
+  const byMargin = [...a.fixtures].sort((x, y) => x.margin - y.margin);
+  L.table(
+    [
+      { header: 'Fixture', width: 26, wrap: true },
+      { header: 'Node', width: 16, wrap: true },
+      { header: `Elevation (${u.elevation})`, width: 10, align: 'right' },
+      { header: `Developed length (${u.length})`, width: 11, align: 'right' },
+      { header: `Residual (${u.pressure})`, width: 10, align: 'right' },
+      { header: `Required (${u.pressure})`, width: 10, align: 'right' },
+      { header: `Margin (${u.pressure})`, width: 10, align: 'right' },
+      { header: 'Result', width: 7 },
+    ],
+    byMargin.map((f) => ({
+      cells: [f.id === a.criticalFixtureId ? `${f.label} (critical)` : f.label, nodeLabel(f.nodeId), num(f.elevation, u.elevation), num(f.developedLength, u.length), P(f.residual), P(f.required), signed(f.margin, u.pressure), f.pass ? 'pass' : 'FAIL'],
+      style: f.pass ? (f.id === a.criticalFixtureId ? { bold: true } : undefined) : { fail: true },
+    })),
+    { continued: 'Checked fixtures' },
+  );
+
+  if (critical) {
+    const ledger = ledgerFor(a, critical.id);
+    L.heading(`Pressure ledger to the critical fixture: ${critical.label}`, 2);
+    L.table(
+      [
+        { header: '#', width: 6, align: 'right' },
+        { header: 'Item', width: 58, wrap: true },
+        { header: `Change (${u.pressure})`, width: 18, align: 'right' },
+        { header: `Pressure after (${u.pressure})`, width: 18, align: 'right' },
+      ],
+      [
+        ...ledger.lines.map((l) => ({ cells: [String(l.step), l.label, l.kind === 'start' ? '' : signed(l.change, u.pressure), P(l.pressureAfter)] })),
+        { cells: ['', 'Residual pressure at the fixture', '', P(ledger.residual)], style: { bold: true } },
+        { cells: ['', 'Minimum flow pressure the fixture needs', '', P(ledger.required)] },
+        { cells: ['', `Margin (${ledger.pass ? 'pass' : 'FAIL'})`, '', signed(ledger.margin, u.pressure)], style: ledger.pass ? { bold: true } : { fail: true, bold: true } },
+      ],
+      { continued: 'Pressure ledger' },
+    );
+    L.heading('Pressure profile along the path to the critical fixture', 2, 220);
+    drawProfile(L, profilePoints(a, critical.id), { required: critical.required, pressureUnit: u.pressure, lengthUnit: u.length, fixtureLabel: critical.label });
+  }
+
+  L.heading('Velocity check', 2);
+  const limited = a.segments.filter((s) => s.velocityLimit !== null && s.velocityLimit > 0 && s.designFlow > 0);
+  const ratio = (s: (typeof a.segments)[number]) => s.velocity / (s.velocityLimit as number);
+  L.paragraph(
+    failingVelocity.length
+      ? `${failingVelocity.length} of ${limited.length} segments with a limit are above it at design flow.`
+      : `All ${limited.length} segments with a limit are within it at design flow. The ones closest to their limit:`,
+  );
+  const velocityRows = (failingVelocity.length ? failingVelocity : [...limited].sort((x, y) => ratio(y) - ratio(x)).slice(0, 5)).map((s) => ({
+    cells: [s.label ?? s.id, num(s.designFlow, u.flow), num(s.velocity, u.velocity), num(s.velocityLimit, u.velocity), `${Math.round(ratio(s) * 100)} %`, s.velocityPass === false ? 'FAIL' : 'pass'],
+    style: s.velocityPass === false ? { fail: true } : undefined,
+  }));
+  if (velocityRows.length)
+    L.table(
+      [
+        { header: 'Segment', width: 34, wrap: true },
+        { header: `Flow (${u.flow})`, width: 13, align: 'right' },
+        { header: `Velocity (${u.velocity})`, width: 14, align: 'right' },
+        { header: `Limit (${u.velocity})`, width: 14, align: 'right' },
+        { header: 'Of limit', width: 12, align: 'right' },
+        { header: 'Result', width: 13 },
+      ],
+      velocityRows,
+      { continued: 'Velocity check' },
+    );
+
+  L.heading('Static pressure check', 2);
+  const fixtureNodes = a.nodes.filter((n) => n.staticPass !== null);
+  const highest = [...fixtureNodes].sort((x, y) => y.staticPressureHigh - x.staticPressureHigh)[0];
+  L.paragraph(
+    `Highest static pressure (source high static, less the climb, with PRVs and boosters applied) at a fixture node: ${highest ? `${withUnit(highest.staticPressureHigh, u.pressure)} at ${highest.label ?? highest.id}` : 'no fixture nodes'}; maximum ${withUnit(a.criteria.maxStaticPressure, u.pressure)}.`,
+  );
+  if (failingStatic.length)
+    L.table(
+      [
+        { header: 'Node', width: 50, wrap: true },
+        { header: `Static high (${u.pressure})`, width: 25, align: 'right' },
+        { header: 'Result', width: 25 },
+      ],
+      failingStatic.map((n) => ({ cells: [n.label ?? n.id, P(n.staticPressureHigh), 'FAIL: above the maximum'], style: { fail: true } })),
+      { continued: 'Static pressure check' },
+    );
+
+  L.heading('Warnings', 2);
+  if (a.warnings.length)
+    L.table(
+      [
+        { header: 'Kind', width: 11 },
+        { header: 'What', width: 52, wrap: true },
+        { header: 'Where', width: 37, wrap: true },
+      ],
+      a.warnings.map((w) => {
+        const ids = w.elementIds ?? (w.elementId ? [w.elementId] : []);
+        const where = ids.length > 1 ? `${ids.length} ${w.elementType}s: ${ids.slice(0, 6).join(', ')}${ids.length > 6 ? ', …' : ''}` : ids.length ? `${w.elementType} ${ids[0]}` : w.elementType;
+        return { cells: [SEVERITY[w.severity] ?? w.severity, w.detail ? `${w.message} (${w.detail})` : w.message, where], style: w.severity === 'fail' ? { fail: true } : undefined };
+      }),
+      { continued: 'Warnings' },
+    );
+  else L.paragraph('No warnings.');
+
+  // ---- cautions, signature, input hash
+  L.heading('Cautions', 1, 120);
+  for (const c of SUMMARY_CAUTIONS) L.paragraph(`•  ${c}`, { indent: 0, after: 4 });
+
+  L.heading('Preparer', 1, 150);
+  signatureBlock(L, header);
+  L.heading('Input hash', 2, 40);
+  L.paragraph('SHA-256 of the revision\'s inputs (canonical JSON); the same hash means the same inputs.', { size: 8, color: COLORS.muted });
+  L.paragraph(header.inputHash, { font: 'bold', size: 8.5 });
+
+  L.frame(
+    { left: `${header.projectName}${header.address ? ` — ${header.address}` : ''}`, right: `Revision ${header.revisionNumber} · issued ${utc(header.issuedAt).slice(0, 10)} · ${header.systemName}` },
+    { left: `Prepared by ${header.preparerName}`, middle: `Inputs ${header.inputHash.slice(0, 16)}` },
+  );
+
+  const bytes = await pdf.save({ useObjectStreams: true, objectsPerTick: Number.POSITIVE_INFINITY });
+  return { bytes, pageCount: L.pages.length };
+}
+
+function verdictBox(L: Layout, title: string, lines: string[], fail: boolean) {
+  const size = 9;
+  const leading = size * 1.4;
+  const wrapped = lines.flatMap((l) => L.wrap(L.clean(l), L.fonts.regular, size, L.contentWidth - 20));
+  const height = 22 + wrapped.length * leading + 8;
+  L.ensure(height + 6);
+  L.gap(6);
+  L.page.drawRectangle({ x: L.left, y: L.y - height, width: L.contentWidth, height, color: fail ? COLORS.failBand : COLORS.band, borderColor: fail ? COLORS.fail : COLORS.accent, borderWidth: 0.8 });
+  L.draw(title, L.left + 10, L.y - 16, { font: 'bold', size: 10.5, color: fail ? COLORS.fail : COLORS.accent });
+  wrapped.forEach((line, i) => L.draw(line, L.left + 10, L.y - 22 - (i + 1) * leading + 3, { size }));
+  L.gap(height + 4);
+}
+
+/** Boxes the preparer fills in by hand: signature, date, licence or registration, and room for a seal. */
+function signatureBlock(L: Layout, header: SummaryHeader) {
+  const height = 120;
+  L.ensure(height + 10);
+  const top = L.y - 4;
+  const sealW = 130;
+  const w = L.contentWidth - sealW - 12;
+  const rows: [string, string][] = [
+    ['Prepared by', header.preparerName],
+    ['Signature', ''],
+    ['Date', ''],
+    ['Licence or registration no.', ''],
+  ];
+  const rowH = height / rows.length;
+  rows.forEach(([label, value], i) => {
+    const y = top - (i + 1) * rowH;
+    L.page.drawLine({ start: { x: L.left, y }, end: { x: L.left + w, y }, thickness: 0.6, color: COLORS.muted });
+    L.draw(label, L.left, y + 4, { size: 7.5, color: COLORS.muted });
+    if (value) L.draw(L.fit(L.clean(value), L.fonts.regular, 10, w - 140), L.left + 130, y + 4, { size: 10 });
+  });
+  L.page.drawRectangle({ x: L.left + w + 12, y: top - height, width: sealW, height, borderColor: COLORS.muted, borderWidth: 0.6, borderDashArray: [3, 2] });
+  L.draw('Seal (where required)', L.left + w + 20, top - 14, { size: 7.5, color: COLORS.muted });
+  L.gap(height + 12);
+}

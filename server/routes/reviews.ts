@@ -1,0 +1,36 @@
+import { Router } from 'express';
+import { parse } from '../http/validate';
+import { actorOf, requireProjectRole, requireUser } from '../http/guards';
+import { reviewsService } from '../services/reviews';
+import { RevisionParams } from '../../src/shared/api/systems';
+import { ProjectParams } from '../../src/shared/api/projects';
+import { DecideReviewBody, ReviewParams } from '../../src/shared/api/summaries';
+import type { ServiceContext } from '../services/context';
+
+export function reviewsRoutes(ctx: ServiceContext): Router {
+  const router = Router();
+  const member = requireProjectRole(ctx.db, 'any');
+  const inspector = requireProjectRole(ctx.db, ['inspector']);
+
+  router.get('/inbox', requireUser, async (req, res) => {
+    res.json({ items: await reviewsService.inbox(ctx, actorOf(req.user)) });
+  });
+
+  router.get('/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews', member, async (req, res) => {
+    const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
+    res.json({ reviews: await reviewsService.forRevision(ctx, projectId, systemId, revisionId) });
+  });
+
+  router.get('/projects/:projectId/reviews', member, async (req, res) => {
+    const { projectId } = parse(ProjectParams, req.params);
+    res.json({ reviews: await reviewsService.forProject(ctx, projectId) });
+  });
+
+  router.patch('/projects/:projectId/reviews/:reviewId', inspector, async (req, res) => {
+    const { projectId, reviewId } = parse(ReviewParams, req.params);
+    const body = parse(DecideReviewBody, req.body);
+    res.json({ review: await reviewsService.decide(ctx, actorOf(req.user), projectId, reviewId, body) });
+  });
+
+  return router;
+}

@@ -1,0 +1,87 @@
+/**
+ * The inspector's review of a received summary: Received → Accepted, or Returned with comments
+ * (overall and per item: a segment, a fixture, a device, a node or an input). A decision is
+ * final for that revision; a returned design comes back as a new revision and a new review.
+ */
+import { AppError, forbidden, notFound, staleVersion } from '../http/errors';
+import { reviewsRepo, type ReviewRow } from '../repositories/reviews';
+import { summariesRepo } from '../repositories/summaries';
+import { systemsRepo } from '../repositories/systems';
+import { auditRepo } from '../repositories/audit';
+import { iso, type Tx } from '../db/rows';
+import { toSummaryInfo } from './summaries';
+import type { Actor, ServiceContext } from './context';
+import { resultViewPath, type DecideReviewBody, type InboxItem, type Review } from '../../src/shared/api/summaries';
+
+async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
+  const comments = rows.length ? await reviewsRepo.commentsFor(db, rows.map((r) => r.id)) : [];
+  return rows.map((r) => ({
+    id: r.id,
+    projectId: r.project_id,
+    systemId: r.system_id,
+    systemName: r.system_name,
+    revisionId: r.revision_id,
+    revisionNumber: r.revision_number,
+    revisionStatus: r.revision_status,
+    reviewer: { id: r.reviewer_id, name: r.reviewer_name, email: r.reviewer_email },
+    sentBy: r.sent_by_name,
+    status: r.status,
+    comment: r.comment,
+    items: comments.filter((c) => c.review_id === r.id).map((c) => ({ itemType: c.item_type, itemId: c.item_id, comment: c.comment })),
+    version: r.version,
+    receivedAt: iso(r.received_at),
+    decidedAt: r.decided_at ? iso(r.decided_at) : null,
+  }));
+}
+
+export const reviewsService = {
+  byIds: async (db: Tx, ids: string[]) => present(db, await reviewsRepo.byIds(db, ids)),
+
+  async forRevision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Review[]> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    const rows = (await reviewsRepo.forRevision(ctx.db, revisionId)).filter((r) => r.system_id === systemId);
+    return present(ctx.db, rows);
+  },
+
+  forProject: async (ctx: ServiceContext, projectId: string) => present(ctx.db, await reviewsRepo.forProject(ctx.db, projectId)),
+
+  async inbox(ctx: ServiceContext, actor: Actor): Promise<InboxItem[]> {
+    const rows = await reviewsRepo.forReviewer(ctx.db, actor.id);
+    const reviews = await present(ctx.db, rows);
+    const summaries = rows.length ? await summariesRepo.findManyByRevision(ctx.db, rows.map((r) => r.revision_id)) : [];
+    const projects = rows.length ? await ctx.db('projects').whereIn('id', [...new Set(rows.map((r) => r.project_id))]).select('id', 'name', 'address') : [];
+    return reviews.map((review) => {
+      const s = summaries.find((x) => x.revision_id === review.revisionId);
+      const p = projects.find((x: { id: string }) => x.id === review.projectId);
+      return {
+        review,
+        project: { id: review.projectId, name: p?.name ?? '', address: p?.address ?? '' },
+        summary: s ? toSummaryInfo(s, review.systemId) : null,
+        viewPath: resultViewPath(review.projectId, review.systemId, review.revisionId),
+      };
+    });
+  },
+
+  async decide(ctx: ServiceContext, actor: Actor, projectId: string, reviewId: string, body: DecideReviewBody & { comment: string; items: { itemType: Review['items'][number]['itemType']; itemId: string | null; comment: string }[] }): Promise<Review> {
+    return ctx.db.transaction(async (trx) => {
+      const current = await reviewsRepo.lock(trx, projectId, reviewId);
+      if (!current) throw notFound('The review');
+      if (current.reviewer_id !== actor.id) throw forbidden('Only the inspector it was sent to decides this review.');
+      if (current.status !== 'received') throw new AppError(409, 'CONFLICT', `This review is already ${current.status}.`);
+      if (current.version !== body.version) throw staleVersion();
+      const revision = await trx('revisions').where({ id: current.revision_id }).first('status', 'number');
+      if (revision.status !== 'issued') throw new AppError(409, 'CONFLICT', `Revision ${revision.number} has been superseded; review the current revision.`);
+      if (!(await reviewsRepo.decide(trx, reviewId, body.version, { status: body.decision, comment: body.comment }))) throw staleVersion();
+      await reviewsRepo.addComments(trx, reviewId, body.items);
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: `review.${body.decision}`,
+        subjectType: 'review',
+        subjectId: reviewId,
+        details: { revisionId: current.revision_id, number: revision.number, comments: body.items.length + (body.comment ? 1 : 0) },
+      });
+      return (await present(trx, await reviewsRepo.byIds(trx, [reviewId])))[0];
+    });
+  },
+};
