@@ -7,10 +7,19 @@
  * analyzeSystem (schema validation included) and through analyzeValidated (a document already
  * validated, as the live client re-runs it); the peer is EPANET (epanet-js) solving the same
  * 5,000-pipe tree — EN_solveH only, the network opened beforehand (solve, not build).
+ * One row times the computation alone (SI model, topology, demand, hydraulics, checks) without
+ * building the result objects, to show where the time goes.
  */
 import { readFileSync } from 'node:fs';
 import { analyzeSystem, SystemDocumentSchema, type Analysis } from '../src/engine';
 import { analyzeValidated } from '../src/engine/analysis/analyze';
+import { buildModel } from '../src/engine/analysis/input';
+import { buildTopology } from '../src/engine/analysis/topology';
+import { computeDemand } from '../src/engine/analysis/demand';
+import { computeHydraulics } from '../src/engine/analysis/hydraulics';
+import { runChecks } from '../src/engine/analysis/checks';
+import type { EngineWarning } from '../src/engine/warnings';
+import type { SystemDocument } from '../src/engine/model/schema';
 import { hazenWilliamsHeadLoss } from '../src/engine/friction';
 import { G } from '../src/engine/units';
 import { generateBuilding, generateRandomTree, mulberry32 } from '../src/engine/testing/generateTree';
@@ -82,6 +91,15 @@ function epanetPeer(doc: () => unknown) {
   };
 }
 
+/** The stages up to the checks, without the report (result objects in SI and display units). */
+function computeOnly(parsed: SystemDocument): void {
+  const model = buildModel(parsed);
+  const topo = buildTopology(model);
+  const warnings: EngineWarning[] = [];
+  const demand = computeDemand(model, topo, warnings);
+  runChecks(model, computeHydraulics(model, topo, demand, warnings), warnings);
+}
+
 const building = generateBuilding({ storeys: 40 });
 const buildingParsed = SystemDocumentSchema.parse(building);
 const randomTree = generateRandomTree(mulberry32(2024), { segments: 5000, fittingTypes: ['elbow-90-standard', 'tee-run'], frictionMethod: 'swamee-jain' });
@@ -91,6 +109,8 @@ const demo = JSON.parse(readFileSync(new URL('../src/engine/examples/alder-finch
 export const CASES: BenchCase[] = [
   { name: `engine: 40-storey building, ${building.segments.length} segments, analyzeSystem (with schema)`, run: () => analyzeSystem(building), peer: epanetPeer(() => building) },
   { name: `engine: 40-storey building, ${building.segments.length} segments, analyzeValidated`, run: () => analyzeValidated(buildingParsed), peer: epanetPeer(() => building) },
+  { name: `engine: 40-storey building, ${building.segments.length} segments, computation only (no result objects)`, run: () => computeOnly(buildingParsed), peer: epanetPeer(() => building) },
+  { name: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeSystem (with schema)', run: () => analyzeSystem(randomTree), peer: epanetPeer(() => randomTree) },
   { name: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeValidated', run: () => analyzeValidated(randomParsed), peer: epanetPeer(() => randomTree) },
   { name: `engine: demo building alder-finch-cold (${demo.segments.length} segments), analyzeSystem`, run: () => analyzeSystem(demo), repeats: 200 },
 ];

@@ -69,7 +69,10 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
   const extrapolatedIds: string[] = [];
   const overrideIds: string[] = [];
   const noDemandIds: string[] = [];
-  const tableCache = new Map<string, { flowM3s: number; extrapolated: boolean }>();
+  const tableCache: Record<DemandCurve, Map<number, { flowM3s: number; extrapolated: boolean }>> = {
+    'flush-tank': new Map(),
+    'flush-valve': new Map(),
+  };
   const flowFor = (
     elementId: string,
     units: number,
@@ -83,11 +86,11 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
       return { q: q + cont, curve: null, basis: 'binomial' };
     }
     const c: DemandCurve = criteria.demandCurve === 'auto' ? (valves > 0 ? 'flush-valve' : 'flush-tank') : criteria.demandCurve;
-    const key = `${c}|${units}`;
-    let h = tableCache.get(key);
+    const byUnits = tableCache[c];
+    let h = byUnits === undefined ? undefined : byUnits.get(units);
     if (h === undefined) {
       h = hunterDesignFlow(units, c);
-      tableCache.set(key, h);
+      byUnits?.set(units, h);
     }
     if (h.extrapolated) extrapolatedIds.push(elementId);
     return { q: h.flowM3s + cont, curve: c, basis: 'fixture-units' };

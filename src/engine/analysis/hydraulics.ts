@@ -10,7 +10,7 @@
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
 import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
-import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis } from '../fittings';
+import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
 import { G } from '../units';
@@ -21,6 +21,9 @@ import type { DemandResult } from './demand';
 
 /** Relative difference in inside diameter below which two sizes count as equal (round-off of catalog data). */
 const SAME_DIAMETER_RTOL = 1e-9;
+
+/** Shared (frozen) empty list for the many segments without devices. */
+const NO_DEVICES: DeviceLossSI[] = Object.freeze([]) as unknown as DeviceLossSI[];
 
 export interface DeviceLossSI {
   deviceId: string;
@@ -93,6 +96,9 @@ export function computeHydraulics(
   r.nodeStaticHighPa[src] = model.source.staticHighPa;
   r.nodeStaticLowPa[src] = model.source.staticLowPa;
 
+  // K from Crane's N·f_T (by nominal size) or a constant K does not depend on the flow: one
+  // evaluation per catalog size and fitting type serves every segment of that size.
+  const flowFreeK: FlowFreeKCache = new Map();
   let missingRise = 0;
   const sizeChangeIds: string[] = [];
   let boosterSeen = false;
@@ -135,15 +141,25 @@ export function computeHydraulics(
     // Reynolds-dependent methods is undefined at Re = 0, and the loss is zero anyway).
     let kFittings = 0;
     if (Q > 0) {
-      for (const fit of seg.fittings) {
-        const res = fittingK(fit.typeId, {
-          method: fittingMethod,
-          innerDiameterM: D,
-          nominalSizeIn: seg.nominalSizeIn,
-          nominalSizeKey: seg.nominalSizeKey,
-          Re,
-          frictionFactor: f,
-        });
+      const fits = seg.fittings;
+      // Guard conditions of fittingK that vary by segment; when they fail, fittingK itself throws.
+      const argsOk = Re >= 0 && Re < Infinity && f >= 0 && f < Infinity;
+      const bySize = seg.nominalSizeKey === '' ? undefined : flowFreeK.get(seg.nominalSizeKey);
+      for (let i = 0; i < fits.length; i++) {
+        const fit = fits[i];
+        let res: FlowFreeK | undefined = argsOk && bySize !== undefined ? bySize.get(fit.typeId) : undefined;
+        if (res === undefined) {
+          const full = fittingK(fit.typeId, {
+            method: fittingMethod,
+            innerDiameterM: D,
+            nominalSizeIn: seg.nominalSizeIn,
+            nominalSizeKey: seg.nominalSizeKey,
+            Re,
+            frictionFactor: f,
+          });
+          res = full;
+          if (full.method === 'crane' || full.fixedK === true) rememberFlowFreeK(flowFreeK, seg.nominalSizeKey, fit.typeId, full);
+        }
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {
           warnings.push(
@@ -190,8 +206,9 @@ export function computeHydraulics(
     let staticHigh = r.nodeStaticHighPa[seg.from];
     let staticLow = r.nodeStaticLowPa[seg.from];
     let deviceTotal = 0;
-    const devs: DeviceLossSI[] = [];
-    for (const d of model.devicesBySeg[s]) {
+    const segDevices = model.devicesBySeg[s];
+    const devs: DeviceLossSI[] = segDevices.length === 0 ? NO_DEVICES : [];
+    for (const d of segDevices) {
       let loss = 0;
       let extrapolated = false;
       if (d.curve) {
@@ -242,6 +259,25 @@ export function computeHydraulics(
   if (sizeChangeIds.length > 0) warnings.push(makeGroupedWarning('size-change-loss', 'segment', sizeChangeIds));
   if (boosterSeen) warnings.push(makeWarning('booster-gain-at-static', 'system', model.doc.id));
   return r;
+}
+
+/** What the hydraulics stage uses of a fittingK result. */
+interface FlowFreeK {
+  K: number;
+  method: FittingKResult['method'];
+  fellBackFrom?: FittingKResult['fellBackFrom'];
+}
+/** Nominal size key (catalog sizes only) → fitting type id → K that does not depend on the flow. */
+type FlowFreeKCache = Map<string, Map<string, FlowFreeK>>;
+
+function rememberFlowFreeK(cache: FlowFreeKCache, sizeKey: string, typeId: string, res: FittingKResult): void {
+  if (sizeKey === '') return; // custom pipes: nominal size stands in from the inside diameter, not cached
+  let bySize = cache.get(sizeKey);
+  if (bySize === undefined) {
+    bySize = new Map();
+    cache.set(sizeKey, bySize);
+  }
+  bySize.set(typeId, res);
 }
 
 function sourcePressure(model: SiModel, demand: DemandResult, warnings: EngineWarning[]): HydraulicsResult['source'] {

@@ -5,6 +5,7 @@
  */
 import type { z } from 'zod';
 import { SystemDocumentSchema, type SystemDocument } from '../model/schema';
+import { fastParseSystemDocument } from '../model/fastParse';
 import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
 import { toSI, type UnitSystem } from '../units';
 import { waterProperties, type WaterProperties } from '../water';
@@ -24,6 +25,11 @@ const WATER_T_MAX_C = 100;
 const DEFAULT_RISE_TOLERANCE_M = 0.1 * 0.3048;
 /** Shared (frozen) empty list for the many nodes without fixtures. */
 const NO_GROUPS: SiFixtureGroup[] = Object.freeze([]) as unknown as SiFixtureGroup[];
+
+/** Shared (frozen) empty list for the many segments without devices. */
+const NO_DEVICES: SiDevice[] = Object.freeze([]) as unknown as SiDevice[];
+
+type PipeData = Pick<SiSegment, 'innerDiameterM' | 'roughnessM' | 'hazenWilliamsC' | 'velocityClass' | 'nominalSizeIn' | 'nominalSizeKey'>;
 
 export interface SiFixtureGroup {
   fixtureTypeId: string;
@@ -103,8 +109,14 @@ export interface SiModel {
   };
 }
 
-/** Stage 1: structure. Throws EngineInputError with every zod issue mapped to an element. */
+/**
+ * Stage 1: structure. Throws EngineInputError with every zod issue mapped to an element.
+ * The fast reader (model/fastParse.ts) returns what the schema would for the documents it
+ * accepts; anything else goes through the zod schema, which decides and words the report.
+ */
 export function parseDocument(doc: unknown): SystemDocument {
+  const fast = fastParseSystemDocument(doc);
+  if (fast !== undefined) return fast;
   const parsed = SystemDocumentSchema.safeParse(doc, { reportInput: true });
   if (parsed.success) return parsed.data;
   const issues = parsed.error.issues.map((issue) => mapIssue(issue, doc));
@@ -278,6 +290,8 @@ export function buildModel(doc: SystemDocument): SiModel {
   // Segments
   const segIndex = new Map<string, number>();
   const segments: SiSegment[] = [];
+  // Catalog pipe data by material, then size: looked up once per pair in this analysis.
+  const pipeByMaterial = new Map<string, Map<string, PipeData>>();
   for (let s = 0; s < doc.segments.length; s++) {
     const seg = doc.segments[s];
     if (segIndex.has(seg.id)) throw inputError('duplicate-id', 'segment', seg.id, 'id');
@@ -286,7 +300,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     if (from === undefined) throw inputError('unknown-node', 'segment', seg.id, 'from', `node "${seg.from}" is not in the system`);
     const to = nodeIndex.get(seg.to);
     if (to === undefined) throw inputError('unknown-node', 'segment', seg.id, 'to', `node "${seg.to}" is not in the system`);
-    let pipe: Pick<SiSegment, 'innerDiameterM' | 'roughnessM' | 'hazenWilliamsC' | 'velocityClass' | 'nominalSizeIn' | 'nominalSizeKey'>;
+    let pipe: PipeData;
     if (seg.custom) {
       const innerDiameterM = Dm(seg.custom.innerDiameter);
       pipe = {
@@ -304,22 +318,33 @@ export function buildModel(doc: SystemDocument): SiModel {
         throw inputError('missing-field', 'segment', seg.id, 'material', 'give either material and size, or custom pipe data');
       }
       if (seg.size === undefined) throw inputError('missing-field', 'segment', seg.id, 'size', 'give the nominal size of the material');
-      const material = MATERIALS[seg.material as MaterialId];
-      if (!material) {
-        throw inputError('unknown-catalog-entry', 'segment', seg.id, 'material', `material "${seg.material}" is not in the materials catalog`);
+      let bySize = pipeByMaterial.get(seg.material);
+      const known = bySize?.get(seg.size);
+      if (known !== undefined) {
+        pipe = known;
+      } else {
+        const material = MATERIALS[seg.material as MaterialId];
+        if (!material) {
+          throw inputError('unknown-catalog-entry', 'segment', seg.id, 'material', `material "${seg.material}" is not in the materials catalog`);
+        }
+        const size = pipeSize(seg.material as MaterialId, seg.size);
+        if (!size) {
+          throw inputError('unknown-catalog-entry', 'segment', seg.id, 'size', `size "${seg.size}" is not in the catalog for ${material.label}`);
+        }
+        pipe = {
+          innerDiameterM: size.innerDiameterM,
+          roughnessM: material.roughnessM,
+          hazenWilliamsC: material.hazenWilliamsC,
+          velocityClass: material.velocityClass,
+          nominalSizeIn: size.nominalIn,
+          nominalSizeKey: size.key,
+        };
+        if (bySize === undefined) {
+          bySize = new Map();
+          pipeByMaterial.set(seg.material, bySize);
+        }
+        bySize.set(seg.size, pipe);
       }
-      const size = pipeSize(seg.material as MaterialId, seg.size);
-      if (!size) {
-        throw inputError('unknown-catalog-entry', 'segment', seg.id, 'size', `size "${seg.size}" is not in the catalog for ${material.label}`);
-      }
-      pipe = {
-        innerDiameterM: size.innerDiameterM,
-        roughnessM: material.roughnessM,
-        hazenWilliamsC: material.hazenWilliamsC,
-        velocityClass: material.velocityClass,
-        nominalSizeIn: size.nominalIn,
-        nominalSizeKey: size.key,
-      };
     }
     if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', seg.id, 'innerDiameter');
     for (const f of seg.fittings) {
@@ -347,7 +372,7 @@ export function buildModel(doc: SystemDocument): SiModel {
   }
 
   // Devices
-  const devicesBySeg: SiDevice[][] = segments.map(() => []);
+  const devicesBySeg: SiDevice[][] = new Array(segments.length).fill(NO_DEVICES);
   const deviceIds = new Set<string>();
   for (const d of doc.devices) {
     if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
@@ -356,6 +381,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
     if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
     if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
+    if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
     devicesBySeg[segIdx].push({
       id: d.id,
       kind: d.kind,

@@ -10,11 +10,17 @@ export interface HunterDesignFlowGpm {
   extrapolated: boolean;
 }
 
-function curvePoints(curve: DemandCurve): readonly (readonly [number, number])[] {
-  if (curve === 'flush-tank') return HUNTER_TABLE_IPC.map((r) => [r.wsfu, r.flushTankGpm] as const);
-  if (curve === 'flush-valve') {
-    return HUNTER_TABLE_IPC.filter((r) => r.flushValveGpm !== null).map((r) => [r.wsfu, r.flushValveGpm as number] as const);
-  }
+type CurvePoints = readonly (readonly [number, number])[];
+
+/** The two columns of the table as (wsfu, gpm) points, built once (immutable). */
+const FLUSH_TANK_POINTS: CurvePoints = Object.freeze(HUNTER_TABLE_IPC.map((r) => Object.freeze([r.wsfu, r.flushTankGpm] as const)));
+const FLUSH_VALVE_POINTS: CurvePoints = Object.freeze(
+  HUNTER_TABLE_IPC.filter((r) => r.flushValveGpm !== null).map((r) => Object.freeze([r.wsfu, r.flushValveGpm as number] as const)),
+);
+
+function curvePoints(curve: DemandCurve): CurvePoints {
+  if (curve === 'flush-tank') return FLUSH_TANK_POINTS;
+  if (curve === 'flush-valve') return FLUSH_VALVE_POINTS;
   throw new RangeError(`hunterDesignFlowGpm: unknown demand curve ${String(curve)}`);
 }
 

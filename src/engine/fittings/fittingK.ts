@@ -46,8 +46,35 @@ type Attempt = Omit<FittingKResult, 'fellBackFrom'> | undefined;
 
 const FALLBACK_ORDER: readonly FittingMethod[] = ['crane', 'hooper-2k', 'darby-3k'];
 
-function sourceFor(entry: FittingTypeEntry, prefix: string): string {
+/** The requested method, then the fallbacks in their order without it (built once, immutable). */
+const orderFor = (m: FittingMethod): readonly FittingMethod[] => Object.freeze([m, ...FALLBACK_ORDER.filter((x) => x !== m)]);
+const ORDER_BY_METHOD: Readonly<Record<FittingMethod, readonly FittingMethod[]>> = Object.freeze({
+  crane: orderFor('crane'),
+  'hooper-2k': orderFor('hooper-2k'),
+  'darby-3k': orderFor('darby-3k'),
+  'equivalent-length': orderFor('equivalent-length'),
+});
+
+const SOURCE_PREFIXES = ['crane', 'hooper', 'darby', 'equivalent-length', 'fixed K'] as const;
+type SourcePrefix = (typeof SOURCE_PREFIXES)[number];
+
+function findSource(entry: FittingTypeEntry, prefix: string): string {
   return entry.sources.find((s) => s.startsWith(prefix)) ?? entry.sources.join('; ');
+}
+
+/** Each registry entry's source line per method, looked up once (entries and sources are frozen). */
+const SOURCES: Readonly<Record<FittingTypeId, Readonly<Record<SourcePrefix, string>>>> = Object.freeze(
+  Object.fromEntries(
+    Object.values(FITTING_TYPES).map((entry) => [
+      entry.id,
+      Object.freeze(Object.fromEntries(SOURCE_PREFIXES.map((p) => [p, findSource(entry, p)])) as Record<SourcePrefix, string>),
+    ]),
+  ),
+);
+
+function sourceFor(entry: FittingTypeEntry, prefix: SourcePrefix): string {
+  const known = Object.prototype.hasOwnProperty.call(SOURCES, entry.id) ? SOURCES[entry.id] : undefined;
+  return known !== undefined && FITTING_TYPES[entry.id] === entry ? known[prefix] : findSource(entry, prefix);
 }
 
 function tryCrane(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
@@ -115,7 +142,15 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
   requirePositive('fittingK', 'nominalSizeIn', ctx.nominalSizeIn);
   requireNonNegative('fittingK', 'Re', ctx.Re);
   requireNonNegative('fittingK', 'frictionFactor', ctx.frictionFactor);
+  return fittingKOfEntry(entry, ctx);
+}
 
+/**
+ * fittingK for a registry entry and a context its caller has already checked (a known method,
+ * innerDiameterM and nominalSizeIn > 0, Re and frictionFactor finite and ≥ 0): the analysis'
+ * hot path, without the argument guards. Same result as fittingK.
+ */
+export function fittingKOfEntry(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
   // Entrances and exits: one constant K whatever the method.
   if (!hasMethodData(entry) && entry.fixedK !== undefined) {
     const result: FittingKResult = { K: entry.fixedK, method: ctx.method, fixedK: true, source: entry.sources[0] };
@@ -125,8 +160,7 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
     return result;
   }
 
-  const order = [ctx.method, ...FALLBACK_ORDER.filter((m) => m !== ctx.method)];
-  for (const method of order) {
+  for (const method of ORDER_BY_METHOD[ctx.method]) {
     const attempt = ATTEMPTS[method](entry, ctx);
     if (attempt) {
       requireFinite('fittingK', 'K', attempt.K);
@@ -136,5 +170,5 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
   if (entry.fixedK !== undefined) {
     return { K: entry.fixedK, method: ctx.method, fixedK: true, source: sourceFor(entry, 'fixed K'), fellBackFrom: ctx.method };
   }
-  throw new RangeError(`fittingK: fitting type '${typeId}' has no data for any method`);
+  throw new RangeError(`fittingK: fitting type '${entry.id}' has no data for any method`);
 }

@@ -1,0 +1,401 @@
+/**
+ * A hand-written reading of SystemDocumentSchema for the hot path: the same checks, the same
+ * defaults and the same output (a fresh copy, keys in the schema's order, an optional key kept
+ * as `undefined` when the input has it so), without zod's per-value machinery.
+ *
+ * schema.ts stays the format and the source of truth. This reader either returns exactly what
+ * `SystemDocumentSchema.parse` would return, or `undefined` — and then the caller runs zod, which
+ * decides and words the error report. It declines (returns `undefined`) on everything invalid and
+ * also on a few valid rarities it does not follow zod into: objects that are not plain JSON-like
+ * objects (class instances and other non-plain prototypes), strings over 200 UTF-16 units (zod counts code
+ * points there), and a "__proto__" key in the minimum-flow-pressure record. A committed property
+ * test (tests/engine/model/fastParse.test.ts) compares the two on generated valid and invalid
+ * documents.
+ */
+import type {
+  CheckedFixture,
+  CriteriaOverrides,
+  Device,
+  DeviceLoss,
+  Fitting,
+  FixtureGroup,
+  Segment,
+  Source,
+  SystemDocument,
+  SystemNode,
+} from './schema';
+import { SCHEMA_VERSION } from './schema';
+
+/** Thrown inside the reader when the input is not one it accepts; caught at its entry. */
+class Declined {}
+const DECLINED = Object.freeze(new Declined());
+
+/** `id()` of schema.ts is z.string().min(1).max(200); above 200 units zod counts code points. */
+const ID_MAX_UNITS = 200;
+
+type Obj = Record<string, unknown>;
+
+function decline(): never {
+  throw DECLINED;
+}
+
+function obj(v: unknown): Obj {
+  if (typeof v !== 'object' || v === null) decline();
+  const proto = Object.getPrototypeOf(v);
+  if (proto !== Object.prototype && proto !== null) decline();
+  return v as Obj;
+}
+
+function arr(v: unknown): unknown[] {
+  if (!Array.isArray(v)) decline();
+  return v;
+}
+
+/** Number of own enumerable keys: compared with the keys read, it rejects unknown keys (strict objects). */
+function keyCount(o: Obj): number {
+  let n = 0;
+  for (const _ in o) n++;
+  return n;
+}
+
+function strictKeys(o: Obj, known: number): void {
+  if (keyCount(o) !== known) decline();
+}
+
+function num(v: unknown): number {
+  if (typeof v !== 'number' || !Number.isFinite(v)) decline();
+  return v;
+}
+function positive(v: unknown): number {
+  if (!(num(v) > 0)) decline();
+  return v as number;
+}
+function nonNegative(v: unknown): number {
+  if (!(num(v) >= 0)) decline();
+  return v as number;
+}
+function positiveInt(v: unknown): number {
+  if (!Number.isSafeInteger(v) || !((v as number) > 0)) decline();
+  return v as number;
+}
+function str(v: unknown): string {
+  if (typeof v !== 'string') decline();
+  return v;
+}
+function nonEmpty(v: unknown): string {
+  if (str(v).length < 1) decline();
+  return v as string;
+}
+function id(v: unknown): string {
+  const s = str(v);
+  if (s.length < 1 || s.length > ID_MAX_UNITS) decline();
+  return s;
+}
+function bool(v: unknown): boolean {
+  if (typeof v !== 'boolean') decline();
+  return v;
+}
+function oneOf<T extends string>(v: unknown, ...values: readonly T[]): T {
+  for (let i = 0; i < values.length; i++) if (v === values[i]) return v as T;
+  return decline();
+}
+
+/**
+ * An optional field: absent → absent; present (even as undefined) → kept, checked when defined.
+ * Returns the number of keys it accounts for (0 or 1), for the strict-key count.
+ */
+function optional<T>(from: Obj, to: Obj, key: string, read: (v: unknown) => T): number {
+  if (!(key in from)) return 0;
+  const v = from[key];
+  to[key] = v === undefined ? undefined : read(v);
+  return 1;
+}
+
+function list<T>(v: unknown, item: (x: unknown) => T): T[] {
+  const a = arr(v);
+  const out: T[] = new Array(a.length);
+  for (let i = 0; i < a.length; i++) out[i] = item(a[i]);
+  return out;
+}
+
+/** A field with `.default(fallback)`: undefined → fallback. */
+function listOrEmpty<T>(from: Obj, key: string, item: (x: unknown) => T): [T[], number] {
+  const v = from[key];
+  return [v === undefined ? [] : list(v, item), key in from ? 1 : 0];
+}
+
+// The enumerations and lists of schema.ts, as named readers (no closure per call).
+function demandCurve(x: unknown) {
+  return oneOf(x, 'flush-tank', 'flush-valve');
+}
+function wsfuBasis(x: unknown) {
+  return oneOf(x, 'cold', 'hot', 'total');
+}
+function velocityLimits(x: unknown) {
+  return list(x, velocityLimit);
+}
+function demandCurveChoice(x: unknown) {
+  return oneOf(x, 'auto', 'flush-tank', 'flush-valve');
+}
+function demandMethod(x: unknown) {
+  return oneOf(x, 'hunter-table', 'hunter-binomial');
+}
+function frictionMethod(x: unknown) {
+  return oneOf(x, 'colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams');
+}
+function fittingMethod(x: unknown) {
+  return oneOf(x, 'crane', 'hooper-2k', 'darby-3k', 'equivalent-length');
+}
+
+function flowTest(v: unknown): NonNullable<Source['flowTest']> {
+  const o = obj(v);
+  const out: Obj = { staticPressure: positive(o.staticPressure), residualPressure: nonNegative(o.residualPressure), flow: positive(o.flow) };
+  strictKeys(o, 3 + optional(o, out, 'date', str));
+  return out as NonNullable<Source['flowTest']>;
+}
+
+function source(v: unknown): Source {
+  const o = obj(v);
+  const out: Obj = {
+    kind: oneOf(o.kind, 'utility-main', 'tank', 'booster-outlet'),
+    nodeId: id(o.nodeId),
+    staticPressureLow: nonNegative(o.staticPressureLow),
+    staticPressureHigh: nonNegative(o.staticPressureHigh),
+    pressureBasis: nonEmpty(o.pressureBasis),
+  };
+  let known = 5;
+  known += optional(o, out, 'pressureDate', str);
+  known += optional(o, out, 'flowTest', flowTest);
+  strictKeys(o, known);
+  return out as Source;
+}
+
+function curvePoint(v: unknown): { flow: number; loss: number } {
+  const o = obj(v);
+  const out = { flow: nonNegative(o.flow), loss: nonNegative(o.loss) };
+  strictKeys(o, 2);
+  return out;
+}
+
+function deviceLoss(v: unknown): DeviceLoss {
+  const o = obj(v);
+  if (o.kind === 'fixed') {
+    const out = { kind: 'fixed' as const, loss: nonNegative(o.loss) };
+    strictKeys(o, 2);
+    return out;
+  }
+  if (o.kind === 'curve') {
+    const points = list(o.points, curvePoint);
+    if (points.length < 1) decline();
+    strictKeys(o, 2);
+    return { kind: 'curve', points };
+  }
+  return decline();
+}
+
+function prv(v: unknown): NonNullable<Device['prv']> {
+  const o = obj(v);
+  const falloff = o.falloffPerFlow;
+  const out = { setPressure: positive(o.setPressure), falloffPerFlow: falloff === undefined ? 0 : nonNegative(falloff) };
+  strictKeys(o, 1 + ('falloffPerFlow' in o ? 1 : 0));
+  return out;
+}
+
+function boost(v: unknown): NonNullable<Device['boost']> {
+  const o = obj(v);
+  const out = { gain: nonNegative(o.gain) };
+  strictKeys(o, 1);
+  return out;
+}
+
+function device(v: unknown): Device {
+  const o = obj(v);
+  const out: Obj = {
+    id: id(o.id),
+    kind: oneOf(o.kind, 'meter', 'backflow-preventer', 'prv', 'strainer', 'softener', 'filter', 'water-heater', 'booster-pump', 'other'),
+    label: nonEmpty(o.label),
+    segmentId: id(o.segmentId),
+    loss: deviceLoss(o.loss),
+  };
+  let known = 5;
+  known += optional(o, out, 'prv', prv);
+  known += optional(o, out, 'boost', boost);
+  strictKeys(o, known);
+  return out as Device;
+}
+
+function usage(v: unknown): NonNullable<FixtureGroup['usage']> {
+  const o = obj(v);
+  const out: Obj = {};
+  let known = optional(o, out, 'flow', positive);
+  out.durationSeconds = positive(o.durationSeconds);
+  out.recurrenceSeconds = positive(o.recurrenceSeconds);
+  known += 2;
+  strictKeys(o, known);
+  return out as NonNullable<FixtureGroup['usage']>;
+}
+
+function fixtureGroup(v: unknown): FixtureGroup {
+  const o = obj(v);
+  const out: Obj = { fixtureTypeId: id(o.fixtureTypeId), count: positiveInt(o.count) };
+  let known = 2;
+  known += optional(o, out, 'demandCurve', demandCurve);
+  known += optional(o, out, 'wsfuBasis', wsfuBasis);
+  known += optional(o, out, 'usage', usage);
+  strictKeys(o, known);
+  return out as FixtureGroup;
+}
+
+function checkedFixture(v: unknown): CheckedFixture {
+  const o = obj(v);
+  const out: Obj = { id: id(o.id), fixtureTypeId: id(o.fixtureTypeId) };
+  let known = 2;
+  known += optional(o, out, 'label', str);
+  known += optional(o, out, 'minFlowPressure', nonNegative);
+  known += optional(o, out, 'flowRate', positive);
+  known += optional(o, out, 'expectedCritical', bool);
+  strictKeys(o, known);
+  return out as CheckedFixture;
+}
+
+function node(v: unknown): SystemNode {
+  const o = obj(v);
+  const out: Obj = { id: id(o.id) };
+  let known = 1;
+  known += optional(o, out, 'label', str);
+  out.elevation = num(o.elevation);
+  known++;
+  const [fixtureGroups, hasGroups] = listOrEmpty(o, 'fixtureGroups', fixtureGroup);
+  out.fixtureGroups = fixtureGroups;
+  known += hasGroups;
+  known += optional(o, out, 'continuousDemand', nonNegative);
+  const [checkedFixtures, hasChecked] = listOrEmpty(o, 'checkedFixtures', checkedFixture);
+  out.checkedFixtures = checkedFixtures;
+  known += hasChecked;
+  strictKeys(o, known);
+  return out as SystemNode;
+}
+
+function fitting(v: unknown): Fitting {
+  const o = obj(v);
+  const out = { typeId: id(o.typeId), count: positiveInt(o.count) };
+  strictKeys(o, 2);
+  return out;
+}
+
+function customPipe(v: unknown): NonNullable<Segment['custom']> {
+  const o = obj(v);
+  const out = {
+    innerDiameter: positive(o.innerDiameter),
+    roughness: nonNegative(o.roughness),
+    hazenWilliamsC: positive(o.hazenWilliamsC),
+    velocityClass: oneOf(o.velocityClass, 'copper', 'plastic', 'steel'),
+  };
+  strictKeys(o, 4);
+  return out;
+}
+
+function segment(v: unknown): Segment {
+  const o = obj(v);
+  const out: Obj = { id: id(o.id) };
+  let known = 1;
+  known += optional(o, out, 'label', str);
+  out.from = id(o.from);
+  out.to = id(o.to);
+  known += 2;
+  known += optional(o, out, 'material', nonEmpty);
+  known += optional(o, out, 'size', nonEmpty);
+  known += optional(o, out, 'custom', customPipe);
+  out.length = positive(o.length);
+  known++;
+  known += optional(o, out, 'rise', num);
+  const [fittings, hasFittings] = listOrEmpty(o, 'fittings', fitting);
+  out.fittings = fittings;
+  known += hasFittings;
+  known += optional(o, out, 'flowOverride', nonNegative);
+  const reducerAuto = o.reducerAuto;
+  out.reducerAuto = reducerAuto === undefined ? true : bool(reducerAuto);
+  known += 'reducerAuto' in o ? 1 : 0;
+  strictKeys(o, known);
+  return out as Segment;
+}
+
+function velocityLimit(v: unknown): NonNullable<CriteriaOverrides['velocityLimits']>[number] {
+  const o = obj(v);
+  const out = {
+    material: oneOf(o.material, 'copper', 'plastic', 'steel'),
+    service: oneOf(o.service, 'cold', 'hot'),
+    maxVelocity: positive(o.maxVelocity),
+  };
+  strictKeys(o, 3);
+  return out;
+}
+
+function pressureRecord(v: unknown): Record<string, number> {
+  const o = obj(v);
+  // zod reads a record's own keys (Reflect.ownKeys): decline any it would see and for-in would not.
+  if (Object.getOwnPropertySymbols(o).length > 0 || Object.getOwnPropertyNames(o).length !== keyCount(o)) decline();
+  const out: Record<string, number> = {};
+  for (const k in o) {
+    if (k === '__proto__') decline();
+    out[k] = nonNegative(o[k]);
+  }
+  return out;
+}
+
+function criteria(v: unknown): CriteriaOverrides {
+  const o = obj(v);
+  const out: Obj = {};
+  let known = 0;
+  known += optional(o, out, 'maxStaticPressure', positive);
+  known += optional(o, out, 'minStaticPressure', nonNegative);
+  known += optional(o, out, 'velocityLimits', velocityLimits);
+  known += optional(o, out, 'minFlowPressures', pressureRecord);
+  known += optional(o, out, 'demandCurve', demandCurveChoice);
+  known += optional(o, out, 'demandMethod', demandMethod);
+  known += optional(o, out, 'frictionMethod', frictionMethod);
+  known += optional(o, out, 'fittingMethod', fittingMethod);
+  known += optional(o, out, 'riseTolerance', nonNegative);
+  strictKeys(o, known);
+  return out as CriteriaOverrides;
+}
+
+function systemDocument(v: unknown): SystemDocument {
+  const o = obj(v);
+  if (o.schemaVersion !== SCHEMA_VERSION) decline();
+  const out: Obj = {
+    schemaVersion: SCHEMA_VERSION,
+    id: id(o.id),
+    name: nonEmpty(o.name),
+    service: oneOf(o.service, 'cold', 'hot'),
+    unitSystem: oneOf(o.unitSystem, 'US', 'SI'),
+    waterTemperature: num(o.waterTemperature),
+    source: source(o.source),
+  };
+  let known = 7;
+  const [devices, hasDevices] = listOrEmpty(o, 'devices', device);
+  out.devices = devices;
+  known += hasDevices;
+  const nodes = list(o.nodes, node);
+  if (nodes.length < 1) decline();
+  out.nodes = nodes;
+  out.segments = list(o.segments, segment);
+  known += 2;
+  known += optional(o, out, 'criteria', criteria);
+  known += optional(o, out, 'notes', str);
+  strictKeys(o, known);
+  return out as SystemDocument;
+}
+
+/**
+ * The document as SystemDocumentSchema.parse would return it, or undefined when this reader
+ * declines it (invalid, or one of the rarities above): then run the zod schema.
+ */
+export function fastParseSystemDocument(doc: unknown): SystemDocument | undefined {
+  try {
+    return systemDocument(doc);
+  } catch (e) {
+    if (e === DECLINED) return undefined;
+    throw e;
+  }
+}

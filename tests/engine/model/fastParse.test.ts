@@ -1,0 +1,278 @@
+/**
+ * The fast reader of system documents (src/engine/model/fastParse.ts) against the zod schema,
+ * which stays the source of truth. Property tests (fast-check) on generated valid documents and
+ * on mutated (mostly invalid) ones: whenever the reader accepts, zod accepts and returns the
+ * same value (same keys in the same order, same defaults, an optional key kept as undefined
+ * exactly when zod keeps it, numbers equal by Object.is); whenever zod rejects, the reader
+ * declines; and the reader declines a document zod accepts only for the rarities its doc comment
+ * lists. These are consistency checks of two implementations of one format (no published values).
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { SystemDocumentSchema, analyzeSystem } from '../../../src/engine';
+import { analyzeValidated } from '../../../src/engine/analysis/analyze';
+import { parseDocument } from '../../../src/engine/analysis/input';
+import { fastParseSystemDocument } from '../../../src/engine/model/fastParse';
+import { generateBuilding, generateRandomTree, mulberry32 } from '../../../src/engine/testing/generateTree';
+import { oneSegment, smallTree } from '../support/docs';
+
+const ABSENT = Symbol('absent');
+
+/** An optional field: absent, present as undefined, or a value. */
+const opt = <T>(arb: fc.Arbitrary<T>) => fc.oneof(fc.constant(ABSENT), fc.constant(undefined), arb);
+
+/** Builds an object from generated fields, dropping ABSENT ones; `reverse` writes the keys in reverse order. */
+function objectOf(fields: Record<string, unknown>, reverse: boolean): Record<string, unknown> {
+  const entries = Object.entries(fields).filter(([, v]) => v !== ABSENT);
+  if (reverse) entries.reverse();
+  return Object.fromEntries(entries);
+}
+
+const rec = (fields: Record<string, fc.Arbitrary<unknown>>) =>
+  fc.tuple(fc.record(fields), fc.boolean()).map(([f, reverse]) => objectOf(f, reverse));
+
+const finite = fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 });
+const positive = fc.double({ noNaN: true, min: Number.MIN_VALUE, max: 1e6 });
+const nonNegative = fc.oneof(fc.constant(0), fc.constant(-0), positive);
+const count = fc.integer({ min: 1, max: 20 });
+const id = fc.oneof(fc.constantFrom('a', 'b', 'src', 'n1', 'é', '😀'), fc.string({ minLength: 1, maxLength: 12 }));
+const text = fc.string({ maxLength: 8 });
+const label = fc.string({ minLength: 1, maxLength: 8 });
+
+const flowTest = rec({ staticPressure: positive, residualPressure: nonNegative, flow: positive, date: opt(text) });
+const source = rec({
+  kind: fc.constantFrom('utility-main', 'tank', 'booster-outlet'),
+  nodeId: id,
+  staticPressureLow: nonNegative,
+  staticPressureHigh: nonNegative,
+  pressureBasis: label,
+  pressureDate: opt(text),
+  flowTest: opt(flowTest),
+});
+const deviceLoss = fc.oneof(
+  rec({ kind: fc.constant('fixed'), loss: nonNegative }),
+  rec({ kind: fc.constant('curve'), points: fc.array(rec({ flow: nonNegative, loss: nonNegative }), { minLength: 1, maxLength: 3 }) }),
+);
+const device = rec({
+  id,
+  kind: fc.constantFrom('meter', 'backflow-preventer', 'prv', 'strainer', 'softener', 'filter', 'water-heater', 'booster-pump', 'other'),
+  label,
+  segmentId: id,
+  loss: deviceLoss,
+  prv: opt(rec({ setPressure: positive, falloffPerFlow: opt(nonNegative) })),
+  boost: opt(rec({ gain: nonNegative })),
+});
+const fixtureGroup = rec({
+  fixtureTypeId: id,
+  count,
+  demandCurve: opt(fc.constantFrom('flush-tank', 'flush-valve')),
+  wsfuBasis: opt(fc.constantFrom('cold', 'hot', 'total')),
+  usage: opt(rec({ flow: opt(positive), durationSeconds: positive, recurrenceSeconds: positive })),
+});
+const checkedFixture = rec({
+  id,
+  fixtureTypeId: id,
+  label: opt(text),
+  minFlowPressure: opt(nonNegative),
+  flowRate: opt(positive),
+  expectedCritical: opt(fc.boolean()),
+});
+const node = rec({
+  id,
+  label: opt(text),
+  elevation: finite,
+  fixtureGroups: opt(fc.array(fixtureGroup, { maxLength: 2 })),
+  continuousDemand: opt(nonNegative),
+  checkedFixtures: opt(fc.array(checkedFixture, { maxLength: 2 })),
+});
+const segment = rec({
+  id,
+  label: opt(text),
+  from: id,
+  to: id,
+  material: opt(label),
+  size: opt(label),
+  custom: opt(rec({ innerDiameter: positive, roughness: nonNegative, hazenWilliamsC: positive, velocityClass: fc.constantFrom('copper', 'plastic', 'steel') })),
+  length: positive,
+  rise: opt(finite),
+  fittings: opt(fc.array(rec({ typeId: id, count }), { maxLength: 3 })),
+  flowOverride: opt(nonNegative),
+  reducerAuto: opt(fc.boolean()),
+});
+const criteria = rec({
+  maxStaticPressure: opt(positive),
+  minStaticPressure: opt(nonNegative),
+  velocityLimits: opt(fc.array(rec({ material: fc.constantFrom('copper', 'plastic', 'steel'), service: fc.constantFrom('cold', 'hot'), maxVelocity: positive }), { maxLength: 2 })),
+  minFlowPressures: opt(fc.dictionary(fc.string({ maxLength: 6 }).filter((k) => k !== '__proto__'), nonNegative, { maxKeys: 3 })),
+  demandCurve: opt(fc.constantFrom('auto', 'flush-tank', 'flush-valve')),
+  demandMethod: opt(fc.constantFrom('hunter-table', 'hunter-binomial')),
+  frictionMethod: opt(fc.constantFrom('colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams')),
+  fittingMethod: opt(fc.constantFrom('crane', 'hooper-2k', 'darby-3k', 'equivalent-length')),
+  riseTolerance: opt(nonNegative),
+});
+const validDocument = rec({
+  schemaVersion: fc.constant(1),
+  id,
+  name: label,
+  service: fc.constantFrom('cold', 'hot'),
+  unitSystem: fc.constantFrom('US', 'SI'),
+  waterTemperature: finite,
+  source,
+  devices: opt(fc.array(device, { maxLength: 2 })),
+  nodes: fc.array(node, { minLength: 1, maxLength: 3 }),
+  segments: fc.array(segment, { maxLength: 3 }),
+  criteria: opt(criteria),
+  notes: opt(text),
+});
+
+/** Values that break (or sometimes keep) a field: wrong types, non-finite, signs, bounds, lengths. */
+const weird = fc.constantFrom<unknown>(
+  NaN, Infinity, -Infinity, -1, 0, -0, 0.5, 1.5, 2 ** 53, 2 ** 53 - 1, 1e308, '', 'x', 'x'.repeat(200), 'x'.repeat(201),
+  '😀'.repeat(100), '😀'.repeat(101), null, true, [], {}, [1], { kind: 'fixed' }, 'flush-tank', 'SI', 'curve', undefined,
+);
+
+type Path = (string | number)[];
+
+/** Every path to an object or array inside `v`, and the keys or indices there. */
+function containers(v: unknown, path: Path = [], out: { path: Path; keys: (string | number)[] }[] = []) {
+  if (v !== null && typeof v === 'object') {
+    const keys: (string | number)[] = Array.isArray(v) ? v.map((_, i) => i) : Object.keys(v);
+    out.push({ path, keys });
+    for (const k of keys) containers((v as Record<string | number, unknown>)[k], [...path, k], out);
+  }
+  return out;
+}
+
+function at(v: unknown, path: Path): Record<string | number, unknown> {
+  return path.reduce<unknown>((x, k) => (x as Record<string | number, unknown>)[k], v) as Record<string | number, unknown>;
+}
+
+/** One mutation at a chosen container: delete a key, replace a value, or add an unknown key. */
+const mutated = fc
+  .tuple(validDocument, fc.nat(), fc.nat(), fc.constantFrom('delete', 'replace', 'add'), weird)
+  .map(([doc, pickC, pickK, op, value]) => {
+    const spots = containers(doc);
+    const spot = spots[pickC % spots.length];
+    const target = at(doc, spot.path);
+    if (op === 'add' || spot.keys.length === 0) {
+      if (Array.isArray(target)) target.push(value);
+      else target.unknownKey = value;
+    } else {
+      const key = spot.keys[pickK % spot.keys.length];
+      if (op === 'delete') {
+        if (Array.isArray(target)) target.splice(key as number, 1);
+        else delete target[key];
+      } else target[key] = value;
+    }
+    return doc;
+  });
+
+/** First difference between two values: key order, key presence (undefined included), Object.is on primitives. */
+function difference(a: unknown, b: unknown, path = '$'): string | null {
+  if (a === null || b === null || typeof a !== 'object' || typeof b !== 'object') {
+    return Object.is(a, b) ? null : `${path}: ${String(a)} vs ${String(b)}`;
+  }
+  if (Array.isArray(a) !== Array.isArray(b)) return `${path}: array vs object`;
+  const ka = Object.keys(a);
+  const kb = Object.keys(b);
+  if (ka.join('\u0000') !== kb.join('\u0000')) return `${path}: keys [${ka.join(',')}] vs [${kb.join(',')}]`;
+  for (const k of ka) {
+    const d = difference((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], `${path}.${k}`);
+    if (d) return d;
+  }
+  return null;
+}
+
+/** The rarities the fast reader declines although zod accepts them (see fastParse.ts). */
+function hasRarity(v: unknown): boolean {
+  if (typeof v === 'string') return v.length > 200;
+  if (v === null || typeof v !== 'object') return false;
+  if (!Array.isArray(v) && Object.getPrototypeOf(v) !== Object.prototype && Object.getPrototypeOf(v) !== null) return true;
+  return Object.values(v).some(hasRarity);
+}
+
+function expectSameAsZod(doc: unknown): 'accepted' | 'rejected' | 'declined-rarity' {
+  const z = SystemDocumentSchema.safeParse(doc);
+  const fast = fastParseSystemDocument(doc);
+  if (!z.success) {
+    expect(fast).toBeUndefined();
+    return 'rejected';
+  }
+  if (fast === undefined) {
+    expect(hasRarity(doc)).toBe(true);
+    return 'declined-rarity';
+  }
+  expect(difference(fast, z.data)).toBeNull();
+  return 'accepted';
+}
+
+describe('fast reader ≡ zod schema', () => {
+  it('generated valid documents: accepted with the same value and defaults', () => {
+    let accepted = 0;
+    fc.assert(
+      fc.property(validDocument, (doc) => {
+        if (expectSameAsZod(doc) === 'accepted') accepted++;
+      }),
+      { numRuns: 400 },
+    );
+    // The generator makes documents the schema accepts (strings stay short); all must be read fast.
+    expect(accepted).toBe(400);
+  });
+
+  it('mutated documents: the same verdict, and the same value when valid', () => {
+    const seen = { accepted: 0, rejected: 0, 'declined-rarity': 0 };
+    fc.assert(
+      fc.property(mutated, (doc) => {
+        seen[expectSameAsZod(doc)]++;
+      }),
+      { numRuns: 1500 },
+    );
+    // Both outcomes must actually be exercised for the property to mean anything.
+    expect(seen.rejected).toBeGreaterThan(300);
+    expect(seen.accepted).toBeGreaterThan(100);
+  });
+
+  it('the example and generated documents', () => {
+    const docs = [oneSegment(), smallTree(), generateBuilding({ storeys: 3 }), generateRandomTree(mulberry32(3), { segments: 50, fittingTypes: ['tee-run'] })];
+    for (const doc of docs) expect(expectSameAsZod(doc)).toBe('accepted');
+  });
+
+  it('returns a fresh copy with fresh defaults, as zod does', () => {
+    const doc = oneSegment();
+    const a = fastParseSystemDocument(doc)!;
+    const b = fastParseSystemDocument(doc)!;
+    expect(a).not.toBe(doc);
+    expect(a.segments[0]).not.toBe(doc.segments[0]);
+    expect(a.segments[0].fittings).not.toBe(doc.segments[0].fittings);
+    expect(a.nodes[0].fixtureGroups).not.toBe(b.nodes[0].fixtureGroups);
+    expect(a.segments[0].reducerAuto).toBe(true);
+  });
+
+  it('declines the rarities, and parseDocument then gives what zod gives', () => {
+    const longId = oneSegment();
+    longId.segments[0].id = '😀'.repeat(150); // 300 UTF-16 units, 150 code points: zod accepts
+    class Pipe {
+      innerDiameter = 20;
+      roughness = 0.0015;
+      hazenWilliamsC = 150;
+      velocityClass = 'plastic' as const;
+    }
+    const instance = oneSegment();
+    delete instance.segments[0].material;
+    delete instance.segments[0].size;
+    instance.segments[0].custom = new Pipe();
+    const protoKey = oneSegment({ criteria: JSON.parse('{"minFlowPressures": {"__proto__": 5, "lavatory-private": 50}}') });
+    for (const doc of [longId, instance, protoKey]) {
+      expect(fastParseSystemDocument(doc)).toBeUndefined();
+      const z = SystemDocumentSchema.safeParse(doc);
+      expect(z.success).toBe(true);
+      expect(difference(parseDocument(doc), z.data)).toBeNull();
+    }
+  });
+
+  it('analyzeSystem (fast reader) equals analyzeValidated on the zod-parsed document', () => {
+    for (const doc of [smallTree(), generateBuilding({ storeys: 2 })]) {
+      expect(analyzeSystem(doc)).toStrictEqual(analyzeValidated(SystemDocumentSchema.parse(doc)));
+    }
+  });
+});
