@@ -3,12 +3,14 @@ import { matchPath, matchRoutes } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
 import { isSafeRedirect, paths } from '../../src/app/paths';
 import { routes } from '../../src/app/router';
+import { walkPaths } from '../../src/features/walk/paths';
 
 function allPatterns(list: RouteObject[]): string[] {
   return list.flatMap((route) => [...(route.path ? [route.path] : []), ...allPatterns(route.children ?? [])]);
 }
 
-const TABLE_PATTERNS = Object.values(paths).map((entry) => entry.path);
+// the app's table and the features' own tables (a feature composes its routes from its table)
+const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths)].map((entry) => entry.path);
 
 describe('route table', () => {
   it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {

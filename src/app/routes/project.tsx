@@ -21,6 +21,7 @@ import { canEditProject, canManageMembers } from '../../features/projects/permis
 import { useDocumentTitle } from '../../hooks/use-document-title';
 import { myRoleLabel } from '../../lib/labels';
 import type { Project } from '../../shared/api/projects';
+import { ProjectSystemsPanel } from '../../features/systems/components/project-systems-panel';
 
 function MembersSection({ project, canManage, config }: { project: Project; canManage: boolean; config: MemberMutationConfig }) {
   const members = useMembers(project.id);
@@ -98,6 +99,7 @@ export function ProjectRoute() {
             <ProjectDetails project={project} />
           )}
         </Section>
+        {project.myRole ? <ProjectSystemsPanel projectId={project.id} canEdit={project.myRole === 'designer' && !project.archived} /> : null}
         <MembersSection project={project} canManage={canManage} config={memberConfig} />
         {canEdit ? (
           <Section title="Archive">
