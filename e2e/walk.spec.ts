@@ -1,0 +1,310 @@
+import fs from 'node:fs';
+import { expect, test } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { generateBuilding } from '../src/engine/testing/generateTree';
+import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
+
+// The walk, end to end: a designer creates a small invented building and walks it step by step.
+// The numbers typed in are invented demo inputs; the checks are that the screens follow them
+// (a margin appears, changes when a fitting is added, survives a reload, and compares).
+test.describe.configure({ mode: 'serial' });
+
+const run = Date.now().toString(36);
+const systemName = `Quarry Lane annex cold ${run}`;
+let firstRevisionUrl = '';
+
+async function shot(page: Page, name: string) {
+  fs.mkdirSync('e2e-output/walk', { recursive: true });
+  await page.screenshot({ path: `e2e-output/walk/${name}.png`, fullPage: true });
+}
+
+const ledger = (page: Page) => page.getByTestId('ledger-panel');
+const liveMargin = (page: Page) => page.getByTestId('live-margin');
+const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name });
+
+let pageProblems: string[] = [];
+test.beforeEach(({ context }) => {
+  pageProblems = [];
+  context.on('page', (page) => page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`)));
+});
+test.afterEach(() => expect(pageProblems).toEqual([]));
+
+test('when a designer walks a new system from the supply to the result, then the verdict, chart and ledger follow the inputs, and an issued revision keeps its numbers', async ({ page }) => {
+  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  await signIn(page, DEMO.designer);
+  await openProject(page, DEMO_PROJECT);
+
+  // New system
+  await page.getByRole('button', { name: 'New system' }).click();
+  await page.getByLabel('System name').fill(systemName);
+  await page.getByLabel('Service').selectOption('cold');
+  await page.getByRole('button', { name: 'Create system and start the walk' }).click();
+  await expect(page).toHaveURL(/\/revisions\/[^/]+\/supply$/);
+  await expect(page.getByRole('heading', { level: 2, name: 'Supply' })).toBeVisible();
+
+  // 1. Supply — typed with the keyboard: Tab moves between the fields.
+  await page.getByLabel(/Elevation of the connection/).fill('-4');
+  await page.getByLabel(/Static pressure, low/).click();
+  await page.keyboard.press('ControlOrMeta+a');
+  await page.keyboard.type('72');
+  await page.keyboard.press('Tab');
+  await page.keyboard.press('ControlOrMeta+a');
+  await page.keyboard.type('84');
+  await page.getByLabel('Where the pressure figures came from').fill('Wrenmoor Water Department letter (invented demo figure)');
+  await page.getByLabel('Date of the pressure figures').fill('2026-06-01');
+  await page.getByLabel('A flow test was made at the connection').check();
+  await page.getByLabel(/Test static pressure/).fill('74');
+  await page.getByLabel(/Test residual pressure/).fill('60');
+  await page.getByLabel(/Test flow/).fill('900');
+  await shot(page, '01-supply');
+
+  // 2. Meter & devices: the first segment, a meter from the catalog's templates, a backflow preventer.
+  await step(page, 'Meter & devices').click();
+  await expect(page).toHaveURL(/\/devices$/);
+  await page.getByRole('button', { name: /Add the service pipe/ }).click();
+  await page.getByLabel('Device template').selectOption({ label: 'Displacement meter, 2 in' });
+  await page.getByRole('button', { name: 'Add from template' }).click();
+  await expect(page.getByLabel('Point 1 flow (gpm)')).toHaveValue('50');
+  await page.getByRole('button', { name: 'Add a device' }).click();
+  await page.getByLabel('Device 2 name').fill('Reduced-pressure backflow assembly');
+  await page.getByLabel('Device 2 fixed loss (psi)').fill('12');
+  await shot(page, '02-devices');
+
+  // 3. Risers: service pipe, a riser, a floor branch; fixtures at the top.
+  await step(page, 'Risers').click();
+  await expect(page).toHaveURL(/\/risers$/);
+  const service = page.getByTestId('segment-service-1');
+  await service.getByLabel('Service pipe material').selectOption('copper-l');
+  await service.getByLabel('Service pipe size').selectOption('2');
+  await service.getByLabel('Service pipe length (ft)').fill('40');
+  await service.getByLabel('Service pipe rise (ft)').fill('4');
+  await page.getByRole('button', { name: 'Add a segment from Building entry' }).click();
+  const riser = page.getByTestId('segment-seg-1');
+  await riser.getByLabel('seg-1 name').fill('Riser');
+  await riser.getByLabel('Riser size').selectOption('1-1/2');
+  await riser.getByLabel('Riser length (ft)').fill('32');
+  await riser.getByLabel('Riser rise (ft)').fill('30');
+  await riser.getByLabel('Name of node node-1').fill('Level 4');
+  await page.getByRole('button', { name: 'Add a segment from Level 4' }).click();
+  const branch = page.getByTestId('segment-seg-2');
+  await branch.getByLabel('seg-2 name').fill('Level 4 branch');
+  await branch.getByLabel('Level 4 branch size').selectOption('3/4');
+  await branch.getByLabel('Level 4 branch length (ft)').fill('45');
+  await branch.getByLabel('Level 4 branch rise (ft)').fill('0');
+  await branch.getByLabel('Name of node node-2').fill('Apartment 401');
+  await page.getByRole('button', { name: 'Add fixtures at Apartment 401' }).click();
+  await page.getByLabel('Apartment 401: fixture group 1 type').selectOption('lavatory-private');
+  await page.getByLabel('Apartment 401: fixture group 1 count').fill('6');
+  // CSV import of fixture groups, with a line-numbered refusal first
+  await page.getByLabel('Lines of node id, fixture type id, count').fill('node-2,no-such-type,1');
+  await page.getByRole('button', { name: 'Add these fixture groups' }).click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Line 1' })).toBeVisible();
+  await page.getByLabel('Lines of node id, fixture type id, count').fill('node id,fixture type id,count\nnode-2,kitchen-sink-private,3');
+  await page.getByRole('button', { name: 'Add these fixture groups' }).click();
+  await expect(page.getByText('1 fixture group(s) added.')).toBeVisible();
+  await expect(page.getByTestId('segment-demand-seg-2')).toContainText('WSFU');
+  await shot(page, '03-risers');
+
+  // 5 before 4 by choice of the designer: elevations, then back to fittings.
+  await step(page, 'Elevation').click();
+  await page.getByLabel('Elevation of Building entry (ft)').fill('0');
+  await page.getByLabel('Elevation of Level 4 (ft)').fill('30');
+  await page.getByLabel('Elevation of Apartment 401 (ft)').fill('30');
+  await expect(page.getByTestId('rise-check-seg-1')).toContainText('Agrees');
+  await shot(page, '05-elevation');
+
+  // 6. Remote fixture
+  await step(page, 'Remote fixture').click();
+  await page.getByRole('button', { name: 'Check a fixture at Apartment 401' }).click();
+  await page.getByLabel('Apartment 401: checked fixture 1 type').selectOption('lavatory-private');
+  await page.getByLabel('Apartment 401: checked fixture 1 name').fill('Lavatory, apartment 401');
+  await page.getByLabel('I expect this to be the critical one').check();
+  await expect(page.getByTestId('critical-summary')).toContainText('Lavatory, apartment 401');
+  await expect(liveMargin(page)).toHaveText(/psi/);
+  await shot(page, '06-remote-fixture');
+
+  // 4. Fittings: the usual set on the branch; the live margin must go down.
+  await step(page, 'Fittings').click();
+  await expect(page).toHaveURL(/\/fittings$/);
+  const before = await liveMargin(page).innerText();
+  await page.getByRole('button', { name: 'Add the usual set (2 elbows, 1 tee run) to Level 4 branch' }).click();
+  await expect(liveMargin(page)).not.toHaveText(before);
+  await expect(page.getByTestId('k-seg-2-0')).not.toHaveText('—');
+  await shot(page, '04-fittings');
+
+  // 7. Result
+  await step(page, 'Result').click();
+  await expect(page.getByTestId('verdict-table')).toBeVisible();
+  await expect(page.getByTestId('pressure-chart')).toBeVisible();
+  await expect(page.getByTestId('cautions')).toContainText('qualified person');
+  const margin = await page.getByTestId('margin-node-2-1').innerText();
+  await shot(page, '07-result');
+
+  // Change a fitting and watch the margin change on the result's own table too.
+  await step(page, 'Fittings').click();
+  await page.getByRole('button', { name: 'Add the usual set (2 elbows, 1 tee run) to Riser' }).click();
+  await step(page, 'Result').click();
+  await expect(page.getByTestId('margin-node-2-1')).not.toHaveText(margin);
+  const issuedMargin = await page.getByTestId('margin-node-2-1').innerText();
+
+  // Issue: the pending change is saved first, then the revision is frozen.
+  await page.getByLabel('Note for this revision (optional)').fill('First check of the annex (demo)');
+  await page.getByRole('button', { name: 'Issue revision' }).click();
+  await expect(page.getByTestId('issued-note')).toContainText('issued');
+  await expect(page.getByTestId('read-only-note')).toBeVisible();
+  firstRevisionUrl = page.url();
+
+  // Reload: the same numbers, read-only.
+  await page.reload();
+  await expect(page.getByTestId('margin-node-2-1')).toHaveText(issuedMargin);
+  await step(page, 'Supply').click();
+  await expect(page.getByLabel(/Static pressure, low/)).toBeDisabled();
+  await expect(page.getByLabel(/Static pressure, low/)).toHaveValue('72');
+  await shot(page, '08-issued-read-only');
+});
+
+test('when a new draft changes a pipe size, then comparing it with the issued revision shows each margin before and after', async ({ page }) => {
+  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  await signIn(page, DEMO.designer);
+  await page.goto(firstRevisionUrl);
+  await page.getByRole('button', { name: 'Start a new draft from this revision' }).click();
+  await expect(page.getByText('Revision 2 · draft')).toBeVisible();
+  await page.getByRole('link', { name: 'Segment table' }).click();
+  await expect(page.getByTestId('segment-table')).toBeVisible();
+  await page.getByLabel('Level 4 branch size').selectOption('1');
+  await page.getByRole('button', { name: 'Save now' }).click();
+  await expect(page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await shot(page, '09-segment-table');
+
+  await page.getByRole('link', { name: 'Riser diagram' }).click();
+  await expect(page.getByTestId('riser-diagram')).toBeVisible();
+  await page.getByRole('button', { name: 'Zoom in' }).click();
+  await expect(page.getByText('125 %')).toBeVisible();
+  await shot(page, '10-riser-diagram');
+
+  await page.getByRole('link', { name: 'System overview and revisions' }).click();
+  await expect(page.getByTestId('revisions-table')).toContainText('issued');
+  await page.getByLabel('Revision A (before)').selectOption({ label: 'Revision 1 (issued)' });
+  await page.getByLabel('Revision B (after)').selectOption({ label: 'Revision 2 (draft)' });
+  await page.getByRole('button', { name: 'Compare' }).click();
+  await expect(page.getByTestId('compare-fixtures')).toContainText('Lavatory, apartment 401');
+  await expect(page.getByTestId('compare-segments')).toContainText('seg-2');
+  await shot(page, '11-compare');
+});
+
+test('when two tabs edit one draft, then the second save is refused and offers to reload theirs or keep mine', async ({ browser }) => {
+  const a = await (await browser.newContext()).newPage();
+  const b = await (await browser.newContext()).newPage();
+  for (const p of [a, b]) {
+    p.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+    await signIn(p, DEMO.designer);
+  }
+  // the draft made by the test above
+  const system = firstRevisionUrl.replace(/\/revisions\/.*$/, '');
+  await a.goto(system);
+  await a.getByRole('link', { name: 'Walk the draft (revision 2)' }).click();
+  await expect(a).toHaveURL(/\/supply$/);
+  const draftUrl = a.url();
+  await b.goto(draftUrl);
+  await a.getByLabel(/Static pressure, low/).fill('71');
+  await a.getByRole('button', { name: 'Save now' }).click();
+  await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await b.getByLabel(/Static pressure, low/).fill('70');
+  await b.getByRole('button', { name: 'Save now' }).click();
+  await expect(b.getByText('Someone else saved this draft since you opened it')).toBeVisible();
+  await shot(b, '12-conflict');
+  await b.getByRole('button', { name: 'Reload theirs' }).click();
+  await expect(b.getByLabel(/Static pressure, low/)).toHaveValue('71');
+  await b.getByLabel(/Static pressure, low/).fill('69');
+  await a.getByLabel(/Static pressure, low/).fill('68');
+  await a.getByRole('button', { name: 'Save now' }).click();
+  await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await b.getByRole('button', { name: 'Save now' }).click();
+  await b.getByRole('button', { name: 'Keep mine' }).click();
+  await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await a.reload();
+  await expect(a.getByLabel(/Static pressure, low/)).toHaveValue('69');
+});
+
+test('when an inspector opens a draft, then every step is read-only', async ({ page }) => {
+  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  await signIn(page, DEMO.inspector);
+  await openProject(page, DEMO_PROJECT);
+  await expect(page.getByRole('button', { name: 'New system' })).toHaveCount(0);
+  await page.getByRole('link', { name: 'Domestic cold water' }).click();
+  await page.getByRole('link', { name: /^Walk revision 2$/ }).click();
+  await expect(page.getByTestId('read-only-note')).toContainText('designers');
+  await expect(page.getByLabel(/Static pressure, low/)).toBeDisabled();
+  await step(page, 'Result').click();
+  await expect(page.getByRole('button', { name: 'Issue revision' })).toHaveCount(0);
+});
+
+/** Time from a typed length to the ledger panel showing the new analysis, in the page (ms). */
+async function editToLedger(page: Page, inputLabel: string, values: number[]): Promise<number[]> {
+  return page.evaluate(
+    async ({ label, values }) => {
+      const input = document.querySelector<HTMLInputElement>(`input[aria-label="${label}"]`);
+      const panel = document.querySelector<HTMLElement>('[data-testid="ledger-panel"]');
+      if (!input || !panel) throw new Error(`no input "${label}" or no ledger panel`);
+      const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
+      const times: number[] = [];
+      for (const v of values) {
+        const before = panel.dataset.stamp;
+        const t0 = performance.now();
+        const changed = new Promise<void>((resolve) => {
+          const obs = new MutationObserver(() => {
+            if (panel.dataset.stamp !== before) {
+              obs.disconnect();
+              resolve();
+            }
+          });
+          obs.observe(panel, { attributes: true, attributeFilter: ['data-stamp'] });
+        });
+        setter.call(input, String(v));
+        input.dispatchEvent(new Event('input', { bubbles: true }));
+        await changed;
+        await new Promise((r) => requestAnimationFrame(() => r(null)));
+        times.push(performance.now() - t0);
+      }
+      return times;
+    },
+    { label: inputLabel, values },
+  );
+}
+
+const median = (xs: number[]) => [...xs].sort((p, q) => p - q)[Math.floor(xs.length / 2)];
+
+async function importSystem(page: Page, name: string, document: unknown) {
+  await openProject(page, DEMO_PROJECT);
+  await page.getByRole('button', { name: 'Import a system (JSON)' }).click();
+  await page.getByLabel('System document (JSON)').setInputFiles({ name: `${name}.json`, mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(document)) });
+  await page.getByLabel('Name of the imported system').fill(name);
+  await page.getByRole('button', { name: 'Import system' }).click();
+  await expect(page).toHaveURL(/\/result$/);
+}
+
+test('benchmark: edit-to-ledger time in the browser for the demo building and a generated 500-segment system (medians printed, not asserted)', async ({ page }) => {
+  test.setTimeout(180_000);
+  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  await signIn(page, DEMO.designer);
+  const demo = JSON.parse(fs.readFileSync('src/engine/examples/alder-finch-cold.json', 'utf8'));
+  const big = generateBuilding({ storeys: 4 });
+  const cases: { name: string; document: unknown; segment: string }[] = [
+    { name: `Benchmark demo building ${run}`, document: demo, segment: demo.segments[0].label ?? demo.segments[0].id },
+    { name: `Benchmark 500 segments ${run}`, document: big, segment: 'riser-1' },
+  ];
+  for (const c of cases) {
+    await page.goto('/projects');
+    await importSystem(page, c.name, c.document);
+    await page.getByRole('link', { name: 'Segment table' }).click();
+    await expect(page.getByTestId('segment-table')).toBeVisible();
+    const rows = await page.getByTestId('segment-table').locator('tbody tr').count();
+    // lengths no segment starts with, so every edit is a change
+    const lengths = Array.from({ length: 15 }, (_, i) => 13.37 + i * 0.5);
+    const times = await editToLedger(page, `${c.segment} length (ft)`, lengths);
+    const engineNote = (await ledger(page).innerText()).match(/\((\d+) ms\)/)?.[1] ?? '?';
+    console.log(`[walk benchmark] ${c.name.replace(` ${run}`, '')}: ${rows} segments, edit-to-ledger median ${median(times).toFixed(1)} ms over ${times.length} edits (min ${Math.min(...times).toFixed(1)}, max ${Math.max(...times).toFixed(1)}); the engine's own share of the last edit: ${engineNote} ms`);
+    expect(times).toHaveLength(lengths.length);
+    if (c.name.startsWith('Benchmark 500')) await shot(page, '13-benchmark-500-table');
+  }
+});

@@ -1,0 +1,13 @@
+/** The API addresses of the systems feature, in one place (ids are encoded). */
+const e = encodeURIComponent;
+export const systemUrls = {
+  list: (projectId: string) => `/api/projects/${e(projectId)}/systems`,
+  detail: (projectId: string, systemId: string) => `/api/projects/${e(projectId)}/systems/${e(systemId)}`,
+  revisions: (projectId: string, systemId: string) => `${systemUrls.detail(projectId, systemId)}/revisions`,
+  revision: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revisions(projectId, systemId)}/${e(revisionId)}`,
+  document: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/document`,
+  issue: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/issue`,
+  compare: (projectId: string, systemId: string, a: string, b: string) =>
+    `${systemUrls.detail(projectId, systemId)}/compare?a=${e(a)}&b=${e(b)}`,
+  catalog: () => '/api/catalog',
+};

@@ -1,0 +1,97 @@
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { ErrorView } from '../../../components/errors/error-view';
+import { Badge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { Section } from '../../../components/ui/card';
+import { Loading } from '../../../components/ui/loading';
+import { formatDate } from '../../../lib/labels';
+import type { SystemInfo } from '../../../shared/api/systems';
+import { useProject } from '../../projects/api/get-project';
+import { useSystems } from '../api/get-systems';
+import { walkPaths } from '../../walk/paths';
+import { ImportSystemForm } from './import-system-form';
+import { NewSystemForm } from './new-system-form';
+import { VerdictMark, verdictOf } from './verdict-mark';
+
+function fmtMargin(m: number) {
+  const t = Math.abs(m).toFixed(2);
+  return m < 0 ? `−${t}` : `+${t}`;
+}
+
+function SystemRow({ projectId, system }: { projectId: string; system: SystemInfo }) {
+  const latest = system.latest;
+  const v = latest?.verdict;
+  return (
+    <li className="flex flex-wrap items-center justify-between gap-3 rounded-md border-2 border-rule bg-surface px-4 py-3" data-testid={`system-${system.name}`}>
+      <div>
+        <Link to={walkPaths.system.getHref(projectId, system.id)} className="text-lg font-semibold">
+          {system.name}
+        </Link>
+        <p className="text-sm text-ink-soft">
+          {system.service === 'hot' ? 'Hot water' : 'Cold water'}
+          {latest ? ` · revision ${latest.number}, changed ${formatDate(latest.updatedAt)}` : ''}
+        </p>
+      </div>
+      <div className="flex flex-wrap items-center gap-2 text-sm">
+        {latest ? <Badge tone={latest.status === 'issued' ? 'sound' : latest.status === 'draft' ? 'standpipe' : 'neutral'}>{latest.status}</Badge> : null}
+        {v && v.ok ? (
+          <VerdictMark verdict={verdictOf(v.allPass)}>
+            {v.allPass ? 'Pass' : 'Fail'}
+            {v.criticalMargin !== null ? `, critical margin ${fmtMargin(v.criticalMargin)}` : ', no checked fixtures'}
+          </VerdictMark>
+        ) : (
+          <VerdictMark verdict="unknown">Not computed yet</VerdictMark>
+        )}
+      </div>
+    </li>
+  );
+}
+
+/** The project's systems with their latest verdict, and (for designers) a new system or an imported one. */
+export function ProjectSystemsPanel({ projectId, canEdit }: { projectId: string; canEdit: boolean }) {
+  const systems = useSystems(projectId);
+  const project = useProject(projectId);
+  const [adding, setAdding] = useState<'new' | 'import' | null>(null);
+  return (
+    <Section
+      title="Systems"
+      actions={
+        canEdit ? (
+          <>
+            <Button variant={adding === 'new' ? 'primary' : 'secondary'} onClick={() => setAdding(adding === 'new' ? null : 'new')} aria-expanded={adding === 'new'}>
+              New system
+            </Button>
+            <Button variant={adding === 'import' ? 'primary' : 'secondary'} onClick={() => setAdding(adding === 'import' ? null : 'import')} aria-expanded={adding === 'import'}>
+              Import a system (JSON)
+            </Button>
+          </>
+        ) : null
+      }
+    >
+      {canEdit && adding === 'new' ? (
+        <div className="mb-5 border-b-2 border-rule pb-5">
+          <NewSystemForm projectId={projectId} unitSystem={project.data?.project.unitSystem ?? 'US'} />
+        </div>
+      ) : null}
+      {canEdit && adding === 'import' ? (
+        <div className="mb-5 border-b-2 border-rule pb-5">
+          <ImportSystemForm projectId={projectId} />
+        </div>
+      ) : null}
+      {systems.isPending ? <Loading label="Loading the systems…" /> : null}
+      {systems.isError ? <ErrorView error={systems.error} onRetry={() => void systems.refetch()} what="the systems" /> : null}
+      {systems.data ? (
+        systems.data.length === 0 ? (
+          <p className="text-ink-soft">No systems yet.{canEdit ? ' Create one, or import a system document.' : ' A designer adds them.'}</p>
+        ) : (
+          <ul className="flex flex-col gap-2" aria-label="Systems">
+            {systems.data.map((s) => (
+              <SystemRow key={s.id} projectId={projectId} system={s} />
+            ))}
+          </ul>
+        )
+      ) : null}
+    </Section>
+  );
+}

@@ -1,0 +1,141 @@
+import { useDeferredValue, useEffect, useMemo } from 'react';
+import { Link, Outlet, useParams } from 'react-router-dom';
+import { ErrorView } from '../../../components/errors/error-view';
+import { RouteErrorBoundary } from '../../../components/errors/route-error-boundary';
+import { Alert } from '../../../components/ui/alert';
+import { Badge } from '../../../components/ui/badge';
+import { Loading } from '../../../components/ui/loading';
+import { UNIT_LABELS } from '../../../engine';
+import { useDocumentTitle } from '../../../hooks/use-document-title';
+import { paths } from '../../../app/paths';
+import type { Project } from '../../../shared/api/projects';
+import type { Revision, SystemInfo } from '../../../shared/api/systems';
+import { useProject } from '../../projects/api/get-project';
+import type { Catalog } from '../../systems/api/get-catalog';
+import { useCatalog } from '../../systems/api/get-catalog';
+import { useRevision } from '../../systems/api/get-revision';
+import { useSystem } from '../../systems/api/get-system';
+import { analyseDraft } from '../draft/live-analysis';
+import { useDraft } from '../draft/use-draft';
+import { WalkContext } from '../draft/walk-context';
+import type { WalkContextValue, WalkIds } from '../draft/walk-context';
+import { walkPaths } from '../paths';
+import { ExportButton } from './export-button';
+import { LedgerPanel } from './ledger-panel';
+import { NewDraftButton } from './new-draft-button';
+import { SaveBar } from './save-bar';
+import { StepNav } from './step-nav';
+
+const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
+
+export function readOnlyReasonFor(project: Pick<Project, 'myRole'>, revision: Pick<Revision, 'status' | 'number'>): string | null {
+  if (revision.status !== 'draft') return `Revision ${revision.number} is ${revision.status}: it never changes. Start a new draft from it to make changes.`;
+  if (project.myRole !== 'designer') return 'You can read this draft. The project’s designers change it.';
+  return null;
+}
+
+function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; project: Project; system: SystemInfo; revision: Revision; catalog: Catalog }) {
+  const readOnlyReason = readOnlyReasonFor(project, revision);
+  const draft = useDraft(ids, revision, readOnlyReason === null);
+  const { step } = useParams();
+  const deferred = useDeferredValue(draft.document);
+  const live = useMemo(() => (deferred ? analyseDraft(deferred) : null), [deferred]);
+  useDocumentTitle(`${system.name} · revision ${revision.number}`);
+
+  useEffect(() => {
+    if (draft.state === 'saved') return;
+    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [draft.state]);
+
+  if (!draft.document || !live) {
+    return (
+      <Alert tone="fault" title="This revision’s document cannot be read">
+        The stored document does not match the system format. Start a new draft or import a corrected file.
+      </Alert>
+    );
+  }
+  const value: WalkContextValue = {
+    ids,
+    project,
+    system,
+    revision,
+    readOnlyReason,
+    draft,
+    document: draft.document,
+    live,
+    catalog,
+    units: UNIT_LABELS[draft.document.unitSystem],
+  };
+
+  return (
+    <WalkContext.Provider value={value}>
+      <div className="mb-4 border-b-2 border-rule pb-4 print:border-0">
+        <p className="text-sm print:hidden">
+          <Link to={paths.project.getHref(project.id)}>{project.name}</Link>
+          <span aria-hidden="true"> › </span>
+          <Link to={walkPaths.system.getHref(ids.projectId, ids.systemId)}>{system.name}</Link>
+        </p>
+        <div className="mt-1 flex flex-wrap items-center gap-3">
+          <h1 className="text-3xl">{system.name}</h1>
+          <Badge tone={STATUS_TONE[revision.status]}>
+            Revision {revision.number} · {revision.status}
+          </Badge>
+          <span className="text-sm text-ink-soft">{system.service === 'hot' ? 'Hot water' : 'Cold water'} · units {draft.document.unitSystem}</span>
+          <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
+        </div>
+      </div>
+      <div className="mb-4 flex flex-col gap-4">
+        <StepNav ids={ids} />
+        {readOnlyReason ? (
+          <div className="flex flex-col gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 print:hidden" data-testid="read-only-note">
+            <p>{readOnlyReason}</p>
+            {revision.status !== 'draft' && project.myRole === 'designer' ? <NewDraftButton ids={ids} /> : null}
+          </div>
+        ) : (
+          <SaveBar draft={draft} editable />
+        )}
+      </div>
+      <RouteErrorBoundary what="this step">
+        {step ? (
+          <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+            <div key={draft.generation} className="min-w-0">
+              <Outlet />
+            </div>
+            <LedgerPanel live={live} />
+          </div>
+        ) : (
+          <div key={draft.generation}>
+            <Outlet />
+          </div>
+        )}
+      </RouteErrorBoundary>
+    </WalkContext.Provider>
+  );
+}
+
+/** The frame of one revision: loads it, keeps the draft, and shows the steps beside the live ledger. */
+export function WalkLayout() {
+  const { projectId = '', systemId = '', revisionId = '' } = useParams();
+  const ids = useMemo(() => ({ projectId, systemId, revisionId }), [projectId, systemId, revisionId]);
+  const project = useProject(projectId);
+  const system = useSystem(projectId, systemId);
+  const revision = useRevision(projectId, systemId, revisionId);
+  const catalog = useCatalog();
+
+  for (const query of [project, system, revision, catalog]) {
+    if (query.isError) return <ErrorView error={query.error} onRetry={() => void query.refetch()} what="this system" />;
+  }
+  if (!project.data || !system.data || !revision.data || !catalog.data) return <Loading label="Opening the system…" />;
+  return (
+    <WalkFrame
+      key={revisionId}
+      ids={ids}
+      project={project.data.project}
+      system={system.data.system}
+      revision={revision.data}
+      catalog={catalog.data}
+    />
+  );
+}

@@ -1,0 +1,32 @@
+import type { EngineWarning } from '../../../engine';
+
+const SEVERITY_WORDS = { fail: 'Fails a criterion', caution: 'Caution', note: 'Note' } as const;
+const SEVERITY_MARKS = { fail: '▲', caution: '◆', note: '●' } as const;
+
+/** Engine warnings in plain words: the message, what it is about, and the numbers involved. */
+export function WarningList({ title, warnings, empty }: { title: string; warnings: readonly EngineWarning[]; empty: string }) {
+  return (
+    <section aria-label={title} className="flex flex-col gap-2">
+      <h3 className="text-lg">{title}</h3>
+      {warnings.length === 0 ? (
+        <p className="text-sm text-ink-soft">{empty}</p>
+      ) : (
+        <ul className="flex flex-col gap-2" data-testid="warning-list">
+          {warnings.map((w, i) => (
+            <li key={`${w.code}-${w.elementId ?? ''}-${i}`} className="rounded-md border-2 border-rule bg-surface p-2 text-sm" data-code={w.code}>
+              <p className="font-semibold">
+                <span aria-hidden="true">{SEVERITY_MARKS[w.severity]} </span>
+                {SEVERITY_WORDS[w.severity]}: {w.message}
+              </p>
+              <p className="text-ink-soft">
+                {w.elementType}
+                {w.elementIds && w.elementIds.length > 1 ? ` (${w.elementIds.length}): ${w.elementIds.slice(0, 8).join(', ')}${w.elementIds.length > 8 ? ', …' : ''}` : w.elementId ? ` ${w.elementId}` : ''}
+                {w.detail ? ` — ${w.detail}` : ''}
+              </p>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

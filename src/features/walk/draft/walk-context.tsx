@@ -1,0 +1,36 @@
+import { createContext, useContext } from 'react';
+import type { SystemDocument, UnitSystem } from '../../../engine';
+import { UNIT_LABELS } from '../../../engine';
+import type { Project } from '../../../shared/api/projects';
+import type { Revision, SystemInfo } from '../../../shared/api/systems';
+import type { Catalog } from '../../systems/api/get-catalog';
+import type { Draft } from './use-draft';
+import type { LiveAnalysis } from './live-analysis';
+
+export interface WalkIds {
+  projectId: string;
+  systemId: string;
+  revisionId: string;
+}
+
+export interface WalkContextValue {
+  ids: WalkIds;
+  project: Project;
+  system: SystemInfo;
+  revision: Revision;
+  /** why the steps are read-only, or null when the person may edit this draft */
+  readOnlyReason: string | null;
+  draft: Draft;
+  document: SystemDocument;
+  live: LiveAnalysis;
+  catalog: Catalog;
+  units: (typeof UNIT_LABELS)[UnitSystem];
+}
+
+export const WalkContext = createContext<WalkContextValue | null>(null);
+
+export function useWalk(): WalkContextValue {
+  const value = useContext(WalkContext);
+  if (!value) throw new Error('useWalk used outside the walk');
+  return value;
+}

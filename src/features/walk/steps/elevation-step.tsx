@@ -1,0 +1,117 @@
+import { useState } from 'react';
+import { z } from 'zod';
+import { Button } from '../../../components/ui/button';
+import { Section } from '../../../components/ui/card';
+import type { SystemDocument } from '../../../engine';
+import { NodeSchema, SegmentSchema } from '../../../engine/model/schema';
+import { useWalk } from '../draft/walk-context';
+import { CellInput, StepIntro } from '../components/cells';
+import { WarningList } from '../components/warning-list';
+import { fmt } from '../lib/format';
+import { numberInput, plainError } from '../lib/form-values';
+import { treeOrder } from '../lib/tree';
+import { useLiveForm } from '../lib/use-live-form';
+
+export const elevationFormSchema = z.object({
+  nodes: z.array(z.object({ id: z.string(), elevation: NodeSchema.shape.elevation })),
+  segments: z.array(z.object({ id: z.string(), rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise) })),
+});
+type ElevationForm = { nodes: { id: string; elevation: number }[]; segments: { id: string; rise?: number }[] };
+
+export function applyElevations(doc: SystemDocument, v: z.output<typeof elevationFormSchema>): SystemDocument {
+  const z0 = new Map(v.nodes.map((n) => [n.id, n.elevation]));
+  const rise = new Map(v.segments.map((s) => [s.id, s.rise]));
+  return {
+    ...doc,
+    nodes: doc.nodes.map((n) => (z0.has(n.id) ? { ...n, elevation: z0.get(n.id)! } : n)),
+    segments: doc.segments.map((s) => {
+      if (!rise.has(s.id)) return s;
+      const next = { ...s };
+      const r = rise.get(s.id);
+      if (r === undefined) delete next.rise;
+      else next.rise = r;
+      return next;
+    }),
+  };
+}
+
+export function ElevationStep() {
+  const { document, draft, readOnlyReason, units, live } = useWalk();
+  const [defaults] = useState<ElevationForm>(() => ({
+    nodes: document.nodes.map((n) => ({ id: n.id, elevation: n.elevation })),
+    segments: document.segments.map((s) => ({ id: s.id, rise: s.rise })),
+  }));
+  const form = useLiveForm(elevationFormSchema, defaults, (v) => draft.update((doc) => applyElevations(doc, v)));
+  const { register, watch, setValue, formState: { errors } } = form;
+  const nodes = watch('nodes');
+  const rises = watch('segments');
+  const elevation = new Map(nodes.map((n) => [n.id, n.elevation]));
+  const tolerance = live.ok ? live.analysis.criteria.riseTolerance : 0;
+  const order = treeOrder(document.segments, document.source.nodeId);
+  const warnings = live.ok ? live.analysis.warnings.filter((w) => w.code === 'rise-elevation-mismatch' || w.code === 'rise-from-elevations') : [];
+  const label = new Map(document.nodes.map((n) => [n.id, n.label || n.id]));
+
+  const riseFromElevations = () =>
+    document.segments.forEach((s, i) => {
+      const d = (elevation.get(s.to) ?? 0) - (elevation.get(s.from) ?? 0);
+      setValue(`segments.${i}.rise`, Number(d.toFixed(6)), { shouldValidate: true, shouldDirty: true });
+    });
+
+  return (
+    <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Elevation">
+      <StepIntro title="Elevation">
+        Every node’s elevation on one datum (for example the ground floor at 0). The climb from the source to a fixture
+        costs pressure; the rises entered at Risers are checked against these elevations, and where they disagree the
+        elevations are used.
+      </StepIntro>
+      <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
+        <Section title="Node elevations" headingLevel={3}>
+          <table className="w-full text-sm">
+            <caption className="sr-only">Node elevations</caption>
+            <thead><tr className="text-left"><th scope="col">Node</th><th scope="col">Elevation ({units.elevation})</th></tr></thead>
+            <tbody>
+              {defaults.nodes.map((n, i) => (
+                <tr key={n.id} className="border-t border-rule">
+                  <th scope="row" className="py-1 pr-2 text-left font-normal">{label.get(n.id)}{n.id === document.source.nodeId ? ' (source)' : ''}</th>
+                  <td className="w-40 py-1"><CellInput label={`Elevation of ${label.get(n.id)} (${units.elevation})`} type="number" step="any" error={plainError(errors.nodes?.[i]?.elevation?.message)} {...register(`nodes.${i}.elevation`, numberInput)} /></td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </Section>
+        <Section title="Rises against elevations" headingLevel={3} actions={<Button variant="secondary" onClick={riseFromElevations}>Set every rise from the elevations</Button>}>
+          <table className="w-full text-sm">
+            <caption className="sr-only">Each segment’s rise and the difference of its node elevations</caption>
+            <thead>
+              <tr className="text-left">
+                <th scope="col">Segment</th>
+                <th scope="col">Rise entered ({units.length})</th>
+                <th scope="col" className="text-right">Elevation difference</th>
+                <th scope="col">Check</th>
+              </tr>
+            </thead>
+            <tbody>
+              {order.map(({ index }) => {
+                const s = document.segments[index];
+                const i = defaults.segments.findIndex((r) => r.id === s.id);
+                const d = (elevation.get(s.to) ?? Number.NaN) - (elevation.get(s.from) ?? Number.NaN);
+                const r = rises[i]?.rise;
+                const given = typeof r === 'number' && Number.isFinite(r);
+                const agrees = given && Math.abs(r - d) <= tolerance + 1e-9;
+                return (
+                  <tr key={s.id} className="border-t border-rule" data-testid={`rise-check-${s.id}`}>
+                    <th scope="row" className="py-1 pr-2 text-left font-normal">{s.label || s.id}</th>
+                    <td className="w-40 py-1 pr-2"><CellInput label={`Rise of ${s.label || s.id} (${units.length})`} type="number" step="any" {...register(`segments.${i}.rise`, numberInput)} /></td>
+                    <td className="py-1 pr-2 text-right tabular-nums">{fmt(d, 2)}</td>
+                    <td className="py-1">{!given ? 'No rise entered: the elevations are used' : agrees ? '✓ Agrees' : `✗ Differs by ${fmt(r - d, 2)} ${units.length}: the elevations are used`}</td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </Section>
+        <WarningList title="What the engine says about rises" warnings={warnings} empty="The rises agree with the node elevations." />
+      </fieldset>
+    </form>
+  );
+}

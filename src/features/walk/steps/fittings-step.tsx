@@ -1,0 +1,173 @@
+import { useState } from 'react';
+import { useFieldArray } from 'react-hook-form';
+import type { Control, UseFormRegister, UseFormWatch } from 'react-hook-form';
+import { z } from 'zod';
+import { Button } from '../../../components/ui/button';
+import { Section } from '../../../components/ui/card';
+import { SelectField } from '../../../components/ui/field';
+import type { Analysis, SegmentResult, SystemDocument } from '../../../engine';
+import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/schema';
+import { fittingK } from '../../../engine/fittings';
+import type { Catalog } from '../../systems/api/get-catalog';
+import { useWalk } from '../draft/walk-context';
+import { CellInput, CellSelect, StepIntro } from '../components/cells';
+import { fmt } from '../lib/format';
+import { numberInput, plainError } from '../lib/form-values';
+import { treeOrder } from '../lib/tree';
+import { useLiveForm } from '../lib/use-live-form';
+
+const METHOD_LABELS = {
+  crane: 'Crane K = N·f_T (size-dependent, default)',
+  'hooper-2k': 'Two-constant (Hooper 2-K)',
+  'darby-3k': 'Three-constant (Darby 3-K)',
+  'equivalent-length': 'Equivalent length',
+} as const;
+const METHODS = CriteriaOverridesSchema.shape.fittingMethod.unwrap().options;
+
+/** A quick start for a segment: two standard 90° elbows and a tee, flow through the run (common practice, not a rule). */
+export const USUAL_SET = [
+  { typeId: 'elbow-90-standard', count: 2 },
+  { typeId: 'tee-run', count: 1 },
+] as const;
+
+export const fittingsFormSchema = z.object({
+  fittingMethod: CriteriaOverridesSchema.shape.fittingMethod.unwrap(),
+  segments: z.array(z.object({ id: z.string(), fittings: z.array(FittingSchema.extend({ count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1') })) })),
+});
+type FittingsForm = { fittingMethod: (typeof METHODS)[number]; segments: { id: string; fittings: { typeId: string; count: number }[] }[] };
+
+export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFormSchema>): SystemDocument {
+  const byId = new Map(v.segments.map((s) => [s.id, s.fittings]));
+  return {
+    ...doc,
+    criteria: { ...(doc.criteria ?? {}), fittingMethod: v.fittingMethod },
+    segments: doc.segments.map((s) => (byId.has(s.id) ? { ...s, fittings: byId.get(s.id)! } : s)),
+  };
+}
+
+/** One fitting's K in its segment, by the engine's own fitting function and the segment's live Re and f. */
+function kOf(typeId: string, segment: SystemDocument['segments'][number] | undefined, si: SegmentResult | undefined, method: FittingsForm['fittingMethod'], catalog: Catalog) {
+  if (!segment || !si) return null;
+  const size = catalog.material(segment.material)?.data.sizes.find((s) => s.key === segment.size);
+  if (!size) return null;
+  try {
+    return fittingK(typeId, { method, innerDiameterM: si.innerDiameter, nominalSizeIn: size.nominalIn, nominalSizeKey: size.key, Re: si.reynolds, frictionFactor: si.frictionFactor });
+  } catch {
+    return null;
+  }
+}
+
+function SegmentFittings({ index, control, register, watch, catalog, doc, analysis, method, units }: {
+  index: number;
+  control: Control<FittingsForm>;
+  register: UseFormRegister<FittingsForm>;
+  watch: UseFormWatch<FittingsForm>;
+  catalog: Catalog;
+  doc: SystemDocument;
+  analysis: Analysis | null;
+  method: FittingsForm['fittingMethod'];
+  units: { pressure: string };
+}) {
+  const list = useFieldArray({ control, name: `segments.${index}.fittings` });
+  const id = watch(`segments.${index}.id`);
+  const rows = watch(`segments.${index}.fittings`);
+  const segment = doc.segments.find((s) => s.id === id);
+  const name = segment?.label || id;
+  const display = analysis?.segments.find((s) => s.id === id);
+  const si = analysis?.si.segments.find((s) => s.id === id);
+  const options = catalog.fittingTypes.map((f) => ({ value: f.id, label: f.label }));
+  return (
+    <Section title={name} headingLevel={3}>
+      <table className="w-full text-sm">
+        <caption className="sr-only">Fittings of {name}</caption>
+        <thead>
+          <tr className="text-left">
+            <th scope="col">Type</th>
+            <th scope="col">Count</th>
+            <th scope="col" className="text-right">K each</th>
+            <th scope="col" className="text-right">Loss ({units.pressure})</th>
+            <th scope="col"><span className="sr-only">Remove</span></th>
+          </tr>
+        </thead>
+        <tbody>
+          {list.fields.map((f, k) => {
+            const row = rows?.[k];
+            const kr = row ? kOf(row.typeId, segment, si, method, catalog) : null;
+            const loss = kr && display && display.totalK > 0 && Number.isFinite(row?.count) ? (display.fittingLoss * kr.K * row!.count) / display.totalK : null;
+            const entry = row ? catalog.fittingType(row.typeId) : undefined;
+            return (
+              <tr key={f.id} className="border-t border-rule align-top">
+                <td className="py-1 pr-2">
+                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={options} {...register(`segments.${index}.fittings.${k}.typeId`)} />
+                  {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory ? ' (from memory)' : ''}</p> : null}
+                </td>
+                <td className="w-20 py-1 pr-2">
+                  <CellInput label={`${name}: fitting ${k + 1} count`} type="number" min="1" step="1" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
+                </td>
+                <td className="py-1 pr-2 text-right tabular-nums" data-testid={`k-${id}-${k}`}>
+                  {kr ? fmt(kr.K, 3) : '—'}
+                  {kr?.fellBackFrom ? <span className="block text-xs text-caution">no {kr.fellBackFrom} data: {kr.method} used</span> : null}
+                </td>
+                <td className="py-1 pr-2 text-right tabular-nums">{loss === null ? '—' : fmt(loss, 3)}</td>
+                <td className="py-1">
+                  <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove fitting ${k + 1} of ${name}`}>Remove</Button>
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      <p className="mt-2 text-sm" data-testid={`fitting-loss-${id}`}>
+        {display ? (
+          <>
+            Σ K = {fmt(display.fittingsK, 2)}
+            {display.sizeChangeK > 0 ? ` + size change ${fmt(display.sizeChangeK, 2)}` : ''} · loss in fittings {fmt(display.fittingLoss, 3)} {units.pressure} at{' '}
+            {fmt(display.velocity, 2)} {analysis?.units.velocity}
+          </>
+        ) : (
+          'Losses appear once the system can be computed.'
+        )}
+      </p>
+      <div className="mt-2 flex flex-wrap gap-2">
+        <Button variant="secondary" onClick={() => list.append({ typeId: options[0]?.value ?? '', count: 1 })}>Add a fitting to {name}</Button>
+        <Button variant="secondary" onClick={() => USUAL_SET.forEach((f) => list.append({ ...f }))}>Add the usual set (2 elbows, 1 tee run) to {name}</Button>
+      </div>
+    </Section>
+  );
+}
+
+export function FittingsStep() {
+  const { document, draft, readOnlyReason, catalog, live, units } = useWalk();
+  const [defaults] = useState<FittingsForm>(() => ({
+    fittingMethod: document.criteria?.fittingMethod ?? 'crane',
+    segments: document.segments.map((s) => ({ id: s.id, fittings: s.fittings.map((f) => ({ ...f })) })),
+  }));
+  const form = useLiveForm(fittingsFormSchema, defaults, (v) => draft.update((doc) => applyFittings(doc, v)));
+  const { register, control, watch, formState: { errors } } = form;
+  const method = watch('fittingMethod');
+  const order = treeOrder(document.segments, document.source.nodeId);
+  const indexById = new Map(defaults.segments.map((s, i) => [s.id, i]));
+  const analysis = live.ok ? live.analysis : null;
+  return (
+    <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
+      <StepIntro title="Fittings">
+        Per segment, the fittings and valves by type and count. Each type’s loss coefficient K depends on the method and,
+        for most methods, on the size and the flow; the source of each type’s data is shown under it.
+      </StepIntro>
+      <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
+        <SelectField
+          label="Loss method for fittings"
+          options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
+          hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
+          error={plainError(errors.fittingMethod?.message)}
+          {...register('fittingMethod')}
+        />
+        {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
+        {order.map(({ index }) => {
+          const i = indexById.get(document.segments[index].id);
+          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} />;
+        })}
+      </fieldset>
+    </form>
+  );
+}
