@@ -15,7 +15,7 @@ try {
   if (applied.length) console.log(`[headroom] applied ${applied.length} migration(s)`);
   if (command === 'catalogs') {
     // the API tests' database: the schema and the cited catalogs, no demo scenario
-    await db.seed.run({ specific: '00_catalogs.ts' });
+    await db.seed.run({ specific: '03_catalogs.ts' });
   }
   if (command === 'seed' || command === 'setup') {
     const { count } = (await db('users').count({ count: '*' }).first()) as { count: string };

@@ -7,7 +7,8 @@ import { fmt, signed } from '../lib/format';
 
 const COLUMN_PX = 120;
 const HEIGHT_PX = 620;
-const MARGIN = { l: 70, r: 140, t: 40, b: 40 };
+// room on the right for the last column's fixture labels
+const MARGIN = { l: 70, r: 320, t: 40, b: 40 };
 /** Zoom steps: ×1.25 per press, between a quarter and four times the drawn size (a readable range). */
 const ZOOM_STEP = 1.25;
 const ZOOM_MIN = 0.25;
