@@ -61,6 +61,16 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request body is not valid JSON.', fields: { '(body)': 'Not valid JSON' } } });
     return;
   }
+  const pgCode = (err as { code?: string }).code;
+  if (pgCode === '23505') {
+    // a unique constraint caught a race the service's own check could not see
+    res.status(409).json({ error: { code: 'CONFLICT', message: 'That already exists; reload and try again.' } });
+    return;
+  }
+  if (pgCode === '22P02' || pgCode === '22021' || pgCode === '22P05' || pgCode === '54001') {
+    res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request holds a value the database cannot store.', fields: { '(body)': 'Value cannot be stored' } } });
+    return;
+  }
   if (isDatabaseDown(err)) {
     res.status(503).json({ error: { code: 'DATABASE_UNAVAILABLE', message: 'The database is not answering. Try again in a moment; nothing was saved.' } });
     return;

@@ -52,3 +52,47 @@ export function summaryMessage(opts: {
   lines.push('', '—', SUMMARY_CAUTIONS[0], SUMMARY_CAUTIONS[1]);
   return { subject: `For review: ${h.projectName}, ${h.systemName}, revision ${h.revisionNumber}`, text: lines.join('\n') };
 }
+
+interface FieldChangeMailBase {
+  projectName: string;
+  systemName: string;
+  baseRevisionNumber: number;
+  number: number;
+  title: string;
+  recipientName: string;
+  viewUrl: string;
+}
+
+/** To each designer of the project when a contractor proposes a field change. */
+export function fieldChangeProposedMessage(o: FieldChangeMailBase & { contractorName: string; description: string; changes: string[]; verdict: string }) {
+  const lines = [
+    `Hello ${o.recipientName},`,
+    '',
+    `${o.contractorName} proposes a field change on the issued design and asks you to accept or decline it:`,
+    '',
+    `  Project:       ${o.projectName}`,
+    `  System:        ${o.systemName}, issued revision ${o.baseRevisionNumber}`,
+    `  Field change:  ${o.number}, ${o.title}`,
+    `  Result:        ${o.verdict}`,
+    '',
+    'What changes:',
+    ...o.changes.map((c) => `  - ${c}`),
+  ];
+  if (o.description) lines.push('', `Note from ${o.contractorName}:`, o.description);
+  lines.push('', 'See the margins side by side, the attached product data, and accept or decline it here:', '', `  ${o.viewUrl}`, '', '—', SUMMARY_CAUTIONS[0]);
+  return { subject: `Field change proposed: ${o.projectName}, ${o.systemName}, field change ${o.number}`, text: lines.join('\n') };
+}
+
+/** To the contractor when a designer accepts or declines their field change. */
+export function fieldChangeDecidedMessage(o: FieldChangeMailBase & { designerName: string; decision: 'accepted' | 'declined'; text: string | null; newRevisionNumber: number | null }) {
+  const lines = [
+    `Hello ${o.recipientName},`,
+    '',
+    o.decision === 'accepted'
+      ? `${o.designerName} accepted your field change ${o.number} (${o.title}) on ${o.projectName}, ${o.systemName}. It becomes revision ${o.newRevisionNumber}, a draft the designer issues; build to the issued revision.`
+      : `${o.designerName} declined your field change ${o.number} (${o.title}) on ${o.projectName}, ${o.systemName}. Build to issued revision ${o.baseRevisionNumber}.`,
+  ];
+  if (o.text) lines.push('', o.decision === 'declined' ? 'Reason:' : `Note from ${o.designerName}:`, o.text);
+  lines.push('', `  ${o.viewUrl}`);
+  return { subject: `Field change ${o.decision}: ${o.projectName}, ${o.systemName}, field change ${o.number}`, text: lines.join('\n') };
+}

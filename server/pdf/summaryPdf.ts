@@ -10,6 +10,7 @@ import { MATERIALS } from '../../src/engine/catalog/materials';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
+import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
 import { COLORS, Layout, PAGE_SIZES, type Column } from './layout';
 import { drawProfile, profilePoints } from './chart';
@@ -19,6 +20,8 @@ export interface SummaryPdfInput {
   header: SummaryHeader;
   document: SystemDocument;
   analysis: Analysis;
+  /** the accepted field change this revision came from, when it did */
+  fieldChange?: FieldChangeRecord | null;
 }
 
 export interface SummaryPdf {
@@ -93,6 +96,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     failingStatic.length ? `${failingStatic.length} node(s) above the maximum static pressure.` : `Static pressure stays at or under ${withUnit(a.criteria.maxStaticPressure, u.pressure)} at every fixture node.`,
   ];
   verdictBox(L, allPass ? 'Result: every check is met' : 'Result: some checks are not met', verdictLines, !allPass);
+  if (input.fieldChange) fieldChangeSection(L, input.fieldChange);
 
   // ---- basis
   L.heading('Basis');
@@ -394,6 +398,27 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
 
   const bytes = await pdf.save({ useObjectStreams: true, objectsPerTick: Number.POSITIVE_INFINITY });
   return { bytes, pageCount: L.pages.length };
+}
+
+/** Who proposed the field change this revision came from, what it changed, and when it was accepted. */
+function fieldChangeSection(L: Layout, fc: FieldChangeRecord) {
+  L.heading('Field change in this revision', 2);
+  L.keyValues([
+    ['Field change', `${fc.number}: ${fc.title} (on revision ${fc.baseRevisionNumber})`],
+    ['Proposed by', `${fc.proposedBy.name}${fc.proposedBy.email ? ` <${fc.proposedBy.email}>` : ''}, ${utc(fc.proposedAt)}`],
+    ['Accepted by', `${fc.acceptedBy.name}${fc.acceptedBy.email ? ` <${fc.acceptedBy.email}>` : ''}, ${utc(fc.acceptedAt)}`],
+    ...(fc.comment ? ([['Designer’s note', fc.comment]] as [string, string][]) : []),
+  ]);
+  L.table(
+    [
+      { header: 'Element', width: 24, wrap: true },
+      { header: 'What changed', width: 76, wrap: true },
+    ],
+    fc.changes.map((c) => ({
+      cells: [`${c.elementType === 'segment' ? 'Segment' : 'Device'} ${c.label}`, c.change === 'changed' ? c.fields.map((f) => `${f.field}: ${f.before ?? 'none'} → ${f.after ?? 'none'}`).join('; ') : c.text],
+    })),
+    { continued: 'Field change in this revision' },
+  );
 }
 
 function verdictBox(L: Layout, title: string, lines: string[], fail: boolean) {

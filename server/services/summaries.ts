@@ -24,6 +24,7 @@ import { withUnit, signed } from '../pdf/format';
 import { issueInvitation } from './users';
 import { outboxService, toMessageInfo } from './outbox';
 import { reviewsService } from './reviews';
+import { fieldChangesRepo } from '../repositories/fieldChanges';
 import type { Actor, ServiceContext } from './context';
 import { resultViewPath, type SendSummaryResponse, type SummaryHeader, type SummaryInfo } from '../../src/shared/api/summaries';
 import type { SendSummaryBody } from '../../src/shared/api/summaries';
@@ -108,7 +109,8 @@ export const summariesService = {
       try {
         if (!stored.ok) throw new Error(`the revision has no analysis: ${stored.error.message}`);
         const started = performance.now();
-        const { bytes, pageCount } = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: stored.analysis });
+        const fieldChange = await fieldChangesRepo.recordForRevision(trx, revisionId);
+        const { bytes, pageCount } = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: stored.analysis, fieldChange });
         const pdf = Buffer.from(bytes);
         const sha256 = createHash('sha256').update(pdf).digest('hex');
         await summariesRepo.markReady(trx, row.id, { pdf, sha256, byte_length: pdf.length, page_count: pageCount, generation_ms: Math.round(performance.now() - started) });

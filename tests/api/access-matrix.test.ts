@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
+import { tinyPdf, upload } from './support/fieldChangeFixtures';
 
 /**
  * Every API route × every kind of caller → exactly one expected status. The test reads the
@@ -45,6 +46,36 @@ function issuedOnce(w: World) {
     return { base, revisionId: created.revision.id as string };
   })();
   return issued;
+}
+
+/** only the project's contractors (issue 6: field changes are theirs to start and edit) */
+const contractorsWrite = (status: number) => ({ anonymous: 401, administrator: 403, designer: 403, contractor: status, inspector: 403, nonMember: 404 });
+
+/** A fresh issued system with a field change by the project's contractor: a draft, changed, or proposed. */
+async function freshFieldChange(w: World, stage: 'draft' | 'changed' | 'proposed' = 'draft') {
+  const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix field change', service: 'cold', document: smallDocument() }).expect(201)).body;
+  const sys = `/api/projects/${w.projectId}/systems/${created.system.id}`;
+  await w.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+  const fcBase = `${sys}/field-changes`;
+  let fc = (await clients.contractor.send('POST', fcBase, { revisionId: created.revision.id, title: 'Matrix substitution' }).expect(201)).body.fieldChange;
+  const url = `${fcBase}/${fc.id}`;
+  if (stage !== 'draft') {
+    const document = structuredClone(fc.document);
+    document.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 5 }];
+    fc = (await clients.contractor.send('PATCH', url, { document, version: fc.version }).expect(200)).body.fieldChange;
+  }
+  if (stage === 'proposed') fc = (await clients.contractor.send('POST', `${url}/propose`, { version: fc.version }).expect(200)).body.fieldChange;
+  return { fcBase, url, id: fc.id as string, version: fc.version as number, revisionId: created.revision.id as string };
+}
+/** One draft field change with one attachment, shared by the reading rows. */
+let sharedFieldChange: Promise<Awaited<ReturnType<typeof freshFieldChange>> & { attachmentUrl: string }> | null = null;
+function fieldChangeOnce(w: World) {
+  sharedFieldChange ??= (async () => {
+    const fc = await freshFieldChange(w);
+    const attachment = (await upload(clients.contractor, fc.url, tinyPdf(), 'sheet.pdf', 'application/pdf').expect(201)).body.attachment;
+    return { ...fc, attachmentUrl: attachment.url as string };
+  })();
+  return sharedFieldChange;
 }
 
 const ROWS: Row[] = [
@@ -247,6 +278,81 @@ const ROWS: Row[] = [
   { method: 'GET', path: '/api/dev/mail', expect: all(404), request: async () => ({ url: '/api/dev/mail' }) },
   { method: 'GET', path: '/api/dev/mail/:mailId', expect: all(404), request: async () => ({ url: '/api/dev/mail/1' }) },
   { method: 'GET', path: '/api/dev/mail/:mailId/attachments/:index', expect: all(404), request: async () => ({ url: '/api/dev/mail/1/attachments/0' }) },
+  // ---- field changes (issue 6)
+  { method: 'GET', path: '/api/projects/:projectId/field-changes', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/field-changes` }) },
+  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes', expect: membersRead403, request: async (w) => ({ url: (await fieldChangeOnce(w)).fcBase }) },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes',
+    expect: contractorsWrite(201),
+    request: async (w) => {
+      const fc = await fieldChangeOnce(w);
+      return { url: fc.fcBase, body: { revisionId: fc.revisionId, title: 'Matrix start' } };
+    },
+  },
+  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId', expect: membersRead403, request: async (w) => ({ url: (await fieldChangeOnce(w)).url }) },
+  {
+    method: 'PATCH',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId',
+    expect: contractorsWrite(200),
+    request: async (w) => {
+      const fc = await fieldChangeOnce(w);
+      const { version } = await w.h.db('field_changes').where({ id: fc.id }).first('version');
+      return { url: fc.url, body: { title: `Edited ${randomUUID().slice(0, 6)}`, version } };
+    },
+  },
+  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/comparison', expect: membersRead403, request: async (w) => ({ url: `${(await fieldChangeOnce(w)).url}/comparison` }) },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/propose',
+    expect: contractorsWrite(200),
+    request: async (w) => {
+      const fc = await freshFieldChange(w, 'changed');
+      return { url: `${fc.url}/propose`, body: { version: fc.version } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/accept',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const fc = await freshFieldChange(w, 'proposed');
+      return { url: `${fc.url}/accept`, body: { version: fc.version } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/decline',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const fc = await freshFieldChange(w, 'proposed');
+      return { url: `${fc.url}/decline`, body: { version: fc.version, reason: 'Matrix' } };
+    },
+  },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments',
+    // the matrix sends JSON: a contractor passes the role check and then the upload refuses a body
+    // that is not multipart (400); real uploads are in tests/api/fieldChanges.attachments.test.ts
+    expect: contractorsWrite(400),
+    request: async (w) => ({ url: `${(await fieldChangeOnce(w)).url}/attachments`, body: {} }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId',
+    expect: membersRead403,
+    request: async (w) => ({ url: (await fieldChangeOnce(w)).attachmentUrl }),
+  },
+  {
+    method: 'DELETE',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId',
+    expect: contractorsWrite(204),
+    request: async (w) => {
+      const fc = await fieldChangeOnce(w);
+      const a = (await upload(clients.contractor, fc.url, tinyPdf(), 'to-remove.pdf', 'application/pdf').expect(201)).body.attachment;
+      return { url: a.url };
+    },
+  },
   // last: it ends the callers' sessions
   { method: 'POST', path: '/api/auth/sign-out', expect: signedInOnly(204), request: async () => ({ url: '/api/auth/sign-out' }) },
 ];
