@@ -12,6 +12,7 @@ import { ProjectsRoute } from './routes/projects';
 import { SignInRoute } from './routes/sign-in';
 import { UsersRoute } from './routes/users';
 import { walkRoutes } from '../features/walk/routes';
+import { summaryRoutes } from '../features/summaries/routes';
 
 /** Each major route gets its own error boundary, so one failing page leaves the shell and the others working. */
 const guarded = (what: string, element: ReactNode) => <RouteErrorBoundary what={what}>{element}</RouteErrorBoundary>;
@@ -28,6 +29,7 @@ export const routes: RouteObject[] = [
       { path: paths.newProject.path, element: guarded('the new-project form', <NewProjectRoute />) },
       { path: paths.project.path, element: guarded('this project', <ProjectRoute />) },
       { path: paths.users.path, element: guarded('the accounts', <UsersRoute />) },
+      ...summaryRoutes,
       ...walkRoutes,
       { path: '*', element: <NotFoundRoute /> },
     ],

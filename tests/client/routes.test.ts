@@ -4,13 +4,14 @@ import type { RouteObject } from 'react-router-dom';
 import { isSafeRedirect, paths } from '../../src/app/paths';
 import { routes } from '../../src/app/router';
 import { walkPaths } from '../../src/features/walk/paths';
+import { summaryPaths } from '../../src/features/summaries/paths';
 
 function allPatterns(list: RouteObject[]): string[] {
   return list.flatMap((route) => [...(route.path ? [route.path] : []), ...allPatterns(route.children ?? [])]);
 }
 
 // the app's table and the features' own tables (a feature composes its routes from its table)
-const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths)].map((entry) => entry.path);
+const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths)].map((entry) => entry.path);
 
 describe('route table', () => {
   it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {

@@ -1,5 +1,6 @@
 import { Navigate, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { AppShell } from '../../components/layout/app-shell';
+import { InboxNavLink } from '../../features/inbox/components/inbox-nav-link';
 import type { NavItem } from '../../components/layout/app-shell';
 import { ErrorView } from '../../components/errors/error-view';
 import { Button } from '../../components/ui/button';
@@ -61,7 +62,7 @@ export function AppRoot() {
   if (!me.data) return <Navigate replace to={paths.signIn.getHref(location.pathname + location.search)} />;
 
   return (
-    <AppShell nav={navFor(me.data)} person={<Person user={me.data} />}>
+    <AppShell nav={navFor(me.data)} person={<Person user={me.data} />} extraNav={<InboxNavLink />}>
       <Outlet />
     </AppShell>
   );

@@ -22,6 +22,8 @@ import { useDocumentTitle } from '../../hooks/use-document-title';
 import { myRoleLabel } from '../../lib/labels';
 import type { Project } from '../../shared/api/projects';
 import { ProjectSystemsPanel } from '../../features/systems/components/project-systems-panel';
+import { ProjectReviewsPanel } from '../../features/reviews/components/project-reviews-panel';
+import { ProjectAuditPanel } from '../../features/summaries/components/project-audit-panel';
 
 function MembersSection({ project, canManage, config }: { project: Project; canManage: boolean; config: MemberMutationConfig }) {
   const members = useMembers(project.id);
@@ -100,7 +102,9 @@ export function ProjectRoute() {
           )}
         </Section>
         {project.myRole ? <ProjectSystemsPanel projectId={project.id} canEdit={project.myRole === 'designer' && !project.archived} /> : null}
+        {project.myRole ? <ProjectReviewsPanel projectId={project.id} /> : null}
         <MembersSection project={project} canManage={canManage} config={memberConfig} />
+        {project.myRole === 'designer' ? <ProjectAuditPanel projectId={project.id} /> : null}
         {canEdit ? (
           <Section title="Archive">
             <ArchiveControl project={project} reload={() => query.refetch()} />

@@ -14,7 +14,7 @@ function navClass({ isActive }: { isActive: boolean }) {
 }
 
 /** The frame of every signed-in page: brand, navigation, the person, the content, the standing caution. */
-export function AppShell({ nav, person, children }: { nav: readonly NavItem[]; person: ReactNode; children: ReactNode }) {
+export function AppShell({ nav, person, children, extraNav }: { nav: readonly NavItem[]; person: ReactNode; children: ReactNode; extraNav?: ReactNode }) {
   const main = useRef<HTMLElement>(null);
   useFocusOnNavigate(main);
   return (
@@ -37,6 +37,7 @@ export function AppShell({ nav, person, children }: { nav: readonly NavItem[]; p
                     </NavLink>
                   </li>
                 ))}
+                {extraNav ? <li>{extraNav}</li> : null}
               </ul>
             </nav>
           </div>

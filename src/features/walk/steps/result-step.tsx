@@ -10,6 +10,7 @@ import { formatDateTime } from '../../../lib/labels';
 import { issueRevisionInputSchema, useIssueRevision } from '../../systems/api/issue-revision';
 import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
 import { useWalk } from '../draft/walk-context';
+import { RevisionSummaryPanel } from '../../summaries/components/revision-summary-panel';
 import { StepIntro } from '../components/cells';
 import { criticalLedger, LedgerTable } from '../components/ledger-panel';
 import { PressureProfileChart } from '../components/pressure-profile';
@@ -54,7 +55,7 @@ function IssueForm() {
 }
 
 export function ResultStep() {
-  const { live, units, revision, readOnlyReason, project, document } = useWalk();
+  const { live, units, revision, readOnlyReason, project, document, ids } = useWalk();
   if (!live.ok) {
     return (
       <div>
@@ -178,6 +179,7 @@ export function ResultStep() {
           <IssueForm />
         )}
       </Section>
+      <RevisionSummaryPanel {...ids} revisionStatus={revision.status} myRole={project.myRole} />
     </div>
   );
 }
