@@ -231,7 +231,8 @@ test('when an inspector opens a draft, then every step is read-only', async ({ p
   await signIn(page, DEMO.inspector);
   await openProject(page, DEMO_PROJECT);
   await expect(page.getByRole('button', { name: 'New system' })).toHaveCount(0);
-  await page.getByRole('link', { name: 'Domestic cold water' }).click();
+  // the reviews panel links revisions of the same system: take the systems panel's link
+  await page.getByRole('link', { name: 'Domestic cold water', exact: true }).first().click();
   await page.getByRole('link', { name: /^Walk revision 2$/ }).click();
   await expect(page.getByTestId('read-only-note')).toContainText('designers');
   await expect(page.getByLabel(/Static pressure, low/)).toBeDisabled();

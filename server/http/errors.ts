@@ -33,7 +33,7 @@ function isDatabaseDown(err: unknown): boolean {
   return (
     ['ECONNREFUSED', 'ECONNRESET', '57P01', '57P03', 'ETIMEDOUT'].includes(e?.code ?? '') ||
     e?.name === 'KnexTimeoutError' ||
-    /Connection terminated|timeout exceeded when trying to connect/i.test(e?.message ?? '')
+    /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error/i.test(e?.message ?? '')
   );
 }
 

@@ -23,7 +23,7 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
     standardHeaders: 'draft-7',
     legacyHeaders: false,
     // per address and e-mail: one person mistyping does not lock out the office
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${typeof req.body?.email === 'string' ? req.body.email.toLowerCase() : ''}`,
     handler: (_req, res) =>
       res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Wait 15 minutes and try again.' } }),
   });

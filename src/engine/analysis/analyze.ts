@@ -48,6 +48,18 @@ export function safeAnalyzeSystem(doc: unknown): SafeAnalysis {
         error: new EngineInputError({ code: 'value-out-of-range', elementType: 'system', message: e.message }),
       };
     }
+    if (e instanceof Error && e.message.startsWith('engine defect:')) {
+      // Finite but absurd inputs (a length of 1e308 ft) overflow inside the arithmetic; the last
+      // guard catches the Infinity, and the designer gets an input error instead of a crash.
+      return {
+        ok: false,
+        error: new EngineInputError({
+          code: 'value-out-of-range',
+          elementType: 'system',
+          message: `The inputs lead to a value too large to compute (${e.message.slice('engine defect: '.length)}). Check for absurd lengths, elevations, pressures or flows.`,
+        }),
+      };
+    }
     throw e;
   }
 }
