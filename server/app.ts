@@ -9,7 +9,6 @@ import { createSessionMiddleware } from './auth/session';
 import { createPassport } from './auth/passport';
 import { createCsrf } from './auth/csrf';
 import { AppError, errorHandler } from './http/errors';
-import { bodyGuard } from './http/bodyGuard';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
 import { usersRoutes } from './routes/users';
@@ -56,7 +55,6 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
   // helmet's default CSP (self only) suits Vite's build output; the client loads nothing from elsewhere.
   app.use(helmet({ referrerPolicy: { policy: 'same-origin' } }));
   app.use(express.json({ limit: '2mb' }));
-  app.use(bodyGuard);
   app.use(cookieParser());
   const { middleware: sessionMiddleware, pool: sessionPool } = createSessionMiddleware(config);
   const passport = createPassport(ctx);

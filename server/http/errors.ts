@@ -67,7 +67,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(409).json({ error: { code: 'CONFLICT', message: 'That already exists; reload and try again.' } });
     return;
   }
-  if (pgCode === '22P02' || pgCode === '22021' || pgCode === '22P05' || pgCode === '54001') {
+  if (pgCode === '22P02' || pgCode === '22021' || pgCode === '22P05' || pgCode === '54001' || pgCode === '22003') {
     res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request holds a value the database cannot store.', fields: { '(body)': 'Value cannot be stored' } } });
     return;
   }

@@ -19,7 +19,7 @@ export function systemsRoutes(ctx: ServiceContext): Router {
 
   router.post(base, designer, async (req, res) => {
     const { projectId } = parse(ProjectParams, req.params);
-    const body = parse(CreateSystemBody, req.body);
+    const body = parse(CreateSystemBody, req.body, { storableCheck: false });
     res.status(201).json(await systemsService.create(ctx, actorOf(req.user), projectId, body));
   });
 

@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
 import { AppError, notFound, staleVersion } from '../http/errors';
 import { fieldsFromZod } from '../http/errors';
+import { assertStorable } from '../http/storable';
 import { projectsRepo } from '../repositories/projects';
 import { revisionsRepo, systemsRepo, type RevisionRow, type SystemRow } from '../repositories/systems';
 import { auditRepo } from '../repositories/audit';
@@ -98,6 +99,8 @@ export const systemsService = {
       body.document !== undefined
         ? { ...parseDocument(body.document), name: body.name, service: body.service }
         : starterDocument(body.name, body.service, project.unit_system, body.waterTemperature);
+    // after the document's own schema, so a malformed document is reported by the schema first
+    assertStorable({ name: body.name, document });
     return ctx.db.transaction(async (trx) => {
       const system = await systemsRepo.insert(trx, { project_id: projectId, name: body.name, service: body.service, created_by: actor.id });
       const revision = await revisionsRepo.insert(trx, { system_id: system.id, number: 1, document, analysis: analyse(document), engine_version: ENGINE_VERSION, created_by: actor.id });

@@ -1,4 +1,3 @@
-import type { RequestHandler } from 'express';
 import { AppError } from './errors';
 
 // PostgreSQL text and jsonb cannot hold NUL, and jsonb refuses unpaired UTF-16 surrogates:
@@ -27,9 +26,11 @@ function firstUnstorable(body: unknown): [string, string] | null {
   return null;
 }
 
-/** Refuses JSON bodies holding text that no route could store, before any route sees them. */
-export const bodyGuard: RequestHandler = (req, _res, next) => {
-  const found = firstUnstorable(req.body);
+/**
+ * Refuses a validated value holding text the database cannot store. It runs after the zod
+ * schema (server/http/validate.ts), so a body that breaks the schema is reported by the schema.
+ */
+export function assertStorable(value: unknown): void {
+  const found = firstUnstorable(value);
   if (found) throw new AppError(400, 'VALIDATION_FAILED', 'Some fields need attention.', { [found[0]]: found[1] });
-  next();
-};
+}
