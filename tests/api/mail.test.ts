@@ -179,7 +179,10 @@ describe('sending the issued summary', () => {
 
 describe('the development mail page (HEADROOM_DEV_MAIL=1)', () => {
   let dev: Harness;
-  beforeAll(() => {
+  beforeAll(async () => {
+    // one worker on the shared outbox: the file's other worker would otherwise claim this
+    // harness's messages and deliver them to the test sink instead of the in-process one
+    await h.headroom.outbox.stop();
     dev = startHarness({ HEADROOM_DEV_MAIL: '1', ...FAST_OUTBOX });
     dev.headroom.outbox.start();
   });
