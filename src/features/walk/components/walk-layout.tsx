@@ -62,6 +62,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
     system,
     revision,
     readOnlyReason,
+    scope: 'design',
     draft,
     document: draft.document,
     live,

@@ -20,6 +20,11 @@ export interface WalkContextValue {
   revision: Revision;
   /** why the steps are read-only, or null when the person may edit this draft */
   readOnlyReason: string | null;
+  /**
+   * What is being walked: the designer's revision, or a contractor's field change on an issued
+   * revision, in which no segment, node or fixture may be added or removed (the server refuses it).
+   */
+  scope: 'design' | 'field-change';
   draft: Draft;
   document: SystemDocument;
   live: LiveAnalysis;

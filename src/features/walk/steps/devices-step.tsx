@@ -189,7 +189,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
 }
 
 export function DevicesStep() {
-  const { document, draft, readOnlyReason, units, catalog, live } = useWalk();
+  const { document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
   const [defaults] = useState<DevicesForm>(() => ({ devices: document.devices.map(toRow) }));
   const form = useLiveForm(devicesFormSchema, defaults, (v) => draft.update((doc) => ({ ...doc, devices: v.devices })));
   const { register, control, formState: { errors }, watch, setValue } = form;
@@ -231,7 +231,7 @@ export function DevicesStep() {
       {document.segments.length === 0 ? (
         <div className="mb-4 rounded-md border-2 border-caution bg-caution-soft p-3 text-sm">
           <p>Devices sit on segments, and this system has none yet.</p>
-          <Button className="mt-2" variant="secondary" onClick={addServicePipe} disabled={readOnlyReason !== null}>
+          <Button className="mt-2" variant="secondary" onClick={addServicePipe} disabled={readOnlyReason !== null || scope === 'field-change'}>
             Add the service pipe (connection → building entry)
           </Button>
         </div>
