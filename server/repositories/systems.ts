@@ -23,6 +23,8 @@ export interface RevisionRow {
   issued_by_name?: string | null;
   issued_at: Date | null;
   updated_at: Date;
+  /** the accepted field change's frozen record (src/shared/api/fieldChanges.ts FieldChangeRecord), on `find` only */
+  field_change_record?: unknown;
 }
 
 const revisionColumns = ['r.*', 'u.name as issued_by_name'];
@@ -48,7 +50,11 @@ export const revisionsRepo = {
       .select(revisionColumns)
       .orderBy([{ column: 'r.system_id' }, { column: 'r.number', order: 'desc' }]),
   find: (db: Tx, systemId: string, revisionId: string) =>
-    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').where({ 'r.id': revisionId, 'r.system_id': systemId }).first(revisionColumns),
+    db<RevisionRow>('revisions as r')
+      .leftJoin('users as u', 'u.id', 'r.issued_by')
+      .leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id')
+      .where({ 'r.id': revisionId, 'r.system_id': systemId })
+      .first([...revisionColumns, 'fc.record as field_change_record']),
   findForUpdate: (db: Tx, systemId: string, revisionId: string) => db<RevisionRow>('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first(),
   draftOf: (db: Tx, systemId: string) => db<RevisionRow>('revisions').where({ system_id: systemId, status: 'draft' }).first(),
   async nextNumber(db: Tx, systemId: string): Promise<number> {

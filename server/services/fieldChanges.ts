@@ -18,6 +18,7 @@ import { analyse, systemsService } from './systems';
 import { toAttachment } from './attachments';
 import { describeChanges, forbiddenDifferences } from './fieldChangeRules';
 import { compareDocuments } from './fieldChangeComparison';
+import { mergeFieldChange } from './fieldChangeMerge';
 import { fieldChangeDecidedMessage, fieldChangeProposedMessage } from '../mail/messages';
 import type { Actor, ServiceContext } from './context';
 import {
@@ -221,7 +222,10 @@ export const fieldChangesService = {
     return this.get(ctx, projectId, systemId, id);
   },
 
-  /** Accepting makes a new draft revision from the field change's document, exactly. */
+  /**
+   * Accepting makes a new draft revision from the field change's document, exactly; when the system
+   * has a draft already, the field change's changes are carried onto that draft (fieldChangeMerge.ts).
+   */
   async accept(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, version: number, comment: string | null) {
     const revisionId = await ctx.db.transaction(async (trx) => {
       const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, id);
@@ -231,20 +235,34 @@ export const fieldChangesService = {
       await trx.raw('SELECT id FROM systems WHERE id = ? FOR UPDATE', [systemId]);
       const m = await mailContext(ctx, trx, row);
       requireCurrent(m.base, row, await currentIssued(trx, systemId), 'accepted');
-      const draft = await revisionsRepo.draftOf(trx, systemId);
-      if (draft) throw new AppError(409, 'CONFLICT', `Revision ${draft.number} of this system is a draft already, and a system has one draft at a time; issue it or wait before accepting field change ${row.number}.`);
-      const document = doc(row.document);
-      const number = await revisionsRepo.nextNumber(trx, systemId);
       const [contractor, designer] = await Promise.all([usersRepo.findById(trx, row.created_by), usersRepo.findById(trx, actor.id)]);
-      const revision = await revisionsRepo.insert(trx, {
-        system_id: systemId,
-        number,
-        document,
-        analysis: analyse(document),
-        engine_version: ENGINE_VERSION,
-        created_by: actor.id,
-        note: `From field change ${row.number} (“${row.title}”), proposed by ${contractor?.name ?? 'a contractor'}, on revision ${m.baseRevisionNumber}`,
-      });
+      const existing = await revisionsRepo.draftOf(trx, systemId);
+      let revision: RevisionRow;
+      let document: SystemDocument;
+      if (existing) {
+        // A system has one draft at a time: the contractor's changes are carried onto the designer's
+        // draft, unless the designer changed the same thing differently (then nothing is merged).
+        const merged = mergeFieldChange(doc(m.base!.document), doc(row.document), doc(existing.document));
+        if (Object.keys(merged.conflicts).length) {
+          throw new AppError(409, 'CONFLICT', `Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`, merged.conflicts);
+        }
+        document = merged.document;
+        const saved = await revisionsRepo.saveDraft(trx, existing.id, existing.version, document, analyse(document), ENGINE_VERSION);
+        if (!saved) throw staleVersion();
+        revision = saved;
+      } else {
+        document = doc(row.document);
+        revision = await revisionsRepo.insert(trx, {
+          system_id: systemId,
+          number: await revisionsRepo.nextNumber(trx, systemId),
+          document,
+          analysis: analyse(document),
+          engine_version: ENGINE_VERSION,
+          created_by: actor.id,
+          note: `From field change ${row.number} (“${row.title}”), proposed by ${contractor?.name ?? 'a contractor'}, on revision ${m.baseRevisionNumber}`,
+        });
+      }
+      const number = revision.number;
       await fieldChangesRepo.setRevisionOrigin(trx, revision.id, id);
       const acceptedAt = new Date();
       const record: FieldChangeRecord = {
@@ -257,7 +275,7 @@ export const fieldChangesService = {
         acceptedBy: { id: actor.id, name: designer?.name ?? '', email: designer?.email ?? '' },
         acceptedAt: acceptedAt.toISOString(),
         comment,
-        changes: describeChanges(doc(m.base!.document), document),
+        changes: describeChanges(doc(m.base!.document), doc(row.document)),
       };
       const moved = await fieldChangesRepo.transition(trx, id, version, 'proposed', 'accepted', { decided_by: actor.id, decided_at: acceptedAt, accepted_revision_id: revision.id, record: JSON.stringify(record) });
       if (!moved) throw staleVersion();

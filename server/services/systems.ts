@@ -10,7 +10,8 @@ import { iso } from '../db/rows';
 import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
 import type { Actor, ServiceContext } from './context';
-import type { CompareResponse, CreateSystemBody, Revision, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+import type { CompareResponse, CreateSystemBody, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 
 /** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
 export function analyse(document: unknown) {
@@ -45,7 +46,26 @@ const toSummary = (r: RevisionRow): RevisionSummary => ({
   inputHash: r.input_hash,
   verdict: verdictOf(r.analysis),
 });
-const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note });
+const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note, origin: originOf(r.field_change_record) });
+
+/** The revision's history line from the field change it was accepted from (null for a designer's own). */
+function originOf(record: unknown): RevisionOrigin | null {
+  const parsed = FieldChangeRecord.safeParse(typeof record === 'string' ? JSON.parse(record) : record);
+  if (!parsed.success) return null;
+  const r = parsed.data;
+  return {
+    fieldChangeId: r.fieldChangeId,
+    number: r.number,
+    title: r.title,
+    baseRevisionNumber: r.baseRevisionNumber,
+    proposedBy: r.proposedBy.name,
+    proposedAt: r.proposedAt,
+    acceptedBy: r.acceptedBy.name,
+    acceptedAt: r.acceptedAt,
+    comment: r.comment,
+    changes: r.changes.map((c) => c.text),
+  };
+}
 const toSystem = (s: SystemRow, latest: RevisionRow | undefined): SystemInfo => ({
   id: s.id,
   projectId: s.project_id,

@@ -104,12 +104,14 @@ export function createApiClient(fetchImpl: typeof fetch = (...args) => globalThi
 
     const attempt = async (): Promise<Response> => {
       const headers: Record<string, string> = { accept: 'application/json' };
-      if (options.body !== undefined) headers['content-type'] = 'application/json';
+      // A FormData body (an upload) sets its own multipart content type with the boundary.
+      const multipart = typeof FormData !== 'undefined' && options.body instanceof FormData;
+      if (options.body !== undefined && !multipart) headers['content-type'] = 'application/json';
       if (needsCsrf) headers['x-csrf-token'] = await getCsrfToken();
       return send(path, {
         method,
         headers,
-        body: options.body === undefined ? undefined : JSON.stringify(options.body),
+        body: options.body === undefined ? undefined : multipart ? (options.body as FormData) : JSON.stringify(options.body),
         signal: options.signal,
       });
     };

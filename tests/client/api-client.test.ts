@@ -27,6 +27,19 @@ describe('api client', () => {
     expect(fetch.calls[1].body).toEqual({ name: 'a' });
   });
 
+  it('when the body is FormData (an upload), then it goes as multipart with the CSRF token and no JSON content type', async () => {
+    const fetch = fakeFetch((call) => (call.url === '/api/csrf-token' ? { status: 200, body: { token: 'tok-9' } } : { status: 201, body: { thing: { id: 'f' } } }));
+    const api = createApiClient(fetch.impl);
+    const form = new FormData();
+    form.append('file', new Blob(['%PDF-1.4'], { type: 'application/pdf' }), 'sheet.pdf');
+    await api.request('/api/uploads', { method: 'POST', body: form, schema: Thing });
+    const sent = fetch.calls[1];
+    expect(sent.headers['x-csrf-token']).toBe('tok-9');
+    // fetch must set multipart/form-data with its boundary itself
+    expect(sent.headers['content-type']).toBeUndefined();
+    expect((sent.formData?.get('file') as File).name).toBe('sheet.pdf');
+  });
+
   it('when the token is refused once (CSRF_FAILED), then it fetches a new token and retries once', async () => {
     let tokens = 0;
     const fetch = fakeFetch((call) => {

@@ -1,5 +1,5 @@
 /** A stand-in for `fetch` that answers from a script and records every request it got. */
-export type Call = { url: string; method: string; headers: Record<string, string>; body: unknown; credentials?: RequestCredentials };
+export type Call = { url: string; method: string; headers: Record<string, string>; body: unknown; credentials?: RequestCredentials; formData?: FormData };
 export type Answer = { status: number; body?: unknown; raw?: string } | Error;
 
 export function fakeFetch(answer: (call: Call, index: number) => Answer) {
@@ -11,6 +11,7 @@ export function fakeFetch(answer: (call: Call, index: number) => Answer) {
       headers: { ...(init.headers as Record<string, string> | undefined) },
       body: typeof init.body === 'string' ? JSON.parse(init.body) : undefined,
       credentials: init.credentials,
+      formData: init.body instanceof FormData ? init.body : undefined,
     };
     calls.push(call);
     const result = answer(call, calls.length - 1);

@@ -5,13 +5,16 @@ import { isSafeRedirect, paths } from '../../src/app/paths';
 import { routes } from '../../src/app/router';
 import { walkPaths } from '../../src/features/walk/paths';
 import { summaryPaths } from '../../src/features/summaries/paths';
+import { catalogPaths } from '../../src/features/catalog/paths';
+import { fieldChangePaths } from '../../src/features/field-changes/paths';
+import { fieldChangeViewPath } from '../../src/shared/api/fieldChanges';
 
 function allPatterns(list: RouteObject[]): string[] {
   return list.flatMap((route) => [...(route.path ? [route.path] : []), ...allPatterns(route.children ?? [])]);
 }
 
 // the app's table and the features' own tables (a feature composes its routes from its table)
-const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths)].map((entry) => entry.path);
+const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths), ...Object.values(fieldChangePaths), ...Object.values(catalogPaths)].map((entry) => entry.path);
 
 describe('route table', () => {
   it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {
@@ -36,9 +39,19 @@ describe('route table', () => {
     expect(leaf('/projects/new')).toBe(paths.newProject.path);
     expect(leaf('/projects/3f1c')).toBe(paths.project.path);
     expect(leaf('/users')).toBe(paths.users.path);
+    expect(leaf(catalogPaths.projectCatalog.getHref('3f1c'))).toBe(catalogPaths.projectCatalog.path);
     expect(leaf('/sign-in')).toBe(paths.signIn.path);
     expect(leaf('/invitations/xyz')).toBe(paths.invitation.path);
+    expect(leaf('/forgot-password')).toBe(paths.forgotPassword.path);
+    expect(leaf(paths.resetPassword.getHref('tok_-9'))).toBe(paths.resetPassword.path);
     expect(leaf('/no/such/page')).toBe('*');
+    // a field change's side by side (the address its e-mails link to), a step of it, and its diagram
+    const view = matchRoutes(routes, fieldChangeViewPath('p1', 's1', 'f1')) ?? [];
+    expect(view.at(-1)?.route.index).toBe(true);
+    expect(view.at(-2)?.route.path).toBe(fieldChangePaths.view.path);
+    expect(leaf(fieldChangePaths.step.getHref('p1', 's1', 'f1', 'pipe'))).toBe(fieldChangePaths.step.path);
+    expect(fieldChangePaths.step.getHref('p1', 's1', 'f1', 'effect')).toBe(fieldChangeViewPath('p1', 's1', 'f1'));
+    expect(leaf(fieldChangePaths.diagram.getHref('p1', 's1', 'f1'))).toBe(fieldChangePaths.diagram.path);
   });
 
   it('when sign-in is given a place to return to, then only same-site paths are kept', () => {

@@ -10,6 +10,8 @@ export const WALK_STEPS = [
 ] as const;
 
 export type WalkStepId = (typeof WALK_STEPS)[number]['id'];
+/** A step as the step links show it (a field change has steps of its own too). */
+export type StepLink = { id: string; label: string };
 
 export function isWalkStep(value: string | undefined): value is WalkStepId {
   return WALK_STEPS.some((s) => s.id === value);

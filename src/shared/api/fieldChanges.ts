@@ -21,8 +21,9 @@
  *   DELETE FC/:fieldChangeId/attachments/:attachmentId                 its author, draft only → 204
  *
  * States: draft → proposed (each designer of the project gets an e-mail) → accepted (a new DRAFT
- * revision of the system is made from the field change's document, for the designer to issue; the
- * revision records the field change) or declined (with a reason). The author is e-mailed either way.
+ * revision of the system is made from the field change's document, for the designer to issue — or,
+ * when the system has a draft already, the changes are carried onto it; the revision records the
+ * field change) or declined (with a reason). The author is e-mailed either way.
  * Every write of a field change takes its `version` (409 STALE_VERSION when someone changed it).
  *
  * What a contractor may change (the server compares the document with the issued one and refuses
@@ -37,7 +38,7 @@
  *
  * Errors a client should expect: 403 FORBIDDEN with fields (a part that stays as issued), 409
  * CONFLICT (out-of-order state change; the base revision is no longer the current issued one;
- * the system has a draft already), 409 STALE_VERSION, 400 VALIDATION_FAILED (the document breaks
+ * accepting onto a draft that changed the same fields differently — `fields` names them), 409 STALE_VERSION, 400 VALIDATION_FAILED (the document breaks
  * the format; an upload that is not a PDF/JPEG/PNG by its content; an empty file), 413 (an upload
  * over the size limit, 10 MB by default).
  */

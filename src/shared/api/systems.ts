@@ -51,11 +51,29 @@ export const RevisionSummary = z.object({
 });
 export type RevisionSummary = z.infer<typeof RevisionSummary>;
 
+/** The accepted field change a revision was made from: its history, as frozen at acceptance. */
+export const RevisionOrigin = z.object({
+  fieldChangeId: z.string(),
+  number: z.number().int(),
+  title: z.string(),
+  baseRevisionNumber: z.number().int(),
+  proposedBy: z.string(),
+  proposedAt: z.string(),
+  acceptedBy: z.string(),
+  acceptedAt: z.string(),
+  comment: z.string().nullable(),
+  /** one sentence per changed segment or device */
+  changes: z.array(z.string()),
+});
+export type RevisionOrigin = z.infer<typeof RevisionOrigin>;
+
 export const Revision = RevisionSummary.extend({
   document: z.unknown(),
   /** the engine's analysis ({ ok: true, analysis } or { ok: false, error }) computed by the server */
   analysis: z.unknown(),
   note: z.string().nullable(),
+  /** set when the revision came from an accepted field change */
+  origin: RevisionOrigin.nullable().default(null),
 });
 export type Revision = z.infer<typeof Revision>;
 

@@ -22,5 +22,6 @@ export const revisionQueryOptions = (projectId: string, systemId: string, revisi
   });
 
 export function useRevision(projectId: string, systemId: string, revisionId: string) {
-  return useQuery(revisionQueryOptions(projectId, systemId, revisionId));
+  // an id not known yet (it comes from another query) waits instead of asking for nothing
+  return useQuery({ ...revisionQueryOptions(projectId, systemId, revisionId), enabled: revisionId !== '' });
 }

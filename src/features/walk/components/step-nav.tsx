@@ -1,23 +1,22 @@
 import { NavLink } from 'react-router-dom';
 import { cx } from '../../../components/ui/cx';
-import { walkPaths } from '../paths';
 import { WALK_STEPS } from '../steps';
-import type { WalkIds } from '../draft/walk-context';
+import type { StepLink } from '../steps';
+import type { WalkLinks } from '../draft/walk-context';
 
 /** The steps of the walk as numbered links; NavLink marks the current one with aria-current="page". */
-export function StepNav({ ids }: { ids: WalkIds }) {
-  const { projectId, systemId, revisionId } = ids;
+export function StepNav({ links, steps = WALK_STEPS, label = 'Steps of the walk' }: { links: WalkLinks; steps?: readonly StepLink[]; label?: string }) {
   const linkClass = ({ isActive }: { isActive: boolean }) =>
     cx(
       'flex items-center gap-2 rounded-md border-2 px-3 py-1.5 text-sm font-semibold no-underline',
       isActive ? 'border-standpipe bg-standpipe text-paper hover:text-paper' : 'border-rule bg-surface text-standpipe hover:bg-standpipe-soft',
     );
   return (
-    <nav aria-label="Steps of the walk" className="print:hidden">
+    <nav aria-label={label} className="print:hidden">
       <ol className="flex flex-wrap gap-2">
-        {WALK_STEPS.map((step, i) => (
+        {steps.map((step, i) => (
           <li key={step.id}>
-            <NavLink to={walkPaths.step.getHref(projectId, systemId, revisionId, step.id)} className={linkClass}>
+            <NavLink to={links.step(step.id)} className={linkClass}>
               <span aria-hidden="true">{i + 1}. </span>
               {step.label}
             </NavLink>
@@ -25,10 +24,10 @@ export function StepNav({ ids }: { ids: WalkIds }) {
         ))}
       </ol>
       <p className="mt-2 flex flex-wrap gap-4 text-sm">
-        <NavLink to={walkPaths.table.getHref(projectId, systemId, revisionId)}>Segment table</NavLink>
-        <NavLink to={walkPaths.diagram.getHref(projectId, systemId, revisionId)}>Riser diagram</NavLink>
-        <NavLink to={walkPaths.system.getHref(projectId, systemId)} end>
-          System overview and revisions
+        {links.table ? <NavLink to={links.table}>Segment table</NavLink> : null}
+        <NavLink to={links.diagram}>Riser diagram</NavLink>
+        <NavLink to={links.up.href} end>
+          {links.up.label}
         </NavLink>
       </p>
     </nav>

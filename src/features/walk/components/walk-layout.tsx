@@ -17,14 +17,18 @@ import { useRevision } from '../../systems/api/get-revision';
 import { useSystem } from '../../systems/api/get-system';
 import { analyseDraft } from '../draft/live-analysis';
 import { useDraft } from '../draft/use-draft';
+import { useRevisionStore } from '../draft/revision-store';
 import { WalkContext } from '../draft/walk-context';
-import type { WalkContextValue, WalkIds } from '../draft/walk-context';
+import type { WalkContextValue, WalkIds, WalkLinks } from '../draft/walk-context';
 import { walkPaths } from '../paths';
+import type { WalkStepId } from '../steps';
 import { ExportButton } from './export-button';
 import { LedgerPanel } from './ledger-panel';
 import { NewDraftButton } from './new-draft-button';
 import { SaveBar } from './save-bar';
 import { StepNav } from './step-nav';
+import { RevisionOriginNote } from './revision-origin-note';
+import { StartFieldChange } from '../../field-changes/components/start-field-change';
 
 const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
 
@@ -34,9 +38,20 @@ export function readOnlyReasonFor(project: Pick<Project, 'myRole'>, revision: Pi
   return null;
 }
 
+export function revisionLinks({ projectId, systemId, revisionId }: WalkIds): WalkLinks {
+  return {
+    step: (step) => walkPaths.step.getHref(projectId, systemId, revisionId, step as WalkStepId),
+    table: walkPaths.table.getHref(projectId, systemId, revisionId),
+    diagram: walkPaths.diagram.getHref(projectId, systemId, revisionId),
+    up: { href: walkPaths.system.getHref(projectId, systemId), label: 'System overview and revisions' },
+  };
+}
+
 function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; project: Project; system: SystemInfo; revision: Revision; catalog: Catalog }) {
   const readOnlyReason = readOnlyReasonFor(project, revision);
-  const draft = useDraft(ids, revision, readOnlyReason === null);
+  const store = useRevisionStore(ids);
+  const draft = useDraft(store, revision, readOnlyReason === null);
+  const links = useMemo((): WalkLinks => revisionLinks(ids), [ids]);
   const { step } = useParams();
   const deferred = useDeferredValue(draft.document);
   const live = useMemo(() => (deferred ? analyseDraft(deferred) : null), [deferred]);
@@ -63,6 +78,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
     revision,
     readOnlyReason,
     scope: 'design',
+    links,
     draft,
     document: draft.document,
     live,
@@ -87,12 +103,16 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
         </div>
       </div>
+      {revision.origin ? <RevisionOriginNote origin={revision.origin} ids={ids} /> : null}
       <div className="mb-4 flex flex-col gap-4">
-        <StepNav ids={ids} />
+        <StepNav links={links} />
         {readOnlyReason ? (
           <div className="flex flex-col gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 print:hidden" data-testid="read-only-note">
             <p>{readOnlyReason}</p>
             {revision.status !== 'draft' && project.myRole === 'designer' ? <NewDraftButton ids={ids} /> : null}
+            {revision.status === 'issued' && project.myRole === 'contractor' ? (
+              <StartFieldChange projectId={ids.projectId} systemId={ids.systemId} revisionId={revision.id} revisionNumber={revision.number} />
+            ) : null}
           </div>
         ) : (
           <SaveBar draft={draft} editable />

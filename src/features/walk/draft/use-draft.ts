@@ -1,32 +1,39 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import { useQueryClient } from '@tanstack/react-query';
 import { SystemDocumentSchema } from '../../../engine';
 import type { SystemDocument } from '../../../engine';
 import { errorMessage, isStaleVersion } from '../../../lib/error-messages';
-import type { Revision } from '../../../shared/api/systems';
-import { revisionQueryOptions } from '../../systems/api/get-revision';
-import { useSaveDocument } from '../../systems/api/save-document';
 
 export type SaveState = 'saved' | 'unsaved' | 'saving' | 'conflict' | 'failed';
 
 /** Wait after the last change before an automatic save, ms (long enough to finish typing a number). */
 export const AUTOSAVE_DELAY_MS = 1500;
 
-export function parseRevisionDocument(revision: Revision): SystemDocument | null {
-  const parsed = SystemDocumentSchema.safeParse(revision.document);
+/** What a draft is kept in on the server: a draft revision, or a contractor's field change. */
+export interface DraftStore {
+  /** saves the document over the given version; resolves to the new version (409 STALE_VERSION when someone saved meanwhile) */
+  save(document: SystemDocument, version: number): Promise<number>;
+  /** the document and version as stored now */
+  fetchCurrent(): Promise<StoredDocument>;
+}
+
+export interface StoredDocument {
+  document: unknown;
+  version: number;
+}
+
+export function parseStoredDocument(stored: Pick<StoredDocument, 'document'>): SystemDocument | null {
+  const parsed = SystemDocumentSchema.safeParse(stored.document);
   return parsed.success ? parsed.data : null;
 }
 
 /**
- * The draft being walked: a copy of the revision's document taken when the walk opened, the
- * version it was taken at, and its save state. Saves send that version, so a save over someone
- * else's answers 409 and is never a silent overwrite.
+ * The draft being walked: a copy of the stored document taken when the walk opened, the version
+ * it was taken at, and its save state. Saves send that version, so a save over someone else's
+ * answers 409 and is never a silent overwrite.
  */
-export function useDraft(ids: { projectId: string; systemId: string; revisionId: string }, revision: Revision, editable: boolean) {
-  const queryClient = useQueryClient();
-  const { mutateAsync: sendSave } = useSaveDocument();
-  const [document, setDocument] = useState<SystemDocument | null>(() => parseRevisionDocument(revision));
-  const [version, setVersion] = useState(revision.version);
+export function useDraft(store: DraftStore, initial: StoredDocument, editable: boolean) {
+  const [document, setDocument] = useState<SystemDocument | null>(() => parseStoredDocument(initial));
+  const [version, setVersion] = useState(initial.version);
   const [generation, setGeneration] = useState(0);
   const [state, setState] = useState<SaveState>('saved');
   const [failure, setFailure] = useState<string | null>(null);
@@ -48,11 +55,12 @@ export function useDraft(ids: { projectId: string; systemId: string; revisionId:
       setState('saving');
       setFailure(null);
       try {
-        const saved = await sendSave({ ...ids, document: doc, version: atVersion ?? versionRef.current });
-        setVersion(saved.version);
+        const savedVersion = await store.save(doc, atVersion ?? versionRef.current);
+        setVersion(savedVersion);
+        versionRef.current = savedVersion;
         // A change made while the request was out still needs saving.
         setState(latest.current === doc ? 'saved' : 'unsaved');
-        return saved.version;
+        return savedVersion;
       } catch (error) {
         if (isStaleVersion(error)) setState('conflict');
         else {
@@ -62,7 +70,7 @@ export function useDraft(ids: { projectId: string; systemId: string; revisionId:
         return null;
       }
     },
-    [editable, ids, sendSave],
+    [editable, store],
   );
 
   stateRef.current = state;
@@ -72,31 +80,32 @@ export function useDraft(ids: { projectId: string; systemId: string; revisionId:
     return () => clearTimeout(timer);
   }, [document, state, editable, saveNow]);
 
-  const fetchCurrent = useCallback(
-    () => queryClient.fetchQuery({ ...revisionQueryOptions(ids.projectId, ids.systemId, ids.revisionId), staleTime: 0 }),
-    [queryClient, ids],
-  );
-
   /** Drop my changes and take the draft as it is on the server now. */
   const reloadTheirs = useCallback(async () => {
-    const current = await fetchCurrent();
-    setDocument(parseRevisionDocument(current));
+    const current = await store.fetchCurrent();
+    setDocument(parseStoredDocument(current));
     setVersion(current.version);
     setGeneration((g) => g + 1);
     setState('saved');
     setFailure(null);
     return current;
-  }, [fetchCurrent]);
+  }, [store]);
 
   /** Save my draft on top of the version saved meanwhile (a deliberate choice, never automatic). */
   const keepMine = useCallback(async () => {
-    const current = await fetchCurrent();
+    const current = await store.fetchCurrent();
     setVersion(current.version);
     await saveNow(current.version);
-  }, [fetchCurrent, saveNow]);
+  }, [store, saveNow]);
 
-  return { document, version, generation, state, failure, update, saveNow: () => saveNow(),
-    /** the version to issue: the saved one, after saving any change still pending */
+  /** The stored record moved on without its document changing (a title edit): carry on from its version. */
+  const acknowledge = useCallback((stored: number) => {
+    setVersion(stored);
+    versionRef.current = stored;
+  }, []);
+
+  return { document, version, generation, state, failure, update, acknowledge, saveNow: () => saveNow(),
+    /** the version to act on (issue, propose): the saved one, after saving any change still pending */
     versionToIssue: async () => (stateRef.current === 'saved' ? versionRef.current : saveNow()), reloadTheirs, keepMine };
 }
 

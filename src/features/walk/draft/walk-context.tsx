@@ -13,6 +13,16 @@ export interface WalkIds {
   revisionId: string;
 }
 
+/** Where the frame's links go: a revision's steps, or a field change's. */
+export interface WalkLinks {
+  step: (step: string) => string;
+  /** the segment table, when this frame offers it */
+  table: string | null;
+  diagram: string;
+  /** the page above the steps (the system's overview, or the field change's side by side) */
+  up: { href: string; label: string };
+}
+
 export interface WalkContextValue {
   ids: WalkIds;
   project: Project;
@@ -25,6 +35,7 @@ export interface WalkContextValue {
    * revision, in which no segment, node or fixture may be added or removed (the server refuses it).
    */
   scope: 'design' | 'field-change';
+  links: WalkLinks;
   draft: Draft;
   document: SystemDocument;
   live: LiveAnalysis;

@@ -14,6 +14,7 @@ import type { RevisionSummary } from '../../../shared/api/systems';
 import { useProject } from '../../projects/api/get-project';
 import { useSystem } from '../../systems/api/get-system';
 import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { SystemFieldChanges } from '../../field-changes/components/system-field-changes';
 import { signed } from '../lib/format';
 import { walkPaths } from '../paths';
 
@@ -50,6 +51,7 @@ export function SystemOverviewPage() {
   const options = [{ value: '', label: 'Choose a revision…' }, ...revisions.map((r) => ({ value: r.id, label: `Revision ${r.number} (${r.status})` }))];
   const pickA = a || revisions[1]?.id || '';
   const pickB = b || revisions[0]?.id || '';
+  const issued = revisions.find((r) => r.status === 'issued') ?? null;
 
   return (
     <>
@@ -100,6 +102,7 @@ export function SystemOverviewPage() {
             </tbody>
           </table>
         </Section>
+        <SystemFieldChanges projectId={projectId} systemId={systemId} myRole={project.data.project.myRole} issued={issued} />
         {revisions.length >= 2 ? (
           <Section title="Compare two revisions">
             <form

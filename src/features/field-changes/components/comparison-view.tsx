@@ -1,0 +1,193 @@
+import { Alert } from '../../../components/ui/alert';
+import { Section } from '../../../components/ui/card';
+import type { ComparisonResponse } from '../../../shared/api/fieldChanges';
+import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { fmt, signed } from '../../walk/lib/format';
+
+type Props = { comparison: ComparisonResponse };
+
+/** The overall verdict in one sentence, by word and shape. */
+export function ComparisonVerdict({ comparison }: Props) {
+  const { verdict } = comparison;
+  return (
+    <div className="rounded-md border-2 border-rule p-4" data-testid="field-change-verdict" data-pass={String(verdict.pass)}>
+      <VerdictMark verdict={verdictOf(verdict.pass)}>{verdict.pass === true ? 'Still passes' : verdict.pass === false ? 'Fails' : 'Not computed'}</VerdictMark>
+      <p className="mt-1 text-lg">{verdict.sentence}</p>
+    </div>
+  );
+}
+
+/** Every checked fixture: the issued margin, the new margin and the difference. */
+export function FixtureEffectTable({ comparison }: Props) {
+  const u = comparison.units.pressure;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full min-w-[44rem] text-sm" data-testid="fixture-effect-table">
+        <caption className="mb-2 text-left text-ink-soft">Margin = residual pressure − the fixture’s minimum flow pressure, at the design flow ({u}).</caption>
+        <thead>
+          <tr className="border-b-2 border-rule text-left">
+            <th scope="col" className="py-1 pr-2">Fixture</th>
+            <th scope="col" className="py-1 pr-2 text-right">Required</th>
+            <th scope="col" className="py-1 pr-2 text-right">Issued residual</th>
+            <th scope="col" className="py-1 pr-2 text-right">New residual</th>
+            <th scope="col" className="py-1 pr-2 text-right">Issued margin</th>
+            <th scope="col" className="py-1 pr-2 text-right">New margin</th>
+            <th scope="col" className="py-1 pr-2 text-right">Difference</th>
+            <th scope="col" className="py-1">With the change</th>
+          </tr>
+        </thead>
+        <tbody>
+          {comparison.fixtures.map((f) => (
+            <tr key={f.id} className="border-b border-rule" data-testid={`fixture-effect-${f.id}`} data-critical={f.id === comparison.verdict.criticalFixtureId || undefined}>
+              <th scope="row" className="py-1 pr-2 text-left font-normal">
+                {f.label}
+                {f.id === comparison.verdict.criticalFixtureId ? <span className="ml-1 text-xs font-semibold">(critical)</span> : null}
+              </th>
+              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.required, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.issuedResidual, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.newResidual, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums" data-testid="new-margin">{signed(f.newMargin, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums" data-testid="margin-difference">{signed(f.difference, 2)}</td>
+              <td className="py-1">
+                <VerdictMark verdict={verdictOf(f.newPass)} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function changeWords(changes: ComparisonResponse['segments'][number]['changes']) {
+  return changes.map((c) => `${c.field}: ${c.before ?? 'none'} → ${c.after ?? 'none'}`).join('; ');
+}
+
+/** Each changed segment and device: what changed and its effect on loss (and velocity). */
+export function ChangedElements({ comparison }: Props) {
+  const { units } = comparison;
+  if (comparison.segments.length === 0 && comparison.devices.length === 0) {
+    return <p className="text-ink-soft">Nothing differs from the issued revision yet.</p>;
+  }
+  return (
+    <div className="flex flex-col gap-4">
+      {comparison.segments.length ? (
+        <div className="overflow-x-auto">
+          <table className="w-full min-w-[44rem] text-sm" data-testid="segment-effect-table">
+            <caption className="mb-2 text-left font-semibold">Changed segments (loss = friction + fittings of the segment, {units.pressure})</caption>
+            <thead>
+              <tr className="border-b-2 border-rule text-left">
+                <th scope="col" className="py-1 pr-2">Segment</th>
+                <th scope="col" className="py-1 pr-2">What changed</th>
+                <th scope="col" className="py-1 pr-2 text-right">Loss issued → new</th>
+                <th scope="col" className="py-1 pr-2 text-right">Difference</th>
+                <th scope="col" className="py-1 text-right">Velocity ({units.velocity})</th>
+              </tr>
+            </thead>
+            <tbody>
+              {comparison.segments.map((s) => (
+                <tr key={s.id} className="border-b border-rule align-top" data-testid={`segment-effect-${s.id}`}>
+                  <th scope="row" className="py-1 pr-2 text-left font-normal">{s.label}</th>
+                  <td className="py-1 pr-2">{changeWords(s.changes)}</td>
+                  <td className="py-1 pr-2 text-right tabular-nums">
+                    {fmt(s.issued?.loss, 2)} → {fmt(s.proposed?.loss, 2)}
+                  </td>
+                  <td className="py-1 pr-2 text-right tabular-nums">{signed(s.lossDifference, 2)}</td>
+                  <td className="py-1 text-right tabular-nums">
+                    {fmt(s.issued?.velocity, 1)} → {fmt(s.proposed?.velocity, 1)}
+                    {s.proposed?.velocityPass === false ? <span className="block text-xs font-semibold text-fault">⚠ over the limit</span> : null}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
+      {comparison.devices.length ? (
+        <table className="w-full text-sm" data-testid="device-effect-table">
+          <caption className="mb-2 text-left font-semibold">Changed devices ({units.pressure})</caption>
+          <thead>
+            <tr className="border-b-2 border-rule text-left">
+              <th scope="col" className="py-1 pr-2">Device</th>
+              <th scope="col" className="py-1 pr-2">What changed</th>
+              <th scope="col" className="py-1 pr-2 text-right">Loss issued → new</th>
+              <th scope="col" className="py-1 text-right">Difference</th>
+            </tr>
+          </thead>
+          <tbody>
+            {comparison.devices.map((d) => (
+              <tr key={d.id} className="border-b border-rule align-top">
+                <th scope="row" className="py-1 pr-2 text-left font-normal">
+                  {d.label} <span className="text-xs">({d.change})</span>
+                </th>
+                <td className="py-1 pr-2">{changeWords(d.changes)}</td>
+                <td className="py-1 pr-2 text-right tabular-nums">
+                  {fmt(d.issuedLoss, 2)} → {fmt(d.newLoss, 2)}
+                </td>
+                <td className="py-1 text-right tabular-nums">{signed(d.lossDifference, 2)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
+    </div>
+  );
+}
+
+/** Warnings the change brings, and those it clears. */
+export function WarningChanges({ comparison }: Props) {
+  if (comparison.newWarnings.length === 0 && comparison.resolvedWarnings.length === 0) return <p className="text-ink-soft">No warning appears or goes away with the change.</p>;
+  return (
+    <div className="flex flex-col gap-3">
+      {comparison.newWarnings.length ? (
+        <div data-testid="new-warnings">
+          <h4 className="font-semibold">New with the change</h4>
+          <ul className="list-disc pl-5">
+            {comparison.newWarnings.map((w, i) => (
+              <li key={`${w.code}-${w.elementId}-${i}`}>
+                <span aria-hidden="true">⚠ </span>
+                {w.message}
+                {w.detail ? <span className="text-ink-soft"> — {w.detail}</span> : null}
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+      {comparison.resolvedWarnings.length ? (
+        <div>
+          <h4 className="font-semibold">Cleared by the change</h4>
+          <ul className="list-disc pl-5">
+            {comparison.resolvedWarnings.map((w, i) => (
+              <li key={`${w.code}-${w.elementId}-${i}`}>{w.message}</li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
+export function ComparisonSections({ comparison }: Props) {
+  if (!comparison.proposed.ok) {
+    return (
+      <Alert tone="fault" title="The field change cannot be computed">
+        {comparison.proposed.error}
+      </Alert>
+    );
+  }
+  return (
+    <div className="flex flex-col gap-6">
+      <ComparisonVerdict comparison={comparison} />
+      <Section title="Effect at every checked fixture" headingLevel={3}>
+        <FixtureEffectTable comparison={comparison} />
+      </Section>
+      <Section title="What changed" headingLevel={3}>
+        <ChangedElements comparison={comparison} />
+      </Section>
+      <Section title="Warnings" headingLevel={3}>
+        <WarningChanges comparison={comparison} />
+      </Section>
+    </div>
+  );
+}
