@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
-import { DEMO, DEMO_PROJECT, mainNav, openProject, shot, signIn, signedInPage } from './helpers';
+import { DEMO, DEMO_PASSWORD, DEMO_PROJECT, mainNav, openProject, shot, signIn, signedInPage } from './helpers';
 
 // One run builds on itself (a project made by the designer is then checked by others), so the
 // tests run in order; names carry the run's time so a reused database does not collide.
@@ -237,4 +237,44 @@ test('when someone uses only the keyboard, then sign-in works and the focused co
   await page.keyboard.press('Tab');
   await expect(page.getByRole('link', { name: 'Skip to content' })).toBeFocused();
   await shot(page, '17-keyboard-skip-link');
+});
+
+test('when the outsider forgets the password, then a link comes by e-mail, sets the password once, and the outsider signs in with it', async ({ page, browser }) => {
+  await page.goto('/sign-in');
+  await page.getByRole('link', { name: 'Forgot your password?' }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Forgot your password?' })).toBeVisible();
+  await page.getByLabel('E-mail address').fill(DEMO.outsider);
+  await page.getByRole('button', { name: 'Send me a link' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Check your e-mail' })).toContainText('If an active account');
+  await shot(page, '18-forgot-password-sent');
+
+  // the administrator's development mail page shows what the outbox sent (the list does not poll: reload until it is there)
+  const admin = await signedInPage(browser, DEMO.admin);
+  const mail = admin.getByTestId('dev-mail-item').filter({ hasText: 'choose a new password' }).first();
+  await expect(async () => {
+    await admin.goto('/dev/mail');
+    await admin.getByLabel('Only messages to this address').fill(DEMO.outsider);
+    await expect(mail).toBeVisible({ timeout: 1_000 });
+  }).toPass({ timeout: 20_000 });
+  const link = (await mail.locator('pre').textContent())?.match(/https?:\/\/\S+\/reset-password\?token=[\w%-]+/)?.[0];
+  expect(link, 'the e-mail carries a reset link').toBeTruthy();
+
+  // the new password is the demo one again: the other specs and the README's sign-ins keep working on this shared database
+  await page.goto(link!);
+  await expect(page.getByRole('heading', { level: 1, name: 'Choose a new password' })).toBeVisible();
+  await page.getByLabel('New password', { exact: true }).fill(DEMO_PASSWORD);
+  await page.getByLabel('New password again').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Change password' }).click();
+  await expect(page.getByRole('status').filter({ hasText: 'Password changed' })).toBeVisible();
+  await shot(page, '19-reset-password-done');
+
+  // the link works once
+  await page.goto(link!);
+  await page.getByLabel('New password', { exact: true }).fill('another long password');
+  await page.getByLabel('New password again').fill('another long password');
+  await page.getByRole('button', { name: 'Change password' }).click();
+  await expect(page.getByRole('alert')).toContainText('cannot be used');
+  await expect(page.getByRole('link', { name: 'Ask for a new link' })).toBeVisible();
+
+  await signIn(page, DEMO.outsider, DEMO_PASSWORD);
 });

@@ -74,7 +74,7 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
   api.use(reviewsRoutes(ctx));
   api.use(auditRoutes(ctx));
   api.use(devMailRoutes(ctx));
-  api.use(fieldChangesRoutes(ctx));
+  api.use(fieldChangesRoutes(ctx, { maxUploadBytes: config.UPLOAD_MAX_BYTES }));
   api.use((req) => {
     throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
   });

@@ -17,6 +17,15 @@ const ConfigSchema = z.object({
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(480),
   /** hours an invitation link stays valid */
   INVITATION_HOURS: z.coerce.number().int().min(1).default(72),
+  /**
+   * minutes a "forgot my password" link stays valid. 60: long enough for the mail to arrive and be
+   * read, short enough that a link left in a mailbox soon stops working (a choice; the OWASP Forgot
+   * Password Cheat Sheet asks for a short-lived, single-use token without fixing the period).
+   * Unlike an invitation (72 h), anyone who types the address can ask for one.
+   */
+  RESET_TOKEN_MINUTES: z.coerce.number().int().min(1).default(60),
+  /** largest field-change attachment, bytes (10 MiB: a scanned data sheet or a phone photo fits; a choice) */
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(10 * 1024 * 1024),
 
   // ---- e-mail (server/mail): SMTP relay, sender, the outbox worker's pace
   SMTP_HOST: z.string().default('127.0.0.1'),

@@ -5,7 +5,17 @@ import { AppError } from '../http/errors';
 import { parse } from '../http/validate';
 import { requireUser } from '../http/guards';
 import { authService } from '../services/auth';
-import { AcceptInvitationBody, SignInBody } from '../../src/shared/api/auth';
+import { passwordResetService } from '../services/passwordReset';
+import { SESSION_COOKIE } from '../auth/session';
+import {
+  AcceptInvitationBody,
+  PASSWORD_RESET_REQUESTED_MESSAGE,
+  PasswordResetConfirmBody,
+  PasswordResetRequestBody,
+  SignInBody,
+  type PasswordResetDoneResponse,
+  type PasswordResetRequestedResponse,
+} from '../../src/shared/api/auth';
 import type { ServiceContext } from '../services/context';
 
 export function authRoutes(ctx: ServiceContext, passport: PassportStatic, generateCsrfToken: (req: never, res: never, opts?: { overwrite?: boolean }) => string): Router {
@@ -17,16 +27,21 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
     res.json({ token: generateCsrfToken(req as never, res as never) });
   });
 
-  const signInLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: ctx.config.SIGN_IN_LIMIT,
-    standardHeaders: 'draft-7',
-    legacyHeaders: false,
-    // per address and e-mail: one person mistyping does not lock out the office
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${typeof req.body?.email === 'string' ? req.body.email.toLowerCase() : ''}`,
-    handler: (_req, res) =>
-      res.status(429).json({ error: { code: 'RATE_LIMITED', message: 'Too many sign-in attempts. Wait 15 minutes and try again.' } }),
-  });
+  /** SIGN_IN_LIMIT calls per 15 minutes per address and e-mail; each limiter keeps its own count. */
+  const perAddressAndEmail = (message: string) =>
+    rateLimit({
+      windowMs: 15 * 60 * 1000,
+      limit: ctx.config.SIGN_IN_LIMIT,
+      standardHeaders: 'draft-7',
+      legacyHeaders: false,
+      // per address and e-mail (as the schema normalises it, so spaces and capitals do not make a new count):
+      // one person mistyping does not lock out the office
+      keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : ''}`,
+      handler: (_req, res) => res.status(429).json({ error: { code: 'RATE_LIMITED', message } }),
+    });
+  const signInLimiter = perAddressAndEmail('Too many sign-in attempts. Wait 15 minutes and try again.');
+  // also keeps anyone from filling a person's mailbox with reset links
+  const passwordResetLimiter = perAddressAndEmail('Too many requests for a new password link. Wait 15 minutes and try again.');
 
   router.post('/auth/sign-in', signInLimiter, async (req, res, next) => {
     const body = parse(SignInBody, req.body);
@@ -46,6 +61,26 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
         res.clearCookie('headroom.sid');
         res.status(204).end();
       });
+    });
+  });
+
+  router.post('/auth/password-reset', passwordResetLimiter, async (req, res) => {
+    const body = parse(PasswordResetRequestBody, req.body);
+    await passwordResetService.request(ctx, body.email, req.ip ?? null);
+    // the same answer whether or not the address has an account
+    res.status(202).json({ message: PASSWORD_RESET_REQUESTED_MESSAGE } satisfies PasswordResetRequestedResponse);
+  });
+
+  router.post('/auth/password-reset/confirm', async (req, res, next) => {
+    const body = parse(PasswordResetConfirmBody, req.body);
+    const { userId } = await passwordResetService.confirm(ctx, body.token, body.password);
+    const done = { message: 'Your password is changed, and every session of your account has ended. Sign in with the new password.' } satisfies PasswordResetDoneResponse;
+    // the service already removed this browser's session from the store if it was that user's: drop it here too
+    if (req.user?.id !== userId) return res.json(done);
+    req.session.destroy((err) => {
+      if (err) return next(err);
+      res.clearCookie(SESSION_COOKIE);
+      res.json(done);
     });
   });
 

@@ -1,3 +1,5 @@
+import { RESET_PASSWORD_PATH, resetPasswordPath } from '../shared/api/auth';
+
 /**
  * Every route of the client, in one table: the router reads `path`, links call `getHref`.
  * No other file writes a route string by hand.
@@ -18,6 +20,15 @@ export const paths = {
   invitation: {
     path: '/invitations/:token',
     getHref: (token: string) => `/invitations/${encodeURIComponent(token)}`,
+  },
+  forgotPassword: {
+    path: '/forgot-password',
+    getHref: () => '/forgot-password',
+  },
+  /** the page a reset e-mail links to (the server writes the same address: src/shared/api/auth.ts) */
+  resetPassword: {
+    path: RESET_PASSWORD_PATH,
+    getHref: (token: string) => resetPasswordPath(token),
   },
   projects: {
     path: '/projects',

@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Alert } from '../../../components/ui/alert';
@@ -8,6 +9,7 @@ import { applyServerFieldErrors } from '../../../lib/form-errors';
 import { signInInputSchema, useSignIn } from '../api/sign-in';
 import type { SignInInput } from '../api/sign-in';
 import type { User } from '../../../shared/api/auth';
+import { paths } from '../../../app/paths';
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void }) {
   const signIn = useSignIn();
@@ -38,6 +40,9 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
       <Button type="submit" pending={signIn.isPending} pendingLabel="Signing in…">
         Sign in
       </Button>
+      <p className="text-sm">
+        <Link to={paths.forgotPassword.getHref()}>Forgot your password?</Link>
+      </p>
     </form>
   );
 }
