@@ -4,7 +4,9 @@ import type { RouteObject } from 'react-router-dom';
 import { RouteErrorBoundary, RouterErrorView } from '../components/errors/route-error-boundary';
 import { paths } from './paths';
 import { AppRoot } from './routes/app-root';
+import { ForgotPasswordRoute } from './routes/forgot-password';
 import { InvitationRoute } from './routes/invitation';
+import { ResetPasswordRoute } from './routes/reset-password';
 import { NewProjectRoute } from './routes/new-project';
 import { NotFoundRoute } from './routes/not-found';
 import { ProjectRoute } from './routes/project';
@@ -13,6 +15,8 @@ import { SignInRoute } from './routes/sign-in';
 import { UsersRoute } from './routes/users';
 import { walkRoutes } from '../features/walk/routes';
 import { summaryRoutes } from '../features/summaries/routes';
+import { catalogRoutes } from '../features/catalog/routes';
+import { fieldChangeRoutes } from '../features/field-changes/routes';
 
 /** Each major route gets its own error boundary, so one failing page leaves the shell and the others working. */
 const guarded = (what: string, element: ReactNode) => <RouteErrorBoundary what={what}>{element}</RouteErrorBoundary>;
@@ -20,6 +24,8 @@ const guarded = (what: string, element: ReactNode) => <RouteErrorBoundary what={
 export const routes: RouteObject[] = [
   { path: paths.signIn.path, element: guarded('the sign-in page', <SignInRoute />), errorElement: <RouterErrorView /> },
   { path: paths.invitation.path, element: guarded('the invitation', <InvitationRoute />), errorElement: <RouterErrorView /> },
+  { path: paths.forgotPassword.path, element: guarded('the forgotten-password page', <ForgotPasswordRoute />), errorElement: <RouterErrorView /> },
+  { path: paths.resetPassword.path, element: guarded('the new-password page', <ResetPasswordRoute />), errorElement: <RouterErrorView /> },
   {
     element: <AppRoot />,
     errorElement: <RouterErrorView />,
@@ -30,6 +36,8 @@ export const routes: RouteObject[] = [
       { path: paths.project.path, element: guarded('this project', <ProjectRoute />) },
       { path: paths.users.path, element: guarded('the accounts', <UsersRoute />) },
       ...summaryRoutes,
+      ...catalogRoutes,
+      ...fieldChangeRoutes,
       ...walkRoutes,
       { path: '*', element: <NotFoundRoute /> },
     ],

@@ -18,6 +18,8 @@ interface World {
   systemId: string;
   revisionId: string;
   designer: Client;
+  /** the project's own inspector (other rows make more members inspectors, so never pick "the first") */
+  inspectorId: string;
 }
 interface Row {
   method: string;
@@ -78,10 +80,28 @@ function fieldChangeOnce(w: World) {
   return sharedFieldChange;
 }
 
+/** A project fitting-type entry made by the project's designer (a fresh one when it is to be removed). */
+let sharedEntry: Promise<string> | null = null;
+function matrixEntry(w: World, fresh = false): Promise<string> {
+  const make = async () =>
+    (await w.designer.send('POST', `/api/projects/${w.projectId}/catalog/entries`, { kind: 'fitting-type', label: 'Matrix entry', source: 'Invented matrix sheet', data: { k: 0.5 } }).expect(201)).body.entry.id as string;
+  if (fresh) return make();
+  sharedEntry ??= make();
+  return sharedEntry;
+}
+
 const ROWS: Row[] = [
   { method: 'GET', path: '/api/health', expect: all(200), request: async () => ({ url: '/api/health' }) },
   { method: 'GET', path: '/api/csrf-token', expect: all(200), request: async () => ({ url: '/api/csrf-token' }) },
   { method: 'POST', path: '/api/auth/sign-in', expect: all(401), request: async () => ({ url: '/api/auth/sign-in', body: { email: 'nobody@test.example', password: 'wrong password' } }) },
+  // "forgot my password" (issue 7): open to everyone, the same answer for every address; a made-up link is refused alike
+  { method: 'POST', path: '/api/auth/password-reset', expect: all(202), request: async () => ({ url: '/api/auth/password-reset', body: { email: `nobody-${randomUUID()}@test.example` } }) },
+  {
+    method: 'POST',
+    path: '/api/auth/password-reset/confirm',
+    expect: all(400),
+    request: async () => ({ url: '/api/auth/password-reset/confirm', body: { token: randomUUID(), password: 'a long enough password' } }),
+  },
   { method: 'GET', path: '/api/auth/me', expect: signedInOnly(200), request: async () => ({ url: '/api/auth/me' }) },
   { method: 'GET', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}` }) },
   { method: 'POST', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}`, body: { password: 'a long enough password' } }) },
@@ -104,6 +124,30 @@ const ROWS: Row[] = [
   },
   { method: 'GET', path: '/api/catalog', expect: signedInOnly(200), request: async () => ({ url: '/api/catalog' }) },
   { method: 'GET', path: '/api/projects', expect: signedInOnly(200), request: async () => ({ url: '/api/projects' }) },
+  // ---- a project's own catalog entries (issue 4): members read, designers write
+  { method: 'GET', path: '/api/projects/:projectId/catalog', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/catalog` }) },
+  {
+    method: 'POST',
+    path: '/api/projects/:projectId/catalog/entries',
+    expect: designersWrite(201),
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/catalog/entries`, body: { kind: 'fitting-type', label: 'Matrix elbow', source: 'Invented matrix sheet', data: { k: 0.5 } } }),
+  },
+  {
+    method: 'PATCH',
+    path: '/api/projects/:projectId/catalog/entries/:kind/:entryId',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const entry = await matrixEntry(w);
+      const { version } = await w.h.db('catalog_entries').where({ project_id: w.projectId, kind: 'fitting-type', id: entry }).first('version');
+      return { url: `/api/projects/${w.projectId}/catalog/entries/fitting-type/${entry}`, body: { label: `Matrix ${randomUUID().slice(0, 6)}`, version } };
+    },
+  },
+  {
+    method: 'DELETE',
+    path: '/api/projects/:projectId/catalog/entries/:kind/:entryId',
+    expect: designersWrite(204),
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/catalog/entries/fitting-type/${await matrixEntry(w, true)}` }),
+  },
   {
     method: 'POST',
     path: '/api/projects',
@@ -217,8 +261,7 @@ const ROWS: Row[] = [
     expect: designersWrite(202),
     request: async (w) => {
       const { base } = await issuedOnce(w);
-      const inspector = await w.h.db('project_members').where({ project_id: w.projectId, role: 'inspector' }).first('user_id');
-      return { url: `${base}/summary/send`, body: { inspectorIds: [inspector.user_id] } };
+      return { url: `${base}/summary/send`, body: { inspectorIds: [w.inspectorId] } };
     },
   },
   {
@@ -265,9 +308,8 @@ const ROWS: Row[] = [
     expect: { anonymous: 401, administrator: 403, designer: 403, contractor: 403, inspector: 200, nonMember: 404 },
     request: async (w) => {
       const { revisionId } = await issuedOnce(w);
-      const inspector = await w.h.db('project_members').where({ project_id: w.projectId, role: 'inspector' }).first('user_id');
-      await w.h.db('reviews').where({ revision_id: revisionId, reviewer_id: inspector.user_id }).delete();
-      const [row] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: revisionId, reviewer_id: inspector.user_id }).returning('id');
+      await w.h.db('reviews').where({ revision_id: revisionId, reviewer_id: w.inspectorId }).delete();
+      const [row] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: revisionId, reviewer_id: w.inspectorId }).returning('id');
       return { url: `/api/projects/${w.projectId}/reviews/${row.id}`, body: { decision: 'accepted', version: 1 } };
     },
   },
@@ -365,7 +407,7 @@ beforeAll(async () => {
   h = startHarness();
   const p = await projectWithRoles(h);
   const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Matrix cold', service: 'cold', document: smallDocument() }).expect(201)).body;
-  world = { h, projectId: p.projectId, systemId: created.system.id, revisionId: created.revision.id, designer: p.designer };
+  world = { h, projectId: p.projectId, systemId: created.system.id, revisionId: created.revision.id, designer: p.designer, inspectorId: p.inspectorUser.id };
   clients.designer = p.designer;
   clients.contractor = await signedIn(h, p.contractorUser);
   clients.inspector = await signedIn(h, p.inspectorUser);

@@ -24,6 +24,9 @@ import type { Project } from '../../shared/api/projects';
 import { ProjectSystemsPanel } from '../../features/systems/components/project-systems-panel';
 import { ProjectReviewsPanel } from '../../features/reviews/components/project-reviews-panel';
 import { ProjectAuditPanel } from '../../features/summaries/components/project-audit-panel';
+import { Link } from 'react-router-dom';
+import { catalogPaths } from '../../features/catalog/paths';
+import { ProjectFieldChangesPanel } from '../../features/field-changes/components/project-field-changes-panel';
 
 function MembersSection({ project, canManage, config }: { project: Project; canManage: boolean; config: MemberMutationConfig }) {
   const members = useMembers(project.id);
@@ -102,7 +105,16 @@ export function ProjectRoute() {
           )}
         </Section>
         {project.myRole ? <ProjectSystemsPanel projectId={project.id} canEdit={project.myRole === 'designer' && !project.archived} /> : null}
+        {project.myRole ? <ProjectFieldChangesPanel projectId={project.id} /> : null}
         {project.myRole ? <ProjectReviewsPanel projectId={project.id} /> : null}
+        {project.myRole ? (
+          <Section title="Project catalog">
+            <p className="text-ink-soft">
+              This project’s own pipe materials, fitting types, fixture types and device templates, with their sources.{' '}
+              <Link className="font-semibold text-standpipe underline" to={catalogPaths.projectCatalog.getHref(project.id)}>Open the project catalog</Link>
+            </p>
+          </Section>
+        ) : null}
         <MembersSection project={project} canManage={canManage} config={memberConfig} />
         {project.myRole === 'designer' ? <ProjectAuditPanel projectId={project.id} /> : null}
         {canEdit ? (

@@ -20,6 +20,8 @@ const STEP_COMPONENTS: Record<Exclude<FieldChangeStepId, 'effect'>, () => React.
   fixtures: FixturesStep,
 };
 
+const ignoreUpdate = () => undefined;
+
 /**
  * One step of a field change: the walk's own step screens, with the ones that stay as issued
  * (supply, elevations, fixtures) shown read-only whoever opens them.
@@ -32,6 +34,9 @@ export function FieldChangeStepPage() {
   const info = FIELD_CHANGE_STEPS[i];
   const Step = STEP_COMPONENTS[step];
   const readOnlyReason = info.editable ? walk.readOnlyReason : (walk.readOnlyReason ?? LOCKED_STEP_REASON);
+  // A locked step's form must not write into the draft at all: even a value it only normalises
+  // would be a change to what stays as issued, and the server refuses the whole save for it.
+  const value = info.editable ? walk : { ...walk, readOnlyReason, draft: { ...walk.draft, update: ignoreUpdate } };
   return (
     <div data-testid={`step-${step}`}>
       {!info.editable ? (
@@ -39,7 +44,7 @@ export function FieldChangeStepPage() {
           {LOCKED_STEP_REASON}
         </p>
       ) : null}
-      <WalkContext.Provider value={{ ...walk, readOnlyReason }}>
+      <WalkContext.Provider value={value}>
         <Step />
       </WalkContext.Provider>
       <StepPager previous={FIELD_CHANGE_STEPS[i - 1]} next={FIELD_CHANGE_STEPS[i + 1]} href={walk.links.step} />

@@ -1,10 +1,12 @@
-import { memo, useMemo, useState } from 'react';
+import { memo, useCallback, useMemo, useRef, useState } from 'react';
 import type { UseFormRegister, UseFormSetValue } from 'react-hook-form';
 import { z } from 'zod';
 import { TextField } from '../../../components/ui/field';
 import { fromSI } from '../../../engine';
-import type { SystemDocument } from '../../../engine';
-import { SegmentSchema } from '../../../engine/model/schema';
+import type { CustomPipe, SystemDocument } from '../../../engine';
+import { CustomPipeSchema, SegmentSchema } from '../../../engine/model/schema';
+import { useProjectEntries } from '../../catalog/api/get-project-catalog';
+import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect } from '../components/cells';
 import { LedgerPanel } from '../components/ledger-panel';
@@ -21,10 +23,18 @@ export const segmentTableSchema = z.object({
       size: optionalText,
       length: z.number({ error: 'Enter a number' }).positive('Must be more than zero'),
       rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise),
+      /** set when a project material and size are chosen: the pipe data copied from the entry */
+      custom: z.unknown().optional(),
+    }).transform((r, ctx) => {
+      if (projectEntryIdOf(r.material) === null) return { ...r, custom: undefined };
+      const pipe = CustomPipeSchema.safeParse(r.custom);
+      if (pipe.success) return { ...r, custom: pipe.data };
+      ctx.addIssue({ code: 'custom', path: ['size'], message: 'Choose a size of the project material' });
+      return z.NEVER;
     }),
   ),
 });
-type Row = { id: string; material: string; size: string; length: number; rise?: number };
+type Row = { id: string; material: string; size: string; length: number; rise?: number; custom?: CustomPipe };
 
 export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmentTableSchema>): SystemDocument {
   const byId = new Map(v.segments.map((s) => [s.id, s]));
@@ -38,6 +48,12 @@ export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmen
         if (r[key] === undefined) delete next[key];
         else (next as Record<string, unknown>)[key] = r[key];
       }
+      if (r.custom) {
+        // a project material: copied as the segment's custom pipe, no catalog reference
+        next.custom = r.custom;
+        delete next.material;
+        delete next.size;
+      } else if (next.material !== undefined) delete next.custom;
       return next;
     }),
   };
@@ -61,6 +77,9 @@ type TableRowProps = {
   materialOptions: { value: string; label: string }[];
   sizeOptions: { value: string; label: string }[];
   lengthUnit: string;
+  sizeError: string | undefined;
+  /** after a material or size change: copy a project material's pipe data (stable across renders) */
+  onPipeChange: (index: number) => void;
 };
 
 /** One row; memoised on plain values so an edit re-renders only the rows whose numbers changed (500-segment systems). */
@@ -72,10 +91,10 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
       <td className="py-1 pr-2">{p.from}</td>
       <td className="py-1 pr-2">{p.to}</td>
       <td className="min-w-40 py-1 pr-2">
-        <CellSelect label={`${p.name} material`} options={p.materialOptions} {...p.register(`segments.${i}.material`, { onChange: () => p.setValue(`segments.${i}.size`, '', { shouldValidate: true }) })} />
+        <CellSelect label={`${p.name} material`} options={p.materialOptions} {...p.register(`segments.${i}.material`, { onChange: () => { p.setValue(`segments.${i}.size`, '', { shouldValidate: true }); p.onPipeChange(i); } })} />
       </td>
       <td className="min-w-36 py-1 pr-2">
-        <CellSelect label={`${p.name} size`} options={p.sizeOptions} {...p.register(`segments.${i}.size`)} />
+        <CellSelect label={`${p.name} size`} options={p.sizeOptions} error={p.sizeError} {...p.register(`segments.${i}.size`, { onChange: () => p.onPipeChange(i) })} />
       </td>
       <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="number" step="any" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
       <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="number" step="any" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
@@ -107,12 +126,25 @@ const COLUMNS: { key: SortKey; label: string; numeric?: boolean }[] = [
 
 /** Every segment in one table: sort, filter, and edit material, size, length and rise in place. */
 export function SegmentTablePage() {
-  const { document, draft, readOnlyReason, units, catalog, live } = useWalk();
+  const { ids, document, draft, readOnlyReason, units, catalog, live } = useWalk();
+  const project = useProjectEntries(ids.projectId);
   const [defaults] = useState<{ segments: Row[] }>(() => ({
-    segments: document.segments.map((s) => ({ id: s.id, material: s.material ?? '', size: s.size ?? '', length: s.length, rise: s.rise })),
+    segments: document.segments.map((s) => {
+      const match = s.material ? null : matchProjectPipe(s.custom, project.of('material'), document.unitSystem);
+      return { id: s.id, material: match ? projectOptionValue(match.entryId) : s.material ?? '', size: match ? match.sizeKey : s.size ?? '', length: s.length, rise: s.rise, custom: s.custom };
+    }),
   }));
   const form = useLiveForm(segmentTableSchema, defaults, (v) => draft.update((doc) => applySegmentTable(doc, v)));
-  const { register, watch, setValue, formState: { errors } } = form;
+  const { register, watch, setValue, getValues, formState: { errors } } = form;
+  const projectRef = useRef(project);
+  projectRef.current = project;
+  const onPipeChange = useCallback(
+    (i: number) => {
+      const entry = projectRef.current.find('material', projectEntryIdOf(getValues(`segments.${i}.material`)));
+      setValue(`segments.${i}.custom`, entry ? pipeFromProjectEntry(entry, getValues(`segments.${i}.size`), document.unitSystem) ?? undefined : undefined, { shouldValidate: true });
+    },
+    [getValues, setValue, document.unitSystem],
+  );
   const [filter, setFilter] = useState('');
   const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: 'id', dir: 1 });
   const rows = watch('segments');
@@ -151,14 +183,20 @@ export function SegmentTablePage() {
       const b = value(y, sort.key);
       return (typeof a === 'number' && typeof b === 'number' ? a - b : COLLATOR.compare(String(a), String(b))) * sort.dir;
     });
-  const materialOptions = useMemo(() => [{ value: '', label: 'Custom / none' }, ...catalog.materials.map((m) => ({ value: m.id, label: m.label }))], [catalog]);
+  const materialOptions = useMemo(
+    () => [{ value: '', label: 'Custom / none' }, ...catalog.materials.map((m) => ({ value: m.id, label: m.label })), ...project.of('material').map((m) => ({ value: projectOptionValue(m.id), label: `${m.label} — project` }))],
+    [catalog, project],
+  );
   const sizeOptionsByMaterial = useMemo(() => {
     const map = new Map<string, { value: string; label: string }[]>();
     for (const m of catalog.materials) {
       map.set(m.id, [{ value: '', label: '—' }, ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` }))]);
     }
+    for (const m of project.of('material')) {
+      map.set(projectOptionValue(m.id), [{ value: '', label: '—' }, ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` }))]);
+    }
     return map;
-  }, [catalog, sys]);
+  }, [catalog, project, sys]);
   const noSizes = useMemo(() => [{ value: '', label: '—' }], []);
   const sizeOptionsFor = (materialId: string) => sizeOptionsByMaterial.get(materialId) ?? noSizes;
   const unitOf: Partial<Record<SortKey, string>> = { length: units.length, rise: units.length, flow: units.flow, velocity: units.velocity, loss: units.pressure };
@@ -210,6 +248,8 @@ export function SegmentTablePage() {
                       materialOptions={materialOptions}
                       sizeOptions={sizeOptionsFor(r.material)}
                       lengthUnit={units.length}
+                      sizeError={plainError(errors.segments?.[i]?.size?.message)}
+                      onPipeChange={onPipeChange}
                     />
                   );
                 })}

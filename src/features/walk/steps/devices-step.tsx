@@ -14,6 +14,8 @@ import { parseCurvePoints } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { useProjectEntries } from '../../catalog/api/get-project-catalog';
+import { deviceFromProjectTemplate, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 
 const KINDS = DeviceSchema.shape.kind.options;
 const KIND_LABELS: Record<Device['kind'], string> = {
@@ -189,7 +191,8 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
 }
 
 export function DevicesStep() {
-  const { document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
+  const { ids, document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
+  const project = useProjectEntries(ids.projectId);
   const [defaults] = useState<DevicesForm>(() => ({ devices: document.devices.map(toRow) }));
   const form = useLiveForm(devicesFormSchema, defaults, (v) => draft.update((doc) => ({ ...doc, devices: v.devices })));
   const { register, control, formState: { errors }, watch, setValue } = form;
@@ -201,7 +204,20 @@ export function DevicesStep() {
   const takenIds = () => watch('devices').map((d) => d.id);
   const firstSegment = document.segments.find((s) => s.from === document.source.nodeId)?.id ?? document.segments[0]?.id ?? '';
 
+  const projectTemplate = project.find('device-template', projectEntryIdOf(template));
+  const templateOptions = [
+    ...catalog.deviceTemplates.map((t) => ({ value: t.id, label: t.label })),
+    ...project.of('device-template').map((t) => ({ value: projectOptionValue(t.id), label: `${t.label} — project` })),
+  ];
+  const templateSource = projectTemplate?.source ?? catalog.deviceTemplates.find((t) => t.id === template)?.source;
+
   const addFromTemplate = () => {
+    if (projectTemplate) {
+      // a project template: its kind and curve are copied into the device (the document does not refer to the entry)
+      const copied = deviceFromProjectTemplate(projectTemplate, sys);
+      devices.append({ id: freshId(copied.kind, takenIds()), kind: copied.kind, label: copied.label, segmentId: firstSegment, lossKind: 'curve', fixedLoss: 0, points: copied.points, prvSet: undefined, prvFalloff: 0, boostGain: undefined });
+      return;
+    }
     const t = catalog.deviceTemplates.find((d) => d.id === template);
     if (!t) return;
     devices.append({
@@ -300,16 +316,14 @@ export function DevicesStep() {
           >
             Add a device
           </Button>
-          {catalog.deviceTemplates.length ? (
+          {templateOptions.length ? (
             <>
-              <SelectField label="Device template" options={catalog.deviceTemplates.map((t) => ({ value: t.id, label: t.label }))} value={template} onChange={(ev) => setTemplate(ev.target.value)} />
+              <SelectField label="Device template" options={templateOptions} value={template} onChange={(ev) => setTemplate(ev.target.value)} />
               <Button variant="secondary" onClick={addFromTemplate}>Add from template</Button>
             </>
           ) : null}
         </div>
-        {catalog.deviceTemplates.find((t) => t.id === template) ? (
-          <p className="text-xs text-ink-muted">Template source: {catalog.deviceTemplates.find((t) => t.id === template)!.source}</p>
-        ) : null}
+        {templateSource ? <p className="text-xs text-ink-muted">Template source: {templateSource}</p> : null}
       </fieldset>
     </form>
   );

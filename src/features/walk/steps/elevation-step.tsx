@@ -5,11 +5,13 @@ import { Section } from '../../../components/ui/card';
 import type { SystemDocument } from '../../../engine';
 import { NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
-import { CellInput, StepIntro } from '../components/cells';
+import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { WarningList } from '../components/warning-list';
 import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
 import { treeOrder } from '../lib/tree';
+import { elevationsFromFloors, floorLevels, floorOf, planProblems, type FloorPlan } from '../lib/floors';
+import { TextField } from '../../../components/ui/field';
 import { useLiveForm } from '../lib/use-live-form';
 
 export const elevationFormSchema = z.object({
@@ -35,6 +37,14 @@ export function applyElevations(doc: SystemDocument, v: z.output<typeof elevatio
   };
 }
 
+type PlanText = { floors: string; typicalHeight: string; groundHeight: string; groundLevel: string; aboveFloor: string; connection: string };
+const numberOf = (t: string) => (t.trim() === '' ? Number.NaN : Number(t));
+
+/** The typed plan as numbers; an empty ground-floor height means "as the typical floors". */
+export function planFromText(t: PlanText): FloorPlan {
+  return { floors: numberOf(t.floors), typicalHeight: numberOf(t.typicalHeight), groundHeight: t.groundHeight.trim() === '' ? undefined : numberOf(t.groundHeight), groundLevel: numberOf(t.groundLevel), aboveFloor: numberOf(t.aboveFloor) };
+}
+
 export function ElevationStep() {
   const { document, draft, readOnlyReason, units, live } = useWalk();
   const [defaults] = useState<ElevationForm>(() => ({
@@ -50,6 +60,32 @@ export function ElevationStep() {
   const order = treeOrder(document.segments, document.source.nodeId);
   const warnings = live.ok ? live.analysis.warnings.filter((w) => w.code === 'rise-elevation-mismatch' || w.code === 'rise-from-elevations') : [];
   const label = new Map(document.nodes.map((n) => [n.id, n.label || n.id]));
+  const sourceNode = document.source.nodeId;
+  const [planText, setPlanText] = useState<PlanText>(() => ({ floors: '', typicalHeight: '', groundHeight: '', groundLevel: '0', aboveFloor: '0', connection: String(document.nodes.find((n) => n.id === sourceNode)?.elevation ?? 0) }));
+  const [assignment, setAssignment] = useState<Map<string, number>>(() => new Map());
+  const [planNote, setPlanNote] = useState<string[]>([]);
+  const plan = planFromText(planText);
+  const problems = planProblems(plan);
+  const connectionElevation = numberOf(planText.connection);
+  const floorOptions = [{ value: '', label: '—' }, ...(problems.length ? [] : floorLevels(plan).map((lv, k) => ({ value: String(k + 1), label: `${k + 1}${k === 0 ? ' (ground)' : ''} at ${fmt(lv, 2)}` })))];
+  const planField = (key: keyof PlanText) => ({ value: planText[key], onChange: (ev: { target: { value: string } }) => setPlanText((t) => ({ ...t, [key]: ev.target.value })) });
+
+  const guessFloors = () => {
+    if (problems.length) return setPlanNote(problems);
+    const levels = floorLevels(plan);
+    setAssignment(new Map(nodes.filter((n) => n.id !== sourceNode && Number.isFinite(n.elevation)).map((n) => [n.id, floorOf(n.elevation, levels, plan.aboveFloor)])));
+    setPlanNote(['Each node is put on the floor at or below its elevation; check the list and change any that is wrong.']);
+  };
+  const fillElevations = () => {
+    const issues = [...problems, ...(Number.isFinite(connectionElevation) ? [] : ['Give the connection’s elevation.'])];
+    if (issues.length) return setPlanNote(issues);
+    const next = elevationsFromFloors(nodes, assignment, plan, { nodeId: sourceNode, elevation: connectionElevation });
+    next.forEach((n, i) => {
+      if (n.elevation !== nodes[i]?.elevation) setValue(`nodes.${i}.elevation`, n.elevation, { shouldValidate: true, shouldDirty: true });
+    });
+    const assigned = nodes.filter((n) => assignment.has(n.id) && n.id !== sourceNode).length;
+    setPlanNote([`Elevations filled for ${assigned} node(s) on floors and the connection; nodes without a floor kept theirs. Set the rises from the elevations below if they should follow.`]);
+  };
 
   const riseFromElevations = () =>
     document.segments.forEach((s, i) => {
@@ -65,14 +101,41 @@ export function ElevationStep() {
         elevations are used.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
+        <Section title="Floors" headingLevel={3}>
+          <p className="mb-3 max-w-prose text-sm text-ink-soft">
+            Give the floors once, put each node on its floor, and fill the elevations from them (on the same datum as the
+            nodes). The connection is set to its own elevation.
+          </p>
+          <div className="grid max-w-3xl gap-3 sm:grid-cols-3">
+            <TextField label="Number of floors" inputMode="numeric" {...planField('floors')} />
+            <TextField label={`Typical floor-to-floor height (${units.length})`} inputMode="decimal" {...planField('typicalHeight')} />
+            <TextField label={`Ground floor to floor 2 (${units.length})`} hint="Empty = as the typical floors" inputMode="decimal" {...planField('groundHeight')} />
+            <TextField label={`Ground floor level (${units.elevation})`} inputMode="decimal" {...planField('groundLevel')} />
+            <TextField label={`Nodes sit above their floor by (${units.length})`} inputMode="decimal" {...planField('aboveFloor')} />
+            <TextField label={`Connection elevation (${units.elevation})`} inputMode="decimal" {...planField('connection')} />
+          </div>
+          <div className="mt-3 flex flex-wrap gap-2">
+            <Button variant="secondary" onClick={guessFloors}>Put nodes on floors from their elevations</Button>
+            <Button variant="secondary" onClick={fillElevations}>Fill the elevations from the floors</Button>
+          </div>
+          <div aria-live="polite" className="mt-2 text-sm">
+            {planNote.length ? <ul className="list-disc pl-5">{planNote.map((p) => <li key={p}>{p}</li>)}</ul> : null}
+          </div>
+        </Section>
         <Section title="Node elevations" headingLevel={3}>
           <table className="w-full text-sm">
             <caption className="sr-only">Node elevations</caption>
-            <thead><tr className="text-left"><th scope="col">Node</th><th scope="col">Elevation ({units.elevation})</th></tr></thead>
+            <thead><tr className="text-left"><th scope="col">Node</th><th scope="col">Floor</th><th scope="col">Elevation ({units.elevation})</th></tr></thead>
             <tbody>
               {defaults.nodes.map((n, i) => (
                 <tr key={n.id} className="border-t border-rule">
                   <th scope="row" className="py-1 pr-2 text-left font-normal">{label.get(n.id)}{n.id === document.source.nodeId ? ' (source)' : ''}</th>
+                  <td className="w-48 py-1 pr-2">
+                    {n.id === sourceNode ? <span className="text-ink-muted">connection</span> : (
+                      <CellSelect label={`Floor of ${label.get(n.id)}`} options={floorOptions} value={String(assignment.get(n.id) ?? '')}
+                        onChange={(ev) => setAssignment((a) => { const next = new Map(a); if (ev.target.value) next.set(n.id, Number(ev.target.value)); else next.delete(n.id); return next; })} />
+                    )}
+                  </td>
                   <td className="w-40 py-1"><CellInput label={`Elevation of ${label.get(n.id)} (${units.elevation})`} type="number" step="any" error={plainError(errors.nodes?.[i]?.elevation?.message)} {...register(`nodes.${i}.elevation`, numberInput)} /></td>
                 </tr>
               ))}

@@ -10,6 +10,8 @@ import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/sc
 import { fittingK } from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
+import { unusableProjectOptions } from '../../catalog/lib/apply-entries';
+import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
@@ -38,9 +40,12 @@ type FittingsForm = { fittingMethod: (typeof METHODS)[number]; segments: { id: s
 
 export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFormSchema>): SystemDocument {
   const byId = new Map(v.segments.map((s) => [s.id, s.fittings]));
+  // The loss method is a criterion: written only when it is changed, so that editing fittings alone
+  // leaves the criteria exactly as they were (a field change may not touch them at all).
+  const methodChanged = v.fittingMethod !== (doc.criteria?.fittingMethod ?? 'crane');
   return {
     ...doc,
-    criteria: { ...(doc.criteria ?? {}), fittingMethod: v.fittingMethod },
+    ...(methodChanged ? { criteria: { ...(doc.criteria ?? {}), fittingMethod: v.fittingMethod } } : {}),
     segments: doc.segments.map((s) => (byId.has(s.id) ? { ...s, fittings: byId.get(s.id)! } : s)),
   };
 }
@@ -76,6 +81,7 @@ function SegmentFittings({ index, control, register, watch, catalog, doc, analys
   const display = analysis?.segments.find((s) => s.id === id);
   const si = analysis?.si.segments.find((s) => s.id === id);
   const options = catalog.fittingTypes.map((f) => ({ value: f.id, label: f.label }));
+  const projectOptions = unusableProjectOptions(useProjectEntries(useWalk().ids.projectId).of('fitting-type'));
   return (
     <Section title={name} headingLevel={3}>
       <table className="w-full text-sm">
@@ -98,7 +104,7 @@ function SegmentFittings({ index, control, register, watch, catalog, doc, analys
             return (
               <tr key={f.id} className="border-t border-rule align-top">
                 <td className="py-1 pr-2">
-                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={options} {...register(`segments.${index}.fittings.${k}.typeId`)} />
+                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`segments.${index}.fittings.${k}.typeId`)} />
                   {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory ? ' (from memory)' : ''}</p> : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
@@ -137,7 +143,7 @@ function SegmentFittings({ index, control, register, watch, catalog, doc, analys
 }
 
 export function FittingsStep() {
-  const { document, draft, readOnlyReason, catalog, live, units } = useWalk();
+  const { document, draft, readOnlyReason, catalog, live, units, scope } = useWalk();
   const [defaults] = useState<FittingsForm>(() => ({
     fittingMethod: document.criteria?.fittingMethod ?? 'crane',
     segments: document.segments.map((s) => ({ id: s.id, fittings: s.fittings.map((f) => ({ ...f })) })),
@@ -155,13 +161,21 @@ export function FittingsStep() {
         for most methods, on the size and the flow; the source of each type’s data is shown under it.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
-        <SelectField
-          label="Loss method for fittings"
-          options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
-          hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
-          error={plainError(errors.fittingMethod?.message)}
-          {...register('fittingMethod')}
-        />
+        {scope === 'field-change' ? (
+          // the loss method is one of the designer's criteria: a field change keeps it as issued
+          <p className="text-sm" data-testid="fitting-method-as-issued">
+            <span className="font-semibold">Loss method for fittings (as issued):</span> {METHOD_LABELS[defaults.fittingMethod]}
+            {analysis ? <span className="block text-ink-muted">In use: {analysis.methods.fittings.label} — {analysis.methods.fittings.source}</span> : null}
+          </p>
+        ) : (
+          <SelectField
+            label="Loss method for fittings"
+            options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
+            hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
+            error={plainError(errors.fittingMethod?.message)}
+            {...register('fittingMethod')}
+          />
+        )}
         {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
         {order.map(({ index }) => {
           const i = indexById.get(document.segments[index].id);

@@ -11,6 +11,8 @@ import { CheckedFixtureSchema } from '../../../engine/model/schema';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
 import { useWalk } from '../draft/walk-context';
+import { unusableProjectOptions } from '../../catalog/lib/apply-entries';
+import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt, signed } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
@@ -51,6 +53,7 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
   const name = node?.label || nodeId;
   const rows = watch(`nodes.${index}.checkedFixtures`);
   const options = catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label }));
+  const projectOptions = unusableProjectOptions(useProjectEntries(useWalk().ids.projectId).of('fixture-type'));
   const served = node?.fixtureGroups[0]?.fixtureTypeId ?? options[0]?.value ?? '';
   return (
     <div className="border-t border-rule pt-3">
@@ -65,7 +68,7 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
         return (
           <div key={f.id} className="mb-3 rounded-md border-2 border-rule p-3" data-testid={`checked-${row?.id}`}>
             <div className="grid gap-2 md:grid-cols-4">
-              <label className="flex flex-col text-xs font-semibold md:col-span-2">Fixture type<CellSelect label={`${name}: checked fixture ${k + 1} type`} options={options} {...register(`nodes.${index}.checkedFixtures.${k}.fixtureTypeId`)} /></label>
+              <label className="flex flex-col text-xs font-semibold md:col-span-2">Fixture type<CellSelect label={`${name}: checked fixture ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.checkedFixtures.${k}.fixtureTypeId`)} /></label>
               <label className="flex flex-col text-xs font-semibold md:col-span-2">Name<CellInput label={`${name}: checked fixture ${k + 1} name`} {...register(`nodes.${index}.checkedFixtures.${k}.label`)} /></label>
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
                 Minimum flow pressure ({units.pressure})

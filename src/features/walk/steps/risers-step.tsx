@@ -6,9 +6,13 @@ import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { TextAreaField } from '../../../components/ui/field';
 import { fromSI } from '../../../engine';
-import type { Segment, SystemDocument } from '../../../engine';
-import { FixtureGroupSchema, SegmentSchema } from '../../../engine/model/schema';
+import type { FixtureGroup, Segment, SystemDocument } from '../../../engine';
+import { CustomPipeSchema, DemandCurveSchema, FixtureGroupSchema, NodeSchema, SegmentSchema } from '../../../engine/model/schema';
+import type { ProjectEntryOf } from '../../../shared/api/catalog';
+import { useProjectEntries } from '../../catalog/api/get-project-catalog';
+import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptionValue, unusableProjectOptions } from '../../catalog/lib/apply-entries';
 import type { Catalog } from '../../systems/api/get-catalog';
+import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { parseFixtureGroups } from '../lib/csv';
@@ -18,30 +22,86 @@ import { treeOrder } from '../lib/tree';
 import { useLiveForm } from '../lib/use-live-form';
 
 const optionalText = z.preprocess((v) => (v === '' || v === null ? undefined : v), z.string().optional());
-const segmentRow = SegmentSchema.pick({ id: true, from: true, to: true, length: true }).extend({
-  label: optionalText,
-  material: optionalText,
-  size: optionalText,
-  rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise),
-  length: z.number({ error: 'Enter a number' }).positive('Must be more than zero'),
+/** An empty number box (NaN from numberInput) or an empty select is "not given". */
+const blank = (v: unknown) => v === '' || v === null || (typeof v === 'number' && Number.isNaN(v));
+const optionalOf = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (blank(v) ? undefined : v), schema.optional());
+
+/** A custom pipe's four numbers; checked only when the segment has no catalog material (see segmentRow). */
+const customRow = z
+  .object({ innerDiameter: z.unknown().optional(), roughness: z.unknown().optional(), hazenWilliamsC: z.unknown().optional(), velocityClass: z.unknown().optional() })
+  .optional();
+const segmentRow = SegmentSchema.pick({ id: true, from: true, to: true, length: true })
+  .extend({
+    label: optionalText,
+    /** a seeded material id; '' = a custom pipe; `project:<id>` = a project material copied as a custom pipe */
+    material: optionalText,
+    size: optionalText,
+    rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise),
+    length: z.number({ error: 'Enter a number' }).positive('Must be more than zero'),
+    custom: customRow,
+    flowOverride: optionalOf(z.number({ error: 'Enter a number' }).nonnegative('Must be zero or more')),
+  })
+  .transform((r, ctx) => {
+    const { custom, ...rest } = r;
+    // a seeded material: the custom data is not used (and is dropped from the document)
+    if (r.material !== undefined && projectEntryIdOf(r.material) === null) return { ...rest, custom: undefined };
+    const parsed = CustomPipeSchema.safeParse({ ...custom, velocityClass: custom?.velocityClass || undefined });
+    if (parsed.success) return { ...rest, material: undefined, size: undefined, custom: parsed.data };
+    // no material and no custom data at all: as before, the engine names the missing material
+    if (r.material === undefined && (!custom || Object.values(custom).every((v) => blank(v) || v === undefined))) return { ...rest, custom: undefined };
+    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
+    return z.NEVER;
+  });
+const groupRow = FixtureGroupSchema.extend({
+  count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1'),
+  demandCurve: optionalOf(DemandCurveSchema),
+  wsfuBasis: optionalOf(FixtureGroupSchema.shape.wsfuBasis.unwrap()),
+  usage: z.preprocess(
+    (v) => {
+      if (!v || typeof v !== 'object') return undefined;
+      const u = v as Record<string, unknown>;
+      const cleaned = Object.fromEntries(Object.entries(u).filter(([, x]) => !blank(x)));
+      return Object.keys(cleaned).length ? cleaned : undefined;
+    },
+    FixtureGroupSchema.shape.usage,
+  ),
 });
 const nodeRow = z.object({
   id: z.string().min(1),
   label: optionalText,
   elevation: z.number(),
-  fixtureGroups: z.array(FixtureGroupSchema.extend({ count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1') })),
+  continuousDemand: optionalOf(NodeSchema.shape.continuousDemand.unwrap()),
+  fixtureGroups: z.array(groupRow),
 });
 export const risersFormSchema = z.object({ segments: z.array(segmentRow), nodes: z.array(nodeRow) });
-type SegmentRow = { id: string; label: string; from: string; to: string; material: string; size: string; length: number; rise?: number };
-type NodeRow = { id: string; label: string; elevation: number; fixtureGroups: { fixtureTypeId: string; count: number }[] };
+type CustomRow = { innerDiameter?: number; roughness?: number; hazenWilliamsC?: number; velocityClass: string };
+type SegmentRow = { id: string; label: string; from: string; to: string; material: string; size: string; length: number; rise?: number; custom: CustomRow; flowOverride?: number };
+type GroupRow = { fixtureTypeId: string; count: number; demandCurve: string; wsfuBasis: string; usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number } };
+type NodeRow = { id: string; label: string; elevation: number; continuousDemand?: number; fixtureGroups: GroupRow[] };
 type RisersForm = { segments: SegmentRow[]; nodes: NodeRow[] };
 
-function formValues(doc: SystemDocument): RisersForm {
+const groupToRow = (g: FixtureGroup): GroupRow => ({ fixtureTypeId: g.fixtureTypeId, count: g.count, demandCurve: g.demandCurve ?? '', wsfuBasis: g.wsfuBasis ?? '', usage: { ...(g.usage ?? {}) } });
+const EMPTY_CUSTOM: CustomRow = { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: 'copper' };
+
+/** The form's rows; a custom pipe copied from a project material shows as that material and size. */
+export function risersFormValues(doc: SystemDocument, projectMaterials: readonly ProjectEntryOf<'material'>[] = []): RisersForm {
   return {
-    segments: doc.segments.map((s) => ({ id: s.id, label: s.label ?? '', from: s.from, to: s.to, material: s.material ?? '', size: s.size ?? '', length: s.length, rise: s.rise })),
-    nodes: doc.nodes.map((n) => ({ id: n.id, label: n.label ?? '', elevation: n.elevation, fixtureGroups: n.fixtureGroups.map((g) => ({ ...g })) })),
+    segments: doc.segments.map((s) => {
+      const match = s.material ? null : matchProjectPipe(s.custom, projectMaterials, doc.unitSystem);
+      return {
+        id: s.id, label: s.label ?? '', from: s.from, to: s.to,
+        material: match ? projectOptionValue(match.entryId) : s.material ?? '',
+        size: match ? match.sizeKey : s.size ?? '',
+        length: s.length, rise: s.rise,
+        custom: s.custom ? { ...s.custom } : { ...EMPTY_CUSTOM },
+        flowOverride: s.flowOverride,
+      };
+    }),
+    nodes: doc.nodes.map((n) => ({ id: n.id, label: n.label ?? '', elevation: n.elevation, continuousDemand: n.continuousDemand, fixtureGroups: n.fixtureGroups.map(groupToRow) })),
   };
 }
+
+const OPTIONAL_SEGMENT_KEYS = ['label', 'material', 'size', 'rise', 'custom', 'flowOverride'] as const;
 
 /** Writes the tree back: segment and node fields from the form, everything else (fittings, checked fixtures) kept. */
 export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSchema>): SystemDocument {
@@ -50,50 +110,82 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
   const segments: Segment[] = v.segments.map((r) => {
     const old = oldSegments.get(r.id);
     const next: Segment = { ...(old ?? { fittings: [], reducerAuto: true }), id: r.id, from: r.from, to: r.to, length: r.length } as Segment;
-    for (const key of ['label', 'material', 'size', 'rise'] as const) {
+    for (const key of OPTIONAL_SEGMENT_KEYS) {
       if (r[key] === undefined) delete next[key];
       else (next as Record<string, unknown>)[key] = r[key];
     }
-    if (next.material) delete next.custom;
     return next;
   });
   const nodes = v.nodes.map((r) => {
     const old = oldNodes.get(r.id);
-    const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, elevation: old?.elevation ?? r.elevation, fixtureGroups: r.fixtureGroups } as SystemDocument['nodes'][number];
+    const fixtureGroups = r.fixtureGroups.map((g) => Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup);
+    const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, elevation: old?.elevation ?? r.elevation, fixtureGroups } as SystemDocument['nodes'][number];
     if (r.label === undefined) delete next.label;
     else next.label = r.label;
+    if (r.continuousDemand === undefined) delete next.continuousDemand;
+    else next.continuousDemand = r.continuousDemand;
     return next;
   });
   return { ...doc, segments, nodes };
 }
 
-function sizeOptions(catalog: Catalog, materialId: string | undefined, sys: SystemDocument['unitSystem'], unit: string) {
-  const material = catalog.material(materialId);
-  if (!material) return [{ value: '', label: 'Choose a material first' }];
-  return [{ value: '', label: 'Choose a size…' }, ...material.data.sizes.map((s) => ({ value: s.key, label: `${s.key} — inside ${fmt(fromSI('diameter', s.innerDiameterM, sys), sys === 'US' ? 3 : 1)} ${unit}` }))];
+function sizeOptions(catalog: Catalog, project: ProjectCatalog, materialId: string | undefined, sys: SystemDocument['unitSystem'], unit: string) {
+  const projectMaterial = project.find('material', projectEntryIdOf(materialId));
+  const sizes = projectMaterial ? projectMaterial.data.sizes : catalog.material(materialId)?.data.sizes;
+  if (!sizes) return [{ value: '', label: materialId === '' ? 'Custom pipe: give its data below' : 'Choose a material first' }];
+  return [{ value: '', label: 'Choose a size…' }, ...sizes.map((s) => ({ value: s.key, label: `${s.key} — inside ${fmt(fromSI('diameter', s.innerDiameterM, sys), sys === 'US' ? 3 : 1)} ${unit}` }))];
 }
 
-function FixtureGroups({ index, control, register, catalog, nodeLabel, errors }: {
+/** The material choices: the seeded materials, then the project's own (marked), then a custom pipe. */
+export function materialOptions(catalog: Catalog, project: ProjectCatalog) {
+  return [
+    { value: '', label: 'Custom pipe (give its data)' },
+    ...catalog.materials.map((m) => ({ value: m.id, label: m.label })),
+    ...project.of('material').map((m) => ({ value: projectOptionValue(m.id), label: `${m.label} — project` })),
+  ];
+}
+
+const DEMAND_CURVE_OPTIONS = [{ value: '', label: 'As the fixture type' }, { value: 'flush-tank', label: 'Flush tank' }, { value: 'flush-valve', label: 'Flush valve' }];
+const WSFU_BASIS_OPTIONS = [{ value: '', label: 'The system’s service' }, { value: 'cold', label: 'Cold' }, { value: 'hot', label: 'Hot' }, { value: 'total', label: 'Total (cold + hot)' }];
+
+function FixtureGroups({ index, control, register, catalog, nodeLabel, errors, locked, units }: {
   index: number;
   control: Control<RisersForm>;
   register: UseFormRegister<RisersForm>;
   catalog: Catalog;
   nodeLabel: string;
-  errors: { count?: { message?: string }; fixtureTypeId?: { message?: string } }[] | undefined;
+  errors: { count?: { message?: string }; fixtureTypeId?: { message?: string }; usage?: Record<string, { message?: string } | undefined> }[] | undefined;
+  /** in a field change no fixture is added or removed */
+  locked: boolean;
+  units: { flow: string };
 }) {
   const groups = useFieldArray({ control, name: `nodes.${index}.fixtureGroups` });
   const options = catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label }));
+  const projectOptions = unusableProjectOptions(useProjectEntries(useWalk().ids.projectId).of('fixture-type'));
   return (
     <div className="flex flex-col gap-2">
       {groups.fields.map((g, k) => (
-        <div key={g.id} className="flex flex-wrap items-start gap-2">
-          <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={options} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`)} />
-          <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="number" step="1" min="1" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
-          <Button variant="quiet" onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>Remove</Button>
+        <div key={g.id} className="flex flex-col gap-1">
+          <div className="flex flex-wrap items-start gap-2">
+            <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`)} />
+            <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="number" step="1" min="1" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
+            <Button variant="quiet" disabled={locked} onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>Remove</Button>
+          </div>
+          <details className="ml-2 text-sm">
+            <summary className="cursor-pointer text-ink-soft">Overrides of group {k + 1} (demand curve, fixture-unit basis, use for the binomial method)</summary>
+            <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
+              <label className="flex flex-col text-xs font-semibold">Demand curve<CellSelect label={`${nodeLabel}: fixture group ${k + 1} demand curve`} options={DEMAND_CURVE_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.demandCurve`)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Fixture units counted<CellSelect label={`${nodeLabel}: fixture group ${k + 1} fixture-unit basis`} options={WSFU_BASIS_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.wsfuBasis`)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Flow in use ({units.flow})<CellInput label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`} type="number" step="any" placeholder="the type’s" error={plainError(errors?.[k]?.usage?.flow?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.flow`, numberInput)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Use lasts (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`} type="number" step="any" error={plainError(errors?.[k]?.usage?.durationSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.durationSeconds`, numberInput)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Time between uses (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`} type="number" step="any" error={plainError(errors?.[k]?.usage?.recurrenceSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.recurrenceSeconds`, numberInput)} /></label>
+            </div>
+            <p className="mt-1 text-xs text-ink-muted">Private or public use is chosen with the fixture type. Empty = the fixture type’s own value.</p>
+          </details>
         </div>
       ))}
       <div>
-        <Button variant="secondary" onClick={() => groups.append({ fixtureTypeId: options[0]?.value ?? '', count: 1 })}>
+        <Button variant="secondary" disabled={locked} onClick={() => groups.append({ fixtureTypeId: options[0]?.value ?? '', count: 1, demandCurve: '', wsfuBasis: '', usage: {} })}>
           Add fixtures at {nodeLabel}
         </Button>
       </div>
@@ -101,9 +193,36 @@ function FixtureGroups({ index, control, register, catalog, nodeLabel, errors }:
   );
 }
 
+const VELOCITY_CLASS_OPTIONS = [{ value: 'copper', label: 'Copper limits' }, { value: 'plastic', label: 'Plastic limits' }, { value: 'steel', label: 'Steel limits' }];
+
+/** A custom pipe's own data; read-only when it was copied from a project material (change the entry's size instead). */
+function CustomPipeFields({ index, name, register, errors, units, fromProject, source }: {
+  index: number;
+  name: string;
+  register: UseFormRegister<RisersForm>;
+  errors: Record<string, { message?: string } | undefined> | undefined;
+  units: { diameter: string };
+  fromProject: boolean;
+  source: string | undefined;
+}) {
+  return (
+    <fieldset className="mt-2 rounded border border-rule p-2" disabled={fromProject || undefined}>
+      <legend className="px-1 text-xs font-semibold">{fromProject ? 'Pipe data copied from the project catalog' : 'Custom pipe data'}</legend>
+      <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
+        <label className="flex flex-col text-xs font-semibold">Inside diameter ({units.diameter})<CellInput label={`${name} custom inside diameter (${units.diameter})`} type="number" step="any" error={plainError(errors?.innerDiameter?.message)} {...register(`segments.${index}.custom.innerDiameter`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Absolute roughness ({units.diameter})<CellInput label={`${name} custom roughness (${units.diameter})`} type="number" step="any" error={plainError(errors?.roughness?.message)} {...register(`segments.${index}.custom.roughness`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Hazen–Williams C<CellInput label={`${name} custom Hazen–Williams C`} type="number" step="any" error={plainError(errors?.hazenWilliamsC?.message)} {...register(`segments.${index}.custom.hazenWilliamsC`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Velocity limit<CellSelect label={`${name} custom velocity class`} options={VELOCITY_CLASS_OPTIONS} error={plainError(errors?.velocityClass?.message)} {...register(`segments.${index}.custom.velocityClass`)} /></label>
+      </div>
+      {source ? <p className="mt-1 text-xs text-ink-muted">Source: {source}</p> : null}
+    </fieldset>
+  );
+}
+
 export function RisersStep() {
-  const { document, draft, readOnlyReason, units, catalog, live } = useWalk();
-  const [defaults] = useState(() => formValues(document));
+  const { ids, document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
+  const project = useProjectEntries(ids.projectId);
+  const [defaults] = useState(() => risersFormValues(document, project.of('material')));
   const form = useLiveForm(risersFormSchema, defaults, (v) => draft.update((doc) => applyRisers(doc, v)));
   const { register, control, watch, setValue, getValues, formState: { errors } } = form;
   const segments = useFieldArray({ control, name: 'segments' });
@@ -112,20 +231,28 @@ export function RisersStep() {
   const [csvProblems, setCsvProblems] = useState<string[]>([]);
   const [csvDone, setCsvDone] = useState<string | null>(null);
   const sys = document.unitSystem;
+  const locked = scope === 'field-change';
   const rows = watch('segments');
   const nodeRows = watch('nodes');
   const order = treeOrder(rows, document.source.nodeId);
   const results = new Map(live.ok ? live.analysis.segments.map((s) => [s.id, s]) : []);
   const nodeIndex = new Map(nodeRows.map((n, i) => [n.id, i]));
   const nodeName = (id: string) => nodeRows[nodeIndex.get(id) ?? -1]?.label || id;
-  const materialOptions = [{ value: '', label: 'Custom pipe / not chosen' }, ...catalog.materials.map((m) => ({ value: m.id, label: m.label }))];
+  const materialChoices = materialOptions(catalog, project);
+
+  /** A project material and size chosen: its numbers are copied into the segment's custom pipe. */
+  const copyProjectPipe = (i: number) => {
+    const entry = project.find('material', projectEntryIdOf(getValues(`segments.${i}.material`)));
+    const pipe = entry ? pipeFromProjectEntry(entry, getValues(`segments.${i}.size`), sys) : null;
+    setValue(`segments.${i}.custom`, pipe ? { ...pipe } : { ...EMPTY_CUSTOM }, { shouldValidate: true, shouldDirty: true });
+  };
 
   const addSegmentFrom = (fromId: string) => {
     const current = getValues();
     const fromRow = current.nodes.find((n) => n.id === fromId);
     const to = freshId('node', current.nodes.map((n) => n.id));
     const feeding = current.segments.find((s) => s.to === fromId);
-    nodes.append({ id: to, label: '', elevation: fromRow?.elevation ?? 0, fixtureGroups: [] });
+    nodes.append({ id: to, label: '', elevation: fromRow?.elevation ?? 0, continuousDemand: undefined, fixtureGroups: [] });
     segments.append({
       id: freshId('seg', current.segments.map((s) => s.id)),
       label: '',
@@ -135,6 +262,8 @@ export function RisersStep() {
       size: feeding?.size ?? '',
       length: Number.NaN,
       rise: 0,
+      custom: feeding ? { ...feeding.custom } : { ...EMPTY_CUSTOM },
+      flowOverride: undefined,
     });
   };
 
@@ -153,7 +282,7 @@ export function RisersStep() {
     if (result.errors.length) return;
     for (const r of result.rows) {
       const i = getValues('nodes').findIndex((n) => n.id === r.nodeId);
-      setValue(`nodes.${i}.fixtureGroups`, [...getValues(`nodes.${i}.fixtureGroups`), { fixtureTypeId: r.fixtureTypeId, count: r.count }], { shouldValidate: true, shouldDirty: true });
+      setValue(`nodes.${i}.fixtureGroups`, [...getValues(`nodes.${i}.fixtureGroups`), { fixtureTypeId: r.fixtureTypeId, count: r.count, demandCurve: '', wsfuBasis: '', usage: {} }], { shouldValidate: true, shouldDirty: true });
     }
     setCsvDone(`${result.rows.length} fixture group(s) added.`);
     setCsv('');
@@ -185,11 +314,13 @@ export function RisersStep() {
                   </p>
                   <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-6">
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Name<CellInput label={`${name} name`} {...register(`segments.${i}.label`)} /></label>
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Material<CellSelect label={`${name} material`} options={materialOptions} {...register(`segments.${i}.material`, { onChange: () => setValue(`segments.${i}.size`, '', { shouldValidate: true }) })} /></label>
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Size<CellSelect label={`${name} size`} options={sizeOptions(catalog, row.material || undefined, sys, units.diameter)} {...register(`segments.${i}.size`)} /></label>
+                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Material<CellSelect label={`${name} material`} options={materialChoices} {...register(`segments.${i}.material`, { onChange: () => { setValue(`segments.${i}.size`, '', { shouldValidate: true }); if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
+                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Size<CellSelect label={`${name} size`} options={sizeOptions(catalog, project, row.material, sys, units.diameter)} {...register(`segments.${i}.size`, { onChange: () => { if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
                     <label className="flex flex-col text-xs font-semibold">Length ({units.length})<CellInput label={`${name} length (${units.length})`} type="number" step="any" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} /></label>
                     <label className="flex flex-col text-xs font-semibold">Rise ({units.length})<CellInput label={`${name} rise (${units.length})`} type="number" step="any" error={plainError(err?.rise?.message)} {...register(`segments.${i}.rise`, numberInput)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Design flow override ({units.flow})<CellInput label={`${name} design flow override (${units.flow})`} type="number" step="any" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register(`segments.${i}.flowOverride`, numberInput)} /></label>
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Node name at the end<CellInput label={`Name of node ${row.to}`} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.label`)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({units.flow})<CellInput label={`Continuous demand at node ${row.to} (${units.flow})`} type="number" step="any" placeholder="none" error={plainError(errors.nodes?.[nodeIndex.get(row.to) ?? 0]?.continuousDemand?.message)} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.continuousDemand`, numberInput)} /></label>
                     <p className="text-sm xl:col-span-2" data-testid={`segment-demand-${row.id}`}>
                       {result ? (
                         <>
@@ -200,16 +331,19 @@ export function RisersStep() {
                       )}
                     </p>
                   </div>
+                  {row.material === '' || projectEntryIdOf(row.material) ? (
+                    <CustomPipeFields index={i} name={name} register={register} errors={err?.custom as never} units={units} fromProject={projectEntryIdOf(row.material) !== null} source={project.find('material', projectEntryIdOf(row.material))?.source} />
+                  ) : null}
                   <div className="mt-2 flex flex-wrap gap-2">
-                    <Button variant="secondary" onClick={() => addSegmentFrom(row.to)}>Add a segment from {nodeName(row.to)}</Button>
-                    {leaf ? <Button variant="danger" onClick={() => removeSegment(i)}>Remove {name}</Button> : null}
+                    <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(row.to)}>Add a segment from {nodeName(row.to)}</Button>
+                    {leaf ? <Button variant="danger" disabled={locked} onClick={() => removeSegment(i)}>Remove {name}</Button> : null}
                   </div>
                 </li>
               );
             })}
           </ol>
           <div className="mt-3">
-            <Button variant="secondary" onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
+            <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
           </div>
         </Section>
         <Section title="Fixtures served at each node" headingLevel={3}>
@@ -222,7 +356,7 @@ export function RisersStep() {
               return (
                 <div key={field.id} className="border-t border-rule pt-3">
                   <p className="mb-2 font-semibold">{label}</p>
-                  <FixtureGroups index={i} control={control} register={register} catalog={catalog} nodeLabel={label} errors={errors.nodes?.[i]?.fixtureGroups as never} />
+                  <FixtureGroups index={i} control={control} register={register} catalog={catalog} nodeLabel={label} errors={errors.nodes?.[i]?.fixtureGroups as never} locked={locked} units={units} />
                 </div>
               );
             })}
@@ -231,10 +365,10 @@ export function RisersStep() {
         <Section title="Import fixture groups (CSV)" headingLevel={3}>
           <TextAreaField label="Lines of node id, fixture type id, count" hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named." value={csv} onChange={(ev) => setCsv(ev.target.value)} />
           <div className="mt-2 flex flex-wrap items-end gap-3">
-            <Button variant="secondary" onClick={() => importCsv(csv)} disabled={csv.trim() === ''}>Add these fixture groups</Button>
+            <Button variant="secondary" onClick={() => importCsv(csv)} disabled={locked || csv.trim() === ''}>Add these fixture groups</Button>
             <label className="text-sm font-semibold">
               Or a CSV file
-              <input type="file" accept=".csv,.txt,text/csv,text/plain" className="mt-1 block text-sm" onChange={async (ev) => { const f = ev.target.files?.[0]; if (f) importCsv(await f.text()); ev.target.value = ''; }} />
+              <input type="file" accept=".csv,.txt,text/csv,text/plain" className="mt-1 block text-sm" disabled={locked} onChange={async (ev) => { const f = ev.target.files?.[0]; if (f) importCsv(await f.text()); ev.target.value = ''; }} />
             </label>
           </div>
           <div aria-live="polite" className="mt-2 text-sm">
