@@ -5,9 +5,13 @@ import { defineConfig } from '@playwright/test';
  * starts the app and gives its address in E2E_BASE_URL.
  */
 const baseURL = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:5480';
+/** `npm run bench` sets HEADROOM_BENCH=1 to run the bench-only specs (e2e/bench/*.bench.ts) and nothing else. */
+const bench = process.env.HEADROOM_BENCH === '1';
 
 export default defineConfig({
   testDir: 'e2e',
+  // the e2e suite: *.spec.ts (Playwright's default pattern also takes *.test.ts; there are none); benches never
+  testMatch: bench ? '**/*.bench.ts' : '**/*.@(spec|test).?(c|m)[jt]s?(x)',
   outputDir: 'e2e-output/test-results',
   // The tests share one database and build on each other's projects: one worker, in order.
   fullyParallel: false,

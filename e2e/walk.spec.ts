@@ -1,7 +1,6 @@
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
-import { generateBuilding } from '../src/engine/testing/generateTree';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
 
 // The walk, end to end: a designer creates a small invented building and walks it step by step.
@@ -18,7 +17,6 @@ async function shot(page: Page, name: string) {
   await page.screenshot({ path: `e2e-output/walk/${name}.png`, fullPage: true });
 }
 
-const ledger = (page: Page) => page.getByTestId('ledger-panel');
 const liveMargin = (page: Page) => page.getByTestId('live-margin');
 const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name });
 
@@ -240,72 +238,5 @@ test('when an inspector opens a draft, then every step is read-only', async ({ p
   await expect(page.getByRole('button', { name: 'Issue revision' })).toHaveCount(0);
 });
 
-/** Time from a typed length to the ledger panel showing the new analysis, in the page (ms). */
-async function editToLedger(page: Page, inputLabel: string, values: number[]): Promise<number[]> {
-  return page.evaluate(
-    async ({ label, values }) => {
-      const input = document.querySelector<HTMLInputElement>(`input[aria-label="${label}"]`);
-      const panel = document.querySelector<HTMLElement>('[data-testid="ledger-panel"]');
-      if (!input || !panel) throw new Error(`no input "${label}" or no ledger panel`);
-      const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
-      const times: number[] = [];
-      for (const v of values) {
-        const before = panel.dataset.stamp;
-        const t0 = performance.now();
-        const changed = new Promise<void>((resolve) => {
-          const obs = new MutationObserver(() => {
-            if (panel.dataset.stamp !== before) {
-              obs.disconnect();
-              resolve();
-            }
-          });
-          obs.observe(panel, { attributes: true, attributeFilter: ['data-stamp'] });
-        });
-        setter.call(input, String(v));
-        input.dispatchEvent(new Event('input', { bubbles: true }));
-        await changed;
-        await new Promise((r) => requestAnimationFrame(() => r(null)));
-        times.push(performance.now() - t0);
-      }
-      return times;
-    },
-    { label: inputLabel, values },
-  );
-}
-
-const median = (xs: number[]) => [...xs].sort((p, q) => p - q)[Math.floor(xs.length / 2)];
-
-async function importSystem(page: Page, name: string, document: unknown) {
-  await openProject(page, DEMO_PROJECT);
-  await page.getByRole('button', { name: 'Import a system (JSON)' }).click();
-  await page.getByLabel('System document (JSON)').setInputFiles({ name: `${name}.json`, mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(document)) });
-  await page.getByLabel('Name of the imported system').fill(name);
-  await page.getByRole('button', { name: 'Import system' }).click();
-  await expect(page).toHaveURL(/\/result$/);
-}
-
-test('benchmark: edit-to-ledger time in the browser for the demo building and a generated 500-segment system (medians printed, not asserted)', async ({ page }) => {
-  test.setTimeout(180_000);
-  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
-  await signIn(page, DEMO.designer);
-  const demo = JSON.parse(fs.readFileSync('src/engine/examples/alder-finch-cold.json', 'utf8'));
-  const big = generateBuilding({ storeys: 4 });
-  const cases: { name: string; document: unknown; segment: string }[] = [
-    { name: `Benchmark demo building ${run}`, document: demo, segment: demo.segments[0].label ?? demo.segments[0].id },
-    { name: `Benchmark 500 segments ${run}`, document: big, segment: 'riser-1' },
-  ];
-  for (const c of cases) {
-    await page.goto('/projects');
-    await importSystem(page, c.name, c.document);
-    await page.getByRole('link', { name: 'Segment table' }).click();
-    await expect(page.getByTestId('segment-table')).toBeVisible();
-    const rows = await page.getByTestId('segment-table').locator('tbody tr').count();
-    // lengths no segment starts with, so every edit is a change
-    const lengths = Array.from({ length: 15 }, (_, i) => 13.37 + i * 0.5);
-    const times = await editToLedger(page, `${c.segment} length (ft)`, lengths);
-    const engineNote = (await ledger(page).innerText()).match(/\((\d+) ms\)/)?.[1] ?? '?';
-    console.log(`[walk benchmark] ${c.name.replace(` ${run}`, '')}: ${rows} segments, edit-to-ledger median ${median(times).toFixed(1)} ms over ${times.length} edits (min ${Math.min(...times).toFixed(1)}, max ${Math.max(...times).toFixed(1)}); the engine's own share of the last edit: ${engineNote} ms`);
-    expect(times).toHaveLength(lengths.length);
-    if (c.name.startsWith('Benchmark 500')) await shot(page, '13-benchmark-500-table');
-  }
-});
+// The edit-to-ledger benchmark is bench-only now (e2e/bench/ledger.bench.ts, run by `npm run bench`),
+// in a project of its own: the e2e suite no longer adds systems to the demo project.

@@ -1,144 +1,136 @@
 /**
- * Benchmarks (`npm run bench`): a list of cases, each printing its median time over repeated
- * runs, the median of its peer (when it has one) and the ratio. The lead adds API, PDF and
- * client rows to CASES; each case is { name, run, peer? } with optional async setup.
+ * `npm run bench`: one table of Headroom's performance figures (issue #7). Each figure is a
+ * median over repeated runs, beside the median of a peer measured in the same run and their
+ * ratio (ours ÷ peer):
  *
- * Engine rows: the generated 40-storey, 5,000-segment building and the demo building, through
- * analyzeSystem (schema validation included) and through analyzeValidated (a document already
- * validated, as the live client re-runs it); the peer is EPANET (epanet-js) solving the same
- * 5,000-pipe tree — EN_solveH only, the network opened beforehand (solve, not build).
- * One row times the computation alone (SI model, topology, demand, hydraulics, checks) without
- * building the result objects, to show where the time goes.
+ *   engine  — the 5,000-segment trees against EPANET (epanet-js) solving the same network;
+ *   PDF     — the issued summary against a one-page pdf-lib document with the same fonts;
+ *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint;
+ *   client  — the first page's gzip JavaScript against its library chunks, and edit-to-ledger
+ *             in Chromium against the same page's event-plus-one-frame floor.
+ *
+ * The API and edit-to-ledger rows run the real server (`node --import tsx server/index.ts`) over
+ * a throw-away PostgreSQL cluster (scripts/lib/postgres.mjs, via tests/load/world.ts), removed at
+ * the end. Options:
+ *
+ *   npm run bench -- --quick          fewer runs and shorter rounds (about a third of the time)
+ *   npm run bench -- --only engine,pdf,api,client
+ *   npm run bench -- --rebuild        build the client even when dist/ looks up to date
+ *
+ * Writes bench-output/bench.md (the table as markdown, with its date and machine) and
+ * bench-output/bench.json. Figures from a shared or busy machine are noisy: the load average at
+ * start and end is printed with them.
  */
-import { readFileSync } from 'node:fs';
-import { analyzeSystem, SystemDocumentSchema, type Analysis } from '../src/engine';
-import { analyzeValidated } from '../src/engine/analysis/analyze';
-import { buildModel } from '../src/engine/analysis/input';
-import { buildTopology } from '../src/engine/analysis/topology';
-import { computeDemand } from '../src/engine/analysis/demand';
-import { computeHydraulics } from '../src/engine/analysis/hydraulics';
-import { runChecks } from '../src/engine/analysis/checks';
-import type { EngineWarning } from '../src/engine/warnings';
-import type { SystemDocument } from '../src/engine/model/schema';
-import { hazenWilliamsHeadLoss } from '../src/engine/friction';
-import { G } from '../src/engine/units';
-import { generateBuilding, generateRandomTree, mulberry32 } from '../src/engine/testing/generateTree';
-import { EpanetPeer, type PeerNetwork } from '../tests/engine/support/epanet';
-import { benchSummaryPdf } from '../server/pdf/bench';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { engineRows } from './bench/engine';
+import { pdfRows } from './bench/pdf';
+import { apiRows, startNodeServer, type NodeServer } from './bench/api';
+import { buildClient, firstPageRow, ledgerRows } from './bench/client';
+import { markdownTable, machineLine, ratioOf, type BenchRow } from './bench/table';
+import { root, startCluster, type Cluster } from '../tests/load/world';
 
-export interface BenchCase {
-  name: string;
-  /** Prepares what `run` needs (not timed). */
-  setup?: () => Promise<void> | void;
-  run: () => void;
-  peer?: { name: string; setup?: () => Promise<void> | void; run: () => void; teardown?: () => void };
-  repeats?: number;
+const args = process.argv.slice(2);
+const quick = args.includes('--quick');
+const onlyArg = args.find((a) => a.startsWith('--only'));
+const onlyValue = onlyArg?.includes('=') ? onlyArg.split('=')[1] : onlyArg ? args[args.indexOf(onlyArg) + 1] : undefined;
+const PARTS = ['engine', 'pdf', 'api', 'client'] as const;
+const only = new Set(onlyValue ? onlyValue.split(',') : PARTS);
+for (const p of only) if (!(PARTS as readonly string[]).includes(p)) throw new Error(`--only: unknown part "${p}" (parts: ${PARTS.join(', ')})`);
+const want = (p: (typeof PARTS)[number]) => only.has(p);
+
+/**
+ * Runs and rounds: choices that keep the whole bench well inside 5 minutes on 2 cores (about
+ * 2¼ minutes measured on a busy machine, 1½ with --quick) while each median has at least 3 samples.
+ */
+const PLAN = quick
+  ? { engineRepeats: 15, pdfRuns: 5, apiRounds: 3, apiSeconds: 3, apiWarmup: 1, edits: 7 }
+  : { engineRepeats: 40, pdfRuns: 9, apiRounds: 7, apiSeconds: 5, apiWarmup: 2, edits: 15 };
+/** 10 connections: the figure issue #7 names (and autocannon's default). */
+const CONNECTIONS = 10;
+
+const outDir = path.join(root, 'bench-output');
+const tmpDir = path.join(outDir, 'tmp');
+fs.mkdirSync(tmpDir, { recursive: true });
+const started = Date.now();
+const log = (m: string) => console.log(`[bench ${((Date.now() - started) / 1000).toFixed(0).padStart(3)} s] ${m}`);
+const loadStart = os.loadavg();
+
+let cluster: Cluster | null = null;
+let app: NodeServer | null = null;
+async function cleanup() {
+  await app?.stop().catch(() => {});
+  app = null;
+  cluster?.destroy();
+  cluster = null;
 }
+process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
 
-function median(xs: number[]): number {
-  const s = [...xs].sort((a, b) => a - b);
-  const m = s.length >> 1;
-  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-}
-
-function time(run: () => void, repeats: number): number {
-  for (let i = 0; i < Math.min(5, repeats); i++) run(); // warm-up (JIT), not counted
-  const ts: number[] = [];
-  for (let i = 0; i < repeats; i++) {
-    const t0 = performance.now();
-    run();
-    ts.push(performance.now() - t0);
+const rows: BenchRow[] = [];
+const problems: string[] = [];
+try {
+  // in-process parts first, on a machine this script has not yet loaded with servers and a browser
+  if (want('engine')) {
+    log(`engine: ${PLAN.engineRepeats} runs per case …`);
+    rows.push(...(await engineRows(PLAN.engineRepeats, log)));
   }
-  return median(ts);
-}
+  if (want('pdf')) {
+    log(`PDF: ${PLAN.pdfRuns} runs per case …`);
+    rows.push(...(await pdfRows(PLAN.pdfRuns)));
+  }
+  const build = want('client') ? buildClient(args.includes('--rebuild'), log) : null;
+  if (build) rows.push(...firstPageRow(build));
 
-/** EPANET network with the same pipes and the same flows as an analysed tree (node demand = inflow − outflows). */
-function peerOf(a: Analysis): PeerNetwork {
-  const rhoG = a.water.densityKgM3 * G;
-  const out = new Map<string, number>();
-  for (const s of a.si.segments) out.set(s.from, (out.get(s.from) ?? 0) + s.designFlow);
-  const inflow = new Map(a.si.segments.map((s) => [s.to, s.designFlow]));
-  return {
-    sourceId: a.si.source.nodeId,
-    sourceHeadM: a.si.source.elevation + a.si.source.pressureAtDesignFlow / rhoG,
-    junctions: a.si.nodes
-      .filter((n) => n.id !== a.si.source.nodeId)
-      .map((n) => ({ id: n.id, elevationM: n.elevation, demandM3s: (inflow.get(n.id) ?? 0) - (out.get(n.id) ?? 0) })),
-    pipes: a.si.segments.map((s) => ({
-      id: s.id,
-      from: s.from,
-      to: s.to,
-      lengthM: s.length,
-      diameterM: s.innerDiameter,
-      roughnessM: 1.5e-6,
-      hazenWilliamsC: 130,
-      minorK: s.totalK,
-    })),
-    headloss: 'D-W',
-    kinematicViscosityM2s: a.water.kinematicViscosityM2s,
-    ourHazenWilliams: hazenWilliamsHeadLoss,
-  };
-}
-
-function epanetPeer(doc: () => unknown) {
-  let peer: EpanetPeer | undefined;
-  return {
-    name: 'EPANET solveH, same 5,000-pipe tree',
-    setup: async () => {
-      peer = await EpanetPeer.open(peerOf(analyzeSystem(doc())));
-    },
-    run: () => peer!.solve(),
-    teardown: () => peer?.close(),
-  };
-}
-
-/** The stages up to the checks, without the report (result objects in SI and display units). */
-function computeOnly(parsed: SystemDocument): void {
-  const model = buildModel(parsed);
-  const topo = buildTopology(model);
-  const warnings: EngineWarning[] = [];
-  const demand = computeDemand(model, topo, warnings);
-  runChecks(model, computeHydraulics(model, topo, demand, warnings), warnings);
-}
-
-const building = generateBuilding({ storeys: 40 });
-const buildingParsed = SystemDocumentSchema.parse(building);
-const randomTree = generateRandomTree(mulberry32(2024), { segments: 5000, fittingTypes: ['elbow-90-standard', 'tee-run'], frictionMethod: 'swamee-jain' });
-const randomParsed = SystemDocumentSchema.parse(randomTree);
-const demo = JSON.parse(readFileSync(new URL('../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8'));
-
-export const CASES: BenchCase[] = [
-  { name: `engine: 40-storey building, ${building.segments.length} segments, analyzeSystem (with schema)`, run: () => analyzeSystem(building), peer: epanetPeer(() => building) },
-  { name: `engine: 40-storey building, ${building.segments.length} segments, analyzeValidated`, run: () => analyzeValidated(buildingParsed), peer: epanetPeer(() => building) },
-  { name: `engine: 40-storey building, ${building.segments.length} segments, computation only (no result objects)`, run: () => computeOnly(buildingParsed), peer: epanetPeer(() => building) },
-  { name: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeSystem (with schema)', run: () => analyzeSystem(randomTree), peer: epanetPeer(() => randomTree) },
-  { name: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeValidated', run: () => analyzeValidated(randomParsed), peer: epanetPeer(() => randomTree) },
-  { name: `engine: demo building alder-finch-cold (${demo.segments.length} segments), analyzeSystem`, run: () => analyzeSystem(demo), repeats: 200 },
-];
-
-async function main() {
-  const rows: string[][] = [['case', 'median ms', 'peer median ms', 'ratio']];
-  for (const c of CASES) {
-    await c.setup?.();
-    const repeats = c.repeats ?? 40;
-    const ms = time(c.run, repeats);
-    let peerMs: number | null = null;
-    if (c.peer) {
-      await c.peer.setup?.();
-      peerMs = time(c.peer.run, repeats);
-      c.peer.teardown?.();
+  if (want('api') || (want('client') && build?.dist)) {
+    log('a throw-away PostgreSQL cluster, migrated and seeded (scripts/db.ts setup) …');
+    cluster = await startCluster('bench');
+    // the client is served when there is a build, so the browser part can use the same server
+    app = await startNodeServer('server/index.ts', { DATABASE_URL: cluster.url, HEADROOM_SERVE_CLIENT: build?.dist ? '1' : '0' });
+    log(`Headroom server pid ${app.pid} on ${app.url}`);
+  }
+  if (want('api')) {
+    try {
+      rows.push(...(await apiRows({ cluster: cluster!, app: app!, connections: CONNECTIONS, rounds: PLAN.apiRounds, seconds: PLAN.apiSeconds, warmupSeconds: PLAN.apiWarmup, tmpDir, log })));
+    } catch (err) {
+      problems.push(`API: ${err instanceof Error ? err.message : err}`);
+      rows.push({ figure: 'API: draft save with server analysis', unit: 'req/s', median: Number.NaN, runs: 0, note: 'failed; see the log' });
     }
-    rows.push([c.name, ms.toFixed(2), peerMs === null ? '—' : peerMs.toFixed(2), peerMs === null ? '—' : (ms / peerMs).toFixed(2)]);
   }
-  // PDF: the issued summary against a one-page pdf-lib document with the same two fonts (the floor)
-  const pdf = await benchSummaryPdf(9);
-  const floor = pdf.find((r) => r.segments === 0)!;
-  for (const r of pdf.filter((x) => x.segments > 0)) {
-    rows.push([`pdf: ${r.name}, ${r.segments} segments, ${r.pages} pages`, r.medianMs.toFixed(2), floor.medianMs.toFixed(2), (r.medianMs / floor.medianMs).toFixed(2)]);
-  }
-  const w = rows[0].map((_, i) => Math.max(...rows.map((r) => r[i].length)));
-  for (const r of rows) console.log(r.map((cell, i) => (i === 0 ? cell.padEnd(w[i]) : cell.padStart(w[i]))).join('  '));
-  console.log('Aims: 5,000 segments under 10 ms and at most 1/5 of EPANET\'s solve time (ratio ≤ 0.20); the 200-segment PDF under 300 ms.');
+  if (want('client') && build?.dist) rows.push(...ledgerRows({ baseUrl: app!.url, edits: PLAN.edits, tmpDir, log, buildNote: build.note }));
+} catch (err) {
+  problems.push(err instanceof Error ? (err.stack ?? err.message) : String(err));
+  if (app) problems.push(`server log (end):\n${app.log.join('').slice(-2000)}`);
+} finally {
+  await cleanup();
 }
 
-await main();
+// the table in the order of the issue: engine, PDF, API, client (a stable sort keeps each part's own order)
+const SECTION = ['engine', 'PDF', 'API', 'client'];
+rows.sort((a, b) => SECTION.findIndex((p) => a.figure.startsWith(p)) - SECTION.findIndex((p) => b.figure.startsWith(p)));
+const loadEnd = os.loadavg();
+const when = new Date();
+const machine = machineLine(loadStart, loadEnd);
+const table = markdownTable(rows);
+const notes = [
+  `Ratio = ours ÷ peer: lower is better for times and sizes, higher is better for req/s (the share of a bare Express endpoint's throughput Headroom keeps).`,
+  `Engine and PDF run in this process; the API rows run Headroom and the peer as child processes (node --import tsx) on loopback with autocannon; edit-to-ledger runs in Debian's Chromium through Playwright. kB = 1,000 bytes.`,
+  quick ? 'Quick run (--quick): fewer runs and shorter rounds than the full bench.' : null,
+].filter(Boolean);
+const md = [`\`npm run ${quick ? 'bench -- --quick' : 'bench'}\`, ${when.toUTCString()}; ${machine}.`, '', table, '', ...notes.map((n) => `- ${n}`), ''].join('\n');
+
+console.log('\n' + table + '\n');
+for (const n of notes) console.log(`- ${n}`);
+console.log(`- Machine: ${machine}.`);
+fs.writeFileSync(path.join(outDir, 'bench.md'), md);
+fs.writeFileSync(path.join(outDir, 'bench.json'), JSON.stringify({ date: when.toISOString(), quick, machine, rows: rows.map((r) => ({ ...r, ratio: ratioOf(r) })) }, null, 2));
+console.log(`\nwritten: ${path.relative(root, path.join(outDir, 'bench.md'))}, ${path.relative(root, path.join(outDir, 'bench.json'))} (${((Date.now() - started) / 1000).toFixed(0)} s in all)`);
+const failedRows = rows.filter((r) => !Number.isFinite(r.median));
+if (failedRows.length) problems.push(`rows without a figure: ${failedRows.map((r) => r.figure).join('; ')}`);
+// kept when something failed: the Playwright traces and the peer's answer are in it
+if (!problems.length) fs.rmSync(tmpDir, { recursive: true, force: true });
+if (problems.length) {
+  console.error('\nbench problems:\n' + problems.join('\n'));
+  process.exit(1);
+}
+process.exit(0);
