@@ -1,7 +1,8 @@
 import { defineConfig } from 'vitest/config';
 
-// Two projects: the pure engine, unit and client-logic tests (no database), and the API suite, which
-// scripts/test.mjs runs against a throw-away PostgreSQL cluster (TEST_DATABASE_URL).
+// Three projects: the pure engine, unit and client-logic tests (no database); the API suite, which
+// scripts/test.mjs runs against a throw-away PostgreSQL cluster (TEST_DATABASE_URL); and the route
+// tests, which render the walk's real routes in jsdom with a fake fetch at the network boundary.
 export default defineConfig({
   test: {
     projects: [
@@ -21,6 +22,17 @@ export default defineConfig({
           testTimeout: 30_000,
           hookTimeout: 60_000,
           fileParallelism: false,
+        },
+      },
+      {
+        test: {
+          name: 'routes',
+          include: ['tests/routes/**/*.test.tsx'],
+          environment: 'jsdom',
+          setupFiles: ['tests/routes/support/setup.ts'],
+          // a step renders the whole demo (94 segments) and the engine runs on every change; the
+          // first test of a file also loads the lazy pages: ~20 s measured on 2 cores, so twice that
+          testTimeout: 60_000,
         },
       },
     ],

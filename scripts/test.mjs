@@ -1,8 +1,9 @@
 // `npm test`: the whole suite on a throw-away PostgreSQL cluster.
-//   1. Vitest: the engine and unit tests, and the API tests (supertest) on a fresh database;
+//   1. Vitest: the engine and unit tests, the walk's route tests (jsdom, fake fetch), and the API
+//      tests (supertest) on a fresh database;
 //   2. Playwright in Debian's Chromium against the built app, served on a free loopback port
 //      over its own freshly seeded database.
-// Ends with one line "N passed, N failed" summing both. `--only engine|api|e2e` runs one part.
+// Ends with one line "N passed, N failed" summing both. `--only engine|routes|api|e2e` runs one part.
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -78,7 +79,7 @@ try {
   }
 
   // 1. Vitest
-  const projects = [want('engine') && 'engine', want('api') && 'api'].filter(Boolean);
+  const projects = [want('engine') && 'engine', want('routes') && 'routes', want('api') && 'api'].filter(Boolean);
   if (projects.length) {
     const reportFile = path.join(reports, 'vitest-report.json');
     fs.rmSync(reportFile, { force: true });
