@@ -69,10 +69,10 @@ test('when the contractor checks a substitution on the issued demo building, the
   await page.getByLabel('Distribution main to riser: fitting 1 type').selectOption('elbow-90-long-radius');
   await shot(page, '03-fittings');
 
-  // The side by side, from the saved field change.
-  await stepLink(page, 'Side by side').click();
-  // the autosave runs 1.5 s after the last edit
+  // The side by side, from the saved field change (the autosave runs 1.5 s after the last edit).
   await expect(page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await stepLink(page, 'Side by side').click();
+  await expect(page).toHaveURL(fieldChangeUrl);
   await page.reload();
   await expect(page.getByTestId('field-change-verdict')).toBeVisible();
   await expect(page.getByTestId('segment-effect-floor-7')).toContainText('PEX');

@@ -179,3 +179,13 @@ describe('the floor-height helper', () => {
     expect(floorOf(-2, floorLevels(plan))).toBe(1);
   });
 });
+
+describe('risers form: a fixture group whose usage boxes are left empty', () => {
+  it('when the three usage inputs are empty (undefined from the number boxes), then the group still reaches the draft, without usage', () => {
+    const segment = { id: 's', label: '', from: 'a', to: 'b', material: 'copper-l', size: '3/4', length: 10, rise: 0, custom: { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: '' }, flowOverride: undefined };
+    const group = { fixtureTypeId: 'lavatory-private', count: 6, demandCurve: '', wsfuBasis: '', usage: { flow: undefined, durationSeconds: undefined, recurrenceSeconds: undefined } };
+    const parsed = risersFormSchema.safeParse({ segments: [segment], nodes: [{ id: 'b', label: '', elevation: 0, continuousDemand: undefined, fixtureGroups: [group] }] });
+    expect(parsed.success).toBe(true);
+    expect(parsed.data?.nodes[0].fixtureGroups).toEqual([{ fixtureTypeId: 'lavatory-private', count: 6 }]);
+  });
+});

@@ -86,16 +86,14 @@ export function PipeStep() {
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null}>
         <div className="overflow-x-auto">
-          <table className="w-full min-w-[56rem] text-sm" aria-label="Pipe substitutions by segment">
+          <table className="w-full min-w-[40rem] text-sm" aria-label="Pipe substitutions by segment">
             <thead>
               <tr className="border-b-2 border-rule text-left align-bottom">
-                <th scope="col" className="py-1 pr-2">Segment</th>
-                <th scope="col" className="py-1 pr-2">As issued</th>
+                <th scope="col" className="py-1 pr-2">Segment, as issued</th>
                 <th scope="col" className="py-1 pr-2">Material</th>
                 <th scope="col" className="py-1 pr-2">Size</th>
                 <th scope="col" className="py-1 pr-2">Length ({units.length})</th>
-                <th scope="col" className="py-1 pr-2 text-right">Velocity ({units.velocity})</th>
-                <th scope="col" className="py-1 text-right">Loss ({units.pressure})</th>
+                <th scope="col" className="py-1 text-right">Effect: issued → new</th>
               </tr>
             </thead>
             <tbody>
@@ -118,34 +116,33 @@ export function PipeStep() {
                       <span className="block text-xs font-normal text-ink-soft">
                         {nodeName.get(segment.from)} → {nodeName.get(segment.to)}
                       </span>
+                      <span className="block text-xs font-normal">
+                        Issued: {pipeText(catalog, was, baseDocument, units.diameter)}, {fmt(was.length, 1)} {units.length}
+                      </span>
                       {changed ? <span className="mt-1 inline-block rounded border border-caution px-1 text-xs font-semibold">changed</span> : null}
                     </th>
                     <td className="py-2 pr-2">
-                      {pipeText(catalog, was, baseDocument, units.diameter)}
-                      <span className="block text-xs text-ink-soft">
-                        {fmt(was.length, 1)} {units.length}
-                      </span>
-                    </td>
-                    <td className="py-2 pr-2">
                       <CellSelect
+                        className="w-36"
                         label={`${name} material`}
                         options={was.material ? materialOptions : [{ value: '', label: 'As issued (custom pipe)' }, ...materialOptions]}
                         {...register(`segments.${i}.material`, { onChange: () => setValue(`segments.${i}.size`, '', { shouldValidate: true }) })}
                       />
                     </td>
                     <td className="py-2 pr-2">
-                      <CellSelect label={`${name} size`} options={sizeOptions(catalog, current.material, sys, units.diameter)} error={plainError(err?.size?.message)} {...register(`segments.${i}.size`)} />
+                      <CellSelect className="w-28" label={`${name} size`} options={sizeOptions(catalog, current.material, sys, units.diameter)} error={plainError(err?.size?.message)} {...register(`segments.${i}.size`)} />
                     </td>
                     <td className="py-2 pr-2">
-                      <CellInput className="w-24" label={`${name} length (${units.length})`} type="number" step="any" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} />
+                      <CellInput className="w-20" label={`${name} length (${units.length})`} type="number" step="any" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} />
                     </td>
-                    <td className="py-2 pr-2 text-right tabular-nums" data-testid={`pipe-velocity-${segment.id}`}>
-                      {fmt(b?.velocity, 1)} → {fmt(a?.velocity, 1)}
-                      {a?.velocityPass === false ? <span className="block text-xs font-semibold text-fault">⚠ over the limit</span> : null}
-                    </td>
-                    <td className="py-2 text-right tabular-nums" data-testid={`pipe-loss-${segment.id}`}>
-                      {fmt(lossBefore, 2)} → {fmt(lossAfter, 2)}
-                      <span className="block text-xs text-ink-soft">{lossBefore !== null && lossAfter !== null ? signed(lossAfter - lossBefore, 2) : '—'}</span>
+                    <td className="py-2 text-right text-xs tabular-nums">
+                      <span className="block" data-testid={`pipe-velocity-${segment.id}`}>
+                        {fmt(b?.velocity, 1)} → {fmt(a?.velocity, 1)} {units.velocity}
+                      </span>
+                      {a?.velocityPass === false ? <span className="block font-semibold text-fault">⚠ over the velocity limit</span> : null}
+                      <span className="block" data-testid={`pipe-loss-${segment.id}`}>
+                        {fmt(lossBefore, 2)} → {fmt(lossAfter, 2)} {units.pressure} ({lossBefore !== null && lossAfter !== null ? signed(lossAfter - lossBefore, 2) : '—'})
+                      </span>
                     </td>
                   </tr>
                 );

@@ -16,7 +16,7 @@ export function StepNav({ links, steps = WALK_STEPS, label = 'Steps of the walk'
       <ol className="flex flex-wrap gap-2">
         {steps.map((step, i) => (
           <li key={step.id}>
-            <NavLink to={links.step(step.id)} className={linkClass}>
+            <NavLink to={links.step(step.id)} className={linkClass} end>
               <span aria-hidden="true">{i + 1}. </span>
               {step.label}
             </NavLink>

@@ -22,8 +22,8 @@ import { treeOrder } from '../lib/tree';
 import { useLiveForm } from '../lib/use-live-form';
 
 const optionalText = z.preprocess((v) => (v === '' || v === null ? undefined : v), z.string().optional());
-/** An empty number box (NaN from numberInput) or an empty select is "not given". */
-const blank = (v: unknown) => v === '' || v === null || (typeof v === 'number' && Number.isNaN(v));
+/** An empty number box (undefined or NaN from numberInput) or an empty select ('') is "not given". */
+const blank = (v: unknown) => v === undefined || v === '' || v === null || (typeof v === 'number' && Number.isNaN(v));
 const optionalOf = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (blank(v) ? undefined : v), schema.optional());
 
 /** A custom pipe's four numbers; checked only when the segment has no catalog material (see segmentRow). */
