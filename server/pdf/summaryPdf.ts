@@ -9,6 +9,7 @@ import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
+import { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
@@ -207,12 +208,12 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     for (const g of n.fixtureGroups) {
       const t = FIXTURE_TYPES[g.fixtureTypeId];
       const basis = g.wsfuBasis ?? a.service;
-      const each = t ? (t.wsfu[basis] ?? t.wsfu.total) : null;
+      const each = g.custom ? fixtureGroupWsfu(g, basis) : t ? (t.wsfu[basis] ?? t.wsfu.total) : null;
       const feed = nodeById.get(n.id)?.feedSegmentId;
       fixtureRows.push({
         cells: [
           n.label ?? n.id,
-          t?.label ?? g.fixtureTypeId,
+          g.custom ? fixtureGroupLabel(g) : (t?.label ?? g.fixtureTypeId),
           String(g.count),
           each === null ? '—' : String(each),
           each === null ? '—' : String(Math.round(each * g.count * 100) / 100),
@@ -257,7 +258,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       const d = docSegById.get(s.id);
       // the catalog label without its parenthesis: "PEX tubing, SDR 9 (copper tube size)" → "PEX tubing, SDR 9"
       const material = d?.material ? (MATERIALS[d.material as keyof typeof MATERIALS]?.label ?? d.material).replace(/\s*\(.*\)\s*$/, '') : 'custom pipe';
-      const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${FITTING_TYPES[f.typeId]?.label ?? f.typeId}`).join('; ');
+      const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`).join('; ');
       return {
         cells: [
           s.id,

@@ -12,6 +12,7 @@
 import { UNIT_LABELS, type Device, type Segment, type SystemDocument } from '../../src/engine';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
+import { fittingLabel } from '../../src/engine/model/labels';
 import { canonicalJson } from './canonicalJson';
 import { num } from '../pdf/format';
 import type { ChangeField, ChangeItem } from '../../src/shared/api/fieldChanges';
@@ -76,7 +77,8 @@ export function forbiddenDifferences(issued: SystemDocument, proposed: SystemDoc
 // ---- the changes in words
 
 const materialLabel = (id: string | undefined) => (id ? (MATERIALS[id as keyof typeof MATERIALS]?.label ?? id) : null);
-const fittingsText = (f: Segment['fittings']) => (f.length ? f.map((x) => `${x.count}× ${FITTING_TYPES[x.typeId]?.label ?? x.typeId}`).join('; ') : 'none');
+/** A custom fitting (project data) prints its own label and value (src/engine/model/labels.ts). */
+const fittingsText = (f: Segment['fittings']) => (f.length ? f.map((x) => `${x.count}× ${x.custom ? fittingLabel(x) : (FITTING_TYPES[x.typeId]?.label ?? x.typeId)}`).join('; ') : 'none');
 
 function deviceLossText(d: Device, pressure: string, flow: string): string {
   if (d.loss.kind === 'fixed') return `fixed loss ${num(d.loss.loss, pressure)} ${pressure}`;

@@ -32,8 +32,11 @@ export {
   type Segment,
   type Fitting,
   type CustomPipe,
+  type CustomFitting,
+  type CustomFixture,
   type CriteriaOverrides,
 } from './model/schema';
+export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from './model/labels';
 export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';
 export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';

@@ -123,6 +123,11 @@ export const WARNING_CODES = {
     severity: 'note',
     message: "The segment's design flow is the entered override, not the fixture-unit demand.",
   },
+  'project-data-used': {
+    severity: 'note',
+    message:
+      "This element uses the project's own data (a fitting's K or equivalent length, or a fixture type's fixture units), not the seeded catalog; its value and source are the designer's to confirm.",
+  },
   'water-temperature-assumed-range': {
     severity: 'note',
     message: 'Water properties are from IAPWS-95 (density) and IAPWS 2008 (viscosity) at 1 atm.',

@@ -4,7 +4,7 @@ import { makeUser, projectWithRoles, signedIn, startHarness, type Harness } from
 import { makeFingerprint } from './support/hardening';
 import { analyzeSystem, SystemDocumentSchema } from '../../src/engine';
 import { smallDocument } from './support/documents';
-import { pipeFromProjectEntry } from '../../src/features/catalog/lib/apply-entries';
+import { fittingFromProjectEntry, fixtureFromProjectEntry, pipeFromProjectEntry, projectOptionValue } from '../../src/features/catalog/lib/apply-entries';
 import type { ProjectEntryOf } from '../../src/shared/api/catalog';
 
 let h: Harness;
@@ -59,6 +59,33 @@ describe('a project’s own catalog entries', () => {
     expect(local.segments.find((s) => s.id === 'riser')!.innerDiameter).toBeCloseTo(0.0162 / 0.0254, 9);
     expect(revision.analysis.ok).toBe(true);
     expect(revision.analysis.analysis.fixtures.map((f: { margin: number }) => f.margin)).toEqual(local.fixtures.map((f) => f.margin));
+  });
+
+  it('when project fitting and fixture types are copied into a system document, then the server stores them and its analysis equals the engine run on the same document', async () => {
+    const p = await projectWithRoles(h);
+    // Invented entries (test data): a valve K of 3.2 and a fixture type with 2 cold fixture units.
+    const valve = (await p.designer.send('POST', `/api/projects/${p.projectId}/catalog/entries`, { kind: 'fitting-type', label: 'Invented angle valve', source: 'Invented sheet AV-1 (test data)', data: { k: 3.2 } }).expect(201)).body.entry as ProjectEntryOf<'fitting-type'>;
+    const sink = (await p.designer.send('POST', `/api/projects/${p.projectId}/catalog/entries`, {
+      kind: 'fixture-type', label: 'Invented bar sink', source: 'Invented sheet BS-3 (test data)',
+      data: { occupancy: 'private', demandCurve: 'flush-tank', wsfu: { cold: 2, hot: 1.5, total: 3 }, minFlowPressurePa: 55000, flowRateM3s: 0.0001 },
+    }).expect(201)).body.entry as ProjectEntryOf<'fixture-type'>;
+    const doc = smallDocument();
+    doc.segments[1].fittings = [{ typeId: projectOptionValue(valve.id), count: 2, custom: fittingFromProjectEntry(valve) }] as never;
+    doc.nodes[2].fixtureGroups = [{ fixtureTypeId: projectOptionValue(sink.id), count: 3, custom: fixtureFromProjectEntry(sink) }] as never;
+    const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'With project fittings', service: 'cold', document: doc }).expect(201)).body;
+    const revision = (await p.designer.get(`/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`).expect(200)).body.revision;
+    expect(revision.document.segments[1].fittings[0].custom).toEqual({ label: 'Invented angle valve', k: 3.2, source: 'Invented sheet AV-1 (test data)' });
+    expect(revision.document.nodes[2].fixtureGroups[0].custom).toMatchObject({ wsfuCold: 2, wsfuTotal: 3, flushValve: false });
+    const local = analyzeSystem(SystemDocumentSchema.parse(revision.document));
+    expect(revision.analysis.ok).toBe(true);
+    const stored = revision.analysis.analysis;
+    // the same document and the same engine on both sides: equal after the JSON round trip
+    expect(stored.segments).toEqual(JSON.parse(JSON.stringify(local.segments)));
+    expect(stored.fixtures).toEqual(JSON.parse(JSON.stringify(local.fixtures)));
+    expect(stored.segments.find((s: { id: string }) => s.id === 'riser').fittingsK).toBe(2 * 3.2);
+    // 3 sinks × 2 cold fixture units reach the riser (cold service)
+    expect(stored.segments.find((s: { id: string }) => s.id === 'riser').wsfu).toBe(6);
+    expect(stored.warnings.filter((w: { code: string }) => w.code === 'project-data-used').map((w: { elementId: string }) => w.elementId)).toEqual(['l2', 'riser']);
   });
 
   it('when a contractor, an inspector, an administrator or an outsider adds an entry, then it is refused (403, or 404 for the outsider) and nothing is written', async () => {

@@ -4,7 +4,7 @@
  * calls. Structural problems throw EngineInputError; everything else becomes a warning.
  */
 import { EngineInputError } from '../errors';
-import type { EngineWarning } from '../warnings';
+import { makeWarning, type EngineWarning } from '../warnings';
 import { buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
 import { computeDemand } from './demand';
@@ -26,6 +26,9 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   const model = buildModel(parsed);
   const topo = buildTopology(model);
   const warnings: EngineWarning[] = [];
+  for (const use of model.projectData) {
+    warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
+  }
   const demand = computeDemand(model, topo, warnings);
   const hyd = computeHydraulics(model, topo, demand, warnings);
   const checks = runChecks(model, hyd, warnings);

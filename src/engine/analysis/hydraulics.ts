@@ -145,8 +145,15 @@ export function computeHydraulics(
       // Guard conditions of fittingK that vary by segment; when they fail, fittingK itself throws.
       const argsOk = Re >= 0 && Re < Infinity && f >= 0 && f < Infinity;
       const bySize = seg.nominalSizeKey === '' ? undefined : flowFreeK.get(seg.nominalSizeKey);
+      const own = seg.customFittings;
       for (let i = 0; i < fits.length; i++) {
         const fit = fits[i];
+        const custom = own === null ? null : own[i];
+        if (custom !== null) {
+          // Own data (rule in schema.ts, CustomFittingSchema): K as given, or K = f·L/D of this pipe.
+          kFittings += fit.count * (custom.k !== undefined ? custom.k : (f * custom.equivalentLengthM) / D);
+          continue;
+        }
         let res: FlowFreeK | undefined = argsOk && bySize !== undefined ? bySize.get(fit.typeId) : undefined;
         if (res === undefined) {
           const full = fittingK(fit.typeId, {

@@ -52,6 +52,19 @@ export interface SiCheckedFixture {
 export interface SiFitting {
   typeId: string;
   count: number;
+  /** A fitting given by its own data (schema.ts CustomFittingSchema states the rule); absent for catalog fittings. */
+  custom?: { label: string; k: number; source: string } | { label: string; equivalentLength: number; source: string };
+}
+
+/** A fitting given by its own data, in SI: K as given, or an equivalent length in m (K = f·L/D at the segment's flow). */
+export type SiCustomFitting = { label: string; source: string } & ({ k: number; equivalentLengthM?: undefined } | { k?: undefined; equivalentLengthM: number });
+
+/** Where the document uses a project's own data instead of the seeded catalogs (repeated in a note). */
+export interface ProjectDataUse {
+  elementType: 'fitting' | 'node';
+  elementId: string;
+  label: string;
+  source: string;
 }
 
 export interface SiDevice {
@@ -79,6 +92,8 @@ export interface SiSegment {
   lengthM: number;
   riseEnteredM: number | null;
   fittings: SiFitting[];
+  /** Per fitting of `fittings`: its own data in SI, or null for a catalog fitting; null when the segment has none. */
+  customFittings: (SiCustomFitting | null)[] | null;
   flowOverrideM3s: number | null;
   reducerAuto: boolean;
 }
@@ -100,6 +115,8 @@ export interface SiModel {
   segments: SiSegment[];
   segIndex: Map<string, number>;
   devicesBySeg: SiDevice[][];
+  /** Elements given by the project's own data, in document order (empty for a catalog-only document). */
+  projectData: ProjectDataUse[];
   source: {
     nodeIdx: number;
     kind: string;
@@ -220,6 +237,7 @@ export function buildModel(doc: SystemDocument): SiModel {
   const groupsByNode: SiFixtureGroup[][] = new Array(nNodes);
   const fixtures: SiCheckedFixture[] = [];
   const fixtureIds = new Set<string>();
+  const projectData: ProjectDataUse[] = [];
   for (let i = 0; i < nNodes; i++) {
     const node = doc.nodes[i];
     if (nodeIndex.has(node.id)) throw inputError('duplicate-id', 'node', node.id, 'id');
@@ -230,20 +248,33 @@ export function buildModel(doc: SystemDocument): SiModel {
     continuousM3s[i] = node.continuousDemand !== undefined ? Q(node.continuousDemand) : 0;
     const groups: SiFixtureGroup[] = node.fixtureGroups.length === 0 ? NO_GROUPS : [];
     for (const g of node.fixtureGroups) {
-      const type = FIXTURE_TYPES[g.fixtureTypeId];
-      if (!type) {
+      const own = g.custom;
+      // With its own data a group needs no catalog type; a catalog type it names still supplies
+      // what the data leaves out (demand curve, flow while in use).
+      // (The catalog-only lookup is kept exactly as it was, for old documents.)
+      const type = own && !Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? undefined : FIXTURE_TYPES[g.fixtureTypeId];
+      if (!type && !own) {
         throw inputError('unknown-catalog-entry', 'fixture-group', node.id, 'fixtureTypeId', `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`);
       }
       const basis = g.wsfuBasis ?? doc.service;
-      const perFixture = type.wsfu[basis];
+      const perFixture = own
+        ? basis === 'cold' ? own.wsfuCold : basis === 'hot' ? own.wsfuHot : own.wsfuTotal
+        : type!.wsfu[basis];
+      if (own) projectData.push({ elementType: 'node', elementId: node.id, label: own.label, source: own.source });
+      const usageFlow = g.usage?.flow !== undefined ? Q(g.usage.flow) : type?.flowRateM3s;
+      if (g.usage && usageFlow === undefined) {
+        throw inputError('missing-field', 'fixture-group', node.id, 'usage.flow', `fixture type "${own!.label}" has its own data and no catalog type: give the flow while in use`);
+      }
       groups.push({
         fixtureTypeId: g.fixtureTypeId,
         count: g.count,
         wsfu: (perFixture ?? 0) * g.count,
-        curve: g.demandCurve ?? type.demandCurve,
+        // Curve: the group's override, else the own data's, else the catalog type's; flush-tank
+        // when none says (the common case of private dwellings, IPC Table E103.3(3) column).
+        curve: g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank'),
         usage: g.usage
           ? {
-              flowM3s: g.usage.flow !== undefined ? Q(g.usage.flow) : type.flowRateM3s,
+              flowM3s: usageFlow!,
               durationS: g.usage.durationSeconds,
               recurrenceS: g.usage.recurrenceSeconds,
             }
@@ -347,8 +378,18 @@ export function buildModel(doc: SystemDocument): SiModel {
       }
     }
     if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', seg.id, 'innerDiameter');
-    for (const f of seg.fittings) {
-      if (!FITTING_TYPES[f.typeId]) {
+    let customFittings: (SiCustomFitting | null)[] | null = null;
+    for (let i = 0; i < seg.fittings.length; i++) {
+      const f = seg.fittings[i];
+      const own = f.custom;
+      if (own) {
+        customFittings ??= new Array<SiCustomFitting | null>(seg.fittings.length).fill(null);
+        customFittings[i] =
+          'k' in own
+            ? { label: own.label, source: own.source, k: own.k }
+            : { label: own.label, source: own.source, equivalentLengthM: L(own.equivalentLength) };
+        projectData.push({ elementType: 'fitting', elementId: seg.id, label: own.label, source: own.source });
+      } else if (!FITTING_TYPES[f.typeId]) {
         throw inputError('unknown-catalog-entry', 'fitting', seg.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
       }
     }
@@ -366,6 +407,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       lengthM: L(seg.length),
       riseEnteredM: seg.rise !== undefined ? L(seg.rise) : null,
       fittings: seg.fittings,
+      customFittings,
       flowOverrideM3s: seg.flowOverride !== undefined ? Q(seg.flowOverride) : null,
       reducerAuto: seg.reducerAuto,
     });
@@ -419,6 +461,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     segments,
     segIndex,
     devicesBySeg,
+    projectData,
     source: {
       nodeIdx: sourceIdx,
       kind: doc.source.kind,

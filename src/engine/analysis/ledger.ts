@@ -24,6 +24,8 @@ export function ledgerFor(analysis: Analysis, fixtureId: string): PressureLedger
   const P = (pa: number) => fromSI('pressure', pa, sys);
   const bySegId = new Map(analysis.si.segments.map((s) => [s.id, s]));
   const lines: LedgerLine[] = [];
+  // Segments whose fittings include the project's own data (the note 'project-data-used' names them).
+  const withProjectFittings = new Set(analysis.warnings.filter((w) => w.code === 'project-data-used' && w.elementType === 'fitting').map((w) => w.elementId));
   let p = analysis.si.source.pressureAtDesignFlow;
   const push = (kind: LedgerLine['kind'], elementId: string, segmentId: string | null, label: string, changeSI: number) => {
     lines.push({
@@ -55,7 +57,7 @@ export function ledgerFor(analysis: Analysis, fixtureId: string): PressureLedger
     p -= s.frictionLoss;
     push('friction', s.id, s.id, `${name}: pipe friction`, -s.frictionLoss);
     p -= s.fittingLoss;
-    push('fittings', s.id, s.id, `${name}: fittings${s.sizeChangeK > 0 ? ' and size change' : ''}`, -s.fittingLoss);
+    push('fittings', s.id, s.id, `${name}: fittings${withProjectFittings.has(s.id) ? ' (incl. project data)' : ''}${s.sizeChangeK > 0 ? ' and size change' : ''}`, -s.fittingLoss);
     p -= s.riseLoss;
     push('rise', s.id, s.id, `${name}: elevation`, -s.riseLoss);
   }

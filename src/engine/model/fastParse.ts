@@ -235,10 +235,26 @@ function usage(v: unknown): NonNullable<FixtureGroup['usage']> {
   return out as NonNullable<FixtureGroup['usage']>;
 }
 
+function customFixture(v: unknown): NonNullable<FixtureGroup['custom']> {
+  const o = obj(v);
+  const out: Obj = { label: nonEmpty(o.label) };
+  let known = 1;
+  known += optional(o, out, 'wsfuCold', nonNegative);
+  known += optional(o, out, 'wsfuHot', nonNegative);
+  out.wsfuTotal = nonNegative(o.wsfuTotal);
+  known++;
+  known += optional(o, out, 'flushValve', bool);
+  out.source = nonEmpty(o.source);
+  known++;
+  strictKeys(o, known);
+  return out as NonNullable<FixtureGroup['custom']>;
+}
+
 function fixtureGroup(v: unknown): FixtureGroup {
   const o = obj(v);
   const out: Obj = { fixtureTypeId: id(o.fixtureTypeId), count: positiveInt(o.count) };
   let known = 2;
+  known += optional(o, out, 'custom', customFixture);
   known += optional(o, out, 'demandCurve', demandCurve);
   known += optional(o, out, 'wsfuBasis', wsfuBasis);
   known += optional(o, out, 'usage', usage);
@@ -276,11 +292,23 @@ function node(v: unknown): SystemNode {
   return out as SystemNode;
 }
 
+/** The union of schema.ts: exactly one of `k` or `equivalentLength` (both strict objects of three keys). */
+function customFitting(v: unknown): NonNullable<Fitting['custom']> {
+  const o = obj(v);
+  const label = nonEmpty(o.label);
+  let out: NonNullable<Fitting['custom']>;
+  if ('k' in o) out = { label, k: nonNegative(o.k), source: nonEmpty(o.source) };
+  else if ('equivalentLength' in o) out = { label, equivalentLength: nonNegative(o.equivalentLength), source: nonEmpty(o.source) };
+  else return decline();
+  strictKeys(o, 3);
+  return out;
+}
+
 function fitting(v: unknown): Fitting {
   const o = obj(v);
-  const out = { typeId: id(o.typeId), count: positiveInt(o.count) };
-  strictKeys(o, 2);
-  return out;
+  const out: Obj = { typeId: id(o.typeId), count: positiveInt(o.count) };
+  strictKeys(o, 2 + optional(o, out, 'custom', customFitting));
+  return out as Fitting;
 }
 
 function customPipe(v: unknown): NonNullable<Segment['custom']> {

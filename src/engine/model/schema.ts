@@ -95,9 +95,29 @@ export const DeviceSchema = z.strictObject({
     .describe('Required when kind is "booster-pump".'),
 });
 
+/**
+ * A fixture type given by its own data (a project's fixture type copied into the document), in
+ * place of the fixtures catalog's values for this group. Fixture units are per fixture; an absent
+ * cold or hot value counts as no load on that service, as a catalog type without one does.
+ * `flushValve` sets the demand curve (true: flush-valve, false: flush-tank); without it the
+ * catalog type's curve applies, or flush-tank when `fixtureTypeId` is not a catalog type.
+ * The values and their `source` are the designer's: the analysis repeats them in a note.
+ */
+export const CustomFixtureSchema = z.strictObject({
+  label: z.string().min(1).describe('Name of the fixture type, as the project catalog gives it.'),
+  wsfuCold: nonNegative().optional().describe('Cold-water fixture units per fixture.'),
+  wsfuHot: nonNegative().optional().describe('Hot-water fixture units per fixture.'),
+  wsfuTotal: nonNegative().describe('Total fixture units per fixture.'),
+  flushValve: z.boolean().optional().describe('Flush-valve demand curve (true) or flush-tank (false).'),
+  source: z.string().min(1).describe('Where the values come from (standard, table, manufacturer).'),
+});
+
 export const FixtureGroupSchema = z.strictObject({
-  fixtureTypeId: id(),
+  fixtureTypeId: id().describe(
+    'Fixture type id from the fixtures catalog; with `custom`, any reference (e.g. "project:<entry id>"), looked up only as a fallback.',
+  ),
   count: z.number().int().positive(),
+  custom: CustomFixtureSchema.optional().describe("The fixture type's own data, overriding the catalog's."),
   demandCurve: DemandCurveSchema.optional().describe("Overrides the fixture type's demand curve."),
   wsfuBasis: z
     .enum(['cold', 'hot', 'total'])
@@ -131,9 +151,40 @@ export const NodeSchema = z.strictObject({
   checkedFixtures: z.array(CheckedFixtureSchema).default([]),
 });
 
+/**
+ * A fitting given by its own data (a project's fitting type copied into the document): exactly
+ * one of a loss coefficient `k` or an `equivalentLength` (length unit), with its source.
+ *
+ * The rule, under every fitting method of the criteria (the data has no method-specific form):
+ *   - `k`: used as it is, K referred to the segment's velocity, loss = count·K·ρV²/2 — as the
+ *     engine already treats its constant-K entries (entrances, exits). With the equivalent-length
+ *     method it is not refused and not rescaled: a K is the more direct statement of a loss, and
+ *     converting it to a length and back (K·D/f, then f·L/D) would return the same K.
+ *   - `equivalentLength`: K = f·L/D with the segment's own Darcy friction factor f and inside
+ *     diameter D (the equivalent-length rule of the fittings catalog: "this many feet of this
+ *     pipe"), so the loss is count·f·(L/D)·ρV²/2. Crane's f_T (fully turbulent) is not used: an
+ *     equivalent length of pipe loses what that pipe loses at the actual flow.
+ * Either way the analysis repeats the label and source in a note (a custom value is an assumption).
+ */
+export const CustomFittingSchema = z.union([
+  z.strictObject({
+    label: z.string().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
+    k: nonNegative().describe('Loss coefficient K (velocity heads), referred to the segment velocity.'),
+    source: z.string().min(1).describe('Where the value comes from (standard, table, manufacturer).'),
+  }),
+  z.strictObject({
+    label: z.string().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
+    equivalentLength: nonNegative().describe('Equivalent length of the segment pipe, length unit.'),
+    source: z.string().min(1).describe('Where the value comes from (standard, table, manufacturer).'),
+  }),
+]);
+
 export const FittingSchema = z.strictObject({
-  typeId: id(),
+  typeId: id().describe(
+    'Fitting type id from the fittings catalog; with `custom`, a reference to where the data came from (e.g. "project:<entry id>"), not looked up.',
+  ),
   count: z.number().int().positive(),
+  custom: CustomFittingSchema.optional().describe("Instead of the catalog's data: the fitting's own K or equivalent length."),
 });
 
 export const CustomPipeSchema = z.strictObject({
@@ -211,6 +262,8 @@ export type FixtureGroup = z.infer<typeof FixtureGroupSchema>;
 export type CheckedFixture = z.infer<typeof CheckedFixtureSchema>;
 export type Segment = z.infer<typeof SegmentSchema>;
 export type Fitting = z.infer<typeof FittingSchema>;
+export type CustomFitting = z.infer<typeof CustomFittingSchema>;
+export type CustomFixture = z.infer<typeof CustomFixtureSchema>;
 export type CustomPipe = z.infer<typeof CustomPipeSchema>;
 export type CriteriaOverrides = z.infer<typeof CriteriaOverridesSchema>;
 

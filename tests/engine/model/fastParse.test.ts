@@ -62,9 +62,14 @@ const device = rec({
   prv: opt(rec({ setPressure: positive, falloffPerFlow: opt(nonNegative) })),
   boost: opt(rec({ gain: nonNegative })),
 });
+/** A fixture type's own data (CustomFixtureSchema). */
+const customFixture = rec({ label, wsfuCold: opt(nonNegative), wsfuHot: opt(nonNegative), wsfuTotal: nonNegative, flushValve: opt(fc.boolean()), source: label });
+/** A fitting's own data (CustomFittingSchema): exactly one of k or equivalentLength. */
+const customFitting = fc.oneof(rec({ label, k: nonNegative, source: label }), rec({ label, equivalentLength: nonNegative, source: label }));
 const fixtureGroup = rec({
   fixtureTypeId: id,
   count,
+  custom: opt(customFixture),
   demandCurve: opt(fc.constantFrom('flush-tank', 'flush-valve')),
   wsfuBasis: opt(fc.constantFrom('cold', 'hot', 'total')),
   usage: opt(rec({ flow: opt(positive), durationSeconds: positive, recurrenceSeconds: positive })),
@@ -95,7 +100,7 @@ const segment = rec({
   custom: opt(rec({ innerDiameter: positive, roughness: nonNegative, hazenWilliamsC: positive, velocityClass: fc.constantFrom('copper', 'plastic', 'steel') })),
   length: positive,
   rise: opt(finite),
-  fittings: opt(fc.array(rec({ typeId: id, count }), { maxLength: 3 })),
+  fittings: opt(fc.array(rec({ typeId: id, count, custom: opt(customFitting) }), { maxLength: 3 })),
   flowOverride: opt(nonNegative),
   reducerAuto: opt(fc.boolean()),
 });
@@ -235,6 +240,43 @@ describe('fast reader ≡ zod schema', () => {
   it('the example and generated documents', () => {
     const docs = [oneSegment(), smallTree(), generateBuilding({ storeys: 3 }), generateRandomTree(mulberry32(3), { segments: 50, fittingTypes: ['tee-run'] })];
     for (const doc of docs) expect(expectSameAsZod(doc)).toBe('accepted');
+  });
+
+  it('project data: custom fittings and fixture groups, valid and invalid, get the same verdict and value', () => {
+    const withFitting = (custom: unknown) => {
+      const d = oneSegment() as unknown as { segments: { fittings: unknown[] }[] };
+      d.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 1 }, { typeId: 'project:e1', count: 2, custom }];
+      return d;
+    };
+    const withGroup = (custom: unknown) => {
+      const d = oneSegment() as unknown as { nodes: { fixtureGroups?: unknown[] }[] };
+      d.nodes[1].fixtureGroups = [{ fixtureTypeId: 'project:f1', count: 3, custom }];
+      return d;
+    };
+    const valid = [
+      withFitting({ label: 'Ball valve', k: 0.05, source: 'maker data sheet' }),
+      withFitting({ source: 'maker data sheet', equivalentLength: 1.2, label: 'Ball valve' }),
+      withFitting({ label: 'Zero', k: 0, source: 's' }),
+      withGroup({ label: 'Bar sink', wsfuCold: 0.75, wsfuHot: 0.75, wsfuTotal: 1, flushValve: false, source: 'IPC Table E103.3(2)' }),
+      withGroup({ label: 'Bar sink', wsfuTotal: 1, source: 's' }),
+      withGroup({ label: 'Bar sink', wsfuTotal: 1, wsfuHot: undefined, source: 's' }),
+    ];
+    const invalid = [
+      withFitting({ label: 'Both', k: 1, equivalentLength: 2, source: 's' }),
+      withFitting({ label: 'Neither', source: 's' }),
+      withFitting({ label: 'No source', k: 1 }),
+      withFitting({ label: '', k: 1, source: 's' }),
+      withFitting({ label: 'Negative', k: -1, source: 's' }),
+      withFitting({ label: 'Undefined k', k: undefined, source: 's' }),
+      withFitting({ label: 'Extra', k: 1, source: 's', note: 'x' }),
+      withFitting({ label: 'NaN', equivalentLength: NaN, source: 's' }),
+      withGroup({ label: 'No total', wsfuCold: 1, source: 's' }),
+      withGroup({ label: 'Bad valve', wsfuTotal: 1, flushValve: 'yes', source: 's' }),
+      withGroup({ label: 'Negative', wsfuTotal: 1, wsfuCold: -0.5, source: 's' }),
+      withGroup({ label: 'Extra', wsfuTotal: 1, source: 's', minFlowPressure: 8 }),
+    ];
+    for (const doc of valid) expect(expectSameAsZod(doc)).toBe('accepted');
+    for (const doc of invalid) expect(expectSameAsZod(doc)).toBe('rejected');
   });
 
   it('returns a fresh copy with fresh defaults, as zod does', () => {

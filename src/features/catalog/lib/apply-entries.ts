@@ -1,15 +1,18 @@
 /**
  * A project's own catalog entries, copied into a system document when chosen: the document must
- * analyse the same with the engine alone (on the client and the server), so it never refers to a
- * project entry by id. What the document format holds:
+ * analyse the same with the engine alone (on the client and the server), so its values never come
+ * from a project entry by id. What the document format holds:
  *   - a pipe material and size → the segment's `custom` pipe (inside diameter, roughness, C, velocity class);
- *   - a device template → a device's loss-at-flow curve.
- * A fixture type's own fixture units and a fitting's own K have no place in the format yet
- * (FixtureGroupSchema and FittingSchema refer to the seeded catalogs only), so those entries are
- * kept in the project's catalog but cannot be chosen in the walk.
+ *   - a device template → a device's loss-at-flow curve;
+ *   - a fitting type → the fitting's `custom` {label, k, source} (typeId `project:<entry id>`, a reference only);
+ *   - a fixture type → the fixture group's `custom` {label, wsfuCold?, wsfuHot?, wsfuTotal, flushValve, source}
+ *     (fixtureTypeId `project:<entry id>`). Its minimum flow pressure belongs to a checked fixture
+ *     (CheckedFixtureSchema.minFlowPressure), not to the group.
+ * The data is copied when the entry is chosen and kept in the document: a later change of the
+ * entry, or its removal, does not change a document already carrying the copy.
  */
 import { fromSI } from '../../../engine';
-import type { CustomPipe, Device, UnitSystem } from '../../../engine';
+import type { CustomFitting, CustomFixture, CustomPipe, Device, Fitting, FixtureGroup, UnitSystem } from '../../../engine';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 
 /** Option values of project entries in the walk's selects: `project:<entry id>` (seeded ids never start so). */
@@ -18,7 +21,7 @@ export const projectOptionValue = (entryId: string) => `${PREFIX}${entryId}`;
 export const projectEntryIdOf = (value: string | undefined): string | null => (value?.startsWith(PREFIX) ? value.slice(PREFIX.length) : null);
 
 /** Which entry kinds the walk can copy into a document. */
-export const COPYABLE_KINDS = ['material', 'device-template'] as const;
+export const COPYABLE_KINDS = ['material', 'device-template', 'fitting-type', 'fixture-type'] as const;
 
 /** The custom pipe of a project material at one of its sizes, in the document's units; null for an unknown size. */
 export function pipeFromProjectEntry(entry: ProjectEntryOf<'material'>, sizeKey: string, sys: UnitSystem): CustomPipe | null {
@@ -66,9 +69,58 @@ export function deviceFromProjectTemplate(entry: ProjectEntryOf<'device-template
   };
 }
 
+/** A project fitting type as a document fitting's own data: its K, label and source as entered. */
+export function fittingFromProjectEntry(entry: ProjectEntryOf<'fitting-type'>): CustomFitting {
+  return { label: entry.label, k: entry.data.k, source: entry.source };
+}
+
 /**
- * The project's fixture types or fitting types in a picker, after the seeded ones: listed so the
- * designer sees them, but not choosable (see the note at the top: the format cannot hold them).
+ * A project fixture type as a fixture group's own data: fixture units per fixture as entered (a
+ * type without a cold or hot value has no load on that service), its demand curve as `flushValve`.
+ */
+export function fixtureFromProjectEntry(entry: ProjectEntryOf<'fixture-type'>): CustomFixture {
+  const { cold, hot, total } = entry.data.wsfu;
+  return {
+    label: entry.label,
+    ...(cold !== null ? { wsfuCold: cold } : {}),
+    ...(hot !== null ? { wsfuHot: hot } : {}),
+    wsfuTotal: total,
+    flushValve: entry.data.demandCurve === 'flush-valve',
+    source: entry.source,
+  };
+}
+
+/**
+ * A fitting row of the walk as the document stores it. A row that carries own data keeps it (the
+ * copy made when its type was chosen, or data written in the document): choosing another type in
+ * the walk clears the row's copy first. A project type (`project:<id>`) without a copy gets a fresh
+ * copy of the entry; a seeded type carries none; a project row whose entry is gone and that has no
+ * copy is left as it is (the engine then names it).
+ */
+export function fittingWithProjectData(row: Fitting, entries: readonly ProjectEntryOf<'fitting-type'>[]): Fitting {
+  if (row.custom) return { typeId: row.typeId, count: row.count, custom: row.custom };
+  const entryId = projectEntryIdOf(row.typeId);
+  const entry = entryId === null ? undefined : entries.find((e) => e.id === entryId);
+  return entry ? { typeId: row.typeId, count: row.count, custom: fittingFromProjectEntry(entry) } : { typeId: row.typeId, count: row.count };
+}
+
+/** The same for a fixture group row: the other fields of the group are kept as they are. */
+export function groupWithProjectData(row: FixtureGroup, entries: readonly ProjectEntryOf<'fixture-type'>[]): FixtureGroup {
+  const { custom, ...rest } = row;
+  if (custom) return { ...rest, custom };
+  const entryId = projectEntryIdOf(row.fixtureTypeId);
+  const entry = entryId === null ? undefined : entries.find((e) => e.id === entryId);
+  return entry ? { ...rest, custom: fixtureFromProjectEntry(entry) } : rest;
+}
+
+/** The project's entries of a kind in a picker, after the seeded ones, marked as the project's. */
+export function projectOptions(entries: readonly { id: string; label: string }[]) {
+  return entries.map((e) => ({ value: projectOptionValue(e.id), label: `${e.label} — project` }));
+}
+
+/**
+ * Listed but not choosable (kept for pickers whose document field cannot hold project data:
+ * a checked fixture's type must be a seeded type).
  */
 export function unusableProjectOptions(entries: readonly { id: string; label: string }[]) {
   return entries.map((e) => ({ value: projectOptionValue(e.id), label: `${e.label} — project (cannot be copied into a system yet)`, disabled: true }));

@@ -1,16 +1,18 @@
 import { useState } from 'react';
 import { useFieldArray } from 'react-hook-form';
-import type { Control, UseFormRegister, UseFormWatch } from 'react-hook-form';
+import type { Control, UseFormRegister, UseFormSetValue, UseFormWatch } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/field';
-import type { Analysis, SegmentResult, SystemDocument } from '../../../engine';
+import { toSI } from '../../../engine';
+import type { Analysis, CustomFitting, SegmentResult, SystemDocument } from '../../../engine';
 import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/schema';
 import { fittingK } from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
-import { unusableProjectOptions } from '../../catalog/lib/apply-entries';
+import { fittingWithProjectData, projectOptions as projectOptionsOf } from '../../catalog/lib/apply-entries';
+import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt } from '../lib/format';
@@ -36,10 +38,14 @@ export const fittingsFormSchema = z.object({
   fittingMethod: CriteriaOverridesSchema.shape.fittingMethod.unwrap(),
   segments: z.array(z.object({ id: z.string(), fittings: z.array(FittingSchema.extend({ count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1') })) })),
 });
-type FittingsForm = { fittingMethod: (typeof METHODS)[number]; segments: { id: string; fittings: { typeId: string; count: number }[] }[] };
+type FittingsForm = { fittingMethod: (typeof METHODS)[number]; segments: { id: string; fittings: { typeId: string; count: number; custom?: CustomFitting }[] }[] };
 
-export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFormSchema>): SystemDocument {
-  const byId = new Map(v.segments.map((s) => [s.id, s.fittings]));
+/**
+ * Writes the fittings back. A project fitting type (`project:<id>`) is copied into the document
+ * as the fitting's own data (catalog/lib/apply-entries.ts); a seeded type carries none.
+ */
+export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFormSchema>, projectFittings: readonly ProjectEntryOf<'fitting-type'>[] = []): SystemDocument {
+  const byId = new Map(v.segments.map((s) => [s.id, s.fittings.map((f) => fittingWithProjectData(f, projectFittings))]));
   // The loss method is a criterion: written only when it is changed, so that editing fittings alone
   // leaves the criteria exactly as they were (a field change may not touch them at all).
   const methodChanged = v.fittingMethod !== (doc.criteria?.fittingMethod ?? 'crane');
@@ -50,8 +56,15 @@ export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFo
   };
 }
 
-/** One fitting's K in its segment, by the engine's own fitting function and the segment's live Re and f. */
-function kOf(typeId: string, segment: SystemDocument['segments'][number] | undefined, si: SegmentResult | undefined, method: FittingsForm['fittingMethod'], catalog: Catalog) {
+/**
+ * One fitting's K in its segment, by the engine's own fitting function and the segment's live Re and f;
+ * a fitting with its own data by the engine's rule for it (schema.ts CustomFittingSchema): K as given, or f·L/D.
+ */
+export function kOf(typeId: string, segment: SystemDocument['segments'][number] | undefined, si: SegmentResult | undefined, method: FittingsForm['fittingMethod'], catalog: Catalog, custom?: CustomFitting, sys: SystemDocument['unitSystem'] = 'US'): { K: number; fellBackFrom?: string; method?: string } | null {
+  if (custom) {
+    if ('k' in custom) return { K: custom.k };
+    return si && si.innerDiameter > 0 ? { K: (si.frictionFactor * toSI('length', custom.equivalentLength, sys)) / si.innerDiameter } : null;
+  }
   if (!segment || !si) return null;
   const size = catalog.material(segment.material)?.data.sizes.find((s) => s.key === segment.size);
   if (!size) return null;
@@ -62,11 +75,13 @@ function kOf(typeId: string, segment: SystemDocument['segments'][number] | undef
   }
 }
 
-function SegmentFittings({ index, control, register, watch, catalog, doc, analysis, method, units }: {
+function SegmentFittings({ index, control, register, watch, setValue, catalog, doc, analysis, method, units, projectFittings }: {
   index: number;
   control: Control<FittingsForm>;
   register: UseFormRegister<FittingsForm>;
   watch: UseFormWatch<FittingsForm>;
+  setValue: UseFormSetValue<FittingsForm>;
+  projectFittings: readonly ProjectEntryOf<'fitting-type'>[];
   catalog: Catalog;
   doc: SystemDocument;
   analysis: Analysis | null;
@@ -81,7 +96,7 @@ function SegmentFittings({ index, control, register, watch, catalog, doc, analys
   const display = analysis?.segments.find((s) => s.id === id);
   const si = analysis?.si.segments.find((s) => s.id === id);
   const options = catalog.fittingTypes.map((f) => ({ value: f.id, label: f.label }));
-  const projectOptions = unusableProjectOptions(useProjectEntries(useWalk().ids.projectId).of('fitting-type'));
+  const projectOptions = projectOptionsOf(projectFittings);
   return (
     <Section title={name} headingLevel={3}>
       <table className="w-full text-sm">
@@ -98,14 +113,17 @@ function SegmentFittings({ index, control, register, watch, catalog, doc, analys
         <tbody>
           {list.fields.map((f, k) => {
             const row = rows?.[k];
-            const kr = row ? kOf(row.typeId, segment, si, method, catalog) : null;
+            // the copy the row carries, or what choosing the project entry will copy
+            const custom = row ? fittingWithProjectData(row as z.output<typeof fittingsFormSchema>['segments'][number]['fittings'][number], projectFittings).custom : undefined;
+            const kr = row ? kOf(row.typeId, segment, si, method, catalog, custom, doc.unitSystem) : null;
             const loss = kr && display && display.totalK > 0 && Number.isFinite(row?.count) ? (display.fittingLoss * kr.K * row!.count) / display.totalK : null;
-            const entry = row ? catalog.fittingType(row.typeId) : undefined;
+            const entry = row && !custom ? catalog.fittingType(row.typeId) : undefined;
             return (
               <tr key={f.id} className="border-t border-rule align-top">
                 <td className="py-1 pr-2">
-                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`segments.${index}.fittings.${k}.typeId`)} />
+                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`segments.${index}.fittings.${k}.typeId`, { onChange: () => setValue(`segments.${index}.fittings.${k}.custom`, undefined) })} />
                   {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory ? ' (from memory)' : ''}</p> : null}
+                  {custom ? <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>Project data: {custom.label} — source: {custom.source}</p> : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
                   <CellInput label={`${name}: fitting ${k + 1} count`} type="number" min="1" step="1" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
@@ -148,8 +166,9 @@ export function FittingsStep() {
     fittingMethod: document.criteria?.fittingMethod ?? 'crane',
     segments: document.segments.map((s) => ({ id: s.id, fittings: s.fittings.map((f) => ({ ...f })) })),
   }));
-  const form = useLiveForm(fittingsFormSchema, defaults, (v) => draft.update((doc) => applyFittings(doc, v)));
-  const { register, control, watch, formState: { errors } } = form;
+  const projectFittings = useProjectEntries(useWalk().ids.projectId).of('fitting-type');
+  const form = useLiveForm(fittingsFormSchema, defaults, (v) => draft.update((doc) => applyFittings(doc, v, projectFittings)));
+  const { register, control, watch, setValue, formState: { errors } } = form;
   const method = watch('fittingMethod');
   const order = treeOrder(document.segments, document.source.nodeId);
   const indexById = new Map(defaults.segments.map((s, i) => [s.id, i]));
@@ -179,7 +198,7 @@ export function FittingsStep() {
         {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
         {order.map(({ index }) => {
           const i = indexById.get(document.segments[index].id);
-          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} />;
+          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} />;
         })}
       </fieldset>
     </form>

@@ -1,16 +1,16 @@
 import { useState } from 'react';
 import { useFieldArray } from 'react-hook-form';
-import type { Control, UseFormRegister } from 'react-hook-form';
+import type { Control, UseFormRegister, UseFormSetValue } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { TextAreaField } from '../../../components/ui/field';
 import { fromSI } from '../../../engine';
-import type { FixtureGroup, Segment, SystemDocument } from '../../../engine';
+import type { CustomFixture, FixtureGroup, Segment, SystemDocument } from '../../../engine';
 import { CustomPipeSchema, DemandCurveSchema, FixtureGroupSchema, NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
-import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptionValue, unusableProjectOptions } from '../../catalog/lib/apply-entries';
+import { groupWithProjectData, matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptions as projectOptionsOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
@@ -76,11 +76,12 @@ const nodeRow = z.object({
 export const risersFormSchema = z.object({ segments: z.array(segmentRow), nodes: z.array(nodeRow) });
 type CustomRow = { innerDiameter?: number; roughness?: number; hazenWilliamsC?: number; velocityClass: string };
 type SegmentRow = { id: string; label: string; from: string; to: string; material: string; size: string; length: number; rise?: number; custom: CustomRow; flowOverride?: number };
-type GroupRow = { fixtureTypeId: string; count: number; demandCurve: string; wsfuBasis: string; usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number } };
+/** `custom`: the project fixture type's data the group carries (copied when the type was chosen). */
+type GroupRow = { fixtureTypeId: string; count: number; demandCurve: string; wsfuBasis: string; usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number }; custom?: CustomFixture };
 type NodeRow = { id: string; label: string; elevation: number; continuousDemand?: number; fixtureGroups: GroupRow[] };
 type RisersForm = { segments: SegmentRow[]; nodes: NodeRow[] };
 
-const groupToRow = (g: FixtureGroup): GroupRow => ({ fixtureTypeId: g.fixtureTypeId, count: g.count, demandCurve: g.demandCurve ?? '', wsfuBasis: g.wsfuBasis ?? '', usage: { ...(g.usage ?? {}) } });
+const groupToRow = (g: FixtureGroup): GroupRow => ({ fixtureTypeId: g.fixtureTypeId, count: g.count, demandCurve: g.demandCurve ?? '', wsfuBasis: g.wsfuBasis ?? '', usage: { ...(g.usage ?? {}) }, ...(g.custom ? { custom: { ...g.custom } } : {}) });
 const EMPTY_CUSTOM: CustomRow = { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: 'copper' };
 
 /** The form's rows; a custom pipe copied from a project material shows as that material and size. */
@@ -103,8 +104,12 @@ export function risersFormValues(doc: SystemDocument, projectMaterials: readonly
 
 const OPTIONAL_SEGMENT_KEYS = ['label', 'material', 'size', 'rise', 'custom', 'flowOverride'] as const;
 
-/** Writes the tree back: segment and node fields from the form, everything else (fittings, checked fixtures) kept. */
-export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSchema>): SystemDocument {
+/**
+ * Writes the tree back: segment and node fields from the form, everything else (fittings, checked fixtures) kept.
+ * A fixture group of a project fixture type (`project:<id>`) gets the type's data copied in as its
+ * own (catalog/lib/apply-entries.ts); a group of a seeded type carries none.
+ */
+export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSchema>, projectFixtures: readonly ProjectEntryOf<'fixture-type'>[] = []): SystemDocument {
   const oldSegments = new Map(doc.segments.map((s) => [s.id, s]));
   const oldNodes = new Map(doc.nodes.map((n) => [n.id, n]));
   const segments: Segment[] = v.segments.map((r) => {
@@ -118,7 +123,7 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
   });
   const nodes = v.nodes.map((r) => {
     const old = oldNodes.get(r.id);
-    const fixtureGroups = r.fixtureGroups.map((g) => Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup);
+    const fixtureGroups = r.fixtureGroups.map((g) => groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures));
     const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, elevation: old?.elevation ?? r.elevation, fixtureGroups } as SystemDocument['nodes'][number];
     if (r.label === undefined) delete next.label;
     else next.label = r.label;
@@ -148,10 +153,14 @@ export function materialOptions(catalog: Catalog, project: ProjectCatalog) {
 const DEMAND_CURVE_OPTIONS = [{ value: '', label: 'As the fixture type' }, { value: 'flush-tank', label: 'Flush tank' }, { value: 'flush-valve', label: 'Flush valve' }];
 const WSFU_BASIS_OPTIONS = [{ value: '', label: 'The system’s service' }, { value: 'cold', label: 'Cold' }, { value: 'hot', label: 'Hot' }, { value: 'total', label: 'Total (cold + hot)' }];
 
-function FixtureGroups({ index, control, register, catalog, nodeLabel, errors, locked, units }: {
+function FixtureGroups({ index, control, register, setValue, rows, projectFixtures, catalog, nodeLabel, errors, locked, units }: {
   index: number;
   control: Control<RisersForm>;
   register: UseFormRegister<RisersForm>;
+  setValue: UseFormSetValue<RisersForm>;
+  /** the node's group rows as they are now (watched) */
+  rows: GroupRow[] | undefined;
+  projectFixtures: readonly ProjectEntryOf<'fixture-type'>[];
   catalog: Catalog;
   nodeLabel: string;
   errors: { count?: { message?: string }; fixtureTypeId?: { message?: string }; usage?: Record<string, { message?: string } | undefined> }[] | undefined;
@@ -161,16 +170,25 @@ function FixtureGroups({ index, control, register, catalog, nodeLabel, errors, l
 }) {
   const groups = useFieldArray({ control, name: `nodes.${index}.fixtureGroups` });
   const options = catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label }));
-  const projectOptions = unusableProjectOptions(useProjectEntries(useWalk().ids.projectId).of('fixture-type'));
+  const projectOptions = projectOptionsOf(projectFixtures);
   return (
     <div className="flex flex-col gap-2">
-      {groups.fields.map((g, k) => (
+      {groups.fields.map((g, k) => {
+        const row = rows?.[k];
+        // the copy the group carries, or what choosing the project type will copy
+        const own = row ? groupWithProjectData({ fixtureTypeId: row.fixtureTypeId, count: 1, ...(row.custom ? { custom: row.custom } : {}) }, projectFixtures).custom : undefined;
+        return (
         <div key={g.id} className="flex flex-col gap-1">
           <div className="flex flex-wrap items-start gap-2">
-            <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`)} />
+            <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`, { onChange: () => setValue(`nodes.${index}.fixtureGroups.${k}.custom`, undefined) })} />
             <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="number" step="1" min="1" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
             <Button variant="quiet" disabled={locked} onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>Remove</Button>
           </div>
+          {own ? (
+            <p className="ml-2 text-xs text-ink-muted" data-testid={`project-fixture-${index}-${k}`}>
+              Project data: {own.label} — fixture units each: cold {own.wsfuCold ?? 'none'}, hot {own.wsfuHot ?? 'none'}, total {own.wsfuTotal}; {own.flushValve ? 'flush valve' : 'flush tank'}; source: {own.source}
+            </p>
+          ) : null}
           <details className="ml-2 text-sm">
             <summary className="cursor-pointer text-ink-soft">Overrides of group {k + 1} (demand curve, fixture-unit basis, use for the binomial method)</summary>
             <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
@@ -183,7 +201,8 @@ function FixtureGroups({ index, control, register, catalog, nodeLabel, errors, l
             <p className="mt-1 text-xs text-ink-muted">Private or public use is chosen with the fixture type. Empty = the fixture type’s own value.</p>
           </details>
         </div>
-      ))}
+        );
+      })}
       <div>
         <Button variant="secondary" disabled={locked} onClick={() => groups.append({ fixtureTypeId: options[0]?.value ?? '', count: 1, demandCurve: '', wsfuBasis: '', usage: {} })}>
           Add fixtures at {nodeLabel}
@@ -223,7 +242,8 @@ export function RisersStep() {
   const { ids, document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
   const project = useProjectEntries(ids.projectId);
   const [defaults] = useState(() => risersFormValues(document, project.of('material')));
-  const form = useLiveForm(risersFormSchema, defaults, (v) => draft.update((doc) => applyRisers(doc, v)));
+  const projectFixtures = project.of('fixture-type');
+  const form = useLiveForm(risersFormSchema, defaults, (v) => draft.update((doc) => applyRisers(doc, v, projectFixtures)));
   const { register, control, watch, setValue, getValues, formState: { errors } } = form;
   const segments = useFieldArray({ control, name: 'segments' });
   const nodes = useFieldArray({ control, name: 'nodes' });
@@ -356,7 +376,7 @@ export function RisersStep() {
               return (
                 <div key={field.id} className="border-t border-rule pt-3">
                   <p className="mb-2 font-semibold">{label}</p>
-                  <FixtureGroups index={i} control={control} register={register} catalog={catalog} nodeLabel={label} errors={errors.nodes?.[i]?.fixtureGroups as never} locked={locked} units={units} />
+                  <FixtureGroups index={i} control={control} register={register} setValue={setValue} rows={nodeRows[i]?.fixtureGroups} projectFixtures={projectFixtures} catalog={catalog} nodeLabel={label} errors={errors.nodes?.[i]?.fixtureGroups as never} locked={locked} units={units} />
                 </div>
               );
             })}
