@@ -13,7 +13,7 @@ import { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/eng
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
-import { COLORS, Layout, PAGE_SIZES, type Column } from './layout';
+import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
 

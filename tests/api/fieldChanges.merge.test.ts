@@ -14,6 +14,8 @@ afterAll(() => h.close());
 type Doc = ReturnType<typeof SystemDocumentSchema.parse>;
 const parsed = (d: unknown): Doc => SystemDocumentSchema.parse(d);
 
+// The lengths, pressures, sizes and fitting counts below are invented inputs: these tests check the
+// merge's bookkeeping (which field ends up where), not a published hydraulic value.
 describe('field changes: carried onto the designer’s draft (merge rules)', () => {
   const issued = parsed(smallDocument());
   const proposed = edited(issued, (d) => {

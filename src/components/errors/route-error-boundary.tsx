@@ -1,5 +1,5 @@
 import { Component } from 'react';
-import type { ErrorInfo, ReactNode } from 'react';
+import type { ComponentType, ErrorInfo, ReactNode } from 'react';
 import { QueryErrorResetBoundary } from '@tanstack/react-query';
 import { useLocation, useRouteError } from 'react-router-dom';
 import { ErrorView } from './error-view';
@@ -62,4 +62,15 @@ export function RouterErrorView() {
       <ErrorView error={error} onRetry={() => window.location.reload()} what="Headroom" />
     </main>
   );
+}
+
+/** A lazily loaded page wrapped in its own boundary, so one failing page leaves the shell working. */
+export function guarded(what: string, Page: ComponentType): ComponentType {
+  return function GuardedPage() {
+    return (
+      <RouteErrorBoundary what={what}>
+        <Page />
+      </RouteErrorBoundary>
+    );
+  };
 }

@@ -2,20 +2,9 @@
  * The field-change routes, for the lead to place among the signed-in routes. The frame loads the
  * field change and the issued revision; its index is the side by side, its children the steps.
  */
-import type { ComponentType } from 'react';
 import type { RouteObject } from 'react-router-dom';
-import { RouteErrorBoundary } from '../../components/errors/route-error-boundary';
+import { guarded } from '../../components/errors/route-error-boundary';
 import { fieldChangePaths } from './paths';
-
-function guarded(what: string, Page: ComponentType) {
-  return function GuardedPage() {
-    return (
-      <RouteErrorBoundary what={what}>
-        <Page />
-      </RouteErrorBoundary>
-    );
-  };
-}
 
 export const fieldChangeRoutes: RouteObject[] = [
   {

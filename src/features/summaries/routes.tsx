@@ -2,20 +2,9 @@
  * The routes of the issued summary, the review inbox and the development mail page, for the lead
  * to place among the signed-in routes. Every page is loaded lazily and has its own error boundary.
  */
-import type { ComponentType } from 'react';
 import type { RouteObject } from 'react-router-dom';
-import { RouteErrorBoundary } from '../../components/errors/route-error-boundary';
+import { guarded } from '../../components/errors/route-error-boundary';
 import { summaryPaths } from './paths';
-
-function guarded(what: string, Page: ComponentType) {
-  return function GuardedPage() {
-    return (
-      <RouteErrorBoundary what={what}>
-        <Page />
-      </RouteErrorBoundary>
-    );
-  };
-}
 
 export const summaryRoutes: RouteObject[] = [
   {

@@ -3,21 +3,10 @@
  * lazily, so the engine (which the walk runs in the browser) stays out of the first page's
  * JavaScript; each page has its own error boundary.
  */
-import type { ComponentType } from 'react';
 import { Navigate, useParams } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
-import { RouteErrorBoundary } from '../../components/errors/route-error-boundary';
+import { guarded } from '../../components/errors/route-error-boundary';
 import { walkPaths } from './paths';
-
-function guarded(what: string, Page: ComponentType) {
-  return function GuardedPage() {
-    return (
-      <RouteErrorBoundary what={what}>
-        <Page />
-      </RouteErrorBoundary>
-    );
-  };
-}
 
 /** The revision's own address opens its first step. */
 function RevisionIndex() {

@@ -1,11 +1,11 @@
-import { useEffect, useMemo } from 'react';
-import { Link, Outlet, useParams } from 'react-router-dom';
+import { useMemo } from 'react';
+import { Link, useParams } from 'react-router-dom';
 import { ErrorView } from '../../../components/errors/error-view';
-import { RouteErrorBoundary } from '../../../components/errors/route-error-boundary';
 import { Alert } from '../../../components/ui/alert';
 import { Loading } from '../../../components/ui/loading';
 import { UNIT_LABELS } from '../../../engine';
 import { useDocumentTitle } from '../../../hooks/use-document-title';
+import { useWarnBeforeLeaving } from '../../../hooks/use-warn-before-leaving';
 import { paths } from '../../../app/paths';
 import type { User } from '../../../shared/api/auth';
 import type { FieldChange } from '../../../shared/api/fieldChanges';
@@ -21,7 +21,7 @@ import { analyseDraft } from '../../walk/draft/live-analysis';
 import { parseStoredDocument, useDraft } from '../../walk/draft/use-draft';
 import { WalkContext } from '../../walk/draft/walk-context';
 import type { WalkContextValue, WalkLinks } from '../../walk/draft/walk-context';
-import { LedgerPanel } from '../../walk/components/ledger-panel';
+import { StepFrameBody } from '../../walk/components/step-frame-body';
 import { SaveBar } from '../../walk/components/save-bar';
 import { StepNav } from '../../walk/components/step-nav';
 import { walkPaths } from '../../walk/paths';
@@ -70,12 +70,7 @@ function Frame({ ids, project, system, fieldChange, base, catalog, user }: {
   const links = useMemo(() => fieldChangeLinks(ids), [ids]);
   useDocumentTitle(`Field change ${fieldChange.number} · ${system.name}`);
 
-  useEffect(() => {
-    if (draft.state === 'saved') return;
-    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
-  }, [draft.state]);
+  useWarnBeforeLeaving(draft.state !== 'saved');
 
   if (!draft.document || !live || !baseDocument || !issuedLive) {
     return (
@@ -140,20 +135,7 @@ function Frame({ ids, project, system, fieldChange, base, catalog, user }: {
             <SaveBar draft={draft} editable />
           )}
         </div>
-        <RouteErrorBoundary what="this step">
-          {step && step !== 'diagram' ? (
-            <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
-              <div key={draft.generation} className="min-w-0">
-                <Outlet />
-              </div>
-              <LedgerPanel live={live} />
-            </div>
-          ) : (
-            <div key={draft.generation}>
-              <Outlet />
-            </div>
-          )}
-        </RouteErrorBoundary>
+        <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step) && step !== 'diagram'} />
       </WalkContext.Provider>
     </FieldChangeContext.Provider>
   );

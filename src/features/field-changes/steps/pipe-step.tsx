@@ -1,6 +1,5 @@
 import { useState } from 'react';
 import { z } from 'zod';
-import { fromSI } from '../../../engine';
 import type { Segment, SystemDocument } from '../../../engine';
 import type { SegmentResult } from '../../../engine/analysis/types';
 import type { Catalog } from '../../systems/api/get-catalog';
@@ -10,6 +9,7 @@ import { fmt, signed } from '../../walk/lib/format';
 import { numberInput, plainError } from '../../walk/lib/form-values';
 import { treeOrder } from '../../walk/lib/tree';
 import { useLiveForm } from '../../walk/lib/use-live-form';
+import { sizeChoices } from '../../walk/lib/sizes';
 import { useFieldChangeFrame } from '../components/field-change-context';
 
 const row = z
@@ -56,7 +56,7 @@ function pipeText(catalog: Catalog, s: Segment, doc: SystemDocument, unit: strin
 function sizeOptions(catalog: Catalog, materialId: string, sys: SystemDocument['unitSystem'], unit: string) {
   const material = catalog.material(materialId || undefined);
   if (!material) return [{ value: '', label: 'As issued (custom pipe)' }];
-  return [{ value: '', label: 'Choose a size…' }, ...material.data.sizes.map((s) => ({ value: s.key, label: `${s.key} — inside ${fmt(fromSI('diameter', s.innerDiameterM, sys), sys === 'US' ? 3 : 1)} ${unit}` }))];
+  return sizeChoices(material.data.sizes, sys, unit);
 }
 
 const lossOf = (r: SegmentResult | undefined) => (r ? r.frictionLoss + r.fittingLoss : null);

@@ -1,12 +1,12 @@
-import { useEffect, useMemo } from 'react';
-import { Link, Outlet, useParams } from 'react-router-dom';
+import { useMemo } from 'react';
+import { Link, useParams } from 'react-router-dom';
 import { ErrorView } from '../../../components/errors/error-view';
-import { RouteErrorBoundary } from '../../../components/errors/route-error-boundary';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Loading } from '../../../components/ui/loading';
 import { UNIT_LABELS } from '../../../engine';
 import { useDocumentTitle } from '../../../hooks/use-document-title';
+import { useWarnBeforeLeaving } from '../../../hooks/use-warn-before-leaving';
 import { paths } from '../../../app/paths';
 import type { Project } from '../../../shared/api/projects';
 import type { Revision, SystemInfo } from '../../../shared/api/systems';
@@ -23,7 +23,7 @@ import type { WalkContextValue, WalkIds, WalkLinks } from '../draft/walk-context
 import { walkPaths } from '../paths';
 import type { WalkStepId } from '../steps';
 import { ExportButton } from './export-button';
-import { LedgerPanel } from './ledger-panel';
+import { StepFrameBody } from './step-frame-body';
 import { NewDraftButton } from './new-draft-button';
 import { SaveBar } from './save-bar';
 import { StepNav } from './step-nav';
@@ -58,12 +58,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
   const live = useMemo(() => (draft.document ? analyseDraft(draft.document) : null), [draft.document]);
   useDocumentTitle(`${system.name} · revision ${revision.number}`);
 
-  useEffect(() => {
-    if (draft.state === 'saved') return;
-    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
-    window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
-  }, [draft.state]);
+  useWarnBeforeLeaving(draft.state !== 'saved');
 
   if (!draft.document || !live) {
     return (
@@ -119,20 +114,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <SaveBar draft={draft} editable />
         )}
       </div>
-      <RouteErrorBoundary what="this step">
-        {step ? (
-          <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
-            <div key={draft.generation} className="min-w-0">
-              <Outlet />
-            </div>
-            <LedgerPanel live={live} />
-          </div>
-        ) : (
-          <div key={draft.generation}>
-            <Outlet />
-          </div>
-        )}
-      </RouteErrorBoundary>
+      <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step)} />
     </WalkContext.Provider>
   );
 }

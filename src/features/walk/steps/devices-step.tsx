@@ -9,7 +9,7 @@ import { fromSI } from '../../../engine';
 import type { Device, SystemDocument } from '../../../engine';
 import { DeviceSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
-import { CellInput, CellSelect, StepIntro } from '../components/cells';
+import { CellInput, StepIntro } from '../components/cells';
 import { parseCurvePoints } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';

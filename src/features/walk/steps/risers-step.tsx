@@ -5,7 +5,6 @@ import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { TextAreaField } from '../../../components/ui/field';
-import { fromSI } from '../../../engine';
 import type { CustomFixture, FixtureGroup, Segment, SystemDocument } from '../../../engine';
 import { CustomPipeSchema, DemandCurveSchema, FixtureGroupSchema, NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
@@ -20,6 +19,7 @@ import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { treeOrder } from '../lib/tree';
 import { useLiveForm } from '../lib/use-live-form';
+import { sizeChoices } from '../lib/sizes';
 
 const optionalText = z.preprocess((v) => (v === '' || v === null ? undefined : v), z.string().optional());
 /** An empty number box (undefined or NaN from numberInput) or an empty select ('') is "not given". */
@@ -138,7 +138,7 @@ function sizeOptions(catalog: Catalog, project: ProjectCatalog, materialId: stri
   const projectMaterial = project.find('material', projectEntryIdOf(materialId));
   const sizes = projectMaterial ? projectMaterial.data.sizes : catalog.material(materialId)?.data.sizes;
   if (!sizes) return [{ value: '', label: materialId === '' ? 'Custom pipe: give its data below' : 'Choose a material first' }];
-  return [{ value: '', label: 'Choose a size…' }, ...sizes.map((s) => ({ value: s.key, label: `${s.key} — inside ${fmt(fromSI('diameter', s.innerDiameterM, sys), sys === 'US' ? 3 : 1)} ${unit}` }))];
+  return sizeChoices(sizes, sys, unit);
 }
 
 /** The material choices: the seeded materials, then the project's own (marked), then a custom pipe. */
