@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
+import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type SystemDocument } from '../../src/engine';
 import { AppError, notFound, staleVersion } from '../http/errors';
 import { fieldsFromZod } from '../http/errors';
 import { assertStorable } from '../http/storable';
@@ -22,12 +22,14 @@ type StoredAnalysis = ReturnType<typeof analyse>;
 
 function verdictOf(stored: unknown): RevisionVerdict {
   const a = stored as StoredAnalysis;
-  if (!a?.ok) return { ok: false, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: (a as { error?: { message?: string } })?.error?.message ?? 'Not analysed' };
+  if (!a?.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: (a as { error?: { message?: string } })?.error?.message ?? 'Not analysed' };
   const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
   const v = a.analysis.verdict;
+  const status = verdictStatus(a.analysis);
   return {
     ok: true,
-    allPass: v.allFixturesPass && v.allVelocitiesPass && v.allStaticPass,
+    status,
+    allPass: status === 'pass',
     criticalFixtureId: a.analysis.criticalFixtureId,
     criticalMargin: critical?.margin ?? null,
     warningCount: a.analysis.warnings.length,

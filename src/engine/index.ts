@@ -5,9 +5,12 @@
 export { analyzeSystem, safeAnalyzeSystem, type SafeAnalysis } from './analysis/analyze';
 export { ledgerFor, formatLedger } from './analysis/ledger';
 export { ENGINE_VERSION, toDisplay } from './analysis/report';
+export { verdictStatus } from './analysis/verdict';
 export type {
   Analysis,
   AnalysisResults,
+  IncompleteReason,
+  VerdictStatus,
   SegmentResult,
   NodeResult,
   FixtureResult,

@@ -13,6 +13,7 @@ import type { ChecksResult } from './checks';
 import { assertFiniteDeep } from './finite';
 import type {
   Analysis,
+  IncompleteReason,
   AnalysisResults,
   DeviceLossResult,
   FixtureResult,
@@ -46,6 +47,50 @@ const FITTING_METHOD_LABELS: Record<string, MethodUsed> = {
     source: 'IPC (2018) Table E103.3(5) (via the fittings catalog)',
   },
 };
+
+/**
+ * The verdict rule: green only when every checked fixture was computed from a complete
+ * description and every check is met. Incomplete wins over fail: a failing number computed from
+ * an incomplete description is not yet a finding.
+ */
+function verdictOfChecks(model: SiModel, checks: ChecksResult): Analysis['verdict'] {
+  const incomplete = incompleteReasons(model, checks);
+  const allFixturesPass = checks.fixtures.every((c) => c.pass);
+  const allVelocitiesPass = checks.velocityPass.every((v) => v !== false);
+  const allStaticPass = checks.nodeStaticPass.every((v) => v !== false);
+  const status = incomplete.length > 0 ? 'incomplete' : checks.failures > 0 ? 'fail' : 'pass';
+  return { status, incomplete, allFixturesPass, allVelocitiesPass, allStaticPass, failures: checks.failures };
+}
+
+function incompleteReasons(model: SiModel, checks: ChecksResult): IncompleteReason[] {
+  const reasons: IncompleteReason[] = [];
+  const src = model.doc.source;
+  if (checks.fixtures.length === 0) {
+    reasons.push({
+      code: 'no-checked-fixtures',
+      elementType: 'system',
+      elementId: null,
+      message: 'No checked fixture: add at least the fixture you expect to be the most hydraulically remote.',
+    });
+  }
+  if (!(src.staticPressureLow > 0) || !(src.staticPressureHigh > 0)) {
+    reasons.push({
+      code: 'source-pressure-missing',
+      elementType: 'source',
+      elementId: src.nodeId,
+      message: 'The supply static pressure (low and high) is not entered.',
+    });
+  }
+  if (src.pressureBasis.trim() === '' || /^not entered/i.test(src.pressureBasis.trim())) {
+    reasons.push({
+      code: 'source-basis-missing',
+      elementType: 'source',
+      elementId: src.nodeId,
+      message: 'Where the supply pressure comes from (utility letter, flow test, gauge reading) is not stated.',
+    });
+  }
+  return reasons;
+}
 
 export function assembleReport(
   model: SiModel,
@@ -85,12 +130,7 @@ export function assembleReport(
     },
     ...display,
     criticalFixtureId: checks.criticalIndex === -1 ? null : model.fixtures[checks.criticalIndex].id,
-    verdict: {
-      allFixturesPass: checks.fixtures.every((c) => c.pass),
-      allVelocitiesPass: checks.velocityPass.every((v) => v !== false),
-      allStaticPass: checks.nodeStaticPass.every((v) => v !== false),
-      failures: checks.failures,
-    },
+    verdict: verdictOfChecks(model, checks),
     methods: {
       friction: { id: friction.id, label: friction.label, source: friction.source },
       fittings: FITTING_METHOD_LABELS[criteria.fittingMethod],

@@ -100,6 +100,22 @@ export interface SourceResult {
   staticPressureHigh: number;
 }
 
+/**
+ * Why a verdict is Incomplete: something Headroom needs before it can say pass or fail (a missing
+ * or assumed input, or a description that does not reach a checked fixture). Never shown green.
+ */
+export interface IncompleteReason {
+  /** Stable code, e.g. 'no-checked-fixtures', 'source-pressure-missing', 'node-elevation-missing'. */
+  code: string;
+  elementType: 'system' | 'source' | 'device' | 'node' | 'segment' | 'fixture-group' | 'checked-fixture' | 'fitting';
+  elementId: string | null;
+  /** Plain words, in the document's units, naming elements by the labels the user typed. */
+  message: string;
+}
+
+/** pass: every checked fixture computed from a complete description and every check met; fail: a check is not met; incomplete: see the reasons. */
+export type VerdictStatus = 'pass' | 'fail' | 'incomplete';
+
 export interface MethodUsed {
   id: string;
   label: string;
@@ -134,6 +150,10 @@ export interface Analysis extends AnalysisResults {
   water: { temperature: number; densityKgM3: number; kinematicViscosityM2s: number; dynamicViscosityPaS: number };
   criticalFixtureId: string | null;
   verdict: {
+    /** The one verdict to show: incomplete wins over fail and pass (see verdictStatus). */
+    status: VerdictStatus;
+    /** Empty unless status is 'incomplete'. */
+    incomplete: IncompleteReason[];
     allFixturesPass: boolean;
     allVelocitiesPass: boolean;
     allStaticPass: boolean;

@@ -30,6 +30,9 @@ export const CompareQuery = z.object({ a: z.string().uuid('Not a revision id'), 
 /** The verdict of a revision in a few numbers, for lists. */
 export const RevisionVerdict = z.object({
   ok: z.boolean(),
+  /** pass / fail / incomplete; null when the document could not be analysed. */
+  status: z.enum(['pass', 'fail', 'incomplete']).nullable(),
+  /** True only when status is 'pass'. */
   allPass: z.boolean().nullable(),
   criticalFixtureId: z.string().nullable(),
   criticalMargin: z.number().nullable(),

@@ -46,12 +46,13 @@ export interface FakeApiOptions {
 }
 
 function verdictOf(analysis: ReturnType<typeof safeAnalyzeSystem>): RevisionVerdict {
-  if (!analysis.ok) return { ok: false, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: analysis.error.message };
+  if (!analysis.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: analysis.error.message };
   const a = analysis.analysis;
   const v = a.verdict;
   return {
     ok: true,
-    allPass: v.allFixturesPass && v.allVelocitiesPass && v.allStaticPass,
+    status: v.status,
+    allPass: v.status === 'pass',
     criticalFixtureId: a.criticalFixtureId,
     criticalMargin: a.fixtures.find((f) => f.id === a.criticalFixtureId)?.margin ?? null,
     warningCount: a.warnings.length,
