@@ -42,4 +42,15 @@ export {
 export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from './model/labels';
 export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';
 export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
+export {
+  LIMITS,
+  checkRange,
+  rangeText,
+  limitUnit,
+  siBase,
+  formatBound,
+  type LimitQuantity,
+  type QuantityLimit,
+  type Bounds,
+} from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';
