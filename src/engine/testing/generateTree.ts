@@ -199,7 +199,9 @@ export function generateRandomTree(rng: () => number, opts: RandomTreeOptions): 
     let D = Math.sqrt((4 * Q) / (Math.PI * V));
     const dMaxForRe = (4 * Q) / (Math.PI * nu * minRe);
     if (D > dMaxForRe) D = dMaxForRe;
-    D = Math.max(D, 0.004);
+    // Within the plausible inside diameters (model/limits.ts: 2.5–600 mm); a trunk carrying a
+    // whole large tree is capped at 600 mm (its velocity then rises above the target).
+    D = Math.min(Math.max(D, 0.004), 0.6);
     const fittings: { typeId: string; count: number }[] = [];
     for (const t of fittingTypes) if (rng() < 0.35) fittings.push({ typeId: t, count: 1 + Math.floor(rng() * 3) });
     segments.push({
