@@ -11,7 +11,7 @@
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
 import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
-import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, type FittingKResult } from '../fittings';
+import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, FITTING_TYPES, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
 import { G } from '../units';
@@ -192,7 +192,7 @@ export function computeHydraulics(
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {
           warnings.push(
-            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
+            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
           );
         }
       }

@@ -25,7 +25,7 @@ import type { Topology } from './topology';
 import type { HydraulicsResult } from './hydraulics';
 import type { ElevationResult } from './elevations';
 import type { StaticChecks } from './types';
-import { formatPressure, nodeName, segmentName } from './names';
+import { formatPressure, nodeName, segmentLabel } from './names';
 
 export interface StaticChecksResult {
   /** In the document's units (the Analysis field). */
@@ -137,7 +137,7 @@ export function runStaticChecks(
     const pass = pa <= rating.ratingPa;
     pipeRatings.push({
       segmentId: seg.id,
-      label: segmentName(model, s),
+      label: segmentLabel(model, s),
       materialLabel,
       ratingPressure: toDoc(rating.ratingPa),
       highestStatic: toDoc(pa),
@@ -154,7 +154,6 @@ export function runStaticChecks(
         seg.id,
         `${materialLabel}: up to ${formatPressure(pa, sys)} static, rated ${formatPressure(rating.ratingPa, sys)} at the water temperature (${rating.source}).`,
       );
-      w.elementLabel = segmentName(model, s);
       warnings.push(w);
     }
   }

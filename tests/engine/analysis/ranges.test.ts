@@ -32,9 +32,9 @@ function full(): Doc {
   return d;
 }
 
-const dev = (d: Doc, id: string) => d.devices!.find((x) => x.id === id)! as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
-const seg = (d: Doc, id: string) => d.segments.find((x) => x.id === id)! as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
-const node = (d: Doc, id: string) => d.nodes.find((x) => x.id === id)! as Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+const dev = (d: Doc, id: string) => d.devices!.find((x) => x.id === id)! as Record<string, any>;
+const seg = (d: Doc, id: string) => d.segments.find((x) => x.id === id)! as Record<string, any>;
+const node = (d: Doc, id: string) => d.nodes.find((x) => x.id === id)! as Record<string, any>;
 
 const CASES: Case[] = [
   ['water temperature', 'waterTemperature', 'one', 'waterTemperature', (d, v) => { d.waterTemperature = v; }],

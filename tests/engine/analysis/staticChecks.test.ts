@@ -137,7 +137,7 @@ describe('pipe pressure rating at the water temperature', () => {
     expect(r.pass).toBe(false);
     expect(r.source).toBe(rating.source);
     expect(a.verdict.status).toBe('fail');
-    expect(a.warnings.some((w) => w.code === 'static-over-pipe-rating' && w.elementLabel === '"Hot main"')).toBe(true);
+    expect(a.warnings.some((w) => w.code === 'static-over-pipe-rating' && w.elementLabel === 'Hot main')).toBe(true);
   });
 });
 

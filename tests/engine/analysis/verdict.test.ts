@@ -2,6 +2,7 @@
  * The verdict: pass only when every checked fixture is computed from a complete description and
  * every check is met; incomplete (with its reasons) wins over fail. Invented documents.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem, SystemDocumentSchemaV1, upgradeDocument, type SystemDocumentInput } from '../../../src/engine';
 import { PA_PER_PSI, G, M_PER_FT } from '../../../src/engine/units';
@@ -170,5 +171,22 @@ describe('the four-storey building with the rises typed', () => {
     // keep-elevations reproduces what version 1 analysed (the flat building passes): for issued revisions only.
     const kept = analyzeSystem(upgradeDocument(doc, { riseConflict: 'keep-elevations' }));
     expect(kept.verdict.status).toBe('pass');
+  });
+});
+
+describe('plain messages', () => {
+  it('every warning of the demo building carries the name the user typed (or a description), and no detail names an internal id', () => {
+    const doc = JSON.parse(readFileSync(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')) as SystemDocumentInput;
+    const a = analyzeSystem(doc);
+    expect(a.warnings.length).toBeGreaterThan(0);
+    const ids = new Set<string>([...doc.segments.map((s) => s.id), ...doc.nodes.map((n) => n.id), ...(doc.devices ?? []).map((d) => d.id)]);
+    for (const w of a.warnings) {
+      if (w.elementId !== null) expect(w.elementLabel, `${w.code} ${w.elementId}`).toEqual(expect.any(String));
+      for (const id of ids) {
+        // ids in this document are short codes like "seg-12"; a label may contain a word equal to one only by chance
+        if (id.length > 3) expect(w.detail ?? '', `${w.code} detail names ${id}`).not.toContain(`"${id}"`);
+      }
+      expect(w.detail ?? '').not.toMatch(/\(s\)/); // proper plurals
+    }
   });
 });
