@@ -48,7 +48,7 @@ const SHOWS: Record<WalkStepId, (a: Analysis, d: SystemDocument) => Promise<void
     expect(screen.getByTestId(`fitting-loss-${first.id}`).textContent).toContain(`Σ K = ${fmt(result.fittingsK, 2)}`);
   },
   elevation: async (_a, d) => {
-    const top = [...d.nodes].sort((x, y) => y.elevation - x.elevation)[0];
+    const top = [...d.nodes].sort((x, y) => (y.elevation ?? 0) - (x.elevation ?? 0))[0];
     expect(valueOf(`Elevation of ${top.label || top.id} (${u.elevation})`)).toBe(String(top.elevation));
   },
   fixtures: async (a) => {
