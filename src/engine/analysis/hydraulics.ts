@@ -254,6 +254,7 @@ export function computeHydraulics(
         // Design flow: gain(Q) on the pump's curve. No flow: the shutoff gain for the high static
         // (the worst case for the maximum); the design gain for the low static (the least it adds running).
         const gain = constantSpeedGainPa(b, Q);
+        if (gain === 0 && b.shutoffPa > 0) warnings.push(makeWarning('booster-beyond-curve', 'device', d.id));
         if (gain > 0) {
           loss -= gain;
           boosterSeen = true;

@@ -34,7 +34,8 @@ export function checkRanges(doc: SystemDocument): void {
       more++;
       return;
     }
-    const where = elementId ? `${elementType} "${elementId}"` : elementType;
+    const name = elementId === null ? undefined : labelOf(doc, elementType, elementId);
+    const where = elementId ? `${elementType} "${name ?? elementId}"` : elementType;
     issues.push({ code: 'value-out-of-range', elementType, elementId, field, path, message: `${where}, field "${field}": ${value} — ${problem}` });
   };
 
@@ -144,5 +145,26 @@ export function checkRanges(doc: SystemDocument): void {
       message: first.message + extra,
       issues,
     });
+  }
+}
+
+/** The name the user typed for an element, for the message (the id stays in elementId). */
+function labelOf(doc: SystemDocument, elementType: ElementType, elementId: string): string | undefined {
+  switch (elementType) {
+    case 'segment':
+    case 'fitting':
+      return doc.segments.find((s) => s.id === elementId)?.label || undefined;
+    case 'node':
+    case 'fixture-group':
+      return doc.nodes.find((n) => n.id === elementId)?.label || undefined;
+    case 'device':
+      return doc.devices.find((d) => d.id === elementId)?.label || undefined;
+    case 'floor':
+      return doc.floors.find((f) => f.id === elementId)?.name || undefined;
+    case 'checked-fixture':
+      for (const n of doc.nodes) for (const f of n.checkedFixtures) if (f.id === elementId) return f.label || undefined;
+      return undefined;
+    default:
+      return undefined;
   }
 }

@@ -65,6 +65,17 @@ describe('constant-speed booster: the static check at shutoff', () => {
     expectClose(a.segments[0].devices[0].loss, -27.5, { rtol: RTOL }, 'gain on the curve');
   });
 
+  it('beyond the end of its curve the pump adds nothing, and says so', () => {
+    // Design point 20 psi at 1 gpm; the system draws 2 gpm: 30 − 10·(2/1)² = −10 → no gain (0).
+    const doc = base({
+      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Small booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30, designFlow: 1 } }],
+    });
+    const a = analyzeSystem(doc);
+    expect(a.segments[0].devices[0].loss).toBe(0);
+    const w = a.warnings.find((x) => x.code === 'booster-beyond-curve')!;
+    expect(w.elementLabel).toBe('Small booster');
+  });
+
   it('a variable-speed booster holds its set discharge pressure, at flow and at no flow', () => {
     const doc = base({
       devices: [{ id: 'bp', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'variable-speed', setPressure: 75 } }],
