@@ -52,6 +52,7 @@ export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type
 export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
 export {
   LIMITS,
+  FIELD_QUANTITIES,
   checkRange,
   rangeText,
   limitUnit,

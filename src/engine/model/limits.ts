@@ -349,3 +349,52 @@ export function checkRange(quantity: LimitQuantity, value: number, unitSystem: U
   }
   return null;
 }
+
+/**
+ * Which range applies to each numeric field of a document, by its path with `[]` for a list
+ * index (the engine's checks in analysis/ranges.ts follow the same table; forms look fields up here).
+ */
+export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.freeze({
+  waterTemperature: 'waterTemperature',
+  'source.staticPressureLow': 'staticPressure',
+  'source.staticPressureHigh': 'staticPressure',
+  'source.flowTest.staticPressure': 'staticPressure',
+  'source.flowTest.residualPressure': 'staticPressure',
+  'source.flowTest.flow': 'flow',
+  'devices[].loss.loss': 'pressureLoss',
+  'devices[].loss.points[].flow': 'flow',
+  'devices[].loss.points[].loss': 'pressureLoss',
+  'devices[].prv.setPressure': 'pressureSetting',
+  'devices[].prv.falloffPerFlow': 'pressureFalloff',
+  'devices[].boost.gain': 'pressureGain',
+  'devices[].boost.designGain': 'pressureGain',
+  'devices[].boost.shutoffGain': 'pressureGain',
+  'devices[].boost.designFlow': 'flow',
+  'devices[].boost.setPressure': 'pressureSetting',
+  'floors[].elevation': 'elevation',
+  'nodes[].elevation': 'elevation',
+  'nodes[].heightAboveFloor': 'heightAboveFloor',
+  'nodes[].continuousDemand': 'flow',
+  'nodes[].fixtureGroups[].count': 'fixtureCount',
+  'nodes[].fixtureGroups[].custom.wsfuCold': 'fixtureUnits',
+  'nodes[].fixtureGroups[].custom.wsfuHot': 'fixtureUnits',
+  'nodes[].fixtureGroups[].custom.wsfuTotal': 'fixtureUnits',
+  'nodes[].fixtureGroups[].usage.flow': 'fixtureFlow',
+  'nodes[].fixtureGroups[].usage.durationSeconds': 'useDuration',
+  'nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
+  'nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
+  'nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
+  'segments[].length': 'length',
+  'segments[].rise': 'rise',
+  'segments[].flowOverride': 'flow',
+  'segments[].custom.innerDiameter': 'innerDiameter',
+  'segments[].custom.roughness': 'roughness',
+  'segments[].custom.hazenWilliamsC': 'hazenWilliamsC',
+  'segments[].fittings[].count': 'fittingCount',
+  'segments[].fittings[].custom.k': 'lossCoefficient',
+  'segments[].fittings[].custom.equivalentLength': 'equivalentLength',
+  'criteria.maxStaticPressure': 'staticPressure',
+  'criteria.minStaticPressure': 'staticPressure',
+  'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
+  'criteria.minFlowPressures.*': 'minFlowPressure',
+});

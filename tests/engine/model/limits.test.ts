@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkRange, LIMITS, rangeText, siBase, formatBound, type LimitQuantity } from '../../../src/engine';
+import { checkRange, FIELD_QUANTITIES, LIMITS, rangeText, siBase, formatBound, type LimitQuantity } from '../../../src/engine';
+import { systemDocumentJsonSchema } from '../../../src/engine/model/schema';
 import { toSI } from '../../../src/engine/units';
 import { expectClose } from '../../helpers/expectClose';
 
@@ -50,5 +51,25 @@ describe('plausible input ranges (model/limits.ts)', () => {
     expect(formatBound(-1000)).toBe('−1,000');
     expect(formatBound(0.5)).toBe('0.5');
     expect(formatBound(86400)).toBe('86,400');
+  });
+});
+
+describe('FIELD_QUANTITIES', () => {
+  it('names a range for every numeric field of the document format (read from its JSON Schema)', () => {
+    // Walk the JSON Schema: every property of type number or integer, by path with [] for list items.
+    const schema = systemDocumentJsonSchema() as Record<string, unknown>;
+    const numeric: string[] = [];
+    const walk = (node: unknown, path: string): void => {
+      if (node === null || typeof node !== 'object') return;
+      const n = node as Record<string, unknown>;
+      if ((n.type === 'number' || n.type === 'integer') && path !== 'schemaVersion') numeric.push(path);
+      for (const key of ['anyOf', 'oneOf', 'allOf']) for (const sub of (n[key] as unknown[] | undefined) ?? []) walk(sub, path);
+      if (n.items) walk(n.items, `${path}[]`);
+      if (n.additionalProperties && typeof n.additionalProperties === 'object') walk(n.additionalProperties, `${path}.*`);
+      for (const [k, v] of Object.entries((n.properties as Record<string, unknown>) ?? {})) walk(v, path ? `${path}.${k}` : k);
+    };
+    walk(schema, '');
+    expect(numeric.length).toBeGreaterThan(30);
+    for (const p of numeric) expect(FIELD_QUANTITIES[p], p).toBeDefined();
   });
 });
