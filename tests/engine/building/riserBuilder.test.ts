@@ -57,7 +57,7 @@ describe('the riser builder', () => {
     expect(expanded.segments).toHaveLength(3 + 40 * 9 + 320 * 7);
     // 4 service nodes + 40·9 riser and main-tap nodes + 320 · 7 apartment nodes.
     expect(expanded.nodes).toHaveLength(4 + 40 * 9 + 320 * 7);
-    const checked = expanded.nodes.flatMap((n) => ('checkedFixtures' in n ? n.checkedFixtures ?? [] : []));
+    const checked = expanded.nodes.flatMap((n) => ((n as { checkedFixtures?: { id: string }[] }).checkedFixtures ?? []));
     expect(checked).toHaveLength(320);
     expect(new Set(checked.map((c) => c.id)).size).toBe(320);
   });
@@ -65,7 +65,7 @@ describe('the riser builder', () => {
   it('when the apartments are expanded, then the cold fixture units per apartment are the catalog sum', () => {
     const doc = apartmentBuildingDocument(4);
     const expanded = expandBuilding(doc);
-    const groups = expanded.nodes.flatMap((n) => ('fixtureGroups' in n ? n.fixtureGroups ?? [] : []));
+    const groups = expanded.nodes.flatMap((n) => ((n as { fixtureGroups?: { fixtureTypeId: string; count: number }[] }).fixtureGroups ?? []));
     let cold = 0;
     for (const g of groups) cold += (FIXTURE_TYPES[g.fixtureTypeId]!.wsfu.cold ?? 0) * g.count;
     // IPC Table E103.3(2) cold loads: WC tank 2.2, lavatory 0.5, shower 1.0, kitchen sink 1.0,
