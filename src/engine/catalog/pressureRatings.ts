@@ -16,6 +16,7 @@
  * - null where no published rating is known (PVC and steel: no table was found).
  */
 import { celsiusToFahrenheit, PA_PER_PSI } from '../units';
+import { NOT_VERIFIED } from './notVerified';
 
 export interface PressureRating {
   ratingPa: number;
@@ -76,8 +77,7 @@ const CPVC_SOURCE =
 // it at 80 °F gives the lower (conservative) rating between 73 and 120 °F, but the value there is
 // flagged as not verified.
 const CPVC_DOUBTFUL_BELOW_F = 120;
-const CPVC_DOUBT =
-  'the 328 psi row is printed against 80 °F in the chart as retrieved; the usual derating factor 0.82 belongs to 100 °F (from memory), so between 73 and 120 °F the lower reading is used and is not verified';
+const CPVC_DOUBT = `between 73 and 120 °F: the 328 psi row is printed against 80 °F in the chart as retrieved, while the usual derating factor 0.82 belongs to 100 °F; the lower (80 °F) reading is used, ${NOT_VERIFIED}`;
 
 // ---------------------------------------------------------------- PEX SDR 9 (ASTM F876)
 
@@ -86,7 +86,7 @@ const CPVC_DOUBT =
 // (plumbing-trade articles), not in the standard's text: flagged unverified.
 const PEX_SDR9: Curve = [[73.4, 160], [180, 100], [200, 80]];
 const PEX_SOURCE =
-  'PEX SDR 9 (ASTM F876 Appendix X1, three rated temperatures: 160 psi at 73.4 °F, 100 psi at 180 °F, 80 psi at 200 °F) as restated by secondary trade pages; the standard\'s own table was not seen';
+  `PEX SDR 9 (ASTM F876 Appendix X1, three rated temperatures: 160 psi at 73.4 °F, 100 psi at 180 °F, 80 psi at 200 °F) as restated by plumbing-trade pages, ${NOT_VERIFIED}`;
 
 // ---------------------------------------------------------------- Copper (ASTM B88), soldered
 
@@ -156,6 +156,15 @@ function copperRating(type: 'K' | 'L' | 'M', sizeKey: string, tF: number): Press
     verified: true,
   };
 }
+
+/** Every published table behind pressureRating, with its verification status (for unverifiedSources()). */
+export const PRESSURE_RATING_SOURCES: readonly { id: string; label: string; source: string; verified: boolean }[] = Object.freeze([
+  { id: 'cpvc-sdr11', label: 'CPVC SDR 11 pressure rating', source: CPVC_SOURCE, verified: true },
+  { id: 'cpvc-sdr11-73-120F', label: 'CPVC SDR 11 pressure rating, 73–120 °F', source: `${CPVC_SOURCE} (${CPVC_DOUBT})`, verified: false },
+  { id: 'pex-sdr9', label: 'PEX SDR 9 pressure rating', source: PEX_SOURCE, verified: false },
+  { id: 'copper-type-m-drawn', label: 'Copper Type M drawn tube rating', source: TYPE_M_SOURCE, verified: true },
+  { id: 'copper-joint-95-5', label: 'Soldered copper joint rating', source: JOINT_SOURCE, verified: true },
+]);
 
 function curveRating(curve: Curve, source: string, tF: number, verified: boolean): PressureRating | null {
   const reading = readCurve(curve, tF);
