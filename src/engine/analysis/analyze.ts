@@ -5,8 +5,10 @@
  */
 import { EngineInputError } from '../errors';
 import { makeWarning, type EngineWarning } from '../warnings';
-import { buildModel, parseDocument } from './input';
+import { borrowPipes, buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
+import { resolveElevations } from './elevations';
+import { runStaticChecks } from './staticChecks';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -25,15 +27,18 @@ export function analyzeSystem(doc: unknown): Analysis {
 export function analyzeValidated(parsed: SystemDocument): Analysis {
   const model = buildModel(parsed);
   const topo = buildTopology(model);
+  borrowPipes(model, topo.order, topo.parentSeg);
+  const elev = resolveElevations(model, topo);
   const warnings: EngineWarning[] = [];
   for (const use of model.projectData) {
     warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
   }
   const demand = computeDemand(model, topo, warnings);
-  const hyd = computeHydraulics(model, topo, demand, warnings);
+  const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);
+  const stat = runStaticChecks(model, topo, hyd, elev, warnings);
   // assembleReport ends with the last guard: no NaN or Infinity in the SI results (finite.ts).
-  return assembleReport(model, topo, demand, hyd, checks, warnings);
+  return assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
 }
 
 export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };

@@ -49,11 +49,16 @@ describe('bad input → structured error', () => {
     expectError(d, 'source-has-feed', 'segment', 'back', 'to');
   });
 
-  it('a disconnected segment', () => {
+  it('a disconnected segment is not an error (document version 2): the verdict is incomplete and names the part', () => {
+    // Before version 2 this was the error disconnected-segment; a part not yet connected is now a
+    // description in progress, so the analysis runs and never shows green.
     const d = clone(smallTree());
-    d.nodes.push({ id: 'p', elevation: 0 }, { id: 'q', elevation: 0 });
+    d.nodes.push({ id: 'p', label: 'Island start', elevation: 0 }, { id: 'q', elevation: 0 });
     d.segments.push({ id: 'pq', from: 'p', to: 'q', material: 'copper-l', size: '1', length: 3 });
-    expectError(d, 'disconnected-segment', 'segment', 'pq', 'from');
+    const a = analyzeSystem(d);
+    expect(a.verdict.status).toBe('incomplete');
+    const reason = a.verdict.incomplete.find((r) => r.code === 'part-unreachable')!;
+    expect(reason.message).toBe('2 nodes and 1 segment are not connected to the source, starting with "Island start": connect them or remove them.');
   });
 
   it('no source node', () => {
