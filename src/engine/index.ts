@@ -45,6 +45,7 @@ export {
 } from './model/schema';
 export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu, boosterDesignGain, boosterText } from './model/labels';
 export { nodeElevations, segmentRises } from './model/positions';
+export { readSystemDocument, type ReadResult } from './model/read';
 export { upgradeDocument, upgradeDocumentWithReport, type RiseConflictRule, type RiseConflict, type UpgradeOptions } from './model/upgrade';
 export { SystemDocumentSchemaV1, SCHEMA_VERSION_V1, type SystemDocumentV1 } from './model/schemaV1';
 export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';

@@ -10,6 +10,7 @@ import { borrowPipes, buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
 import { resolveElevations } from './elevations';
 import { runStaticChecks } from './staticChecks';
+import { labelWarnings } from './names';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -39,6 +40,7 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);
   const stat = runStaticChecks(model, topo, hyd, elev, warnings);
+  labelWarnings(model, warnings);
   // assembleReport ends with the last guard: no NaN or Infinity in the SI results (finite.ts).
   return assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
 }

@@ -132,7 +132,7 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
         'demand-table-extrapolated',
         'segment',
         extrapolatedIds,
-        `${extrapolatedIds.length} segment(s) below the first row of the table (its flow held) or beyond its last row`,
+        `${extrapolatedIds.length} ${extrapolatedIds.length === 1 ? 'segment' : 'segments'} below the first row of the table (its flow held) or beyond its last row`,
       ),
     );
   }

@@ -11,7 +11,7 @@
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
 import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
-import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, type FittingKResult } from '../fittings';
+import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, FITTING_TYPES, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
 import { G } from '../units';
@@ -192,7 +192,7 @@ export function computeHydraulics(
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {
           warnings.push(
-            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
+            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
           );
         }
       }
@@ -254,6 +254,7 @@ export function computeHydraulics(
         // Design flow: gain(Q) on the pump's curve. No flow: the shutoff gain for the high static
         // (the worst case for the maximum); the design gain for the low static (the least it adds running).
         const gain = constantSpeedGainPa(b, Q);
+        if (gain === 0 && b.shutoffPa > 0) warnings.push(makeWarning('booster-beyond-curve', 'device', d.id));
         if (gain > 0) {
           loss -= gain;
           boosterSeen = true;

@@ -26,7 +26,8 @@ import type {
   SourceResult,
 } from './types';
 
-export const ENGINE_VERSION = '0.1.0';
+/** 0.2.0: document version 2 (positions, boosters by curve), incomplete reasons, worst-case static checks. */
+export const ENGINE_VERSION = '0.2.0';
 
 const FITTING_METHOD_LABELS: Record<string, MethodUsed> = {
   crane: {

@@ -25,7 +25,7 @@ import type { Topology } from './topology';
 import type { HydraulicsResult } from './hydraulics';
 import type { ElevationResult } from './elevations';
 import type { StaticChecks } from './types';
-import { formatPressure, nodeName, segmentName } from './names';
+import { formatPressure, nodeName, segmentLabel } from './names';
 
 export interface StaticChecksResult {
   /** In the document's units (the Analysis field). */
@@ -73,12 +73,14 @@ export function runStaticChecks(
   // PRV fails open
   const max = model.criteria.maxStaticPressurePa;
   const prvFailOpen: StaticChecks['prvFailOpen'] = [];
+  let children: Map<number, number[]> | null = null;
   for (const devs of model.devicesBySeg) {
     for (const d of devs) {
       if (!d.prv) continue;
       const high = staticHighWithout(model, topo, elev, d.id);
       const segIdx = d.segIdx;
-      const below = subtreeNodes(model, topo, model.segments[segIdx].to);
+      children ??= childNodes(model, topo);
+      const below = subtreeNodes(children, model.segments[segIdx].to);
       let over = 0;
       let worst = -1;
       for (const n of below) {
@@ -137,7 +139,7 @@ export function runStaticChecks(
     const pass = pa <= rating.ratingPa;
     pipeRatings.push({
       segmentId: seg.id,
-      label: segmentName(model, s),
+      label: segmentLabel(model, s),
       materialLabel,
       ratingPressure: toDoc(rating.ratingPa),
       highestStatic: toDoc(pa),
@@ -154,7 +156,6 @@ export function runStaticChecks(
         seg.id,
         `${materialLabel}: up to ${formatPressure(pa, sys)} static, rated ${formatPressure(rating.ratingPa, sys)} at the water temperature (${rating.source}).`,
       );
-      w.elementLabel = segmentName(model, s);
       warnings.push(w);
     }
   }
@@ -220,8 +221,8 @@ function staticHighWithout(model: SiModel, topo: Topology, elev: ElevationResult
   return high;
 }
 
-/** The node `root` and every node below it. */
-function subtreeNodes(model: SiModel, topo: Topology, root: number): number[] {
+/** The nodes fed from each node (reached part of the tree). */
+function childNodes(model: SiModel, topo: Topology): Map<number, number[]> {
   const children = new Map<number, number[]>();
   for (let k = 0; k < topo.order.length; k++) {
     const seg = model.segments[topo.order[k]];
@@ -229,6 +230,11 @@ function subtreeNodes(model: SiModel, topo: Topology, root: number): number[] {
     if (list) list.push(seg.to);
     else children.set(seg.from, [seg.to]);
   }
+  return children;
+}
+
+/** The node `root` and every node below it. */
+function subtreeNodes(children: Map<number, number[]>, root: number): number[] {
   const out: number[] = [];
   const stack = [root];
   while (stack.length > 0) {

@@ -339,13 +339,13 @@ export function rangeText(quantity: LimitQuantity, unitSystem: UnitSystem): stri
  */
 export function checkRange(quantity: LimitQuantity, value: number, unitSystem: UnitSystem): string | null {
   const lim = LIMITS[quantity];
-  const range = rangeText(quantity, unitSystem);
-  if (typeof value !== 'number' || !Number.isFinite(value)) return `Enter a number: ${range}`;
-  if (lim.integer && !Number.isInteger(value)) return `Enter a whole number: ${range}`;
+  // The message is built only for a value refused (the engine checks every number of a document).
+  if (typeof value !== 'number' || !Number.isFinite(value)) return `Enter a number: ${rangeText(quantity, unitSystem)}`;
+  if (lim.integer && !Number.isInteger(value)) return `Enter a whole number: ${rangeText(quantity, unitSystem)}`;
   const { min, max } = lim[unitSystem];
   const belowMin = lim.minExclusive ? value <= min : value < min;
   if (belowMin || value > max) {
-    return `Out of range: ${range}${lim.minExclusive ? ` (more than ${formatBound(min)})` : ''}`;
+    return `Out of range: ${rangeText(quantity, unitSystem)}${lim.minExclusive ? ` (more than ${formatBound(min)})` : ''}`;
   }
   return null;
 }

@@ -168,3 +168,51 @@ describe('bad input → structured error', () => {
     }
   });
 });
+
+describe('positions (document version 2)', () => {
+  it('a node on a floor sits at the floor elevation plus its height above it', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L2';
+    d.nodes[1].heightAboveFloor = 0.9;
+    const a = analyzeSystem(d);
+    expect(a.nodes[1].elevation).toBe(2.5 + 0.9);
+    expect(a.verdict.status).toBe('pass');
+  });
+
+  it('a node naming a floor that does not exist', () => {
+    const d = clone(oneSegment());
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L9';
+    expectError(d, 'unknown-floor', 'node', 'end', 'floor');
+  });
+
+  it('a node with both an elevation and a floor', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    d.nodes[1].floor = 'L2';
+    expectError(d, 'node-position-conflict', 'node', 'end', 'floor');
+  });
+
+  it('a height above floor without a floor', () => {
+    const d = clone(oneSegment());
+    d.nodes[1].heightAboveFloor = 1;
+    expectError(d, 'node-position-conflict', 'node', 'end', 'heightAboveFloor');
+  });
+
+  it('a rise on the feed of a node on a floor', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L2';
+    d.segments[0].rise = 2.5;
+    expectError(d, 'rise-and-elevation', 'segment', 's1', 'rise');
+  });
+
+  it('two floors with one id', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }, { id: 'L2', name: 'Level 2 again', elevation: 5 }];
+    expectError(d, 'duplicate-id', 'floor', 'L2', 'id');
+  });
+});
