@@ -28,7 +28,7 @@ async function calc(...args: string[]): Promise<{ code: number; stdout: string; 
   }
 }
 
-function tempDoc(mutate: (doc: Record<string, any>) => void): string {
+function tempDoc(mutate: (doc: { segments: { length: number }[] }) => void): string {
   const doc = JSON.parse(readFileSync(SMALL, 'utf8'));
   mutate(doc);
   const file = path.join(mkdtempSync(path.join(tmpdir(), 'headroom-calc-')), 'system.json');
