@@ -5,6 +5,7 @@
  */
 import { EngineInputError } from '../errors';
 import { makeWarning, type EngineWarning } from '../warnings';
+import { expandBuilding } from '../building/expand';
 import { borrowPipes, buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
 import { resolveElevations } from './elevations';
@@ -26,7 +27,8 @@ export function analyzeSystem(doc: unknown): Analysis {
  * what the live client re-runs on every edit. Catalog, reference and topology checks still run.
  */
 export function analyzeValidated(parsed: SystemDocument): Analysis {
-  const model = buildModel(parsed);
+  // Typical units placed on floors become ordinary nodes and segments first (building/expand.ts).
+  const model = buildModel(expandBuilding(parsed) as SystemDocument);
   const topo = buildTopology(model);
   borrowPipes(model, topo.order, topo.parentSeg);
   const elev = resolveElevations(model, topo);

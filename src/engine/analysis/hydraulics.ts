@@ -10,7 +10,7 @@
  *   a variable-speed booster's is p − max(p − its own loss, set discharge pressure));
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
-import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
+import { darcyFrictionFactor, hazenWilliamsPressureLoss, type FlowRegime } from '../friction';
 import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, FITTING_TYPES, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
@@ -142,7 +142,7 @@ export function computeHydraulics(
     let regime: FlowRegime = Re >= 4000 ? 'turbulent' : Re >= 2300 ? 'transitional' : 'laminar';
     if (Q > 0) {
       if (method === 'hazen-williams') {
-        frictionPa = rhoG * hazenWilliamsHeadLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
+        frictionPa = hazenWilliamsPressureLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
         // Darcy factor equivalent to the Hazen–Williams loss, for reporting and for the fittings.
         f = (frictionPa * D) / (seg.lengthM * dynamicPressure);
       } else {

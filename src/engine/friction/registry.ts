@@ -33,7 +33,7 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018513866077471648,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Colebrook(1e5, 1e-4)',
+      source: 'Colebrook (1939) solved at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'swamee-jain': {
@@ -46,7 +46,7 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018452424431901808,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Swamee_Jain_1976(1e5, 1e-4)',
+      source: 'Swamee & Jain (1976) at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'churchill-1977': {
@@ -59,7 +59,7 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018462624566280075,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Churchill_1977(1e5, 1e-4)',
+      source: 'Churchill (1977) at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'hazen-williams': {

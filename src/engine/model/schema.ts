@@ -44,6 +44,15 @@ export const DOCUMENT_BOUNDS = Object.freeze({
   fixtureGroupsPerNode: 100,
   checkedFixturesPerNode: 100,
   fittingsPerSegment: 100,
+  /**
+   * A unit type is one apartment, room or restroom: 200 segments is several times the branch
+   * piping of the largest apartment or restroom core; 2,000 types and 20,000 placements cover a
+   * 40-storey tower of 20 units a floor many times over.
+   */
+  unitSegments: 200,
+  unitNodes: 201,
+  unitTypes: 2000,
+  placements: 20000,
   /** A manufacturer's loss curve is read at 5–20 points. */
   curvePoints: 100,
   /** Three material classes × two services, with room for repeats. */
@@ -318,6 +327,68 @@ export const CriteriaOverridesSchema = z
   })
   .describe("Overrides of the engine's default criteria; the local code governs.");
 
+/**
+ * Typical units (an apartment, a room, a restroom) defined once and placed on floors. A unit type
+ * holds its own branch piping, fixture groups and checked fixtures with local ids; its one inlet
+ * segment starts at "inlet", which a placement connects to a node of the main tree. The analysis
+ * expands placements into ordinary nodes and segments first (src/engine/building/expand.ts), so
+ * editing the type changes every placement, and a placement's override is data of its own.
+ * Unit nodes sit on the placement's floor at their height above it; rises are never typed here.
+ */
+export const UNIT_INLET = 'inlet';
+
+export const UnitNodeSchema = z.strictObject({
+  id: id().refine((v) => v !== UNIT_INLET, { message: `"${UNIT_INLET}" names the unit's connection point` }),
+  label: label().optional(),
+  heightAboveFloor: z.number().min(0).max(100).default(0).describe('Height above the floor, length unit.'),
+  fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
+  checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
+});
+
+export const UnitSegmentSchema = z.strictObject({
+  id: id(),
+  label: label().optional(),
+  from: id().describe(`Upstream node: "${UNIT_INLET}" (the placement's connection) or a node of the unit.`),
+  to: id().describe('Downstream node of the unit.'),
+  material: id().optional(),
+  size: id().optional(),
+  custom: CustomPipeSchema.optional(),
+  length: positive().describe('Developed length, length unit.'),
+  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).default([]),
+});
+
+export const UnitTypeSchema = z.strictObject({
+  id: id(),
+  name: label().min(1),
+  nodes: z.array(UnitNodeSchema).min(1).max(B.unitNodes),
+  segments: z.array(UnitSegmentSchema).min(1).max(B.unitSegments),
+});
+
+/** Fields a placement may change on one of its unit's segments or nodes. */
+export const SegmentOverrideSchema = z.strictObject({
+  length: positive().optional(),
+  material: id().optional(),
+  size: id().optional(),
+  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).optional(),
+});
+export const NodeOverrideSchema = z.strictObject({
+  heightAboveFloor: z.number().min(0).max(100).optional(),
+});
+
+export const PlacementSchema = z.strictObject({
+  id: id(),
+  unitTypeId: id(),
+  label: label().min(1).describe('The occurrence as the drawings name it, e.g. "Apt 704".'),
+  floor: id().describe('Floor id.'),
+  at: id().describe('Node of the main tree where the unit connects (its inlet segment starts there).'),
+  overrides: z
+    .strictObject({
+      segments: z.record(id(), SegmentOverrideSchema).optional(),
+      nodes: z.record(id(), NodeOverrideSchema).optional(),
+    })
+    .optional(),
+});
+
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
@@ -330,6 +401,8 @@ export const SystemDocumentSchema = z.strictObject({
   floors: z.array(FloorSchema).max(B.floors).default([]).describe('Named levels on which nodes may be placed.'),
   nodes: z.array(NodeSchema).min(1).max(B.nodes),
   segments: z.array(SegmentSchema).max(B.segments),
+  unitTypes: z.array(UnitTypeSchema).max(B.unitTypes).optional().describe('Typical units, defined once.'),
+  placements: z.array(PlacementSchema).max(B.placements).optional().describe('Occurrences of the unit types on floors.'),
   criteria: CriteriaOverridesSchema.optional(),
   notes: z.string().max(B.notesLength).optional(),
 });
@@ -341,6 +414,10 @@ export type Source = z.infer<typeof SourceSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
 export type Boost = z.infer<typeof BoostSchema>;
 export type Floor = z.infer<typeof FloorSchema>;
+export type UnitType = z.infer<typeof UnitTypeSchema>;
+export type UnitTypeInput = z.input<typeof UnitTypeSchema>;
+export type Placement = z.infer<typeof PlacementSchema>;
+export type PlacementInput = z.input<typeof PlacementSchema>;
 export type DeviceLoss = z.infer<typeof DeviceLossSchema>;
 export type SystemNode = z.infer<typeof NodeSchema>;
 export type FixtureGroup = z.infer<typeof FixtureGroupSchema>;
