@@ -178,8 +178,17 @@ describe('minimum static at the highest checked fixture', () => {
 describe('the demo building (Alder & Finch, cold) with its booster described by a curve', () => {
   const demo = () => JSON.parse(readFileSync(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8'));
 
-  it('as stored (one gain of 24 psi) it is incomplete: the shutoff is not known', () => {
-    expect(analyzeSystem(demo()).verdict.incomplete.map((r) => r.code)).toStrictEqual(['booster-shutoff-missing']);
+  it("described by version 1's one gain of 24 psi it is incomplete: the shutoff is not known", () => {
+    const d = demo();
+    d.devices.find((x: { id: string }) => x.id === 'booster').boost = { gain: 24 };
+    expect(analyzeSystem(d).verdict.incomplete.map((r) => r.code)).toStrictEqual(['booster-shutoff-missing']);
+  });
+
+  it('as shipped (a variable-speed package holding its discharge pressure) it passes, every static within 80 psi', () => {
+    const a = analyzeSystem(demo());
+    expect(a.staticChecks.boosters[0].control).toBe('variable-speed');
+    expect(a.verdict.status).toBe('pass');
+    expect(a.nodes.every((n) => n.staticPass !== false)).toBe(true);
   });
 
   it('a constant-speed pump with a 30 psi shutoff puts 8 fixture nodes over 80 psi (81.5 psi), as a hand trial on the product found', () => {
