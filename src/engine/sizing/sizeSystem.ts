@@ -32,7 +32,8 @@
  *   5. One analysis of the sized document verifies it. The model leaves out the sudden expansion
  *      or contraction loss where sizes change (reducerAuto), which depends on two neighbours' sizes;
  *      if the verification finds a fixture short by that amount, its slack is reduced by the
- *      shortfall and step 4 repeats (at most MAX_REPAIRS times).
+ *      shortfall (times REPAIR_FACTOR) and step 4 repeats (at most MAX_REPAIRS times); the answer is
+ *      then a safe, not necessarily the least, choice where sizes change along a path.
  * On a tree without size-change losses the answer is therefore the exact minimum (proved by the
  * exhaustive-search test in tests/engine/sizing). When no choice passes, the result says by how
  * much (every free segment at its largest size) and what a booster at the source must add.
@@ -49,6 +50,11 @@ import { combine, prune, type ParetoPoint } from './pareto';
 
 /** Repairs of the size-change losses the model leaves out (step 5). */
 const MAX_REPAIRS = 3;
+/** A repair asks for 1.5 × the shortfall plus 10 Pa (about 0.0015 psi): a tuning choice of this engine, not a published value, chosen to converge in one or two rounds. */
+const REPAIR_FACTOR = 1.5;
+const REPAIR_ALLOWANCE_PA = 10;
+/** Twins per probe analysis: within the document bound on segments with room for the main tree. */
+const PROBE_SEGMENTS = 10_000;
 /** Velocities equal to the limit within round-off pass (as the analysis's check does). */
 const VELOCITY_RTOL = 1e-9;
 
@@ -187,24 +193,24 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
 
   // Step 2: probes. Loss at the current size, without the size-change part (the model leaves it out).
   const baseLoss = segs.map((s) => s.frictionLoss + (s.totalK > 0 ? (s.fittingLoss * s.fittingsK) / s.totalK : 0));
-  const positions = Math.max(...[...candidates.values()].map((c) => c.sizes.length));
-  const probeLoss: number[][] = [];
-  const probeVelocity: number[][] = [];
-  for (let k = 0; k < positions; k++) {
-    const probe = probeDocument(doc, base, (i) => {
-      const c = candidates.get(segIndex.get(doc.segments[i].id) ?? -1);
-      return c ? c.sizes[Math.min(k, c.sizes.length - 1)] : undefined;
-    });
-    const r = run(probe).si.segments;
-    const byId = new Map(r.map((s) => [s.id, s]));
-    probeLoss.push(segs.map((s) => (byId.get(s.id)?.frictionLoss ?? 0) + (byId.get(s.id)?.fittingLoss ?? 0)));
-    probeVelocity.push(segs.map((s) => byId.get(s.id)?.velocity ?? 0));
+  const probeLoss = new Map<string, number>();
+  const probeVelocity = new Map<string, number>();
+  const jobs = [...candidates].flatMap(([, c]) => c.sizes.map((size, k) => ({ docIndex: c.docIndex, size, k })));
+  for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
+    const r = run(probeDocument(doc, base, jobs.slice(from, from + PROBE_SEGMENTS))).si.segments;
+    for (const s of r) {
+      probeLoss.set(s.id, s.frictionLoss + s.fittingLoss);
+      probeVelocity.set(s.id, s.velocity);
+    }
   }
 
   const free = new Map<number, Free>();
   for (const [index, c] of candidates) {
     const limit = segs[index].velocityLimit;
-    const rows = c.sizes.map((key, k) => ({ key, loss: probeLoss[k][index], velocity: probeVelocity[k][index] }));
+    const rows = c.sizes.map((key, k) => {
+      const id = probeId(doc.segments[c.docIndex].id, k);
+      return { key, loss: probeLoss.get(id)!, velocity: probeVelocity.get(id)! };
+    });
     let ok = rows.filter((r) => limit === null || r.velocity <= limit * (1 + VELOCITY_RTOL));
     const velocityMet = ok.length > 0;
     if (!velocityMet) ok = rows.slice(-1);
@@ -320,7 +326,8 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     after.si.fixtures.forEach((f, i) => {
       const short = f.required + marginPa - f.residual;
       if (short > 0 && paths[i].length > 0) {
-        nextAdjust[i] += short;
+        // Overshoot so that the sizes the repair moves do not need another round for their own size changes.
+        nextAdjust[i] += REPAIR_FACTOR * short + REPAIR_ALLOWANCE_PA;
         repaired = true;
       }
     });
@@ -434,20 +441,25 @@ function cutSegments(doc: SystemDocument, segIndex: Map<string, number>): Set<nu
   return cuts;
 }
 
-/** The main tree with every segment's flow fixed at its design flow, placements removed, sizes from `sizeOf`. */
-function probeDocument(doc: SystemDocument, base: Analysis, sizeOf: (docIndex: number) => string | undefined): SystemDocument {
+/**
+ * The main tree with every segment's flow fixed at its design flow and placements removed, plus
+ * one copy of a segment per size to measure: a dead-end twin from the same upstream node, level,
+ * carrying the same flow, fittings and material at the size measured. One analysis so measures
+ * many sizes (the copies do not change any flow: every flow is fixed).
+ */
+function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: number; size: string; k: number }[]): SystemDocument {
   const flow = new Map(base.segments.map((s) => [s.id, s.designFlow]));
-  return {
-    ...doc,
-    placements: undefined,
-    unitTypes: undefined,
-    segments: doc.segments.map((s, i) => ({
-      ...s,
-      size: sizeOf(i) ?? s.size,
-      flowOverride: flow.get(s.id) ?? 0,
-      reducerAuto: false,
-    })),
-  };
+  const fixed = doc.segments.map((s) => ({ ...s, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false }));
+  const twins = jobs.map(({ docIndex, size, k }) => {
+    const s = fixed[docIndex];
+    return { ...s, id: probeId(s.id, k), label: undefined, to: probeId(s.to, k), size, rise: 0 };
+  });
+  const twinNodes = twins.map((t) => ({ id: t.to, fixtureGroups: [], checkedFixtures: [] }));
+  return { ...doc, placements: undefined, unitTypes: undefined, nodes: [...doc.nodes, ...twinNodes], segments: [...fixed, ...twins] };
+}
+
+function probeId(id: string, k: number): string {
+  return `${id}#size-${k}`;
 }
 
 function withSizes(doc: SystemDocument, free: Map<number, Free>, chosen: Map<number, number>): SystemDocument {
