@@ -9,7 +9,9 @@ export type HotWaterErrorCode =
   | 'loop-empty'
   | 'heat-loss-missing'
   | 'temperature-drop-not-positive'
-  | 'no-size-passes';
+  | 'no-size-passes'
+  | 'size-missing'
+  | 'unknown-catalog-entry';
 
 export class HotWaterInputError extends Error {
   override readonly name = 'HotWaterInputError';
