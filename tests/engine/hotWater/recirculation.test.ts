@@ -89,8 +89,14 @@ describe('recirculation loop: order, return size, pump', () => {
   it('a heavier loss forces a bigger return', () => {
     const heavy = loop.map((s) => ({ ...s, heatLossW: (s.heatLossW ?? 0) * 40 }));
     const light = sizeRecirculation(input).segments[1].innerDiameterM;
-    const big = sizeRecirculation({ ...input, segments: heavy }).segments[1].innerDiameterM;
+    const heavyResult = sizeRecirculation({ ...input, segments: heavy });
+    const big = heavyResult.segments[1].innerDiameterM;
     expect(big).toBeGreaterThan(light);
+    // The size below the chosen one breaks a limit at this flow.
+    const sizes = [...MATERIALS['copper-l'].sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM);
+    const below = sizes[sizes.findIndex((z) => z.innerDiameterM === big) - 1].innerDiameterM;
+    const g = gradient(heavyResult.flowM3s, below);
+    expect(g.v > 5 * M_PER_FT || g.dpdx > RETURN_FRICTION_LIMIT_PA_PER_M).toBe(true);
   });
 
   it('pump head = Σ friction × 1.25 + heater loss, friction by Darcy–Weisbach with Swamee–Jain written out here', () => {
