@@ -170,5 +170,9 @@ export function fittingKOfEntry(entry: FittingTypeEntry, ctx: FittingContext): F
   if (entry.fixedK !== undefined) {
     return { K: entry.fixedK, method: ctx.method, fixedK: true, source: sourceFor(entry, 'fixed K'), fellBackFrom: ctx.method };
   }
-  throw new RangeError(`fittingK: fitting type '${entry.id}' has no data for any method`);
+  // A fitting published only as an equivalent length (manufacturers' PEX data): the length is used
+  // under every method, as a custom fitting's equivalent length is ("this many feet of this pipe").
+  const asLength = ctx.method === 'equivalent-length' ? undefined : tryEquivalentLength(entry, ctx);
+  if (asLength) return { ...asLength, fellBackFrom: ctx.method };
+  throw new RangeError(`fittingK: fitting type '${entry.id}' has no data for any method at size ${ctx.nominalSizeKey}`);
 }

@@ -2,6 +2,8 @@
  * The registry of fitting types. Each entry carries the data of every method that publishes it,
  * and names the source of each datum in `sources`. Press-connect and push-fit fittings are not in
  * any published table available here, so they are not listed (no K is invented for them).
+ * PEX insert fittings are listed from a manufacturer's published equivalent lengths (sizes 1/2–1 in
+ * only); PEX cold-expansion (F1960-type) rows were not retrieved from any source, so none is listed.
  */
 import { ENTRANCE_REENTRANT_K, ENTRANCE_SHARP_K, EXIT_K } from './expansion';
 import { IPC_E103_3_5, IPC_E103_3_5_SOURCE, type EquivalentLengthRow } from './equivalentLength';
@@ -35,6 +37,52 @@ const CRANE_1976_TEE =
   'Crane Technical Paper No. 410 (1976), standard tee, as reprinted by permission in Ludwig, Applied Process Design for Chemical and Petrochemical Plants, Vol. 1, 3rd ed., Table 2-2; used here with the 2009 f_T row, which gives K about 0.02 (run) and 0.06 (branch) below the 1976 K';
 const HOOPER = 'W. B. Hooper, Chemical Engineering 88(17), 96–100 (24 Aug 1981), two-K table';
 const DARBY = 'R. Darby, Chemical Engineering 106(7) (1999) and Chemical Engineering Fluid Mechanics, 2nd ed. (2001), three-K table';
+
+/**
+ * PEX insert fittings (an insert with a crimp ring), manufacturer data: Viega PEX Installation
+ * Manual (IM-PF 724596 0416), §10.2, equivalent feet of SDR 9 PEX tubing, "PEX Crimp" brass and
+ * PolyAlloy lines. The table's smallest-size row has lost its size label in the copy read, so it is
+ * left out; the manual does not name the ASTM fitting standard (F1807 brass / F2159 plastic inserts
+ * are the usual ones, from memory). Used as "this many feet of the segment's pipe".
+ */
+const VIEGA_PEX = 'Viega PEX Installation Manual (IM-PF 724596 0416) §10.2, equivalent feet of SDR 9 PEX tubing — manufacturer data, one maker\'s fittings';
+const PEX_INSERT_ROWS = {
+  brass: {
+    label: 'brass',
+    line: 'PEX Crimp, brass',
+    elbow: { '1/2': 9.4, '3/4': 9.4, '1': 10.0 },
+    teeRun: { '1/2': 2.2, '3/4': 1.9, '1': 2.3 },
+    teeBranch: { '1/2': 10.4, '3/4': 8.9, '1': 11.0 },
+  },
+  polymer: {
+    label: 'polymer',
+    line: 'PEX Crimp, PolyAlloy',
+    elbow: { '1/2': 16.5, '3/4': 17.4, '1': 18.0 },
+    teeRun: { '1/2': 7.2, '3/4': 6.6, '1': 6.0 },
+    teeBranch: { '1/2': 17.9, '3/4': 17.7, '1': 17.0 },
+  },
+} as const;
+
+function pexInsertEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> {
+  const out: Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> = {};
+  for (const [key, row] of Object.entries(PEX_INSERT_ROWS)) {
+    const kinds = [
+      ['elbow-90', 'elbow, 90°', row.elbow, 'elbow'],
+      ['tee-run', 'tee, flow through run', row.teeRun, 'tee run'],
+      ['tee-branch', 'tee, flow through branch', row.teeBranch, 'tee branch'],
+    ] as const;
+    for (const [suffix, what, lengths, column] of kinds) {
+      const id = `pex-insert-${key}-${suffix}`;
+      out[id] = {
+        id,
+        label: `PEX insert fitting (${row.label}), ${what}`,
+        equivalentLengthFt: Object.freeze({ ...lengths }),
+        sources: [`equivalent-length: ${row.line}, ${column} column, 1/2–1 in, ${VIEGA_PEX}`],
+      };
+    }
+  }
+  return out;
+}
 
 const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   'elbow-90-standard': {
@@ -229,6 +277,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
     fixedK: ENTRANCE_REENTRANT_K,
     sources: ['fixed K = 0.78: inward-projecting entrance, Crane Technical Paper No. 410 (2009)'],
   },
+  ...pexInsertEntries(),
   exit: {
     id: 'exit',
     label: 'Exit into a vessel',
