@@ -63,3 +63,8 @@ export {
   type Bounds,
 } from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';
+export { sizeSystem, SizingError } from './sizing/sizeSystem';
+export { thermalExpansionTank } from './hotWater/expansionTank';
+export { closedSystemCheck } from './hotWater/closedSystem';
+export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';
+export { HotWaterInputError } from './hotWater/errors';

@@ -10,6 +10,7 @@
  */
 import { EngineInputError } from '../errors';
 import { UNIT_INLET, type Placement, type UnitType } from './schema';
+import { DOCUMENT_BOUNDS } from '../model/schema';
 
 /** The node and segment shapes the expansion writes (the system document's, schemaVersion 2). */
 export interface ExpandedNode {
@@ -56,6 +57,13 @@ export function expandPlacements(
     if (types.has(t.id)) throw buildingError(t.id, `unit type "${t.id}": two unit types share this id`);
     checkUnitType(t);
     types.set(t.id, t);
+  }
+  // The expanded tree obeys the document's own bounds: placements × unit size may not exceed them.
+  const perType = new Map(unitTypes.map((t) => [t.id, t.segments.length]));
+  let expandedCount = treeNodeIds.size;
+  for (const p of placements) expandedCount += perType.get(p.unitTypeId) ?? 0;
+  if (expandedCount > DOCUMENT_BOUNDS.segments) {
+    throw buildingError('placements', `The placements expand to ${expandedCount} nodes and segments; a system holds at most ${DOCUMENT_BOUNDS.segments}. Split the building into systems (or zones).`);
   }
   const nodes: ExpandedNode[] = [];
   const segments: ExpandedSegment[] = [];

@@ -340,7 +340,7 @@ export const UNIT_INLET = 'inlet';
 export const UnitNodeSchema = z.strictObject({
   id: id().refine((v) => v !== UNIT_INLET, { message: `"${UNIT_INLET}" names the unit's connection point` }),
   label: label().optional(),
-  heightAboveFloor: z.number().min(0).max(100).default(0).describe('Height above the floor, length unit.'),
+  heightAboveFloor: z.number().min(0).max(50).default(0).describe('Height above the floor, length unit (0–50, the plausible range of limits.ts in feet; less in metres).'),
   fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
   checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
 });
@@ -372,7 +372,7 @@ export const SegmentOverrideSchema = z.strictObject({
   fittings: z.array(FittingSchema).max(B.fittingsPerSegment).optional(),
 });
 export const NodeOverrideSchema = z.strictObject({
-  heightAboveFloor: z.number().min(0).max(100).optional(),
+  heightAboveFloor: z.number().min(0).max(50).optional(),
 });
 
 export const PlacementSchema = z.strictObject({

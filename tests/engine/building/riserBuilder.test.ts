@@ -123,3 +123,10 @@ describe('bad building input gets a message naming the row or field, and nothing
     expect(() => buildRiser({ ...spec(), units: [{ ...spec().units[0], unitTypeId: 'penthouse' }] })).toThrow(/"penthouse" does not exist/);
   });
 });
+
+describe('the expanded building obeys the document bounds', () => {
+  it('when placements would expand past the node and segment bound, then the error says so before building anything', () => {
+    const many = Array.from({ length: 3000 }, (_, i) => ({ id: `p${i}`, unitTypeId: 'apartment-a', label: `Apt ${i}`, floor: 'level-1', at: 'tap' }));
+    expect(() => expandPlacements([APARTMENT_A], many, new Set(['level-1']), new Set(['tap']))).toThrow(/expand to 21001 nodes and segments; a system holds at most 20000/);
+  });
+});
