@@ -24,7 +24,6 @@ function verdictOf(stored: unknown): RevisionVerdict {
   const a = stored as StoredAnalysis;
   if (!a?.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: (a as { error?: { message?: string } })?.error?.message ?? 'Not analysed' };
   const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
-  const v = a.analysis.verdict;
   const status = verdictStatus(a.analysis);
   return {
     ok: true,
