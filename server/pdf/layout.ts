@@ -144,7 +144,6 @@ export class Layout {
         continue;
       }
       if (line) lines.push(line);
-      line = '';
       let rest = word;
       while (this.measure(rest, font, size) > width) {
         const chars = [...rest];

@@ -9,10 +9,11 @@ import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import type { EngineWarning } from '../../src/engine/warnings';
+import { NOT_VERIFIED } from '../../src/engine/catalog/notVerified';
 import { num, signed, utc, withUnit } from './format';
 
-/** Printed beside every value whose source is not verified against the printed code. */
-export const UNVERIFIED_NOTE = 'not verified against the printed code — confirm against the adopted edition';
+/** Printed beside every value whose source is not verified against the printed code (the catalog's own words). */
+export const UNVERIFIED_NOTE = NOT_VERIFIED;
 
 /** The designer's acknowledgement of a failing verdict, recorded at issue. */
 export interface FailureAcknowledgementText {
@@ -85,13 +86,13 @@ export function plural(n: number, one: string, many: string): string {
 }
 
 /** True when a source string or its entry says it was not checked against the printed code. */
-export function isUnverified(source: string, entry?: { verified?: boolean; memo?: string }): boolean {
-  return entry?.verified === false || entry?.memo === 'from memory' || /from memory/i.test(source);
+export function isUnverified(source: string, entry?: { verified?: boolean }): boolean {
+  return entry?.verified === false || source.includes(UNVERIFIED_NOTE) || /from memory/i.test(source);
 }
 
-/** A source as printed: the data's own words, with the unverified note where it applies. */
-export function sourceText(source: string, entry?: { verified?: boolean; memo?: string }): string {
-  return isUnverified(source, entry) ? `${source} (${UNVERIFIED_NOTE})` : source;
+/** A source as printed: the data's own words, with the unverified note added where the words lack it. */
+export function sourceText(source: string, entry?: { verified?: boolean }): string {
+  return isUnverified(source, entry) && !source.includes(UNVERIFIED_NOTE) ? `${source} (${UNVERIFIED_NOTE})` : source;
 }
 
 export interface SourceRow {
@@ -116,25 +117,26 @@ export function catalogSourcesUsed(doc: SystemDocument, fittingMethod?: string):
     for (const c of n.checkedFixtures ?? []) fixtures.add(c.fixtureTypeId);
   }
   for (const id of [...materials].sort()) {
-    const m = MATERIALS[id as keyof typeof MATERIALS] as (typeof MATERIALS)[keyof typeof MATERIALS] & { verified?: boolean };
+    const m = MATERIALS[id as keyof typeof MATERIALS];
     if (!m) continue;
-    const parts = [`inside diameters: ${m.dimensionSource}`, `roughness: ${m.roughnessSource}`, `Hazen–Williams C: ${m.hazenWilliamsSource}`];
-    const source = parts.join('; ');
-    rows.push({ kind: 'Pipe material', item: m.label, source, verified: !isUnverified(source, m) });
+    const unverified = new Set<string>(m.unverified ?? []);
+    const datum = (key: string, words: string, source: string) => `${words}: ${sourceText(source, { verified: !unverified.has(key) })}`;
+    const source = [datum('dimensions', 'inside diameters', m.dimensionSource), datum('roughness', 'roughness', m.roughnessSource), datum('hazenWilliamsC', 'Hazen–Williams C', m.hazenWilliamsSource)].join('; ');
+    rows.push({ kind: 'Pipe material', item: m.label, source, verified: m.verified !== false && unverified.size === 0 && !isUnverified(source) });
   }
   for (const id of [...fittings].sort()) {
-    const f = FITTING_TYPES[id] as (typeof FITTING_TYPES)[string] & { verified?: boolean };
+    const f = FITTING_TYPES[id];
     if (!f) continue;
     // the sources of the fitting method used ("crane: …", "hooper-2k: …"), plus any not tied to one method
     const tagged = /^(crane|hooper-2k|darby-3k|equivalent-length):/;
     const used = fittingMethod ? f.sources.filter((x) => x.startsWith(`${fittingMethod}:`) || !tagged.test(x)) : f.sources;
-    const source = (used.length ? used : f.sources).join('; ');
-    rows.push({ kind: 'Fitting type', item: f.label, source, verified: !isUnverified(source, f) });
+    const lines = used.length ? used : f.sources;
+    rows.push({ kind: 'Fitting type', item: f.label, source: lines.map((x) => sourceText(x)).join('; '), verified: !lines.some((x) => isUnverified(x)) });
   }
   for (const id of [...fixtures].sort()) {
-    const t = FIXTURE_TYPES[id] as (typeof FIXTURE_TYPES)[string] & { verified?: boolean };
+    const t = FIXTURE_TYPES[id];
     if (!t) continue;
-    rows.push({ kind: 'Fixture type', item: t.label, source: t.source, verified: !isUnverified(t.source, t) });
+    rows.push({ kind: 'Fixture type', item: t.label, source: sourceText(t.source, t), verified: !isUnverified(t.source, t) });
   }
   return rows;
 }
@@ -189,7 +191,7 @@ export function staticCheckContent(a: Analysis) {
         },
   );
   const pipeRatings = (sc.pipeRatings ?? []).map((r) => ({
-    cells: [r.label, r.materialLabel, num(r.ratingPressure, p), num(r.highestStatic, p), r.pass ? 'pass' : 'FAIL', r.verified === false ? `${r.source} (${UNVERIFIED_NOTE})` : sourceText(r.source)],
+    cells: [r.label, r.materialLabel, num(r.ratingPressure, p), num(r.highestStatic, p), r.pass ? 'pass' : 'FAIL', sourceText(r.source, r)],
     fail: !r.pass,
   }));
   const m = sc.minStaticAtHighestFixture;

@@ -18,6 +18,7 @@ import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
 import {
   catalogSourcesUsed,
+  isUnverified,
   sourceText,
   staticCheckContent,
   summaryVerdict,
@@ -145,7 +146,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
         { header: 'Entry', width: 26, wrap: true },
         { header: 'Published source', width: 60, wrap: true },
       ],
-      catalogRows.map((r) => ({ cells: [r.kind, r.item, r.verified ? r.source : `${r.source} (${UNVERIFIED_NOTE})`], style: r.verified ? undefined : { bold: true } })),
+      catalogRows.map((r) => ({ cells: [r.kind, r.item, r.source], style: r.verified ? undefined : { bold: true } })),
       { continued: 'Catalog data used' },
     );
   }
@@ -157,7 +158,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       { header: 'Source', width: 52, wrap: true },
     ],
     [...minimums].map(([id, m]) => ({
-      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : FIXTURE_TYPES[id] ? sourceText(FIXTURE_TYPES[id].source, FIXTURE_TYPES[id] as { verified?: boolean; memo?: string }) : 'project fixture type (the designer’s data)'],
+      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : FIXTURE_TYPES[id] ? sourceText(FIXTURE_TYPES[id].source, FIXTURE_TYPES[id]) : 'project fixture type (the designer’s data)'],
     })),
     { continued: 'Minimum flow pressures used' },
   );
@@ -403,6 +404,9 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   // ---- cautions, signature, input hash
   L.heading('Cautions', 1, 120);
   for (const c of SUMMARY_CAUTIONS) L.paragraph(`•  ${c}`, { indent: 0, after: 4 });
+  if (catalogRows.some((r) => !r.verified) || Object.values(a.methods).some((m) => isUnverified(m.source, m as { verified?: boolean }))) {
+    L.paragraph(`•  Some values used here are marked "${UNVERIFIED_NOTE}": they could not be checked against a printed copy of their code, standard or table. Confirm each against the adopted edition before relying on this check.`, { indent: 0, after: 4, font: 'bold' });
+  }
 
   L.heading('Preparer', 1, 150);
   signatureBlock(L, header);
