@@ -4,7 +4,9 @@ import type { Knex } from 'knex';
  * A failing revision may be issued only with the designer's acknowledgement of the failure, in
  * their own words: who, when and the statement are kept on the revision (all three or none).
  * The freeze on issued and superseded revisions now covers the acknowledgement and the rest of
- * what an issued summary prints (who issued it, when, its note, the engine version).
+ * what an issued summary prints (who issued it, when, its note, the engine version), and, under
+ * the service's own checks, the database refuses to issue an incomplete revision or a failing one
+ * without its acknowledgement.
  */
 export async function up(knex: Knex): Promise<void> {
   await knex.schema.alterTable('revisions', (t) => {
@@ -36,6 +38,15 @@ export async function up(knex: Knex): Promise<void> {
         OR (NEW.status = 'draft')
       ) THEN
         RAISE EXCEPTION 'revision % is %, its inputs cannot change', OLD.id, OLD.status;
+      END IF;
+      -- issuing: never an incomplete or unanalysed revision, never a failing one without its acknowledgement
+      IF OLD.status = 'draft' AND NEW.status <> 'draft' THEN
+        IF (NEW.analysis->>'ok') IS DISTINCT FROM 'true' OR NEW.analysis->'analysis'->'verdict'->>'status' = 'incomplete' THEN
+          RAISE EXCEPTION 'revision % is incomplete; it cannot be issued', OLD.id;
+        END IF;
+        IF NEW.analysis->'analysis'->'verdict'->>'status' = 'fail' AND NEW.failure_ack_statement IS NULL THEN
+          RAISE EXCEPTION 'revision % fails; it is issued only with an acknowledgement', OLD.id;
+        END IF;
       END IF;
       RETURN NEW;
     END $$ LANGUAGE plpgsql;

@@ -186,13 +186,28 @@ describe('issuing a revision: only a complete description, and a failing one onl
 });
 
 describe('an issued revision that is incomplete (issued before the server refused it) never gets a summary', () => {
-  /** Issues a draft directly in the database, as the server did before incomplete revisions were refused. */
+  /**
+   * Issues a draft directly in the database, as the server did before incomplete revisions were
+   * refused (the database's own guard is lifted for this one statement, as before its migration).
+   */
   async function legacyIssued(document?: unknown) {
     const d = await draftOf(document);
     const user = await h.db('users').where({ email: d.designerUser.email }).first('id');
-    await h.db('revisions').where({ id: d.revision.id }).update({ status: 'issued', issued_by: user.id, issued_at: h.db.fn.now(), input_hash: 'f'.repeat(64) });
+    await h.db.transaction(async (trx) => {
+      await trx.raw('ALTER TABLE revisions DISABLE TRIGGER revisions_frozen');
+      await trx('revisions').where({ id: d.revision.id }).update({ status: 'issued', issued_by: user.id, issued_at: trx.fn.now(), input_hash: 'f'.repeat(64) });
+      await trx.raw('ALTER TABLE revisions ENABLE TRIGGER revisions_frozen');
+    });
     return d;
   }
+
+  it('when a draft that is incomplete or failing without acknowledgement is issued past the service, then the database refuses it', async () => {
+    const incomplete = await draftOf();
+    await expect(h.db('revisions').where({ id: incomplete.revision.id }).update({ status: 'issued' })).rejects.toThrow(/incomplete; it cannot be issued/);
+    const failing = await draftOf(failingDocument());
+    await expect(h.db('revisions').where({ id: failing.revision.id }).update({ status: 'issued' })).rejects.toThrow(/issued only with an acknowledgement/);
+    expect((await h.db('revisions').whereIn('id', [incomplete.revision.id, failing.revision.id]).select('status')).map((r) => r.status)).toEqual(['draft', 'draft']);
+  });
 
   it('when its summary or PDF is asked for, then the summary is failed with the reason and the PDF is refused', async () => {
     const { designer, base, revision } = await legacyIssued();
