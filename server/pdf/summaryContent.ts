@@ -4,7 +4,7 @@
  * here), the worst-case static results, and the names of the elements a warning is about.
  * Pure functions over the stored document and analysis; summaryPdf.ts only draws what they return.
  */
-import { verdictStatus, type Analysis, type SystemDocument } from '../../src/engine';
+import { verdictStatus, type Analysis, type StaticChecks, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
@@ -141,24 +141,8 @@ export function catalogSourcesUsed(doc: SystemDocument, fittingMethod?: string):
   return rows;
 }
 
-/** The worst-case static results (document units), as the engine reports them; absent in older analyses. */
-export interface StaticChecks {
-  boosters: { deviceId: string; label: string; control: 'constant-speed' | 'variable-speed'; designGain: number; shutoffGain: number; assumed: boolean }[];
-  prvFailOpen: {
-    deviceId: string;
-    label: string;
-    nodesOverMax: number;
-    worstNodeId: string | null;
-    worstNodeLabel: string | null;
-    worstStatic: number;
-    maxStaticPressure: number;
-    excess: number;
-  }[];
-  pipeRatings: { segmentId: string; label: string; materialLabel: string; ratingPressure: number; highestStatic: number; pass: boolean; source: string; verified: boolean }[];
-  minStaticAtHighestFixture: { fixtureId: string; label: string; staticLow: number; minimum: number; pass: boolean } | null;
-}
-
-export const staticChecksOf = (a: Analysis): StaticChecks | null => ((a as Analysis & { staticChecks?: StaticChecks }).staticChecks ?? null);
+/** The worst-case static results (document units); absent from analyses stored before the engine made them. */
+export const staticChecksOf = (a: Analysis): StaticChecks | null => (a as Omit<Analysis, 'staticChecks'> & { staticChecks?: StaticChecks }).staticChecks ?? null;
 
 /** The lines the summary prints for the worst-case static results; null when the analysis has none. */
 export function staticCheckContent(a: Analysis) {
@@ -170,7 +154,8 @@ export function staticCheckContent(a: Analysis) {
       b.label,
       b.control === 'variable-speed' ? 'variable speed' : 'constant speed',
       num(b.designGain, p),
-      num(b.shutoffGain, p),
+      // a variable-speed pump holds its set discharge: it has no shutoff rise to add
+      b.control === 'variable-speed' ? '—' : num(b.shutoffGain, p),
       b.control === 'variable-speed'
         ? 'static taken at the set discharge pressure'
         : b.assumed

@@ -9,7 +9,7 @@ import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
-import { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
+import { boosterText, fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
@@ -201,7 +201,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     const notes = [
       r?.extrapolated ? 'loss extrapolated beyond the curve' : '',
       d.prv ? `set ${withUnit(d.prv.setPressure, u.pressure)}` : '',
-      boostNote(d.boost, u.pressure),
+      d.boost ? boosterText(d.boost, u.pressure) : '',
       d.loss.kind === 'curve' ? `curve of ${d.loss.points.length} point(s)` : 'fixed loss',
     ].filter(Boolean);
     return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, seg?.label ?? d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };
@@ -489,15 +489,6 @@ function signatureBlock(L: Layout, header: SummaryHeader) {
   L.page.drawRectangle({ x: L.left + w + 12, y: top - height, width: sealW, height, borderColor: COLORS.muted, borderWidth: 0.6, borderDashArray: [3, 2] });
   L.draw('Seal (where required)', L.left + w + 20, top - 14, { size: 7.5, color: COLORS.muted });
   L.gap(height + 12);
-}
-
-/** A booster's gain as the document states it (schemaVersion 1: one gain; 2: design and shutoff, or a set discharge pressure). */
-function boostNote(boost: unknown, unit: string): string {
-  if (!boost || typeof boost !== 'object') return '';
-  const b = boost as { gain?: number; control?: string; designGain?: number; shutoffGain?: number; setPressure?: number };
-  if (b.control === 'variable-speed' && b.setPressure !== undefined) return `variable speed, discharge set at ${withUnit(b.setPressure, unit)}`;
-  if (b.designGain !== undefined) return `adds ${withUnit(b.designGain, unit)} at design flow${b.shutoffGain !== undefined ? `, ${withUnit(b.shutoffGain, unit)} at shutoff` : ''}`;
-  return b.gain !== undefined ? `adds ${withUnit(b.gain, unit)}` : '';
 }
 
 /** The worst cases of static pressure: boosters at shutoff, each PRV failing open, pipe ratings, minimum static at the top. */
