@@ -8,7 +8,7 @@
  * request for the summary makes it. A ready PDF never changes (a trigger refuses it).
  */
 import { createHash } from 'node:crypto';
-import { SystemDocumentSchema, verdictStatus, type Analysis } from '../../src/engine';
+import { readSystemDocument, verdictStatus, type Analysis, type SystemDocument } from '../../src/engine';
 import { AppError, notFound } from '../http/errors';
 import { revisionsRepo, systemsRepo, type RevisionRow } from '../repositories/systems';
 import { projectsRepo, membersRepo } from '../repositories/projects';
@@ -76,6 +76,17 @@ function summarisable(revision: RevisionRow): Analysis {
   return stored.analysis;
 }
 
+/**
+ * An issued revision's document as version 2 for display: a version 1 document is upgraded with
+ * 'keep-elevations', which reproduces the elevations its stored analysis was made with (the stored
+ * document and analysis are never changed).
+ */
+function issuedDocument(revision: RevisionRow): SystemDocument {
+  const read = readSystemDocument(revision.document, { riseConflict: 'keep-elevations' });
+  if (!read.success) throw new Error(`the stored document of revision ${revision.number} cannot be read: ${read.error.issues[0]?.message ?? 'format'}`);
+  return read.data;
+}
+
 /** The designer's acknowledgement of a failing verdict, as the PDF prints it. */
 const acknowledgementOf = (r: RevisionRow) =>
   r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null;
@@ -136,7 +147,7 @@ export const summariesService = {
         const fieldChange = await fieldChangesRepo.recordForRevision(trx, revisionId);
         const { bytes, pageCount } = await renderSummaryPdf({
           header: row.header,
-          document: SystemDocumentSchema.parse(revision.document),
+          document: issuedDocument(revision),
           analysis,
           fieldChange,
           failureAcknowledgement: acknowledgementOf(revision),
