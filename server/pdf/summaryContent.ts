@@ -176,7 +176,7 @@ export function staticCheckContent(a: Analysis) {
         },
   );
   const pipeRatings = (sc.pipeRatings ?? []).map((r) => ({
-    cells: [r.label, r.materialLabel, num(r.ratingPressure, p), num(r.highestStatic, p), r.pass ? 'pass' : 'FAIL', sourceText(r.source, r)],
+    cells: [r.label, r.materialLabel, num(r.ratingPressure, p), num(r.highestStatic, p), sourceText(r.source, r), r.pass ? 'pass' : 'FAIL'],
     fail: !r.pass,
   }));
   const m = sc.minStaticAtHighestFixture;
