@@ -9,6 +9,8 @@ export class AppError extends Error {
     readonly code: ErrorCode,
     message: string,
     readonly fields?: Record<string, string>,
+    /** more members of the error body, e.g. `reasons` on REVISION_INCOMPLETE */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
   }
@@ -41,7 +43,7 @@ function isDatabaseDown(err: unknown): boolean {
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
   if (err instanceof AppError) {
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res.status(err.status).json({ error: { ...(err.extra ?? {}), code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
   if (err instanceof ZodError) {

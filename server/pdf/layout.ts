@@ -47,6 +47,8 @@ export class Layout {
   readonly height: number;
   private readonly widthCache = new Map<PDFFont, Map<string, number>>();
   private readonly charsets = new Map<PDFFont, Set<number>>();
+  /** Characters the embedded fonts cannot show, printed as "?"; the summary lists them. */
+  readonly missing = new Set<string>();
 
   constructor(
     readonly doc: PDFDocument,
@@ -93,7 +95,11 @@ export class Layout {
     for (const ch of text.replace(/\s+/g, ' ')) {
       const cp = ch.codePointAt(0)!;
       if (set.has(cp)) out += ch;
-      else out += SUBSTITUTES[ch] ?? '?';
+      else if (SUBSTITUTES[ch] !== undefined) out += SUBSTITUTES[ch];
+      else {
+        this.missing.add(ch);
+        out += '?';
+      }
     }
     return out;
   }
@@ -138,7 +144,6 @@ export class Layout {
         continue;
       }
       if (line) lines.push(line);
-      line = '';
       let rest = word;
       while (this.measure(rest, font, size) > width) {
         const chars = [...rest];
@@ -310,6 +315,7 @@ const SUBSTITUTES: Record<string, string> = {
   Σ: 'sum ',
   ρ: 'rho',
   Δ: 'delta ',
+  β: 'beta',
   '≈': '~',
   '√': 'sqrt',
   '∝': 'proportional to',

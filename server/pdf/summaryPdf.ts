@@ -16,6 +16,16 @@ import { embedFonts } from './fonts';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
+import {
+  catalogSourcesUsed,
+  isUnverified,
+  sourceText,
+  staticCheckContent,
+  summaryVerdict,
+  UNVERIFIED_NOTE,
+  warningWhere,
+  type FailureAcknowledgementText,
+} from './summaryContent';
 
 export interface SummaryPdfInput {
   header: SummaryHeader;
@@ -23,6 +33,8 @@ export interface SummaryPdfInput {
   analysis: Analysis;
   /** the accepted field change this revision came from, when it did */
   fieldChange?: FieldChangeRecord | null;
+  /** a failing revision's acknowledgement by the designer, recorded at issue */
+  failureAcknowledgement?: FailureAcknowledgementText | null;
 }
 
 export interface SummaryPdf {
@@ -46,6 +58,8 @@ const SEVERITY: Record<string, string> = { fail: 'Not met', caution: 'Caution', 
 
 export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryPdf> {
   const { header, document: doc, analysis: a } = input;
+  // throws for an incomplete analysis: an incomplete revision never gets a summary
+  const verdict = summaryVerdict(a, input.failureAcknowledgement);
   const pdf = await PDFDocument.create({ updateMetadata: false });
   const issued = new Date(header.issuedAt);
   pdf.setTitle(`Issued summary: ${header.projectName}, ${header.systemName}, revision ${header.revisionNumber}`);
@@ -66,7 +80,12 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   const nodeById = new Map(a.nodes.map((n) => [n.id, n]));
   const nodeLabel = (id: string) => nodeById.get(id)?.label ?? id;
 
-  // ---- title and verdict
+  // ---- the verdict first, then the title
+  const fail = verdict.status === 'fail';
+  L.gap(2);
+  L.draw(verdict.headline, L.left, L.y - 14, { font: 'bold', size: 15, color: fail ? COLORS.fail : COLORS.accent });
+  L.gap(22);
+  if (verdict.acknowledgement) L.paragraph(verdict.acknowledgement, { font: 'bold', size: 9, color: COLORS.fail, after: 4 });
   L.gap(4);
   L.draw('Water supply pressure check', L.left, L.y - 16, { font: 'bold', size: 17, color: COLORS.accent });
   L.gap(22);
@@ -80,23 +99,9 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     ['Prepared by', header.preparerEmail ? `${header.preparerName} <${header.preparerEmail}>` : header.preparerName],
     ...(header.note ? ([['Note', header.note]] as [string, string][]) : []),
   ]);
-  const failingFixtures = a.fixtures.filter((f) => !f.pass);
   const failingVelocity = a.segments.filter((s) => s.velocityPass === false);
   const failingStatic = a.nodes.filter((n) => n.staticPass === false);
-  const allPass = a.verdict.allFixturesPass && a.verdict.allVelocitiesPass && a.verdict.allStaticPass;
-  const verdictLines = [
-    a.fixtures.length === 0
-      ? 'No checked fixtures: no residual pressure was compared with a minimum.'
-      : failingFixtures.length === 0
-        ? `All ${a.fixtures.length} checked fixtures have at least their minimum flow pressure.`
-        : `${failingFixtures.length} of ${a.fixtures.length} checked fixtures fall short of their minimum flow pressure.`,
-    critical
-      ? `Critical fixture (smallest margin): ${critical.label}, residual ${withUnit(critical.residual, u.pressure)}, required ${withUnit(critical.required, u.pressure)}, margin ${signed(critical.margin, u.pressure)} ${u.pressure}.`
-      : 'No critical fixture.',
-    failingVelocity.length ? `${failingVelocity.length} segment(s) above their velocity limit.` : 'Every segment is within its velocity limit (where one applies).',
-    failingStatic.length ? `${failingStatic.length} node(s) above the maximum static pressure.` : `Static pressure stays at or under ${withUnit(a.criteria.maxStaticPressure, u.pressure)} at every fixture node.`,
-  ];
-  verdictBox(L, allPass ? 'Result: every check is met' : 'Result: some checks are not met', verdictLines, !allPass);
+  verdictBox(L, `Result: ${verdict.headline}`, verdict.acknowledgement ? [...verdict.lines, verdict.acknowledgement] : verdict.lines, fail);
   if (input.fieldChange) fieldChangeSection(L, input.fieldChange);
 
   // ---- basis
@@ -106,7 +111,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   const overrides = doc.criteria ?? {};
   L.keyValues([
     ['Code basis (designer)', header.codeBasis || 'not stated by the designer'],
-    ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : CRITERIA_SOURCES.maxStaticPressurePa}`],
+    ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : sourceText(CRITERIA_SOURCES.maxStaticPressurePa)}`],
     ['Minimum static pressure', a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`],
     ['Water temperature', `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`],
     ['Engine', `Headroom engine ${a.engineVersion}, document schema ${a.schemaVersion}`],
@@ -128,9 +133,23 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
         ['Elevation', a.methods.elevation],
         ['Water properties', a.methods.water],
       ] as const
-    ).map(([step, m]) => ({ cells: [step, m.label, m.source] })),
+    ).map(([step, m]) => ({ cells: [step, m.label, sourceText(m.source, m as { verified?: boolean })] })),
     { continued: 'Methods' },
   );
+  const catalogRows = catalogSourcesUsed(doc, a.criteria.fittingMethod);
+  if (catalogRows.length) {
+    L.heading('Catalog data used', 2, 120);
+    L.paragraph(`Each entry's own sources, as the catalog records them. Entries marked "${UNVERIFIED_NOTE}" are not verified.`, { size: 8, color: COLORS.muted });
+    L.table(
+      [
+        { header: 'Kind', width: 14 },
+        { header: 'Entry', width: 26, wrap: true },
+        { header: 'Published source', width: 60, wrap: true },
+      ],
+      catalogRows.map((r) => ({ cells: [r.kind, r.item, r.source], style: r.verified ? undefined : { bold: true } })),
+      { continued: 'Catalog data used' },
+    );
+  }
   L.heading('Minimum flow pressures used', 2);
   L.table(
     [
@@ -139,7 +158,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       { header: 'Source', width: 52, wrap: true },
     ],
     [...minimums].map(([id, m]) => ({
-      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : (FIXTURE_TYPES[id]?.source ?? 'fixture catalog')],
+      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : FIXTURE_TYPES[id] ? sourceText(FIXTURE_TYPES[id].source, FIXTURE_TYPES[id]) : 'project fixture type (the designer’s data)'],
     })),
     { continued: 'Minimum flow pressures used' },
   );
@@ -151,7 +170,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       { header: `Limit (${u.velocity})`, width: 14, align: 'right' },
       { header: 'Source', width: 56, wrap: true },
     ],
-    a.criteria.velocityLimits.map((v) => ({ cells: [v.material, v.service, num(v.maxVelocity, u.velocity), v.source] })),
+    a.criteria.velocityLimits.map((v) => ({ cells: [v.material, v.service, num(v.maxVelocity, u.velocity), sourceText(v.source, v as { verified?: boolean })] })),
     { continued: 'Velocity limits' },
   );
 
@@ -185,7 +204,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       d.boost ? boosterText(d.boost, u.pressure) : '',
       d.loss.kind === 'curve' ? `curve of ${d.loss.points.length} point(s)` : 'fixed loss',
     ].filter(Boolean);
-    return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };
+    return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, seg?.label ?? d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };
   });
   if (deviceRows.length)
     L.table(
@@ -261,7 +280,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`).join('; ');
       return {
         cells: [
-          s.id,
+          s.label ?? s.id,
           material,
           d?.size ?? '—',
           num(s.innerDiameter, u.diameter),
@@ -364,6 +383,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
       failingStatic.map((n) => ({ cells: [n.label ?? n.id, P(n.staticPressureHigh), 'FAIL: above the maximum'], style: { fail: true } })),
       { continued: 'Static pressure check' },
     );
+  worstCaseStatic(L, a);
 
   L.heading('Warnings', 2);
   if (a.warnings.length)
@@ -374,8 +394,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
         { header: 'Where', width: 37, wrap: true },
       ],
       a.warnings.map((w) => {
-        const ids = w.elementIds ?? (w.elementId ? [w.elementId] : []);
-        const where = ids.length > 1 ? `${ids.length} ${w.elementType}s: ${ids.slice(0, 6).join(', ')}${ids.length > 6 ? ', …' : ''}` : ids.length ? `${w.elementType} ${ids[0]}` : w.elementType;
+        const where = warningWhere(w, a, doc);
         return { cells: [SEVERITY[w.severity] ?? w.severity, w.detail ? `${w.message} (${w.detail})` : w.message, where], style: w.severity === 'fail' ? { fail: true } : undefined };
       }),
       { continued: 'Warnings' },
@@ -385,15 +404,27 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   // ---- cautions, signature, input hash
   L.heading('Cautions', 1, 120);
   for (const c of SUMMARY_CAUTIONS) L.paragraph(`•  ${c}`, { indent: 0, after: 4 });
+  if (catalogRows.some((r) => !r.verified) || Object.values(a.methods).some((m) => isUnverified(m.source, m as { verified?: boolean }))) {
+    L.paragraph(`•  Some values used here are marked "${UNVERIFIED_NOTE}": they could not be checked against a printed copy of their code, standard or table. Confirm each against the adopted edition before relying on this check.`, { indent: 0, after: 4, font: 'bold' });
+  }
 
   L.heading('Preparer', 1, 150);
   signatureBlock(L, header);
   L.heading('Input hash', 2, 40);
   L.paragraph('SHA-256 of the revision\'s inputs (canonical JSON); the same hash means the same inputs.', { size: 8, color: COLORS.muted });
   L.paragraph(header.inputHash, { font: 'bold', size: 8.5 });
+  if (L.missing.size) {
+    // a name typed in a script the embedded font does not cover: say so rather than print "?" silently
+    const chars = [...L.missing].slice(0, 40).map((ch) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`);
+    L.heading('Characters not shown', 2, 40);
+    L.paragraph(
+      `The font of this summary cannot show ${L.missing.size === 1 ? 'one character' : `${L.missing.size} characters`} of its text (names and notes as typed, or catalog text); each is printed as "?": ${chars.join(', ')}${L.missing.size > 40 ? ', …' : ''}. The revision on Headroom keeps every name exactly as typed.`,
+      { size: 8.5 },
+    );
+  }
 
   L.frame(
-    { left: `${header.projectName}${header.address ? ` — ${header.address}` : ''}`, right: `Revision ${header.revisionNumber} · issued ${utc(header.issuedAt).slice(0, 10)} · ${header.systemName}` },
+    { left: `${verdict.word} · ${header.projectName}${header.address ? ` — ${header.address}` : ''}`, right: `Revision ${header.revisionNumber} · issued ${utc(header.issuedAt).slice(0, 10)} · ${header.systemName}` },
     { left: `Prepared by ${header.preparerName}`, middle: `Inputs ${header.inputHash.slice(0, 16)}` },
   );
 
@@ -458,4 +489,48 @@ function signatureBlock(L: Layout, header: SummaryHeader) {
   L.page.drawRectangle({ x: L.left + w + 12, y: top - height, width: sealW, height, borderColor: COLORS.muted, borderWidth: 0.6, borderDashArray: [3, 2] });
   L.draw('Seal (where required)', L.left + w + 20, top - 14, { size: 7.5, color: COLORS.muted });
   L.gap(height + 12);
+}
+
+/** The worst cases of static pressure: boosters at shutoff, each PRV failing open, pipe ratings, minimum static at the top. */
+function worstCaseStatic(L: Layout, a: Analysis) {
+  const c = staticCheckContent(a);
+  const u = a.units;
+  if (!c) {
+    L.paragraph('This revision was analysed before Headroom checked the worst cases of static pressure (boosters at shutoff, a PRV failing open, pipe ratings); they are not part of it.', { size: 8.5, color: COLORS.muted });
+    return;
+  }
+  if (c.boosters.length) {
+    L.heading('Booster pumps: the basis of the static check', 2);
+    L.table(
+      [
+        { header: 'Booster', width: 30, wrap: true },
+        { header: 'Control', width: 14 },
+        { header: `Design gain (${u.pressure})`, width: 12, align: 'right' },
+        { header: `Shutoff gain (${u.pressure})`, width: 12, align: 'right' },
+        { header: 'Static check', width: 32, wrap: true },
+      ],
+      c.boosters.map((b) => ({ cells: b.cells, style: b.fail ? { fail: true } : undefined })),
+      { continued: 'Booster pumps' },
+    );
+  }
+  if (c.prvFailOpen.length) {
+    L.heading('If a pressure-reducing valve fails open', 2);
+    for (const r of c.prvFailOpen) L.paragraph(`${r.caution ? 'Caution: ' : ''}${r.text}`, { indent: 0, after: 4, ...(r.caution ? { font: 'bold' as const, color: COLORS.fail } : {}) });
+  }
+  if (c.pipeRatings.length) {
+    L.heading('Pipe pressure ratings against the highest static pressure', 2);
+    L.table(
+      [
+        { header: 'Segment', width: 18, wrap: true },
+        { header: 'Material', width: 16, wrap: true },
+        { header: `Rating (${u.pressure})`, width: 10, align: 'right' },
+        { header: `Highest static (${u.pressure})`, width: 11, align: 'right' },
+        { header: 'Source', width: 38, wrap: true },
+        { header: 'Result', width: 7 },
+      ],
+      c.pipeRatings.map((r) => ({ cells: r.cells, style: r.fail ? { fail: true } : undefined })),
+      { continued: 'Pipe pressure ratings' },
+    );
+  }
+  L.paragraph(c.minStatic, c.minStaticFail ? { font: 'bold', color: COLORS.fail } : {});
 }

@@ -23,11 +23,16 @@ export interface RevisionRow {
   issued_by_name?: string | null;
   issued_at: Date | null;
   updated_at: Date;
+  /** the designer's acknowledgement of a failing verdict at issue (all three or none) */
+  failure_ack_by: string | null;
+  failure_ack_by_name?: string | null;
+  failure_ack_at: Date | null;
+  failure_ack_statement: string | null;
   /** the accepted field change's frozen record (src/shared/api/fieldChanges.ts FieldChangeRecord), on `find` only */
   field_change_record?: unknown;
 }
 
-const revisionColumns = ['r.*', 'u.name as issued_by_name'];
+const revisionColumns = ['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name'];
 
 export const systemsRepo = {
   listForProject: (db: Tx, projectId: string) => db<SystemRow>('systems').where({ project_id: projectId }).orderBy('created_at'),
@@ -40,11 +45,13 @@ export const systemsRepo = {
 
 export const revisionsRepo = {
   listForSystem: (db: Tx, systemId: string) =>
-    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc'),
+    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by')
+      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc'),
   /** the newest revision of each of the given systems */
   latestForSystems: (db: Tx, systemIds: string[]) =>
     db<RevisionRow>('revisions as r')
       .leftJoin('users as u', 'u.id', 'r.issued_by')
+      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
       .whereIn('r.system_id', systemIds)
       .distinctOn('r.system_id')
       .select(revisionColumns)
@@ -52,6 +59,7 @@ export const revisionsRepo = {
   find: (db: Tx, systemId: string, revisionId: string) =>
     db<RevisionRow>('revisions as r')
       .leftJoin('users as u', 'u.id', 'r.issued_by')
+      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
       .leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id')
       .where({ 'r.id': revisionId, 'r.system_id': systemId })
       .first([...revisionColumns, 'fc.record as field_change_record']),
@@ -75,10 +83,34 @@ export const revisionsRepo = {
       .returning('*');
     return row as RevisionRow | undefined;
   },
-  async issue(db: Tx, revisionId: string, version: number, by: string, inputHash: string, note: string | null) {
+  /**
+   * Issues a draft with the analysis it is issued on (made at issue time by the current engine) and,
+   * for a failing one, the designer's acknowledgement; undefined when the version is stale.
+   */
+  async issue(
+    db: Tx,
+    revisionId: string,
+    version: number,
+    by: string,
+    values: { inputHash: string; note: string | null; analysis: unknown; engineVersion: string; failureAcknowledgement: string | null },
+  ) {
+    const ack = values.failureAcknowledgement;
     const [row] = await db<RevisionRow>('revisions')
       .where({ id: revisionId, version, status: 'draft' })
-      .update({ status: 'issued', issued_by: by, issued_at: db.fn.now(), input_hash: inputHash, note, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)
+      .update({
+        status: 'issued',
+        issued_by: by,
+        issued_at: db.fn.now(),
+        input_hash: values.inputHash,
+        note: values.note,
+        analysis: JSON.stringify(values.analysis),
+        engine_version: values.engineVersion,
+        failure_ack_by: ack === null ? null : by,
+        failure_ack_at: ack === null ? null : db.fn.now(),
+        failure_ack_statement: ack,
+        version: db.raw('version + 1'),
+        updated_at: db.fn.now(),
+      } as never)
       .returning('*');
     return row as RevisionRow | undefined;
   },

@@ -8,7 +8,7 @@
  * request for the summary makes it. A ready PDF never changes (a trigger refuses it).
  */
 import { createHash } from 'node:crypto';
-import { SystemDocumentSchema, type Analysis } from '../../src/engine';
+import { readSystemDocument, verdictStatus, type Analysis, type SystemDocument } from '../../src/engine';
 import { AppError, notFound } from '../http/errors';
 import { revisionsRepo, systemsRepo, type RevisionRow } from '../repositories/systems';
 import { projectsRepo, membersRepo } from '../repositories/projects';
@@ -48,13 +48,48 @@ export const toSummaryInfo = (row: SummaryRow, systemId: string): SummaryInfo =>
   fileName: summaryFileName(row.header),
 });
 
-/** The verdict in one line, for the e-mail. */
+/**
+ * The verdict in one line, for the e-mail: "PASS: every check is met" only when the status is pass;
+ * a failing revision says FAIL first. An incomplete one has no line (it is never sent).
+ */
 export function verdictLine(a: Analysis): string {
+  const status = verdictStatus(a);
+  if (status === 'incomplete') throw new Error('an incomplete revision has no verdict line');
   const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId);
-  const all = a.verdict.allFixturesPass && a.verdict.allVelocitiesPass && a.verdict.allStaticPass;
-  const head = all ? 'every check is met' : `${a.verdict.failures} check(s) not met`;
+  const failures = a.verdict.failures;
+  const head = status === 'pass' ? 'PASS: every check is met' : `FAIL: ${failures === 1 ? 'one check is' : `${failures} checks are`} not met`;
   return critical ? `${head}; critical fixture ${critical.label}, margin ${signed(critical.margin, a.units.pressure)} ${a.units.pressure} (residual ${withUnit(critical.residual, a.units.pressure)})` : head;
 }
+
+/** The stored analysis of an issued revision, refused when it cannot back a summary (none, or incomplete). */
+function summarisable(revision: RevisionRow): Analysis {
+  const stored = revision.analysis as StoredAnalysis;
+  if (!stored?.ok) throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored?.error?.message ?? 'not analysed'}); it has no summary.`, undefined, {
+    reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored?.error?.message ?? 'Not analysed' }],
+  });
+  if (verdictStatus(stored.analysis) === 'incomplete') {
+    const reasons = stored.analysis.verdict.incomplete?.length
+      ? stored.analysis.verdict.incomplete
+      : [{ code: 'no-checked-fixtures', elementType: 'system', elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
+    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${revision.number} is incomplete; an incomplete revision has no summary and is never sent.`, undefined, { reasons });
+  }
+  return stored.analysis;
+}
+
+/**
+ * An issued revision's document as version 2 for display: a version 1 document is upgraded with
+ * 'keep-elevations', which reproduces the elevations its stored analysis was made with (the stored
+ * document and analysis are never changed).
+ */
+function issuedDocument(revision: RevisionRow): SystemDocument {
+  const read = readSystemDocument(revision.document, { riseConflict: 'keep-elevations' });
+  if (!read.success) throw new Error(`the stored document of revision ${revision.number} cannot be read: ${read.error.issues[0]?.message ?? 'format'}`);
+  return read.data;
+}
+
+/** The designer's acknowledgement of a failing verdict, as the PDF prints it. */
+const acknowledgementOf = (r: RevisionRow) =>
+  r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null;
 
 async function headerFor(trx: Tx, projectId: string, systemId: string, revision: RevisionRow): Promise<SummaryHeader> {
   const [project, system, preparer] = await Promise.all([
@@ -105,12 +140,18 @@ export const summariesService = {
       }
       if (row.status === 'ready' || (row.status === 'failed' && !opts.retry)) return { row, error: null };
       const revision = (await revisionsRepo.find(trx, systemId, revisionId))!;
-      const stored = revision.analysis as StoredAnalysis;
       try {
-        if (!stored.ok) throw new Error(`the revision has no analysis: ${stored.error.message}`);
+        // an incomplete revision (issued before the server refused them) never gets a summary
+        const analysis = summarisable(revision);
         const started = performance.now();
         const fieldChange = await fieldChangesRepo.recordForRevision(trx, revisionId);
-        const { bytes, pageCount } = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: stored.analysis, fieldChange });
+        const { bytes, pageCount } = await renderSummaryPdf({
+          header: row.header,
+          document: issuedDocument(revision),
+          analysis,
+          fieldChange,
+          failureAcknowledgement: acknowledgementOf(revision),
+        });
         const pdf = Buffer.from(bytes);
         const sha256 = createHash('sha256').update(pdf).digest('hex');
         await summariesRepo.markReady(trx, row.id, { pdf, sha256, byte_length: pdf.length, page_count: pageCount, generation_ms: Math.round(performance.now() - started) });
@@ -162,10 +203,11 @@ export const summariesService = {
   async send(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, body: SendSummaryBody & { inspectorIds: string[]; emails: string[] }): Promise<SendSummaryResponse> {
     const revision = await loadRevision(ctx, projectId, systemId, revisionId);
     if (revision.status !== 'issued') throw new AppError(409, 'CONFLICT', revision.status === 'draft' ? 'Issue the revision before sending it.' : `Revision ${revision.number} is superseded; send the current issued revision.`);
+    const analysis = summarisable(revision);
+    const failing = verdictStatus(analysis) === 'fail';
     let summary = await summariesRepo.findByRevision(ctx.db, revisionId);
     if (!summary || summary.status === 'pending') summary = await this.generate(ctx, projectId, systemId, revisionId);
     if (summary.status !== 'ready') throw new AppError(409, 'CONFLICT', `The summary could not be made, so it cannot be sent: ${summary.error ?? 'unknown reason'}`);
-    const analysis = (revision.analysis as StoredAnalysis & { ok: true }).analysis;
     const sender = await usersRepo.findById(ctx.db, actor.id);
     const viewUrl = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}${resultViewPath(projectId, systemId, revisionId)}`;
 
@@ -213,7 +255,8 @@ export const summariesService = {
           recipient_user_id: r.id,
           to_address: r.email,
           to_name: r.name,
-          subject: m.subject,
+          // a failing revision says so before anything else, in the subject too
+          subject: failing ? `FAIL — ${m.subject}` : m.subject,
           text_body: m.text,
           secret_url: r.invitation?.url ?? null,
           attachment_summary_id: summary.id,

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { ENGINE_VERSION, readSystemDocument, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type SystemDocument } from '../../src/engine';
+import { ENGINE_VERSION, readSystemDocument, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type IncompleteReason, type SystemDocument } from '../../src/engine';
 import { AppError, notFound, staleVersion } from '../http/errors';
 import { fieldsFromZod } from '../http/errors';
 import { assertStorable } from '../http/storable';
@@ -46,6 +46,7 @@ const toSummary = (r: RevisionRow): RevisionSummary => ({
   issuedBy: r.issued_by_name ?? null,
   inputHash: r.input_hash,
   verdict: verdictOf(r.analysis),
+  failureAcknowledgement: r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null,
 });
 const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note, origin: originOf(r.field_change_record) });
 
@@ -103,6 +104,43 @@ function parseDocument(document: unknown): SystemDocument {
   }
   return parsed.data;
 }
+
+/**
+ * May this analysis be issued? Incomplete (or not analysable) → 409 REVISION_INCOMPLETE with the
+ * reasons; fail without an acknowledgement → 409 FAILURE_NOT_ACKNOWLEDGED; an acknowledgement on a
+ * revision that does not fail → 409 NOTHING_TO_ACKNOWLEDGE (the verdict is not what the designer saw).
+ */
+export function issueGate(number: number, analysis: StoredAnalysis, acknowledgeFailure: { statement: string } | null) {
+  if (!analysis.ok) {
+    const e = analysis.error;
+    const reasons: IncompleteReason[] = [{ code: e.code, elementType: reasonElement(e.elementType), elementId: e.elementId, message: e.message }];
+    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${number} cannot be issued: the engine cannot compute it (${e.message})`, undefined, { reasons });
+  }
+  const status = verdictStatus(analysis.analysis);
+  if (status === 'incomplete') {
+    const reasons = analysis.analysis.verdict.incomplete.length
+      ? analysis.analysis.verdict.incomplete
+      : [{ code: 'no-checked-fixtures', elementType: 'system' as const, elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
+    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${number} cannot be issued: its description is incomplete (${reasons.length === 1 ? 'one item' : `${reasons.length} items`} to settle).`, undefined, { reasons });
+  }
+  const failures = analysis.analysis.verdict.failures;
+  if (status === 'fail' && !acknowledgeFailure) {
+    throw new AppError(
+      409,
+      'FAILURE_NOT_ACKNOWLEDGED',
+      `Revision ${number} fails ${failures === 1 ? 'one check' : `${failures} checks`}. It can be issued only with your acknowledgement of the failure, in your own words; the summary will say FAIL on its first line.`,
+      undefined,
+      { failures },
+    );
+  }
+  if (status !== 'fail' && acknowledgeFailure) {
+    throw new AppError(409, 'NOTHING_TO_ACKNOWLEDGE', `Revision ${number} does not fail (its verdict is ${status}); issue it without an acknowledgement of failure.`);
+  }
+  return { status, failures, acknowledgement: status === 'fail' ? acknowledgeFailure!.statement.trim() : null };
+}
+
+const REASON_ELEMENTS = new Set<IncompleteReason['elementType']>(['system', 'source', 'device', 'node', 'segment', 'fixture-group', 'checked-fixture', 'fitting']);
+const reasonElement = (t: string): IncompleteReason['elementType'] => (REASON_ELEMENTS.has(t as IncompleteReason['elementType']) ? (t as IncompleteReason['elementType']) : 'system');
 
 const locked = (r: RevisionRow) =>
   new AppError(409, 'CONFLICT', `Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
@@ -162,24 +200,58 @@ export const systemsService = {
   },
 
   /**
-   * Issues a draft. Its summary row (pending) is written in the same transaction and the PDF is
-   * made right after the commit (server/services/summaries.ts); a failure there leaves the
-   * revision issued and the summary "failed" with its reason.
+   * Issues a draft. The draft is analysed again with the current engine, and that analysis is the
+   * one issued: an incomplete (or unanalysable) draft is refused with the reasons; a failing one
+   * needs the designer's acknowledgement in their own words, recorded on the revision and in the
+   * audit log. Nothing is written when it is refused. Its summary row (pending) is written in the
+   * same transaction and the PDF is made right after the commit (server/services/summaries.ts); a
+   * failure there leaves the revision issued and the summary "failed" with its reason.
    */
-  async issue(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, version: number, note: string | null): Promise<Revision> {
+  async issue(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    systemId: string,
+    revisionId: string,
+    version: number,
+    note: string | null,
+    acknowledgeFailure: { statement: string } | null = null,
+  ): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const revision = await ctx.db.transaction(async (trx) => {
       const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
       if (!current) throw notFound('The revision');
       if (current.status !== 'draft') throw locked(current);
       if (current.version !== version) throw staleVersion();
-      if (!(current.analysis as StoredAnalysis).ok) {
-        throw new AppError(409, 'CONFLICT', `This draft cannot be issued: ${(current.analysis as { error: { message: string } }).error.message}`);
-      }
-      const issued = await revisionsRepo.issue(trx, revisionId, version, actor.id, inputHash(current.document), note);
+      const analysis = analyse(current.document);
+      const gate = issueGate(current.number, analysis, acknowledgeFailure);
+      const issued = await revisionsRepo.issue(trx, revisionId, version, actor.id, {
+        inputHash: inputHash(current.document),
+        note,
+        analysis,
+        engineVersion: ENGINE_VERSION,
+        failureAcknowledgement: gate.acknowledgement,
+      });
       if (!issued) throw staleVersion();
       await revisionsRepo.supersedeIssued(trx, systemId, revisionId);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.issued', subjectType: 'revision', subjectId: revisionId, details: { number: issued.number, inputHash: issued.input_hash } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'revision.issued',
+        subjectType: 'revision',
+        subjectId: revisionId,
+        details: { number: issued.number, inputHash: issued.input_hash, verdict: gate.status, ...(gate.acknowledgement ? { failureAcknowledgement: gate.acknowledgement } : {}) },
+      });
+      if (gate.acknowledgement) {
+        await auditRepo.record(trx, {
+          actorId: actor.id,
+          projectId,
+          action: 'revision.failure-acknowledged',
+          subjectType: 'revision',
+          subjectId: revisionId,
+          details: { number: issued.number, statement: gate.acknowledgement, failures: gate.failures },
+        });
+      }
       await summariesService.recordIssue(trx, projectId, systemId, revisionId);
       return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
     });

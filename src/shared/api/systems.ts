@@ -20,7 +20,32 @@ export const CreateSystemBody = z
 export type CreateSystemBody = z.infer<typeof CreateSystemBody>;
 
 export const SaveDocumentBody = z.object({ document: SystemDocumentSchema, version: z.number().int().min(1) }).strict();
-export const IssueBody = z.object({ version: z.number().int().min(1), note: z.string().max(2000).optional() }).strict();
+/** Shortest acknowledgement of a failing verdict the server records: a sentence, not a click-through. */
+export const FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH = 20;
+
+/**
+ * Issuing a draft. The server refuses a draft whose analysis is incomplete (409 REVISION_INCOMPLETE
+ * with the reasons) and a failing one unless `acknowledgeFailure` carries the designer's own
+ * statement of why it is issued although it fails (409 FAILURE_NOT_ACKNOWLEDGED); the statement is
+ * recorded on the revision, printed in its summary and kept in the audit log.
+ */
+export const IssueBody = z
+  .object({
+    version: z.number().int().min(1),
+    note: z.string().max(2000).optional(),
+    acknowledgeFailure: z
+      .object({
+        statement: z
+          .string()
+          .trim()
+          .min(FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH, `In your own words (at least ${FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH} characters), say why this revision is issued although it fails`)
+          .max(2000),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict();
+export type IssueBody = z.infer<typeof IssueBody>;
 export const NewDraftBody = z.object({ fromRevisionId: z.string().uuid('Not a revision id') }).strict();
 
 export const SystemParams = ProjectParams.extend({ systemId: z.string().uuid('Not a system id') });
@@ -41,6 +66,10 @@ export const RevisionVerdict = z.object({
 });
 export type RevisionVerdict = z.infer<typeof RevisionVerdict>;
 
+/** The designer's acknowledgement that a revision was issued although it fails. */
+export const FailureAcknowledgement = z.object({ statement: z.string(), by: z.string().nullable(), at: z.string() });
+export type FailureAcknowledgement = z.infer<typeof FailureAcknowledgement>;
+
 export const RevisionSummary = z.object({
   id: z.string(),
   number: z.number().int(),
@@ -51,6 +80,8 @@ export const RevisionSummary = z.object({
   issuedBy: z.string().nullable(),
   inputHash: z.string().nullable(),
   verdict: RevisionVerdict,
+  /** set only on a failing revision issued with the designer's acknowledgement */
+  failureAcknowledgement: FailureAcknowledgement.nullable().optional(),
 });
 export type RevisionSummary = z.infer<typeof RevisionSummary>;
 
