@@ -154,17 +154,15 @@ describe('document size bounds', () => {
     const d = clone(oneSegment()) as Doc;
     // 1,000,000 empty nodes: one length comparison, no per-node validation or error report.
     (d as Record<string, unknown>).nodes = new Array(1_000_000).fill({});
-    const t0 = performance.now();
     const r = safeAnalyzeSystem(d);
-    const ms = performance.now() - t0;
     expect(r.ok).toBe(false);
     if (!r.ok) {
       expect(r.error.code).toBe('document-too-large');
       expect(r.error.field).toBe('nodes');
       expect(r.error.message).toContain(`at most ${DOCUMENT_BOUNDS.nodes}`);
     }
-    // Generous bound for a busy 2-core machine; the work is one comparison (measured well under 1 ms).
-    expect(ms).toBeLessThan(200);
+    // One error for the list, not one per node (the cost is one length comparison; no timing asserted here).
+    if (!r.ok) expect((r.error.issues ?? []).length).toBeLessThanOrEqual(1);
   });
 
   it('a document of many invalid elements within the bounds returns at most 100 issues, and says how many there were', () => {
