@@ -114,7 +114,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <SaveBar draft={draft} editable />
         )}
       </div>
-      <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step)} />
+      <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step)} withBar />
     </WalkContext.Provider>
   );
 }
