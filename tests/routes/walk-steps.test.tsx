@@ -150,7 +150,7 @@ describe('the segment table and the riser diagram', () => {
     expect(await screen.findByRole('heading', { level: 2, name: 'Segment table' }, { timeout: 10_000 })).toBeTruthy();
     const body = screen.getByTestId('segment-table').querySelector('tbody')!;
     expect(within(body).getAllByRole('row')).toHaveLength(doc.segments.length);
-    expect(screen.getByText(`${doc.segments.length} of ${doc.segments.length} segment(s) shown.`)).toBeTruthy();
+    expect(screen.getByText(`${doc.segments.length} of ${doc.segments.length} segments shown.`)).toBeTruthy();
     expect(valueOf(`${firstName} length (${u.length})`)).toBe(String(first.length));
     const row = screen.getByTestId(`row-${first.id}`);
     const result = analysis.segments.find((s) => s.id === first.id)!;

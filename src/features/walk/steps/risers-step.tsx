@@ -14,6 +14,7 @@ import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
+import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
 import { parseFixtureGroups } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
@@ -259,6 +260,7 @@ export function RisersStep() {
   const nodeIndex = new Map(nodeRows.map((n, i) => [n.id, i]));
   const nodeName = (id: string) => nodeRows[nodeIndex.get(id) ?? -1]?.label || id;
   const materialChoices = materialOptions(catalog, project);
+  const flagsOf = useSegmentFlags();
 
   /** A project material and size chosen: its numbers are copied into the segment's custom pipe. */
   const copyProjectPipe = (i: number) => {
@@ -332,6 +334,7 @@ export function RisersStep() {
                   <p className="mb-2 text-sm font-semibold">
                     {name}: {nodeName(row.from)} → {nodeName(row.to)}
                   </p>
+                  <SegmentFlags {...flagsOf(row.id)} className="mb-2" />
                   <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-6">
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Name<CellInput label={`${name} name`} {...register(`segments.${i}.label`)} /></label>
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Material<CellSelect label={`${name} material`} options={materialChoices} {...register(`segments.${i}.material`, { onChange: () => { setValue(`segments.${i}.size`, '', { shouldValidate: true }); if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
