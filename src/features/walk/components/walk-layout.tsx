@@ -18,6 +18,7 @@ import { useSystem } from '../../systems/api/get-system';
 import { analyseDraft } from '../draft/live-analysis';
 import { useDraft } from '../draft/use-draft';
 import { useRevisionStore } from '../draft/revision-store';
+import { useSaveBeforeLeaving } from '../draft/use-save-before-leaving';
 import { WalkContext } from '../draft/walk-context';
 import type { WalkContextValue, WalkIds, WalkLinks } from '../draft/walk-context';
 import { walkPaths } from '../paths';
@@ -59,6 +60,8 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
   useDocumentTitle(`${system.name} · revision ${revision.number}`);
 
   useWarnBeforeLeaving(draft.state !== 'saved');
+  const frameBase = walkPaths.revision.getHref(ids.projectId, ids.systemId, ids.revisionId);
+  const leaving = useSaveBeforeLeaving(draft, readOnlyReason === null, (pathname) => pathname === frameBase || pathname.startsWith(`${frameBase}/`));
 
   if (!draft.document || !live) {
     return (
@@ -99,6 +102,9 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
         </div>
       </div>
+      {leaving ? (
+        <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">Saving your last change before leaving…</p>
+      ) : null}
       {revision.origin ? <RevisionOriginNote origin={revision.origin} ids={ids} /> : null}
       <div className="mb-4 flex flex-col gap-4">
         <StepNav links={links} />

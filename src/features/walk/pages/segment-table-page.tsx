@@ -104,8 +104,8 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
       <td className="min-w-36 py-1 pr-2">
         <CellSelect label={`${p.name} size`} options={p.sizeOptions} error={p.sizeError} {...p.register(`segments.${i}.size`, { onChange: () => p.onPipeChange(i) })} />
       </td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="number" step="any" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="number" step="any" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
+      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
+      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.wsfu, 1)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.flow, 1)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.velocity, 2)}{p.fast ? ' ▲ over' : ''}</td>

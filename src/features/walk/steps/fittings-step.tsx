@@ -130,7 +130,7 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
                   {custom ? <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>Project data: {custom.label} — source: {custom.source}</p> : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
-                  <CellInput label={`${name}: fitting ${k + 1} count`} type="number" min="1" step="1" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
+                  <CellInput label={`${name}: fitting ${k + 1} count`} type="text" inputMode="numeric" autoComplete="off" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
                 </td>
                 <td className="py-1 pr-2 text-right tabular-nums" data-testid={`k-${id}-${k}`}>
                   {kr ? fmt(kr.K, 3) : '—'}

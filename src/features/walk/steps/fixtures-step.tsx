@@ -74,8 +74,9 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
                 Minimum flow pressure ({units.pressure})
                 <CellInput
                   label={`${name}: checked fixture ${k + 1} minimum flow pressure (${units.pressure})`}
-                  type="number"
-                  step="any"
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
                   placeholder={catalogMin === undefined ? '' : `catalog: ${fmt(catalogMin, 1)}`}
                   error={plainError(err?.minFlowPressure?.message)}
                   {...register(`nodes.${index}.checkedFixtures.${k}.minFlowPressure`, numberInput)}
