@@ -1,8 +1,8 @@
 /**
  * Helpers between HTML inputs and the document's numbers. An empty number input is "not given"
  * (undefined), never 0 and never NaN. Number boxes are text boxes (inputmode decimal), so what
- * was typed reaches us as typed: a decimal comma is read as a point ("5,5" → 5.5) where that is
- * unambiguous, and refused with a message where it is not ("1,000"); never turned into 55.
+ * was typed reaches us as typed: a decimal comma is refused with a message that offers the point
+ * ("5,5" → "write 5.5"), and never turned into 55.
  */
 
 /** A number box whose text is not a number: kept in the form with its message, never in the draft. */
@@ -18,7 +18,8 @@ export function parseNumberText(text: string): number | undefined | RefusedNumbe
   if (t === '') return undefined;
   if (t.includes(',')) {
     if (/^[+-]?\d{1,3},\d{3}$/.test(t)) return new RefusedNumber(text, `“${text.trim()}” is unclear: write ${t.replace(',', '')}, or ${t.replace(',', '.')} with a decimal point`);
-    if (/^[+-]?\d*,\d+$/.test(t)) return Number(t.replace(',', '.'));
+    // refused rather than guessed: the point version is offered, so nothing is read as another number
+    if (/^[+-]?\d*,\d+$/.test(t)) return new RefusedNumber(text, `Use a decimal point: write ${t.replace(',', '.')}`);
     return new RefusedNumber(text, 'Use a decimal point and no thousands separators (e.g. 1250.5)');
   }
   const n = Number(t);

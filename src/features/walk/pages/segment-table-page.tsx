@@ -15,6 +15,7 @@ import { plural } from '../lib/verdict';
 import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { followTypedRises } from '../lib/rises';
 
 const optionalText = z.preprocess((v) => (v === '' ? undefined : v), z.string().optional());
 export const segmentTableSchema = z.object({
@@ -40,7 +41,7 @@ type Row = { id: string; material: string; size: string; length: number; rise?: 
 
 export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmentTableSchema>): SystemDocument {
   const byId = new Map(v.segments.map((s) => [s.id, s]));
-  return {
+  return followTypedRises(doc, {
     ...doc,
     segments: doc.segments.map((s) => {
       const r = byId.get(s.id);
@@ -58,7 +59,7 @@ export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmen
       } else if (next.material !== undefined) delete next.custom;
       return next;
     }),
-  };
+  });
 }
 
 type TableRowProps = {

@@ -15,10 +15,12 @@ import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
+import { plural } from '../lib/verdict';
 import { parseFixtureGroups } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { treeOrder } from '../lib/tree';
+import { followTypedRises } from '../lib/rises';
 import { useLiveForm } from '../lib/use-live-form';
 import { sizeChoices } from '../lib/sizes';
 
@@ -132,7 +134,7 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
     else next.continuousDemand = r.continuousDemand;
     return next;
   });
-  return { ...doc, segments, nodes };
+  return followTypedRises(doc, { ...doc, segments, nodes });
 }
 
 function sizeOptions(catalog: Catalog, project: ProjectCatalog, materialId: string | undefined, sys: SystemDocument['unitSystem'], unit: string) {
@@ -239,6 +241,45 @@ function CustomPipeFields({ index, name, register, errors, units, fromProject, s
   );
 }
 
+/** What removing a segment takes with it: its downstream segments and nodes, their fixture groups and checked fixtures. */
+interface Removal {
+  segmentId: string;
+  segmentIds: Set<string>;
+  nodeIds: Set<string>;
+  lines: string[];
+  summary: string;
+}
+
+export function removalOf(values: RisersForm, doc: SystemDocument, index: number, nodeName: (id: string) => string): Removal {
+  const seg = values.segments[index];
+  const segmentIds = new Set([seg.id]);
+  const nodeIds = new Set<string>();
+  const queue = [seg.to];
+  while (queue.length) {
+    const node = queue.shift()!;
+    if (node === doc.source.nodeId || nodeIds.has(node)) continue;
+    nodeIds.add(node);
+    for (const s of values.segments) if (s.from === node && !segmentIds.has(s.id)) {
+      segmentIds.add(s.id);
+      queue.push(s.to);
+    }
+  }
+  const downstream = values.segments.filter((s) => segmentIds.has(s.id) && s.id !== seg.id).map((s) => s.label || s.id);
+  const groups = values.nodes.filter((n) => nodeIds.has(n.id)).flatMap((n) => n.fixtureGroups.map(() => nodeName(n.id)));
+  const checked = doc.nodes.filter((n) => nodeIds.has(n.id)).flatMap((n) => n.checkedFixtures.map((f) => f.label || f.id));
+  const lines = [
+    downstream.length ? `${plural(downstream.length, 'downstream segment')}: ${downstream.join(', ')}` : null,
+    nodeIds.size ? `${plural(nodeIds.size, 'node')}: ${[...nodeIds].map(nodeName).join(', ')}` : null,
+    groups.length ? `${plural(groups.length, 'fixture group')} (at ${[...new Set(groups)].join(', ')})` : null,
+    checked.length ? `${plural(checked.length, 'checked fixture')}: ${checked.join(', ')}` : null,
+  ].filter((l): l is string => l !== null);
+  const name = seg.label || seg.id;
+  const summary = [name, downstream.length ? plural(downstream.length, 'downstream segment') : null, groups.length ? plural(groups.length, 'fixture group') : null, checked.length ? plural(checked.length, 'checked fixture') : null]
+    .filter(Boolean)
+    .join(', ');
+  return { segmentId: seg.id, segmentIds, nodeIds, lines, summary };
+}
+
 export function RisersStep() {
   const { ids, document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
   const project = useProjectEntries(ids.projectId);
@@ -289,12 +330,27 @@ export function RisersStep() {
     });
   };
 
-  const removeSegment = (index: number) => {
-    const seg = getValues(`segments.${index}`);
-    segments.remove(index);
-    const stillUsed = getValues('segments').some((s) => s.from === seg.to || s.to === seg.to);
-    const ni = getValues('nodes').findIndex((n) => n.id === seg.to);
-    if (!stillUsed && ni >= 0 && seg.to !== document.source.nodeId) nodes.remove(ni);
+  /** Asked first: removing a segment takes everything downstream with it (named in the question). */
+  const [removing, setRemoving] = useState<Removal | null>(null);
+  const [undo, setUndo] = useState<{ text: string; values: RisersForm; doc: SystemDocument } | null>(null);
+  const askRemove = (index: number) => setRemoving(removalOf(getValues(), document, index, nodeName));
+  const removeSegment = () => {
+    if (!removing) return;
+    const before = getValues();
+    const snapshot = { text: removing.summary, values: structuredClone(before), doc: document };
+    const segIdx = before.segments.map((s, i) => (removing.segmentIds.has(s.id) ? i : -1)).filter((i) => i >= 0);
+    const nodeIdx = before.nodes.map((n, i) => (removing.nodeIds.has(n.id) ? i : -1)).filter((i) => i >= 0);
+    segments.remove(segIdx);
+    if (nodeIdx.length) nodes.remove(nodeIdx);
+    setRemoving(null);
+    setUndo(snapshot);
+  };
+  const undoRemove = () => {
+    if (!undo) return;
+    // the document first (it holds the checked fixtures the form does not), then the form's rows
+    draft.update(() => undo.doc);
+    form.reset(undo.values);
+    setUndo(null);
   };
 
   const importCsv = (text: string) => {
@@ -318,6 +374,15 @@ export function RisersStep() {
         node, the fixtures it serves. The fixture units and the design flow of each segment follow live.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
+        <div aria-live="polite">
+          {undo ? (
+            <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
+              <p>Removed {undo.text}.</p>
+              <Button variant="secondary" onClick={undoRemove}>Undo</Button>
+              <Button variant="quiet" onClick={() => setUndo(null)}>Dismiss</Button>
+            </div>
+          ) : null}
+        </div>
         <Section title="Segments" headingLevel={3}>
           {rows.length === 0 ? <p className="mb-3 text-ink-soft">No segments yet. Start with one from the connection.</p> : null}
           <ol className="flex flex-col gap-3" aria-label="Segments in tree order">
@@ -359,8 +424,20 @@ export function RisersStep() {
                   ) : null}
                   <div className="mt-2 flex flex-wrap gap-2">
                     <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(row.to)}>Add a segment from {nodeName(row.to)}</Button>
-                    {leaf ? <Button variant="danger" disabled={locked} onClick={() => removeSegment(i)}>Remove {name}</Button> : null}
+                    <Button variant="danger" disabled={locked || removing !== null} onClick={() => askRemove(i)}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
                   </div>
+                  {removing?.segmentId === row.id ? (
+                    <div className="mt-2 flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
+                      <p className="font-semibold">Remove {name}? This also removes:</p>
+                      <ul className="list-disc pl-5">
+                        {removing.lines.length ? removing.lines.map((l) => <li key={l}>{l}</li>) : <li>nothing else</li>}
+                      </ul>
+                      <div className="flex flex-wrap gap-2">
+                        <Button variant="danger" onClick={removeSegment}>Yes, remove</Button>
+                        <Button variant="secondary" onClick={() => setRemoving(null)}>Keep it</Button>
+                      </div>
+                    </div>
+                  ) : null}
                 </li>
               );
             })}
