@@ -19,6 +19,8 @@ import { analyseDraft } from '../draft/live-analysis';
 import { useDraft } from '../draft/use-draft';
 import { useRevisionStore } from '../draft/revision-store';
 import { useSaveBeforeLeaving } from '../draft/use-save-before-leaving';
+import type { Leaving } from '../draft/use-save-before-leaving';
+import { Button } from '../../../components/ui/button';
 import { WalkContext } from '../draft/walk-context';
 import type { WalkContextValue, WalkIds, WalkLinks } from '../draft/walk-context';
 import { walkPaths } from '../paths';
@@ -30,6 +32,28 @@ import { SaveBar } from './save-bar';
 import { StepNav } from './step-nav';
 import { RevisionOriginNote } from './revision-origin-note';
 import { StartFieldChange } from '../../field-changes/components/start-field-change';
+
+/** While leaving the walk: the last change being saved, or the question when a value cannot be saved. */
+function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
+  if (leaving.state === 'saving') return <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">Saving your last change before leaving…</p>;
+  if (leaving.state !== 'held') return null;
+  return (
+    <div className="mb-3" data-testid="leave-with-held">
+      <Alert
+        tone="caution"
+        title={`${held === 1 ? '1 value is' : `${held} values are`} not saved`}
+        actions={
+          <>
+            <Button onClick={leaving.stay}>Stay and correct it</Button>
+            <Button variant="secondary" onClick={leaving.leave}>Leave without it</Button>
+          </>
+        }
+      >
+        A field holds a value that cannot be saved (see the save state above). Everything else is saved when you leave.
+      </Alert>
+    </div>
+  );
+}
 
 const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
 
@@ -102,9 +126,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
         </div>
       </div>
-      {leaving ? (
-        <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">Saving your last change before leaving…</p>
-      ) : null}
+      <LeavingNote leaving={leaving} held={draft.held.length} />
       {revision.origin ? <RevisionOriginNote origin={revision.origin} ids={ids} /> : null}
       <div className="mb-4 flex flex-col gap-4">
         <StepNav links={links} />
