@@ -41,7 +41,7 @@ export const VerdictBar = memo(function VerdictBar({ live, resultHref }: { live:
   }
   return (
     <div
-      className="sticky top-0 z-30 -mx-2 mb-3 flex flex-wrap items-center gap-x-4 gap-y-1 rounded-b-md border-2 border-t-0 border-rule bg-surface/95 px-3 py-1.5 text-sm shadow-sm backdrop-blur print:hidden"
+      className="sticky top-0 z-30 -mx-2 mb-3 flex flex-wrap items-center gap-x-4 gap-y-1 rounded-b-md border-2 border-t-0 border-rule bg-surface px-3 py-1.5 text-sm shadow-sm print:hidden"
       role="status"
       aria-label="Live verdict"
       data-testid="verdict-bar"
