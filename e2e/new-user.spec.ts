@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
-import { analyzeSystem, SystemDocumentSchema, verdictStatus } from '../src/engine';
+import { analyzeSystem, nodeElevations, SystemDocumentSchema, verdictStatus } from '../src/engine';
 import { signed } from '../src/features/walk/lib/format';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
 
@@ -107,7 +107,8 @@ test('when a new user enters a 4-storey building with the rises typed at the pip
   // the rises typed at the pipe step are the building's geometry: the top node sits 36 ft up
   const top = doc.nodes.find((n) => n.label === 'Apartment 401')!;
   const entry = doc.nodes.find((n) => n.id === doc.segments.find((s) => s.id === 'service-1')!.to)!;
-  expect(top.elevation - entry.elevation).toBe(36);
+  const z = nodeElevations(doc);
+  expect(z.get(top.id)! - z.get(entry.id)!).toBe(36);
   const truth = analyzeSystem(doc);
   expect(verdictStatus(truth)).toBe('fail');
   const shower = truth.fixtures.find((f) => f.label === 'Shower, apartment 401')!;
@@ -198,7 +199,7 @@ test('when "5,5" and 1e9 are typed, then each gets its message and neither is sa
   const fieldError = (text: string) => page.locator('[id$="-error"]', { hasText: text });
   await expect(fieldError('Out of range: static pressure 0–300 psi')).toBeVisible();
   await page.getByLabel(/Water temperature/).fill('250');
-  await expect(fieldError('Out of range: water temperature 33–200°F')).toBeVisible();
+  await expect(fieldError('Out of range: water temperature 33–200 °F')).toBeVisible();
   await expect(page.getByTestId('save-state')).toContainText('2 values not saved');
 });
 

@@ -57,7 +57,6 @@ export function buildClient(force: boolean, log: (m: string) => void): ClientBui
     log(`client built in ${((performance.now() - t0) / 1000).toFixed(1)} s.`);
     return { dist };
   }
-  // eslint-disable-next-line no-control-regex
   const plain = (r.stdout + r.stderr).replace(/\x1b\[[0-9;]*m/g, '');
   log(`the client did not build:\n${plain.split('\n').slice(0, 8).join('\n')}`);
   if (fs.existsSync(path.join(dist, 'index.html'))) return { dist, note: `stale build of ${new Date(builtAt).toISOString().slice(0, 16)}Z: the working tree did not build` };

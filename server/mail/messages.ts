@@ -96,3 +96,34 @@ export function fieldChangeDecidedMessage(o: FieldChangeMailBase & { designerNam
   lines.push('', `  ${o.viewUrl}`);
   return { subject: `Field change ${o.decision}: ${o.projectName}, ${o.systemName}, field change ${o.number}`, text: lines.join('\n') };
 }
+
+/** To the designer who sent the summary, when the inspector accepts it or returns it with comments. */
+export function reviewDecidedMessage(o: {
+  recipientName: string;
+  inspectorName: string;
+  projectName: string;
+  systemName: string;
+  revisionNumber: number;
+  decision: 'accepted' | 'returned';
+  comment: string;
+  items: { where: string; comment: string }[];
+  viewUrl: string;
+}) {
+  const lines = [
+    `Hello ${o.recipientName},`,
+    '',
+    o.decision === 'accepted'
+      ? `${o.inspectorName} accepted revision ${o.revisionNumber} of ${o.systemName} on ${o.projectName}.`
+      : `${o.inspectorName} returned revision ${o.revisionNumber} of ${o.systemName} on ${o.projectName} with comments. Answer them in a new revision and send it again.`,
+  ];
+  if (o.comment) lines.push('', `Comment from ${o.inspectorName}:`, o.comment);
+  if (o.items.length > 0) {
+    lines.push('', o.items.length === 1 ? 'Comment on one item:' : `Comments on ${o.items.length} items:`);
+    for (const it of o.items) lines.push(`  - ${it.where}: ${it.comment}`);
+  }
+  lines.push('', 'See the review beside the calculation here:', '', `  ${o.viewUrl}`);
+  return {
+    subject: `${o.decision === 'accepted' ? 'Accepted' : 'Returned with comments'}: ${o.projectName}, ${o.systemName}, revision ${o.revisionNumber}`,
+    text: lines.join('\n'),
+  };
+}

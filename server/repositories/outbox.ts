@@ -2,7 +2,7 @@ import type { Tx } from '../db/rows';
 
 export interface OutboxRow {
   id: string;
-  kind: 'summary' | 'invitation' | 'password-reset';
+  kind: 'summary' | 'invitation' | 'password-reset' | 'field-change' | 'review-decision';
   project_id: string | null;
   revision_id: string | null;
   recipient_user_id: string | null;

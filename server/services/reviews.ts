@@ -11,6 +11,8 @@ import { auditRepo } from '../repositories/audit';
 import { iso, type Tx } from '../db/rows';
 import { toSummaryInfo } from './summaries';
 import type { Actor, ServiceContext } from './context';
+import { outboxService } from './outbox';
+import { reviewDecidedMessage } from '../mail/messages';
 import { resultViewPath, type DecideReviewBody, type InboxItem, type Review } from '../../src/shared/api/summaries';
 
 async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
@@ -32,6 +34,67 @@ async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
     receivedAt: iso(r.received_at),
     decidedAt: r.decided_at ? iso(r.decided_at) : null,
   }));
+}
+
+/** What a review item names, in the words the designer typed (never an internal id). */
+function itemWhere(document: unknown, itemType: string, itemId: string | null): string {
+  if (!itemId) return itemType === 'general' ? 'General' : itemType;
+  const doc = (document ?? {}) as {
+    segments?: { id: string; label?: string }[];
+    nodes?: { id: string; label?: string; checkedFixtures?: { id: string; label?: string }[] }[];
+    devices?: { id: string; label?: string }[];
+  };
+  const fixtures = (doc.nodes ?? []).flatMap((n) => n.checkedFixtures ?? []);
+  const named =
+    itemType === 'segment' ? doc.segments?.find((x) => x.id === itemId)?.label
+    : itemType === 'node' ? doc.nodes?.find((x) => x.id === itemId)?.label
+    : itemType === 'device' ? doc.devices?.find((x) => x.id === itemId)?.label
+    : itemType === 'fixture' ? fixtures.find((x) => x.id === itemId)?.label
+    : undefined;
+  return `${itemType} ${named ?? itemId}`;
+}
+
+/**
+ * The designer who sent the summary hears the decision: one message through the outbox, in the same
+ * transaction as the decision (so a decision is never recorded without its message, nor sent twice).
+ */
+async function notifySender(
+  ctx: ServiceContext,
+  trx: Tx,
+  actor: Actor,
+  review: ReviewRow,
+  revisionNumber: number,
+  body: { decision: 'accepted' | 'returned'; comment: string; items: { itemType: string; itemId: string | null; comment: string }[] },
+): Promise<void> {
+  if (!review.sent_by) return;
+  const sender = await trx('users').where({ id: review.sent_by, status: 'active' }).first('id', 'email', 'name');
+  if (!sender) return;
+  const project = await trx('projects').where({ id: review.project_id }).first('name');
+  const revision = await trx('revisions as v').join('systems as s', 's.id', 'v.system_id').where('v.id', review.revision_id).first('v.document', 's.id as system_id', 's.name as system_name');
+  const inspector = await trx('users').where({ id: actor.id }).first('name');
+  const viewUrl = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}${resultViewPath(review.project_id, revision.system_id, review.revision_id)}`;
+  const m = reviewDecidedMessage({
+    recipientName: sender.name,
+    inspectorName: inspector?.name ?? 'The inspector',
+    projectName: project?.name ?? '',
+    systemName: revision.system_name,
+    revisionNumber,
+    decision: body.decision,
+    comment: body.comment,
+    items: body.items.map((it) => ({ where: itemWhere(revision.document, it.itemType, it.itemId), comment: it.comment })),
+    viewUrl,
+  });
+  await outboxService.enqueue(ctx, trx, {
+    kind: 'review-decision',
+    project_id: review.project_id,
+    revision_id: review.revision_id,
+    recipient_user_id: sender.id,
+    to_address: sender.email,
+    to_name: sender.name,
+    subject: m.subject,
+    text_body: m.text,
+    created_by: actor.id,
+  });
 }
 
 export const reviewsService = {
@@ -73,6 +136,7 @@ export const reviewsService = {
       if (revision.status !== 'issued') throw new AppError(409, 'CONFLICT', `Revision ${revision.number} has been superseded; review the current revision.`);
       if (!(await reviewsRepo.decide(trx, reviewId, body.version, { status: body.decision, comment: body.comment }))) throw staleVersion();
       await reviewsRepo.addComments(trx, reviewId, body.items);
+      await notifySender(ctx, trx, actor, current, revision.number, body);
       await auditRepo.record(trx, {
         actorId: actor.id,
         projectId,

@@ -93,7 +93,7 @@ export type SendSummaryBody = z.input<typeof SendSummaryBody>;
 export const MESSAGE_STATUSES = ['queued', 'sending', 'sent', 'failed'] as const;
 export const MessageInfo = z.object({
   id: z.string(),
-  kind: z.enum(['summary', 'invitation', 'password-reset']),
+  kind: z.enum(['summary', 'invitation', 'password-reset', 'field-change', 'review-decision']),
   toAddress: z.string(),
   toName: z.string(),
   recipientUserId: z.string().nullable(),

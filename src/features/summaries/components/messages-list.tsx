@@ -13,7 +13,7 @@ const STATE: Record<MessageInfo['status'], { word: string; tone: 'neutral' | 'st
   failed: { word: 'Failed', tone: 'fault' },
 };
 
-const KIND: Record<MessageInfo['kind'], string> = { summary: 'Summary', invitation: 'Invitation', 'password-reset': 'Password reset' };
+const KIND: Record<MessageInfo['kind'], string> = { summary: 'Summary', invitation: 'Invitation', 'password-reset': 'Password reset', 'field-change': 'Field change', 'review-decision': 'Review decision' };
 
 function StateDetail({ message }: { message: MessageInfo }) {
   if (message.status === 'sent') return <>{message.sentAt ? `Delivered to the mail server ${formatDateTime(message.sentAt)}` : 'Delivered to the mail server'}</>;

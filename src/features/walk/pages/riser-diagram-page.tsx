@@ -4,6 +4,7 @@ import { fixtureVerdict, VERDICT_COLOUR, VERDICT_WORDS, VerdictGlyph, VerdictMar
 import { liveStatus, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { layoutTree } from '../lib/diagram-layout';
+import { nodeElevations } from '../../../engine';
 import { fmt, signed } from '../lib/format';
 
 const COLUMN_PX = 120;
@@ -36,12 +37,12 @@ export function RiserDiagramPage() {
 
   const analysis = live.ok ? live.analysis : null;
   const segResult = new Map(analysis?.segments.map((s) => [s.id, s]) ?? []);
-  // the engine's elevations (a node placed by its feed segment's rise has none of its own in the document)
-  const elevation = new Map<string, number>(analysis ? analysis.nodes.map((n) => [n.id, n.elevation]) : document.nodes.map((n) => [n.id, (n as { elevation?: number }).elevation ?? 0]));
+  // every node's elevation, absolute, on a floor or placed by its feed segment's rise (document version 2)
+  const elevation = nodeElevations(document);
   const status = liveStatus(live);
   const layout = layoutTree({
     sourceNodeId: document.source.nodeId,
-    nodes: document.nodes,
+    nodes: document.nodes.map((n) => ({ ...n, elevation: elevation.get(n.id) ?? 0 })),
     segments: document.segments.map((s) => ({ id: s.id, from: s.from, to: s.to, rise: (elevation.get(s.to) ?? 0) - (elevation.get(s.from) ?? 0) })),
   });
   const W = MARGIN.l + MARGIN.r + layout.columns * COLUMN_PX;

@@ -1,0 +1,118 @@
+/**
+ * Converting a whole system document between US customary and SI units (pure), for a project
+ * that switches its unit system: every number that carries a unit is converted through SI
+ * (src/engine/units.ts) and rounded to the places a designer writes in that unit, so a converted
+ * 3/4 in ID reads 19.05 mm and 60 psi reads 413.7 kPa, not a raw 413.68544…
+ *
+ * The places below are common practice for plumbing calculations (gauge readings to 0.1 psi or
+ * 1 kPa would be coarser than the analysis needs; these keep the converted design within 0.1 % of
+ * the original). Catalog sizes ("3/4") are names, not numbers, and stay as they are.
+ */
+import { fromSI, toSI, type Quantity, type UnitSystem } from '../units';
+
+type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | 'pressurePerFlow';
+
+/** Decimal places per quantity and target unit system. */
+const PLACES: Record<Q, Record<UnitSystem, number>> = {
+  pressure: { US: 2, SI: 1 },
+  length: { US: 2, SI: 3 },
+  elevation: { US: 2, SI: 3 },
+  diameter: { US: 4, SI: 2 },
+  flow: { US: 2, SI: 4 },
+  velocity: { US: 2, SI: 3 },
+  temperature: { US: 1, SI: 1 },
+  pressurePerFlow: { US: 4, SI: 2 },
+};
+
+/** Where the numbers with a unit are, as paths of keys ("*" = every element or every record key). */
+const FIELDS: readonly [path: string, q: Q][] = [
+  ['waterTemperature', 'temperature'],
+  ['source.staticPressureLow', 'pressure'],
+  ['source.staticPressureHigh', 'pressure'],
+  ['source.flowTest.staticPressure', 'pressure'],
+  ['source.flowTest.residualPressure', 'pressure'],
+  ['source.flowTest.flow', 'flow'],
+  ['floors.*.elevation', 'elevation'],
+  ['devices.*.loss.loss', 'pressure'],
+  ['devices.*.loss.points.*.flow', 'flow'],
+  ['devices.*.loss.points.*.loss', 'pressure'],
+  ['devices.*.prv.setPressure', 'pressure'],
+  ['devices.*.prv.falloffPerFlow', 'pressurePerFlow'],
+  ['devices.*.boost.gain', 'pressure'],
+  ['devices.*.boost.designGain', 'pressure'],
+  ['devices.*.boost.shutoffGain', 'pressure'],
+  ['devices.*.boost.setPressure', 'pressure'],
+  ['devices.*.boost.designFlow', 'flow'],
+  ['nodes.*.elevation', 'elevation'],
+  ['nodes.*.heightAboveFloor', 'length'],
+  ['nodes.*.continuousDemand', 'flow'],
+  ['nodes.*.fixtureGroups.*.usage.flow', 'flow'],
+  ['nodes.*.checkedFixtures.*.minFlowPressure', 'pressure'],
+  ['nodes.*.checkedFixtures.*.flowRate', 'flow'],
+  ['segments.*.length', 'length'],
+  ['segments.*.rise', 'length'],
+  ['segments.*.flowOverride', 'flow'],
+  ['segments.*.custom.innerDiameter', 'diameter'],
+  ['segments.*.custom.roughness', 'diameter'],
+  ['segments.*.fittings.*.custom.equivalentLength', 'length'],
+  ['criteria.maxStaticPressure', 'pressure'],
+  ['criteria.minStaticPressure', 'pressure'],
+  ['criteria.velocityLimits.*.maxVelocity', 'velocity'],
+  ['criteria.minFlowPressures.*', 'pressure'],
+  ['criteria.riseTolerance', 'length'],
+  ['unitTypes.*.nodes.*.heightAboveFloor', 'length'],
+  ['unitTypes.*.nodes.*.fixtureGroups.*.usage.flow', 'flow'],
+  ['unitTypes.*.nodes.*.checkedFixtures.*.minFlowPressure', 'pressure'],
+  ['unitTypes.*.nodes.*.checkedFixtures.*.flowRate', 'flow'],
+  ['unitTypes.*.segments.*.length', 'length'],
+  ['unitTypes.*.segments.*.custom.innerDiameter', 'diameter'],
+  ['unitTypes.*.segments.*.custom.roughness', 'diameter'],
+  ['unitTypes.*.segments.*.fittings.*.custom.equivalentLength', 'length'],
+  ['placements.*.overrides.segments.*.length', 'length'],
+  ['placements.*.overrides.segments.*.fittings.*.custom.equivalentLength', 'length'],
+  ['placements.*.overrides.nodes.*.heightAboveFloor', 'length'],
+];
+
+function convertValue(q: Q, value: number, from: UnitSystem, to: UnitSystem, round: boolean): number {
+  let out: number;
+  if (q === 'pressurePerFlow') out = fromSI('pressure', toSI('pressure', value, from), to) / fromSI('flow', toSI('flow', 1, from), to);
+  else out = fromSI(q, toSI(q, value, from), to);
+  if (!round) return out;
+  // A value too small for its places (a tiny PRV fall-off) keeps 4 significant figures instead of 0.
+  const places = PLACES[q][to];
+  const rounded = Number(out.toFixed(places));
+  return rounded === 0 && out !== 0 ? Number(out.toPrecision(4)) : rounded;
+}
+
+function visit(node: unknown, keys: readonly string[], fn: (v: number) => number): void {
+  if (node === null || typeof node !== 'object') return;
+  const [key, ...rest] = keys;
+  const obj = node as Record<string, unknown>;
+  const targets = key === '*' ? Object.keys(obj) : [key];
+  for (const k of targets) {
+    if (!(k in obj)) continue;
+    if (rest.length === 0) {
+      if (typeof obj[k] === 'number') obj[k] = fn(obj[k] as number);
+    } else visit(obj[k], rest, fn);
+  }
+}
+
+/**
+ * The document in the other unit system: a deep copy with `unitSystem` changed and every unit-bearing
+ * number converted (rounded unless `round` is false). The document's own unit system is read from it.
+ */
+export function convertDocumentUnits<D extends { unitSystem: UnitSystem }>(doc: D, to: UnitSystem, opts: { round?: boolean } = {}): D {
+  const from = doc.unitSystem;
+  const out = structuredClone(doc);
+  if (from === to) return out;
+  const round = opts.round ?? true;
+  for (const [path, q] of FIELDS) {
+    visit(out, path.split('.'), (v) => convertValue(q, v, from, to, q === 'diameter' && path.endsWith('roughness') ? false : round));
+  }
+  // Roughness keeps 4 significant figures (its magnitude makes fixed places meaningless).
+  for (const path of ['segments.*.custom.roughness', 'unitTypes.*.segments.*.custom.roughness']) {
+    visit(out, path.split('.'), (v) => (round ? Number(v.toPrecision(4)) : v));
+  }
+  out.unitSystem = to;
+  return out;
+}

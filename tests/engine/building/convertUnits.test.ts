@@ -1,0 +1,47 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { convertDocumentUnits } from '../../../src/engine/building/convertUnits';
+import { analyzeSystem } from '../../../src/engine';
+import { expectClose } from '../../helpers/expectClose';
+
+const example = (name: string) => JSON.parse(readFileSync(new URL(`../../../src/engine/examples/${name}.json`, import.meta.url), 'utf8'));
+
+describe('converting a document between unit systems', () => {
+  it('when the US demo is converted to SI, then the numbers are rounded SI values (1 psi = 6.894757 kPa, NIST SP 811 B.8)', () => {
+    const us = example('alder-finch-cold');
+    const si = convertDocumentUnits(us, 'SI');
+    expect(si.unitSystem).toBe('SI');
+    expect(si.source.staticPressureLow).toBe(Number((us.source.staticPressureLow * 6.894757293168361).toFixed(1)));
+    const seg = si.segments[0];
+    expect(seg.length).toBe(Number((us.segments[0].length * 0.3048).toFixed(3)));
+    // Names are not numbers: sizes stay as they are.
+    expect(seg.size).toBe(us.segments[0].size);
+    // The original is not touched.
+    expect(us.unitSystem).toBe('US');
+  });
+
+  it('when converted without rounding and back, then every number returns to itself', () => {
+    const us = example('alder-finch-cold');
+    const back = convertDocumentUnits(convertDocumentUnits(us, 'SI', { round: false }), 'US', { round: false });
+    const nums = (v: unknown, out: number[] = []): number[] => {
+      if (typeof v === 'number') out.push(v);
+      else if (v && typeof v === 'object') for (const x of Object.values(v)) nums(x, out);
+      return out;
+    };
+    const a = nums(us);
+    const b = nums(back);
+    expect(b).toHaveLength(a.length);
+    // Two conversions through SI: a few ulps (rtol 1e-12).
+    a.forEach((x, i) => (x === 0 ? expect(b[i]).toBe(0) : expectClose(b[i], x, { rtol: 1e-12 })));
+  });
+
+  it('when the small SI house is converted to US with rounding, then its critical margin moves by less than 0.1 psi', () => {
+    const si = example('small-house');
+    const a = analyzeSystem(si);
+    const b = analyzeSystem(convertDocumentUnits(si, 'US'));
+    const ma = a.fixtures.find((f) => f.id === a.criticalFixtureId)!.margin; // kPa
+    const mb = b.fixtures.find((f) => f.id === a.criticalFixtureId)!.margin; // psi
+    // Rounding to 0.01 ft, 0.01 psi, 0.0001 in: the design itself is unchanged to well under 0.1 psi.
+    expect(Math.abs(mb - ma / 6.894757293168361)).toBeLessThan(0.1);
+  });
+});
