@@ -7,12 +7,10 @@ import type { SystemDocument } from '../../../engine';
  * step would contradict the node's own position — a structural error the engine refuses.
  */
 export function followTypedRises(before: SystemDocument, after: SystemDocument): SystemDocument {
-  const oldRise = new Map(before.segments.map((s) => [s.id, s.rise]));
-  const placed = new Set(
-    after.segments
-      .filter((s) => s.rise !== undefined && Number.isFinite(s.rise) && (!oldRise.has(s.id) || oldRise.get(s.id) !== s.rise))
-      .map((s) => s.to),
-  );
+  // every segment that carries a rise places its node: a rise and a position together would be a
+  // contradiction (the engine's rise-and-elevation error), so the rise the user sees wins
+  void before;
+  const placed = new Set(after.segments.filter((s) => s.rise !== undefined && Number.isFinite(s.rise)).map((s) => s.to));
   if (placed.size === 0) return after;
   return {
     ...after,
