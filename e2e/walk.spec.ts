@@ -147,7 +147,13 @@ test('when a designer walks a new system from the supply to the result, then the
 
   // Issue: the pending change is saved first, then the revision is frozen.
   await page.getByLabel('Note for this revision (optional)').fill('First check of the annex (demo)');
-  await page.getByRole('button', { name: 'Issue revision' }).click();
+  await page.getByRole('button', { name: 'Issue revision…' }).click();
+  // asked once; a failing revision needs the designer's statement (this small building may fail)
+  const confirm = page.getByRole('group', { name: 'Confirm issuing' });
+  await expect(confirm).toBeVisible();
+  const statement = confirm.getByLabel('Your statement: why this failing revision is issued');
+  if (await statement.count()) await statement.fill('Issued to record the first check of the annex; the failing fixture is being resized (demo).');
+  await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
   await expect(page.getByTestId('issued-note')).toContainText('issued');
   await expect(page.getByTestId('read-only-note')).toBeVisible();
   firstRevisionUrl = page.url();

@@ -14,6 +14,8 @@ export class ApiError extends Error {
     message: string,
     /** field path → what is wrong with it (400 VALIDATION_FAILED) */
     readonly fields: Readonly<Record<string, string>> = {},
+    /** the error object as the server sent it, for codes that carry more (e.g. the reasons of REVISION_INCOMPLETE) */
+    readonly raw: Readonly<Record<string, unknown>> = {},
   ) {
     super(message);
   }
@@ -28,7 +30,7 @@ export function toApiError(status: number, body: unknown): ApiError {
   const parsed = ApiErrorBody.safeParse(body);
   if (parsed.success) {
     const { code, message, fields } = parsed.data.error;
-    return new ApiError(status, code, message, fields ?? {});
+    return new ApiError(status, code, message, fields ?? {}, (body as { error: Record<string, unknown> }).error);
   }
   return new ApiError(status, 'UNKNOWN', `The server answered ${status} without an explanation.`);
 }

@@ -128,7 +128,8 @@ describe('a save over someone else’s', () => {
     return { world, user, theirCount, myCount };
   }
 
-  it('when the server answers 409, then the choices show and nothing is overwritten; "Keep mine" saves at their version', async () => {
+  // a conflict runs a save, a 409, a reload and a second save through the demo's fittings step: about 30 s alone, 60 s on the shared machine
+  it('when the server answers 409, then the choices show and nothing is overwritten; "Keep mine" saves at their version', { timeout: 150_000 }, async () => {
     const { world, user, theirCount, myCount } = await conflict();
     expect(screen.getByTestId('save-state').textContent).toContain('Not saved: changed by someone else');
     expect(screen.getByText('Someone else saved this draft since you opened it')).toBeTruthy();
@@ -146,7 +147,7 @@ describe('a save over someone else’s', () => {
     expect(screen.queryByRole('button', { name: 'Keep mine' })).toBeNull();
   });
 
-  it('when "Reload theirs" is chosen, then the step and the ledger show their draft and nothing more is sent', async () => {
+  it('when "Reload theirs" is chosen, then the step and the ledger show their draft and nothing more is sent', { timeout: 150_000 }, async () => {
     const { world, user, theirCount } = await conflict();
     await user.click(screen.getByRole('button', { name: 'Reload theirs' }));
     await waitFor(() => expect(field(countLabel).value).toBe(String(theirCount)), CATCH_UP);

@@ -30,7 +30,8 @@ describe('an issued revision', () => {
     ['supply', 'Supply', `Static pressure, low (${u.pressure})`, String(demo.source.staticPressureLow)],
     ['fittings', 'Fittings', `${serviceName}: fitting 1 count`, String(service.fittings[0].count)],
     ['risers', 'Risers', `${serviceName} length (${u.length})`, String(service.length)],
-  ] as const)('when its %s step is opened, then the read-only note shows, every input is disabled and no save is offered', async (step, formName, label, value) => {
+  // the demo's risers step is the heaviest page in jsdom (every segment card with its flags and buttons): ~55 s alone on the shared machine
+  ] as const)('when its %s step is opened, then the read-only note shows, every input is disabled and no save is offered', { timeout: 150_000 }, async (step, formName, label, value) => {
     const world = fakeApi({ status: 'issued' });
     const { user } = await renderWalk(world, stepHref(world, step));
     await screen.findByTestId(`step-${step}`, {}, { timeout: 10_000 });

@@ -43,6 +43,8 @@ export interface FakeApiOptions {
   myRole?: ProjectRole | null;
   /** hold every save's answer until `releaseSaves()` */
   holdSaves?: boolean;
+  /** the draft's document (the demo when not given) */
+  document?: SystemDocument;
 }
 
 function verdictOf(analysis: ReturnType<typeof safeAnalyzeSystem>): RevisionVerdict {
@@ -83,7 +85,7 @@ export function fakeApi(options: FakeApiOptions = {}) {
   };
   const status = options.status ?? 'draft';
   const myRole = options.myRole === undefined ? 'designer' : options.myRole;
-  const server = { document: demoDocument() as SystemDocument, version: 1 };
+  const server = { document: options.document ?? (demoDocument() as SystemDocument), version: 1 };
   const calls: Call[] = [];
   /** requests to addresses this fake does not know (answered 404, as the server would) */
   const unknown: Call[] = [];

@@ -1,7 +1,16 @@
 import { Alert } from '../../../components/ui/alert';
 import { Section } from '../../../components/ui/card';
 import type { ComparisonResponse } from '../../../shared/api/fieldChanges';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { fixtureVerdict, VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import type { Verdict } from '../../systems/components/verdict-mark';
+
+type Status = 'pass' | 'fail' | 'incomplete';
+/** The proposed document's verdict status when the server sends it (pass / fail / incomplete); else the pass flag. */
+function statusOf(comparison: ComparisonResponse): Status | null {
+  const status = (comparison.verdict as { status?: unknown }).status;
+  return status === 'pass' || status === 'fail' || status === 'incomplete' ? status : null;
+}
+const CHANGE_WORDS: Record<Verdict, string> = { pass: 'Still passes', fail: 'Fails', incomplete: 'Incomplete', unknown: 'Not computed' };
 import { fmt, signed } from '../../walk/lib/format';
 
 type Props = { comparison: ComparisonResponse };
@@ -9,9 +18,10 @@ type Props = { comparison: ComparisonResponse };
 /** The overall verdict in one sentence, by word and shape. */
 export function ComparisonVerdict({ comparison }: Props) {
   const { verdict } = comparison;
+  const mark: Verdict = statusOf(comparison) ?? verdictOf(verdict.pass);
   return (
-    <div className="rounded-md border-2 border-rule p-4" data-testid="field-change-verdict" data-pass={String(verdict.pass)}>
-      <VerdictMark verdict={verdictOf(verdict.pass)}>{verdict.pass === true ? 'Still passes' : verdict.pass === false ? 'Fails' : 'Not computed'}</VerdictMark>
+    <div className="rounded-md border-2 border-rule p-4" data-testid="field-change-verdict" data-pass={String(verdict.pass)} data-status={mark}>
+      <VerdictMark verdict={mark}>{CHANGE_WORDS[mark]}</VerdictMark>
       <p className="mt-1 text-lg">{verdict.sentence}</p>
     </div>
   );
@@ -50,7 +60,7 @@ export function FixtureEffectTable({ comparison }: Props) {
               <td className="py-1 pr-2 text-right tabular-nums" data-testid="new-margin">{signed(f.newMargin, 2)}</td>
               <td className="py-1 pr-2 text-right tabular-nums" data-testid="margin-difference">{signed(f.difference, 2)}</td>
               <td className="py-1">
-                <VerdictMark verdict={verdictOf(f.newPass)} />
+                <VerdictMark verdict={fixtureVerdict(f.newPass, statusOf(comparison))} />
               </td>
             </tr>
           ))}

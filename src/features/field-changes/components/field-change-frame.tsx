@@ -22,6 +22,7 @@ import { parseStoredDocument, useDraft } from '../../walk/draft/use-draft';
 import { WalkContext } from '../../walk/draft/walk-context';
 import type { WalkContextValue, WalkLinks } from '../../walk/draft/walk-context';
 import { StepFrameBody } from '../../walk/components/step-frame-body';
+import { useSaveBeforeLeaving } from '../../walk/draft/use-save-before-leaving';
 import { SaveBar } from '../../walk/components/save-bar';
 import { StepNav } from '../../walk/components/step-nav';
 import { walkPaths } from '../../walk/paths';
@@ -71,6 +72,8 @@ function Frame({ ids, project, system, fieldChange, base, catalog, user }: {
   useDocumentTitle(`Field change ${fieldChange.number} · ${system.name}`);
 
   useWarnBeforeLeaving(draft.state !== 'saved');
+  const frameBase = fieldChangePaths.view.getHref(ids.projectId, ids.systemId, ids.fieldChangeId);
+  useSaveBeforeLeaving(draft, readOnlyReason === null, (pathname) => pathname === frameBase || pathname.startsWith(`${frameBase}/`));
 
   if (!draft.document || !live || !baseDocument || !issuedLive) {
     return (

@@ -133,7 +133,7 @@ export function PipeStep() {
                       <CellSelect className="w-28" label={`${name} size`} options={sizeOptions(catalog, current.material, sys, units.diameter)} error={plainError(err?.size?.message)} {...register(`segments.${i}.size`)} />
                     </td>
                     <td className="py-2 pr-2">
-                      <CellInput className="w-20" label={`${name} length (${units.length})`} type="number" step="any" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} />
+                      <CellInput className="w-20" label={`${name} length (${units.length})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} />
                     </td>
                     <td className="py-2 text-right text-xs tabular-nums">
                       <span className="block" data-testid={`pipe-velocity-${segment.id}`}>

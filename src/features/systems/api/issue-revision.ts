@@ -1,18 +1,40 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { IssueBody, RevisionResponse } from '../../../shared/api/systems';
-import { api } from '../../../lib/api-client';
+import { api, isApiError } from '../../../lib/api-client';
 import { systemKeys } from './keys';
 import { systemUrls } from './urls';
 
 /** The issue form: an optional note (the version comes from the open draft, not from the form). */
 export const issueRevisionInputSchema = IssueBody.pick({ note: true });
 
-export type IssueRevisionVariables = { projectId: string; systemId: string; revisionId: string; version: number; note?: string };
+export type IssueRevisionVariables = {
+  projectId: string;
+  systemId: string;
+  revisionId: string;
+  version: number;
+  note?: string;
+  /** a failing revision is issued only with the designer's recorded statement (the server answers 409 without it) */
+  acknowledgeFailure?: { statement: string };
+};
 
-export async function issueRevision({ projectId, systemId, revisionId, version, note }: IssueRevisionVariables) {
-  const body = note && note.trim() !== '' ? { version, note: note.trim() } : { version };
+export async function issueRevision({ projectId, systemId, revisionId, version, note, acknowledgeFailure }: IssueRevisionVariables) {
+  const body = {
+    version,
+    ...(note && note.trim() !== '' ? { note: note.trim() } : {}),
+    ...(acknowledgeFailure ? { acknowledgeFailure: { statement: acknowledgeFailure.statement.trim() } } : {}),
+  };
   const { revision } = await api.post(systemUrls.issue(projectId, systemId, revisionId), body, RevisionResponse);
   return revision;
+}
+
+/** The reasons a 409 REVISION_INCOMPLETE names (each `{ message }`, or a plain string), in order. */
+export function incompleteReasonsOf(error: unknown): string[] {
+  if (!isApiError(error) || error.code !== 'REVISION_INCOMPLETE') return [];
+  const reasons = error.raw.reasons ?? (error.raw.details as { reasons?: unknown } | undefined)?.reasons;
+  if (!Array.isArray(reasons)) return [];
+  return reasons
+    .map((r: unknown) => (typeof r === 'string' ? r : r && typeof r === 'object' && typeof (r as { message?: unknown }).message === 'string' ? (r as { message: string }).message : null))
+    .filter((m): m is string => m !== null);
 }
 
 export function useIssueRevision() {

@@ -12,7 +12,7 @@ import { useSystems } from '../api/get-systems';
 import { walkPaths } from '../../walk/paths';
 import { ImportSystemForm } from './import-system-form';
 import { NewSystemForm } from './new-system-form';
-import { VerdictMark, verdictOf } from './verdict-mark';
+import { revisionVerdict, VERDICT_WORDS, VerdictMark } from './verdict-mark';
 
 function fmtMargin(m: number) {
   const t = Math.abs(m).toFixed(2);
@@ -36,8 +36,8 @@ function SystemRow({ projectId, system }: { projectId: string; system: SystemInf
       <div className="flex flex-wrap items-center gap-2 text-sm">
         {latest ? <Badge tone={latest.status === 'issued' ? 'sound' : latest.status === 'draft' ? 'standpipe' : 'neutral'}>{latest.status}</Badge> : null}
         {v && v.ok ? (
-          <VerdictMark verdict={verdictOf(v.allPass)}>
-            {v.allPass ? 'Pass' : 'Fail'}
+          <VerdictMark verdict={revisionVerdict(v)}>
+            {VERDICT_WORDS[revisionVerdict(v)]}
             {v.criticalMargin !== null ? `, critical margin ${fmtMargin(v.criticalMargin)}` : ', no checked fixtures'}
           </VerdictMark>
         ) : (

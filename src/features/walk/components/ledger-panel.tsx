@@ -1,9 +1,10 @@
 import { memo, useMemo, useRef } from 'react';
 import { ledgerFor } from '../../../engine';
 import type { Analysis, PressureLedger } from '../../../engine';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { fixtureVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import type { LiveAnalysis } from '../draft/live-analysis';
 import { fmt, signed } from '../lib/format';
+import { liveStatus, plural } from '../lib/verdict';
 
 export function criticalLedger(analysis: Analysis): PressureLedger | null {
   return analysis.criticalFixtureId ? ledgerFor(analysis, analysis.criticalFixtureId) : null;
@@ -85,7 +86,7 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
             <span className="text-2xl font-bold tabular-nums" data-testid="live-margin">
               {signed(ledger.margin, 2)} {ledger.pressureUnit}
             </span>
-            <VerdictMark verdict={verdictOf(ledger.pass)} />
+            <VerdictMark verdict={fixtureVerdict(ledger.pass, liveStatus(live))} />
           </p>
         </div>
         <LedgerTable ledger={ledger} caption="Pressure ledger to the critical fixture" />
@@ -94,11 +95,11 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
   }
 
   return (
-    <aside aria-labelledby="ledger-heading" className="rounded-lg border-2 border-rule bg-surface p-4 lg:sticky lg:top-4" data-testid="ledger-panel" data-stamp={renderStamp}>
+    <aside aria-labelledby="ledger-heading" className="rounded-lg border-2 border-rule bg-surface p-4 lg:sticky lg:top-14 lg:max-h-[calc(100vh-4.5rem)] lg:self-start lg:overflow-y-auto" data-testid="ledger-panel" data-stamp={renderStamp}>
       <h2 id="ledger-heading" className="mb-3 text-lg">Live pressure ledger</h2>
       {body}
       <p className="mt-3 text-xs text-ink-muted">
-        Recomputed in your browser on every change ({fmt(live.millis, 0)} ms){live.ok ? ` · ${live.analysis.warnings.length} warning(s)` : ''}.
+        Recomputed in your browser on every change ({fmt(live.millis, 0)} ms){live.ok ? ` · ${plural(live.analysis.warnings.length, 'warning')}` : ''}.
       </p>
     </aside>
   );

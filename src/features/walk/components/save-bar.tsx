@@ -12,6 +12,17 @@ const STATE_WORDS: Record<SaveState, string> = {
   failed: 'Not saved',
 };
 
+/** The name a field is shown with: its aria-label, or the text of its label; else its path. */
+function fieldName(path: string): string {
+  if (typeof document === 'undefined') return path;
+  const el = document.querySelector(`[name="${path.replace(/"/g, '')}"]`);
+  if (!el) return path;
+  const aria = el.getAttribute('aria-label');
+  if (aria) return aria;
+  const label = el.id ? document.querySelector(`label[for="${el.id}"]`) : el.closest('label');
+  return label?.textContent?.trim() || path;
+}
+
 /**
  * The draft's save state and an explicit Save. When someone else saved the draft meanwhile,
  * the person chooses: take theirs, or save theirs over with mine. Nothing is overwritten silently.
@@ -32,12 +43,21 @@ export function SaveBar({ draft, editable }: { draft: Draft; editable: boolean }
   };
 
   if (!editable) return null;
+  const held = draft.held;
+  // "All changes saved" is said only when no field holds a value that did not reach the draft
+  const words =
+    held.length > 0
+      ? `${held.length === 1 ? '1 value' : `${held.length} values`} not saved: ${held
+          .slice(0, 2)
+          .map((h) => `${fieldName(h.path)} — ${h.message}`)
+          .join('; ')}${held.length > 2 ? '; …' : ''}${draft.state === 'saved' ? '' : ` · ${STATE_WORDS[draft.state]}`}`
+      : STATE_WORDS[draft.state];
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-center gap-3">
-        <p role="status" className="text-sm font-semibold" data-testid="save-state" data-state={draft.state}>
-          <span aria-hidden="true">{draft.state === 'saved' ? '● ' : draft.state === 'saving' ? '◌ ' : '○ '}</span>
-          {STATE_WORDS[draft.state]}
+        <p role="status" className={held.length ? 'text-sm font-semibold text-fault' : 'text-sm font-semibold'} data-testid="save-state" data-state={draft.state} data-held={held.length}>
+          <span aria-hidden="true">{held.length ? '▲ ' : draft.state === 'saved' ? '● ' : draft.state === 'saving' ? '◌ ' : '○ '}</span>
+          {words}
         </p>
         <Button variant="secondary" onClick={() => void draft.saveNow()} disabled={draft.state === 'saved' || draft.state === 'conflict'} pending={draft.state === 'saving'} pendingLabel="Saving…">
           Save now

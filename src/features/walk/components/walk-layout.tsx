@@ -18,6 +18,9 @@ import { useSystem } from '../../systems/api/get-system';
 import { analyseDraft } from '../draft/live-analysis';
 import { useDraft } from '../draft/use-draft';
 import { useRevisionStore } from '../draft/revision-store';
+import { useSaveBeforeLeaving } from '../draft/use-save-before-leaving';
+import type { Leaving } from '../draft/use-save-before-leaving';
+import { Button } from '../../../components/ui/button';
 import { WalkContext } from '../draft/walk-context';
 import type { WalkContextValue, WalkIds, WalkLinks } from '../draft/walk-context';
 import { walkPaths } from '../paths';
@@ -29,6 +32,28 @@ import { SaveBar } from './save-bar';
 import { StepNav } from './step-nav';
 import { RevisionOriginNote } from './revision-origin-note';
 import { StartFieldChange } from '../../field-changes/components/start-field-change';
+
+/** While leaving the walk: the last change being saved, or the question when a value cannot be saved. */
+function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
+  if (leaving.state === 'saving') return <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">Saving your last change before leaving…</p>;
+  if (leaving.state !== 'held') return null;
+  return (
+    <div className="mb-3" data-testid="leave-with-held">
+      <Alert
+        tone="caution"
+        title={`${held === 1 ? '1 value is' : `${held} values are`} not saved`}
+        actions={
+          <>
+            <Button onClick={leaving.stay}>Stay and correct it</Button>
+            <Button variant="secondary" onClick={leaving.leave}>Leave without it</Button>
+          </>
+        }
+      >
+        A field holds a value that cannot be saved (see the save state above). Everything else is saved when you leave.
+      </Alert>
+    </div>
+  );
+}
 
 const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
 
@@ -59,6 +84,8 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
   useDocumentTitle(`${system.name} · revision ${revision.number}`);
 
   useWarnBeforeLeaving(draft.state !== 'saved');
+  const frameBase = walkPaths.revision.getHref(ids.projectId, ids.systemId, ids.revisionId);
+  const leaving = useSaveBeforeLeaving(draft, readOnlyReason === null, (pathname) => pathname === frameBase || pathname.startsWith(`${frameBase}/`));
 
   if (!draft.document || !live) {
     return (
@@ -99,6 +126,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
         </div>
       </div>
+      <LeavingNote leaving={leaving} held={draft.held.length} />
       {revision.origin ? <RevisionOriginNote origin={revision.origin} ids={ids} /> : null}
       <div className="mb-4 flex flex-col gap-4">
         <StepNav links={links} />
@@ -114,7 +142,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <SaveBar draft={draft} editable />
         )}
       </div>
-      <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step)} />
+      <StepFrameBody generation={draft.generation} live={live} withLedger={Boolean(step)} withBar />
     </WalkContext.Provider>
   );
 }

@@ -1,7 +1,13 @@
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { SystemDocumentSchema } from '../../../engine';
 import type { SystemDocument } from '../../../engine';
 import { errorMessage, isStaleVersion } from '../../../lib/error-messages';
+
+/** A value a step's form holds that is not in the document (and so not saved): its field path and message. */
+export interface HeldValue {
+  path: string;
+  message: string;
+}
 
 export type SaveState = 'saved' | 'unsaved' | 'saving' | 'conflict' | 'failed';
 
@@ -39,27 +45,62 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
   const [failure, setFailure] = useState<string | null>(null);
   const latest = useRef(document);
   latest.current = document;
+  /** the document as last saved (or as loaded) */
+  const savedDoc = useRef(document);
   const versionRef = useRef(version);
   versionRef.current = version;
   const stateRef = useRef<SaveState>('saved');
+  /** values the step forms hold that did not reach the document (refused numbers, out-of-range values), by form */
+  const [heldByForm, setHeldByForm] = useState<Record<string, HeldValue[]>>({});
+  const reportHeld = useCallback((formKey: string, values: HeldValue[]) => {
+    setHeldByForm((prev) => {
+      const before = prev[formKey] ?? [];
+      if (before.length === values.length && before.every((v, i) => v.path === values[i].path && v.message === values[i].message)) return prev;
+      const next = { ...prev };
+      if (values.length) next[formKey] = values;
+      else delete next[formKey];
+      return next;
+    });
+  }, []);
+  const held = useMemo(() => Object.values(heldByForm).flat(), [heldByForm]);
 
   const update = useCallback((change: (doc: SystemDocument) => SystemDocument) => {
     setDocument((doc) => (doc ? change(doc) : doc));
     setState((s) => (s === 'conflict' ? s : 'unsaved'));
   }, []);
 
+  /** the save on its way, if any: a second save waits for it, so it is sent at the version the first one returns */
+  const inFlight = useRef<Promise<number | null> | null>(null);
   const saveNow = useCallback(
     async (atVersion?: number): Promise<number | null> => {
+      while (inFlight.current) await inFlight.current;
       const doc = latest.current;
       if (!doc || !editable) return null;
+      const run = send(doc, atVersion);
+      inFlight.current = run;
+      try {
+        return await run;
+      } finally {
+        if (inFlight.current === run) inFlight.current = null;
+      }
+    },
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [editable, store],
+  );
+
+  const send = async (doc: SystemDocument, atVersion?: number): Promise<number | null> => {
       setState('saving');
+      stateRef.current = 'saving';
       setFailure(null);
       try {
         const savedVersion = await store.save(doc, atVersion ?? versionRef.current);
         setVersion(savedVersion);
         versionRef.current = savedVersion;
         // A change made while the request was out still needs saving.
-        setState(latest.current === doc ? 'saved' : 'unsaved');
+        savedDoc.current = doc;
+        const next = latest.current === doc ? 'saved' : 'unsaved';
+        setState(next);
+        stateRef.current = next;
         return savedVersion;
       } catch (error) {
         if (isStaleVersion(error)) setState('conflict');
@@ -67,11 +108,22 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
           setState('failed');
           setFailure(errorMessage(error));
         }
+        stateRef.current = isStaleVersion(error) ? 'conflict' : 'failed';
         return null;
       }
-    },
-    [editable, store],
-  );
+  };
+
+  /**
+   * Before leaving the walk: save what is not saved yet, after any save on its way. Resolves true
+   * when nothing is left unsaved (the caller may go on), false when the save failed (stay, and
+   * let the save bar say why).
+   */
+  const flush = useCallback(async (): Promise<boolean> => {
+    while (inFlight.current) await inFlight.current;
+    if (!editable || latest.current === savedDoc.current || stateRef.current === 'saved') return true;
+    if (stateRef.current === 'conflict') return false;
+    return (await saveNow()) !== null;
+  }, [editable, saveNow]);
 
   stateRef.current = state;
   useEffect(() => {
@@ -83,7 +135,10 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
   /** Drop my changes and take the draft as it is on the server now. */
   const reloadTheirs = useCallback(async () => {
     const current = await store.fetchCurrent();
-    setDocument(parseStoredDocument(current));
+    const parsed = parseStoredDocument(current);
+    savedDoc.current = parsed;
+    latest.current = parsed;
+    setDocument(parsed);
     setVersion(current.version);
     setGeneration((g) => g + 1);
     setState('saved');
@@ -104,7 +159,7 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
     versionRef.current = stored;
   }, []);
 
-  return { document, version, generation, state, failure, update, acknowledge, saveNow: () => saveNow(),
+  return { document, version, generation, state, failure, update, acknowledge, saveNow: () => saveNow(), flush, held, reportHeld,
     /** the version to act on (issue, propose): the saved one, after saving any change still pending */
     versionToIssue: async () => (stateRef.current === 'saved' ? versionRef.current : saveNow()), reloadTheirs, keepMine };
 }

@@ -1,14 +1,41 @@
 /**
  * Helpers between HTML inputs and the document's numbers. An empty number input is "not given"
- * (undefined), never 0 and never NaN.
+ * (undefined), never 0 and never NaN. Number boxes are text boxes (inputmode decimal), so what
+ * was typed reaches us as typed: a decimal comma is refused with a message that offers the point
+ * ("5,5" → "write 5.5"), and never turned into 55.
  */
-export function numberOrUndefined(value: unknown): number | undefined {
+
+/** A number box whose text is not a number: kept in the form with its message, never in the draft. */
+export class RefusedNumber {
+  constructor(
+    readonly text: string,
+    readonly message: string,
+  ) {}
+}
+
+export function parseNumberText(text: string): number | undefined | RefusedNumber {
+  const t = text.trim().replace(/\u2212/g, '-').replace(/\s+/g, '');
+  if (t === '') return undefined;
+  if (t.includes(',')) {
+    if (/^[+-]?\d{1,3},\d{3}$/.test(t)) return new RefusedNumber(text, `“${text.trim()}” is unclear: write ${t.replace(',', '')}, or ${t.replace(',', '.')} with a decimal point`);
+    // refused rather than guessed: the point version is offered, so nothing is read as another number
+    if (/^[+-]?\d*,\d+$/.test(t)) return new RefusedNumber(text, `Use a decimal point: write ${t.replace(',', '.')}`);
+    return new RefusedNumber(text, 'Use a decimal point and no thousands separators (e.g. 1250.5)');
+  }
+  const n = Number(t);
+  return /^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(t) && Number.isFinite(n) ? n : new RefusedNumber(text, 'Enter a number');
+}
+
+export function numberOrUndefined(value: unknown): number | undefined | RefusedNumber {
   if (value === '' || value === null || value === undefined) return undefined;
-  const n = typeof value === 'number' ? value : Number(String(value).trim());
-  return Number.isFinite(n) ? n : Number.NaN;
+  if (typeof value === 'number') return Number.isFinite(value) ? value : new RefusedNumber(String(value), 'Enter a number');
+  return parseNumberText(String(value));
 }
 
 export const numberInput = { setValueAs: numberOrUndefined } as const;
+
+/** The props of a number box: a text box with the decimal keypad, so the typed text reaches the parser. */
+export const NUMBER_BOX = { type: 'text', inputMode: 'decimal', autoComplete: 'off' } as const;
 
 /** zod's messages in the words of the screen. */
 export function plainError(message: string | undefined): string | undefined {

@@ -7,7 +7,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { useDocumentTitle } from '../../../hooks/use-document-title';
 import { useCompareRevisions } from '../../systems/api/compare-revisions';
 import { useSystem } from '../../systems/api/get-system';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { fixtureVerdict, revisionVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import { signed, fmt } from '../lib/format';
 import { walkPaths } from '../paths';
 
@@ -48,6 +48,10 @@ export function ComparePage() {
       {a && b && compare.isPending ? <Loading label="Comparing…" /> : null}
       {data ? (
         <div className="flex flex-col gap-6">
+          <p className="flex flex-wrap items-center gap-4" data-testid="compare-verdicts">
+            <span>Revision {data.a.number}: <VerdictMark verdict={revisionVerdict(data.a.verdict)} /></span>
+            <span>Revision {data.b.number}: <VerdictMark verdict={revisionVerdict(data.b.verdict)} /></span>
+          </p>
           <Section title={`Checked fixtures: revision ${data.a.number} → revision ${data.b.number}`}>
             <table className="w-full text-sm" data-testid="compare-fixtures">
               <caption className="sr-only">Margin of every checked fixture in both revisions</caption>
@@ -66,9 +70,9 @@ export function ComparePage() {
                   <tr key={f.id} className="border-b border-rule" data-testid={`compare-${f.id}`}>
                     <th scope="row" className="py-1 pr-3 text-left font-normal">{f.label}</th>
                     <td className="py-1 pr-3 text-right tabular-nums">{f.marginA === null ? 'not in A' : signed(f.marginA, 2)}</td>
-                    <td className="py-1 pr-3"><VerdictMark verdict={verdictOf(f.passA)} /></td>
+                    <td className="py-1 pr-3"><VerdictMark verdict={fixtureVerdict(f.passA, data.a.verdict.status)} /></td>
                     <td className="py-1 pr-3 text-right tabular-nums">{f.marginB === null ? 'not in B' : signed(f.marginB, 2)}</td>
-                    <td className="py-1 pr-3"><VerdictMark verdict={verdictOf(f.passB)} /></td>
+                    <td className="py-1 pr-3"><VerdictMark verdict={fixtureVerdict(f.passB, data.b.verdict.status)} /></td>
                     <td className="py-1 text-right tabular-nums">{f.delta === null ? '—' : signed(f.delta, 2)}</td>
                   </tr>
                 ))}

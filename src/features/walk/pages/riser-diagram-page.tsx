@@ -1,6 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { Button } from '../../../components/ui/button';
-import { VerdictShape, verdictOf } from '../../systems/components/verdict-mark';
+import { fixtureVerdict, VERDICT_COLOUR, VERDICT_WORDS, VerdictGlyph, VerdictMark, VerdictShape, verdictOfStatus } from '../../systems/components/verdict-mark';
+import { liveStatus, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { layoutTree } from '../lib/diagram-layout';
 import { nodeElevations } from '../../../engine';
@@ -36,7 +37,9 @@ export function RiserDiagramPage() {
 
   const analysis = live.ok ? live.analysis : null;
   const segResult = new Map(analysis?.segments.map((s) => [s.id, s]) ?? []);
+  // every node's elevation, absolute, on a floor or placed by its feed segment's rise (document version 2)
   const elevation = nodeElevations(document);
+  const status = liveStatus(live);
   const layout = layoutTree({
     sourceNodeId: document.source.nodeId,
     nodes: document.nodes.map((n) => ({ ...n, elevation: elevation.get(n.id) ?? 0 })),
@@ -53,7 +56,10 @@ export function RiserDiagramPage() {
   return (
     <div className="flex flex-col gap-3">
       <style>{'@media print { header, footer, nav, .print-hide { display: none !important; } main { max-width: none !important; padding: 0 !important; } }'}</style>
-      <h2 className="text-2xl">Riser diagram</h2>
+      <div className="flex flex-wrap items-center gap-3">
+        <h2 className="text-2xl">Riser diagram</h2>
+        <VerdictMark verdict={verdictOfStatus(status)} />
+      </div>
       <div className="print-hide flex flex-wrap items-center gap-2" role="group" aria-label="Zoom and print">
         <Button variant="secondary" onClick={() => setZoom((z) => clamp(z / ZOOM_STEP))} aria-label="Zoom out">−</Button>
         <span className="min-w-16 text-center text-sm tabular-nums" aria-live="polite">{Math.round(zoom * 100)} %</span>
@@ -67,7 +73,7 @@ export function RiserDiagramPage() {
         <svg width={W * zoom} height={H * zoom} viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="riser-title riser-desc" data-testid="riser-diagram">
           <title id="riser-title">Riser diagram of {document.name}</title>
           <desc id="riser-desc">
-            {document.segments.length} segments from the source; {fixtures.length} checked fixtures, {passCount} pass and {fixtures.length - passCount} fail. Height follows node elevation.
+            {plural(document.segments.length, 'segment')} from the source; {plural(fixtures.length, 'checked fixture')}, {passCount} pass and {fixtures.length - passCount} fail; the verdict is {VERDICT_WORDS[verdictOfStatus(status)].toLowerCase()}. Height follows node elevation.
           </desc>
           {document.segments.map((s) => {
             const r = segResult.get(s.id);
@@ -94,12 +100,12 @@ export function RiserDiagramPage() {
             const same = fixtures.filter((g, j) => g.nodeId === f.nodeId && j < k).length;
             const fx = x(f.nodeId) + 8;
             const fy = y(f.nodeId) - 8 - same * 16;
-            const verdict = verdictOf(f.pass);
+            const verdict = fixtureVerdict(f.pass, status);
             return (
               <g key={f.id} transform={`translate(${fx},${fy - 10})`} data-testid={`diagram-fixture-${f.id}`}>
-                <g transform="scale(0.8)"><VerdictShapeInSvg pass={f.pass} /></g>
-                <text x={16} y={11} fontSize="10" fill={f.pass ? '#22613f' : '#9b1c1c'} fontWeight={analysis?.criticalFixtureId === f.id ? 700 : 400}>
-                  {f.label}: {signed(f.margin, 1)} {units.pressure} {verdict === 'pass' ? 'pass' : 'FAIL'}
+                <g transform="scale(0.8)" color={VERDICT_COLOUR[verdict]} data-shape={verdict}><VerdictGlyph verdict={verdict} /></g>
+                <text x={16} y={11} fontSize="10" fill={VERDICT_COLOUR[verdict]} fontWeight={analysis?.criticalFixtureId === f.id ? 700 : 400}>
+                  {f.label}: {signed(f.margin, 1)} {units.pressure} {verdict === 'pass' ? 'pass' : verdict === 'fail' ? 'FAIL' : 'incomplete'}
                   {analysis?.criticalFixtureId === f.id ? ' (critical)' : ''}
                 </text>
               </g>
@@ -108,23 +114,8 @@ export function RiserDiagramPage() {
         </svg>
       </div>
       <p className="text-sm text-ink-soft">
-        <VerdictShape verdict="pass" /> pass · <VerdictShape verdict="fail" /> fail · dashed thick pipe: velocity over the limit. Labels: nominal size · design flow.
+        <VerdictShape verdict="pass" /> pass · <VerdictShape verdict="fail" /> fail · <VerdictShape verdict="incomplete" /> incomplete (the description is not complete yet) · dashed thick pipe: velocity over the limit. Labels: nominal size · design flow.
       </p>
     </div>
-  );
-}
-
-/** The pass/fail shapes drawn inside the diagram's own SVG (same shapes as the page's marks). */
-function VerdictShapeInSvg({ pass }: { pass: boolean }) {
-  return pass ? (
-    <g>
-      <circle cx="8" cy="8" r="7" fill="#22613f" />
-      <path d="M4.5 8.3 7 10.8 11.6 5.6" fill="none" stroke="white" strokeWidth="2" />
-    </g>
-  ) : (
-    <g>
-      <path d="M8 1 15.5 14.5H.5Z" fill="#9b1c1c" />
-      <path d="M8 5.5v4.5M8 12v.6" stroke="white" strokeWidth="2" />
-    </g>
   );
 }

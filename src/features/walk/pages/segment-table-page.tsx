@@ -10,9 +10,12 @@ import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOption
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect } from '../components/cells';
 import { LedgerPanel } from '../components/ledger-panel';
+import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
+import { plural } from '../lib/verdict';
 import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { followTypedRises } from '../lib/rises';
 
 const optionalText = z.preprocess((v) => (v === '' ? undefined : v), z.string().optional());
 export const segmentTableSchema = z.object({
@@ -38,7 +41,7 @@ type Row = { id: string; material: string; size: string; length: number; rise?: 
 
 export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmentTableSchema>): SystemDocument {
   const byId = new Map(v.segments.map((s) => [s.id, s]));
-  return {
+  return followTypedRises(doc, {
     ...doc,
     segments: doc.segments.map((s) => {
       const r = byId.get(s.id);
@@ -56,7 +59,7 @@ export function applySegmentTable(doc: SystemDocument, v: z.output<typeof segmen
       } else if (next.material !== undefined) delete next.custom;
       return next;
     }),
-  };
+  });
 }
 
 type TableRowProps = {
@@ -72,6 +75,9 @@ type TableRowProps = {
   velocity: number | undefined;
   fast: boolean;
   loss: number | undefined;
+  flagFast: string | null;
+  flagFailing: string | null;
+  flagMissing: string | null;
   register: UseFormRegister<{ segments: Row[] }>;
   setValue: UseFormSetValue<{ segments: Row[] }>;
   materialOptions: { value: string; label: string }[];
@@ -87,7 +93,10 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
   const i = p.index;
   return (
     <tr className="border-b border-rule align-top" data-testid={`row-${p.id}`}>
-      <th scope="row" className="py-1 pr-2 text-left font-normal">{p.name}</th>
+      <th scope="row" className="py-1 pr-2 text-left font-normal">
+        {p.name}
+        <SegmentFlags fast={p.flagFast} failing={p.flagFailing} missing={p.flagMissing} className="mt-0.5 max-w-56" />
+      </th>
       <td className="py-1 pr-2">{p.from}</td>
       <td className="py-1 pr-2">{p.to}</td>
       <td className="min-w-40 py-1 pr-2">
@@ -96,8 +105,8 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
       <td className="min-w-36 py-1 pr-2">
         <CellSelect label={`${p.name} size`} options={p.sizeOptions} error={p.sizeError} {...p.register(`segments.${i}.size`, { onChange: () => p.onPipeChange(i) })} />
       </td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="number" step="any" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="number" step="any" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
+      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
+      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.wsfu, 1)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.flow, 1)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.velocity, 2)}{p.fast ? ' ▲ over' : ''}</td>
@@ -151,6 +160,7 @@ export function SegmentTablePage() {
   const results = useMemo(() => new Map(live.ok ? live.analysis.segments.map((s) => [s.id, s]) : []), [live]);
   const seg = useMemo(() => new Map(document.segments.map((s) => [s.id, s])), [document]);
   const sys = document.unitSystem;
+  const flagsOf = useSegmentFlags();
 
   const value = (i: number, key: SortKey): string | number => {
     const r = rows[i];
@@ -205,7 +215,7 @@ export function SegmentTablePage() {
     <div className="flex flex-col gap-4">
       <h2 className="text-2xl">Segment table</h2>
       <TextField label="Filter segments" hint="By id, name, node, material or size." value={filter} onChange={(ev) => setFilter(ev.target.value)} className="max-w-sm" />
-      <p className="text-sm text-ink-soft" aria-live="polite">{visible.length} of {rows.length} segment(s) shown.</p>
+      <p className="text-sm text-ink-soft" aria-live="polite">{visible.length} of {plural(rows.length, 'segment')} shown.</p>
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_20rem]">
         <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Segment table" className="min-w-0 overflow-x-auto [contain:layout_paint]">
           <fieldset disabled={readOnlyReason !== null}>
@@ -228,6 +238,7 @@ export function SegmentTablePage() {
                   const r = rows[i];
                   const s = seg.get(r.id);
                   const res = results.get(r.id);
+                  const flags = flagsOf(r.id);
                   return (
                     <TableRow
                       key={r.id}
@@ -243,6 +254,9 @@ export function SegmentTablePage() {
                       velocity={res?.velocity}
                       fast={res?.velocityPass === false}
                       loss={res ? res.frictionLoss + res.fittingLoss : undefined}
+                      flagFast={flags.fast}
+                      flagFailing={flags.failing}
+                      flagMissing={flags.missing}
                       register={register}
                       setValue={setValue}
                       materialOptions={materialOptions}

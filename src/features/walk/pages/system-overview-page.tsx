@@ -13,7 +13,8 @@ import { formatDateTime } from '../../../lib/labels';
 import type { RevisionSummary } from '../../../shared/api/systems';
 import { useProject } from '../../projects/api/get-project';
 import { useSystem } from '../../systems/api/get-system';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { revisionVerdict, VerdictMark } from '../../systems/components/verdict-mark';
+import { plural } from '../lib/verdict';
 import { SystemFieldChanges } from '../../field-changes/components/system-field-changes';
 import { signed } from '../lib/format';
 import { walkPaths } from '../paths';
@@ -25,9 +26,9 @@ export function RevisionVerdictText({ revision }: { revision: RevisionSummary })
   if (!v.ok) return <VerdictMark verdict="unknown">Not computed: {v.errorMessage}</VerdictMark>;
   return (
     <span className="flex flex-wrap items-center gap-2">
-      <VerdictMark verdict={verdictOf(v.allPass)} />
+      <VerdictMark verdict={revisionVerdict(v)} />
       {v.criticalMargin !== null ? <span className="text-sm">critical margin {signed(v.criticalMargin, 2)}</span> : <span className="text-sm text-ink-muted">no checked fixtures</span>}
-      {v.warningCount ? <span className="text-sm text-ink-muted">{v.warningCount} warning(s)</span> : null}
+      {v.warningCount ? <span className="text-sm text-ink-muted">{plural(v.warningCount, 'warning')}</span> : null}
     </span>
   );
 }
@@ -60,7 +61,7 @@ export function SystemOverviewPage() {
       </p>
       <PageHeader
         title={info.name}
-        subtitle={`${info.service === 'hot' ? 'Hot water' : 'Cold water'} system · ${revisions.length} revision(s)`}
+        subtitle={`${info.service === 'hot' ? 'Hot water' : 'Cold water'} system · ${plural(revisions.length, 'revision')}`}
         actions={
           current ? (
             <Link className="rounded-md border-2 border-standpipe bg-standpipe px-4 py-2 text-sm font-semibold text-paper no-underline hover:text-paper" to={walkPaths.step.getHref(projectId, systemId, current.id, 'supply')}>

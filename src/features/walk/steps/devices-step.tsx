@@ -122,8 +122,9 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
               <td className="pr-2">
                 <CellInput
                   label={`Point ${k + 1} flow (${units.flow})`}
-                  type="number"
-                  step="any"
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
                   error={plainError(rowErrors?.[k]?.flow?.message)}
                   onPaste={(ev) => {
                     const text = ev.clipboardData.getData('text');
@@ -136,7 +137,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
                 />
               </td>
               <td className="pr-2">
-                <CellInput label={`Point ${k + 1} loss (${units.pressure})`} type="number" step="any" error={plainError(rowErrors?.[k]?.loss?.message)} {...register(`devices.${index}.points.${k}.loss`, numberInput)} />
+                <CellInput label={`Point ${k + 1} loss (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(rowErrors?.[k]?.loss?.message)} {...register(`devices.${index}.points.${k}.loss`, numberInput)} />
               </td>
               <td>
                 <Button variant="quiet" onClick={() => points.remove(k)} disabled={points.fields.length <= 1} aria-label={`Remove point ${k + 1}`}>
@@ -272,25 +273,25 @@ export function DevicesStep() {
                 {lossKind === 'fixed' ? (
                   <label className="flex flex-col gap-1 text-sm font-semibold">
                     Loss at any flow ({units.pressure})
-                    <CellInput label={`Device ${i + 1} fixed loss (${units.pressure})`} type="number" step="any" error={plainError(err?.fixedLoss?.message)} {...register(`devices.${i}.fixedLoss`, numberInput)} />
+                    <CellInput label={`Device ${i + 1} fixed loss (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.fixedLoss?.message)} {...register(`devices.${i}.fixedLoss`, numberInput)} />
                   </label>
                 ) : null}
                 {kind === 'prv' ? (
                   <>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
                       PRV set pressure ({units.pressure})
-                      <CellInput label={`Device ${i + 1} PRV set pressure (${units.pressure})`} type="number" step="any" error={plainError(err?.prvSet?.message)} {...register(`devices.${i}.prvSet`, numberInput)} />
+                      <CellInput label={`Device ${i + 1} PRV set pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.prvSet?.message)} {...register(`devices.${i}.prvSet`, numberInput)} />
                     </label>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
                       PRV fall-off ({units.pressure} per {units.flow})
-                      <CellInput label={`Device ${i + 1} PRV fall-off`} type="number" step="any" error={plainError(err?.prvFalloff?.message)} {...register(`devices.${i}.prvFalloff`, numberInput)} />
+                      <CellInput label={`Device ${i + 1} PRV fall-off`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.prvFalloff?.message)} {...register(`devices.${i}.prvFalloff`, numberInput)} />
                     </label>
                   </>
                 ) : null}
                 {kind === 'booster-pump' ? (
                   <label className="flex flex-col gap-1 text-sm font-semibold">
                     Pressure added at design flow ({units.pressure})
-                    <CellInput label={`Device ${i + 1} booster gain (${units.pressure})`} type="number" step="any" error={plainError(err?.boostGain?.message)} {...register(`devices.${i}.boostGain`, numberInput)} />
+                    <CellInput label={`Device ${i + 1} booster gain (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.boostGain?.message)} {...register(`devices.${i}.boostGain`, numberInput)} />
                   </label>
                 ) : null}
               </div>

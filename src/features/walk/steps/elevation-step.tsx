@@ -187,7 +187,7 @@ export function ElevationStep() {
                         onChange={(ev) => setAssignment((a) => { const next = new Map(a); if (ev.target.value) next.set(n.id, Number(ev.target.value)); else next.delete(n.id); return next; })} />
                     )}
                   </td>
-                  <td className="w-40 py-1"><CellInput label={`Elevation of ${label.get(n.id)} (${units.elevation})`} type="number" step="any" error={plainError(errors.nodes?.[i]?.elevation?.message)} {...register(`nodes.${i}.elevation`, numberInput)} /></td>
+                  <td className="w-40 py-1"><CellInput label={`Elevation of ${label.get(n.id)} (${units.elevation})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors.nodes?.[i]?.elevation?.message)} {...register(`nodes.${i}.elevation`, numberInput)} /></td>
                 </tr>
               ))}
             </tbody>
@@ -215,7 +215,7 @@ export function ElevationStep() {
                 return (
                   <tr key={s.id} className="border-t border-rule" data-testid={`rise-check-${s.id}`}>
                     <th scope="row" className="py-1 pr-2 text-left font-normal">{s.label || s.id}</th>
-                    <td className="w-40 py-1 pr-2"><CellInput label={`Rise of ${s.label || s.id} (${units.length})`} type="number" step="any" {...register(`segments.${i}.rise`, numberInput)} /></td>
+                    <td className="w-40 py-1 pr-2"><CellInput label={`Rise of ${s.label || s.id} (${units.length})`} type="text" inputMode="decimal" autoComplete="off" {...register(`segments.${i}.rise`, numberInput)} /></td>
                     <td className="py-1 pr-2 text-right tabular-nums">{fmt(d, 2)}</td>
                     <td className="py-1">{!given ? 'No rise entered: the elevations are used' : agrees ? '✓ Agrees' : `✗ Differs by ${fmt(r - d, 2)} ${units.length}: the elevations are used`}</td>
                   </tr>

@@ -11,6 +11,8 @@ import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/sc
 import { fittingK } from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
+import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
+import type { SegmentFlagValues } from '../components/segment-flags';
 import { fittingWithProjectData, projectOptions as projectOptionsOf } from '../../catalog/lib/apply-entries';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
@@ -75,7 +77,7 @@ export function kOf(typeId: string, segment: SystemDocument['segments'][number] 
   }
 }
 
-function SegmentFittings({ index, control, register, watch, setValue, catalog, doc, analysis, method, units, projectFittings }: {
+function SegmentFittings({ index, control, register, watch, setValue, catalog, doc, analysis, method, units, projectFittings, flags }: {
   index: number;
   control: Control<FittingsForm>;
   register: UseFormRegister<FittingsForm>;
@@ -87,6 +89,7 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
   analysis: Analysis | null;
   method: FittingsForm['fittingMethod'];
   units: { pressure: string };
+  flags: SegmentFlagValues;
 }) {
   const list = useFieldArray({ control, name: `segments.${index}.fittings` });
   const id = watch(`segments.${index}.id`);
@@ -99,6 +102,7 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
   const projectOptions = projectOptionsOf(projectFittings);
   return (
     <Section title={name} headingLevel={3}>
+      <div data-testid={`fittings-${id}`}><SegmentFlags {...flags} className="mb-2" /></div>
       <table className="w-full text-sm">
         <caption className="sr-only">Fittings of {name}</caption>
         <thead>
@@ -126,7 +130,7 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
                   {custom ? <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>Project data: {custom.label} — source: {custom.source}</p> : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
-                  <CellInput label={`${name}: fitting ${k + 1} count`} type="number" min="1" step="1" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
+                  <CellInput label={`${name}: fitting ${k + 1} count`} type="text" inputMode="numeric" autoComplete="off" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
                 </td>
                 <td className="py-1 pr-2 text-right tabular-nums" data-testid={`k-${id}-${k}`}>
                   {kr ? fmt(kr.K, 3) : '—'}
@@ -173,6 +177,7 @@ export function FittingsStep() {
   const order = treeOrder(document.segments, document.source.nodeId);
   const indexById = new Map(defaults.segments.map((s, i) => [s.id, i]));
   const analysis = live.ok ? live.analysis : null;
+  const flagsOf = useSegmentFlags();
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
       <StepIntro title="Fittings">
@@ -198,7 +203,7 @@ export function FittingsStep() {
         {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
         {order.map(({ index }) => {
           const i = indexById.get(document.segments[index].id);
-          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} />;
+          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} flags={flagsOf(document.segments[index].id)} />;
         })}
       </fieldset>
     </form>

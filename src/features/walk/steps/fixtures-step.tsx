@@ -5,11 +5,11 @@ import { z } from 'zod';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
-import { fromSI } from '../../../engine';
+import { fromSI, verdictStatus } from '../../../engine';
 import type { Analysis, SystemDocument } from '../../../engine';
 import { CheckedFixtureSchema } from '../../../engine/model/schema';
 import type { Catalog } from '../../systems/api/get-catalog';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { fixtureVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import { useWalk } from '../draft/walk-context';
 import { unusableProjectOptions } from '../../catalog/lib/apply-entries';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
@@ -74,8 +74,9 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
                 Minimum flow pressure ({units.pressure})
                 <CellInput
                   label={`${name}: checked fixture ${k + 1} minimum flow pressure (${units.pressure})`}
-                  type="number"
-                  step="any"
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
                   placeholder={catalogMin === undefined ? '' : `catalog: ${fmt(catalogMin, 1)}`}
                   error={plainError(err?.minFlowPressure?.message)}
                   {...register(`nodes.${index}.checkedFixtures.${k}.minFlowPressure`, numberInput)}
@@ -95,7 +96,7 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
                   <span>Residual {fmt(result.residual, 2)} {units.pressure}</span>
                   <span>needs {fmt(result.required, 2)}</span>
                   <span>margin {signed(result.margin, 2)}</span>
-                  <VerdictMark verdict={verdictOf(result.pass)} />
+                  <VerdictMark verdict={fixtureVerdict(result.pass, analysis ? verdictStatus(analysis) : null)} />
                   {critical ? <strong data-testid="critical-marker">◆ Critical: the smallest margin</strong> : null}
                 </>
               ) : (

@@ -7,8 +7,14 @@ import { Section } from '../../../components/ui/card';
 import { TextAreaField } from '../../../components/ui/field';
 import { errorMessage } from '../../../lib/error-messages';
 import { formatDateTime } from '../../../lib/labels';
-import { issueRevisionInputSchema, useIssueRevision } from '../../systems/api/issue-revision';
-import { VerdictMark, verdictOf } from '../../systems/components/verdict-mark';
+import { Link } from 'react-router-dom';
+import { verdictStatus } from '../../../engine';
+import type { IncompleteReason } from '../../../engine';
+import { incompleteReasonsOf, issueRevisionInputSchema, useIssueRevision } from '../../systems/api/issue-revision';
+import { fixtureVerdict, VerdictMark } from '../../systems/components/verdict-mark';
+import { WALK_STEPS } from '../steps';
+import type { WalkStepId } from '../steps';
+import { liveStatus, plural, stepOfReason } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { RevisionSummaryPanel } from '../../summaries/components/revision-summary-panel';
 import { StepIntro } from '../components/cells';
@@ -18,39 +24,124 @@ import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
 
+const STATEMENT_MIN = 20;
+
+/**
+ * Issue, asked once. An incomplete revision cannot be issued (the button is disabled and the
+ * reasons say why); a failing one only with the designer's acknowledgement statement, which the
+ * server records with the revision.
+ */
 function IssueForm() {
-  const { ids, draft, live } = useWalk();
+  const { ids, draft, live, revision, links } = useWalk();
   const issue = useIssueRevision();
   const [preparing, setPreparing] = useState(false);
+  const [confirming, setConfirming] = useState<{ note: string } | null>(null);
+  const [statement, setStatement] = useState('');
   const form = useForm({ resolver: zodResolver(issueRevisionInputSchema), defaultValues: { note: '' } });
-  const onSubmit = form.handleSubmit(async ({ note }) => {
+  const status = liveStatus(live);
+  const reasons = live.ok ? live.analysis.verdict.incomplete ?? [] : [];
+  const blocked = !live.ok || status === 'incomplete' || draft.state === 'conflict';
+  const statementShort = status === 'fail' && statement.trim().length < STATEMENT_MIN;
+  const onSubmit = form.handleSubmit(({ note }) => {
+    issue.reset();
+    setConfirming({ note: note ?? '' });
+  });
+  const confirm = async () => {
+    if (!confirming || statementShort) return;
     setPreparing(true);
     const version = await draft.versionToIssue();
     setPreparing(false);
     if (version === null) return;
-    issue.mutate({ ...ids, version, note });
-  });
+    issue.mutate(
+      { ...ids, version, note: confirming.note, ...(status === 'fail' ? { acknowledgeFailure: { statement } } : {}) },
+      { onSettled: () => setConfirming(null) },
+    );
+  };
+  const serverReasons = incompleteReasonsOf(issue.error);
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Issue this revision">
       <p className="max-w-prose text-sm">
         Issuing freezes this revision — its document, its analysis, the engine version and a hash of the inputs. It can
         then be read and compared but never changed; later changes go into a new draft started from it.
       </p>
-      <TextAreaField label="Note for this revision (optional)" hint="For example what changed, or who it is for." error={form.formState.errors.note?.message} {...form.register('note')} />
-      <div>
-        <Button type="submit" pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={!live.ok || draft.state === 'conflict'}>
-          Issue revision
-        </Button>
-      </div>
+      <TextAreaField label="Note for this revision (optional)" hint="For example what changed, or who it is for." error={form.formState.errors.note?.message} readOnly={confirming !== null} {...form.register('note')} />
+      {confirming ? (
+        <div className="flex flex-col gap-3 rounded-md border-2 border-standpipe bg-standpipe-soft p-3" role="group" aria-label="Confirm issuing">
+          <p className="font-semibold">
+            Issue revision {revision.number}
+            {status === 'fail' ? ' although it fails' : ''}? It never changes once issued.
+          </p>
+          {status === 'fail' ? (
+            <TextAreaField
+              label="Your statement: why this failing revision is issued"
+              hint={`Recorded with the revision and printed on its summary. At least ${STATEMENT_MIN} characters, e.g. which check fails and what is being done about it.`}
+              value={statement}
+              onChange={(ev) => setStatement(ev.target.value)}
+              error={statementShort && statement.length > 0 ? `At least ${STATEMENT_MIN} characters` : undefined}
+            />
+          ) : null}
+          <div className="flex flex-wrap gap-3">
+            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked}>
+              {status === 'fail' ? `Yes, issue failing revision ${revision.number}` : `Yes, issue revision ${revision.number}`}
+            </Button>
+            <Button variant="secondary" onClick={() => setConfirming(null)} disabled={issue.isPending || preparing}>
+              Not now
+            </Button>
+          </div>
+        </div>
+      ) : (
+        <div>
+          <Button type="submit" disabled={blocked} aria-describedby={status === 'incomplete' ? 'issue-blocked' : undefined}>
+            Issue revision…
+          </Button>
+        </div>
+      )}
       {!live.ok ? <p className="text-sm text-fault">A revision that cannot be computed cannot be issued.</p> : null}
+      {live.ok && status === 'incomplete' ? (
+        <div id="issue-blocked" className="text-sm" data-testid="issue-blocked">
+          <p className="font-semibold text-caution">An incomplete revision cannot be issued. Still missing:</p>
+          <ul className="mt-1 list-disc pl-5">
+            {reasons.map((r, i) => (
+              <li key={`${r.code}-${r.elementId ?? ''}-${i}`}>
+                {r.message} <Link to={links.step(stepOfReason(r))}>Fix at {stepLabel(stepOfReason(r))}</Link>
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
       <div aria-live="assertive">
         {issue.isError ? (
           <Alert tone="fault" title="Not issued">
             {errorMessage(issue.error)}
+            {serverReasons.length ? (
+              <ul className="mt-2 list-disc pl-5" data-testid="issue-refused-reasons">
+                {serverReasons.map((r) => <li key={r}>{r}</li>)}
+              </ul>
+            ) : null}
           </Alert>
         ) : null}
       </div>
     </form>
+  );
+}
+
+const stepLabel = (id: WalkStepId) => WALK_STEPS.find((s) => s.id === id)?.label ?? id;
+
+/** What is missing before Headroom can say pass or fail, each with a link to the step that fixes it. */
+function IncompleteList({ reasons }: { reasons: IncompleteReason[] }) {
+  const { links } = useWalk();
+  return (
+    <ul className="mt-2 flex flex-col gap-1 text-sm" data-testid="incomplete-reasons">
+      {reasons.map((r, i) => {
+        const step = stepOfReason(r);
+        return (
+          <li key={`${r.code}-${r.elementId ?? ''}-${i}`} data-code={r.code}>
+            <span aria-hidden="true">○ </span>
+            {r.message} <Link to={links.step(step)}>Fix at {stepLabel(step)}</Link>
+          </li>
+        );
+      })}
+    </ul>
   );
 }
 
@@ -71,7 +162,8 @@ export function ResultStep() {
   const ledger = criticalLedger(a);
   const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId);
   const nodeName = new Map(document.nodes.map((n) => [n.id, n.label || n.id]));
-  const allPass = a.verdict.allFixturesPass && a.verdict.allVelocitiesPass && a.verdict.allStaticPass;
+  const status = verdictStatus(a);
+  const reasons = a.verdict.incomplete ?? [];
   const fastSegments = a.segments.filter((s) => s.velocityPass === false);
   const staticNodes = a.nodes.filter((n) => n.staticPass !== null);
   const overStatic = staticNodes.filter((n) => n.staticPass === false);
@@ -81,8 +173,18 @@ export function ResultStep() {
       <StepIntro title="Result" />
       <div className="rounded-lg border-2 border-rule bg-surface p-4" data-testid="overall-verdict">
         <p className="flex flex-wrap items-center gap-3 text-xl">
-          <VerdictMark verdict={verdictOf(allPass)}>{allPass ? 'Every check passes' : `${a.verdict.failures} check(s) fail`}</VerdictMark>
+          <VerdictMark verdict={status}>
+            {status === 'pass'
+              ? 'Every check passes'
+              : status === 'fail'
+                ? `${plural(a.verdict.failures, 'check')} ${a.verdict.failures === 1 ? 'fails' : 'fail'}`
+                : `Incomplete: ${plural(reasons.length, 'item')} missing before Headroom can say pass or fail`}
+          </VerdictMark>
         </p>
+        {status === 'incomplete' ? <IncompleteList reasons={reasons} /> : null}
+        {status === 'incomplete' && a.verdict.failures > 0 ? (
+          <p className="mt-2 text-sm text-fault">On the description as it is, {plural(a.verdict.failures, 'check')} already {a.verdict.failures === 1 ? 'fails' : 'fail'}.</p>
+        ) : null}
         <p className="mt-1 text-sm text-ink-soft">
           Fixtures {a.verdict.allFixturesPass ? 'pass' : 'FAIL'} · velocities {a.verdict.allVelocitiesPass ? 'pass' : 'FAIL'} · static pressure{' '}
           {a.verdict.allStaticPass ? 'passes' : 'FAILS'} · engine {a.engineVersion}
@@ -117,7 +219,7 @@ export function ResultStep() {
                     <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.residual, 2)}</td>
                     <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.required, 2)}</td>
                     <td className="py-1 pr-3 text-right tabular-nums" data-testid={`margin-${f.id}`}>{signed(f.margin, 2)}</td>
-                    <td className="py-1"><VerdictMark verdict={verdictOf(f.pass)} /></td>
+                    <td className="py-1"><VerdictMark verdict={fixtureVerdict(f.pass, status)} /></td>
                   </tr>
                 ))}
               </tbody>
@@ -140,23 +242,23 @@ export function ResultStep() {
       <Section title="Velocity and static pressure" headingLevel={3}>
         <div className="flex flex-col gap-2 text-sm">
           <p data-testid="velocity-check">
-            <VerdictMark verdict={verdictOf(a.verdict.allVelocitiesPass)}>Velocity</VerdictMark>{' '}
+            <VerdictMark verdict={fixtureVerdict(a.verdict.allVelocitiesPass, status)}>Velocity</VerdictMark>{' '}
             {fastSegments.length === 0
               ? `Every segment is within its velocity limit (highest ${fmt(Math.max(0, ...a.segments.map((s) => s.velocity)), 2)} ${units.velocity}).`
-              : `${fastSegments.length} segment(s) are above the limit: ${fastSegments.map((s) => `${s.label ?? s.id} ${fmt(s.velocity, 2)} > ${fmt(s.velocityLimit, 2)} ${units.velocity}`).join('; ')}.`}
+              : `${plural(fastSegments.length, 'segment')} ${fastSegments.length === 1 ? 'is' : 'are'} above the limit: ${fastSegments.map((s) => `${s.label ?? s.id} ${fmt(s.velocity, 2)} > ${fmt(s.velocityLimit, 2)} ${units.velocity}`).join('; ')}.`}
           </p>
           <p data-testid="static-check">
-            <VerdictMark verdict={verdictOf(a.verdict.allStaticPass)}>Static pressure</VerdictMark>{' '}
+            <VerdictMark verdict={fixtureVerdict(a.verdict.allStaticPass, status)}>Static pressure</VerdictMark>{' '}
             {overStatic.length === 0
               ? `The highest static pressure at a node serving fixtures is ${fmt(Math.max(0, ...staticNodes.map((n) => n.staticPressureHigh)), 1)} ${units.pressure}, within the maximum of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}.`
-              : `${overStatic.length} node(s) are above the maximum static pressure of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}: ${overStatic.map((n) => `${n.label ?? n.id} ${fmt(n.staticPressureHigh, 1)}`).join('; ')}. A pressure-reducing valve is likely needed.`}
+              : `${plural(overStatic.length, 'node')} ${overStatic.length === 1 ? 'is' : 'are'} above the maximum static pressure of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}: ${overStatic.map((n) => `${n.label ?? n.id} ${fmt(n.staticPressureHigh, 1)}`).join('; ')}. A pressure-reducing valve is likely needed.`}
           </p>
           <p className="text-ink-soft">Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.</p>
         </div>
       </Section>
 
       <Section title="Warnings" headingLevel={3}>
-        <WarningList title={`${a.warnings.length} warning(s) in plain words`} warnings={a.warnings} empty="No warnings." />
+        <WarningList title={`${plural(a.warnings.length, 'warning')} in plain words`} warnings={a.warnings} empty="No warnings." />
       </Section>
 
       <Section title="Cautions" headingLevel={3}>

@@ -14,10 +14,13 @@ import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
+import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
+import { plural } from '../lib/verdict';
 import { parseFixtureGroups } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { treeOrder } from '../lib/tree';
+import { followTypedRises } from '../lib/rises';
 import { useLiveForm } from '../lib/use-live-form';
 import { sizeChoices } from '../lib/sizes';
 
@@ -133,7 +136,7 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
     else next.continuousDemand = r.continuousDemand;
     return next;
   });
-  return { ...doc, segments, nodes };
+  return followTypedRises(doc, { ...doc, segments, nodes });
 }
 
 function sizeOptions(catalog: Catalog, project: ProjectCatalog, materialId: string | undefined, sys: SystemDocument['unitSystem'], unit: string) {
@@ -183,7 +186,7 @@ function FixtureGroups({ index, control, register, setValue, rows, projectFixtur
         <div key={g.id} className="flex flex-col gap-1">
           <div className="flex flex-wrap items-start gap-2">
             <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`, { onChange: () => setValue(`nodes.${index}.fixtureGroups.${k}.custom`, undefined) })} />
-            <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="number" step="1" min="1" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
+            <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="text" inputMode="numeric" autoComplete="off" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
             <Button variant="quiet" disabled={locked} onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>Remove</Button>
           </div>
           {own ? (
@@ -196,9 +199,9 @@ function FixtureGroups({ index, control, register, setValue, rows, projectFixtur
             <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
               <label className="flex flex-col text-xs font-semibold">Demand curve<CellSelect label={`${nodeLabel}: fixture group ${k + 1} demand curve`} options={DEMAND_CURVE_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.demandCurve`)} /></label>
               <label className="flex flex-col text-xs font-semibold">Fixture units counted<CellSelect label={`${nodeLabel}: fixture group ${k + 1} fixture-unit basis`} options={WSFU_BASIS_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.wsfuBasis`)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Flow in use ({units.flow})<CellInput label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`} type="number" step="any" placeholder="the type’s" error={plainError(errors?.[k]?.usage?.flow?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.flow`, numberInput)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Use lasts (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`} type="number" step="any" error={plainError(errors?.[k]?.usage?.durationSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.durationSeconds`, numberInput)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Time between uses (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`} type="number" step="any" error={plainError(errors?.[k]?.usage?.recurrenceSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.recurrenceSeconds`, numberInput)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Flow in use ({units.flow})<CellInput label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="the type’s" error={plainError(errors?.[k]?.usage?.flow?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.flow`, numberInput)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Use lasts (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.[k]?.usage?.durationSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.durationSeconds`, numberInput)} /></label>
+              <label className="flex flex-col text-xs font-semibold">Time between uses (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.[k]?.usage?.recurrenceSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.recurrenceSeconds`, numberInput)} /></label>
             </div>
             <p className="mt-1 text-xs text-ink-muted">Private or public use is chosen with the fixture type. Empty = the fixture type’s own value.</p>
           </details>
@@ -230,14 +233,53 @@ function CustomPipeFields({ index, name, register, errors, units, fromProject, s
     <fieldset className="mt-2 rounded border border-rule p-2" disabled={fromProject || undefined}>
       <legend className="px-1 text-xs font-semibold">{fromProject ? 'Pipe data copied from the project catalog' : 'Custom pipe data'}</legend>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
-        <label className="flex flex-col text-xs font-semibold">Inside diameter ({units.diameter})<CellInput label={`${name} custom inside diameter (${units.diameter})`} type="number" step="any" error={plainError(errors?.innerDiameter?.message)} {...register(`segments.${index}.custom.innerDiameter`, numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Absolute roughness ({units.diameter})<CellInput label={`${name} custom roughness (${units.diameter})`} type="number" step="any" error={plainError(errors?.roughness?.message)} {...register(`segments.${index}.custom.roughness`, numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Hazen–Williams C<CellInput label={`${name} custom Hazen–Williams C`} type="number" step="any" error={plainError(errors?.hazenWilliamsC?.message)} {...register(`segments.${index}.custom.hazenWilliamsC`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Inside diameter ({units.diameter})<CellInput label={`${name} custom inside diameter (${units.diameter})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.innerDiameter?.message)} {...register(`segments.${index}.custom.innerDiameter`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Absolute roughness ({units.diameter})<CellInput label={`${name} custom roughness (${units.diameter})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.roughness?.message)} {...register(`segments.${index}.custom.roughness`, numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Hazen–Williams C<CellInput label={`${name} custom Hazen–Williams C`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.hazenWilliamsC?.message)} {...register(`segments.${index}.custom.hazenWilliamsC`, numberInput)} /></label>
         <label className="flex flex-col text-xs font-semibold">Velocity limit<CellSelect label={`${name} custom velocity class`} options={VELOCITY_CLASS_OPTIONS} error={plainError(errors?.velocityClass?.message)} {...register(`segments.${index}.custom.velocityClass`)} /></label>
       </div>
       {source ? <p className="mt-1 text-xs text-ink-muted">Source: {source}</p> : null}
     </fieldset>
   );
+}
+
+/** What removing a segment takes with it: its downstream segments and nodes, their fixture groups and checked fixtures. */
+interface Removal {
+  segmentId: string;
+  segmentIds: Set<string>;
+  nodeIds: Set<string>;
+  lines: string[];
+  summary: string;
+}
+
+export function removalOf(values: RisersForm, doc: SystemDocument, index: number, nodeName: (id: string) => string): Removal {
+  const seg = values.segments[index];
+  const segmentIds = new Set([seg.id]);
+  const nodeIds = new Set<string>();
+  const queue = [seg.to];
+  while (queue.length) {
+    const node = queue.shift()!;
+    if (node === doc.source.nodeId || nodeIds.has(node)) continue;
+    nodeIds.add(node);
+    for (const s of values.segments) if (s.from === node && !segmentIds.has(s.id)) {
+      segmentIds.add(s.id);
+      queue.push(s.to);
+    }
+  }
+  const downstream = values.segments.filter((s) => segmentIds.has(s.id) && s.id !== seg.id).map((s) => s.label || s.id);
+  const groups = values.nodes.filter((n) => nodeIds.has(n.id)).flatMap((n) => n.fixtureGroups.map(() => nodeName(n.id)));
+  const checked = doc.nodes.filter((n) => nodeIds.has(n.id)).flatMap((n) => n.checkedFixtures.map((f) => f.label || f.id));
+  const lines = [
+    downstream.length ? `${plural(downstream.length, 'downstream segment')}: ${downstream.join(', ')}` : null,
+    nodeIds.size ? `${plural(nodeIds.size, 'node')}: ${[...nodeIds].map(nodeName).join(', ')}` : null,
+    groups.length ? `${plural(groups.length, 'fixture group')} (at ${[...new Set(groups)].join(', ')})` : null,
+    checked.length ? `${plural(checked.length, 'checked fixture')}: ${checked.join(', ')}` : null,
+  ].filter((l): l is string => l !== null);
+  const name = seg.label || seg.id;
+  const summary = [name, downstream.length ? plural(downstream.length, 'downstream segment') : null, groups.length ? plural(groups.length, 'fixture group') : null, checked.length ? plural(checked.length, 'checked fixture') : null]
+    .filter(Boolean)
+    .join(', ');
+  return { segmentId: seg.id, segmentIds, nodeIds, lines, summary };
 }
 
 export function RisersStep() {
@@ -261,6 +303,7 @@ export function RisersStep() {
   const nodeIndex = new Map(nodeRows.map((n, i) => [n.id, i]));
   const nodeName = (id: string) => nodeRows[nodeIndex.get(id) ?? -1]?.label || id;
   const materialChoices = materialOptions(catalog, project);
+  const flagsOf = useSegmentFlags();
 
   /** A project material and size chosen: its numbers are copied into the segment's custom pipe. */
   const copyProjectPipe = (i: number) => {
@@ -283,18 +326,33 @@ export function RisersStep() {
       material: feeding?.material ?? catalog.materials[0]?.id ?? '',
       size: feeding?.size ?? '',
       length: Number.NaN,
-      rise: 0,
+      rise: Number.NaN, // empty: the user enters the rise (0 for a level run); until then the verdict is incomplete
       custom: feeding ? { ...feeding.custom } : { ...EMPTY_CUSTOM },
       flowOverride: undefined,
     });
   };
 
-  const removeSegment = (index: number) => {
-    const seg = getValues(`segments.${index}`);
-    segments.remove(index);
-    const stillUsed = getValues('segments').some((s) => s.from === seg.to || s.to === seg.to);
-    const ni = getValues('nodes').findIndex((n) => n.id === seg.to);
-    if (!stillUsed && ni >= 0 && seg.to !== document.source.nodeId) nodes.remove(ni);
+  /** Asked first: removing a segment takes everything downstream with it (named in the question). */
+  const [removing, setRemoving] = useState<Removal | null>(null);
+  const [undo, setUndo] = useState<{ text: string; values: RisersForm; doc: SystemDocument } | null>(null);
+  const askRemove = (index: number) => setRemoving(removalOf(getValues(), document, index, nodeName));
+  const removeSegment = () => {
+    if (!removing) return;
+    const before = getValues();
+    const snapshot = { text: removing.summary, values: structuredClone(before), doc: document };
+    const segIdx = before.segments.map((s, i) => (removing.segmentIds.has(s.id) ? i : -1)).filter((i) => i >= 0);
+    const nodeIdx = before.nodes.map((n, i) => (removing.nodeIds.has(n.id) ? i : -1)).filter((i) => i >= 0);
+    segments.remove(segIdx);
+    if (nodeIdx.length) nodes.remove(nodeIdx);
+    setRemoving(null);
+    setUndo(snapshot);
+  };
+  const undoRemove = () => {
+    if (!undo) return;
+    // the document first (it holds the checked fixtures the form does not), then the form's rows
+    draft.update(() => undo.doc);
+    form.reset(undo.values);
+    setUndo(null);
   };
 
   const importCsv = (text: string) => {
@@ -318,6 +376,15 @@ export function RisersStep() {
         node, the fixtures it serves. The fixture units and the design flow of each segment follow live.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
+        <div aria-live="polite">
+          {undo ? (
+            <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
+              <p>Removed {undo.text}.</p>
+              <Button variant="secondary" onClick={undoRemove}>Undo</Button>
+              <Button variant="quiet" onClick={() => setUndo(null)}>Dismiss</Button>
+            </div>
+          ) : null}
+        </div>
         <Section title="Segments" headingLevel={3}>
           {rows.length === 0 ? <p className="mb-3 text-ink-soft">No segments yet. Start with one from the connection.</p> : null}
           <ol className="flex flex-col gap-3" aria-label="Segments in tree order">
@@ -334,15 +401,16 @@ export function RisersStep() {
                   <p className="mb-2 text-sm font-semibold">
                     {name}: {nodeName(row.from)} → {nodeName(row.to)}
                   </p>
+                  <SegmentFlags {...flagsOf(row.id)} className="mb-2" />
                   <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-6">
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Name<CellInput label={`${name} name`} {...register(`segments.${i}.label`)} /></label>
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Material<CellSelect label={`${name} material`} options={materialChoices} {...register(`segments.${i}.material`, { onChange: () => { setValue(`segments.${i}.size`, '', { shouldValidate: true }); if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Size<CellSelect label={`${name} size`} options={sizeOptions(catalog, project, row.material, sys, units.diameter)} {...register(`segments.${i}.size`, { onChange: () => { if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Length ({units.length})<CellInput label={`${name} length (${units.length})`} type="number" step="any" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Rise ({units.length})<CellInput label={`${name} rise (${units.length})`} type="number" step="any" error={plainError(err?.rise?.message)} {...register(`segments.${i}.rise`, numberInput)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Design flow override ({units.flow})<CellInput label={`${name} design flow override (${units.flow})`} type="number" step="any" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register(`segments.${i}.flowOverride`, numberInput)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Length ({units.length})<CellInput label={`${name} length (${units.length})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Rise ({units.length})<CellInput label={`${name} rise (${units.length})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.rise?.message)} {...register(`segments.${i}.rise`, numberInput)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Design flow override ({units.flow})<CellInput label={`${name} design flow override (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register(`segments.${i}.flowOverride`, numberInput)} /></label>
                     <label className="flex flex-col text-xs font-semibold xl:col-span-2">Node name at the end<CellInput label={`Name of node ${row.to}`} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.label`)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({units.flow})<CellInput label={`Continuous demand at node ${row.to} (${units.flow})`} type="number" step="any" placeholder="none" error={plainError(errors.nodes?.[nodeIndex.get(row.to) ?? 0]?.continuousDemand?.message)} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.continuousDemand`, numberInput)} /></label>
+                    <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({units.flow})<CellInput label={`Continuous demand at node ${row.to} (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[nodeIndex.get(row.to) ?? 0]?.continuousDemand?.message)} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.continuousDemand`, numberInput)} /></label>
                     <p className="text-sm xl:col-span-2" data-testid={`segment-demand-${row.id}`}>
                       {result ? (
                         <>
@@ -358,8 +426,20 @@ export function RisersStep() {
                   ) : null}
                   <div className="mt-2 flex flex-wrap gap-2">
                     <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(row.to)}>Add a segment from {nodeName(row.to)}</Button>
-                    {leaf ? <Button variant="danger" disabled={locked} onClick={() => removeSegment(i)}>Remove {name}</Button> : null}
+                    <Button variant="danger" disabled={locked || removing !== null} onClick={() => askRemove(i)}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
                   </div>
+                  {removing?.segmentId === row.id ? (
+                    <div className="mt-2 flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
+                      <p className="font-semibold">Remove {name}? This also removes:</p>
+                      <ul className="list-disc pl-5">
+                        {removing.lines.length ? removing.lines.map((l) => <li key={l}>{l}</li>) : <li>nothing else</li>}
+                      </ul>
+                      <div className="flex flex-wrap gap-2">
+                        <Button variant="danger" onClick={removeSegment}>Yes, remove</Button>
+                        <Button variant="secondary" onClick={() => setRemoving(null)}>Keep it</Button>
+                      </div>
+                    </div>
+                  ) : null}
                 </li>
               );
             })}

@@ -107,26 +107,27 @@ export function SupplyStep() {
             <SelectField label="Kind of source" options={SOURCE_KINDS} error={e(errors.kind?.message)} {...register('kind')} />
             <TextField
               label={`Elevation of the connection (${units.elevation})`}
-              type="number"
-              step="any"
+              type="text"
+              inputMode="decimal"
+              autoComplete="off"
               hint="The elevation of the source node, on the same datum as every other node."
               error={e(errors.connectionElevation?.message)}
               {...register('connectionElevation', numberInput)}
             />
-            <TextField label={`Static pressure, low (${units.pressure})`} type="number" step="any" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
-            <TextField label={`Static pressure, high (${units.pressure})`} type="number" step="any" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
+            <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
+            <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
             <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
             <TextField label="Date of the pressure figures" type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
-            <TextField label={`Water temperature (${units.temperature})`} type="number" step="any" hint="Sets the water’s density and viscosity." error={e(errors.waterTemperature?.message)} {...register('waterTemperature', numberInput)} />
+            <TextField label={`Water temperature (${units.temperature})`} type="text" inputMode="decimal" autoComplete="off" hint="Sets the water’s density and viscosity." error={e(errors.waterTemperature?.message)} {...register('waterTemperature', numberInput)} />
           </div>
         </Section>
         <Section title="Flow test (optional)" headingLevel={3}>
           <CheckboxField label="A flow test was made at the connection" {...register('hasFlowTest')} />
           {hasFlowTest ? (
             <div className="mt-4 grid gap-4 md:grid-cols-2">
-              <TextField label={`Test static pressure (${units.pressure})`} type="number" step="any" error={e(errors.flowTest?.staticPressure?.message)} {...register('flowTest.staticPressure', numberInput)} />
-              <TextField label={`Test residual pressure (${units.pressure})`} type="number" step="any" error={e(errors.flowTest?.residualPressure?.message)} {...register('flowTest.residualPressure', numberInput)} />
-              <TextField label={`Test flow (${units.flow})`} type="number" step="any" error={e(errors.flowTest?.flow?.message)} {...register('flowTest.flow', numberInput)} />
+              <TextField label={`Test static pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.staticPressure?.message)} {...register('flowTest.staticPressure', numberInput)} />
+              <TextField label={`Test residual pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.residualPressure?.message)} {...register('flowTest.residualPressure', numberInput)} />
+              <TextField label={`Test flow (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.flow?.message)} {...register('flowTest.flow', numberInput)} />
               <TextField label="Date of the test" type="date" error={e(errors.flowTest?.date?.message)} {...register('flowTest.date')} />
             </div>
           ) : null}
