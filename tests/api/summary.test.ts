@@ -194,8 +194,8 @@ describe('the summary of an analysis computed here', () => {
     const doc = SystemDocumentSchema.parse(twoHundredSegments());
     const analysis = analyzeSystem(doc);
     const header = { projectName: 'Twice', address: '', codeBasis: '', systemName: 'Generated', revisionNumber: 1, issuedAt: '2026-12-01T00:00:00.000Z', preparerName: 'Test', preparerEmail: '', inputHash: '0'.repeat(64), note: null };
-    const a = Buffer.from(await renderSummaryPdf({ header, document: doc, analysis }));
-    const b = Buffer.from(await renderSummaryPdf({ header, document: doc, analysis }));
+    const a = Buffer.from((await renderSummaryPdf({ header, document: doc, analysis })).bytes);
+    const b = Buffer.from((await renderSummaryPdf({ header, document: doc, analysis })).bytes);
     expect(a.length).toBeGreaterThan(10_000);
     expect(a.equals(b)).toBe(true);
   });
