@@ -111,6 +111,8 @@ try {
         HEADROOM_SERVE_CLIENT: '1',
         PUBLIC_URL: `http://127.0.0.1:${appPort}`,
         SIGN_IN_LIMIT: '200',
+        SIGN_IN_CLIENT_LIMIT: '2000',
+        LINK_LIMIT: '2000',
         // e-mail goes to the in-process SMTP sink (dev_mail table); quick polls for the tests
         HEADROOM_DEV_MAIL: '1',
         OUTBOX_POLL_MS: '200',

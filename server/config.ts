@@ -13,6 +13,17 @@ const ConfigSchema = z.object({
   HEADROOM_SERVE_CLIENT: z.enum(['0', '1']).default('0'),
   /** sign-in attempts per 15 minutes per address and e-mail */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /**
+   * failed sign-ins per 15 minutes from one client address, whatever the e-mail (password
+   * spraying across accounts). 50: an office behind one address with a few people mistyping stays
+   * under it; one address trying a password on many accounts does not (a choice).
+   */
+  SIGN_IN_CLIENT_LIMIT: z.coerce.number().int().min(1).default(50),
+  /**
+   * uses of a one-time link (choosing a password through a reset or an invitation link) per 15
+   * minutes per client address: each can cost a password hash. 10 is several tries for a person (a choice).
+   */
+  LINK_LIMIT: z.coerce.number().int().min(1).default(10),
   /** minutes of inactivity before a session ends (8 h: a working day, common practice) */
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(480),
   /** hours an invitation link stays valid */

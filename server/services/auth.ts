@@ -33,9 +33,13 @@ export const authService = {
 
   /** Sets the password and spends the link, in one transaction: a link works once. */
   async acceptInvitation(ctx: ServiceContext, token: string, password: string): Promise<User> {
+    // the link first: a wrong one is refused without hashing (issue 13 finding 3)
+    const tokenHash = hashToken(token);
+    if (!(await invitationsRepo.findUsable(ctx.db, tokenHash))) throw invalidInvitation();
     const passwordHash = await hashPassword(password);
     return ctx.db.transaction(async (trx) => {
-      const invitation = await invitationsRepo.findUsable(trx, hashToken(token));
+      // looked up again inside the transaction: single use under concurrency
+      const invitation = await invitationsRepo.findUsable(trx, tokenHash);
       if (!invitation || !(await invitationsRepo.consume(trx, invitation.id))) throw invalidInvitation();
       const user = await usersRepo.findById(trx, invitation.user_id);
       if (!user || user.status === 'disabled') throw invalidInvitation();
