@@ -11,6 +11,13 @@ const ConfigSchema = z.object({
   /** set to 1 behind a TLS-terminating proxy: cookies become Secure and the proxy is trusted */
   COOKIE_SECURE: z.enum(['0', '1']).default('0'),
   HEADROOM_SERVE_CLIENT: z.enum(['0', '1']).default('0'),
+  /**
+   * The content security policy's upgrade-insecure-requests: browsers then fetch every script and
+   * call over https. Right only when the app is reached over TLS; served over plain http on any
+   * host but localhost it leaves a blank page (issue 13 finding 4). auto: on when COOKIE_SECURE=1
+   * or PUBLIC_URL is https; 1 / 0: always / never.
+   */
+  CSP_UPGRADE_INSECURE: z.enum(['auto', '0', '1']).default('auto'),
   /** sign-in attempts per 15 minutes per address and e-mail */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   /**
@@ -64,6 +71,12 @@ const ConfigSchema = z.object({
 });
 
 export type Config = z.infer<typeof ConfigSchema>;
+
+/** Whether the CSP asks browsers to upgrade requests to https (see CSP_UPGRADE_INSECURE). */
+export function upgradesInsecureRequests(config: Config): boolean {
+  if (config.CSP_UPGRADE_INSECURE !== 'auto') return config.CSP_UPGRADE_INSECURE === '1';
+  return config.COOKIE_SECURE === '1' || config.PUBLIC_URL.startsWith('https:');
+}
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = ConfigSchema.safeParse(env);

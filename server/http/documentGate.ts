@@ -29,6 +29,12 @@ export interface DocumentGate {
   close: () => Promise<void>;
 }
 
+/** The JSON text of each request as received (express.json's `verify` puts it here; server/app.ts). */
+const rawBodies = new WeakMap<object, Buffer>();
+export const keepRawBody = (req: object, _res: unknown, buf: Buffer) => {
+  rawBodies.set(req, buf);
+};
+
 export function createDocumentGate(): DocumentGate & { validate: (schema: GatedSchema, value: unknown) => Promise<Checked<unknown>> } {
   const pool = new Piscina({
     filename: new URL('./validateWorker.boot.mjs', import.meta.url).href,
@@ -40,8 +46,9 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     idleTimeout: 60_000,
   });
 
-  const validate = async (schema: GatedSchema, value: unknown): Promise<Checked<unknown>> =>
-    JSON.parse(await pool.run({ schema, json: JSON.stringify(value) })) as Checked<unknown>;
+  /** `value` as JSON text (the request's own, when there is one: re-serialising a deeply nested body would overflow the stack) */
+  const validate = async (schema: GatedSchema, value: unknown, opts: { json?: string; field?: string } = {}): Promise<Checked<unknown>> =>
+    JSON.parse(await pool.run({ schema, json: opts.json ?? JSON.stringify(value), field: opts.field })) as Checked<unknown>;
 
   const middleware: RequestHandler = async (req, _res, next) => {
     const route = ROUTES.find((r) => r.method === req.method && r.path.test(req.path));
@@ -49,7 +56,15 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     const target = route.field ? (req.body as Record<string, unknown>)[route.field] : req.body;
     if (target === undefined || target === null || typeof target !== 'object') return next();
     if (pool.queueSize >= MAX_QUEUE) throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
-    const result = await validate(route.schema, target);
+    const raw = rawBodies.get(req);
+    const utf8 = !/charset=(?!"?utf-?8)/i.test(req.headers['content-type'] ?? '');
+    let result: Checked<unknown>;
+    try {
+      result = raw && utf8 ? await validate(route.schema, undefined, { json: raw.toString('utf8'), field: route.field }) : await validate(route.schema, target);
+    } catch {
+      // the worker could not read it (another encoding, say): the route validates it as it always did
+      return next();
+    }
     if (!result.success) {
       const fields = route.field ? Object.fromEntries(Object.entries(result.fields).map(([k, v]) => [k === '(more)' ? k : `${route.field}.${k}`, v])) : result.fields;
       const message = route.field ? 'The system document does not match the format.' : 'Some fields need attention.';

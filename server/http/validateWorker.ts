@@ -12,10 +12,12 @@ export const GATED_SCHEMAS = { SaveDocumentBody, UpdateFieldChangeBody, SystemDo
 export type GatedSchema = keyof typeof GATED_SCHEMAS;
 
 /**
- * Text in, text out: the JSON of the value to check, and the JSON of the answer. Strings cross
+ * Text in, text out: the request's JSON text as it came (and the field to check, if not all of
+ * it), and the JSON of the answer. Strings cross
  * between threads as one copy, where a structured clone of a large object graph would cost the
  * event loop about as much as the validation it avoids.
  */
-export default function validate({ schema, json }: { schema: GatedSchema; json: string }): string {
-  return JSON.stringify(checkValue(GATED_SCHEMAS[schema], JSON.parse(json)));
+export default function validate({ schema, json, field }: { schema: GatedSchema; json: string; field?: string }): string {
+  const body = JSON.parse(json);
+  return JSON.stringify(checkValue(GATED_SCHEMAS[schema], field ? body[field] : body));
 }
