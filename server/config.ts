@@ -54,8 +54,17 @@ const ConfigSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Headroom <headroom@localhost>'),
-  /** 1: run the local SMTP sink in-process, send all mail to it and list it at /api/dev/mail (development only) */
+  /**
+   * 1: run the local SMTP sink in-process and send all mail to it instead of the relay (development
+   * and tests only: refused with NODE_ENV=production). Off unless set.
+   */
   HEADROOM_DEV_MAIL: z.enum(['0', '1']).default('0'),
+  /**
+   * 1 (with HEADROOM_DEV_MAIL=1): administrators may list the caught mail at /api/dev/mail. Even
+   * then a message is shown whole only to its own recipient; to anyone else its text (one-time
+   * links included) and attachments are withheld (issue 13 finding 5).
+   */
+  HEADROOM_DEV_MAIL_PAGE: z.enum(['0', '1']).default('0'),
   /** port of the local SMTP sink; 0 picks a free one */
   DEV_MAIL_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   /** how often the outbox worker looks for due messages (a choice: mail within seconds, light on the database) */
@@ -70,6 +79,12 @@ const ConfigSchema = z.object({
   OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(1).default(120),
 });
 
+const CheckedConfigSchema = ConfigSchema.superRefine((c, ctx) => {
+  if (c.NODE_ENV === 'production' && c.HEADROOM_DEV_MAIL === '1') {
+    ctx.addIssue({ code: 'custom', path: ['HEADROOM_DEV_MAIL'], message: 'the development mail sink never runs with NODE_ENV=production; set SMTP_HOST (and SMTP_USER/SMTP_PASS) to a real relay' });
+  }
+});
+
 export type Config = z.infer<typeof ConfigSchema>;
 
 /** Whether the CSP asks browsers to upgrade requests to https (see CSP_UPGRADE_INSECURE). */
@@ -79,7 +94,7 @@ export function upgradesInsecureRequests(config: Config): boolean {
 }
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const parsed = ConfigSchema.safeParse(env);
+  const parsed = CheckedConfigSchema.safeParse(env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Headroom cannot start; fix these settings:\n${lines.join('\n')}`);

@@ -9,16 +9,19 @@
 import os from 'node:os';
 import { Piscina } from 'piscina';
 import type { RequestHandler } from 'express';
+import type { z } from 'zod';
+import { CreateSystemBody } from '../../src/shared/api/systems';
 import { AppError } from './errors';
 import { markValidated } from './validate';
 import { GATED_SCHEMAS, type GatedSchema } from './validateWorker';
 import type { Checked } from './validate';
 
-const ROUTES: { method: string; path: RegExp; schema: GatedSchema; field?: 'document' }[] = [
+const ROUTES: { method: string; path: RegExp; schema: GatedSchema; field?: 'document'; outer?: z.ZodType }[] = [
   { method: 'PUT', path: /^\/projects\/[^/]+\/systems\/[^/]+\/revisions\/[^/]+\/document$/, schema: 'SaveDocumentBody' },
   { method: 'PATCH', path: /^\/projects\/[^/]+\/systems\/[^/]+\/field-changes\/[^/]+$/, schema: 'UpdateFieldChangeBody' },
   // an imported document: its own schema (the body's other fields are the route's to check)
-  { method: 'POST', path: /^\/projects\/[^/]+\/systems$/, schema: 'SystemDocument', field: 'document' },
+  // (only once the rest of the body is right: the route reports a wrong outer body first)
+  { method: 'POST', path: /^\/projects\/[^/]+\/systems$/, schema: 'SystemDocument', field: 'document', outer: CreateSystemBody },
 ];
 
 /** documents waiting for the worker before the server answers 429 (a choice: 32 × 2 MB at most held) */
@@ -55,6 +58,7 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     if (!route || !req.user || !req.body || typeof req.body !== 'object') return next();
     const target = route.field ? (req.body as Record<string, unknown>)[route.field] : req.body;
     if (target === undefined || target === null || typeof target !== 'object') return next();
+    if (route.outer && !route.outer.safeParse(req.body).success) return next();
     if (pool.queueSize >= MAX_QUEUE) throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     const raw = rawBodies.get(req);
     const utf8 = !/charset=(?!"?utf-?8)/i.test(req.headers['content-type'] ?? '');

@@ -30,10 +30,23 @@ function lengthBounds(schema: AnySchema): { min?: number; max?: number } {
   return out;
 }
 
+function pushZodIssues(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: number): void {
+  const r = schema.safeParse(value);
+  if (!r.success) for (const issue of r.error.issues) {
+    if (out.length >= max) return;
+    out.push({ code: issue.code, path: [...path, ...(issue.path as Path)], message: issue.message });
+  }
+}
+
+/** Checks other than an array's length bounds: refinements, which zod runs on the whole value. */
+const hasRefinements = (schema: AnySchema) =>
+  ((schema._zod.def.checks as { _zod: { def: { check: string } } }[] | undefined) ?? []).some((c) => c._zod.def.check !== 'max_length' && c._zod.def.check !== 'min_length');
+
 function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: number): void {
   if (out.length >= max) return;
   const def = schema._zod.def;
   if ((def.type === 'optional' || def.type === 'default') && value !== undefined) return walk(def.innerType as AnySchema, value, path, out, max);
+  const start = out.length;
   if (def.type === 'array' && Array.isArray(value)) {
     const { min, max: most } = lengthBounds(schema);
     if (most !== undefined && value.length > most) {
@@ -42,9 +55,7 @@ function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: 
     }
     for (let i = 0; i < value.length && out.length < max; i++) walk(def.element as AnySchema, value[i], [...path, i], out, max);
     if (min !== undefined && value.length < min && out.length < max) out.push({ code: 'too_small', path, message: `Needs at least ${min} item${min === 1 ? '' : 's'}` });
-    return;
-  }
-  if (def.type === 'object' && isPlainObject(value)) {
+  } else if (def.type === 'object' && isPlainObject(value)) {
     const shape = def.shape as Record<string, AnySchema>;
     for (const key of Object.keys(shape)) {
       walk(shape[key], value[key], [...path, key], out, max);
@@ -57,13 +68,15 @@ function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: 
         out.push({ code: 'unrecognized_keys', path, message: `Unrecognized key${unknown.length === 1 ? '' : 's'}: ${listed}${unknown.length > 5 ? ` and ${unknown.length - 5} more` : ''}` });
       }
     }
-    return;
+  } else {
+    // anything else (a scalar, a union, a record, a value of the wrong type): zod, on this value only
+    return pushZodIssues(schema, value, path, out, max);
   }
-  // anything else (a scalar, a union, a record, a value of the wrong type): zod, on this value only
-  const r = schema.safeParse(value);
-  if (!r.success) for (const issue of r.error.issues) {
-    if (out.length >= max) return;
-    out.push({ code: issue.code, path: [...path, ...(issue.path as Path)], message: issue.message });
+  // a refinement of this object or array sees the whole value: when the walk did not already stop,
+  // zod's report of this value replaces what the walk found in it (the same problems, and the refinement's)
+  if (out.length < max && out.length > start && hasRefinements(schema)) {
+    out.length = start;
+    pushZodIssues(schema, value, path, out, max);
   }
 }
 
