@@ -91,6 +91,20 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request body is not valid JSON.', fields: { '(body)': 'Not valid JSON' } } });
     return;
   }
+  if (err instanceof URIError || (status === 400 && /decode|URI/i.test((err as Error).message ?? ''))) {
+    // a path with a broken percent-encoding (Express could not decode a parameter)
+    res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The address is not valid (a broken %-encoding).' } });
+    return;
+  }
+  if (typeof status === 'number' && status >= 400 && status < 500) {
+    // the body reader's refusals: an unsupported charset or content encoding (415), an aborted or
+    // mis-sized body (400): the client's mistake, answered without a stack trace in the log
+    const type = (err as { type?: string }).type;
+    const message =
+      type === 'charset.unsupported' ? 'Send the body as UTF-8.' : type === 'encoding.unsupported' ? 'The body’s content encoding is not supported.' : 'The request could not be read.';
+    res.status(status).json({ error: { code: 'VALIDATION_FAILED', message } });
+    return;
+  }
   const pgCode = (err as { code?: string }).code;
   if (pgCode === '23505') {
     // a unique constraint caught a race the service's own check could not see

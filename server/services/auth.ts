@@ -1,5 +1,6 @@
 import { AppError } from '../http/errors';
 import { hashPassword, verifyPassword } from '../auth/password';
+import { assertAcceptablePassword } from '../auth/passwordPolicy';
 import { hashToken } from '../auth/tokens';
 import { invitationsRepo } from '../repositories/invitations';
 import { toUser, usersRepo } from '../repositories/users';
@@ -35,7 +36,10 @@ export const authService = {
   async acceptInvitation(ctx: ServiceContext, token: string, password: string): Promise<User> {
     // the link first: a wrong one is refused without hashing (issue 13 finding 3)
     const tokenHash = hashToken(token);
-    if (!(await invitationsRepo.findUsable(ctx.db, tokenHash))) throw invalidInvitation();
+    const usable = await invitationsRepo.findUsable(ctx.db, tokenHash);
+    if (!usable) throw invalidInvitation();
+    const invited = await usersRepo.findById(ctx.db, usable.user_id);
+    if (invited) assertAcceptablePassword(password, invited.email);
     const passwordHash = await hashPassword(password);
     return ctx.db.transaction(async (trx) => {
       // looked up again inside the transaction: single use under concurrency

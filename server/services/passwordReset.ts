@@ -7,6 +7,7 @@
  */
 import { AppError } from '../http/errors';
 import { hashPassword } from '../auth/password';
+import { assertAcceptablePassword } from '../auth/passwordPolicy';
 import { hashToken, newToken } from '../auth/tokens';
 import { passwordResetsRepo } from '../repositories/passwordResets';
 import { sessionsRepo } from '../repositories/sessions';
@@ -54,7 +55,10 @@ export const passwordResetService = {
     // the link first: a wrong one is refused without hashing (issue 13 finding 3). A link is 32
     // random bytes, so the time a wrong one takes tells nothing an attacker could use.
     const tokenHash = hashToken(token);
-    if (!(await passwordResetsRepo.findUsable(ctx.db, tokenHash))) throw invalidResetLink();
+    const usable = await passwordResetsRepo.findUsable(ctx.db, tokenHash);
+    if (!usable) throw invalidResetLink();
+    const owner = await usersRepo.findById(ctx.db, usable.user_id);
+    if (owner) assertAcceptablePassword(password, owner.email);
     const passwordHash = await hashPassword(password);
     return ctx.db.transaction(async (trx) => {
       const reset = await passwordResetsRepo.findUsable(trx, tokenHash);
