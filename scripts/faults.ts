@@ -265,6 +265,7 @@ async function anonymousHashingAttack() {
     const med = pageMs[Math.floor(pageMs.length / 2)] ?? Infinity;
     log(`${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`);
     check('(c) under 48 anonymous link attackers the start page answers with a median under 100 ms', med < 100, `${med.toFixed(1)} ms`);
+    for (const line of server.log.join('').split('\n').filter((l) => /failed:|Error/.test(l)).slice(0, 5)) log(`server: ${line.slice(0, 300)}`);
     check('(c) every made-up link was refused (400/404/429), none failed', [...statuses.keys()].every((s) => s === 400 || s === 404 || s === 429), [...statuses.keys()].join(','));
   } finally {
     await server.stop().catch(() => {});
