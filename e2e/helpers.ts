@@ -42,3 +42,27 @@ export async function openProject(page: Page, name: string): Promise<void> {
   await page.getByRole('link', { name, exact: true }).click();
   await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
 }
+
+/**
+ * The newest caught e-mail to `address` whose text matches `pattern`, read from the development
+ * mail sink's table — the recipient's mailbox, as a developer on the machine reads it. The web
+ * page shows another person's mail withheld (issue 13 finding 5), so a one-time link is read here.
+ */
+export async function mailboxText(address: string, pattern: RegExp): Promise<string | null> {
+  const url = process.env.E2E_DATABASE_URL;
+  if (!url) throw new Error('E2E_DATABASE_URL is not set: run the end-to-end tests through `npm test` (scripts/test.mjs).');
+  const { default: pg } = await import('pg');
+  const { simpleParser } = await import('mailparser');
+  const client = new pg.Client({ connectionString: url });
+  await client.connect();
+  try {
+    const { rows } = await client.query('SELECT raw FROM dev_mail WHERE envelope_to @> $1::jsonb ORDER BY id DESC LIMIT 20', [JSON.stringify([address])]);
+    for (const row of rows) {
+      const text = (await simpleParser(row.raw as Buffer)).text ?? '';
+      if (pattern.test(text)) return text;
+    }
+    return null;
+  } finally {
+    await client.end();
+  }
+}

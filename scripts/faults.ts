@@ -4,10 +4,17 @@
 //       PostgreSQL's return, and every acknowledged save is stored whole (document, analysis, audit).
 //   (b) the server killed (SIGKILL) while e-mail is queued: after a restart every message reaches
 //       the SMTP sink exactly once.
+//   (c) anonymous requests that each used to cost a password hash (issue 13 finding 3): 48 callers
+//       keep confirming made-up reset and invitation links for 10 s; the start page (the built
+//       client's index.html when dist/ exists, else the CSRF-token call it makes first) keeps a
+//       median under 100 ms.
 // Prints PASS/FAIL per check and exits non-zero on any failure. Stops by itself and cleans up.
 import { SMTPServer } from 'smtp-server';
-import { createDb, makeUsers, startCluster, startServer, demoDocument, type LoadUser } from '../tests/load/world';
-import { want } from '../tests/api/support/hardening';
+import fs from 'node:fs';
+import path from 'node:path';
+import { randomBytes } from 'node:crypto';
+import { createDb, makeUsers, root, startCluster, startServer, demoDocument, type LoadUser } from '../tests/load/world';
+import { UrlClient, want } from '../tests/api/support/hardening';
 import { smallDocument } from '../tests/api/support/documents';
 import { analyse } from '../server/services/systems';
 import { canonicalJson } from '../server/services/canonicalJson';
@@ -220,15 +227,68 @@ async function killedWithMailQueued() {
   }
 }
 
-try {
+// ---------------------------------------------------------------- (c) anonymous hashing attack
+async function anonymousHashingAttack() {
+  const cluster = await startCluster('faults_hash');
+  const served = fs.existsSync(path.join(root, 'dist', 'index.html'));
+  const server = await startServer({ DATABASE_URL: cluster.url, HEADROOM_SERVE_CLIENT: served ? '1' : '0' });
+  try {
+    const startPage = served ? '/' : '/api/csrf-token';
+    const anon = new UrlClient(server.url);
+    await anon.refreshToken();
+    const headers = { cookie: [...anon.cookies].map(([k, v]) => `${k}=${v}`).join('; '), 'x-csrf-token': anon.token, 'content-type': 'application/json' };
+    let running = true;
+    let attacks = 0;
+    const statuses = new Map<number, number>();
+    const attacker = async (i: number) => {
+      while (running) {
+        const token = randomBytes(32).toString('base64url');
+        const url = i % 2 ? `${server.url}/api/invitations/${token}` : `${server.url}/api/auth/password-reset/confirm`;
+        const body = JSON.stringify(i % 2 ? { password: 'a long enough password' } : { token, password: 'a long enough password' });
+        const r = await timed(() => fetch(url, { method: 'POST', headers, body }));
+        statuses.set(r.status, (statuses.get(r.status) ?? 0) + 1);
+        attacks++;
+      }
+    };
+    const attackers = Array.from({ length: 48 }, (_, i) => attacker(i));
+    await sleep(500);
+    const pageMs: number[] = [];
+    const until = Date.now() + 10_000;
+    while (Date.now() < until) {
+      const r = await timed(() => fetch(server.url + startPage));
+      if (r.status === 200) pageMs.push(r.ms);
+      await sleep(100);
+    }
+    running = false;
+    await Promise.all(attackers);
+    pageMs.sort((a, b) => a - b);
+    const med = pageMs[Math.floor(pageMs.length / 2)] ?? Infinity;
+    log(`${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`);
+    check('(c) under 48 anonymous link attackers the start page answers with a median under 100 ms', med < 100, `${med.toFixed(1)} ms`);
+    for (const line of server.log.join('').split('\n').filter((l) => /failed:|Error/.test(l)).slice(0, 5)) log(`server: ${line.slice(0, 300)}`);
+    check('(c) every made-up link was refused (400/404/429), none failed', [...statuses.keys()].every((s) => s === 400 || s === 404 || s === 429), [...statuses.keys()].join(','));
+  } finally {
+    await server.stop().catch(() => {});
+    cluster.destroy();
+  }
+}
+
+// FAULTS_ONLY=a|b|c runs one part (all by default)
+const only = process.env.FAULTS_ONLY;
+if (!only || only === 'a') try {
   await databaseOutage();
 } catch (e) {
   check('(a) the database-outage run completed', false, e instanceof Error ? e.message : String(e));
 }
-try {
+if (!only || only === 'b') try {
   await killedWithMailQueued();
 } catch (e) {
   check('(b) the killed-server run completed', false, e instanceof Error ? e.message : String(e));
+}
+if (!only || only === 'c') try {
+  await anonymousHashingAttack();
+} catch (e) {
+  check('(c) the anonymous-hashing run completed', false, e instanceof Error ? e.message : String(e));
 }
 const failed = results.filter((r) => !r.ok).length;
 console.log(`\nFAULTS: ${failed ? 'FAIL' : 'PASS'} (${results.length - failed} passed, ${failed} failed)`);

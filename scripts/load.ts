@@ -5,6 +5,10 @@
 // Passes when no request failed (non-2xx, socket error or timeout); prints p50/p99 per kind and
 // the server's memory at start and end. Stops by itself and removes its cluster.
 //
+// With the oversized-document attack in the mix (issue 13 finding 1; LOAD_ATTACK=0 leaves it out):
+// three signed-in attackers keep sending ~1.3 MB bodies of empty nodes to a draft of their own;
+// the run then also fails when another user's read has a p99 of 1 s or more.
+//
 //   LOAD_SECONDS=10 LOAD_USERS=20 npm run test:load     (a short try)
 import { createRequire } from 'node:module';
 import { createDb, makeUsers, percentile, rssMb, startCluster, startServer, type LoadUser } from '../tests/load/world';
@@ -15,6 +19,8 @@ const autocannon: any = require('autocannon');
 
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 60);
 const USERS = Number(process.env.LOAD_USERS ?? 100);
+const ATTACK = process.env.LOAD_ATTACK !== '0';
+const ATTACKERS = 3;
 const KINDS = ['project', 'system', 'revision', 'save'] as const;
 type Kind = (typeof KINDS)[number];
 
@@ -32,7 +38,8 @@ try {
   server = await startServer({ DATABASE_URL: cluster.url });
   const db = createDb(cluster.url);
   log(`server pid ${server.pid} on ${server.url}; making ${USERS} signed-in designers …`);
-  const users = await makeUsers(db, server.url, USERS);
+  const users = await makeUsers(db, server.url, USERS + (ATTACK ? ATTACKERS : 0));
+  const attackers = ATTACK ? users.splice(USERS, ATTACKERS) : [];
   await db.destroy();
   const rssStart = rssMb(server.pid);
 
@@ -86,7 +93,29 @@ try {
 
   log(`running ${USERS} users for ${SECONDS} s …`);
   const t0 = Date.now();
+  let attacking = true;
+  const attack = { sent: 0, refused: 0, other: [] as string[], ms: [] as number[] };
+  const attackBody = (u: LoadUser) => {
+    const empties = Array(330_000).fill('{}').join(',');
+    return JSON.stringify({ document: { ...(u.document as object), nodes: ['@N'], segments: [] }, version: u.version }).replace('["@N"]', `[${empties}]`);
+  };
+  const attackLoop = async (u: LoadUser) => {
+    const body = attackBody(u);
+    const headers = { cookie: [...u.client.cookies].map(([k, v]) => `${k}=${v}`).join('; '), 'x-csrf-token': u.client.token, 'content-type': 'application/json' };
+    while (attacking) {
+      const t = performance.now();
+      const res = await fetch(server!.url + u.paths.document, { method: 'PUT', headers, body }).catch((e) => ({ status: 0, text: async () => String(e) }));
+      attack.ms.push(performance.now() - t);
+      attack.sent++;
+      if (res.status === 400) attack.refused++;
+      else attack.other.push(`attack ${res.status} ${(await res.text()).slice(0, 120)}`);
+      await res.text?.().catch(() => '');
+    }
+  };
+  const attacks = attackers.map(attackLoop);
   const results = await Promise.all(users.map(runFor));
+  attacking = false;
+  await Promise.all(attacks);
   const elapsed = (Date.now() - t0) / 1000;
   const rssEnd = rssMb(server.pid);
 
@@ -103,6 +132,19 @@ try {
   console.log(`errors: ${unexpected.length} non-2xx, ${socketErrors} socket errors, ${timeouts} timeouts`);
   for (const e of unexpected.slice(0, 10)) console.log(`  ${e}`);
   failed = unexpected.length + socketErrors + timeouts > 0 || total === 0;
+  if (ATTACK) {
+    const sortedAttack = attack.ms.slice().sort((a, b) => a - b);
+    console.log(`oversized-document attack: ${ATTACKERS} attackers, ${attack.sent} bodies of ~1.3 MB, ${attack.refused} refused with 400 (median ${percentile(sortedAttack, 50).toFixed(0)} ms)`);
+    for (const e of attack.other.slice(0, 5)) console.log(`  ${e}`);
+    for (const k of ['project', 'system', 'revision'] as const) {
+      const p99 = percentile(latencies[k].slice().sort((a, b) => a - b), 99);
+      if (p99 >= 1000) {
+        console.log(`  other users' ${k} reads: p99 ${p99.toFixed(0)} ms, over 1 s during the attack`);
+        failed = true;
+      }
+    }
+    if (attack.sent === 0 || attack.other.length > 0) failed = true;
+  }
 } catch (err) {
   console.error('[load] the run stopped:', err instanceof Error ? err.message : err);
   if (server) console.error(server.log.join('').slice(-3000));

@@ -116,9 +116,12 @@ const env = {
   NODE_ENV: process.env.NODE_ENV ?? (dev ? 'development' : 'production'),
   HEADROOM_SERVE_CLIENT: dev ? '0' : '1',
   PUBLIC_URL: process.env.PUBLIC_URL ?? `http://127.0.0.1:${appPort}`,
-  // no SMTP relay configured: mail goes to the in-process local sink, listed at /api/dev/mail
-  HEADROOM_DEV_MAIL: process.env.HEADROOM_DEV_MAIL ?? (process.env.SMTP_HOST ? '0' : '1'),
+  // the development mail sink only when asked for (HEADROOM_DEV_MAIL=1, never in production): mail
+  // goes to the SMTP relay of SMTP_HOST (README, "Settings"); without one it waits in the outbox
 };
+if (!process.env.SMTP_HOST && process.env.HEADROOM_DEV_MAIL !== '1') {
+  pg.log('no SMTP relay is set (SMTP_HOST): e-mail waits in the outbox and shows as not delivered. See README, "Settings".');
+}
 server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
 server.stdout.on('data', (chunk) => {
   process.stdout.write(chunk);

@@ -104,15 +104,19 @@ try {
       stdio: ['ignore', 'pipe', 'pipe'],
       env: {
         ...process.env,
-        NODE_ENV: 'production',
+        // not production: the development mail sink (below) never runs in production
+        NODE_ENV: 'test',
         PORT: String(appPort),
         DATABASE_URL: env.E2E_DATABASE_URL,
         SESSION_SECRET: 'e2e-only-secret-e2e-only-secret-0123456789',
         HEADROOM_SERVE_CLIENT: '1',
         PUBLIC_URL: `http://127.0.0.1:${appPort}`,
         SIGN_IN_LIMIT: '200',
+        SIGN_IN_CLIENT_LIMIT: '2000',
+        LINK_LIMIT: '2000',
         // e-mail goes to the in-process SMTP sink (dev_mail table); quick polls for the tests
         HEADROOM_DEV_MAIL: '1',
+        HEADROOM_DEV_MAIL_PAGE: '1',
         OUTBOX_POLL_MS: '200',
       },
     });

@@ -3,7 +3,7 @@ import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
 import path from 'node:path';
 import fs from 'node:fs';
-import type { Config } from './config';
+import { upgradesInsecureRequests, type Config } from './config';
 import type { Db } from './db/knex';
 import { createSessionMiddleware } from './auth/session';
 import { createPassport } from './auth/passport';
@@ -24,6 +24,8 @@ import { fieldChangesRoutes } from './routes/fieldChanges';
 import { createMailer } from './mail/transport';
 import { OutboxWorker } from './mail/worker';
 import { startDevSink, type DevSink } from './mail/devSink';
+import { assertWithinBounds } from './http/bounds';
+import { createDocumentGate, keepRawBody } from './http/documentGate';
 
 export interface HeadroomApp {
   app: Express;
@@ -53,8 +55,19 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
   if (config.COOKIE_SECURE === '1') app.set('trust proxy', 1);
 
   // helmet's default CSP (self only) suits Vite's build output; the client loads nothing from elsewhere.
-  app.use(helmet({ referrerPolicy: { policy: 'same-origin' } }));
-  app.use(express.json({ limit: '2mb' }));
+  // Its upgrade-insecure-requests only where the app is reached over TLS (config.ts CSP_UPGRADE_INSECURE).
+  app.use(
+    helmet({
+      referrerPolicy: { policy: 'same-origin' },
+      contentSecurityPolicy: { directives: { upgradeInsecureRequests: upgradesInsecureRequests(config) ? [] : null } },
+    }),
+  );
+  app.use(express.json({ limit: '2mb', verify: keepRawBody }));
+  // before any schema: arrays and objects no real request has (server/http/bounds.ts)
+  app.use((req, _res, next) => {
+    if (req.body && typeof req.body === 'object') assertWithinBounds(req.body);
+    next();
+  });
   app.use(cookieParser());
   const { middleware: sessionMiddleware, pool: sessionPool } = createSessionMiddleware(config);
   const passport = createPassport(ctx);
@@ -64,6 +77,9 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
   api.use(sessionMiddleware);
   api.use(passport.session());
   api.use(doubleCsrfProtection);
+  // system documents are validated in a worker thread, off the event loop (server/http/documentGate.ts)
+  const documentGate = createDocumentGate();
+  api.use(documentGate.middleware);
   api.use(healthRoutes(ctx));
   api.use(authRoutes(ctx, passport as never, generateCsrfToken as never));
   api.use(usersRoutes(ctx));
@@ -99,6 +115,7 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
       mailer.close();
       await devMail?.close();
       await sessionPool.end();
+      await documentGate.close();
     },
   };
 }

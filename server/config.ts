@@ -11,8 +11,26 @@ const ConfigSchema = z.object({
   /** set to 1 behind a TLS-terminating proxy: cookies become Secure and the proxy is trusted */
   COOKIE_SECURE: z.enum(['0', '1']).default('0'),
   HEADROOM_SERVE_CLIENT: z.enum(['0', '1']).default('0'),
+  /**
+   * The content security policy's upgrade-insecure-requests: browsers then fetch every script and
+   * call over https. Right only when the app is reached over TLS; served over plain http on any
+   * host but localhost it leaves a blank page (issue 13 finding 4). auto: on when COOKIE_SECURE=1
+   * or PUBLIC_URL is https; 1 / 0: always / never.
+   */
+  CSP_UPGRADE_INSECURE: z.enum(['auto', '0', '1']).default('auto'),
   /** sign-in attempts per 15 minutes per address and e-mail */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
+  /**
+   * failed sign-ins per 15 minutes from one client address, whatever the e-mail (password
+   * spraying across accounts). 50: an office behind one address with a few people mistyping stays
+   * under it; one address trying a password on many accounts does not (a choice).
+   */
+  SIGN_IN_CLIENT_LIMIT: z.coerce.number().int().min(1).default(50),
+  /**
+   * uses of a one-time link (choosing a password through a reset or an invitation link) per 15
+   * minutes per client address: each can cost a password hash. 10 is several tries for a person (a choice).
+   */
+  LINK_LIMIT: z.coerce.number().int().min(1).default(10),
   /** minutes of inactivity before a session ends (8 h: a working day, common practice) */
   SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).default(480),
   /** hours an invitation link stays valid */
@@ -36,8 +54,17 @@ const ConfigSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Headroom <headroom@localhost>'),
-  /** 1: run the local SMTP sink in-process, send all mail to it and list it at /api/dev/mail (development only) */
+  /**
+   * 1: run the local SMTP sink in-process and send all mail to it instead of the relay (development
+   * and tests only: refused with NODE_ENV=production). Off unless set.
+   */
   HEADROOM_DEV_MAIL: z.enum(['0', '1']).default('0'),
+  /**
+   * 1 (with HEADROOM_DEV_MAIL=1): administrators may list the caught mail at /api/dev/mail. Even
+   * then a message is shown whole only to its own recipient; to anyone else its text (one-time
+   * links included) and attachments are withheld (issue 13 finding 5).
+   */
+  HEADROOM_DEV_MAIL_PAGE: z.enum(['0', '1']).default('0'),
   /** port of the local SMTP sink; 0 picks a free one */
   DEV_MAIL_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   /** how often the outbox worker looks for due messages (a choice: mail within seconds, light on the database) */
@@ -52,10 +79,22 @@ const ConfigSchema = z.object({
   OUTBOX_LEASE_SECONDS: z.coerce.number().int().min(1).default(120),
 });
 
+const CheckedConfigSchema = ConfigSchema.superRefine((c, ctx) => {
+  if (c.NODE_ENV === 'production' && c.HEADROOM_DEV_MAIL === '1') {
+    ctx.addIssue({ code: 'custom', path: ['HEADROOM_DEV_MAIL'], message: 'the development mail sink never runs with NODE_ENV=production; set SMTP_HOST (and SMTP_USER/SMTP_PASS) to a real relay' });
+  }
+});
+
 export type Config = z.infer<typeof ConfigSchema>;
 
+/** Whether the CSP asks browsers to upgrade requests to https (see CSP_UPGRADE_INSECURE). */
+export function upgradesInsecureRequests(config: Config): boolean {
+  if (config.CSP_UPGRADE_INSECURE !== 'auto') return config.CSP_UPGRADE_INSECURE === '1';
+  return config.COOKIE_SECURE === '1' || config.PUBLIC_URL.startsWith('https:');
+}
+
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
-  const parsed = ConfigSchema.safeParse(env);
+  const parsed = CheckedConfigSchema.safeParse(env);
   if (!parsed.success) {
     const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
     throw new Error(`Headroom cannot start; fix these settings:\n${lines.join('\n')}`);

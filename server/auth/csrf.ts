@@ -9,7 +9,10 @@ import type { Config } from '../config';
 export function createCsrf(config: Config) {
   return doubleCsrf({
     getSecret: () => config.SESSION_SECRET,
-    getSessionIdentifier: (req) => req.session?.id ?? '',
+    // signed in: bound to the session (a token from before sign-in stops working, as the session id
+    // changes then). Anonymous: no session is stored for a visitor who only fetched a token, so
+    // the token is bound to the signed CSRF cookie alone (the double-submit pattern without a session).
+    getSessionIdentifier: (req) => (req.user ? (req.session?.id ?? '') : ''),
     cookieName: config.COOKIE_SECURE === '1' ? '__Host-headroom.csrf' : 'headroom.csrf',
     cookieOptions: { sameSite: 'lax', secure: config.COOKIE_SECURE === '1', httpOnly: true, path: '/' },
     getCsrfTokenFromRequest: (req) => req.headers['x-csrf-token'] as string | undefined,

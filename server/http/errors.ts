@@ -21,13 +21,43 @@ export const forbidden = (message = 'Your role does not allow this.') => new App
 export const staleVersion = () =>
   new AppError(409, 'STALE_VERSION', 'Someone else changed this since you opened it. Reload to see their change.');
 
-export function fieldsFromZod(error: ZodError): Record<string, string> {
+/** One validation problem: where (a path) and what, as zod words it. */
+export interface Issue {
+  code: string;
+  path: readonly PropertyKey[];
+  message: string;
+}
+
+/** At most this many fields are named in one answer (a choice: a form shows a handful; the rest follow once those are fixed). */
+export const MAX_REPORTED_FIELDS = 20;
+/** A field's message is cut to this many characters (zod's unknown-key message lists every key). */
+const MAX_MESSAGE_LENGTH = 200;
+/** The key under which an answer says how many more problems there were. */
+export const MORE_FIELDS_KEY = '(more)';
+
+/**
+ * Field path (dot-joined) → the first message for it, for at most MAX_REPORTED_FIELDS fields; when
+ * there were more (or validation stopped before looking further), `(more)` says so.
+ */
+export function fieldsFromIssues(issues: readonly Issue[], stoppedEarly: boolean): Record<string, string> {
   const fields: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '(body)';
-    fields[key] ??= issue.message;
+  let named = 0;
+  const unnamed = new Set<string>();
+  for (const issue of issues) {
+    const key = issue.path.length ? issue.path.map(String).join('.') : '(body)';
+    if (key in fields) continue;
+    if (named < MAX_REPORTED_FIELDS) {
+      fields[key] = issue.message.length > MAX_MESSAGE_LENGTH ? `${issue.message.slice(0, MAX_MESSAGE_LENGTH - 1)}…` : issue.message;
+      named++;
+    } else unnamed.add(key);
   }
+  if (stoppedEarly) fields[MORE_FIELDS_KEY] = `Checking stopped after the first ${issues.length} problems; fix these and send again to see any others.`;
+  else if (unnamed.size) fields[MORE_FIELDS_KEY] = `${unnamed.size} more field${unnamed.size === 1 ? '' : 's'} need${unnamed.size === 1 ? 's' : ''} attention.`;
   return fields;
+}
+
+export function fieldsFromZod(error: ZodError): Record<string, string> {
+  return fieldsFromIssues(error.issues as Issue[], false);
 }
 
 function isDatabaseDown(err: unknown): boolean {
@@ -61,6 +91,20 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (status === 400 && (err as { type?: string }).type === 'entity.parse.failed') {
     res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request body is not valid JSON.', fields: { '(body)': 'Not valid JSON' } } });
+    return;
+  }
+  if (err instanceof URIError || (status === 400 && /decode|URI/i.test((err as Error).message ?? ''))) {
+    // a path with a broken percent-encoding (Express could not decode a parameter)
+    res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The address is not valid (a broken %-encoding).' } });
+    return;
+  }
+  if (typeof status === 'number' && status >= 400 && status < 500) {
+    // the body reader's refusals: an unsupported charset or content encoding (415), an aborted or
+    // mis-sized body (400): the client's mistake, answered without a stack trace in the log
+    const type = (err as { type?: string }).type;
+    const message =
+      type === 'charset.unsupported' ? 'Send the body as UTF-8.' : type === 'encoding.unsupported' ? 'The body’s content encoding is not supported.' : 'The request could not be read.';
+    res.status(status).json({ error: { code: 'VALIDATION_FAILED', message } });
     return;
   }
   const pgCode = (err as { code?: string }).code;

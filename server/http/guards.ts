@@ -59,3 +59,21 @@ export function requireProjectRole(db: Db, roles: readonly ProjectRole[] | 'any'
     next();
   };
 }
+
+/**
+ * After `requireProjectRole`: the :systemId of the path is the project's and the :revisionId is
+ * that system's, else 404 (as for a revision that does not exist). For routes whose service reads
+ * by the revision alone (issue 13 finding 2: a revision's messages were listed for any revision id).
+ */
+export function requireRevisionInPath(db: Db): RequestHandler {
+  return async (req, _res, next) => {
+    const { projectId, systemId, revisionId } = req.params as Record<string, string | undefined>;
+    if (![projectId, systemId, revisionId].every((id) => id && UUID.test(id))) throw notFound('The revision');
+    const found = await db('revisions as r')
+      .join('systems as s', 's.id', 'r.system_id')
+      .where({ 'r.id': revisionId, 's.id': systemId, 's.project_id': projectId })
+      .first('r.id');
+    if (!found) throw notFound('The revision');
+    next();
+  };
+}

@@ -13,7 +13,12 @@ interface DevMailRow {
   received_at: Date;
 }
 
-async function parse(row: DevMailRow) {
+/** What a viewer who is not among a message's recipients sees instead of its text. */
+export const WITHHELD_TEXT = '(Withheld: this message was sent to someone else. Only its recipient reads its text, links and attachments.)';
+
+const isRecipient = (row: DevMailRow, viewerEmail: string) => row.envelope_to.some((to) => to.toLowerCase() === viewerEmail.toLowerCase());
+
+async function parse(row: DevMailRow, viewerEmail: string) {
   const { simpleParser } = await import('mailparser');
   const parsed = await simpleParser(row.raw);
   const id = Number(row.id);
@@ -26,8 +31,9 @@ async function parse(row: DevMailRow) {
     from: parsed.from?.text ?? '',
     to: (Array.isArray(parsed.to) ? parsed.to.map((t) => t.text).join(', ') : parsed.to?.text) ?? '',
     subject: parsed.subject ?? '',
-    text: parsed.text ?? '',
-    attachments: parsed.attachments.map((a, index) => ({
+    // one-time links (password reset, invitation) and summary PDFs are the recipient's alone (issue 13 finding 5)
+    text: isRecipient(row, viewerEmail) ? (parsed.text ?? '') : WITHHELD_TEXT,
+    attachments: (isRecipient(row, viewerEmail) ? parsed.attachments : []).map((a, index) => ({
       index,
       filename: a.filename ?? `attachment-${index}`,
       contentType: a.contentType,
@@ -41,21 +47,21 @@ async function parse(row: DevMailRow) {
 
 export const devMailService = {
   /** the newest caught messages, optionally only those to one address */
-  async list(ctx: ServiceContext, q: { to?: string; limit: number }): Promise<DevMail[]> {
+  async list(ctx: ServiceContext, viewerEmail: string, q: { to?: string; limit: number }): Promise<DevMail[]> {
     const query = ctx.db('dev_mail').orderBy('id', 'desc').limit(q.limit);
     if (q.to) query.whereRaw('envelope_to @> ?::jsonb', [JSON.stringify([q.to])]);
     const rows = (await query) as DevMailRow[];
-    return Promise.all(rows.map(async (r) => (await parse(r)).mail));
+    return Promise.all(rows.map(async (r) => (await parse(r, viewerEmail)).mail));
   },
-  async get(ctx: ServiceContext, id: number): Promise<DevMail> {
+  async get(ctx: ServiceContext, viewerEmail: string, id: number): Promise<DevMail> {
     const row = (await ctx.db('dev_mail').where({ id }).first()) as DevMailRow | undefined;
     if (!row) throw notFound('The message');
-    return (await parse(row)).mail;
+    return (await parse(row, viewerEmail)).mail;
   },
-  async attachment(ctx: ServiceContext, id: number, index: number) {
+  async attachment(ctx: ServiceContext, viewerEmail: string, id: number, index: number) {
     const row = (await ctx.db('dev_mail').where({ id }).first()) as DevMailRow | undefined;
-    if (!row) throw notFound('The message');
-    const { parsed } = await parse(row);
+    if (!row || !isRecipient(row, viewerEmail)) throw notFound('The message');
+    const { parsed } = await parse(row, viewerEmail);
     const a = parsed.attachments[index];
     if (!a) throw notFound('The attachment');
     return { filename: a.filename ?? `attachment-${index}`, contentType: a.contentType, content: a.content };

@@ -34,7 +34,7 @@ export const outboxRepo = {
     const [row] = await db<OutboxRow>('outbox').insert(values).returning('*');
     return row as OutboxRow;
   },
-  listForRevision: (db: Tx, revisionId: string) => db<OutboxRow>('outbox').where({ revision_id: revisionId }).orderBy([{ column: 'created_at', order: 'desc' }, 'to_address']),
+  listForRevision: (db: Tx, projectId: string, revisionId: string) => db<OutboxRow>('outbox').where({ project_id: projectId, revision_id: revisionId }).orderBy([{ column: 'created_at', order: 'desc' }, 'to_address']),
   find: (db: Tx, projectId: string, id: string) => db<OutboxRow>('outbox').where({ id, project_id: projectId }).first(),
 
   /**

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { parse } from '../http/validate';
-import { actorOf, requireProjectRole, requireUser } from '../http/guards';
+import { actorOf, requireProjectRole, requireRevisionInPath, requireUser } from '../http/guards';
 import { reviewsService } from '../services/reviews';
 import { RevisionParams } from '../../src/shared/api/systems';
 import { ProjectParams } from '../../src/shared/api/projects';
@@ -16,7 +16,7 @@ export function reviewsRoutes(ctx: ServiceContext): Router {
     res.json({ items: await reviewsService.inbox(ctx, actorOf(req.user)) });
   });
 
-  router.get('/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews', member, async (req, res) => {
+  router.get('/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews', member, requireRevisionInPath(ctx.db), async (req, res) => {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     res.json({ reviews: await reviewsService.forRevision(ctx, projectId, systemId, revisionId) });
   });

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { parse } from '../http/validate';
-import { actorOf, requireProjectRole } from '../http/guards';
+import { actorOf, requireProjectRole, requireRevisionInPath } from '../http/guards';
 import { summariesService } from '../services/summaries';
 import { outboxService } from '../services/outbox';
 import { RevisionParams } from '../../src/shared/api/systems';
@@ -41,9 +41,9 @@ export function summariesRoutes(ctx: ServiceContext): Router {
     res.status(202).json(await summariesService.send(ctx, actorOf(req.user), projectId, systemId, revisionId, body));
   });
 
-  router.get(`${base}/messages`, designer, async (req, res) => {
-    const { revisionId } = parse(RevisionParams, req.params);
-    res.json({ messages: await outboxService.listForRevision(ctx, revisionId) });
+  router.get(`${base}/messages`, designer, requireRevisionInPath(ctx.db), async (req, res) => {
+    const { projectId, revisionId } = parse(RevisionParams, req.params);
+    res.json({ messages: await outboxService.listForRevision(ctx, projectId, revisionId) });
   });
 
   router.post('/projects/:projectId/messages/:messageId/retry', designer, async (req, res) => {

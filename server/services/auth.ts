@@ -1,5 +1,6 @@
 import { AppError } from '../http/errors';
 import { hashPassword, verifyPassword } from '../auth/password';
+import { assertAcceptablePassword } from '../auth/passwordPolicy';
 import { hashToken } from '../auth/tokens';
 import { invitationsRepo } from '../repositories/invitations';
 import { toUser, usersRepo } from '../repositories/users';
@@ -33,9 +34,16 @@ export const authService = {
 
   /** Sets the password and spends the link, in one transaction: a link works once. */
   async acceptInvitation(ctx: ServiceContext, token: string, password: string): Promise<User> {
+    // the link first: a wrong one is refused without hashing (issue 13 finding 3)
+    const tokenHash = hashToken(token);
+    const usable = await invitationsRepo.findUsable(ctx.db, tokenHash);
+    if (!usable) throw invalidInvitation();
+    const invited = await usersRepo.findById(ctx.db, usable.user_id);
+    if (invited) assertAcceptablePassword(password, invited.email);
     const passwordHash = await hashPassword(password);
     return ctx.db.transaction(async (trx) => {
-      const invitation = await invitationsRepo.findUsable(trx, hashToken(token));
+      // looked up again inside the transaction: single use under concurrency
+      const invitation = await invitationsRepo.findUsable(trx, tokenHash);
       if (!invitation || !(await invitationsRepo.consume(trx, invitation.id))) throw invalidInvitation();
       const user = await usersRepo.findById(trx, invitation.user_id);
       if (!user || user.status === 'disabled') throw invalidInvitation();

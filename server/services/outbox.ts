@@ -44,8 +44,9 @@ export const outboxService = {
     });
   },
 
-  async listForRevision(ctx: ServiceContext, revisionId: string): Promise<MessageInfo[]> {
-    return (await outboxRepo.listForRevision(ctx.db, revisionId)).map((r) => toMessageInfo(r, ctx.config.PUBLIC_URL));
+  /** The messages about a revision of the project (the project is part of the query: a revision id alone reveals nothing). */
+  async listForRevision(ctx: ServiceContext, projectId: string, revisionId: string): Promise<MessageInfo[]> {
+    return (await outboxRepo.listForRevision(ctx.db, projectId, revisionId)).map((r) => toMessageInfo(r, ctx.config.PUBLIC_URL));
   },
 
   async retry(ctx: ServiceContext, actor: Actor, projectId: string, messageId: string): Promise<MessageInfo> {

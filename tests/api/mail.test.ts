@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createHash, randomUUID } from 'node:crypto';
-import { makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
+import { Client, makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
+import { WITHHELD_TEXT } from '../../server/mail/devMail';
+import { loadConfig } from '../../server/config';
 import { demoDocument, FAST_OUTBOX, issuedSystem, SmtpSink, waitForMessages } from './support/smtpSink';
 
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
@@ -183,12 +185,12 @@ describe('the development mail page (HEADROOM_DEV_MAIL=1)', () => {
     // one worker on the shared outbox: the file's other worker would otherwise claim this
     // harness's messages and deliver them to the test sink instead of the in-process one
     await h.headroom.outbox.stop();
-    dev = startHarness({ HEADROOM_DEV_MAIL: '1', ...FAST_OUTBOX });
+    dev = startHarness({ HEADROOM_DEV_MAIL: '1', HEADROOM_DEV_MAIL_PAGE: '1', ...FAST_OUTBOX });
     dev.headroom.outbox.start();
   });
   afterAll(() => dev.close());
 
-  it('when mail is sent, then the in-process sink catches it and administrators alone list it with its attachments', async () => {
+  it('when mail is sent, then the in-process sink catches it, and an administrator who is not its recipient sees who and what about, never its text or attachment', async () => {
     const p = await projectWithRoles(dev);
     const { base, revisionId } = await issuedSystem(p.designer, p.projectId, demoDocument());
     await p.designer.send('POST', `${base}/summary/send`, { inspectorIds: [p.inspectorUser.id] }).expect(202);
@@ -199,15 +201,53 @@ describe('the development mail page (HEADROOM_DEV_MAIL=1)', () => {
     const caught = list.find((m: { messageId: string }) => m.messageId?.includes(row.id));
     expect(caught).toBeDefined();
     expect(caught.envelopeTo).toEqual([p.inspectorUser.email]);
-    expect(caught.attachments).toHaveLength(1);
+    expect(caught.subject).toMatch(/summary|revision/i);
+    // the summary PDF and the text are the inspector's (the design screens deny administrators too)
+    expect(caught.text).toBe(WITHHELD_TEXT);
+    expect(caught.attachments).toEqual([]);
+    expect((await admin.get(`/api/dev/mail/${caught.id}/attachments/0`)).status).toBe(404);
+    expect((await admin.get(`/api/dev/mail/${caught.id}`).expect(200)).body.message.text).toBe(WITHHELD_TEXT);
+    // the sink itself holds the whole message, PDF included (the recipient's mailbox)
+    const stored = await dev.db('dev_mail').whereRaw('envelope_to @> ?::jsonb', [JSON.stringify([p.inspectorUser.email])]).first('raw');
     const pdf = (await p.designer.get(`${base}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
-    expect(caught.attachments[0].sha256).toBe(sha(pdf));
-    const attachment = (await admin.get(caught.attachments[0].url).responseType('blob').expect(200)).body as Buffer;
-    expect(attachment.equals(pdf)).toBe(true);
-    expect((await admin.get(`/api/dev/mail/${caught.id}`).expect(200)).body.message.subject).toBe(caught.subject);
+    const { simpleParser } = await import('mailparser');
+    expect((await simpleParser(stored.raw)).attachments[0].content.equals(pdf)).toBe(true);
 
     expect((await p.designer.get('/api/dev/mail')).status).toBe(403);
-    expect((await p.designer.get(caught.attachments[0].url)).status).toBe(403);
     expect((await admin.get('/api/dev/mail/999999999')).status).toBe(404);
+  });
+
+  it('when an administrator asks for a reset link, then only that administrator sees its text; another administrator does not see the link', async () => {
+    const me = await makeUser(dev.db, { isAdmin: true });
+    const other = await signedIn(dev, await makeUser(dev.db, { isAdmin: true }));
+    const anonymous = new Client(dev);
+    await anonymous.refreshToken();
+    await anonymous.send('POST', '/api/auth/password-reset', { email: me.email }).expect(202);
+    const self = await signedIn(dev, me);
+    let mine: { text: string; id: number } | undefined;
+    const deadline = Date.now() + 15_000;
+    while (!mine && Date.now() < deadline) {
+      mine = (await self.get(`/api/dev/mail?to=${encodeURIComponent(me.email)}`).expect(200)).body.messages[0];
+      if (!mine) await new Promise((r) => setTimeout(r, 50));
+    }
+    expect(mine?.text).toMatch(/reset-password\?token=/);
+    const seen = (await other.get(`/api/dev/mail/${mine!.id}`).expect(200)).body.message;
+    expect(seen.text).toBe(WITHHELD_TEXT);
+    expect(JSON.stringify(seen)).not.toMatch(/token=/);
+  });
+
+  it('when the sink runs without HEADROOM_DEV_MAIL_PAGE=1, then the mail API answers 404 even to administrators', async () => {
+    const quiet = startHarness({ HEADROOM_DEV_MAIL: '1' });
+    try {
+      const admin = await signedIn(quiet, await makeUser(quiet.db, { isAdmin: true }));
+      expect((await admin.get('/api/dev/mail')).status).toBe(404);
+    } finally {
+      await quiet.close();
+    }
+  });
+
+  it('when NODE_ENV=production, then the development sink is refused at start', () => {
+    expect(() => loadConfig({ NODE_ENV: 'production', HEADROOM_DEV_MAIL: '1', DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) })).toThrow(/HEADROOM_DEV_MAIL/);
+    expect(loadConfig({ NODE_ENV: 'development', DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) }).HEADROOM_DEV_MAIL).toBe('0');
   });
 });

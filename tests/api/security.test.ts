@@ -54,3 +54,30 @@ describe('when PostgreSQL does not answer', () => {
     }
   });
 });
+
+describe('content security policy and the deployment (issue 13 finding 4)', () => {
+  const cspOf = async (overrides: Parameters<typeof startHarness>[0]) => {
+    const app = startHarness(overrides);
+    try {
+      return (await request(app.headroom.app).get('/api/health')).headers['content-security-policy'] as string;
+    } finally {
+      await app.close();
+    }
+  };
+
+  it('when served over plain http (the default), then the policy does not ask browsers to upgrade to https', async () => {
+    const csp = await cspOf({ PUBLIC_URL: 'http://headroom.internal:5480' });
+    expect(csp).toMatch(/default-src 'self'/);
+    expect(csp).not.toMatch(/upgrade-insecure-requests/);
+  });
+
+  it('when behind TLS (COOKIE_SECURE=1, or an https PUBLIC_URL), then it does', async () => {
+    expect(await cspOf({ COOKIE_SECURE: '1' })).toMatch(/upgrade-insecure-requests/);
+    expect(await cspOf({ PUBLIC_URL: 'https://headroom.example' })).toMatch(/upgrade-insecure-requests/);
+  });
+
+  it('when CSP_UPGRADE_INSECURE is set, then it decides either way', async () => {
+    expect(await cspOf({ CSP_UPGRADE_INSECURE: '1' })).toMatch(/upgrade-insecure-requests/);
+    expect(await cspOf({ COOKIE_SECURE: '1', CSP_UPGRADE_INSECURE: '0' })).not.toMatch(/upgrade-insecure-requests/);
+  });
+});

@@ -82,6 +82,8 @@ export async function startServer(env: Record<string, string>, port?: number): P
       SESSION_SECRET: 'load-only-secret-load-only-secret-0123456789',
       PUBLIC_URL: `http://127.0.0.1:${appPort}`,
       SIGN_IN_LIMIT: '100000',
+      SIGN_IN_CLIENT_LIMIT: '100000',
+      LINK_LIMIT: '100000',
       ...env,
     },
   });

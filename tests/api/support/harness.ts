@@ -27,6 +27,8 @@ export function startHarness(overrides: Partial<Record<keyof Config, string>> = 
     SESSION_SECRET: 'test-secret-test-secret-test-secret-0123',
     PUBLIC_URL: 'http://headroom.test',
     SIGN_IN_LIMIT: '1000',
+    SIGN_IN_CLIENT_LIMIT: '100000',
+    LINK_LIMIT: '100000',
     ...overrides,
   });
   const db = createDb(config.DATABASE_URL);
