@@ -10,6 +10,7 @@
  * looks at an array's elements.
  */
 import { AppError } from './errors';
+import { DOCUMENT_BOUNDS } from '../../src/engine/model/schema';
 
 export const BODY_BOUNDS = {
   /**
@@ -18,9 +19,10 @@ export const BODY_BOUNDS = {
    * modelled one node per dwelling branch and per fixture group, plus the riser, floor-main and
    * device nodes, needs about 40 × (12 × 4 + 6) ≈ 2,200 nodes and as many segments; 10,000 is
    * over four times that. The JSON body limit (2 MB, server/app.ts) is reached near 6,000 real
-   * segments anyway; the bound is about empty elements, which cost a few bytes each.
+   * segments anyway; the bound is about empty elements, which cost a few bytes each. It equals
+   * the document's own largest list bound (DOCUMENT_BOUNDS.nodes) so the two never disagree.
    */
-  maxArrayItems: 10_000,
+  maxArrayItems: DOCUMENT_BOUNDS.nodes,
   /**
    * Keys in any one object. The widest objects of any body have about 15 keys (a segment, a
    * source); the widest record (minimum flow pressures per fixture type) has one key per fixture
