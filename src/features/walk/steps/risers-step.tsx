@@ -13,6 +13,8 @@ import { groupWithProjectData, matchProjectPipe, pipeFromProjectEntry, projectEn
 import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
+import { Link } from 'react-router-dom';
+import { buildingPaths } from '../../building/paths';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { parseFixtureGroups } from '../lib/csv';
 import { fmt } from '../lib/format';
@@ -315,6 +317,7 @@ export function RisersStep() {
         segment runs from a node toward the fixtures. Give each its material, size, developed length and rise; at each
         node, the fixtures it serves. The fixture units and the design flow of each segment follow live.
       </StepIntro>
+      {scope === 'design' ? <p className="mb-4"><Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>Build from floors: floors, typical units and a riser from a short form →</Link></p> : null}
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
         <Section title="Segments" headingLevel={3}>
           {rows.length === 0 ? <p className="mb-3 text-ink-soft">No segments yet. Start with one from the connection.</p> : null}

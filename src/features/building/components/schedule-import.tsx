@@ -1,0 +1,3 @@
+export function ScheduleImport() {
+  return null;
+}
