@@ -20,7 +20,7 @@ export function catalogRows(): CatalogRow[] {
       id: m.id,
       label: m.label,
       source: [m.dimensionSource, m.roughnessSource, m.hazenWilliamsSource].join('; '),
-      from_memory: m.memo === 'from memory',
+      from_memory: !m.verified,
       data: m,
     })),
     ...Object.values(FITTING_TYPES).map((f) => ({
@@ -28,7 +28,7 @@ export function catalogRows(): CatalogRow[] {
       id: f.id,
       label: f.label,
       source: f.sources.join('; '),
-      from_memory: f.memo === 'from memory',
+      from_memory: !f.verified,
       data: f,
     })),
     ...Object.values(FIXTURE_TYPES).map((f) => ({
@@ -36,9 +36,9 @@ export function catalogRows(): CatalogRow[] {
       id: f.id,
       label: `${f.label} (${f.occupancy})`,
       source: f.source,
-      from_memory: f.memo === 'from memory',
+      from_memory: !f.verified,
       data: f,
     })),
-    ...DEVICE_TEMPLATES.map((d) => ({ kind: 'device-template' as const, id: d.id, label: d.label, source: d.source, from_memory: false, data: d })),
+    ...DEVICE_TEMPLATES.map((d) => ({ kind: 'device-template' as const, id: d.id, label: d.label, source: d.source, from_memory: !d.verified, data: d })),
   ];
 }

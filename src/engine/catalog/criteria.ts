@@ -31,7 +31,7 @@ const NSPC_5_HOT_COPPER = 'NSPC 10.14.1: 5 ft/s for hot water in copper (default
 export const CRITERIA_SOURCES: Record<keyof Criteria, string> = {
   maxStaticPressurePa:
     '80 psi maximum static pressure, a pressure-reducing valve required above it: IPC 604.8, UPC 608.2, IRC P2903.3.1 (default; the local code governs)',
-  minStaticPressurePa: 'not set by default (IRC P2903.3 40 psi is from memory; the designer enters the adopted value)',
+  minStaticPressurePa: 'not set by default: the designer enters the value of the adopted code (no published minimum static pressure was verified)',
   velocityLimits: `${NSPC_8}; ${NSPC_5_HOT_COPPER}`,
   minFlowPressureOverridesPa: 'none by default: fixture minimums come from IPC 2018 Table 604.3 (fixture catalog)',
   demandCurve: "'auto': flush-valve curve when any flushometer-valve fixture is served, else flush-tank (IPC E103.3 practice)",

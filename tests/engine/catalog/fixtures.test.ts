@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import { FIXTURE_TYPES } from '../../../src/engine/catalog/fixtures';
+import { NOT_VERIFIED } from '../../../src/engine/catalog/notVerified';
 
 const PSI = 6894.757293168361;
 const GPM = 3.785411784e-3 / 60;
@@ -41,8 +42,8 @@ describe('minimum flow pressure and flow, IPC 2018 Table 604.3 (REFERENCES §8a)
     ['hose-bibb', 5, 8, 'Sillcock, hose bibb [SEEN]'],
     ['water-closet-flush-tank-private', 3, 20, 'Water closet, tank, close coupled [SEEN; also IRC 2018 P2903.1]'],
     ['water-closet-flushometer-tank', 1.6, 20, 'Water closet, flushometer tank [SEEN; also IRC 2018 P2903.1]'],
-    ['water-closet-flush-valve-public', 25, 35, 'Water closet, siphonic, flushometer valve — from memory'],
-    ['urinal-flush-valve-public', 12, 25, 'Urinal, valve — from memory'],
+    ['water-closet-flush-valve-public', 25, 35, 'Water closet, siphonic, flushometer valve (IPC Table 604.3, undated copy; REFERENCES §13a)'],
+    ['urinal-flush-valve-public', 12, 25, 'Urinal, valve (IPC Table 604.3, undated copy; REFERENCES §13a)'],
   ];
   for (const [id, gpm, psi, label] of rows) {
     it(`${id}: ${gpm} gpm at ${psi} psi (${label})`, () => {
@@ -61,10 +62,10 @@ describe('FIXTURE_TYPES catalog', () => {
     ]) expect(FIXTURE_TYPES[id], id).toBeDefined();
   });
   for (const [id, f] of Object.entries(FIXTURE_TYPES)) {
-    it(`${id}: source named, memo where from memory, consistent values`, () => {
+    it(`${id}: source named, flagged where not verified, consistent values`, () => {
       expect(f.id).toBe(id);
       expect(f.source).toMatch(/IPC|UPC|NSPC/);
-      expect(f.source.includes('from memory')).toBe(f.memo === 'from memory');
+      expect(f.source.includes(NOT_VERIFIED)).toBe(!f.verified);
       expect(f.wsfu.total).toBeGreaterThan(0);
       expect(f.minFlowPressurePa).toBeGreaterThan(0);
       expect(f.flowRateM3s).toBeGreaterThan(0);

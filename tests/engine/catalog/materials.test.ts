@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import { MATERIALS, pipeSize, type MaterialId } from '../../../src/engine/catalog/materials';
+import { NOT_VERIFIED } from '../../../src/engine/catalog/notVerified';
 
 const IN = 0.0254;
 // Dimensions are printed to 0.001 in; converted with the exact inch: rtol 1e-12.
@@ -20,7 +21,7 @@ describe('inside diameters against the published tables (REFERENCES §5)', () =>
     ['pvc-sch40', '2', 2.375, 2.067, 'ASTM D1785 Sch 40'],
     ['pvc-sch80', '1', 1.315, 0.957, 'ASTM D1785 Sch 80'],
     ['steel-sch40', '6', 6.625, 6.065, 'ASME B36.10M Sch 40 (civiljungles chart)'],
-    ['cpvc-sdr11', '3/4', 0.875, 0.715, 'ASTM D2846 SDR 11 — from memory'],
+    ['cpvc-sdr11', '3/4', 0.875, 0.715, 'ASTM D2846 SDR 11 — not verified (OD/11 rule)'],
   ];
   for (const [material, key, od, id, source] of cases) {
     it(`${material} ${key}: OD ${od} in, ID ${id} in (${source})`, () => {
@@ -68,7 +69,12 @@ describe('MATERIALS catalog', () => {
         expect(Number.isFinite(s.nominalIn)).toBe(true);
         if (i > 0) expect(s.innerDiameterM).toBeGreaterThan(m.sizes[i - 1].innerDiameterM);
       }
-      if (m.memo) expect(m.dimensionSource).toMatch(/from memory/);
+      // The flag and the words agree: an unverified datum's source says so, a verified one does not.
+      expect(m.verified).toBe(m.unverified.length === 0);
+      const byDatum = { dimensions: m.dimensionSource, roughness: m.roughnessSource, hazenWilliamsC: m.hazenWilliamsSource } as const;
+      for (const [datum, source] of Object.entries(byDatum)) {
+        expect(source.includes(NOT_VERIFIED), `${id} ${datum}`).toBe(m.unverified.includes(datum as keyof typeof byDatum));
+      }
     });
   }
   it('roughness: drawn copper 1.5e-6 m (Idelchik lower bound), commercial steel 0.0018 in (Crane TP-410, 2009)', () => {

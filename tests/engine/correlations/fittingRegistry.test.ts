@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { FITTING_TYPES, fittingK, type FittingMethod } from '../../../src/engine/fittings';
+import { NOT_VERIFIED } from '../../../src/engine/catalog/notVerified';
 
 const REQUIRED = [
   'elbow-90-standard', 'elbow-90-long-radius', 'elbow-45-standard', 'tee-run', 'tee-branch', 'valve-gate',
@@ -26,7 +27,7 @@ describe('FITTING_TYPES registry', () => {
       if (entry.darby) expect(has('darby-3k:')).toBe(true);
       if (entry.equivalentLengthFt) expect(has('equivalent-length:')).toBe(true);
       if (entry.fixedK !== undefined) expect(has('fixed K')).toBe(true);
-      if (entry.memo) expect(entry.sources.join(' ')).toMatch(/from memory/);
+      expect(entry.verified).toBe(entry.sources.every((line) => !line.includes(NOT_VERIFIED)));
     });
     it(`${id}: gives a finite, non-negative K by every method at every common size`, () => {
       for (const method of METHODS) {

@@ -1,9 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import {
-  FRICTION_METHODS, churchill1977, colebrook, darcyFrictionFactor, hazenWilliamsHeadLoss,
+  FRICTION_METHODS, churchill1977, colebrook, darcyFrictionFactor, hazenWilliamsHeadLoss, hazenWilliamsPressureLoss,
   laminarFrictionFactor, swameeJain1976, type FrictionMethod,
+  HAZEN_WILLIAMS_SI_CONSTANT,
 } from '../../../src/engine/friction';
+import { waterProperties } from '../../../src/engine/water';
+import { fahrenheitToCelsius, G } from '../../../src/engine/units';
 
 // fluids' values are printed to 16–17 digits; our independent implementations are held to 1e-12
 // (explicit formulas: only floating-point rounding) or 1e-9 (Colebrook: the iteration stops when
@@ -152,8 +155,72 @@ describe('hazenWilliamsHeadLoss', () => {
   });
 });
 
+describe('hazenWilliamsPressureLoss: the pressure form the codes print (REFERENCES §3a)', () => {
+  const GPM = 3.785411784e-3 / 60; // m³/s per gpm (REFERENCES §12)
+  const IN = 0.0254;
+  const FT = 0.3048;
+  const PSI = 6894.757293168361; // Pa per psi (REFERENCES §12)
+  /** US pressure form, psi per ft: 4.52·Q^1.852/(C^1.852·d^4.8704), Q gpm, d in (NFPA 13; piping-designer.com). */
+  const usPsiPerFt = (gpm: number, dIn: number, C: number) => (4.52 * gpm ** 1.852) / (C ** 1.852 * dIn ** 4.8704);
+  const cases = [[10, 0.785, 130], [100, 2.067, 120], [500, 4.026, 140], [2, 0.485, 150], [1000, 6.065, 100]] as const;
+
+  it('is the printed US pressure form exactly, in SI units (a unit conversion: rtol 1e-12)', () => {
+    for (const [gpm, dIn, C] of cases) {
+      const psiPerFt = hazenWilliamsPressureLoss(gpm * GPM, dIn * IN, FT, C) / PSI;
+      expectClose(psiPerFt, usPsiPerFt(gpm, dIn, C), { rtol: 1e-12 }, `${gpm} gpm, ${dIn} in, C ${C}`);
+    }
+  });
+  it('at 60 °F and 140 °F the loss is the printed psi/ft value; a head loss times ρ·g would drift 1.6 % with temperature', () => {
+    // IAPWS-95 densities at 60 °F (999.02 kg/m³) and 140 °F (983.20 kg/m³) from the engine's water
+    // module. The pressure form takes no temperature: its loss is the printed value at both. The
+    // 10.67 head form converted with each temperature's density is within 0.3 % of it at 60 °F (the
+    // C tables' cold water) but 1.6 % below it at 140 °F: the convention matters.
+    const rhoG60 = waterProperties(fahrenheitToCelsius(60)).density * G;
+    const rhoG140 = waterProperties(fahrenheitToCelsius(140)).density * G;
+    for (const [gpm, dIn, C] of cases) {
+      const printedPsi = 100 * usPsiPerFt(gpm, dIn, C);
+      const loss = hazenWilliamsPressureLoss(gpm * GPM, dIn * IN, 100 * FT, C) / PSI;
+      expectClose(loss, printedPsi, { rtol: 1e-12 }, `${gpm} gpm`);
+      const head = hazenWilliamsHeadLoss(gpm * GPM, dIn * IN, 100 * FT, C);
+      expectClose((head * rhoG60) / PSI, printedPsi, { rtol: 3e-3 }, `head form at 60 °F, ${gpm} gpm`);
+      expect(1 - (head * rhoG140) / PSI / printedPsi, `head form at 140 °F, ${gpm} gpm`).toBeGreaterThan(0.013);
+    }
+  });
+  it('agrees with the independently printed SI forms: 10.67 head form (1 m of water = 9806.65 Pa) and Q = C·D^2.63·S^0.54/279000 (L/s, mm)', () => {
+    for (const [gpm, dIn, C] of cases) {
+      const Q = gpm * GPM;
+      const D = dIn * IN;
+      const p = hazenWilliamsPressureLoss(Q, D, 1, C); // Pa per m
+      const headForm = ((10.67 * Q ** 1.852) / (C ** 1.852 * D ** 4.8704)) * 9806.65;
+      // Each printed constant is rounded to 3–4 digits: 0.5 %.
+      expectClose(p, headForm, { rtol: 5e-3 }, `10.67 form, ${gpm} gpm`);
+      // L/s and mm form, solved for the slope S = h/L (exponent 1/0.54 = 1.852), h in m of water.
+      const slope = ((279000 * Q * 1000) / (C * (D * 1000) ** 2.63)) ** (1 / 0.54);
+      // The 279000 form uses 2.63 and 0.54 (the velocity form's exponents), not 4.8704: 1 %.
+      expectClose(p, slope * 9806.65, { rtol: 1e-2 }, `279000 form, ${gpm} gpm`);
+    }
+  });
+  it('NFPA 13 SI form 6.05e5·Q^1.85/(C^1.85·d^4.87) bar/m (Q L/min, d mm; from memory) within 1 %', () => {
+    for (const [gpm, dIn, C] of cases) {
+      const Q = gpm * GPM;
+      const D = dIn * IN;
+      const barPerM = (6.05e5 * (Q * 60000) ** 1.85) / (C ** 1.85 * (D * 1000) ** 4.87);
+      // Its exponents are rounded (1.85, 4.87), which moves the loss by up to 0.6 % over 2–1000 gpm: 1 %.
+      expectClose(hazenWilliamsPressureLoss(Q, D, 1, C), barPerM * 1e5, { rtol: 1e-2 }, `${gpm} gpm, ${dIn} in`);
+    }
+  });
+  it('the SI constant is 1.0448e5 Pa/m for Q in m³/s and D in m (as the registry prints it)', () => {
+    expectClose(HAZEN_WILLIAMS_SI_CONSTANT, 1.0448e5, { rtol: 5e-5 });
+  });
+  it('is zero at zero flow and rejects a negative diameter or C', () => {
+    expect(hazenWilliamsPressureLoss(0, 0.05, 10, 130)).toBe(0);
+    expect(() => hazenWilliamsPressureLoss(0.001, -0.05, 10, 130)).toThrow(RangeError);
+    expect(() => hazenWilliamsPressureLoss(0.001, 0.05, 10, 0)).toThrow(RangeError);
+  });
+});
+
 describe('FRICTION_METHODS registry', () => {
-  const FUNCTIONS = { colebrook, swameeJain1976, churchill1977, hazenWilliamsHeadLoss } as const;
+  const FUNCTIONS = { colebrook, swameeJain1976, churchill1977, hazenWilliamsPressureLoss } as const;
   const ids = Object.keys(FRICTION_METHODS) as FrictionMethod[];
   it('lists the four methods', () => {
     expect(ids.sort()).toEqual(['churchill-1977', 'colebrook', 'hazen-williams', 'swamee-jain']);
@@ -167,7 +234,7 @@ describe('FRICTION_METHODS registry', () => {
       expect(entry.validity.length).toBeGreaterThan(5);
       expect(entry.referenceCase.source.length).toBeGreaterThan(10);
       const fn = FUNCTIONS[entry.functionName] as (...a: number[]) => number;
-      // Hazen–Williams' case is a conversion between two published forms (0.5 %); Swamee–Jain's
+      // Hazen–Williams' case compares two independently printed constants (0.5 %); Swamee–Jain's
       // differs from fluids by the 5.74 vs 6.97^0.9 constant (2e-6); the others 1e-9.
       const tol = id === 'hazen-williams' ? { rtol: 5e-3 } : id === 'swamee-jain' ? { rtol: 2e-6 } : ITERATED;
       expectClose(fn(...entry.referenceCase.args), entry.referenceCase.expected, tol, id);
