@@ -72,7 +72,7 @@ export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catal
       </table>
       <Button variant="secondary" className="mt-2" onClick={() => {
         const last = unitValues[unitValues.length - 1];
-        units.append({ unitTypeId: last?.unitTypeId ?? types[0]?.id ?? '', labelPattern: last?.labelPattern ?? 'Unit {floor}-{n}', mainLength: undefined as unknown as number });
+        units.append({ unitTypeId: last?.unitTypeId ?? types[0]?.id ?? '', labelPattern: last?.labelPattern ?? 'Unit {floor}-{n}', mainLength: last?.mainLength });
       }}>Add a unit position</Button>
     </Section>
   );

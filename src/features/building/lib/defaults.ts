@@ -1,14 +1,14 @@
 /**
  * Starting values of a new building form. The fittings written in are a typical starting set
- * (common practice: the tee off the floor main and the unit's shut-off valve on its branch, two
- * 90° elbows on a fixture branch); they are shown and edited like any other value.
+ * (common practice: the tee off the floor main, the unit's shut-off valve and two 90° elbows on its
+ * branch, two 90° elbows on a fixture branch); they are shown and edited like any other value.
  */
 import type { SystemDocument } from '../../../engine';
 import { readBuilding } from './document-adapter';
 import type { BuildingForm, PipingRow, UnitTypeForm } from './form';
 import { unitTypeToForm } from './unit-types';
 
-export const BRANCH_FITTINGS = [{ typeId: 'tee-branch', count: 1 }, { typeId: 'valve-ball-full-port', count: 1 }];
+export const BRANCH_FITTINGS = [{ typeId: 'tee-branch', count: 1 }, { typeId: 'valve-ball-full-port', count: 1 }, { typeId: 'elbow-90-standard', count: 2 }];
 export const FIXTURE_BRANCH_FITTINGS = [{ typeId: 'elbow-90-standard', count: 2 }];
 
 /** A key for a new row, unique while the page is open. */
