@@ -24,9 +24,13 @@ export function FloorsSection({ lengthUnit }: { lengthUnit: string }) {
   return (
     <Section title="Floors">
       <div className="mb-3 flex flex-wrap items-end gap-3">
-        <CellInput label={`Typical floor-to-floor height (${lengthUnit})`} placeholder={`typical height, ${lengthUnit}`} inputMode="decimal" className="w-44"
-          error={msg(errors.floors?.typicalHeight)} {...register('floors.typicalHeight', asNumber)} />
-        <CellInput label="Floors to add" placeholder="floors to add" inputMode="numeric" className="w-32" value={count} onChange={(e) => setCount(e.target.value)} />
+        <label className="flex flex-col gap-1 text-xs font-semibold">Typical floor-to-floor height ({lengthUnit})
+          <CellInput label={`Typical floor-to-floor height (${lengthUnit})`} inputMode="decimal" className="w-44"
+            error={msg(errors.floors?.typicalHeight)} {...register('floors.typicalHeight', asNumber)} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Floors to add above
+          <CellInput label="Floors to add" inputMode="numeric" className="w-32" value={count} onChange={(e) => setCount(e.target.value)} />
+        </label>
         <Button variant="secondary" onClick={addFloors}>Add floors</Button>
       </div>
       <table className="w-full max-w-xl text-sm">

@@ -24,17 +24,37 @@ export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catal
   return (
     <Section title="Riser builder">
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-        <CellSelect label="Riser starts at" options={nodeOptions} error={msg(e?.startNodeId)} {...register('riser.startNodeId')} />
-        <CellSelect label="What follows the start point" options={[{ value: 'replace', label: 'Replace what follows it' }, { value: 'append', label: 'Add beside what is there' }]} {...register('riser.mode')} />
-        <CellSelect label="Riser from floor" options={floorOptions('the lowest floor')} error={msg(e?.fromFloor)} {...register('riser.fromFloor')} />
-        <CellSelect label="Riser to floor" options={floorOptions('the highest floor')} error={msg(e?.toFloor)} {...register('riser.toFloor')} />
-        <CellSelect label="Riser material" options={materialChoices(catalog)} error={msg(e?.material)} {...register('riser.material')} />
-        <CellSelect label="Riser size" options={sizeChoicesOf(catalog, riser.material)} error={msg(e?.size)} {...register('riser.size')} />
-        <CellInput label={`Run to the foot of the riser (${lengthUnit})`} placeholder={`run to riser foot, ${lengthUnit}`} inputMode="decimal" error={msg(e?.footLength)} {...register('riser.footLength', asNumber)} />
+        <label className="flex flex-col gap-1 text-xs font-semibold">Riser starts at
+          <CellSelect label="Riser starts at" options={nodeOptions} error={msg(e?.startNodeId)} {...register('riser.startNodeId')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">What follows the start point
+          <CellSelect label="What follows the start point" options={[{ value: 'replace', label: 'Replace what follows it' }, { value: 'append', label: 'Add beside what is there' }]} {...register('riser.mode')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Riser from floor
+          <CellSelect label="Riser from floor" options={floorOptions('the lowest floor')} error={msg(e?.fromFloor)} {...register('riser.fromFloor')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Riser to floor
+          <CellSelect label="Riser to floor" options={floorOptions('the highest floor')} error={msg(e?.toFloor)} {...register('riser.toFloor')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Riser material
+          <CellSelect label="Riser material" options={materialChoices(catalog)} error={msg(e?.material)} {...register('riser.material')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Riser size
+          <CellSelect label="Riser size" options={sizeChoicesOf(catalog, riser.material)} error={msg(e?.size)} {...register('riser.size')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">{`Run to the foot of the riser (${lengthUnit})`}
+          <CellInput label={`Run to the foot of the riser (${lengthUnit})`} inputMode="decimal" error={msg(e?.footLength)} {...register('riser.footLength', asNumber)} />
+        </label>
         <span className="text-sm text-ink-muted">Each floor’s riser length is its floor-to-floor height; the foot’s run gets two 90° elbows (common practice).</span>
-        <CellSelect label="Floor main material" options={materialChoices(catalog)} error={msg(e?.mainMaterial)} {...register('riser.mainMaterial')} />
-        <CellSelect label="Floor main size" options={sizeChoicesOf(catalog, riser.mainMaterial)} error={msg(e?.mainSize)} {...register('riser.mainSize')} />
-        <CellInput label={`Floor main height above floor (${lengthUnit})`} placeholder={`main height, ${lengthUnit}`} inputMode="decimal" error={msg(e?.mainHeight)} {...register('riser.mainHeight', asNumber)} />
+        <label className="flex flex-col gap-1 text-xs font-semibold">Floor main material
+          <CellSelect label="Floor main material" options={materialChoices(catalog)} error={msg(e?.mainMaterial)} {...register('riser.mainMaterial')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">Floor main size
+          <CellSelect label="Floor main size" options={sizeChoicesOf(catalog, riser.mainMaterial)} error={msg(e?.mainSize)} {...register('riser.mainSize')} />
+        </label>
+        <label className="flex flex-col gap-1 text-xs font-semibold">{`Floor main height above floor (${lengthUnit})`}
+          <CellInput label={`Floor main height above floor (${lengthUnit})`} inputMode="decimal" error={msg(e?.mainHeight)} {...register('riser.mainHeight', asNumber)} />
+        </label>
       </div>
       <div className="mt-3 flex flex-col gap-1 text-sm">
         <p className="font-semibold">Riser size rule: {riser.size || 'the size above'} from the first floor{sizeChanges.fields.length ? ', then' : ''}</p>

@@ -21,7 +21,9 @@ export function UnitTypeEditor({ index, catalog, lengthUnit, onRemove }: { index
   return (
     <div className="flex flex-col gap-3 rounded-md border-2 border-rule p-3" data-testid={`unit-type-${index}`}>
       <div className="flex flex-wrap items-end gap-3">
-        <CellInput label={`Unit type ${index + 1} name`} className="w-56" error={msg(e?.name)} {...register(`unitTypes.${index}.name`)} />
+        <label className="flex flex-col gap-1 text-xs font-semibold">Unit type name
+          <CellInput label={`Unit type ${index + 1} name`} className="w-56" error={msg(e?.name)} {...register(`unitTypes.${index}.name`)} />
+        </label>
         {onRemove ? <Button variant="quiet" onClick={onRemove}>Remove this unit type</Button> : null}
       </div>
       <div className="overflow-x-auto">
