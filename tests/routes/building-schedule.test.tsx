@@ -65,9 +65,15 @@ describe('fixture schedules on the building page', () => {
     }];
     const back = previewSchedule(exportSchedule(types), types);
     expect(back.fileErrors).toEqual([]);
-    expect(back.rows.map((r) => [r.unitTypeId, r.fixtureTypeId, r.count, r.error])).toEqual([
-      ['apt', 'water-closet-flush-tank-private', 2, null],
-      ['apt', 'shower-private', 1, null],
+    expect(back.rows.map((r) => [r.unitTypeId, r.fixtureTypeId, r.count, r.heightAboveFloor, r.length, r.size, r.checked, r.error])).toEqual([
+      ['apt', 'water-closet-flush-tank-private', 2, 1, 12, '1/2', false, null],
+      ['apt', 'shower-private', 1, 6.5, 18, '1/2', true, null],
     ]);
+  });
+
+  it('when a branch column is not a number, then that line names it', () => {
+    const types: UnitTypeForm[] = [{ id: 'apt', name: 'Apt', rows: [] }];
+    const text = 'floor,unit,fixture,count,height,length\ntypical,Apt,lavatory,1,2,fourteen\n';
+    expect(previewSchedule(text, types).rows[0].error).toBe('Line 2: length “fourteen” is not a positive number.');
   });
 });

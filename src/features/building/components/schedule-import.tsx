@@ -54,6 +54,7 @@ export function ScheduleImport() {
         <p className="max-w-prose text-sm text-ink-soft">
           Columns floor, unit, fixture, count, occupancy (private when empty), with a header line. Write “typical” as the floor and a
           unit type’s name as the unit; fixtures in the trade’s words (“water closet, flush tank”, “lavatory”, “shower”, “kitchen sink”).
+          Optional columns fill the fixture’s point: height (above the floor), length and size of its branch, check (yes).
         </p>
         <TextAreaField label="Paste a schedule (CSV or a spreadsheet range)" value={text} onChange={(e) => setText(e.target.value)} rows={5} />
         <div className="flex flex-wrap items-center gap-3">
