@@ -10,7 +10,7 @@ import { asNumber, msg } from './form-helpers';
 
 /** The riser builder's short form: where the riser starts, its pipe, the floor main, and the units along the main. */
 export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catalog; document: SystemDocument; lengthUnit: string }) {
-  const { control, register, formState: { errors } } = useFormContext<BuildingForm>();
+  const { control, register, getValues, setValue, formState: { errors } } = useFormContext<BuildingForm>();
   const sizeChanges = useFieldArray({ control, name: 'riser.sizeChanges' });
   const units = useFieldArray({ control, name: 'units' });
   const riser = useWatch({ control, name: 'riser' });
@@ -37,7 +37,10 @@ export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catal
           <CellSelect label="Riser to floor" options={floorOptions('the highest floor')} error={msg(e?.toFloor)} {...register('riser.toFloor')} />
         </label>
         <label className="flex flex-col gap-1 text-xs font-semibold">Riser material
-          <CellSelect label="Riser material" options={materialChoices(catalog)} error={msg(e?.material)} {...register('riser.material')} />
+          <CellSelect label="Riser material" options={materialChoices(catalog)} error={msg(e?.material)} {...register('riser.material', {
+            // the floor main is usually the riser's material: taken until one is chosen
+            onChange: (ev: { target: { value: string } }) => { if (!getValues('riser.mainMaterial')) setValue('riser.mainMaterial', ev.target.value, { shouldValidate: true }); },
+          })} />
         </label>
         <label className="flex flex-col gap-1 text-xs font-semibold">Riser size
           <CellSelect label="Riser size" options={sizeChoicesOf(catalog, riser.material)} error={msg(e?.size)} {...register('riser.size')} />
