@@ -2,10 +2,12 @@
  * Command-line analysis of a system document.
  *   npm run --silent calc -- <system.json>                 → the analysis as JSON on stdout
  *   npm run --silent calc -- <system.json> --ledger <id>   → that fixture's pressure ledger as a table
- * Bad input: the structured error as JSON on stderr, exit code 1.
+ * Bad input: the structured error as JSON on stderr, exit code 1 — through safeAnalyzeSystem, so the
+ * command line answers exactly as the server does (an absurd magnitude is `value-out-of-range`).
+ * `npm run calc` runs this file from its prebuilt bundle (scripts/calc.mjs → dist-cli/calc.mjs).
  */
 import { readFileSync } from 'node:fs';
-import { analyzeSystem, EngineInputError, formatLedger, ledgerFor } from '../src/engine';
+import { safeAnalyzeSystem, EngineInputError, formatLedger, ledgerFor } from '../src/engine';
 
 function fail(error: unknown): never {
   const json =
@@ -32,7 +34,9 @@ try {
   fail(e);
 }
 try {
-  const analysis = analyzeSystem(doc);
+  const result = safeAnalyzeSystem(doc);
+  if (!result.ok) fail(result.error);
+  const analysis = result.analysis;
   if (fixtureId !== undefined) process.stdout.write(formatLedger(ledgerFor(analysis, fixtureId), analysis) + '\n');
   else process.stdout.write(JSON.stringify(analysis, null, 2) + '\n');
 } catch (e) {

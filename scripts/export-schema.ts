@@ -5,7 +5,7 @@ import { systemDocumentJsonSchema } from '../src/engine/model/schema';
 
 const target = fileURLToPath(new URL('../src/engine/model/system.schema.json', import.meta.url));
 const schema = {
-  $id: 'https://headroom.invalid/schemas/system-document-v1.json',
+  $id: 'https://headroom.invalid/schemas/system-document-v2.json',
   title: 'Headroom system document',
   ...systemDocumentJsonSchema(),
 };

@@ -11,6 +11,7 @@ import { analyzeSystem, SystemDocumentSchema, type Analysis } from '../../src/en
 import { analyzeValidated } from '../../src/engine/analysis/analyze';
 import { buildModel } from '../../src/engine/analysis/input';
 import { buildTopology } from '../../src/engine/analysis/topology';
+import { resolveElevations } from '../../src/engine/analysis/elevations';
 import { computeDemand } from '../../src/engine/analysis/demand';
 import { computeHydraulics } from '../../src/engine/analysis/hydraulics';
 import { runChecks } from '../../src/engine/analysis/checks';
@@ -103,9 +104,10 @@ function epanetPeer(doc: () => unknown, pipes: number): EngineCase['peer'] {
 function computeOnly(parsed: SystemDocument): void {
   const model = buildModel(parsed);
   const topo = buildTopology(model);
+  const elev = resolveElevations(model, topo);
   const warnings: EngineWarning[] = [];
   const demand = computeDemand(model, topo, warnings);
-  runChecks(model, computeHydraulics(model, topo, demand, warnings), warnings);
+  runChecks(model, computeHydraulics(model, topo, demand, elev, warnings), warnings);
 }
 
 function engineCases(): EngineCase[] {

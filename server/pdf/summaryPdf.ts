@@ -9,7 +9,7 @@ import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
-import { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
+import { boosterText, fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
@@ -182,7 +182,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     const notes = [
       r?.extrapolated ? 'loss extrapolated beyond the curve' : '',
       d.prv ? `set ${withUnit(d.prv.setPressure, u.pressure)}` : '',
-      d.boost ? `adds ${withUnit(d.boost.gain, u.pressure)}` : '',
+      d.boost ? boosterText(d.boost, u.pressure) : '',
       d.loss.kind === 'curve' ? `curve of ${d.loss.points.length} point(s)` : 'fixed loss',
     ].filter(Boolean);
     return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };

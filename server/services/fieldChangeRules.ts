@@ -12,7 +12,7 @@
 import { UNIT_LABELS, type Device, type Segment, type SystemDocument } from '../../src/engine';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
-import { fittingLabel } from '../../src/engine/model/labels';
+import { boosterText, fittingLabel } from '../../src/engine/model/labels';
 import { canonicalJson } from './canonicalJson';
 import { num } from '../pdf/format';
 import type { ChangeField, ChangeItem } from '../../src/shared/api/fieldChanges';
@@ -105,7 +105,7 @@ function deviceFields(d: Device, e: Device, pressure: string, flow: string): Cha
   if (d.segmentId !== e.segmentId) out.push({ field: 'segmentId', before: d.segmentId, after: e.segmentId });
   if (!same(d.loss, e.loss)) out.push({ field: 'loss', before: deviceLossText(d, pressure, flow), after: deviceLossText(e, pressure, flow) });
   if (!same(d.prv, e.prv)) out.push({ field: 'prv', before: d.prv ? `set ${num(d.prv.setPressure, pressure)} ${pressure}` : null, after: e.prv ? `set ${num(e.prv.setPressure, pressure)} ${pressure}` : null });
-  if (!same(d.boost, e.boost)) out.push({ field: 'boost', before: d.boost ? `adds ${num(d.boost.gain, pressure)} ${pressure}` : null, after: e.boost ? `adds ${num(e.boost.gain, pressure)} ${pressure}` : null });
+  if (!same(d.boost, e.boost)) out.push({ field: 'boost', before: d.boost ? boosterText(d.boost, pressure) : null, after: e.boost ? boosterText(e.boost, pressure) : null });
   return out;
 }
 

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type SystemDocument } from '../../src/engine';
+import { ENGINE_VERSION, readSystemDocument, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type SystemDocument } from '../../src/engine';
 import { AppError, notFound, staleVersion } from '../http/errors';
 import { fieldsFromZod } from '../http/errors';
 import { assertStorable } from '../http/storable';
@@ -81,7 +81,7 @@ function starterDocument(name: string, service: 'cold' | 'hot', unitSystem: 'US'
   // 60 °F cold and 140 °F hot water: common practice for design water temperatures.
   const defaultTemperature = unitSystem === 'US' ? (service === 'cold' ? 60 : 140) : service === 'cold' ? 15.6 : 60;
   return SystemDocumentSchema.parse({
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: randomUUID(),
     name,
     service,
@@ -95,7 +95,8 @@ function starterDocument(name: string, service: 'cold' | 'hot', unitSystem: 'US'
 }
 
 function parseDocument(document: unknown): SystemDocument {
-  const parsed = SystemDocumentSchema.safeParse(document);
+  // A document written before version 2 is upgraded as a draft: its typed rises were the intent.
+  const parsed = readSystemDocument(document, { riseConflict: 'follow-rises' });
   if (!parsed.success) {
     const fields = Object.fromEntries(Object.entries(fieldsFromZod(parsed.error)).map(([k, v]) => [`document.${k}`, v]));
     throw new AppError(400, 'VALIDATION_FAILED', 'The system document does not match the format.', fields);

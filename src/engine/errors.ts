@@ -24,6 +24,12 @@ export const ERROR_CODES = {
   'unknown-fixture': 'No checked fixture in the analysis has this id.',
   'self-loop': 'A segment starts and ends at the same node.',
   'missing-usage-data': 'The binomial demand method needs flow, duration and recurrence for every fixture group.',
+  'rise-and-elevation':
+    "A segment has a rise and its downstream node has an elevation or a floor: the node's height would be given twice. Keep one.",
+  'node-position-conflict':
+    'A node has both an elevation and a floor, or a height above floor without a floor: give one position.',
+  'unknown-floor': 'A node names a floor that is not in the system.',
+  'document-too-large': 'A list or text in the document is longer than any building needs.',
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_CODES;
@@ -37,6 +43,7 @@ export type ElementType =
   | 'fixture-group'
   | 'checked-fixture'
   | 'fitting'
+  | 'floor'
   | 'criteria';
 
 export interface EngineInputErrorJSON {

@@ -19,10 +19,14 @@ export type {
   MethodUsed,
   LedgerLine,
   PressureLedger,
+  StaticChecks,
 } from './analysis/types';
 export {
   SystemDocumentSchema,
   SCHEMA_VERSION,
+  DOCUMENT_BOUNDS,
+  type Boost,
+  type Floor,
   systemDocumentJsonSchema,
   type SystemDocument,
   type SystemDocumentInput,
@@ -39,7 +43,22 @@ export {
   type CustomFixture,
   type CriteriaOverrides,
 } from './model/schema';
-export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from './model/labels';
+export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu, boosterDesignGain, boosterText } from './model/labels';
+export { nodeElevations, segmentRises } from './model/positions';
+export { readSystemDocument, type ReadResult } from './model/read';
+export { upgradeDocument, upgradeDocumentWithReport, type RiseConflictRule, type RiseConflict, type UpgradeOptions } from './model/upgrade';
+export { SystemDocumentSchemaV1, SCHEMA_VERSION_V1, type SystemDocumentV1 } from './model/schemaV1';
 export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';
 export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
+export {
+  LIMITS,
+  checkRange,
+  rangeText,
+  limitUnit,
+  siBase,
+  formatBound,
+  type LimitQuantity,
+  type QuantityLimit,
+  type Bounds,
+} from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';

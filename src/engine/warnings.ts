@@ -67,15 +67,6 @@ export const WARNING_CODES = {
     severity: 'note',
     message: 'The critical fixture is not the farthest checked fixture by developed length.',
   },
-  'rise-elevation-mismatch': {
-    severity: 'caution',
-    message:
-      "The segment's rise does not match the difference of its node elevations; the node elevations were used.",
-  },
-  'rise-from-elevations': {
-    severity: 'note',
-    message: "The segment has no rise entered; it was taken from its node elevations.",
-  },
   'prv-active': {
     severity: 'note',
     message: 'The pressure-reducing valve limits the pressure downstream to its set pressure less its fall-off.',
@@ -117,7 +108,29 @@ export const WARNING_CODES = {
   },
   'booster-gain-at-static': {
     severity: 'note',
-    message: "The booster pump's gain was counted in the static-pressure check as well (worst case for maximum static).",
+    message:
+      "The static-pressure check counts each booster at no flow: a constant-speed pump at its shutoff gain, a variable-speed pump at its set discharge pressure (worst case for the maximum).",
+  },
+  'booster-beyond-curve': {
+    severity: 'caution',
+    message: "The flow through the booster is beyond the end of its curve (no gain left); check the pump's selection.",
+  },
+  'prv-fail-open-over-max': {
+    severity: 'caution',
+    message:
+      'If this pressure-reducing valve failed open, fixtures downstream would see static pressure above the maximum. Consider a relief valve or a second valve in series; the adopted code and the AHJ govern.',
+  },
+  'static-over-pipe-rating': {
+    severity: 'fail',
+    message: "The highest static pressure in this pipe is above the material's published pressure rating at the water temperature.",
+  },
+  'pipe-rating-unknown': {
+    severity: 'note',
+    message: 'Some pipe materials have no published pressure rating in the catalog; their rating was not checked. Confirm it with the manufacturer.',
+  },
+  'static-below-min-at-fixture': {
+    severity: 'fail',
+    message: 'The low static pressure at the highest checked fixture is below the minimum static pressure of the criteria.',
   },
   'flow-override-used': {
     severity: 'note',
@@ -142,7 +155,9 @@ export interface EngineWarning {
   message: string;
   elementType: 'system' | 'source' | 'device' | 'node' | 'segment' | 'checked-fixture' | 'fitting';
   elementId: string | null;
-  /** Extra plain-words detail with the numbers involved, in the document's units. */
+  /** The name the user typed for the element, or a plain description of it; for display beside or instead of the id. */
+  elementLabel?: string;
+  /** Extra plain-words detail with the numbers involved, in the document's units, naming elements by their labels. */
   detail?: string;
   /** For a warning that stands for many elements of one type (notes repeated along a tree). */
   elementIds?: string[];
@@ -170,7 +185,9 @@ export function makeGroupedWarning(
   elementIds: string[],
   detail?: string,
 ): EngineWarning {
-  const w = makeWarning(code, elementType, elementIds[0] ?? null, detail ?? `${elementIds.length} ${elementType}(s)`);
+  const n = elementIds.length;
+  const noun = elementType === 'checked-fixture' ? 'checked fixture' : elementType;
+  const w = makeWarning(code, elementType, elementIds[0] ?? null, detail ?? `${n} ${n === 1 ? noun : `${noun}s`}`);
   w.elementIds = elementIds;
   return w;
 }

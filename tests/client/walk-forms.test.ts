@@ -103,7 +103,8 @@ describe('step forms write the draft the engine reads', () => {
     const v = segmentTableSchema.parse({ segments: doc.segments.map((s) => ({ id: s.id, material: s.material ?? '', size: s.size ?? '', length: s.length, rise: s.id === 'riser' ? Number.NaN : s.rise })) });
     const next = applySegmentTable(doc, v);
     expect('rise' in next.segments.find((s) => s.id === 'riser')!).toBe(false);
-    expect(analyzeSystem(next).warnings.some((w) => w.code === 'rise-from-elevations')).toBe(true);
+    // Document version 2: the riser's top node has its elevation, which places it; nothing is missing.
+    expect(analyzeSystem(next).verdict.incomplete.map((r) => r.code)).not.toContain('node-elevation-missing');
   });
 });
 

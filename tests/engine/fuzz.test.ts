@@ -215,6 +215,16 @@ describe('safeAnalyzeSystem on generated bad documents', () => {
         const d = structuredClone(example) as Doc;
         damage(d, 1);
         const r = safeAnalyzeSystem(d);
+        if (name === 'disconnected') {
+          // Document version 2: a part not connected to the source is a drawing in progress, not an
+          // error; the analysis runs and its verdict is incomplete, naming the part.
+          expect(r.ok, `${String(example.id)} after ${name}`).toBe(true);
+          if (r.ok) {
+            expect(r.analysis.verdict.status).toBe('incomplete');
+            expect(r.analysis.verdict.incomplete.map((x) => x.code)).toContain('part-unreachable');
+          }
+          continue;
+        }
         expect(r.ok, `${String(example.id)} after ${name}`).toBe(false);
         checkOutcome(d);
       }
@@ -224,6 +234,6 @@ describe('safeAnalyzeSystem on generated bad documents', () => {
   it('when the runs are over, then both outcomes and many error codes were exercised (the generator is not trivial)', () => {
     expect(okCount).toBeGreaterThan(50);
     expect(errorCount).toBeGreaterThan(1000);
-    for (const code of ['schema-violation', 'duplicate-id', 'unknown-node', 'no-source', 'disconnected-segment', 'self-loop']) expect([...codesSeen]).toContain(code);
+    for (const code of ['schema-violation', 'duplicate-id', 'unknown-node', 'no-source', 'self-loop']) expect([...codesSeen]).toContain(code);
   });
 });

@@ -5,8 +5,12 @@
  */
 import { EngineInputError } from '../errors';
 import { makeWarning, type EngineWarning } from '../warnings';
-import { buildModel, parseDocument } from './input';
+import { expandBuilding } from '../building/expand';
+import { borrowPipes, buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
+import { resolveElevations } from './elevations';
+import { runStaticChecks } from './staticChecks';
+import { labelWarnings } from './names';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -23,17 +27,22 @@ export function analyzeSystem(doc: unknown): Analysis {
  * what the live client re-runs on every edit. Catalog, reference and topology checks still run.
  */
 export function analyzeValidated(parsed: SystemDocument): Analysis {
-  const model = buildModel(parsed);
+  // Typical units placed on floors become ordinary nodes and segments first (building/expand.ts).
+  const model = buildModel(expandBuilding(parsed) as SystemDocument);
   const topo = buildTopology(model);
+  borrowPipes(model, topo.order, topo.parentSeg);
+  const elev = resolveElevations(model, topo);
   const warnings: EngineWarning[] = [];
   for (const use of model.projectData) {
     warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
   }
   const demand = computeDemand(model, topo, warnings);
-  const hyd = computeHydraulics(model, topo, demand, warnings);
+  const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);
+  const stat = runStaticChecks(model, topo, hyd, elev, warnings);
+  labelWarnings(model, warnings);
   // assembleReport ends with the last guard: no NaN or Infinity in the SI results (finite.ts).
-  return assembleReport(model, topo, demand, hyd, checks, warnings);
+  return assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
 }
 
 export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };

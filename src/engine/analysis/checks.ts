@@ -69,15 +69,15 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
       }
     }
     if (model.elevationM[crit.nodeIdx] < maxZ - SAME_PLACE_M) {
-      warnings.push(makeWarning('critical-not-highest', 'checked-fixture', crit.id, `the highest checked fixture is "${highest.id}"`));
+      warnings.push(makeWarning('critical-not-highest', 'checked-fixture', crit.id, `the highest checked fixture is "${highest.label}"`));
     }
     if (hyd.nodeDevelopedLengthM[crit.nodeIdx] < maxL - SAME_PLACE_M) {
-      warnings.push(makeWarning('critical-not-farthest', 'checked-fixture', crit.id, `the farthest checked fixture is "${farthest.id}"`));
+      warnings.push(makeWarning('critical-not-farthest', 'checked-fixture', crit.id, `the farthest checked fixture is "${farthest.label}"`));
     }
     const expected = model.fixtures.filter((f) => f.expectedCritical);
     if (expected.length > 0 && !expected.some((f) => f.id === crit.id)) {
       warnings.push(
-        makeWarning('critical-not-expected', 'checked-fixture', crit.id, `expected: ${expected.map((f) => `"${f.id}"`).join(', ')}`),
+        makeWarning('critical-not-expected', 'checked-fixture', crit.id, `expected: ${expected.map((f) => `"${f.label}"`).join(', ')}`),
       );
     }
   }
@@ -114,7 +114,7 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
       );
     }
   }
-  for (const c of noLimit) warnings.push(makeWarning('no-velocity-limit', 'system', model.doc.id, `${c}, ${model.service}`));
+  for (const c of noLimit) warnings.push(makeWarning('no-velocity-limit', 'system', model.doc.id, `${c} pipe, ${model.service} water`));
 
   // Static pressure at every node that serves fixtures.
   const nodeStaticPass: (boolean | null)[] = new Array(model.nodeIds.length);

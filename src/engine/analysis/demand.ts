@@ -50,7 +50,7 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
       nodeBinomial[i] = m;
     }
   }
-  for (let k = nSegs - 1; k >= 0; k--) {
+  for (let k = topo.order.length - 1; k >= 0; k--) {
     const s = topo.order[k];
     const { from, to } = segs[s];
     nodeWsfu[from] += nodeWsfu[to];
@@ -132,7 +132,7 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
         'demand-table-extrapolated',
         'segment',
         extrapolatedIds,
-        `${extrapolatedIds.length} segment(s) below the first row of the table (its flow held) or beyond its last row`,
+        `${extrapolatedIds.length} ${extrapolatedIds.length === 1 ? 'segment' : 'segments'} below the first row of the table (its flow held) or beyond its last row`,
       ),
     );
   }

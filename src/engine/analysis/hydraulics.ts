@@ -6,11 +6,12 @@
  *
  * Pressure along a segment (the order the ledger repeats, operation for operation):
  *   p = p(from node); for each device in list order: p −= its loss (a PRV's loss is
- *   p − min(p, set − fall-off·Q); a booster's is its curve/fixed loss − gain);
+ *   p − min(p, set − fall-off·Q); a constant-speed booster's is its curve/fixed loss − gain(Q);
+ *   a variable-speed booster's is p − max(p − its own loss, set discharge pressure));
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
-import { darcyFrictionFactor, hazenWilliamsHeadLoss, type FlowRegime } from '../friction';
-import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, type FittingKResult } from '../fittings';
+import { darcyFrictionFactor, hazenWilliamsPressureLoss, type FlowRegime } from '../friction';
+import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, FITTING_TYPES, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
 import { G } from '../units';
@@ -18,6 +19,8 @@ import { makeGroupedWarning, makeWarning, type EngineWarning } from '../warnings
 import type { SiModel } from './input';
 import type { Topology } from './topology';
 import type { DemandResult } from './demand';
+import type { ElevationResult } from './elevations';
+import type { SiBoost } from './input';
 
 /** Relative difference in inside diameter below which two sizes count as equal (round-off of catalog data). */
 const SAME_DIAMETER_RTOL = 1e-9;
@@ -52,13 +55,30 @@ export interface HydraulicsResult {
   nodeStaticHighPa: Float64Array;
   nodeStaticLowPa: Float64Array;
   nodeDevelopedLengthM: Float64Array;
+  /** High static pressure in each segment just after its inlet devices (the pipe's upstream end). */
+  segStaticHighInletPa: Float64Array;
+  /** Per booster (device id): gain at the design flow and at no flow, Pa (the static checks report them). */
+  boosterGains: Map<string, { designPa: number; shutoffPa: number }>;
   source: { pressurePa: number; basis: 'flow-test' | 'low-static' };
+}
+
+/**
+ * Gain of a constant-speed pump at flow Q: gain(Q) = shutoff − (shutoff − design)·(Q/Qd)², the
+ * parabola through the shutoff and design points (common practice for a centrifugal pump at fixed
+ * speed). Qd defaults to Q itself (the design point is at the system's design flow). Not below 0.
+ */
+export function constantSpeedGainPa(b: Extract<SiBoost, { control: 'constant-speed' }>, flowM3s: number): number {
+  const qd = b.designFlowM3s ?? flowM3s;
+  if (!(qd > 0)) return b.shutoffPa;
+  const r = flowM3s / qd;
+  return Math.max(0, b.shutoffPa - (b.shutoffPa - b.designPa) * r * r);
 }
 
 export function computeHydraulics(
   model: SiModel,
   topo: Topology,
   demand: DemandResult,
+  elev: ElevationResult,
   warnings: EngineWarning[],
 ): HydraulicsResult {
   const segs = model.segments;
@@ -73,7 +93,8 @@ export function computeHydraulics(
     velocity: new Float64Array(nSegs),
     reynolds: new Float64Array(nSegs),
     frictionFactor: new Float64Array(nSegs),
-    regime: new Array(nSegs),
+    // Segments not reached from the source (verdict incomplete) keep these no-flow values.
+    regime: new Array<FlowRegime>(nSegs).fill('laminar'),
     fittingsK: new Float64Array(nSegs),
     sizeChangeK: new Float64Array(nSegs),
     frictionLossPa: new Float64Array(nSegs),
@@ -81,13 +102,15 @@ export function computeHydraulics(
     riseM: new Float64Array(nSegs),
     riseLossPa: new Float64Array(nSegs),
     deviceLossPa: new Float64Array(nSegs),
-    devices: new Array(nSegs),
+    devices: new Array<DeviceLossSI[]>(nSegs).fill(NO_DEVICES),
     inletPa: new Float64Array(nSegs),
     outletPa: new Float64Array(nSegs),
     nodePressurePa: new Float64Array(nNodes),
     nodeStaticHighPa: new Float64Array(nNodes),
     nodeStaticLowPa: new Float64Array(nNodes),
     nodeDevelopedLengthM: new Float64Array(nNodes),
+    segStaticHighInletPa: new Float64Array(nSegs),
+    boosterGains: new Map(),
     source: sourcePressure(model, demand, warnings),
   };
 
@@ -99,10 +122,9 @@ export function computeHydraulics(
   // K from Crane's N·f_T (by nominal size) or a constant K does not depend on the flow: one
   // evaluation per catalog size and fitting type serves every segment of that size.
   const flowFreeK: FlowFreeKCache = new Map();
-  let missingRise = 0;
   const sizeChangeIds: string[] = [];
   let boosterSeen = false;
-  for (let k = 0; k < nSegs; k++) {
+  for (let k = 0; k < topo.order.length; k++) {
     const s = topo.order[k];
     const seg = segs[s];
     const Q = demand.designFlowM3s[s];
@@ -120,7 +142,7 @@ export function computeHydraulics(
     let regime: FlowRegime = Re >= 4000 ? 'turbulent' : Re >= 2300 ? 'transitional' : 'laminar';
     if (Q > 0) {
       if (method === 'hazen-williams') {
-        frictionPa = rhoG * hazenWilliamsHeadLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
+        frictionPa = hazenWilliamsPressureLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
         // Darcy factor equivalent to the Hazen–Williams loss, for reporting and for the fittings.
         f = (frictionPa * D) / (seg.lengthM * dynamicPressure);
       } else {
@@ -170,7 +192,7 @@ export function computeHydraulics(
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {
           warnings.push(
-            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
+            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
           );
         }
       }
@@ -190,19 +212,8 @@ export function computeHydraulics(
     const fittingPa = (kFittings + kSize) * dynamicPressure;
     r.fittingLossPa[s] = fittingPa;
 
-    // Rise: node elevations are the truth; an entered rise is checked against them.
-    const rise = model.elevationM[seg.to] - model.elevationM[seg.from];
-    if (seg.riseEnteredM === null) missingRise++;
-    else if (Math.abs(seg.riseEnteredM - rise) > model.riseToleranceM) {
-      warnings.push(
-        makeWarning(
-          'rise-elevation-mismatch',
-          'segment',
-          seg.id,
-          `entered rise ${seg.riseEnteredM.toFixed(3)} m, node elevations give ${rise.toFixed(3)} m`,
-        ),
-      );
-    }
+    // Rise: one truth per node (elevations.ts): the typed rise, or the difference of two placed nodes.
+    const rise = elev.riseM[s];
     r.riseM[s] = rise;
     const risePa = rhoG * rise;
     r.riseLossPa[s] = risePa;
@@ -238,10 +249,29 @@ export function computeHydraulics(
         staticHigh = Math.min(staticHigh, d.prv.setPa);
         staticLow = Math.min(staticLow, d.prv.setPa);
       }
-      if (d.boostPa > 0) {
-        loss -= d.boostPa;
-        staticHigh += d.boostPa;
-        staticLow += d.boostPa;
+      const b = d.boost;
+      if (b !== null && b.control === 'constant-speed') {
+        // Design flow: gain(Q) on the pump's curve. No flow: the shutoff gain for the high static
+        // (the worst case for the maximum); the design gain for the low static (the least it adds running).
+        const gain = constantSpeedGainPa(b, Q);
+        if (gain === 0 && b.shutoffPa > 0) warnings.push(makeWarning('booster-beyond-curve', 'device', d.id));
+        if (gain > 0) {
+          loss -= gain;
+          boosterSeen = true;
+        }
+        staticHigh += b.shutoffPa;
+        staticLow += b.designPa;
+        r.boosterGains.set(d.id, { designPa: gain, shutoffPa: b.shutoffPa });
+      } else if (b !== null) {
+        // Variable speed: the drive holds the discharge at the set pressure at any flow, unless the
+        // inlet is already above it (the pump then idles, common practice for pressure-boosting sets).
+        const before = p - loss;
+        const outlet = Math.max(before, b.setPa);
+        loss = p - outlet;
+        const shutoffPa = Math.max(0, b.setPa - staticHigh);
+        staticHigh = Math.max(staticHigh, b.setPa);
+        staticLow = Math.max(staticLow, b.setPa);
+        r.boosterGains.set(d.id, { designPa: outlet - before, shutoffPa });
         boosterSeen = true;
       }
       p -= loss;
@@ -251,6 +281,7 @@ export function computeHydraulics(
     p -= frictionPa;
     p -= fittingPa;
     p -= risePa;
+    r.segStaticHighInletPa[s] = staticHigh;
     r.devices[s] = devs;
     r.deviceLossPa[s] = deviceTotal;
     r.inletPa[s] = inlet;
@@ -259,9 +290,6 @@ export function computeHydraulics(
     r.nodeStaticHighPa[seg.to] = staticHigh - risePa;
     r.nodeStaticLowPa[seg.to] = staticLow - risePa;
     r.nodeDevelopedLengthM[seg.to] = r.nodeDevelopedLengthM[seg.from] + seg.lengthM;
-  }
-  if (missingRise > 0) {
-    warnings.push(makeWarning('rise-from-elevations', 'system', model.doc.id, `${missingRise} segment(s) without an entered rise`));
   }
   if (sizeChangeIds.length > 0) warnings.push(makeGroupedWarning('size-change-loss', 'segment', sizeChangeIds));
   if (boosterSeen) warnings.push(makeWarning('booster-gain-at-static', 'system', model.doc.id));

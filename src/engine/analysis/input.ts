@@ -4,8 +4,11 @@
  * converted to one SI model with index arrays that the later stages walk linearly.
  */
 import type { z } from 'zod';
-import { SystemDocumentSchema, type SystemDocument } from '../model/schema';
+import { DOCUMENT_BOUNDS, SystemDocumentSchema, type SystemDocument } from '../model/schema';
+import { SystemDocumentSchemaV1 } from '../model/schemaV1';
+import { upgradeDocument } from '../model/upgrade';
 import { fastParseSystemDocument } from '../model/fastParse';
+import { checkRanges } from './ranges';
 import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
 import { toSI, type UnitSystem } from '../units';
 import { waterProperties, type WaterProperties } from '../water';
@@ -18,11 +21,8 @@ import type { DemandCurve } from '../demand';
 /** Range of waterProperties (IAPWS at 1 atm, liquid): 0.01–100 °C, per the engine contract. */
 const WATER_T_MIN_C = 0.01;
 const WATER_T_MAX_C = 100;
-/**
- * Default tolerance between a segment's rise and its node elevations: 0.1 ft (about 1 in),
- * common practice for floor-to-floor dimensions on riser diagrams; overridable in the criteria.
- */
-const DEFAULT_RISE_TOLERANCE_M = 0.1 * 0.3048;
+/** At most this many problems are returned from the schema stage (the rest are counted). */
+export const MAX_SCHEMA_ISSUES = 100;
 /** Shared (frozen) empty list for the many nodes without fixtures. */
 const NO_GROUPS: SiFixtureGroup[] = Object.freeze([]) as unknown as SiFixtureGroup[];
 
@@ -30,6 +30,46 @@ const NO_GROUPS: SiFixtureGroup[] = Object.freeze([]) as unknown as SiFixtureGro
 const NO_DEVICES: SiDevice[] = Object.freeze([]) as unknown as SiDevice[];
 
 type PipeData = Pick<SiSegment, 'innerDiameterM' | 'roughnessM' | 'hazenWilliamsC' | 'velocityClass' | 'nominalSizeIn' | 'nominalSizeKey'>;
+
+/**
+ * Stand-in for a segment whose pipe is not described and that has no described pipe upstream:
+ * 3/4 in type L copper (inside diameter 0.785 in, ASTM B88; roughness 1.5e-6 m and C 140 as for
+ * drawn copper in the materials catalog), the commonest branch size in dwellings (common
+ * practice). Used only to keep the numbers finite; the verdict is incomplete and says so.
+ */
+const PLACEHOLDER_PIPE: PipeData = Object.freeze({
+  innerDiameterM: 0.785 * 0.0254,
+  roughnessM: 1.5e-6,
+  hazenWilliamsC: 140,
+  velocityClass: 'copper',
+  nominalSizeIn: 0.75,
+  nominalSizeKey: '3/4',
+});
+
+/**
+ * After the topology: each segment without a described pipe takes the pipe of the segment feeding
+ * it (walking the breadth-first order, so a chain of undescribed segments takes the nearest
+ * described one upstream); at the source, the placeholder above.
+ */
+export function borrowPipes(model: SiModel, order: Int32Array, parentSeg: Int32Array): void {
+  if (model.pipeMissing.length === 0) return;
+  const missing = new Uint8Array(model.segments.length);
+  for (const s of model.pipeMissing) missing[s] = 1;
+  for (let k = 0; k < order.length; k++) {
+    const s = order[k];
+    if (!missing[s]) continue;
+    const parent = parentSeg[s];
+    if (parent === -1) continue;
+    const from = model.segments[parent];
+    const seg = model.segments[s];
+    seg.innerDiameterM = from.innerDiameterM;
+    seg.roughnessM = from.roughnessM;
+    seg.hazenWilliamsC = from.hazenWilliamsC;
+    seg.velocityClass = from.velocityClass;
+    seg.nominalSizeIn = from.nominalSizeIn;
+    seg.nominalSizeKey = from.nominalSizeKey;
+  }
+}
 
 export interface SiFixtureGroup {
   fixtureTypeId: string;
@@ -75,8 +115,17 @@ export interface SiDevice {
   fixedLossPa: number | null;
   curve: { flowM3s: number; lossPa: number }[] | null;
   prv: { setPa: number; falloffPaPerM3s: number } | null;
-  boostPa: number;
+  /** The booster's description in SI; null for any other device. */
+  boost: SiBoost | null;
 }
+
+/**
+ * A booster in SI (schema.ts BoostSchema states the rules). `assumed`: version 1's single gain,
+ * read as a flat curve (shutoff = design), an assumption that makes the verdict incomplete.
+ */
+export type SiBoost =
+  | { control: 'constant-speed'; designPa: number; shutoffPa: number; designFlowM3s: number | null; assumed: boolean }
+  | { control: 'variable-speed'; setPa: number };
 
 export interface SiSegment {
   id: string;
@@ -90,7 +139,10 @@ export interface SiSegment {
   nominalSizeIn: number;
   nominalSizeKey: string;
   lengthM: number;
+  /** The typed rise that places the downstream node (only where that node has no elevation or floor). */
   riseEnteredM: number | null;
+  /** The catalog material id (null for a custom pipe), for the pressure-rating check. */
+  materialId: string | null;
   fittings: SiFitting[];
   /** Per fitting of `fittings`: its own data in SI, or null for a catalog fitting; null when the segment has none. */
   customFittings: (SiCustomFitting | null)[] | null;
@@ -104,11 +156,15 @@ export interface SiModel {
   service: 'cold' | 'hot';
   water: WaterProperties;
   criteria: Criteria;
-  riseToleranceM: number;
   nodeIds: string[];
   nodeLabels: (string | null)[];
   nodeIndex: Map<string, number>;
+  /**
+   * Elevation of each node. After buildModel: set for the nodes placed by an elevation or a floor
+   * (`placed` = 1), NaN for the others; the elevation stage (elevations.ts) fills those in.
+   */
   elevationM: Float64Array;
+  placed: Uint8Array;
   continuousM3s: Float64Array;
   groupsByNode: SiFixtureGroup[][];
   fixtures: SiCheckedFixture[];
@@ -117,6 +173,8 @@ export interface SiModel {
   devicesBySeg: SiDevice[][];
   /** Elements given by the project's own data, in document order (empty for a catalog-only document). */
   projectData: ProjectDataUse[];
+  /** Segments with no material and size (nor custom pipe): computed with a borrowed pipe, verdict incomplete. */
+  pipeMissing: number[];
   source: {
     nodeIdx: number;
     kind: string;
@@ -132,13 +190,96 @@ export interface SiModel {
  * accepts; anything else goes through the zod schema, which decides and words the report.
  */
 export function parseDocument(doc: unknown): SystemDocument {
+  refuseOversized(doc);
+  if (isVersion1(doc)) {
+    // Version 1 (every node absolute, rises only checked): read with its own schema, then
+    // upgraded keeping the elevations, which is what version 1 analysed (upgrade.ts).
+    const parsedV1 = SystemDocumentSchemaV1.safeParse(doc, { reportInput: true });
+    if (!parsedV1.success) throw schemaError(parsedV1.error.issues, doc);
+    const upgraded = upgradeDocument(parsedV1.data, { riseConflict: 'keep-elevations' });
+    const parsed = SystemDocumentSchema.safeParse(upgraded, { reportInput: true });
+    if (!parsed.success) throw schemaError(parsed.error.issues, upgraded);
+    return parsed.data;
+  }
   const fast = fastParseSystemDocument(doc);
   if (fast !== undefined) return fast;
   const parsed = SystemDocumentSchema.safeParse(doc, { reportInput: true });
   if (parsed.success) return parsed.data;
-  const issues = parsed.error.issues.map((issue) => mapIssue(issue, doc));
-  const first = issues[0];
-  throw new EngineInputError({ ...first, issues });
+  throw schemaError(parsed.error.issues, doc);
+}
+
+function isVersion1(doc: unknown): boolean {
+  return doc !== null && typeof doc === 'object' && (doc as { schemaVersion?: unknown }).schemaVersion === 1;
+}
+
+/** The schema's issues as one error: the first, and at most MAX_SCHEMA_ISSUES in `issues` (the rest counted in the message). */
+function schemaError(zodIssues: z.core.$ZodIssue[], doc: unknown): EngineInputError {
+  const shown = zodIssues.slice(0, MAX_SCHEMA_ISSUES).map((issue) => mapIssue(issue, doc));
+  const first = shown[0];
+  const more = zodIssues.length - shown.length;
+  const message = more > 0 ? `${first.message} (${zodIssues.length} problems in all; the first ${shown.length} are listed)` : first.message;
+  return new EngineInputError({ ...first, message, issues: shown });
+}
+
+/**
+ * Refuses, before any per-element work, a document whose lists are longer than any building
+ * needs (DOCUMENT_BOUNDS): a list of a million empty nodes costs one length comparison, not a
+ * million error reports.
+ */
+function refuseOversized(doc: unknown): void {
+  if (doc === null || typeof doc !== 'object') return;
+  const d = doc as Record<string, unknown>;
+  const tooLong = (list: unknown, max: number, field: string, elementType: ElementType = 'system', elementId: string | null = null) => {
+    if (Array.isArray(list) && list.length > max) {
+      throw new EngineInputError({
+        code: 'document-too-large',
+        elementType,
+        elementId,
+        field,
+        message: `${elementType === 'system' ? 'system' : `${elementType} "${elementId}"`}, field "${field}": ${list.length} entries; at most ${max} are accepted`,
+        issues: [
+          {
+            code: 'document-too-large',
+            elementType,
+            elementId,
+            field,
+            path: [field],
+            message: `${field}: ${list.length} entries; at most ${max} are accepted`,
+          },
+        ],
+      });
+    }
+  };
+  tooLong(d.nodes, DOCUMENT_BOUNDS.nodes, 'nodes');
+  tooLong(d.segments, DOCUMENT_BOUNDS.segments, 'segments');
+  tooLong(d.devices, DOCUMENT_BOUNDS.devices, 'devices');
+  tooLong(d.floors, DOCUMENT_BOUNDS.floors, 'floors');
+  if (typeof d.notes === 'string' && d.notes.length > DOCUMENT_BOUNDS.notesLength * 2) {
+    // Twice the bound in UTF-16 units is surely over the bound in code points.
+    throw new EngineInputError({ code: 'document-too-large', elementType: 'system', field: 'notes', message: `system, field "notes": longer than ${DOCUMENT_BOUNDS.notesLength} characters` });
+  }
+  // Nested lists, each bounded per element: their total is what a flood of elements would use.
+  let nested = 0;
+  const limit = DOCUMENT_BOUNDS.nodes * 4;
+  for (const key of ['nodes', 'segments'] as const) {
+    const list = d[key];
+    if (!Array.isArray(list)) continue;
+    for (const item of list) {
+      if (item === null || typeof item !== 'object') continue;
+      for (const sub of ['fixtureGroups', 'checkedFixtures', 'fittings']) {
+        const v = (item as Record<string, unknown>)[sub];
+        if (Array.isArray(v)) nested += v.length;
+      }
+    }
+  }
+  if (nested > limit) {
+    throw new EngineInputError({
+      code: 'document-too-large',
+      elementType: 'system',
+      field: 'nodes',
+      message: `system: ${nested} fixture groups, checked fixtures and fittings in all; at most ${limit} are accepted`,
+    });
+  }
 }
 
 const COLLECTION_TYPES: Record<string, ElementType> = {
@@ -148,6 +289,7 @@ const COLLECTION_TYPES: Record<string, ElementType> = {
   fixtureGroups: 'fixture-group',
   checkedFixtures: 'checked-fixture',
   fittings: 'fitting',
+  floors: 'floor',
 };
 
 function mapIssue(issue: z.core.$ZodIssue, doc: unknown): EngineIssue {
@@ -202,6 +344,8 @@ function mapIssue(issue: z.core.$ZodIssue, doc: unknown): EngineIssue {
 
 /** Stage 2: references, catalogs and ranges; conversion to SI. */
 export function buildModel(doc: SystemDocument): SiModel {
+  // Magnitudes first: nothing implausible reaches the arithmetic below (ranges.ts, limits.ts).
+  checkRanges(doc);
   const sys = doc.unitSystem;
   // The quantities below are pure scalings (units.ts), so one factor each serves every value.
   const pF = toSI('pressure', 1, sys);
@@ -225,7 +369,13 @@ export function buildModel(doc: SystemDocument): SiModel {
   }
   const water = waterProperties(temperatureC);
   const criteria = mergeCriteria(doc, P);
-  const riseToleranceM = doc.criteria?.riseTolerance !== undefined ? L(doc.criteria.riseTolerance) : DEFAULT_RISE_TOLERANCE_M;
+
+  // Floors
+  const floorElevationM = new Map<string, number>();
+  for (const f of doc.floors) {
+    if (floorElevationM.has(f.id)) throw inputError('duplicate-id', 'floor', f.id, 'id');
+    floorElevationM.set(f.id, L(f.elevation));
+  }
 
   // Nodes
   const nNodes = doc.nodes.length;
@@ -233,6 +383,7 @@ export function buildModel(doc: SystemDocument): SiModel {
   const nodeIds: string[] = new Array(nNodes);
   const nodeLabels: (string | null)[] = new Array(nNodes);
   const elevationM = new Float64Array(nNodes);
+  const placed = new Uint8Array(nNodes);
   const continuousM3s = new Float64Array(nNodes);
   const groupsByNode: SiFixtureGroup[][] = new Array(nNodes);
   const fixtures: SiCheckedFixture[] = [];
@@ -244,7 +395,24 @@ export function buildModel(doc: SystemDocument): SiModel {
     nodeIndex.set(node.id, i);
     nodeIds[i] = node.id;
     nodeLabels[i] = node.label ?? null;
-    elevationM[i] = L(node.elevation);
+    // One position at most (schema.ts NodeSchema): absolute, on a floor, or by the feed's rise.
+    if (node.elevation !== undefined && node.floor !== undefined) {
+      throw inputError('node-position-conflict', 'node', node.id, 'floor', `node "${node.label ?? node.id}" has both an elevation and a floor; give one`);
+    }
+    if (node.heightAboveFloor !== undefined && node.floor === undefined) {
+      throw inputError('node-position-conflict', 'node', node.id, 'heightAboveFloor', `node "${node.label ?? node.id}" has a height above floor but no floor`);
+    }
+    if (node.elevation !== undefined) {
+      elevationM[i] = L(node.elevation);
+      placed[i] = 1;
+    } else if (node.floor !== undefined) {
+      const floorZ = floorElevationM.get(node.floor);
+      if (floorZ === undefined) throw inputError('unknown-floor', 'node', node.id, 'floor', `floor "${node.floor}" is not in the system's floors`);
+      elevationM[i] = floorZ + L(node.heightAboveFloor ?? 0);
+      placed[i] = 1;
+    } else {
+      elevationM[i] = Number.NaN;
+    }
     continuousM3s[i] = node.continuousDemand !== undefined ? Q(node.continuousDemand) : 0;
     const groups: SiFixtureGroup[] = node.fixtureGroups.length === 0 ? NO_GROUPS : [];
     for (const g of node.fixtureGroups) {
@@ -321,6 +489,18 @@ export function buildModel(doc: SystemDocument): SiModel {
   // Segments
   const segIndex = new Map<string, number>();
   const segments: SiSegment[] = [];
+  const pipeMissing: number[] = [];
+  const checkRiseAgainstPosition = (seg: SystemDocument['segments'][number], to: number): void => {
+    if (seg.rise === undefined || placed[to] === 0) return;
+    const toNode = doc.nodes[to];
+    throw new EngineInputError({
+      code: 'rise-and-elevation',
+      elementType: 'segment',
+      elementId: seg.id,
+      field: 'rise',
+      message: `segment "${seg.label ?? seg.id}" has a rise and its downstream node "${toNode.label ?? toNode.id}" has ${toNode.floor !== undefined ? 'a floor' : 'an elevation'}: keep one (a rise places a node that has neither)`,
+    });
+  };
   // Catalog pipe data by material, then size: looked up once per pair in this analysis.
   const pipeByMaterial = new Map<string, Map<string, PipeData>>();
   for (let s = 0; s < doc.segments.length; s++) {
@@ -344,11 +524,12 @@ export function buildModel(doc: SystemDocument): SiModel {
         nominalSizeIn: innerDiameterM / 0.0254,
         nominalSizeKey: '',
       };
+    } else if (seg.material === undefined || seg.size === undefined) {
+      // Not described yet: the verdict is incomplete (report.ts) and, to compute at all, the pipe
+      // of the segment feeding it stands in (borrowPipes, after the topology), as the reason says.
+      pipe = PLACEHOLDER_PIPE;
+      pipeMissing.push(segments.length);
     } else {
-      if (seg.material === undefined) {
-        throw inputError('missing-field', 'segment', seg.id, 'material', 'give either material and size, or custom pipe data');
-      }
-      if (seg.size === undefined) throw inputError('missing-field', 'segment', seg.id, 'size', 'give the nominal size of the material');
       let bySize = pipeByMaterial.get(seg.material);
       const known = bySize?.get(seg.size);
       if (known !== undefined) {
@@ -378,6 +559,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       }
     }
     if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', seg.id, 'innerDiameter');
+    checkRiseAgainstPosition(seg, to);
     let customFittings: (SiCustomFitting | null)[] | null = null;
     for (let i = 0; i < seg.fittings.length; i++) {
       const f = seg.fittings[i];
@@ -406,6 +588,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       nominalSizeKey: pipe.nominalSizeKey,
       lengthM: L(seg.length),
       riseEnteredM: seg.rise !== undefined ? L(seg.rise) : null,
+      materialId: seg.custom || seg.size === undefined ? null : seg.material ?? null,
       fittings: seg.fittings,
       customFittings,
       flowOverrideM3s: seg.flowOverride !== undefined ? Q(seg.flowOverride) : null,
@@ -423,6 +606,23 @@ export function buildModel(doc: SystemDocument): SiModel {
     if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
     if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
     if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
+    const b = d.boost;
+    let boost: SiBoost | null = null;
+    if (b) {
+      if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
+      else if (b.control === 'constant-speed') {
+        if (b.shutoffGain < b.designGain) {
+          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
+        }
+        boost = {
+          control: 'constant-speed',
+          designPa: P(b.designGain),
+          shutoffPa: P(b.shutoffGain),
+          designFlowM3s: b.designFlow !== undefined ? Q(b.designFlow) : null,
+          assumed: false,
+        };
+      } else boost = { control: 'variable-speed', setPa: P(b.setPressure) };
+    }
     if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
     devicesBySeg[segIdx].push({
       id: d.id,
@@ -432,7 +632,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
       curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
       prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
-      boostPa: d.boost ? P(d.boost.gain) : 0,
+      boost,
     });
   }
 
@@ -450,11 +650,11 @@ export function buildModel(doc: SystemDocument): SiModel {
     service: doc.service,
     water,
     criteria,
-    riseToleranceM,
     nodeIds,
     nodeLabels,
     nodeIndex,
     elevationM,
+    placed,
     continuousM3s,
     groupsByNode,
     fixtures,
@@ -462,6 +662,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     segIndex,
     devicesBySeg,
     projectData,
+    pipeMissing,
     source: {
       nodeIdx: sourceIdx,
       kind: doc.source.kind,

@@ -11,6 +11,9 @@ import type { DemandResult } from './demand';
 import type { HydraulicsResult } from './hydraulics';
 import type { ChecksResult } from './checks';
 import { assertFiniteDeep } from './finite';
+import type { ElevationResult } from './elevations';
+import type { StaticChecksResult } from './staticChecks';
+import { formatPressure, nodeName, plural, segmentName } from './names';
 import type {
   Analysis,
   IncompleteReason,
@@ -23,7 +26,8 @@ import type {
   SourceResult,
 } from './types';
 
-export const ENGINE_VERSION = '0.1.0';
+/** 0.2.0: document version 2 (positions, boosters by curve), incomplete reasons, worst-case static checks. */
+export const ENGINE_VERSION = '0.2.0';
 
 const FITTING_METHOD_LABELS: Record<string, MethodUsed> = {
   crane: {
@@ -53,43 +57,147 @@ const FITTING_METHOD_LABELS: Record<string, MethodUsed> = {
  * description and every check is met. Incomplete wins over fail: a failing number computed from
  * an incomplete description is not yet a finding.
  */
-function verdictOfChecks(model: SiModel, checks: ChecksResult): Analysis['verdict'] {
-  const incomplete = incompleteReasons(model, checks);
+function verdictOfChecks(model: SiModel, topo: Topology, checks: ChecksResult, elev: ElevationResult, stat: StaticChecksResult): Analysis['verdict'] {
+  const incomplete = incompleteReasons(model, topo, checks, elev);
   const allFixturesPass = checks.fixtures.every((c) => c.pass);
   const allVelocitiesPass = checks.velocityPass.every((v) => v !== false);
-  const allStaticPass = checks.nodeStaticPass.every((v) => v !== false);
-  const status = incomplete.length > 0 ? 'incomplete' : checks.failures > 0 ? 'fail' : 'pass';
-  return { status, incomplete, allFixturesPass, allVelocitiesPass, allStaticPass, failures: checks.failures };
+  const allStaticPass = checks.nodeStaticPass.every((v) => v !== false) && stat.pipeRatingsPass && stat.minStaticPass;
+  const failures = checks.failures + stat.failures;
+  const status = incomplete.length > 0 ? 'incomplete' : failures > 0 ? 'fail' : 'pass';
+  return { status, incomplete, allFixturesPass, allVelocitiesPass, allStaticPass, failures };
 }
 
-function incompleteReasons(model: SiModel, checks: ChecksResult): IncompleteReason[] {
+/** At most this many reasons of one code are listed one by one; the rest are counted in one more. */
+const MAX_REASONS_PER_CODE = 50;
+
+/**
+ * Why the verdict cannot be pass or fail yet. Each reason names the element by the label the user
+ * typed (or a plain description) and says what to enter. The codes:
+ *   no-checked-fixtures      — nothing is compared with a minimum flow pressure;
+ *   source-pressure-missing  — the supply static pressure (low or high) is zero or not entered;
+ *   source-basis-missing     — where the supply pressure comes from is not stated;
+ *   fixture-unreachable      — a checked fixture's node is not connected to the source;
+ *   part-unreachable         — other nodes or segments are not connected to the source;
+ *   source-elevation-missing — the source node has neither an elevation nor a floor;
+ *   node-elevation-missing   — a node has no elevation, no floor and no rise on its feed segment;
+ *   segment-pipe-missing     — a segment has neither material and size nor custom pipe data.
+ * Values the engine had to assume (each also a reason, so the verdict is never green on them):
+ *   - a node without a position is computed at its upstream node's elevation (a level run);
+ *   - a source without a position is computed at elevation 0;
+ *   - a segment without a pipe is computed with the pipe feeding it (3/4 in type L copper at the source);
+ *   - booster-shutoff-missing: a booster given by one gain (version 1) is computed with a flat
+ *     curve, shutoff gain = design gain, which may understate the static pressure at no flow.
+ */
+function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult, elev: ElevationResult): IncompleteReason[] {
   const reasons: IncompleteReason[] = [];
   const src = model.doc.source;
+  const sys = model.unitSystem;
+  const counted = new Map<string, number>();
+  const add = (r: IncompleteReason): void => {
+    const n = (counted.get(r.code) ?? 0) + 1;
+    counted.set(r.code, n);
+    if (n <= MAX_REASONS_PER_CODE) reasons.push(r);
+  };
   if (checks.fixtures.length === 0) {
-    reasons.push({
+    add({
       code: 'no-checked-fixtures',
       elementType: 'system',
       elementId: null,
+      elementLabel: model.doc.name,
       message: 'No checked fixture: add at least the fixture you expect to be the most hydraulically remote.',
     });
   }
   if (!(src.staticPressureLow > 0) || !(src.staticPressureHigh > 0)) {
-    reasons.push({
+    add({
       code: 'source-pressure-missing',
       elementType: 'source',
       elementId: src.nodeId,
-      message: 'The supply static pressure (low and high) is not entered.',
+      elementLabel: 'the source',
+      message: `The supply static pressure is not entered (low ${formatPressure(model.source.staticLowPa, sys)}, high ${formatPressure(model.source.staticHighPa, sys)}): enter both from the utility or a gauge reading.`,
     });
   }
   if (src.pressureBasis.trim() === '' || /^not entered/i.test(src.pressureBasis.trim())) {
-    reasons.push({
+    add({
       code: 'source-basis-missing',
       elementType: 'source',
       elementId: src.nodeId,
+      elementLabel: 'the source',
       message: 'Where the supply pressure comes from (utility letter, flow test, gauge reading) is not stated.',
     });
   }
+  if (elev.sourceMissing) {
+    add({
+      code: 'source-elevation-missing',
+      elementType: 'node',
+      elementId: src.nodeId,
+      elementLabel: nodeName(model, model.source.nodeIdx),
+      message: 'The source connection has no elevation or floor: enter its elevation (the datum of the building). It was computed at elevation 0.',
+    });
+  }
+  if (topo.unreachedNodes.length > 0) {
+    const unreached = new Uint8Array(model.nodeIds.length);
+    for (const n of topo.unreachedNodes) unreached[n] = 1;
+    for (const fx of model.fixtures) {
+      if (!unreached[fx.nodeIdx]) continue;
+      add({
+        code: 'fixture-unreachable',
+        elementType: 'checked-fixture',
+        elementId: fx.id,
+        elementLabel: fx.label,
+        message: `The checked fixture "${fx.label}" is not connected to the source: connect ${nodeName(model, fx.nodeIdx)} with a segment.`,
+      });
+    }
+  }
+  if (topo.unreachedNodes.length > 0 || topo.unreachedSegments.length > 0) {
+    const first = topo.unreachedNodes[0];
+    add({
+      code: 'part-unreachable',
+      elementType: first !== undefined ? 'node' : 'segment',
+      elementId: first !== undefined ? model.nodeIds[first] : model.segments[topo.unreachedSegments[0]].id,
+      elementLabel: first !== undefined ? nodeName(model, first) : segmentName(model, topo.unreachedSegments[0]),
+      message: `${plural(topo.unreachedNodes.length, 'node')} and ${plural(topo.unreachedSegments.length, 'segment')} are not connected to the source${first !== undefined ? `, starting with ${nodeName(model, first)}` : ''}: connect them or remove them.`,
+    });
+  }
+  for (const { nodeIdx, segIdx } of elev.missing) {
+    add({
+      code: 'node-elevation-missing',
+      elementType: 'node',
+      elementId: model.nodeIds[nodeIdx],
+      elementLabel: nodeName(model, nodeIdx),
+      message: `${capitalise(nodeName(model, nodeIdx))} has no elevation: enter the rise of ${segmentName(model, segIdx)} (0 for a level run), or the node's elevation or floor. It was computed level with ${nodeName(model, model.segments[segIdx].from)}.`,
+    });
+  }
+  for (const s of model.pipeMissing) {
+    add({
+      code: 'segment-pipe-missing',
+      elementType: 'segment',
+      elementId: model.segments[s].id,
+      elementLabel: segmentName(model, s),
+      message: `${capitalise(segmentName(model, s))} has no material and size: choose them (or enter custom pipe data). It was computed with the pipe feeding it.`,
+    });
+  }
+  for (const devs of model.devicesBySeg) {
+    for (const d of devs) {
+      if (d.boost?.control !== 'constant-speed' || !d.boost.assumed) continue;
+      add({
+        code: 'booster-shutoff-missing',
+        elementType: 'device',
+        elementId: d.id,
+        elementLabel: d.label,
+        message: `The booster "${d.label}" is described by one gain (${formatPressure(d.boost.designPa, sys)}): enter its control and, for a constant-speed pump, its shutoff gain from the pump curve. The static check assumed no rise at shutoff.`,
+      });
+    }
+  }
+  for (const [code, n] of counted) {
+    if (n > MAX_REASONS_PER_CODE) {
+      reasons.push({ code, elementType: 'system', elementId: null, message: `…and ${n - MAX_REASONS_PER_CODE} more of the same kind.` });
+    }
+  }
   return reasons;
+}
+
+function capitalise(text: string): string {
+  return text.length > 0 && text[0] !== '"' ? text[0].toUpperCase() + text.slice(1) : text;
 }
 
 export function assembleReport(
@@ -98,6 +206,8 @@ export function assembleReport(
   demand: DemandResult,
   hyd: HydraulicsResult,
   checks: ChecksResult,
+  elev: ElevationResult,
+  stat: StaticChecksResult,
   warnings: EngineWarning[],
 ): Analysis {
   const { si, display } = buildResults(model, topo, demand, hyd, checks);
@@ -130,7 +240,7 @@ export function assembleReport(
     },
     ...display,
     criticalFixtureId: checks.criticalIndex === -1 ? null : model.fixtures[checks.criticalIndex].id,
-    verdict: verdictOfChecks(model, checks),
+    verdict: verdictOfChecks(model, topo, checks, elev, stat),
     methods: {
       friction: { id: friction.id, label: friction.label, source: friction.source },
       fittings: FITTING_METHOD_LABELS[criteria.fittingMethod],
@@ -151,7 +261,11 @@ export function assembleReport(
         label: 'Density IAPWS-95 at 1 atm; viscosity IAPWS 2008 (industrial)',
         source: 'IAPWS R6-95(2018); IAPWS R12-08',
       },
-      elevation: { id: 'rho-g-dz', label: 'Δp = ρ(T)·g·Δz, node elevations', source: 'hydrostatics; g = 9.80665 m/s² (CGPM 1901)' },
+      elevation: {
+        id: 'rho-g-dz',
+        label: 'Δp = ρ(T)·g·Δz; each node at its elevation, its floor plus height, or its feed segment’s typed rise',
+        source: 'hydrostatics; g = 9.80665 m/s² (CGPM 1901)',
+      },
       supply:
         hyd.source.basis === 'flow-test'
           ? { id: 'nfpa-291', label: 'P(Q) = Ps − (Ps − Pr)·(Q/Qf)^1.85', source: 'NFPA 291, Recommended Practice for Water Flow Testing' }
@@ -175,8 +289,8 @@ export function assembleReport(
       demandMethod: criteria.demandMethod,
       frictionMethod: criteria.frictionMethod,
       fittingMethod: criteria.fittingMethod,
-      riseTolerance: fromSI('length', model.riseToleranceM, sys),
     },
+    staticChecks: stat.display,
     warnings,
     si,
   };

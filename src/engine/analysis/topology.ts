@@ -3,6 +3,11 @@
  * running from upstream (`from`) to downstream (`to`). Produces parent pointers and one
  * breadth-first order of the segments (every segment after the one feeding it), so that the
  * later stages are single linear passes: forward for pressures, backward for demand.
+ *
+ * A loop is an error (the analysis is for trees). Parts of the tree that do not reach the source
+ * (a segment whose upstream end has no feed, a node no segment reaches) are not errors: they are
+ * left out of `order` and listed, and the verdict is incomplete (report.ts) — a drawing in
+ * progress is described, not wrong.
  */
 import { inputError } from '../errors';
 import type { SiModel } from './input';
@@ -10,8 +15,12 @@ import type { SiModel } from './input';
 export interface Topology {
   /** Segment index feeding each node; −1 for the source (and only the source). */
   feedSeg: Int32Array;
-  /** Segment indices, each after the segment feeding its upstream node. */
+  /** Segment indices reached from the source, each after the segment feeding its upstream node. */
   order: Int32Array;
+  /** Nodes not reached from the source (no chain of segments from it), in document order. */
+  unreachedNodes: number[];
+  /** Segments not reached from the source, in document order. */
+  unreachedSegments: number[];
   /** Segment index feeding each segment's upstream node; −1 for segments leaving the source. */
   parentSeg: Int32Array;
 }
@@ -62,6 +71,7 @@ export function buildTopology(model: SiModel): Topology {
     for (let c = childStart[to]; c < childStart[to + 1]; c++) order[tail++] = children[c];
   }
 
+  const unreachedSegments: number[] = [];
   if (tail < nSegs) {
     // Some segments were not reached: each node has one feed at most, so walking up the feeds
     // from an unreached segment either closes a loop (a cycle) or stops at a node with no feed.
@@ -78,20 +88,13 @@ export function buildTopology(model: SiModel): Topology {
       if (seen.has(node)) {
         throw inputError('cycle', 'segment', segs[feedSeg[node]].id, null, `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`);
       }
-      throw inputError(
-        'disconnected-segment',
-        'segment',
-        segs[s].id,
-        'from',
-        `segment cannot be reached from the source node "${model.nodeIds[source]}" (its upstream end "${model.nodeIds[node]}" has no feed)`,
-      );
+      unreachedSegments.push(s);
     }
   }
-  for (let i = 0; i < nNodes; i++) {
-    if (!reached[i]) throw inputError('disconnected-node', 'node', model.nodeIds[i], null);
-  }
+  const unreachedNodes: number[] = [];
+  for (let i = 0; i < nNodes; i++) if (!reached[i]) unreachedNodes.push(i);
 
   const parentSeg = new Int32Array(nSegs);
   for (let s = 0; s < nSegs; s++) parentSeg[s] = feedSeg[segs[s].from];
-  return { feedSeg, order, parentSeg };
+  return { feedSeg, order: tail < nSegs ? order.slice(0, tail) : order, parentSeg, unreachedNodes, unreachedSegments };
 }

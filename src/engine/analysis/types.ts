@@ -109,12 +109,45 @@ export interface IncompleteReason {
   code: string;
   elementType: 'system' | 'source' | 'device' | 'node' | 'segment' | 'fixture-group' | 'checked-fixture' | 'fitting';
   elementId: string | null;
+  /** The name the user typed for the element, or a plain description (absent in analyses stored before it existed). */
+  elementLabel?: string;
   /** Plain words, in the document's units, naming elements by the labels the user typed. */
   message: string;
 }
 
 /** pass: every checked fixture computed from a complete description and every check met; fail: a check is not met; incomplete: see the reasons. */
 export type VerdictStatus = 'pass' | 'fail' | 'incomplete';
+
+/**
+ * Worst-case static pressure results (analysis/staticChecks.ts), in the document's units.
+ * boosters: gains counted; prvFailOpen: per PRV, what its failing open would do downstream;
+ * pipeRatings: per catalog material and size, the segment with the highest static pressure against
+ * the published rating; minStaticAtHighestFixture: null when the criteria set no minimum.
+ */
+export interface StaticChecks {
+  boosters: { deviceId: string; label: string; control: 'constant-speed' | 'variable-speed'; designGain: number; shutoffGain: number; assumed: boolean }[];
+  prvFailOpen: {
+    deviceId: string;
+    label: string;
+    nodesOverMax: number;
+    worstNodeId: string | null;
+    worstNodeLabel: string | null;
+    worstStatic: number;
+    maxStaticPressure: number;
+    excess: number;
+  }[];
+  pipeRatings: {
+    segmentId: string;
+    label: string;
+    materialLabel: string;
+    ratingPressure: number;
+    highestStatic: number;
+    pass: boolean;
+    source: string;
+    verified: boolean;
+  }[];
+  minStaticAtHighestFixture: { fixtureId: string; label: string; staticLow: number; minimum: number; pass: boolean } | null;
+}
 
 export interface MethodUsed {
   id: string;
@@ -176,8 +209,9 @@ export interface Analysis extends AnalysisResults {
     demandMethod: string;
     frictionMethod: string;
     fittingMethod: string;
-    riseTolerance: number;
   };
+  /** Worst-case static pressure: boosters at no flow, PRVs failing open, pipe ratings, minimum static at the highest fixture. */
+  staticChecks: StaticChecks;
   warnings: EngineWarning[];
   /** The same results in SI base units: Pa, m, m³/s, m/s. */
   si: AnalysisResults;

@@ -65,19 +65,15 @@ function readCurve(curve: Curve, tF: number): Reading | null {
 
 // ---------------------------------------------------------------- CPVC SDR 11 (ASTM D2846)
 
-// Charlotte Pipe, FlowGuard Gold CPVC CTS SDR 11 pressure rating chart (manufacturer), all sizes:
-// 73 °F 400; 80 °F 328; 120 °F 260; 140 °F 200; 180 °F 100 psi. The 73 °F and 180 °F ends agree with
-// GF Harvel's HydroKing CTS specification (400 psi at 73 °F, 100 psi at 180 °F; manufacturer), and
+// Charlotte Pipe and Foundry, How-to Guide (manufacturer), "Temperature De-Rating for ASTM D 2846 CTS
+// CPVC SDR 11 Piping Systems", all sizes: 73 °F 400, 80 °F 400, 90 °F 360, 100 °F 325, 120 °F 260,
+// 140 °F 200, 160 °F 160, 180 °F 100 psi (factors 1.00, 1.00, 0.91, 0.82, 0.65, 0.50, 0.40, 0.25 of
+// the 400 psi rating at 73 °F). The same factors are GF Harvel's CPVC temperature de-rating table, and
+// GF Harvel's HydroKing CTS specification gives the two ends (400 psi at 73 °F, 100 psi at 180 °F);
 // 180 °F is the continuous-use limit in ASTM D2846's scope.
-const CPVC_SDR11: Curve = [[73, 400], [80, 328], [120, 260], [140, 200], [180, 100]];
+const CPVC_SDR11: Curve = [[73, 400], [80, 400], [90, 360], [100, 325], [120, 260], [140, 200], [160, 160], [180, 100]];
 const CPVC_SOURCE =
-  'CPVC CTS SDR 11 (ASTM D2846): Charlotte Pipe FlowGuard Gold pressure rating chart (manufacturer; 73 °F 400, 80 °F 328, 120 °F 260, 140 °F 200, 180 °F 100 psi), ends confirmed by the GF Harvel HydroKing CTS specification; 180 °F is the D2846 continuous-use limit';
-// The 328 psi point is printed against 80 °F in the retrieved chart. The usual CPVC derating factor
-// 0.82 (= 328/400) belongs to 100 °F (from memory, unverified), so the row label is in doubt. Reading
-// it at 80 °F gives the lower (conservative) rating between 73 and 120 °F, but the value there is
-// flagged as not verified.
-const CPVC_DOUBTFUL_BELOW_F = 120;
-const CPVC_DOUBT = `between 73 and 120 °F: the 328 psi row is printed against 80 °F in the chart as retrieved, while the usual derating factor 0.82 belongs to 100 °F; the lower (80 °F) reading is used, ${NOT_VERIFIED}`;
+  'CPVC CTS SDR 11 (ASTM D2846): Charlotte Pipe How-to Guide (manufacturer), "Temperature De-Rating for ASTM D 2846 CTS CPVC SDR 11 Piping Systems" (73 °F 400, 80 °F 400, 90 °F 360, 100 °F 325, 120 °F 260, 140 °F 200, 160 °F 160, 180 °F 100 psi), factors as GF Harvel\'s CPVC de-rating table; 180 °F is the D2846 continuous-use limit';
 
 // ---------------------------------------------------------------- PEX SDR 9 (ASTM F876)
 
@@ -160,7 +156,6 @@ function copperRating(type: 'K' | 'L' | 'M', sizeKey: string, tF: number): Press
 /** Every published table behind pressureRating, with its verification status (for unverifiedSources()). */
 export const PRESSURE_RATING_SOURCES: readonly { id: string; label: string; source: string; verified: boolean }[] = Object.freeze([
   { id: 'cpvc-sdr11', label: 'CPVC SDR 11 pressure rating', source: CPVC_SOURCE, verified: true },
-  { id: 'cpvc-sdr11-73-120F', label: 'CPVC SDR 11 pressure rating, 73–120 °F', source: `${CPVC_SOURCE} (${CPVC_DOUBT})`, verified: false },
   { id: 'pex-sdr9', label: 'PEX SDR 9 pressure rating', source: PEX_SOURCE, verified: false },
   { id: 'copper-type-m-drawn', label: 'Copper Type M drawn tube rating', source: TYPE_M_SOURCE, verified: true },
   { id: 'copper-joint-95-5', label: 'Soldered copper joint rating', source: JOINT_SOURCE, verified: true },
@@ -203,10 +198,8 @@ export function pressureRating(
   if (!Number.isFinite(temperatureC)) return null;
   const tF = celsiusToFahrenheit(temperatureC);
   switch (materialId) {
-    case 'cpvc-sdr11': {
-      const doubtful = tF > 73 && tF < CPVC_DOUBTFUL_BELOW_F;
-      return curveRating(CPVC_SDR11, doubtful ? `${CPVC_SOURCE} (${CPVC_DOUBT})` : CPVC_SOURCE, tF, !doubtful);
-    }
+    case 'cpvc-sdr11':
+      return curveRating(CPVC_SDR11, CPVC_SOURCE, tF, true);
     case 'pex-sdr9':
       return curveRating(PEX_SDR9, PEX_SOURCE, tF, false);
     case 'copper-k':

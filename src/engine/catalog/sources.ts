@@ -13,6 +13,8 @@ import { NOT_VERIFIED } from './notVerified';
 import { FITTING_TYPES } from '../fittings/types';
 import { HUNTER_TABLE_IPC_SOURCE, HUNTER_TABLE_IPC_VERIFIED } from '../demand/hunterTable';
 import { FRICTION_METHODS } from '../friction/registry';
+import { FITTING_METHODS } from '../fittings/methods';
+import { DEMAND_METHODS } from '../demand/methods';
 
 export { NOT_VERIFIED };
 
@@ -23,6 +25,8 @@ export type SourceKind =
   | 'device-template'
   | 'demand-table'
   | 'friction-method'
+  | 'fitting-method'
+  | 'demand-method'
   | 'criteria'
   | 'pressure-rating';
 
@@ -71,6 +75,12 @@ export function shippedSources(): ShippedSource[] {
   });
   for (const m of Object.values(FRICTION_METHODS)) {
     out.push({ kind: 'friction-method', id: m.id, field: 'source', label: m.label, source: m.source, verified: isVerifiedSource(m.source) });
+  }
+  for (const m of Object.values(FITTING_METHODS)) {
+    out.push({ kind: 'fitting-method', id: m.id, field: 'source', label: m.label, source: m.source, verified: m.verified });
+  }
+  for (const m of Object.values(DEMAND_METHODS)) {
+    out.push({ kind: 'demand-method', id: m.id, field: 'source', label: m.label, source: m.source, verified: m.verified });
   }
   for (const [key, source] of Object.entries(CRITERIA_SOURCES)) {
     out.push({ kind: 'criteria', id: key, field: 'default', label: key, source, verified: isVerifiedSource(source) });

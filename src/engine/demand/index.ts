@@ -4,3 +4,5 @@ export { hunterDesignFlowGpm, hunterDesignFlow } from './hunterDesignFlow';
 export type { DemandCurve, HunterDesignFlowGpm } from './hunterDesignFlow';
 export { hunterBinomialDemand } from './hunterBinomial';
 export type { FixtureUseGroup } from './hunterBinomial';
+export { DEMAND_METHODS } from './methods';
+export type { DemandMethod, DemandMethodInfo } from './methods';

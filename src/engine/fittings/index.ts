@@ -15,3 +15,5 @@ export { FITTING_TYPES } from './types';
 export type { FittingTypeId, FittingTypeEntry } from './types';
 export { fittingK } from './fittingK';
 export type { FittingMethod, FittingContext, FittingKResult } from './fittingK';
+export { FITTING_METHODS } from './methods';
+export type { FittingMethodInfo } from './methods';

@@ -7,12 +7,15 @@
  * `SystemDocumentSchema.parse` would return, or `undefined` — and then the caller runs zod, which
  * decides and words the error report. It declines (returns `undefined`) on everything invalid and
  * also on a few valid rarities it does not follow zod into: objects that are not plain JSON-like
- * objects (class instances and other non-plain prototypes), strings over 200 UTF-16 units (zod counts code
- * points there), and a "__proto__" key in the minimum-flow-pressure record. A committed property
+ * objects (class instances and other non-plain prototypes), strings longer in UTF-16 units than
+ * their bound (DOCUMENT_BOUNDS; zod counts code points there), and a "__proto__" key in the
+ * minimum-flow-pressure record. Lists longer than their bound are declined (zod words the error). A committed property
  * test (tests/engine/model/fastParse.test.ts) compares the two on generated valid and invalid
  * documents.
  */
 import type {
+  Boost,
+  Floor,
   CheckedFixture,
   CriteriaOverrides,
   Device,
@@ -24,14 +27,12 @@ import type {
   SystemDocument,
   SystemNode,
 } from './schema';
-import { SCHEMA_VERSION } from './schema';
+import { DOCUMENT_BOUNDS as B, SCHEMA_VERSION } from './schema';
 
 /** Thrown inside the reader when the input is not one it accepts; caught at its entry. */
 class Declined {}
 const DECLINED = Object.freeze(new Declined());
 
-/** `id()` of schema.ts is z.string().min(1).max(200); above 200 units zod counts code points. */
-const ID_MAX_UNITS = 200;
 
 type Obj = Record<string, unknown>;
 
@@ -46,8 +47,8 @@ function obj(v: unknown): Obj {
   return v as Obj;
 }
 
-function arr(v: unknown): unknown[] {
-  if (!Array.isArray(v)) decline();
+function arr(v: unknown, max: number): unknown[] {
+  if (!Array.isArray(v) || v.length > max) decline();
   return v;
 }
 
@@ -78,18 +79,28 @@ function positiveInt(v: unknown): number {
   if (!Number.isSafeInteger(v) || !((v as number) > 0)) decline();
   return v as number;
 }
-function str(v: unknown): string {
-  if (typeof v !== 'string') decline();
+/** A string of at least `min` and at most `max` UTF-16 units (over `max` units zod may still accept: declined). */
+function bounded(v: unknown, min: number, max: number): string {
+  if (typeof v !== 'string' || v.length < min || v.length > max) decline();
   return v;
 }
-function nonEmpty(v: unknown): string {
-  if (str(v).length < 1) decline();
-  return v as string;
-}
 function id(v: unknown): string {
-  const s = str(v);
-  if (s.length < 1 || s.length > ID_MAX_UNITS) decline();
-  return s;
+  return bounded(v, 1, B.idLength);
+}
+function label(v: unknown): string {
+  return bounded(v, 0, B.labelLength);
+}
+function labelNonEmpty(v: unknown): string {
+  return bounded(v, 1, B.labelLength);
+}
+function sourceText(v: unknown): string {
+  return bounded(v, 1, B.sourceLength);
+}
+function date(v: unknown): string {
+  return bounded(v, 0, B.dateLength);
+}
+function notes(v: unknown): string {
+  return bounded(v, 0, B.notesLength);
 }
 function bool(v: unknown): boolean {
   if (typeof v !== 'boolean') decline();
@@ -111,17 +122,17 @@ function optional<T>(from: Obj, to: Obj, key: string, read: (v: unknown) => T): 
   return 1;
 }
 
-function list<T>(v: unknown, item: (x: unknown) => T): T[] {
-  const a = arr(v);
+function list<T>(v: unknown, item: (x: unknown) => T, max: number): T[] {
+  const a = arr(v, max);
   const out: T[] = new Array(a.length);
   for (let i = 0; i < a.length; i++) out[i] = item(a[i]);
   return out;
 }
 
 /** A field with `.default(fallback)`: undefined → fallback. */
-function listOrEmpty<T>(from: Obj, key: string, item: (x: unknown) => T): [T[], number] {
+function listOrEmpty<T>(from: Obj, key: string, item: (x: unknown) => T, max: number): [T[], number] {
   const v = from[key];
-  return [v === undefined ? [] : list(v, item), key in from ? 1 : 0];
+  return [v === undefined ? [] : list(v, item, max), key in from ? 1 : 0];
 }
 
 // The enumerations and lists of schema.ts, as named readers (no closure per call).
@@ -132,7 +143,7 @@ function wsfuBasis(x: unknown) {
   return oneOf(x, 'cold', 'hot', 'total');
 }
 function velocityLimits(x: unknown) {
-  return list(x, velocityLimit);
+  return list(x, velocityLimit, B.velocityLimits);
 }
 function demandCurveChoice(x: unknown) {
   return oneOf(x, 'auto', 'flush-tank', 'flush-valve');
@@ -150,7 +161,7 @@ function fittingMethod(x: unknown) {
 function flowTest(v: unknown): NonNullable<Source['flowTest']> {
   const o = obj(v);
   const out: Obj = { staticPressure: positive(o.staticPressure), residualPressure: nonNegative(o.residualPressure), flow: positive(o.flow) };
-  strictKeys(o, 3 + optional(o, out, 'date', str));
+  strictKeys(o, 3 + optional(o, out, 'date', date));
   return out as NonNullable<Source['flowTest']>;
 }
 
@@ -161,10 +172,10 @@ function source(v: unknown): Source {
     nodeId: id(o.nodeId),
     staticPressureLow: nonNegative(o.staticPressureLow),
     staticPressureHigh: nonNegative(o.staticPressureHigh),
-    pressureBasis: nonEmpty(o.pressureBasis),
+    pressureBasis: sourceText(o.pressureBasis),
   };
   let known = 5;
-  known += optional(o, out, 'pressureDate', str);
+  known += optional(o, out, 'pressureDate', date);
   known += optional(o, out, 'flowTest', flowTest);
   strictKeys(o, known);
   return out as Source;
@@ -185,7 +196,7 @@ function deviceLoss(v: unknown): DeviceLoss {
     return out;
   }
   if (o.kind === 'curve') {
-    const points = list(o.points, curvePoint);
+    const points = list(o.points, curvePoint, B.curvePoints);
     if (points.length < 1) decline();
     strictKeys(o, 2);
     return { kind: 'curve', points };
@@ -201,8 +212,22 @@ function prv(v: unknown): NonNullable<Device['prv']> {
   return out;
 }
 
-function boost(v: unknown): NonNullable<Device['boost']> {
+/** The union of schema.ts BoostSchema: constant speed, variable speed, or version 1's { gain }. */
+function boost(v: unknown): Boost {
   const o = obj(v);
+  if ('control' in o) {
+    if (o.control === 'constant-speed') {
+      const out: Obj = { control: 'constant-speed', designGain: nonNegative(o.designGain), shutoffGain: nonNegative(o.shutoffGain) };
+      strictKeys(o, 3 + optional(o, out, 'designFlow', positive));
+      return out as Boost;
+    }
+    if (o.control === 'variable-speed') {
+      const out = { control: 'variable-speed' as const, setPressure: positive(o.setPressure) };
+      strictKeys(o, 2);
+      return out;
+    }
+    return decline();
+  }
   const out = { gain: nonNegative(o.gain) };
   strictKeys(o, 1);
   return out;
@@ -213,7 +238,7 @@ function device(v: unknown): Device {
   const out: Obj = {
     id: id(o.id),
     kind: oneOf(o.kind, 'meter', 'backflow-preventer', 'prv', 'strainer', 'softener', 'filter', 'water-heater', 'booster-pump', 'other'),
-    label: nonEmpty(o.label),
+    label: labelNonEmpty(o.label),
     segmentId: id(o.segmentId),
     loss: deviceLoss(o.loss),
   };
@@ -237,14 +262,14 @@ function usage(v: unknown): NonNullable<FixtureGroup['usage']> {
 
 function customFixture(v: unknown): NonNullable<FixtureGroup['custom']> {
   const o = obj(v);
-  const out: Obj = { label: nonEmpty(o.label) };
+  const out: Obj = { label: labelNonEmpty(o.label) };
   let known = 1;
   known += optional(o, out, 'wsfuCold', nonNegative);
   known += optional(o, out, 'wsfuHot', nonNegative);
   out.wsfuTotal = nonNegative(o.wsfuTotal);
   known++;
   known += optional(o, out, 'flushValve', bool);
-  out.source = nonEmpty(o.source);
+  out.source = sourceText(o.source);
   known++;
   strictKeys(o, known);
   return out as NonNullable<FixtureGroup['custom']>;
@@ -266,7 +291,7 @@ function checkedFixture(v: unknown): CheckedFixture {
   const o = obj(v);
   const out: Obj = { id: id(o.id), fixtureTypeId: id(o.fixtureTypeId) };
   let known = 2;
-  known += optional(o, out, 'label', str);
+  known += optional(o, out, 'label', label);
   known += optional(o, out, 'minFlowPressure', nonNegative);
   known += optional(o, out, 'flowRate', positive);
   known += optional(o, out, 'expectedCritical', bool);
@@ -274,18 +299,26 @@ function checkedFixture(v: unknown): CheckedFixture {
   return out as CheckedFixture;
 }
 
+function floor(v: unknown): Floor {
+  const o = obj(v);
+  const out = { id: id(o.id), name: labelNonEmpty(o.name), elevation: num(o.elevation) };
+  strictKeys(o, 3);
+  return out;
+}
+
 function node(v: unknown): SystemNode {
   const o = obj(v);
   const out: Obj = { id: id(o.id) };
   let known = 1;
-  known += optional(o, out, 'label', str);
-  out.elevation = num(o.elevation);
-  known++;
-  const [fixtureGroups, hasGroups] = listOrEmpty(o, 'fixtureGroups', fixtureGroup);
+  known += optional(o, out, 'label', label);
+  known += optional(o, out, 'elevation', num);
+  known += optional(o, out, 'floor', id);
+  known += optional(o, out, 'heightAboveFloor', num);
+  const [fixtureGroups, hasGroups] = listOrEmpty(o, 'fixtureGroups', fixtureGroup, B.fixtureGroupsPerNode);
   out.fixtureGroups = fixtureGroups;
   known += hasGroups;
   known += optional(o, out, 'continuousDemand', nonNegative);
-  const [checkedFixtures, hasChecked] = listOrEmpty(o, 'checkedFixtures', checkedFixture);
+  const [checkedFixtures, hasChecked] = listOrEmpty(o, 'checkedFixtures', checkedFixture, B.checkedFixturesPerNode);
   out.checkedFixtures = checkedFixtures;
   known += hasChecked;
   strictKeys(o, known);
@@ -295,10 +328,10 @@ function node(v: unknown): SystemNode {
 /** The union of schema.ts: exactly one of `k` or `equivalentLength` (both strict objects of three keys). */
 function customFitting(v: unknown): NonNullable<Fitting['custom']> {
   const o = obj(v);
-  const label = nonEmpty(o.label);
+  const name = labelNonEmpty(o.label);
   let out: NonNullable<Fitting['custom']>;
-  if ('k' in o) out = { label, k: nonNegative(o.k), source: nonEmpty(o.source) };
-  else if ('equivalentLength' in o) out = { label, equivalentLength: nonNegative(o.equivalentLength), source: nonEmpty(o.source) };
+  if ('k' in o) out = { label: name, k: nonNegative(o.k), source: sourceText(o.source) };
+  else if ('equivalentLength' in o) out = { label: name, equivalentLength: nonNegative(o.equivalentLength), source: sourceText(o.source) };
   else return decline();
   strictKeys(o, 3);
   return out;
@@ -327,17 +360,17 @@ function segment(v: unknown): Segment {
   const o = obj(v);
   const out: Obj = { id: id(o.id) };
   let known = 1;
-  known += optional(o, out, 'label', str);
+  known += optional(o, out, 'label', label);
   out.from = id(o.from);
   out.to = id(o.to);
   known += 2;
-  known += optional(o, out, 'material', nonEmpty);
-  known += optional(o, out, 'size', nonEmpty);
+  known += optional(o, out, 'material', id);
+  known += optional(o, out, 'size', id);
   known += optional(o, out, 'custom', customPipe);
   out.length = positive(o.length);
   known++;
   known += optional(o, out, 'rise', num);
-  const [fittings, hasFittings] = listOrEmpty(o, 'fittings', fitting);
+  const [fittings, hasFittings] = listOrEmpty(o, 'fittings', fitting, B.fittingsPerSegment);
   out.fittings = fittings;
   known += hasFittings;
   known += optional(o, out, 'flowOverride', nonNegative);
@@ -364,10 +397,14 @@ function pressureRecord(v: unknown): Record<string, number> {
   // zod reads a record's own keys (Reflect.ownKeys): decline any it would see and for-in would not.
   if (Object.getOwnPropertySymbols(o).length > 0 || Object.getOwnPropertyNames(o).length !== keyCount(o)) decline();
   const out: Record<string, number> = {};
+  let n = 0;
   for (const k in o) {
     if (k === '__proto__') decline();
+    id(k);
     out[k] = nonNegative(o[k]);
+    n++;
   }
+  if (n > B.minFlowPressures) decline();
   return out;
 }
 
@@ -383,7 +420,6 @@ function criteria(v: unknown): CriteriaOverrides {
   known += optional(o, out, 'demandMethod', demandMethod);
   known += optional(o, out, 'frictionMethod', frictionMethod);
   known += optional(o, out, 'fittingMethod', fittingMethod);
-  known += optional(o, out, 'riseTolerance', nonNegative);
   strictKeys(o, known);
   return out as CriteriaOverrides;
 }
@@ -394,23 +430,26 @@ function systemDocument(v: unknown): SystemDocument {
   const out: Obj = {
     schemaVersion: SCHEMA_VERSION,
     id: id(o.id),
-    name: nonEmpty(o.name),
+    name: labelNonEmpty(o.name),
     service: oneOf(o.service, 'cold', 'hot'),
     unitSystem: oneOf(o.unitSystem, 'US', 'SI'),
     waterTemperature: num(o.waterTemperature),
     source: source(o.source),
   };
   let known = 7;
-  const [devices, hasDevices] = listOrEmpty(o, 'devices', device);
+  const [devices, hasDevices] = listOrEmpty(o, 'devices', device, B.devices);
   out.devices = devices;
   known += hasDevices;
-  const nodes = list(o.nodes, node);
+  const [floors, hasFloors] = listOrEmpty(o, 'floors', floor, B.floors);
+  out.floors = floors;
+  known += hasFloors;
+  const nodes = list(o.nodes, node, B.nodes);
   if (nodes.length < 1) decline();
   out.nodes = nodes;
-  out.segments = list(o.segments, segment);
+  out.segments = list(o.segments, segment, B.segments);
   known += 2;
   known += optional(o, out, 'criteria', criteria);
-  known += optional(o, out, 'notes', str);
+  known += optional(o, out, 'notes', notes);
   strictKeys(o, known);
   return out as SystemDocument;
 }

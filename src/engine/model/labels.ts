@@ -6,7 +6,7 @@
  */
 import { FIXTURE_TYPES } from '../catalog/fixtures';
 import { FITTING_TYPES } from '../fittings/types';
-import type { Fitting, FixtureGroup } from './schema';
+import type { Boost, Fitting, FixtureGroup } from './schema';
 
 /** "90° standard elbow", or "Ball valve (project data, K 0.05)" / "Y-strainer (project data, equivalent length 4 ft)". */
 export function fittingLabel(f: Fitting, lengthUnit?: string): string {
@@ -27,4 +27,18 @@ export function fixtureGroupWsfu(g: FixtureGroup, basis: 'cold' | 'hot' | 'total
   if (g.custom) return (basis === 'cold' ? g.custom.wsfuCold : basis === 'hot' ? g.custom.wsfuHot : g.custom.wsfuTotal) ?? 0;
   const t = Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? FIXTURE_TYPES[g.fixtureTypeId] : undefined;
   return t ? (t.wsfu[basis] ?? null) : null;
+}
+
+/** A booster's gain at its design point (null for a variable-speed pump, which holds a discharge pressure). */
+export function boosterDesignGain(b: Boost): number | null {
+  if ('gain' in b) return b.gain;
+  return b.control === 'constant-speed' ? b.designGain : null;
+}
+
+/** A booster in words, in the document's pressure unit: "adds 30 psi", "adds 30 psi (42 psi at shutoff)", "holds 85 psi discharge". */
+export function boosterText(b: Boost, pressureUnit: string): string {
+  const n = (v: number) => String(Math.round(v * 100) / 100);
+  if ('gain' in b) return `adds ${n(b.gain)} ${pressureUnit} (shutoff not given)`;
+  if (b.control === 'constant-speed') return `adds ${n(b.designGain)} ${pressureUnit} (${n(b.shutoffGain)} ${pressureUnit} at shutoff)`;
+  return `holds ${n(b.setPressure)} ${pressureUnit} discharge`;
 }

@@ -13,12 +13,64 @@
  * Catalog references (material, size, fitting type, fixture type) are plain strings here and are
  * checked against the catalogs by the validation stage, so the format does not change when a
  * catalog grows. Objects are strict: an unknown key is an error, which catches misspelt fields.
+ *
+ * Version 2 (this file) holds one truth for elevations: a node is placed by an absolute
+ * `elevation`, or on a `floor` (plus `heightAboveFloor`), or by its feed segment's `rise`; never
+ * two of these at once. Version 1 documents are read through upgrade.ts (schemaV1.ts).
+ *
+ * Sizes are bounded (DOCUMENT_BOUNDS) so that a document no building needs is refused before it
+ * costs time; numbers have plausible ranges by unit system (limits.ts), checked by the engine's
+ * validation stage because the bounds depend on the document's unit system.
  */
 import { z } from 'zod';
 
-export const SCHEMA_VERSION = 1 as const;
+export const SCHEMA_VERSION = 2 as const;
 
-const id = () => z.string().min(1).max(200);
+/**
+ * Bounds on every list and string of a document. Reference: a 40-storey tower with about 12
+ * dwellings a floor has about 500 dwellings, 5,000 fixtures and, entered fixture by fixture, about
+ * 5,000 segments; 20,000 nodes and segments is four times that. Per-element lists (fixture groups
+ * at a node, fittings on a segment) are tens in practice; 100 each is headroom. Text fields are
+ * names (200 characters, two lines of a drawing title block), sources and bases (1,000: a
+ * citation with edition, table and row) and free notes (20,000).
+ */
+export const DOCUMENT_BOUNDS = Object.freeze({
+  nodes: 20000,
+  segments: 20000,
+  /** Meters, backflow preventers, PRVs, pumps, heaters: a tower has tens; one per segment of a large riser zone bank is far more. */
+  devices: 2000,
+  /** A 40-storey tower has about 45 levels with basements and plant; 500 covers mezzanines and several buildings on one service. */
+  floors: 500,
+  fixtureGroupsPerNode: 100,
+  checkedFixturesPerNode: 100,
+  fittingsPerSegment: 100,
+  /**
+   * A unit type is one apartment, room or restroom: 200 segments is several times the branch
+   * piping of the largest apartment or restroom core; 2,000 types and 20,000 placements cover a
+   * 40-storey tower of 20 units a floor many times over.
+   */
+  unitSegments: 200,
+  unitNodes: 201,
+  unitTypes: 2000,
+  placements: 20000,
+  /** A manufacturer's loss curve is read at 5–20 points. */
+  curvePoints: 100,
+  /** Three material classes × two services, with room for repeats. */
+  velocityLimits: 20,
+  /** One per fixture type of the catalogs (about 60) with project types. */
+  minFlowPressures: 500,
+  idLength: 200,
+  labelLength: 200,
+  sourceLength: 1000,
+  dateLength: 40,
+  notesLength: 20000,
+});
+
+const B = DOCUMENT_BOUNDS;
+const id = () => z.string().min(1).max(B.idLength);
+const label = () => z.string().max(B.labelLength);
+const sourceText = () => z.string().min(1).max(B.sourceLength);
+const date = () => z.string().max(B.dateLength);
 const finite = () => z.number();
 const nonNegative = () => z.number().nonnegative();
 const positive = () => z.number().positive();
@@ -33,20 +85,17 @@ export const FlowTestSchema = z
     staticPressure: positive().describe('Static pressure during the test (no flow), pressure unit.'),
     residualPressure: nonNegative().describe('Residual pressure while flowing the test flow, pressure unit.'),
     flow: positive().describe('Flow during the test, flow unit.'),
-    date: z.string().optional().describe('Date of the test (ISO 8601).'),
+    date: date().optional().describe('Date of the test (ISO 8601).'),
   })
   .describe('Hydrant flow test (NFPA 291) at the connection.');
 
 export const SourceSchema = z.strictObject({
   kind: z.enum(['utility-main', 'tank', 'booster-outlet']),
-  nodeId: id().describe('The node where the water enters; its elevation is the connection elevation.'),
+  nodeId: id().describe('The node where the water enters; its elevation (absolute or on a floor) is the connection elevation.'),
   staticPressureLow: nonNegative().describe('Lowest expected static pressure at the connection, pressure unit.'),
   staticPressureHigh: nonNegative().describe('Highest expected static pressure at the connection, pressure unit.'),
-  pressureBasis: z
-    .string()
-    .min(1)
-    .describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
-  pressureDate: z.string().optional().describe('Date of the pressure figures (ISO 8601).'),
+  pressureBasis: sourceText().describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
+  pressureDate: date().optional().describe('Date of the pressure figures (ISO 8601).'),
   flowTest: FlowTestSchema.optional(),
 });
 
@@ -60,8 +109,37 @@ export const DeviceLossSchema = z.discriminatedUnion('kind', [
     points: z
       .array(z.strictObject({ flow: nonNegative(), loss: nonNegative() }))
       .min(1)
+      .max(B.curvePoints)
       .describe("Manufacturer's loss at flow points (flow unit, pressure unit); (0, 0) is implied."),
   }),
+]);
+
+/**
+ * A booster pump, by its control:
+ *   - constant speed: its curve through the design point and the shutoff point. Between them the
+ *     gain follows gain(Q) = shutoff − (shutoff − design)·(Q/Qd)², the parabola through both points
+ *     (common practice for a centrifugal pump at fixed speed; pump affinity and curve-fitting texts).
+ *     Qd is `designFlow` when given, else the design flow the analysis computes through the pump
+ *     (then the gain at design flow is `designGain`). The static check adds the shutoff gain: at
+ *     no flow the pump delivers its highest pressure.
+ *   - variable speed: the drive holds the discharge at `setPressure` (while the inlet is below it),
+ *     at any flow including none; the static check uses the set discharge pressure.
+ *   - `{ gain }` (version 1's form, kept so that upgraded documents stay valid): read as constant
+ *     speed with shutoff gain = design gain = gain. The shutoff is then an assumption and the
+ *     verdict is incomplete (reason `booster-shutoff-missing`) until the pump's curve is entered.
+ */
+export const BoostSchema = z.union([
+  z.strictObject({
+    control: z.literal('constant-speed'),
+    designGain: nonNegative().describe('Pressure added at the design point, pressure unit.'),
+    shutoffGain: nonNegative().describe('Pressure added at zero flow (shutoff), pressure unit; not below the design gain.'),
+    designFlow: positive().optional().describe("Flow at the design point, flow unit; defaults to the system's design flow through the pump."),
+  }),
+  z.strictObject({
+    control: z.literal('variable-speed'),
+    setPressure: positive().describe('Discharge pressure the drive holds, pressure unit.'),
+  }),
+  z.strictObject({ gain: nonNegative().describe('Version 1 form: pressure added at the design flow, pressure unit (shutoff unknown).') }),
 ]);
 
 export const DeviceSchema = z.strictObject({
@@ -77,7 +155,7 @@ export const DeviceSchema = z.strictObject({
     'booster-pump',
     'other',
   ]),
-  label: z.string().min(1),
+  label: label().min(1),
   segmentId: id().describe('The segment at whose inlet the device sits; devices on one segment act in list order.'),
   loss: DeviceLossSchema,
   prv: z
@@ -89,10 +167,7 @@ export const DeviceSchema = z.strictObject({
     })
     .optional()
     .describe('Required when kind is "prv".'),
-  boost: z
-    .strictObject({ gain: nonNegative().describe('Pressure added at the design flow, pressure unit.') })
-    .optional()
-    .describe('Required when kind is "booster-pump".'),
+  boost: BoostSchema.optional().describe('Required when kind is "booster-pump".'),
 });
 
 /**
@@ -104,12 +179,12 @@ export const DeviceSchema = z.strictObject({
  * The values and their `source` are the designer's: the analysis repeats them in a note.
  */
 export const CustomFixtureSchema = z.strictObject({
-  label: z.string().min(1).describe('Name of the fixture type, as the project catalog gives it.'),
+  label: label().min(1).describe('Name of the fixture type, as the project catalog gives it.'),
   wsfuCold: nonNegative().optional().describe('Cold-water fixture units per fixture.'),
   wsfuHot: nonNegative().optional().describe('Hot-water fixture units per fixture.'),
   wsfuTotal: nonNegative().describe('Total fixture units per fixture.'),
   flushValve: z.boolean().optional().describe('Flush-valve demand curve (true) or flush-tank (false).'),
-  source: z.string().min(1).describe('Where the values come from (standard, table, manufacturer).'),
+  source: sourceText().describe('Where the values come from (standard, table, manufacturer).'),
 });
 
 export const FixtureGroupSchema = z.strictObject({
@@ -136,19 +211,34 @@ export const FixtureGroupSchema = z.strictObject({
 export const CheckedFixtureSchema = z.strictObject({
   id: id(),
   fixtureTypeId: id(),
-  label: z.string().optional(),
+  label: label().optional(),
   minFlowPressure: nonNegative().optional().describe('Overrides the minimum flow pressure, pressure unit.'),
   flowRate: positive().optional().describe("Overrides the fixture's flow rate (reported), flow unit."),
   expectedCritical: z.boolean().optional().describe('The designer expects this fixture to be the critical one.'),
 });
 
+/** A named level of the building; nodes placed on it move with it. */
+export const FloorSchema = z.strictObject({
+  id: id(),
+  name: label().min(1).describe('Name of the level as the drawings give it ("Level 3", "Basement").'),
+  elevation: finite().describe('Elevation of the finished floor, length unit, the datum of the node elevations.'),
+});
+
+/**
+ * A node's position is exactly one of: an absolute `elevation`; a `floor` with an optional
+ * `heightAboveFloor` (default 0); or neither, and then its feed segment's `rise` places it
+ * (elevation = elevation of the upstream node + rise). Both `elevation` and `floor` at once is an
+ * error, and so is a `rise` on the feed segment of a node that has either.
+ */
 export const NodeSchema = z.strictObject({
   id: id(),
-  label: z.string().optional(),
-  elevation: finite().describe('Elevation, length unit, any datum (the same for all nodes).'),
-  fixtureGroups: z.array(FixtureGroupSchema).default([]),
+  label: label().optional(),
+  elevation: finite().optional().describe('Absolute elevation, length unit, any datum (the same for all nodes and floors).'),
+  floor: id().optional().describe('Id of the floor the node is on (instead of an absolute elevation).'),
+  heightAboveFloor: finite().optional().describe('Height above its floor, length unit (default 0); only with `floor`.'),
+  fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
   continuousDemand: nonNegative().optional().describe('Continuous demand drawn at this node, flow unit.'),
-  checkedFixtures: z.array(CheckedFixtureSchema).default([]),
+  checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
 });
 
 /**
@@ -168,14 +258,14 @@ export const NodeSchema = z.strictObject({
  */
 export const CustomFittingSchema = z.union([
   z.strictObject({
-    label: z.string().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
+    label: label().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
     k: nonNegative().describe('Loss coefficient K (velocity heads), referred to the segment velocity.'),
-    source: z.string().min(1).describe('Where the value comes from (standard, table, manufacturer).'),
+    source: sourceText().describe('Where the value comes from (standard, table, manufacturer).'),
   }),
   z.strictObject({
-    label: z.string().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
+    label: label().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
     equivalentLength: nonNegative().describe('Equivalent length of the segment pipe, length unit.'),
-    source: z.string().min(1).describe('Where the value comes from (standard, table, manufacturer).'),
+    source: sourceText().describe('Where the value comes from (standard, table, manufacturer).'),
   }),
 ]);
 
@@ -196,17 +286,19 @@ export const CustomPipeSchema = z.strictObject({
 
 export const SegmentSchema = z.strictObject({
   id: id(),
-  label: z.string().optional(),
+  label: label().optional(),
   from: id().describe('Upstream node (toward the source).'),
   to: id().describe('Downstream node.'),
-  material: z.string().min(1).optional().describe('Material id from the materials catalog (with size).'),
-  size: z.string().min(1).optional().describe("Nominal size key in the material's catalog, e.g. \"3/4\"."),
+  material: id().optional().describe('Material id from the materials catalog (with size).'),
+  size: id().optional().describe("Nominal size key in the material's catalog, e.g. \"3/4\"."),
   custom: CustomPipeSchema.optional().describe('Instead of material and size: a pipe given by its own data.'),
   length: positive().describe('Developed length of pipe, length unit.'),
   rise: finite()
     .optional()
-    .describe('Rise from the upstream to the downstream node, length unit; checked against the node elevations.'),
-  fittings: z.array(FittingSchema).default([]),
+    .describe(
+      'Rise from the upstream to the downstream node, length unit; places the downstream node, so only where that node has neither an elevation nor a floor.',
+    ),
+  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).default([]),
   flowOverride: nonNegative().optional().describe('Design flow to use instead of the fixture-unit demand, flow unit.'),
   reducerAuto: z
     .boolean()
@@ -220,35 +312,99 @@ export const CriteriaOverridesSchema = z
     minStaticPressure: nonNegative().optional(),
     velocityLimits: z
       .array(z.strictObject({ material: VelocityClassSchema, service: ServiceSchema, maxVelocity: positive() }))
+      .max(B.velocityLimits)
       .optional()
       .describe('Replace the default limit of each material class and service listed.'),
     minFlowPressures: z
-      .record(z.string(), nonNegative())
+      .record(id(), nonNegative())
+      .refine((r) => Object.keys(r).length <= B.minFlowPressures, { message: `at most ${B.minFlowPressures} fixture types` })
       .optional()
       .describe('Minimum flow pressure per fixture type id, pressure unit.'),
     demandCurve: z.enum(['auto', 'flush-tank', 'flush-valve']).optional(),
     demandMethod: z.enum(['hunter-table', 'hunter-binomial']).optional(),
     frictionMethod: z.enum(['colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams']).optional(),
     fittingMethod: z.enum(['crane', 'hooper-2k', 'darby-3k', 'equivalent-length']).optional(),
-    riseTolerance: nonNegative()
-      .optional()
-      .describe('Allowed difference between a rise and its node elevations, length unit.'),
   })
   .describe("Overrides of the engine's default criteria; the local code governs.");
+
+/**
+ * Typical units (an apartment, a room, a restroom) defined once and placed on floors. A unit type
+ * holds its own branch piping, fixture groups and checked fixtures with local ids; its one inlet
+ * segment starts at "inlet", which a placement connects to a node of the main tree. The analysis
+ * expands placements into ordinary nodes and segments first (src/engine/building/expand.ts), so
+ * editing the type changes every placement, and a placement's override is data of its own.
+ * Unit nodes sit on the placement's floor at their height above it; rises are never typed here.
+ */
+export const UNIT_INLET = 'inlet';
+
+export const UnitNodeSchema = z.strictObject({
+  id: id().refine((v) => v !== UNIT_INLET, { message: `"${UNIT_INLET}" names the unit's connection point` }),
+  label: label().optional(),
+  heightAboveFloor: z.number().min(0).max(100).default(0).describe('Height above the floor, length unit.'),
+  fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
+  checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
+});
+
+export const UnitSegmentSchema = z.strictObject({
+  id: id(),
+  label: label().optional(),
+  from: id().describe(`Upstream node: "${UNIT_INLET}" (the placement's connection) or a node of the unit.`),
+  to: id().describe('Downstream node of the unit.'),
+  material: id().optional(),
+  size: id().optional(),
+  custom: CustomPipeSchema.optional(),
+  length: positive().describe('Developed length, length unit.'),
+  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).default([]),
+});
+
+export const UnitTypeSchema = z.strictObject({
+  id: id(),
+  name: label().min(1),
+  nodes: z.array(UnitNodeSchema).min(1).max(B.unitNodes),
+  segments: z.array(UnitSegmentSchema).min(1).max(B.unitSegments),
+});
+
+/** Fields a placement may change on one of its unit's segments or nodes. */
+export const SegmentOverrideSchema = z.strictObject({
+  length: positive().optional(),
+  material: id().optional(),
+  size: id().optional(),
+  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).optional(),
+});
+export const NodeOverrideSchema = z.strictObject({
+  heightAboveFloor: z.number().min(0).max(100).optional(),
+});
+
+export const PlacementSchema = z.strictObject({
+  id: id(),
+  unitTypeId: id(),
+  label: label().min(1).describe('The occurrence as the drawings name it, e.g. "Apt 704".'),
+  floor: id().describe('Floor id.'),
+  at: id().describe('Node of the main tree where the unit connects (its inlet segment starts there).'),
+  overrides: z
+    .strictObject({
+      segments: z.record(id(), SegmentOverrideSchema).optional(),
+      nodes: z.record(id(), NodeOverrideSchema).optional(),
+    })
+    .optional(),
+});
 
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
-  name: z.string().min(1),
+  name: label().min(1),
   service: ServiceSchema,
   unitSystem: UnitSystemSchema,
   waterTemperature: finite().describe('Water temperature, °F or °C.'),
   source: SourceSchema,
-  devices: z.array(DeviceSchema).default([]),
-  nodes: z.array(NodeSchema).min(1),
-  segments: z.array(SegmentSchema),
+  devices: z.array(DeviceSchema).max(B.devices).default([]),
+  floors: z.array(FloorSchema).max(B.floors).default([]).describe('Named levels on which nodes may be placed.'),
+  nodes: z.array(NodeSchema).min(1).max(B.nodes),
+  segments: z.array(SegmentSchema).max(B.segments),
+  unitTypes: z.array(UnitTypeSchema).max(B.unitTypes).optional().describe('Typical units, defined once.'),
+  placements: z.array(PlacementSchema).max(B.placements).optional().describe('Occurrences of the unit types on floors.'),
   criteria: CriteriaOverridesSchema.optional(),
-  notes: z.string().optional(),
+  notes: z.string().max(B.notesLength).optional(),
 });
 
 export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
@@ -256,6 +412,12 @@ export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
 export type SystemDocumentInput = z.input<typeof SystemDocumentSchema>;
 export type Source = z.infer<typeof SourceSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
+export type Boost = z.infer<typeof BoostSchema>;
+export type Floor = z.infer<typeof FloorSchema>;
+export type UnitType = z.infer<typeof UnitTypeSchema>;
+export type UnitTypeInput = z.input<typeof UnitTypeSchema>;
+export type Placement = z.infer<typeof PlacementSchema>;
+export type PlacementInput = z.input<typeof PlacementSchema>;
 export type DeviceLoss = z.infer<typeof DeviceLossSchema>;
 export type SystemNode = z.infer<typeof NodeSchema>;
 export type FixtureGroup = z.infer<typeof FixtureGroupSchema>;

@@ -40,6 +40,9 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
   const apartments = opts.apartmentsPerStorey ?? 4;
   const h = opts.storeyHeightFt ?? 10;
   const nodes: SystemDocumentInput['nodes'] = [{ id: 'main', label: 'Utility main', elevation: 0 }];
+  // Positions in all three ways of document version 2: the riser and floor mains on named floors,
+  // the fixture outlets by the typed rise of their branch.
+  const floors: NonNullable<SystemDocumentInput['floors']> = [];
   const segments: SystemDocumentInput['segments'] = [];
   const fixtureCycle = ['lavatory-private', 'kitchen-sink-private', 'lavatory-private', 'water-closet-flush-tank-private'];
   const devices: NonNullable<SystemDocumentInput['devices']> = [];
@@ -47,7 +50,8 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
   for (let f = 1; f <= storeys; f++) {
     const riserNode = `r${f}`;
     const z = f * h;
-    nodes.push({ id: riserNode, elevation: z });
+    floors.push({ id: `L${f}`, name: `Level ${f}`, elevation: z });
+    nodes.push({ id: riserNode, floor: `L${f}` });
     // Riser size steps down toward the top (invented sizing for the benchmark).
     const riserSize = f <= storeys * 0.5 ? '6' : f <= storeys * 0.75 ? '5' : '4';
     segments.push({
@@ -57,14 +61,13 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
       material: 'steel-sch40',
       size: riserSize,
       length: h,
-      rise: h,
       fittings: [{ typeId: 'tee-run', count: 1 }],
     });
     below = riserNode;
     let mainFrom = riserNode;
     for (let a = 1; a <= apartments; a++) {
       const mainNode = `f${f}-m${a}`;
-      nodes.push({ id: mainNode, elevation: z });
+      nodes.push({ id: mainNode, floor: `L${f}`, heightAboveFloor: 0 });
       segments.push({
         id: `floor-${f}-${a}`,
         from: mainFrom,
@@ -72,7 +75,6 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
         material: 'copper-l',
         size: a <= 2 ? '1-1/2' : '1-1/4',
         length: 20,
-        rise: 0,
         fittings: [{ typeId: 'tee-run', count: 1 }],
       });
       if (a === 1) {
@@ -90,7 +92,7 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
       let aptFrom = mainNode;
       for (let b = 1; b <= 6; b++) {
         const aptNode = `f${f}-a${a}-n${b}`;
-        nodes.push({ id: aptNode, elevation: z });
+        nodes.push({ id: aptNode, floor: `L${f}` });
         segments.push({
           id: `apt-${f}-${a}-${b}`,
           from: aptFrom,
@@ -98,7 +100,6 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
           material: 'pex-sdr9',
           size: '1-1/4',
           length: 8,
-          rise: 0,
           fittings: [{ typeId: b === 1 ? 'tee-branch' : 'tee-run', count: 1 }],
         });
         aptFrom = aptNode;
@@ -108,7 +109,6 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
           const last = b === 6 && c === 4;
           nodes.push({
             id: fixNode,
-            elevation: z + 3,
             fixtureGroups: [{ fixtureTypeId: typeId, count: 1 }],
             checkedFixtures: last ? [{ id: `fx-${f}-${a}`, fixtureTypeId: typeId }] : [],
           });
@@ -130,7 +130,7 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
     }
   }
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: `generated-${storeys}-storeys`,
     name: `Generated ${storeys}-storey building`,
     service: 'cold',
@@ -145,6 +145,7 @@ export function generateBuilding(opts: BuildingOptions): SystemDocumentInput {
       pressureBasis: 'generated for the benchmark',
     },
     devices,
+    floors,
     nodes,
     segments,
   };
@@ -182,12 +183,8 @@ export function generateRandomTree(rng: () => number, opts: RandomTreeOptions): 
   // Accumulated flow per node (children have larger indices than parents).
   const flowLs = Float64Array.from(demandLs);
   for (let i = n; i >= 1; i--) flowLs[parentOf[i]] += flowLs[i];
-  const elevation = new Float64Array(n + 1);
   const rise = new Float64Array(n + 1);
-  for (let i = 1; i <= n; i++) {
-    rise[i] = Math.round((-4 + rng() * 8) * 1000) / 1000;
-    elevation[i] = elevation[parentOf[i]] + rise[i];
-  }
+  for (let i = 1; i <= n; i++) rise[i] = Math.round((-4 + rng() * 8) * 1000) / 1000;
   const nu = 1.3e-6; // ~10 °C water, m²/s (IAPWS via water.ts gives 1.306e-6; only a sizing aid)
   const minRe = opts.minReynolds ?? 5000;
   const fittingTypes = opts.fittingTypes ?? [];
@@ -195,13 +192,16 @@ export function generateRandomTree(rng: () => number, opts: RandomTreeOptions): 
   const segments: SystemDocumentInput['segments'] = [];
   nodes.push({ id: 'n0', elevation: 0 });
   for (let i = 1; i <= n; i++) {
-    nodes.push({ id: `n${i}`, elevation: elevation[i], ...(demandLs[i] > 0 ? { continuousDemand: demandLs[i] } : {}) });
+    // Placed by the typed rise of the feed segment (document version 2): no elevation of its own.
+    nodes.push({ id: `n${i}`, ...(demandLs[i] > 0 ? { continuousDemand: demandLs[i] } : {}) });
     const Q = flowLs[i] / 1000;
     const V = 0.6 + rng() * 1.8;
     let D = Math.sqrt((4 * Q) / (Math.PI * V));
     const dMaxForRe = (4 * Q) / (Math.PI * nu * minRe);
     if (D > dMaxForRe) D = dMaxForRe;
-    D = Math.max(D, 0.004);
+    // Within the plausible inside diameters (model/limits.ts: 2.5–600 mm); a trunk carrying a
+    // whole large tree is capped at 600 mm (its velocity then rises above the target).
+    D = Math.min(Math.max(D, 0.004), 0.6);
     const fittings: { typeId: string; count: number }[] = [];
     for (const t of fittingTypes) if (rng() < 0.35) fittings.push({ typeId: t, count: 1 + Math.floor(rng() * 3) });
     segments.push({
@@ -221,7 +221,7 @@ export function generateRandomTree(rng: () => number, opts: RandomTreeOptions): 
     });
   }
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: `random-tree-${n}`,
     name: `Random tree of ${n} segments`,
     service: 'cold',

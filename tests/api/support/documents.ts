@@ -6,7 +6,7 @@ import { randomUUID } from 'node:crypto';
  */
 export function smallDocument(overrides: { elbowCount?: number } = {}) {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: randomUUID(),
     name: 'Test cold water',
     service: 'cold',
@@ -20,8 +20,8 @@ export function smallDocument(overrides: { elbowCount?: number } = {}) {
       { id: 'l2', label: 'Level 2', elevation: 12, fixtureGroups: [{ fixtureTypeId: 'lavatory-private', count: 1 }], checkedFixtures: [{ id: 'lav-2', fixtureTypeId: 'lavatory-private', label: 'Lavatory, level 2' }] },
     ],
     segments: [
-      { id: 'service', from: 'main', to: 'l1', material: 'copper-l', size: '1', length: 60, rise: 2, fittings: [{ typeId: 'elbow-90-standard', count: overrides.elbowCount ?? 2 }] },
-      { id: 'riser', from: 'l1', to: 'l2', material: 'copper-l', size: '3/4', length: 14, rise: 10, fittings: [] },
+      { id: 'service', from: 'main', to: 'l1', material: 'copper-l', size: '1', length: 60, fittings: [{ typeId: 'elbow-90-standard', count: overrides.elbowCount ?? 2 }] },
+      { id: 'riser', from: 'l1', to: 'l2', material: 'copper-l', size: '3/4', length: 14, fittings: [] },
     ],
   };
 }

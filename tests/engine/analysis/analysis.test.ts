@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, ledgerFor, formatLedger, type Analysis } from '../../../src/engine';
+import { analyzeSystem, safeAnalyzeSystem, ledgerFor, formatLedger, type Analysis } from '../../../src/engine';
 import { waterProperties } from '../../../src/engine/water';
 import { colebrook } from '../../../src/engine/friction';
 import { fittingK } from '../../../src/engine/fittings';
@@ -55,7 +55,7 @@ describe('worked single segment [COMP: consistency check with the correlations w
     d.unitSystem = 'US';
     d.waterTemperature = 60;
     d.source = { kind: 'utility-main', nodeId: 'src', staticPressureLow: 60, staticPressureHigh: 60, pressureBasis: 'test' };
-    d.nodes[1].elevation = 20;
+    delete d.nodes[1].elevation; // placed by the typed rise (document version 2)
     d.nodes[1].continuousDemand = 5;
     d.segments[0].rise = 20;
     const a = analyzeSystem(d);
@@ -262,11 +262,16 @@ describe('results', () => {
     expect(a.methods.friction.source).toMatch(/Colebrook/);
   });
 
-  it('a rise that disagrees with the node elevations is flagged and the elevations are used', () => {
+  it('a rise on a segment whose downstream node has an elevation is refused: one position per node (document version 2)', () => {
+    // Version 1 flagged a disagreeing rise and used the elevations; version 2 cannot hold the contradiction.
     const d = clone(oneSegment());
     d.segments[0].rise = 5;
-    const a = analyzeSystem(d);
-    expect(a.warnings.some((w) => w.code === 'rise-elevation-mismatch' && w.elementId === 's1')).toBe(true);
-    expectClose(a.segments[0].rise, 3, { rtol: 1e-12 }, 'rise used');
+    const r = safeAnalyzeSystem(d);
+    expect(r.ok).toBe(false);
+    if (!r.ok) {
+      expect(r.error.code).toBe('rise-and-elevation');
+      expect(r.error.elementId).toBe('s1');
+      expect(r.error.message).toContain('"end"');
+    }
   });
 });

@@ -91,7 +91,6 @@ describe('custom fitting with an equivalent length', () => {
     d.nodes[1].elevation = 10;
     d.nodes[1].continuousDemand = 8;
     d.segments[0].length = 50;
-    d.segments[0].rise = 10;
     d.criteria = { fittingMethod: 'equivalent-length' };
     const le = IPC_E103_3_5.elbow90Standard['3/4']; // 2.5 ft, IPC Table E103.3(5) row via the fittings catalog (from memory)
     d.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 2 }];

@@ -49,11 +49,16 @@ describe('bad input → structured error', () => {
     expectError(d, 'source-has-feed', 'segment', 'back', 'to');
   });
 
-  it('a disconnected segment', () => {
+  it('a disconnected segment is not an error (document version 2): the verdict is incomplete and names the part', () => {
+    // Before version 2 this was the error disconnected-segment; a part not yet connected is now a
+    // description in progress, so the analysis runs and never shows green.
     const d = clone(smallTree());
-    d.nodes.push({ id: 'p', elevation: 0 }, { id: 'q', elevation: 0 });
+    d.nodes.push({ id: 'p', label: 'Island start', elevation: 0 }, { id: 'q', elevation: 0 });
     d.segments.push({ id: 'pq', from: 'p', to: 'q', material: 'copper-l', size: '1', length: 3 });
-    expectError(d, 'disconnected-segment', 'segment', 'pq', 'from');
+    const a = analyzeSystem(d);
+    expect(a.verdict.status).toBe('incomplete');
+    const reason = a.verdict.incomplete.find((r) => r.code === 'part-unreachable')!;
+    expect(reason.message).toBe('2 nodes and 1 segment are not connected to the source, starting with "Island start": connect them or remove them.');
   });
 
   it('no source node', () => {
@@ -161,5 +166,53 @@ describe('bad input → structured error', () => {
       expect(r.ok).toBe(false);
       if (!r.ok) expect(r.error.code).toBe('schema-violation');
     }
+  });
+});
+
+describe('positions (document version 2)', () => {
+  it('a node on a floor sits at the floor elevation plus its height above it', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L2';
+    d.nodes[1].heightAboveFloor = 0.9;
+    const a = analyzeSystem(d);
+    expect(a.nodes[1].elevation).toBe(2.5 + 0.9);
+    expect(a.verdict.status).toBe('pass');
+  });
+
+  it('a node naming a floor that does not exist', () => {
+    const d = clone(oneSegment());
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L9';
+    expectError(d, 'unknown-floor', 'node', 'end', 'floor');
+  });
+
+  it('a node with both an elevation and a floor', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    d.nodes[1].floor = 'L2';
+    expectError(d, 'node-position-conflict', 'node', 'end', 'floor');
+  });
+
+  it('a height above floor without a floor', () => {
+    const d = clone(oneSegment());
+    d.nodes[1].heightAboveFloor = 1;
+    expectError(d, 'node-position-conflict', 'node', 'end', 'heightAboveFloor');
+  });
+
+  it('a rise on the feed of a node on a floor', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }];
+    delete d.nodes[1].elevation;
+    d.nodes[1].floor = 'L2';
+    d.segments[0].rise = 2.5;
+    expectError(d, 'rise-and-elevation', 'segment', 's1', 'rise');
+  });
+
+  it('two floors with one id', () => {
+    const d = clone(oneSegment());
+    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }, { id: 'L2', name: 'Level 2 again', elevation: 5 }];
+    expectError(d, 'duplicate-id', 'floor', 'L2', 'id');
   });
 });

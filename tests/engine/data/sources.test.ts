@@ -17,7 +17,7 @@ describe('shipped source strings', () => {
 
   it('cover every catalog: materials, fixtures, fittings, meters, the demand table, methods, criteria, pressure ratings', () => {
     const kinds = new Set(all.map((s) => s.kind));
-    for (const k of ['material', 'fixture-type', 'fitting-type', 'device-template', 'demand-table', 'friction-method', 'criteria', 'pressure-rating']) {
+    for (const k of ['material', 'fixture-type', 'fitting-type', 'device-template', 'demand-table', 'friction-method', 'fitting-method', 'demand-method', 'criteria', 'pressure-rating']) {
       expect(kinds.has(k as never), k).toBe(true);
     }
     expect(all.length).toBeGreaterThan(100);
@@ -67,6 +67,8 @@ describe('unverifiedSources()', () => {
     expect(has('fitting-type', 'elbow-90-standard', 'equivalent-length')).toBe(true);
     expect(has('demand-table', 'hunter-table-ipc')).toBe(true);
     expect(has('pressure-rating', 'pex-sdr9')).toBe(true);
+    expect(has('fitting-method', 'equivalent-length')).toBe(true);
+    expect(has('demand-method', 'hunter-table')).toBe(true);
   });
   it('leaves out what was checked: copper dimensions, IPC Table 604.3 rows, Crane K of a 90° elbow, the copper joint rating', () => {
     expect(has('material', 'copper-l', 'dimensions')).toBe(false);
@@ -74,6 +76,8 @@ describe('unverifiedSources()', () => {
     expect(has('fitting-type', 'elbow-90-standard', 'crane')).toBe(false);
     expect(has('fitting-type', 'tee-branch', 'crane')).toBe(false);
     expect(has('pressure-rating', 'copper-joint-95-5')).toBe(false);
+    expect(has('fitting-method', 'crane')).toBe(false);
+    expect(has('friction-method', 'hazen-williams')).toBe(false);
   });
 });
 

@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem } from '../../../src/engine';
-import { hazenWilliamsHeadLoss } from '../../../src/engine/friction';
+import { hazenWilliamsPressureLoss } from '../../../src/engine/friction';
 import { G, PA_PER_PSI } from '../../../src/engine/units';
 import { generateRandomTree, mulberry32 } from '../../../src/engine/testing/generateTree';
 import { EpanetPeer, type PeerNetwork } from '../support/epanet';
@@ -39,7 +39,8 @@ export function peerNetworkOf(a: Analysis, doc: ReturnType<typeof generateRandom
     })),
     headloss,
     kinematicViscosityM2s: a.water.kinematicViscosityM2s,
-    ourHazenWilliams: hazenWilliamsHeadLoss,
+    // Our loss is a pressure (the printed form); EPANET works in head: divide by this run's ρ·g.
+    ourHazenWilliams: (q, d, l, c) => hazenWilliamsPressureLoss(q, d, l, c) / rhoG,
     cancelConstants,
   };
 }

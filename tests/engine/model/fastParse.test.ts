@@ -60,7 +60,13 @@ const device = rec({
   segmentId: id,
   loss: deviceLoss,
   prv: opt(rec({ setPressure: positive, falloffPerFlow: opt(nonNegative) })),
-  boost: opt(rec({ gain: nonNegative })),
+  boost: opt(
+    fc.oneof(
+      rec({ gain: nonNegative }),
+      rec({ control: fc.constant('constant-speed'), designGain: nonNegative, shutoffGain: nonNegative, designFlow: opt(positive) }),
+      rec({ control: fc.constant('variable-speed'), setPressure: positive }),
+    ),
+  ),
 });
 /** A fixture type's own data (CustomFixtureSchema). */
 const customFixture = rec({ label, wsfuCold: opt(nonNegative), wsfuHot: opt(nonNegative), wsfuTotal: nonNegative, flushValve: opt(fc.boolean()), source: label });
@@ -82,10 +88,13 @@ const checkedFixture = rec({
   flowRate: opt(positive),
   expectedCritical: opt(fc.boolean()),
 });
+const floor = rec({ id, name: label, elevation: finite });
 const node = rec({
   id,
   label: opt(text),
-  elevation: finite,
+  elevation: opt(finite),
+  floor: opt(id),
+  heightAboveFloor: opt(finite),
   fixtureGroups: opt(fc.array(fixtureGroup, { maxLength: 2 })),
   continuousDemand: opt(nonNegative),
   checkedFixtures: opt(fc.array(checkedFixture, { maxLength: 2 })),
@@ -108,15 +117,14 @@ const criteria = rec({
   maxStaticPressure: opt(positive),
   minStaticPressure: opt(nonNegative),
   velocityLimits: opt(fc.array(rec({ material: fc.constantFrom('copper', 'plastic', 'steel'), service: fc.constantFrom('cold', 'hot'), maxVelocity: positive }), { maxLength: 2 })),
-  minFlowPressures: opt(fc.dictionary(fc.string({ maxLength: 6 }).filter((k) => k !== '__proto__'), nonNegative, { maxKeys: 3 })),
+  minFlowPressures: opt(fc.dictionary(fc.string({ minLength: 1, maxLength: 6 }).filter((k) => k !== '__proto__'), nonNegative, { maxKeys: 3 })),
   demandCurve: opt(fc.constantFrom('auto', 'flush-tank', 'flush-valve')),
   demandMethod: opt(fc.constantFrom('hunter-table', 'hunter-binomial')),
   frictionMethod: opt(fc.constantFrom('colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams')),
   fittingMethod: opt(fc.constantFrom('crane', 'hooper-2k', 'darby-3k', 'equivalent-length')),
-  riseTolerance: opt(nonNegative),
 });
 const validDocument = rec({
-  schemaVersion: fc.constant(1),
+  schemaVersion: fc.constant(2),
   id,
   name: label,
   service: fc.constantFrom('cold', 'hot'),
@@ -124,6 +132,7 @@ const validDocument = rec({
   waterTemperature: finite,
   source,
   devices: opt(fc.array(device, { maxLength: 2 })),
+  floors: opt(fc.array(floor, { maxLength: 2 })),
   nodes: fc.array(node, { minLength: 1, maxLength: 3 }),
   segments: fc.array(segment, { maxLength: 3 }),
   criteria: opt(criteria),

@@ -77,7 +77,10 @@ describe('monotonicity: more resistance or more height never raises a residual',
         const d = tree(seed, size);
         const before = analyzeSystem(d);
         const node = d.nodes[1 + (pick % (d.nodes.length - 1))]; // not the source
-        node.elevation += dz;
+        // Document version 2: the random tree places each node by its feed segment's rise; raising
+        // that rise raises the node (and, with it, the nodes below it).
+        const feed = d.segments.find((s) => s.to === node.id)!;
+        feed.rise = (feed.rise ?? 0) + dz;
         const after = analyzeSystem(d);
         expectNoRise(before, after);
         const p0 = before.si.nodes.find((n) => n.id === node.id)!.pressure;

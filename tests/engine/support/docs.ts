@@ -4,7 +4,7 @@ import type { SystemDocumentInput } from '../../../src/engine/model/schema';
 /** Source → one copper segment → one node with a lavatory: the smallest complete system (SI). */
 export function oneSegment(overrides: Partial<SystemDocumentInput> = {}): SystemDocumentInput {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: 'one',
     name: 'One segment',
     service: 'cold',
@@ -29,7 +29,6 @@ export function oneSegment(overrides: Partial<SystemDocumentInput> = {}): System
         material: 'copper-l',
         size: '3/4',
         length: 20,
-        rise: 3,
         fittings: [{ typeId: 'elbow-90-standard', count: 2 }],
       },
     ],
@@ -40,7 +39,7 @@ export function oneSegment(overrides: Partial<SystemDocumentInput> = {}): System
 /** A source feeding a chain a → b → c with a side branch a → d; demand by continuous flows. */
 export function smallTree(): SystemDocumentInput {
   return {
-    schemaVersion: 1,
+    schemaVersion: 2,
     id: 'tree',
     name: 'Small tree',
     service: 'cold',
@@ -56,10 +55,10 @@ export function smallTree(): SystemDocumentInput {
       { id: 'd', elevation: 1, continuousDemand: 0.4, checkedFixtures: [{ id: 'fd', fixtureTypeId: 'hose-bibb' }] },
     ],
     segments: [
-      { id: 'sa', from: 'src', to: 'a', material: 'copper-l', size: '1-1/4', length: 10, rise: 1, fittings: [] },
-      { id: 'sb', from: 'a', to: 'b', material: 'copper-l', size: '1', length: 6, rise: 3, fittings: [{ typeId: 'tee-run', count: 1 }] },
-      { id: 'sc', from: 'b', to: 'c', material: 'pex-sdr9', size: '3/4', length: 8, rise: 3, fittings: [{ typeId: 'elbow-90-standard', count: 2 }] },
-      { id: 'sd', from: 'a', to: 'd', material: 'pex-sdr9', size: '3/4', length: 25, rise: 0, fittings: [{ typeId: 'tee-branch', count: 1 }] },
+      { id: 'sa', from: 'src', to: 'a', material: 'copper-l', size: '1-1/4', length: 10, fittings: [] },
+      { id: 'sb', from: 'a', to: 'b', material: 'copper-l', size: '1', length: 6, fittings: [{ typeId: 'tee-run', count: 1 }] },
+      { id: 'sc', from: 'b', to: 'c', material: 'pex-sdr9', size: '3/4', length: 8, fittings: [{ typeId: 'elbow-90-standard', count: 2 }] },
+      { id: 'sd', from: 'a', to: 'd', material: 'pex-sdr9', size: '3/4', length: 25, fittings: [{ typeId: 'tee-branch', count: 1 }] },
     ],
   };
 }

@@ -77,15 +77,12 @@ function validCases(): [string, unknown][] {
     if (i % 11 === 0 && n.id !== 'main') n.continuousDemand = 0.5;
   });
   valves.segments.forEach((s, i) => {
-    if (i % 13 === 0) delete s.rise;
-    if (i % 17 === 0) s.rise = (s.rise ?? 0) + 1;
     if (i % 19 === 0) s.flowOverride = 4;
     if (i % 23 === 0) s.reducerAuto = false;
   });
   valves.criteria = {
     velocityLimits: [{ material: 'copper', service: 'cold', maxVelocity: 4 }, { material: 'steel', service: 'hot', maxVelocity: 9 }],
     minFlowPressures: { 'lavatory-private': 12 },
-    riseTolerance: 0.5,
   };
   cases.push(['building-10-valves-overrides', valves]);
   cases.push(['one-segment-flow-test', oneSegment({ source: { kind: 'utility-main', nodeId: 'src', staticPressureLow: 450, staticPressureHigh: 500, pressureBasis: 'test', flowTest: { staticPressure: 480, residualPressure: 300, flow: 0.3 } } })]);
@@ -108,7 +105,7 @@ function invalidCases(): [string, unknown][] {
     ['not-an-object', () => 42],
     ['null', () => null],
     ['missing-id', (d) => { delete (d as Record<string, unknown>).id; return d; }],
-    ['wrong-schema-version', (d) => ({ ...d, schemaVersion: 2 })],
+    ['wrong-schema-version', (d) => ({ ...d, schemaVersion: 3 })],
     ['unknown-key', (d) => ({ ...d, colour: 'red' })],
     ['nan-elevation', (d) => { d.nodes[0].elevation = NaN; return d; }],
     ['infinite-length', (d) => { d.segments[0].length = Infinity; return d; }],

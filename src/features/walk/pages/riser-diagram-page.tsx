@@ -3,6 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { VerdictShape, verdictOf } from '../../systems/components/verdict-mark';
 import { useWalk } from '../draft/walk-context';
 import { layoutTree } from '../lib/diagram-layout';
+import { nodeElevations } from '../../../engine';
 import { fmt, signed } from '../lib/format';
 
 const COLUMN_PX = 120;
@@ -35,10 +36,10 @@ export function RiserDiagramPage() {
 
   const analysis = live.ok ? live.analysis : null;
   const segResult = new Map(analysis?.segments.map((s) => [s.id, s]) ?? []);
-  const elevation = new Map(document.nodes.map((n) => [n.id, n.elevation]));
+  const elevation = nodeElevations(document);
   const layout = layoutTree({
     sourceNodeId: document.source.nodeId,
-    nodes: document.nodes,
+    nodes: document.nodes.map((n) => ({ ...n, elevation: elevation.get(n.id) ?? 0 })),
     segments: document.segments.map((s) => ({ id: s.id, from: s.from, to: s.to, rise: (elevation.get(s.to) ?? 0) - (elevation.get(s.from) ?? 0) })),
   });
   const W = MARGIN.l + MARGIN.r + layout.columns * COLUMN_PX;

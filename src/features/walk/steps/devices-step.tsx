@@ -5,7 +5,7 @@ import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
-import { fromSI } from '../../../engine';
+import { boosterDesignGain, fromSI } from '../../../engine';
 import type { Device, SystemDocument } from '../../../engine';
 import { DeviceSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
@@ -78,7 +78,7 @@ function toRow(d: Device): DeviceRow {
     points: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ ...p })) : [{ flow: 0, loss: 0 }],
     prvSet: d.prv?.setPressure,
     prvFalloff: d.prv?.falloffPerFlow ?? 0,
-    boostGain: d.boost?.gain,
+    boostGain: d.boost ? boosterDesignGain(d.boost) ?? undefined : undefined,
   };
 }
 

@@ -15,21 +15,66 @@ import { TextField } from '../../../components/ui/field';
 import { useLiveForm } from '../lib/use-live-form';
 
 export const elevationFormSchema = z.object({
-  nodes: z.array(z.object({ id: z.string(), elevation: NodeSchema.shape.elevation })),
+  nodes: z.array(z.object({ id: z.string(), elevation: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), NodeSchema.shape.elevation) })),
   segments: z.array(z.object({ id: z.string(), rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise) })),
 });
-type ElevationForm = { nodes: { id: string; elevation: number }[]; segments: { id: string; rise?: number }[] };
+type ElevationForm = { nodes: { id: string; elevation?: number }[]; segments: { id: string; rise?: number }[] };
 
+/**
+ * Writes the form into the document under the version 2 rule (one position per node): an
+ * elevation typed for a node removes its feed segment's rise; a rise typed for a segment removes
+ * its downstream node's elevation and floor (the node, and the nodes placed relative to it, then
+ * follow the rise). Values equal to the document's change nothing.
+ */
 export function applyElevations(doc: SystemDocument, v: z.output<typeof elevationFormSchema>): SystemDocument {
-  const z0 = new Map(v.nodes.map((n) => [n.id, n.elevation]));
-  const rise = new Map(v.segments.map((s) => [s.id, s.rise]));
+  const oldNode = new Map(doc.nodes.map((n) => [n.id, n]));
+  const oldSeg = new Map(doc.segments.map((s) => [s.id, s]));
+  const feedOf = new Map(doc.segments.map((s) => [s.to, s.id]));
+  const typedElevation = new Map<string, number>();
+  for (const n of v.nodes) {
+    if (n.elevation !== undefined && n.elevation !== oldNode.get(n.id)?.elevation) typedElevation.set(n.id, n.elevation);
+  }
+  const typedRise = new Map<string, number | undefined>();
+  for (const s of v.segments) {
+    if (s.rise !== oldSeg.get(s.id)?.rise) typedRise.set(s.id, s.rise);
+  }
+  const riseCleared = new Set<string>();
+  for (const nodeId of typedElevation.keys()) {
+    const feed = feedOf.get(nodeId);
+    if (feed !== undefined) riseCleared.add(feed);
+  }
+  const positionCleared = new Set<string>();
+  for (const [segId, r] of typedRise) {
+    const seg = oldSeg.get(segId);
+    if (r !== undefined && seg && !typedElevation.has(seg.to)) positionCleared.add(seg.to);
+  }
   return {
     ...doc,
-    nodes: doc.nodes.map((n) => (z0.has(n.id) ? { ...n, elevation: z0.get(n.id)! } : n)),
+    nodes: doc.nodes.map((n) => {
+      if (typedElevation.has(n.id)) {
+        const next = { ...n, elevation: typedElevation.get(n.id)! };
+        delete next.floor;
+        delete next.heightAboveFloor;
+        return next;
+      }
+      if (positionCleared.has(n.id)) {
+        const next = { ...n };
+        delete next.elevation;
+        delete next.floor;
+        delete next.heightAboveFloor;
+        return next;
+      }
+      return n;
+    }),
     segments: doc.segments.map((s) => {
-      if (!rise.has(s.id)) return s;
+      if (riseCleared.has(s.id)) {
+        const next = { ...s };
+        delete next.rise;
+        return next;
+      }
+      if (!typedRise.has(s.id)) return s;
       const next = { ...s };
-      const r = rise.get(s.id);
+      const r = typedRise.get(s.id);
       if (r === undefined) delete next.rise;
       else next.rise = r;
       return next;
@@ -56,9 +101,15 @@ export function ElevationStep() {
   const nodes = watch('nodes');
   const rises = watch('segments');
   const elevation = new Map(nodes.map((n) => [n.id, n.elevation]));
-  const tolerance = live.ok ? live.analysis.criteria.riseTolerance : 0;
+  // Version 2 has one position per node: no tolerance to compare a rise against.
+  const tolerance = 0;
   const order = treeOrder(document.segments, document.source.nodeId);
-  const warnings = live.ok ? live.analysis.warnings.filter((w) => w.code === 'rise-elevation-mismatch' || w.code === 'rise-from-elevations') : [];
+  // Version 2: a contradiction cannot be entered; what is left to enter shows as incomplete reasons.
+  const warnings = live.ok
+    ? live.analysis.verdict.incomplete
+        .filter((r) => r.code === 'node-elevation-missing' || r.code === 'source-elevation-missing')
+        .map((r) => ({ code: 'booster-gain-at-static' as const, severity: 'note' as const, message: r.message, elementType: 'node' as const, elementId: r.elementId }))
+    : [];
   const label = new Map(document.nodes.map((n) => [n.id, n.label || n.id]));
   const sourceNode = document.source.nodeId;
   const [planText, setPlanText] = useState<PlanText>(() => ({ floors: '', typicalHeight: '', groundHeight: '', groundLevel: '0', aboveFloor: '0', connection: String(document.nodes.find((n) => n.id === sourceNode)?.elevation ?? 0) }));
@@ -73,13 +124,13 @@ export function ElevationStep() {
   const guessFloors = () => {
     if (problems.length) return setPlanNote(problems);
     const levels = floorLevels(plan);
-    setAssignment(new Map(nodes.filter((n) => n.id !== sourceNode && Number.isFinite(n.elevation)).map((n) => [n.id, floorOf(n.elevation, levels, plan.aboveFloor)])));
+    setAssignment(new Map(nodes.filter((n) => n.id !== sourceNode && Number.isFinite(n.elevation)).map((n) => [n.id, floorOf(n.elevation!, levels, plan.aboveFloor)])));
     setPlanNote(['Each node is put on the floor at or below its elevation; check the list and change any that is wrong.']);
   };
   const fillElevations = () => {
     const issues = [...problems, ...(Number.isFinite(connectionElevation) ? [] : ['Give the connection’s elevation.'])];
     if (issues.length) return setPlanNote(issues);
-    const next = elevationsFromFloors(nodes, assignment, plan, { nodeId: sourceNode, elevation: connectionElevation });
+    const next = elevationsFromFloors(nodes.map((n) => ({ id: n.id, elevation: n.elevation ?? Number.NaN })), assignment, plan, { nodeId: sourceNode, elevation: connectionElevation });
     next.forEach((n, i) => {
       if (n.elevation !== nodes[i]?.elevation) setValue(`nodes.${i}.elevation`, n.elevation, { shouldValidate: true, shouldDirty: true });
     });
@@ -173,7 +224,7 @@ export function ElevationStep() {
             </tbody>
           </table>
         </Section>
-        <WarningList title="What the engine says about rises" warnings={warnings} empty="The rises agree with the node elevations." />
+        <WarningList title="What the engine says about rises" warnings={warnings} empty="Every node has a position." />
       </fieldset>
     </form>
   );

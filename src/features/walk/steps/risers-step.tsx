@@ -71,7 +71,7 @@ const groupRow = FixtureGroupSchema.extend({
 const nodeRow = z.object({
   id: z.string().min(1),
   label: optionalText,
-  elevation: z.number(),
+  elevation: z.number().optional(),
   continuousDemand: optionalOf(NodeSchema.shape.continuousDemand.unwrap()),
   fixtureGroups: z.array(groupRow),
 });
@@ -80,7 +80,7 @@ type CustomRow = { innerDiameter?: number; roughness?: number; hazenWilliamsC?: 
 type SegmentRow = { id: string; label: string; from: string; to: string; material: string; size: string; length: number; rise?: number; custom: CustomRow; flowOverride?: number };
 /** `custom`: the project fixture type's data the group carries (copied when the type was chosen). */
 type GroupRow = { fixtureTypeId: string; count: number; demandCurve: string; wsfuBasis: string; usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number }; custom?: CustomFixture };
-type NodeRow = { id: string; label: string; elevation: number; continuousDemand?: number; fixtureGroups: GroupRow[] };
+type NodeRow = { id: string; label: string; elevation?: number; continuousDemand?: number; fixtureGroups: GroupRow[] };
 type RisersForm = { segments: SegmentRow[]; nodes: NodeRow[] };
 
 const groupToRow = (g: FixtureGroup): GroupRow => ({ fixtureTypeId: g.fixtureTypeId, count: g.count, demandCurve: g.demandCurve ?? '', wsfuBasis: g.wsfuBasis ?? '', usage: { ...(g.usage ?? {}) }, ...(g.custom ? { custom: { ...g.custom } } : {}) });
@@ -126,7 +126,9 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
   const nodes = v.nodes.map((r) => {
     const old = oldNodes.get(r.id);
     const fixtureGroups = r.fixtureGroups.map((g) => groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures));
-    const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, elevation: old?.elevation ?? r.elevation, fixtureGroups } as SystemDocument['nodes'][number];
+    // Document version 2: a node keeps the position it has (elevation, floor, or none: placed by its feed's rise).
+    const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, fixtureGroups } as SystemDocument['nodes'][number];
+    if (!old && r.elevation !== undefined) next.elevation = r.elevation;
     if (r.label === undefined) delete next.label;
     else next.label = r.label;
     if (r.continuousDemand === undefined) delete next.continuousDemand;
@@ -271,10 +273,10 @@ export function RisersStep() {
 
   const addSegmentFrom = (fromId: string) => {
     const current = getValues();
-    const fromRow = current.nodes.find((n) => n.id === fromId);
     const to = freshId('node', current.nodes.map((n) => n.id));
     const feeding = current.segments.find((s) => s.to === fromId);
-    nodes.append({ id: to, label: '', elevation: fromRow?.elevation ?? 0, continuousDemand: undefined, fixtureGroups: [] });
+    // A new node has no position: the new segment's rise places it (document version 2).
+    nodes.append({ id: to, label: '', elevation: undefined, continuousDemand: undefined, fixtureGroups: [] });
     segments.append({
       id: freshId('seg', current.segments.map((s) => s.id)),
       label: '',

@@ -1,0 +1,246 @@
+/**
+ * Stage 6b: worst-case static pressure (no flow). The hydraulics stage carries the high static
+ * pressure along the tree with every device at its no-flow state (a PRV at its set pressure, a
+ * constant-speed booster at its shutoff gain, a variable-speed booster at its set discharge
+ * pressure); this stage reports the cases a signed design must consider:
+ *
+ * - Boosters: the gains counted (design and shutoff), and whether the shutoff was assumed.
+ * - A PRV that fails open: per PRV, the high static pressure downstream with that valve passing
+ *   its inlet pressure, compared with the maximum static pressure (80 psi, IPC 604.8 / UPC 608.2 /
+ *   IRC P2903.3.1 by default). A PRV that fails open is a known failure mode; codes require the
+ *   valve but do not assume it never fails, so this is a caution, not a failed check.
+ * - Pipe ratings: the highest static pressure each catalog pipe (material and size) sees, against
+ *   its published working-pressure rating at the water temperature (catalog/pressureRatings.ts
+ *   names each table). Above the rating is a failed check.
+ * - Minimum static pressure at the highest checked fixture, where the criteria set a minimum
+ *   (the designer's adopted value; none by default): the low static pressure there, the lowest the
+ *   supply gives, after the climb. Below it is a failed check.
+ */
+import { pressureRating } from '../catalog/pressureRatings';
+import { MATERIALS, type MaterialId } from '../catalog/materials';
+import { fromSI, G } from '../units';
+import { makeWarning, type EngineWarning } from '../warnings';
+import type { SiModel } from './input';
+import type { Topology } from './topology';
+import type { HydraulicsResult } from './hydraulics';
+import type { ElevationResult } from './elevations';
+import type { StaticChecks } from './types';
+import { formatPressure, nodeName, segmentLabel } from './names';
+
+export interface StaticChecksResult {
+  /** In the document's units (the Analysis field). */
+  display: StaticChecks;
+  /** Failed checks added by this stage (pipe ratings, minimum static at the highest fixture). */
+  failures: number;
+  pipeRatingsPass: boolean;
+  minStaticPass: boolean;
+}
+
+export function runStaticChecks(
+  model: SiModel,
+  topo: Topology,
+  hyd: HydraulicsResult,
+  elev: ElevationResult,
+  warnings: EngineWarning[],
+): StaticChecksResult {
+  const sys = model.unitSystem;
+  const toDoc = (pa: number) => fromSI('pressure', pa, sys);
+  let failures = 0;
+
+  // Which nodes serve fixtures (the static maximum applies there, as in checks.ts).
+  const serves = new Uint8Array(model.nodeIds.length);
+  for (let i = 0; i < model.nodeIds.length; i++) {
+    serves[i] = model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0 ? 1 : 0;
+  }
+
+  // Boosters
+  const boosters: StaticChecks['boosters'] = [];
+  for (const devs of model.devicesBySeg) {
+    for (const d of devs) {
+      if (!d.boost) continue;
+      const g = hyd.boosterGains.get(d.id) ?? { designPa: 0, shutoffPa: 0 };
+      boosters.push({
+        deviceId: d.id,
+        label: d.label,
+        control: d.boost.control,
+        designGain: toDoc(g.designPa),
+        shutoffGain: toDoc(g.shutoffPa),
+        assumed: d.boost.control === 'constant-speed' && d.boost.assumed,
+      });
+    }
+  }
+
+  // PRV fails open
+  const max = model.criteria.maxStaticPressurePa;
+  const prvFailOpen: StaticChecks['prvFailOpen'] = [];
+  let children: Map<number, number[]> | null = null;
+  for (const devs of model.devicesBySeg) {
+    for (const d of devs) {
+      if (!d.prv) continue;
+      const high = staticHighWithout(model, topo, elev, d.id);
+      const segIdx = d.segIdx;
+      children ??= childNodes(model, topo);
+      const below = subtreeNodes(children, model.segments[segIdx].to);
+      let over = 0;
+      let worst = -1;
+      for (const n of below) {
+        if (!serves[n]) continue;
+        if (worst === -1 || high[n] > high[worst]) worst = n;
+        if (high[n] > max) over++;
+      }
+      const worstStatic = worst === -1 ? high[model.segments[segIdx].to] : high[worst];
+      const excess = Math.max(0, worstStatic - max);
+      prvFailOpen.push({
+        deviceId: d.id,
+        label: d.label,
+        nodesOverMax: over,
+        worstNodeId: worst === -1 ? null : model.nodeIds[worst],
+        worstNodeLabel: worst === -1 ? null : model.nodeLabels[worst] ?? nodeName(model, worst),
+        worstStatic: toDoc(worstStatic),
+        maxStaticPressure: toDoc(max),
+        excess: toDoc(excess),
+      });
+      if (over > 0) {
+        const w = makeWarning(
+          'prv-fail-open-over-max',
+          'device',
+          d.id,
+          `If "${d.label}" fails open, ${over} ${over === 1 ? 'node that serves fixtures' : 'nodes that serve fixtures'} would see up to ${formatPressure(worstStatic, sys)} static, ${formatPressure(excess, sys)} over the ${formatPressure(max, sys)} maximum (highest at ${nodeName(model, worst)}).`,
+        );
+        w.elementLabel = d.label;
+        warnings.push(w);
+      }
+    }
+  }
+
+  // Pipe ratings: per catalog material and size, the segment with the highest static pressure.
+  const worstBySize = new Map<string, { s: number; pa: number }>();
+  for (let s = 0; s < model.segments.length; s++) {
+    const seg = model.segments[s];
+    if (seg.materialId === null) continue;
+    const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to]);
+    const key = `${seg.materialId}\u0000${seg.nominalSizeKey}`;
+    const prev = worstBySize.get(key);
+    if (prev === undefined || pa > prev.pa) worstBySize.set(key, { s, pa });
+  }
+  const pipeRatings: StaticChecks['pipeRatings'] = [];
+  const unrated = new Set<string>();
+  let pipeRatingsPass = true;
+  for (const { s, pa } of worstBySize.values()) {
+    const seg = model.segments[s];
+    const materialId = seg.materialId!;
+    const material = MATERIALS[materialId as MaterialId];
+    const materialLabel = `${material?.label ?? materialId} ${seg.nominalSizeKey}`;
+    const rating = pressureRating(materialId, seg.nominalSizeKey, model.water.temperatureC);
+    if (rating === null) {
+      unrated.add(material?.label ?? materialId);
+      continue;
+    }
+    const pass = pa <= rating.ratingPa;
+    pipeRatings.push({
+      segmentId: seg.id,
+      label: segmentLabel(model, s),
+      materialLabel,
+      ratingPressure: toDoc(rating.ratingPa),
+      highestStatic: toDoc(pa),
+      pass,
+      source: rating.source,
+      verified: rating.verified,
+    });
+    if (!pass) {
+      failures++;
+      pipeRatingsPass = false;
+      const w = makeWarning(
+        'static-over-pipe-rating',
+        'segment',
+        seg.id,
+        `${materialLabel}: up to ${formatPressure(pa, sys)} static, rated ${formatPressure(rating.ratingPa, sys)} at the water temperature (${rating.source}).`,
+      );
+      warnings.push(w);
+    }
+  }
+  if (unrated.size > 0) {
+    warnings.push(makeWarning('pipe-rating-unknown', 'system', model.doc.id, `No published rating in the catalog for: ${[...unrated].join(', ')}.`));
+  }
+
+  // Minimum static at the highest checked fixture.
+  let minStaticAtHighestFixture: StaticChecks['minStaticAtHighestFixture'] = null;
+  let minStaticPass = true;
+  const min = model.criteria.minStaticPressurePa;
+  if (min !== undefined && model.fixtures.length > 0) {
+    let highest = 0;
+    for (let k = 1; k < model.fixtures.length; k++) {
+      if (model.elevationM[model.fixtures[k].nodeIdx] > model.elevationM[model.fixtures[highest].nodeIdx]) highest = k;
+    }
+    const fx = model.fixtures[highest];
+    const low = hyd.nodeStaticLowPa[fx.nodeIdx];
+    const pass = low >= min;
+    minStaticAtHighestFixture = { fixtureId: fx.id, label: fx.label, staticLow: toDoc(low), minimum: toDoc(min), pass };
+    if (!pass) {
+      failures++;
+      minStaticPass = false;
+      const w = makeWarning(
+        'static-below-min-at-fixture',
+        'checked-fixture',
+        fx.id,
+        `${fx.label}: ${formatPressure(low, sys)} low static, the criteria ask for at least ${formatPressure(min, sys)}.`,
+      );
+      w.elementLabel = fx.label;
+      warnings.push(w);
+    }
+  }
+
+  return {
+    display: { boosters, prvFailOpen, pipeRatings, minStaticAtHighestFixture },
+    failures,
+    pipeRatingsPass,
+    minStaticPass,
+  };
+}
+
+/**
+ * High static pressure at every node with one PRV passing its inlet pressure (failed open), the
+ * other devices as in the hydraulics stage (hydraulics.ts, same operations in the same order).
+ */
+function staticHighWithout(model: SiModel, topo: Topology, elev: ElevationResult, failedId: string): Float64Array {
+  const rhoG = model.water.density * G;
+  const high = new Float64Array(model.nodeIds.length);
+  high[model.source.nodeIdx] = model.source.staticHighPa;
+  for (let k = 0; k < topo.order.length; k++) {
+    const s = topo.order[k];
+    const seg = model.segments[s];
+    let h = high[seg.from];
+    for (const d of model.devicesBySeg[s]) {
+      if (d.prv && d.id !== failedId) h = Math.min(h, d.prv.setPa);
+      const b = d.boost;
+      if (b && b.control === 'constant-speed') h += b.shutoffPa;
+      else if (b) h = Math.max(h, b.setPa);
+    }
+    high[seg.to] = h - rhoG * elev.riseM[s];
+  }
+  return high;
+}
+
+/** The nodes fed from each node (reached part of the tree). */
+function childNodes(model: SiModel, topo: Topology): Map<number, number[]> {
+  const children = new Map<number, number[]>();
+  for (let k = 0; k < topo.order.length; k++) {
+    const seg = model.segments[topo.order[k]];
+    const list = children.get(seg.from);
+    if (list) list.push(seg.to);
+    else children.set(seg.from, [seg.to]);
+  }
+  return children;
+}
+
+/** The node `root` and every node below it. */
+function subtreeNodes(children: Map<number, number[]>, root: number): number[] {
+  const out: number[] = [];
+  const stack = [root];
+  while (stack.length > 0) {
+    const n = stack.pop()!;
+    out.push(n);
+    for (const c of children.get(n) ?? []) stack.push(c);
+  }
+  return out;
+}

@@ -1,0 +1,79 @@
+/**
+ * The command line (`npm run calc` → scripts/calc.mjs → the prebuilt bundle dist-cli/calc.cjs):
+ * the same analysis as the engine, the same structured errors as the server (safeAnalyzeSystem),
+ * and a rebuild when the bundle is older than the engine's sources. (The product's own contract.)
+ */
+import { execFile } from 'node:child_process';
+import { mkdtempSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { promisify } from 'node:util';
+import { describe, expect, it } from 'vitest';
+import { analyzeSystem, safeAnalyzeSystem } from '../../../src/engine';
+
+const run = promisify(execFile);
+const ROOT = path.resolve(__dirname, '../../..');
+const LAUNCHER = path.join(ROOT, 'scripts', 'calc.mjs');
+const BUNDLE = path.join(ROOT, 'dist-cli', 'calc.cjs');
+const DEMO = path.join(ROOT, 'src', 'engine', 'examples', 'alder-finch-cold.json');
+const SMALL = path.join(ROOT, 'src', 'engine', 'examples', 'small-house.json');
+
+async function calc(...args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  try {
+    const { stdout, stderr } = await run(process.execPath, [LAUNCHER, ...args], { cwd: ROOT, maxBuffer: 64 * 1024 * 1024 });
+    return { code: 0, stdout, stderr };
+  } catch (e) {
+    const err = e as { code: number; stdout: string; stderr: string };
+    return { code: err.code, stdout: err.stdout, stderr: err.stderr };
+  }
+}
+
+function tempDoc(mutate: (doc: { segments: { length: number }[] }) => void): string {
+  const doc = JSON.parse(readFileSync(SMALL, 'utf8'));
+  mutate(doc);
+  const file = path.join(mkdtempSync(path.join(tmpdir(), 'headroom-calc-')), 'system.json');
+  writeFileSync(file, JSON.stringify(doc));
+  return file;
+}
+
+describe('npm run calc, from the prebuilt bundle', () => {
+  it('prints the same analysis as analyzeSystem on the demo building', async () => {
+    const r = await calc(DEMO);
+    expect(r.code).toBe(0);
+    const expected = analyzeSystem(JSON.parse(readFileSync(DEMO, 'utf8')));
+    expect(JSON.parse(r.stdout)).toEqual(JSON.parse(JSON.stringify(expected)));
+  });
+
+  it('a length of 1e308 answers value-out-of-range as the server does, exit code 1', async () => {
+    const file = tempDoc((d) => {
+      d.segments[0].length = 1e308;
+    });
+    const server = safeAnalyzeSystem(JSON.parse(readFileSync(file, 'utf8')));
+    expect(server.ok).toBe(false);
+    const r = await calc(file);
+    expect(r.code).toBe(1);
+    const error = JSON.parse(r.stderr);
+    expect(error.code).toBe('value-out-of-range');
+    if (!server.ok) expect(error).toEqual(server.error.toJSON());
+    expect(r.stdout).toBe('');
+  });
+
+  it('an unreadable file answers cannot-read; no arguments prints the usage with exit code 2', async () => {
+    const missing = await calc(path.join(tmpdir(), 'no-such-headroom-system.json'));
+    expect(missing.code).toBe(1);
+    expect(JSON.parse(missing.stderr).code).toBe('cannot-read');
+    const usage = await calc();
+    expect(usage.code).toBe(2);
+    expect(usage.stderr).toMatch(/usage/);
+  });
+
+  it('rebuilds the bundle when it is older than the engine sources', async () => {
+    await calc(SMALL); // make sure a bundle exists
+    const past = new Date('2001-01-01T00:00:00Z');
+    utimesSync(BUNDLE, past, past);
+    const r = await calc(SMALL);
+    expect(r.code).toBe(0);
+    expect(statSync(BUNDLE).mtimeMs).toBeGreaterThan(past.getTime() + 1000);
+    expect(JSON.parse(r.stdout).systemId).toBe('small-house');
+  });
+});
