@@ -8,7 +8,7 @@
 import { screen, waitFor } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import type { SystemDocument } from '../../src/engine';
-import { analyzeSystem } from '../../src/engine';
+import { analyzeSystem, nodeElevations } from '../../src/engine';
 import { buildRiser, floorsFromTable } from '../../src/engine/building/riserBuilder';
 import type { UnitType } from '../../src/engine/building/schema';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
@@ -79,7 +79,7 @@ describe('the building page', () => {
     const expected = buildRiser({
       floors,
       startNodeId: start,
-      startElevation: demo.nodes.find((n) => n.id === start)!.elevation,
+      startElevation: nodeElevations(demo).get(start)!,
       riser: { material: 'copper-l', sizes: [{ fromFloor: floors[0].id, size: '2' }], fromFloor: floors[0].id, toFloor: floors[2].id, footLength: 0 },
       floorMain: { material: 'copper-l', size: '1-1/4', heightAboveFloor: 0 },
       units: [{ unitTypeId: TYPE.id, labelPattern: 'Unit {floor}-{n}', mainLength: 8 }],

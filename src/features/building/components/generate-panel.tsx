@@ -18,7 +18,7 @@ export function GeneratePanel({ pending, onConfirm, onCancel, done, onUndo, fail
   return (
     <div className="flex flex-col gap-3">
       {pending ? (
-        <Alert tone="caution" title={`Replace ${pending.segmentLabels.length} segment${pending.segmentLabels.length === 1 ? '' : 's'} after “${pending.startLabel}”?`}>
+        <Alert tone="caution" title={`Replace ${pending.segmentLabels.length} segment${pending.segmentLabels.length === 1 ? '' : 's'} and unit${pending.segmentLabels.length === 1 ? '' : 's'} after “${pending.startLabel}”?`}>
           <p data-testid="replace-list">
             {pending.segmentLabels.slice(0, 12).join(', ')}
             {pending.segmentLabels.length > 12 ? ` and ${pending.segmentLabels.length - 12} more` : ''}

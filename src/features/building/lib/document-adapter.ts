@@ -3,8 +3,7 @@
  * page works on the building module's own shapes (floors, unit types, placements, the riser
  * builder's output); when the document's format changes, only this file does.
  */
-import type { SystemDocument } from '../../../engine';
-import { expandPlacements } from '../../../engine/building/expand';
+import { nodeElevations, type SystemDocument } from '../../../engine';
 import type { Floor, GeneratedBuilding } from '../../../engine/building/riserBuilder';
 import { PlacementSchema, type Placement, type UnitType } from '../../../engine/building/schema';
 
@@ -20,18 +19,16 @@ type DocSegment = Doc['segments'][number];
 
 /** The floors, unit types and placements the document keeps (none in a document without them). */
 export function readBuilding(doc: Doc): BuildingData {
-  const d = doc as Doc & Partial<BuildingData>;
-  return { floors: d.floors ?? [], unitTypes: d.unitTypes ?? [], placements: d.placements ?? [] };
+  return { floors: doc.floors ?? [], unitTypes: doc.unitTypes ?? [], placements: doc.placements ?? [] };
 }
 
-/** A node's elevation in the document's length unit, or null when the document does not give it. */
+/** A node's elevation in the document's length unit (absolute, on its floor, or by rises), or null when the document does not place it. */
 export function nodeElevation(doc: Doc, nodeId: string): number | null {
-  const node = doc.nodes.find((n) => n.id === nodeId);
-  return node && Number.isFinite(node.elevation) ? node.elevation : null;
+  return nodeElevations(doc).get(nodeId) ?? null;
 }
 
-/** The segments and nodes downstream of a node (what "replace" takes away), in tree order. */
-export function downstreamOf(doc: Doc, startNodeId: string): { segments: DocSegment[]; nodes: DocNode[] } {
+/** The segments, nodes and placements after a node (what "replace" takes away), in tree order. */
+export function downstreamOf(doc: Doc, startNodeId: string): { segments: DocSegment[]; nodes: DocNode[]; placements: Placement[] } {
   const children = new Map<string, DocSegment[]>();
   for (const s of doc.segments) children.set(s.from, [...(children.get(s.from) ?? []), s]);
   const segments: DocSegment[] = [];
@@ -45,7 +42,8 @@ export function downstreamOf(doc: Doc, startNodeId: string): { segments: DocSegm
       stack.push(s.to);
     }
   }
-  return { segments, nodes: doc.nodes.filter((n) => nodeIds.has(n.id)) };
+  const placements = (doc.placements ?? []).filter((p) => p.at === startNodeId || nodeIds.has(p.at));
+  return { segments, nodes: doc.nodes.filter((n) => nodeIds.has(n.id)), placements };
 }
 
 /** Every generated id (nodes, segments, placements) with a prefix, so a second riser can sit beside the first. */
@@ -66,38 +64,33 @@ export interface GenerateOptions {
 }
 
 /**
- * The draft with the generated building written in: one change. The unit types of the building
- * replace those of the same id. Throws an Error with a plain message when the result would
- * contradict itself (a floor of the same name at another elevation).
+ * The draft with the generated building written in: one change. Riser and main nodes sit on
+ * their floors (no rise is written: the floors give the climb); the units stay placements of
+ * their types, which the analysis expands. The unit types of the building replace those of the
+ * same id. Throws an Error with a plain message when the result would contradict itself (a floor
+ * of the same name at another elevation, an id the draft already uses).
  */
 export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: readonly UnitType[], opts: GenerateOptions): Doc {
   const before = readBuilding(doc);
   const floors = mergeFloors(before.floors, built.floors);
-  const removed = opts.mode === 'replace' ? downstreamOf(doc, opts.startNodeId) : { segments: [], nodes: [] };
+  const removed = opts.mode === 'replace' ? downstreamOf(doc, opts.startNodeId) : { segments: [], nodes: [], placements: [] };
   const goneSegments = new Set(removed.segments.map((s) => s.id));
   const goneNodes = new Set(removed.nodes.map((n) => n.id));
-  const types = [...before.unitTypes.filter((t) => !unitTypes.some((u) => u.id === t.id)), ...unitTypes];
-  const placements = [...before.placements.filter((p) => !goneNodes.has(p.at)), ...built.placements.map((p) => PlacementSchema.parse(p))];
-  const floorElevation = new Map(floors.map((f) => [f.id, f.elevation]));
-  // This document format keeps absolute node elevations and no placements: the building is
-  // written out as ordinary nodes and segments (its floors fix every elevation).
-  const placed = expandPlacements(types, placements, new Set(floors.map((f) => f.id)), new Set([...doc.nodes.map((n) => n.id), ...built.nodes.map((n) => n.id)]));
-  const newNodes: DocNode[] = [...built.nodes, ...placed.nodes].map((n) => ({
-    id: n.id,
-    label: n.label,
-    elevation: floorElevation.get(n.floor)! + n.heightAboveFloor,
-    fixtureGroups: 'fixtureGroups' in n ? n.fixtureGroups : [],
-    checkedFixtures: 'checkedFixtures' in n ? n.checkedFixtures : [],
-  }));
-  const newSegments: DocSegment[] = [...built.segments, ...placed.segments].map((s) => ({ ...s, reducerAuto: true }) as DocSegment);
+  const gonePlacements = new Set(removed.placements.map((p) => p.id));
   const keptNodes = doc.nodes.filter((n) => !goneNodes.has(n.id));
-  const clash = newNodes.find((n) => keptNodes.some((k) => k.id === n.id));
-  if (clash) throw new Error(`The draft already has a point “${clash.label ?? clash.id}”: replace what follows the start point, or start the new riser elsewhere.`);
+  const keptPlacements = before.placements.filter((p) => !gonePlacements.has(p.id));
+  const clash = built.nodes.find((n) => keptNodes.some((k) => k.id === n.id)) ?? built.placements.find((p) => keptPlacements.some((k) => k.id === p.id));
+  if (clash) throw new Error(`The draft already has “${clash.label ?? clash.id}”: replace what follows the start point, or start the new riser elsewhere.`);
+  const newNodes: DocNode[] = built.nodes.map((n) => ({ id: n.id, label: n.label, floor: n.floor, heightAboveFloor: n.heightAboveFloor, fixtureGroups: [], checkedFixtures: [] }));
+  const newSegments: DocSegment[] = built.segments.map((s) => ({ ...s, reducerAuto: true }));
   return {
     ...doc,
+    floors,
     devices: doc.devices.filter((d) => !goneSegments.has(d.segmentId)),
     nodes: [...keptNodes, ...newNodes],
     segments: [...doc.segments.filter((s) => !goneSegments.has(s.id)), ...newSegments],
+    unitTypes: [...before.unitTypes.filter((t) => !unitTypes.some((u) => u.id === t.id)), ...unitTypes],
+    placements: [...keptPlacements, ...built.placements.map((p) => PlacementSchema.parse(p))],
   };
 }
 
@@ -111,14 +104,13 @@ function mergeFloors(existing: readonly Floor[], added: readonly Floor[]): Floor
   return out.sort((a, b) => a.elevation - b.elevation);
 }
 
-/** The draft with a unit type changed (every placement of it follows). */
+/** The draft with a unit type changed: every placement of it follows (the analysis expands them). */
 export function writeUnitType(doc: Doc, type: UnitType): Doc {
-  void type;
-  return doc;
+  const types = doc.unitTypes ?? [];
+  return { ...doc, unitTypes: types.some((t) => t.id === type.id) ? types.map((t) => (t.id === type.id ? type : t)) : [...types, type] };
 }
 
 /** The draft with one placement changed (its overrides). */
 export function writePlacement(doc: Doc, placement: Placement): Doc {
-  void placement;
-  return doc;
+  return { ...doc, placements: (doc.placements ?? []).map((p) => (p.id === placement.id ? placement : p)) };
 }

@@ -58,10 +58,11 @@ export function BuildingPage() {
       if (start === null) return setFailure('The start point has no elevation yet.');
       try {
         const built = buildFromForm(v, start);
-        const replaced = v.riser.mode === 'replace' ? downstreamOf(document, v.riser.startNodeId).segments : [];
+        const gone = v.riser.mode === 'replace' ? downstreamOf(document, v.riser.startNodeId) : null;
+        const replaced = gone ? [...gone.segments.map((s) => s.label ?? s.id), ...gone.placements.map((p) => p.label)] : [];
         if (replaced.length > 0 && !confirmed) {
           const startNode = document.nodes.find((n) => n.id === v.riser.startNodeId);
-          return setPending({ startLabel: startNode?.label ?? v.riser.startNodeId, segmentLabels: replaced.map((s) => s.label ?? s.id) });
+          return setPending({ startLabel: startNode?.label ?? v.riser.startNodeId, segmentLabels: replaced });
         }
         const next = writeGenerated(document, built.built, built.unitTypes, { startNodeId: v.riser.startNodeId, mode: v.riser.mode });
         setPending(null);
