@@ -8,9 +8,13 @@ import type { PipingRow, UnitTypeForm } from './form';
 
 const slug = (name: string) => name.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'point';
 
-function uniqueIds(names: readonly string[]): string[] {
-  const taken = new Set<string>([UNIT_INLET]);
-  return names.map((name) => {
+/** A row read from a stored unit type keeps its node id (placements' overrides and checked fixtures refer to it); a new row gets one from its name. */
+const isNewRow = (key: string) => key.startsWith('row-');
+
+function uniqueIds(rows: readonly { key: string; name: string }[]): string[] {
+  const taken = new Set<string>([UNIT_INLET, ...rows.filter((r) => !isNewRow(r.key)).map((r) => r.key)]);
+  return rows.map(({ key, name }) => {
+    if (!isNewRow(key)) return key;
     const base = slug(name);
     let id = base;
     for (let n = 2; taken.has(id); n++) id = `${base}-${n}`;
@@ -23,7 +27,7 @@ function uniqueIds(names: readonly string[]): string[] {
 export const segmentIdFor = (rowIndex: number, nodeId: string) => (rowIndex === 0 ? 'branch' : `to-${nodeId}`);
 
 export function unitTypeFromForm(form: UnitTypeForm): UnitType {
-  const ids = uniqueIds(form.rows.map((r) => r.name));
+  const ids = uniqueIds(form.rows);
   const byKey = new Map(form.rows.map((r, i) => [r.key, ids[i]]));
   return {
     id: form.id,
