@@ -69,16 +69,14 @@ async function enterBuilding(page: Page, storeys: number): Promise<Counter> {
   await c.select(first.getByLabel('Service pipe size'), service.size);
   await c.fill(first.getByLabel('Service pipe length (ft)'), String(service.length));
   // Version 2 documents place a node by its elevation or by its feed segment's rise, never both:
-  // the walk's new segments carry both (a rise of 0 and the upstream node's elevation), so the
-  // rise is cleared and the nodes keep the connection's elevation, as the reference building has.
+  // the walk's new service pipe carries both (a rise of 0 and the connection's elevation on its
+  // end), so its rise is cleared; the next segments' rise of 0 places their nodes at that level.
   await c.fill(first.getByLabel('Service pipe rise (ft)'), '');
   await c.click(page.getByRole('button', { name: 'Add a segment from Building entry' }));
   await c.fill(page.getByLabel('seg-1 length (ft)'), String(meterSet.length));
-  await c.fill(page.getByLabel('seg-1 rise (ft)'), '');
   await c.click(page.getByRole('button', { name: 'Add a segment from node-1' }));
   await c.select(page.getByLabel('seg-2 material'), backflowSet.material);
   await c.fill(page.getByLabel('seg-2 length (ft)'), String(backflowSet.length));
-  await c.fill(page.getByLabel('seg-2 rise (ft)'), '');
   await c.click(step(page, 'Fittings'));
   for (const [name, seg] of [['Service pipe', service], ['seg-1', meterSet]] as const) {
     await c.click(page.getByRole('button', { name: `Add a fitting to ${name}`, exact: true }));
