@@ -10,7 +10,7 @@ import { expect, test } from '@playwright/test';
 import type { Locator, Page } from '@playwright/test';
 import { analyzeSystem } from '../src/engine';
 import { apartmentBuildingDocument, APARTMENT_BRANCH_LENGTHS_FT } from '../src/engine/building/apartmentBuilding';
-import { FIXTURE_TYPES } from '../src/engine/catalog/fixtures';
+import { matchFixtureType } from '../src/engine/building/schedule';
 import { signed } from '../src/features/walk/lib/format';
 import { DEMO, shot, signIn } from './helpers';
 
@@ -32,6 +32,16 @@ class Counter {
     await target.click();
   }
 }
+
+/** The unit's fixtures in the trade's words. */
+const TRADE_WORDS: Record<string, string> = {
+  'water-closet-flush-tank-private': 'water closet, flush tank',
+  'lavatory-private': 'lavatory',
+  'shower-private': 'shower',
+  'kitchen-sink-private': 'kitchen sink',
+  'dishwasher-private': 'dishwasher',
+  'clothes-washer-private': 'clothes washer',
+};
 
 const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name, exact: true });
 const ref = (storeys: number) => apartmentBuildingDocument(storeys);
@@ -112,7 +122,12 @@ async function enterBuilding(page: Page, storeys: number): Promise<Counter> {
   await c.fill(page.getByLabel(`${typeName}, unit manifold length`), String(branch.length));
   await c.fill(page.getByLabel(`${typeName}, unit manifold height above floor`), String(manifold.heightAboveFloor));
   // the fixtures, their heights and branches: one schedule pasted from a spreadsheet
-  const fixtures = unit.nodes.slice(1).map((node) => ({ node, seg: unit.segments.find((s) => s.to === node.id)!, type: FIXTURE_TYPES[node.fixtureGroups[0].fixtureTypeId] }));
+  const fixtures = unit.nodes.slice(1).map((node) => {
+    const id = node.fixtureGroups[0].fixtureTypeId;
+    // the schedule's words as a designer writes them, checked to name the same catalog type
+    expect(matchFixtureType(TRADE_WORDS[id], 'private')?.id).toBe(id);
+    return { node, seg: unit.segments.find((s) => s.to === node.id)!, type: { label: TRADE_WORDS[id] } };
+  });
   const schedule = [
     'floor\tunit\tfixture\tcount\theight\tlength\tsize\tcheck',
     ...fixtures.map(({ node, seg, type }) => ['typical', typeName, type.label, node.fixtureGroups[0].count, node.heightAboveFloor, seg.length, seg.size, node.checkedFixtures.length ? 'yes' : ''].join('\t')),
@@ -174,7 +189,7 @@ test('when a new user enters the 4-storey, 16-apartment building, then it takes 
   const shower = unit.segments.find((s) => s.to === 'shower')!;
   const longer = shower.length * 2;
   await page.goto(page.url().replace(/\/result$/, '/building'));
-  const label = `${unit.name}, ${FIXTURE_TYPES['shower-private'].label} length`;
+  const label = `${unit.name}, ${TRADE_WORDS['shower-private']} length`;
   await page.getByLabel(label, { exact: true }).fill(String(longer));
   await page.getByRole('button', { name: 'Apply unit types to every placement' }).click();
   await expect(page.getByTestId('generated')).toContainText(`${doc.placements.length} placements`);
