@@ -7,6 +7,7 @@ import { Navigate, useParams } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
 import { guarded } from '../../components/errors/route-error-boundary';
 import { walkPaths } from './paths';
+import { buildingRevisionRoutes } from '../building/routes';
 
 /** The revision's own address opens its first step. */
 function RevisionIndex() {
@@ -29,6 +30,7 @@ export const walkRoutes: RouteObject[] = [
     children: [
       { index: true, Component: RevisionIndex },
       { path: walkPaths.table.path, lazy: async () => ({ Component: (await import('./pages/segment-table-page')).SegmentTablePage }) },
+      ...buildingRevisionRoutes,
       { path: walkPaths.diagram.path, lazy: async () => ({ Component: (await import('./pages/riser-diagram-page')).RiserDiagramPage }) },
       { path: walkPaths.step.path, lazy: async () => ({ Component: (await import('./pages/step-page')).StepPage }) },
     ],

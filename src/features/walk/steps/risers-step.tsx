@@ -13,6 +13,8 @@ import { groupWithProjectData, matchProjectPipe, pipeFromProjectEntry, projectEn
 import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
+import { Link } from 'react-router-dom';
+import { buildingPaths } from '../../building/paths';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
 import { plural } from '../lib/verdict';
@@ -375,6 +377,7 @@ export function RisersStep() {
         segment runs from a node toward the fixtures. Give each its material, size, developed length and rise; at each
         node, the fixtures it serves. The fixture units and the design flow of each segment follow live.
       </StepIntro>
+      {scope === 'design' ? <p className="mb-4"><Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>Build from floors: floors, typical units and a riser from a short form →</Link></p> : null}
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
         <div aria-live="polite">
           {undo ? (
