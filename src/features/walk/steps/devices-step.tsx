@@ -330,7 +330,11 @@ export function DevicesStep() {
   );
 }
 
-/** The first segment of a new system: from the connection to a new entry node at the same elevation. */
+/**
+ * The first segment of a new system: from the connection to a new entry node at the same elevation.
+ * The entry node carries that elevation itself, so the service pipe has no rise of its own (document
+ * version 2: one position per node); typing a rise on it at the pipe step moves the entry node.
+ */
 export function addServiceSegment(doc: SystemDocument, material: string | undefined, size: string | undefined): SystemDocument {
   const from = doc.source.nodeId;
   const fromNode = doc.nodes.find((n) => n.id === from);
@@ -341,7 +345,7 @@ export function addServiceSegment(doc: SystemDocument, material: string | undefi
     segments: [
       ...doc.segments,
       // 10 length units: a placeholder the designer replaces with the measured run.
-      { id: freshId('service', doc.segments.map((s) => s.id)), label: 'Service pipe', from, to, material, size, length: 10, rise: 0, fittings: [], reducerAuto: true },
+      { id: freshId('service', doc.segments.map((s) => s.id)), label: 'Service pipe', from, to, material, size, length: 10, fittings: [], reducerAuto: true },
     ],
   };
 }
