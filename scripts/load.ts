@@ -33,7 +33,7 @@ const cleanup = async () => {
 };
 process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
 
-let failed = false;
+let failed: boolean;
 try {
   server = await startServer({ DATABASE_URL: cluster.url });
   const db = createDb(cluster.url);

@@ -49,7 +49,7 @@ export function firstOverBound(body: unknown, bounds: Bounds = BODY_BOUNDS): [st
       for (let i = value.length - 1; i >= 0; i--) if (value[i] !== null && typeof value[i] === 'object') stack.push([value[i], at(String(i))]);
     } else {
       let n = 0;
-      for (const k in value) {
+      for (const _key in value) {
         if (++n > bounds.maxObjectKeys) return [here, `Has more than ${bounds.maxObjectKeys} fields`];
       }
       // pushed last key first, so the walk (and the field it names) follows the body's order

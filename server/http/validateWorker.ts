@@ -3,7 +3,7 @@
  * body large enough to hold the event loop (a maximum-size document takes 50–120 ms to validate on
  * a busy 2-core machine), so other users' requests are answered meanwhile.
  */
-import { checkValue, type Checked } from './validate';
+import { checkValue } from './validate';
 import { SaveDocumentBody } from '../../src/shared/api/systems';
 import { UpdateFieldChangeBody } from '../../src/shared/api/fieldChanges';
 import { SystemDocumentSchema } from '../../src/engine/model/schema';

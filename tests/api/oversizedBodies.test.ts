@@ -7,7 +7,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { monitorEventLoopDelay } from 'node:perf_hooks';
-import { makeUser, projectWithRoles, startHarness, type Harness } from './support/harness';
+import { projectWithRoles, startHarness, type Harness } from './support/harness';
 import { listen, UrlClient } from './support/hardening';
 import { smallDocument } from './support/documents';
 import { MAX_REPORTED_FIELDS } from '../../server/http/errors';
@@ -46,7 +46,7 @@ function bodyOf(count: number, element: string): string {
   return text.replace('["@N"]', `[${list}]`).replace('["@S"]', `[${list}]`);
 }
 
-function expectShortReport(res: { status: number; text: string; body: any }, maxFields = MAX_REPORTED_FIELDS + 1) {
+function expectShortReport(res: { status: number; text: string; body: { error: { code: string; fields?: Record<string, string> } } }, maxFields = MAX_REPORTED_FIELDS + 1) {
   expect(res.status).toBe(400);
   expect(res.body.error.code).toBe('VALIDATION_FAILED');
   const fields = Object.keys(res.body.error.fields ?? {});

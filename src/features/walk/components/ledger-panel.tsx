@@ -61,6 +61,7 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
   const stamp = useRef(0);
   const ledger = useMemo(() => (live.ok ? criticalLedger(live.analysis) : null), [live]);
   // Changes with every new analysis, so a test can tell when the panel has caught up.
+  // eslint-disable-next-line react-hooks/exhaustive-deps -- `live` is the trigger: a new analysis object, a new stamp
   const renderStamp = useMemo(() => ++stamp.current, [live]);
 
   let body: React.ReactNode;

@@ -96,7 +96,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
   const points = useFieldArray({ control, name: `devices.${index}.points` });
   const [pasted, setPasted] = useState('');
   const [problems, setProblems] = useState<string[]>([]);
-  const usePoints = (text: string) => {
+  const applyPoints = (text: string) => {
     const result = parseCurvePoints(text);
     setProblems(result.errors);
     if (result.errors.length === 0) {
@@ -130,7 +130,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
                     const text = ev.clipboardData.getData('text');
                     if (/\n/.test(text.trim())) {
                       ev.preventDefault();
-                      usePoints(text);
+                      applyPoints(text);
                     }
                   }}
                   {...register(`devices.${index}.points.${k}.flow`, numberInput)}
@@ -161,7 +161,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
             className="mt-1 block text-sm"
             onChange={async (ev) => {
               const file = ev.target.files?.[0];
-              if (file) usePoints(await file.text());
+              if (file) applyPoints(await file.text());
               ev.target.value = '';
             }}
           />
@@ -174,7 +174,7 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
         onChange={(ev) => setPasted(ev.target.value)}
       />
       <div>
-        <Button variant="secondary" onClick={() => usePoints(pasted)} disabled={pasted.trim() === ''}>
+        <Button variant="secondary" onClick={() => applyPoints(pasted)} disabled={pasted.trim() === ''}>
           Use the pasted points
         </Button>
       </div>
