@@ -26,6 +26,8 @@ const BY_FIELD: Record<string, LimitQuantity> = {
   boostGain: 'pressureGain',
   designGain: 'pressureGain',
   shutoffGain: 'pressureGain',
+  boostShutoff: 'pressureGain',
+  boostSet: 'pressureSetting',
   prvFalloff: 'pressureFalloff',
   fixedLoss: 'pressureLoss',
   loss: 'pressureLoss',

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { useFieldArray } from 'react-hook-form';
+import { useFieldArray, useWatch } from 'react-hook-form';
 import type { Control, FieldErrors, UseFormRegister, UseFormSetValue } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
@@ -43,6 +43,10 @@ const row = z
     prvSet: z.unknown().optional(),
     prvFalloff: z.unknown().optional(),
     boostGain: z.unknown().optional(),
+    /** constant speed: gain at the design point and at shutoff (the static check takes shutoff); variable speed: the discharge it holds */
+    boostControl: z.enum(['constant-speed', 'variable-speed']).optional(),
+    boostShutoff: z.unknown().optional(),
+    boostSet: z.unknown().optional(),
   })
   .transform((r, ctx): Device => {
     const candidate = {
@@ -52,13 +56,20 @@ const row = z
       segmentId: r.segmentId,
       loss: r.lossKind === 'fixed' ? { kind: 'fixed' as const, loss: r.fixedLoss } : { kind: 'curve' as const, points: r.points },
       ...(r.kind === 'prv' ? { prv: { setPressure: r.prvSet, falloffPerFlow: r.prvFalloff ?? 0 } } : {}),
-      ...(r.kind === 'booster-pump' ? { boost: { gain: r.boostGain } } : {}),
+      ...(r.kind === 'booster-pump'
+        ? {
+            boost:
+              r.boostControl === 'variable-speed'
+                ? { control: 'variable-speed' as const, setPressure: r.boostSet }
+                : { control: 'constant-speed' as const, designGain: r.boostGain, shutoffGain: r.boostShutoff },
+          }
+        : {}),
     };
     const parsed = DeviceSchema.safeParse(candidate);
     if (parsed.success) return parsed.data;
     for (const issue of parsed.error.issues) {
       const [first, second] = issue.path.map(String);
-      const path = first === 'loss' ? (r.lossKind === 'fixed' ? ['fixedLoss'] : ['points']) : first === 'prv' ? [second === 'falloffPerFlow' ? 'prvFalloff' : 'prvSet'] : first === 'boost' ? ['boostGain'] : [first];
+      const path = first === 'loss' ? (r.lossKind === 'fixed' ? ['fixedLoss'] : ['points']) : first === 'prv' ? [second === 'falloffPerFlow' ? 'prvFalloff' : 'prvSet'] : first === 'boost' ? [second === 'shutoffGain' ? 'boostShutoff' : second === 'setPressure' ? 'boostSet' : 'boostGain'] : [first];
       ctx.addIssue({ code: 'custom', path, message: plainError(issue.message) ?? issue.message });
     }
     return z.NEVER;
@@ -79,7 +90,55 @@ function toRow(d: Device): DeviceRow {
     prvSet: d.prv?.setPressure,
     prvFalloff: d.prv?.falloffPerFlow ?? 0,
     boostGain: d.boost ? boosterDesignGain(d.boost) ?? undefined : undefined,
+    boostControl: d.boost && 'control' in d.boost ? d.boost.control : 'constant-speed',
+    // a version-1 booster (one gain) has no shutoff: the field stays empty until the designer enters it
+    boostShutoff: d.boost && 'control' in d.boost && d.boost.control === 'constant-speed' ? d.boost.shutoffGain : undefined,
+    boostSet: d.boost && 'control' in d.boost && d.boost.control === 'variable-speed' ? d.boost.setPressure : undefined,
   };
+}
+
+/**
+ * A booster by its control: a constant-speed pump adds its design gain at design flow and more at
+ * shutoff (the static check takes the shutoff gain from the pump curve); a variable-speed package
+ * holds its set discharge pressure.
+ */
+function BoosterFields({ index, register, control, errors, pressureUnit }: {
+  index: number;
+  register: UseFormRegister<DevicesForm>;
+  control: Control<DevicesForm>;
+  errors: FieldErrors<DeviceRow> | undefined;
+  pressureUnit: string;
+}) {
+  const boostControl = useWatch({ control, name: `devices.${index}.boostControl` });
+  const n = index + 1;
+  return (
+    <>
+      <label className="flex flex-col gap-1 text-sm font-semibold">
+        Pump control
+        <select className="rounded-md border-2 border-rule px-2 py-1" aria-label={`Device ${n} pump control`} {...register(`devices.${index}.boostControl`)}>
+          <option value="constant-speed">Constant speed (pump curve)</option>
+          <option value="variable-speed">Variable speed (holds a discharge pressure)</option>
+        </select>
+      </label>
+      {boostControl === 'variable-speed' ? (
+        <label className="flex flex-col gap-1 text-sm font-semibold">
+          Discharge pressure held ({pressureUnit})
+          <CellInput label={`Device ${n} booster discharge pressure (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostSet?.message)} {...register(`devices.${index}.boostSet`, numberInput)} />
+        </label>
+      ) : (
+        <>
+          <label className="flex flex-col gap-1 text-sm font-semibold">
+            Pressure added at design flow ({pressureUnit})
+            <CellInput label={`Device ${n} booster gain (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostGain?.message)} {...register(`devices.${index}.boostGain`, numberInput)} />
+          </label>
+          <label className="flex flex-col gap-1 text-sm font-semibold">
+            Pressure added at shutoff ({pressureUnit})
+            <CellInput label={`Device ${n} booster shutoff gain (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostShutoff?.message)} {...register(`devices.${index}.boostShutoff`, numberInput)} />
+          </label>
+        </>
+      )}
+    </>
+  );
 }
 
 /** Six significant figures: a template's converted points without binary noise (0.1 + 0.2 …). */
@@ -216,7 +275,7 @@ export function DevicesStep() {
     if (projectTemplate) {
       // a project template: its kind and curve are copied into the device (the document does not refer to the entry)
       const copied = deviceFromProjectTemplate(projectTemplate, sys);
-      devices.append({ id: freshId(copied.kind, takenIds()), kind: copied.kind, label: copied.label, segmentId: firstSegment, lossKind: 'curve', fixedLoss: 0, points: copied.points, prvSet: undefined, prvFalloff: 0, boostGain: undefined });
+      devices.append({ id: freshId(copied.kind, takenIds()), kind: copied.kind, label: copied.label, segmentId: firstSegment, lossKind: 'curve', fixedLoss: 0, points: copied.points, prvSet: undefined, prvFalloff: 0, boostGain: undefined, boostControl: 'constant-speed', boostShutoff: undefined, boostSet: undefined });
       return;
     }
     const t = catalog.deviceTemplates.find((d) => d.id === template);
@@ -232,6 +291,9 @@ export function DevicesStep() {
       prvSet: undefined,
       prvFalloff: 0,
       boostGain: undefined,
+      boostControl: 'constant-speed',
+      boostShutoff: undefined,
+      boostSet: undefined,
     });
   };
 
@@ -288,12 +350,7 @@ export function DevicesStep() {
                     </label>
                   </>
                 ) : null}
-                {kind === 'booster-pump' ? (
-                  <label className="flex flex-col gap-1 text-sm font-semibold">
-                    Pressure added at design flow ({units.pressure})
-                    <CellInput label={`Device ${i + 1} booster gain (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.boostGain?.message)} {...register(`devices.${i}.boostGain`, numberInput)} />
-                  </label>
-                ) : null}
+                {kind === 'booster-pump' ? <BoosterFields index={i} register={register} control={control} errors={err} pressureUnit={units.pressure} /> : null}
               </div>
               {lossKind === 'curve' ? (
                 <div className="mt-4">
@@ -312,7 +369,7 @@ export function DevicesStep() {
           <Button
             variant="secondary"
             onClick={() =>
-              devices.append({ id: freshId('device', takenIds()), kind: 'backflow-preventer', label: '', segmentId: firstSegment, lossKind: 'fixed', fixedLoss: Number.NaN, points: [{ flow: Number.NaN, loss: Number.NaN }], prvSet: undefined, prvFalloff: 0, boostGain: undefined })
+              devices.append({ id: freshId('device', takenIds()), kind: 'backflow-preventer', label: '', segmentId: firstSegment, lossKind: 'fixed', fixedLoss: Number.NaN, points: [{ flow: Number.NaN, loss: Number.NaN }], prvSet: undefined, prvFalloff: 0, boostGain: undefined, boostControl: 'constant-speed', boostShutoff: undefined, boostSet: undefined })
             }
           >
             Add a device
