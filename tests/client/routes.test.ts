@@ -7,6 +7,7 @@ import { walkPaths } from '../../src/features/walk/paths';
 import { summaryPaths } from '../../src/features/summaries/paths';
 import { catalogPaths } from '../../src/features/catalog/paths';
 import { fieldChangePaths } from '../../src/features/field-changes/paths';
+import { buildingPaths } from '../../src/features/building/paths';
 import { fieldChangeViewPath } from '../../src/shared/api/fieldChanges';
 
 function allPatterns(list: RouteObject[]): string[] {
@@ -14,7 +15,7 @@ function allPatterns(list: RouteObject[]): string[] {
 }
 
 // the app's table and the features' own tables (a feature composes its routes from its table)
-const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths), ...Object.values(fieldChangePaths), ...Object.values(catalogPaths)].map((entry) => entry.path);
+const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths), ...Object.values(fieldChangePaths), ...Object.values(catalogPaths), ...Object.values(buildingPaths)].map((entry) => entry.path);
 
 describe('route table', () => {
   it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {
