@@ -6,7 +6,18 @@ import type { Knex } from 'knex';
  * (only issued → superseded may change), and, under the service's own checks, a revision is never
  * issued while incomplete or unanalysed, nor failing without the designer's acknowledgement.
  */
-const FUNCTION = `
+const ISSUE_RULES = `
+    -- issuing: never an incomplete or unanalysed revision, never a failing one without its acknowledgement
+    IF OLD.status = 'draft' AND NEW.status <> 'draft' THEN
+      IF (NEW.analysis->>'ok') IS DISTINCT FROM 'true' OR NEW.analysis->'analysis'->'verdict'->>'status' = 'incomplete' THEN
+        RAISE EXCEPTION 'revision % is incomplete; it cannot be issued', OLD.id;
+      END IF;
+      IF NEW.analysis->'analysis'->'verdict'->>'status' = 'fail' AND NEW.failure_ack_statement IS NULL THEN
+        RAISE EXCEPTION 'revision % fails; it is issued only with an acknowledgement', OLD.id;
+      END IF;
+    END IF;`;
+
+const functionWith = (issueRules: string) => `
   CREATE OR REPLACE FUNCTION revisions_frozen() RETURNS trigger AS $$
   BEGIN
     IF OLD.status <> 'draft' THEN
@@ -20,24 +31,16 @@ const FUNCTION = `
         RAISE EXCEPTION 'revision % is %, it cannot change', OLD.id, OLD.status;
       END IF;
     END IF;
-    -- issuing: never an incomplete or unanalysed revision, never a failing one without its acknowledgement
-    IF OLD.status = 'draft' AND NEW.status <> 'draft' THEN
-      IF (NEW.analysis->>'ok') IS DISTINCT FROM 'true' OR NEW.analysis->'analysis'->'verdict'->>'status' = 'incomplete' THEN
-        RAISE EXCEPTION 'revision % is incomplete; it cannot be issued', OLD.id;
-      END IF;
-      IF NEW.analysis->'analysis'->'verdict'->>'status' = 'fail' AND NEW.failure_ack_statement IS NULL THEN
-        RAISE EXCEPTION 'revision % fails; it is issued only with an acknowledgement', OLD.id;
-      END IF;
-    END IF;
+${issueRules}
     RETURN NEW;
   END $$ LANGUAGE plpgsql;
 `;
 
 export async function up(knex: Knex): Promise<void> {
-  await knex.raw(FUNCTION);
+  await knex.raw(functionWith(ISSUE_RULES));
 }
 
 export async function down(knex: Knex): Promise<void> {
   // The function as the freeze migration (20261202200000) left it: the issue rules go.
-  await knex.raw(FUNCTION.replace(/-- issuing:[\s\S]*?END IF;\n    END IF;\n/, ''));
+  await knex.raw(functionWith(''));
 }
