@@ -1,6 +1,14 @@
 import type { EngineWarning } from '../../../engine';
 
 const SEVERITY_WORDS = { fail: 'Fails a criterion', caution: 'Caution', note: 'Note' } as const;
+
+/** What a warning is about, in the words the designer typed (the engine's label), never an internal id. */
+function aboutText(w: EngineWarning): string {
+  const many = w.elementIds && w.elementIds.length > 1 ? w.elementIds.length : 0;
+  if (many > 0) return `${many} ${w.elementType.replace(/-/g, ' ')}s`;
+  if (w.elementLabel) return w.elementLabel;
+  return w.elementType.replace(/-/g, ' ');
+}
 const SEVERITY_MARKS = { fail: '▲', caution: '◆', note: '●' } as const;
 
 /** Engine warnings in plain words: the message, what it is about, and the numbers involved. */
@@ -19,8 +27,7 @@ export function WarningList({ title, warnings, empty }: { title: string; warning
                 {SEVERITY_WORDS[w.severity]}: {w.message}
               </p>
               <p className="text-ink-soft">
-                {w.elementType}
-                {w.elementIds && w.elementIds.length > 1 ? ` (${w.elementIds.length}): ${w.elementIds.slice(0, 8).join(', ')}${w.elementIds.length > 8 ? ', …' : ''}` : w.elementId ? ` ${w.elementId}` : ''}
+                {aboutText(w)}
                 {w.detail ? ` — ${w.detail}` : ''}
               </p>
             </li>
