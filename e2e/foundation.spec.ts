@@ -251,7 +251,7 @@ test('when the outsider forgets the password, then a link comes by e-mail, sets 
   // the link reaches the outsider's mailbox (the development sink's table; the outbox sends within a second or two)
   let link: string | undefined;
   await expect(async () => {
-    const text = await mailboxText(DEMO.outsider, /choose a new password/i);
+    const text = await mailboxText(DEMO.outsider, /reset the password of your Headroom account/i);
     link = text?.match(/https?:\/\/\S+\/reset-password\?token=[\w%-]+/)?.[0];
     expect(link, 'the e-mail carries a reset link').toBeTruthy();
   }).toPass({ timeout: 30_000 });
