@@ -126,7 +126,7 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
               <tr key={f.id} className="border-t border-rule align-top">
                 <td className="py-1 pr-2">
                   <CellSelect label={`${name}: fitting ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`segments.${index}.fittings.${k}.typeId`, { onChange: () => setValue(`segments.${index}.fittings.${k}.custom`, undefined) })} />
-                  {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory ? ' (from memory)' : ''}</p> : null}
+                  {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory && !/not verified/i.test(entry.source) ? ' — not verified against the printed code; confirm against the adopted edition' : ''}</p> : null}
                   {custom ? <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>Project data: {custom.label} — source: {custom.source}</p> : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
