@@ -186,8 +186,15 @@ export function ResultStep() {
           <p className="mt-2 text-sm text-fault">On the description as it is, {plural(a.verdict.failures, 'check')} already {a.verdict.failures === 1 ? 'fails' : 'fail'}.</p>
         ) : null}
         <p className="mt-1 text-sm text-ink-soft">
-          Fixtures {a.verdict.allFixturesPass ? 'pass' : 'FAIL'} · velocities {a.verdict.allVelocitiesPass ? 'pass' : 'FAIL'} · static pressure{' '}
-          {a.verdict.allStaticPass ? 'passes' : 'FAILS'} · engine {a.engineVersion}
+          {status === 'incomplete' ? (
+            // an incomplete description has not been checked: no "pass" words under it
+            <>Not checked until the missing items are entered · engine {a.engineVersion}</>
+          ) : (
+            <>
+              Fixtures {a.verdict.allFixturesPass ? 'pass' : 'FAIL'} · velocities {a.verdict.allVelocitiesPass ? 'pass' : 'FAIL'} · static pressure{' '}
+              {a.verdict.allStaticPass ? 'passes' : 'FAILS'} · engine {a.engineVersion}
+            </>
+          )}
         </p>
       </div>
 
