@@ -3,7 +3,8 @@
 //      tests (supertest) on a fresh database;
 //   2. Playwright in Debian's Chromium against the built app, served on a free loopback port
 //      over its own freshly seeded database.
-// Ends with one line "N passed, N failed" summing both. `--only engine|routes|api|e2e` runs one part.
+// Ends with one line "N passed, N failed" summing both. `--only engine|routes|api|e2e` runs one part;
+// after `--only e2e --`, arguments go to Playwright.
 import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -16,6 +17,9 @@ process.chdir(root);
 const onlyIndex = process.argv.indexOf('--only');
 const only = onlyIndex > 0 ? process.argv[onlyIndex + 1] : null;
 const want = (part) => !only || only === part;
+// `npm test -- --only e2e -- e2e/building.spec.ts` passes what follows a second `--` to Playwright (one spec, --grep …).
+const dashes = process.argv.indexOf('--', onlyIndex > 0 ? onlyIndex : 0);
+const playwrightArgs = dashes > 0 ? process.argv.slice(dashes + 1) : [];
 const reports = path.join(root, '.tmp');
 fs.mkdirSync(reports, { recursive: true });
 
@@ -135,7 +139,7 @@ try {
     }
     const reportFile = path.join(reports, 'playwright-report.json');
     fs.rmSync(reportFile, { force: true });
-    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json'], {
+    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json', ...playwrightArgs], {
       ...env,
       E2E_BASE_URL: baseUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: reportFile,
