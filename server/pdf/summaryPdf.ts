@@ -13,6 +13,7 @@ import { boosterText, fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
+import { reviewResponsesSection, type ReviewResponses } from './sections/reviewResponses';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
@@ -35,6 +36,8 @@ export interface SummaryPdfInput {
   fieldChange?: FieldChangeRecord | null;
   /** a failing revision's acknowledgement by the designer, recorded at issue */
   failureAcknowledgement?: FailureAcknowledgementText | null;
+  /** the returned review(s) this revision answers, with the designer's replies */
+  reviewResponses?: ReviewResponses[];
 }
 
 export interface SummaryPdf {
@@ -103,6 +106,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   const failingStatic = a.nodes.filter((n) => n.staticPass === false);
   verdictBox(L, `Result: ${verdict.headline}`, verdict.acknowledgement ? [...verdict.lines, verdict.acknowledgement] : verdict.lines, fail);
   if (input.fieldChange) fieldChangeSection(L, input.fieldChange);
+  if (input.reviewResponses) reviewResponsesSection(L, input.reviewResponses);
 
   // ---- basis
   L.heading('Basis');

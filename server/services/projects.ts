@@ -3,6 +3,7 @@ import { membersRepo, projectsRepo, toProject, type ProjectRow } from '../reposi
 import { usersRepo } from '../repositories/users';
 import { auditRepo } from '../repositories/audit';
 import type { Actor, ServiceContext } from './context';
+import { reviewLoopService } from './reviewLoop';
 import type { AddMemberBody, CreateProjectBody, Member, Project, ProjectRole, UpdateProjectBody } from '../../src/shared/api/projects';
 
 export const canCreateProjects = (actor: Actor) => actor.isAdmin || actor.accountRole === 'designer';
@@ -10,7 +11,9 @@ export const canCreateProjects = (actor: Actor) => actor.isAdmin || actor.accoun
 export const projectsService = {
   async list(ctx: ServiceContext, actor: Actor): Promise<Project[]> {
     const rows = actor.isAdmin ? await projectsRepo.listAll(ctx.db, actor.id) : await projectsRepo.listForUser(ctx.db, actor.id);
-    return rows.map((r) => toProject(r, r.role));
+    // the "returned" marker is design information: members only (an administrator who is not a member sees none)
+    const returned = await reviewLoopService.returnedCounts(ctx.db, rows.filter((r) => r.role).map((r) => r.id));
+    return rows.map((r) => ({ ...toProject(r, r.role), ...(r.role ? { returnedSystems: returned.get(r.id) ?? 0 } : {}) }));
   },
 
   async create(ctx: ServiceContext, actor: Actor, body: Required<CreateProjectBody>): Promise<Project> {
@@ -33,7 +36,8 @@ export const projectsService = {
   async get(ctx: ServiceContext, projectId: string, myRole: ProjectRole | null): Promise<{ project: Project; members: Member[] }> {
     const row = await projectsRepo.findById(ctx.db, projectId);
     if (!row) throw notFound('The project');
-    return { project: toProject(row, myRole), members: await membersRepo.list(ctx.db, projectId) };
+    const returned = myRole ? await reviewLoopService.returnedCounts(ctx.db, [projectId]) : null;
+    return { project: { ...toProject(row, myRole), ...(returned ? { returnedSystems: returned.get(projectId) ?? 0 } : {}) }, members: await membersRepo.list(ctx.db, projectId) };
   },
 
   async update(ctx: ServiceContext, actor: Actor, projectId: string, body: UpdateProjectBody): Promise<Project> {

@@ -13,6 +13,8 @@ import { toSummaryInfo } from './summaries';
 import type { Actor, ServiceContext } from './context';
 import { outboxService } from './outbox';
 import { reviewDecidedMessage } from '../mail/messages';
+import { acceptanceRecordApiPath } from '../../src/shared/api/reviewLoop';
+import { itemLabel, reviewLoopService } from './reviewLoop';
 import { resultViewPath, type DecideReviewBody, type InboxItem, type Review } from '../../src/shared/api/summaries';
 
 async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
@@ -29,10 +31,23 @@ async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
     sentBy: r.sent_by_name,
     status: r.status,
     comment: r.comment,
-    items: comments.filter((c) => c.review_id === r.id).map((c) => ({ itemType: c.item_type, itemId: c.item_id, comment: c.comment })),
+    items: comments
+      .filter((c) => c.review_id === r.id)
+      .map((c) => ({
+        id: c.id,
+        itemType: c.item_type,
+        itemId: c.item_id,
+        comment: c.comment,
+        reply: c.reply !== null ? { text: c.reply, by: c.replied_by_name, at: iso(c.replied_at ?? r.decided_at ?? r.received_at) } : null,
+      })),
     version: r.version,
     receivedAt: iso(r.received_at),
     decidedAt: r.decided_at ? iso(r.decided_at) : null,
+    answeredIn: r.answered_in_revision_id && r.answered_in_number !== null ? { revisionId: r.answered_in_revision_id, revisionNumber: r.answered_in_number } : null,
+    acceptanceRecord:
+      r.record_sha256 && r.record_file_name && r.record_created_at
+        ? { url: acceptanceRecordApiPath(r.project_id, r.id), fileName: r.record_file_name, sha256: r.record_sha256, createdAt: iso(r.record_created_at) }
+        : null,
   }));
 }
 
@@ -97,8 +112,15 @@ async function notifySender(
   });
 }
 
+const presentIds = async (db: Tx, ids: string[]) => present(db, await reviewsRepo.byIds(db, ids));
+
 export const reviewsService = {
-  byIds: async (db: Tx, ids: string[]) => present(db, await reviewsRepo.byIds(db, ids)),
+  byIds: presentIds,
+
+  reply: (ctx: ServiceContext, actor: Actor, projectId: string, reviewId: string, commentId: string, reply: string) =>
+    reviewLoopService.reply(ctx, actor, projectId, reviewId, commentId, reply, presentIds),
+
+  answers: (ctx: ServiceContext, projectId: string, systemId: string, revisionId: string) => reviewLoopService.answers(ctx, projectId, systemId, revisionId, presentIds),
 
   async forRevision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Review[]> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
@@ -137,6 +159,10 @@ export const reviewsService = {
       if (!(await reviewsRepo.decide(trx, reviewId, body.version, { status: body.decision, comment: body.comment }))) throw staleVersion();
       await reviewsRepo.addComments(trx, reviewId, body.items);
       await notifySender(ctx, trx, actor, current, revision.number, body);
+      if (body.decision === 'accepted') {
+        const { document } = await trx('revisions').where({ id: current.revision_id }).first('document');
+        await reviewLoopService.recordAcceptance(trx, reviewId, (type, id) => itemLabel([document], type, id));
+      }
       await auditRepo.record(trx, {
         actorId: actor.id,
         projectId,

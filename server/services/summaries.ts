@@ -24,6 +24,7 @@ import { withUnit, signed } from '../pdf/format';
 import { issueInvitation } from './users';
 import { outboxService, toMessageInfo } from './outbox';
 import { reviewsService } from './reviews';
+import { reviewLoopService } from './reviewLoop';
 import { fieldChangesRepo } from '../repositories/fieldChanges';
 import type { Actor, ServiceContext } from './context';
 import { resultViewPath, type SendSummaryResponse, type SummaryHeader, type SummaryInfo } from '../../src/shared/api/summaries';
@@ -151,6 +152,7 @@ export const summariesService = {
           analysis,
           fieldChange,
           failureAcknowledgement: acknowledgementOf(revision),
+          reviewResponses: await reviewLoopService.responsesFor(trx, revisionId, revision.document),
         });
         const pdf = Buffer.from(bytes);
         const sha256 = createHash('sha256').update(pdf).digest('hex');

@@ -9,8 +9,9 @@ import { auditRepo } from '../repositories/audit';
 import { iso } from '../db/rows';
 import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
+import { reviewLoopService } from './reviewLoop';
 import type { Actor, ServiceContext } from './context';
-import type { CompareResponse, CreateSystemBody, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+import type { CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
 import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 
 /** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
@@ -68,13 +69,14 @@ function originOf(record: unknown): RevisionOrigin | null {
     changes: r.changes.map((c) => c.text),
   };
 }
-const toSystem = (s: SystemRow, latest: RevisionRow | undefined): SystemInfo => ({
+const toSystem = (s: SystemRow, latest: RevisionRow | undefined, returned: ReturnedMarker | null = null): SystemInfo => ({
   id: s.id,
   projectId: s.project_id,
   name: s.name,
   service: s.service,
   createdAt: iso(s.created_at),
   latest: latest ? toSummary(latest) : null,
+  returned,
 });
 
 /** A new system starts with its source at zero pressure: nothing passes until real figures are entered. */
@@ -149,7 +151,8 @@ export const systemsService = {
   async list(ctx: ServiceContext, projectId: string): Promise<SystemInfo[]> {
     const systems = await systemsRepo.listForProject(ctx.db, projectId);
     const latest = systems.length ? await revisionsRepo.latestForSystems(ctx.db, systems.map((s) => s.id)) : [];
-    return systems.map((s) => toSystem(s, latest.find((r) => r.system_id === s.id)));
+    const returned = await reviewLoopService.markers(ctx.db, systems.map((s) => s.id));
+    return systems.map((s) => toSystem(s, latest.find((r) => r.system_id === s.id), returned.get(s.id) ?? null));
   },
 
   async create(ctx: ServiceContext, actor: Actor, projectId: string, body: CreateSystemBody) {
@@ -173,7 +176,8 @@ export const systemsService = {
     const system = await systemsRepo.find(ctx.db, projectId, systemId);
     if (!system) throw notFound('The system');
     const revisions = await revisionsRepo.listForSystem(ctx.db, systemId);
-    return { system: toSystem(system, revisions[0]), revisions: revisions.map(toSummary) };
+    const returned = await reviewLoopService.markers(ctx.db, [systemId]);
+    return { system: toSystem(system, revisions[0], returned.get(systemId) ?? null), revisions: revisions.map(toSummary) };
   },
 
   async revision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Revision> {
@@ -233,6 +237,8 @@ export const systemsService = {
         failureAcknowledgement: gate.acknowledgement,
       });
       if (!issued) throw staleVersion();
+      // the returned review of the revision being superseded is answered by this one (its replies freeze)
+      await reviewLoopService.markAnswered(trx, systemId, revisionId);
       await revisionsRepo.supersedeIssued(trx, systemId, revisionId);
       await auditRepo.record(trx, {
         actorId: actor.id,

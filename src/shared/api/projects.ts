@@ -46,6 +46,8 @@ export const Project = z.object({
   updatedAt: z.string(),
   /** the signed-in user's role in this project; null for a site administrator who is not a member */
   myRole: ProjectRole.nullable(),
+  /** how many of the project's systems are returned by the inspector and not yet answered by a newer issued revision */
+  returnedSystems: z.number().int().optional(),
 });
 export type Project = z.infer<typeof Project>;
 

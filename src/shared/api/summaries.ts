@@ -13,6 +13,7 @@
  *   GET   /projects/:projectId/systems/:systemId/revisions/:revisionId/reviews        member    → ReviewsResponse
  *   GET   /projects/:projectId/reviews                                                member    → ReviewsResponse (the project page)
  *   PATCH /projects/:projectId/reviews/:reviewId                                      the review's inspector  DecideReviewBody → ReviewResponse
+ *   (the review loop's own routes — replies, answers, acceptance records — are listed in ./reviewLoop.ts)
  *   GET   /inbox                                                                      signed in → InboxResponse (summaries sent to me)
  *   GET   /projects/:projectId/audit?before=&limit=                                   designer  → AuditResponse
  *   GET   /dev/mail?to=&limit=                       administrator, only with HEADROOM_DEV_MAIL=1 (else 404) → DevMailListResponse
@@ -142,6 +143,9 @@ export type DecideReviewBody = z.input<typeof DecideReviewBody>;
 
 export const ReviewParams = ProjectParams.extend({ reviewId: z.string().uuid('Not a review id') });
 
+export const ReviewReply = z.object({ text: z.string(), by: z.string().nullable(), at: z.string() });
+export type ReviewReply = z.infer<typeof ReviewReply>;
+
 export const Review = z.object({
   id: z.string(),
   projectId: z.string(),
@@ -154,10 +158,24 @@ export const Review = z.object({
   sentBy: z.string().nullable(),
   status: ReviewStatus,
   comment: z.string(),
-  items: z.array(z.object({ itemType: z.enum(REVIEW_ITEM_TYPES), itemId: z.string().nullable(), comment: z.string() })),
+  items: z.array(
+    z.object({
+      /** the comment's id (the designer's reply is put at …/comments/:commentId/reply) */
+      id: z.string().default(''),
+      itemType: z.enum(REVIEW_ITEM_TYPES),
+      itemId: z.string().nullable(),
+      comment: z.string(),
+      /** the designer's answer; frozen once the next revision is issued */
+      reply: ReviewReply.nullable().default(null),
+    }),
+  ),
   version: z.number().int(),
   receivedAt: z.string(),
   decidedAt: z.string().nullable(),
+  /** the revision issued after this review was returned (it answers the comments; the replies are frozen) */
+  answeredIn: z.object({ revisionId: z.string(), revisionNumber: z.number().int() }).nullable().default(null),
+  /** the printable record of an accepted review */
+  acceptanceRecord: z.object({ url: z.string(), fileName: z.string(), sha256: z.string(), createdAt: z.string() }).nullable().default(null),
 });
 export type Review = z.infer<typeof Review>;
 export const ReviewsResponse = z.object({ reviews: z.array(Review) });

@@ -111,6 +111,22 @@ export const Revision = RevisionSummary.extend({
 });
 export type Revision = z.infer<typeof Revision>;
 
+/**
+ * "Returned to you": the newest review of the system's issued revision is Returned and no newer
+ * revision has been issued. Cleared by issuing the next revision.
+ */
+export const ReturnedMarker = z.object({
+  reviewId: z.string(),
+  revisionId: z.string(),
+  revisionNumber: z.number().int(),
+  reviewerName: z.string(),
+  decidedAt: z.string(),
+  /** comments on the review (overall and per item) and how many the designer has answered */
+  comments: z.number().int(),
+  answered: z.number().int(),
+});
+export type ReturnedMarker = z.infer<typeof ReturnedMarker>;
+
 export const SystemInfo = z.object({
   id: z.string(),
   projectId: z.string(),
@@ -118,6 +134,7 @@ export const SystemInfo = z.object({
   service: z.enum(SERVICES),
   createdAt: z.string(),
   latest: RevisionSummary.nullable(),
+  returned: ReturnedMarker.nullable().default(null),
 });
 export type SystemInfo = z.infer<typeof SystemInfo>;
 
