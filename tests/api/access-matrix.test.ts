@@ -50,6 +50,33 @@ function issuedOnce(w: World) {
   return issued;
 }
 
+/** A review returned with one item comment by an inspector of the project, on its own issued system (made once). */
+let returnedReview: Promise<{ id: string; commentId: string }> | null = null;
+function returnedReviewOnce(w: World) {
+  returnedReview ??= (async () => {
+    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix returned', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
+    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId, status: 'returned', comment: 'Matrix return', decided_at: w.h.db.fn.now() }).returning('id');
+    const [comment] = await w.h.db('review_comments').insert({ review_id: review.id, item_type: 'general', comment: 'Matrix comment' }).returning('id');
+    return { id: review.id as string, commentId: String(comment.id) };
+  })();
+  return returnedReview;
+}
+/** A review accepted through the API by the project's inspector (it stores the acceptance record), made once. */
+let acceptedReview: Promise<{ id: string }> | null = null;
+function acceptedReviewOnce(w: World) {
+  acceptedReview ??= (async () => {
+    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix accepted', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
+    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId }).returning('id');
+    await clients.inspector.send('PATCH', `/api/projects/${w.projectId}/reviews/${review.id}`, { decision: 'accepted', version: 1 }).expect(200);
+    return { id: review.id as string };
+  })();
+  return acceptedReview;
+}
+
 /** only the project's contractors (issue 6: field changes are theirs to start and edit) */
 const contractorsWrite = (status: number) => ({ anonymous: 401, administrator: 403, designer: 403, contractor: status, inspector: 403, nonMember: 404 });
 
@@ -314,6 +341,28 @@ const ROWS: Row[] = [
     },
   },
   { method: 'GET', path: '/api/inbox', expect: signedInOnly(200), request: async () => ({ url: '/api/inbox' }) },
+  // ---- the review loop (issue 17): the designer answers a returned review; members read the answers and the acceptance record
+  {
+    method: 'PUT',
+    path: '/api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply',
+    expect: designersWrite(200),
+    request: async (w) => {
+      const review = await returnedReviewOnce(w);
+      return { url: `/api/projects/${w.projectId}/reviews/${review.id}/comments/${review.commentId}/reply`, body: { reply: `Answered ${randomUUID().slice(0, 6)}` } };
+    },
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/answers',
+    expect: membersRead403,
+    request: async (w) => ({ url: `${(await issuedOnce(w)).base}/answers` }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/reviews/:reviewId/acceptance.pdf',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/reviews/${(await acceptedReviewOnce(w)).id}/acceptance.pdf` }),
+  },
   { method: 'GET', path: '/api/projects/:projectId/audit', expect: designersWrite(200), request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/audit` }) },
   // the matrix's app runs without HEADROOM_DEV_MAIL: the development mail routes answer 404 to
   // everyone (tests/api/mail.test.ts checks them switched on: administrators only)

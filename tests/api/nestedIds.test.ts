@@ -47,6 +47,9 @@ const ROWS: Record<string, Row> = {
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews': { as: 'designer' },
   'POST /api/projects/:projectId/messages/:messageId/retry': { as: 'designer' },
   'PATCH /api/projects/:projectId/reviews/:reviewId': { as: 'inspector', body: () => ({ decision: 'accepted', version: 1 }) },
+  'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': { as: 'designer', body: () => ({ reply: 'Answered in the next revision.' }) },
+  'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/answers': { as: 'designer' },
+  'GET /api/projects/:projectId/reviews/:reviewId/acceptance.pdf': { as: 'designer' },
   'PATCH /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer', body: () => ({ label: `Renamed ${randomUUID().slice(0, 4)}`, version: 1 }) },
   'DELETE /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor' },
@@ -89,6 +92,8 @@ async function makeProject(designer: Client, users: Record<Role, { id: string; e
   const fc = (await clients.contractor.send('POST', `${sys}/field-changes`, { revisionId, title: 'Nested substitution' }).expect(201)).body.fieldChange;
   const attachment = (await upload(clients.contractor, `${sys}/field-changes/${fc.id}`, tinyPdf(), 'sheet.pdf', 'application/pdf').expect(201)).body.attachment;
   const [review] = await h.db('reviews').insert({ project_id: projectId, revision_id: revisionId, reviewer_id: users.inspector.id }).returning('id');
+  // the review accepted with one comment: it has a comment id and an acceptance record
+  const accepted = (await clients.inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', items: [{ itemType: 'general', comment: 'Nested comment' }], version: 1 }).expect(200)).body.review;
   const [message] = await h.db('outbox')
     .insert({ kind: 'summary', project_id: projectId, revision_id: revisionId, to_address: 'nested@test.example', subject: 'Nested', text_body: 'Nested', status: 'failed', attempts: 3, max_attempts: 3, last_error: 'nested' })
     .returning('id');
@@ -101,6 +106,7 @@ async function makeProject(designer: Client, users: Record<Role, { id: string; e
     fieldChangeId: fc.id,
     attachmentId: attachment.id,
     reviewId: review.id,
+    commentId: accepted.items[0].id,
     messageId: message.id,
     userId: only.id,
     entryId,
