@@ -3,6 +3,7 @@ import { useParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { ErrorView } from '../../components/errors/error-view';
 import { Badge } from '../../components/ui/badge';
+import { ReturnedProjectMark } from '../../features/reviews/components/returned-marker';
 import { Button } from '../../components/ui/button';
 import { Section } from '../../components/ui/card';
 import { Loading } from '../../components/ui/loading';
@@ -77,6 +78,7 @@ export function ProjectRoute() {
             <span>Your role:</span>
             <Badge tone={project.myRole ? 'standpipe' : 'neutral'}>{myRoleLabel(project.myRole)}</Badge>
             {project.archived ? <Badge tone="caution">Archived</Badge> : null}
+            <ReturnedProjectMark count={project.returnedSystems} myRole={project.myRole} />
           </span>
         }
       />

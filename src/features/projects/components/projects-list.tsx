@@ -1,6 +1,7 @@
 import { Link } from 'react-router-dom';
 import { paths } from '../../../app/paths';
 import { Badge } from '../../../components/ui/badge';
+import { ReturnedProjectMark } from '../../reviews/components/returned-marker';
 import { formatDate, myRoleLabel } from '../../../lib/labels';
 import type { Project } from '../../../shared/api/projects';
 
@@ -20,6 +21,7 @@ function ProjectRow({ project }: { project: Project }) {
           {myRoleLabel(project.myRole)}
         </Badge>
         {project.archived ? <Badge tone="caution">Archived</Badge> : null}
+        <ReturnedProjectMark count={project.returnedSystems} myRole={project.myRole} />
       </div>
     </li>
   );

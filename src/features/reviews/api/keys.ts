@@ -5,4 +5,5 @@ export const reviewKeys = {
   revision: (projectId: string, systemId: string, revisionId: string) => [...reviewKeys.revisions(), projectId, systemId, revisionId] as const,
   projects: () => [...reviewKeys.all, 'project'] as const,
   project: (projectId: string) => [...reviewKeys.projects(), projectId] as const,
+  answers: (projectId: string, systemId: string, revisionId: string) => [...reviewKeys.all, 'answers', projectId, systemId, revisionId] as const,
 };

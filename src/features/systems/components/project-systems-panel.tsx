@@ -7,6 +7,8 @@ import { Section } from '../../../components/ui/card';
 import { Loading } from '../../../components/ui/loading';
 import { formatDate } from '../../../lib/labels';
 import type { SystemInfo } from '../../../shared/api/systems';
+import type { ProjectRole } from '../../../shared/api/projects';
+import { ReturnedSystemMark } from '../../reviews/components/returned-marker';
 import { useProject } from '../../projects/api/get-project';
 import { useSystems } from '../api/get-systems';
 import { walkPaths } from '../../walk/paths';
@@ -19,7 +21,7 @@ function fmtMargin(m: number) {
   return m < 0 ? `−${t}` : `+${t}`;
 }
 
-function SystemRow({ projectId, system }: { projectId: string; system: SystemInfo }) {
+function SystemRow({ projectId, system, myRole }: { projectId: string; system: SystemInfo; myRole: ProjectRole | null }) {
   const latest = system.latest;
   const v = latest?.verdict;
   return (
@@ -32,6 +34,7 @@ function SystemRow({ projectId, system }: { projectId: string; system: SystemInf
           {system.service === 'hot' ? 'Hot water' : 'Cold water'}
           {latest ? ` · revision ${latest.number}, changed ${formatDate(latest.updatedAt)}` : ''}
         </p>
+        <ReturnedSystemMark marker={system.returned} myRole={myRole} />
       </div>
       <div className="flex flex-wrap items-center gap-2 text-sm">
         {latest ? <Badge tone={latest.status === 'issued' ? 'sound' : latest.status === 'draft' ? 'standpipe' : 'neutral'}>{latest.status}</Badge> : null}
@@ -87,7 +90,7 @@ export function ProjectSystemsPanel({ projectId, canEdit }: { projectId: string;
         ) : (
           <ul className="flex flex-col gap-2" aria-label="Systems">
             {systems.data.map((s) => (
-              <SystemRow key={s.id} projectId={projectId} system={s} />
+              <SystemRow key={s.id} projectId={projectId} system={s} myRole={project.data?.project.myRole ?? null} />
             ))}
           </ul>
         )

@@ -32,6 +32,8 @@ import { SaveBar } from './save-bar';
 import { StepNav } from './step-nav';
 import { RevisionOriginNote } from './revision-origin-note';
 import { StartFieldChange } from '../../field-changes/components/start-field-change';
+import { ReturnedSystemMark } from '../../reviews/components/returned-marker';
+import { ReviewCommentsPanel } from './review-comments-panel';
 
 /** While leaving the walk: the last change being saved, or the question when a value cannot be saved. */
 function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
@@ -124,12 +126,14 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           </Badge>
           <span className="text-sm text-ink-soft">{system.service === 'hot' ? 'Hot water' : 'Cold water'} · units {draft.document.unitSystem}</span>
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
+          <ReturnedSystemMark marker={system.returned} myRole={project.myRole} />
         </div>
       </div>
       <LeavingNote leaving={leaving} held={draft.held.length} />
       {revision.origin ? <RevisionOriginNote origin={revision.origin} ids={ids} /> : null}
       <div className="mb-4 flex flex-col gap-4">
         <StepNav links={links} />
+        <ReviewCommentsPanel />
         {readOnlyReason ? (
           <div className="flex flex-col gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 print:hidden" data-testid="read-only-note">
             <p>{readOnlyReason}</p>
