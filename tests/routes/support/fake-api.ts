@@ -20,6 +20,10 @@ import type { ProjectRole } from '../../../src/shared/api/projects';
 import { RevisionResponse, SaveDocumentBody, SystemDetailResponse } from '../../../src/shared/api/systems';
 import type { RevisionStatus, RevisionSummary, RevisionVerdict } from '../../../src/shared/api/systems';
 import { ProjectCatalogResponse } from '../../../src/shared/api/catalog';
+import { ReviewResponse, ReviewsResponse } from '../../../src/shared/api/summaries';
+import type { Review, ReviewComment } from '../../../src/shared/api/summaries';
+import { ReplyBody } from '../../../src/shared/api/reviewLoop';
+import { reviewUrls } from '../../../src/features/reviews/api/urls';
 import { CatalogResponse } from '../../../src/features/systems/api/get-catalog';
 import { catalogUrls } from '../../../src/features/catalog/api/urls';
 import { systemUrls } from '../../../src/features/systems/api/urls';
@@ -45,6 +49,11 @@ export interface FakeApiOptions {
   holdSaves?: boolean;
   /** the draft's document (the demo when not given) */
   document?: SystemDocument;
+  /**
+   * the system's issued revision 2 was returned by the inspector with these comments: the system
+   * carries the "returned" marker, its reviews are answered, and replies are taken (PUT …/reply)
+   */
+  returned?: { items: { itemType: ReviewComment['itemType']; itemId: string | null; comment: string }[]; comment?: string };
 }
 
 function verdictOf(analysis: ReturnType<typeof safeAnalyzeSystem>): RevisionVerdict {
@@ -92,6 +101,42 @@ export function fakeApi(options: FakeApiOptions = {}) {
   const held: (() => void)[] = [];
   let holding = options.holdSaves ?? false;
 
+  // the returned review of the issued revision 2 (the draft, revision 3, answers it)
+  const returnedIds = { revisionId: '9f8e7d6c-5b4a-4392-8170-6f5e4d3c2b1a', reviewId: '1a2b3c4d-5e6f-4a8b-9c0d-1e2f3a4b5c6d' };
+  const returnedReview: Review | null = options.returned
+    ? {
+        id: returnedIds.reviewId,
+        projectId: ids.projectId,
+        systemId: ids.systemId,
+        systemName: 'Domestic cold water',
+        revisionId: returnedIds.revisionId,
+        revisionNumber: 2,
+        revisionStatus: 'issued',
+        reviewer: { id: '2b3c4d5e-6f7a-4b8c-9d0e-1f2a3b4c5d6e', name: 'Imogen Hale', email: 'imogen@example.test' },
+        sentBy: 'Dana Okafor',
+        status: 'returned',
+        comment: options.returned.comment ?? '',
+        items: options.returned.items.map((it, i) => ({ id: String(i + 1), ...it, reply: null })),
+        version: 2,
+        receivedAt: STAMP,
+        decidedAt: STAMP,
+        answeredIn: null,
+        acceptanceRecord: null,
+      }
+    : null;
+  const marker = () =>
+    returnedReview
+      ? {
+          reviewId: returnedReview.id,
+          revisionId: returnedReview.revisionId,
+          revisionNumber: 2,
+          reviewerName: returnedReview.reviewer.name,
+          decidedAt: STAMP,
+          comments: returnedReview.items.length,
+          answered: returnedReview.items.filter((c) => c.reply).length,
+        }
+      : null;
+
   const summary = (): RevisionSummary => ({
     id: ids.revisionId,
     number: 3,
@@ -138,7 +183,7 @@ export function fakeApi(options: FakeApiOptions = {}) {
       url: systemUrls.detail(ids.projectId, ids.systemId),
       answer: () =>
         checked(SystemDetailResponse, {
-          system: { id: ids.systemId, projectId: ids.projectId, name: 'Domestic cold water', service: 'cold', createdAt: STAMP, latest: summary() },
+          system: { id: ids.systemId, projectId: ids.projectId, name: 'Domestic cold water', service: 'cold', createdAt: STAMP, latest: summary(), returned: marker() },
           revisions: [summary()],
         }),
     },
@@ -164,6 +209,22 @@ export function fakeApi(options: FakeApiOptions = {}) {
         return checked(RevisionResponse, revisionBody());
       },
     },
+    ...(returnedReview
+      ? [
+          { method: 'GET', url: reviewUrls.revision(ids.projectId, ids.systemId, returnedIds.revisionId), answer: () => checked(ReviewsResponse, { reviews: [returnedReview] }) },
+          ...returnedReview.items.map((item) => ({
+            method: 'PUT',
+            url: reviewUrls.reply(ids.projectId, returnedReview.id, item.id),
+            answer: (call: Call): Answer => {
+              if (call.headers['x-csrf-token'] !== CSRF_TOKEN) return apiError(403, 'CSRF_FAILED', 'The form expired.');
+              if (myRole !== 'designer') return apiError(403, 'FORBIDDEN', 'Only the project’s designers answer review comments.');
+              const body = ReplyBody.parse(call.body);
+              item.reply = { text: body.reply, by: 'Dana Okafor', at: STAMP };
+              return checked(ReviewResponse, { review: returnedReview });
+            },
+          })),
+        ]
+      : []),
   ];
 
   const impl = async (input: RequestInfo | URL, init: RequestInit = {}): Promise<Response> => {

@@ -41,12 +41,26 @@ export function ReviewCard({ review, catalog, heading, extra }: { review: Review
               <li key={index} className="rounded border-l-4 border-copper bg-paper px-3 py-2" data-testid="review-item">
                 <p className="text-sm font-semibold">{describeItem(item.itemType, item.itemId, catalog)}</p>
                 <p className="whitespace-pre-wrap">{item.comment}</p>
+                {item.reply ? (
+                  <p className="mt-1 text-sm" data-testid="review-item-reply">
+                    <span className="font-semibold">Designer’s reply{item.reply.by ? ` (${item.reply.by})` : ''}: </span>
+                    <span className="whitespace-pre-wrap">{item.reply.text}</span>
+                  </p>
+                ) : null}
               </li>
             ))}
           </ul>
         </div>
       ) : null}
       {decided && !review.comment && review.items.length === 0 ? <p className="mt-2 text-sm text-ink-soft">No comments.</p> : null}
+      {review.answeredIn ? <p className="mt-2 text-sm text-ink-soft">Answered by revision {review.answeredIn.revisionNumber}; the replies are frozen.</p> : null}
+      {review.acceptanceRecord ? (
+        <p className="mt-3">
+          <a href={review.acceptanceRecord.url} download={review.acceptanceRecord.fileName} className="font-semibold" data-testid="acceptance-record-link">
+            Download the acceptance record (PDF)
+          </a>
+        </p>
+      ) : null}
       {extra}
     </article>
   );

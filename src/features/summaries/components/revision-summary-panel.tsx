@@ -11,6 +11,7 @@ import { useCurrentUser } from '../../auth/api/use-current-user';
 import { useRevisionReviews } from '../../reviews/api/get-revision-reviews';
 import { ReviewCard } from '../../reviews/components/review-card';
 import { ReviewForm } from '../../reviews/components/review-form';
+import { ReviewAnswersPanel } from '../../reviews/components/review-answers-panel';
 import { itemCatalogOf } from '../../reviews/components/review-items';
 import type { ItemCatalog } from '../../reviews/components/review-items';
 import { useRevision } from '../../systems/api/get-revision';
@@ -141,6 +142,7 @@ export function RevisionSummaryPanel({ projectId, systemId, revisionId, revision
         ) : null}
       </Section>
       {isDesigner ? <Messages ids={ids} canSend={revisionStatus === 'issued'} revisionNumber={revision.data?.number ?? null} /> : null}
+      <ReviewAnswersPanel {...ids} catalog={catalog} />
       <Reviews ids={ids} catalog={catalog} myRole={myRole} revisionStatus={revisionStatus} />
     </div>
   );
