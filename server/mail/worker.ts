@@ -109,10 +109,12 @@ export class OutboxWorker {
     let response: string;
     try {
       const attachments = [];
-      if (row.attachment_summary_id) {
-        const pdf = await summariesRepo.pdf(db, row.attachment_summary_id);
+      // one PDF, or one per system of a building's submission (in the order sent)
+      for (const summaryId of [row.attachment_summary_id, ...(row.extra_summary_ids ?? [])]) {
+        if (!summaryId) continue;
+        const pdf = await summariesRepo.pdf(db, summaryId);
         if (!pdf) throw new Error('the summary PDF is not ready');
-        const summary = await db('summaries').where({ id: row.attachment_summary_id }).first('header');
+        const summary = await db('summaries').where({ id: summaryId }).first('header');
         attachments.push({ filename: summaryFileName(summary.header), content: pdf, contentType: 'application/pdf' });
       }
       const text = row.text_body.split(SECRET_URL).join(row.secret_url ?? '(this link is no longer available: ask for a new one)');

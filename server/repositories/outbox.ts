@@ -12,6 +12,8 @@ export interface OutboxRow {
   text_body: string;
   secret_url: string | null;
   attachment_summary_id: string | null;
+  /** more summary PDFs attached after the first (one submission for a building) */
+  extra_summary_ids?: string[] | null;
   status: 'queued' | 'sending' | 'sent' | 'failed';
   attempts: number;
   max_attempts: number;
@@ -27,7 +29,7 @@ export interface OutboxRow {
 }
 
 export type NewOutboxMessage = Pick<OutboxRow, 'kind' | 'to_address' | 'subject' | 'text_body' | 'max_attempts'> &
-  Partial<Pick<OutboxRow, 'project_id' | 'revision_id' | 'recipient_user_id' | 'to_name' | 'secret_url' | 'attachment_summary_id' | 'created_by'>>;
+  Partial<Pick<OutboxRow, 'project_id' | 'revision_id' | 'recipient_user_id' | 'to_name' | 'secret_url' | 'attachment_summary_id' | 'extra_summary_ids' | 'created_by'>>;
 
 export const outboxRepo = {
   async insert(db: Tx, values: NewOutboxMessage): Promise<OutboxRow> {

@@ -12,6 +12,7 @@ export interface ReviewRow {
   received_at: Date;
   decided_at: Date | null;
   answered_in_revision_id: string | null;
+  package_id: string | null;
   // joined
   answered_in_number: number | null;
   record_file_name: string | null;

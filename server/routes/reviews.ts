@@ -7,7 +7,8 @@ import { ProjectParams } from '../../src/shared/api/projects';
 import { DecideReviewBody, ReviewParams } from '../../src/shared/api/summaries';
 import type { ServiceContext } from '../services/context';
 import { reviewLoopService } from '../services/reviewLoop';
-import { CommentParams, ReplyBody } from '../../src/shared/api/reviewLoop';
+import { CommentParams, ReplyBody, SendPackageBody } from '../../src/shared/api/reviewLoop';
+import { submissionsService } from '../services/submissions';
 
 export function reviewsRoutes(ctx: ServiceContext): Router {
   const router = Router();
@@ -57,6 +58,12 @@ export function reviewsRoutes(ctx: ServiceContext): Router {
       'Cache-Control': 'private, no-cache',
     });
     res.send(bytes);
+  });
+
+  router.post('/projects/:projectId/submissions', designer, async (req, res) => {
+    const { projectId } = parse(ProjectParams, req.params);
+    const body = parse(SendPackageBody, req.body);
+    res.status(202).json(await submissionsService.sendPackage(ctx, actorOf(req.user), projectId, body));
   });
 
   return router;

@@ -43,6 +43,7 @@ async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
     version: r.version,
     receivedAt: iso(r.received_at),
     decidedAt: r.decided_at ? iso(r.decided_at) : null,
+    packageId: r.package_id ?? null,
     answeredIn: r.answered_in_revision_id && r.answered_in_number !== null ? { revisionId: r.answered_in_revision_id, revisionNumber: r.answered_in_number } : null,
     acceptanceRecord:
       r.record_sha256 && r.record_file_name && r.record_created_at

@@ -352,6 +352,15 @@ const ROWS: Row[] = [
     },
   },
   {
+    method: 'POST',
+    path: '/api/projects/:projectId/submissions',
+    expect: designersWrite(202),
+    request: async (w) => {
+      const { base } = await issuedOnce(w);
+      return { url: `/api/projects/${w.projectId}/submissions`, body: { systemIds: [base.split('/systems/')[1].split('/')[0]], inspectorIds: [w.inspectorId] } };
+    },
+  },
+  {
     method: 'GET',
     path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/answers',
     expect: membersRead403,

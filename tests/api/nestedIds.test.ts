@@ -50,6 +50,7 @@ const ROWS: Record<string, Row> = {
   'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': { as: 'designer', body: () => ({ reply: 'Answered in the next revision.' }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/answers': { as: 'designer' },
   'GET /api/projects/:projectId/reviews/:reviewId/acceptance.pdf': { as: 'designer' },
+  'POST /api/projects/:projectId/submissions': { as: 'designer', extraIds: ['systemId', 'inspectorId'], body: (i) => ({ systemIds: [i.systemId], inspectorIds: [i.inspectorId] }) },
   'PATCH /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer', body: () => ({ label: `Renamed ${randomUUID().slice(0, 4)}`, version: 1 }) },
   'DELETE /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor' },

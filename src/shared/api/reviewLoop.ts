@@ -10,13 +10,16 @@
  *   GET  /projects/:projectId/systems/:systemId/revisions/:revisionId/answers              member    → AnswersResponse
  *        (the returned review(s) this revision answers, with the replies and the compare against the returned revision)
  *   GET  /projects/:projectId/reviews/:reviewId/acceptance.pdf                             member    → application/pdf (accepted reviews only)
+ *   POST /projects/:projectId/submissions                                                  designer  SendPackageBody → 202 SendPackageResponse
+ *        (one submission for a building: each chosen system's issued revision, one e-mail per inspector with one PDF per
+ *         system attached, one review per system and inspector grouped by the package, so the comments stay per system)
  *
  * The "returned to you" marker travels on SystemInfo.returned (systems.ts) and Project.returnedSystems (projects.ts).
  */
 import { z } from 'zod';
 import { ProjectParams } from './projects';
 import { ChangeItem, ComparisonResponse } from './fieldChanges';
-import { Review } from './summaries';
+import { MessageInfo, Review } from './summaries';
 
 export const ReplyBody = z.object({ reply: z.string().trim().min(1, 'Write the reply').max(4000, 'At most 4,000 characters') }).strict();
 export type ReplyBody = z.infer<typeof ReplyBody>;
@@ -42,6 +45,19 @@ export const Answers = z.object({
 export type Answers = z.infer<typeof Answers>;
 export const AnswersResponse = z.object({ answers: Answers.nullable() });
 export type AnswersResponse = z.infer<typeof AnswersResponse>;
+
+export const SendPackageBody = z
+  .object({
+    /** the systems whose issued revision goes in the package (cold, hot, each zone) */
+    systemIds: z.array(z.string().uuid('Not a system id')).min(1, 'Choose at least one system').max(20),
+    /** project members with the inspector role */
+    inspectorIds: z.array(z.string().uuid('Not a user id')).min(1, 'Choose at least one inspector').max(20),
+    message: z.string().trim().max(2000).optional(),
+  })
+  .strict();
+export type SendPackageBody = z.input<typeof SendPackageBody>;
+export const SendPackageResponse = z.object({ packageId: z.string(), messages: z.array(MessageInfo), reviews: z.array(Review) });
+export type SendPackageResponse = z.infer<typeof SendPackageResponse>;
 
 /** The client path of an accepted review's record. */
 export const acceptanceRecordApiPath = (projectId: string, reviewId: string) => `/api/projects/${projectId}/reviews/${reviewId}/acceptance.pdf`;

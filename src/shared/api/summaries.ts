@@ -174,6 +174,8 @@ export const Review = z.object({
   decidedAt: z.string().nullable(),
   /** the revision issued after this review was returned (it answers the comments; the replies are frozen) */
   answeredIn: z.object({ revisionId: z.string(), revisionNumber: z.number().int() }).nullable().default(null),
+  /** the building's submission this review is part of (one review per system), when it was sent as one */
+  packageId: z.string().nullable().default(null),
   /** the printable record of an accepted review */
   acceptanceRecord: z.object({ url: z.string(), fileName: z.string(), sha256: z.string(), createdAt: z.string() }).nullable().default(null),
 });

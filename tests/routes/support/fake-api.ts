@@ -121,6 +121,7 @@ export function fakeApi(options: FakeApiOptions = {}) {
         receivedAt: STAMP,
         decidedAt: STAMP,
         answeredIn: null,
+        packageId: null,
         acceptanceRecord: null,
       }
     : null;
