@@ -63,6 +63,7 @@ function returnedReviewOnce(w: World) {
   })();
   return returnedReview;
 }
+let packageSystem: Promise<string> | null = null;
 /** A review accepted through the API by the project's inspector (it stores the acceptance record), made once. */
 let acceptedReview: Promise<{ id: string }> | null = null;
 function acceptedReviewOnce(w: World) {
@@ -356,8 +357,13 @@ const ROWS: Row[] = [
     path: '/api/projects/:projectId/submissions',
     expect: designersWrite(202),
     request: async (w) => {
-      const { base } = await issuedOnce(w);
-      return { url: `/api/projects/${w.projectId}/submissions`, body: { systemIds: [base.split('/systems/')[1].split('/')[0]], inspectorIds: [w.inspectorId] } };
+      // its own issued system: the summary/retry row fails the shared one's summary on purpose
+      packageSystem ??= (async () => {
+        const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix package', service: 'cold', document: smallDocument() }).expect(201)).body;
+        await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+        return created.system.id as string;
+      })();
+      return { url: `/api/projects/${w.projectId}/submissions`, body: { systemIds: [await packageSystem], inspectorIds: [w.inspectorId] } };
     },
   },
   {

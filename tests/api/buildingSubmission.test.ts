@@ -45,8 +45,8 @@ describe('one submission for a building', () => {
     const attachments = mail[0].parsed.attachments;
     expect(attachments).toHaveLength(2);
     expect(attachments.every((a) => a.contentType === 'application/pdf' && a.content.subarray(0, 5).toString() === '%PDF-')).toBe(true);
-    expect(attachments[0].filename).toContain('Domestic cold water');
-    expect(attachments[1].filename).toContain('Domestic hot water');
+    expect(attachments[0].filename).toContain('domestic-cold-water');
+    expect(attachments[1].filename).toContain('domestic-hot-water');
     const text = mail[0].parsed.text ?? '';
     expect(text).toContain('1. Domestic cold water, revision 1');
     expect(text).toContain('2. Domestic hot water, revision 1');
