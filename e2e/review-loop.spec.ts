@@ -141,9 +141,10 @@ test('when the designer opens the returned project, then the marker shows on the
   const statement = confirm.getByLabel('Your statement: why this failing revision is issued');
   if (await statement.count()) await statement.fill('Issued with the riser fittings the inspector asked for; the failing fixture is being resized.');
   await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
-  await expect(page.getByTestId('issued-note')).toContainText('issued');
+  // issuing makes the summary PDF in the same request: slow on a loaded machine
+  await expect(page.getByTestId('issued-note')).toContainText('issued', { timeout: 90_000 });
   await expect(page.getByTestId('review-comments-panel')).toHaveCount(0);
-  await expect(panel(page).getByTestId('summary-ready')).toBeVisible({ timeout: 30_000 });
+  await expect(panel(page).getByTestId('summary-ready')).toBeVisible({ timeout: 60_000 });
   await panel(page).getByRole('button', { name: 'Send to inspectors…' }).click();
   const dialog = page.getByRole('dialog', { name: 'Send revision 2 to inspectors' });
   await dialog.getByLabel(`Imogen Hale (${DEMO.inspector})`).check();
