@@ -24,6 +24,7 @@ import { myRoleLabel } from '../../lib/labels';
 import type { Project } from '../../shared/api/projects';
 import { ProjectSystemsPanel } from '../../features/systems/components/project-systems-panel';
 import { ProjectReviewsPanel } from '../../features/reviews/components/project-reviews-panel';
+import { SendPackagePanel } from '../../features/reviews/components/send-package-panel';
 import { ProjectAuditPanel } from '../../features/summaries/components/project-audit-panel';
 import { Link } from 'react-router-dom';
 import { catalogPaths } from '../../features/catalog/paths';
@@ -108,6 +109,7 @@ export function ProjectRoute() {
         </Section>
         {project.myRole ? <ProjectSystemsPanel projectId={project.id} canEdit={project.myRole === 'designer' && !project.archived} /> : null}
         {project.myRole ? <ProjectFieldChangesPanel projectId={project.id} /> : null}
+        {project.myRole === 'designer' && !project.archived ? <SendPackagePanel projectId={project.id} /> : null}
         {project.myRole ? <ProjectReviewsPanel projectId={project.id} /> : null}
         {project.myRole ? (
           <Section title="Project catalog">
