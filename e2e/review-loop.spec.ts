@@ -162,7 +162,8 @@ test('when the designer opens the returned project, then the marker shows on the
   expect(pdf.status()).toBe(200);
   fs.mkdirSync(OUT, { recursive: true });
   fs.writeFileSync(`${OUT}/summary-revision-2.pdf`, await pdf.body());
-  const text = execFileSync('pdftotext', [`${OUT}/summary-revision-2.pdf`, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  // -raw keeps each table cell's lines together (the content order), so a wrapped reply reads whole
+  const text = execFileSync('pdftotext', ['-raw', `${OUT}/summary-revision-2.pdf`, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
   expect(text).toContain('Response to review comments');
   expect(text).toContain(SEGMENT_REPLY);
   expect(text).toContain(FIXTURE_REPLY);
@@ -200,7 +201,7 @@ test('when the inspector opens revision 2, then the review shows the compare aga
   const bytes = fs.readFileSync(file);
   expect(bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');
   expect(execFileSync('pdfinfo', [file], { encoding: 'utf8' })).toMatch(/Pages:\s+1\n/);
-  const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  const text = execFileSync('pdftotext', ['-raw', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
   expect(text).toContain('ACCEPTED');
   expect(text).toContain('Both items settled; accepted.');
   execFileSync('pdftoppm', ['-png', '-r', '60', file, `${OUT}/acceptance-record`]);

@@ -33,7 +33,8 @@ afterAll(async () => {
 function pdfText(bytes: Buffer, args: string[] = []): string {
   const file = path.join(tmp, `${randomUUID()}.pdf`);
   fs.writeFileSync(file, bytes);
-  return execFileSync('pdftotext', [...args, file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  // -raw: the content order, so a table cell's wrapped lines read together
+  return execFileSync('pdftotext', ['-raw', ...args, file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
 }
 const pdfBytes = async (client: Client, url: string) => (await client.get(url).responseType('blob').expect(200).expect('Content-Type', 'application/pdf')).body as Buffer;
 
