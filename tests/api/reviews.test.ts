@@ -37,7 +37,9 @@ describe('the inspector’s review', () => {
     const seen = (await designer.get(`${base}/reviews`).expect(200)).body.reviews;
     expect(seen).toHaveLength(1);
     expect(seen[0]).toMatchObject({ status: 'returned', comment: 'Two items to address.', reviewer: { id: inspectorUser.id } });
-    expect(seen[0].items).toEqual(items);
+    // each comment as sent, with its id and no reply yet (the designer answers it: tests/api/reviewLoop.test.ts)
+    expect(seen[0].items.map(({ itemType, itemId, comment }: { itemType: string; itemId: string | null; comment: string }) => ({ itemType, itemId, comment }))).toEqual(items);
+    expect(seen[0].items.every((i: { id: string; reply: unknown }) => /^\d+$/.test(i.id) && i.reply === null)).toBe(true);
     const onProject = (await designer.get(`/api/projects/${projectId}/reviews`).expect(200)).body.reviews;
     expect(onProject.map((r: { id: string }) => r.id)).toEqual([item.review.id]);
 
