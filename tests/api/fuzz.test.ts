@@ -26,6 +26,7 @@ import { CreateSystemBody, IssueBody, NewDraftBody, SaveDocumentBody } from '../
 import { DecideReviewBody, SendSummaryBody } from '../../src/shared/api/summaries';
 import { AcceptFieldChangeBody, CreateFieldChangeBody, DeclineFieldChangeBody, UpdateFieldChangeBody, VersionBody } from '../../src/shared/api/fieldChanges';
 import { SystemDocumentSchema } from '../../src/engine';
+import { ReplyBody, SendPackageBody } from '../../src/shared/api/reviewLoop';
 import { CreateCatalogEntryBody, updateCatalogEntryBody } from '../../src/shared/api/catalog';
 
 type Caller = 'anonymous' | 'designer' | 'administrator' | 'inspector' | 'contractor';
@@ -95,6 +96,9 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
     expect: bySchema(DecideReviewBody),
     seed: () => ({ decision: 'returned', comment: 'See the riser', items: [{ itemType: 'segment', itemId: 'riser', comment: 'Upsize' }], version: 7 }),
   },
+  // ---- the review loop (issue 17): a reply to a comment, one submission for a building
+  'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': { as: 'designer', expect: bySchema(ReplyBody), seed: () => ({ reply: 'Added the elbows to the riser.' }) },
+  'POST /api/projects/:projectId/submissions': { as: 'designer', expect: bySchema(SendPackageBody), seed: () => ({ systemIds: [randomUUID()], inspectorIds: [randomUUID()], message: 'The building’s systems' }) },
   // ---- field changes (issue 6)
   'POST /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor', expect: bySchema(CreateFieldChangeBody), seed: () => ({ revisionId: randomUUID(), title: 'Press fittings', description: 'On the service line' }) },
   'PATCH /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId': {
@@ -292,6 +296,7 @@ async function targetsFor(routePath: string): Promise<string> {
     const base = `/api/projects/${project.id}/systems/${created.system.id}`;
     await want(d.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1 }), 200);
   }
+  let lastReviewId = '';
   const values: Record<string, () => Promise<string>> = {
     projectId: async () => project.id,
     systemId: async () => created.system.id,
@@ -305,10 +310,13 @@ async function targetsFor(routePath: string): Promise<string> {
       (await want(d.send('POST', `/api/projects/${project.id}/catalog/entries`, { kind: 'material', label: 'Fuzz tube', source: 'Invented sheet', data: { velocityClass: 'plastic', roughnessM: 0, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }] } }), 201)).body.entry.id,
     messageId: async () =>
       (await h.db('outbox').insert({ kind: 'invitation', project_id: project.id, to_address: 'fuzz@test.example', subject: 'Fuzz', text_body: 'Fuzz', status: 'failed', attempts: 3, max_attempts: 3 }).returning('id'))[0].id,
+    // a comment of the review made just before (the reply route's path names the review first)
+    commentId: async () => String((await h.db('review_comments').insert({ review_id: lastReviewId, item_type: 'general', comment: 'Fuzz comment' }).returning('id'))[0].id),
     reviewId: async () => {
       const other = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz issued', service: 'cold', document: smallDocument() }), 201)).body;
       await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1 }), 200);
-      return (await h.db('reviews').insert({ project_id: project.id, revision_id: other.revision.id, reviewer_id: inspectorId }).returning('id'))[0].id;
+      lastReviewId = (await h.db('reviews').insert({ project_id: project.id, revision_id: other.revision.id, reviewer_id: inspectorId }).returning('id'))[0].id;
+      return lastReviewId;
     },
   };
   let path = routePath;
