@@ -29,6 +29,8 @@ const ACTIONS: Record<string, string> = {
   'message.requeued': 'E-mail queued again',
   'review.accepted': 'Accepted the summary',
   'review.returned': 'Returned the summary with comments',
+  'review.comment-answered': 'Answered a review comment',
+  'summary.package-sent': 'Sent systems as one submission',
 };
 
 function detailText(value: unknown): string {
