@@ -22,7 +22,7 @@ const FIXTURE_COMMENT = `Confirm the valve model at this shower (${run}).`;
 const SEGMENT_REPLY = 'Added the usual set of two elbows and a tee run to the riser.';
 const FIXTURE_REPLY = 'The valve is the pressure-balancing model in the fixture schedule.';
 
-const ctx = { projectId: '', systemId: '', rev1: '', rev2: '' };
+const ctx = { projectId: '', systemId: '', rev1: '', rev2: '', inspectorId: '' };
 const resultUrl = (revisionId: string) => `/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${revisionId}/result`;
 
 async function shot(page: Page, name: string, what: 'page' | Locator = 'page') {
@@ -42,14 +42,25 @@ test.afterEach(() => expect(pageProblems).toEqual([]));
 /** The signed-in page's API, with its CSRF token (the set-up only; the loop itself goes through the screens). */
 async function apiOf(page: Page) {
   const token = (await (await page.request.get('/api/csrf-token')).json()).token as string;
-  return async (method: 'POST' | 'PUT', url: string, data: unknown) => {
+  return async (method: 'POST' | 'PUT' | 'DELETE', url: string, data?: unknown) => {
     const res = await page.request.fetch(url, { method, data, headers: { 'x-csrf-token': token } });
     expect(res.status(), `${method} ${url}: ${await res.text()}`).toBeLessThan(300);
-    return res.json();
+    return res.status() === 204 ? null : res.json();
   };
 }
 
 const panel = (page: Page) => page.getByTestId('revision-summary-panel');
+
+// The demo inspector is shared with other specs: once this spec is done (or stopped), this project's
+// reviews leave the inspector's inbox (it lists the projects they are a member of), so no other spec sees them.
+test.afterAll(async ({ browser }) => {
+  if (!ctx.projectId || !ctx.inspectorId) return;
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  await signIn(page, DEMO.designer);
+  await (await apiOf(page))('DELETE', `/api/projects/${ctx.projectId}/members/${ctx.inspectorId}`);
+  await context.close();
+});
 const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name });
 
 test('set-up: the designer issues revision 1 of a new project’s cold-water system and sends it to the inspector', async ({ page }) => {
@@ -63,8 +74,8 @@ test('set-up: the designer issues revision 1 of a new project’s cold-water sys
   ctx.rev1 = created.revision.id;
   await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/issue`, { version: created.revision.version });
   const members = (await (await page.request.get(`/api/projects/${ctx.projectId}/members`)).json()).members as { userId: string; email: string }[];
-  const inspectorId = members.find((m) => m.email === DEMO.inspector)!.userId;
-  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/summary/send`, { inspectorIds: [inspectorId] });
+  ctx.inspectorId = members.find((m) => m.email === DEMO.inspector)!.userId;
+  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/summary/send`, { inspectorIds: [ctx.inspectorId] });
 });
 
 test('when the inspector returns revision 1 with two item comments, then the review records both', async ({ page }) => {
