@@ -70,7 +70,7 @@ export function screenshotDir(): string {
  * Enters the building from an empty project, step by step in the order the screens suggest:
  * project, system, supply, the service pipe and the two devices, the service pipe's pipe, then the
  * Building page (floors, one apartment type, the riser builder with four apartments along each
- * floor main), generated into the draft.
+ * floor main), ready to generate.
  */
 export async function enterBuilding(page: Page, c: EntryCounter, name: string, b: BuildingInputs): Promise<void> {
   // a project of the user's own, then a cold-water system in it
@@ -164,6 +164,14 @@ export async function enterBuilding(page: Page, c: EntryCounter, name: string, b
     await c.fill(page.getByLabel(`Position ${i + 2} branch length`), branch);
   }
   await expect(page.getByTestId('preview-placements')).toHaveText(String(b.storeys * 4));
+}
+
+/** The last entry: "Generate into draft". Resolves when the generated building's verdict is on screen (the verdict bar). */
+export async function generate(page: Page, c: EntryCounter): Promise<number> {
+  const t0 = Date.now();
   await c.click(page.getByRole('button', { name: 'Generate into draft' }));
+  await expect(page.getByTestId('verdict-bar')).toHaveAttribute('data-status', /^(pass|fail)$/, { timeout: 60_000 });
+  const shownMs = Date.now() - t0;
   await expect(page.getByText(/^Generated \d+ segments/)).toBeVisible();
+  return shownMs;
 }
