@@ -136,6 +136,8 @@ export interface SizingResult {
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
   analyses: number;
+  /** Where the time went, ms: the analyses (base, probes, verifications), the search, and the whole call. */
+  timings: { analysesMs: number; searchMs: number; totalMs: number };
 }
 
 export type SizingErrorCode = 'nothing-to-size' | 'all-locked' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
@@ -175,10 +177,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (!docIndexById.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
   }
 
+  const startedAt = performance.now();
   let analyses = 0;
+  let analysesMs = 0;
+  let searchMs = 0;
   const run = (d: SystemDocument): Analysis => {
     analyses++;
-    return analyzeValidated(d);
+    const t0 = performance.now();
+    const a = analyzeValidated(d);
+    analysesMs += performance.now() - t0;
+    return a;
   };
   const base = run(doc);
   if (base.verdict.status === 'incomplete') {
@@ -231,7 +239,21 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const baseLoss = segs.map((s) => s.frictionLoss + (s.totalK > 0 ? (s.fittingLoss * s.fittingsK) / s.totalK : 0));
   const probeLoss = new Map<string, number>();
   const probeVelocity = new Map<string, number>();
-  const jobs = [...candidates].flatMap(([, c]) => c.sizes.map((size, k) => ({ docIndex: c.docIndex, size, k })));
+  // Segments alike in everything a probe measures (material, allowed sizes, length, fittings,
+  // design flow) lose alike: one probe serves them all (a building's typical floors repeat).
+  const flowOf = new Map(base.segments.map((s) => [s.id, s.designFlow]));
+  const representative = new Map<string, number>();
+  const probeOf = new Map<number, number>();
+  for (const [index, c] of candidates) {
+    const s = doc.segments[c.docIndex];
+    const key = JSON.stringify([s.material, c.sizes, s.length, s.fittings, flowOf.get(s.id)]);
+    if (!representative.has(key)) representative.set(key, c.docIndex);
+    probeOf.set(index, representative.get(key)!);
+  }
+  const jobs = [...new Set(probeOf.values())].flatMap((docIndex) => {
+    const c = candidates.get(segIndex.get(doc.segments[docIndex].id)!)!;
+    return c.sizes.map((size, k) => ({ docIndex, size, k }));
+  });
   for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
     const r = run(probeDocument(doc, base, jobs.slice(from, from + PROBE_SEGMENTS))).si.segments;
     for (const s of r) {
@@ -244,7 +266,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   for (const [index, c] of candidates) {
     const limit = segs[index].velocityLimit;
     const rows = c.sizes.map((key, k) => {
-      const id = probeId(doc.segments[c.docIndex].id, k);
+      const id = probeId(doc.segments[probeOf.get(index)!].id, k);
       return { key, loss: probeLoss.get(id)!, velocity: probeVelocity.get(id)! };
     });
     let ok = rows.filter((r) => limit === null || r.velocity <= limit * (1 + VELOCITY_RTOL));
@@ -362,6 +384,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       frictionBudget: budget,
       document: null,
       analyses,
+      timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
     };
   }
 
@@ -394,7 +417,9 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   let after: Analysis | null = null;
   let sized: SystemDocument | null = null;
   for (let round = 0; round <= MAX_REPAIRS; round++) {
+    const searchStart = performance.now();
     const best = search(order, children, free, cuts, leafNeed, allSlack.map((s, i) => s - adjust[i]), minAbove, maxAbove, roots);
+    searchMs += performance.now() - searchStart;
     if (!best) break;
     chosen = best;
     sized = withSizes(doc, free, chosen);
@@ -455,6 +480,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     frictionBudget: budget,
     document: verified && allVelocity ? sized : null,
     analyses,
+    timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
   };
 }
 
