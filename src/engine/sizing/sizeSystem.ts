@@ -140,7 +140,7 @@ export interface SizingResult {
   timings: { analysesMs: number; searchMs: number; totalMs: number };
 }
 
-export type SizingErrorCode = 'nothing-to-size' | 'all-locked' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
+export type SizingErrorCode = 'nothing-to-size' | 'all-locked' | 'unknown-material' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
 
 /** Sizing cannot start: names the cause and, where there is one, the element. */
 export class SizingError extends Error {
