@@ -40,3 +40,39 @@ export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: bo
     }),
   };
 }
+
+/** A segment's pipe as it was before a substitution was applied. */
+export type PipeBefore = { segmentId: string; material: string | undefined; size: string | undefined };
+
+/** Applies a contractor's substitution: each substituted segment takes the answer's material and size. */
+export function applySubstitution(doc: SystemDocument, material: string, rows: readonly SegmentSizing[], substituted: readonly string[]): { document: SystemDocument; before: PipeBefore[] } {
+  const chosen = new Map(rows.filter((r) => substituted.includes(r.segmentId) && r.after !== null).map((r) => [r.segmentId, r.after!]));
+  const before: PipeBefore[] = [];
+  const segments = doc.segments.map((s) => {
+    const size = chosen.get(s.id);
+    if (size === undefined) return s;
+    before.push({ segmentId: s.id, material: s.material, size: s.size });
+    const next = { ...s, material, size };
+    delete next.custom;
+    return next;
+  });
+  return { document: { ...doc, segments }, before };
+}
+
+/** Takes a substitution back: each segment's material and size as they were. */
+export function undoSubstitution(doc: SystemDocument, before: readonly PipeBefore[]): SystemDocument {
+  const back = new Map(before.map((b) => [b.segmentId, b]));
+  return {
+    ...doc,
+    segments: doc.segments.map((s) => {
+      const b = back.get(s.id);
+      if (!b) return s;
+      const next = { ...s };
+      if (b.material === undefined) delete next.material;
+      else next.material = b.material;
+      if (b.size === undefined) delete next.size;
+      else next.size = b.size;
+      return next;
+    }),
+  };
+}
