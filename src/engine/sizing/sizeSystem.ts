@@ -14,8 +14,9 @@
  * The method, and why it is exact on a tree:
  *   1. One analysis of the document gives every segment's design flow. In a tree the design flow
  *      comes from the fixture units downstream, not from the sizes, so it is fixed.
- *   2. Probe analyses (one per size position, on a copy of the main tree with every segment's flow
- *      fixed by `flowOverride`, so no demand is recomputed) give each segment's friction and
+ *   2. A probe analysis (twins of the segments hung from the source, each at one candidate size
+ *      with its design flow fixed by `flowOverride`, so no demand is recomputed; segments alike in
+ *      material, length, fittings and flow share one twin) gives each segment's friction and
  *      fitting loss L_e(s) and velocity at every candidate size s. The velocity limit removes the
  *      sizes below the smallest that meets it (a velocity only falls as the size grows).
  *   3. A fixture f's residual changes with the sizes only through the losses of the segments on
@@ -589,20 +590,29 @@ function ownCurveLossPa(points: readonly { flow: number; loss: number }[], flowS
 }
 
 /**
- * The main tree with every segment's flow fixed at its design flow and placements removed, plus
- * one copy of a segment per size to measure: a dead-end twin from the same upstream node, level,
- * carrying the same flow, fittings and material at the size measured. One analysis so measures
- * many sizes (the copies do not change any flow: every flow is fixed).
+ * The probes: one copy of a segment per size to measure, each a dead-end twin hung from the
+ * source node, level, carrying the segment's design flow (fixed by `flowOverride`), fittings and
+ * material at the size measured, without size-change loss. A segment's friction and fitting loss
+ * depend only on these (the analysis adds nothing for where a segment hangs except the size
+ * change, which is left out here), so one small analysis measures every size of every segment;
+ * the rest of the tree, its devices and typical units are left out.
  */
 function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: number; size: string; k: number }[]): SystemDocument {
   const flow = new Map(base.segments.map((s) => [s.id, s.designFlow]));
-  const fixed = doc.segments.map((s) => ({ ...s, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false }));
+  const sourceNode = doc.nodes.find((n) => n.id === doc.source.nodeId)!;
   const twins = jobs.map(({ docIndex, size, k }) => {
-    const s = fixed[docIndex];
-    return { ...s, id: probeId(s.id, k), label: undefined, to: probeId(s.to, k), size, rise: 0 };
+    const s = doc.segments[docIndex];
+    return { ...s, id: probeId(s.id, k), label: undefined, from: sourceNode.id, to: probeId(s.to, k), size, rise: 0, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false, sizeLocked: undefined };
   });
   const twinNodes = twins.map((t) => ({ id: t.to, fixtureGroups: [], checkedFixtures: [] }));
-  return { ...doc, placements: undefined, unitTypes: undefined, nodes: [...doc.nodes, ...twinNodes], segments: [...fixed, ...twins] };
+  return {
+    ...doc,
+    placements: undefined,
+    unitTypes: undefined,
+    devices: [],
+    nodes: [{ ...sourceNode, fixtureGroups: [], checkedFixtures: [], continuousDemand: undefined }, ...twinNodes],
+    segments: twins,
+  };
 }
 
 function probeId(id: string, k: number): string {
