@@ -23,6 +23,7 @@ import { PressureProfileChart } from '../components/pressure-profile';
 import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
+import { SizingPanel } from '../../sizing/components/sizing-panel';
 
 const STATEMENT_MIN = 20;
 
@@ -263,6 +264,12 @@ export function ResultStep() {
           <p className="text-ink-soft">Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.</p>
         </div>
       </Section>
+
+      {status !== 'incomplete' ? (
+        <Section title="Automatic sizing" headingLevel={3}>
+          <SizingPanel />
+        </Section>
+      ) : null}
 
       <Section title="Warnings" headingLevel={3}>
         <WarningList title={`${plural(a.warnings.length, 'warning')} in plain words`} warnings={a.warnings} empty="No warnings." />
