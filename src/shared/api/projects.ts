@@ -24,13 +24,21 @@ export const ADOPTED_CODE_LABELS: Record<(typeof ADOPTED_CODES)[number], string>
 };
 export const AdoptedCode = z.enum(ADOPTED_CODES);
 
+/** The permit fields as a form holds them: every field present. */
+export const PermitFormFields = z.object({
+  permitNumber: z.string().trim().max(80, 'At most 80 characters'),
+  adoptedCode: AdoptedCode,
+  localAmendments: z.string().trim().max(2000, 'At most 2000 characters'),
+  preparerLicence: z.string().trim().max(80, 'At most 80 characters'),
+  licenceJurisdiction: z.string().trim().max(120, 'At most 120 characters'),
+});
 /** What a plan reviewer looks for on every page: the permit, the code adopted, the preparer's licence. */
 export const PermitFields = z.object({
-  permitNumber: z.string().trim().max(80, 'At most 80 characters').default(''),
+  permitNumber: PermitFormFields.shape.permitNumber.default(''),
   adoptedCode: AdoptedCode.default(''),
-  localAmendments: z.string().trim().max(2000).default(''),
-  preparerLicence: z.string().trim().max(80, 'At most 80 characters').default(''),
-  licenceJurisdiction: z.string().trim().max(120, 'At most 120 characters').default(''),
+  localAmendments: PermitFormFields.shape.localAmendments.default(''),
+  preparerLicence: PermitFormFields.shape.preparerLicence.default(''),
+  licenceJurisdiction: PermitFormFields.shape.licenceJurisdiction.default(''),
 });
 export type PermitFields = z.infer<typeof PermitFields>;
 export const EMPTY_PERMIT: PermitFields = { permitNumber: '', adoptedCode: '', localAmendments: '', preparerLicence: '', licenceJurisdiction: '' };
@@ -69,7 +77,7 @@ export const Project = z.object({
   codeBasis: z.string(),
   unitSystem: UnitSystem,
   notes: z.string(),
-  permit: PermitFields,
+  permit: PermitFields.default(() => ({ ...EMPTY_PERMIT })),
   archived: z.boolean(),
   version: z.number().int(),
   createdAt: z.string(),

@@ -18,6 +18,7 @@ import { liveStatus, plural, stepOfReason } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { RevisionSummaryPanel } from '../../summaries/components/revision-summary-panel';
 import { StepIntro } from '../components/cells';
+import { AttestationFields, attestationOf, EMPTY_ATTESTATION, type AttestationDraft } from '../components/attestation-fields';
 import { criticalLedger, LedgerTable } from '../components/ledger-panel';
 import { PressureProfileChart } from '../components/pressure-profile';
 import { WarningList } from '../components/warning-list';
@@ -37,6 +38,8 @@ function IssueForm() {
   const [preparing, setPreparing] = useState(false);
   const [confirming, setConfirming] = useState<{ note: string } | null>(null);
   const [statement, setStatement] = useState('');
+  const [attestationDraft, setAttestationDraft] = useState<AttestationDraft>(EMPTY_ATTESTATION);
+  const attestation = attestationOf(attestationDraft);
   const form = useForm({ resolver: zodResolver(issueRevisionInputSchema), defaultValues: { note: '' } });
   const status = liveStatus(live);
   const reasons = live.ok ? live.analysis.verdict.incomplete ?? [] : [];
@@ -47,13 +50,13 @@ function IssueForm() {
     setConfirming({ note: note ?? '' });
   });
   const confirm = async () => {
-    if (!confirming || statementShort) return;
+    if (!confirming || statementShort || !attestation) return;
     setPreparing(true);
     const version = await draft.versionToIssue();
     setPreparing(false);
     if (version === null) return;
     issue.mutate(
-      { ...ids, version, note: confirming.note, ...(status === 'fail' ? { acknowledgeFailure: { statement } } : {}) },
+      { ...ids, version, note: confirming.note, attestation, ...(status === 'fail' ? { acknowledgeFailure: { statement } } : {}) },
       { onSettled: () => setConfirming(null) },
     );
   };
@@ -80,8 +83,9 @@ function IssueForm() {
               error={statementShort && statement.length > 0 ? `At least ${STATEMENT_MIN} characters` : undefined}
             />
           ) : null}
+          <AttestationFields value={attestationDraft} onChange={setAttestationDraft} disabled={issue.isPending || preparing} />
           <div className="flex flex-wrap gap-3">
-            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked}>
+            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked || !attestation}>
               {status === 'fail' ? `Yes, issue failing revision ${revision.number}` : `Yes, issue revision ${revision.number}`}
             </Button>
             <Button variant="secondary" onClick={() => setConfirming(null)} disabled={issue.isPending || preparing}>
