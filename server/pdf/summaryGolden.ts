@@ -11,6 +11,7 @@ import { summaryVerdict } from './summaryContent';
 import { attestationLines, permitFrame, permitRows } from './permitContent';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows } from './summaryTables';
 import { num, signed } from './format';
+import { profileAxes, profilePoints } from './chart';
 
 export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: SummaryPdfInput) => string[])[] = []): string {
   const { header, document: doc, analysis: a } = input;
@@ -39,6 +40,12 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
     out.push(`## Ledger of the critical fixture: ${critical.label}`);
     for (const l of ledger.lines) out.push(`${l.step} ${l.kind} ${l.segmentId ? names.segment(l.segmentId) : ''} ${l.kind === 'device' || l.kind === 'start' ? l.label : ''} ${l.kind === 'start' ? '' : signed(l.change, u.pressure)} -> ${num(l.pressureAfter, u.pressure)}`.replace(/\s+/g, ' '));
     out.push(`residual ${num(ledger.residual, u.pressure)}, required ${num(ledger.required, u.pressure)}, margin ${signed(ledger.margin, u.pressure)}`, '');
+    const axes = profileAxes(profilePoints(a, critical.id), critical.required, u.pressure);
+    out.push(`## Pressure profile to ${critical.label}`);
+    out.push(`pressure ticks (${u.pressure}, step ${axes.y.step}): ${axes.y.ticks.map((t) => t.label).join(' ')}`);
+    out.push(`length ticks (${u.length}, step ${axes.x.step}): ${axes.x.ticks.map((t) => t.label).join(' ')}`);
+    for (const d of axes.devices) out.push(`device step at ${num(d.x, u.length)} ${u.length}: ${d.text}`);
+    out.push('');
   }
 
   out.push(`## Appendix: every other checked fixture's ledger (${u.pressure})`);
