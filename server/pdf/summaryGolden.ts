@@ -12,6 +12,7 @@ import { attestationLines, permitFrame, permitRows } from './permitContent';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows } from './summaryTables';
 import { num, signed } from './format';
 import { profileAxes, profilePoints } from './chart';
+import { riserDiagram, riserElementsByFloor } from '../../src/shared/diagram/riserLayout';
 
 export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: SummaryPdfInput) => string[])[] = []): string {
   const { header, document: doc, analysis: a } = input;
@@ -56,6 +57,7 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
     for (const r of l.rows) out.push(`${r.segment}${r.devices ? ` [${r.devices}]` : ''} friction ${r.friction} fittings ${r.fittings} elevation ${r.elevation} -> ${r.pressureAfter}`);
   }
   out.push('');
+  out.push('## Riser diagram', ...riserElementsByFloor(riserDiagram(doc, a)), '');
   for (const section of extra) out.push(...section(input), '');
   return out.join('\n').replace(/\n+$/, '\n');
 }

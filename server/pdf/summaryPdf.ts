@@ -7,14 +7,13 @@ import { PDFDocument, PDFName, PDFNumber, PDFString } from 'pdf-lib';
 import { ledgerFor, fromSI, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
-import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import { boosterText, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
-import { ADOPTED_CODE_LABELS } from '../../src/shared/api/projects';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows, type Names } from './summaryTables';
 import { adoptedCodeText, attestationLines, permitFrame, permitRows, type AttestationText } from './permitContent';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
+import { riserDiagramSection } from './riserSection';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
@@ -152,6 +151,7 @@ export const SUMMARY_SECTIONS: readonly SummarySection[] = [
   { id: 'results', build: resultsSection },
   { id: 'cautions', build: cautionsSection },
   { id: 'preparer', build: preparerSection },
+  { id: 'riser-diagram', build: riserDiagramSection },
   { id: 'ledgers', build: ledgerAppendix },
 ];
 
