@@ -189,7 +189,7 @@ describe('field changes: proposed, accepted, declined', () => {
     expect(toDesigner[0].text_body).toContain('Still passes');
     expect(toDesigner[0].text_body).toContain(`/projects/${w.projectId}/systems/${w.systemId}/field-changes/${fieldChange.id}`);
 
-    const accepted = (await w.designer.send('POST', `${url}/accept`, { version: proposed.version, attestation: ATTESTATION, comment: 'Accepted; issue with the next set.' }).expect(200)).body;
+    const accepted = (await w.designer.send('POST', `${url}/accept`, { version: proposed.version, comment: 'Accepted; issue with the next set.' }).expect(200)).body;
     expect(accepted.fieldChange.status).toBe('accepted');
     expect(accepted.revision).toMatchObject({ number: 2, status: 'draft' });
     expect(accepted.fieldChange.acceptedRevision).toEqual({ id: accepted.revision.id, number: 2 });
