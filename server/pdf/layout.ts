@@ -79,6 +79,11 @@ export class Layout {
     this.y = this.height - MARGIN.top;
   }
 
+  /** True while nothing has been drawn below the top margin of the current page. */
+  get atPageTop() {
+    return this.y >= this.height - MARGIN.top - 0.01;
+  }
+
   /** Starts a new page unless `height` points still fit above the bottom margin. */
   ensure(height: number) {
     if (this.y - height < this.bottom) this.newPage();

@@ -11,7 +11,7 @@ export function riserDiagramSection(c: SummaryContext) {
   const { L, doc, a } = c;
   const diagram = riserDiagram(doc, a);
   if (!diagram.pipes.length) return;
-  L.newPage();
+  if (!L.atPageTop) L.newPage();
   L.heading('Appendix: riser diagram');
   const tags = [...new Set(diagram.devices.map((d) => d.tag))] as DeviceTag[];
   L.paragraph(

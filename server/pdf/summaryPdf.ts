@@ -523,7 +523,7 @@ function ledgerAppendix(c: SummaryContext) {
   const { L, a, doc, u, names } = c;
   const ledgers = fixtureLedgers(a, doc, { exclude: a.criticalFixtureId, names });
   if (!ledgers.length) return;
-  L.newPage();
+  if (!L.atPageTop) L.newPage();
   L.heading('Appendix: the pressure ledger of every checked fixture');
   L.paragraph(
     `Each ledger starts at the source and deducts, segment by segment along the path to the fixture, the device losses, pipe friction, fittings and elevation (${u.pressure}). Fixtures are in the order of the piping: where a ledger shares its start with the one before, it carries on from the pressure after the last shared segment. The critical fixture's ledger is under Results.`,
