@@ -282,10 +282,17 @@ export function ResultStep() {
 
       <Section title="Issue" headingLevel={3}>
         {revision.status !== 'draft' ? (
-          <p data-testid="issued-note">
-            Revision {revision.number} was issued{revision.issuedAt ? ` on ${formatDateTime(revision.issuedAt)}` : ''}
-            {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
-          </p>
+          <>
+            <p data-testid="issued-note">
+              Revision {revision.number} was issued{revision.issuedAt ? ` on ${formatDateTime(revision.issuedAt)}` : ''}
+              {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
+            </p>
+            {revision.attestation ? (
+              <p className="text-sm" data-testid="issued-attestation">
+                Attested by {revision.attestation.name}, licence or registration no. {revision.attestation.licenceNumber}, on {formatDateTime(revision.attestation.at)}: “{revision.attestation.statement}”
+              </p>
+            ) : null}
+          </>
         ) : readOnlyReason || project.myRole !== 'designer' ? (
           <p>Only the project’s designers issue revisions.</p>
         ) : (
