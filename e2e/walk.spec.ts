@@ -160,6 +160,7 @@ test('when a designer walks a new system from the supply to the result, then the
   await confirm.getByLabel(/^I confirm:/).check();
   await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
   await expect(page.getByTestId('issued-note')).toContainText('issued');
+  await expect(page.getByTestId('issued-attestation')).toContainText('Attested by Dana Whitlow, licence or registration no. PE 40417');
   await expect(page.getByTestId('read-only-note')).toBeVisible();
   firstRevisionUrl = page.url();
 
