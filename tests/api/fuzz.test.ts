@@ -27,6 +27,7 @@ import { DecideReviewBody, SendSummaryBody } from '../../src/shared/api/summarie
 import { AcceptFieldChangeBody, CreateFieldChangeBody, DeclineFieldChangeBody, UpdateFieldChangeBody, VersionBody } from '../../src/shared/api/fieldChanges';
 import { SystemDocumentSchema } from '../../src/engine';
 import { CreateCatalogEntryBody, updateCatalogEntryBody } from '../../src/shared/api/catalog';
+import { ATTESTATION } from './support/attestation';
 
 type Caller = 'anonymous' | 'designer' | 'administrator' | 'inspector' | 'contractor';
 
@@ -82,7 +83,7 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
     // version 7: a valid mutation is refused as stale, so the draft the other runs aim at stays put
     seed: () => ({ document: smallDocument(), version: 7 }),
   },
-  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', expect: bySchema(IssueBody), seed: () => ({ version: 7, note: 'Issued for review' }) },
+  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', expect: bySchema(IssueBody), seed: () => ({ version: 7, note: 'Issued for review', attestation: ATTESTATION }) },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': NO_BODY,
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': {
     as: 'designer',
@@ -290,7 +291,7 @@ async function targetsFor(routePath: string): Promise<string> {
   // field changes start from an issued revision: their routes get an issued system
   if (routePath.includes('/field-changes')) {
     const base = `/api/projects/${project.id}/systems/${created.system.id}`;
-    await want(d.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1 }), 200);
+    await want(d.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }), 200);
   }
   const values: Record<string, () => Promise<string>> = {
     projectId: async () => project.id,
@@ -307,7 +308,7 @@ async function targetsFor(routePath: string): Promise<string> {
       (await h.db('outbox').insert({ kind: 'invitation', project_id: project.id, to_address: 'fuzz@test.example', subject: 'Fuzz', text_body: 'Fuzz', status: 'failed', attempts: 3, max_attempts: 3 }).returning('id'))[0].id,
     reviewId: async () => {
       const other = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz issued', service: 'cold', document: smallDocument() }), 201)).body;
-      await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1 }), 200);
+      await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1, attestation: ATTESTATION }), 200);
       return (await h.db('reviews').insert({ project_id: project.id, revision_id: other.revision.id, reviewer_id: inspectorId }).returning('id'))[0].id;
     },
   };
