@@ -72,7 +72,7 @@ test('set-up: the designer issues revision 1 of a new project’s cold-water sys
   const created = await send('POST', `/api/projects/${ctx.projectId}/systems`, { name: SYSTEM, service: 'cold', document });
   ctx.systemId = created.system.id;
   ctx.rev1 = created.revision.id;
-  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/issue`, { version: created.revision.version });
+  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/issue`, { version: created.revision.version, attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true } });
   const members = (await (await page.request.get(`/api/projects/${ctx.projectId}/members`)).json()).members as { userId: string; email: string }[];
   ctx.inspectorId = members.find((m) => m.email === DEMO.inspector)!.userId;
   await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/summary/send`, { inspectorIds: [ctx.inspectorId] });
@@ -151,6 +151,10 @@ test('when the designer opens the returned project, then the marker shows on the
   const confirm = page.getByRole('group', { name: 'Confirm issuing' });
   const statement = confirm.getByLabel('Your statement: why this failing revision is issued');
   if (await statement.count()) await statement.fill('Issued with the riser fittings the inspector asked for; the failing fixture is being resized.');
+  // the preparer's attestation (invented name and licence number)
+  await confirm.getByLabel('Your name, as on your licence').fill('Dana Whitlow');
+  await confirm.getByLabel('Licence or registration number').fill('PE 40417');
+  await confirm.getByLabel(/^I confirm:/).check();
   await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
   // issuing makes the summary PDF in the same request: slow on a loaded machine
   await expect(page.getByTestId('issued-note')).toContainText('issued', { timeout: 90_000 });

@@ -153,8 +153,14 @@ test('when a designer walks a new system from the supply to the result, then the
   await expect(confirm).toBeVisible();
   const statement = confirm.getByLabel('Your statement: why this failing revision is issued');
   if (await statement.count()) await statement.fill('Issued to record the first check of the annex; the failing fixture is being resized (demo).');
+  // the preparer's attestation: nothing is issued until it is confirmed
+  await expect(confirm.getByRole('button', { name: /^Yes, issue/ })).toBeDisabled();
+  await confirm.getByLabel('Your name, as on your licence').fill('Dana Whitlow');
+  await confirm.getByLabel('Licence or registration number').fill('PE 40417');
+  await confirm.getByLabel(/^I confirm:/).check();
   await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
   await expect(page.getByTestId('issued-note')).toContainText('issued');
+  await expect(page.getByTestId('issued-attestation')).toContainText('Attested by Dana Whitlow, licence or registration no. PE 40417');
   await expect(page.getByTestId('read-only-note')).toBeVisible();
   firstRevisionUrl = page.url();
 

@@ -4,6 +4,7 @@
  * ratio (ours ÷ peer):
  *
  *   engine  — the 5,000-segment trees against EPANET (epanet-js) solving the same network;
+ *   sizing  — automatic sizing of the 40-storey buildings against one analysis (scripts/bench/sizing.ts);
  *   PDF     — the issued summary against a one-page pdf-lib document with the same fonts;
  *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint;
  *   client  — the first page's gzip JavaScript against its library chunks, and edit-to-ledger
@@ -14,7 +15,7 @@
  * the end. Options:
  *
  *   npm run bench -- --quick          fewer runs and shorter rounds (about a third of the time)
- *   npm run bench -- --only engine,pdf,api,client
+ *   npm run bench -- --only engine,sizing,pdf,api,client
  *   npm run bench -- --rebuild        build the client even when dist/ looks up to date
  *
  * Writes bench-output/bench.md (the table as markdown, with its date and machine) and
@@ -25,6 +26,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { engineRows } from './bench/engine';
+import { sizingRows } from './bench/sizing';
 import { pdfRows } from './bench/pdf';
 import { apiRows, startNodeServer, type NodeServer } from './bench/api';
 import { buildClient, firstPageRow, ledgerRows } from './bench/client';
@@ -35,7 +37,7 @@ const args = process.argv.slice(2);
 const quick = args.includes('--quick');
 const onlyArg = args.find((a) => a.startsWith('--only'));
 const onlyValue = onlyArg?.includes('=') ? onlyArg.split('=')[1] : onlyArg ? args[args.indexOf(onlyArg) + 1] : undefined;
-const PARTS = ['engine', 'pdf', 'api', 'client'] as const;
+const PARTS = ['engine', 'sizing', 'pdf', 'api', 'client'] as const;
 const only = new Set(onlyValue ? onlyValue.split(',') : PARTS);
 for (const p of only) if (!(PARTS as readonly string[]).includes(p)) throw new Error(`--only: unknown part "${p}" (parts: ${PARTS.join(', ')})`);
 const want = (p: (typeof PARTS)[number]) => only.has(p);
@@ -45,8 +47,8 @@ const want = (p: (typeof PARTS)[number]) => only.has(p);
  * 2¼ minutes measured on a busy machine, 1½ with --quick) while each median has at least 3 samples.
  */
 const PLAN = quick
-  ? { engineRepeats: 15, pdfRuns: 5, apiRounds: 3, apiSeconds: 3, apiWarmup: 1, edits: 7 }
-  : { engineRepeats: 40, pdfRuns: 9, apiRounds: 7, apiSeconds: 5, apiWarmup: 2, edits: 15 };
+  ? { engineRepeats: 15, sizingRuns: 3, pdfRuns: 5, apiRounds: 3, apiSeconds: 3, apiWarmup: 1, edits: 7 }
+  : { engineRepeats: 40, sizingRuns: 5, pdfRuns: 9, apiRounds: 7, apiSeconds: 5, apiWarmup: 2, edits: 15 };
 /** 10 connections: the figure issue #7 names (and autocannon's default). */
 const CONNECTIONS = 10;
 
@@ -74,6 +76,10 @@ try {
   if (want('engine')) {
     log(`engine: ${PLAN.engineRepeats} runs per case …`);
     rows.push(...(await engineRows(PLAN.engineRepeats, log)));
+  }
+  if (want('sizing')) {
+    log(`sizing: ${PLAN.sizingRuns} runs per building …`);
+    rows.push(...(await sizingRows(PLAN.sizingRuns, log)));
   }
   if (want('pdf')) {
     log(`PDF: ${PLAN.pdfRuns} runs per case …`);

@@ -184,7 +184,7 @@ async function killedWithMailQueued() {
   try {
     const db = createDb(cluster.url);
     const [u] = await makeUsers(db, server.url, 1, demoDocument);
-    await want(u.client.send('POST', `${u.paths.revision}/issue`, { version: u.version }), 200);
+    await want(u.client.send('POST', `${u.paths.revision}/issue`, { version: u.version, attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true } }), 200);
     for (let i = 0; i < 100; i++) {
       const s = await u.client.get(`${u.paths.revision}/summary`);
       if (s.body?.summary?.status === 'ready') break;

@@ -17,13 +17,15 @@ export async function seed(knex: Knex): Promise<void> {
     config: loadConfig({ NODE_ENV: 'test', DATABASE_URL: 'postgres://seed.invalid/seed', SESSION_SECRET: 'seed-only-secret-seed-only-secret-0000' }),
   };
   const actor = { id: designer.id, isAdmin: designer.is_admin, accountRole: designer.account_role };
+  // the demo designer's attestation (an invented licence number, the one the project states)
+  const attestation = { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared' as const, confirmed: true as const };
 
   // Cold water: revision 1 issued, revision 2 a draft started from it.
   const cold = await systemsService.create(ctx, actor, project.id, { name: 'Domestic cold water', service: 'cold', document: example('alder-finch-cold.json') });
-  const issued = await systemsService.issue(ctx, actor, project.id, cold.system.id, cold.revision.id, cold.revision.version, 'Permit set');
+  const issued = await systemsService.issue(ctx, actor, project.id, cold.system.id, cold.revision.id, cold.revision.version, 'Permit set', null, attestation);
   await systemsService.newDraft(ctx, actor, project.id, cold.system.id, issued.id);
 
   // Hot water: revision 1 issued.
   const hot = await systemsService.create(ctx, actor, project.id, { name: 'Domestic hot water', service: 'hot', document: example('alder-finch-hot.json') });
-  await systemsService.issue(ctx, actor, project.id, hot.system.id, hot.revision.id, hot.revision.version, 'Permit set');
+  await systemsService.issue(ctx, actor, project.id, hot.system.id, hot.revision.id, hot.revision.version, 'Permit set', null, attestation);
 }

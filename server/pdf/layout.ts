@@ -79,6 +79,11 @@ export class Layout {
     this.y = this.height - MARGIN.top;
   }
 
+  /** True while nothing has been drawn below the top margin of the current page. */
+  get atPageTop() {
+    return this.y >= this.height - MARGIN.top - 0.01;
+  }
+
   /** Starts a new page unless `height` points still fit above the bottom margin. */
   ensure(height: number) {
     if (this.y - height < this.bottom) this.newPage();
@@ -281,7 +286,7 @@ export class Layout {
    * Header and footer of every page, drawn last because they print the page count. Each text is
    * fitted into its share of the width.
    */
-  frame(header: { left: string; right: string }, footer: { left: string; middle: string }) {
+  frame(header: { left: string; right: string; left2?: string; right2?: string }, footer: { left: string; middle: string }) {
     const size = 7.5;
     const { regular, bold } = this.fonts;
     const n = this.pages.length;
@@ -292,11 +297,20 @@ export class Layout {
         const at = align === 'right' ? x + maxWidth - w : align === 'center' ? x + (maxWidth - w) / 2 : x;
         page.drawText(t, { x: at, y, size, font, color: COLORS.muted });
       };
+      const second = header.left2 !== undefined || header.right2 !== undefined;
       const top = this.height - MARGIN.headerBaseline;
       const half = this.contentWidth / 2 - 6;
       put(header.left, bold, this.left, top, half);
       put(header.right, regular, this.left + half + 12, top, half, 'right');
-      page.drawLine({ start: { x: this.left, y: top - 6 }, end: { x: this.right, y: top - 6 }, thickness: 0.5, color: COLORS.rule });
+      if (second) {
+        // the permit line: the number and code get the wider share
+        const wide = this.contentWidth * 0.6 - 6;
+        put(header.left2 ?? '', regular, this.left, top - 10, wide);
+        put(header.right2 ?? '', regular, this.left + wide + 12, top - 10, this.contentWidth - wide - 12, 'right');
+      }
+      // the second line sits between the first and the top margin (72 pt): rule at 56 pt from the top
+      const rule = second ? top - 16 : top - 6;
+      page.drawLine({ start: { x: this.left, y: rule }, end: { x: this.right, y: rule }, thickness: 0.5, color: COLORS.rule });
       const foot = MARGIN.footerBaseline;
       page.drawLine({ start: { x: this.left, y: foot + 10 }, end: { x: this.right, y: foot + 10 }, thickness: 0.5, color: COLORS.rule });
       const third = this.contentWidth / 3;

@@ -3,17 +3,18 @@
  * revision (its document and the server's analysis) and the header frozen at issue time, so the
  * same input gives the same bytes (the dates come from the issue time, not the clock).
  */
-import { PDFDocument } from 'pdf-lib';
-import { ledgerFor, fromSI, type Analysis, type SystemDocument } from '../../src/engine';
+import { PDFDocument, PDFName, PDFNumber, PDFString } from 'pdf-lib';
+import { ledgerFor, fromSI, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
-import { MATERIALS } from '../../src/engine/catalog/materials';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
-import { FITTING_TYPES } from '../../src/engine/fittings/types';
-import { boosterText, fittingLabel, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
+import { boosterText, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
+import { fixtureLedgers, frictionBasis, namesOf, segmentRows, type Names } from './summaryTables';
+import { adoptedCodeText, attestationLines, permitFrame, permitRows, type AttestationText } from './permitContent';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
 import { reviewResponsesSection, type ReviewResponses } from './sections/reviewResponses';
+import { riserDiagramSection } from './riserSection';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
@@ -26,6 +27,7 @@ import {
   UNVERIFIED_NOTE,
   warningWhere,
   type FailureAcknowledgementText,
+  type SummaryVerdict,
 } from './summaryContent';
 
 export interface SummaryPdfInput {
@@ -38,6 +40,30 @@ export interface SummaryPdfInput {
   failureAcknowledgement?: FailureAcknowledgementText | null;
   /** the returned review(s) this revision answers, with the designer's replies */
   reviewResponses?: ReviewResponses[];
+  /** the preparer's attestation recorded at issue (absent for revisions issued before attestations) */
+  attestation?: AttestationText | null;
+}
+
+/** What every section builder sees: the layout cursor, the inputs, and what is worked out once. */
+export interface SummaryContext {
+  pdf: PDFDocument;
+  L: Layout;
+  input: SummaryPdfInput;
+  header: SummaryHeader;
+  doc: SystemDocument;
+  a: Analysis;
+  u: Analysis['units'];
+  verdict: SummaryVerdict;
+  names: Names;
+  critical: Analysis['fixtures'][number] | null;
+  catalogRows: ReturnType<typeof catalogSourcesUsed>;
+  P: (v: number | null | undefined) => string;
+}
+
+/** One part of the summary, drawn in list order; a new part is a new entry (see SUMMARY_SECTIONS). */
+export interface SummarySection {
+  id: string;
+  build: (c: SummaryContext) => void;
 }
 
 export interface SummaryPdf {
@@ -59,7 +85,7 @@ const DEVICE_KIND: Record<string, string> = {
 const SOURCE_KIND: Record<string, string> = { 'utility-main': 'Utility main', tank: 'Tank', 'booster-outlet': 'Booster outlet' };
 const SEVERITY: Record<string, string> = { fail: 'Not met', caution: 'Caution', note: 'Note' };
 
-export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryPdf> {
+export async function renderSummaryPdf(input: SummaryPdfInput, sections: readonly SummarySection[] = SUMMARY_SECTIONS): Promise<SummaryPdf> {
   const { header, document: doc, analysis: a } = input;
   // throws for an incomplete analysis: an incomplete revision never gets a summary
   const verdict = summaryVerdict(a, input.failureAcknowledgement);
@@ -76,14 +102,67 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   const fonts = await embedFonts(pdf);
   const L = new Layout(pdf, fonts, a.unitSystem === 'US' ? PAGE_SIZES.letter : PAGE_SIZES.a4);
   const u = a.units;
-  const P = (v: number | null | undefined) => num(v, u.pressure);
-  const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId) ?? null;
-  const segById = new Map(a.segments.map((s) => [s.id, s]));
-  const docSegById = new Map(doc.segments.map((s) => [s.id, s]));
-  const nodeById = new Map(a.nodes.map((n) => [n.id, n]));
-  const nodeLabel = (id: string) => nodeById.get(id)?.label ?? id;
+  const c: SummaryContext = {
+    pdf,
+    L,
+    input,
+    header,
+    doc,
+    a,
+    u,
+    verdict,
+    names: namesOf(a, doc),
+    critical: a.fixtures.find((f) => f.id === a.criticalFixtureId) ?? null,
+    catalogRows: catalogSourcesUsed(doc, a.criteria.fittingMethod),
+    P: (v) => num(v, u.pressure),
+  };
+  for (const section of sections) section.build(c);
 
-  // ---- the verdict first, then the title
+  if (L.missing.size) {
+    // a name typed in a script the embedded font does not cover: say so rather than print "?" silently
+    const chars = [...L.missing].slice(0, 40).map((ch) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`);
+    L.heading('Characters not shown', 2, 40);
+    L.paragraph(
+      `The font of this summary cannot show ${L.missing.size === 1 ? 'one character' : `${L.missing.size} characters`} of its text (names and notes as typed, or catalog text); each is printed as "?": ${chars.join(', ')}${L.missing.size > 40 ? ', …' : ''}. The revision on Headroom keeps every name exactly as typed.`,
+      { size: 8.5 },
+    );
+  }
+
+  const permit = permitFrame(header);
+  L.frame(
+    {
+      left: `${verdict.word} · ${header.projectName}${header.address ? ` — ${header.address}` : ''}`,
+      right: `Revision ${header.revisionNumber} · issued ${utc(header.issuedAt).slice(0, 10)} · ${header.systemName}`,
+      left2: permit.left,
+      right2: permit.right,
+    },
+    { left: `Prepared by ${header.preparerName}`, middle: `Inputs ${header.inputHash.slice(0, 16)}` },
+  );
+
+  const bytes = await pdf.save({ useObjectStreams: true, objectsPerTick: Number.POSITIVE_INFINITY });
+  return { bytes, pageCount: L.pages.length };
+}
+
+/**
+ * The summary's parts in print order. Another part (a response to review comments, a cover of
+ * several systems) is one more entry here, built in its own file.
+ */
+export const SUMMARY_SECTIONS: readonly SummarySection[] = [
+  { id: 'title', build: titleSection },
+  // the answers to the returned review come first: the reviewer reads them before anything else
+  { id: 'review-responses', build: (c) => { if (c.input.reviewResponses) reviewResponsesSection(c.L, c.input.reviewResponses); } },
+  { id: 'basis', build: basisSection },
+  { id: 'inputs', build: inputsSection },
+  { id: 'results', build: resultsSection },
+  { id: 'cautions', build: cautionsSection },
+  { id: 'preparer', build: preparerSection },
+  { id: 'riser-diagram', build: riserDiagramSection },
+  { id: 'ledgers', build: ledgerAppendix },
+];
+
+/** The verdict first, then the title, the project and its permit, the result box and any field change. */
+function titleSection(c: SummaryContext) {
+  const { L, header, a, verdict, input } = c;
   const fail = verdict.status === 'fail';
   L.gap(2);
   L.draw(verdict.headline, L.left, L.y - 14, { font: 'bold', size: 15, color: fail ? COLORS.fail : COLORS.accent });
@@ -100,20 +179,22 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     ['System', `${header.systemName} (${a.service === 'hot' ? 'hot water' : 'cold water'})`],
     ['Revision', `${header.revisionNumber}, issued ${utc(header.issuedAt)}`],
     ['Prepared by', header.preparerEmail ? `${header.preparerName} <${header.preparerEmail}>` : header.preparerName],
+    ...permitRows(header),
     ...(header.note ? ([['Note', header.note]] as [string, string][]) : []),
   ]);
-  const failingVelocity = a.segments.filter((s) => s.velocityPass === false);
-  const failingStatic = a.nodes.filter((n) => n.staticPass === false);
   verdictBox(L, `Result: ${verdict.headline}`, verdict.acknowledgement ? [...verdict.lines, verdict.acknowledgement] : verdict.lines, fail);
   if (input.fieldChange) fieldChangeSection(L, input.fieldChange);
-  if (input.reviewResponses) reviewResponsesSection(L, input.reviewResponses);
+}
 
-  // ---- basis
+/** The basis: code, criteria, water, engine; the methods and every catalog source used. */
+function basisSection(c: SummaryContext) {
+  const { L, header, a, u, doc, P, catalogRows } = c;
   L.heading('Basis');
   const minimums = new Map<string, { required: number; label: string }>();
   for (const f of a.fixtures) if (!minimums.has(f.fixtureTypeId)) minimums.set(f.fixtureTypeId, { required: f.required, label: FIXTURE_TYPES[f.fixtureTypeId]?.label ?? f.fixtureTypeId });
   const overrides = doc.criteria ?? {};
   L.keyValues([
+    ['Code adopted', header.permit ? adoptedCodeText(header.permit) : 'not recorded'],
     ['Code basis (designer)', header.codeBasis || 'not stated by the designer'],
     ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : sourceText(CRITERIA_SOURCES.maxStaticPressurePa)}`],
     ['Minimum static pressure', a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`],
@@ -140,7 +221,6 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     ).map(([step, m]) => ({ cells: [step, m.label, sourceText(m.source, m as { verified?: boolean })] })),
     { continued: 'Methods' },
   );
-  const catalogRows = catalogSourcesUsed(doc, a.criteria.fittingMethod);
   if (catalogRows.length) {
     L.heading('Catalog data used', 2, 120);
     L.paragraph(`Each entry's own sources, as the catalog records them. Entries marked "${UNVERIFIED_NOTE}" are not verified.`, { size: 8, color: COLORS.muted });
@@ -178,6 +258,14 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     { continued: 'Velocity limits' },
   );
 
+}
+
+/** The inputs: supply, devices, fixtures served and every segment with its losses. */
+function inputsSection(c: SummaryContext) {
+  const { L, a, u, doc, names } = c;
+  const segById = new Map(a.segments.map((s) => [s.id, s]));
+  const nodeById = new Map(a.nodes.map((n) => [n.id, n]));
+  const nodeLabel = names.node;
   // ---- inputs
   L.heading('Inputs');
   L.heading('Supply', 2);
@@ -263,44 +351,42 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
   else L.paragraph('No fixture groups.');
 
   L.heading('Segments', 2);
-  L.paragraph(`Design flow and velocity are at the segment's design flow; Sum of K is the fittings' loss coefficients added up, referred to the segment's velocity (with any size change).`, { size: 8, color: COLORS.muted });
+  const basis = frictionBasis(a.unitSystem);
+  L.paragraph(
+    `Design flow and velocity are at the segment's design flow; Sum of K is the fittings' loss coefficients added up, referred to the segment's velocity (with any size change). Friction is the pipe friction loss of the segment at design flow, also per ${basis.label} of pipe; the fitting loss is from the Sum of K. Both are the analysis's own figures.`,
+    { size: 8, color: COLORS.muted },
+  );
   L.table(
     [
-      { header: 'Segment', width: 12, wrap: true },
-      { header: 'Material', width: 14, wrap: true },
-      { header: 'Size', width: 6 },
-      { header: `Inside dia. (${u.diameter})`, width: 7, align: 'right' },
-      { header: `Length (${u.length})`, width: 7, align: 'right' },
-      { header: `Rise (${u.elevation})`, width: 6, align: 'right' },
-      { header: 'Fittings', width: 27, wrap: true },
-      { header: 'Sum of K', width: 6, align: 'right' },
-      { header: `Flow (${u.flow})`, width: 7, align: 'right' },
-      { header: `Velocity (${u.velocity})`, width: 8, align: 'right' },
+      { header: 'Segment', width: 11, wrap: true },
+      { header: 'Material', width: 9, wrap: true },
+      { header: 'Size', width: 4.5 },
+      { header: `Inside dia. (${u.diameter})`, width: 5.5, align: 'right' },
+      { header: `Length (${u.length})`, width: 5.5, align: 'right' },
+      { header: `Rise (${u.elevation})`, width: 5, align: 'right' },
+      { header: 'Fittings', width: 22, wrap: true },
+      { header: 'Sum of K', width: 4.5, align: 'right' },
+      { header: `Flow (${u.flow})`, width: 5.5, align: 'right' },
+      { header: `Velocity (${u.velocity})`, width: 6.5, align: 'right' },
+      { header: `Friction (${u.pressure})`, width: 6, align: 'right' },
+      { header: `Friction (${u.pressure}/${basis.label})`, width: 6.5, align: 'right' },
+      { header: `Fitting loss (${u.pressure})`, width: 6.5, align: 'right' },
     ],
-    a.segments.map((s) => {
-      const d = docSegById.get(s.id);
-      // the catalog label without its parenthesis: "PEX tubing, SDR 9 (copper tube size)" → "PEX tubing, SDR 9"
-      const material = d?.material ? (MATERIALS[d.material as keyof typeof MATERIALS]?.label ?? d.material).replace(/\s*\(.*\)\s*$/, '') : 'custom pipe';
-      const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`).join('; ');
-      return {
-        cells: [
-          s.label ?? s.id,
-          material,
-          d?.size ?? '—',
-          num(s.innerDiameter, u.diameter),
-          num(s.length, u.length),
-          num(s.rise, u.elevation),
-          fittings || 'none',
-          s.totalK.toFixed(2),
-          num(s.designFlow, u.flow),
-          `${num(s.velocity, u.velocity)}${s.velocityPass === false ? ' over' : ''}`,
-        ],
-        style: s.velocityPass === false ? { fail: true } : undefined,
-      };
-    }),
-    { continued: 'Segments', size: 7 },
+    segmentRows(a, doc, names).map((r) => ({
+      cells: [r.name, r.material, r.size, r.innerDiameter, r.length, r.rise, r.fittings, r.sumK, r.flow, `${r.velocity}${r.velocityOver ? ' over' : ''}`, r.frictionLoss, r.frictionGradient, r.fittingLoss],
+      style: r.velocityOver ? { fail: true } : undefined,
+    })),
+    { continued: 'Segments', size: 6.5 },
   );
 
+}
+
+/** The results: every checked fixture, the critical ledger and profile, velocity, static pressure, warnings. */
+function resultsSection(c: SummaryContext) {
+  const { L, a, u, doc, P, critical, names } = c;
+  const nodeLabel = names.node;
+  const failingVelocity = a.segments.filter((s) => s.velocityPass === false);
+  const failingStatic = a.nodes.filter((n) => n.staticPass === false);
   // ---- results
   L.heading('Results');
   L.heading('Checked fixtures', 2);
@@ -334,7 +420,7 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
         { header: `Pressure after (${u.pressure})`, width: 18, align: 'right' },
       ],
       [
-        ...ledger.lines.map((l) => ({ cells: [String(l.step), l.label, l.kind === 'start' ? '' : signed(l.change, u.pressure), P(l.pressureAfter)] })),
+        ...ledger.lines.map((l) => ({ cells: [String(l.step), ledgerLineLabel(l, a, names), l.kind === 'start' ? '' : signed(l.change, u.pressure), P(l.pressureAfter)] })),
         { cells: ['', 'Residual pressure at the fixture', '', P(ledger.residual)], style: { bold: true } },
         { cells: ['', 'Minimum flow pressure the fixture needs', '', P(ledger.required)] },
         { cells: ['', `Margin (${ledger.pass ? 'pass' : 'FAIL'})`, '', signed(ledger.margin, u.pressure)], style: ledger.pass ? { bold: true } : { fail: true, bold: true } },
@@ -405,6 +491,11 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     );
   else L.paragraph('No warnings.');
 
+}
+
+/** The cautions printed in every summary, and the unverified-values note where it applies. */
+function cautionsSection(c: SummaryContext) {
+  const { L, a, catalogRows } = c;
   // ---- cautions, signature, input hash
   L.heading('Cautions', 1, 120);
   for (const c of SUMMARY_CAUTIONS) L.paragraph(`•  ${c}`, { indent: 0, after: 4 });
@@ -412,28 +503,64 @@ export async function renderSummaryPdf(input: SummaryPdfInput): Promise<SummaryP
     L.paragraph(`•  Some values used here are marked "${UNVERIFIED_NOTE}": they could not be checked against a printed copy of their code, standard or table. Confirm each against the adopted edition before relying on this check.`, { indent: 0, after: 4, font: 'bold' });
   }
 
-  L.heading('Preparer', 1, 150);
-  signatureBlock(L, header);
+}
+
+/** The preparer: the attestation recorded at issue, the signature field and the input hash. */
+function preparerSection(c: SummaryContext) {
+  const { L, header, input } = c;
+  L.heading('Preparer and attestation', 1, 230);
+  const att = attestationLines(input.attestation);
+  L.paragraph(att.recorded ? 'Attestation' : 'Attestation not recorded', { font: 'bold', size: 9, after: 1 });
+  for (const line of att.lines) L.paragraph(line, { size: 9, after: 2, ...(att.recorded ? {} : { color: COLORS.fail }) });
+  L.gap(4);
+  signatureBlock(c);
   L.heading('Input hash', 2, 40);
   L.paragraph('SHA-256 of the revision\'s inputs (canonical JSON); the same hash means the same inputs.', { size: 8, color: COLORS.muted });
   L.paragraph(header.inputHash, { font: 'bold', size: 8.5 });
-  if (L.missing.size) {
-    // a name typed in a script the embedded font does not cover: say so rather than print "?" silently
-    const chars = [...L.missing].slice(0, 40).map((ch) => `U+${ch.codePointAt(0)!.toString(16).toUpperCase().padStart(4, '0')}`);
-    L.heading('Characters not shown', 2, 40);
-    L.paragraph(
-      `The font of this summary cannot show ${L.missing.size === 1 ? 'one character' : `${L.missing.size} characters`} of its text (names and notes as typed, or catalog text); each is printed as "?": ${chars.join(', ')}${L.missing.size > 40 ? ', …' : ''}. The revision on Headroom keeps every name exactly as typed.`,
-      { size: 8.5 },
-    );
-  }
+}
 
-  L.frame(
-    { left: `${verdict.word} · ${header.projectName}${header.address ? ` — ${header.address}` : ''}`, right: `Revision ${header.revisionNumber} · issued ${utc(header.issuedAt).slice(0, 10)} · ${header.systemName}` },
-    { left: `Prepared by ${header.preparerName}`, middle: `Inputs ${header.inputHash.slice(0, 16)}` },
+/**
+ * Appendix: the pressure ledger of every other checked fixture, one row per segment of its path;
+ * rows shared with the ledger printed just before are not repeated (the row "carried from" names
+ * where they are). The critical fixture's full ledger is in the results.
+ */
+function ledgerAppendix(c: SummaryContext) {
+  const { L, a, doc, u, names } = c;
+  const ledgers = fixtureLedgers(a, doc, { exclude: a.criticalFixtureId, names });
+  if (!ledgers.length) return;
+  if (!L.atPageTop) L.newPage();
+  L.heading('Appendix: the pressure ledger of every checked fixture');
+  L.paragraph(
+    `Each ledger starts at the source and deducts, segment by segment along the path to the fixture, the device losses, pipe friction, fittings and elevation (${u.pressure}). Fixtures are in the order of the piping: where a ledger shares its start with the one before, it carries on from the pressure after the last shared segment. The critical fixture's ledger is under Results.`,
+    { size: 8, color: COLORS.muted },
   );
+  const rows: { cells: string[]; style?: { bold?: boolean; fail?: boolean } }[] = [];
+  for (const l of ledgers) {
+    rows.push({ cells: [l.title, `${l.pass ? 'passes' : 'FAILS'}: residual ${l.residual}, required ${l.required}`, '', '', 'margin', l.margin], style: l.pass ? { bold: true } : { bold: true, fail: true } });
+    if (l.carried) rows.push({ cells: [`carried from the ledger of ${l.carried.from}, after ${l.carried.after}`, '', '', '', '', l.carried.pressure] });
+    else if (l.start) rows.push({ cells: [l.start, '', '', '', '', ''] });
+    for (const r of l.rows) rows.push({ cells: [r.segment, r.devices, r.friction, r.fittings, r.elevation, r.pressureAfter] });
+  }
+  L.table(
+    [
+      { header: 'Fixture; segment on its path', width: 36, wrap: true },
+      { header: 'Devices', width: 22, wrap: true },
+      { header: `Friction (${u.pressure})`, width: 10, align: 'right' },
+      { header: `Fittings (${u.pressure})`, width: 10, align: 'right' },
+      { header: `Elevation (${u.pressure})`, width: 11, align: 'right' },
+      { header: `Pressure after (${u.pressure})`, width: 11, align: 'right' },
+    ],
+    rows,
+    { continued: 'Pressure ledgers', size: 6.5 },
+  );
+}
 
-  const bytes = await pdf.save({ useObjectStreams: true, objectsPerTick: Number.POSITIVE_INFINITY });
-  return { bytes, pageCount: L.pages.length };
+/** A ledger line's words with the segment named as the user typed it (the engine's line falls back to the id). */
+function ledgerLineLabel(l: LedgerLine, a: Analysis, names: Names): string {
+  if (!l.segmentId || l.kind === 'device') return l.label;
+  const seg = a.segments.find((s) => s.id === l.segmentId);
+  const engineName = seg?.label ?? l.segmentId;
+  return l.label.startsWith(`${engineName}:`) ? `${names.segment(l.segmentId)}${l.label.slice(engineName.length)}` : l.label;
 }
 
 /** Who proposed the field change this revision came from, what it changed, and when it was accepted. */
@@ -470,18 +597,27 @@ function verdictBox(L: Layout, title: string, lines: string[], fail: boolean) {
   L.gap(height + 4);
 }
 
-/** Boxes the preparer fills in by hand: signature, date, licence or registration, and room for a seal. */
-function signatureBlock(L: Layout, header: SummaryHeader) {
+/** The name of the empty signature field, as a PDF reader lists it. */
+export const SIGNATURE_FIELD_NAME = 'Preparer signature';
+
+/**
+ * The preparer's block: name, licence, the date of the attestation, an empty digital-signature
+ * field (AcroForm /FT /Sig) the preparer signs in a PDF reader with their own certificate (Headroom
+ * holds none), and room for a seal.
+ */
+function signatureBlock(c: SummaryContext) {
+  const { L, header, input } = c;
   const height = 120;
   L.ensure(height + 10);
   const top = L.y - 4;
   const sealW = 130;
   const w = L.contentWidth - sealW - 12;
+  const licence = input.attestation?.licenceNumber ?? header.permit?.preparerLicence ?? '';
   const rows: [string, string][] = [
-    ['Prepared by', header.preparerName],
-    ['Signature', ''],
-    ['Date', ''],
-    ['Licence or registration no.', ''],
+    ['Prepared by', input.attestation?.name ?? header.preparerName],
+    ['Digital signature', ''],
+    ['Date of attestation', input.attestation ? utc(input.attestation.at) : ''],
+    ['Licence or registration no.', [licence, header.permit?.licenceJurisdiction].filter(Boolean).join(', ')],
   ];
   const rowH = height / rows.length;
   rows.forEach(([label, value], i) => {
@@ -490,9 +626,37 @@ function signatureBlock(L: Layout, header: SummaryHeader) {
     L.draw(label, L.left, y + 4, { size: 7.5, color: COLORS.muted });
     if (value) L.draw(L.fit(L.clean(value), L.fonts.regular, 10, w - 140), L.left + 130, y + 4, { size: 10 });
   });
+  // the signature row's box, right of its label: the field's widget
+  const sigRect = { x: L.left + 128, y: top - 2 * rowH + 1, width: w - 130, height: rowH - 2 };
+  L.page.drawRectangle({ ...sigRect, borderColor: COLORS.rule, borderWidth: 0.5 });
+  L.draw('sign here with your own certificate in a PDF reader', sigRect.x + 4, sigRect.y + sigRect.height - 9, { size: 6.5, color: COLORS.muted });
+  addSignatureField(c, sigRect);
   L.page.drawRectangle({ x: L.left + w + 12, y: top - height, width: sealW, height, borderColor: COLORS.muted, borderWidth: 0.6, borderDashArray: [3, 2] });
   L.draw('Seal (where required)', L.left + w + 20, top - 14, { size: 7.5, color: COLORS.muted });
   L.gap(height + 12);
+}
+
+/** An unsigned signature field (ISO 32000-1, 12.7.4.5) with its widget on the current page. */
+function addSignatureField(c: SummaryContext, rect: { x: number; y: number; width: number; height: number }) {
+  const { pdf, L } = c;
+  const ctx = pdf.context;
+  const field = ctx.obj({
+    FT: 'Sig',
+    T: PDFString.of(SIGNATURE_FIELD_NAME),
+    TU: PDFString.of('Signature of the preparer of this calculation'),
+    Type: 'Annot',
+    Subtype: 'Widget',
+    Rect: [rect.x, rect.y, rect.x + rect.width, rect.y + rect.height],
+    // print flag (bit 3): the widget prints with the page
+    F: 4,
+    P: L.page.ref,
+  });
+  const ref = ctx.register(field);
+  L.page.node.addAnnot(ref);
+  const form = pdf.catalog.getOrCreateAcroForm();
+  form.addField(ref);
+  // SignaturesExist (bit 1): readers offer the signing tools
+  form.dict.set(PDFName.of('SigFlags'), PDFNumber.of(1));
 }
 
 /** The worst cases of static pressure: boosters at shutoff, each PRV failing open, pipe ratings, minimum static at the top. */

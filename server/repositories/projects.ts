@@ -1,4 +1,4 @@
-import type { Member, Project, ProjectRole } from '../../src/shared/api/projects';
+import { EMPTY_PERMIT, PermitFields, type Member, type Project, type ProjectRole } from '../../src/shared/api/projects';
 import { iso, type Tx } from '../db/rows';
 
 export interface ProjectRow {
@@ -8,10 +8,18 @@ export interface ProjectRow {
   code_basis: string;
   unit_system: 'US' | 'SI';
   notes: string;
+  /** the permit fields (src/shared/api/projects.ts PermitFields); {} until the designer states them */
+  permit: unknown;
   archived: boolean;
   version: number;
   created_at: Date;
   updated_at: Date;
+}
+
+/** The stored permit fields, with each missing one empty (rows from before they existed hold {}). */
+export function permitOf(stored: unknown): PermitFields {
+  const parsed = PermitFields.safeParse(typeof stored === 'string' ? JSON.parse(stored) : (stored ?? {}));
+  return parsed.success ? parsed.data : { ...EMPTY_PERMIT };
 }
 
 export const toProject = (row: ProjectRow, myRole: ProjectRole | null): Project => ({
@@ -21,6 +29,7 @@ export const toProject = (row: ProjectRow, myRole: ProjectRole | null): Project 
   codeBasis: row.code_basis,
   unitSystem: row.unit_system,
   notes: row.notes,
+  permit: permitOf(row.permit),
   archived: row.archived,
   version: row.version,
   createdAt: iso(row.created_at),
@@ -51,11 +60,11 @@ export const projectsRepo = {
       .select('p.*', 'm.role')
       .orderBy([{ column: 'p.archived' }, { column: 'p.updated_at', order: 'desc' }]),
   findById: (db: Tx, id: string) => db<ProjectRow>('projects').where({ id }).first(),
-  async insert(db: Tx, values: Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'archived'> & { created_by: string }) {
+  async insert(db: Tx, values: Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'archived' | 'permit'> & { permit?: string } & { created_by: string }) {
     const [row] = await db<ProjectRow>('projects').insert(values).returning('*');
     return row;
   },
-  async update(db: Tx, id: string, version: number, values: Partial<Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at'>>) {
+  async update(db: Tx, id: string, version: number, values: Partial<Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'permit'>> & { permit?: string }) {
     const [row] = await db<ProjectRow>('projects')
       .where({ id, version })
       .update({ ...values, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)

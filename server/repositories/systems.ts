@@ -28,6 +28,12 @@ export interface RevisionRow {
   failure_ack_by_name?: string | null;
   failure_ack_at: Date | null;
   failure_ack_statement: string | null;
+  /** the preparer's attestation at issue (all five or none) */
+  attestation_by?: string | null;
+  attestation_name?: string | null;
+  attestation_licence?: string | null;
+  attestation_statement?: string | null;
+  attestation_at?: Date | null;
   /** the accepted field change's frozen record (src/shared/api/fieldChanges.ts FieldChangeRecord), on `find` only */
   field_change_record?: unknown;
 }
@@ -92,7 +98,14 @@ export const revisionsRepo = {
     revisionId: string,
     version: number,
     by: string,
-    values: { inputHash: string; note: string | null; analysis: unknown; engineVersion: string; failureAcknowledgement: string | null },
+    values: {
+      inputHash: string;
+      note: string | null;
+      analysis: unknown;
+      engineVersion: string;
+      failureAcknowledgement: string | null;
+      attestation: { name: string; licenceNumber: string; statement: string };
+    },
   ) {
     const ack = values.failureAcknowledgement;
     const [row] = await db<RevisionRow>('revisions')
@@ -108,6 +121,11 @@ export const revisionsRepo = {
         failure_ack_by: ack === null ? null : by,
         failure_ack_at: ack === null ? null : db.fn.now(),
         failure_ack_statement: ack,
+        attestation_by: by,
+        attestation_name: values.attestation.name,
+        attestation_licence: values.attestation.licenceNumber,
+        attestation_statement: values.attestation.statement,
+        attestation_at: db.fn.now(),
         version: db.raw('version + 1'),
         updated_at: db.fn.now(),
       } as never)

@@ -54,7 +54,7 @@ export function systemsRoutes(ctx: ServiceContext): Router {
   router.post(`${base}/:systemId/revisions/:revisionId/issue`, designer, async (req, res) => {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     const body = parse(IssueBody, req.body);
-    res.json({ revision: await systemsService.issue(ctx, actorOf(req.user), projectId, systemId, revisionId, body.version, body.note ?? null, body.acknowledgeFailure ?? null) });
+    res.json({ revision: await systemsService.issue(ctx, actorOf(req.user), projectId, systemId, revisionId, body.version, body.note ?? null, body.acknowledgeFailure ?? null, body.attestation) });
   });
 
   return router;

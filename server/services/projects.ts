@@ -25,6 +25,7 @@ export const projectsService = {
         code_basis: body.codeBasis,
         unit_system: body.unitSystem,
         notes: body.notes,
+        ...(body.permit ? { permit: JSON.stringify(body.permit) } : {}),
         created_by: actor.id,
       });
       await membersRepo.insert(trx, row.id, actor.id, 'designer');
@@ -42,12 +43,13 @@ export const projectsService = {
 
   async update(ctx: ServiceContext, actor: Actor, projectId: string, body: UpdateProjectBody): Promise<Project> {
     return ctx.db.transaction(async (trx) => {
-      const values: Partial<ProjectRow> = {};
+      const values: Partial<Omit<ProjectRow, 'permit'>> & { permit?: string } = {};
       if (body.name !== undefined) values.name = body.name;
       if (body.address !== undefined) values.address = body.address;
       if (body.codeBasis !== undefined) values.code_basis = body.codeBasis;
       if (body.unitSystem !== undefined) values.unit_system = body.unitSystem;
       if (body.notes !== undefined) values.notes = body.notes;
+      if (body.permit !== undefined) values.permit = JSON.stringify(body.permit);
       if (body.archived !== undefined) values.archived = body.archived;
       const row = await projectsRepo.update(trx, projectId, body.version, values);
       if (!row) {

@@ -168,8 +168,8 @@ export const reviewLoopService = {
     const revision = await trx('revisions as v').leftJoin('users as u', 'u.id', 'v.issued_by').where('v.id', review.revision_id).first('v.number', 'v.issued_at', 'v.updated_at', 'v.input_hash', 'v.document', 'u.name as preparer_name');
     const summary = await summariesRepo.findByRevision(trx, review.revision_id);
     const comments = await reviewsRepo.commentsFor(trx, [reviewId]);
-    // TODO(permit fields): the permit helper adds the permit or plan-check number to projects; read it when it is there
-    const permit = (project as Record<string, unknown>).permit_number;
+    // the project's permit or plan-check number, as the designer entered it (projects.permit, a JSON of PermitFields)
+    const permit = (project as { permit?: { permitNumber?: unknown } | null }).permit?.permitNumber;
     const doc = documentOf(revision.document);
     const { bytes } = await renderAcceptanceRecord({
       projectName: project.name,

@@ -11,7 +11,7 @@ import { createHash } from 'node:crypto';
 import { readSystemDocument, verdictStatus, type Analysis, type SystemDocument } from '../../src/engine';
 import { AppError, notFound } from '../http/errors';
 import { revisionsRepo, systemsRepo, type RevisionRow } from '../repositories/systems';
-import { projectsRepo, membersRepo } from '../repositories/projects';
+import { projectsRepo, membersRepo, permitOf } from '../repositories/projects';
 import { usersRepo } from '../repositories/users';
 import { summariesRepo, type SummaryRow } from '../repositories/summaries';
 import { reviewsRepo } from '../repositories/reviews';
@@ -88,6 +88,10 @@ function issuedDocument(revision: RevisionRow): SystemDocument {
   return read.data;
 }
 
+/** The preparer's attestation at issue, as the PDF prints it (null for revisions issued before attestations). */
+const attestationOf = (r: RevisionRow) =>
+  r.attestation_statement && r.attestation_at ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, at: iso(r.attestation_at) } : null;
+
 /** The designer's acknowledgement of a failing verdict, as the PDF prints it. */
 const acknowledgementOf = (r: RevisionRow) =>
   r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null;
@@ -109,6 +113,7 @@ async function headerFor(trx: Tx, projectId: string, systemId: string, revision:
     preparerEmail: preparer?.email ?? '',
     inputHash: revision.input_hash ?? '',
     note: revision.note,
+    permit: permitOf(project?.permit),
   };
 }
 
@@ -153,6 +158,7 @@ export const summariesService = {
           fieldChange,
           failureAcknowledgement: acknowledgementOf(revision),
           reviewResponses: await reviewLoopService.responsesFor(trx, revisionId, revision.document),
+          attestation: attestationOf(revision),
         });
         const pdf = Buffer.from(bytes);
         const sha256 = createHash('sha256').update(pdf).digest('hex');

@@ -11,6 +11,7 @@ import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
 import { reviewLoopService } from './reviewLoop';
 import type { Actor, ServiceContext } from './context';
+import { ATTESTATION_STATEMENTS, type Attestation, type AttestationRecord } from '../../src/shared/api/systems';
 import type { CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
 import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 
@@ -48,7 +49,14 @@ const toSummary = (r: RevisionRow): RevisionSummary => ({
   inputHash: r.input_hash,
   verdict: verdictOf(r.analysis),
   failureAcknowledgement: r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null,
+  attestation: attestationOf(r),
 });
+
+/** The attestation recorded at issue, as the API and the summary show it. */
+export const attestationOf = (r: RevisionRow): AttestationRecord | null =>
+  r.attestation_statement && r.attestation_at
+    ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, by: r.issued_by_name ?? null, at: iso(r.attestation_at) }
+    : null;
 const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note, origin: originOf(r.field_change_record) });
 
 /** The revision's history line from the field change it was accepted from (null for a designer's own). */
@@ -219,7 +227,8 @@ export const systemsService = {
     revisionId: string,
     version: number,
     note: string | null,
-    acknowledgeFailure: { statement: string } | null = null,
+    acknowledgeFailure: { statement: string } | null,
+    attestation: Attestation,
   ): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const revision = await ctx.db.transaction(async (trx) => {
@@ -235,6 +244,7 @@ export const systemsService = {
         analysis,
         engineVersion: ENGINE_VERSION,
         failureAcknowledgement: gate.acknowledgement,
+        attestation: { name: attestation.name, licenceNumber: attestation.licenceNumber, statement: ATTESTATION_STATEMENTS[attestation.basis] },
       });
       if (!issued) throw staleVersion();
       // the returned review of the revision being superseded is answered by this one (its replies freeze)
@@ -246,7 +256,12 @@ export const systemsService = {
         action: 'revision.issued',
         subjectType: 'revision',
         subjectId: revisionId,
-        details: { number: issued.number, inputHash: issued.input_hash, verdict: gate.status, ...(gate.acknowledgement ? { failureAcknowledgement: gate.acknowledgement } : {}) },
+        details: {
+          number: issued.number,
+          inputHash: issued.input_hash,
+          verdict: gate.status,
+          attestation: { name: attestation.name, licenceNumber: attestation.licenceNumber, basis: attestation.basis },
+          ...(gate.acknowledgement ? { failureAcknowledgement: gate.acknowledgement } : {}) },
       });
       if (gate.acknowledgement) {
         await auditRepo.record(trx, {

@@ -63,7 +63,9 @@ export {
   type Bounds,
 } from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';
-export { sizeSystem, SizingError } from './sizing/sizeSystem';
+export { sizeSystem, SizingError, type SizingOptions, type SizingResult, type SegmentSizing, type Governing, type FixtureMargin } from './sizing/sizeSystem';
+export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult } from './sizing/substitute';
+export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';
 export { thermalExpansionTank } from './hotWater/expansionTank';
 export { closedSystemCheck } from './hotWater/closedSystem';
 export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';

@@ -3,6 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { Client, makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
 import { tinyPdf, upload } from './support/fieldChangeFixtures';
+import { ATTESTATION } from './support/attestation';
 
 /**
  * Every API route × every kind of caller → exactly one expected status. The test reads the
@@ -44,7 +45,7 @@ function issuedOnce(w: World) {
   issued ??= (async () => {
     const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix issued', service: 'cold', document: smallDocument() }).expect(201)).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
-    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     return { base, revisionId: created.revision.id as string };
   })();
   return issued;
@@ -85,7 +86,7 @@ const contractorsWrite = (status: number) => ({ anonymous: 401, administrator: 4
 async function freshFieldChange(w: World, stage: 'draft' | 'changed' | 'proposed' = 'draft') {
   const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix field change', service: 'cold', document: smallDocument() }).expect(201)).body;
   const sys = `/api/projects/${w.projectId}/systems/${created.system.id}`;
-  await w.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+  await w.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
   const fcBase = `${sys}/field-changes`;
   let fc = (await clients.contractor.send('POST', fcBase, { revisionId: created.revision.id, title: 'Matrix substitution' }).expect(201)).body.fieldChange;
   const url = `${fcBase}/${fc.id}`;
@@ -256,7 +257,7 @@ const ROWS: Row[] = [
     request: async (w) => {
       // a fresh system each time: issuing is once per draft
       const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To issue', service: 'cold', document: smallDocument() }).expect(201)).body;
-      return { url: `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, body: { version: 1 } };
+      return { url: `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, body: { version: 1, attestation: ATTESTATION } };
     },
   },
   {
@@ -266,7 +267,7 @@ const ROWS: Row[] = [
     request: async (w) => {
       const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To redraft', service: 'cold', document: smallDocument() }).expect(201)).body;
       const base = `/api/projects/${w.projectId}/systems/${created.system.id}`;
-      await w.designer.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+      await w.designer.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
       return { url: `${base}/revisions`, body: { fromRevisionId: created.revision.id } };
     },
   },

@@ -3,6 +3,7 @@ import { analyzeSystem, SystemDocumentSchema, type Analysis, type EngineWarning 
 import { num } from '../../server/pdf/format';
 import { makeUser, signedIn, startHarness, type Harness } from './support/harness';
 import { edited, fieldChangeWorld, pdfPlainText, startFieldChange } from './support/fieldChangeFixtures';
+import { ATTESTATION } from './support/attestation';
 
 let h: Harness;
 beforeAll(() => {
@@ -206,7 +207,7 @@ describe('field changes: proposed, accepted, declined', () => {
     expect(audit.map((a: { action: string }) => a.action)).toEqual(['field-change.created', 'field-change.saved', 'field-change.proposed', 'field-change.accepted', 'revision.drafted']);
 
     // the designer issues it; the summary says where the revision came from
-    await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/issue`, { version: accepted.revision.version }).expect(200);
+    await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/issue`, { version: accepted.revision.version, attestation: ATTESTATION }).expect(200);
     const pdf = (await w.designer.get(`/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
     const text = pdfPlainText(pdf);
     expect(text).toContain('Field change in this revision');
@@ -284,7 +285,7 @@ describe('field changes: proposed, accepted, declined', () => {
     const proposed = (await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200)).body.fieldChange;
     const sys = `/api/projects/${w.projectId}/systems/${w.systemId}`;
     const draft = (await w.designer.send('POST', `${sys}/revisions`, { fromRevisionId: w.revisionId }).expect(201)).body.revision;
-    await w.designer.send('POST', `${sys}/revisions/${draft.id}/issue`, { version: draft.version }).expect(200);
+    await w.designer.send('POST', `${sys}/revisions/${draft.id}/issue`, { version: draft.version, attestation: ATTESTATION }).expect(200);
 
     const listed = (await w.designer.get(w.fcBase).expect(200)).body.fieldChanges;
     expect(listed[0]).toMatchObject({ id: fieldChange.id, baseIsCurrent: false, baseRevision: { number: 1, status: 'superseded' } });

@@ -28,6 +28,7 @@ import { AcceptFieldChangeBody, CreateFieldChangeBody, DeclineFieldChangeBody, U
 import { SystemDocumentSchema } from '../../src/engine';
 import { ReplyBody, SendPackageBody } from '../../src/shared/api/reviewLoop';
 import { CreateCatalogEntryBody, updateCatalogEntryBody } from '../../src/shared/api/catalog';
+import { ATTESTATION } from './support/attestation';
 
 type Caller = 'anonymous' | 'designer' | 'administrator' | 'inspector' | 'contractor';
 
@@ -83,7 +84,7 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
     // version 7: a valid mutation is refused as stale, so the draft the other runs aim at stays put
     seed: () => ({ document: smallDocument(), version: 7 }),
   },
-  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', expect: bySchema(IssueBody), seed: () => ({ version: 7, note: 'Issued for review' }) },
+  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', expect: bySchema(IssueBody), seed: () => ({ version: 7, note: 'Issued for review', attestation: ATTESTATION }) },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': NO_BODY,
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': {
     as: 'designer',
@@ -294,7 +295,7 @@ async function targetsFor(routePath: string): Promise<string> {
   // field changes start from an issued revision: their routes get an issued system
   if (routePath.includes('/field-changes')) {
     const base = `/api/projects/${project.id}/systems/${created.system.id}`;
-    await want(d.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1 }), 200);
+    await want(d.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }), 200);
   }
   let lastReviewId = '';
   const values: Record<string, () => Promise<string>> = {
@@ -314,7 +315,7 @@ async function targetsFor(routePath: string): Promise<string> {
     commentId: async () => String((await h.db('review_comments').insert({ review_id: lastReviewId, item_type: 'general', comment: 'Fuzz comment' }).returning('id'))[0].id),
     reviewId: async () => {
       const other = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz issued', service: 'cold', document: smallDocument() }), 201)).body;
-      await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1 }), 200);
+      await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1, attestation: ATTESTATION }), 200);
       lastReviewId = (await h.db('reviews').insert({ project_id: project.id, revision_id: other.revision.id, reviewer_id: inspectorId }).returning('id'))[0].id;
       return lastReviewId;
     },

@@ -9,6 +9,7 @@ import { renderSummaryPdf } from '../../server/pdf/summaryPdf';
 import { projectWithRoles, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
 import { demoDocument } from './support/smtpSink';
+import { ATTESTATION } from './support/attestation';
 
 // Invented test systems only (the small two-storey system and the invented demo building).
 
@@ -80,7 +81,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
   it('when an empty new system is issued, then 409 REVISION_INCOMPLETE names the missing checked fixture and supply, and nothing is written', async () => {
     const { designer, issueUrl, revision } = await draftOf();
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version });
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('REVISION_INCOMPLETE');
     const codes = (res.body.error.reasons as { code: string }[]).map((r) => r.code);
@@ -93,7 +94,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
   it('when a computed draft has no checked fixture, then 409 with that one reason, and an acknowledgement does not get it issued', async () => {
     const { designer, issueUrl, revision } = await draftOf(noCheckedFixtureDocument());
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version, acknowledgeFailure: { statement: STATEMENT } });
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: STATEMENT } });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('REVISION_INCOMPLETE');
     expect(res.body.error.reasons).toEqual([expect.objectContaining({ code: 'no-checked-fixtures', elementType: 'system', elementId: null })]);
@@ -105,7 +106,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
     expect(verdictStatus(analyzeSystem(SystemDocumentSchema.parse(document)))).toBe('fail');
     const { designer, issueUrl, revision } = await draftOf(document);
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version });
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('FAILURE_NOT_ACKNOWLEDGED');
     expect(res.body.error.message).toMatch(/FAIL/);
@@ -115,7 +116,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
   it('when the acknowledgement is a word or two, then 400 names the statement field and nothing is written', async () => {
     const { designer, issueUrl, revision } = await draftOf(failingDocument());
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version, acknowledgeFailure: { statement: '   ok, issue it   ' } });
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: '   ok, issue it   ' } });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toContain('acknowledgeFailure.statement');
     expect(await footprint(revision.id)).toEqual(before);
@@ -123,7 +124,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
 
   it('when a failing draft is issued with an acknowledgement, then 200, the statement is recorded, frozen and audited, and the PDF says FAIL on its first line', async () => {
     const { designer, issueUrl, revision, base, designerUser } = await draftOf(failingDocument());
-    const res = await designer.send('POST', issueUrl, { version: revision.version, acknowledgeFailure: { statement: `  ${STATEMENT}  ` } }).expect(200);
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: `  ${STATEMENT}  ` } }).expect(200);
     const issued = res.body.revision;
     expect(issued.status).toBe('issued');
     expect(issued.verdict.status).toBe('fail');
@@ -154,7 +155,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
   it('when a passing draft is sent with an acknowledgement of failure, then 409 NOTHING_TO_ACKNOWLEDGE and nothing is written', async () => {
     const { designer, issueUrl, revision } = await draftOf(smallDocument());
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version, acknowledgeFailure: { statement: STATEMENT } });
+    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: STATEMENT } });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe('NOTHING_TO_ACKNOWLEDGE');
     expect(await footprint(revision.id)).toEqual(before);
@@ -162,7 +163,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
 
   it('when the demo building is issued, then it passes, carries no acknowledgement, and its PDF says PASS first and never FAIL', async () => {
     const { designer, issueUrl, revision, base } = await draftOf(demoDocument());
-    const issued = (await designer.send('POST', issueUrl, { version: revision.version }).expect(200)).body.revision;
+    const issued = (await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION }).expect(200)).body.revision;
     expect(issued.verdict.status).toBe('pass');
     expect(issued.failureAcknowledgement).toBeNull();
     const pdf = await pdfOf(designer, `${base}/revisions/${revision.id}/summary.pdf`);
@@ -179,7 +180,7 @@ describe('issuing a revision: only a complete description, and a failing one onl
     const { designer, issueUrl, revision } = await draftOf(document);
     // a stored analysis older than the engine (here: made to look stale) is not what gets issued
     await h.db('revisions').where({ id: revision.id }).update({ analysis: JSON.stringify({ ok: true, analysis: { stale: true } }), engine_version: '0.0.0' });
-    const issued = (await designer.send('POST', issueUrl, { version: revision.version }).expect(200)).body.revision;
+    const issued = (await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION }).expect(200)).body.revision;
     const engine = analyzeSystem(SystemDocumentSchema.parse(issued.document));
     expect(issued.analysis).toEqual({ ok: true, analysis: JSON.parse(JSON.stringify(engine)) });
   });
@@ -240,7 +241,7 @@ describe('an issued revision that is incomplete (issued before the server refuse
 describe('sending a failing revision', () => {
   it('when a failing revision issued with an acknowledgement is sent, then the subject starts with FAIL and the body says FAIL', async () => {
     const { designer, issueUrl, revision, base, inspectorUser } = await draftOf(failingDocument());
-    await designer.send('POST', issueUrl, { version: revision.version, acknowledgeFailure: { statement: STATEMENT } }).expect(200);
+    await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: STATEMENT } }).expect(200);
     const res = await designer.send('POST', `${base}/revisions/${revision.id}/summary/send`, { inspectorIds: [inspectorUser.id] });
     expect(res.status).toBe(202);
     const row = await h.db('outbox').where({ revision_id: revision.id }).first();
@@ -251,7 +252,7 @@ describe('sending a failing revision', () => {
 
   it('when a passing revision is sent, then the subject has no FAIL and the body says PASS', async () => {
     const { designer, issueUrl, revision, base, inspectorUser } = await draftOf(smallDocument());
-    await designer.send('POST', issueUrl, { version: revision.version }).expect(200);
+    await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION }).expect(200);
     await designer.send('POST', `${base}/revisions/${revision.id}/summary/send`, { inspectorIds: [inspectorUser.id] }).expect(202);
     const row = await h.db('outbox').where({ revision_id: revision.id }).first();
     expect(row.subject).not.toMatch(/FAIL/);

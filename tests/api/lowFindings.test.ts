@@ -12,6 +12,7 @@ import { listen } from './support/hardening';
 import { smallDocument } from './support/documents';
 import { RESET_ANSWER_MS } from '../../server/routes/auth';
 import { passwordProblem } from '../../server/auth/passwordPolicy';
+import { ATTESTATION } from './support/attestation';
 
 let h: Harness;
 beforeAll(() => {
@@ -124,7 +125,7 @@ describe('the database freezes issued and decided records whole', () => {
     const p = await projectWithRoles(h);
     const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen', service: 'cold', document: smallDocument() }).expect(201)).body;
     const base = `/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
-    await p.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    await p.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const id = created.revision.id;
     for (const change of [{ note: 'changed later' }, { engine_version: '0.0.0' }, { number: 99 }, { version: 42 }, { issued_at: new Date(0) }, { status: 'draft' }]) {
       await expect(h.db('revisions').where({ id }).update(change), JSON.stringify(change)).rejects.toThrow(/cannot/);
@@ -138,7 +139,7 @@ describe('the database freezes issued and decided records whole', () => {
     const contractor = await signedIn(h, p.contractorUser);
     const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen FC', service: 'cold', document: smallDocument() }).expect(201)).body;
     const sys = `/api/projects/${p.projectId}/systems/${created.system.id}`;
-    await p.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+    await p.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const fc = (await contractor.send('POST', `${sys}/field-changes`, { revisionId: created.revision.id, title: 'Frozen substitution' }).expect(201)).body.fieldChange;
     const doc = structuredClone(fc.document);
     doc.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 5 }];

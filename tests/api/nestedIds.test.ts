@@ -17,6 +17,7 @@ import { randomUUID } from 'node:crypto';
 import { Client, makeUser, signedIn, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
 import { tinyPdf, upload } from './support/fieldChangeFixtures';
+import { ATTESTATION } from './support/attestation';
 
 type Role = 'designer' | 'contractor' | 'inspector';
 type Ids = Record<string, string>;
@@ -38,7 +39,7 @@ const ROWS: Record<string, Row> = {
   'POST /api/projects/:projectId/systems/:systemId/revisions': { as: 'designer', extraIds: ['revisionId'], body: (i) => ({ fromRevisionId: i.revisionId }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId': { as: 'designer' },
   'PUT /api/projects/:projectId/systems/:systemId/revisions/:revisionId/document': { as: 'designer', body: () => ({ document: smallDocument(), version: 1 }) },
-  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', body: () => ({ version: 1 }) },
+  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', body: () => ({ version: 1, attestation: ATTESTATION }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary.pdf': { as: 'designer' },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': { as: 'designer' },
@@ -88,7 +89,7 @@ async function makeProject(designer: Client, users: Record<Role, { id: string; e
   const systemId: string = created.system.id;
   const revisionId: string = created.revision.id;
   const sys = `/api/projects/${projectId}/systems/${systemId}`;
-  await designer.send('POST', `${sys}/revisions/${revisionId}/issue`, { version: 1 }).expect(200);
+  await designer.send('POST', `${sys}/revisions/${revisionId}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
   const draftId: string = (await designer.send('POST', `${sys}/revisions`, { fromRevisionId: revisionId }).expect(201)).body.revision.id;
   const fc = (await clients.contractor.send('POST', `${sys}/field-changes`, { revisionId, title: 'Nested substitution' }).expect(201)).body.fieldChange;
   const attachment = (await upload(clients.contractor, `${sys}/field-changes/${fc.id}`, tinyPdf(), 'sheet.pdf', 'application/pdf').expect(201)).body.attachment;

@@ -1,3 +1,4 @@
+import { ATTESTATION } from './support/attestation';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
@@ -62,7 +63,7 @@ async function issueNext(w: Awaited<ReturnType<typeof returnedSystem>>) {
   const riser = document.segments.find((s: { id: string }) => s.id === 'riser-2');
   riser.fittings = [...riser.fittings, { typeId: 'elbow-90-standard', count: 4 }];
   const saved = (await w.designer.send('PUT', `${w.systemUrl}/revisions/${draft.id}/document`, { document, version: draft.version }).expect(200)).body.revision;
-  const issued = await w.designer.send('POST', `${w.systemUrl}/revisions/${draft.id}/issue`, { version: saved.version });
+  const issued = await w.designer.send('POST', `${w.systemUrl}/revisions/${draft.id}/issue`, { version: saved.version, attestation: ATTESTATION });
   expect(issued.status, JSON.stringify(issued.body)).toBe(200);
   return { revisionId: draft.id as string, base: `${w.systemUrl}/revisions/${draft.id}` };
 }

@@ -152,7 +152,9 @@ describe('the issued summary PDF', () => {
     await expect(h.db('summaries').where({ revision_id: revisionId }).update({ pdf: Buffer.from('tampered') })).rejects.toThrow(/cannot change/);
 
     const row = await h.db('summaries').where({ revision_id: revisionId }).first('header');
-    const again = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: revision.analysis.analysis });
+    const att = revision.attestation;
+    const attestation = { name: att.name, licenceNumber: att.licenceNumber, statement: att.statement, at: att.at };
+    const again = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: revision.analysis.analysis, attestation });
     expect(Buffer.from(again.bytes).equals(first)).toBe(true);
     // a designer cannot make an issued summary again
     expect((await designer.send('POST', `${base}/summary/retry`)).status).toBe(409);

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSystem, SystemDocumentSchema } from '../../src/engine';
 import { projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
+import { ATTESTATION } from './support/attestation';
 
 let h: Harness;
 beforeAll(() => {
@@ -60,7 +61,7 @@ describe('systems and revisions', () => {
 
   it('when a revision is issued, then it refuses every change, a new draft starts from it, and the next issue supersedes it', async () => {
     const { designer, base, revision, contractorUser } = await withSystem();
-    const issued = await designer.send('POST', `${base}/revisions/${revision.id}/issue`, { version: revision.version }).expect(200);
+    const issued = await designer.send('POST', `${base}/revisions/${revision.id}/issue`, { version: revision.version, attestation: ATTESTATION }).expect(200);
     expect(issued.body.revision.status).toBe('issued');
     expect(issued.body.revision.inputHash).toMatch(/^[0-9a-f]{64}$/);
     const edit = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument(), version: issued.body.revision.version });
@@ -73,14 +74,14 @@ describe('systems and revisions', () => {
     const draft = await designer.send('POST', `${base}/revisions`, { fromRevisionId: revision.id }).expect(201);
     expect(draft.body.revision).toMatchObject({ number: 2, status: 'draft' });
     expect((await designer.send('POST', `${base}/revisions`, { fromRevisionId: revision.id })).status).toBe(409);
-    await designer.send('POST', `${base}/revisions/${draft.body.revision.id}/issue`, { version: draft.body.revision.version }).expect(200);
+    await designer.send('POST', `${base}/revisions/${draft.body.revision.id}/issue`, { version: draft.body.revision.version, attestation: ATTESTATION }).expect(200);
     const list = (await designer.get(base).expect(200)).body.revisions;
     expect(list.map((r: { number: number; status: string }) => `${r.number}:${r.status}`)).toEqual(['2:issued', '1:superseded']);
   });
 
   it('when two revisions are compared, then each fixture margin difference equals two independent engine runs', async () => {
     const { designer, base, revision } = await withSystem();
-    await designer.send('POST', `${base}/revisions/${revision.id}/issue`, { version: revision.version }).expect(200);
+    await designer.send('POST', `${base}/revisions/${revision.id}/issue`, { version: revision.version, attestation: ATTESTATION }).expect(200);
     const draft = (await designer.send('POST', `${base}/revisions`, { fromRevisionId: revision.id }).expect(201)).body.revision;
     const changed = smallDocument({ elbowCount: 12 });
     await designer.send('PUT', `${base}/revisions/${draft.id}/document`, { document: changed, version: draft.version }).expect(200);

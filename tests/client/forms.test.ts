@@ -21,15 +21,24 @@ describe('form schemas (derived from the shared API schemas)', () => {
   });
 
   it('when the edit form is sent, then it carries no version of its own (the version comes from when it was opened)', () => {
-    const values = { name: 'Alder & Finch', address: '410 Quarry Lane', codeBasis: '', unitSystem: 'US', notes: '' };
+    const permit = { permitNumber: '', adoptedCode: '', localAmendments: '', preparerLicence: '', licenceJurisdiction: '' };
+    const values = { name: 'Alder & Finch', address: '410 Quarry Lane', codeBasis: '', unitSystem: 'US', notes: '', permit };
     expect(updateProjectInputSchema.safeParse(values).success).toBe(true);
     expect(updateProjectInputSchema.safeParse({ ...values, version: 3 }).success).toBe(false);
     expect(issuePaths(updateProjectInputSchema.safeParse({ ...values, name: '  ' }))).toEqual(['name']);
   });
 
   it('when a new project has no name, then the name field is in error', () => {
-    const result = createProjectInputSchema.safeParse({ name: '', address: '', codeBasis: '', unitSystem: 'SI', notes: '' });
+    const permit = { permitNumber: '', adoptedCode: '', localAmendments: '', preparerLicence: '', licenceJurisdiction: '' };
+    const result = createProjectInputSchema.safeParse({ name: '', address: '', codeBasis: '', unitSystem: 'SI', notes: '', permit });
     expect(issuePaths(result)).toEqual(['name']);
+  });
+
+  it('when the permit fields name a code Headroom does not offer or run too long, then each field is in error by its path', () => {
+    const values = { name: 'Alder & Finch', address: '', codeBasis: '', unitSystem: 'US', notes: '' };
+    const permit = { permitNumber: 'x'.repeat(81), adoptedCode: 'ipc-1997', localAmendments: '', preparerLicence: 'PE 40417', licenceJurisdiction: 'Wrenmoor (invented)' };
+    expect(issuePaths(updateProjectInputSchema.safeParse({ ...values, permit })).sort()).toEqual(['permit.adoptedCode', 'permit.permitNumber']);
+    expect(updateProjectInputSchema.safeParse({ ...values, permit: { ...permit, permitNumber: 'WRN-PC-2026-0418', adoptedCode: 'upc-2018' } }).success).toBe(true);
   });
 
   it('when a member is added with a mixed-case e-mail, then it is sent trimmed and lower-cased', () => {

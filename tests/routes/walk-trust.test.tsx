@@ -175,7 +175,14 @@ describe('issuing', () => {
     await screen.findByTestId('step-result', {}, CATCH_UP);
     await user.click(screen.getByRole('button', { name: 'Issue revision…' }));
     const confirm = screen.getByRole('group', { name: 'Confirm issuing' });
-    expect(within(confirm).getByRole('button', { name: /^Yes, issue/ })).toBeTruthy();
+    // no issue without the preparer's attestation: name, licence number and the confirmed statement
+    const yes = within(confirm).getByRole('button', { name: /^Yes, issue/ }) as HTMLButtonElement;
+    expect(yes.disabled).toBe(true);
+    await user.type(within(confirm).getByLabelText('Your name, as on your licence'), 'Dana Whitlow');
+    await user.type(within(confirm).getByLabelText('Licence or registration number'), 'PE 40417');
+    expect(yes.disabled).toBe(true);
+    await user.click(within(confirm).getByLabelText(/^I confirm:/));
+    expect(yes.disabled).toBe(false);
     expect(world.calls.filter((c) => c.method === 'POST' && c.url.includes('/issue'))).toHaveLength(0);
     await user.click(within(confirm).getByRole('button', { name: 'Not now' }));
     expect(screen.queryByRole('group', { name: 'Confirm issuing' })).toBeNull();

@@ -178,6 +178,12 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
     const z = floor.elevation + h;
     nodes.push({ id: riserNode, label: `Riser at ${floor.name}`, floor: floor.id, heightAboveFloor: h });
     const first = i === from;
+    const length = Math.abs(z - belowElevation) + (first ? spec.riser.footLength : 0);
+    // A pipe of no length is not a description of anything: the start point sits level with the first floor main
+    // and no run to the riser's foot was given. Said here, before anything is written to the draft.
+    if (first && !(length > 0)) {
+      throw builderError('riser.footLength', `The riser's first pipe would have no length: the start point is level with the ${floor.name} floor main. Enter the run from the start point to the foot of the riser.`);
+    }
     segments.push({
       id: first ? 'riser-foot' : `riser-to-${floor.id}`,
       label: first ? `Riser foot to ${floor.name}` : `Riser to ${floor.name}`,
@@ -186,7 +192,7 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
       material: spec.riser.material,
       size: sizeAt(i),
       // Vertical pipe: its developed length is the climb (plus the foot's horizontal run).
-      length: Math.abs(z - belowElevation) + (first ? spec.riser.footLength : 0),
+      length,
       fittings: [...(first ? spec.riser.footFittings ?? [] : []), ...(spec.riser.fittings ?? TEE_RUN)],
     });
     let tapFrom = riserNode;

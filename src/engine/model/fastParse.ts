@@ -377,6 +377,7 @@ function segment(v: unknown): Segment {
   const reducerAuto = o.reducerAuto;
   out.reducerAuto = reducerAuto === undefined ? true : bool(reducerAuto);
   known += 'reducerAuto' in o ? 1 : 0;
+  known += optional(o, out, 'sizeLocked', bool);
   strictKeys(o, known);
   return out as Segment;
 }

@@ -304,6 +304,10 @@ export const SegmentSchema = z.strictObject({
     .boolean()
     .default(true)
     .describe('Add a sudden expansion or contraction loss where the size differs from the feeding segment.'),
+  sizeLocked: z
+    .boolean()
+    .optional()
+    .describe('The designer fixed this size: automatic sizing keeps it.'),
 });
 
 export const CriteriaOverridesSchema = z

@@ -147,7 +147,7 @@ export function upgradeDocumentWithReport(doc: SystemDocumentV1, options: Upgrad
 
 /** Keys in the schema's order (a parsed version 2 document has them so). */
 function reorderSegment(seg: SystemDocument['segments'][number]): SystemDocument['segments'][number] {
-  const order = ['id', 'label', 'from', 'to', 'material', 'size', 'custom', 'length', 'rise', 'fittings', 'flowOverride', 'reducerAuto'] as const;
+  const order = ['id', 'label', 'from', 'to', 'material', 'size', 'custom', 'length', 'rise', 'fittings', 'flowOverride', 'reducerAuto', 'sizeLocked'] as const;
   const out: Record<string, unknown> = {};
   for (const k of order) if (k in seg) out[k] = (seg as Record<string, unknown>)[k];
   return out as SystemDocument['segments'][number];

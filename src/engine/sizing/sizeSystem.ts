@@ -14,8 +14,9 @@
  * The method, and why it is exact on a tree:
  *   1. One analysis of the document gives every segment's design flow. In a tree the design flow
  *      comes from the fixture units downstream, not from the sizes, so it is fixed.
- *   2. Probe analyses (one per size position, on a copy of the main tree with every segment's flow
- *      fixed by `flowOverride`, so no demand is recomputed) give each segment's friction and
+ *   2. A probe analysis (twins of the segments hung from the source, each at one candidate size
+ *      with its design flow fixed by `flowOverride`, so no demand is recomputed; segments alike in
+ *      material, length, fittings and flow share one twin) gives each segment's friction and
  *      fitting loss L_e(s) and velocity at every candidate size s. The velocity limit removes the
  *      sizes below the smallest that meets it (a velocity only falls as the size grows).
  *   3. A fixture f's residual changes with the sizes only through the losses of the segments on
@@ -23,6 +24,10 @@
  *      iff Σ ΔL_e ≤ slack_f = residual_f(S0) − required_f − margin: one linear constraint per
  *      fixture over a root-to-leaf path. A PRV or a variable-speed booster holds its outlet
  *      pressure, so a path is cut there: only the segments from the device's segment down count.
+ *      A PRV holds only while its inlet stays above what it delivers, so the segments above it
+ *      get one more constraint of the same form (its holding slack); a PRV that does not hold in
+ *      the analysis, or cannot at any size, is no cut. An idling variable-speed booster (inlet
+ *      above its set pressure) is counted at its set pressure, the least it delivers.
  *   4. Minimising a sum of per-segment costs under path constraints on a tree is solved exactly
  *      by dynamic programming from the leaves up: each subtree keeps its Pareto set of (volume,
  *      need), need being the largest Σ ΔL − slack over its fixtures; sibling sets combine by
@@ -31,8 +36,8 @@
  *      feasible are merged into the cheapest. The root keeps the cheapest point with need ≤ 0.
  *   5. One analysis of the sized document verifies it. The model leaves out the sudden expansion
  *      or contraction loss where sizes change (reducerAuto), which depends on two neighbours' sizes;
- *      if the verification finds a fixture short by that amount, its slack is reduced by the
- *      shortfall (times REPAIR_FACTOR) and step 4 repeats (at most MAX_REPAIRS times); the answer is
+ *      if the verification finds a fixture short, its slack is reduced by the loss the search did
+ *      not count on its path (or the shortfall, whichever asks more; times REPAIR_FACTOR) and step 4 repeats (at most MAX_REPAIRS times); the answer is
  *      then a safe, not necessarily the least, choice where sizes change along a path.
  * On a tree without size-change losses the answer is therefore the exact minimum (proved by the
  * exhaustive-search test in tests/engine/sizing). When no choice passes, the result says by how
@@ -46,6 +51,9 @@ import { parseDocument } from '../analysis/input';
 import type { Analysis } from '../analysis/types';
 import { MATERIALS, type MaterialId } from '../catalog/materials';
 import type { SystemDocument } from '../model/schema';
+import { frictionBudgetOf, type FrictionBudget } from './frictionBudget';
+import { lossCurveAt } from '../devices/lossCurve';
+import { toSI } from '../units';
 import { combine, prune, type ParetoPoint } from './pareto';
 
 /** Repairs of the size-change losses the model leaves out (step 5). */
@@ -61,7 +69,7 @@ const VELOCITY_RTOL = 1e-9;
 export interface SizingOptions {
   /** Pressure each checked fixture must keep above its minimum, Pa (default 0). */
   marginPa?: number;
-  /** Segments that keep their size. */
+  /** Segments that keep their size, besides those the document marks `sizeLocked`. */
   lockedSegmentIds?: readonly string[];
   /** Only these segments may change (a selection, or a contractor's field change); default all. */
   segmentIds?: readonly string[];
@@ -69,7 +77,12 @@ export interface SizingOptions {
   candidateSizes?: Readonly<Record<string, readonly string[]>>;
 }
 
-export type Governing = 'velocity' | { fixtureId: string } | 'locked' | 'unchanged';
+/**
+ * Why a segment has the size it has after sizing: its own velocity limit (the smallest size that
+ * meets it), the smallest size allowed (nothing else holds it), the pressure at a checked fixture downstream (a larger size was needed for it), a
+ * lock, or outside what may change (not selected, not a catalog pipe, inside a typical unit).
+ */
+export type Governing = 'velocity' | 'smallest' | { fixtureId: string; fixtureLabel: string } | 'locked' | 'unchanged';
 
 export interface SegmentSizing {
   segmentId: string;
@@ -80,6 +93,12 @@ export interface SegmentSizing {
   governing: Governing;
   /** false when even the largest allowed size exceeds the velocity limit. */
   velocityMet: boolean;
+  /** Velocity at design flow before and after (after: null when nothing was sized), m/s; its limit (null: none applies). */
+  velocityBefore: number;
+  velocityAfter: number | null;
+  velocityLimit: number | null;
+  /** The checked fixture downstream with the least margin after sizing (before, when nothing was sized), and its margins, Pa. */
+  worstFixture: { fixtureId: string; label: string; marginBeforePa: number; marginAfterPa: number | null } | null;
 }
 
 export interface FixtureMargin {
@@ -108,13 +127,21 @@ export interface SizingResult {
   shortfallPa: number;
   /** When not feasible: the pressure a booster at the source must add at the design flow for the velocity-sized design to pass, Pa. */
   boosterPressurePa: number | null;
+  /**
+   * The model codes' "pressure available for friction" for the critical fixture before sizing:
+   * what the supply leaves after the devices, the elevation and the fixture's minimum (and the
+   * margin), and its budget per 100 ft of equivalent length (frictionBudget.ts).
+   */
+  frictionBudget: FrictionBudget | null;
   /** The sized document (null when not feasible: nothing changes). */
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
   analyses: number;
+  /** Where the time went, ms: the analyses (base, probes, verifications), the search, and the whole call. */
+  timings: { analysesMs: number; searchMs: number; totalMs: number };
 }
 
-export type SizingErrorCode = 'nothing-to-size' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
+export type SizingErrorCode = 'nothing-to-size' | 'all-locked' | 'unknown-material' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
 
 /** Sizing cannot start: names the cause and, where there is one, the element. */
 export class SizingError extends Error {
@@ -138,6 +165,8 @@ interface Free {
   deltaPa: number[];
   volume: number[];
   velocityMet: boolean;
+  /** The velocity limit ruled out at least one smaller allowed size. */
+  velocityRemoved: boolean;
 }
 
 export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingResult {
@@ -149,10 +178,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (!docIndexById.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
   }
 
+  const startedAt = performance.now();
   let analyses = 0;
+  let analysesMs = 0;
+  let searchMs = 0;
   const run = (d: SystemDocument): Analysis => {
     analyses++;
-    return analyzeValidated(d);
+    const t0 = performance.now();
+    const a = analyzeValidated(d);
+    analysesMs += performance.now() - t0;
+    return a;
   };
   const base = run(doc);
   if (base.verdict.status === 'incomplete') {
@@ -165,7 +200,8 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   }
   const segs = base.si.segments;
   const segIndex = new Map(segs.map((s, i) => [s.id, i]));
-  const locked = new Set(options.lockedSegmentIds ?? []);
+  const budget = frictionBudgetOf(base, marginPa);
+  const locked = new Set([...(options.lockedSegmentIds ?? []), ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id)]);
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
   // Which segments may change, and their candidate sizes (ascending inside diameter).
@@ -188,6 +224,15 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (index !== undefined && sizes.length > 0) candidates.set(index, { docIndex, material: material.id, sizes });
   }
   if (candidates.size === 0) {
+    const inScope = doc.segments.filter((s) => (!selected || selected.has(s.id)) && s.material && s.size && !s.custom);
+    if (inScope.length > 0 && inScope.every((s) => locked.has(s.id))) {
+      const names = inScope.slice(0, 3).map((s) => `"${s.label ?? s.id}"`).join(', ') + (inScope.length > 3 ? ` and ${inScope.length - 3} more` : '');
+      throw new SizingError(
+        'all-locked',
+        `Every segment ${selected ? 'selected' : 'of the system'} is locked (${names}): nothing can be sized and nothing was changed. Unlock a segment or select others.`,
+        inScope[0].id,
+      );
+    }
     throw new SizingError('nothing-to-size', 'Every segment is locked, outside the selection or not a catalog pipe: nothing can be sized.');
   }
 
@@ -195,7 +240,21 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const baseLoss = segs.map((s) => s.frictionLoss + (s.totalK > 0 ? (s.fittingLoss * s.fittingsK) / s.totalK : 0));
   const probeLoss = new Map<string, number>();
   const probeVelocity = new Map<string, number>();
-  const jobs = [...candidates].flatMap(([, c]) => c.sizes.map((size, k) => ({ docIndex: c.docIndex, size, k })));
+  // Segments alike in everything a probe measures (material, allowed sizes, length, fittings,
+  // design flow) lose alike: one probe serves them all (a building's typical floors repeat).
+  const flowOf = new Map(base.segments.map((s) => [s.id, s.designFlow]));
+  const representative = new Map<string, number>();
+  const probeOf = new Map<number, number>();
+  for (const [index, c] of candidates) {
+    const s = doc.segments[c.docIndex];
+    const key = JSON.stringify([s.material, c.sizes, s.length, s.fittings, flowOf.get(s.id)]);
+    if (!representative.has(key)) representative.set(key, c.docIndex);
+    probeOf.set(index, representative.get(key)!);
+  }
+  const jobs = [...new Set(probeOf.values())].flatMap((docIndex) => {
+    const c = candidates.get(segIndex.get(doc.segments[docIndex].id)!)!;
+    return c.sizes.map((size, k) => ({ docIndex, size, k }));
+  });
   for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
     const r = run(probeDocument(doc, base, jobs.slice(from, from + PROBE_SEGMENTS))).si.segments;
     for (const s of r) {
@@ -208,7 +267,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   for (const [index, c] of candidates) {
     const limit = segs[index].velocityLimit;
     const rows = c.sizes.map((key, k) => {
-      const id = probeId(doc.segments[c.docIndex].id, k);
+      const id = probeId(doc.segments[probeOf.get(index)!].id, k);
       return { key, loss: probeLoss.get(id)!, velocity: probeVelocity.get(id)! };
     });
     let ok = rows.filter((r) => limit === null || r.velocity <= limit * (1 + VELOCITY_RTOL));
@@ -227,14 +286,13 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
         return (length * Math.PI * d * d) / 4;
       }),
       velocityMet,
+      velocityRemoved: ok.length < rows.length,
     });
   }
 
   // Step 3: one constraint per checked fixture (slack_f), attached to its node's feed segment.
-  const cuts = cutSegments(doc, segIndex);
   const nodeFeed = new Map(base.si.nodes.map((n) => [n.id, n.feedSegmentId]));
   const fixtures = base.si.fixtures;
-  const slack = fixtures.map((f) => f.residual - f.required - marginPa);
   const children: number[][] = segs.map(() => []);
   const roots: number[] = [];
   segs.forEach((s, i) => {
@@ -242,18 +300,59 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (p === undefined) roots.push(i);
     else children[p].push(i);
   });
+  const minDelta = (e: number) => Math.min(...free.get(e)!.deltaPa);
+  const velocityDelta = (e: number) => free.get(e)!.deltaPa[0];
+  /** Segment indices from the source down to e (inclusive). */
+  const pathTo = (e: number): number[] => {
+    const out: number[] = [];
+    for (let k: number | undefined = e; k !== undefined; k = segs[k].parentSegmentId === null ? undefined : segIndex.get(segs[k].parentSegmentId!)) out.push(k);
+    return out.reverse();
+  };
 
-  const constrainedPath = (f: (typeof fixtures)[number]): number[] => {
-    const path = f.path.map((id) => segIndex.get(id)!);
+  // Devices that hold their outlet pressure cut a path: the sizes above them do not reach below.
+  // A PRV holds only while its inlet stays above what it delivers: the sizes above it get a
+  // constraint of their own (its holding slack, attached to the segment feeding it); a PRV that
+  // does not hold now, or cannot at any size, is no cut. A variable-speed booster holds at least
+  // its set pressure at any inlet; when it idles (inlet above the set pressure) the fixtures
+  // below are counted from the set pressure, the least it delivers (a safe side).
+  const holding = deviceHolds(doc, base, segIndex);
+  const cuts = new Set<number>();
+  const belowCutCredit = new Map<number, number>();
+  const holds: { cut: number; slack: number }[] = [];
+  const constrained = (path: number[], cutSet: Set<number>): number[] => {
     let start = 0;
     path.forEach((e, k) => {
-      if (cuts.has(e)) start = k;
+      if (cutSet.has(e)) start = k;
     });
     return path.slice(start).filter((e) => free.has(e));
   };
-  const paths = fixtures.map(constrainedPath);
-  const minDelta = (e: number) => Math.min(...free.get(e)!.deltaPa);
-  const velocityDelta = (e: number) => free.get(e)!.deltaPa[0];
+  // Top-down, so that a hold's path ends at the cut above it.
+  const cutOrder = [...holding].sort((a, b) => pathTo(a[0]).length - pathTo(b[0]).length);
+  for (const [e, h] of cutOrder) {
+    if (h.kind === 'booster') {
+      cuts.add(e);
+      if (h.idleExcessPa > 0) belowCutCredit.set(e, h.idleExcessPa);
+      continue;
+    }
+    if (h.holdSlackPa < 0) continue;
+    const parent = segs[e].parentSegmentId === null ? undefined : segIndex.get(segs[e].parentSegmentId!);
+    const above = parent === undefined ? [] : constrained(pathTo(parent), cuts);
+    if (above.reduce((sum, k) => sum + minDelta(k), 0) > h.holdSlackPa) continue;
+    cuts.add(e);
+    if (parent !== undefined && above.length) holds.push({ cut: parent, slack: h.holdSlackPa });
+  }
+  const fixturePath = (f: (typeof fixtures)[number]) => f.path.map((id) => segIndex.get(id)!);
+  const paths = fixtures.map((f) => constrained(fixturePath(f), cuts));
+  const slack = fixtures.map((f) => {
+    const path = fixturePath(f);
+    let credit = 0;
+    for (const e of path) if (belowCutCredit.has(e)) credit = belowCutCredit.get(e)!;
+    return f.residual - f.required - marginPa - credit;
+  });
+  // Constraint k ≥ fixtures.length is a PRV's hold: same search, no fixture of its own.
+  const holdPaths = holds.map((h) => constrained(pathTo(h.cut), cuts));
+  const allPaths = [...paths, ...holdPaths];
+  const allSlack = [...slack, ...holds.map((h) => h.slack)];
 
   const margins = (after: Analysis | null): FixtureMargin[] =>
     fixtures.map((f, i) => ({
@@ -274,7 +373,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     return {
       feasible: false,
       verified: false,
-      segments: describe(doc, segs, segIndex, free, locked, selected, null, []),
+      segments: describe({ doc, segs, segIndex, free, locked, selected, chosen: null, governing: new Map(), fixtures, after: null }),
       changedSegments: 0,
       margins: margins(null),
       minMarginBeforePa: minOf(fixtures.map((f) => f.margin)),
@@ -283,8 +382,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       volumeAfterM3: null,
       shortfallPa: shortfall,
       boosterPressurePa: booster,
+      frictionBudget: budget,
       document: null,
       analyses,
+      timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
     };
   }
 
@@ -293,6 +394,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     const feed = nodeFeed.get(f.nodeId);
     if (feed) leafNeed[segIndex.get(feed)!].push(i);
   });
+  holds.forEach((h, k) => leafNeed[h.cut].push(fixtures.length + k));
 
   // Bounds for pruning: the least and the most the free segments above e (up to e's closing cut) can add.
   const minAbove = new Float64Array(segs.length);
@@ -311,25 +413,37 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     }
   }
 
-  let adjust = new Float64Array(fixtures.length);
+  let adjust = new Float64Array(allSlack.length);
   let chosen = new Map<number, number>();
   let after: Analysis | null = null;
   let sized: SystemDocument | null = null;
   for (let round = 0; round <= MAX_REPAIRS; round++) {
-    const best = search(order, children, free, cuts, leafNeed, slack.map((s, i) => s - adjust[i]), minAbove, maxAbove, roots);
+    const searchStart = performance.now();
+    const best = search(order, children, free, cuts, leafNeed, allSlack.map((s, i) => s - adjust[i]), minAbove, maxAbove, roots);
+    searchMs += performance.now() - searchStart;
     if (!best) break;
     chosen = best;
     sized = withSizes(doc, free, chosen);
     after = run(sized);
     const nextAdjust = Float64Array.from(adjust);
     let repaired = false;
-    after.si.fixtures.forEach((f, i) => {
-      const short = f.required + marginPa - f.residual;
-      if (short > 0 && paths[i].length > 0) {
+    // Predicted extra loss on each constraint's path (what the search counted) against the drop
+    // the analysis finds: the difference is the size-change loss the model leaves out.
+    const predicted = (i: number) => allPaths[i].reduce((sum, e) => sum + free.get(e)!.deltaPa[chosen.get(e) ?? 0], 0);
+    const shortOf = (i: number, short: number, drop: number) => {
+      if (short > 0 && allPaths[i].length > 0) {
         // Overshoot so that the sizes the repair moves do not need another round for their own size changes.
-        nextAdjust[i] += REPAIR_FACTOR * short + REPAIR_ALLOWANCE_PA;
+        const unmodelled = Math.max(0, drop - predicted(i));
+        nextAdjust[i] = Math.max(adjust[i] + REPAIR_FACTOR * short, REPAIR_FACTOR * unmodelled) + REPAIR_ALLOWANCE_PA;
         repaired = true;
       }
+    };
+    const checked = after;
+    checked.si.fixtures.forEach((f, i) => shortOf(i, f.required + marginPa - f.residual, fixtures[i].residual - f.residual));
+    const heldAfter = deviceHolds(doc, checked, segIndex);
+    holds.forEach((h, k) => {
+      const cut = [...heldAfter].find(([e]) => segIndex.get(segs[e].parentSegmentId ?? '') === h.cut && cuts.has(e));
+      if (cut && cut[1].kind === 'prv') shortOf(fixtures.length + k, -cut[1].holdSlackPa, h.slack - cut[1].holdSlackPa);
     });
     if (!repaired) break;
     adjust = nextAdjust;
@@ -339,18 +453,18 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     a !== null && a.si.fixtures.every((f) => f.residual - f.required >= marginPa * (1 - 1e-9) - 1e-6) && [...free.keys()].every((e) => a.si.segments[e].velocityPass !== false);
   const verified = passes(after);
   const allVelocity = [...free.values()].every((f) => f.velocityMet);
-  const governingFixture = new Map<number, string>();
+  // The fixture that holds a segment at its size: the one with the least slack left among the fixtures its loss counts for.
+  const governingFixture = new Map<number, number>();
   if (after) {
     const finalSlack = after.si.fixtures.map((f) => f.residual - f.required - marginPa);
     paths.forEach((p, i) => {
       for (const e of p) {
-        const current = governingFixture.get(e);
-        const j = current === undefined ? -1 : fixtures.findIndex((f) => f.id === current);
-        if (j < 0 || finalSlack[i] < finalSlack[j]) governingFixture.set(e, fixtures[i].id);
+        const j = governingFixture.get(e);
+        if (j === undefined || finalSlack[i] < finalSlack[j]) governingFixture.set(e, i);
       }
     });
   }
-  const segments = describe(doc, segs, segIndex, free, locked, selected, chosen, [...governingFixture]);
+  const segments = describe({ doc, segs, segIndex, free, locked, selected, chosen, governing: governingFixture, fixtures, after });
   const volumeAfter = [...chosen].reduce((sum, [e, k]) => sum + free.get(e)!.volume[k], 0);
   return {
     feasible: verified && allVelocity,
@@ -364,8 +478,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     volumeAfterM3: chosen.size ? volumeAfter : null,
     shortfallPa: verified ? 0 : Math.max(0, ...(after?.si.fixtures.map((f) => f.required + marginPa - f.residual) ?? [0])),
     boosterPressurePa: null,
+    frictionBudget: budget,
     document: verified && allVelocity ? sized : null,
     analyses,
+    timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
   };
 }
 
@@ -430,32 +546,73 @@ function search(
   return chosen;
 }
 
-/** Segments (analysis index) at whose inlet a PRV or a variable-speed booster holds the outlet pressure. */
-function cutSegments(doc: SystemDocument, segIndex: Map<string, number>): Set<number> {
-  const cuts = new Set<number>();
+type Hold = { kind: 'prv'; holdSlackPa: number } | { kind: 'booster'; idleExcessPa: number };
+
+/**
+ * Segments (analysis index) at whose inlet a PRV or a variable-speed booster sits, with what the
+ * analysis says of it: for a PRV, how far its inlet (less its own loss) stays above the pressure
+ * it delivers (negative: it does not hold); for a booster, how far an idling pump's outlet is
+ * above its set pressure (0 when it is boosting). Read from the analysis's per-device losses.
+ */
+function deviceHolds(doc: SystemDocument, analysis: Analysis, segIndex: Map<string, number>): Map<number, Hold> {
+  const out = new Map<number, Hold>();
   for (const d of doc.devices) {
-    const holds = d.kind === 'prv' || (d.kind === 'booster-pump' && d.boost !== undefined && 'control' in d.boost && d.boost.control === 'variable-speed');
+    const isPrv = d.kind === 'prv' && d.prv !== undefined;
+    const isVsBooster = d.kind === 'booster-pump' && d.boost !== undefined && 'control' in d.boost && d.boost.control === 'variable-speed';
     const e = segIndex.get(d.segmentId);
-    if (holds && e !== undefined) cuts.add(e);
+    if ((!isPrv && !isVsBooster) || e === undefined) continue;
+    const seg = analysis.si.segments[e];
+    let p = seg.inletPressure;
+    for (const r of seg.devices) {
+      if (r.deviceId === d.id) break;
+      p -= r.loss;
+    }
+    const result = seg.devices.find((r) => r.deviceId === d.id);
+    if (!result) continue;
+    const outlet = p - result.loss;
+    // The device's own loss at this flow, in SI (the document's units at the edge).
+    const flow = seg.designFlow;
+    const own = d.loss.kind === 'fixed' ? (flow > 0 ? toSI('pressure', d.loss.loss, doc.unitSystem) : 0) : ownCurveLossPa(d.loss.points, flow, doc.unitSystem);
+    if (isPrv) {
+      const target = toSI('pressure', d.prv!.setPressure, doc.unitSystem) - toSI('pressure', d.prv!.falloffPerFlow, doc.unitSystem) / toSI('flow', 1, doc.unitSystem) * flow;
+      out.set(e, { kind: 'prv', holdSlackPa: p - own - target });
+    } else {
+      const set = toSI('pressure', (d.boost as { setPressure: number }).setPressure, doc.unitSystem);
+      out.set(e, { kind: 'booster', idleExcessPa: Math.max(0, outlet - set) });
+    }
   }
-  return cuts;
+  return out;
+}
+
+/** A device's own loss from its curve at a flow (m³/s), Pa: the analysis's own curve reading (devices/lossCurve.ts). */
+function ownCurveLossPa(points: readonly { flow: number; loss: number }[], flowSI: number, system: SystemDocument['unitSystem']): number {
+  return lossCurveAt(points.map((q) => ({ flowM3s: toSI('flow', q.flow, system), lossPa: toSI('pressure', q.loss, system) })), flowSI).lossPa;
 }
 
 /**
- * The main tree with every segment's flow fixed at its design flow and placements removed, plus
- * one copy of a segment per size to measure: a dead-end twin from the same upstream node, level,
- * carrying the same flow, fittings and material at the size measured. One analysis so measures
- * many sizes (the copies do not change any flow: every flow is fixed).
+ * The probes: one copy of a segment per size to measure, each a dead-end twin hung from the
+ * source node, level, carrying the segment's design flow (fixed by `flowOverride`), fittings and
+ * material at the size measured, without size-change loss. A segment's friction and fitting loss
+ * depend only on these (the analysis adds nothing for where a segment hangs except the size
+ * change, which is left out here), so one small analysis measures every size of every segment;
+ * the rest of the tree, its devices and typical units are left out.
  */
 function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: number; size: string; k: number }[]): SystemDocument {
   const flow = new Map(base.segments.map((s) => [s.id, s.designFlow]));
-  const fixed = doc.segments.map((s) => ({ ...s, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false }));
+  const sourceNode = doc.nodes.find((n) => n.id === doc.source.nodeId)!;
   const twins = jobs.map(({ docIndex, size, k }) => {
-    const s = fixed[docIndex];
-    return { ...s, id: probeId(s.id, k), label: undefined, to: probeId(s.to, k), size, rise: 0 };
+    const s = doc.segments[docIndex];
+    return { ...s, id: probeId(s.id, k), label: undefined, from: sourceNode.id, to: probeId(s.to, k), size, rise: 0, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false, sizeLocked: undefined };
   });
   const twinNodes = twins.map((t) => ({ id: t.to, fixtureGroups: [], checkedFixtures: [] }));
-  return { ...doc, placements: undefined, unitTypes: undefined, nodes: [...doc.nodes, ...twinNodes], segments: [...fixed, ...twins] };
+  return {
+    ...doc,
+    placements: undefined,
+    unitTypes: undefined,
+    devices: [],
+    nodes: [{ ...sourceNode, fixtureGroups: [], checkedFixtures: [], continuousDemand: undefined }, ...twinNodes],
+    segments: twins,
+  };
 }
 
 function probeId(id: string, k: number): string {
@@ -471,30 +628,58 @@ function withSizes(doc: SystemDocument, free: Map<number, Free>, chosen: Map<num
   return { ...doc, segments };
 }
 
-function describe(
-  doc: SystemDocument,
-  segs: Analysis['si']['segments'],
-  segIndex: Map<string, number>,
-  free: Map<number, Free>,
-  locked: Set<string>,
-  selected: Set<string> | null,
-  chosen: Map<number, number> | null,
-  governing: [number, string][],
-): SegmentSizing[] {
-  const gov = new Map(governing);
+interface DescribeInput {
+  doc: SystemDocument;
+  segs: Analysis['si']['segments'];
+  segIndex: Map<string, number>;
+  free: Map<number, Free>;
+  locked: Set<string>;
+  selected: Set<string> | null;
+  chosen: Map<number, number> | null;
+  /** free segment → index of its governing fixture */
+  governing: Map<number, number>;
+  fixtures: Analysis['si']['fixtures'];
+  after: Analysis | null;
+}
+
+/** The per-segment answer: sizes before and after, why, velocities, and the worst fixture downstream. */
+function describe({ doc, segs, segIndex, free, locked, selected, chosen, governing, fixtures, after }: DescribeInput): SegmentSizing[] {
+  // The worst fixture downstream of each segment (least margin after; before when nothing was sized).
+  const worst = new Map<string, number>();
+  const marginOf = (i: number) => (after ? after.si.fixtures[i].margin : fixtures[i].margin);
+  fixtures.forEach((f, i) => {
+    for (const id of f.path) {
+      const j = worst.get(id);
+      if (j === undefined || marginOf(i) < marginOf(j)) worst.set(id, i);
+    }
+  });
   return doc.segments.map((s) => {
     const e = segIndex.get(s.id);
     const fr = e === undefined ? undefined : free.get(e);
     const before = s.size ?? null;
-    const base = { segmentId: s.id, label: s.label ?? null, material: s.material ?? null, before };
-    if (locked.has(s.id)) return { ...base, after: before, governing: 'locked' as const, velocityMet: segs[e!]?.velocityPass !== false };
-    if (!fr || (selected && !selected.has(s.id))) return { ...base, after: before, governing: 'unchanged' as const, velocityMet: e === undefined || segs[e].velocityPass !== false };
+    const w = worst.get(s.id);
+    const seg = e === undefined ? undefined : segs[e];
+    const base = {
+      segmentId: s.id,
+      label: s.label ?? null,
+      material: s.material ?? null,
+      before,
+      velocityBefore: seg?.velocity ?? 0,
+      velocityAfter: after && e !== undefined ? after.si.segments[e].velocity : null,
+      velocityLimit: seg?.velocityLimit ?? null,
+      worstFixture:
+        w === undefined
+          ? null
+          : { fixtureId: fixtures[w].id, label: fixtures[w].label, marginBeforePa: fixtures[w].margin, marginAfterPa: after ? after.si.fixtures[w].margin : null },
+    };
+    if (locked.has(s.id)) return { ...base, after: before, governing: 'locked' as const, velocityMet: seg?.velocityPass !== false };
+    if (!fr || (selected && !selected.has(s.id))) return { ...base, after: before, governing: 'unchanged' as const, velocityMet: seg?.velocityPass !== false };
     const k = chosen?.get(e!) ?? 0;
-    const fixtureId = k > 0 ? gov.get(e!) : undefined;
+    const g = k > 0 ? governing.get(e!) : undefined;
     return {
       ...base,
       after: chosen ? fr.sizes[k] : before,
-      governing: fixtureId ? { fixtureId } : ('velocity' as const),
+      governing: g !== undefined ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label } : fr.velocityRemoved ? ('velocity' as const) : ('smallest' as const),
       velocityMet: fr.velocityMet,
     };
   });

@@ -27,7 +27,7 @@
  */
 import { z } from 'zod';
 import { Email } from './auth';
-import { ProjectParams } from './projects';
+import { PermitFields, ProjectParams } from './projects';
 import { RevisionParams } from './systems';
 
 /** The cautions printed in every summary and shown beside a result (plain words; DESIGN.md "Cautions"). */
@@ -51,6 +51,8 @@ export const SummaryHeader = z.object({
   preparerEmail: z.string(),
   inputHash: z.string(),
   note: z.string().nullable(),
+  /** the project's permit fields as they were at issue (absent from headers frozen before they existed) */
+  permit: PermitFields.optional(),
 });
 export type SummaryHeader = z.infer<typeof SummaryHeader>;
 

@@ -24,15 +24,40 @@ export const SaveDocumentBody = z.object({ document: SystemDocumentSchema, versi
 export const FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH = 20;
 
 /**
+ * The preparer's attestation at issue: the statement they confirm, in Headroom's plain words, with
+ * their name and licence or registration number as they confirm them. Recorded with the time on
+ * the revision, printed in its summary beside an empty signature field for their own certificate.
+ */
+export const ATTESTATION_STATEMENTS = {
+  prepared: 'I prepared this calculation and checked its inputs, method and results.',
+  supervised: 'This calculation was prepared under my direct supervision, and I checked its inputs, method and results.',
+} as const;
+export const ATTESTATION_BASES = ['prepared', 'supervised'] as const;
+export const Attestation = z
+  .object({
+    name: z.string().trim().min(1, 'Enter your name as it appears on your licence').max(160),
+    licenceNumber: z.string().trim().min(1, 'Enter your licence or registration number').max(80, 'At most 80 characters'),
+    basis: z.enum(ATTESTATION_BASES),
+    confirmed: z.literal(true, { message: 'Confirm the statement to issue' }),
+  })
+  .strict();
+export type Attestation = z.infer<typeof Attestation>;
+/** The attestation as recorded: the statement's words, who confirmed it and when. */
+export const AttestationRecord = z.object({ name: z.string(), licenceNumber: z.string(), statement: z.string(), by: z.string().nullable(), at: z.string() });
+export type AttestationRecord = z.infer<typeof AttestationRecord>;
+
+/**
  * Issuing a draft. The server refuses a draft whose analysis is incomplete (409 REVISION_INCOMPLETE
  * with the reasons) and a failing one unless `acknowledgeFailure` carries the designer's own
  * statement of why it is issued although it fails (409 FAILURE_NOT_ACKNOWLEDGED); the statement is
- * recorded on the revision, printed in its summary and kept in the audit log.
+ * recorded on the revision, printed in its summary and kept in the audit log. Every issue carries the
+ * preparer's attestation (a summary goes to a plan reviewer as a permit document).
  */
 export const IssueBody = z
   .object({
     version: z.number().int().min(1),
     note: z.string().max(2000).optional(),
+    attestation: Attestation,
     acknowledgeFailure: z
       .object({
         statement: z
@@ -82,6 +107,8 @@ export const RevisionSummary = z.object({
   verdict: RevisionVerdict,
   /** set only on a failing revision issued with the designer's acknowledgement */
   failureAcknowledgement: FailureAcknowledgement.nullable().optional(),
+  /** the preparer's attestation recorded at issue (null for a draft and for revisions issued before attestations) */
+  attestation: AttestationRecord.nullable().optional(),
 });
 export type RevisionSummary = z.infer<typeof RevisionSummary>;
 

@@ -9,6 +9,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import type { Client, Harness } from './harness';
+import { ATTESTATION } from './attestation';
 
 export interface CaughtMail {
   raw: Buffer;
@@ -98,7 +99,7 @@ export function demoDocument(): Record<string, unknown> {
 export async function issuedSystem(designer: Client, projectId: string, document: unknown, name = 'Domestic cold water') {
   const created = (await designer.send('POST', `/api/projects/${projectId}/systems`, { name, service: 'cold', document }).expect(201)).body;
   const base = `/api/projects/${projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
-  const issued = await designer.send('POST', `${base}/issue`, { version: created.revision.version });
+  const issued = await designer.send('POST', `${base}/issue`, { version: created.revision.version, attestation: ATTESTATION });
   if (issued.status !== 200) throw new Error(`issue failed: ${issued.status} ${JSON.stringify(issued.body)}`);
   return { systemId: created.system.id as string, revisionId: created.revision.id as string, base, revision: issued.body.revision };
 }

@@ -122,6 +122,15 @@ describe('bad building input gets a message naming the row or field, and nothing
     expect(() => buildRiser({ ...spec(), units: [] })).toThrow(/at least one unit/);
     expect(() => buildRiser({ ...spec(), units: [{ ...spec().units[0], unitTypeId: 'penthouse' }] })).toThrow(/"penthouse" does not exist/);
   });
+
+  it('when the start point is level with the first floor main and no run to the foot is given, then the foot length is named instead of a pipe of no length', () => {
+    const s = spec();
+    const level = { ...s, startElevation: s.floors[0].elevation + s.floorMain.heightAboveFloor, riser: { ...s.riser, footLength: 0 } };
+    expect(() => buildRiser(level)).toThrow(EngineInputError);
+    expect(() => buildRiser(level)).toThrow(/no length.*run from the start point to the foot of the riser/);
+    // a run to the foot makes it a real pipe again
+    expect(buildRiser({ ...level, riser: { ...level.riser, footLength: 6 } }).segments[0].length).toBe(6);
+  });
 });
 
 describe('the expanded building obeys the document bounds', () => {

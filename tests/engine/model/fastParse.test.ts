@@ -112,6 +112,7 @@ const segment = rec({
   fittings: opt(fc.array(rec({ typeId: id, count, custom: opt(customFitting) }), { maxLength: 3 })),
   flowOverride: opt(nonNegative),
   reducerAuto: opt(fc.boolean()),
+  sizeLocked: opt(fc.boolean()),
 });
 const criteria = rec({
   maxStaticPressure: opt(positive),

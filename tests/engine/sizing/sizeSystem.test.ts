@@ -171,14 +171,14 @@ describe('sizeSystem: answers, locks and bad input', () => {
     expect(s1.after).toBe(s1.before);
   });
 
-  it('when every segment is locked, then a named error and nothing is sized', () => {
+  it('when every segment is locked, then the all-locked error and nothing is sized', () => {
     const t = randomTree(4, pressure);
     const all = t.doc.segments.map((s) => s.id);
     expect(() => sizeSystem(t.doc, { lockedSegmentIds: all })).toThrowError(SizingError);
     try {
       sizeSystem(t.doc, { lockedSegmentIds: all });
     } catch (e) {
-      expect((e as SizingError).code).toBe('nothing-to-size');
+      expect((e as SizingError).code).toBe('all-locked');
     }
   });
 

@@ -47,6 +47,8 @@ export function fieldChangeLinks({ projectId, systemId, fieldChangeId }: FieldCh
     step: (step) => fieldChangePaths.step.getHref(projectId, systemId, fieldChangeId, step as FieldChangeStepId),
     // the table edits the tree (rise, ends); a field change edits pipe on its own step
     table: null,
+    // a field change substitutes pipe and fittings; it never regenerates the building
+    building: null,
     diagram: fieldChangePaths.diagram.getHref(projectId, systemId, fieldChangeId),
     up: { href: walkPaths.system.getHref(projectId, systemId), label: 'System overview and revisions' },
   };

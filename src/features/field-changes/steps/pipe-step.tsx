@@ -11,6 +11,7 @@ import { treeOrder } from '../../walk/lib/tree';
 import { useLiveForm } from '../../walk/lib/use-live-form';
 import { sizeChoices } from '../../walk/lib/sizes';
 import { useFieldChangeFrame } from '../components/field-change-context';
+import { SubstitutePanel } from '../../sizing/components/substitute-panel';
 
 const row = z
   .object({
@@ -84,6 +85,7 @@ export function PipeStep() {
         beside what goes in instead, and the effect on its velocity and on its loss (friction and fittings) at the
         design flow. Insert fittings of PEX narrow the bore further: add them on the fittings step.
       </StepIntro>
+      <SubstitutePanel onChanged={(doc) => form.reset(formValues(doc))} />
       <fieldset disabled={readOnlyReason !== null}>
         <div className="overflow-x-auto">
           <table className="w-full min-w-[40rem] text-sm" aria-label="Pipe substitutions by segment">

@@ -1,10 +1,10 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { CreateProjectBody, ProjectResponse } from '../../../shared/api/projects';
+import { CreateProjectBody, PermitFormFields, ProjectResponse } from '../../../shared/api/projects';
 import { api } from '../../../lib/api-client';
 import { projectKeys } from './keys';
 
 /** The new-project form's schema: the API's own body, with every field present in the form. */
-export const createProjectInputSchema = CreateProjectBody.required();
+export const createProjectInputSchema = CreateProjectBody.required().extend({ permit: PermitFormFields });
 export type CreateProjectInput = CreateProjectBody;
 
 export async function createProject(input: CreateProjectInput) {

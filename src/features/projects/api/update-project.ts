@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
-import { ProjectResponse, UpdateProjectBody } from '../../../shared/api/projects';
+import { PermitFormFields, ProjectResponse, UpdateProjectBody } from '../../../shared/api/projects';
 import type { Project } from '../../../shared/api/projects';
 import { api } from '../../../lib/api-client';
 import { projectKeys } from './keys';
@@ -8,10 +8,10 @@ import type { getProject } from './get-project';
 
 /**
  * The edit form's fields: the API's update body without `version` and `archived`, every field
- * present. `version` is not a form field: the form sends the version it was opened with, so a
+ * present (the permit fields too). `version` is not a form field: the form sends the version it was opened with, so a
  * change made meanwhile by someone else answers 409 instead of being overwritten.
  */
-export const updateProjectInputSchema = UpdateProjectBody.omit({ version: true, archived: true }).required();
+export const updateProjectInputSchema = UpdateProjectBody.omit({ version: true, archived: true }).required().extend({ permit: PermitFormFields });
 export type UpdateProjectInput = z.infer<typeof updateProjectInputSchema>;
 
 export type UpdateProjectVariables = { projectId: string; body: UpdateProjectBody };

@@ -18,6 +18,7 @@ function fieldValues(project: Project): ProjectFieldValues {
     codeBasis: project.codeBasis,
     unitSystem: project.unitSystem,
     notes: project.notes,
+    permit: { ...project.permit },
   };
 }
 

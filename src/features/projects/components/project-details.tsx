@@ -1,4 +1,4 @@
-import type { Project } from '../../../shared/api/projects';
+import { ADOPTED_CODE_LABELS, type Project } from '../../../shared/api/projects';
 import { formatDateTime, UNIT_SYSTEM_LABELS } from '../../../lib/labels';
 
 function Value({ text }: { text: string }) {
@@ -15,6 +15,19 @@ export function ProjectDetails({ project }: { project: Project }) {
       <dt className="font-semibold">Code basis</dt>
       <dd>
         <Value text={project.codeBasis} />
+      </dd>
+      <dt className="font-semibold">Permit or plan check</dt>
+      <dd>
+        <Value text={project.permit.permitNumber} />
+      </dd>
+      <dt className="font-semibold">Code adopted</dt>
+      <dd>
+        <Value text={project.permit.adoptedCode ? ADOPTED_CODE_LABELS[project.permit.adoptedCode] : ''} />
+        {project.permit.localAmendments ? <span className="block whitespace-pre-wrap">Local amendments: {project.permit.localAmendments}</span> : null}
+      </dd>
+      <dt className="font-semibold">Preparer&rsquo;s licence</dt>
+      <dd>
+        <Value text={[project.permit.preparerLicence, project.permit.licenceJurisdiction].filter(Boolean).join(', ')} />
       </dd>
       <dt className="font-semibold">Units</dt>
       <dd>{UNIT_SYSTEM_LABELS[project.unitSystem]}</dd>

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { IssueBody, RevisionResponse } from '../../../shared/api/systems';
+import { IssueBody, RevisionResponse, type Attestation } from '../../../shared/api/systems';
 import { api, isApiError } from '../../../lib/api-client';
 import { systemKeys } from './keys';
 import { systemUrls } from './urls';
@@ -13,13 +13,16 @@ export type IssueRevisionVariables = {
   revisionId: string;
   version: number;
   note?: string;
+  /** the preparer's attestation, confirmed in the issue dialog (required by the server) */
+  attestation: Attestation;
   /** a failing revision is issued only with the designer's recorded statement (the server answers 409 without it) */
   acknowledgeFailure?: { statement: string };
 };
 
-export async function issueRevision({ projectId, systemId, revisionId, version, note, acknowledgeFailure }: IssueRevisionVariables) {
+export async function issueRevision({ projectId, systemId, revisionId, version, note, attestation, acknowledgeFailure }: IssueRevisionVariables) {
   const body = {
     version,
+    attestation,
     ...(note && note.trim() !== '' ? { note: note.trim() } : {}),
     ...(acknowledgeFailure ? { acknowledgeFailure: { statement: acknowledgeFailure.statement.trim() } } : {}),
   };

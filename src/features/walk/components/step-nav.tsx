@@ -24,6 +24,7 @@ export function StepNav({ links, steps = WALK_STEPS, label = 'Steps of the walk'
         ))}
       </ol>
       <p className="mt-2 flex flex-wrap gap-4 text-sm">
+        {links.building ? <NavLink to={links.building}>Building: floors and typical units</NavLink> : null}
         {links.table ? <NavLink to={links.table}>Segment table</NavLink> : null}
         <NavLink to={links.diagram}>Riser diagram</NavLink>
         <NavLink to={links.up.href} end>

@@ -34,6 +34,7 @@ import { RevisionOriginNote } from './revision-origin-note';
 import { StartFieldChange } from '../../field-changes/components/start-field-change';
 import { ReturnedSystemMark } from '../../reviews/components/returned-marker';
 import { ReviewCommentsPanel } from './review-comments-panel';
+import { buildingPaths } from '../../building/paths';
 
 /** While leaving the walk: the last change being saved, or the question when a value cannot be saved. */
 function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
@@ -69,6 +70,7 @@ export function revisionLinks({ projectId, systemId, revisionId }: WalkIds): Wal
   return {
     step: (step) => walkPaths.step.getHref(projectId, systemId, revisionId, step as WalkStepId),
     table: walkPaths.table.getHref(projectId, systemId, revisionId),
+    building: buildingPaths.building.getHref(projectId, systemId, revisionId),
     diagram: walkPaths.diagram.getHref(projectId, systemId, revisionId),
     up: { href: walkPaths.system.getHref(projectId, systemId), label: 'System overview and revisions' },
   };

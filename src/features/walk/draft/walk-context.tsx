@@ -18,6 +18,8 @@ export interface WalkLinks {
   step: (step: string) => string;
   /** the segment table, when this frame offers it */
   table: string | null;
+  /** the building page (floors, typical units, the riser builder), when this frame offers it */
+  building: string | null;
   diagram: string;
   /** the page above the steps (the system's overview, or the field change's side by side) */
   up: { href: string; label: string };

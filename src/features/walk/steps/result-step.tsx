@@ -18,11 +18,13 @@ import { liveStatus, plural, stepOfReason } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { RevisionSummaryPanel } from '../../summaries/components/revision-summary-panel';
 import { StepIntro } from '../components/cells';
+import { AttestationFields, attestationOf, EMPTY_ATTESTATION, type AttestationDraft } from '../components/attestation-fields';
 import { criticalLedger, LedgerTable } from '../components/ledger-panel';
 import { PressureProfileChart } from '../components/pressure-profile';
 import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
+import { SizingPanel } from '../../sizing/components/sizing-panel';
 
 const STATEMENT_MIN = 20;
 
@@ -37,6 +39,8 @@ function IssueForm() {
   const [preparing, setPreparing] = useState(false);
   const [confirming, setConfirming] = useState<{ note: string } | null>(null);
   const [statement, setStatement] = useState('');
+  const [attestationDraft, setAttestationDraft] = useState<AttestationDraft>(EMPTY_ATTESTATION);
+  const attestation = attestationOf(attestationDraft);
   const form = useForm({ resolver: zodResolver(issueRevisionInputSchema), defaultValues: { note: '' } });
   const status = liveStatus(live);
   const reasons = live.ok ? live.analysis.verdict.incomplete ?? [] : [];
@@ -47,13 +51,13 @@ function IssueForm() {
     setConfirming({ note: note ?? '' });
   });
   const confirm = async () => {
-    if (!confirming || statementShort) return;
+    if (!confirming || statementShort || !attestation) return;
     setPreparing(true);
     const version = await draft.versionToIssue();
     setPreparing(false);
     if (version === null) return;
     issue.mutate(
-      { ...ids, version, note: confirming.note, ...(status === 'fail' ? { acknowledgeFailure: { statement } } : {}) },
+      { ...ids, version, note: confirming.note, attestation, ...(status === 'fail' ? { acknowledgeFailure: { statement } } : {}) },
       { onSettled: () => setConfirming(null) },
     );
   };
@@ -80,8 +84,9 @@ function IssueForm() {
               error={statementShort && statement.length > 0 ? `At least ${STATEMENT_MIN} characters` : undefined}
             />
           ) : null}
+          <AttestationFields value={attestationDraft} onChange={setAttestationDraft} disabled={issue.isPending || preparing} />
           <div className="flex flex-wrap gap-3">
-            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked}>
+            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked || !attestation}>
               {status === 'fail' ? `Yes, issue failing revision ${revision.number}` : `Yes, issue revision ${revision.number}`}
             </Button>
             <Button variant="secondary" onClick={() => setConfirming(null)} disabled={issue.isPending || preparing}>
@@ -264,6 +269,12 @@ export function ResultStep() {
         </div>
       </Section>
 
+      {status !== 'incomplete' ? (
+        <Section title="Automatic sizing" headingLevel={3}>
+          <SizingPanel />
+        </Section>
+      ) : null}
+
       <Section title="Warnings" headingLevel={3}>
         <WarningList title={`${plural(a.warnings.length, 'warning')} in plain words`} warnings={a.warnings} empty="No warnings." />
       </Section>
@@ -278,10 +289,17 @@ export function ResultStep() {
 
       <Section title="Issue" headingLevel={3}>
         {revision.status !== 'draft' ? (
-          <p data-testid="issued-note">
-            Revision {revision.number} was issued{revision.issuedAt ? ` on ${formatDateTime(revision.issuedAt)}` : ''}
-            {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
-          </p>
+          <>
+            <p data-testid="issued-note">
+              Revision {revision.number} was issued{revision.issuedAt ? ` on ${formatDateTime(revision.issuedAt)}` : ''}
+              {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
+            </p>
+            {revision.attestation ? (
+              <p className="text-sm" data-testid="issued-attestation">
+                Attested by {revision.attestation.name}, licence or registration no. {revision.attestation.licenceNumber}, on {formatDateTime(revision.attestation.at)}: “{revision.attestation.statement}”
+              </p>
+            ) : null}
+          </>
         ) : readOnlyReason || project.myRole !== 'designer' ? (
           <p>Only the project’s designers issue revisions.</p>
         ) : (

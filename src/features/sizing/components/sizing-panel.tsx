@@ -1,0 +1,224 @@
+import { useEffect, useRef, useState } from 'react';
+import { Alert } from '../../../components/ui/alert';
+import { Button } from '../../../components/ui/button';
+import { CheckboxField, TextField } from '../../../components/ui/field';
+import { fromSI, toSI } from '../../../engine';
+import type { SegmentSizing, SizingResult, SystemDocument } from '../../../engine';
+import { useWalk } from '../../walk/draft/walk-context';
+import { fmt, signed } from '../../walk/lib/format';
+import { applySizes, changedRows, setSizeLocked, undoSizes } from '../lib/apply';
+import type { SizingReply } from '../lib/compute';
+import { runSizing, type SizingRun } from '../lib/run-sizing';
+
+/** The answer with the draft it was computed on (an answer for an older draft is not applied). */
+interface Answered {
+  reply: SizingReply;
+  document: SystemDocument;
+}
+
+/** What was applied, to take it back. */
+interface Applied {
+  rows: SegmentSizing[];
+}
+
+function governingText(row: SegmentSizing, velocityUnit: string, sys: SystemDocument['unitSystem']): string {
+  const g = row.governing;
+  if (g === 'locked') return 'Locked by the designer';
+  if (g === 'unchanged') return 'Not sized (outside the selection, or not a catalog pipe)';
+  if (g === 'smallest') return 'Smallest size allowed';
+  if (g === 'velocity') {
+    const limit = row.velocityLimit === null ? '—' : fmt(fromSI('velocity', row.velocityLimit, sys), 1);
+    return row.velocityMet
+      ? `Velocity in this segment (limit ${limit} ${velocityUnit})`
+      : `Velocity in this segment: above the limit of ${limit} ${velocityUnit} even at the largest size`;
+  }
+  return `Pressure at ${g.fixtureLabel}`;
+}
+
+/**
+ * Automatic sizing on the result step: the smallest catalog size of every segment that keeps
+ * each velocity within its limit and each checked fixture at its minimum plus the margin set
+ * here, run off the page's thread. Nothing changes until "Apply to draft", which is one change
+ * of the draft (saved as any edit) and can be undone.
+ */
+export function SizingPanel() {
+  const { document, draft, units, readOnlyReason, project, scope } = useWalk();
+  const sys = document.unitSystem;
+  const editable = readOnlyReason === null && project.myRole === 'designer' && scope === 'design';
+  const [marginText, setMarginText] = useState('0');
+  const [running, setRunning] = useState(false);
+  const [answered, setAnswered] = useState<Answered | null>(null);
+  const [applied, setApplied] = useState<Applied | null>(null);
+  const [showAll, setShowAll] = useState(false);
+  const run = useRef<SizingRun | null>(null);
+  useEffect(() => () => run.current?.cancel(), []);
+
+  const margin = Number(marginText);
+  const marginError = marginText.trim() === '' || !Number.isFinite(margin) || margin < 0 ? `Enter a margin of 0 ${units.pressure} or more` : undefined;
+
+  const size = async () => {
+    if (marginError) return;
+    run.current?.cancel();
+    setRunning(true);
+    setApplied(null);
+    const sizedFrom = document;
+    const current = runSizing({ document: sizedFrom, options: { marginPa: toSI('pressure', margin, sys) } });
+    run.current = current;
+    const reply = await current.answer;
+    if (run.current !== current) return;
+    run.current = null;
+    setAnswered({ reply, document: sizedFrom });
+    setRunning(false);
+  };
+
+  const reply = answered?.reply ?? null;
+  const result: SizingResult | null = reply?.ok ? reply.result : null;
+  const stale = answered !== null && answered.document !== document && applied === null;
+  const rows = result ? result.segments : [];
+  const changed = changedRows(rows);
+  const shownRows = showAll ? rows : rows.filter((r) => r.before !== r.after || r.governing === 'locked' || typeof r.governing === 'object');
+  const p = (pa: number | null | undefined, digits = 2) => (pa === null || pa === undefined ? '—' : fmt(fromSI('pressure', pa, sys), digits));
+  const ps = (pa: number | null | undefined, digits = 2) => (pa === null || pa === undefined ? '—' : signed(fromSI('pressure', pa, sys), digits));
+  const v = (ms: number | null) => (ms === null ? '—' : fmt(fromSI('velocity', ms, sys), 1));
+
+  const apply = () => {
+    if (!result || !result.feasible || stale) return;
+    draft.update((doc) => applySizes(doc, rows));
+    setApplied({ rows: changed });
+  };
+  const undo = () => {
+    if (!applied) return;
+    draft.update((doc) => undoSizes(doc, applied.rows));
+    setApplied(null);
+    setAnswered(null);
+  };
+  const lock = (segmentId: string, locked: boolean) => draft.update((doc) => setSizeLocked(doc, segmentId, locked));
+  const lockedNow = new Set(document.segments.filter((s) => s.sizeLocked).map((s) => s.id));
+
+  return (
+    <div className="flex flex-col gap-4" data-testid="sizing-panel">
+      <p className="max-w-prose text-sm">
+        Headroom chooses the smallest catalog size of each segment’s material that keeps every velocity within its limit and
+        every checked fixture at its minimum flow pressure plus the margin below, on the supply’s minimum pressure. Locked
+        segments keep their size. Nothing changes until you apply the answer to the draft. Check the sizes against the adopted
+        code and the pipe actually available; the AHJ and your judgement govern.
+      </p>
+      <div className="flex flex-wrap items-end gap-3">
+        <TextField
+          label={`Margin to keep at every fixture (${units.pressure})`}
+          inputMode="decimal"
+          value={marginText}
+          onChange={(e) => setMarginText(e.target.value)}
+          error={marginError}
+          className="w-64"
+        />
+        <Button onClick={() => void size()} pending={running} pendingLabel="Sizing…" disabled={marginError !== undefined}>
+          Size the pipes
+        </Button>
+      </div>
+      <div aria-live="polite" className="flex flex-col gap-3">
+        {reply && !reply.ok ? (
+          <Alert tone="fault" title="Sizing could not start">
+            {reply.message} Nothing was changed.
+          </Alert>
+        ) : null}
+        {result ? (
+          <div className="flex flex-col gap-3" data-testid="sizing-answer" data-feasible={result.feasible ? 'yes' : 'no'}>
+            {result.feasible ? (
+              <p data-testid="sizing-summary">
+                {changed.length === 0 ? 'Every segment already has its smallest passing size.' : `${changed.length} segment${changed.length === 1 ? '' : 's'} change size.`}{' '}
+                Lowest fixture margin {ps(result.minMarginBeforePa)} → {ps(result.minMarginAfterPa)} {units.pressure}; pipe volume{' '}
+                {fmt(result.volumeBeforeM3 * 1000, 1)} → {fmt((result.volumeAfterM3 ?? 0) * 1000, 1)} L.
+              </p>
+            ) : (
+              <Alert tone="fault" title="No choice of sizes passes">
+                <span data-testid="sizing-shortfall">
+                  With every pipe at its largest allowed size, the worst fixture is still {p(result.shortfallPa)} {units.pressure} short.
+                  {result.boosterPressurePa !== null
+                    ? ` A booster adding about ${p(result.boosterPressurePa)} ${units.pressure} at the design flow, at the source, would let the velocity-sized pipes pass.`
+                    : ''}{' '}
+                  Nothing was changed.
+                </span>
+              </Alert>
+            )}
+            {result.frictionBudget ? (
+              <p className="text-sm text-ink-soft" data-testid="friction-budget">
+                Hand check (the model codes’ pressure-available-for-friction method, common practice): to {result.frictionBudget.label}, the supply’s{' '}
+                {p(result.frictionBudget.supplyPa, 1)} less devices {p(result.frictionBudget.devicesPa, 1)}, elevation {p(result.frictionBudget.elevationPa, 1)}, the
+                minimum {p(result.frictionBudget.requiredPa, 1)}
+                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa, 1)}` : ''} leaves {p(result.frictionBudget.availablePa, 1)}{' '}
+                {units.pressure} for friction over {fmt(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), 0)}{' '}
+                {units.length} of pipe and fittings:{' '}
+                {result.frictionBudget.perHundredFtPa === null
+                  ? '—'
+                  : `${fmt(fromSI('pressurePerLength', result.frictionBudget.availablePa / (result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM), sys), 2)} ${units.pressurePerLength}`}
+                .
+              </p>
+            ) : null}
+            {stale ? <p className="text-sm font-semibold text-caution" data-testid="sizing-stale">The draft changed since this answer: size again before applying.</p> : null}
+            {editable && result.feasible && !applied ? (
+              <div>
+                <Button onClick={apply} disabled={stale || changed.length === 0}>
+                  Apply to draft
+                </Button>
+              </div>
+            ) : null}
+            {applied ? (
+              <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="sizing-applied">
+                <p>Applied: {applied.rows.length} size{applied.rows.length === 1 ? '' : 's'} changed in the draft.</p>
+                <Button variant="secondary" onClick={undo}>Undo sizing</Button>
+              </div>
+            ) : null}
+            <CheckboxField label="Show every segment" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} />
+            <div className="overflow-x-auto">
+              <table className="w-full text-sm" data-testid="sizing-table">
+                <caption className="sr-only">Size of each segment before and after sizing, and what governs it</caption>
+                <thead>
+                  <tr className="border-b-2 border-rule text-left">
+                    <th scope="col" className="py-1 pr-3">Segment</th>
+                    <th scope="col" className="py-1 pr-3">Size before → after</th>
+                    <th scope="col" className="py-1 pr-3">Governed by</th>
+                    <th scope="col" className="py-1 pr-3 text-right">Velocity ({units.velocity})</th>
+                    <th scope="col" className="py-1 pr-3">Worst fixture below: margin ({units.pressure})</th>
+                    {editable ? <th scope="col" className="py-1">Lock</th> : null}
+                  </tr>
+                </thead>
+                <tbody>
+                  {shownRows.map((r) => {
+                    const name = r.label || r.segmentId;
+                    return (
+                      <tr key={r.segmentId} className="border-b border-rule" data-testid={`sizing-row-${r.segmentId}`}>
+                        <th scope="row" className="py-1 pr-3 text-left font-normal">{name}</th>
+                        <td className="py-1 pr-3" data-testid={`sizing-after-${r.segmentId}`}>
+                          {r.before ?? '—'} → {r.after ?? '—'}
+                          {r.before !== r.after ? <strong className="ml-1">changed</strong> : null}
+                        </td>
+                        <td className="py-1 pr-3">{governingText(r, units.velocity, sys)}</td>
+                        <td className="py-1 pr-3 text-right tabular-nums">
+                          {v(r.velocityBefore)} → {v(r.velocityAfter)}
+                        </td>
+                        <td className="py-1 pr-3">
+                          {r.worstFixture ? `${r.worstFixture.label}: ${ps(r.worstFixture.marginBeforePa)} → ${ps(r.worstFixture.marginAfterPa)}` : '—'}
+                        </td>
+                        {editable ? (
+                          <td className="py-1">
+                            <input
+                              type="checkbox"
+                              aria-label={`Lock the size of ${name}`}
+                              checked={lockedNow.has(r.segmentId)}
+                              onChange={(e) => lock(r.segmentId, e.target.checked)}
+                            />
+                          </td>
+                        ) : null}
+                      </tr>
+                    );
+                  })}
+                </tbody>
+              </table>
+            </div>
+          </div>
+        ) : null}
+      </div>
+    </div>
+  );
+}

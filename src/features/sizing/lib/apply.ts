@@ -1,0 +1,78 @@
+/**
+ * The sizing's changes to a draft, as pure document edits: applying the sizes an answer chose,
+ * taking them back (only where the size is still the one applied, so a later hand edit stays),
+ * and the lock a designer puts on a segment's size.
+ */
+import type { SegmentSizing, SystemDocument } from '../../../engine';
+
+/** The rows whose size changes. */
+export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) => r.after !== null && r.after !== r.before);
+
+export function applySizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
+  const next = new Map(changedRows(rows).map((r) => [r.segmentId, r.after!]));
+  return { ...doc, segments: doc.segments.map((s) => (next.has(s.id) ? { ...s, size: next.get(s.id)! } : s)) };
+}
+
+export function undoSizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
+  const back = new Map(changedRows(rows).map((r) => [r.segmentId, r]));
+  return {
+    ...doc,
+    segments: doc.segments.map((s) => {
+      const r = back.get(s.id);
+      if (!r || s.size !== r.after) return s;
+      const restored = { ...s };
+      if (r.before === null) delete restored.size;
+      else restored.size = r.before;
+      return restored;
+    }),
+  };
+}
+
+export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: boolean): SystemDocument {
+  return {
+    ...doc,
+    segments: doc.segments.map((s) => {
+      if (s.id !== segmentId) return s;
+      const next = { ...s };
+      if (locked) next.sizeLocked = true;
+      else delete next.sizeLocked;
+      return next;
+    }),
+  };
+}
+
+/** A segment's pipe as it was before a substitution was applied. */
+export type PipeBefore = { segmentId: string; material: string | undefined; size: string | undefined };
+
+/** Applies a contractor's substitution: each substituted segment takes the answer's material and size. */
+export function applySubstitution(doc: SystemDocument, material: string, rows: readonly SegmentSizing[], substituted: readonly string[]): { document: SystemDocument; before: PipeBefore[] } {
+  const chosen = new Map(rows.filter((r) => substituted.includes(r.segmentId) && r.after !== null).map((r) => [r.segmentId, r.after!]));
+  const before: PipeBefore[] = [];
+  const segments = doc.segments.map((s) => {
+    const size = chosen.get(s.id);
+    if (size === undefined) return s;
+    before.push({ segmentId: s.id, material: s.material, size: s.size });
+    const next = { ...s, material, size };
+    delete next.custom;
+    return next;
+  });
+  return { document: { ...doc, segments }, before };
+}
+
+/** Takes a substitution back: each segment's material and size as they were. */
+export function undoSubstitution(doc: SystemDocument, before: readonly PipeBefore[]): SystemDocument {
+  const back = new Map(before.map((b) => [b.segmentId, b]));
+  return {
+    ...doc,
+    segments: doc.segments.map((s) => {
+      const b = back.get(s.id);
+      if (!b) return s;
+      const next = { ...s };
+      if (b.material === undefined) delete next.material;
+      else next.material = b.material;
+      if (b.size === undefined) delete next.size;
+      else next.size = b.size;
+      return next;
+    }),
+  };
+}

@@ -1,0 +1,42 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { sizeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
+import { applySizes, applySubstitution, changedRows, setSizeLocked, undoSizes, undoSubstitution } from '../../src/features/sizing/lib/apply';
+
+/** The invented demo (Alder & Finch) with its risers drawn at 1 in, so that sizing changes them. */
+function undersized(): SystemDocument {
+  const doc = SystemDocumentSchema.parse(JSON.parse(readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
+  return { ...doc, segments: doc.segments.map((s) => (s.id.startsWith('riser-') ? { ...s, size: '1' } : s)) };
+}
+
+describe('applying a sizing answer to a draft', () => {
+  const start = undersized();
+  const answer = sizeSystem(start);
+
+  it('when applied, then the draft has exactly the sizes of the engine’s sized document, and undo gives back the sizes entered', () => {
+    const applied = applySizes(start, answer.segments);
+    expect(applied.segments.map((s) => s.size)).toEqual(answer.document!.segments.map((s) => s.size));
+    expect(undoSizes(applied, answer.segments)).toEqual(start);
+  });
+
+  it('when a size was edited by hand after applying, then undo keeps that edit', () => {
+    const row = changedRows(answer.segments)[0];
+    const applied = applySizes(start, answer.segments);
+    const edited = { ...applied, segments: applied.segments.map((s) => (s.id === row.segmentId ? { ...s, size: '4' } : s)) };
+    const undone = undoSizes(edited, answer.segments);
+    expect(undone.segments.find((s) => s.id === row.segmentId)!.size).toBe('4');
+  });
+
+  it('when a lock is set and cleared, then only that segment carries sizeLocked, and clearing removes the key', () => {
+    const locked = setSizeLocked(start, 'service', true);
+    expect(locked.segments.filter((s) => s.sizeLocked).map((s) => s.id)).toEqual(['service']);
+    expect('sizeLocked' in setSizeLocked(locked, 'service', false).segments.find((s) => s.id === 'service')!).toBe(false);
+  });
+
+  it('when a substitution is applied and undone, then material and size follow and come back', () => {
+    const ids = ['7A-bath', '7A-kitchen'];
+    const { document, before } = applySubstitution(start, 'pex-sdr9', answer.segments, ids);
+    for (const id of ids) expect(document.segments.find((s) => s.id === id)!.material).toBe('pex-sdr9');
+    expect(undoSubstitution(document, before)).toEqual(start);
+  });
+});

@@ -1,0 +1,88 @@
+/**
+ * Automatic sizing on the result step, through the walk's real routes: on a draft whose risers
+ * were drawn too small, "Size the pipes" answers with the engine's sizing, nothing changes until
+ * "Apply to draft", which is one change of the draft (saved as any edit), and "Undo sizing" takes
+ * it back. The expected sizes come from the engine run here on the same document.
+ */
+import { screen, waitFor, within } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { analyzeSystem, sizeSystem } from '../../src/engine';
+import type { SystemDocument } from '../../src/engine';
+import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
+import { demoDocument, fakeApi } from './support/fake-api';
+import type { FakeApi } from './support/fake-api';
+import { renderWalk, stepHref } from './support/render-walk';
+
+/** The demo with every riser segment at 1 in: several fixtures fail and the risers are too fast. */
+function undersized(): SystemDocument {
+  const doc = demoDocument();
+  return { ...doc, segments: doc.segments.map((s) => (s.id.startsWith('riser-') ? { ...s, size: '1' } : s)) };
+}
+
+const SAVE_WAIT = { timeout: AUTOSAVE_DELAY_MS + 10_000 };
+const CATCH_UP = { timeout: 20_000 };
+const sizesOf = (doc: SystemDocument) => Object.fromEntries(doc.segments.map((s) => [s.id, s.size ?? null]));
+const lastSaved = (world: FakeApi) => (world.saves().at(-1)!.body as { document: SystemDocument }).document;
+const verdictText = () => screen.getByTestId('overall-verdict').textContent ?? '';
+
+describe('automatic sizing on the result step', () => {
+  it('when the designer sizes, applies and undoes, then the draft takes the sizes in one change and gives them back', async () => {
+    const start = undersized();
+    const before = analyzeSystem(start);
+    expect(before.verdict.status).toBe('fail');
+    const expected = sizeSystem(start);
+    expect(expected.feasible).toBe(true);
+
+    const world = fakeApi({ document: start });
+    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    expect(verdictText()).toMatch(/fail/);
+
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    const answer = await screen.findByTestId('sizing-answer', {}, CATCH_UP);
+    expect(answer.getAttribute('data-feasible')).toBe('yes');
+    const changed = expected.segments.filter((s) => s.before !== s.after);
+    expect(screen.getByTestId('sizing-summary').textContent).toContain(`${changed.length} segments change size.`);
+    // a riser row says what it becomes, as the engine chose
+    const riser = changed.find((s) => s.segmentId.startsWith('riser-'))!;
+    expect(screen.getByTestId(`sizing-after-${riser.segmentId}`).textContent).toContain(`${riser.before} → ${riser.after}`);
+    // the hand check of the model codes' method is shown with the answer
+    expect(screen.getByTestId('friction-budget').textContent).toContain(expected.frictionBudget!.label);
+    // nothing has changed yet: no save, the verdict still fails
+    expect(world.saves()).toHaveLength(0);
+    expect(verdictText()).toMatch(/fail/);
+
+    await user.click(screen.getByRole('button', { name: 'Apply to draft' }));
+    await waitFor(() => expect(verdictText()).toMatch(/Every check passes/), CATCH_UP);
+    expect(within(screen.getByTestId('sizing-applied')).getByText(`Applied: ${changed.length} sizes changed in the draft.`)).toBeTruthy();
+    await waitFor(() => expect(world.saves()).toHaveLength(1), SAVE_WAIT);
+    expect(sizesOf(lastSaved(world))).toEqual(sizesOf(expected.document!));
+    // everything but the sizes is as it was
+    const strip = (doc: SystemDocument) => ({ ...doc, segments: doc.segments.map((s) => ({ ...s, size: undefined })) });
+    expect(JSON.parse(JSON.stringify(strip(lastSaved(world))))).toEqual(JSON.parse(JSON.stringify(strip(start))));
+
+    await user.click(screen.getByRole('button', { name: 'Undo sizing' }));
+    await waitFor(() => expect(verdictText()).toMatch(/fail/), CATCH_UP);
+    await waitFor(() => expect(world.saves()).toHaveLength(2), SAVE_WAIT);
+    expect(sizesOf(lastSaved(world))).toEqual(sizesOf(start));
+    expect(world.unknown).toEqual([]);
+  });
+
+  it('when a segment is locked in the panel, then the lock is saved in the draft and the answer asks to size again', async () => {
+    const world = fakeApi({ document: undersized() });
+    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await screen.findByTestId('sizing-answer', {}, CATCH_UP);
+    await user.click(screen.getByLabelText('Lock the size of Building service, main to entry'));
+    await screen.findByTestId('sizing-stale', {}, CATCH_UP);
+    expect((screen.getByRole('button', { name: 'Apply to draft' }) as HTMLButtonElement).disabled).toBe(true);
+    await waitFor(() => expect(world.saves()).toHaveLength(1), SAVE_WAIT);
+    expect(lastSaved(world).segments.find((s) => s.id === 'service')!.sizeLocked).toBe(true);
+    // sized again, the locked service keeps its size and says why
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await waitFor(() => expect(screen.queryByTestId('sizing-stale')).toBeNull(), CATCH_UP);
+    const row = await screen.findByTestId('sizing-row-service', {}, CATCH_UP);
+    expect(row.textContent).toContain('Locked by the designer');
+  });
+});
