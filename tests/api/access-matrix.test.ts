@@ -57,7 +57,7 @@ function returnedReviewOnce(w: World) {
   returnedReview ??= (async () => {
     const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix returned', service: 'cold', document: smallDocument() }).expect(201)).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
-    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId, status: 'returned', comment: 'Matrix return', decided_at: w.h.db.fn.now() }).returning('id');
     const [comment] = await w.h.db('review_comments').insert({ review_id: review.id, item_type: 'general', comment: 'Matrix comment' }).returning('id');
     return { id: review.id as string, commentId: String(comment.id) };
@@ -71,7 +71,7 @@ function acceptedReviewOnce(w: World) {
   acceptedReview ??= (async () => {
     const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix accepted', service: 'cold', document: smallDocument() }).expect(201)).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
-    await w.designer.send('POST', `${base}/issue`, { version: 1 }).expect(200);
+    await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId }).returning('id');
     await clients.inspector.send('PATCH', `/api/projects/${w.projectId}/reviews/${review.id}`, { decision: 'accepted', version: 1 }).expect(200);
     return { id: review.id as string };
@@ -361,7 +361,7 @@ const ROWS: Row[] = [
       // its own issued system: the summary/retry row fails the shared one's summary on purpose
       packageSystem ??= (async () => {
         const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix package', service: 'cold', document: smallDocument() }).expect(201)).body;
-        await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, { version: 1 }).expect(200);
+        await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
         return created.system.id as string;
       })();
       return { url: `/api/projects/${w.projectId}/submissions`, body: { systemIds: [await packageSystem], inspectorIds: [w.inspectorId] } };
