@@ -11,8 +11,6 @@ import { CHAR_EM, fitRiserDiagram, oneSheetArea, riserDiagram, type DrawItem, ty
  * bottom, 100 pt top), as the PDF draws it; a larger diagram gets a larger sheet, never tiles.
  */
 export const BASE_SHEET = { width: 512, height: 632 } as const;
-/** Room under the sheet for the fixtures' margin labels that hang below their markers (points). */
-const FIXTURE_LABEL_ROOM = 0;
 
 export interface ScreenDrawing {
   diagram: RiserDiagram;
@@ -24,7 +22,7 @@ export function screenDrawing(document: SystemDocument, analysis: Analysis): Scr
   const diagram = riserDiagram(document, analysis);
   const area = oneSheetArea(diagram, BASE_SHEET);
   const sheets = fitRiserDiagram(diagram, area);
-  return { diagram, area: { ...area, height: area.height + FIXTURE_LABEL_ROOM }, items: sheets[0]?.items ?? [] };
+  return { diagram, area, items: sheets[0]?.items ?? [] };
 }
 
 /** SVG y (down) of a PDF y (up) on the area. */

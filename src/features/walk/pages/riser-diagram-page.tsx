@@ -5,7 +5,7 @@ import { liveStatus, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { fmt, signed } from '../lib/format';
 import { fitText, screenDrawing, svgY } from '../lib/riser-screen';
-import { DEVICE_TAG_WORDS, type DeviceTag, type DrawItem } from '../../../shared/diagram/riserLayout';
+import { DEVICE_TAG_WORDS, textWidth, type DeviceTag, type DrawItem } from '../../../shared/diagram/riserLayout';
 
 /** Zoom steps: ×1.25 per press, between a quarter and four times the printed size (a readable range). */
 const ZOOM_STEP = 1.25;
@@ -20,6 +20,9 @@ const INK = '#17222a';
 const ACCENT = '#123f4a';
 const RULE = '#9aa5ad';
 const MATCH = '#9b1c1c';
+
+/** A pale outline under every text, so a name that crosses a pipe or another label stays legible. */
+const HALO = { stroke: '#fbfaf7', strokeWidth: 1.2, strokeLinejoin: 'round', paintOrder: 'stroke' } as const;
 
 const verdictText = (v: Verdict) => (v === 'pass' ? 'pass' : v === 'fail' ? 'FAIL' : 'incomplete');
 
@@ -66,6 +69,18 @@ export function RiserDiagramPage() {
   const byId = new Map(fixtures.map((f) => [f.id, f]));
   const tags = [...new Set(diagram.devices.map((d) => d.tag))] as DeviceTag[];
   const fit = zoom === 'fit';
+  // the view starts above the sheet where a fixture's label rises past its top (the roof's fixtures)
+  const top = Math.min(
+    0,
+    ...items.flatMap((item) => {
+      if (item.type !== 'box' || !item.fixtureId) return [];
+      const f = byId.get(item.fixtureId);
+      if (!f) return [];
+      const label = fixtureLabel(item, f.margin, fixtureVerdict(f.pass, status), analysis.criticalFixtureId === f.id, area.height);
+      return [label.y - textWidth(label.shown, FIXTURE_LABEL_SIZE) - 2];
+    }),
+  );
+  const viewHeight = area.height - top;
   const floors = [...new Set(diagram.fixtures.map((f) => f.floor))];
 
   return (
@@ -99,8 +114,8 @@ export function RiserDiagramPage() {
       >
         <svg
           width={fit ? '100%' : area.width * PX_PER_PT * zoom}
-          height={fit ? undefined : area.height * PX_PER_PT * zoom}
-          viewBox={`${area.left} 0 ${area.width} ${area.height}`}
+          height={fit ? undefined : viewHeight * PX_PER_PT * zoom}
+          viewBox={`${area.left} ${top} ${area.width} ${viewHeight}`}
           preserveAspectRatio="xMinYMin meet"
           className="block"
           style={{ fontFamily: 'inherit' }}
@@ -123,17 +138,14 @@ export function RiserDiagramPage() {
             const verdict = fixtureVerdict(f.pass, status);
             const critical = analysis.criticalFixtureId === f.id;
             const full = `${f.label}: ${signed(f.margin, 1)} ${units.pressure} ${verdictText(verdict)}${critical ? ' (critical)' : ''}`;
-            // upward from the marker, reading bottom to top, as the pipe labels do
-            const x = item.x + item.width / 2 + FIXTURE_LABEL_SIZE * 0.35;
-            const y = svgY(area, item.y + item.height + 1.5);
-            const shown = `${signed(f.margin, 1)} ${verdictText(verdict)}${critical ? ' critical' : ''}`;
+            const { x, y, shown } = fixtureLabel(item, f.margin, verdict, critical, area.height);
             return [
               <g key={`f-${f.id}`} data-testid={`diagram-fixture-${f.id}`} data-verdict={verdict} color={VERDICT_COLOUR[verdict]}>
                 <title>{full}</title>
-                <g transform={`translate(${item.x + item.width / 2 - 3},${svgY(area, item.y) + 0.5}) scale(0.375)`} data-shape={verdict}>
+                <g transform={`translate(${item.x + item.width / 2 - 3},${svgY(area, item.y + item.height / 2) - 3}) scale(${GLYPH_SCALE})`} data-shape={verdict}>
                   <VerdictGlyph verdict={verdict} />
                 </g>
-                <text transform={`translate(${x},${y}) rotate(-90)`} fontSize={FIXTURE_LABEL_SIZE} fill="currentColor" fontWeight={critical ? 700 : 400}>
+                <text transform={`translate(${x},${y}) rotate(-90)`} fontSize={FIXTURE_LABEL_SIZE} fill="currentColor" fontWeight={critical ? 700 : 400} {...HALO}>
                   {shown}
                 </text>
               </g>,
@@ -145,8 +157,11 @@ export function RiserDiagramPage() {
         Schematic, heights to scale (each node at its elevation, {diagram.lengthUnit}); branches spread sideways. Pipes are labelled with nominal size and material; risers are drawn heavier. Devices:{' '}
         {tags.length ? tags.map((t) => `${t} ${DEVICE_TAG_WORDS[t]}`).join(', ') : 'none'}. Beside each checked fixture, its margin ({units.pressure}) and verdict: <VerdictShape verdict="pass" /> pass · <VerdictShape verdict="fail" /> FAIL · <VerdictShape verdict="incomplete" /> incomplete (the description is not complete yet).
       </p>
-      <section className="riser-key flex flex-col gap-2" aria-label="Devices and checked fixtures by level" data-testid="riser-key">
-        <h3 className="text-lg">Devices and checked fixtures by level</h3>
+      <section className="riser-key flex flex-col gap-2" aria-label="Levels, devices and checked fixtures" data-testid="riser-key">
+        <h3 className="text-lg">Levels, devices and checked fixtures</h3>
+        <p className="text-sm" data-testid="riser-levels">
+          <span className="font-semibold">Levels:</span> {diagram.levels.map((l) => `${l.name} (el. ${fmt(l.elevation, 1)} ${diagram.lengthUnit})`).join('; ')}.
+        </p>
         <ul className="text-sm" data-testid="riser-devices">
           {diagram.devices.map((d) => (
             <li key={`${d.deviceId}-${d.at.x}-${d.at.y}`}>
@@ -165,8 +180,8 @@ export function RiserDiagramPage() {
                   if (!f) return null;
                   const verdict = fixtureVerdict(f.pass, status);
                   return (
-                    <li key={f.id} className="flex items-center gap-1">
-                      <VerdictShape verdict={verdict} size={12} />
+                    <li key={f.id} className="break-inside-avoid" data-testid={`key-fixture-${f.id}`}>
+                      <VerdictShape verdict={verdict} size={12} />{' '}
                       {f.label}: {signed(f.margin, 1)} {units.pressure} {verdictText(verdict)}
                       {analysis.criticalFixtureId === f.id ? ' (critical)' : ''}
                       <span className="text-ink-soft"> · residual {fmt(f.residual, 1)} {units.pressure}</span>
@@ -179,6 +194,21 @@ export function RiserDiagramPage() {
       </section>
     </div>
   );
+}
+
+/** The verdict's shape at a fixture: the 16-unit glyph scaled to 6 pt. */
+const GLYPH_SCALE = 6 / 16;
+
+/**
+ * A checked fixture's margin and verdict, upward from its marker (reading bottom to top, as the
+ * pipe labels do) on the right of its drop: the drop's own size label sits on the left (its
+ * ascent is 0.8 em, the layout's bound), and the next column is at least 11 pt away.
+ */
+function fixtureLabel(marker: { x: number; y: number; width: number; height: number }, margin: number, verdict: Verdict, critical: boolean, areaHeight: number) {
+  const x = marker.x + marker.width / 2 + 1 + FIXTURE_LABEL_SIZE * 0.8;
+  // above the verdict's shape (6 pt across, centred on the marker)
+  const y = areaHeight - (marker.y + marker.height / 2) - 4;
+  return { x, y, shown: `${signed(margin, 1)} ${verdictText(verdict)}${critical ? ' critical' : ''}` };
 }
 
 function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number }) {
@@ -198,7 +228,7 @@ function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number })
   }
   const text = fitText(item.text, item.size, item.maxWidth);
   if (!text) return null;
-  return (
+  const drawn = (
     <text
       transform={item.vertical ? `translate(${item.x},${Y(item.y)}) rotate(-90)` : undefined}
       x={item.vertical ? undefined : item.x}
@@ -206,8 +236,16 @@ function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number })
       fontSize={item.size}
       fontWeight={item.bold ? 600 : 400}
       fill={INK}
+      {...HALO}
     >
       {text}
     </text>
+  );
+  // a shortened text keeps its whole wording as the tooltip (and in the key below the diagram)
+  return text === item.text ? drawn : (
+    <g>
+      <title>{item.text}</title>
+      {drawn}
+    </g>
   );
 }
