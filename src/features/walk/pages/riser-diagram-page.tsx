@@ -24,6 +24,9 @@ const MATCH = '#9b1c1c';
 /** A pale outline under every text, so a name that crosses a pipe or another label stays legible. */
 const HALO = { stroke: '#fbfaf7', strokeWidth: 1.2, strokeLinejoin: 'round', paintOrder: 'stroke' } as const;
 
+/** A zoom step from the current zoom; from "fit" it steps from the printed size. */
+const zoomedBy = (z: number | 'fit', factor: number) => Math.min(ZOOM_MAX, Math.max(ZOOM_MIN, (z === 'fit' ? 1 : z) * factor));
+
 const verdictText = (v: Verdict) => (v === 'pass' ? 'pass' : v === 'fail' ? 'FAIL' : 'incomplete');
 
 /**
@@ -35,8 +38,7 @@ export function RiserDiagramPage() {
   const { document, live, units } = useWalk();
   const [zoom, setZoom] = useState<number | 'fit'>('fit');
   const box = useRef<HTMLDivElement>(null);
-  const clamp = (z: number) => Math.min(ZOOM_MAX, Math.max(ZOOM_MIN, z));
-  const stepBy = (factor: number) => setZoom((z) => clamp((z === 'fit' ? 1 : z) * factor));
+  const stepBy = (factor: number) => setZoom((z) => zoomedBy(z, factor));
 
   useEffect(() => {
     const el = box.current;
@@ -44,7 +46,8 @@ export function RiserDiagramPage() {
     const onWheel = (ev: WheelEvent) => {
       if (!ev.ctrlKey && !ev.metaKey && !ev.altKey) return; // plain wheel scrolls the page as usual
       ev.preventDefault();
-      stepBy(ev.deltaY < 0 ? ZOOM_STEP : 1 / ZOOM_STEP);
+      const factor = ev.deltaY < 0 ? ZOOM_STEP : 1 / ZOOM_STEP;
+      setZoom((z) => zoomedBy(z, factor));
     };
     el.addEventListener('wheel', onWheel, { passive: false });
     return () => el.removeEventListener('wheel', onWheel);
