@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
@@ -52,8 +53,12 @@ test('when the designer opens the demo cold system’s riser diagram, then it fi
   console.log(`printed: diagram ${printed.width.toFixed(0)} × ${printed.height.toFixed(0)} px`);
   await expect(page.getByRole('navigation', { name: 'Steps of the walk' })).toBeHidden();
   expect(printed.width).toBeLessThanOrEqual(768);
-  // 230 mm at 96 px an inch: the stylesheet's cap, under the sheet's 279 mm less margins and heading
-  expect(printed.height).toBeLessThanOrEqual((230 / 25.4) * 96 + 1);
+  // 200 mm at 96 px an inch: the stylesheet's cap, under US Letter's 279 mm less margins and heading
+  expect(printed.height).toBeLessThanOrEqual((200 / 25.4) * 96 + 1);
   await page.pdf({ path: 'e2e-output/screens/riser-diagram-print.pdf', format: 'Letter' });
+  // the whole drawing on the first printed sheet: its lowest and highest levels are both on page 1
+  const first = execFileSync('pdftotext', ['-f', '1', '-l', '1', '-layout', 'e2e-output/screens/riser-diagram-print.pdf', '-'], { encoding: 'utf8' });
+  expect(first).toContain('Roof mechanical room');
+  expect(first).toContain('Utility main');
   await page.screenshot({ path: 'e2e-output/screens/riser-diagram-print.png', fullPage: true });
 });

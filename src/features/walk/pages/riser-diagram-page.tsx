@@ -92,7 +92,7 @@ export function RiserDiagramPage() {
   @page { margin: 12mm; }
   header, footer, nav, .print-hide { display: none !important; }
   main { max-width: none !important; padding: 0 !important; }
-  .riser-page svg[data-testid="riser-diagram"] { width: 100% !important; height: auto !important; max-height: 230mm; }
+  .riser-page svg[data-testid="riser-diagram"] { width: 100% !important; height: auto !important; max-height: 200mm; break-inside: avoid; }
   .riser-key { break-before: page; }
 }`}</style>
       <div className="flex flex-wrap items-center gap-3">
