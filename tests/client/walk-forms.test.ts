@@ -13,7 +13,6 @@ import { devicesFormSchema } from '../../src/features/walk/steps/devices-step';
 import { applySegmentTable, segmentTableSchema } from '../../src/features/walk/pages/segment-table-page';
 import { readOnlyReasonFor } from '../../src/features/walk/components/walk-layout';
 import { treeOrder } from '../../src/features/walk/lib/tree';
-import * as layoutModule from '../../src/features/walk/lib/diagram-layout';
 
 // The small house is the engine's invented SI example (src/engine/examples/small-house.json).
 const house = (): SystemDocument =>
@@ -118,24 +117,5 @@ describe('tree order', () => {
       { id: 'lost', from: 'x', to: 'y' },
     ];
     expect(treeOrder(segs, 'src').map(({ index, depth }) => `${segs[index].id}:${depth}`)).toEqual(['a:1', 'b:2', 'c:3', 'd:2', 'lost:1']);
-  });
-});
-
-describe('riser diagram layout', () => {
-  it('when a riser climbs and branches run level off it, then the riser stays in one column and each branch opens its own', () => {
-    const { layoutTree } = layoutModule;
-    const layout = layoutTree({
-      sourceNodeId: 'main',
-      nodes: [{ id: 'main', elevation: 0 }, { id: 'l1', elevation: 10 }, { id: 'l2', elevation: 20 }, { id: 'a1', elevation: 10 }, { id: 'a2', elevation: 20 }],
-      segments: [
-        { id: 'b1', from: 'l1', to: 'a1', rise: 0 },
-        { id: 'r1', from: 'main', to: 'l1', rise: 10 },
-        { id: 'r2', from: 'l1', to: 'l2', rise: 10 },
-        { id: 'b2', from: 'l2', to: 'a2', rise: 0 },
-      ],
-    });
-    expect(['main', 'l1', 'l2'].map((id) => layout.column.get(id))).toEqual([0, 0, 0]);
-    expect(new Set([layout.column.get('a1'), layout.column.get('a2'), 0]).size).toBe(3);
-    expect(layout.columns).toBe(3);
   });
 });

@@ -58,6 +58,7 @@ export interface DiagramLevel {
   elevation: number;
 }
 export interface DiagramFixture {
+  fixtureId: string;
   label: string;
   at: Point;
   floor: string;
@@ -175,7 +176,7 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
   }
   const fixtures: DiagramFixture[] = a.fixtures
     .filter((f) => x.has(f.nodeId))
-    .map((f) => ({ label: f.label, at: { x: x.get(f.nodeId)!, y: elevation.get(f.nodeId) ?? 0 }, floor: floorName(elevation.get(f.nodeId) ?? 0) }));
+    .map((f) => ({ fixtureId: f.id, label: f.label, at: { x: x.get(f.nodeId)!, y: elevation.get(f.nodeId) ?? 0 }, floor: floorName(elevation.get(f.nodeId) ?? 0) }));
   const ys = [...elevation.values(), ...levels.map((l) => l.elevation)];
   return {
     lengthUnit: a.units.elevation,
@@ -194,7 +195,7 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
 export type DrawItem =
   | { type: 'line'; x1: number; y1: number; x2: number; y2: number; weight: 'pipe' | 'riser' | 'level' | 'match' }
   | { type: 'text'; x: number; y: number; text: string; size: number; maxWidth: number; vertical?: boolean; bold?: boolean }
-  | { type: 'box'; x: number; y: number; width: number; height: number };
+  | { type: 'box'; x: number; y: number; width: number; height: number; fixtureId?: string };
 
 export interface Sheet {
   /** 1-based, in reading order; "A2" style names come from row and column */
@@ -322,7 +323,7 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
       }
       for (const f of d.fixtures) {
         if (!inTile(f.at)) continue;
-        items.push({ type: 'box', x: X(f.at.x) - 1.5, y: Y(f.at.y) - 1.5, width: 3, height: 3 });
+        items.push({ type: 'box', x: X(f.at.x) - 1.5, y: Y(f.at.y) - 1.5, width: 3, height: 3, fixtureId: f.fixtureId });
       }
       // match lines where this sheet meets its neighbours
       const right = area.left + area.width - 10;
@@ -350,6 +351,18 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
     }
   }
   return sheets;
+}
+
+/**
+ * The smallest area, at least `base`, on which `fitRiserDiagram` draws the whole diagram on one
+ * sheet (every column and storey at or above the legibility floors): the screen scrolls or scales
+ * one drawing instead of tiling it. The 102 and 24 are the sheet's gutter and edges above.
+ */
+export function oneSheetArea(d: RiserDiagram, base: { width: number; height: number }): PaperArea {
+  const span = Math.max(d.maxElevation - d.minElevation, 1);
+  const width = Math.max(base.width, 92 + 10 + d.columns * MIN_COLUMN_PT + 1);
+  const height = Math.max(base.height, 10 + 14 + (span * MIN_STOREY_PT) / storeyOf(d) + 1);
+  return { left: 0, bottom: 0, width, height };
 }
 
 /** The typical storey: the median gap between consecutive levels (the whole span when there is one level). */

@@ -1,0 +1,101 @@
+/**
+ * The riser diagram page through its real route, on the invented demo "Alder & Finch" (cold water,
+ * US units): it fits its container's width (the SVG scales to 100 % and every drawn element lies
+ * inside its view box), and it names the demo's devices and levels, on the drawing and in the key.
+ * Expected names come from the document and the shared layout run here, never written in the test.
+ */
+import { screen } from '@testing-library/react';
+import { describe, expect, it } from 'vitest';
+import { analyzeSystem, UNIT_LABELS } from '../../src/engine';
+import { CHAR_EM, DEVICE_TAG_WORDS, riserDiagram } from '../../src/shared/diagram/riserLayout';
+import { signed } from '../../src/features/walk/lib/format';
+import { walkPaths } from '../../src/features/walk/paths';
+import { demoDocument, fakeApi } from './support/fake-api';
+import { renderWalk } from './support/render-walk';
+
+const doc = demoDocument();
+const analysis = analyzeSystem(doc);
+const diagram = riserDiagram(doc, analysis);
+const u = UNIT_LABELS[doc.unitSystem];
+
+/** "translate(12.5,40) rotate(-90)" → [12.5, 40] */
+const translateOf = (transform: string | null) => {
+  const m = /translate\(([-\d.e]+),([-\d.e]+)\)/.exec(transform ?? '');
+  return m ? [Number(m[1]), Number(m[2])] : null;
+};
+
+describe('the riser diagram page', () => {
+  it('when the demo’s diagram is opened, then its SVG fits the container’s width with every element inside, and it names each device and level', async () => {
+    const world = fakeApi();
+    await renderWalk(world, walkPaths.diagram.getHref(world.ids.projectId, world.ids.systemId, world.ids.revisionId));
+    const svg = (await screen.findByTestId('riser-diagram', undefined, { timeout: 20_000 })) as unknown as SVGSVGElement;
+
+    // fit to width is the default: the SVG takes the container's width and scales its view box
+    expect(svg.getAttribute('data-fit')).toBe('width');
+    expect(svg.getAttribute('width')).toBe('100%');
+    expect(svg.getAttribute('height')).toBeNull();
+    expect(svg.getAttribute('preserveAspectRatio')).toBe('xMinYMin meet');
+    const [vx, vy, vw, vh] = svg.getAttribute('viewBox')!.split(' ').map(Number);
+    const inside = (x: number, y: number, what: string) => {
+      // 0.01 pt: rounding of the arithmetic only
+      expect(x, `${what}: x`).toBeGreaterThanOrEqual(vx - 0.01);
+      expect(x, `${what}: x`).toBeLessThanOrEqual(vx + vw + 0.01);
+      expect(y, `${what}: y`).toBeGreaterThanOrEqual(vy - 0.01);
+      expect(y, `${what}: y`).toBeLessThanOrEqual(vy + vh + 0.01);
+    };
+    const lines = [...svg.querySelectorAll('line')];
+    expect(lines.length).toBeGreaterThanOrEqual(diagram.pipes.length);
+    for (const l of lines) {
+      inside(Number(l.getAttribute('x1')), Number(l.getAttribute('y1')), 'line start');
+      inside(Number(l.getAttribute('x2')), Number(l.getAttribute('y2')), 'line end');
+    }
+    for (const r of svg.querySelectorAll('rect')) {
+      const [x, y, w, h] = ['x', 'y', 'width', 'height'].map((k) => Number(r.getAttribute(k)));
+      inside(x, y, 'device box');
+      inside(x + w, y + h, 'device box');
+    }
+    // a text by the layout's width bound (0.62 em a character) and its ascent (0.8 em)
+    for (const t of svg.querySelectorAll('text')) {
+      const size = Number(t.getAttribute('font-size'));
+      const width = (t.textContent ?? '').length * size * CHAR_EM;
+      const at = translateOf(t.getAttribute('transform'));
+      const what = `"${t.textContent}"`;
+      if (at) {
+        // rotated a quarter turn: it runs upward from its point
+        inside(at[0] - size * 0.8, at[1] - width, what);
+        inside(at[0], at[1], what);
+      } else {
+        const x = Number(t.getAttribute('x'));
+        const y = Number(t.getAttribute('y'));
+        inside(x, y - size * 0.8, what);
+        inside(x + width, y, what);
+      }
+    }
+
+    // every device by its tag and name (a name shortened on the drawing keeps its wording as its title)
+    const drawn = svg.textContent ?? '';
+    for (const d of diagram.devices) {
+      expect(drawn).toContain(d.label);
+      expect([...svg.querySelectorAll('text')].some((t) => t.textContent === d.tag)).toBe(true);
+      expect(screen.getByTestId('riser-devices').textContent).toContain(`${d.tag} ${d.label} — ${d.floor}`);
+    }
+    expect(diagram.devices.map((d) => d.tag)).toEqual(expect.arrayContaining(['M', 'BFP', 'BP', 'PRV']));
+    for (const tag of new Set(diagram.devices.map((d) => d.tag))) expect(screen.getByText(/Devices:/).textContent).toContain(`${tag} ${DEVICE_TAG_WORDS[tag]}`);
+    // every level by its name, on the drawing and in full in the key
+    expect(diagram.levels.length).toBeGreaterThan(3);
+    for (const l of diagram.levels) {
+      expect(drawn).toContain(l.name);
+      expect(screen.getByTestId('riser-levels').textContent).toContain(l.name);
+    }
+    // every pipe's size and material where the layout has room: the demo's copper risers
+    expect([...svg.querySelectorAll('text')].filter((t) => / Cu L$/.test(t.textContent ?? '')).length).toBeGreaterThan(5);
+
+    // each checked fixture: its margin and verdict written beside it and listed in the key
+    for (const f of analysis.fixtures) {
+      const mark = screen.getByTestId(`diagram-fixture-${f.id}`);
+      expect(mark.querySelector('text')?.textContent).toContain(`${signed(f.margin, 1)} ${f.pass ? 'pass' : 'FAIL'}`);
+      expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(`${f.label}: ${signed(f.margin, 1)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
+    }
+    expect(world.unknown).toEqual([]);
+  });
+});
