@@ -49,7 +49,7 @@ if (databaseUrl) {
 } else {
   pgBin = pg.ensurePostgresInstalled();
   pgData = path.resolve(process.env.HEADROOM_PGDATA ?? path.join(root, '.data', 'pg'));
-  const created = pg.initCluster(pgBin, pgData, Number(process.env.HEADROOM_PG_PORT ?? 54329));
+  const created = pg.initCluster(pgBin, pgData, Number(process.env.HEADROOM_PG_PORT ?? 54329), { passwordAuthFor: 'headroom' });
   const pgPort = pg.clusterPort(pgData);
   if (created) pg.log(`created a PostgreSQL cluster in ${path.relative(root, pgData) || pgData} (port ${pgPort})`);
   if (pg.isClusterRunning(pgBin, pgData)) {
@@ -62,8 +62,24 @@ if (databaseUrl) {
     pg.startCluster(pgBin, pgData);
     weStartedPostgres = true;
   }
-  pg.createDatabase(pgBin, pgPort, 'headroom');
-  databaseUrl = pg.databaseUrl(pgPort, 'headroom');
+  // the application's role (not a superuser) owns the database; its password is generated once and
+  // kept in .data/db-password (mode 0600) like the session secret; a cluster made by an older start
+  // (trust for every local connection) is upgraded in place
+  const passwordFile = path.join(root, '.data', 'db-password');
+  const wasPasswordAuth = pg.usesPasswordAuth(pgData);
+  let secured;
+  try {
+    secured = pg.secureCluster(pgBin, pgData, pgPort, 'headroom', passwordFile);
+  } catch (error) {
+    pg.log(`could not set up the database role: ${error.message}`);
+    cleanup();
+    process.exit(1);
+  }
+  if (!wasPasswordAuth && !created)
+    pg.log(
+      `upgraded the PostgreSQL cluster in ${path.relative(root, pgData) || pgData} to password authentication: role ${secured.role} (not a superuser) now owns database 'headroom' and its objects; connections without a password are refused.`,
+    );
+  databaseUrl = secured.url;
 }
 
 for (const signal of ['SIGINT', 'SIGTERM']) {

@@ -70,6 +70,8 @@ try {
     fs.chmodSync(tmp, 0o755);
     pgData = path.join(tmp, 'pg');
     const port = await pg.freePort();
+    // trust authentication here on purpose: a throw-away cluster on loopback in a fresh temporary
+    // folder, removed when the run ends (`npm start`'s own cluster asks for a password: secureCluster)
     pg.initCluster(pgBin, pgData, port, { fast: true });
     pg.startCluster(pgBin, pgData);
     pg.createDatabase(pgBin, port, 'headroom_api');
