@@ -130,7 +130,9 @@ try {
     server.stdout.pipe(serverLog);
     server.stderr.pipe(serverLog);
     const baseUrl = `http://127.0.0.1:${appPort}`;
-    const deadline = Date.now() + 30_000;
+    // generous: on a busy 2-core machine the server's start (tsx, the first database queries) has
+    // taken over 30 s; the wait ends as soon as the health route answers
+    const deadline = Date.now() + 120_000;
     while (true) {
       try {
         const res = await fetch(`${baseUrl}/api/health`);
@@ -141,7 +143,7 @@ try {
     }
     const reportFile = path.join(reports, 'playwright-report.json');
     fs.rmSync(reportFile, { force: true });
-    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json', ...playwrightArgs], {
+    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json,./e2e/durations.reporter.ts', ...playwrightArgs], {
       ...env,
       E2E_BASE_URL: baseUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: reportFile,
