@@ -139,9 +139,12 @@ if (!process.env.SMTP_HOST && process.env.HEADROOM_DEV_MAIL !== '1') {
   pg.log('no SMTP relay is set (SMTP_HOST): e-mail waits in the outbox and shows as not delivered. See README, "Settings".');
 }
 server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
+let announced = false;
 server.stdout.on('data', (chunk) => {
   process.stdout.write(chunk);
-  if (String(chunk).includes('listening on')) {
+  // with several app processes (HEADROOM_PROCESSES) each says it listens: the first is enough
+  if (!announced && String(chunk).includes('listening on')) {
+    announced = true;
     pg.log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s`);
     pg.log(`open http://127.0.0.1:${appPort}/`);
     pg.log('demo sign-ins (password for all: headroom-demo):');

@@ -124,6 +124,8 @@ try {
         HEADROOM_DEV_MAIL: '1',
         HEADROOM_DEV_MAIL_PAGE: '1',
         OUTBOX_POLL_MS: '200',
+        // one app process: the suite's figures and logs stay those of one process (tests/api/processes.test.ts runs two)
+        HEADROOM_PROCESSES: '1',
       },
     });
     const serverLog = fs.createWriteStream(path.join(reports, 'e2e-server.log'));

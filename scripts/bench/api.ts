@@ -49,6 +49,8 @@ export async function startNodeServer(entry: string, env: Record<string, string>
       SESSION_SECRET: 'bench-only-secret-bench-only-secret-0123456789',
       // the bench signs in a dozen accounts in a few seconds
       SIGN_IN_LIMIT: '100000',
+      // one app process unless the caller asks for more (the load and fault aims are per process; bench/processes.ts compares 1 and 2)
+      HEADROOM_PROCESSES: '1',
       ...env,
     },
   });

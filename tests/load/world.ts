@@ -84,6 +84,8 @@ export async function startServer(env: Record<string, string>, port?: number): P
       SIGN_IN_LIMIT: '100000',
       SIGN_IN_CLIENT_LIMIT: '100000',
       LINK_LIMIT: '100000',
+      // one app process unless the caller asks for more (the load and fault aims are per process; bench/processes.ts compares 1 and 2)
+      HEADROOM_PROCESSES: '1',
       ...env,
     },
   });
