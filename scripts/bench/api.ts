@@ -81,7 +81,7 @@ export async function startNodeServer(entry: string, env: Record<string, string>
   };
 }
 
-interface RoundResult {
+export interface RoundResult {
   /** successful (2xx) answers per second, summed over the connections */
   rps: number;
   failed: number;
@@ -137,7 +137,7 @@ async function settleVersions(users: LoadUser[]): Promise<void> {
 }
 
 /** One round: every user's connection saves their draft over and over for `seconds`. */
-async function round(baseUrl: string, users: LoadUser[], seconds: number, tracksVersions: boolean): Promise<RoundResult> {
+export async function round(baseUrl: string, users: LoadUser[], seconds: number, tracksVersions: boolean): Promise<RoundResult> {
   if (tracksVersions) await settleVersions(users);
   const failures: string[] = [];
   let failed = 0;
