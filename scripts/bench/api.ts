@@ -58,8 +58,8 @@ export async function startNodeServer(entry: string, env: Record<string, string>
   proc.stdout!.on('data', (c) => log.push(String(c)));
   proc.stderr!.on('data', (c) => log.push(String(c)));
   const exited = () => new Promise<void>((resolve) => (proc.exitCode !== null || proc.signalCode !== null ? resolve() : proc.once('exit', () => resolve())));
-  // 30 s: a cold tsx start on a busy 2-core machine takes a few seconds (a choice with room)
-  const deadline = Date.now() + 30_000;
+  // 120 s: a cold tsx start takes a few seconds on a quiet machine, over 30 s for two app processes at load 14 (a choice with room)
+  const deadline = Date.now() + 120_000;
   for (;;) {
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;

@@ -93,7 +93,8 @@ export async function startServer(env: Record<string, string>, port?: number): P
   proc.stdout!.on('data', (c) => log.push(String(c)));
   proc.stderr!.on('data', (c) => log.push(String(c)));
   const url = `http://127.0.0.1:${appPort}`;
-  const deadline = Date.now() + 30_000;
+  // 120 s: a cold tsx start of several app processes on a busy 2-core machine (load 14) took over 30 s
+  const deadline = Date.now() + 120_000;
   for (;;) {
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
