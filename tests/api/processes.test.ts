@@ -7,6 +7,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
+import http from 'node:http';
 import { makeUser, PASSWORD, startHarness, testDatabaseUrl, type Harness } from './support/harness';
 import { UrlClient } from './support/hardening';
 import { demoDocument, FAST_OUTBOX, SmtpSink, waitForMessages } from './support/smtpSink';
@@ -15,6 +16,34 @@ import { startServer, type Server } from '../load/world';
 let h: Harness;
 let sink: SmtpSink;
 let server: Server;
+
+/**
+ * One failed sign-in over a connection of its own (the CSRF token and the attempt on that one
+ * connection): the supervisor hands each new connection to the next app process in turn, so
+ * consecutive attempts go to alternate processes.
+ */
+async function failedSignIn(url: string, email: string): Promise<number> {
+  const agent = new http.Agent({ keepAlive: true, maxSockets: 1 });
+  const call = (method: string, path: string, headers: Record<string, string>, body?: string) =>
+    new Promise<{ status: number; headers: http.IncomingHttpHeaders; text: string }>((resolve, reject) => {
+      const req = http.request(`${url}${path}`, { method, agent, headers }, (res) => {
+        let text = '';
+        res.on('data', (c) => (text += c));
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, text }));
+      });
+      req.on('error', reject);
+      req.end(body);
+    });
+  try {
+    const token = await call('GET', '/api/csrf-token', {});
+    const cookie = (token.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+    const body = JSON.stringify({ email, password: 'not the password at all' });
+    const res = await call('POST', '/api/auth/sign-in', { cookie, 'x-csrf-token': JSON.parse(token.text).token, 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(body)) }, body);
+    return res.status;
+  } finally {
+    agent.destroy();
+  }
+}
 
 /** The pids of the app processes that said they listen (server/index.ts prints each). */
 const appPids = () => [...server.log.join('').matchAll(/listening on \S+ \(app process \d+, pid (\d+)\)/g)].map((m) => Number(m[1]));
@@ -65,24 +94,30 @@ afterAll(async () => {
 });
 
 describe('the server with two app processes', () => {
-  it('when one client fails to sign in again and again, then the limit of 3 holds across both processes (counted in PostgreSQL)', async () => {
+  it('when one client fails to sign in again and again, then the limit of 3 holds across both processes (counted in PostgreSQL), where counts kept in memory would not hold', async () => {
     const user = await makeUser(h.db);
     const statuses: number[] = [];
-    // a new connection per attempt (fetch without keep-alive reuse across clients), so the attempts spread over the processes
-    for (let i = 0; i < 6; i++) {
-      const client = new UrlClient(server.url);
-      await client.refreshToken();
-      const res = await client.request('POST', '/api/auth/sign-in', { json: { email: user.email, password: 'not the password at all' }, headers: { connection: 'close' } });
-      statuses.push(res.status);
-    }
-    console.log(`failed sign-ins answered: ${statuses.join(' ')}`);
-    // counted in each process's memory, round-robin would have allowed 3 per process (4th and 5th still 401)
+    for (let i = 0; i < 6; i++) statuses.push(await failedSignIn(server.url, user.email));
+    console.log(`RATE_LIMIT_STORE=auto (PostgreSQL with 2 processes), failed sign-ins answered: ${statuses.join(' ')}`);
     expect(statuses).toEqual([401, 401, 401, 429, 429, 429]);
     // the right password is refused too while the window lasts (the limit is per address and e-mail)
     const client = new UrlClient(server.url);
     await client.refreshToken();
     expect((await client.request('POST', '/api/auth/sign-in', { json: { email: user.email, password: PASSWORD } })).status).toBe(429);
-  });
+
+    // the control: the same two processes counting in memory let the attempts through, since they alternate
+    const control = await startServer({ NODE_ENV: 'test', DATABASE_URL: testDatabaseUrl(), HEADROOM_PROCESSES: '2', RATE_LIMIT_STORE: 'memory', SIGN_IN_LIMIT: '3', SIGN_IN_CLIENT_LIMIT: '100000' });
+    try {
+      await until('both control processes listening', () => [...control.log.join('').matchAll(/\(app process \d+, pid/g)].length >= 2);
+      const other = await makeUser(h.db);
+      const memory: number[] = [];
+      for (let i = 0; i < 6; i++) memory.push(await failedSignIn(control.url, other.email));
+      console.log(`RATE_LIMIT_STORE=memory with 2 processes, failed sign-ins answered: ${memory.join(' ')}`);
+      expect(memory.filter((s) => s === 401).length).toBeGreaterThan(3);
+    } finally {
+      await control.stop();
+    }
+  }, 180_000);
 
   it('when a summary goes to two addresses while both processes poll the outbox, then each address gets it exactly once', async () => {
     const designerUser = await makeUser(h.db, { accountRole: 'designer' });
