@@ -11,6 +11,7 @@
 // Prints PASS/FAIL per check and exits non-zero on any failure. Stops by itself and cleans up.
 import { SMTPServer } from 'smtp-server';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { createDb, makeUsers, root, startCluster, startServer, demoDocument, type LoadUser } from '../tests/load/world';
@@ -26,6 +27,9 @@ const check = (name: string, ok: boolean, detail = '') => {
 };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const log = (m: string) => console.log(`[faults] ${m}`);
+/** the machine's load average (1, 5, 15 min): figures from a busy machine are read with it */
+const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(' ');
+const loadAtStart = loadAverage();
 
 async function timed(fn: () => Promise<Response>): Promise<{ status: number; ms: number; text: string }> {
   const t0 = performance.now();
@@ -291,5 +295,6 @@ if (!only || only === 'c') try {
   check('(c) the anonymous-hashing run completed', false, e instanceof Error ? e.message : String(e));
 }
 const failed = results.filter((r) => !r.ok).length;
+console.log(`load average ${loadAtStart} at start, ${loadAverage()} at end (${os.availableParallelism()} cores)`);
 console.log(`\nFAULTS: ${failed ? 'FAIL' : 'PASS'} (${results.length - failed} passed, ${failed} failed)`);
 process.exit(failed ? 1 : 0);
