@@ -213,22 +213,29 @@ test('when two tabs edit one draft, then the second save is refused and offers t
   await expect(a.getByLabel(/Static pressure, low/)).toBeEditable();
   await b.goto(draftUrl);
   await expect(b.getByLabel(/Static pressure, low/)).toBeEditable();
+  // Saves here are the walk's autosave (1.5 s after an edit) and the waits are on what it leads to:
+  // a "Save now" click could race the autosave on a slow machine (the button is disabled once saved).
+  const stored = async () => (await project.designer.get<{ revision: { document: { source: { staticPressureLow: number } } } }>(system.base)).revision.document.source.staticPressureLow;
   await a.getByLabel(/Static pressure, low/).fill('71');
-  await a.getByRole('button', { name: 'Save now' }).click();
+  await expect.poll(stored).toBe(71);
   await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  // b opened the draft before a saved: its save is refused
   await b.getByLabel(/Static pressure, low/).fill('70');
-  await b.getByRole('button', { name: 'Save now' }).click();
   await expect(b.getByText('Someone else saved this draft since you opened it')).toBeVisible();
+  await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'conflict');
+  expect(await stored()).toBe(71);
   await shot(b, '12-conflict');
   await b.getByRole('button', { name: 'Reload theirs' }).click();
   await expect(b.getByLabel(/Static pressure, low/)).toHaveValue('71');
-  await b.getByLabel(/Static pressure, low/).fill('69');
+  await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  // a saves again; then b, which read the draft before that, keeps its own on top
   await a.getByLabel(/Static pressure, low/).fill('68');
-  await a.getByRole('button', { name: 'Save now' }).click();
-  await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
-  await b.getByRole('button', { name: 'Save now' }).click();
+  await expect.poll(stored).toBe(68);
+  await b.getByLabel(/Static pressure, low/).fill('69');
+  await expect(b.getByText('Someone else saved this draft since you opened it')).toBeVisible();
   await b.getByRole('button', { name: 'Keep mine' }).click();
   await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await expect.poll(stored).toBe(69);
   await a.reload();
   await expect(a.getByLabel(/Static pressure, low/)).toHaveValue('69');
 });
