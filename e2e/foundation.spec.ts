@@ -1,14 +1,11 @@
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { DEMO, DEMO_PASSWORD, DEMO_PROJECT, mailboxText, mainNav, openProject, shot, signIn, signedInPage } from './helpers';
+import { fresh, newProject } from './api';
 
-// One run builds on itself (a project made by the designer is then checked by others), so the
-// tests run in order; names carry the run's time so a reused database does not collide.
-test.describe.configure({ mode: 'serial' });
-
+// Each test stands alone: what it needs beyond the demo seed (a project with the contractor in it)
+// it makes itself through the API; names carry a fresh suffix so a reused database does not collide.
 const run = Date.now().toString(36);
-const newProjectName = `Wrenmoor Library Annex ${run}`;
-let newProjectPath = '';
 
 // Every page of the run must load without an uncaught script error or a content-security-policy
 // refusal (the server's CSP must suit the built client).
@@ -124,6 +121,7 @@ for (const role of ['contractor', 'inspector'] as const) {
 }
 
 test('when the designer creates a project and adds the contractor, then the contractor is listed with that role', async ({ page }) => {
+  const newProjectName = `Wrenmoor Library Annex ${fresh()}`;
   await signIn(page, DEMO.designer);
   await page.getByRole('link', { name: 'New project' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'New project' })).toBeVisible();
@@ -135,7 +133,6 @@ test('when the designer creates a project and adds the contractor, then the cont
   await shot(page, '10-designer-new-project');
   await page.getByRole('button', { name: 'Create project' }).click();
   await expect(page.getByRole('heading', { level: 1, name: newProjectName })).toBeVisible();
-  newProjectPath = new URL(page.url()).pathname;
 
   await page.getByLabel("Member's e-mail address").fill('nobody@wrenmoor.example');
   await page.getByRole('button', { name: 'Add member' }).click();
@@ -150,7 +147,7 @@ test('when the designer creates a project and adds the contractor, then the cont
 });
 
 test('when the contractor looks, then the new project is listed and opens', async ({ page }) => {
-  expect(newProjectPath).not.toBe('');
+  const { name: newProjectName } = await newProject([{ email: DEMO.contractor, role: 'contractor' }], 'Wrenmoor Library Annex');
   await signIn(page, DEMO.contractor);
   await openProject(page, newProjectName);
   await expect(page.getByText('Your role:')).toBeVisible();
@@ -160,7 +157,7 @@ test('when the contractor looks, then the new project is listed and opens', asyn
 });
 
 test('when the outsider looks, then the new project is neither listed nor reachable by its address', async ({ page }) => {
-  expect(newProjectPath).not.toBe('');
+  const { name: newProjectName, path: newProjectPath } = await newProject([{ email: DEMO.contractor, role: 'contractor' }], 'Wrenmoor Library Annex');
   await signIn(page, DEMO.outsider);
   await expect(page.getByRole('link', { name: newProjectName })).toHaveCount(0);
   await expect(page.getByRole('link', { name: DEMO_PROJECT })).toHaveCount(0);
@@ -173,7 +170,7 @@ test('when the outsider looks, then the new project is neither listed nor reacha
 });
 
 test('when two designers save the same version, then the second is refused with Reload and nothing is overwritten', async ({ browser }) => {
-  expect(newProjectPath).not.toBe('');
+  const { name: newProjectName, path: newProjectPath } = await newProject([{ email: DEMO.contractor, role: 'contractor' }], 'Wrenmoor Library Annex');
   const first = await signedInPage(browser, DEMO.designer);
   const second = await signedInPage(browser, DEMO.designer);
   for (const page of [first, second]) {

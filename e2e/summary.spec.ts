@@ -2,13 +2,15 @@ import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Locator, Page } from '@playwright/test';
-import { DEMO, DEMO_PROJECT, mainNav, openProject, signIn } from './helpers';
+import { DEMO, mainNav, openProject, signIn } from './helpers';
+import { Api, newProject, newSystem, newUser, NEW_USER_PASSWORD, type MadeProject, type MadeSystem } from './api';
 
 // The issued summary, end to end, on the seeded demo (invented "Alder & Finch" data): the designer
 // sends the issued revision 1 of the cold-water system to the demo inspector and to an outside
 // address; the inspector finds it in the review inbox, downloads the PDF and returns it with a
-// comment on a fixture; the designer sees the outcome and the comment.
-test.describe.configure({ mode: 'serial' });
+// comment on a fixture; the designer sees the outcome and the comment. Each test stands alone: the
+// demo building is issued in a project of its own, and what earlier steps of the story would have
+// done (the sending, the inspector's return) is done through the API (e2e/api.ts).
 
 const OUT = 'e2e-output/summary';
 const run = Date.now().toString(36);
@@ -18,7 +20,25 @@ const SYSTEM = 'Domestic cold water';
 const FIXTURE_COMMENT = `Show the residual at this shower with the level 7 PRV at its lowest set pressure (${run}).`;
 const OVERALL_COMMENT = 'Returned for one correction at the top floor; the rest reads well.';
 
-let resultUrl = '';
+/** A fresh project with the given inspector, the demo building issued in it as revision 1. */
+async function issuedProject(inspectorEmail: string): Promise<{ project: MadeProject & { designer: Api }; system: MadeSystem }> {
+  const project = await newProject([{ email: inspectorEmail, role: 'inspector' }], 'Quarry Lane');
+  const system = await newSystem(project.designer, project.id, SYSTEM);
+  return { project, system };
+}
+
+/** The designer sends the issued summary to one inspector (by id) through the API. */
+async function sendTo(designer: Api, system: MadeSystem, inspectorId: string) {
+  await designer.send('POST', `${system.base}/summary/send`, { inspectorIds: [inspectorId], message: 'Permit set for the cold-water system, revision 1.' }, 202);
+}
+
+/** The id of a member of the project, by e-mail. */
+async function memberId(designer: Api, projectId: string, email: string): Promise<string> {
+  const { members } = await designer.get<{ members: { userId: string; email: string }[] }>(`/api/projects/${projectId}/members`);
+  const member = members.find((m) => m.email === email);
+  expect(member, `${email} is a member`).toBeTruthy();
+  return member!.userId;
+}
 
 /** The whole page, or only what is shown (a modal dialog), or one element (the long result step). */
 async function shot(page: Page, name: string, what: 'page' | 'viewport' | Locator = 'page') {
@@ -37,17 +57,17 @@ test.afterEach(() => expect(pageProblems).toEqual([]));
 
 const panel = (page: Page) => page.getByTestId('revision-summary-panel');
 
-async function openIssuedColdRevision(page: Page) {
-  await openProject(page, DEMO_PROJECT);
+async function openIssuedColdRevision(page: Page, projectName: string) {
+  await openProject(page, projectName);
   await page.getByRole('link', { name: SYSTEM, exact: true }).click();
   await page.getByRole('link', { name: 'Result of revision 1' }).click();
   await expect(page).toHaveURL(/\/revisions\/[^/]+\/result$/);
 }
 
 test('when the designer sends an issued revision, then the PDF is ready, addresses are checked, and each message reaches "sent"', async ({ page }) => {
+  const { project } = await issuedProject(DEMO.inspector);
   await signIn(page, DEMO.designer);
-  await openIssuedColdRevision(page);
-  resultUrl = new URL(page.url()).pathname;
+  await openIssuedColdRevision(page, project.name);
 
   // The summary was made when the revision was issued: ready, with a download link.
   await expect(panel(page).getByTestId('summary-ready')).toBeVisible({ timeout: 20_000 });
@@ -99,14 +119,19 @@ test('when the designer sends an issued revision, then the PDF is ready, address
 });
 
 test('when the inspector opens the summary from the inbox, then the PDF downloads and a return with a fixture comment is recorded', async ({ page }) => {
-  await signIn(page, DEMO.inspector);
+  // an inspector of its own, so that the inbox holds exactly this one summary
+  const inspector = await newUser('inspector', 'Rowan Tierney');
+  const { project, system } = await issuedProject(inspector.email);
+  await sendTo(project.designer, system, inspector.id);
+  const resultUrl = system.resultPath;
+  await signIn(page, inspector.email, NEW_USER_PASSWORD);
   const inboxLink = mainNav(page).getByRole('link', { name: /Review inbox/ });
   await expect(inboxLink).toContainText('1');
   await inboxLink.click();
   await expect(page).toHaveURL(/\/inbox$/);
   await expect(page.getByRole('heading', { level: 1, name: 'Review inbox' })).toBeVisible();
 
-  const item = page.getByRole('list', { name: 'Awaiting your decision' }).getByRole('listitem', { name: `${DEMO_PROJECT} · ${SYSTEM} · revision 1` });
+  const item = page.getByRole('list', { name: 'Awaiting your decision' }).getByRole('listitem', { name: `${project.name} · ${SYSTEM} · revision 1` });
   await expect(item).toBeVisible();
   await shot(page, '03-inspector-inbox');
 
@@ -150,7 +175,7 @@ test('when the inspector opens the summary from the inbox, then the PDF download
   // The recorded review replaces the form (the short confirmation line can be lost when the
   // result step re-renders on the refreshed revision; the recorded state below is what counts).
   await expect(panel(page).getByRole('form', { name: 'Review of revision 1' })).toHaveCount(0);
-  const mine = panel(page).getByRole('article', { name: 'Review by Imogen Hale' });
+  const mine = panel(page).getByRole('article', { name: `Review by ${inspector.name}` });
   await expect(mine.getByText('Returned with comments')).toBeVisible();
   await expect(mine.getByTestId('review-item')).toContainText('Checked fixture: Shower, apartment 704 (shower-704)');
   await shot(page, '05-inspector-returned', panel(page));
@@ -162,8 +187,21 @@ test('when the inspector opens the summary from the inbox, then the PDF download
 });
 
 test('when the inspector has returned it, then the designer sees the outcome and the fixture comment on the revision and the project page', async ({ page }) => {
+  const { project, system } = await issuedProject(DEMO.inspector);
+  await sendTo(project.designer, system, await memberId(project.designer, project.id, DEMO.inspector));
+  // the demo inspector returns it with a comment on the top-floor shower (through the API)
+  const inspector = await Api.as(DEMO.inspector);
+  const { reviews } = await inspector.get<{ reviews: { id: string; revisionId: string; version: number }[] }>(`/api/projects/${project.id}/reviews`);
+  const review = reviews.find((r) => r.revisionId === system.revisionId)!;
+  await inspector.send(
+    'PATCH',
+    `/api/projects/${project.id}/reviews/${review.id}`,
+    { decision: 'returned', comment: OVERALL_COMMENT, items: [{ itemType: 'fixture', itemId: 'shower-704', comment: FIXTURE_COMMENT }], version: review.version },
+    200,
+  );
+  const resultUrl = system.resultPath;
   await signIn(page, DEMO.designer);
-  await openProject(page, DEMO_PROJECT);
+  await openProject(page, project.name);
 
   const projectReviews = page.getByRole('list', { name: 'Reviews in this project' });
   const returned = projectReviews.getByRole('article', { name: 'Review by Imogen Hale' });
@@ -187,10 +225,17 @@ test('when the inspector has returned it, then the designer sees the outcome and
 });
 
 test('when an administrator opens the development mail page, then the caught summary e-mail is listed with its text and PDF withheld (they are the inspector’s)', async ({ page }) => {
+  const inspector = await newUser('inspector', 'Rowan Tierney');
+  const { project, system } = await issuedProject(inspector.email);
+  await sendTo(project.designer, system, inspector.id);
+  // the outbox delivers in the background: wait for the state "sent", not for a time
+  await expect
+    .poll(async () => (await project.designer.get<{ messages: { status: string }[] }>(`${system.base}/messages`)).messages.map((m) => m.status), { timeout: 30_000 })
+    .toEqual(['sent']);
   await signIn(page, DEMO.admin);
   await page.goto('/dev/mail');
   await expect(page.getByRole('heading', { level: 1, name: 'Development mail' })).toBeVisible();
-  await page.getByLabel('Only messages to this address').fill(DEMO.inspector);
+  await page.getByLabel('Only messages to this address').fill(inspector.email);
   const mail = page.getByTestId('dev-mail-item').filter({ hasText: 'Domestic cold water' }).first();
   await expect(mail).toBeVisible();
   await mail.locator('summary').click();

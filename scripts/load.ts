@@ -11,6 +11,7 @@
 //
 //   LOAD_SECONDS=10 LOAD_USERS=20 npm run test:load     (a short try)
 import { createRequire } from 'node:module';
+import os from 'node:os';
 import { createDb, makeUsers, percentile, rssMb, startCluster, startServer, type LoadUser } from '../tests/load/world';
 
 const require = createRequire(import.meta.url);
@@ -25,6 +26,9 @@ const KINDS = ['project', 'system', 'revision', 'save'] as const;
 type Kind = (typeof KINDS)[number];
 
 const log = (m: string) => console.log(`[load] ${m}`);
+/** the machine's load average (1, 5, 15 min): figures from a busy machine are read with it */
+const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(' ');
+const loadAtStart = loadAverage();
 const cluster = await startCluster('load');
 let server: Awaited<ReturnType<typeof startServer>> | null = null;
 const cleanup = async () => {
@@ -152,5 +156,6 @@ try {
 } finally {
   await cleanup();
 }
+console.log(`load average ${loadAtStart} at start, ${loadAverage()} at end (${os.availableParallelism()} cores)`);
 console.log(failed ? '\nLOAD: FAIL' : '\nLOAD: PASS');
 process.exit(failed ? 1 : 0);

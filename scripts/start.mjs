@@ -49,7 +49,7 @@ if (databaseUrl) {
 } else {
   pgBin = pg.ensurePostgresInstalled();
   pgData = path.resolve(process.env.HEADROOM_PGDATA ?? path.join(root, '.data', 'pg'));
-  const created = pg.initCluster(pgBin, pgData, Number(process.env.HEADROOM_PG_PORT ?? 54329));
+  const created = pg.initCluster(pgBin, pgData, Number(process.env.HEADROOM_PG_PORT ?? 54329), { passwordAuthFor: 'headroom' });
   const pgPort = pg.clusterPort(pgData);
   if (created) pg.log(`created a PostgreSQL cluster in ${path.relative(root, pgData) || pgData} (port ${pgPort})`);
   if (pg.isClusterRunning(pgBin, pgData)) {
@@ -62,8 +62,24 @@ if (databaseUrl) {
     pg.startCluster(pgBin, pgData);
     weStartedPostgres = true;
   }
-  pg.createDatabase(pgBin, pgPort, 'headroom');
-  databaseUrl = pg.databaseUrl(pgPort, 'headroom');
+  // the application's role (not a superuser) owns the database; its password is generated once and
+  // kept in .data/db-password (mode 0600) like the session secret; a cluster made by an older start
+  // (trust for every local connection) is upgraded in place
+  const passwordFile = path.join(root, '.data', 'db-password');
+  const wasPasswordAuth = pg.usesPasswordAuth(pgData);
+  let secured;
+  try {
+    secured = pg.secureCluster(pgBin, pgData, pgPort, 'headroom', passwordFile);
+  } catch (error) {
+    pg.log(`could not set up the database role: ${error.message}`);
+    cleanup();
+    process.exit(1);
+  }
+  if (!wasPasswordAuth && !created)
+    pg.log(
+      `upgraded the PostgreSQL cluster in ${path.relative(root, pgData) || pgData} to password authentication: role ${secured.role} (not a superuser) now owns database 'headroom' and its objects; connections without a password are refused.`,
+    );
+  databaseUrl = secured.url;
 }
 
 for (const signal of ['SIGINT', 'SIGTERM']) {
@@ -123,9 +139,12 @@ if (!process.env.SMTP_HOST && process.env.HEADROOM_DEV_MAIL !== '1') {
   pg.log('no SMTP relay is set (SMTP_HOST): e-mail waits in the outbox and shows as not delivered. See README, "Settings".');
 }
 server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { stdio: ['ignore', 'pipe', 'inherit'], env });
+let announced = false;
 server.stdout.on('data', (chunk) => {
   process.stdout.write(chunk);
-  if (String(chunk).includes('listening on')) {
+  // with several app processes (HEADROOM_PROCESSES) each says it listens: the first is enough
+  if (!announced && String(chunk).includes('listening on')) {
+    announced = true;
     pg.log(`ready in ${((Date.now() - started) / 1000).toFixed(1)} s`);
     pg.log(`open http://127.0.0.1:${appPort}/`);
     pg.log('demo sign-ins (password for all: headroom-demo):');

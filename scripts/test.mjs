@@ -70,6 +70,8 @@ try {
     fs.chmodSync(tmp, 0o755);
     pgData = path.join(tmp, 'pg');
     const port = await pg.freePort();
+    // trust authentication here on purpose: a throw-away cluster on loopback in a fresh temporary
+    // folder, removed when the run ends (`npm start`'s own cluster asks for a password: secureCluster)
     pg.initCluster(pgBin, pgData, port, { fast: true });
     pg.startCluster(pgBin, pgData);
     pg.createDatabase(pgBin, port, 'headroom_api');
@@ -122,13 +124,17 @@ try {
         HEADROOM_DEV_MAIL: '1',
         HEADROOM_DEV_MAIL_PAGE: '1',
         OUTBOX_POLL_MS: '200',
+        // one app process: the suite's figures and logs stay those of one process (tests/api/processes.test.ts runs two)
+        HEADROOM_PROCESSES: '1',
       },
     });
     const serverLog = fs.createWriteStream(path.join(reports, 'e2e-server.log'));
     server.stdout.pipe(serverLog);
     server.stderr.pipe(serverLog);
     const baseUrl = `http://127.0.0.1:${appPort}`;
-    const deadline = Date.now() + 30_000;
+    // generous: on a busy 2-core machine the server's start (tsx, the first database queries) has
+    // taken over 30 s; the wait ends as soon as the health route answers
+    const deadline = Date.now() + 120_000;
     while (true) {
       try {
         const res = await fetch(`${baseUrl}/api/health`);
@@ -139,7 +145,7 @@ try {
     }
     const reportFile = path.join(reports, 'playwright-report.json');
     fs.rmSync(reportFile, { force: true });
-    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json', ...playwrightArgs], {
+    runSync(process.execPath, ['node_modules/@playwright/test/cli.js', 'test', '--reporter=list,json,./e2e/durations.reporter.ts', ...playwrightArgs], {
       ...env,
       E2E_BASE_URL: baseUrl,
       PLAYWRIGHT_JSON_OUTPUT_NAME: reportFile,

@@ -11,6 +11,7 @@ import { createCsrf } from './auth/csrf';
 import { AppError, errorHandler } from './http/errors';
 import { healthRoutes } from './routes/health';
 import { authRoutes } from './routes/auth';
+import { PostgresRateLimitStore } from './auth/rateLimitStore';
 import { usersRoutes } from './routes/users';
 import { projectsRoutes } from './routes/projects';
 import { systemsRoutes } from './routes/systems';
@@ -39,8 +40,21 @@ export interface HeadroomApp {
 }
 
 /** The app factory: everything it needs is passed in (no module state), so tests build their own. */
-export function createApp({ config, db, startOutbox = false }: { config: Config; db: Db; startOutbox?: boolean }): HeadroomApp {
+export function createApp({
+  config,
+  db,
+  startOutbox = false,
+  oneOfSeveralProcesses = false,
+}: {
+  config: Config;
+  db: Db;
+  startOutbox?: boolean;
+  /** true in each app process of a cluster (server/index.ts): the rate limits then count in PostgreSQL (RATE_LIMIT_STORE=auto) */
+  oneOfSeveralProcesses?: boolean;
+}): HeadroomApp {
   const ctx: ServiceContext = { config, db };
+  const sharedLimits = config.RATE_LIMIT_STORE === 'postgres' || (config.RATE_LIMIT_STORE === 'auto' && oneOfSeveralProcesses);
+  const rateLimitStore = sharedLimits ? (prefix: string) => new PostgresRateLimitStore(db, prefix) : undefined;
   const devMail = config.HEADROOM_DEV_MAIL === '1' ? startDevSink(db, config.DEV_MAIL_PORT) : null;
   const mailer = createMailer(config, devMail?.ready);
   const outbox = new OutboxWorker(ctx, mailer, {
@@ -81,7 +95,7 @@ export function createApp({ config, db, startOutbox = false }: { config: Config;
   const documentGate = createDocumentGate();
   api.use(documentGate.middleware);
   api.use(healthRoutes(ctx));
-  api.use(authRoutes(ctx, passport as never, generateCsrfToken as never));
+  api.use(authRoutes(ctx, passport as never, generateCsrfToken as never, rateLimitStore));
   api.use(usersRoutes(ctx));
   api.use(projectsRoutes(ctx));
   api.use(systemsRoutes(ctx));

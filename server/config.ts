@@ -1,4 +1,14 @@
+import os from 'node:os';
 import { z } from 'zod';
+
+/**
+ * App processes under `npm start` (HEADROOM_PROCESSES): one per core by default — Node runs a
+ * process's JavaScript on one thread, so a core each is what the machine can use (common practice) —
+ * and at most 8: beyond that one PostgreSQL primary's connections (8 × the pool's 10 = 80 of the
+ * local cluster's 200) and its own cores, not the app, set the pace (a choice).
+ */
+export const MAX_PROCESSES = 8;
+const defaultProcesses = () => Math.max(1, Math.min(os.availableParallelism(), MAX_PROCESSES));
 
 /** Every setting the server reads, validated once at start (a bad value stops it with a clear message). */
 const ConfigSchema = z.object({
@@ -18,6 +28,15 @@ const ConfigSchema = z.object({
    * or PUBLIC_URL is https; 1 / 0: always / never.
    */
   CSP_UPGRADE_INSECURE: z.enum(['auto', '0', '1']).default('auto'),
+  /** app processes sharing the port (node:cluster); see MAX_PROCESSES */
+  HEADROOM_PROCESSES: z.coerce.number().int().min(1).max(MAX_PROCESSES).default(defaultProcesses),
+  /**
+   * where the sign-in and link limits count: memory (one process) or postgres (shared by every
+   * process and machine over the one database). auto: postgres when the server runs several
+   * processes (HEADROOM_PROCESSES > 1), else memory. Set postgres when several machines serve one
+   * database: counted in memory, each would allow the limit again.
+   */
+  RATE_LIMIT_STORE: z.enum(['auto', 'memory', 'postgres']).default('auto'),
   /** sign-in attempts per 15 minutes per address and e-mail */
   SIGN_IN_LIMIT: z.coerce.number().int().min(1).default(10),
   /**

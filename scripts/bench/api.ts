@@ -49,6 +49,8 @@ export async function startNodeServer(entry: string, env: Record<string, string>
       SESSION_SECRET: 'bench-only-secret-bench-only-secret-0123456789',
       // the bench signs in a dozen accounts in a few seconds
       SIGN_IN_LIMIT: '100000',
+      // one app process unless the caller asks for more (the load and fault aims are per process; bench/processes.ts compares 1 and 2)
+      HEADROOM_PROCESSES: '1',
       ...env,
     },
   });
@@ -56,8 +58,8 @@ export async function startNodeServer(entry: string, env: Record<string, string>
   proc.stdout!.on('data', (c) => log.push(String(c)));
   proc.stderr!.on('data', (c) => log.push(String(c)));
   const exited = () => new Promise<void>((resolve) => (proc.exitCode !== null || proc.signalCode !== null ? resolve() : proc.once('exit', () => resolve())));
-  // 30 s: a cold tsx start on a busy 2-core machine takes a few seconds (a choice with room)
-  const deadline = Date.now() + 30_000;
+  // 120 s: a cold tsx start takes a few seconds on a quiet machine, over 30 s for two app processes at load 14 (a choice with room)
+  const deadline = Date.now() + 120_000;
   for (;;) {
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
@@ -79,7 +81,7 @@ export async function startNodeServer(entry: string, env: Record<string, string>
   };
 }
 
-interface RoundResult {
+export interface RoundResult {
   /** successful (2xx) answers per second, summed over the connections */
   rps: number;
   failed: number;
@@ -135,7 +137,7 @@ async function settleVersions(users: LoadUser[]): Promise<void> {
 }
 
 /** One round: every user's connection saves their draft over and over for `seconds`. */
-async function round(baseUrl: string, users: LoadUser[], seconds: number, tracksVersions: boolean): Promise<RoundResult> {
+export async function round(baseUrl: string, users: LoadUser[], seconds: number, tracksVersions: boolean): Promise<RoundResult> {
   if (tracksVersions) await settleVersions(users);
   const failures: string[] = [];
   let failed = 0;

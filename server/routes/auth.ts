@@ -1,5 +1,5 @@
 import { Router, type Request } from 'express';
-import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
+import rateLimit, { ipKeyGenerator, type Store } from 'express-rate-limit';
 import type { PassportStatic } from 'passport';
 import { AppError } from '../http/errors';
 import { parse } from '../http/validate';
@@ -24,7 +24,13 @@ import type { ServiceContext } from '../services/context';
  */
 export const RESET_ANSWER_MS = 250;
 
-export function authRoutes(ctx: ServiceContext, passport: PassportStatic, generateCsrfToken: (req: never, res: never, opts?: { overwrite?: boolean }) => string): Router {
+export function authRoutes(
+  ctx: ServiceContext,
+  passport: PassportStatic,
+  generateCsrfToken: (req: never, res: never, opts?: { overwrite?: boolean }) => string,
+  /** a store per limiter, by name, when the counts must be shared by several processes; in memory otherwise */
+  rateLimitStore?: (prefix: string) => Store,
+): Router {
   const router = Router();
 
   router.get('/csrf-token', (req, res) => {
@@ -33,8 +39,9 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
     res.json({ token: generateCsrfToken(req as never, res as never) });
   });
 
-  const limiter = (o: { limit: number; key: (req: Request) => string; message: string; onlyFailures?: boolean }) =>
+  const limiter = (o: { name: string; limit: number; key: (req: Request) => string; message: string; onlyFailures?: boolean }) =>
     rateLimit({
+      ...(rateLimitStore ? { store: rateLimitStore(o.name) } : {}),
       windowMs: 15 * 60 * 1000,
       limit: o.limit,
       standardHeaders: 'draft-7',
@@ -51,13 +58,13 @@ export function authRoutes(ctx: ServiceContext, passport: PassportStatic, genera
   const signInMessage = 'Too many sign-in attempts. Wait 15 minutes and try again.';
   /** SIGN_IN_LIMIT failed sign-ins per 15 minutes per address and e-mail; SIGN_IN_CLIENT_LIMIT per address across e-mails (spraying) */
   const signInLimiters = [
-    limiter({ limit: ctx.config.SIGN_IN_LIMIT, key: clientAndEmail, message: signInMessage, onlyFailures: true }),
-    limiter({ limit: ctx.config.SIGN_IN_CLIENT_LIMIT, key: client, message: signInMessage, onlyFailures: true }),
+    limiter({ name: 'sign-in', limit: ctx.config.SIGN_IN_LIMIT, key: clientAndEmail, message: signInMessage, onlyFailures: true }),
+    limiter({ name: 'sign-in-client', limit: ctx.config.SIGN_IN_CLIENT_LIMIT, key: client, message: signInMessage, onlyFailures: true }),
   ];
   // also keeps anyone from filling a person's mailbox with reset links
-  const passwordResetLimiter = limiter({ limit: ctx.config.SIGN_IN_LIMIT, key: clientAndEmail, message: 'Too many requests for a new password link. Wait 15 minutes and try again.' });
+  const passwordResetLimiter = limiter({ name: 'password-reset', limit: ctx.config.SIGN_IN_LIMIT, key: clientAndEmail, message: 'Too many requests for a new password link. Wait 15 minutes and try again.' });
   /** LINK_LIMIT uses of reset and invitation links per 15 minutes per address: each may cost a password hash (issue 13 finding 3) */
-  const linkLimiter = limiter({ limit: ctx.config.LINK_LIMIT, key: client, message: 'Too many tries with this kind of link. Wait 15 minutes and try again.' });
+  const linkLimiter = limiter({ name: 'link', limit: ctx.config.LINK_LIMIT, key: client, message: 'Too many tries with this kind of link. Wait 15 minutes and try again.' });
 
   router.post('/auth/sign-in', ...signInLimiters, async (req, res, next) => {
     const body = parse(SignInBody, req.body);

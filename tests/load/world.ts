@@ -84,6 +84,8 @@ export async function startServer(env: Record<string, string>, port?: number): P
       SIGN_IN_LIMIT: '100000',
       SIGN_IN_CLIENT_LIMIT: '100000',
       LINK_LIMIT: '100000',
+      // one app process unless the caller asks for more (the load and fault aims are per process; bench/processes.ts compares 1 and 2)
+      HEADROOM_PROCESSES: '1',
       ...env,
     },
   });
@@ -91,7 +93,8 @@ export async function startServer(env: Record<string, string>, port?: number): P
   proc.stdout!.on('data', (c) => log.push(String(c)));
   proc.stderr!.on('data', (c) => log.push(String(c)));
   const url = `http://127.0.0.1:${appPort}`;
-  const deadline = Date.now() + 30_000;
+  // 120 s: a cold tsx start of several app processes on a busy 2-core machine (load 14) took over 30 s
+  const deadline = Date.now() + 120_000;
   for (;;) {
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
