@@ -2,7 +2,9 @@ import { Router } from 'express';
 import { parse } from '../http/validate';
 import { actorOf, requireProjectRole } from '../http/guards';
 import { systemsService } from '../services/systems';
-import { CompareQuery, CreateSystemBody, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams } from '../../src/shared/api/systems';
+import { exportsService } from '../services/exports';
+import { asciiFallback, rfc5987 } from '../http/upload';
+import { CompareQuery, CreateSystemBody, ExportTableParams, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams } from '../../src/shared/api/systems';
 import { ProjectParams } from '../../src/shared/api/projects';
 import type { ServiceContext } from '../services/context';
 
@@ -55,6 +57,25 @@ export function systemsRoutes(ctx: ServiceContext): Router {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     const body = parse(IssueBody, req.body);
     res.json({ revision: await systemsService.issue(ctx, actorOf(req.user), projectId, systemId, revisionId, body.version, body.note ?? null, body.acknowledgeFailure ?? null, body.attestation) });
+  });
+
+  // the result for the engineer's report: one table as CSV, or all three as a spreadsheet workbook
+  const download = (fileName: string, contentType: string) => ({
+    'Content-Type': contentType,
+    'Content-Disposition': `attachment; filename="${asciiFallback(fileName)}"; filename*=UTF-8''${rfc5987(fileName)}`,
+    'X-Content-Type-Options': 'nosniff',
+  });
+
+  router.get(`${base}/:systemId/revisions/:revisionId/export/:table.csv`, member, async (req, res) => {
+    const { projectId, systemId, revisionId, table } = parse(ExportTableParams, req.params);
+    const { filename, body } = await exportsService.csv(ctx, projectId, systemId, revisionId, table);
+    res.set(download(filename, 'text/csv; charset=utf-8')).send(body);
+  });
+
+  router.get(`${base}/:systemId/revisions/:revisionId/export.xlsx`, member, async (req, res) => {
+    const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
+    const { filename, body } = await exportsService.xlsx(ctx, projectId, systemId, revisionId);
+    res.set(download(filename, 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')).send(body);
   });
 
   return router;

@@ -241,6 +241,19 @@ const ROWS: Row[] = [
     expect: membersRead403,
     request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}` }),
   },
+  // the result for the engineer's report (issue 17): members read it, as they read the revision
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/export/:table.csv',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}/export/fixtures.csv` }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/export.xlsx',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}/export.xlsx` }),
+  },
   {
     method: 'PUT',
     path: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/document',

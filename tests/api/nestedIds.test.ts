@@ -45,6 +45,8 @@ const ROWS: Record<string, Row> = {
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': { as: 'designer' },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': { as: 'designer', extraIds: ['inspectorId'], body: (i) => ({ inspectorIds: [i.inspectorId] }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/messages': { as: 'designer' },
+  'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/export/:table.csv': { as: 'designer' },
+  'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/export.xlsx': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/reviews': { as: 'designer' },
   'POST /api/projects/:projectId/messages/:messageId/retry': { as: 'designer' },
   'PATCH /api/projects/:projectId/reviews/:reviewId': { as: 'inspector', body: () => ({ decision: 'accepted', version: 1 }) },
@@ -67,8 +69,8 @@ const ROWS: Record<string, Row> = {
   'DELETE /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId': { as: 'contractor' },
 };
 
-/** Path parameters that are not ids of a record (a catalog kind, an attachment's position in a message). */
-const NOT_IDS = new Set(['kind', 'index', 'token']);
+/** Path parameters that are not ids of a record (a catalog kind, an attachment's position in a message, an export's table). */
+const NOT_IDS = new Set(['kind', 'index', 'token', 'table']);
 const paramsOf = (path: string) => [...path.matchAll(/:(\w+)/g)].map((m) => m[1]).filter((p) => !NOT_IDS.has(p));
 /** Routes outside any project (the development mail sink: one id, administrators only) are left out. */
 const inScope = (path: string) => path.startsWith('/api/projects/:projectId/');
@@ -113,6 +115,7 @@ async function makeProject(designer: Client, users: Record<Role, { id: string; e
     userId: only.id,
     entryId,
     kind: 'fitting-type',
+    table: 'fixtures',
     inspectorId: onlyInspector.id,
   };
 }

@@ -180,3 +180,6 @@ export const CompareResponse = z.object({
   pressureUnit: z.string(),
 });
 export type CompareResponse = z.infer<typeof CompareResponse>;
+
+/** The result tables a revision exports for the engineer's report (GET …/export/:table.csv, …/export.xlsx). */
+export const ExportTableParams = RevisionParams.extend({ table: z.enum(['segments', 'fixtures', 'ledgers'], { error: 'Choose segments, fixtures or ledgers' }) });

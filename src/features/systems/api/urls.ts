@@ -9,5 +9,9 @@ export const systemUrls = {
   issue: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/issue`,
   compare: (projectId: string, systemId: string, a: string, b: string) =>
     `${systemUrls.detail(projectId, systemId)}/compare?a=${e(a)}&b=${e(b)}`,
+  /** the result for the engineer's report: one table as CSV, or every table as a spreadsheet workbook */
+  exportCsv: (projectId: string, systemId: string, revisionId: string, table: 'segments' | 'fixtures' | 'ledgers') =>
+    `${systemUrls.revision(projectId, systemId, revisionId)}/export/${table}.csv`,
+  exportXlsx: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/export.xlsx`,
   catalog: () => '/api/catalog',
 };

@@ -11,6 +11,7 @@ import { Link } from 'react-router-dom';
 import { verdictStatus } from '../../../engine';
 import type { IncompleteReason } from '../../../engine';
 import { incompleteReasonsOf, issueRevisionInputSchema, useIssueRevision } from '../../systems/api/issue-revision';
+import { systemUrls } from '../../systems/api/urls';
 import { fixtureVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import { WALK_STEPS } from '../steps';
 import type { WalkStepId } from '../steps';
@@ -275,6 +276,10 @@ export function ResultStep() {
         </Section>
       ) : null}
 
+      <Section title="Export for the report" headingLevel={3}>
+        <ResultExports />
+      </Section>
+
       <Section title="Warnings" headingLevel={3}>
         <WarningList title={`${plural(a.warnings.length, 'warning')} in plain words`} warnings={a.warnings} empty="No warnings." />
       </Section>
@@ -307,6 +312,27 @@ export function ResultStep() {
         )}
       </Section>
       <RevisionSummaryPanel {...ids} revisionStatus={revision.status} myRole={project.myRole} />
+    </div>
+  );
+}
+
+/** Downloads of the stored result (the revision as last saved; an issued one as issued): each table as CSV, or all in one workbook. */
+function ResultExports() {
+  const { ids, revision, draft } = useWalk();
+  const csv = (table: 'segments' | 'fixtures' | 'ledgers') => systemUrls.exportCsv(ids.projectId, ids.systemId, ids.revisionId, table);
+  return (
+    <div className="flex flex-col gap-2 text-sm" data-testid="result-exports">
+      <p className="text-ink-soft">
+        The segment table (with friction and fitting losses), every checked fixture and every fixture’s pressure ledger, in the project’s units, with the verdict on the first line.
+        {revision.status === 'draft' ? ' They hold the draft as last saved.' : ` They hold revision ${revision.number} as issued.`}
+      </p>
+      {revision.status === 'draft' && draft.state !== 'saved' ? <p className="text-ink-soft">A change is being saved: download once it shows “All changes saved”.</p> : null}
+      <p className="flex flex-wrap gap-4">
+        <a href={systemUrls.exportXlsx(ids.projectId, ids.systemId, ids.revisionId)} download>All tables as a spreadsheet (.xlsx)</a>
+        <a href={csv('segments')} download>Segments (CSV)</a>
+        <a href={csv('fixtures')} download>Checked fixtures (CSV)</a>
+        <a href={csv('ledgers')} download>Pressure ledgers (CSV)</a>
+      </p>
     </div>
   );
 }
