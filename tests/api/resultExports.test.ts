@@ -36,7 +36,8 @@ async function issuedDemo() {
 
 /** The CSV's table under its verdict line and the blank line after it. */
 function csvTable(text: string) {
-  const [verdict, blank, ...rest] = text.split('\r\n');
+  const [verdictLine, blank, ...rest] = text.split('\r\n');
+  const verdict = Papa.parse<string[]>(verdictLine).data[0][0];
   return { verdict, blank, table: Papa.parse<Record<string, string>>(rest.join('\r\n'), { header: true, skipEmptyLines: true }) };
 }
 
