@@ -2,7 +2,7 @@ import { execFileSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
-import type { Locator, Page } from '@playwright/test';
+import type { Browser, Locator, Page } from '@playwright/test';
 import { DEMO, signIn } from './helpers';
 
 // The review loop end to end, on a project of its own made from the invented Alder & Finch cold-water
@@ -11,7 +11,6 @@ import { DEMO, signIn } from './helpers';
 // answers them, changes the riser's fittings and issues revision 2 → sends it → the inspector's review
 // of revision 2 shows the compare against revision 1 and the answers → accepts → the acceptance
 // record downloads.
-test.describe.configure({ mode: 'serial' });
 
 const OUT = 'e2e-output/review-loop';
 const run = Date.now().toString(36);
@@ -32,12 +31,6 @@ async function shot(page: Page, name: string, what: 'page' | Locator = 'page') {
   else await what.screenshot({ path });
 }
 
-let pageProblems: string[] = [];
-test.beforeEach(({ page }) => {
-  pageProblems = [];
-  page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
-});
-test.afterEach(() => expect(pageProblems).toEqual([]));
 
 /** The signed-in page's API, with its CSRF token (the set-up only; the loop itself goes through the screens). */
 async function apiOf(page: Page) {
@@ -63,7 +56,7 @@ test.afterAll(async ({ browser }) => {
 });
 const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name });
 
-test('set-up: the designer issues revision 1 of a new project’s cold-water system and sends it to the inspector', async ({ page }) => {
+async function part1(page: Page) {
   await signIn(page, DEMO.designer);
   const send = await apiOf(page);
   ctx.projectId = (await send('POST', '/api/projects', { name: PROJECT, address: '412 Quarry Lane, Wrenmoor' })).project.id;
@@ -76,9 +69,9 @@ test('set-up: the designer issues revision 1 of a new project’s cold-water sys
   const members = (await (await page.request.get(`/api/projects/${ctx.projectId}/members`)).json()).members as { userId: string; email: string }[];
   ctx.inspectorId = members.find((m) => m.email === DEMO.inspector)!.userId;
   await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/summary/send`, { inspectorIds: [ctx.inspectorId] });
-});
+}
 
-test('when the inspector returns revision 1 with two item comments, then the review records both', async ({ page }) => {
+async function part2(page: Page) {
   await signIn(page, DEMO.inspector);
   await page.goto(resultUrl(ctx.rev1));
   const form = panel(page).getByRole('form', { name: 'Review of revision 1' });
@@ -97,11 +90,10 @@ test('when the inspector returns revision 1 with two item comments, then the rev
   const mine = panel(page).getByRole('article', { name: 'Review by Imogen Hale' });
   await expect(mine.getByText('Returned with comments')).toBeVisible();
   await expect(mine.getByTestId('review-item')).toHaveCount(2);
-});
+}
 
-test('when the designer opens the returned project, then the marker shows on the list, the project and the system, and the next draft shows each comment at its item', async ({ page }) => {
+async function part3(page: Page) {
   // the longest walk of the suite on a shared machine: the demo building's steps, two replies, an issue and a send
-  test.setTimeout(300_000);
   await signIn(page, DEMO.designer);
   const row = page.getByRole('listitem').filter({ has: page.getByRole('link', { name: PROJECT, exact: true }) });
   await expect(row.getByTestId('returned-project-marker')).toContainText('Returned to you');
@@ -182,10 +174,9 @@ test('when the designer opens the returned project, then the marker shows on the
   expect(text).toContain('Response to review comments');
   expect(text).toContain(SEGMENT_REPLY);
   expect(text).toContain(FIXTURE_REPLY);
-});
+}
 
-test('when the inspector opens revision 2, then the review shows the compare against revision 1 and the answers; accepting stores a record that downloads', async ({ page }) => {
-  test.setTimeout(180_000);
+async function part4(page: Page) {
   await signIn(page, DEMO.inspector);
   await page.goto(resultUrl(ctx.rev2));
   const answers = page.getByTestId('review-answers');
@@ -221,4 +212,27 @@ test('when the inspector opens revision 2, then the review shows the compare aga
   expect(text).toContain('Both items settled; accepted.');
   execFileSync('pdftoppm', ['-png', '-r', '60', file, `${OUT}/acceptance-record`]);
   await shot(page, '05-inspector-accepted', panel(page));
+}
+
+/** Each part of the story in a browser context of its own (its own sign-in), failing on any uncaught page error. */
+async function fresh(browser: Browser, part: (page: Page) => Promise<void>) {
+  const context = await browser.newContext();
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on('pageerror', (error) => problems.push(`uncaught: ${error.message}`));
+  try {
+    await part(page);
+    expect(problems).toEqual([]);
+  } finally {
+    await context.close();
+  }
+}
+
+// One test: the loop is one story whose parts build on each other, so no test depends on another's success.
+test('when an inspector returns a revision with item comments and the designer answers and reissues, then the inspector sees the compare and the answers and accepts, and the acceptance record downloads', async ({ browser }) => {
+  test.setTimeout(600_000);
+  await test.step('set-up: the designer issues revision 1 of a new project’s cold-water system and sends it to the inspector', () => fresh(browser, part1));
+  await test.step('when the inspector returns revision 1 with two item comments, then the review records both', () => fresh(browser, part2));
+  await test.step('when the designer opens the returned project, then the marker shows on the list, the project and the system, and the next draft shows each comment at its item', () => fresh(browser, part3));
+  await test.step('when the inspector opens revision 2, then the review shows the compare against revision 1 and the answers; accepting stores a record that downloads', () => fresh(browser, part4));
 });
