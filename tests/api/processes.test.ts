@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import http from 'node:http';
 import { makeUser, PASSWORD, startHarness, testDatabaseUrl, type Harness } from './support/harness';
+import { ATTESTATION } from './support/attestation';
 import { UrlClient } from './support/hardening';
 import { demoDocument, FAST_OUTBOX, SmtpSink, waitForMessages } from './support/smtpSink';
 import { startServer, type Server } from '../load/world';
@@ -130,7 +131,7 @@ describe('the server with two app processes', () => {
     const created = await designer.send('POST', `/api/projects/${projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() });
     expect(created.status).toBe(201);
     const base = `/api/projects/${projectId}/systems/${created.body.system.id}/revisions/${created.body.revision.id}`;
-    expect((await designer.send('POST', `${base}/issue`, { version: created.body.revision.version })).status).toBe(200);
+    expect((await designer.send('POST', `${base}/issue`, { version: created.body.revision.version, attestation: ATTESTATION })).status).toBe(200);
     const outside = `plan-review-${randomUUID().slice(0, 6)}@wrenmoor.example`;
     expect((await designer.send('POST', `${base}/summary/send`, { inspectorIds: [inspectorUser.id], emails: [outside] })).status).toBe(202);
 
