@@ -1,25 +1,50 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ErrorCode } from '../../src/shared/api/errors';
+import { ServiceError } from '../services/errors';
 
-/** The one error type of the server: a stable code, an HTTP status and a message for people. */
-export class AppError extends Error {
+export { notFound, forbidden, staleVersion } from '../services/errors';
+
+/** The HTTP status of each error code: the one place where a service's error becomes a protocol's number. */
+export const HTTP_STATUS: Record<ErrorCode, number> = {
+  VALIDATION_FAILED: 400,
+  NOT_SIGNED_IN: 401,
+  FORBIDDEN: 403,
+  NOT_FOUND: 404,
+  STALE_VERSION: 409,
+  CONFLICT: 409,
+  REVISION_INCOMPLETE: 409,
+  FAILURE_NOT_ACKNOWLEDGED: 409,
+  NOTHING_TO_ACKNOWLEDGE: 409,
+  CSRF_FAILED: 403,
+  RATE_LIMITED: 429,
+  BAD_CREDENTIALS: 401,
+  // an invitation or reset link that does not exist (or no longer does) is a missing thing
+  INVITATION_INVALID: 404,
+  RESET_LINK_INVALID: 400,
+  USER_NOT_FOUND: 404,
+  LAST_DESIGNER: 409,
+  DATABASE_UNAVAILABLE: 503,
+  INTERNAL: 500,
+};
+
+/**
+ * An error raised by the HTTP layer itself (guards, body checks, uploads), where the status is the
+ * point; services throw ServiceError (server/services/errors.ts) and get their status from HTTP_STATUS.
+ */
+export class AppError extends ServiceError {
   constructor(
     readonly status: number,
-    readonly code: ErrorCode,
+    code: ErrorCode,
     message: string,
-    readonly fields?: Record<string, string>,
-    /** more members of the error body, e.g. `reasons` on REVISION_INCOMPLETE */
-    readonly extra?: Record<string, unknown>,
+    fields?: Record<string, string>,
+    extra?: Record<string, unknown>,
   ) {
-    super(message);
+    super(code, message, fields, extra);
   }
 }
 
-export const notFound = (what = 'That') => new AppError(404, 'NOT_FOUND', `${what} was not found.`);
-export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'FORBIDDEN', message);
-export const staleVersion = () =>
-  new AppError(409, 'STALE_VERSION', 'Someone else changed this since you opened it. Reload to see their change.');
+const statusOf = (err: ServiceError) => (err instanceof AppError ? err.status : HTTP_STATUS[err.code]);
 
 /** One validation problem: where (a path) and what, as zod words it. */
 export interface Issue {
@@ -72,8 +97,8 @@ function isDatabaseDown(err: unknown): boolean {
 /** Central handler: one format, never a stack trace or SQL in the response. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
-  if (err instanceof AppError) {
-    res.status(err.status).json({ error: { ...(err.extra ?? {}), code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+  if (err instanceof ServiceError) {
+    res.status(statusOf(err)).json({ error: { ...(err.extra ?? {}), code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
   if (err instanceof ZodError) {

@@ -1,11 +1,11 @@
 /**
  * Attachments of a field change: product data sheets (PDF) and photos (JPEG, PNG). The type is
- * the one the content's first bytes say (server/http/upload.ts); the name is sanitised; the bytes
+ * the one the content's first bytes say (server/services/fileTypes.ts); the name is sanitised; the bytes
  * are kept in PostgreSQL with their SHA-256, size, type and uploader.
  */
 import { createHash } from 'node:crypto';
-import { AppError, forbidden, notFound } from '../http/errors';
-import { detectType, sanitizeFileName } from '../http/upload';
+import { conflict, forbidden, invalid, notFound } from './errors';
+import { detectType, sanitizeFileName } from './fileTypes';
 import { attachmentsRepo, type AttachmentRow } from '../repositories/attachments';
 import { fieldChangesRepo } from '../repositories/fieldChanges';
 import { auditRepo } from '../repositories/audit';
@@ -38,15 +38,15 @@ export const attachmentsService = {
       const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, fieldChangeId);
       if (!row) throw notFound('The field change');
       if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change attaches files to it.');
-      if (row.status !== 'draft' && row.status !== 'proposed') throw new AppError(409, 'CONFLICT', `Field change ${row.number} is ${row.status}; files are attached while it is a draft or proposed.`);
-      if (file.buffer.length === 0) throw new AppError(400, 'VALIDATION_FAILED', 'The file is empty; nothing was stored.', { file: 'Empty file' });
+      if (row.status !== 'draft' && row.status !== 'proposed') throw conflict(`Field change ${row.number} is ${row.status}; files are attached while it is a draft or proposed.`);
+      if (file.buffer.length === 0) throw invalid('The file is empty; nothing was stored.', { file: 'Empty file' });
       const type = detectType(file.buffer);
       if (!type) {
-        throw new AppError(400, 'VALIDATION_FAILED', 'The file is not a PDF, JPEG or PNG by its content (its name and declared type are not trusted); nothing was stored.', {
+        throw invalid('The file is not a PDF, JPEG or PNG by its content (its name and declared type are not trusted); nothing was stored.', {
           file: 'Not a PDF, JPEG or PNG',
         });
       }
-      if ((await attachmentsRepo.count(trx, fieldChangeId)) >= MAX_ATTACHMENTS) throw new AppError(409, 'CONFLICT', `A field change holds at most ${MAX_ATTACHMENTS} files; remove one first.`);
+      if ((await attachmentsRepo.count(trx, fieldChangeId)) >= MAX_ATTACHMENTS) throw conflict(`A field change holds at most ${MAX_ATTACHMENTS} files; remove one first.`);
       const fileName = sanitizeFileName(file.originalname, type);
       const sha256 = createHash('sha256').update(file.buffer).digest('hex');
       const attachmentId = await attachmentsRepo.insert(trx, {
@@ -79,7 +79,7 @@ export const attachmentsService = {
       const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, fieldChangeId);
       if (!row) throw notFound('The field change');
       if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change removes its files.');
-      if (row.status !== 'draft') throw new AppError(409, 'CONFLICT', `Field change ${row.number} is ${row.status}; its files stay as they were sent.`);
+      if (row.status !== 'draft') throw conflict(`Field change ${row.number} is ${row.status}; its files stay as they were sent.`);
       const info = await attachmentsRepo.find(trx, fieldChangeId, attachmentId);
       if (!info) throw notFound('The attachment');
       await attachmentsRepo.remove(trx, fieldChangeId, attachmentId);

@@ -1,4 +1,4 @@
-import { AppError } from '../http/errors';
+import { ServiceError } from './errors';
 import { hashPassword, verifyPassword } from '../auth/password';
 import { assertAcceptablePassword } from '../auth/passwordPolicy';
 import { hashToken } from '../auth/tokens';
@@ -9,7 +9,7 @@ import type { ServiceContext } from './context';
 import type { InvitationInfo, User } from '../../src/shared/api/auth';
 
 const invalidInvitation = () =>
-  new AppError(404, 'INVITATION_INVALID', 'This link has expired or was already used. Ask your administrator for a new one.');
+  new ServiceError('INVITATION_INVALID', 'This link has expired or was already used. Ask your administrator for a new one.');
 
 export const authService = {
   /** The same answer for an unknown e-mail and a wrong password: no user enumeration. */

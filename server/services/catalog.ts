@@ -4,7 +4,7 @@
  * into a system document when chosen, so changing or removing it later changes no stored document.
  */
 import { randomUUID } from 'node:crypto';
-import { notFound, staleVersion } from '../http/errors';
+import { notFound, staleVersion } from './errors';
 import { catalogRepo, type CatalogEntryRow } from '../repositories/catalog';
 import { auditRepo } from '../repositories/audit';
 import { iso } from '../db/rows';

@@ -4,7 +4,7 @@
  * analysis: an issued revision exports the numbers it was issued with.
  */
 import type { Analysis, SystemDocument } from '../../src/engine';
-import { AppError, notFound } from '../http/errors';
+import { conflict, notFound } from './errors';
 import { systemsRepo } from '../repositories/systems';
 import { tableCsv, tablesXlsx } from '../exports/encode';
 import { resultTables } from '../exports/resultTables';
@@ -19,7 +19,7 @@ async function tablesOf(ctx: ServiceContext, projectId: string, systemId: string
   const revision = await systemsService.revision(ctx, projectId, systemId, revisionId);
   const stored = revision.analysis as { ok: true; analysis: Analysis } | { ok: false; error?: { message?: string } } | null;
   if (!stored?.ok) {
-    throw new AppError(409, 'CONFLICT', `Revision ${revision.number} cannot be computed (${stored?.error?.message ?? 'no analysis'}); there is nothing to export.`);
+    throw conflict(`Revision ${revision.number} cannot be computed (${stored?.error?.message ?? 'no analysis'}); there is nothing to export.`);
   }
   const tables = resultTables(stored.analysis, revision.document as SystemDocument, { systemName: system.name, revisionNumber: revision.number, status: revision.status });
   const base = `${system.name} rev ${revision.number}`.replace(/[^\p{L}\p{N} ._-]+/gu, '').trim() || 'headroom';

@@ -6,7 +6,7 @@
  * same transaction as the step.
  */
 import { ENGINE_VERSION, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
-import { AppError, forbidden, notFound, staleVersion } from '../http/errors';
+import { ServiceError, conflict, forbidden, notFound, staleVersion } from './errors';
 import { systemsRepo, revisionsRepo, type RevisionRow } from '../repositories/systems';
 import { fieldChangesRepo, type FieldChangeListRow, type FieldChangeRow } from '../repositories/fieldChanges';
 import { attachmentsRepo } from '../repositories/attachments';
@@ -60,7 +60,7 @@ function present(row: FieldChangeListRow & { base_document: unknown }): FieldCha
 }
 
 const stateWords: Record<FieldChangeStatus, string> = { draft: 'a draft', proposed: 'proposed', accepted: 'accepted', declined: 'declined' };
-const outOfOrder = (row: FieldChangeRow, wanted: string) => new AppError(409, 'CONFLICT', `Field change ${row.number} is ${stateWords[row.status]}; ${wanted}`);
+const outOfOrder = (row: FieldChangeRow, wanted: string) => conflict(`Field change ${row.number} is ${stateWords[row.status]}; ${wanted}`);
 
 async function lockOwn(trx: Tx, actor: Actor, projectId: string, systemId: string, id: string): Promise<FieldChangeRow> {
   const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, id);
@@ -73,10 +73,7 @@ async function lockOwn(trx: Tx, actor: Actor, projectId: string, systemId: strin
 function requireCurrent(base: RevisionRow | undefined, row: FieldChangeRow, current: RevisionRow | undefined, doing: string) {
   if (base?.status === 'issued') return;
   const now = current ? `revision ${current.number} is` : 'no revision is';
-  throw new AppError(
-    409,
-    'CONFLICT',
-    `Field change ${row.number} was made on revision ${base?.number ?? '?'}, which is no longer the current issued revision (${now}). It cannot be ${doing}; start a new field change on the current issued revision.`,
+  throw conflict(`Field change ${row.number} was made on revision ${base?.number ?? '?'}, which is no longer the current issued revision (${now}). It cannot be ${doing}; start a new field change on the current issued revision.`,
   );
 }
 const currentIssued = (trx: Tx, systemId: string) => trx<RevisionRow>('revisions').where({ system_id: systemId, status: 'issued' }).first();
@@ -132,7 +129,7 @@ export const fieldChangesService = {
       if (!base) throw notFound('The revision');
       if (base.status !== 'issued') {
         const current = await currentIssued(trx, systemId);
-        throw new AppError(409, 'CONFLICT', `Revision ${base.number} is ${base.status === 'draft' ? 'a draft' : 'superseded'}; a field change starts on the current issued revision${current ? ` (revision ${current.number})` : ', and this system has none yet'}.`);
+        throw conflict(`Revision ${base.number} is ${base.status === 'draft' ? 'a draft' : 'superseded'}; a field change starts on the current issued revision${current ? ` (revision ${current.number})` : ', and this system has none yet'}.`);
       }
       const document = doc(base.document);
       const number = await fieldChangesRepo.nextNumber(trx, systemId);
@@ -166,10 +163,7 @@ export const fieldChangesService = {
         const fields = forbiddenDifferences(doc(base!.document), body.document);
         const paths = Object.keys(fields);
         if (paths.length) {
-          throw new AppError(
-            403,
-            'FORBIDDEN',
-            `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths.slice(0, 8).map((p) => p.replace(/^document\./, '')).join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
+          throw new ServiceError('FORBIDDEN', `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths.slice(0, 8).map((p) => p.replace(/^document\./, '')).join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
             fields,
           );
         }
@@ -205,9 +199,9 @@ export const fieldChangesService = {
       const issuedDoc = doc(m.base!.document);
       const proposedDoc = doc(row.document);
       const changes = describeChanges(issuedDoc, proposedDoc);
-      if (!changes.length) throw new AppError(409, 'CONFLICT', 'The field change is the same as the issued revision; change something before proposing it.');
+      if (!changes.length) throw conflict('The field change is the same as the issued revision; change something before proposing it.');
       const stored = row.analysis as { ok: boolean; error?: { message: string } };
-      if (!stored.ok) throw new AppError(409, 'CONFLICT', `The field change cannot be computed, so it cannot be proposed: ${stored.error?.message ?? 'unknown reason'}`);
+      if (!stored.ok) throw conflict(`The field change cannot be computed, so it cannot be proposed: ${stored.error?.message ?? 'unknown reason'}`);
       const moved = await fieldChangesRepo.transition(trx, id, version, 'draft', 'proposed', { proposed_at: trx.fn.now() });
       if (!moved) throw staleVersion();
       const designers = await fieldChangesRepo.designers(trx, projectId);
@@ -244,7 +238,7 @@ export const fieldChangesService = {
         // draft, unless the designer changed the same thing differently (then nothing is merged).
         const merged = mergeFieldChange(doc(m.base!.document), doc(row.document), doc(existing.document));
         if (Object.keys(merged.conflicts).length) {
-          throw new AppError(409, 'CONFLICT', `Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`, merged.conflicts);
+          throw conflict(`Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`, merged.conflicts);
         }
         document = merged.document;
         const saved = await revisionsRepo.saveDraft(trx, existing.id, existing.version, document, analyse(document), ENGINE_VERSION);

@@ -1,4 +1,4 @@
-import { AppError, notFound } from '../http/errors';
+import { conflict, notFound } from './errors';
 import { outboxRepo, type NewOutboxMessage, type OutboxRow } from '../repositories/outbox';
 import { auditRepo } from '../repositories/audit';
 import { iso, type Tx } from '../db/rows';
@@ -53,9 +53,9 @@ export const outboxService = {
     return ctx.db.transaction(async (trx) => {
       const current = await outboxRepo.find(trx, projectId, messageId);
       if (!current) throw notFound('The message');
-      if (current.status !== 'failed') throw new AppError(409, 'CONFLICT', `The message is ${current.status}; only a failed message is sent again.`);
+      if (current.status !== 'failed') throw conflict(`The message is ${current.status}; only a failed message is sent again.`);
       const row = await outboxRepo.requeue(trx, messageId);
-      if (!row) throw new AppError(409, 'CONFLICT', 'The message changed meanwhile; reload.');
+      if (!row) throw conflict('The message changed meanwhile; reload.');
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'message.requeued', subjectType: 'message', subjectId: messageId, details: { to: row.to_address } });
       return toMessageInfo(row, ctx.config.PUBLIC_URL);
     });

@@ -5,7 +5,7 @@
  * ends with the same answer (the route's 202); only for an active account is a link made, mailed
  * through the outbox and audited. A wrong, used and expired link are refused alike.
  */
-import { AppError } from '../http/errors';
+import { ServiceError } from './errors';
 import { hashPassword } from '../auth/password';
 import { assertAcceptablePassword } from '../auth/passwordPolicy';
 import { hashToken, newToken } from '../auth/tokens';
@@ -18,7 +18,7 @@ import type { ServiceContext } from './context';
 import { resetPasswordPath } from '../../src/shared/api/auth';
 
 export const invalidResetLink = () =>
-  new AppError(400, 'RESET_LINK_INVALID', 'This link to choose a new password cannot be used: it is incomplete, was already used, or has expired. Ask for a new one.');
+  new ServiceError('RESET_LINK_INVALID', 'This link to choose a new password cannot be used: it is incomplete, was already used, or has expired. Ask for a new one.');
 
 export const passwordResetService = {
   /**

@@ -1,4 +1,4 @@
-import { AppError, forbidden, notFound, staleVersion } from '../http/errors';
+import { ServiceError, conflict, forbidden, notFound, staleVersion } from './errors';
 import { membersRepo, projectsRepo, toProject, type ProjectRow } from '../repositories/projects';
 import { usersRepo } from '../repositories/users';
 import { auditRepo } from '../repositories/audit';
@@ -63,7 +63,7 @@ export const projectsService = {
   },
 };
 
-const lastDesigner = () => new AppError(409, 'LAST_DESIGNER', 'A project needs at least one designer. Add another designer first.');
+const lastDesigner = () => new ServiceError('LAST_DESIGNER', 'A project needs at least one designer. Add another designer first.');
 
 export const membersService = {
   list: (ctx: ServiceContext, projectId: string) => membersRepo.list(ctx.db, projectId),
@@ -72,10 +72,10 @@ export const membersService = {
     return ctx.db.transaction(async (trx) => {
       const user = await usersRepo.findByEmail(trx, body.email);
       if (!user || user.status === 'disabled') {
-        throw new AppError(404, 'USER_NOT_FOUND', 'No active account has this e-mail. Ask an administrator to invite the person first.', { email: 'No account with this e-mail' });
+        throw new ServiceError('USER_NOT_FOUND', 'No active account has this e-mail. Ask an administrator to invite the person first.', { email: 'No account with this e-mail' });
       }
       if (!(await membersRepo.insert(trx, projectId, user.id, body.role))) {
-        throw new AppError(409, 'CONFLICT', `${user.name} is already a member of this project.`, { email: 'Already a member' });
+        throw conflict(`${user.name} is already a member of this project.`, { email: 'Already a member' });
       }
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'member.added', subjectType: 'user', subjectId: user.id, details: { role: body.role } });
       return (await membersRepo.find(trx, projectId, user.id))!;

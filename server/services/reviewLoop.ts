@@ -6,7 +6,7 @@
  */
 import { createHash } from 'node:crypto';
 import { readSystemDocument, type SystemDocument } from '../../src/engine';
-import { AppError, notFound } from '../http/errors';
+import { conflict, notFound } from './errors';
 import { acceptanceRecordsRepo, reviewsRepo, type ReviewRow } from '../repositories/reviews';
 import { summariesRepo } from '../repositories/summaries';
 import { systemsRepo } from '../repositories/systems';
@@ -111,10 +111,10 @@ export const reviewLoopService = {
       if (!review) throw notFound('The review');
       const comment = await reviewsRepo.lockComment(trx, reviewId, commentId);
       if (!comment) throw notFound('The comment');
-      if (review.status !== 'returned') throw new AppError(409, 'CONFLICT', `This review is ${review.status}; only the comments of a returned review are answered.`);
+      if (review.status !== 'returned') throw conflict(`This review is ${review.status}; only the comments of a returned review are answered.`);
       const revision = await trx('revisions').where({ id: review.revision_id }).first('status', 'number');
       if (review.answered_in_revision_id || revision.status !== 'issued') {
-        throw new AppError(409, 'CONFLICT', `The replies to the review of revision ${revision.number} are frozen: a newer revision has been issued with them.`);
+        throw conflict(`The replies to the review of revision ${revision.number} are frozen: a newer revision has been issued with them.`);
       }
       await reviewsRepo.setReply(trx, commentId, reply, actor.id);
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'review.comment-answered', subjectType: 'review', subjectId: reviewId, details: { commentId, revisionNumber: revision.number } });

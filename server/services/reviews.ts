@@ -3,7 +3,7 @@
  * (overall and per item: a segment, a fixture, a device, a node or an input). A decision is
  * final for that revision; a returned design comes back as a new revision and a new review.
  */
-import { AppError, forbidden, notFound, staleVersion } from '../http/errors';
+import { conflict, forbidden, notFound, staleVersion } from './errors';
 import { reviewsRepo, type ReviewRow } from '../repositories/reviews';
 import { summariesRepo } from '../repositories/summaries';
 import { systemsRepo } from '../repositories/systems';
@@ -153,10 +153,10 @@ export const reviewsService = {
       const current = await reviewsRepo.lock(trx, projectId, reviewId);
       if (!current) throw notFound('The review');
       if (current.reviewer_id !== actor.id) throw forbidden('Only the inspector it was sent to decides this review.');
-      if (current.status !== 'received') throw new AppError(409, 'CONFLICT', `This review is already ${current.status}.`);
+      if (current.status !== 'received') throw conflict(`This review is already ${current.status}.`);
       if (current.version !== body.version) throw staleVersion();
       const revision = await trx('revisions').where({ id: current.revision_id }).first('status', 'number');
-      if (revision.status !== 'issued') throw new AppError(409, 'CONFLICT', `Revision ${revision.number} has been superseded; review the current revision.`);
+      if (revision.status !== 'issued') throw conflict(`Revision ${revision.number} has been superseded; review the current revision.`);
       if (!(await reviewsRepo.decide(trx, reviewId, body.version, { status: body.decision, comment: body.comment }))) throw staleVersion();
       await reviewsRepo.addComments(trx, reviewId, body.items);
       await notifySender(ctx, trx, actor, current, revision.number, body);

@@ -5,7 +5,7 @@
  * with their system. All or nothing, in one transaction.
  */
 import { verdictStatus, type Analysis } from '../../src/engine';
-import { AppError, notFound } from '../http/errors';
+import { conflict, invalid, notFound } from './errors';
 import { membersRepo, projectsRepo } from '../repositories/projects';
 import { reviewsRepo } from '../repositories/reviews';
 import { summariesRepo, type SummaryRow } from '../repositories/summaries';
@@ -56,7 +56,7 @@ export const submissionsService = {
       else if (member.role !== 'inspector') fields[`inspectorIds.${i}`] = `Is a ${member.role} here, not an inspector`;
       else if (!recipients.some((r) => r.id === member.userId)) recipients.push({ id: member.userId, email: member.email, name: member.name });
     }
-    if (Object.keys(fields).length) throw new AppError(400, 'VALIDATION_FAILED', 'This submission cannot be sent as it is.', fields);
+    if (Object.keys(fields).length) throw invalid('This submission cannot be sent as it is.', fields);
 
     // in the order chosen; each summary made now if it is still pending
     const ordered = systemIds.map((id) => issued.find((r) => r.system_id === id)!);
@@ -64,7 +64,7 @@ export const submissionsService = {
     for (const r of ordered) {
       let s = await summariesRepo.findByRevision(ctx.db, r.id);
       if (!s || s.status === 'pending') s = await summariesService.generate(ctx, projectId, r.system_id, r.id);
-      if (s.status !== 'ready') throw new AppError(409, 'CONFLICT', `The summary of ${r.system_name} could not be made, so the submission cannot be sent: ${s.error ?? 'unknown reason'}`);
+      if (s.status !== 'ready') throw conflict(`The summary of ${r.system_name} could not be made, so the submission cannot be sent: ${s.error ?? 'unknown reason'}`);
       summaries.push(s);
     }
     const sender = await usersRepo.findById(ctx.db, actor.id);

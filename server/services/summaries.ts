@@ -9,7 +9,7 @@
  */
 import { createHash } from 'node:crypto';
 import { readSystemDocument, verdictStatus, type Analysis, type SystemDocument } from '../../src/engine';
-import { AppError, notFound } from '../http/errors';
+import { ServiceError, conflict, invalid, notFound } from './errors';
 import { revisionsRepo, systemsRepo, type RevisionRow } from '../repositories/systems';
 import { projectsRepo, membersRepo, permitOf } from '../repositories/projects';
 import { usersRepo } from '../repositories/users';
@@ -65,14 +65,14 @@ export function verdictLine(a: Analysis): string {
 /** The stored analysis of an issued revision, refused when it cannot back a summary (none, or incomplete). */
 function summarisable(revision: RevisionRow): Analysis {
   const stored = revision.analysis as StoredAnalysis;
-  if (!stored?.ok) throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored?.error?.message ?? 'not analysed'}); it has no summary.`, undefined, {
+  if (!stored?.ok) throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored?.error?.message ?? 'not analysed'}); it has no summary.`, undefined, {
     reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored?.error?.message ?? 'Not analysed' }],
   });
   if (verdictStatus(stored.analysis) === 'incomplete') {
     const reasons = stored.analysis.verdict.incomplete?.length
       ? stored.analysis.verdict.incomplete
       : [{ code: 'no-checked-fixtures', elementType: 'system', elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
-    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${revision.number} is incomplete; an incomplete revision has no summary and is never sent.`, undefined, { reasons });
+    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} is incomplete; an incomplete revision has no summary and is never sent.`, undefined, { reasons });
   }
   return stored.analysis;
 }
@@ -186,7 +186,7 @@ export const summariesService = {
     const revision = await loadRevision(ctx, projectId, systemId, revisionId);
     if (revision.status === 'draft') throw notFound('The summary (a draft has none until it is issued)');
     const current = await summariesRepo.findByRevision(ctx.db, revisionId);
-    if (current?.status === 'ready') throw new AppError(409, 'CONFLICT', 'The summary is ready; an issued summary is never made again.');
+    if (current?.status === 'ready') throw conflict('The summary is ready; an issued summary is never made again.');
     await auditRepo.record(ctx.db, { actorId: actor.id, projectId, action: 'summary.retried', subjectType: 'revision', subjectId: revisionId });
     return toSummaryInfo(await this.generate(ctx, projectId, systemId, revisionId, { retry: true }), systemId);
   },
@@ -197,7 +197,7 @@ export const summariesService = {
     if (revision.status === 'draft') throw notFound('The summary (a draft has none until it is issued)');
     let row = await summariesRepo.findByRevision(ctx.db, revisionId);
     if (!row || row.status === 'pending') row = await this.generate(ctx, projectId, systemId, revisionId);
-    if (row.status !== 'ready') throw new AppError(409, 'CONFLICT', `The summary could not be made: ${row.error ?? 'unknown reason'}`);
+    if (row.status !== 'ready') throw conflict(`The summary could not be made: ${row.error ?? 'unknown reason'}`);
     const bytes = await summariesRepo.pdf(ctx.db, row.id);
     if (!bytes) throw notFound('The summary');
     return { bytes, sha256: row.sha256!, fileName: summaryFileName(row.header) };
@@ -210,12 +210,12 @@ export const summariesService = {
    */
   async send(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, body: SendSummaryBody & { inspectorIds: string[]; emails: string[] }): Promise<SendSummaryResponse> {
     const revision = await loadRevision(ctx, projectId, systemId, revisionId);
-    if (revision.status !== 'issued') throw new AppError(409, 'CONFLICT', revision.status === 'draft' ? 'Issue the revision before sending it.' : `Revision ${revision.number} is superseded; send the current issued revision.`);
+    if (revision.status !== 'issued') throw conflict(revision.status === 'draft' ? 'Issue the revision before sending it.' : `Revision ${revision.number} is superseded; send the current issued revision.`);
     const analysis = summarisable(revision);
     const failing = verdictStatus(analysis) === 'fail';
     let summary = await summariesRepo.findByRevision(ctx.db, revisionId);
     if (!summary || summary.status === 'pending') summary = await this.generate(ctx, projectId, systemId, revisionId);
-    if (summary.status !== 'ready') throw new AppError(409, 'CONFLICT', `The summary could not be made, so it cannot be sent: ${summary.error ?? 'unknown reason'}`);
+    if (summary.status !== 'ready') throw conflict(`The summary could not be made, so it cannot be sent: ${summary.error ?? 'unknown reason'}`);
     const sender = await usersRepo.findById(ctx.db, actor.id);
     const viewUrl = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}${resultViewPath(projectId, systemId, revisionId)}`;
 
@@ -250,7 +250,7 @@ export const summariesService = {
         const invitation = user.status === 'invited' ? await issueInvitation(ctx, trx, user.id, actor, { send: false }) : undefined;
         recipients.set(user.id, { id: user.id, email: user.email, name: user.name, invitation });
       }
-      if (Object.keys(fields).length) throw new AppError(400, 'VALIDATION_FAILED', 'Some recipients cannot receive this summary.', fields);
+      if (Object.keys(fields).length) throw invalid('Some recipients cannot receive this summary.', fields);
 
       const messages = [];
       const reviewIds: string[] = [];

@@ -1,4 +1,4 @@
-import { AppError, notFound, staleVersion } from '../http/errors';
+import { conflict, notFound, staleVersion } from './errors';
 import { newToken } from '../auth/tokens';
 import { invitationsRepo } from '../repositories/invitations';
 import { toUser, usersRepo, type UserRow } from '../repositories/users';
@@ -33,7 +33,7 @@ export const usersService = {
   async create(ctx: ServiceContext, actor: Actor, body: Required<CreateUserBody>): Promise<{ user: User; invitation: Invitation }> {
     return ctx.db.transaction(async (trx) => {
       if (await usersRepo.findByEmail(trx, body.email)) {
-        throw new AppError(409, 'CONFLICT', 'An account with this e-mail already exists.', { email: 'Already has an account' });
+        throw conflict('An account with this e-mail already exists.', { email: 'Already has an account' });
       }
       const row = await usersRepo.insert(trx, { email: body.email, name: body.name, is_admin: body.isAdmin, account_role: body.accountRole });
       const invitation = await issueInvitation(ctx, trx, row.id, actor);
@@ -47,7 +47,7 @@ export const usersService = {
       const current = await usersRepo.findById(trx, userId);
       if (!current) throw notFound('The user');
       if (userId === actor.id && (body.isAdmin === false || body.disabled === true)) {
-        throw new AppError(409, 'CONFLICT', 'You cannot remove your own administrator access or disable yourself.');
+        throw conflict('You cannot remove your own administrator access or disable yourself.');
       }
       const values: Partial<UserRow> = {};
       if (body.name !== undefined) values.name = body.name;
@@ -66,7 +66,7 @@ export const usersService = {
     return ctx.db.transaction(async (trx) => {
       const user = await usersRepo.findById(trx, userId);
       if (!user) throw notFound('The user');
-      if (user.status === 'disabled') throw new AppError(409, 'CONFLICT', 'Enable the account before sending a new link.');
+      if (user.status === 'disabled') throw conflict('Enable the account before sending a new link.');
       const invitation = await issueInvitation(ctx, trx, userId, actor);
       await auditRepo.record(trx, { actorId: actor.id, action: 'user.invited', subjectType: 'user', subjectId: userId });
       return invitation;
