@@ -1,4 +1,5 @@
 import type { Tx } from '../db/rows';
+import type { RevisionRow } from './systems';
 import type { ChangeItem, FieldChangeRecord, FieldChangeStatus } from '../../src/shared/api/fieldChanges';
 
 export interface FieldChangeRow {
@@ -74,8 +75,6 @@ export const fieldChangesRepo = {
   },
   find: (db: Tx, projectId: string, systemId: string, id: string) =>
     listQuery(db).where({ 'fc.id': id, 'fc.project_id': projectId, 'fc.system_id': systemId }).first() as Promise<FieldChangeListRow | undefined>,
-  findForUpdate: (db: Tx, projectId: string, systemId: string, id: string) =>
-    db<FieldChangeRow>('field_changes').where({ id, project_id: projectId, system_id: systemId }).forUpdate().first() as Promise<FieldChangeRow | undefined>,
   async nextNumber(db: Tx, systemId: string): Promise<number> {
     const row = (await db('field_changes').where({ system_id: systemId }).max({ n: 'number' }).first()) as { n: number | null };
     return (row?.n ?? 0) + 1;
@@ -111,24 +110,11 @@ export const fieldChangesRepo = {
     return (row?.record as FieldChangeRecord | null) ?? null;
   },
   setRevisionOrigin: (db: Tx, revisionId: string, fieldChangeId: string) => db('revisions').where({ id: revisionId, status: 'draft' }).update({ field_change_id: fieldChangeId }),
-  enqueueMessage: (db: Tx, values: FieldChangeMessage) => db('outbox').insert(values),
+  /** The system's current issued revision, the only one a field change starts on or is decided against. */
+  currentIssued: (db: Tx, systemId: string) => db<RevisionRow>('revisions').where({ system_id: systemId, status: 'issued' }).first(),
   /** Project designers, who receive proposed field changes. */
   designers: (db: Tx, projectId: string) =>
     db('project_members as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.project_id': projectId, 'm.role': 'designer' }).whereNot('u.status', 'disabled').select('u.id', 'u.name', 'u.email') as Promise<{ id: string; name: string; email: string }[]>,
 };
 
 export type { ChangeItem };
-
-/** A field change's e-mail, written to the outbox in the caller's transaction (the worker sends it). */
-export interface FieldChangeMessage {
-  kind: 'field-change';
-  project_id: string;
-  field_change_id: string;
-  recipient_user_id: string;
-  to_address: string;
-  to_name: string;
-  subject: string;
-  text_body: string;
-  created_by: string;
-  max_attempts: number;
-}

@@ -5,6 +5,8 @@ export interface OutboxRow {
   kind: 'summary' | 'invitation' | 'password-reset' | 'field-change' | 'review-decision';
   project_id: string | null;
   revision_id: string | null;
+  /** the field change a 'field-change' message is about */
+  field_change_id?: string | null;
   recipient_user_id: string | null;
   to_address: string;
   to_name: string;
@@ -29,7 +31,7 @@ export interface OutboxRow {
 }
 
 export type NewOutboxMessage = Pick<OutboxRow, 'kind' | 'to_address' | 'subject' | 'text_body' | 'max_attempts'> &
-  Partial<Pick<OutboxRow, 'project_id' | 'revision_id' | 'recipient_user_id' | 'to_name' | 'secret_url' | 'attachment_summary_id' | 'extra_summary_ids' | 'created_by'>>;
+  Partial<Pick<OutboxRow, 'project_id' | 'revision_id' | 'field_change_id' | 'recipient_user_id' | 'to_name' | 'secret_url' | 'attachment_summary_id' | 'extra_summary_ids' | 'created_by'>>;
 
 export const outboxRepo = {
   async insert(db: Tx, values: NewOutboxMessage): Promise<OutboxRow> {

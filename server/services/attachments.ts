@@ -8,6 +8,7 @@ import { conflict, forbidden, invalid, notFound } from './errors';
 import { detectType, sanitizeFileName } from './fileTypes';
 import { attachmentsRepo, type AttachmentRow } from '../repositories/attachments';
 import { fieldChangesRepo } from '../repositories/fieldChanges';
+import { locks } from '../repositories/locks';
 import { auditRepo } from '../repositories/audit';
 import { iso } from '../db/rows';
 import type { Actor, ServiceContext } from './context';
@@ -35,7 +36,7 @@ export interface UploadedFile {
 export const attachmentsService = {
   async add(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, fieldChangeId: string, file: UploadedFile): Promise<Attachment> {
     const id = await ctx.db.transaction(async (trx) => {
-      const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, fieldChangeId);
+      const row = await locks.fieldChange(trx, projectId, systemId, fieldChangeId);
       if (!row) throw notFound('The field change');
       if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change attaches files to it.');
       if (row.status !== 'draft' && row.status !== 'proposed') throw conflict(`Field change ${row.number} is ${row.status}; files are attached while it is a draft or proposed.`);
@@ -76,7 +77,7 @@ export const attachmentsService = {
 
   async remove(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, fieldChangeId: string, attachmentId: string): Promise<void> {
     await ctx.db.transaction(async (trx) => {
-      const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, fieldChangeId);
+      const row = await locks.fieldChange(trx, projectId, systemId, fieldChangeId);
       if (!row) throw notFound('The field change');
       if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change removes its files.');
       if (row.status !== 'draft') throw conflict(`Field change ${row.number} is ${row.status}; its files stay as they were sent.`);

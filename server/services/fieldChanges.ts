@@ -6,11 +6,12 @@
  * same transaction as the step.
  */
 import { ENGINE_VERSION, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
-import { ServiceError, conflict, forbidden, notFound, staleVersion } from './errors';
+import { ServiceError, conflict, notFound, staleVersion } from './errors';
 import { systemsRepo, revisionsRepo, type RevisionRow } from '../repositories/systems';
 import { fieldChangesRepo, type FieldChangeListRow, type FieldChangeRow } from '../repositories/fieldChanges';
 import { attachmentsRepo } from '../repositories/attachments';
 import { auditRepo } from '../repositories/audit';
+import { locks } from '../repositories/locks';
 import { usersRepo } from '../repositories/users';
 import { projectsRepo } from '../repositories/projects';
 import { iso, type Tx } from '../db/rows';
@@ -21,6 +22,7 @@ import { compareDocuments } from './fieldChangeComparison';
 import { mergeFieldChange } from './fieldChangeMerge';
 import { fieldChangeDecidedMessage, fieldChangeProposedMessage } from '../mail/messages';
 import type { Actor, ServiceContext } from './context';
+import { runTransition } from './fieldChangeWorkflow';
 import {
   fieldChangeViewPath,
   type ComparisonResponse,
@@ -59,38 +61,13 @@ function present(row: FieldChangeListRow & { base_document: unknown }): FieldCha
   };
 }
 
-const stateWords: Record<FieldChangeStatus, string> = { draft: 'a draft', proposed: 'proposed', accepted: 'accepted', declined: 'declined' };
-const outOfOrder = (row: FieldChangeRow, wanted: string) => conflict(`Field change ${row.number} is ${stateWords[row.status]}; ${wanted}`);
-
-async function lockOwn(trx: Tx, actor: Actor, projectId: string, systemId: string, id: string): Promise<FieldChangeRow> {
-  const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, id);
-  if (!row) throw notFound('The field change');
-  if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change changes it.');
-  return row;
-}
-
 /** The base revision must still be the system's current issued one. */
 function requireCurrent(base: RevisionRow | undefined, row: FieldChangeRow, current: RevisionRow | undefined, doing: string) {
   if (base?.status === 'issued') return;
   const now = current ? `revision ${current.number} is` : 'no revision is';
-  throw conflict(`Field change ${row.number} was made on revision ${base?.number ?? '?'}, which is no longer the current issued revision (${now}). It cannot be ${doing}; start a new field change on the current issued revision.`,
+  throw conflict(
+    `Field change ${row.number} was made on revision ${base?.number ?? '?'}, which is no longer the current issued revision (${now}). It cannot be ${doing}; start a new field change on the current issued revision.`,
   );
-}
-const currentIssued = (trx: Tx, systemId: string) => trx<RevisionRow>('revisions').where({ system_id: systemId, status: 'issued' }).first();
-
-function enqueue(ctx: ServiceContext, trx: Tx, o: { projectId: string; fieldChangeId: string; to: { id: string; email: string; name: string }; subject: string; text: string; createdBy: string }) {
-  return fieldChangesRepo.enqueueMessage(trx, {
-    kind: 'field-change',
-    project_id: o.projectId,
-    field_change_id: o.fieldChangeId,
-    recipient_user_id: o.to.id,
-    to_address: o.to.email,
-    to_name: o.to.name,
-    subject: o.subject,
-    text_body: o.text,
-    created_by: o.createdBy,
-    max_attempts: ctx.config.OUTBOX_MAX_ATTEMPTS,
-  });
 }
 
 async function mailContext(ctx: ServiceContext, trx: Tx, row: FieldChangeRow) {
@@ -124,11 +101,11 @@ export const fieldChangesService = {
   async create(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, body: CreateFieldChangeBody): Promise<FieldChange> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const id = await ctx.db.transaction(async (trx) => {
-      await trx.raw('SELECT id FROM systems WHERE id = ? FOR UPDATE', [systemId]);
+      await locks.system(trx, systemId);
       const base = await revisionsRepo.find(trx, systemId, body.revisionId);
       if (!base) throw notFound('The revision');
       if (base.status !== 'issued') {
-        const current = await currentIssued(trx, systemId);
+        const current = await fieldChangesRepo.currentIssued(trx, systemId);
         throw conflict(`Revision ${base.number} is ${base.status === 'draft' ? 'a draft' : 'superseded'}; a field change starts on the current issued revision${current ? ` (revision ${current.number})` : ', and this system has none yet'}.`);
       }
       const document = doc(base.document);
@@ -153,65 +130,48 @@ export const fieldChangesService = {
 
   /** Saves a draft's title, description and document; a document may differ from the issued one only where a field change may. */
   async update(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, body: { title?: string; description?: string; document?: SystemDocument; version: number }): Promise<FieldChange> {
-    await ctx.db.transaction(async (trx) => {
-      const row = await lockOwn(trx, actor, projectId, systemId, id);
-      if (row.status !== 'draft') throw outOfOrder(row, 'only a draft field change is edited.');
-      if (row.version !== body.version) throw staleVersion();
+    await runTransition(ctx, actor, { projectId, systemId, id, version: body.version, action: 'save' }, async (trx, row) => {
       let analysis: unknown;
       if (body.document) {
         const base = await revisionsRepo.find(trx, systemId, row.base_revision_id);
         const fields = forbiddenDifferences(doc(base!.document), body.document);
         const paths = Object.keys(fields);
         if (paths.length) {
-          throw new ServiceError('FORBIDDEN', `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths.slice(0, 8).map((p) => p.replace(/^document\./, '')).join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
+          throw new ServiceError(
+            'FORBIDDEN',
+            `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths.slice(0, 8).map((p) => p.replace(/^document\./, '')).join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
             fields,
           );
         }
         analysis = analyse(body.document);
       }
-      const saved = await fieldChangesRepo.updateDraft(trx, id, body.version, {
-        title: body.title,
-        description: body.description,
-        document: body.document,
-        analysis,
-        engine_version: body.document ? ENGINE_VERSION : undefined,
-      });
-      if (!saved) throw staleVersion();
-      await auditRepo.record(trx, {
-        actorId: actor.id,
-        projectId,
-        action: 'field-change.saved',
-        subjectType: 'field-change',
-        subjectId: id,
-        details: { number: row.number, version: saved.version, document: !!body.document, ...(body.title !== undefined ? { title: body.title } : {}) },
-      });
+      return {
+        set: { title: body.title, description: body.description, document: body.document, analysis, engine_version: body.document ? ENGINE_VERSION : undefined },
+        details: { document: !!body.document, ...(body.title !== undefined ? { title: body.title } : {}) },
+        result: undefined,
+      };
     });
     return this.get(ctx, projectId, systemId, id);
   },
 
   async propose(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, version: number): Promise<FieldChange> {
-    await ctx.db.transaction(async (trx) => {
-      const row = await lockOwn(trx, actor, projectId, systemId, id);
-      if (row.status !== 'draft') throw outOfOrder(row, 'only a draft is proposed.');
-      if (row.version !== version) throw staleVersion();
+    await runTransition(ctx, actor, { projectId, systemId, id, version, action: 'propose' }, async (trx, row) => {
       const m = await mailContext(ctx, trx, row);
-      requireCurrent(m.base, row, await currentIssued(trx, systemId), 'proposed');
+      requireCurrent(m.base, row, await fieldChangesRepo.currentIssued(trx, systemId), 'proposed');
       const issuedDoc = doc(m.base!.document);
       const proposedDoc = doc(row.document);
       const changes = describeChanges(issuedDoc, proposedDoc);
       if (!changes.length) throw conflict('The field change is the same as the issued revision; change something before proposing it.');
       const stored = row.analysis as { ok: boolean; error?: { message: string } };
       if (!stored.ok) throw conflict(`The field change cannot be computed, so it cannot be proposed: ${stored.error?.message ?? 'unknown reason'}`);
-      const moved = await fieldChangesRepo.transition(trx, id, version, 'draft', 'proposed', { proposed_at: trx.fn.now() });
-      if (!moved) throw staleVersion();
-      const designers = await fieldChangesRepo.designers(trx, projectId);
-      const contractor = await usersRepo.findById(trx, actor.id);
+      const [designers, contractor] = await Promise.all([fieldChangesRepo.designers(trx, projectId), usersRepo.findById(trx, actor.id)]);
       const verdict = compareDocuments(issuedDoc, proposedDoc, changes).verdict.sentence;
-      for (const d of designers) {
-        const mail = fieldChangeProposedMessage({ ...m, recipientName: d.name, contractorName: contractor?.name ?? 'A contractor', number: row.number, title: row.title, description: row.description, changes: changes.map((c) => c.text), verdict });
-        await enqueue(ctx, trx, { projectId, fieldChangeId: id, to: d, subject: mail.subject, text: mail.text, createdBy: actor.id });
-      }
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.proposed', subjectType: 'field-change', subjectId: id, details: { number: row.number, to: designers.map((d) => d.email), changes: changes.map((c) => c.text) } });
+      return {
+        set: { proposed_at: trx.fn.now() },
+        details: { to: designers.map((d) => d.email), changes: changes.map((c) => c.text) },
+        message: (to) => fieldChangeProposedMessage({ ...m, recipientName: to.name, contractorName: contractor?.name ?? 'A contractor', number: row.number, title: row.title, description: row.description, changes: changes.map((c) => c.text), verdict }),
+        result: undefined,
+      };
     });
     return this.get(ctx, projectId, systemId, id);
   },
@@ -221,18 +181,12 @@ export const fieldChangesService = {
    * has a draft already, the field change's changes are carried onto that draft (fieldChangeMerge.ts).
    */
   async accept(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, version: number, comment: string | null) {
-    const revisionId = await ctx.db.transaction(async (trx) => {
-      const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, id);
-      if (!row) throw notFound('The field change');
-      if (row.status !== 'proposed') throw outOfOrder(row, row.status === 'draft' ? 'its contractor proposes it before it is accepted.' : 'it is decided already.');
-      if (row.version !== version) throw staleVersion();
-      await trx.raw('SELECT id FROM systems WHERE id = ? FOR UPDATE', [systemId]);
+    const revisionId = await runTransition(ctx, actor, { projectId, systemId, id, version, action: 'accept' }, async (trx, row) => {
       const m = await mailContext(ctx, trx, row);
-      requireCurrent(m.base, row, await currentIssued(trx, systemId), 'accepted');
+      requireCurrent(m.base, row, await fieldChangesRepo.currentIssued(trx, systemId), 'accepted');
       const [contractor, designer] = await Promise.all([usersRepo.findById(trx, row.created_by), usersRepo.findById(trx, actor.id)]);
       const existing = await revisionsRepo.draftOf(trx, systemId);
       let revision: RevisionRow;
-      let document: SystemDocument;
       if (existing) {
         // A system has one draft at a time: the contractor's changes are carried onto the designer's
         // draft, unless the designer changed the same thing differently (then nothing is merged).
@@ -240,12 +194,11 @@ export const fieldChangesService = {
         if (Object.keys(merged.conflicts).length) {
           throw conflict(`Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`, merged.conflicts);
         }
-        document = merged.document;
-        const saved = await revisionsRepo.saveDraft(trx, existing.id, existing.version, document, analyse(document), ENGINE_VERSION);
+        const saved = await revisionsRepo.saveDraft(trx, existing.id, existing.version, merged.document, analyse(merged.document), ENGINE_VERSION);
         if (!saved) throw staleVersion();
         revision = saved;
       } else {
-        document = doc(row.document);
+        const document = doc(row.document);
         revision = await revisionsRepo.insert(trx, {
           system_id: systemId,
           number: await revisionsRepo.nextNumber(trx, systemId),
@@ -256,7 +209,6 @@ export const fieldChangesService = {
           note: `From field change ${row.number} (“${row.title}”), proposed by ${contractor?.name ?? 'a contractor'}, on revision ${m.baseRevisionNumber}`,
         });
       }
-      const number = revision.number;
       await fieldChangesRepo.setRevisionOrigin(trx, revision.id, id);
       const acceptedAt = new Date();
       const record: FieldChangeRecord = {
@@ -271,34 +223,27 @@ export const fieldChangesService = {
         comment,
         changes: describeChanges(doc(m.base!.document), doc(row.document)),
       };
-      const moved = await fieldChangesRepo.transition(trx, id, version, 'proposed', 'accepted', { decided_by: actor.id, decided_at: acceptedAt, accepted_revision_id: revision.id, record: JSON.stringify(record) });
-      if (!moved) throw staleVersion();
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.accepted', subjectType: 'field-change', subjectId: id, details: { number: row.number, revision: number, comment } });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.drafted', subjectType: 'revision', subjectId: revision.id, details: { number, from: m.baseRevisionNumber, fieldChangeId: id } });
-      if (contractor) {
-        const mail = fieldChangeDecidedMessage({ ...m, recipientName: contractor.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'accepted', text: comment, newRevisionNumber: number });
-        await enqueue(ctx, trx, { projectId, fieldChangeId: id, to: contractor, subject: mail.subject, text: mail.text, createdBy: actor.id });
-      }
-      return revision.id;
+      return {
+        set: { decided_by: actor.id, decided_at: acceptedAt, accepted_revision_id: revision.id, record: JSON.stringify(record) },
+        details: { revision: revision.number, comment },
+        moreAudit: [{ action: 'revision.drafted', subjectType: 'revision', subjectId: revision.id, details: { number: revision.number, from: m.baseRevisionNumber, fieldChangeId: id } }],
+        message: (to) => fieldChangeDecidedMessage({ ...m, recipientName: to.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'accepted', text: comment, newRevisionNumber: revision.number }),
+        result: revision.id,
+      };
     });
     return { fieldChange: await this.get(ctx, projectId, systemId, id), revision: await systemsService.revision(ctx, projectId, systemId, revisionId) };
   },
 
   async decline(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, version: number, reason: string): Promise<FieldChange> {
-    await ctx.db.transaction(async (trx) => {
-      const row = await fieldChangesRepo.findForUpdate(trx, projectId, systemId, id);
-      if (!row) throw notFound('The field change');
-      if (row.status !== 'proposed') throw outOfOrder(row, row.status === 'draft' ? 'its contractor proposes it before it is declined.' : 'it is decided already.');
-      if (row.version !== version) throw staleVersion();
-      const moved = await fieldChangesRepo.transition(trx, id, version, 'proposed', 'declined', { decided_by: actor.id, decided_at: trx.fn.now(), decline_reason: reason });
-      if (!moved) throw staleVersion();
+    await runTransition(ctx, actor, { projectId, systemId, id, version, action: 'decline' }, async (trx, row) => {
       const m = await mailContext(ctx, trx, row);
-      const [contractor, designer] = await Promise.all([usersRepo.findById(trx, row.created_by), usersRepo.findById(trx, actor.id)]);
-      if (contractor) {
-        const mail = fieldChangeDecidedMessage({ ...m, recipientName: contractor.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'declined', text: reason, newRevisionNumber: null });
-        await enqueue(ctx, trx, { projectId, fieldChangeId: id, to: contractor, subject: mail.subject, text: mail.text, createdBy: actor.id });
-      }
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.declined', subjectType: 'field-change', subjectId: id, details: { number: row.number, reason } });
+      const designer = await usersRepo.findById(trx, actor.id);
+      return {
+        set: { decided_by: actor.id, decided_at: trx.fn.now(), decline_reason: reason },
+        details: { reason },
+        message: (to) => fieldChangeDecidedMessage({ ...m, recipientName: to.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'declined', text: reason, newRevisionNumber: null }),
+        result: undefined,
+      };
     });
     return this.get(ctx, projectId, systemId, id);
   },
