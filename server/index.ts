@@ -10,6 +10,7 @@ import cluster, { type Worker } from 'node:cluster';
 import { loadConfig } from './config';
 import { createDb } from './db/knex';
 import { createApp } from './app';
+import { installCrashHandlers, log } from './log';
 
 const config = loadConfig();
 
@@ -19,20 +20,20 @@ else serve();
 function serve() {
   const db = createDb(config.DATABASE_URL);
   const { app, close, devMail } = createApp({ config, db, startOutbox: true, oneOfSeveralProcesses: cluster.isWorker });
-  void devMail?.ready.then(({ port }) => console.log(`[headroom] development mail sink on 127.0.0.1:${port} (messages at /api/dev/mail)`), (err) => console.error('[headroom] the development mail sink did not start:', err));
+  void devMail?.ready.then(({ port }) => log.info(`development mail sink on 127.0.0.1:${port} (messages at /api/dev/mail)`), (err) => log.error({ err }, 'the development mail sink did not start'));
 
   const server = app.listen(config.PORT, config.HOST, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
     const which = cluster.isWorker ? ` (app process ${cluster.worker!.id}, pid ${process.pid})` : '';
-    console.log(`[headroom] listening on http://${config.HOST}:${port}${which}`);
+    log.info(`listening on http://${config.HOST}:${port}${which}`);
   });
 
   let stopping = false;
   async function stop(signal: string) {
     if (stopping) return;
     stopping = true;
-    if (!cluster.isWorker) console.log(`[headroom] ${signal}: stopping`);
+    if (!cluster.isWorker) log.info(`${signal}: stopping`);
     // no new connections; answers in flight finish, then the pool and the outbox worker close
     server.close();
     await close().catch(() => {});
@@ -41,10 +42,15 @@ function serve() {
   }
   process.on('SIGINT', () => void stop('SIGINT'));
   process.on('SIGTERM', () => void stop('SIGTERM'));
+  installCrashHandlers(async () => {
+    server.close();
+    await close().catch(() => {});
+    await db.destroy().catch(() => {});
+  });
 }
 
 function supervise(count: number) {
-  console.log(`[headroom] starting ${count} app processes on one port (HEADROOM_PROCESSES=${count})`);
+  log.info(`starting ${count} app processes on one port (HEADROOM_PROCESSES=${count})`);
   let stopping = false;
   /** crashes in the last minute: a process that keeps dying (a bad setting, the port taken) stops the whole server */
   const crashes: number[] = [];
@@ -69,13 +75,13 @@ function supervise(count: number) {
     const now = Date.now();
     crashes.push(now);
     while (crashes.length && crashes[0] < now - 60_000) crashes.shift();
-    console.error(`[headroom] app process ${worker.id} (pid ${worker.process.pid}) ended (${signal ?? `exit ${code}`})`);
+    log.error(`app process ${worker.id} (pid ${worker.process.pid}) ended (${signal ?? `exit ${code}`})`);
     if (crashes.length > CRASHES_PER_MINUTE) {
-      console.error(`[headroom] app processes ended ${crashes.length} times in a minute: stopping the server (see the messages above)`);
+      log.fatal(`app processes ended ${crashes.length} times in a minute: stopping the server (see the messages above)`);
       stopAll('crash loop', 1);
       return;
     }
-    console.error('[headroom] starting a new app process in its place');
+    log.warn('starting a new app process in its place');
     fork();
   });
 
@@ -84,7 +90,7 @@ function supervise(count: number) {
     if (stopping) return;
     stopping = true;
     exitCode = code;
-    console.log(`[headroom] ${reason}: stopping ${alive.size} app processes`);
+    log.info(`${reason}: stopping ${alive.size} app processes`);
     if (alive.size === 0) process.exit(exitCode);
     for (const w of alive) w.process.kill('SIGTERM');
     // answers in flight get 20 s (a choice, longer than any request here); then the stragglers are ended

@@ -2,6 +2,7 @@ import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ErrorCode } from '../../src/shared/api/errors';
 import { ServiceError } from '../services/errors';
+import { log } from '../log';
 
 export { notFound, forbidden, staleVersion } from '../services/errors';
 
@@ -147,7 +148,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   req.log?.error?.(err);
-  console.error(`[headroom] ${req.method} ${req.originalUrl} failed:`, err);
+  log.error({ err, method: req.method, url: req.originalUrl }, `${req.method} ${req.originalUrl} failed`);
   res.status(500).json({ error: { code: 'INTERNAL', message: 'Something went wrong on the server. Nothing was saved.' } });
 };
 

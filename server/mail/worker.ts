@@ -23,6 +23,7 @@ import { summariesRepo } from '../repositories/summaries';
 import { auditRepo } from '../repositories/audit';
 import type { Mailer } from './transport';
 import { SECRET_URL } from './messages';
+import { log } from '../log';
 
 export interface WorkerOptions {
   pollMs: number;
@@ -76,7 +77,7 @@ export class OutboxWorker {
       try {
         handled = await this.runOnce();
       } catch (err) {
-        if (!this.stopping) console.error('[headroom] outbox worker:', err instanceof Error ? err.message : err);
+        if (!this.stopping) log.error({ err }, 'outbox worker');
       }
       if (handled === 0 && !this.stopping) {
         await new Promise<void>((resolve) => {

@@ -29,6 +29,7 @@ import { fieldChangesRepo } from '../repositories/fieldChanges';
 import type { Actor, ServiceContext } from './context';
 import { resultViewPath, type SendSummaryResponse, type SummaryHeader, type SummaryInfo } from '../../src/shared/api/summaries';
 import type { SendSummaryBody } from '../../src/shared/api/summaries';
+import { log } from '../log';
 
 type StoredAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: { message: string } };
 
@@ -170,7 +171,7 @@ export const summariesService = {
       }
     });
     if (outcome.error === null) return outcome.row;
-    console.error(`[headroom] summary of revision ${revisionId} failed: ${outcome.error}`);
+    log.error({ revisionId }, `summary of revision ${revisionId} failed: ${outcome.error}`);
     await summariesRepo.markFailed(ctx.db, outcome.row.id, outcome.error);
     return (await summariesRepo.findByRevision(ctx.db, revisionId))!;
   },
