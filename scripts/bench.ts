@@ -6,6 +6,7 @@
  *   engine  — the 5,000-segment trees against EPANET (epanet-js) solving the same network;
  *   sizing  — automatic sizing of the 40-storey buildings against one analysis (scripts/bench/sizing.ts);
  *   PDF     — the issued summary against a one-page pdf-lib document with the same fonts;
+ *   calc    — `npm run calc` on the demo, whole process, against a bare Node start (scripts/bench/calc.ts);
  *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint,
  *             and the same save with 2 app processes against 1 (HEADROOM_PROCESSES: the scaling);
  *   client  — the first page's gzip JavaScript against its library chunks, and edit-to-ledger
@@ -16,7 +17,7 @@
  * the end. Options:
  *
  *   npm run bench -- --quick          fewer runs and shorter rounds (about a third of the time)
- *   npm run bench -- --only engine,sizing,pdf,api,processes,client
+ *   npm run bench -- --only engine,sizing,pdf,calc,api,processes,client
  *   npm run bench -- --rebuild        build the client even when dist/ looks up to date
  *
  * Writes bench-output/bench.md (the table as markdown, with its date and machine) and
@@ -31,6 +32,7 @@ import { sizingRows } from './bench/sizing';
 import { pdfRows } from './bench/pdf';
 import { apiRows, startNodeServer, type NodeServer } from './bench/api';
 import { processRows } from './bench/processes';
+import { calcRows } from './bench/calc';
 import { buildClient, firstPageRow, ledgerRows } from './bench/client';
 import { markdownTable, machineLine, ratioOf, type BenchRow } from './bench/table';
 import { root, startCluster, type Cluster } from '../tests/load/world';
@@ -39,7 +41,7 @@ const args = process.argv.slice(2);
 const quick = args.includes('--quick');
 const onlyArg = args.find((a) => a.startsWith('--only'));
 const onlyValue = onlyArg?.includes('=') ? onlyArg.split('=')[1] : onlyArg ? args[args.indexOf(onlyArg) + 1] : undefined;
-const PARTS = ['engine', 'sizing', 'pdf', 'api', 'processes', 'client'] as const;
+const PARTS = ['engine', 'sizing', 'pdf', 'calc', 'api', 'processes', 'client'] as const;
 const only = new Set(onlyValue ? onlyValue.split(',') : PARTS);
 for (const p of only) if (!(PARTS as readonly string[]).includes(p)) throw new Error(`--only: unknown part "${p}" (parts: ${PARTS.join(', ')})`);
 const want = (p: (typeof PARTS)[number]) => only.has(p);
@@ -49,8 +51,8 @@ const want = (p: (typeof PARTS)[number]) => only.has(p);
  * 2¼ minutes measured on a busy machine, 1½ with --quick) while each median has at least 3 samples.
  */
 const PLAN = quick
-  ? { engineRepeats: 15, sizingRuns: 3, pdfRuns: 5, apiRounds: 3, apiSeconds: 3, apiWarmup: 1, edits: 7 }
-  : { engineRepeats: 40, sizingRuns: 5, pdfRuns: 9, apiRounds: 7, apiSeconds: 5, apiWarmup: 2, edits: 15 };
+  ? { engineRepeats: 15, sizingRuns: 3, pdfRuns: 5, calcRuns: 5, apiRounds: 3, apiSeconds: 3, apiWarmup: 1, edits: 7 }
+  : { engineRepeats: 40, sizingRuns: 5, pdfRuns: 9, calcRuns: 11, apiRounds: 7, apiSeconds: 5, apiWarmup: 2, edits: 15 };
 /** 10 connections: the figure issue #7 names (and autocannon's default). */
 const CONNECTIONS = 10;
 
@@ -87,6 +89,10 @@ try {
     log(`PDF: ${PLAN.pdfRuns} runs per case …`);
     rows.push(...(await pdfRows(PLAN.pdfRuns)));
   }
+  if (want('calc')) {
+    log(`command line: ${PLAN.calcRuns} runs of each process …`);
+    rows.push(...calcRows(PLAN.calcRuns, log));
+  }
   const build = want('client') ? buildClient(args.includes('--rebuild'), log) : null;
   if (build) rows.push(...firstPageRow(build));
 
@@ -121,8 +127,8 @@ try {
   await cleanup();
 }
 
-// the table in the order of the issue: engine, PDF, API, client (a stable sort keeps each part's own order)
-const SECTION = ['engine', 'PDF', 'API', 'client'];
+// the table in the order of the issue: engine, PDF, command line, API, client (a stable sort keeps each part's own order)
+const SECTION = ['engine', 'PDF', 'command line', 'API', 'client'];
 rows.sort((a, b) => SECTION.findIndex((p) => a.figure.startsWith(p)) - SECTION.findIndex((p) => b.figure.startsWith(p)));
 const loadEnd = os.loadavg();
 const when = new Date();
