@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import type { QueryClient } from '@tanstack/react-query';
 import { Navigate, createBrowserRouter } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
 import { RouteErrorBoundary, RouterErrorView } from '../components/errors/route-error-boundary';
@@ -21,7 +22,8 @@ import { fieldChangeRoutes } from '../features/field-changes/routes';
 /** Each major route gets its own error boundary, so one failing page leaves the shell and the others working. */
 const guarded = (what: string, element: ReactNode) => <RouteErrorBoundary what={what}>{element}</RouteErrorBoundary>;
 
-export const routes: RouteObject[] = [
+/** The app's routes; loaders that start a page's queries get the app's query client (src/lib/route-data.ts). */
+export const appRoutes = (queryClient: QueryClient): RouteObject[] => [
   { path: paths.signIn.path, element: guarded('the sign-in page', <SignInRoute />), errorElement: <RouterErrorView /> },
   { path: paths.invitation.path, element: guarded('the invitation', <InvitationRoute />), errorElement: <RouterErrorView /> },
   { path: paths.forgotPassword.path, element: guarded('the forgotten-password page', <ForgotPasswordRoute />), errorElement: <RouterErrorView /> },
@@ -35,15 +37,15 @@ export const routes: RouteObject[] = [
       { path: paths.newProject.path, element: guarded('the new-project form', <NewProjectRoute />) },
       { path: paths.project.path, element: guarded('this project', <ProjectRoute />) },
       { path: paths.users.path, element: guarded('the accounts', <UsersRoute />) },
-      ...summaryRoutes,
+      ...summaryRoutes(queryClient),
       ...catalogRoutes,
-      ...fieldChangeRoutes,
-      ...walkRoutes,
+      ...fieldChangeRoutes(queryClient),
+      ...walkRoutes(queryClient),
       { path: '*', element: <NotFoundRoute /> },
     ],
   },
 ];
 
-export function createRouter() {
-  return createBrowserRouter(routes);
+export function createRouter(queryClient: QueryClient) {
+  return createBrowserRouter(appRoutes(queryClient));
 }

@@ -1,8 +1,10 @@
-import { describe, expect, it } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { QueryClient } from '@tanstack/react-query';
 import { matchPath, matchRoutes } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
 import { isSafeRedirect, paths } from '../../src/app/paths';
-import { routes } from '../../src/app/router';
+import { appRoutes } from '../../src/app/router';
+import { api } from '../../src/lib/api-client';
 import { walkPaths } from '../../src/features/walk/paths';
 import { summaryPaths } from '../../src/features/summaries/paths';
 import { catalogPaths } from '../../src/features/catalog/paths';
@@ -16,6 +18,8 @@ function allPatterns(list: RouteObject[]): string[] {
 
 // the app's table and the features' own tables (a feature composes its routes from its table)
 const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths), ...Object.values(fieldChangePaths), ...Object.values(catalogPaths), ...Object.values(buildingPaths)].map((entry) => entry.path);
+
+const routes = appRoutes(new QueryClient());
 
 describe('route table', () => {
   it('when the router is built, then every route path comes from the paths table (or is the catch-all)', () => {
@@ -62,5 +66,36 @@ describe('route table', () => {
     expect(paths.signIn.getHref('/sign-in')).toBe('/sign-in');
     expect(isSafeRedirect('/\\evil.example')).toBe(false);
     expect(isSafeRedirect('/users')).toBe(true);
+  });
+});
+
+describe('route loaders', () => {
+  afterEach(() => vi.unstubAllGlobals());
+
+  /** Runs the loaders of every route an address matches, as the router does, and returns the API paths they asked for. */
+  async function requestedBy(url: string): Promise<string[]> {
+    const asked: string[] = [];
+    // an API that never answers: what matters is what was asked, and that the loaders did not wait
+    vi.stubGlobal('fetch', (input: RequestInfo | URL) => {
+      asked.push(new URL(String(input), 'http://headroom.test').pathname);
+      return new Promise<Response>(() => {});
+    });
+    api.resetCsrfToken();
+    const matches = matchRoutes(appRoutes(new QueryClient()), url) ?? [];
+    for (const m of matches) {
+      const loader = m.route.loader;
+      if (typeof loader === 'function') expect(await loader({ params: m.params } as never, undefined as never)).toBeNull();
+    }
+    return asked;
+  }
+
+  it('when a revision’s step is opened, then its loaders have asked for the project, the system, the revision and the catalog before the page’s code is loaded', async () => {
+    const asked = await requestedBy(walkPaths.step.getHref('p1', 's1', 'r1', 'supply'));
+    expect(asked).toEqual(expect.arrayContaining(['/api/projects/p1', '/api/projects/p1/systems/s1', '/api/projects/p1/systems/s1/revisions/r1', '/api/catalog']));
+  });
+
+  it('when a field change is opened, then its loader has asked for the field change beside the project and system', async () => {
+    const asked = await requestedBy(fieldChangePaths.view.getHref('p1', 's1', 'f1'));
+    expect(asked).toEqual(expect.arrayContaining(['/api/projects/p1', '/api/projects/p1/systems/s1', '/api/projects/p1/systems/s1/field-changes/f1']));
   });
 });

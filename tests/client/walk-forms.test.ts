@@ -1,3 +1,4 @@
+import { QueryClient } from '@tanstack/react-query';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { matchRoutes } from 'react-router-dom';
@@ -18,12 +19,13 @@ import { treeOrder } from '../../src/features/walk/lib/tree';
 const house = (): SystemDocument =>
   SystemDocumentSchema.parse(JSON.parse(readFileSync(new URL('../../src/engine/examples/small-house.json', import.meta.url), 'utf8')));
 
-const leaf = (url: string) => matchRoutes(walkRoutes, url)?.at(-1);
+const routes = walkRoutes(new QueryClient());
+const leaf = (url: string) => matchRoutes(routes, url)?.at(-1);
 
 describe('walk routes', () => {
   it('when each step’s link is followed, then it reaches the step route with that step, under the revision frame', () => {
     for (const step of WALK_STEPS) {
-      const match = matchRoutes(walkRoutes, walkPaths.step.getHref('p 1', 's/2', 'r?3', step.id));
+      const match = matchRoutes(routes, walkPaths.step.getHref('p 1', 's/2', 'r?3', step.id));
       expect(match?.at(-1)?.route.path).toBe(walkPaths.step.path);
       expect(match?.at(-1)?.params).toMatchObject({ projectId: 'p 1', systemId: 's/2', revisionId: 'r?3', step: step.id });
       expect(match?.[0].route.path).toBe(walkPaths.revision.path);

@@ -3,8 +3,14 @@
  * lazily, so the engine (which the walk runs in the browser) stays out of the first page's
  * JavaScript; each page has its own error boundary.
  */
+import type { QueryClient } from '@tanstack/react-query';
 import { Navigate, useParams } from 'react-router-dom';
 import type { RouteObject } from 'react-router-dom';
+import { startQueries } from '../../lib/route-data';
+import { projectQueryOptions } from '../projects/api/get-project';
+import { systemQueryOptions } from '../systems/api/get-system';
+import { revisionQueryOptions } from '../systems/api/get-revision';
+import { catalogQueryOptions } from '../systems/api/get-catalog';
 import { guarded } from '../../components/errors/route-error-boundary';
 import { walkPaths } from './paths';
 import { buildingRevisionRoutes } from '../building/routes';
@@ -15,9 +21,11 @@ function RevisionIndex() {
   return <Navigate replace to={walkPaths.step.getHref(projectId, systemId, revisionId, 'supply')} />;
 }
 
-export const walkRoutes: RouteObject[] = [
+/** The walk's routes; their loaders start the frame's queries beside the page's code (src/lib/route-data.ts). */
+export const walkRoutes = (queryClient: QueryClient): RouteObject[] => [
   {
     path: walkPaths.system.path,
+    loader: startQueries(queryClient, ({ projectId = '', systemId = '' }) => [projectQueryOptions(projectId), systemQueryOptions(projectId, systemId)]),
     lazy: async () => ({ Component: guarded('this system', (await import('./pages/system-overview-page')).SystemOverviewPage) }),
   },
   {
@@ -26,6 +34,13 @@ export const walkRoutes: RouteObject[] = [
   },
   {
     path: walkPaths.revision.path,
+    // the frame reads the project, the system, the revision and the catalog before it shows a step
+    loader: startQueries(queryClient, ({ projectId = '', systemId = '', revisionId = '' }) => [
+      projectQueryOptions(projectId),
+      systemQueryOptions(projectId, systemId),
+      revisionQueryOptions(projectId, systemId, revisionId),
+      catalogQueryOptions(),
+    ]),
     lazy: async () => ({ Component: guarded('this revision', (await import('./components/walk-layout')).WalkLayout) }),
     children: [
       { index: true, Component: RevisionIndex },

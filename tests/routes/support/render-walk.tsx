@@ -25,7 +25,7 @@ export async function renderWalk(world: FakeApi, href: string) {
   const queryClient = createQueryClient(() => {});
   // The app places the walk's routes among the signed-in routes (src/app/router.tsx); here they sit
   // under a bare layout route whose only job is a fallback while the lazy pages load.
-  const router = createMemoryRouter([{ hydrateFallbackElement: <p>Loading the page…</p>, children: walkRoutes }], { initialEntries: [href] });
+  const router = createMemoryRouter([{ hydrateFallbackElement: <p>Loading the page…</p>, children: walkRoutes(queryClient) }], { initialEntries: [href] });
   const user = userEvent.setup();
   const view = render(
     <QueryClientProvider client={queryClient}>
