@@ -23,6 +23,12 @@ export interface Topology {
   unreachedSegments: number[];
   /** Segment index feeding each segment's upstream node; −1 for segments leaving the source. */
   parentSeg: Int32Array;
+  /**
+   * Segments leaving each node, as one compressed list: those of node n are
+   * childSegs[childStart[n]] … childSegs[childStart[n + 1] − 1], in document order.
+   */
+  childStart: Int32Array;
+  childSegs: Int32Array;
 }
 
 export function buildTopology(model: SiModel): Topology {
@@ -96,5 +102,5 @@ export function buildTopology(model: SiModel): Topology {
 
   const parentSeg = new Int32Array(nSegs);
   for (let s = 0; s < nSegs; s++) parentSeg[s] = feedSeg[segs[s].from];
-  return { feedSeg, order: tail < nSegs ? order.slice(0, tail) : order, parentSeg, unreachedNodes, unreachedSegments };
+  return { feedSeg, order: tail < nSegs ? order.slice(0, tail) : order, parentSeg, unreachedNodes, unreachedSegments, childStart, childSegs: children };
 }
