@@ -11,7 +11,8 @@ import type { Topology } from './topology';
 import type { DemandResult } from './demand';
 import type { HydraulicsResult } from './hydraulics';
 import type { ChecksResult } from './checks';
-import { buildResults, defineLazy } from './results';
+import { buildResults } from './results';
+import { defineLazy } from './lazy';
 import type { ElevationResult } from './elevations';
 import type { StaticChecksResult } from './staticChecks';
 import { formatPressure, nodeName, plural, segmentName } from './names';
@@ -151,7 +152,7 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
     add({
       code: 'part-unreachable',
       elementType: first !== undefined ? 'node' : 'segment',
-      elementId: first !== undefined ? model.nodeIds[first] : model.segments[topo.unreachedSegments[0]].id,
+      elementId: first !== undefined ? model.nodeIds[first] : model.seg.id[topo.unreachedSegments[0]],
       elementLabel: first !== undefined ? nodeName(model, first) : segmentName(model, topo.unreachedSegments[0]),
       message: `${plural(topo.unreachedNodes.length, 'node')} and ${plural(topo.unreachedSegments.length, 'segment')} are not connected to the source${first !== undefined ? `, starting with ${nodeName(model, first)}` : ''}: connect them or remove them.`,
     });
@@ -162,14 +163,14 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
       elementType: 'node',
       elementId: model.nodeIds[nodeIdx],
       elementLabel: nodeName(model, nodeIdx),
-      message: `${capitalise(nodeName(model, nodeIdx))} has no elevation: enter the rise of ${segmentName(model, segIdx)} (0 for a level run), or the node's elevation or floor. It was computed level with ${nodeName(model, model.segments[segIdx].from)}.`,
+      message: `${capitalise(nodeName(model, nodeIdx))} has no elevation: enter the rise of ${segmentName(model, segIdx)} (0 for a level run), or the node's elevation or floor. It was computed level with ${nodeName(model, model.seg.from[segIdx])}.`,
     });
   }
   for (const s of model.pipeMissing) {
     add({
       code: 'segment-pipe-missing',
       elementType: 'segment',
-      elementId: model.segments[s].id,
+      elementId: model.seg.id[s],
       elementLabel: segmentName(model, s),
       message: `${capitalise(segmentName(model, s))} has no material and size: choose them (or enter custom pipe data). It was computed with the pipe feeding it.`,
     });

@@ -19,6 +19,7 @@ import type { DemandResult } from './demand';
 import type { HydraulicsResult } from './hydraulics';
 import type { ChecksResult } from './checks';
 import { assertFiniteDeep } from './finite';
+import { defineLazy } from './lazy';
 import type { AnalysisResults, DeviceLossResult, FixtureResult, NodeResult, SegmentResult, SourceResult } from './types';
 
 /** The stage results the result objects are read from. */
@@ -52,31 +53,6 @@ function displayScale(sys: UnitSystem): Scale {
     velocity: toSI('velocity', 1, sys),
     elevation: (m) => fromSI('elevation', m, sys),
   };
-}
-
-/**
- * Defines `key` on `target` as an enumerable property whose value is built by `build` on the
- * first read and kept (a write replaces it). The value lives in the closure, so a frozen target
- * still reads it.
- */
-export function defineLazy<T extends object, K extends keyof T>(target: T, key: K, build: () => T[K]): void {
-  let value: T[K] | undefined;
-  let built = false;
-  Object.defineProperty(target, key, {
-    enumerable: true,
-    configurable: true,
-    get(): T[K] {
-      if (!built) {
-        value = build();
-        built = true;
-      }
-      return value as T[K];
-    },
-    set(v: T[K]) {
-      value = v;
-      built = true;
-    },
-  });
 }
 
 /**
@@ -117,12 +93,11 @@ function sourceResult({ model, demand, hyd }: StageResults, scale: Scale): Sourc
 }
 
 function segmentResults({ model, topo, demand, hyd, checks }: StageResults, scale: Scale): SegmentResult[] {
-  const segsIn = model.segments;
-  const nSegs = segsIn.length;
+  const seg = model.seg;
+  const nSegs = seg.count;
   const { pressure: pF, length: lF, diameter: dF, flow: qF, velocity: vF } = scale;
   const out: SegmentResult[] = new Array(nSegs);
   for (let s = 0; s < nSegs; s++) {
-    const seg = segsIn[s];
     const parent = topo.parentSeg[s];
     const fittingsK = hyd.fittingsK[s];
     const sizeChangeK = hyd.sizeChangeK[s];
@@ -138,17 +113,17 @@ function segmentResults({ model, topo, demand, hyd, checks }: StageResults, scal
       }
     }
     out[s] = {
-      id: seg.id,
-      label: seg.label,
-      from: model.nodeIds[seg.from],
-      to: model.nodeIds[seg.to],
-      parentSegmentId: parent === -1 ? null : segsIn[parent].id,
+      id: seg.id[s],
+      label: seg.label[s],
+      from: model.nodeIds[seg.from[s]],
+      to: model.nodeIds[seg.to[s]],
+      parentSegmentId: parent === -1 ? null : seg.id[parent],
       wsfu: demand.wsfu[s],
       demandCurve: demand.curve[s],
       flowBasis: demand.basis[s],
       designFlow: demand.designFlowM3s[s] / qF,
-      innerDiameter: seg.innerDiameterM / dF,
-      length: seg.lengthM / lF,
+      innerDiameter: seg.innerDiameterM[s] / dF,
+      length: seg.lengthM[s] / lF,
       rise: hyd.riseM[s] / lF,
       velocity: hyd.velocity[s] / vF,
       reynolds: hyd.reynolds[s],
@@ -166,7 +141,7 @@ function segmentResults({ model, topo, demand, hyd, checks }: StageResults, scal
       outletPressure: hyd.outletPa[s] / pF,
       velocityLimit: velocityLimit === null ? null : velocityLimit / vF,
       velocityPass: checks.velocityPass[s],
-      developedLength: hyd.nodeDevelopedLengthM[seg.to] / lF,
+      developedLength: hyd.nodeDevelopedLengthM[seg.to[s]] / lF,
     };
   }
   return out;
@@ -187,7 +162,7 @@ function nodeResults({ model, topo, hyd, checks }: StageResults, scale: Scale): 
       staticPressureLow: hyd.nodeStaticLowPa[i] / pF,
       staticPass: checks.nodeStaticPass[i],
       developedLength: hyd.nodeDevelopedLengthM[i] / lF,
-      feedSegmentId: feed === -1 ? null : model.segments[feed].id,
+      feedSegmentId: feed === -1 ? null : model.seg.id[feed],
     };
   }
   return out;
@@ -223,8 +198,8 @@ function pathTo(nodeIdx: number, topo: Topology, model: SiModel): string[] {
   let n = nodeIdx;
   while (topo.feedSeg[n] !== -1) {
     const s = topo.feedSeg[n];
-    path.push(model.segments[s].id);
-    n = model.segments[s].from;
+    path.push(model.seg.id[s]);
+    n = model.seg.from[s];
   }
   return path.reverse();
 }
@@ -240,15 +215,14 @@ function allFinite(stages: StageResults): boolean {
   let nonFinite = 0;
   const srcIdx = model.source.nodeIdx;
   nonFinite += (model.elevationM[srcIdx] + demand.source.designFlowM3s + hyd.source.pressurePa + model.source.staticLowPa + model.source.staticHighPa) * 0;
-  const segs = model.segments;
-  for (let s = 0; s < segs.length; s++) {
-    const seg = segs[s];
+  const seg = model.seg;
+  for (let s = 0; s < seg.count; s++) {
     const devs = hyd.devices[s];
     for (let k = 0; k < devs.length; k++) nonFinite += devs[k].lossPa * 0;
     nonFinite +=
-      (demand.wsfu[s] + demand.designFlowM3s[s] + seg.innerDiameterM + seg.lengthM + hyd.riseM[s] + hyd.velocity[s] + hyd.reynolds[s] +
+      (demand.wsfu[s] + demand.designFlowM3s[s] + seg.innerDiameterM[s] + seg.lengthM[s] + hyd.riseM[s] + hyd.velocity[s] + hyd.reynolds[s] +
         hyd.frictionFactor[s] + hyd.fittingsK[s] + hyd.sizeChangeK[s] + hyd.frictionLossPa[s] + hyd.fittingLossPa[s] + hyd.riseLossPa[s] +
-        hyd.deviceLossPa[s] + hyd.inletPa[s] + hyd.outletPa[s] + hyd.nodeDevelopedLengthM[seg.to] + (checks.velocityLimitMs[s] ?? 0)) *
+        hyd.deviceLossPa[s] + hyd.inletPa[s] + hyd.outletPa[s] + hyd.nodeDevelopedLengthM[seg.to[s]] + (checks.velocityLimitMs[s] ?? 0)) *
       0;
   }
   const sys = model.unitSystem;

@@ -78,7 +78,7 @@ export function runStaticChecks(
     for (const d of devs) {
       if (!d.prv) continue;
       const segIdx = d.segIdx;
-      scratch ??= { high: new Float64Array(model.nodeIds.length), nodes: new Int32Array(model.nodeIds.length), stack: new Int32Array(model.segments.length) };
+      scratch ??= { high: new Float64Array(model.nodeIds.length), nodes: new Int32Array(model.nodeIds.length), stack: new Int32Array(model.seg.count) };
       const below = failedOpenBelow(model, topo, hyd, elev, d.id, segIdx, scratch);
       const high = below.high;
       let over = 0;
@@ -89,7 +89,7 @@ export function runStaticChecks(
         if (worst === -1 || high[n] > high[worst]) worst = n;
         if (high[n] > max) over++;
       }
-      const worstStatic = worst === -1 ? high[model.segments[segIdx].to] : high[worst];
+      const worstStatic = worst === -1 ? high[model.seg.to[segIdx]] : high[worst];
       const excess = Math.max(0, worstStatic - max);
       prvFailOpen.push({
         deviceId: d.id,
@@ -116,11 +116,12 @@ export function runStaticChecks(
 
   // Pipe ratings: per catalog material and size, the segment with the highest static pressure.
   const worstBySize = new Map<string, { s: number; pa: number }>();
-  for (let s = 0; s < model.segments.length; s++) {
-    const seg = model.segments[s];
-    if (seg.materialId === null) continue;
-    const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to]);
-    const key = `${seg.materialId}\u0000${seg.nominalSizeKey}`;
+  const seg = model.seg;
+  for (let s = 0; s < seg.count; s++) {
+    const materialId = seg.materialId[s];
+    if (materialId === null) continue;
+    const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to[s]]);
+    const key = `${materialId}\u0000${seg.nominalSizeKey[s]}`;
     const prev = worstBySize.get(key);
     if (prev === undefined || pa > prev.pa) worstBySize.set(key, { s, pa });
   }
@@ -128,18 +129,18 @@ export function runStaticChecks(
   const unrated = new Set<string>();
   let pipeRatingsPass = true;
   for (const { s, pa } of worstBySize.values()) {
-    const seg = model.segments[s];
-    const materialId = seg.materialId!;
+    const materialId = seg.materialId[s]!;
+    const sizeKey = seg.nominalSizeKey[s];
     const material = MATERIALS[materialId as MaterialId];
-    const materialLabel = `${material?.label ?? materialId} ${seg.nominalSizeKey}`;
-    const rating = pressureRating(materialId, seg.nominalSizeKey, model.water.temperatureC);
+    const materialLabel = `${material?.label ?? materialId} ${sizeKey}`;
+    const rating = pressureRating(materialId, sizeKey, model.water.temperatureC);
     if (rating === null) {
       unrated.add(material?.label ?? materialId);
       continue;
     }
     const pass = pa <= rating.ratingPa;
     pipeRatings.push({
-      segmentId: seg.id,
+      segmentId: seg.id[s],
       label: segmentLabel(model, s),
       materialLabel,
       ratingPressure: toDoc(rating.ratingPa),
@@ -154,7 +155,7 @@ export function runStaticChecks(
       const w = makeWarning(
         'static-over-pipe-rating',
         'segment',
-        seg.id,
+        seg.id[s],
         `${materialLabel}: up to ${formatPressure(pa, sys)} static, rated ${formatPressure(rating.ratingPa, sys)} at the water temperature (${rating.source}).`,
       );
       warnings.push(w);
@@ -228,20 +229,21 @@ function failedOpenBelow(
   let top = 0;
   let count = 0;
   stack[top++] = segIdx;
-  high[model.segments[segIdx].from] = hyd.nodeStaticHighPa[model.segments[segIdx].from];
+  const { from, to } = model.seg;
+  high[from[segIdx]] = hyd.nodeStaticHighPa[from[segIdx]];
   while (top > 0) {
     const s = stack[--top];
-    const seg = model.segments[s];
-    let h = high[seg.from];
+    const below = to[s];
+    let h = high[from[s]];
     for (const d of model.devicesBySeg[s]) {
       if (d.prv && d.id !== failedId) h = Math.min(h, d.prv.setPa);
       const b = d.boost;
       if (b && b.control === 'constant-speed') h += b.shutoffPa;
       else if (b) h = Math.max(h, b.setPa);
     }
-    high[seg.to] = h - rhoG * elev.riseM[s];
-    nodes[count++] = seg.to;
-    for (let c = topo.childStart[seg.to]; c < topo.childStart[seg.to + 1]; c++) stack[top++] = topo.childSegs[c];
+    high[below] = h - rhoG * elev.riseM[s];
+    nodes[count++] = below;
+    for (let c = topo.childStart[below]; c < topo.childStart[below + 1]; c++) stack[top++] = topo.childSegs[c];
   }
   return { high, nodes, count };
 }
