@@ -409,7 +409,6 @@ export function buildModel(doc: SystemDocument): SiModel {
   const qF = toSI('flow', 1, sys);
   const P = (v: number) => v * pF;
   const L = (v: number) => v * lF;
-  const Dm = (v: number) => v * dF;
   const Q = (v: number) => v * qF;
 
   const temperatureC = toSI('temperature', doc.waterTemperature, sys);
@@ -433,6 +432,121 @@ export function buildModel(doc: SystemDocument): SiModel {
   }
 
   // Nodes
+  const nNodes = doc.nodes.length;
+  const scale: Scales = { pF, lF, qF, dF };
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
+
+  // Source
+  const sourceIdx = nodeIndex.get(doc.source.nodeId);
+  if (sourceIdx === undefined) {
+    throw inputError('no-source', 'source', doc.source.nodeId, 'nodeId', `source node "${doc.source.nodeId}" is not in the system's nodes`);
+  }
+  if (doc.source.staticPressureHigh < doc.source.staticPressureLow) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'staticPressureHigh', 'the high static pressure is below the low static pressure');
+  }
+  const ft = doc.source.flowTest;
+  if (ft && !(ft.residualPressure < ft.staticPressure)) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
+  }
+
+  // Segments
+  const { seg, segIndex, pipeMissing } = readSegments(doc, scale, nodeIndex, placed, projectData);
+  const nSegs = seg.count;
+
+  // Devices
+  const devicesBySeg: SiDevice[][] = new Array(nSegs).fill(NO_DEVICES);
+  const deviceIds = new Set<string>();
+  for (const d of doc.devices) {
+    if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
+    deviceIds.add(d.id);
+    const segIdx = segIndex.get(d.segmentId);
+    if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
+    if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
+    if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
+    const b = d.boost;
+    let boost: SiBoost | null = null;
+    if (b) {
+      if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
+      else if (b.control === 'constant-speed') {
+        if (b.shutoffGain < b.designGain) {
+          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
+        }
+        boost = {
+          control: 'constant-speed',
+          designPa: P(b.designGain),
+          shutoffPa: P(b.shutoffGain),
+          designFlowM3s: b.designFlow !== undefined ? Q(b.designFlow) : null,
+          assumed: false,
+        };
+      } else boost = { control: 'variable-speed', setPa: P(b.setPressure) };
+    }
+    if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
+    devicesBySeg[segIdx].push({
+      id: d.id,
+      kind: d.kind,
+      label: d.label,
+      segIdx,
+      fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
+      curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
+      prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
+      boost,
+    });
+  }
+
+  if (criteria.demandMethod === 'hunter-binomial') {
+    for (let i = 0; i < nNodes; i++) {
+      for (const g of groupsByNode[i]) {
+        if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
+      }
+    }
+  }
+
+  const model: SiModel = {
+    doc,
+    unitSystem: sys,
+    service: doc.service,
+    water,
+    criteria,
+    nodeIds,
+    nodeLabels,
+    nodeIndex,
+    elevationM,
+    placed,
+    continuousM3s,
+    groupsByNode,
+    fixtures,
+    seg,
+    // placeholder: defined below, built on first read
+    segments: [],
+    segIndex,
+    devicesBySeg,
+    projectData,
+    pipeMissing,
+    source: {
+      nodeIdx: sourceIdx,
+      kind: doc.source.kind,
+      staticLowPa: P(doc.source.staticPressureLow),
+      staticHighPa: P(doc.source.staticPressureHigh),
+      flowTest: ft ? { staticPa: P(ft.staticPressure), residualPa: P(ft.residualPressure), testFlowM3s: Q(ft.flow) } : null,
+    },
+  };
+  defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
+  return model;
+}
+
+/** Unit factors of the document's quantities (pure scalings, units.ts): SI = value × factor. */
+interface Scales {
+  pF: number;
+  lF: number;
+  qF: number;
+  dF: number;
+}
+
+/** The nodes: ids, positions, demand and the checked fixtures, in SI (buildModel, stage 2). */
+function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floorElevationM: Map<string, number>) {
+  const P = (v: number) => v * scale.pF;
+  const L = (v: number) => v * scale.lF;
+  const Q = (v: number) => v * scale.qF;
   const nNodes = doc.nodes.length;
   const nodeIndex = new Map<string, number>();
   const nodeIds: string[] = new Array(nNodes);
@@ -528,20 +642,14 @@ export function buildModel(doc: SystemDocument): SiModel {
     }
   }
 
-  // Source
-  const sourceIdx = nodeIndex.get(doc.source.nodeId);
-  if (sourceIdx === undefined) {
-    throw inputError('no-source', 'source', doc.source.nodeId, 'nodeId', `source node "${doc.source.nodeId}" is not in the system's nodes`);
-  }
-  if (doc.source.staticPressureHigh < doc.source.staticPressureLow) {
-    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'staticPressureHigh', 'the high static pressure is below the low static pressure');
-  }
-  const ft = doc.source.flowTest;
-  if (ft && !(ft.residualPressure < ft.staticPressure)) {
-    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
-  }
+  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData };
+}
 
-  // Segments
+/** The segments as parallel arrays in SI, with their pipe data from the catalog (buildModel, stage 2). */
+function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string, number>, placed: Uint8Array, projectData: ProjectDataUse[]) {
+  const L = (v: number) => v * scale.lF;
+  const Dm = (v: number) => v * scale.dF;
+  const Q = (v: number) => v * scale.qF;
   const segIndex = new Map<string, number>();
   const nSegs = doc.segments.length;
   const seg: SiSegments = {
@@ -669,85 +777,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     seg.reducerAuto[s] = d.reducerAuto ? 1 : 0;
   }
 
-  // Devices
-  const devicesBySeg: SiDevice[][] = new Array(nSegs).fill(NO_DEVICES);
-  const deviceIds = new Set<string>();
-  for (const d of doc.devices) {
-    if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
-    deviceIds.add(d.id);
-    const segIdx = segIndex.get(d.segmentId);
-    if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
-    if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
-    if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
-    const b = d.boost;
-    let boost: SiBoost | null = null;
-    if (b) {
-      if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
-      else if (b.control === 'constant-speed') {
-        if (b.shutoffGain < b.designGain) {
-          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
-        }
-        boost = {
-          control: 'constant-speed',
-          designPa: P(b.designGain),
-          shutoffPa: P(b.shutoffGain),
-          designFlowM3s: b.designFlow !== undefined ? Q(b.designFlow) : null,
-          assumed: false,
-        };
-      } else boost = { control: 'variable-speed', setPa: P(b.setPressure) };
-    }
-    if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
-    devicesBySeg[segIdx].push({
-      id: d.id,
-      kind: d.kind,
-      label: d.label,
-      segIdx,
-      fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
-      curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
-      prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
-      boost,
-    });
-  }
-
-  if (criteria.demandMethod === 'hunter-binomial') {
-    for (let i = 0; i < nNodes; i++) {
-      for (const g of groupsByNode[i]) {
-        if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
-      }
-    }
-  }
-
-  const model: SiModel = {
-    doc,
-    unitSystem: sys,
-    service: doc.service,
-    water,
-    criteria,
-    nodeIds,
-    nodeLabels,
-    nodeIndex,
-    elevationM,
-    placed,
-    continuousM3s,
-    groupsByNode,
-    fixtures,
-    seg,
-    // placeholder: defined below, built on first read
-    segments: [],
-    segIndex,
-    devicesBySeg,
-    projectData,
-    pipeMissing,
-    source: {
-      nodeIdx: sourceIdx,
-      kind: doc.source.kind,
-      staticLowPa: P(doc.source.staticPressureLow),
-      staticHighPa: P(doc.source.staticPressureHigh),
-      flowTest: ft ? { staticPa: P(ft.staticPressure), residualPa: P(ft.residualPressure), testFlowM3s: Q(ft.flow) } : null,
-    },
-  };
-  defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
-  return model;
+  return { seg, segIndex, pipeMissing };
 }
 
 function mergeCriteria(doc: SystemDocument, P: (v: number) => number): Criteria {
