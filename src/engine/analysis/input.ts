@@ -560,8 +560,8 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
   const projectData: ProjectDataUse[] = [];
   for (let i = 0; i < nNodes; i++) {
     const node = doc.nodes[i];
-    if (nodeIndex.has(node.id)) throw inputError('duplicate-id', 'node', node.id, 'id');
-    nodeIndex.set(node.id, i);
+    // One hash lookup: a repeated id leaves the size unchanged.
+    if (nodeIndex.set(node.id, i).size === i) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeIds[i] = node.id;
     nodeLabels[i] = node.label ?? null;
     // One position at most (schema.ts NodeSchema): absolute, on a floor, or by the feed's rise.
@@ -688,8 +688,8 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string,
   const pipeByMaterial = new Map<string, Map<string, PipeData>>();
   for (let s = 0; s < nSegs; s++) {
     const d = doc.segments[s];
-    if (segIndex.has(d.id)) throw inputError('duplicate-id', 'segment', d.id, 'id');
-    segIndex.set(d.id, s);
+    // One hash lookup: a repeated id leaves the size unchanged.
+    if (segIndex.set(d.id, s).size === s) throw inputError('duplicate-id', 'segment', d.id, 'id');
     const from = nodeIndex.get(d.from);
     if (from === undefined) throw inputError('unknown-node', 'segment', d.id, 'from', `node "${d.from}" is not in the system`);
     const to = nodeIndex.get(d.to);
