@@ -4,12 +4,16 @@
  * analyzeValidated (a document already validated, as the live client re-runs it); the peer is
  * EPANET (epanet-js) solving the same 5,000-pipe tree — EN_solveH only, the network opened
  * beforehand (solve, not build). One row times the computation alone (SI model, topology,
- * demand, hydraulics, checks) without building the result objects, to show where the time goes.
+ * demand, hydraulics, checks) without the report, to show where the time goes. The per-element
+ * result objects (segments, nodes, fixtures, in SI and display units) are built when first read
+ * (src/engine/analysis/results.ts); one more row reads every one of them after analyzeSystem, as
+ * a consumer that serialises the whole analysis (the server's save) does, so that this work is
+ * measured too rather than left out of the table.
  */
 import { readFileSync } from 'node:fs';
 import { analyzeSystem, SystemDocumentSchema, type Analysis } from '../../src/engine';
 import { analyzeValidated } from '../../src/engine/analysis/analyze';
-import { buildModel } from '../../src/engine/analysis/input';
+import { borrowPipes, buildModel } from '../../src/engine/analysis/input';
 import { buildTopology } from '../../src/engine/analysis/topology';
 import { resolveElevations } from '../../src/engine/analysis/elevations';
 import { computeDemand } from '../../src/engine/analysis/demand';
@@ -100,10 +104,17 @@ function epanetPeer(doc: () => unknown, pipes: number): EngineCase['peer'] {
   };
 }
 
+/** analyzeSystem, then every per-element result read (built on first read): the whole analysis as data. */
+function analyzeAndReadAll(doc: unknown): number {
+  const a = analyzeSystem(doc);
+  return a.segments.length + a.nodes.length + a.fixtures.length + a.si.segments.length + a.si.nodes.length + a.si.fixtures.length;
+}
+
 /** The stages up to the checks, without the report (result objects in SI and display units). */
 function computeOnly(parsed: SystemDocument): void {
   const model = buildModel(parsed);
   const topo = buildTopology(model);
+  borrowPipes(model, topo.order, topo.parentSeg);
   const elev = resolveElevations(model, topo);
   const warnings: EngineWarning[] = [];
   const demand = computeDemand(model, topo, warnings);
@@ -118,12 +129,15 @@ function engineCases(): EngineCase[] {
   const randomParsed = SystemDocumentSchema.parse(randomTree);
   const demo = JSON.parse(readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8'));
   const n = building.segments.length.toLocaleString('en-US');
-  // the aim of issue #7: 5,000 segments under 10 ms and at most a fifth of EPANET's solve time
-  const aim = '< 10 ms; ratio ≤ 0.20';
+  // the aims of issue #16: the whole analysis no slower than EPANET's solve of the same tree, the
+  // computation alone at most a fifth of it (a tree is one pass up and one pass down)
+  const aim = 'ratio ≤ 1.0';
+  const computeAim = 'ratio ≤ 0.20';
   return [
     { figure: `engine: 40-storey building, ${n} segments, analyzeSystem (with schema)`, run: () => analyzeSystem(building), peer: epanetPeer(() => building, building.segments.length), aim },
+    { figure: `engine: 40-storey building, ${n} segments, analyzeSystem and every result object read`, run: () => analyzeAndReadAll(building), peer: epanetPeer(() => building, building.segments.length) },
     { figure: `engine: 40-storey building, ${n} segments, analyzeValidated`, run: () => analyzeValidated(buildingParsed), peer: epanetPeer(() => building, building.segments.length), aim },
-    { figure: `engine: 40-storey building, ${n} segments, computation only (no result objects)`, run: () => computeOnly(buildingParsed), peer: epanetPeer(() => building, building.segments.length) },
+    { figure: `engine: 40-storey building, ${n} segments, computation only (no result objects)`, run: () => computeOnly(buildingParsed), peer: epanetPeer(() => building, building.segments.length), aim: computeAim },
     { figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeSystem (with schema)', run: () => analyzeSystem(randomTree), peer: epanetPeer(() => randomTree, randomTree.segments.length), aim },
     { figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeValidated', run: () => analyzeValidated(randomParsed), peer: epanetPeer(() => randomTree, randomTree.segments.length), aim },
     { figure: `engine: demo building (${demo.segments.length} segments), analyzeSystem`, run: () => analyzeSystem(demo), repeatsFactor: 5 },

@@ -4,7 +4,8 @@
  * calls. Structural problems throw EngineInputError; everything else becomes a warning.
  */
 import { EngineInputError } from '../errors';
-import { makeWarning, type EngineWarning } from '../warnings';
+import type { EngineWarning } from '../warnings';
+import { projectDataNotes } from './projectData';
 import { expandBuilding } from '../building/expand';
 import { borrowPipes, buildModel, parseDocument } from './input';
 import { buildTopology } from './topology';
@@ -33,9 +34,8 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   borrowPipes(model, topo.order, topo.parentSeg);
   const elev = resolveElevations(model, topo);
   const warnings: EngineWarning[] = [];
-  for (const use of model.projectData) {
-    warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
-  }
+  // One note for the fittings and one for the fixture groups that use the project's own data.
+  warnings.push(...projectDataNotes(model.projectData));
   const demand = computeDemand(model, topo, warnings);
   const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);

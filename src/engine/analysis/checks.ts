@@ -87,16 +87,17 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
   for (const lim of model.criteria.velocityLimits) {
     if (lim.service === model.service) limitByClass.set(lim.material, lim.maxVelocityMs);
   }
-  const velocityLimitMs: (number | null)[] = new Array(model.segments.length);
-  const velocityPass: (boolean | null)[] = new Array(model.segments.length);
+  const seg = model.seg;
+  const velocityLimitMs: (number | null)[] = new Array(seg.count);
+  const velocityPass: (boolean | null)[] = new Array(seg.count);
   const noLimit = new Set<string>();
-  for (let s = 0; s < model.segments.length; s++) {
-    const seg = model.segments[s];
-    const lim = limitByClass.get(seg.velocityClass);
+  for (let s = 0; s < seg.count; s++) {
+    const velocityClass = seg.velocityClass[s];
+    const lim = limitByClass.get(velocityClass);
     if (lim === undefined) {
       velocityLimitMs[s] = null;
       velocityPass[s] = null;
-      noLimit.add(seg.velocityClass);
+      noLimit.add(velocityClass);
       continue;
     }
     velocityLimitMs[s] = lim;
@@ -108,7 +109,7 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
         makeWarning(
           'velocity-over-limit',
           'segment',
-          seg.id,
+          seg.id[s],
           `${fromSI('velocity', hyd.velocity[s], sys).toFixed(2)} > ${fromSI('velocity', lim, sys).toFixed(2)} ${sys === 'US' ? 'ft/s' : 'm/s'}`,
         ),
       );

@@ -28,8 +28,8 @@ interface BinomialKey {
 
 export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWarning[]): DemandResult {
   const nNodes = model.nodeIds.length;
-  const segs = model.segments;
-  const nSegs = segs.length;
+  const seg = model.seg;
+  const nSegs = seg.count;
   const criteria = model.criteria;
   const binomial = criteria.demandMethod === 'hunter-binomial';
 
@@ -52,7 +52,8 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
   }
   for (let k = topo.order.length - 1; k >= 0; k--) {
     const s = topo.order[k];
-    const { from, to } = segs[s];
+    const from = seg.from[s];
+    const to = seg.to[s];
     nodeWsfu[from] += nodeWsfu[to];
     nodeCont[from] += nodeCont[to];
     nodeValves[from] += nodeValves[to];
@@ -97,28 +98,28 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
   };
 
   for (let s = 0; s < nSegs; s++) {
-    const seg = segs[s];
-    const to = seg.to;
+    const to = seg.to[s];
     wsfu[s] = nodeWsfu[to];
     continuousM3s[s] = nodeCont[to];
-    const r = flowFor(seg.id, nodeWsfu[to], nodeCont[to], nodeValves[to], nodeBinomial ? nodeBinomial[to] : null);
+    const r = flowFor(seg.id[s], nodeWsfu[to], nodeCont[to], nodeValves[to], nodeBinomial ? nodeBinomial[to] : null);
     curve[s] = r.curve;
-    if (seg.flowOverrideM3s !== null) {
-      designFlowM3s[s] = seg.flowOverrideM3s;
+    const override = seg.flowOverrideM3s[s];
+    if (!Number.isNaN(override)) {
+      designFlowM3s[s] = override;
       basis[s] = 'override';
-      overrideIds.push(seg.id);
+      overrideIds.push(seg.id[s]);
     } else {
       designFlowM3s[s] = r.q;
       basis[s] = r.basis;
     }
-    if (!(designFlowM3s[s] > 0)) noDemandIds.push(seg.id);
+    if (!(designFlowM3s[s] > 0)) noDemandIds.push(seg.id[s]);
   }
 
   // The source delivers the demand of the whole tree: one segment leaving it carries the
   // source's flow (its override included); several are combined through the curve again.
   const src = model.source.nodeIdx;
   const roots: number[] = [];
-  for (let s = 0; s < nSegs; s++) if (segs[s].from === src) roots.push(s);
+  for (let s = 0; s < nSegs; s++) if (seg.from[s] === src) roots.push(s);
   let source: DemandResult['source'];
   if (roots.length === 1) {
     source = { designFlowM3s: designFlowM3s[roots[0]], wsfu: wsfu[roots[0]], curve: curve[roots[0]] };

@@ -23,24 +23,26 @@ export interface ElevationResult {
 
 export function resolveElevations(model: SiModel, topo: Topology): ElevationResult {
   const z = model.elevationM;
-  const segs = model.segments;
-  const riseM = new Float64Array(segs.length);
+  const { from, to, riseEnteredM } = model.seg;
+  const riseM = new Float64Array(model.seg.count);
   const missing: ElevationResult['missing'] = [];
   const src = model.source.nodeIdx;
   const sourceMissing = model.placed[src] === 0;
   if (sourceMissing) z[src] = 0;
   for (let k = 0; k < topo.order.length; k++) {
     const s = topo.order[k];
-    const seg = segs[s];
-    if (model.placed[seg.to] === 1) {
-      riseM[s] = z[seg.to] - z[seg.from];
-    } else if (seg.riseEnteredM !== null) {
-      riseM[s] = seg.riseEnteredM;
-      z[seg.to] = z[seg.from] + seg.riseEnteredM;
+    const a = from[s];
+    const b = to[s];
+    const entered = riseEnteredM[s];
+    if (model.placed[b] === 1) {
+      riseM[s] = z[b] - z[a];
+    } else if (!Number.isNaN(entered)) {
+      riseM[s] = entered;
+      z[b] = z[a] + entered;
     } else {
       riseM[s] = 0;
-      z[seg.to] = z[seg.from];
-      missing.push({ nodeIdx: seg.to, segIdx: s });
+      z[b] = z[a];
+      missing.push({ nodeIdx: b, segIdx: s });
     }
   }
   // Nodes not reached from the source (verdict incomplete, topology.ts) and not placed: at the

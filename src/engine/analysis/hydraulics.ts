@@ -81,8 +81,8 @@ export function computeHydraulics(
   elev: ElevationResult,
   warnings: EngineWarning[],
 ): HydraulicsResult {
-  const segs = model.segments;
-  const nSegs = segs.length;
+  const seg = model.seg;
+  const nSegs = seg.count;
   const nNodes = model.nodeIds.length;
   const { density: rho, kinematicViscosity: nu } = model.water;
   const rhoG = rho * G;
@@ -126,9 +126,10 @@ export function computeHydraulics(
   let boosterSeen = false;
   for (let k = 0; k < topo.order.length; k++) {
     const s = topo.order[k];
-    const seg = segs[s];
+    const id = seg.id[s];
+    const lengthM = seg.lengthM[s];
     const Q = demand.designFlowM3s[s];
-    const D = seg.innerDiameterM;
+    const D = seg.innerDiameterM[s];
     const area = (Math.PI * D * D) / 4;
     const V = Q / area;
     const Re = (V * D) / nu;
@@ -142,17 +143,17 @@ export function computeHydraulics(
     let regime: FlowRegime = Re >= 4000 ? 'turbulent' : Re >= 2300 ? 'transitional' : 'laminar';
     if (Q > 0) {
       if (method === 'hazen-williams') {
-        frictionPa = hazenWilliamsPressureLoss(Q, D, seg.lengthM, seg.hazenWilliamsC);
+        frictionPa = hazenWilliamsPressureLoss(Q, D, lengthM, seg.hazenWilliamsC[s]);
         // Darcy factor equivalent to the Hazen–Williams loss, for reporting and for the fittings.
-        f = (frictionPa * D) / (seg.lengthM * dynamicPressure);
+        f = (frictionPa * D) / (lengthM * dynamicPressure);
       } else {
-        const fr = darcyFrictionFactor(method, Re, seg.roughnessM / D);
+        const fr = darcyFrictionFactor(method, Re, seg.roughnessM[s] / D);
         f = fr.f;
         regime = fr.regime;
-        frictionPa = f * (seg.lengthM / D) * dynamicPressure;
-        if (fr.regime === 'laminar') warnings.push(makeWarning('laminar-flow', 'segment', seg.id, `Re = ${Math.round(Re)}`));
-        else if (fr.regime === 'transitional') warnings.push(makeWarning('transitional-flow', 'segment', seg.id, `Re = ${Math.round(Re)}`));
-        else if (fr.outsideValidity) warnings.push(makeWarning('friction-outside-validity', 'segment', seg.id, fr.note));
+        frictionPa = f * (lengthM / D) * dynamicPressure;
+        if (fr.regime === 'laminar') warnings.push(makeWarning('laminar-flow', 'segment', id, `Re = ${Math.round(Re)}`));
+        else if (fr.regime === 'transitional') warnings.push(makeWarning('transitional-flow', 'segment', id, `Re = ${Math.round(Re)}`));
+        else if (fr.outsideValidity) warnings.push(makeWarning('friction-outside-validity', 'segment', id, fr.note));
       }
     }
     r.frictionFactor[s] = f;
@@ -163,11 +164,12 @@ export function computeHydraulics(
     // Reynolds-dependent methods is undefined at Re = 0, and the loss is zero anyway).
     let kFittings = 0;
     if (Q > 0) {
-      const fits = seg.fittings;
+      const fits = seg.fittings[s];
+      const sizeKey = seg.nominalSizeKey[s];
       // Guard conditions of fittingK that vary by segment; when they fail, fittingK itself throws.
       const argsOk = Re >= 0 && Re < Infinity && f >= 0 && f < Infinity;
-      const bySize = seg.nominalSizeKey === '' ? undefined : flowFreeK.get(seg.nominalSizeKey);
-      const own = seg.customFittings;
+      const bySize = sizeKey === '' ? undefined : flowFreeK.get(sizeKey);
+      const own = seg.customFittings[s];
       for (let i = 0; i < fits.length; i++) {
         const fit = fits[i];
         const custom = own === null ? null : own[i];
@@ -181,18 +183,18 @@ export function computeHydraulics(
           const full = fittingK(fit.typeId, {
             method: fittingMethod,
             innerDiameterM: D,
-            nominalSizeIn: seg.nominalSizeIn,
-            nominalSizeKey: seg.nominalSizeKey,
+            nominalSizeIn: seg.nominalSizeIn[s],
+            nominalSizeKey: sizeKey,
             Re,
             frictionFactor: f,
           });
           res = full;
-          if (full.method === 'crane' || full.fixedK === true) rememberFlowFreeK(flowFreeK, seg.nominalSizeKey, fit.typeId, full);
+          if (full.method === 'crane' || full.fixedK === true) rememberFlowFreeK(flowFreeK, sizeKey, fit.typeId, full);
         }
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {
           warnings.push(
-            makeWarning('fitting-method-fallback', 'fitting', seg.id, `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
+            makeWarning('fitting-method-fallback', 'fitting', id, `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: ${res.fellBackFrom} → ${res.method}`),
           );
         }
       }
@@ -200,11 +202,11 @@ export function computeHydraulics(
     // Size change at the start of the segment, carrying this segment's flow.
     let kSize = 0;
     const parent = topo.parentSeg[s];
-    if (seg.reducerAuto && parent !== -1 && Q > 0) {
-      const Dp = segs[parent].innerDiameterM;
+    if (seg.reducerAuto[s] === 1 && parent !== -1 && Q > 0) {
+      const Dp = seg.innerDiameterM[parent];
       if (Math.abs(Dp - D) > SAME_DIAMETER_RTOL * D) {
         kSize = Dp < D ? changeKBasis(suddenExpansionK(Dp, D), Dp, D) : suddenContractionK(Dp, D);
-        sizeChangeIds.push(seg.id);
+        sizeChangeIds.push(id);
       }
     }
     r.fittingsK[s] = kFittings;
@@ -219,10 +221,12 @@ export function computeHydraulics(
     r.riseLossPa[s] = risePa;
 
     // Pressures
-    const inlet = r.nodePressurePa[seg.from];
+    const from = seg.from[s];
+    const to = seg.to[s];
+    const inlet = r.nodePressurePa[from];
     let p = inlet;
-    let staticHigh = r.nodeStaticHighPa[seg.from];
-    let staticLow = r.nodeStaticLowPa[seg.from];
+    let staticHigh = r.nodeStaticHighPa[from];
+    let staticLow = r.nodeStaticLowPa[from];
     let deviceTotal = 0;
     const segDevices = model.devicesBySeg[s];
     const devs: DeviceLossSI[] = segDevices.length === 0 ? NO_DEVICES : [];
@@ -286,10 +290,10 @@ export function computeHydraulics(
     r.deviceLossPa[s] = deviceTotal;
     r.inletPa[s] = inlet;
     r.outletPa[s] = p;
-    r.nodePressurePa[seg.to] = p;
-    r.nodeStaticHighPa[seg.to] = staticHigh - risePa;
-    r.nodeStaticLowPa[seg.to] = staticLow - risePa;
-    r.nodeDevelopedLengthM[seg.to] = r.nodeDevelopedLengthM[seg.from] + seg.lengthM;
+    r.nodePressurePa[to] = p;
+    r.nodeStaticHighPa[to] = staticHigh - risePa;
+    r.nodeStaticLowPa[to] = staticLow - risePa;
+    r.nodeDevelopedLengthM[to] = r.nodeDevelopedLengthM[from] + lengthM;
   }
   if (sizeChangeIds.length > 0) warnings.push(makeGroupedWarning('size-change-loss', 'segment', sizeChangeIds));
   if (boosterSeen) warnings.push(makeWarning('booster-gain-at-static', 'system', model.doc.id));

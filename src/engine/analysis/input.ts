@@ -9,6 +9,7 @@ import { SystemDocumentSchemaV1 } from '../model/schemaV1';
 import { upgradeDocument } from '../model/upgrade';
 import { fastParseSystemDocument } from '../model/fastParse';
 import { checkRanges } from './ranges';
+import { defineLazy } from './lazy';
 import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
 import { toSI, type UnitSystem } from '../units';
 import { waterProperties, type WaterProperties } from '../water';
@@ -53,21 +54,20 @@ const PLACEHOLDER_PIPE: PipeData = Object.freeze({
  */
 export function borrowPipes(model: SiModel, order: Int32Array, parentSeg: Int32Array): void {
   if (model.pipeMissing.length === 0) return;
-  const missing = new Uint8Array(model.segments.length);
+  const seg = model.seg;
+  const missing = new Uint8Array(seg.count);
   for (const s of model.pipeMissing) missing[s] = 1;
   for (let k = 0; k < order.length; k++) {
     const s = order[k];
     if (!missing[s]) continue;
     const parent = parentSeg[s];
     if (parent === -1) continue;
-    const from = model.segments[parent];
-    const seg = model.segments[s];
-    seg.innerDiameterM = from.innerDiameterM;
-    seg.roughnessM = from.roughnessM;
-    seg.hazenWilliamsC = from.hazenWilliamsC;
-    seg.velocityClass = from.velocityClass;
-    seg.nominalSizeIn = from.nominalSizeIn;
-    seg.nominalSizeKey = from.nominalSizeKey;
+    seg.innerDiameterM[s] = seg.innerDiameterM[parent];
+    seg.roughnessM[s] = seg.roughnessM[parent];
+    seg.hazenWilliamsC[s] = seg.hazenWilliamsC[parent];
+    seg.velocityClass[s] = seg.velocityClass[parent];
+    seg.nominalSizeIn[s] = seg.nominalSizeIn[parent];
+    seg.nominalSizeKey[s] = seg.nominalSizeKey[parent];
   }
 }
 
@@ -150,6 +150,58 @@ export interface SiSegment {
   reducerAuto: boolean;
 }
 
+/**
+ * The segments as parallel arrays indexed by segment (document order): what the stages walk.
+ * A rise or flow override that was not entered is NaN (the schema admits finite numbers only).
+ */
+export interface SiSegments {
+  count: number;
+  id: string[];
+  label: (string | null)[];
+  from: Int32Array;
+  to: Int32Array;
+  innerDiameterM: Float64Array;
+  roughnessM: Float64Array;
+  hazenWilliamsC: Float64Array;
+  velocityClass: SiSegment['velocityClass'][];
+  nominalSizeIn: Float64Array;
+  nominalSizeKey: string[];
+  lengthM: Float64Array;
+  /** The typed rise that places the downstream node (only where that node has no elevation or floor); NaN when none. */
+  riseEnteredM: Float64Array;
+  /** The catalog material id (null for a custom pipe), for the pressure-rating check. */
+  materialId: (string | null)[];
+  fittings: SiFitting[][];
+  /** Per fitting of `fittings`: its own data in SI, or null for a catalog fitting; null when the segment has none. */
+  customFittings: ((SiCustomFitting | null)[] | null)[];
+  /** NaN when the segment has no override. */
+  flowOverrideM3s: Float64Array;
+  reducerAuto: Uint8Array;
+}
+
+/** One segment of `seg` as an object (for a reader that wants one; the stages read the arrays). */
+export function segmentAt(seg: SiSegments, s: number): SiSegment {
+  return {
+    id: seg.id[s],
+    label: seg.label[s],
+    from: seg.from[s],
+    to: seg.to[s],
+    innerDiameterM: seg.innerDiameterM[s],
+    roughnessM: seg.roughnessM[s],
+    hazenWilliamsC: seg.hazenWilliamsC[s],
+    velocityClass: seg.velocityClass[s],
+    nominalSizeIn: seg.nominalSizeIn[s],
+    nominalSizeKey: seg.nominalSizeKey[s],
+    lengthM: seg.lengthM[s],
+    riseEnteredM: Number.isNaN(seg.riseEnteredM[s]) ? null : seg.riseEnteredM[s],
+    materialId: seg.materialId[s],
+    fittings: seg.fittings[s],
+    customFittings: seg.customFittings[s],
+    flowOverrideM3s: Number.isNaN(seg.flowOverrideM3s[s]) ? null : seg.flowOverrideM3s[s],
+    reducerAuto: seg.reducerAuto[s] === 1,
+  };
+}
+
 export interface SiModel {
   doc: SystemDocument;
   unitSystem: UnitSystem;
@@ -168,6 +220,9 @@ export interface SiModel {
   continuousM3s: Float64Array;
   groupsByNode: SiFixtureGroup[][];
   fixtures: SiCheckedFixture[];
+  /** The segments, as arrays the stages walk. */
+  seg: SiSegments;
+  /** The same segments as objects, built on first read (segmentAt): for readers outside the hot stages. */
   segments: SiSegment[];
   segIndex: Map<string, number>;
   devicesBySeg: SiDevice[][];
@@ -354,7 +409,6 @@ export function buildModel(doc: SystemDocument): SiModel {
   const qF = toSI('flow', 1, sys);
   const P = (v: number) => v * pF;
   const L = (v: number) => v * lF;
-  const Dm = (v: number) => v * dF;
   const Q = (v: number) => v * qF;
 
   const temperatureC = toSI('temperature', doc.waterTemperature, sys);
@@ -379,6 +433,121 @@ export function buildModel(doc: SystemDocument): SiModel {
 
   // Nodes
   const nNodes = doc.nodes.length;
+  const scale: Scales = { pF, lF, qF, dF };
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
+
+  // Source
+  const sourceIdx = nodeIndex.get(doc.source.nodeId);
+  if (sourceIdx === undefined) {
+    throw inputError('no-source', 'source', doc.source.nodeId, 'nodeId', `source node "${doc.source.nodeId}" is not in the system's nodes`);
+  }
+  if (doc.source.staticPressureHigh < doc.source.staticPressureLow) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'staticPressureHigh', 'the high static pressure is below the low static pressure');
+  }
+  const ft = doc.source.flowTest;
+  if (ft && !(ft.residualPressure < ft.staticPressure)) {
+    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
+  }
+
+  // Segments
+  const { seg, segIndex, pipeMissing } = readSegments(doc, scale, nodeIndex, placed, projectData);
+  const nSegs = seg.count;
+
+  // Devices
+  const devicesBySeg: SiDevice[][] = new Array(nSegs).fill(NO_DEVICES);
+  const deviceIds = new Set<string>();
+  for (const d of doc.devices) {
+    if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
+    deviceIds.add(d.id);
+    const segIdx = segIndex.get(d.segmentId);
+    if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
+    if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
+    if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
+    const b = d.boost;
+    let boost: SiBoost | null = null;
+    if (b) {
+      if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
+      else if (b.control === 'constant-speed') {
+        if (b.shutoffGain < b.designGain) {
+          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
+        }
+        boost = {
+          control: 'constant-speed',
+          designPa: P(b.designGain),
+          shutoffPa: P(b.shutoffGain),
+          designFlowM3s: b.designFlow !== undefined ? Q(b.designFlow) : null,
+          assumed: false,
+        };
+      } else boost = { control: 'variable-speed', setPa: P(b.setPressure) };
+    }
+    if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
+    devicesBySeg[segIdx].push({
+      id: d.id,
+      kind: d.kind,
+      label: d.label,
+      segIdx,
+      fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
+      curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
+      prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
+      boost,
+    });
+  }
+
+  if (criteria.demandMethod === 'hunter-binomial') {
+    for (let i = 0; i < nNodes; i++) {
+      for (const g of groupsByNode[i]) {
+        if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
+      }
+    }
+  }
+
+  const model: SiModel = {
+    doc,
+    unitSystem: sys,
+    service: doc.service,
+    water,
+    criteria,
+    nodeIds,
+    nodeLabels,
+    nodeIndex,
+    elevationM,
+    placed,
+    continuousM3s,
+    groupsByNode,
+    fixtures,
+    seg,
+    // placeholder: defined below, built on first read
+    segments: [],
+    segIndex,
+    devicesBySeg,
+    projectData,
+    pipeMissing,
+    source: {
+      nodeIdx: sourceIdx,
+      kind: doc.source.kind,
+      staticLowPa: P(doc.source.staticPressureLow),
+      staticHighPa: P(doc.source.staticPressureHigh),
+      flowTest: ft ? { staticPa: P(ft.staticPressure), residualPa: P(ft.residualPressure), testFlowM3s: Q(ft.flow) } : null,
+    },
+  };
+  defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
+  return model;
+}
+
+/** Unit factors of the document's quantities (pure scalings, units.ts): SI = value × factor. */
+interface Scales {
+  pF: number;
+  lF: number;
+  qF: number;
+  dF: number;
+}
+
+/** The nodes: ids, positions, demand and the checked fixtures, in SI (buildModel, stage 2). */
+function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floorElevationM: Map<string, number>) {
+  const P = (v: number) => v * scale.pF;
+  const L = (v: number) => v * scale.lF;
+  const Q = (v: number) => v * scale.qF;
+  const nNodes = doc.nodes.length;
   const nodeIndex = new Map<string, number>();
   const nodeIds: string[] = new Array(nNodes);
   const nodeLabels: (string | null)[] = new Array(nNodes);
@@ -391,8 +560,8 @@ export function buildModel(doc: SystemDocument): SiModel {
   const projectData: ProjectDataUse[] = [];
   for (let i = 0; i < nNodes; i++) {
     const node = doc.nodes[i];
-    if (nodeIndex.has(node.id)) throw inputError('duplicate-id', 'node', node.id, 'id');
-    nodeIndex.set(node.id, i);
+    // One hash lookup: a repeated id leaves the size unchanged.
+    if (nodeIndex.set(node.id, i).size === i) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeIds[i] = node.id;
     nodeLabels[i] = node.label ?? null;
     // One position at most (schema.ts NodeSchema): absolute, on a floor, or by the feed's rise.
@@ -473,75 +642,89 @@ export function buildModel(doc: SystemDocument): SiModel {
     }
   }
 
-  // Source
-  const sourceIdx = nodeIndex.get(doc.source.nodeId);
-  if (sourceIdx === undefined) {
-    throw inputError('no-source', 'source', doc.source.nodeId, 'nodeId', `source node "${doc.source.nodeId}" is not in the system's nodes`);
-  }
-  if (doc.source.staticPressureHigh < doc.source.staticPressureLow) {
-    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'staticPressureHigh', 'the high static pressure is below the low static pressure');
-  }
-  const ft = doc.source.flowTest;
-  if (ft && !(ft.residualPressure < ft.staticPressure)) {
-    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
-  }
+  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData };
+}
 
-  // Segments
+/** The segments as parallel arrays in SI, with their pipe data from the catalog (buildModel, stage 2). */
+function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string, number>, placed: Uint8Array, projectData: ProjectDataUse[]) {
+  const L = (v: number) => v * scale.lF;
+  const Dm = (v: number) => v * scale.dF;
+  const Q = (v: number) => v * scale.qF;
   const segIndex = new Map<string, number>();
-  const segments: SiSegment[] = [];
+  const nSegs = doc.segments.length;
+  const seg: SiSegments = {
+    count: nSegs,
+    id: new Array(nSegs),
+    label: new Array(nSegs),
+    from: new Int32Array(nSegs),
+    to: new Int32Array(nSegs),
+    innerDiameterM: new Float64Array(nSegs),
+    roughnessM: new Float64Array(nSegs),
+    hazenWilliamsC: new Float64Array(nSegs),
+    velocityClass: new Array(nSegs),
+    nominalSizeIn: new Float64Array(nSegs),
+    nominalSizeKey: new Array(nSegs),
+    lengthM: new Float64Array(nSegs),
+    riseEnteredM: new Float64Array(nSegs),
+    materialId: new Array(nSegs),
+    fittings: new Array(nSegs),
+    customFittings: new Array(nSegs),
+    flowOverrideM3s: new Float64Array(nSegs),
+    reducerAuto: new Uint8Array(nSegs),
+  };
   const pipeMissing: number[] = [];
-  const checkRiseAgainstPosition = (seg: SystemDocument['segments'][number], to: number): void => {
-    if (seg.rise === undefined || placed[to] === 0) return;
+  const checkRiseAgainstPosition = (d: SystemDocument['segments'][number], to: number): void => {
+    if (d.rise === undefined || placed[to] === 0) return;
     const toNode = doc.nodes[to];
     throw new EngineInputError({
       code: 'rise-and-elevation',
       elementType: 'segment',
-      elementId: seg.id,
+      elementId: d.id,
       field: 'rise',
-      message: `segment "${seg.label ?? seg.id}" has a rise and its downstream node "${toNode.label ?? toNode.id}" has ${toNode.floor !== undefined ? 'a floor' : 'an elevation'}: keep one (a rise places a node that has neither)`,
+      message: `segment "${d.label ?? d.id}" has a rise and its downstream node "${toNode.label ?? toNode.id}" has ${toNode.floor !== undefined ? 'a floor' : 'an elevation'}: keep one (a rise places a node that has neither)`,
     });
   };
   // Catalog pipe data by material, then size: looked up once per pair in this analysis.
   const pipeByMaterial = new Map<string, Map<string, PipeData>>();
-  for (let s = 0; s < doc.segments.length; s++) {
-    const seg = doc.segments[s];
-    if (segIndex.has(seg.id)) throw inputError('duplicate-id', 'segment', seg.id, 'id');
-    segIndex.set(seg.id, s);
-    const from = nodeIndex.get(seg.from);
-    if (from === undefined) throw inputError('unknown-node', 'segment', seg.id, 'from', `node "${seg.from}" is not in the system`);
-    const to = nodeIndex.get(seg.to);
-    if (to === undefined) throw inputError('unknown-node', 'segment', seg.id, 'to', `node "${seg.to}" is not in the system`);
+  for (let s = 0; s < nSegs; s++) {
+    const d = doc.segments[s];
+    // One hash lookup: a repeated id leaves the size unchanged.
+    if (segIndex.set(d.id, s).size === s) throw inputError('duplicate-id', 'segment', d.id, 'id');
+    const from = nodeIndex.get(d.from);
+    if (from === undefined) throw inputError('unknown-node', 'segment', d.id, 'from', `node "${d.from}" is not in the system`);
+    const to = nodeIndex.get(d.to);
+    if (to === undefined) throw inputError('unknown-node', 'segment', d.id, 'to', `node "${d.to}" is not in the system`);
     let pipe: PipeData;
-    if (seg.custom) {
-      const innerDiameterM = Dm(seg.custom.innerDiameter);
+    if (d.custom) {
+      const innerDiameterM = Dm(d.custom.innerDiameter);
       pipe = {
         innerDiameterM,
-        roughnessM: Dm(seg.custom.roughness),
-        hazenWilliamsC: seg.custom.hazenWilliamsC,
-        velocityClass: seg.custom.velocityClass,
+        roughnessM: Dm(d.custom.roughness),
+        hazenWilliamsC: d.custom.hazenWilliamsC,
+        velocityClass: d.custom.velocityClass,
         // A custom pipe has no nominal size: the inside diameter in inches stands in for the
         // size-dependent fitting data (Crane f_T); stated as an assumption in the README.
         nominalSizeIn: innerDiameterM / 0.0254,
         nominalSizeKey: '',
       };
-    } else if (seg.material === undefined || seg.size === undefined) {
+    } else if (d.material === undefined || d.size === undefined) {
       // Not described yet: the verdict is incomplete (report.ts) and, to compute at all, the pipe
       // of the segment feeding it stands in (borrowPipes, after the topology), as the reason says.
       pipe = PLACEHOLDER_PIPE;
-      pipeMissing.push(segments.length);
+      pipeMissing.push(s);
     } else {
-      let bySize = pipeByMaterial.get(seg.material);
-      const known = bySize?.get(seg.size);
+      let bySize = pipeByMaterial.get(d.material);
+      const known = bySize?.get(d.size);
       if (known !== undefined) {
         pipe = known;
       } else {
-        const material = MATERIALS[seg.material as MaterialId];
+        const material = MATERIALS[d.material as MaterialId];
         if (!material) {
-          throw inputError('unknown-catalog-entry', 'segment', seg.id, 'material', `material "${seg.material}" is not in the materials catalog`);
+          throw inputError('unknown-catalog-entry', 'segment', d.id, 'material', `material "${d.material}" is not in the materials catalog`);
         }
-        const size = pipeSize(seg.material as MaterialId, seg.size);
+        const size = pipeSize(d.material as MaterialId, d.size);
         if (!size) {
-          throw inputError('unknown-catalog-entry', 'segment', seg.id, 'size', `size "${seg.size}" is not in the catalog for ${material.label}`);
+          throw inputError('unknown-catalog-entry', 'segment', d.id, 'size', `size "${d.size}" is not in the catalog for ${material.label}`);
         }
         pipe = {
           innerDiameterM: size.innerDiameterM,
@@ -553,124 +736,48 @@ export function buildModel(doc: SystemDocument): SiModel {
         };
         if (bySize === undefined) {
           bySize = new Map();
-          pipeByMaterial.set(seg.material, bySize);
+          pipeByMaterial.set(d.material, bySize);
         }
-        bySize.set(seg.size, pipe);
+        bySize.set(d.size, pipe);
       }
     }
-    if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', seg.id, 'innerDiameter');
-    checkRiseAgainstPosition(seg, to);
+    if (!(pipe.innerDiameterM > 0)) throw inputError('non-positive-diameter', 'segment', d.id, 'innerDiameter');
+    checkRiseAgainstPosition(d, to);
     let customFittings: (SiCustomFitting | null)[] | null = null;
-    for (let i = 0; i < seg.fittings.length; i++) {
-      const f = seg.fittings[i];
+    for (let i = 0; i < d.fittings.length; i++) {
+      const f = d.fittings[i];
       const own = f.custom;
       if (own) {
-        customFittings ??= new Array<SiCustomFitting | null>(seg.fittings.length).fill(null);
+        customFittings ??= new Array<SiCustomFitting | null>(d.fittings.length).fill(null);
         customFittings[i] =
           'k' in own
             ? { label: own.label, source: own.source, k: own.k }
             : { label: own.label, source: own.source, equivalentLengthM: L(own.equivalentLength) };
-        projectData.push({ elementType: 'fitting', elementId: seg.id, label: own.label, source: own.source });
+        projectData.push({ elementType: 'fitting', elementId: d.id, label: own.label, source: own.source });
       } else if (!FITTING_TYPES[f.typeId]) {
-        throw inputError('unknown-catalog-entry', 'fitting', seg.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
+        throw inputError('unknown-catalog-entry', 'fitting', d.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
       }
     }
-    segments.push({
-      id: seg.id,
-      label: seg.label ?? null,
-      from,
-      to,
-      innerDiameterM: pipe.innerDiameterM,
-      roughnessM: pipe.roughnessM,
-      hazenWilliamsC: pipe.hazenWilliamsC,
-      velocityClass: pipe.velocityClass,
-      nominalSizeIn: pipe.nominalSizeIn,
-      nominalSizeKey: pipe.nominalSizeKey,
-      lengthM: L(seg.length),
-      riseEnteredM: seg.rise !== undefined ? L(seg.rise) : null,
-      materialId: seg.custom || seg.size === undefined ? null : seg.material ?? null,
-      fittings: seg.fittings,
-      customFittings,
-      flowOverrideM3s: seg.flowOverride !== undefined ? Q(seg.flowOverride) : null,
-      reducerAuto: seg.reducerAuto,
-    });
+    seg.id[s] = d.id;
+    seg.label[s] = d.label ?? null;
+    seg.from[s] = from;
+    seg.to[s] = to;
+    seg.innerDiameterM[s] = pipe.innerDiameterM;
+    seg.roughnessM[s] = pipe.roughnessM;
+    seg.hazenWilliamsC[s] = pipe.hazenWilliamsC;
+    seg.velocityClass[s] = pipe.velocityClass;
+    seg.nominalSizeIn[s] = pipe.nominalSizeIn;
+    seg.nominalSizeKey[s] = pipe.nominalSizeKey;
+    seg.lengthM[s] = L(d.length);
+    seg.riseEnteredM[s] = d.rise !== undefined ? L(d.rise) : Number.NaN;
+    seg.materialId[s] = d.custom || d.size === undefined ? null : d.material ?? null;
+    seg.fittings[s] = d.fittings;
+    seg.customFittings[s] = customFittings;
+    seg.flowOverrideM3s[s] = d.flowOverride !== undefined ? Q(d.flowOverride) : Number.NaN;
+    seg.reducerAuto[s] = d.reducerAuto ? 1 : 0;
   }
 
-  // Devices
-  const devicesBySeg: SiDevice[][] = new Array(segments.length).fill(NO_DEVICES);
-  const deviceIds = new Set<string>();
-  for (const d of doc.devices) {
-    if (deviceIds.has(d.id)) throw inputError('duplicate-id', 'device', d.id, 'id');
-    deviceIds.add(d.id);
-    const segIdx = segIndex.get(d.segmentId);
-    if (segIdx === undefined) throw inputError('unknown-segment', 'device', d.id, 'segmentId', `segment "${d.segmentId}" is not in the system`);
-    if (d.kind === 'prv' && !d.prv) throw inputError('missing-field', 'device', d.id, 'prv', 'a PRV needs its set pressure');
-    if (d.kind === 'booster-pump' && !d.boost) throw inputError('missing-field', 'device', d.id, 'boost', 'a booster pump needs its pressure gain');
-    const b = d.boost;
-    let boost: SiBoost | null = null;
-    if (b) {
-      if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
-      else if (b.control === 'constant-speed') {
-        if (b.shutoffGain < b.designGain) {
-          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
-        }
-        boost = {
-          control: 'constant-speed',
-          designPa: P(b.designGain),
-          shutoffPa: P(b.shutoffGain),
-          designFlowM3s: b.designFlow !== undefined ? Q(b.designFlow) : null,
-          assumed: false,
-        };
-      } else boost = { control: 'variable-speed', setPa: P(b.setPressure) };
-    }
-    if (devicesBySeg[segIdx] === NO_DEVICES) devicesBySeg[segIdx] = [];
-    devicesBySeg[segIdx].push({
-      id: d.id,
-      kind: d.kind,
-      label: d.label,
-      segIdx,
-      fixedLossPa: d.loss.kind === 'fixed' ? P(d.loss.loss) : null,
-      curve: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ flowM3s: Q(p.flow), lossPa: P(p.loss) })) : null,
-      prv: d.prv ? { setPa: P(d.prv.setPressure), falloffPaPerM3s: P(d.prv.falloffPerFlow) / Q(1) } : null,
-      boost,
-    });
-  }
-
-  if (criteria.demandMethod === 'hunter-binomial') {
-    for (let i = 0; i < nNodes; i++) {
-      for (const g of groupsByNode[i]) {
-        if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
-      }
-    }
-  }
-
-  return {
-    doc,
-    unitSystem: sys,
-    service: doc.service,
-    water,
-    criteria,
-    nodeIds,
-    nodeLabels,
-    nodeIndex,
-    elevationM,
-    placed,
-    continuousM3s,
-    groupsByNode,
-    fixtures,
-    segments,
-    segIndex,
-    devicesBySeg,
-    projectData,
-    pipeMissing,
-    source: {
-      nodeIdx: sourceIdx,
-      kind: doc.source.kind,
-      staticLowPa: P(doc.source.staticPressureLow),
-      staticHighPa: P(doc.source.staticPressureHigh),
-      flowTest: ft ? { staticPa: P(ft.staticPressure), residualPa: P(ft.residualPressure), testFlowM3s: Q(ft.flow) } : null,
-    },
-  };
+  return { seg, segIndex, pipeMissing };
 }
 
 function mergeCriteria(doc: SystemDocument, P: (v: number) => number): Criteria {

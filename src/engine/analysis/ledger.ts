@@ -24,8 +24,11 @@ export function ledgerFor(analysis: Analysis, fixtureId: string): PressureLedger
   const P = (pa: number) => fromSI('pressure', pa, sys);
   const bySegId = new Map(analysis.si.segments.map((s) => [s.id, s]));
   const lines: LedgerLine[] = [];
-  // Segments whose fittings include the project's own data (the note 'project-data-used' names them).
-  const withProjectFittings = new Set(analysis.warnings.filter((w) => w.code === 'project-data-used' && w.elementType === 'fitting').map((w) => w.elementId));
+  // Segments whose fittings include the project's own data (the note 'project-data-used' names them:
+  // all in elementIds; an analysis stored before the note was grouped has one note per segment).
+  const withProjectFittings = new Set(
+    analysis.warnings.filter((w) => w.code === 'project-data-used' && w.elementType === 'fitting').flatMap((w) => w.elementIds ?? [w.elementId]),
+  );
   let p = analysis.si.source.pressureAtDesignFlow;
   const push = (kind: LedgerLine['kind'], elementId: string, segmentId: string | null, label: string, changeSI: number) => {
     lines.push({

@@ -31,9 +31,9 @@ export function nodeName(model: SiModel, nodeIdx: number): string {
 
 /** A segment's typed label; else "the pipe from <node> to <node>". */
 export function segmentName(model: SiModel, segIdx: number): string {
-  const seg = model.segments[segIdx];
-  if (seg.label) return `"${seg.label}"`;
-  return `the pipe from ${nodeName(model, seg.from)} to ${nodeName(model, seg.to)}`;
+  const label = model.seg.label[segIdx];
+  if (label) return `"${label}"`;
+  return `the pipe from ${nodeName(model, model.seg.from[segIdx])} to ${nodeName(model, model.seg.to[segIdx])}`;
 }
 
 /** "1 node", "3 nodes": proper plurals. */

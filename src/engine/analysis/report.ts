@@ -1,6 +1,7 @@
 /**
- * Stage 8: report. Gathers the stage results into the SI result objects, then converts a copy
- * to the document's unit system. No computation happens here beyond unit conversion.
+ * Stage 8: report. Gathers the stage results into the analysis: the verdict, methods and criteria
+ * here; the per-element results in SI and in the document's units from results.ts (built when
+ * first read). No computation happens here beyond unit conversion.
  */
 import { fromSI, toSI, UNIT_LABELS, type UnitSystem } from '../units';
 import { FRICTION_METHODS } from '../friction';
@@ -10,7 +11,8 @@ import type { Topology } from './topology';
 import type { DemandResult } from './demand';
 import type { HydraulicsResult } from './hydraulics';
 import type { ChecksResult } from './checks';
-import { assertFiniteDeep } from './finite';
+import { buildResults } from './results';
+import { defineLazy } from './lazy';
 import type { ElevationResult } from './elevations';
 import type { StaticChecksResult } from './staticChecks';
 import { formatPressure, nodeName, plural, segmentName } from './names';
@@ -18,10 +20,7 @@ import type {
   Analysis,
   IncompleteReason,
   AnalysisResults,
-  DeviceLossResult,
-  FixtureResult,
   MethodUsed,
-  NodeResult,
   SegmentResult,
   SourceResult,
 } from './types';
@@ -153,7 +152,7 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
     add({
       code: 'part-unreachable',
       elementType: first !== undefined ? 'node' : 'segment',
-      elementId: first !== undefined ? model.nodeIds[first] : model.segments[topo.unreachedSegments[0]].id,
+      elementId: first !== undefined ? model.nodeIds[first] : model.seg.id[topo.unreachedSegments[0]],
       elementLabel: first !== undefined ? nodeName(model, first) : segmentName(model, topo.unreachedSegments[0]),
       message: `${plural(topo.unreachedNodes.length, 'node')} and ${plural(topo.unreachedSegments.length, 'segment')} are not connected to the source${first !== undefined ? `, starting with ${nodeName(model, first)}` : ''}: connect them or remove them.`,
     });
@@ -164,14 +163,14 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
       elementType: 'node',
       elementId: model.nodeIds[nodeIdx],
       elementLabel: nodeName(model, nodeIdx),
-      message: `${capitalise(nodeName(model, nodeIdx))} has no elevation: enter the rise of ${segmentName(model, segIdx)} (0 for a level run), or the node's elevation or floor. It was computed level with ${nodeName(model, model.segments[segIdx].from)}.`,
+      message: `${capitalise(nodeName(model, nodeIdx))} has no elevation: enter the rise of ${segmentName(model, segIdx)} (0 for a level run), or the node's elevation or floor. It was computed level with ${nodeName(model, model.seg.from[segIdx])}.`,
     });
   }
   for (const s of model.pipeMissing) {
     add({
       code: 'segment-pipe-missing',
       elementType: 'segment',
-      elementId: model.segments[s].id,
+      elementId: model.seg.id[s],
       elementLabel: segmentName(model, s),
       message: `${capitalise(segmentName(model, s))} has no material and size: choose them (or enter custom pipe data). It was computed with the pipe feeding it.`,
     });
@@ -210,12 +209,13 @@ export function assembleReport(
   stat: StaticChecksResult,
   warnings: EngineWarning[],
 ): Analysis {
-  const { si, display } = buildResults(model, topo, demand, hyd, checks);
+  // The per-element results are built when first read (results.ts); the finite guard runs here.
+  const { si, display } = buildResults({ model, topo, demand, hyd, checks });
   const sys = model.unitSystem;
   const labels = UNIT_LABELS[sys];
   const criteria = model.criteria;
   const friction = FRICTION_METHODS[criteria.frictionMethod];
-  return {
+  const analysis: Analysis = {
     engineVersion: ENGINE_VERSION,
     schemaVersion: model.doc.schemaVersion,
     systemId: model.doc.id,
@@ -238,7 +238,11 @@ export function assembleReport(
       kinematicViscosityM2s: model.water.kinematicViscosity,
       dynamicViscosityPaS: model.water.dynamicViscosity,
     },
-    ...display,
+    // placeholders keeping the fields' order; defined below, built on first read
+    source: display.source,
+    segments: [],
+    nodes: [],
+    fixtures: [],
     criticalFixtureId: checks.criticalIndex === -1 ? null : model.fixtures[checks.criticalIndex].id,
     verdict: verdictOfChecks(model, topo, checks, elev, stat),
     methods: {
@@ -294,245 +298,10 @@ export function assembleReport(
     warnings,
     si,
   };
-}
-
-/**
- * The SI result objects and their display copies, built side by side in one pass over the stage
- * arrays; each display value is the SI value divided by its unit's factor, exactly as toDisplay
- * does it. Ends with the last guard of the pipeline (no NaN or Infinity in a result, see finite.ts).
- */
-function buildResults(
-  model: SiModel,
-  topo: Topology,
-  demand: DemandResult,
-  hyd: HydraulicsResult,
-  checks: ChecksResult,
-): { si: AnalysisResults; display: AnalysisResults } {
-  const sys = model.unitSystem;
-  // Pure scalings (units.ts): one factor per quantity; fromSI(q, v) = v / factor.
-  const pF = toSI('pressure', 1, sys);
-  const lF = toSI('length', 1, sys);
-  const dF = toSI('diameter', 1, sys);
-  const qF = toSI('flow', 1, sys);
-  const vF = toSI('velocity', 1, sys);
-  const z = (v: number) => fromSI('elevation', v, sys);
-  // Σ x·0 over every SI number: 0 when all are finite, NaN as soon as one is not.
-  let nonFinite = 0;
-
-  const srcIdx = model.source.nodeIdx;
-  const siSource: SourceResult = {
-    nodeId: model.nodeIds[srcIdx],
-    kind: model.source.kind,
-    elevation: model.elevationM[srcIdx],
-    designFlow: demand.source.designFlowM3s,
-    pressureAtDesignFlow: hyd.source.pressurePa,
-    pressureBasis: hyd.source.basis,
-    staticPressureLow: model.source.staticLowPa,
-    staticPressureHigh: model.source.staticHighPa,
-  };
-  nonFinite +=
-    (siSource.elevation + siSource.designFlow + siSource.pressureAtDesignFlow + siSource.staticPressureLow + siSource.staticPressureHigh) * 0;
-  const source: SourceResult = {
-    ...siSource,
-    elevation: z(siSource.elevation),
-    designFlow: siSource.designFlow / qF,
-    pressureAtDesignFlow: siSource.pressureAtDesignFlow / pF,
-    staticPressureLow: siSource.staticPressureLow / pF,
-    staticPressureHigh: siSource.staticPressureHigh / pF,
-  };
-
-  const segsIn = model.segments;
-  const nSegs = segsIn.length;
-  const siSegments: SegmentResult[] = new Array(nSegs);
-  const segments: SegmentResult[] = new Array(nSegs);
-  for (let s = 0; s < nSegs; s++) {
-    const seg = segsIn[s];
-    const parent = topo.parentSeg[s];
-    const id = seg.id;
-    const from = model.nodeIds[seg.from];
-    const to = model.nodeIds[seg.to];
-    const parentSegmentId = parent === -1 ? null : segsIn[parent].id;
-    const wsfu = demand.wsfu[s];
-    const designFlow = demand.designFlowM3s[s];
-    const rise = hyd.riseM[s];
-    const velocity = hyd.velocity[s];
-    const reynolds = hyd.reynolds[s];
-    const frictionFactor = hyd.frictionFactor[s];
-    const fittingsK = hyd.fittingsK[s];
-    const sizeChangeK = hyd.sizeChangeK[s];
-    const totalK = fittingsK + sizeChangeK;
-    const frictionLoss = hyd.frictionLossPa[s];
-    const fittingLoss = hyd.fittingLossPa[s];
-    const riseLoss = hyd.riseLossPa[s];
-    const deviceLoss = hyd.deviceLossPa[s];
-    const inletPressure = hyd.inletPa[s];
-    const outletPressure = hyd.outletPa[s];
-    const velocityLimit = checks.velocityLimitMs[s];
-    const developedLength = hyd.nodeDevelopedLengthM[seg.to];
-    const devs = hyd.devices[s];
-    const siDevices: DeviceLossResult[] = new Array(devs.length);
-    const devices: DeviceLossResult[] = new Array(devs.length);
-    for (let k = 0; k < devs.length; k++) {
-      const d = devs[k];
-      nonFinite += d.lossPa * 0;
-      siDevices[k] = { deviceId: d.deviceId, kind: d.kind, label: d.label, loss: d.lossPa, extrapolated: d.extrapolated };
-      devices[k] = { deviceId: d.deviceId, kind: d.kind, label: d.label, loss: d.lossPa / pF, extrapolated: d.extrapolated };
-    }
-    nonFinite +=
-      (wsfu + designFlow + seg.innerDiameterM + seg.lengthM + rise + velocity + reynolds + frictionFactor + fittingsK + sizeChangeK +
-        totalK + frictionLoss + fittingLoss + riseLoss + deviceLoss + inletPressure + outletPressure + developedLength +
-        (velocityLimit ?? 0)) *
-      0;
-    siSegments[s] = {
-      id,
-      label: seg.label,
-      from,
-      to,
-      parentSegmentId,
-      wsfu,
-      demandCurve: demand.curve[s],
-      flowBasis: demand.basis[s],
-      designFlow,
-      innerDiameter: seg.innerDiameterM,
-      length: seg.lengthM,
-      rise,
-      velocity,
-      reynolds,
-      frictionFactor,
-      regime: hyd.regime[s],
-      fittingsK,
-      sizeChangeK,
-      totalK,
-      frictionLoss,
-      fittingLoss,
-      riseLoss,
-      deviceLoss,
-      devices: siDevices,
-      inletPressure,
-      outletPressure,
-      velocityLimit,
-      velocityPass: checks.velocityPass[s],
-      developedLength,
-    };
-    segments[s] = {
-      id,
-      label: seg.label,
-      from,
-      to,
-      parentSegmentId,
-      wsfu,
-      demandCurve: demand.curve[s],
-      flowBasis: demand.basis[s],
-      designFlow: designFlow / qF,
-      innerDiameter: seg.innerDiameterM / dF,
-      length: seg.lengthM / lF,
-      rise: rise / lF,
-      velocity: velocity / vF,
-      reynolds,
-      frictionFactor,
-      regime: hyd.regime[s],
-      fittingsK,
-      sizeChangeK,
-      totalK,
-      frictionLoss: frictionLoss / pF,
-      fittingLoss: fittingLoss / pF,
-      riseLoss: riseLoss / pF,
-      deviceLoss: deviceLoss / pF,
-      devices,
-      inletPressure: inletPressure / pF,
-      outletPressure: outletPressure / pF,
-      velocityLimit: velocityLimit === null ? null : velocityLimit / vF,
-      velocityPass: checks.velocityPass[s],
-      developedLength: developedLength / lF,
-    };
-  }
-
-  const nNodes = model.nodeIds.length;
-  const siNodes: NodeResult[] = new Array(nNodes);
-  const nodes: NodeResult[] = new Array(nNodes);
-  for (let i = 0; i < nNodes; i++) {
-    const id = model.nodeIds[i];
-    const label = model.nodeLabels[i];
-    const elevation = model.elevationM[i];
-    const pressure = hyd.nodePressurePa[i];
-    const staticPressureHigh = hyd.nodeStaticHighPa[i];
-    const staticPressureLow = hyd.nodeStaticLowPa[i];
-    const staticPass = checks.nodeStaticPass[i];
-    const developedLength = hyd.nodeDevelopedLengthM[i];
-    const feed = topo.feedSeg[i];
-    const feedSegmentId = feed === -1 ? null : segsIn[feed].id;
-    nonFinite += (elevation + pressure + staticPressureHigh + staticPressureLow + developedLength) * 0;
-    siNodes[i] = { id, label, elevation, pressure, staticPressureHigh, staticPressureLow, staticPass, developedLength, feedSegmentId };
-    nodes[i] = {
-      id,
-      label,
-      elevation: z(elevation),
-      pressure: pressure / pF,
-      staticPressureHigh: staticPressureHigh / pF,
-      staticPressureLow: staticPressureLow / pF,
-      staticPass,
-      developedLength: developedLength / lF,
-      feedSegmentId,
-    };
-  }
-
-  const nFix = model.fixtures.length;
-  const siFixtures: FixtureResult[] = new Array(nFix);
-  const fixtures: FixtureResult[] = new Array(nFix);
-  for (let k = 0; k < nFix; k++) {
-    const fx = model.fixtures[k];
-    const c = checks.fixtures[k];
-    const elevation = model.elevationM[fx.nodeIdx];
-    const developedLength = hyd.nodeDevelopedLengthM[fx.nodeIdx];
-    const nodeId = model.nodeIds[fx.nodeIdx];
-    // One path array, shared by the SI and the display result (as the spread in toDisplay shares it).
-    const path = pathTo(fx.nodeIdx, topo, model);
-    nonFinite += (c.residualPa + fx.requiredPa + c.marginPa + fx.flowRateM3s + elevation + developedLength) * 0;
-    siFixtures[k] = {
-      id: fx.id,
-      nodeId,
-      fixtureTypeId: fx.fixtureTypeId,
-      label: fx.label,
-      residual: c.residualPa,
-      required: fx.requiredPa,
-      margin: c.marginPa,
-      pass: c.pass,
-      flowRate: fx.flowRateM3s,
-      elevation,
-      developedLength,
-      path,
-    };
-    fixtures[k] = {
-      id: fx.id,
-      nodeId,
-      fixtureTypeId: fx.fixtureTypeId,
-      label: fx.label,
-      residual: c.residualPa / pF,
-      required: fx.requiredPa / pF,
-      margin: c.marginPa / pF,
-      pass: c.pass,
-      flowRate: fx.flowRateM3s / qF,
-      elevation: z(elevation),
-      developedLength: developedLength / lF,
-      path,
-    };
-  }
-
-  const si: AnalysisResults = { source: siSource, segments: siSegments, nodes: siNodes, fixtures: siFixtures };
-  // A non-finite number is an engine defect: the full walk names the first one (and throws).
-  if (nonFinite !== 0) assertFiniteDeep(si);
-  return { si, display: { source, segments, nodes, fixtures } };
-}
-
-function pathTo(nodeIdx: number, topo: Topology, model: SiModel): string[] {
-  const path: string[] = [];
-  let n = nodeIdx;
-  while (topo.feedSeg[n] !== -1) {
-    const s = topo.feedSeg[n];
-    path.push(model.segments[s].id);
-    n = model.segments[s].from;
-  }
-  return path.reverse();
+  defineLazy(analysis, 'segments', () => display.segments);
+  defineLazy(analysis, 'nodes', () => display.nodes);
+  defineLazy(analysis, 'fixtures', () => display.fixtures);
+  return analysis;
 }
 
 /** Converts SI results to the display units of `sys` (a new object; `si` is untouched). */

@@ -73,22 +73,23 @@ export function runStaticChecks(
   // PRV fails open
   const max = model.criteria.maxStaticPressurePa;
   const prvFailOpen: StaticChecks['prvFailOpen'] = [];
-  let children: Map<number, number[]> | null = null;
+  let scratch: FailedOpenScratch | null = null;
   for (const devs of model.devicesBySeg) {
     for (const d of devs) {
       if (!d.prv) continue;
-      const high = staticHighWithout(model, topo, elev, d.id);
       const segIdx = d.segIdx;
-      children ??= childNodes(model, topo);
-      const below = subtreeNodes(children, model.segments[segIdx].to);
+      scratch ??= { high: new Float64Array(model.nodeIds.length), nodes: new Int32Array(model.nodeIds.length), stack: new Int32Array(model.seg.count) };
+      const below = failedOpenBelow(model, topo, hyd, elev, d.id, segIdx, scratch);
+      const high = below.high;
       let over = 0;
       let worst = -1;
-      for (const n of below) {
+      for (let k = 0; k < below.count; k++) {
+        const n = below.nodes[k];
         if (!serves[n]) continue;
         if (worst === -1 || high[n] > high[worst]) worst = n;
         if (high[n] > max) over++;
       }
-      const worstStatic = worst === -1 ? high[model.segments[segIdx].to] : high[worst];
+      const worstStatic = worst === -1 ? high[model.seg.to[segIdx]] : high[worst];
       const excess = Math.max(0, worstStatic - max);
       prvFailOpen.push({
         deviceId: d.id,
@@ -115,11 +116,12 @@ export function runStaticChecks(
 
   // Pipe ratings: per catalog material and size, the segment with the highest static pressure.
   const worstBySize = new Map<string, { s: number; pa: number }>();
-  for (let s = 0; s < model.segments.length; s++) {
-    const seg = model.segments[s];
-    if (seg.materialId === null) continue;
-    const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to]);
-    const key = `${seg.materialId}\u0000${seg.nominalSizeKey}`;
+  const seg = model.seg;
+  for (let s = 0; s < seg.count; s++) {
+    const materialId = seg.materialId[s];
+    if (materialId === null) continue;
+    const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to[s]]);
+    const key = `${materialId}\u0000${seg.nominalSizeKey[s]}`;
     const prev = worstBySize.get(key);
     if (prev === undefined || pa > prev.pa) worstBySize.set(key, { s, pa });
   }
@@ -127,18 +129,18 @@ export function runStaticChecks(
   const unrated = new Set<string>();
   let pipeRatingsPass = true;
   for (const { s, pa } of worstBySize.values()) {
-    const seg = model.segments[s];
-    const materialId = seg.materialId!;
+    const materialId = seg.materialId[s]!;
+    const sizeKey = seg.nominalSizeKey[s];
     const material = MATERIALS[materialId as MaterialId];
-    const materialLabel = `${material?.label ?? materialId} ${seg.nominalSizeKey}`;
-    const rating = pressureRating(materialId, seg.nominalSizeKey, model.water.temperatureC);
+    const materialLabel = `${material?.label ?? materialId} ${sizeKey}`;
+    const rating = pressureRating(materialId, sizeKey, model.water.temperatureC);
     if (rating === null) {
       unrated.add(material?.label ?? materialId);
       continue;
     }
     const pass = pa <= rating.ratingPa;
     pipeRatings.push({
-      segmentId: seg.id,
+      segmentId: seg.id[s],
       label: segmentLabel(model, s),
       materialLabel,
       ratingPressure: toDoc(rating.ratingPa),
@@ -153,7 +155,7 @@ export function runStaticChecks(
       const w = makeWarning(
         'static-over-pipe-rating',
         'segment',
-        seg.id,
+        seg.id[s],
         `${materialLabel}: up to ${formatPressure(pa, sys)} static, rated ${formatPressure(rating.ratingPa, sys)} at the water temperature (${rating.source}).`,
       );
       warnings.push(w);
@@ -198,49 +200,50 @@ export function runStaticChecks(
   };
 }
 
+/** Work arrays of failedOpenBelow, allocated once per analysis. `stack`: segments still to walk (each once: a tree). */
+interface FailedOpenScratch {
+  high: Float64Array;
+  nodes: Int32Array;
+  stack: Int32Array;
+}
+
 /**
- * High static pressure at every node with one PRV passing its inlet pressure (failed open), the
- * other devices as in the hydraulics stage (hydraulics.ts, same operations in the same order).
+ * High static pressure below one PRV passing its inlet pressure (failed open), the other devices
+ * as in the hydraulics stage (hydraulics.ts, same operations in the same order). Above the valve's
+ * segment nothing changes, so the walk starts from the hydraulics stage's high static at the
+ * segment's upstream node and covers only the subtree below it: `nodes[0 … count − 1]` are the
+ * segment's downstream node and every node below it, `high` holds their pressures (the other
+ * entries are left from an earlier valve's walk and are not read).
  */
-function staticHighWithout(model: SiModel, topo: Topology, elev: ElevationResult, failedId: string): Float64Array {
+function failedOpenBelow(
+  model: SiModel,
+  topo: Topology,
+  hyd: HydraulicsResult,
+  elev: ElevationResult,
+  failedId: string,
+  segIdx: number,
+  scratch: FailedOpenScratch,
+): { high: Float64Array; nodes: Int32Array; count: number } {
   const rhoG = model.water.density * G;
-  const high = new Float64Array(model.nodeIds.length);
-  high[model.source.nodeIdx] = model.source.staticHighPa;
-  for (let k = 0; k < topo.order.length; k++) {
-    const s = topo.order[k];
-    const seg = model.segments[s];
-    let h = high[seg.from];
+  const { high, nodes, stack } = scratch;
+  let top = 0;
+  let count = 0;
+  stack[top++] = segIdx;
+  const { from, to } = model.seg;
+  high[from[segIdx]] = hyd.nodeStaticHighPa[from[segIdx]];
+  while (top > 0) {
+    const s = stack[--top];
+    const below = to[s];
+    let h = high[from[s]];
     for (const d of model.devicesBySeg[s]) {
       if (d.prv && d.id !== failedId) h = Math.min(h, d.prv.setPa);
       const b = d.boost;
       if (b && b.control === 'constant-speed') h += b.shutoffPa;
       else if (b) h = Math.max(h, b.setPa);
     }
-    high[seg.to] = h - rhoG * elev.riseM[s];
+    high[below] = h - rhoG * elev.riseM[s];
+    nodes[count++] = below;
+    for (let c = topo.childStart[below]; c < topo.childStart[below + 1]; c++) stack[top++] = topo.childSegs[c];
   }
-  return high;
-}
-
-/** The nodes fed from each node (reached part of the tree). */
-function childNodes(model: SiModel, topo: Topology): Map<number, number[]> {
-  const children = new Map<number, number[]>();
-  for (let k = 0; k < topo.order.length; k++) {
-    const seg = model.segments[topo.order[k]];
-    const list = children.get(seg.from);
-    if (list) list.push(seg.to);
-    else children.set(seg.from, [seg.to]);
-  }
-  return children;
-}
-
-/** The node `root` and every node below it. */
-function subtreeNodes(children: Map<number, number[]>, root: number): number[] {
-  const out: number[] = [];
-  const stack = [root];
-  while (stack.length > 0) {
-    const n = stack.pop()!;
-    out.push(n);
-    for (const c of children.get(n) ?? []) stack.push(c);
-  }
-  return out;
+  return { high, nodes, count };
 }

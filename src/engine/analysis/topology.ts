@@ -23,39 +23,45 @@ export interface Topology {
   unreachedSegments: number[];
   /** Segment index feeding each segment's upstream node; −1 for segments leaving the source. */
   parentSeg: Int32Array;
+  /**
+   * Segments leaving each node, as one compressed list: those of node n are
+   * childSegs[childStart[n]] … childSegs[childStart[n + 1] − 1], in document order.
+   */
+  childStart: Int32Array;
+  childSegs: Int32Array;
 }
 
 export function buildTopology(model: SiModel): Topology {
   const nNodes = model.nodeIds.length;
-  const segs = model.segments;
-  const nSegs = segs.length;
+  const { from: segFrom, to: segTo, id: segId } = model.seg;
+  const nSegs = model.seg.count;
   const source = model.source.nodeIdx;
   const feedSeg = new Int32Array(nNodes).fill(-1);
 
   for (let s = 0; s < nSegs; s++) {
-    const seg = segs[s];
-    if (seg.from === seg.to) throw inputError('self-loop', 'segment', seg.id, 'to');
-    if (seg.to === source) throw inputError('source-has-feed', 'segment', seg.id, 'to');
-    const existing = feedSeg[seg.to];
+    const to = segTo[s];
+    if (segFrom[s] === to) throw inputError('self-loop', 'segment', segId[s], 'to');
+    if (to === source) throw inputError('source-has-feed', 'segment', segId[s], 'to');
+    const existing = feedSeg[to];
     if (existing !== -1) {
       throw inputError(
         'multiple-feeds',
         'node',
-        model.nodeIds[seg.to],
+        model.nodeIds[to],
         null,
-        `node is fed by segments "${segs[existing].id}" and "${seg.id}"; Headroom analyses trees only (segments run from the source outward)`,
+        `node is fed by segments "${segId[existing]}" and "${segId[s]}"; Headroom analyses trees only (segments run from the source outward)`,
       );
     }
-    feedSeg[seg.to] = s;
+    feedSeg[to] = s;
   }
 
   // Children of each node as a compressed adjacency list (counting sort by `from`).
   const childStart = new Int32Array(nNodes + 1);
-  for (let s = 0; s < nSegs; s++) childStart[segs[s].from + 1]++;
+  for (let s = 0; s < nSegs; s++) childStart[segFrom[s] + 1]++;
   for (let i = 0; i < nNodes; i++) childStart[i + 1] += childStart[i];
   const fill = childStart.slice(0, nNodes);
   const children = new Int32Array(nSegs);
-  for (let s = 0; s < nSegs; s++) children[fill[segs[s].from]++] = s;
+  for (let s = 0; s < nSegs; s++) children[fill[segFrom[s]]++] = s;
 
   // Breadth-first from the source.
   const order = new Int32Array(nSegs);
@@ -66,7 +72,7 @@ export function buildTopology(model: SiModel): Topology {
   for (let c = childStart[source]; c < childStart[source + 1]; c++) order[tail++] = children[c];
   while (head < tail) {
     const s = order[head++];
-    const to = segs[s].to;
+    const to = segTo[s];
     reached[to] = 1;
     for (let c = childStart[to]; c < childStart[to + 1]; c++) order[tail++] = children[c];
   }
@@ -80,13 +86,13 @@ export function buildTopology(model: SiModel): Topology {
     for (let s = 0; s < nSegs; s++) {
       if (inOrder[s]) continue;
       const seen = new Set<number>();
-      let node = segs[s].from;
+      let node = segFrom[s];
       while (feedSeg[node] !== -1 && !seen.has(node)) {
         seen.add(node);
-        node = segs[feedSeg[node]].from;
+        node = segFrom[feedSeg[node]];
       }
       if (seen.has(node)) {
-        throw inputError('cycle', 'segment', segs[feedSeg[node]].id, null, `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`);
+        throw inputError('cycle', 'segment', segId[feedSeg[node]], null, `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`);
       }
       unreachedSegments.push(s);
     }
@@ -95,6 +101,6 @@ export function buildTopology(model: SiModel): Topology {
   for (let i = 0; i < nNodes; i++) if (!reached[i]) unreachedNodes.push(i);
 
   const parentSeg = new Int32Array(nSegs);
-  for (let s = 0; s < nSegs; s++) parentSeg[s] = feedSeg[segs[s].from];
-  return { feedSeg, order: tail < nSegs ? order.slice(0, tail) : order, parentSeg, unreachedNodes, unreachedSegments };
+  for (let s = 0; s < nSegs; s++) parentSeg[s] = feedSeg[segFrom[s]];
+  return { feedSeg, order: tail < nSegs ? order.slice(0, tail) : order, parentSeg, unreachedNodes, unreachedSegments, childStart, childSegs: children };
 }

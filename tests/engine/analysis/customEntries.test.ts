@@ -128,10 +128,11 @@ describe('custom fixture group', () => {
     // The demand is not trivially zero: fixture units reached the source segment.
     expect(own.segments.find((s) => s.id === 'sa')!.wsfu).toBeGreaterThan(0);
     expect(own.segments.find((s) => s.id === 'sa')!.demandCurve).toBe('flush-valve');
-    // The only difference: the notes that the project's own data was used, with its source.
+    // The only difference: one note that the project's own data was used, naming both groups with their sources.
     const extra = own.warnings.filter((w) => w.code === 'project-data-used');
-    expect(extra.map((w) => w.elementId)).toEqual(['b', 'd']);
-    expect(extra[0].detail).toBe(`Lavatory (project): source ${SOURCE}`);
+    expect(extra).toHaveLength(1);
+    expect(extra[0].elementIds).toEqual(['b', 'd']);
+    expect(extra[0].detail).toBe(`2 fixture groups at 2 nodes use the project's own data: Lavatory (project): source ${SOURCE}; Closet (project): source ${SOURCE}`);
     expect(own.warnings.filter((w) => w.code !== 'project-data-used')).toStrictEqual(catalog.warnings);
   });
 
@@ -177,6 +178,35 @@ describe('errors and old documents', () => {
     const d = clone(smallTree());
     d.nodes[2].fixtureGroups = [{ fixtureTypeId: 'project:lav', count: 1 }];
     expect(() => analyzeSystem(d)).toThrow(/not in the fixtures catalog/);
+  });
+
+  it('a long tree whose every fitting carries project data gets one note naming how many, and each distinct entry up to the cap', () => {
+    // 12 segments in a chain, each with one custom fitting; 11 distinct entries (the last two share one).
+    const d = clone(oneSegment());
+    const first = d.segments[0];
+    d.segments = [];
+    d.nodes = [d.nodes[0]];
+    for (let i = 0; i < 12; i++) {
+      const from = i === 0 ? first.from : `n${i}`;
+      d.nodes.push({ id: `n${i + 1}`, elevation: 0 });
+      d.segments.push({ ...first, id: `s${i + 1}`, from, to: `n${i + 1}`, length: 1, fittings: [{ typeId: `project:v${Math.min(i, 10)}`, count: 1, custom: { label: `Valve ${Math.min(i, 10)}`, k: 0.5, source: SOURCE } }] });
+    }
+    d.nodes[d.nodes.length - 1].checkedFixtures = [{ id: 'lav', fixtureTypeId: 'lavatory-private' }];
+    d.nodes[d.nodes.length - 1].continuousDemand = 0.2;
+    const a = analyzeSystem(d);
+    const notes = a.warnings.filter((w) => w.code === 'project-data-used');
+    expect(notes).toHaveLength(1);
+    expect(notes[0].elementType).toBe('fitting');
+    expect(notes[0].elementIds).toEqual(d.segments.map((s) => s.id));
+    // 10 distinct entries named (MAX_ENTRIES_NAMED), the 11th counted; the shared one says its uses.
+    expect(notes[0].detail).toMatch(/^12 fittings on 12 segments use the project's own data: Valve 0: source /);
+    expect(notes[0].detail).toContain('Valve 9: source');
+    expect(notes[0].detail).not.toContain('Valve 10');
+    expect(notes[0].detail).toMatch(/; and 1 more entry$/);
+    // The ledger still marks every segment's fittings line, down to the last.
+    const fittingsLines = ledgerFor(a, 'lav').lines.filter((l) => l.kind === 'fittings');
+    expect(fittingsLines).toHaveLength(12);
+    expect(fittingsLines.every((l) => l.label.endsWith('fittings (incl. project data)'))).toBe(true);
   });
 
   it('a document without project data has no project-data note', () => {
