@@ -20,6 +20,8 @@ export type {
   LedgerLine,
   PressureLedger,
   StaticChecks,
+  ZoneResult,
+  ZonePressureAt,
 } from './analysis/types';
 export {
   SystemDocumentSchema,
