@@ -182,7 +182,10 @@ export interface ZoneResult {
   entrySegmentId: string | null;
   /** The node upstream of the boundary (the source node for the supply's zone). */
   entryNodeId: string;
-  /** Names of the floors its nodes sit on, lowest first (empty when the document places no node on a floor). */
+  /**
+   * Names of the floors of the nodes it serves fixtures at, lowest first (of all its nodes where it
+   * serves none; empty when the document places no node on a floor). The elevations likewise.
+   */
   floors: string[];
   lowestElevation: number | null;
   highestElevation: number | null;

@@ -98,7 +98,12 @@ export function computeZones(
   const maxZ = new Float64Array(n).fill(-Infinity);
   const nodeCount = new Int32Array(n);
   const groupCount = new Int32Array(n);
+  // Floors and elevations of the nodes that serve fixtures (what the zone serves); of every node
+  // where a zone serves none (a base node beside the start, a heater feed).
   const floorIds: Set<string>[] = Array.from({ length: n }, () => new Set());
+  const allFloorIds: Set<string>[] = Array.from({ length: n }, () => new Set());
+  const minZAll = new Float64Array(n).fill(Infinity);
+  const maxZAll = new Float64Array(n).fill(-Infinity);
 
   for (let i = 0; i < model.nodeIds.length; i++) {
     const z = nodeZone[i];
@@ -109,10 +114,15 @@ export function computeZones(
     if (highest[z] === null || pa > highest[z]!.pa) highest[z] = { pa, node: i };
     if (lowest[z] === null || pa < lowest[z]!.pa) lowest[z] = { pa, node: i };
     const elev = model.elevationM[i];
-    if (elev < minZ[z]) minZ[z] = elev;
-    if (elev > maxZ[z]) maxZ[z] = elev;
     const floor = model.doc.nodes[i].floor;
-    if (floor !== undefined) floorIds[z].add(floor);
+    if (elev < minZAll[z]) minZAll[z] = elev;
+    if (elev > maxZAll[z]) maxZAll[z] = elev;
+    if (floor !== undefined) allFloorIds[z].add(floor);
+    if (model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0) {
+      if (elev < minZ[z]) minZ[z] = elev;
+      if (elev > maxZ[z]) maxZ[z] = elev;
+      if (floor !== undefined) floorIds[z].add(floor);
+    }
     // The static check applies where fixtures are served (checks.ts: nodeStaticPass is null elsewhere).
     const pass = checks.nodeStaticPass[i];
     if (pass === null || pass === undefined) continue;
@@ -174,7 +184,8 @@ export function computeZones(
       zb.kind === 'supply'
         ? `Zone ${index} — from the supply`
         : `Zone ${index} — ${zb.deviceLabel} (${zb.settingKind === 'set' ? 'set' : 'gain'} ${formatSetting(setting!, sys)} ${pressureUnit})`;
-    const floors = [...floorIds[z]]
+    const served = minZ[z] !== Infinity;
+    const floors = [...(served ? floorIds[z] : allFloorIds[z])]
       .map((id) => floorOrder.get(id))
       .filter((f) => f !== undefined)
       .sort((a, b) => a.elevation - b.elevation || a.k - b.k)
@@ -206,8 +217,8 @@ export function computeZones(
       entrySegmentId: entry === null ? null : entry.id,
       entryNodeId: entry === null ? model.nodeIds[model.source.nodeIdx] : model.nodeIds[entry.from],
       floors,
-      lowestElevation: nodeCount[z] === 0 ? null : zUnit(minZ[z]),
-      highestElevation: nodeCount[z] === 0 ? null : zUnit(maxZ[z]),
+      lowestElevation: nodeCount[z] === 0 ? null : zUnit(served ? minZ[z] : minZAll[z]),
+      highestElevation: nodeCount[z] === 0 ? null : zUnit(served ? maxZ[z] : maxZAll[z]),
       nodeCount: nodeCount[z],
       segmentCount: segCount[z],
       highestResidual: hi === null ? null : { pressure: p(hi.pa), nodeId: model.nodeIds[hi.node], where: where(hi.node) },

@@ -81,8 +81,9 @@ describe('the riser builder with pressure zones', () => {
     expect(zones.map((z) => z.checkedFixtures)).toEqual([0, 48, 112]);
     expect(zones[1].floors[0]).toBe('Level 1');
     expect(zones[1].floors.at(-1)).toBe('Level 12');
-    expect(zones[2].floors[0]).toBe('Level 1'); // the booster's base sits beside Level 1's main
-    expect(zones[2].floors[1]).toBe('Level 13');
+    // the floors it serves: its base node beside Level 1's main serves nothing and is not counted
+    expect(zones[2].floors).toHaveLength(28);
+    expect(zones[2].floors[0]).toBe('Level 13');
     expect(zones[2].floors.at(-1)).toBe('Level 40');
     // Static at Level 13's riser node: the booster holds 120 psi at its foot's inlet, the start point
     // at −5 ft; Level 13's main is at 129 ft, a 134 ft climb (ρ·g from the engine's water at 55 °F,

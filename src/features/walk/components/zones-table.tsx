@@ -48,7 +48,10 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                     <span className="block text-xs font-normal text-ink-soft">inside {byId.get(z.parentZoneId)?.name.split(' — ')[0]}</span>
                   ) : null}
                 </th>
-                <td className="py-1 pr-3">{z.feed.kind === 'supply' ? 'The supply' : `${z.feed.kind === 'prv' ? 'PRV' : 'Booster pump'} ${z.feed.deviceLabel}`}</td>
+                <td className="py-1 pr-3">
+                  {z.feed.kind === 'supply' ? 'The supply' : z.feed.deviceLabel}
+                  {z.feed.kind !== 'supply' ? <span className="block text-xs text-ink-soft">{z.feed.kind === 'prv' ? 'pressure-reducing valve' : 'booster pump'}</span> : null}
+                </td>
                 <td className="py-1 pr-3 text-right tabular-nums">
                   {z.feed.pressure === null ? '—' : `${z.feed.setting === 'gain' ? 'gain ' : ''}${fmt(z.feed.pressure, 1)}`}
                 </td>
