@@ -18,7 +18,7 @@
  * supply can reach, or nothing for a zone the supply serves as it is:
  *
  *   start ──[PRV]── low-zone riser: Level 1 … Level 12, a floor main and taps on each
- *        └─[booster]── zone base ── express riser (no taps) ── Level 13 … Level 40, mains and taps
+ *        └─[booster]── zone base (level with the start) ── express riser (no taps) ── Level 13 … Level 40
  *
  * Separate zone risers with the pressure-reducing valve or booster at the base, the upper zone's
  * riser running express (no branches) through the floors below it, are the usual arrangement in
@@ -258,14 +258,14 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
     const zoneWords = zone ? `Zone ${zone.index} ` : '';
     let deviceSeg: string | null = null;
     if (zone && lo > from) {
+      // the zone's base: level with the start point, the run to the foot away (its device sits there,
+      // in the mechanical room); the express riser climbs from it
       const base = spec.floors[from];
       const baseNode = `${tag}base`;
-      const zb = base.elevation + h;
-      const footLength = Math.abs(zb - belowElevation) + spec.riser.footLength;
-      if (!(footLength > 0)) {
-        throw builderError('riser.footLength', `${zoneWords}would start with a pipe of no length: the start point is level with the ${base.name} floor main. Enter the run from the start point to the foot of the risers.`);
+      if (!(spec.riser.footLength > 0)) {
+        throw builderError('riser.footLength', `${zoneWords}needs a run from the start point to the foot of its riser, where its device sits: enter the run to the foot of the risers.`);
       }
-      nodes.push({ id: baseNode, label: `${zoneWords}riser base, ${base.name}`, floor: base.id, heightAboveFloor: h });
+      nodes.push({ id: baseNode, label: `${zoneWords}riser base`, floor: base.id, heightAboveFloor: spec.startElevation - base.elevation });
       segments.push({
         id: `${tag}foot`,
         label: `${zoneWords}riser foot`,
@@ -273,12 +273,11 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
         to: baseNode,
         material: spec.riser.material,
         size: sizeAt(lo),
-        length: footLength,
+        length: spec.riser.footLength,
         fittings: [...(spec.riser.footFittings ?? [])],
       });
       deviceSeg = `${tag}foot`;
       below = baseNode;
-      belowElevation = zb;
     }
     for (let i = lo; i <= hi; i++) {
       const floor = spec.floors[i];

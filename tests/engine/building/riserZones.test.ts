@@ -60,9 +60,11 @@ describe('the riser builder with pressure zones', () => {
     const seg = (id: string) => built.segments.find((s) => s.id === id)!;
     // Low-zone foot: 10 ft run + climb from −5 ft to Level 1's main at 9 ft (14 ft) = 24 ft.
     expect(seg('zone-1-riser-foot')).toMatchObject({ from: 'after-backflow', to: 'riser-level-1', length: 24 });
-    // High-zone foot: the same 24 ft to its base beside Level 1's main; then express from 9 ft to Level 13's main at 129 ft: 120 ft.
-    expect(seg('zone-2-foot')).toMatchObject({ from: 'after-backflow', to: 'zone-2-base', length: 24 });
-    expect(seg('zone-2-express')).toMatchObject({ from: 'zone-2-base', to: 'riser-level-13', length: 120 });
+    // High-zone foot: the 10 ft run to its base, level with the start (−5 ft, written as 5 ft below Level 1);
+    // then express from −5 ft to Level 13's main at 120 + 9 = 129 ft: 134 ft.
+    expect(seg('zone-2-foot')).toMatchObject({ from: 'after-backflow', to: 'zone-2-base', length: 10 });
+    expect(built.nodes.find((n) => n.id === 'zone-2-base')).toMatchObject({ floor: 'level-1', heightAboveFloor: -5 });
+    expect(seg('zone-2-express')).toMatchObject({ from: 'zone-2-base', to: 'riser-level-13', length: 134 });
     // The express riser has no taps: nothing but the next riser leaves Level 13's riser node from below it.
     expect(built.segments.filter((s) => s.from === 'zone-2-base').map((s) => s.id)).toEqual(['zone-2-express']);
     // Level 12 (low zone's top) and Level 13 (high zone's first) are not joined.
