@@ -39,6 +39,7 @@ function drawItem(L: Layout, item: DrawItem) {
       riser: { thickness: 1.5, color: COLORS.accent },
       level: { thickness: 0.35, color: COLORS.rule, dashArray: [3, 2] },
       match: { thickness: 0.9, color: COLORS.fail, dashArray: [6, 2, 1, 2] },
+      zone: { thickness: 1.4, color: COLORS.ink, dashArray: [3, 1, 1, 1] },
     }[item.weight];
     page.drawLine({ start: { x: item.x1, y: item.y1 }, end: { x: item.x2, y: item.y2 }, ...style });
     return;

@@ -9,7 +9,7 @@ import { ledgerFor } from '../../src/engine';
 import type { SummaryPdfInput } from './summaryPdf';
 import { summaryVerdict } from './summaryContent';
 import { attestationLines, permitFrame, permitRows } from './permitContent';
-import { fixtureLedgers, frictionBasis, namesOf, segmentRows } from './summaryTables';
+import { fixtureLedgers, frictionBasis, namesOf, segmentRows, zoneRows } from './summaryTables';
 import { num, signed } from './format';
 import { profileAxes, profilePoints } from './chart';
 import { riserDiagram, riserElementsByFloor } from '../../src/shared/diagram/riserLayout';
@@ -46,6 +46,13 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
     out.push(`pressure ticks (${u.pressure}, step ${axes.y.step}): ${axes.y.ticks.map((t) => t.label).join(' ')}`);
     out.push(`length ticks (${u.length}, step ${axes.x.step}): ${axes.x.ticks.map((t) => t.label).join(' ')}`);
     for (const d of axes.devices) out.push(`device step at ${num(d.x, u.length)} ${u.length}: ${d.text}`);
+    out.push('');
+  }
+
+  const zones = zoneRows(a);
+  if (zones.length) {
+    out.push(`## Pressure zones (${u.pressure})`);
+    for (const z of zones) out.push(`${z.name} | fed by ${z.fedBy} | ${z.floors} | highest ${z.highestResidual} | lowest ${z.lowestResidual} | static ${z.highestStatic} | critical ${z.critical} | ${z.verdict}`);
     out.push('');
   }
 

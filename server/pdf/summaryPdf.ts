@@ -9,7 +9,7 @@ import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { boosterText, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
-import { fixtureLedgers, frictionBasis, namesOf, segmentRows, type Names } from './summaryTables';
+import { fixtureLedgers, frictionBasis, namesOf, segmentRows, zoneRows, type Names } from './summaryTables';
 import { adoptedCodeText, attestationLines, permitFrame, permitRows, type AttestationText } from './permitContent';
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
@@ -154,6 +154,7 @@ export const SUMMARY_SECTIONS: readonly SummarySection[] = [
   { id: 'basis', build: basisSection },
   { id: 'inputs', build: inputsSection },
   { id: 'results', build: resultsSection },
+  { id: 'zones', build: zonesSection },
   { id: 'cautions', build: cautionsSection },
   { id: 'preparer', build: preparerSection },
   { id: 'riser-diagram', build: riserDiagramSection },
@@ -491,6 +492,35 @@ function resultsSection(c: SummaryContext) {
     );
   else L.paragraph('No warnings.');
 
+}
+
+/** The pressure zones: the supply's and each one fed through a PRV or booster, with its checks and verdict. */
+function zonesSection(c: SummaryContext) {
+  const { L, u } = c;
+  const rows = zoneRows(c.a);
+  if (!rows.length) return; // an analysis stored before zones existed
+  L.heading('Pressure zones', 2, 120);
+  L.paragraph(
+    rows.length === 1
+      ? 'No pressure-reducing valve or booster pump: the whole system is one zone, fed from the supply.'
+      : `${rows.length} zones: the part fed from the supply, and each part fed through a pressure-reducing valve or booster pump at its own setting (a zone inside another is fed from it). Pressures in ${u.pressure}; static against the maximum at the nodes that serve fixtures.`,
+    { size: 8.5 },
+  );
+  L.table(
+    [
+      { header: 'Zone', width: 16, wrap: true },
+      { header: 'Fed by; floors', width: 14, wrap: true },
+      { header: 'Highest / lowest residual', width: 18, wrap: true },
+      { header: 'Highest static', width: 18, wrap: true },
+      { header: 'Critical fixture', width: 14, wrap: true },
+      { header: 'Verdict', width: 20, wrap: true },
+    ],
+    rows.map((r) => ({
+      cells: [r.name, `${r.fedBy}; ${r.floors}`, `${r.highestResidual} / ${r.lowestResidual}`, r.highestStatic, r.critical, r.verdict],
+      style: r.status === 'fail' ? { fail: true } : undefined,
+    })),
+    { continued: 'Pressure zones' },
+  );
 }
 
 /** The cautions printed in every summary, and the unverified-values note where it applies. */

@@ -4,7 +4,7 @@
  * Every number is taken from the analysis (src/engine/analysis); nothing hydraulic is computed here.
  * Elements are named as the user typed them, never by an internal id.
  */
-import { ledgerFor, type Analysis, type SystemDocument } from '../../src/engine';
+import { ledgerFor, zoneFeedWords, zoneFloorsWords, zoneVerdictWords, type Analysis, type SystemDocument } from '../../src/engine';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import { fittingLabel } from '../../src/engine/model/labels';
@@ -201,4 +201,40 @@ export function fixtureLedgers(a: Analysis, doc: SystemDocument, opts: { exclude
       pass: ledger.pass,
     };
   });
+}
+
+export interface ZoneRow {
+  name: string;
+  fedBy: string;
+  floors: string;
+  highestResidual: string;
+  lowestResidual: string;
+  highestStatic: string;
+  staticPass: boolean | null;
+  critical: string;
+  verdict: string;
+  status: string;
+}
+
+/**
+ * One row per pressure zone (analysis/zones.ts): the feed, the floors, the highest and lowest
+ * residual and where, the highest static against the maximum, the critical fixture with its margin,
+ * and the verdict in words. An analysis stored before zones existed has none (an empty list).
+ */
+export function zoneRows(a: Analysis): ZoneRow[] {
+  const u = a.units;
+  return (a.zones ?? []).map((z) => ({
+    name: z.name,
+    fedBy: zoneFeedWords(z, u.pressure, 0),
+    floors: zoneFloorsWords(z, u.elevation),
+    highestResidual: z.highestResidual ? `${num(z.highestResidual.pressure, u.pressure)} at ${z.highestResidual.where}` : '—',
+    lowestResidual: z.lowestResidual ? `${num(z.lowestResidual.pressure, u.pressure)} at ${z.lowestResidual.where}` : '—',
+    highestStatic: z.highestStatic
+      ? `${num(z.highestStatic.pressure, u.pressure)} at ${z.highestStatic.where}: ${z.highestStatic.pass ? 'within' : 'OVER'} the ${num(z.highestStatic.maximum, u.pressure)} maximum`
+      : 'no fixture served',
+    staticPass: z.highestStatic ? z.highestStatic.pass : null,
+    critical: z.criticalFixture ? `${z.criticalFixture.label}, margin ${signed(z.criticalFixture.margin, u.pressure)}` : '—',
+    verdict: zoneVerdictWords(z),
+    status: z.status,
+  }));
 }

@@ -6,6 +6,7 @@ export { analyzeSystem, safeAnalyzeSystem, type SafeAnalysis } from './analysis/
 export { ledgerFor, formatLedger } from './analysis/ledger';
 export { ENGINE_VERSION, toDisplay } from './analysis/report';
 export { verdictStatus } from './analysis/verdict';
+export { zoneVerdictWords, zoneFloorsWords, zoneFeedWords } from './analysis/zoneWords';
 export type {
   Analysis,
   AnalysisResults,
@@ -20,6 +21,8 @@ export type {
   LedgerLine,
   PressureLedger,
   StaticChecks,
+  ZoneResult,
+  ZonePressureAt,
 } from './analysis/types';
 export {
   SystemDocumentSchema,

@@ -161,3 +161,30 @@ describe('the drawn summary', () => {
     expect(pdfText(bytes)).not.toContain('Characters not shown');
   });
 });
+
+describe('the pressure zones in the printed summary', () => {
+  it('when the demo (a booster and PRVs) is summarised, then the PDF has a zones section naming every zone with its verdict in words', async () => {
+    const doc = demo();
+    const a = analyzeSystem(doc);
+    const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: a });
+    const flat = pdfText(bytes, ['-raw']).replace(/\s+/g, ' ');
+    expect(flat).toContain('Pressure zones');
+    const zones = a.zones!;
+    expect(zones.length).toBeGreaterThan(1);
+    // table cells wrap: compare words, not the line breaks pdftotext chose
+    for (const z of zones) for (const word of z.name.split(' ').filter((w) => w.length > 3)) expect(flat).toContain(word);
+    expect(flat).toContain(`Passes: ${zones[1].checkedFixtures} fixtures`);
+    // the riser diagram marks each boundary in words
+    expect(flat).toContain('Zone 2 starts');
+  });
+
+  it('when a system has no PRV or booster, then the summary says the whole system is one zone', async () => {
+    const doc = SystemDocumentSchema.parse(smallDocument());
+    doc.devices = doc.devices.filter((d) => d.kind !== 'prv' && d.kind !== 'booster-pump');
+    const a = analyzeSystem(doc);
+    expect(verdictStatus(a)).not.toBe('incomplete');
+    const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: a, failureAcknowledgement: ACK });
+    const flat = pdfText(bytes, ['-raw']).replace(/\s+/g, ' ');
+    expect(flat).toContain('the whole system is one zone');
+  });
+});

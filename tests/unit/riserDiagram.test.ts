@@ -44,6 +44,29 @@ describe('the riser diagram on paper', () => {
     expect(texts.filter((t) => / Cu L$/.test(t)).length).toBeGreaterThan(5);
   });
 
+  it('when the demo is drawn, then each zone boundary (its booster and PRVs) is marked in words at its device, inside the margins', () => {
+    const doc = demo();
+    const a = analyzeSystem(doc);
+    const d = riserDiagram(doc, a);
+    // every zone but the supply's starts at a PRV or booster of the drawing
+    const fed = a.zones!.filter((z) => z.feed.kind !== 'supply');
+    expect(d.zones.map((z) => z.name)).toEqual(fed.map((z) => z.name));
+    for (const z of d.zones) expect(z.at).toEqual(d.devices.find((dv) => dv.deviceId === z.zoneId)!.at);
+    const sheets = fitRiserDiagram(d, AREA);
+    expectInside(sheets);
+    const items = sheets.flatMap((s) => s.items);
+    const texts = items.filter((i) => i.type === 'text').map((i) => (i as { text: string }).text);
+    for (const z of fed) expect(texts).toContain(`Zone ${z.index} starts`);
+    expect(items.filter((i) => i.type === 'line' && i.weight === 'zone')).toHaveLength(fed.length);
+  });
+
+  it('when a system has one zone, then no boundary is drawn', () => {
+    const doc = demo();
+    doc.devices = doc.devices.filter((dv) => dv.kind !== 'prv' && dv.kind !== 'booster-pump');
+    const d = riserDiagram(doc, analyzeSystem(doc));
+    expect(d.zones).toEqual([]);
+  });
+
   it('when the hot-water demo is drawn, then its water heater is tagged WH', () => {
     const doc = hot();
     const d = riserDiagram(doc, analyzeSystem(doc));

@@ -16,6 +16,7 @@ import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
 import { assembleReport } from './report';
+import { computeZones } from './zones';
 import type { Analysis } from './types';
 import type { SystemDocument } from '../model/schema';
 
@@ -42,7 +43,9 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   const stat = runStaticChecks(model, topo, hyd, elev, warnings);
   labelWarnings(model, warnings);
   // assembleReport ends with the last guard: no NaN or Infinity in the SI results (finite.ts).
-  return assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
+  const analysis = assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
+  analysis.zones = computeZones(model, topo, hyd, checks, analysis.verdict.incomplete);
+  return analysis;
 }
 
 export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };

@@ -149,6 +149,65 @@ export interface StaticChecks {
   minStaticAtHighestFixture: { fixtureId: string; label: string; staticLow: number; minimum: number; pass: boolean } | null;
 }
 
+/** A place and the pressure there, in the document's units. */
+export interface ZonePressureAt {
+  pressure: number;
+  nodeId: string;
+  /** The node's typed label, else a plain description. */
+  where: string;
+}
+
+/**
+ * One pressure zone (analysis/zones.ts): the part of the system fed from the supply, or through one
+ * PRV or booster pump. Pressures and elevations in the document's units.
+ */
+export interface ZoneResult {
+  /** 'supply' for the first zone, else the feeding device's id. */
+  id: string;
+  /** 1-based, in the tree's breadth-first order. */
+  index: number;
+  /** "Zone 1 — from the supply", "Zone 2 — PRV-2 (set 65 psi)". */
+  name: string;
+  /** The zone this one is fed from (nested zones); null for the supply's. */
+  parentZoneId: string | null;
+  feed: {
+    kind: 'supply' | 'prv' | 'booster-pump';
+    deviceId: string | null;
+    deviceLabel: string | null;
+    /** 'set': a PRV's outlet or a variable-speed booster's discharge set pressure; 'gain': a constant-speed booster's design gain. */
+    setting: 'set' | 'gain' | null;
+    pressure: number | null;
+  };
+  /** The segment whose inlet device opens the zone (null for the supply's); the boundary on the profile and the diagram. */
+  entrySegmentId: string | null;
+  /** The node upstream of the boundary (the source node for the supply's zone). */
+  entryNodeId: string;
+  /**
+   * Names of the floors of the nodes it serves fixtures at, lowest first (of all its nodes where it
+   * serves none; empty when the document places no node on a floor). The elevations likewise.
+   */
+  floors: string[];
+  lowestElevation: number | null;
+  highestElevation: number | null;
+  nodeCount: number;
+  segmentCount: number;
+  highestResidual: ZonePressureAt | null;
+  lowestResidual: ZonePressureAt | null;
+  /** Highest high static pressure at a node that serves fixtures, against the criteria's maximum. */
+  highestStatic: (ZonePressureAt & { maximum: number; pass: boolean }) | null;
+  criticalFixture: { fixtureId: string; label: string; residual: number; required: number; margin: number; pass: boolean } | null;
+  checkedFixtures: number;
+  /** Fixture groups served in the zone. */
+  fixtureGroups: number;
+  failingFixtures: number;
+  velocityFailures: number;
+  staticFailures: number;
+  /** As the system's verdict, plus 'not-checked': no checked fixture in the zone and no failed check (never shown green). */
+  status: VerdictStatus | 'not-checked';
+  /** Why the zone is incomplete, in words; empty otherwise. */
+  incomplete: string[];
+}
+
 export interface MethodUsed {
   id: string;
   label: string;
@@ -212,6 +271,8 @@ export interface Analysis extends AnalysisResults {
   };
   /** Worst-case static pressure: boosters at no flow, PRVs failing open, pipe ratings, minimum static at the highest fixture. */
   staticChecks: StaticChecks;
+  /** Pressure zones (analysis/zones.ts), the supply's first; absent in analyses stored before zones existed. */
+  zones?: ZoneResult[];
   warnings: EngineWarning[];
   /** The same results in SI base units: Pa, m, m³/s, m/s. */
   si: AnalysisResults;

@@ -11,6 +11,22 @@
  * its floor at the main's height above it, so the climb comes from the floor elevations alone.
  * The output is ordinary data (floors, nodes, segments, unit types, placements) that the
  * designer edits like anything entered by hand.
+ *
+ * Pressure zones by floor range (`zones`, optional): one riser per zone, each starting at the same
+ * start node at the base of the building, each fed through its own device on its first pipe —
+ * a PRV for a zone the supply over-pressures, a variable-speed booster for a zone above what the
+ * supply can reach, or nothing for a zone the supply serves as it is:
+ *
+ *   start ──[PRV]── low-zone riser: Level 1 … Level 12, a floor main and taps on each
+ *        └─[booster]── zone base (level with the start) ── express riser (no taps) ── Level 13 … Level 40
+ *
+ * Separate zone risers with the pressure-reducing valve or booster at the base, the upper zone's
+ * riser running express (no branches) through the floors below it, are the usual arrangement in
+ * tall buildings (common practice): every device sits in the mechanical room where it can be
+ * reached, and no floor of one zone is fed from another's riser. A zone's first pipe carries its
+ * device at the inlet, so the analysis puts every node above it in that zone (analysis/zones.ts).
+ * The PRV and booster are written with no loss of their own (a fixed 0): the designer enters the
+ * product's loss curve in the Meter & devices step.
  */
 import { EngineInputError } from '../errors';
 import type { Fitting } from '../model/schema';
@@ -81,6 +97,17 @@ export interface UnitPosition {
   inletLength?: number;
 }
 
+/** One pressure zone of the riser builder: a range of floors and what feeds it. */
+export interface ZoneSpec {
+  /** First and last floor of the zone (floor ids, inclusive); zones follow each other up the building. */
+  fromFloor: string;
+  toFloor: string;
+  /** 'supply': straight from the start node; 'prv': through a PRV; 'booster-pump': through a variable-speed booster. */
+  feed: 'supply' | 'prv' | 'booster-pump';
+  /** PRV outlet set pressure, or the booster's set discharge pressure, pressure unit (not for 'supply'). */
+  setPressure?: number;
+}
+
 export interface RiserBuilderSpec {
   floors: readonly Floor[];
   /** Node the riser starts from (after the meter set), and its elevation, length unit. */
@@ -108,6 +135,8 @@ export interface RiserBuilderSpec {
   };
   units: readonly UnitPosition[];
   unitTypes: readonly UnitType[];
+  /** Pressure zones by floor range, lowest first, covering the riser's floors; absent or empty: one riser, no devices. */
+  zones?: readonly ZoneSpec[];
 }
 
 export interface GeneratedNode {
@@ -127,11 +156,21 @@ export interface GeneratedSegment {
   fittings: Fitting[];
 }
 
+export interface GeneratedDevice {
+  id: string;
+  kind: 'prv' | 'booster-pump';
+  label: string;
+  segmentId: string;
+  setPressure: number;
+}
+
 export interface GeneratedBuilding {
   floors: Floor[];
   nodes: GeneratedNode[];
   segments: GeneratedSegment[];
   placements: PlacementInput[];
+  /** The zones' PRVs and boosters (none without zones). */
+  devices: GeneratedDevice[];
 }
 
 const TEE_RUN: Fitting[] = [{ typeId: 'tee-run', count: 1 }];
@@ -170,31 +209,10 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
   const nodes: GeneratedNode[] = [];
   const segments: GeneratedSegment[] = [];
   const placements: PlacementInput[] = [];
-  let below = spec.startNodeId;
-  let belowElevation = spec.startElevation;
-  for (let i = from; i <= to; i++) {
-    const floor = spec.floors[i];
-    const riserNode = `riser-${floor.id}`;
-    const z = floor.elevation + h;
-    nodes.push({ id: riserNode, label: `Riser at ${floor.name}`, floor: floor.id, heightAboveFloor: h });
-    const first = i === from;
-    const length = Math.abs(z - belowElevation) + (first ? spec.riser.footLength : 0);
-    // A pipe of no length is not a description of anything: the start point sits level with the first floor main
-    // and no run to the riser's foot was given. Said here, before anything is written to the draft.
-    if (first && !(length > 0)) {
-      throw builderError('riser.footLength', `The riser's first pipe would have no length: the start point is level with the ${floor.name} floor main. Enter the run from the start point to the foot of the riser.`);
-    }
-    segments.push({
-      id: first ? 'riser-foot' : `riser-to-${floor.id}`,
-      label: first ? `Riser foot to ${floor.name}` : `Riser to ${floor.name}`,
-      from: below,
-      to: riserNode,
-      material: spec.riser.material,
-      size: sizeAt(i),
-      // Vertical pipe: its developed length is the climb (plus the foot's horizontal run).
-      length,
-      fittings: [...(first ? spec.riser.footFittings ?? [] : []), ...(spec.riser.fittings ?? TEE_RUN)],
-    });
+  const devices: GeneratedDevice[] = [];
+
+  /** The floor main and the units on floor i, from its riser node. */
+  const floorMain = (floor: Floor, riserNode: string) => {
     let tapFrom = riserNode;
     spec.units.forEach((u, k) => {
       const n = k + 1;
@@ -225,8 +243,111 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
       }
       placements.push(placement);
     });
-    below = riserNode;
-    belowElevation = z;
-  }
-  return { floors: [...spec.floors], nodes, segments, placements };
+  };
+
+  /**
+   * One riser from the start node serving floors lo..hi. `zone` (1-based) names its pipes apart
+   * from another zone's; its device sits at the inlet of its first pipe. A zone above the
+   * building's first served floor starts with a short pipe to a base node beside the start
+   * (where its device is, in the mechanical room) and an express riser up to its first floor.
+   */
+  const riser = (lo: number, hi: number, zone: { index: number; spec: ZoneSpec } | null) => {
+    let below = spec.startNodeId;
+    let belowElevation = spec.startElevation;
+    const tag = zone ? `zone-${zone.index}-` : '';
+    const zoneWords = zone ? `Zone ${zone.index} ` : '';
+    let deviceSeg: string | null = null;
+    if (zone && lo > from) {
+      // the zone's base: level with the start point, the run to the foot away (its device sits there,
+      // in the mechanical room); the express riser climbs from it
+      const base = spec.floors[from];
+      const baseNode = `${tag}base`;
+      if (!(spec.riser.footLength > 0)) {
+        throw builderError('riser.footLength', `${zoneWords}needs a run from the start point to the foot of its riser, where its device sits: enter the run to the foot of the risers.`);
+      }
+      nodes.push({ id: baseNode, label: `${zoneWords}riser base`, floor: base.id, heightAboveFloor: spec.startElevation - base.elevation });
+      segments.push({
+        id: `${tag}foot`,
+        label: `${zoneWords}riser foot`,
+        from: below,
+        to: baseNode,
+        material: spec.riser.material,
+        size: sizeAt(lo),
+        length: spec.riser.footLength,
+        fittings: [...(spec.riser.footFittings ?? [])],
+      });
+      deviceSeg = `${tag}foot`;
+      below = baseNode;
+    }
+    for (let i = lo; i <= hi; i++) {
+      const floor = spec.floors[i];
+      const riserNode = `riser-${floor.id}`;
+      const z = floor.elevation + h;
+      nodes.push({ id: riserNode, label: `Riser at ${floor.name}`, floor: floor.id, heightAboveFloor: h });
+      const first = i === lo;
+      const foot = first && deviceSeg === null;
+      const length = Math.abs(z - belowElevation) + (foot ? spec.riser.footLength : 0);
+      // A pipe of no length is not a description of anything: the start point sits level with the first floor main
+      // and no run to the riser's foot was given. Said here, before anything is written to the draft.
+      if (first && !(length > 0)) {
+        throw builderError('riser.footLength', `The riser's first pipe would have no length: the start point is level with the ${floor.name} floor main. Enter the run from the start point to the foot of the riser.`);
+      }
+      const id = foot ? `${tag}riser-foot` : first ? `${tag}express` : `riser-to-${floor.id}`;
+      segments.push({
+        id,
+        label: foot ? `${zoneWords}riser foot to ${floor.name}`.replace(/^./, (c) => c.toUpperCase()) : first ? `${zoneWords}express riser to ${floor.name}` : `Riser to ${floor.name}`,
+        from: below,
+        to: riserNode,
+        material: spec.riser.material,
+        size: sizeAt(i),
+        // Vertical pipe: its developed length is the climb (plus the foot's horizontal run).
+        length,
+        fittings: [...(foot ? spec.riser.footFittings ?? [] : []), ...(spec.riser.fittings ?? TEE_RUN)],
+      });
+      if (first && deviceSeg === null) deviceSeg = id;
+      floorMain(floor, riserNode);
+      below = riserNode;
+      belowElevation = z;
+    }
+    if (zone && zone.spec.feed !== 'supply') {
+      const range = lo === hi ? spec.floors[lo].name : `${spec.floors[lo].name}–${spec.floors[hi].name}`;
+      devices.push({
+        id: `${tag}${zone.spec.feed === 'prv' ? 'prv' : 'booster'}`,
+        kind: zone.spec.feed,
+        label: `${zone.spec.feed === 'prv' ? 'PRV' : 'Booster pump'} for ${range}`,
+        segmentId: deviceSeg!,
+        setPressure: zone.spec.setPressure!,
+      });
+    }
+  };
+
+  const zones = spec.zones ?? [];
+  if (zones.length === 0) riser(from, to, null);
+  else zoneRanges(spec, floorIndex, from, to).forEach((r, k) => riser(r.lo, r.hi, { index: k + 1, spec: zones[k] }));
+  return { floors: [...spec.floors], nodes, segments, placements, devices };
+}
+
+/** The zones' floor indices, checked: each a known range, lowest first, together exactly the riser's floors, each with its setting. */
+function zoneRanges(spec: RiserBuilderSpec, floorIndex: Map<string, number>, from: number, to: number): { lo: number; hi: number }[] {
+  const out: { lo: number; hi: number }[] = [];
+  let next = from;
+  (spec.zones ?? []).forEach((z, k) => {
+    const where = `zones[${k}]`;
+    const lo = floorIndex.get(z.fromFloor);
+    const hi = floorIndex.get(z.toFloor);
+    if (lo === undefined) throw builderError(`${where}.fromFloor`, `Zone ${k + 1}: floor "${z.fromFloor}" is not in the floor list.`);
+    if (hi === undefined) throw builderError(`${where}.toFloor`, `Zone ${k + 1}: floor "${z.toFloor}" is not in the floor list.`);
+    if (hi < lo) throw builderError(`${where}.toFloor`, `Zone ${k + 1} must end on or above the floor it starts on.`);
+    if (lo !== next) {
+      const expected = spec.floors[next]?.name ?? 'no further floor';
+      throw builderError(`${where}.fromFloor`, `Zone ${k + 1} starts at "${spec.floors[lo].name}"; the zones must follow each other up the riser's floors without gap or overlap, so it should start at "${expected}".`);
+    }
+    if (z.feed !== 'supply' && !(z.setPressure !== undefined && z.setPressure > 0)) {
+      throw builderError(`${where}.setPressure`, `Zone ${k + 1} (${spec.floors[lo].name}–${spec.floors[hi].name}): enter the ${z.feed === 'prv' ? "PRV's set pressure" : "booster's set discharge pressure"}.`);
+    }
+    out.push({ lo, hi });
+    next = hi + 1;
+  });
+  if (next !== to + 1) throw builderError('zones', `The zones end at "${spec.floors[next - 1].name}" but the riser goes up to "${spec.floors[to].name}": add a zone for the floors above.`);
+  return out;
 }

@@ -63,6 +63,16 @@ export interface DiagramFixture {
   at: Point;
   floor: string;
 }
+/** Where a pressure zone begins: at its PRV or booster (analysis/zones.ts), labelled in words, not by colour. */
+export interface DiagramZoneBoundary {
+  zoneId: string;
+  /** "Zone 2" */
+  short: string;
+  /** "Zone 2 — PRV-2 (set 65 psi)" */
+  name: string;
+  at: Point;
+  floor: string;
+}
 /** x in columns, y in the document's length unit (elevation). */
 export interface RiserDiagram {
   lengthUnit: string;
@@ -73,6 +83,8 @@ export interface RiserDiagram {
   pipes: DiagramPipe[];
   devices: DiagramDevice[];
   fixtures: DiagramFixture[];
+  /** Zone boundaries (none for a system with one zone, or an analysis stored before zones). */
+  zones: DiagramZoneBoundary[];
 }
 
 /** A segment is drawn as a riser when it climbs or drops at least this much: 2 m or 6.5 ft, under a storey (2.4 m and more, common practice) and over a fixture drop. */
@@ -177,6 +189,13 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
   const fixtures: DiagramFixture[] = a.fixtures
     .filter((f) => x.has(f.nodeId))
     .map((f) => ({ fixtureId: f.id, label: f.label, at: { x: x.get(f.nodeId)!, y: elevation.get(f.nodeId) ?? 0 }, floor: floorName(elevation.get(f.nodeId) ?? 0) }));
+  const deviceAt = new Map(devices.map((dv) => [dv.deviceId, dv]));
+  const zones: DiagramZoneBoundary[] = [];
+  for (const z of a.zones ?? []) {
+    const dv = deviceAt.get(z.id);
+    if (z.feed.kind === 'supply' || !dv) continue;
+    zones.push({ zoneId: z.id, short: `Zone ${z.index}`, name: z.name, at: dv.at, floor: dv.floor });
+  }
   const ys = [...elevation.values(), ...levels.map((l) => l.elevation)];
   return {
     lengthUnit: a.units.elevation,
@@ -187,13 +206,14 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
     pipes,
     devices,
     fixtures,
+    zones,
   };
 }
 
 // ---- onto paper
 
 export type DrawItem =
-  | { type: 'line'; x1: number; y1: number; x2: number; y2: number; weight: 'pipe' | 'riser' | 'level' | 'match' }
+  | { type: 'line'; x1: number; y1: number; x2: number; y2: number; weight: 'pipe' | 'riser' | 'level' | 'match' | 'zone' }
   | { type: 'text'; x: number; y: number; text: string; size: number; maxWidth: number; vertical?: boolean; bold?: boolean }
   | { type: 'box'; x: number; y: number; width: number; height: number; fixtureId?: string };
 
@@ -321,6 +341,19 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         if (Math.abs(y - (by + 2.6)) > 0.5) items.push({ type: 'line', x1: bx + w, y1: by + 4.5, x2: labelX - 0.5, y2: y + 1.5, weight: 'pipe' });
         items.push({ type: 'text', x: labelX, y, text: dv.label, size: LABEL_SIZE, maxWidth });
       }
+      // zone boundaries: a dash-dot bar across the pipe just below the device's box, and the zone's
+      // number in words left of it ("Zone 2 starts"), so the boundary reads without colour
+      for (const zb of d.zones) {
+        if (!inTile(zb.at)) continue;
+        const cx = X(zb.at.x);
+        const cy = Math.max(area.bottom + 14, Math.min(Y(zb.at.y), area.bottom + area.height - top)) - 7;
+        const half = Math.min(cw / 2, 8);
+        items.push({ type: 'line', x1: cx - half, y1: cy, x2: cx + half, y2: cy, weight: 'zone' });
+        const text = `${zb.short} starts`;
+        const w = textWidth(text, LABEL_SIZE);
+        const tx = Math.max(area.left + gutterLeft, cx - half - w - 2);
+        items.push({ type: 'text', x: tx, y: cy - LABEL_SIZE - 0.5, text, size: LABEL_SIZE, maxWidth: Math.max(cx - half - tx, w), bold: true });
+      }
       for (const f of d.fixtures) {
         if (!inTile(f.at)) continue;
         items.push({ type: 'box', x: X(f.at.x) - 1.5, y: Y(f.at.y) - 1.5, width: 3, height: 3, fixtureId: f.fixtureId });
@@ -386,6 +419,7 @@ export function riserElementsByFloor(d: RiserDiagram): string[] {
   const fx = new Map<string, number>();
   for (const f of d.fixtures) fx.set(f.floor, (fx.get(f.floor) ?? 0) + 1);
   for (const [floor, n] of fx) out.push(`checked fixtures on ${floor}: ${n}`);
+  if (d.zones.length > 0) out.push(`zone boundaries: ${d.zones.map((z) => `${z.name} on ${z.floor}`).join('; ')}`);
   const risers = d.pipes.filter((p) => p.vertical);
   out.push(`risers: ${risers.map((p) => `${p.name} ${p.label}`).join('; ')}`);
   out.push(`pipes: ${d.pipes.length}, columns: ${d.columns}`);

@@ -14,6 +14,7 @@ export function PreviewPanel({ counts, problem }: { counts: BuildingCounts | nul
     ['segments', 'Segments', String(counts.segments)],
     ['nodes', 'Nodes', String(counts.nodes)],
     ['placements', 'Units placed', String(counts.placements)],
+    ...(counts.devices > 0 ? ([['devices', 'Zone PRVs and boosters', String(counts.devices)]] as [string, string, string][]) : []),
     ['fixture-units', 'Fixture units (WSFU)', fmt(counts.fixtureUnits, 1)],
     ['checked', 'Checked fixtures', String(counts.checkedFixtures)],
   ];

@@ -7,9 +7,10 @@ import type { Catalog } from '../../systems/api/get-catalog';
 import { materialChoices, sizeChoicesOf } from '../lib/choices';
 import type { BuildingForm } from '../lib/form';
 import { asNumber, msg } from './form-helpers';
+import { ZonesSection } from './zones-section';
 
 /** The riser builder's short form: where the riser starts, its pipe, the floor main, and the units along the main. */
-export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catalog; document: SystemDocument; lengthUnit: string }) {
+export function RiserSection({ catalog, document, lengthUnit, pressureUnit }: { catalog: Catalog; document: SystemDocument; lengthUnit: string; pressureUnit: string }) {
   const { control, register, getValues, setValue, formState: { errors } } = useFormContext<BuildingForm>();
   const sizeChanges = useFieldArray({ control, name: 'riser.sizeChanges' });
   const units = useFieldArray({ control, name: 'units' });
@@ -97,6 +98,7 @@ export function RiserSection({ catalog, document, lengthUnit }: { catalog: Catal
         const last = unitValues[unitValues.length - 1];
         units.append({ unitTypeId: last?.unitTypeId ?? types[0]?.id ?? '', labelPattern: last?.labelPattern ?? 'Unit {floor}-{n}', mainLength: last?.mainLength });
       }}>Add a unit position</Button>
+      <ZonesSection pressureUnit={pressureUnit} />
     </Section>
   );
 }

@@ -44,6 +44,7 @@ export function buildFromForm(form: BuildingForm, startElevation: number): Build
     floorMain: { material: r.mainMaterial, size: r.mainSize, heightAboveFloor: r.mainHeight },
     units: form.units.map((u) => ({ unitTypeId: u.unitTypeId, labelPattern: u.labelPattern, mainLength: u.mainLength, inletLength: u.branchLength })),
     unitTypes,
+    zones: r.zones.map((zr) => ({ fromFloor: idOf(zr.fromFloor, floors[0]), toFloor: idOf(zr.toFloor, floors[floors.length - 1]), feed: zr.feed, setPressure: zr.setPressure })),
   });
   return { floors, unitTypes, built };
 }
@@ -52,6 +53,8 @@ export interface BuildingCounts {
   segments: number;
   nodes: number;
   placements: number;
+  /** PRVs and boosters of the zones. */
+  devices: number;
   fixtureUnits: number;
   checkedFixtures: number;
 }
@@ -73,5 +76,5 @@ export function countBuilding({ built, unitTypes }: BuildResult, service: System
       for (const g of n.fixtureGroups) fixtureUnits += (fixtureGroupWsfu(g, g.wsfuBasis ?? service) ?? 0) * g.count;
     }
   }
-  return { segments, nodes, placements: built.placements.length, fixtureUnits, checkedFixtures };
+  return { segments, nodes, placements: built.placements.length, devices: built.devices.length, fixtureUnits, checkedFixtures };
 }

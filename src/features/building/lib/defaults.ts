@@ -71,6 +71,7 @@ export function defaultBuildingForm(doc: SystemDocument): BuildingForm {
       mainMaterial: '',
       mainSize: '',
       mainHeight: 0,
+      zones: [],
     },
     units: [{ unitTypeId: stored.unitTypes[0]?.id ?? 'unit-a', labelPattern: 'Unit {floor}-{n}', mainLength: undefined as unknown as number }],
   };

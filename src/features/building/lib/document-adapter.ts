@@ -16,6 +16,15 @@ export interface BuildingData {
 type Doc = SystemDocument;
 type DocNode = Doc['nodes'][number];
 type DocSegment = Doc['segments'][number];
+type DocDevice = Doc['devices'][number];
+
+/** A zone's PRV or booster as the document keeps it: no loss of its own until the designer enters the product's curve. */
+function deviceOf(d: GeneratedBuilding['devices'][number]): DocDevice {
+  const base = { id: d.id, label: d.label, segmentId: d.segmentId, loss: { kind: 'fixed' as const, loss: 0 } };
+  return d.kind === 'prv'
+    ? { ...base, kind: 'prv', prv: { setPressure: d.setPressure, falloffPerFlow: 0 } }
+    : { ...base, kind: 'booster-pump', boost: { control: 'variable-speed', setPressure: d.setPressure } };
+}
 
 /** The floors, unit types and placements the document keeps (none in a document without them). */
 export function readBuilding(doc: Doc): BuildingData {
@@ -54,6 +63,7 @@ export function prefixGenerated(built: GeneratedBuilding, prefix: string, startN
     nodes: built.nodes.map((n) => ({ ...n, id: p(n.id) })),
     segments: built.segments.map((s) => ({ ...s, id: p(s.id), from: p(s.from), to: p(s.to) })),
     placements: built.placements.map((pl) => ({ ...pl, id: p(pl.id), at: p(pl.at) })),
+    devices: built.devices.map((d) => ({ ...d, id: p(d.id), segmentId: p(d.segmentId) })),
   };
 }
 
@@ -79,14 +89,18 @@ export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: re
   const gonePlacements = new Set(removed.placements.map((p) => p.id));
   const keptNodes = doc.nodes.filter((n) => !goneNodes.has(n.id));
   const keptPlacements = before.placements.filter((p) => !gonePlacements.has(p.id));
-  const clash = built.nodes.find((n) => keptNodes.some((k) => k.id === n.id)) ?? built.placements.find((p) => keptPlacements.some((k) => k.id === p.id));
+  const keptDevices = doc.devices.filter((d) => !goneSegments.has(d.segmentId));
+  const clash =
+    built.nodes.find((n) => keptNodes.some((k) => k.id === n.id)) ??
+    built.placements.find((p) => keptPlacements.some((k) => k.id === p.id)) ??
+    built.devices.find((d) => keptDevices.some((k) => k.id === d.id));
   if (clash) throw new Error(`The draft already has “${clash.label ?? clash.id}”: replace what follows the start point, or start the new riser elsewhere.`);
   const newNodes: DocNode[] = built.nodes.map((n) => ({ id: n.id, label: n.label, floor: n.floor, heightAboveFloor: n.heightAboveFloor, fixtureGroups: [], checkedFixtures: [] }));
   const newSegments: DocSegment[] = built.segments.map((s) => ({ ...s, reducerAuto: true }));
   return {
     ...doc,
     floors,
-    devices: doc.devices.filter((d) => !goneSegments.has(d.segmentId)),
+    devices: [...keptDevices, ...built.devices.map(deviceOf)],
     nodes: [...keptNodes, ...newNodes],
     segments: [...doc.segments.filter((s) => !goneSegments.has(s.id)), ...newSegments],
     unitTypes: [...before.unitTypes.filter((t) => !unitTypes.some((u) => u.id === t.id)), ...unitTypes],

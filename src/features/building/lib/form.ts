@@ -59,6 +59,20 @@ export const UnitPositionSchema = z.object({
   branchLength: positive().optional(),
 });
 
+/** A pressure zone by floor range: straight from the start point, through a PRV, or through a booster. */
+export const ZoneRowSchema = z
+  .object({
+    fromFloor: required('Choose a floor'),
+    toFloor: required('Choose a floor'),
+    feed: z.enum(['supply', 'prv', 'booster-pump']),
+    setPressure: positive().optional(),
+  })
+  .superRefine((zr, ctx) => {
+    if (zr.feed !== 'supply' && zr.setPressure === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['setPressure'], message: zr.feed === 'prv' ? 'Enter the PRV’s set pressure' : 'Enter the booster’s set discharge pressure' });
+    }
+  });
+
 export const RiserFormSchema = z.object({
   startNodeId: required('Choose where the riser starts'),
   mode: z.enum(['replace', 'append']),
@@ -73,6 +87,8 @@ export const RiserFormSchema = z.object({
   mainMaterial: required('Choose the floor-main material'),
   mainSize: required('Choose the floor-main size'),
   mainHeight: nonNegative(),
+  /** pressure zones by floor range, lowest first; none: one riser straight from the start point */
+  zones: z.array(ZoneRowSchema),
 });
 
 /** Each floor's elevation as written or filled from the typical height (null where it cannot be). */
@@ -114,6 +130,11 @@ export const BuildingFormSchema = z
     for (const key of ['fromFloor', 'toFloor'] as const) {
       if (b.riser[key] !== '' && !floorNames.has(b.riser[key])) ctx.addIssue({ code: 'custom', path: ['riser', key], message: 'That floor is not in the list' });
     }
+    b.riser.zones.forEach((zr, i) => {
+      for (const key of ['fromFloor', 'toFloor'] as const) {
+        if (!floorNames.has(zr[key])) ctx.addIssue({ code: 'custom', path: ['riser', 'zones', i, key], message: 'That floor is not in the list' });
+      }
+    });
     b.riser.sizeChanges.forEach((c, i) => {
       if (!floorNames.has(c.fromFloor)) ctx.addIssue({ code: 'custom', path: ['riser', 'sizeChanges', i, 'fromFloor'], message: 'That floor is not in the list' });
     });
@@ -127,5 +148,6 @@ export type PipingRow = z.infer<typeof PipingRowSchema>;
 export type UnitTypeForm = z.infer<typeof UnitTypeFormSchema>;
 export type FloorsForm = z.infer<typeof FloorsFormSchema>;
 export type RiserForm = z.infer<typeof RiserFormSchema>;
+export type ZoneRow = z.infer<typeof ZoneRowSchema>;
 export type UnitPositionForm = z.infer<typeof UnitPositionSchema>;
 export type BuildingForm = z.infer<typeof BuildingFormSchema>;

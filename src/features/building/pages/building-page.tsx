@@ -115,7 +115,7 @@ export function BuildingPage() {
               <ScheduleImport />
             </div>
           </Section>
-          <RiserSection catalog={catalog} document={document} lengthUnit={units.length} />
+          <RiserSection catalog={catalog} document={document} lengthUnit={units.length} pressureUnit={units.pressure} />
           <Section title="Preview">
             <div className="flex flex-col gap-4">
               <PreviewPanel counts={counts} problem={problem} />

@@ -29,10 +29,33 @@ export function profilePoints(analysis: Analysis, ledger: PressureLedger): Profi
   return points;
 }
 
+export interface ZoneCrossing {
+  distance: number;
+  /** "Zone 2", the zone's number (the full name is in the zones table and the chart's text). */
+  short: string;
+  name: string;
+}
+
+/** Where the path enters a zone: at the inlet of the segment carrying the zone's PRV or booster (analysis/zones.ts). */
+export function zoneCrossings(analysis: Analysis, ledger: PressureLedger): ZoneCrossing[] {
+  const zones = new Map((analysis.zones ?? []).map((z) => [z.id, z]));
+  const seg = new Map(analysis.segments.map((s) => [s.id, s]));
+  const out: ZoneCrossing[] = [];
+  for (const line of ledger.lines) {
+    if (line.kind !== 'device') continue;
+    const z = zones.get(line.elementId);
+    const s = line.segmentId ? seg.get(line.segmentId) : undefined;
+    if (!z || !s) continue;
+    out.push({ distance: s.developedLength - s.length, short: `Zone ${z.index}`, name: z.name });
+  }
+  return out;
+}
+
 /** A hand-drawn SVG line chart with the minimum flow pressure as a dashed line, and the same numbers as a table. */
 export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analysis: Analysis; ledger: PressureLedger; fixtureLabel: string }) {
   const id = useId();
   const points = profilePoints(analysis, ledger);
+  const crossings = zoneCrossings(analysis, ledger);
   const u = analysis.units;
   const W = 640;
   const H = 300;
@@ -53,6 +76,7 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
         <desc id={`${id}-d`}>
           Pressure falls from {fmt(points[0].pressure, 1)} {u.pressure} at the source to {fmt(last.pressure, 1)} {u.pressure} at {fixtureLabel},{' '}
           {fmt(last.distance, 0)} {u.length} of pipe away; the minimum flow pressure is {fmt(ledger.required, 1)} {u.pressure}.
+          {crossings.map((c) => ` The path enters ${c.name} at ${fmt(c.distance, 0)} ${u.length}.`).join('')}
         </desc>
         {ticks(minY, maxY, 5).map((t) => (
           <g key={`y${t}`}>
@@ -67,6 +91,12 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
         <text x={14} y={(pad.t + H - pad.b) / 2} textAnchor="middle" fontSize="12" fill="#17222a" transform={`rotate(-90 14 ${(pad.t + H - pad.b) / 2})`}>Pressure ({u.pressure})</text>
         <line x1={pad.l} x2={W - pad.r} y1={y(ledger.required)} y2={y(ledger.required)} stroke="#9b1c1c" strokeWidth="2" strokeDasharray="8 5" />
         <text x={W - pad.r - 4} y={y(ledger.required) - 6} textAnchor="end" fontSize="11" fill="#9b1c1c">minimum {fmt(ledger.required, 1)}</text>
+        {crossings.map((c, i) => (
+          <g key={`zone-${i}`} data-testid="zone-crossing">
+            <line x1={x(c.distance)} x2={x(c.distance)} y1={pad.t} y2={H - pad.b} stroke="#3d4a53" strokeWidth="1.5" strokeDasharray="2 3" />
+            <text x={x(c.distance) + 4} y={pad.t + 12 + (i % 2) * 13} fontSize="11" fill="#17222a">{`▸ ${c.short}`}</text>
+          </g>
+        ))}
         <path d={path} fill="none" stroke="#123f4a" strokeWidth="2.5" />
         {points.map((p, i) => (
           <rect key={i} x={x(p.distance) - 3} y={y(p.pressure) - 3} width="6" height="6" fill="#a4501c" />
@@ -74,6 +104,7 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
       </svg>
       <figcaption className="text-sm text-ink-soft">
         Solid line: pressure along the path (squares at each device and segment end). Dashed line: the minimum flow pressure.
+        {crossings.length > 0 ? ` Dotted upright lines: where the path enters a zone (${crossings.map((c) => c.name).join('; ')}).` : ''}
       </figcaption>
       <details>
         <summary className="cursor-pointer text-sm font-semibold">The chart’s numbers as a table</summary>

@@ -172,6 +172,12 @@ export function RiserDiagramPage() {
             </li>
           ))}
         </ul>
+        {diagram.zones.length > 0 ? (
+          <p className="text-sm" data-testid="riser-zones">
+            <span className="font-semibold">Zone boundaries</span> (a dash-dot bar across the pipe, below the device, marked “Zone N starts”):{' '}
+            {diagram.zones.map((z) => `${z.name} on ${z.floor}`).join('; ')}.
+          </p>
+        ) : null}
         {floors.map((floor) => (
           <div key={floor} className="text-sm">
             <p className="font-semibold">{floor}</p>
@@ -222,6 +228,7 @@ function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number })
       riser: { strokeWidth: 1.5, stroke: ACCENT },
       level: { strokeWidth: 0.35, stroke: RULE, strokeDasharray: '3 2' },
       match: { strokeWidth: 0.9, stroke: MATCH, strokeDasharray: '6 2 1 2' },
+      zone: { strokeWidth: 1.4, stroke: INK, strokeDasharray: '3 1 1 1' },
     }[item.weight];
     return <line x1={item.x1} y1={Y(item.y1)} x2={item.x2} y2={Y(item.y2)} {...style} data-kind={item.weight} />;
   }

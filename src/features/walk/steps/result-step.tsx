@@ -26,6 +26,7 @@ import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
 import { SizingPanel } from '../../sizing/components/sizing-panel';
+import { ZonesTable } from '../components/zones-table';
 
 const STATEMENT_MIN = 20;
 
@@ -268,6 +269,10 @@ export function ResultStep() {
           </p>
           <p className="text-ink-soft">Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.</p>
         </div>
+      </Section>
+
+      <Section title="Zones" headingLevel={3}>
+        <ZonesTable analysis={a} />
       </Section>
 
       {status !== 'incomplete' ? (
