@@ -40,7 +40,7 @@ export const NumberCell = memo(function NumberCell(p: {
   const change = (next: string) => {
     setText(next);
     const parsed = numberOrUndefined(next);
-    let message: string | null = null;
+    let message: string | null;
     if (parsed instanceof RefusedNumber) message = parsed.message;
     else if (parsed === undefined) message = p.optional ? null : 'Required';
     else if (!p.optional && parsed <= 0) message = 'Must be more than zero';
