@@ -14,7 +14,7 @@ export async function pageHeight(page: Page): Promise<number> {
  * of one box height per frame to the end, and returns the longest requestAnimationFrame delta and
  * the number of frames.
  */
-export async function longestScrollFrame(page: Page): Promise<{ longestMs: number; frames: number; rowsInPage: number }> {
+export async function longestScrollFrame(page: Page): Promise<{ longestMs: number; medianMs: number; frames: number; rowsInPage: number }> {
   return page.evaluate(async () => {
     const box = document.querySelector<HTMLElement>('[data-testid="tree-scroll"]');
     const frame = () => new Promise<number>((r) => requestAnimationFrame((t) => r(t)));
@@ -23,16 +23,19 @@ export async function longestScrollFrame(page: Page): Promise<{ longestMs: numbe
     let last = await frame();
     let longest = 0;
     let frames = 0;
+    const deltas: number[] = [];
     let rowsInPage = 0;
     for (let y = 0; y <= max + stepPx; y += stepPx) {
       if (box) box.scrollTop = y;
       else window.scrollTo(0, y);
       const t = await frame();
       longest = Math.max(longest, t - last);
+      deltas.push(t - last);
       last = t;
       frames++;
       rowsInPage = Math.max(rowsInPage, document.querySelectorAll('[data-testid="tree-editor"] [role="row"][aria-rowindex]').length);
     }
-    return { longestMs: longest, frames, rowsInPage };
+    deltas.sort((a, b) => a - b);
+    return { longestMs: longest, medianMs: deltas[Math.floor(deltas.length / 2)] ?? 0, frames, rowsInPage };
   });
 }

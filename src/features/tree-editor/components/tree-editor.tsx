@@ -7,7 +7,6 @@ import { UNIT_LABELS } from '../../../engine';
 import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
-import { SegmentFlags } from '../../walk/components/segment-flags';
 import type { SegmentFlagValues } from '../../walk/components/segment-flags';
 import { fmt, signed } from '../../walk/lib/format';
 import { sizeChoices } from '../../walk/lib/sizes';
@@ -157,15 +156,15 @@ const Row = memo(function Row(p: RowProps) {
           ) : (
             <span className="w-5 shrink-0" aria-hidden="true" />
           )}
-          <button type="button" className="min-w-0 text-left font-semibold break-words" data-col={1} data-row={p.line} aria-label={`Open ${p.name}`} aria-pressed={p.active}>
+          <button type="button" className="min-w-0 truncate text-left font-semibold" title={p.name} data-col={1} data-row={p.line} aria-label={`Open ${p.name}`} aria-pressed={p.active}>
             {p.name}
           </button>
           {p.collapsed && p.hiddenBelow > 0 ? <span className="shrink-0 text-xs text-ink-muted" data-testid="hidden-count">+{p.hiddenBelow}</span> : null}
         </div>
-        <div role="gridcell" className="min-w-0 pt-0.5 text-xs text-ink-soft break-words">
+        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs text-ink-soft" title={p.issuedText ? `${p.ends}; issued: ${p.issuedText}` : p.ends}>
+          {p.changed ? <span className="mr-1 rounded border border-caution px-1 font-semibold text-ink">changed</span> : null}
           {p.ends}
-          {p.issuedText ? <span className="block text-ink-muted">Issued: {p.issuedText}</span> : null}
-          {p.changed ? <span className="mt-0.5 inline-block rounded border border-caution px-1 font-semibold text-ink">changed</span> : null}
+          {p.issuedText ? <span className="text-ink-muted"> · Issued: {p.issuedText}</span> : null}
         </div>
         <div role="gridcell">
           <select aria-label={`${p.name} material`} className={CELL} value={p.materialValue} disabled={p.lockMaterial !== null} title={p.lockMaterial ?? undefined} aria-description={p.lockMaterial ?? undefined} data-col={2} data-row={p.line} onChange={(ev) => p.onMaterial(id, ev.target.value)}>
@@ -184,21 +183,34 @@ const Row = memo(function Row(p: RowProps) {
           <NumberCell label={`${p.name} rise (${p.lengthUnit})`} value={p.rise} kind="rise" system={p.system} optional locked={p.riseLocked} cellKey={`${id}\u0000rise`} col={5} row={p.line} onCommit={p.onNumber} onHeld={p.onHeld} />
         </div>
         {p.hasFloors ? <div role="gridcell" className="pt-0.5">{p.floor ?? '—'}</div> : null}
-        <div role="gridcell" className="min-w-0 pt-0.5 text-xs break-words" data-testid={`${p.prefix}-fittings-${id}`}>{p.fittings}</div>
+        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs" title={p.fittings} data-testid={`${p.prefix}-fittings-${id}`}>{p.fittings}</div>
         <div role="gridcell" className="pt-0.5 text-right tabular-nums">{p.flow}</div>
         <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-velocity-${id}`}>
           {p.velocityText ?? p.velocity}
           {p.fast ? <span className="font-semibold text-fault"> ▲</span> : null}
         </div>
         <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-loss-${id}`}>{p.lossText ?? p.loss}</div>
-        <div role="gridcell" className="min-w-0">
-          <SegmentFlags fast={p.flagFast} failing={p.flagFailing} missing={p.flagMissing} />
+        <div role="gridcell" className="min-w-0 truncate" title={[p.flagFast && `Velocity ${p.flagFast}`, p.flagFailing, p.flagMissing && `Incomplete: ${p.flagMissing}`].filter(Boolean).join('; ') || undefined}>
+          <RowFlags fast={p.flagFast} failing={p.flagFailing} missing={p.flagMissing} />
         </div>
       </div>
       {p.detail ? <div className="border-t border-rule bg-surface px-3 py-3" data-testid="row-detail">{p.detail}</div> : null}
     </div>
   );
 });
+
+/** The row's marks on one line (shape and words, never colour alone); the whole text is the cell's title. */
+function RowFlags({ fast, failing, missing }: SegmentFlagValues) {
+  if (!fast && !failing && !missing) return null;
+  const mark = 'mr-1 rounded border px-1 text-xs font-semibold';
+  return (
+    <span data-testid="segment-flags" className="whitespace-nowrap">
+      {fast ? <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="velocity"><span aria-hidden="true">▲ </span>Velocity {fast}</span> : null}
+      {failing ? <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="failing"><span aria-hidden="true">▼ </span>{failing}</span> : null}
+      {missing ? <span className={`${mark} border-caution bg-caution-soft text-caution`} data-flag="incomplete"><span aria-hidden="true">○ </span>Incomplete: {missing}</span> : null}
+    </span>
+  );
+}
 
 const FloorLine = memo(function FloorLine({ floorId, label, count, collapsed, onToggle, measure, index }: { floorId: string; label: string; count: number; collapsed: boolean; onToggle: (id: string) => void; measure?: (el: HTMLElement | null) => void; index?: number }) {
   return (
