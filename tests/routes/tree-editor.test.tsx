@@ -104,6 +104,27 @@ describe('the tree editor in the walk’s pipe step', () => {
   });
 });
 
+describe('a device from a row', () => {
+  it('when a device template is added on the open row’s segment, then the draft carries it on that segment and the margin is the engine’s with it', { timeout: 120_000 }, async () => {
+    const world = fakeApi();
+    const { user } = await renderWalk(world, stepHref(world, 'risers'));
+    await screen.findByTestId('step-risers', {}, CATCH_UP);
+    const first = treeRows(demo)[0];
+    const detail = screen.getByTestId(`segment-detail-${first.id}`);
+    await user.click(within(detail).getByRole('button', { name: 'Add this device here' }));
+    await waitFor(() => expect(world.saves().length).toBeGreaterThan(0), SAVE_WAIT);
+    const saved = (world.saves().at(-1)!.body as { document: SystemDocument }).document;
+    expect(saved.devices).toHaveLength(demo.devices.length + 1);
+    const added = saved.devices.at(-1)!;
+    expect(added.segmentId).toBe(first.id);
+    expect(added.loss.kind).toBe('curve');
+    expect(within(detail).getByTestId(`devices-on-${first.id}`).textContent).toContain(added.label);
+    const withDevice = expectedMarginText(saved);
+    expect(withDevice).not.toBe(expectedMarginText(demo));
+    await waitFor(() => expect(shownMargin()).toBe(withDevice), CATCH_UP);
+  });
+});
+
 describe('the same editor with the contractor’s policy', () => {
   it('when a field change shows the tree, then material, size and length are editable and the rise is read-only with its reason; an edit reaches the document', async () => {
     const catalog = indexCatalog(CatalogResponse.parse({ entries: catalogRows().map((r) => ({ kind: r.kind, id: r.id, label: r.label, source: r.source, fromMemory: r.from_memory, data: JSON.parse(JSON.stringify(r.data)) })) }).entries);

@@ -3,7 +3,9 @@
  * segment in tree order with what the row shows, the rows left visible by collapsed branches and
  * floors, and the edits a row or a selection makes.
  */
-import type { CustomPipe, Fitting, Segment, SegmentResult, SystemDocument } from '../../engine';
+import { fromSI } from '../../engine';
+import type { CustomPipe, Device, Fitting, Segment, SegmentResult, SystemDocument } from '../../engine';
+import { DeviceSchema } from '../../engine/model/schema';
 import { MATERIALS } from '../../engine/catalog/materials';
 import { fittingLabel } from '../../engine/model/labels';
 import { treeOrder } from '../walk/lib/tree';
@@ -177,3 +179,32 @@ export function setFittings(doc: SystemDocument, ids: Iterable<string>, fittings
 
 /** The loss a row shows: friction plus fittings, in the project's pressure unit. */
 export const lossOf = (r: SegmentResult | undefined) => (r ? r.frictionLoss + r.fittingLoss : undefined);
+
+/** Six significant figures: a template's converted points without binary noise (as the devices step rounds them). */
+const tidy = (x: number) => Number(x.toPrecision(6));
+
+/**
+ * A device from a catalog template on a segment, as the devices step makes one: the template's
+ * loss curve converted to the document's units, at the segment's inlet, after its devices.
+ * Templates of a PRV or a booster need settings the template does not carry: not offered here.
+ */
+export function deviceFromTemplate(
+  doc: SystemDocument,
+  template: { id: string; label: string; data: { kind: string; points: readonly { flowM3s: number; lossPa: number }[] } },
+  segmentId: string,
+): Device | null {
+  const kind = DeviceSchema.shape.kind.safeParse(template.data.kind);
+  const k = kind.success ? kind.data : 'meter';
+  if (k === 'prv' || k === 'booster-pump') return null;
+  const taken = new Set(doc.devices.map((d) => d.id));
+  let n = 1;
+  while (taken.has(`${k}-${n}`)) n++;
+  const sys = doc.unitSystem;
+  return {
+    id: `${k}-${n}`,
+    kind: k,
+    label: template.label,
+    segmentId,
+    loss: { kind: 'curve', points: template.data.points.map((p) => ({ flow: tidy(fromSI('flow', p.flowM3s, sys)), loss: tidy(fromSI('pressure', p.lossPa, sys)) })) },
+  } as Device;
+}

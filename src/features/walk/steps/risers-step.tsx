@@ -16,6 +16,7 @@ import { useWalk } from '../draft/walk-context';
 import type { WalkContextValue } from '../draft/walk-context';
 import type { SegmentResult } from '../../../engine';
 import { TreeEditor } from '../../tree-editor/components/tree-editor';
+import { DeviceAdder } from '../../tree-editor/components/device-adder';
 import type { TreeRow } from '../../tree-editor/model';
 import { CONTRACTOR_POLICY, DESIGNER_POLICY, readOnlyPolicy } from '../../tree-editor/policy';
 import type { EditPolicy } from '../../tree-editor/policy';
@@ -402,7 +403,10 @@ function SegmentDetail(p: DetailProps) {
       <div className="flex flex-wrap items-center gap-2">
         <Button variant="secondary" disabled={lockedTopology !== null} title={lockedTopology ?? undefined} onClick={() => p.onAddFrom(s.to)}>Add a segment from {nodeLabel}</Button>
         <Button variant="danger" disabled={lockedTopology !== null || p.removing !== null} title={lockedTopology ?? undefined} onClick={p.onRemove}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
-        <Link to={p.devicesHref} className="text-sm">Add a meter, valve or other device on this segment at Meter &amp; devices →</Link>
+      </div>
+      <div className="flex flex-wrap items-end gap-3">
+        <DeviceAdder segmentId={s.id} segmentName={name} doc={p.view} catalog={p.catalog} locked={p.policy.locked.devices} onChange={p.update} />
+        <Link to={p.devicesHref} className="text-sm">Its loss, a fixed loss, a PRV or a booster at Meter &amp; devices →</Link>
       </div>
       {p.removing?.segmentId === s.id ? (
         <div className="flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
