@@ -72,6 +72,7 @@ test('when the contractor checks a substitution on the issued demo building, the
 
   // Fittings: the two standard elbows of the riser feed become long-radius elbows.
   await stepLink(page, 'Fittings').click();
+  await page.getByTestId('segment-dist-2').getByRole('button', { name: 'Open Distribution main to riser' }).click();
   await page.getByLabel('Distribution main to riser: fitting 1 type').selectOption('elbow-90-long-radius');
   await shot(page, '03-fittings');
 

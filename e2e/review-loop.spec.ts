@@ -129,6 +129,7 @@ async function part3(page: Page) {
   await expect(page.getByRole('heading', { level: 2, name: 'Fittings' })).toBeVisible({ timeout: 30_000 });
   const segmentNote = comments.getByRole('list', { name: 'Comments at this step' }).getByTestId('review-note-segment-riser-2');
   await expect(segmentNote).toContainText('Segment Riser to level 2');
+  await page.getByTestId('segment-riser-2').getByRole('button', { name: 'Open Riser to level 2' }).click();
   await page.getByRole('button', { name: 'Add the usual set (2 elbows, 1 tee run) to Riser to level 2' }).click();
   await segmentNote.getByLabel('Your reply to comment 1').fill(SEGMENT_REPLY);
   await segmentNote.getByRole('button', { name: 'Mark comment 1 answered' }).click();

@@ -125,6 +125,8 @@ test('when a designer walks a new system from the supply to the result, then the
   await step(page, 'Fittings').click();
   await expect(page).toHaveURL(/\/fittings$/);
   const before = await liveMargin(page).innerText();
+  // the tree editor: a row's fittings open under it
+  await page.getByTestId('segment-seg-2').getByRole('button', { name: 'Open Level 4 branch' }).click();
   await page.getByRole('button', { name: 'Add the usual set (2 elbows, 1 tee run) to Level 4 branch' }).click();
   await expect(liveMargin(page)).not.toHaveText(before);
   await expect(page.getByTestId('k-seg-2-0')).not.toHaveText('—');
@@ -140,6 +142,7 @@ test('when a designer walks a new system from the supply to the result, then the
 
   // Change a fitting and watch the margin change on the result's own table too.
   await step(page, 'Fittings').click();
+  await page.getByTestId('segment-seg-1').getByRole('button', { name: 'Open Riser' }).click();
   await page.getByRole('button', { name: 'Add the usual set (2 elbows, 1 tee run) to Riser' }).click();
   await step(page, 'Result').click();
   await expect(page.getByTestId('margin-node-2-1')).not.toHaveText(margin);

@@ -3,6 +3,7 @@ import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { generateBuilding } from '../../src/engine/testing/generateTree';
 import { DEMO, signIn } from '../helpers';
+import { longestScrollFrame, pageHeight } from './tree-figures';
 
 // Bench only (`npm run bench` runs it with HEADROOM_BENCH=1; the e2e suite never matches *.bench.ts).
 // Edit-to-ledger time in the browser: the demo building and a generated 500-segment building,
@@ -104,7 +105,21 @@ test('bench: edit-to-ledger time in the browser, the demo building and a generat
     expect(editsMs).toHaveLength(EDITS);
     results.push({ name: c.name, segments, editsMs, floorMs, engineMs: engine === undefined ? null : Number(engine) });
   }
+  // the pipe step (the tree editor): the demo's page height, and the generated 40-storey building's longest frame while its list scrolls
+  await importSystem(page, projectUrl, `demo pipe step ${run}`, demo);
+  await page.goto(page.url().replace(/\/result$/, '/risers'));
+  await expect(page.getByTestId('tree-editor')).toBeVisible();
+  const demoHeightPx = await pageHeight(page);
+  const tower = generateBuilding({ storeys: 40 });
+  await importSystem(page, projectUrl, `40-storey ${run}`, tower);
+  await page.goto(page.url().replace(/\/result$/, '/risers'));
+  await expect(page.getByTestId('tree-scroll')).toBeVisible({ timeout: 60_000 });
+  const scrolls = [];
+  // a first pass warms the page (the first render of each kind of row), then three measured passes
+  await longestScrollFrame(page);
+  for (let k = 0; k < 3; k++) scrolls.push((await longestScrollFrame(page)).longestMs);
+  const pipeStep = { demoHeightPx, towerSegments: tower.segments.length, towerLongestFrameMs: scrolls };
   expect(problems).toEqual([]);
   fs.mkdirSync(OUT.replace(/\/[^/]*$/, '') || '.', { recursive: true });
-  fs.writeFileSync(OUT, JSON.stringify({ cases: results }, null, 2));
+  fs.writeFileSync(OUT, JSON.stringify({ cases: results, pipeStep }, null, 2));
 });

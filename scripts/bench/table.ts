@@ -4,7 +4,7 @@
  */
 import os from 'node:os';
 
-export type Unit = 'ms' | 'req/s' | 'kB';
+export type Unit = 'ms' | 'req/s' | 'kB' | 'px';
 
 export interface BenchRow {
   /** what is measured, e.g. "engine: 40-storey building, 5,000 segments, analyzeSystem" */
@@ -31,6 +31,7 @@ function fmt(value: number, unit: Unit): string {
   if (!Number.isFinite(value)) return '—';
   if (unit === 'req/s') return `${Math.round(value).toLocaleString('en-US')} req/s`;
   if (unit === 'kB') return `${value.toFixed(1)} kB`;
+  if (unit === 'px') return `${Math.round(value).toLocaleString('en-US')} px`;
   return `${value < 10 ? value.toFixed(2) : value.toFixed(1)} ms`;
 }
 

@@ -128,6 +128,8 @@ describe('nothing lost', () => {
     const target = demo.segments.find((s) => !demo.segments.some((t) => t.from === s.to) && (demo.nodes.find((n) => n.id === s.to)?.checkedFixtures.length ?? 0) > 0)!;
     const node = demo.nodes.find((n) => n.id === target.to)!;
     const name = target.label || target.id;
+    // the tree editor: the row's details (where Remove is) open under it when it is opened
+    await user.click(within(screen.getByTestId(`segment-${target.id}`)).getByRole('button', { name: `Open ${name}` }));
     await user.click(within(screen.getByTestId(`segment-${target.id}`)).getByRole('button', { name: `Remove ${name}…` }));
     const question = screen.getByTestId('confirm-remove');
     for (const f of node.checkedFixtures) expect(question.textContent).toContain(f.label);

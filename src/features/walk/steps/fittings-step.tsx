@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useRef, useState } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import type { Control, UseFormRegister, UseFormSetValue, UseFormWatch } from 'react-hook-form';
 import { z } from 'zod';
@@ -11,6 +11,9 @@ import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/sc
 import { fittingK } from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
+import { TreeEditor } from '../../tree-editor/components/tree-editor';
+import type { TreeRow } from '../../tree-editor/model';
+import { CONTRACTOR_POLICY, DESIGNER_POLICY, readOnlyPolicy } from '../../tree-editor/policy';
 import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
 import type { SegmentFlagValues } from '../components/segment-flags';
 import { fittingWithProjectData, projectOptions as projectOptionsOf } from '../../catalog/lib/apply-entries';
@@ -18,8 +21,7 @@ import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt } from '../lib/format';
-import { numberInput, plainError } from '../lib/form-values';
-import { treeOrder } from '../lib/tree';
+import { numberInput } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 
 const METHOD_LABELS = {
@@ -164,48 +166,90 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
   );
 }
 
+/** The open row's fittings: a form of its own, read again when the segment's fittings change elsewhere (a bulk edit). */
+function ActiveFittings({ segmentId, fittings, analysis, projectFittings, flags, written }: {
+  written: { current: string };
+  segmentId: string;
+  fittings: SystemDocument['segments'][number]['fittings'];
+  analysis: Analysis | null;
+  projectFittings: readonly ProjectEntryOf<'fitting-type'>[];
+  flags: SegmentFlagValues;
+}) {
+  const { document, draft, catalog, units } = useWalk();
+  const method = document.criteria?.fittingMethod ?? 'crane';
+  const [defaults] = useState<FittingsForm>(() => ({ fittingMethod: method, segments: [{ id: segmentId, fittings: fittings.map((f) => ({ ...f })) }] }));
+  // the loss method is set above, not by this form: what it holds from its opening is not written back
+  const form = useLiveForm(fittingsFormSchema, defaults, (v) => {
+    written.current = JSON.stringify((v.segments[0]?.fittings ?? []).map((f) => fittingWithProjectData(f, projectFittings)));
+    draft.update((doc) => applyFittings(doc, { ...v, fittingMethod: doc.criteria?.fittingMethod ?? 'crane' }, projectFittings));
+  });
+  const { register, control, watch, setValue } = form;
+  return <SegmentFittings index={0} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} flags={flags} />;
+}
+
 export function FittingsStep() {
-  const { document, draft, readOnlyReason, catalog, live, units, scope } = useWalk();
-  const [defaults] = useState<FittingsForm>(() => ({
-    fittingMethod: document.criteria?.fittingMethod ?? 'crane',
-    segments: document.segments.map((s) => ({ id: s.id, fittings: s.fittings.map((f) => ({ ...f })) })),
-  }));
-  const projectFittings = useProjectEntries(useWalk().ids.projectId).of('fitting-type');
-  const form = useLiveForm(fittingsFormSchema, defaults, (v) => draft.update((doc) => applyFittings(doc, v, projectFittings)));
-  const { register, control, watch, setValue, formState: { errors } } = form;
-  const method = watch('fittingMethod');
-  const order = treeOrder(document.segments, document.source.nodeId);
-  const indexById = new Map(defaults.segments.map((s, i) => [s.id, i]));
+  const { ids, document, draft, readOnlyReason, catalog, live, scope } = useWalk();
+  const project = useProjectEntries(ids.projectId);
+  const projectFittings = project.of('fitting-type');
+  const method = document.criteria?.fittingMethod ?? 'crane';
   const analysis = live.ok ? live.analysis : null;
   const flagsOf = useSegmentFlags();
+  const policy = readOnlyReason ? readOnlyPolicy(readOnlyReason) : scope === 'field-change' ? CONTRACTOR_POLICY : DESIGNER_POLICY;
+  // the open row's form is opened again only when its segment's fittings change from outside it
+  const opened = useRef<{ id: string; json: string; epoch: number }>({ id: '', json: '', epoch: 0 });
+  /** the fittings the open form last wrote, as JSON */
+  const written = useRef('');
+  const renderDetail = (row: TreeRow) => {
+    const s = document.segments.find((x) => x.id === row.id);
+    if (!s) return null;
+    const json = JSON.stringify(s.fittings);
+    const o = opened.current;
+    if (o.id !== s.id) opened.current = { id: s.id, json, epoch: o.epoch + 1 };
+    // fittings changed by this form are its own values; changed elsewhere (a bulk edit), the form reads them again
+    else if (o.json !== json) opened.current = { id: s.id, json, epoch: json === written.current ? o.epoch : o.epoch + 1 };
+    return <ActiveFittings key={`${s.id}:${opened.current.epoch}`} segmentId={s.id} fittings={s.fittings} analysis={analysis} projectFittings={projectFittings} flags={flagsOf(s.id)} written={written} />;
+  };
+  const update = (change: (doc: SystemDocument) => SystemDocument) => draft.update(change);
+  const setMethod = (value: FittingsForm['fittingMethod']) => draft.update((doc) => ({ ...doc, criteria: { ...(doc.criteria ?? {}), fittingMethod: value } }));
   return (
-    <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
+    <div>
       <StepIntro title="Fittings">
-        Per segment, the fittings and valves by type and count. Each type’s loss coefficient K depends on the method and,
-        for most methods, on the size and the flow; the source of each type’s data is shown under it.
+        Per segment, the fittings and valves by type and count: each row sums them up; open a row to change them, or
+        select rows and add a set to all of them. Each type’s loss coefficient K depends on the method and, for most
+        methods, on the size and the flow; the source of each type’s data is shown under it.
       </StepIntro>
-      <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
-        {scope === 'field-change' ? (
-          // the loss method is one of the designer's criteria: a field change keeps it as issued
-          <p className="text-sm" data-testid="fitting-method-as-issued">
-            <span className="font-semibold">Loss method for fittings (as issued):</span> {METHOD_LABELS[defaults.fittingMethod]}
-            {analysis ? <span className="block text-ink-muted">In use: {analysis.methods.fittings.label} — {analysis.methods.fittings.source}</span> : null}
-          </p>
-        ) : (
-          <SelectField
-            label="Loss method for fittings"
-            options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
-            hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
-            error={plainError(errors.fittingMethod?.message)}
-            {...register('fittingMethod')}
+      <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
+        <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
+          {scope === 'field-change' ? (
+            // the loss method is one of the designer's criteria: a field change keeps it as issued
+            <p className="text-sm" data-testid="fitting-method-as-issued">
+              <span className="font-semibold">Loss method for fittings (as issued):</span> {METHOD_LABELS[method]}
+              {analysis ? <span className="block text-ink-muted">In use: {analysis.methods.fittings.label} — {analysis.methods.fittings.source}</span> : null}
+            </p>
+          ) : (
+            <SelectField
+              label="Loss method for fittings"
+              options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
+              hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
+              value={method}
+              onChange={(ev) => setMethod(ev.target.value as FittingsForm['fittingMethod'])}
+            />
+          )}
+          {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
+          <TreeEditor
+            label="Fittings by segment"
+            document={document}
+            analysis={analysis}
+            policy={policy}
+            catalog={catalog}
+            project={project}
+            onChange={update}
+            reportHeld={draft.reportHeld}
+            flagsOf={flagsOf}
+            renderDetail={renderDetail}
           />
-        )}
-        {document.segments.length === 0 ? <p className="text-ink-soft">No segments yet: add them at the step Risers.</p> : null}
-        {order.map(({ index }) => {
-          const i = indexById.get(document.segments[index].id);
-          return i === undefined ? null : <SegmentFittings key={document.segments[index].id} index={i} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} flags={flagsOf(document.segments[index].id)} />;
-        })}
-      </fieldset>
-    </form>
+        </fieldset>
+      </form>
+    </div>
   );
 }

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import type { Control, UseFormRegister, UseFormSetValue } from 'react-hook-form';
 import { z } from 'zod';
@@ -9,22 +9,27 @@ import type { CustomFixture, FixtureGroup, Segment, SystemDocument } from '../..
 import { CustomPipeSchema, DemandCurveSchema, FixtureGroupSchema, NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
-import { groupWithProjectData, matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptions as projectOptionsOf, projectOptionValue } from '../../catalog/lib/apply-entries';
+import { groupWithProjectData, matchProjectPipe, projectEntryIdOf, projectOptions as projectOptionsOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
+import type { WalkContextValue } from '../draft/walk-context';
+import type { SegmentResult } from '../../../engine';
+import { TreeEditor } from '../../tree-editor/components/tree-editor';
+import { DeviceAdder } from '../../tree-editor/components/device-adder';
+import type { TreeRow } from '../../tree-editor/model';
+import { CONTRACTOR_POLICY, DESIGNER_POLICY, readOnlyPolicy } from '../../tree-editor/policy';
+import type { EditPolicy } from '../../tree-editor/policy';
 import { Link } from 'react-router-dom';
 import { buildingPaths } from '../../building/paths';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
-import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
+import { useSegmentFlags } from '../components/segment-flags';
 import { plural } from '../lib/verdict';
 import { parseFixtureGroups } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
-import { treeOrder } from '../lib/tree';
 import { followTypedRises } from '../lib/rises';
 import { useLiveForm } from '../lib/use-live-form';
-import { sizeChoices } from '../lib/sizes';
 
 const optionalText = z.preprocess((v) => (v === '' || v === null ? undefined : v), z.string().optional());
 /** An empty number box (undefined or NaN from numberInput) or an empty select ('') is "not given". */
@@ -139,13 +144,6 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
     return next;
   });
   return followTypedRises(doc, { ...doc, segments, nodes });
-}
-
-function sizeOptions(catalog: Catalog, project: ProjectCatalog, materialId: string | undefined, sys: SystemDocument['unitSystem'], unit: string) {
-  const projectMaterial = project.find('material', projectEntryIdOf(materialId));
-  const sizes = projectMaterial ? projectMaterial.data.sizes : catalog.material(materialId)?.data.sizes;
-  if (!sizes) return [{ value: '', label: materialId === '' ? 'Custom pipe: give its data below' : 'Choose a material first' }];
-  return sizeChoices(sizes, sys, unit);
 }
 
 /** The material choices: the seeded materials, then the project's own (marked), then a custom pipe. */
@@ -284,204 +282,324 @@ export function removalOf(values: RisersForm, doc: SystemDocument, index: number
   return { segmentId: seg.id, segmentIds, nodeIds, lines, summary };
 }
 
+/** The details of the open row's segment and its end node: what the row has no room for. */
+const detailSegmentRow = z
+  .object({ id: z.string(), label: optionalText, material: z.string(), flowOverride: optionalOf(z.number({ error: 'Enter a number' }).nonnegative('Must be zero or more')), custom: customRow })
+  .transform((r, ctx) => {
+    if (r.material !== '' && projectEntryIdOf(r.material) === null) return { ...r, custom: undefined, customGiven: false };
+    if (projectEntryIdOf(r.material) !== null) return { ...r, custom: undefined, customGiven: false };
+    const parsed = CustomPipeSchema.safeParse({ ...r.custom, velocityClass: r.custom?.velocityClass || undefined });
+    if (parsed.success) return { ...r, custom: parsed.data, customGiven: true };
+    if (!r.custom || Object.entries(r.custom).every(([k, v]) => k === 'velocityClass' || blank(v))) return { ...r, custom: undefined, customGiven: false };
+    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
+    return z.NEVER;
+  });
+const detailSchema = z.object({ segments: z.array(detailSegmentRow), nodes: z.array(nodeRow) });
+
+/** The open segment's label, flow override and custom pipe, and its end node's name, continuous demand and fixtures, written back. */
+function applyDetail(doc: SystemDocument, v: z.output<typeof detailSchema>, projectFixtures: readonly ProjectEntryOf<'fixture-type'>[]): SystemDocument {
+  const r = v.segments[0];
+  const n = v.nodes[0];
+  return {
+    ...doc,
+    segments: doc.segments.map((s) => {
+      if (!r || s.id !== r.id) return s;
+      const next = { ...s } as Segment;
+      if (r.label === undefined) delete next.label;
+      else next.label = r.label;
+      if (r.flowOverride === undefined) delete next.flowOverride;
+      else next.flowOverride = r.flowOverride;
+      if (r.customGiven && r.custom && next.material === undefined) next.custom = r.custom;
+      return next;
+    }),
+    nodes: doc.nodes.map((node) => {
+      if (!n || node.id !== n.id) return node;
+      const next = { ...node, fixtureGroups: n.fixtureGroups.map((g) => groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures)) };
+      if (n.label === undefined) delete next.label;
+      else next.label = n.label;
+      if (n.continuousDemand === undefined) delete next.continuousDemand;
+      else next.continuousDemand = n.continuousDemand;
+      return next;
+    }),
+  };
+}
+
+/** A segment being entered: kept beside the draft until its length is given (the document needs one). */
+interface Pending {
+  segments: Segment[];
+  nodes: SystemDocument['nodes'];
+}
+const NO_PENDING: Pending = { segments: [], nodes: [] };
+const withPending = (doc: SystemDocument, p: Pending): SystemDocument => (p.segments.length ? { ...doc, segments: [...doc.segments, ...p.segments], nodes: [...doc.nodes, ...p.nodes] } : doc);
+function splitPending(view: SystemDocument): { doc: SystemDocument; pending: Pending } {
+  const waiting = view.segments.filter((s) => !(Number.isFinite(s.length) && s.length > 0));
+  if (!waiting.length) return { doc: view, pending: NO_PENDING };
+  const waitingNodes = new Set(waiting.map((s) => s.to));
+  return {
+    doc: { ...view, segments: view.segments.filter((s) => !waiting.includes(s)), nodes: view.nodes.filter((n) => !waitingNodes.has(n.id)) },
+    pending: { segments: waiting, nodes: view.nodes.filter((n) => waitingNodes.has(n.id)) },
+  };
+}
+
+interface DetailProps {
+  segment: Segment;
+  view: SystemDocument;
+  update: (change: (doc: SystemDocument) => SystemDocument) => void;
+  policy: EditPolicy;
+  catalog: Catalog;
+  projectFixtures: readonly ProjectEntryOf<'fixture-type'>[];
+  projectMaterialSource: string | undefined;
+  materialValue: string;
+  result: SegmentResult | undefined;
+  units: WalkContextValue['units'];
+  onAddFrom: (nodeId: string) => void;
+  onRemove: () => void;
+  removing: Removal | null;
+  onConfirmRemove: () => void;
+  onKeep: () => void;
+  devicesHref: string;
+}
+
+function SegmentDetail(p: DetailProps) {
+  const s = p.segment;
+  const node = p.view.nodes.find((n) => n.id === s.to);
+  const [defaults] = useState(() => ({
+    segments: [{ id: s.id, label: s.label ?? '', material: p.materialValue, flowOverride: s.flowOverride, custom: s.custom ? { ...s.custom } : { ...EMPTY_CUSTOM } }],
+    nodes: [{ id: s.to, label: node?.label ?? '', elevation: node?.elevation, continuousDemand: node?.continuousDemand, fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow) }],
+  }));
+  const form = useLiveForm(detailSchema, defaults, (v) => p.update((doc) => applyDetail(doc, v, p.projectFixtures)));
+  const { register, control, setValue, watch, formState: { errors } } = form;
+  const name = watch('segments.0.label') || s.id;
+  const nodeLabel = watch('nodes.0.label') || s.to;
+  const groups = watch('nodes.0.fixtureGroups');
+  const leaf = !p.view.segments.some((x) => x.from === s.to);
+  const lockedTopology = p.policy.locked.topology;
+  const lockedFixtures = p.policy.locked.fixtures;
+  const err = errors.segments?.[0];
+  return (
+    <div className="flex flex-col gap-3" data-testid={`segment-detail-${s.id}`}>
+      <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
+        <label className="flex flex-col text-xs font-semibold">Name<CellInput label={`${name} name`} readOnly={p.policy.locked.name !== null} title={p.policy.locked.name ?? undefined} {...register('segments.0.label')} /></label>
+        <label className="flex flex-col text-xs font-semibold">Design flow override ({p.units.flow})<CellInput label={`${name} design flow override (${p.units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register('segments.0.flowOverride', numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">Node name at the end<CellInput label={`Name of node ${s.to}`} {...register('nodes.0.label')} /></label>
+        <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({p.units.flow})<CellInput label={`Continuous demand at node ${s.to} (${p.units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[0]?.continuousDemand?.message)} {...register('nodes.0.continuousDemand', numberInput)} /></label>
+      </div>
+      <p className="text-sm" data-testid={`segment-demand-${s.id}`}>
+        {p.result ? (
+          <>
+            <span className="font-semibold">{fmt(p.result.wsfu, 1)} WSFU</span> → {fmt(p.result.designFlow, 1)} {p.units.flow}, {fmt(p.result.velocity, 1)} {p.units.velocity}
+          </>
+        ) : (
+          <span className="text-ink-muted">{Number.isFinite(s.length) ? 'Demand not computed yet' : 'Give its length to add it to the draft; the demand follows.'}</span>
+        )}
+      </p>
+      {p.materialValue === '' || projectEntryIdOf(p.materialValue) ? (
+        <CustomPipeFields index={0} name={name} register={register as never} errors={err?.custom as never} units={p.units} fromProject={projectEntryIdOf(p.materialValue) !== null} source={p.projectMaterialSource} />
+      ) : null}
+      <div>
+        <p className="mb-1 text-sm font-semibold">Fixtures served at {nodeLabel}</p>
+        <FixtureGroups index={0} control={control as never} register={register as never} setValue={setValue as never} rows={groups} projectFixtures={p.projectFixtures} catalog={p.catalog} nodeLabel={nodeLabel} errors={errors.nodes?.[0]?.fixtureGroups as never} locked={lockedFixtures !== null} units={p.units} />
+      </div>
+      <div className="flex flex-wrap items-center gap-2">
+        <Button variant="secondary" disabled={lockedTopology !== null} title={lockedTopology ?? undefined} onClick={() => p.onAddFrom(s.to)}>Add a segment from {nodeLabel}</Button>
+        <Button variant="danger" disabled={lockedTopology !== null || p.removing !== null} title={lockedTopology ?? undefined} onClick={p.onRemove}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
+      </div>
+      <div className="flex flex-wrap items-end gap-3">
+        <DeviceAdder segmentId={s.id} segmentName={name} doc={p.view} catalog={p.catalog} locked={p.policy.locked.devices} onChange={p.update} />
+        <Link to={p.devicesHref} className="text-sm">Its loss, a fixed loss, a PRV or a booster at Meter &amp; devices →</Link>
+      </div>
+      {p.removing?.segmentId === s.id ? (
+        <div className="flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
+          <p className="font-semibold">Remove {name}? This also removes:</p>
+          <ul className="list-disc pl-5">{p.removing.lines.length ? p.removing.lines.map((l) => <li key={l}>{l}</li>) : <li>nothing else</li>}</ul>
+          <div className="flex flex-wrap gap-2">
+            <Button variant="danger" onClick={p.onConfirmRemove}>Yes, remove</Button>
+            <Button variant="secondary" onClick={p.onKeep}>Keep it</Button>
+          </div>
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
+/**
+ * The pipe step of the walk: the tree editor (one row per segment, edited in place), with the open
+ * row's details — name, flow override, custom pipe, end node, its fixtures, add and remove — under it.
+ */
 export function RisersStep() {
-  const { ids, document, draft, readOnlyReason, scope, units, catalog, live } = useWalk();
+  const { ids, document, draft, readOnlyReason, scope, units, catalog, live, links } = useWalk();
   const project = useProjectEntries(ids.projectId);
-  const [defaults] = useState(() => risersFormValues(document, project.of('material')));
   const projectFixtures = project.of('fixture-type');
-  const form = useLiveForm(risersFormSchema, defaults, (v) => draft.update((doc) => applyRisers(doc, v, projectFixtures)));
-  const { register, control, watch, setValue, getValues, formState: { errors } } = form;
-  const segments = useFieldArray({ control, name: 'segments' });
-  const nodes = useFieldArray({ control, name: 'nodes' });
-  const [csv, setCsv] = useState('');
-  const [csvProblems, setCsvProblems] = useState<string[]>([]);
-  const [csvDone, setCsvDone] = useState<string | null>(null);
-  const sys = document.unitSystem;
-  const locked = scope === 'field-change';
-  const rows = watch('segments');
-  const nodeRows = watch('nodes');
-  const order = treeOrder(rows, document.source.nodeId);
-  const results = new Map(live.ok ? live.analysis.segments.map((s) => [s.id, s]) : []);
-  const nodeIndex = new Map(nodeRows.map((n, i) => [n.id, i]));
-  const nodeName = (id: string) => nodeRows[nodeIndex.get(id) ?? -1]?.label || id;
-  const materialChoices = materialOptions(catalog, project);
-  const flagsOf = useSegmentFlags();
+  const policy = readOnlyReason ? readOnlyPolicy(readOnlyReason) : scope === 'field-change' ? CONTRACTOR_POLICY : DESIGNER_POLICY;
+  const [pending, setPending] = useState<Pending>(NO_PENDING);
+  const view = useMemo(() => withPending(document, pending), [document, pending]);
+  const viewRef = useRef(view);
+  viewRef.current = view;
+  /** every change goes through the view (draft + segments being entered); what is complete goes to the draft */
+  const update = useCallback(
+    (change: (doc: SystemDocument) => SystemDocument) => {
+      const next = splitPending(change(viewRef.current));
+      viewRef.current = withPending(next.doc, next.pending);
+      draft.update(() => next.doc);
+      setPending(next.pending);
+    },
+    [draft],
+  );
+  // a segment being entered is a value not saved yet: the save bar says so
+  const report = draft.reportHeld;
+  useEffect(() => {
+    report('risers-pending', pending.segments.map((s) => ({ path: `segments.${s.id}.length`, message: `${s.label || s.id}: give its length to add it to the draft` })));
+  }, [pending, report]);
+  useEffect(() => () => report('risers-pending', []), [report]);
 
-  /** A project material and size chosen: its numbers are copied into the segment's custom pipe. */
-  const copyProjectPipe = (i: number) => {
-    const entry = project.find('material', projectEntryIdOf(getValues(`segments.${i}.material`)));
-    const pipe = entry ? pipeFromProjectEntry(entry, getValues(`segments.${i}.size`), sys) : null;
-    setValue(`segments.${i}.custom`, pipe ? { ...pipe } : { ...EMPTY_CUSTOM }, { shouldValidate: true, shouldDirty: true });
-  };
-
+  const [activeRequest, setActiveRequest] = useState<{ id: string; at: number } | null>(null);
+  const [detailEpoch, setDetailEpoch] = useState(0);
   const addSegmentFrom = (fromId: string) => {
-    const current = getValues();
-    const to = freshId('node', current.nodes.map((n) => n.id));
-    const feeding = current.segments.find((s) => s.to === fromId);
-    // A new node has no position: the new segment's rise places it (document version 2).
-    nodes.append({ id: to, label: '', elevation: undefined, continuousDemand: undefined, fixtureGroups: [] });
-    segments.append({
-      id: freshId('seg', current.segments.map((s) => s.id)),
-      label: '',
-      from: fromId,
-      to,
-      material: feeding?.material ?? catalog.materials[0]?.id ?? '',
-      size: feeding?.size ?? '',
+    const v = viewRef.current;
+    const to = freshId('node', v.nodes.map((n) => n.id));
+    const id = freshId('seg', v.segments.map((s) => s.id));
+    const feeding = v.segments.find((s) => s.to === fromId);
+    const segment = {
+      id, from: fromId, to,
+      ...(feeding?.material ? { material: feeding.material } : feeding ? {} : { material: catalog.materials[0]?.id }),
+      ...(feeding?.size ? { size: feeding.size } : {}),
+      ...(feeding?.custom ? { custom: { ...feeding.custom } } : {}),
       length: Number.NaN,
-      rise: Number.NaN, // empty: the user enters the rise (0 for a level run); until then the verdict is incomplete
-      custom: feeding ? { ...feeding.custom } : { ...EMPTY_CUSTOM },
-      flowOverride: undefined,
-    });
+      fittings: [],
+      reducerAuto: true,
+    } as Segment;
+    // a new node has no position: the new segment's rise places it (document version 2)
+    update((doc) => ({ ...doc, segments: [...doc.segments, segment], nodes: [...doc.nodes, { id: to, fixtureGroups: [], checkedFixtures: [] } as unknown as SystemDocument['nodes'][number]] }));
+    setActiveRequest({ id, at: Date.now() });
   };
 
-  /** Asked first: removing a segment takes everything downstream with it (named in the question). */
+  const nodeName = (id: string) => view.nodes.find((n) => n.id === id)?.label || id;
   const [removing, setRemoving] = useState<Removal | null>(null);
-  const [undo, setUndo] = useState<{ text: string; values: RisersForm; doc: SystemDocument } | null>(null);
-  const askRemove = (index: number) => setRemoving(removalOf(getValues(), document, index, nodeName));
+  const [undo, setUndo] = useState<{ text: string; doc: SystemDocument; pending: Pending } | null>(null);
+  const askRemove = (segmentId: string) => {
+    const values = risersFormValues(view);
+    setRemoving(removalOf(values, view, values.segments.findIndex((s) => s.id === segmentId), nodeName));
+  };
   const removeSegment = () => {
     if (!removing) return;
-    const before = getValues();
-    const snapshot = { text: removing.summary, values: structuredClone(before), doc: document };
-    const segIdx = before.segments.map((s, i) => (removing.segmentIds.has(s.id) ? i : -1)).filter((i) => i >= 0);
-    const nodeIdx = before.nodes.map((n, i) => (removing.nodeIds.has(n.id) ? i : -1)).filter((i) => i >= 0);
-    segments.remove(segIdx);
-    if (nodeIdx.length) nodes.remove(nodeIdx);
+    setUndo({ text: removing.summary, doc: document, pending });
+    update((doc) => ({ ...doc, segments: doc.segments.filter((s) => !removing.segmentIds.has(s.id)), nodes: doc.nodes.filter((n) => !removing.nodeIds.has(n.id)) }));
     setRemoving(null);
-    setUndo(snapshot);
   };
   const undoRemove = () => {
     if (!undo) return;
-    // the document first (it holds the checked fixtures the form does not), then the form's rows
     draft.update(() => undo.doc);
-    form.reset(undo.values);
+    viewRef.current = withPending(undo.doc, undo.pending);
+    setPending(undo.pending);
     setUndo(null);
+    setDetailEpoch((e) => e + 1);
   };
 
+  const [csv, setCsv] = useState('');
+  const [csvProblems, setCsvProblems] = useState<string[]>([]);
+  const [csvDone, setCsvDone] = useState<string | null>(null);
   const importCsv = (text: string) => {
-    const result = parseFixtureGroups(text, { nodeIds: new Set(getValues('nodes').map((n) => n.id)), fixtureTypeIds: new Set(catalog.fixtureTypes.map((f) => f.id)) });
+    const result = parseFixtureGroups(text, { nodeIds: new Set(view.nodes.map((n) => n.id)), fixtureTypeIds: new Set(catalog.fixtureTypes.map((f) => f.id)) });
     setCsvProblems(result.errors);
     setCsvDone(null);
     if (result.errors.length) return;
-    for (const r of result.rows) {
-      const i = getValues('nodes').findIndex((n) => n.id === r.nodeId);
-      setValue(`nodes.${i}.fixtureGroups`, [...getValues(`nodes.${i}.fixtureGroups`), { fixtureTypeId: r.fixtureTypeId, count: r.count, demandCurve: '', wsfuBasis: '', usage: {} }], { shouldValidate: true, shouldDirty: true });
-    }
+    update((doc) => ({
+      ...doc,
+      nodes: doc.nodes.map((n) => {
+        const added = result.rows.filter((r) => r.nodeId === n.id).map((r) => ({ fixtureTypeId: r.fixtureTypeId, count: r.count }));
+        return added.length ? { ...n, fixtureGroups: [...n.fixtureGroups, ...added] } : n;
+      }),
+    }));
+    // the open row's details show the node's fixtures: read them again
+    setDetailEpoch((e) => e + 1);
     setCsvDone(`${result.rows.length} fixture group(s) added.`);
     setCsv('');
   };
 
+  const results = useMemo(() => new Map(live.ok ? live.analysis.segments.map((s) => [s.id, s]) : []), [live]);
+  const flagsOf = useSegmentFlags();
+  const projectMaterials = project.of('material');
+  const renderDetail = (row: TreeRow) => {
+    const s = view.segments.find((x) => x.id === row.id);
+    if (!s) return null;
+    const match = !s.material && s.custom ? matchProjectPipe(s.custom, projectMaterials, document.unitSystem) : null;
+    const materialValue = match ? projectOptionValue(match.entryId) : (s.material ?? '');
+    const kind = materialValue === '' ? 'custom' : match ? `project:${match.entryId}` : 'catalog';
+    return (
+      <SegmentDetail
+        key={`${s.id}:${kind}:${detailEpoch}`}
+        segment={s}
+        view={view}
+        update={update}
+        policy={policy}
+        catalog={catalog}
+        projectFixtures={projectFixtures}
+        projectMaterialSource={match ? project.find('material', match.entryId)?.source : undefined}
+        materialValue={materialValue}
+        result={results.get(s.id)}
+        units={units}
+        onAddFrom={addSegmentFrom}
+        onRemove={() => askRemove(s.id)}
+        removing={removing}
+        onConfirmRemove={removeSegment}
+        onKeep={() => setRemoving(null)}
+        devicesHref={links.step('devices')}
+      />
+    );
+  };
+
   return (
-    <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Risers">
+    <div>
       <StepIntro title="Risers">
-        The tree of segments from the source up and out: the riser, the branches off it, the fixture branches. Each
-        segment runs from a node toward the fixtures. Give each its material, size, developed length and rise; at each
-        node, the fixtures it serves. The fixture units and the design flow of each segment follow live.
+        The tree of segments from the source up and out, one row each: material, size, developed length and rise in
+        place (arrow keys move, Enter or F2 edits, Escape cancels). Open a row for its name, its end node and the
+        fixtures served there; select rows (shift- or ctrl-click, or a whole branch) to change them together.
       </StepIntro>
       {scope === 'design' ? <p className="mb-4"><Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>Build from floors: floors, typical units and a riser from a short form →</Link></p> : null}
-      <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
-        <div aria-live="polite">
-          {undo ? (
-            <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
-              <p>Removed {undo.text}.</p>
-              <Button variant="secondary" onClick={undoRemove}>Undo</Button>
-              <Button variant="quiet" onClick={() => setUndo(null)}>Dismiss</Button>
+      <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Risers">
+        <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
+          <div aria-live="polite">
+            {undo ? (
+              <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
+                <p>Removed {undo.text}.</p>
+                <Button variant="secondary" onClick={undoRemove}>Undo</Button>
+                <Button variant="quiet" onClick={() => setUndo(null)}>Dismiss</Button>
+              </div>
+            ) : null}
+          </div>
+          {view.segments.length === 0 ? <p className="text-ink-soft">No segments yet. Start with one from the connection.</p> : null}
+          <TreeEditor
+            label="Segments in tree order"
+            document={view}
+            analysis={live.ok ? live.analysis : null}
+            policy={policy}
+            catalog={catalog}
+            project={project}
+            onChange={update}
+            reportHeld={draft.reportHeld}
+            flagsOf={flagsOf}
+            renderDetail={renderDetail}
+            activeRequest={activeRequest}
+          />
+          <div>
+            <Button variant="secondary" disabled={policy.locked.topology !== null} onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
+          </div>
+          <Section title="Import fixture groups (CSV)" headingLevel={3}>
+            <TextAreaField label="Lines of node id, fixture type id, count" hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named." value={csv} onChange={(ev) => setCsv(ev.target.value)} />
+            <div className="mt-2 flex flex-wrap items-end gap-3">
+              <Button variant="secondary" onClick={() => importCsv(csv)} disabled={policy.locked.fixtures !== null || csv.trim() === ''}>Add these fixture groups</Button>
+              <label className="text-sm font-semibold">
+                Or a CSV file
+                <input type="file" accept=".csv,.txt,text/csv,text/plain" className="mt-1 block text-sm" disabled={policy.locked.fixtures !== null} onChange={async (ev) => { const f = ev.target.files?.[0]; if (f) importCsv(await f.text()); ev.target.value = ''; }} />
+              </label>
             </div>
-          ) : null}
-        </div>
-        <Section title="Segments" headingLevel={3}>
-          {rows.length === 0 ? <p className="mb-3 text-ink-soft">No segments yet. Start with one from the connection.</p> : null}
-          <ol className="flex flex-col gap-3" aria-label="Segments in tree order">
-            {order.map(({ index: i, depth }) => {
-              const row = rows[i];
-              const field = segments.fields[i];
-              if (!row || !field) return null;
-              const err = errors.segments?.[i];
-              const result = results.get(row.id);
-              const name = row.label || row.id;
-              const leaf = !rows.some((s) => s.from === row.to);
-              return (
-                <li key={field.id} className="rounded-md border-2 border-rule p-3" style={{ marginLeft: `${Math.min(depth - 1, 8) * 1.25}rem` }} data-testid={`segment-${row.id}`}>
-                  <p className="mb-2 text-sm font-semibold">
-                    {name}: {nodeName(row.from)} → {nodeName(row.to)}
-                  </p>
-                  <SegmentFlags {...flagsOf(row.id)} className="mb-2" />
-                  <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-6">
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Name<CellInput label={`${name} name`} {...register(`segments.${i}.label`)} /></label>
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Material<CellSelect label={`${name} material`} options={materialChoices} {...register(`segments.${i}.material`, { onChange: () => { setValue(`segments.${i}.size`, '', { shouldValidate: true }); if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Size<CellSelect label={`${name} size`} options={sizeOptions(catalog, project, row.material, sys, units.diameter)} {...register(`segments.${i}.size`, { onChange: () => { if (projectEntryIdOf(getValues(`segments.${i}.material`))) copyProjectPipe(i); } })} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Length ({units.length})<CellInput label={`${name} length (${units.length})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.length?.message)} {...register(`segments.${i}.length`, numberInput)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Rise ({units.length})<CellInput label={`${name} rise (${units.length})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.rise?.message)} {...register(`segments.${i}.rise`, numberInput)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Design flow override ({units.flow})<CellInput label={`${name} design flow override (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register(`segments.${i}.flowOverride`, numberInput)} /></label>
-                    <label className="flex flex-col text-xs font-semibold xl:col-span-2">Node name at the end<CellInput label={`Name of node ${row.to}`} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.label`)} /></label>
-                    <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({units.flow})<CellInput label={`Continuous demand at node ${row.to} (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[nodeIndex.get(row.to) ?? 0]?.continuousDemand?.message)} {...register(`nodes.${nodeIndex.get(row.to) ?? 0}.continuousDemand`, numberInput)} /></label>
-                    <p className="text-sm xl:col-span-2" data-testid={`segment-demand-${row.id}`}>
-                      {result ? (
-                        <>
-                          <span className="font-semibold">{fmt(result.wsfu, 1)} WSFU</span> → {fmt(result.designFlow, 1)} {units.flow}, {fmt(result.velocity, 1)} {units.velocity}
-                        </>
-                      ) : (
-                        <span className="text-ink-muted">Demand not computed yet</span>
-                      )}
-                    </p>
-                  </div>
-                  {row.material === '' || projectEntryIdOf(row.material) ? (
-                    <CustomPipeFields index={i} name={name} register={register} errors={err?.custom as never} units={units} fromProject={projectEntryIdOf(row.material) !== null} source={project.find('material', projectEntryIdOf(row.material))?.source} />
-                  ) : null}
-                  <div className="mt-2 flex flex-wrap gap-2">
-                    <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(row.to)}>Add a segment from {nodeName(row.to)}</Button>
-                    <Button variant="danger" disabled={locked || removing !== null} onClick={() => askRemove(i)}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
-                  </div>
-                  {removing?.segmentId === row.id ? (
-                    <div className="mt-2 flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
-                      <p className="font-semibold">Remove {name}? This also removes:</p>
-                      <ul className="list-disc pl-5">
-                        {removing.lines.length ? removing.lines.map((l) => <li key={l}>{l}</li>) : <li>nothing else</li>}
-                      </ul>
-                      <div className="flex flex-wrap gap-2">
-                        <Button variant="danger" onClick={removeSegment}>Yes, remove</Button>
-                        <Button variant="secondary" onClick={() => setRemoving(null)}>Keep it</Button>
-                      </div>
-                    </div>
-                  ) : null}
-                </li>
-              );
-            })}
-          </ol>
-          <div className="mt-3">
-            <Button variant="secondary" disabled={locked} onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
-          </div>
-        </Section>
-        <Section title="Fixtures served at each node" headingLevel={3}>
-          <p className="mb-3 text-sm text-ink-soft">Type × count; the fixture units add up toward the source and set each segment’s design flow.</p>
-          <div className="flex flex-col gap-4">
-            {nodes.fields.map((field, i) => {
-              const n = nodeRows[i];
-              if (!n) return null;
-              const label = n.label || n.id;
-              return (
-                <div key={field.id} className="border-t border-rule pt-3">
-                  <p className="mb-2 font-semibold">{label}</p>
-                  <FixtureGroups index={i} control={control} register={register} setValue={setValue} rows={nodeRows[i]?.fixtureGroups} projectFixtures={projectFixtures} catalog={catalog} nodeLabel={label} errors={errors.nodes?.[i]?.fixtureGroups as never} locked={locked} units={units} />
-                </div>
-              );
-            })}
-          </div>
-        </Section>
-        <Section title="Import fixture groups (CSV)" headingLevel={3}>
-          <TextAreaField label="Lines of node id, fixture type id, count" hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named." value={csv} onChange={(ev) => setCsv(ev.target.value)} />
-          <div className="mt-2 flex flex-wrap items-end gap-3">
-            <Button variant="secondary" onClick={() => importCsv(csv)} disabled={locked || csv.trim() === ''}>Add these fixture groups</Button>
-            <label className="text-sm font-semibold">
-              Or a CSV file
-              <input type="file" accept=".csv,.txt,text/csv,text/plain" className="mt-1 block text-sm" disabled={locked} onChange={async (ev) => { const f = ev.target.files?.[0]; if (f) importCsv(await f.text()); ev.target.value = ''; }} />
-            </label>
-          </div>
-          <div aria-live="polite" className="mt-2 text-sm">
-            {csvProblems.length ? <ul role="alert" className="list-disc pl-5 text-fault">{csvProblems.map((p) => <li key={p}>{p}</li>)}</ul> : null}
-            {csvDone ? <p>{csvDone}</p> : null}
-          </div>
-        </Section>
-      </fieldset>
-    </form>
+            <div aria-live="polite" className="mt-2 text-sm">
+              {csvProblems.length ? <ul role="alert" className="list-disc pl-5 text-fault">{csvProblems.map((p) => <li key={p}>{p}</li>)}</ul> : null}
+              {csvDone ? <p>{csvDone}</p> : null}
+            </div>
+          </Section>
+        </fieldset>
+      </form>
+    </div>
   );
 }
