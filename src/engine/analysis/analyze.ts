@@ -11,6 +11,7 @@ import { buildTopology } from './topology';
 import { resolveElevations } from './elevations';
 import { runStaticChecks } from './staticChecks';
 import { labelWarnings } from './names';
+import { pexMetalFittingWarnings } from './pexFittings';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -36,6 +37,7 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   for (const use of model.projectData) {
     warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
   }
+  pexMetalFittingWarnings(model, warnings);
   const demand = computeDemand(model, topo, warnings);
   const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);
