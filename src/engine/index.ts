@@ -68,5 +68,7 @@ export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult 
 export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';
 export { thermalExpansionTank } from './hotWater/expansionTank';
 export { closedSystemCheck } from './hotWater/closedSystem';
+export { applyFedFrom, resolveFedFrom, fedFromBasis } from './hotWater/fedFrom';
+export type { ColdSupplyView } from './hotWater/fedFrom';
 export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';
 export { HotWaterInputError } from './hotWater/errors';
