@@ -58,7 +58,7 @@ export function resolveFedFrom(fedFrom: Pick<FedFrom, 'systemId' | 'nodeId'>, un
   const a = rev.analysis.analysis;
   const i = a.si.nodes.findIndex((n) => n.id === fedFrom.nodeId);
   if (i < 0) {
-    return unresolved('cold-node-missing', `The node "${fedFrom.nodeId}" that fed the heater is no longer in the cold system "${cold.name}": choose the node that feeds the heater.`);
+    return unresolved('cold-node-missing', `The cold system "${cold.name}" has no node "${fedFrom.nodeId}": choose its node that feeds the heater.`);
   }
   const node = a.si.nodes[i];
   return {
