@@ -69,6 +69,8 @@ export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft,
 export { thermalExpansionTank } from './hotWater/expansionTank';
 export { closedSystemCheck } from './hotWater/closedSystem';
 export { applyFedFrom, resolveFedFrom, fedFromBasis } from './hotWater/fedFrom';
+export { sizeDocumentExpansionTank } from './hotWater/expansionTankCheck';
+export type { ExpansionTankSizing } from './hotWater/expansionTankCheck';
 export type { ColdSupplyView } from './hotWater/fedFrom';
 export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';
 export { HotWaterInputError } from './hotWater/errors';

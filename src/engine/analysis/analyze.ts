@@ -12,6 +12,7 @@ import { resolveElevations } from './elevations';
 import { runStaticChecks } from './staticChecks';
 import { labelWarnings } from './names';
 import { pexMetalFittingWarnings } from './pexFittings';
+import { expansionTankWarnings } from '../hotWater/expansionTankCheck';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -38,6 +39,7 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
     warnings.push(makeWarning('project-data-used', use.elementType, use.elementId, `${use.label}: source ${use.source}`));
   }
   pexMetalFittingWarnings(model, warnings);
+  expansionTankWarnings(model.doc, warnings);
   const demand = computeDemand(model, topo, warnings);
   const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);

@@ -460,6 +460,19 @@ function criteria(v: unknown): CriteriaOverrides {
   return out as CriteriaOverrides;
 }
 
+function expansionTank(v: unknown): NonNullable<SystemDocument['expansionTank']> {
+  const o = obj(v);
+  const out: Obj = {
+    heaterVolume: nonNegative(o.heaterVolume),
+    coldTemperature: num(o.coldTemperature),
+    hotTemperature: num(o.hotTemperature),
+    supplyPressure: nonNegative(o.supplyPressure),
+    reliefPressure: positive(o.reliefPressure),
+  };
+  strictKeys(o, 5);
+  return out as NonNullable<SystemDocument['expansionTank']>;
+}
+
 function systemDocument(v: unknown): SystemDocument {
   const o = obj(v);
   if (o.schemaVersion !== SCHEMA_VERSION) decline();
@@ -485,6 +498,7 @@ function systemDocument(v: unknown): SystemDocument {
   out.segments = list(o.segments, segment, B.segments);
   known += 2;
   known += optional(o, out, 'criteria', criteria);
+  known += optional(o, out, 'expansionTank', expansionTank);
   known += optional(o, out, 'notes', notes);
   strictKeys(o, known);
   return out as SystemDocument;

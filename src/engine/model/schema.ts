@@ -427,6 +427,20 @@ export const PlacementSchema = z.strictObject({
     .optional(),
 });
 
+/**
+ * The thermal expansion tank of a hot-water system (sized by hotWater/expansionTank.ts): the volume
+ * of water heated (the heaters' storage), the cold (incoming) and hot (stored) temperatures, the
+ * supply pressure at the tank (its precharge) and the pressure it is sized for (the relief setting,
+ * or somewhat below it). Its presence says the system has a tank.
+ */
+export const ExpansionTankSchema = z.strictObject({
+  heaterVolume: nonNegative().describe('Volume of water heated, gal (US) or L (SI); must be above zero to size the tank.'),
+  coldTemperature: finite().describe('Temperature of the incoming cold water, °F or °C.'),
+  hotTemperature: finite().describe('Stored hot-water temperature, °F or °C.'),
+  supplyPressure: nonNegative().describe('Supply pressure at the tank (its precharge), pressure unit.'),
+  reliefPressure: positive().describe('Pressure the tank is sized for: the relief setting or somewhat below it, pressure unit.'),
+});
+
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
@@ -442,6 +456,7 @@ export const SystemDocumentSchema = z.strictObject({
   unitTypes: z.array(UnitTypeSchema).max(B.unitTypes).optional().describe('Typical units, defined once.'),
   placements: z.array(PlacementSchema).max(B.placements).optional().describe('Occurrences of the unit types on floors.'),
   criteria: CriteriaOverridesSchema.optional(),
+  expansionTank: ExpansionTankSchema.optional().describe('Hot water: the thermal expansion tank and its sizing inputs.'),
   notes: z.string().max(B.notesLength).optional(),
 });
 
@@ -450,6 +465,7 @@ export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
 export type SystemDocumentInput = z.input<typeof SystemDocumentSchema>;
 export type Source = z.infer<typeof SourceSchema>;
 export type FedFrom = z.infer<typeof FedFromSchema>;
+export type ExpansionTank = z.infer<typeof ExpansionTankSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
 export type Boost = z.infer<typeof BoostSchema>;
 export type Floor = z.infer<typeof FloorSchema>;

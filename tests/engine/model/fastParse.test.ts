@@ -155,6 +155,7 @@ const validDocument = rec({
   nodes: fc.array(node, { minLength: 1, maxLength: 3 }),
   segments: fc.array(segment, { maxLength: 3 }),
   criteria: opt(criteria),
+  expansionTank: opt(rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive })),
   notes: opt(text),
 });
 
