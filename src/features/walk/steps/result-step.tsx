@@ -26,6 +26,7 @@ import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
 import { SizingPanel } from '../../sizing/components/sizing-panel';
+import { ExpansionTankSection } from '../components/expansion-tank-section';
 
 const STATEMENT_MIN = 20;
 
@@ -275,6 +276,8 @@ export function ResultStep() {
           <SizingPanel />
         </Section>
       ) : null}
+
+      {document.service === 'hot' ? <ExpansionTankSection /> : null}
 
       <Section title="Export for the report" headingLevel={3}>
         <ResultExports />
