@@ -127,9 +127,17 @@ export function SupplyStep() {
               error={e(errors.connectionElevation?.message)}
               {...register('connectionElevation', numberInput)}
             />
-            <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." readOnly={fed} error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
-            <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." readOnly={fed} error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
-            <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." readOnly={fed} error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
+            {fed ? (
+              <p className="text-sm text-ink-soft md:col-span-2" data-testid="fed-pressures-note">
+                The static pressures and their basis are read from the cold system (above), not typed: low {fmt(document.source.staticPressureLow, 2)} {units.pressure}, high {fmt(document.source.staticPressureHigh, 2)} {units.pressure}.
+              </p>
+            ) : (
+              <>
+              <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
+              <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
+              <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
+              </>
+            )}
             <TextField label="Date of the pressure figures" type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
             <TextField label={`Water temperature (${units.temperature})`} type="text" inputMode="decimal" autoComplete="off" hint="Sets the water’s density and viscosity." error={e(errors.waterTemperature?.message)} {...register('waterTemperature', numberInput)} />
           </div>
