@@ -218,3 +218,16 @@ export function warningWhere(w: EngineWarning & { elementLabel?: string | null }
 function nodeName(a: Analysis, doc: SystemDocument, id: string): string | null {
   return a.nodes.find((n) => n.id === id)?.label ?? doc.nodes.find((n) => n.id === id)?.label ?? null;
 }
+
+/**
+ * A hot system's source as the summary names it: the cold-water system and node feeding its heater,
+ * and the figures read there (src/engine/hotWater/fedFrom.ts); null for a source not fed from a system.
+ */
+export function fedFromText(doc: SystemDocument, pressureUnit: string): string | null {
+  const fedFrom = doc.source.fedFrom;
+  if (!fedFrom) return null;
+  const r = fedFrom.resolution;
+  if (r?.status !== 'resolved') return `NOT READ — ${r?.message ?? 'the cold system has not been read'}`;
+  const p = (x: number) => `${x.toFixed(2)} ${pressureUnit}`;
+  return `the cold-water system "${r.systemName}" at ${r.nodeLabel}, its revision ${r.revisionNumber} (${r.revisionStatus}): residual ${p(r.residualPressure)} at its design flow, high static ${p(r.staticPressureHigh)}. The water heater's loss is its device's, under Devices.`;
+}

@@ -20,6 +20,7 @@ import { drawProfile, profilePoints } from './chart';
 import { num, signed, utc, withUnit } from './format';
 import {
   catalogSourcesUsed,
+  fedFromText,
   isUnverified,
   sourceText,
   staticCheckContent,
@@ -271,8 +272,10 @@ function inputsSection(c: SummaryContext) {
   L.heading('Inputs');
   L.heading('Supply', 2);
   const src = doc.source;
+  const fedFrom = fedFromText(doc, u.pressure);
   L.keyValues([
     ['Source', `${SOURCE_KIND[src.kind] ?? src.kind} at node ${nodeLabel(src.nodeId)} (elevation ${withUnit(a.source.elevation, u.elevation)})`],
+    ...(fedFrom ? ([['Hot water fed from', fedFrom]] as [string, string][]) : []),
     ['Static pressure', `low ${withUnit(src.staticPressureLow, u.pressure)}, high ${withUnit(src.staticPressureHigh, u.pressure)}`],
     ['Basis of the figure', src.pressureBasis],
     ['Date of the figure', src.pressureDate ?? 'not stated'],

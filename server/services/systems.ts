@@ -10,6 +10,7 @@ import { iso } from '../db/rows';
 import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
 import { reviewLoopService } from './reviewLoop';
+import { hotWaterSupply } from './hotWaterSupply';
 import type { Actor, ServiceContext } from './context';
 import { ATTESTATION_STATEMENTS, type Attestation, type AttestationRecord } from '../../src/shared/api/systems';
 import type { CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
@@ -192,12 +193,13 @@ export const systemsService = {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const revision = await revisionsRepo.find(ctx.db, systemId, revisionId);
     if (!revision) throw notFound('The revision');
-    return toRevision(revision);
+    return toRevision({ ...revision, ...(await hotWaterSupply.refreshRow(ctx.db, projectId, revision)) });
   },
 
   /** Saves a draft; the server recomputes the analysis with the same engine the client runs. */
-  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, document: SystemDocument, version: number): Promise<Revision> {
+  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, typed: SystemDocument, version: number): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    const document = await hotWaterSupply.resolve(ctx.db, projectId, typed);
     const analysis = analyse(document);
     return ctx.db.transaction(async (trx) => {
       const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
@@ -207,6 +209,7 @@ export const systemsService = {
       const saved = await revisionsRepo.saveDraft(trx, revisionId, version, document, analysis, ENGINE_VERSION);
       if (!saved) throw staleVersion();
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.saved', subjectType: 'revision', subjectId: revisionId, details: { number: saved.number, version: saved.version } });
+      await hotWaterSupply.refreshDependents(trx, projectId, systemId);
       return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
     });
   },
@@ -232,10 +235,11 @@ export const systemsService = {
   ): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const revision = await ctx.db.transaction(async (trx) => {
-      const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
-      if (!current) throw notFound('The revision');
-      if (current.status !== 'draft') throw locked(current);
-      if (current.version !== version) throw staleVersion();
+      const found = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
+      if (!found) throw notFound('The revision');
+      if (found.status !== 'draft') throw locked(found);
+      if (found.version !== version) throw staleVersion();
+      const current = await hotWaterSupply.refreshRow(trx, projectId, found);
       const analysis = analyse(current.document);
       const gate = issueGate(current.number, analysis, acknowledgeFailure);
       const issued = await revisionsRepo.issue(trx, revisionId, version, actor.id, {
@@ -273,6 +277,7 @@ export const systemsService = {
           details: { number: issued.number, statement: gate.acknowledgement, failures: gate.failures },
         });
       }
+      await hotWaterSupply.refreshDependents(trx, projectId, systemId);
       await summariesService.recordIssue(trx, projectId, systemId, revisionId);
       return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
     });

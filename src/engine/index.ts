@@ -71,5 +71,9 @@ export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult 
 export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';
 export { thermalExpansionTank } from './hotWater/expansionTank';
 export { closedSystemCheck } from './hotWater/closedSystem';
+export { applyFedFrom, resolveFedFrom, fedFromBasis } from './hotWater/fedFrom';
+export { sizeDocumentExpansionTank } from './hotWater/expansionTankCheck';
+export type { ExpansionTankSizing } from './hotWater/expansionTankCheck';
+export type { ColdSupplyView } from './hotWater/fedFrom';
 export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';
 export { HotWaterInputError } from './hotWater/errors';

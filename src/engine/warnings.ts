@@ -55,6 +55,16 @@ export const WARNING_CODES = {
     severity: 'caution',
     message: 'This fitting type has no data for the chosen loss method; another method was used for it.',
   },
+  'pex-metal-fittings': {
+    severity: 'caution',
+    message:
+      'This PEX segment still carries fitting types made for metal pipe; their losses are from metal-pipe tables. Choose the PEX fitting types actually installed.',
+  },
+  'expansion-tank-missing': {
+    severity: 'caution',
+    message:
+      'A check valve, backflow preventer or PRV closes this hot system and it has no thermal expansion tank: heating raises the pressure toward the relief setting. Size one (result step); the adopted code and the AHJ govern.',
+  },
   'critical-not-expected': {
     severity: 'note',
     message: 'The critical fixture (smallest margin) is not the one marked as expected.',

@@ -12,6 +12,8 @@ import { buildTopology } from './topology';
 import { resolveElevations } from './elevations';
 import { runStaticChecks } from './staticChecks';
 import { labelWarnings } from './names';
+import { pexMetalFittingWarnings } from './pexFittings';
+import { expansionTankWarnings } from '../hotWater/expansionTankCheck';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -37,6 +39,8 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   const warnings: EngineWarning[] = [];
   // One note for the fittings and one for the fixture groups that use the project's own data.
   warnings.push(...projectDataNotes(model.projectData));
+  pexMetalFittingWarnings(model, warnings);
+  expansionTankWarnings(model.doc, warnings);
   const demand = computeDemand(model, topo, warnings);
   const hyd = computeHydraulics(model, topo, demand, elev, warnings);
   const checks = runChecks(model, hyd, warnings);

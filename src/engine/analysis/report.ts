@@ -79,7 +79,10 @@ const MAX_REASONS_PER_CODE = 50;
  *   part-unreachable         — other nodes or segments are not connected to the source;
  *   source-elevation-missing — the source node has neither an elevation nor a floor;
  *   node-elevation-missing   — a node has no elevation, no floor and no rise on its feed segment;
- *   segment-pipe-missing     — a segment has neither material and size nor custom pipe data.
+ *   segment-pipe-missing     — a segment has neither material and size nor custom pipe data;
+ *   cold-system-missing, cold-system-not-cold, cold-node-missing, cold-analysis-missing,
+ *   not-yet-resolved         — a hot system fed from a cold one whose supply could not be read
+ *                              from it (hotWater/fedFrom.ts says why).
  * Values the engine had to assume (each also a reason, so the verdict is never green on them):
  *   - a node without a position is computed at its upstream node's elevation (a level run);
  *   - a source without a position is computed at elevation 0;
@@ -122,6 +125,16 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
       elementId: src.nodeId,
       elementLabel: 'the source',
       message: 'Where the supply pressure comes from (utility letter, flow test, gauge reading) is not stated.',
+    });
+  }
+  const fedFrom = src.fedFrom;
+  if (fedFrom && fedFrom.resolution?.status !== 'resolved') {
+    add({
+      code: fedFrom.resolution?.code ?? 'not-yet-resolved',
+      elementType: 'source',
+      elementId: src.nodeId,
+      elementLabel: 'the hot-water supply',
+      message: fedFrom.resolution?.message ?? 'The cold system feeding this hot system has not been read yet: its pressure at the heater feed is unknown.',
     });
   }
   if (elev.sourceMissing) {

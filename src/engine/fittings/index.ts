@@ -17,3 +17,6 @@ export { fittingK } from './fittingK';
 export type { FittingMethod, FittingContext, FittingKResult } from './fittingK';
 export { FITTING_METHODS } from './methods';
 export type { FittingMethodInfo } from './methods';
+export { PEX_FITTING_LINES } from './types';
+export { PEX_LINES, pexFittingFor, isMetalPipeFitting } from './pexSubstitute';
+export type { PexFittingLine } from './pexSubstitute';

@@ -1,9 +1,9 @@
 /**
  * The registry of fitting types. Each entry carries the data of every method that publishes it,
- * and names the source of each datum in `sources`. Press-connect and push-fit fittings are not in
- * any published table available here, so they are not listed (no K is invented for them).
- * PEX insert fittings are listed from a manufacturer's published equivalent lengths (sizes 1/2–1 in
- * only); PEX cold-expansion (F1960-type) rows were not retrieved from any source, so none is listed.
+ * and names the source of each datum in `sources`. Copper press-connect and push-fit fittings are
+ * not in any published table available here, so they are not listed (no K is invented for them).
+ * PEX insert and PEX press fittings are listed from a manufacturer's published equivalent lengths;
+ * PEX cold-expansion rows were not retrieved from any source, so none is listed.
  */
 import { ENTRANCE_REENTRANT_K, ENTRANCE_SHARP_K, EXIT_K } from './expansion';
 import { IPC_E103_3_5, IPC_E103_3_5_SOURCE, type EquivalentLengthRow } from './equivalentLength';
@@ -27,6 +27,12 @@ export interface FittingTypeEntry {
   /** One line per datum: which method, which table, which edition. A line that could not be checked
    * against the printed table says so (NOT_VERIFIED). */
   sources: string[];
+  /**
+   * The kind of pipe the fitting is made for, where it matters for a substitution: 'metal' for the
+   * threaded or soldered elbows, tees and couplings whose data are metal-pipe tables; 'pex' for the
+   * PEX lines. Valves, entrances and exits have none (they fit any pipe).
+   */
+  pipeFamily?: 'metal' | 'pex';
   /** false when any source line is not verified (see which in `sources`; fittingK reports it per method). */
   verified: boolean;
 }
@@ -39,45 +45,86 @@ const HOOPER = 'W. B. Hooper, Chemical Engineering 88(17), 96–100 (24 Aug 1981
 const DARBY = 'R. Darby, Chemical Engineering 106(7) (1999) and Chemical Engineering Fluid Mechanics, 2nd ed. (2001), three-K table';
 
 /**
- * PEX insert fittings (an insert with a crimp ring), manufacturer data: Viega PEX Installation
- * Manual (IM-PF 724596 0416), §10.2, equivalent feet of SDR 9 PEX tubing, "PEX Crimp" brass and
- * PolyAlloy lines. The table's smallest-size row has lost its size label in the copy read, so it is
- * left out; the manual does not name the ASTM fitting standard (F1807 brass / F2159 plastic inserts
- * are the usual ones, from memory). Used as "this many feet of the segment's pipe".
+ * PEX fittings, manufacturer data: Viega PEX Installation Manual (IM-PF 724596 0416), §10.2,
+ * equivalent feet of SDR 9 PEX tubing — the "PEX Crimp" brass and PolyAlloy lines (an insert with a
+ * crimp ring) and the "PEX Press" bronze and polymer lines. The insert lines' smallest-size row has
+ * lost its size label in the copy read, so it is left out (and the polymer line's tee columns are
+ * N/A there anyway). The manual does not name the ASTM fitting standard of each line, so none is
+ * claimed here. Used as "this many feet of the segment's pipe", under every fitting method.
+ * Cold-expansion rows were not retrieved from any source and copper press-connect losses were not
+ * found anywhere, so neither is listed: no value is invented for them.
  */
 const VIEGA_PEX = 'Viega PEX Installation Manual (IM-PF 724596 0416) §10.2, equivalent feet of SDR 9 PEX tubing — manufacturer data, one maker\'s fittings';
-const PEX_INSERT_ROWS = {
-  brass: {
-    label: 'brass',
+
+interface PexLine {
+  /** The fitting line, in Headroom's words. */
+  label: string;
+  /** The line as the manufacturer's table names it (for the source line). */
+  line: string;
+  sizes: string;
+  elbow: Record<string, number>;
+  teeRun: Record<string, number>;
+  teeBranch: Record<string, number>;
+  coupling: Record<string, number>;
+}
+
+/** Keyed by the id stem: `pex-<stem>-<kind>`. Values: the manual's §10.2 table, ft. */
+export const PEX_FITTING_LINES: Readonly<Record<string, PexLine>> = {
+  'insert-brass': {
+    label: 'PEX insert fitting (brass, crimp ring)',
     line: 'PEX Crimp, brass',
+    sizes: '1/2–1 in',
+    coupling: { '1/2': 2.0, '3/4': 0.6, '1': 1.3 },
     elbow: { '1/2': 9.4, '3/4': 9.4, '1': 10.0 },
     teeRun: { '1/2': 2.2, '3/4': 1.9, '1': 2.3 },
     teeBranch: { '1/2': 10.4, '3/4': 8.9, '1': 11.0 },
   },
-  polymer: {
-    label: 'polymer',
+  'insert-polymer': {
+    label: 'PEX insert fitting (polymer, crimp ring)',
     line: 'PEX Crimp, PolyAlloy',
+    sizes: '1/2–1 in',
+    coupling: { '1/2': 7.1, '3/4': 4.8, '1': 4.5 },
     elbow: { '1/2': 16.5, '3/4': 17.4, '1': 18.0 },
     teeRun: { '1/2': 7.2, '3/4': 6.6, '1': 6.0 },
     teeBranch: { '1/2': 17.9, '3/4': 17.7, '1': 17.0 },
   },
-} as const;
+  'press-bronze': {
+    label: 'PEX press fitting (bronze)',
+    line: 'PEX Press, bronze',
+    sizes: '1/2–2 in',
+    coupling: { '1/2': 2.0, '3/4': 1.0, '1': 1.0, '1-1/4': 2.0, '1-1/2': 2.0, '2': 1.0 },
+    elbow: { '1/2': 9.4, '3/4': 8.0, '1': 10.0, '1-1/4': 11.0, '1-1/2': 13.0, '2': 19.0 },
+    teeRun: { '1/2': 2.2, '3/4': 1.0, '1': 2.0, '1-1/4': 2.0, '1-1/2': 2.0, '2': 2.0 },
+    teeBranch: { '1/2': 10.4, '3/4': 9.0, '1': 10.0, '1-1/4': 11.0, '1-1/2': 12.0, '2': 18.0 },
+  },
+  'press-polymer': {
+    label: 'PEX press fitting (polymer)',
+    line: 'PEX Press, polymer',
+    sizes: '1/2–2 in',
+    coupling: { '1/2': 2.6, '3/4': 2.5, '1': 3.1, '1-1/4': 4.0, '1-1/2': 5.2, '2': 8.9 },
+    elbow: { '1/2': 12.6, '3/4': 18.9, '1': 17.7, '1-1/4': 18.6, '1-1/2': 29.4, '2': 36.4 },
+    teeRun: { '1/2': 3.9, '3/4': 3.6, '1': 3.8, '1-1/4': 6.4, '1-1/2': 7.9, '2': 10.2 },
+    teeBranch: { '1/2': 14.0, '3/4': 19.1, '1': 18.4, '1-1/4': 18.7, '1-1/2': 28.3, '2': 37.5 },
+  },
+};
 
-function pexInsertEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> {
+function pexEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> {
   const out: Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> = {};
-  for (const [key, row] of Object.entries(PEX_INSERT_ROWS)) {
+  for (const [stem, row] of Object.entries(PEX_FITTING_LINES)) {
     const kinds = [
       ['elbow-90', 'elbow, 90°', row.elbow, 'elbow'],
       ['tee-run', 'tee, flow through run', row.teeRun, 'tee run'],
       ['tee-branch', 'tee, flow through branch', row.teeBranch, 'tee branch'],
+      ['coupling', 'coupling', row.coupling, 'coupling'],
     ] as const;
     for (const [suffix, what, lengths, column] of kinds) {
-      const id = `pex-insert-${key}-${suffix}`;
+      const id = `pex-${stem}-${suffix}`;
       out[id] = {
         id,
-        label: `PEX insert fitting (${row.label}), ${what}`,
+        label: `${row.label}, ${what}`,
         equivalentLengthFt: Object.freeze({ ...lengths }),
-        sources: [`equivalent-length: ${row.line}, ${column} column, 1/2–1 in, ${VIEGA_PEX}`],
+        pipeFamily: 'pex',
+        sources: [`equivalent-length: ${row.line}, ${column} column, ${row.sizes}, ${VIEGA_PEX}`],
       };
     }
   }
@@ -87,6 +134,7 @@ function pexInsertEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verif
 const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   'elbow-90-standard': {
     id: 'elbow-90-standard',
+    pipeFamily: 'metal',
     label: 'Elbow, 90°, standard',
     craneN: 30,
     hooper: { K1: 800, Kinf: 0.4 },
@@ -101,6 +149,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   },
   'elbow-90-long-radius': {
     id: 'elbow-90-long-radius',
+    pipeFamily: 'metal',
     label: 'Elbow, 90°, long radius',
     craneN: 20,
     hooper: { K1: 800, Kinf: 0.2 },
@@ -113,6 +162,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   },
   'elbow-45-standard': {
     id: 'elbow-45-standard',
+    pipeFamily: 'metal',
     label: 'Elbow, 45°, standard',
     craneN: 16,
     hooper: { K1: 500, Kinf: 0.2 },
@@ -127,6 +177,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   },
   'tee-run': {
     id: 'tee-run',
+    pipeFamily: 'metal',
     label: 'Tee, flow through run',
     craneN: 20,
     hooper: { K1: 200, Kinf: 0.1 },
@@ -141,6 +192,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   },
   'tee-branch': {
     id: 'tee-branch',
+    pipeFamily: 'metal',
     label: 'Tee, flow through branch',
     craneN: 60,
     hooper: { K1: 500, Kinf: 0.7 },
@@ -257,6 +309,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
   },
   coupling: {
     id: 'coupling',
+    pipeFamily: 'metal',
     label: 'Coupling',
     fixedK: 0.04,
     equivalentLengthFt: IPC_E103_3_5.couplingOrTeeRun,
@@ -277,7 +330,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
     fixedK: ENTRANCE_REENTRANT_K,
     sources: ['fixed K = 0.78: inward-projecting entrance, Crane Technical Paper No. 410 (2009)'],
   },
-  ...pexInsertEntries(),
+  ...pexEntries(),
   exit: {
     id: 'exit',
     label: 'Exit into a vessel',

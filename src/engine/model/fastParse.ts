@@ -165,6 +165,40 @@ function flowTest(v: unknown): NonNullable<Source['flowTest']> {
   return out as NonNullable<Source['flowTest']>;
 }
 
+function fedFromResolution(v: unknown): NonNullable<NonNullable<Source['fedFrom']>['resolution']> {
+  const o = obj(v);
+  if (o.status === 'resolved') {
+    const r = o.revisionNumber;
+    if (!Number.isSafeInteger(r) || !((r as number) > 0)) decline();
+    const out: Obj = {
+      status: 'resolved',
+      systemName: label(o.systemName),
+      nodeLabel: label(o.nodeLabel),
+      revisionNumber: r,
+      revisionStatus: oneOf(o.revisionStatus, 'draft', 'issued'),
+      residualPressure: nonNegative(o.residualPressure),
+      staticPressureHigh: nonNegative(o.staticPressureHigh),
+    };
+    strictKeys(o, 7);
+    return out as NonNullable<NonNullable<Source['fedFrom']>['resolution']>;
+  }
+  if (o.status !== 'unresolved') decline();
+  const out: Obj = {
+    status: 'unresolved',
+    code: oneOf(o.code, 'cold-system-missing', 'cold-system-not-cold', 'cold-node-missing', 'cold-analysis-missing', 'not-yet-resolved'),
+    message: sourceText(o.message),
+  };
+  strictKeys(o, 3);
+  return out as NonNullable<NonNullable<Source['fedFrom']>['resolution']>;
+}
+
+function fedFrom(v: unknown): NonNullable<Source['fedFrom']> {
+  const o = obj(v);
+  const out: Obj = { systemId: id(o.systemId), nodeId: id(o.nodeId) };
+  strictKeys(o, 2 + optional(o, out, 'resolution', fedFromResolution));
+  return out as NonNullable<Source['fedFrom']>;
+}
+
 function source(v: unknown): Source {
   const o = obj(v);
   const out: Obj = {
@@ -177,6 +211,7 @@ function source(v: unknown): Source {
   let known = 5;
   known += optional(o, out, 'pressureDate', date);
   known += optional(o, out, 'flowTest', flowTest);
+  known += optional(o, out, 'fedFrom', fedFrom);
   strictKeys(o, known);
   return out as Source;
 }
@@ -425,6 +460,19 @@ function criteria(v: unknown): CriteriaOverrides {
   return out as CriteriaOverrides;
 }
 
+function expansionTank(v: unknown): NonNullable<SystemDocument['expansionTank']> {
+  const o = obj(v);
+  const out: Obj = {
+    heaterVolume: nonNegative(o.heaterVolume),
+    coldTemperature: num(o.coldTemperature),
+    hotTemperature: num(o.hotTemperature),
+    supplyPressure: nonNegative(o.supplyPressure),
+    reliefPressure: positive(o.reliefPressure),
+  };
+  strictKeys(o, 5);
+  return out as NonNullable<SystemDocument['expansionTank']>;
+}
+
 function systemDocument(v: unknown): SystemDocument {
   const o = obj(v);
   if (o.schemaVersion !== SCHEMA_VERSION) decline();
@@ -450,6 +498,7 @@ function systemDocument(v: unknown): SystemDocument {
   out.segments = list(o.segments, segment, B.segments);
   known += 2;
   known += optional(o, out, 'criteria', criteria);
+  known += optional(o, out, 'expansionTank', expansionTank);
   known += optional(o, out, 'notes', notes);
   strictKeys(o, known);
   return out as SystemDocument;

@@ -43,7 +43,9 @@ export type LimitQuantity =
   | 'fittingCount'
   | 'fixtureUnits'
   | 'useDuration'
-  | 'useInterval';
+  | 'useInterval'
+  | 'heaterVolume'
+  | 'revisionNumber';
 
 export interface Bounds {
   min: number;
@@ -246,6 +248,26 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     SI: { min: 0, max: 200 },
     why: 'Fitting and valve K values in published tables are below about 10 for open valves and fittings and reach tens for throttling valves; 200 bounds any single fitting.',
   },
+  heaterVolume: {
+    noun: 'volume of water heated (gal in US units, L in SI)',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: false,
+    US: { min: 0, max: 20000 },
+    SI: { min: 0, max: 20000 },
+    why: "The storage of a building's water heaters: a dwelling's heater holds 30–100 gal (common practice); a large building's plant a few thousand. 20,000 (gal or L) covers any domestic plant; the engine sizes the tank from it and refuses zero by name.",
+  },
+  revisionNumber: {
+    noun: 'revision number',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: true,
+    US: { min: 1, max: 100000 },
+    SI: { min: 1, max: 100000 },
+    why: 'The cold system revision a fed hot system read, written by Headroom: numbered from 1; 100,000 revisions of one system is beyond any project.',
+  },
   fixtureCount: {
     noun: 'fixture count',
     unitQuantity: null,
@@ -361,6 +383,10 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'source.flowTest.staticPressure': 'staticPressure',
   'source.flowTest.residualPressure': 'staticPressure',
   'source.flowTest.flow': 'flow',
+  // Written by Headroom from the cold system (hotWater/fedFrom.ts), in this document's units.
+  'source.fedFrom.resolution.revisionNumber': 'revisionNumber',
+  'source.fedFrom.resolution.residualPressure': 'staticPressure',
+  'source.fedFrom.resolution.staticPressureHigh': 'staticPressure',
   'devices[].loss.loss': 'pressureLoss',
   'devices[].loss.points[].flow': 'flow',
   'devices[].loss.points[].loss': 'pressureLoss',
@@ -397,6 +423,11 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'criteria.minStaticPressure': 'staticPressure',
   'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
   'criteria.minFlowPressures.*': 'minFlowPressure',
+  'expansionTank.heaterVolume': 'heaterVolume',
+  'expansionTank.coldTemperature': 'waterTemperature',
+  'expansionTank.hotTemperature': 'waterTemperature',
+  'expansionTank.supplyPressure': 'staticPressure',
+  'expansionTank.reliefPressure': 'pressureSetting',
   // Typical units and their placements (checked by the engine after expansion into nodes and segments).
   'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
   'unitTypes[].nodes[].fixtureGroups[].count': 'fixtureCount',

@@ -89,6 +89,39 @@ export const FlowTestSchema = z
   })
   .describe('Hydrant flow test (NFPA 291) at the connection.');
 
+/**
+ * Where a hot-water system's supply comes from: the node of a cold-water system (same project) that
+ * feeds its water heater. `resolution` is written by Headroom (src/engine/hotWater/fedFrom.ts, on
+ * the server at every save, issue and read, and whenever the cold system changes; in the walk from
+ * the cold system's current analysis), never typed: with it, the source's static pressures and basis
+ * are the cold system's figures at that node. Unresolved (the cold system or its node missing, or
+ * its analysis not computable) makes the verdict Incomplete with the reason.
+ */
+export const FED_FROM_UNRESOLVED_CODES = ['cold-system-missing', 'cold-system-not-cold', 'cold-node-missing', 'cold-analysis-missing', 'not-yet-resolved'] as const;
+export const FedFromSchema = z.strictObject({
+  systemId: id().describe('The cold-water system whose analysis feeds this hot system.'),
+  nodeId: id().describe("The cold system's node that feeds the water heater."),
+  resolution: z
+    .discriminatedUnion('status', [
+      z.strictObject({
+        status: z.literal('resolved'),
+        systemName: label().describe('The cold system, as named when resolved.'),
+        nodeLabel: label().describe('The node, as labelled when resolved.'),
+        revisionNumber: z.number().int().positive().describe("The cold system's revision whose analysis was read."),
+        revisionStatus: z.enum(['draft', 'issued']),
+        residualPressure: nonNegative().describe('Residual pressure at the node at design flow, pressure unit (of this document).'),
+        staticPressureHigh: nonNegative().describe('High static pressure at the node, pressure unit (of this document).'),
+      }),
+      z.strictObject({
+        status: z.literal('unresolved'),
+        code: z.enum(FED_FROM_UNRESOLVED_CODES),
+        message: sourceText(),
+      }),
+    ])
+    .optional()
+    .describe('Written by Headroom from the cold system, never typed.'),
+});
+
 export const SourceSchema = z.strictObject({
   kind: z.enum(['utility-main', 'tank', 'booster-outlet']),
   nodeId: id().describe('The node where the water enters; its elevation (absolute or on a floor) is the connection elevation.'),
@@ -97,6 +130,7 @@ export const SourceSchema = z.strictObject({
   pressureBasis: sourceText().describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
   pressureDate: date().optional().describe('Date of the pressure figures (ISO 8601).'),
   flowTest: FlowTestSchema.optional(),
+  fedFrom: FedFromSchema.optional().describe('Hot water only: the cold system and node feeding the heater; the static pressures then follow it.'),
 });
 
 export const DeviceLossSchema = z.discriminatedUnion('kind', [
@@ -393,6 +427,20 @@ export const PlacementSchema = z.strictObject({
     .optional(),
 });
 
+/**
+ * The thermal expansion tank of a hot-water system (sized by hotWater/expansionTank.ts): the volume
+ * of water heated (the heaters' storage), the cold (incoming) and hot (stored) temperatures, the
+ * supply pressure at the tank (its precharge) and the pressure it is sized for (the relief setting,
+ * or somewhat below it). Its presence says the system has a tank.
+ */
+export const ExpansionTankSchema = z.strictObject({
+  heaterVolume: nonNegative().describe('Volume of water heated, gal (US) or L (SI); must be above zero to size the tank.'),
+  coldTemperature: finite().describe('Temperature of the incoming cold water, °F or °C.'),
+  hotTemperature: finite().describe('Stored hot-water temperature, °F or °C.'),
+  supplyPressure: nonNegative().describe('Supply pressure at the tank (its precharge), pressure unit.'),
+  reliefPressure: positive().describe('Pressure the tank is sized for: the relief setting or somewhat below it, pressure unit.'),
+});
+
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
@@ -408,6 +456,7 @@ export const SystemDocumentSchema = z.strictObject({
   unitTypes: z.array(UnitTypeSchema).max(B.unitTypes).optional().describe('Typical units, defined once.'),
   placements: z.array(PlacementSchema).max(B.placements).optional().describe('Occurrences of the unit types on floors.'),
   criteria: CriteriaOverridesSchema.optional(),
+  expansionTank: ExpansionTankSchema.optional().describe('Hot water: the thermal expansion tank and its sizing inputs.'),
   notes: z.string().max(B.notesLength).optional(),
 });
 
@@ -415,6 +464,8 @@ export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
 /** What may be written in a file (defaults not yet applied). */
 export type SystemDocumentInput = z.input<typeof SystemDocumentSchema>;
 export type Source = z.infer<typeof SourceSchema>;
+export type FedFrom = z.infer<typeof FedFromSchema>;
+export type ExpansionTank = z.infer<typeof ExpansionTankSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
 export type Boost = z.infer<typeof BoostSchema>;
 export type Floor = z.infer<typeof FloorSchema>;

@@ -13,8 +13,11 @@ describe('FITTING_TYPES registry', () => {
   it('has every type the engine needs', () => {
     for (const id of REQUIRED) expect(FITTING_TYPES[id], id).toBeDefined();
   });
-  it('lists no press-connect or push-fit fitting (no published K available)', () => {
-    for (const id of Object.keys(FITTING_TYPES)) expect(id).not.toMatch(/press|push/);
+  it('lists no copper press-connect or push-fit fitting (no published K available); PEX press only from its maker\'s table', () => {
+    for (const id of Object.keys(FITTING_TYPES)) {
+      expect(id).not.toMatch(/push/);
+      if (/press/.test(id)) expect(id).toMatch(/^pex-press-(bronze|polymer)-/);
+    }
   });
   for (const [id, entry] of Object.entries(FITTING_TYPES)) {
     it(`${id}: each datum names its source`, () => {

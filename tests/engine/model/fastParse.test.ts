@@ -40,6 +40,23 @@ const text = fc.string({ maxLength: 8 });
 const label = fc.string({ minLength: 1, maxLength: 8 });
 
 const flowTest = rec({ staticPressure: positive, residualPressure: nonNegative, flow: positive, date: opt(text) });
+const fedFromResolution = fc.oneof(
+  rec({
+    status: fc.constant('resolved'),
+    systemName: text,
+    nodeLabel: text,
+    revisionNumber: count,
+    revisionStatus: fc.constantFrom('draft', 'issued'),
+    residualPressure: nonNegative,
+    staticPressureHigh: nonNegative,
+  }),
+  rec({
+    status: fc.constant('unresolved'),
+    code: fc.constantFrom('cold-system-missing', 'cold-system-not-cold', 'cold-node-missing', 'cold-analysis-missing', 'not-yet-resolved'),
+    message: label,
+  }),
+);
+const fedFrom = rec({ systemId: id, nodeId: id, resolution: opt(fedFromResolution) });
 const source = rec({
   kind: fc.constantFrom('utility-main', 'tank', 'booster-outlet'),
   nodeId: id,
@@ -48,6 +65,7 @@ const source = rec({
   pressureBasis: label,
   pressureDate: opt(text),
   flowTest: opt(flowTest),
+  fedFrom: opt(fedFrom),
 });
 const deviceLoss = fc.oneof(
   rec({ kind: fc.constant('fixed'), loss: nonNegative }),
@@ -137,6 +155,7 @@ const validDocument = rec({
   nodes: fc.array(node, { minLength: 1, maxLength: 3 }),
   segments: fc.array(segment, { maxLength: 3 }),
   criteria: opt(criteria),
+  expansionTank: opt(rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive })),
   notes: opt(text),
 });
 
@@ -284,6 +303,31 @@ describe('fast reader ≡ zod schema', () => {
       withGroup({ label: 'Bad valve', wsfuTotal: 1, flushValve: 'yes', source: 's' }),
       withGroup({ label: 'Negative', wsfuTotal: 1, wsfuCold: -0.5, source: 's' }),
       withGroup({ label: 'Extra', wsfuTotal: 1, source: 's', minFlowPressure: 8 }),
+    ];
+    for (const doc of valid) expect(expectSameAsZod(doc)).toBe('accepted');
+    for (const doc of invalid) expect(expectSameAsZod(doc)).toBe('rejected');
+  });
+
+  it('a hot system fed from a cold one: valid and invalid resolutions get the same verdict and value', () => {
+    const withFedFrom = (fedFrom: unknown) => ({ ...oneSegment(), service: 'hot', source: { ...oneSegment().source, fedFrom } });
+    const resolved = { status: 'resolved', systemName: 'Cold', nodeLabel: 'Heater feed', revisionNumber: 2, revisionStatus: 'draft', residualPressure: 420, staticPressureHigh: 480 };
+    const valid = [
+      withFedFrom({ systemId: 'cold', nodeId: 'heater-feed' }),
+      withFedFrom({ systemId: 'cold', nodeId: 'heater-feed', resolution: resolved }),
+      withFedFrom({ systemId: 'cold', nodeId: 'heater-feed', resolution: { status: 'unresolved', code: 'cold-node-missing', message: 'gone' } }),
+    ];
+    const invalid = [
+      withFedFrom({ systemId: 'cold' }),
+      withFedFrom({ systemId: '', nodeId: 'n' }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', extra: 1 }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { ...resolved, revisionNumber: 0 } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { ...resolved, revisionNumber: 1.5 } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { ...resolved, revisionStatus: 'superseded' } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { ...resolved, residualPressure: -1 } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { ...resolved, code: 'x' } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { status: 'unresolved', code: 'other', message: 'm' } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { status: 'unresolved', code: 'cold-node-missing', message: '' } }),
+      withFedFrom({ systemId: 'cold', nodeId: 'n', resolution: { status: 'maybe' } }),
     ];
     for (const doc of valid) expect(expectSameAsZod(doc)).toBe('accepted');
     for (const doc of invalid) expect(expectSameAsZod(doc)).toBe('rejected');

@@ -10,4 +10,6 @@ export const systemKeys = {
   comparisons: () => [...systemKeys.all, 'compare'] as const,
   compare: (projectId: string, systemId: string, a: string, b: string) => [...systemKeys.comparisons(), projectId, systemId, a, b] as const,
   catalog: () => [...systemKeys.all, 'catalog'] as const,
+  /** what a hot system fed from a cold one reads of it (get-cold-supply.ts) */
+  coldSupply: (projectId: string, systemId: string) => [...systemKeys.all, 'cold-supply', projectId, systemId] as const,
 };

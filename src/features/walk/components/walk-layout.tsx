@@ -17,6 +17,7 @@ import { useRevision } from '../../systems/api/get-revision';
 import { useSystem } from '../../systems/api/get-system';
 import { analyseDraft } from '../draft/live-analysis';
 import { useDraft } from '../draft/use-draft';
+import { useFedFromSync } from '../draft/use-fed-from';
 import { useRevisionStore } from '../draft/revision-store';
 import { useSaveBeforeLeaving } from '../draft/use-save-before-leaving';
 import type { Leaving } from '../draft/use-save-before-leaving';
@@ -80,6 +81,7 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
   const readOnlyReason = readOnlyReasonFor(project, revision);
   const store = useRevisionStore(ids);
   const draft = useDraft(store, revision, readOnlyReason === null);
+  useFedFromSync(ids.projectId, draft, readOnlyReason === null);
   const links = useMemo((): WalkLinks => revisionLinks(ids), [ids]);
   const { step } = useParams();
   // The engine's share of an edit is 1–2 ms on a 500-segment system (npm run bench), so the

@@ -8,7 +8,7 @@ import { SelectField } from '../../../components/ui/field';
 import { toSI } from '../../../engine';
 import type { Analysis, CustomFitting, SegmentResult, SystemDocument } from '../../../engine';
 import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/schema';
-import { fittingK } from '../../../engine/fittings';
+import { fittingK, isMetalPipeFitting, pexFittingFor, PEX_LINES, type PexFittingLine } from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
 import { TreeEditor } from '../../tree-editor/components/tree-editor';
@@ -100,8 +100,12 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
   const name = segment?.label || id;
   const display = analysis?.segments.find((s) => s.id === id);
   const si = analysis?.si.segments.find((s) => s.id === id);
-  const options = catalog.fittingTypes.map((f) => ({ value: f.id, label: f.label }));
+  const isPex = segment?.material === 'pex-sdr9';
+  // On a PEX segment the PEX fitting types come first; elsewhere they stay after the metal ones.
+  const types = isPex ? [...catalog.fittingTypes.filter((f) => f.id.startsWith('pex-')), ...catalog.fittingTypes.filter((f) => !f.id.startsWith('pex-'))] : catalog.fittingTypes;
+  const options = types.map((f) => ({ value: f.id, label: f.label }));
   const projectOptions = projectOptionsOf(projectFittings);
+  const metalRows = isPex ? (rows ?? []).flatMap((r, k) => (r && !r.custom && isMetalPipeFitting(r.typeId) ? [k] : [])) : [];
   return (
     <Section title={name} headingLevel={3}>
       <div data-testid={`fittings-${id}`}><SegmentFlags {...flags} className="mb-2" /></div>
@@ -147,6 +151,18 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
           })}
         </tbody>
       </table>
+      {metalRows.length > 0 ? (
+        <PexSubstitute
+          name={name}
+          onApply={(line) => {
+            for (const k of metalRows) {
+              const next = pexFittingFor(rows![k].typeId, line);
+              if (next) setValue(`segments.${index}.fittings.${k}.typeId`, next, { shouldDirty: true });
+            }
+          }}
+          testId={`pex-substitute-${id}`}
+        />
+      ) : null}
       <p className="mt-2 text-sm" data-testid={`fitting-loss-${id}`}>
         {display ? (
           <>
@@ -185,6 +201,26 @@ function ActiveFittings({ segmentId, fittings, analysis, projectFittings, flags,
   });
   const { register, control, watch, setValue } = form;
   return <SegmentFittings index={0} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} flags={flags} />;
+}
+
+/**
+ * A PEX segment still carrying metal-pipe fittings (after a change from copper to PEX): offers the
+ * PEX fitting lines and replaces each elbow, tee and coupling by the chosen line's (pexSubstitute.ts).
+ */
+function PexSubstitute({ name, onApply, testId }: { name: string; onApply: (line: PexFittingLine) => void; testId: string }) {
+  const [line, setLine] = useState<PexFittingLine>(PEX_LINES[0].id);
+  return (
+    <div className="mt-2 rounded border border-caution p-2 text-sm" data-testid={testId}>
+      <p>
+        <span aria-hidden="true">⚠ </span>
+        {name} is PEX but still carries fittings made for metal pipe. Choose the PEX fittings installed:
+      </p>
+      <div className="mt-1 flex flex-wrap items-end gap-2">
+        <CellSelect className="w-72" label={`${name}: PEX fitting line`} value={line} onChange={(e) => setLine(e.target.value as PexFittingLine)} options={PEX_LINES.map((l) => ({ value: l.id, label: l.label }))} />
+        <Button variant="secondary" onClick={() => onApply(line)}>Use these PEX fittings on {name}</Button>
+      </div>
+    </div>
+  );
 }
 
 export function FittingsStep() {

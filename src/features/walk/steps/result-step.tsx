@@ -27,6 +27,7 @@ import { CAUTIONS } from '../cautions';
 import { fmt, signed } from '../lib/format';
 import { SizingPanel } from '../../sizing/components/sizing-panel';
 import { ZonesTable } from '../components/zones-table';
+import { ExpansionTankSection } from '../components/expansion-tank-section';
 
 const STATEMENT_MIN = 20;
 
@@ -280,6 +281,8 @@ export function ResultStep() {
           <SizingPanel />
         </Section>
       ) : null}
+
+      {document.service === 'hot' ? <ExpansionTankSection /> : null}
 
       <Section title="Export for the report" headingLevel={3}>
         <ResultExports />

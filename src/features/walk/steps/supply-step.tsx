@@ -9,6 +9,7 @@ import { StepIntro } from '../components/cells';
 import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { FedFromSection } from '../components/fed-from-section';
 
 const SOURCE_KINDS = [
   { value: 'utility-main', label: 'Utility main' },
@@ -67,6 +68,16 @@ function formValues(doc: SystemDocument): SupplyForm {
 }
 
 export function applySupply(doc: SystemDocument, v: z.output<typeof supplyFormSchema>): SystemDocument {
+  const fedFrom = doc.source.fedFrom;
+  if (fedFrom) {
+    // Fed from a cold system: the pressures, their basis and date come from it (never typed here).
+    return {
+      ...doc,
+      waterTemperature: v.waterTemperature,
+      source: { ...doc.source, kind: v.kind },
+      nodes: doc.nodes.map((n) => (n.id === doc.source.nodeId ? { ...n, elevation: v.connectionElevation } : n)),
+    };
+  }
   const test = v.hasFlowTest ? FlowTestSchema.extend({ date: optionalDate }).parse(v.flowTest) : undefined;
   const source: SystemDocument['source'] = {
     kind: v.kind,
@@ -93,6 +104,7 @@ export function SupplyStep() {
   const hasFlowTest = form.watch('hasFlowTest');
   const e = (m?: string) => plainError(m);
   const source = live.ok ? live.analysis.source : null;
+  const fed = document.source.fedFrom !== undefined;
 
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Supply">
@@ -102,6 +114,7 @@ export function SupplyStep() {
         the maximum static pressure against the high figure.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
+        {document.service === 'hot' ? <FedFromSection /> : null}
         <Section title="Source" headingLevel={3}>
           <div className="grid gap-4 md:grid-cols-2">
             <SelectField label="Kind of source" options={SOURCE_KINDS} error={e(errors.kind?.message)} {...register('kind')} />
@@ -114,9 +127,17 @@ export function SupplyStep() {
               error={e(errors.connectionElevation?.message)}
               {...register('connectionElevation', numberInput)}
             />
-            <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
-            <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
-            <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
+            {fed ? (
+              <p className="text-sm text-ink-soft md:col-span-2" data-testid="fed-pressures-note">
+                The static pressures and their basis are read from the cold system (above), not typed: low {fmt(document.source.staticPressureLow, 2)} {units.pressure}, high {fmt(document.source.staticPressureHigh, 2)} {units.pressure}.
+              </p>
+            ) : (
+              <>
+              <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
+              <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
+              <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
+              </>
+            )}
             <TextField label="Date of the pressure figures" type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
             <TextField label={`Water temperature (${units.temperature})`} type="text" inputMode="decimal" autoComplete="off" hint="Sets the water’s density and viscosity." error={e(errors.waterTemperature?.message)} {...register('waterTemperature', numberInput)} />
           </div>

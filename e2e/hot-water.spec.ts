@@ -1,0 +1,78 @@
+import fs from 'node:fs';
+import { expect, test } from '@playwright/test';
+import type { Page } from '@playwright/test';
+import { DEMO, signIn } from './helpers';
+import { fresh, newProject } from './api';
+
+// A hot-water system fed from a cold one, through the UI, in a fresh project (invented "Wrenmoor"
+// names and figures): the hot system's supply is read from the cold system at the node feeding its
+// heater, and follows a change to the cold system's supply.
+
+async function shot(page: Page, name: string) {
+  fs.mkdirSync('e2e-output/hot-water', { recursive: true });
+  await page.screenshot({ path: `e2e-output/hot-water/${name}.png`, fullPage: true });
+}
+
+const saved = (page: Page) => expect(page.getByText('All changes saved')).toBeVisible();
+
+async function newSystem(page: Page, projectPath: string, name: string, service: 'cold' | 'hot') {
+  await page.goto(projectPath);
+  await page.getByRole('button', { name: 'New system' }).click();
+  await page.getByLabel('System name').fill(name);
+  await page.getByLabel('Service').selectOption(service);
+  await page.getByRole('button', { name: 'Create system and start the walk' }).click();
+  await expect(page).toHaveURL(/\/revisions\/[^/]+\/supply$/);
+  return page.url();
+}
+
+async function typeLowStatic(page: Page, value: string) {
+  const low = page.getByLabel(/Static pressure, low/);
+  await low.fill(value);
+  await expect(low).toHaveValue(value);
+}
+
+test("when a hot system is fed from a cold one, then its supply is the cold system's pressure at the heater feed and follows a change to the cold supply", async ({ page }) => {
+  const problems: string[] = [];
+  page.on('pageerror', (error) => problems.push(`uncaught: ${error.message}`));
+  const project = await newProject([], 'Wrenmoor Bathhouse');
+  await signIn(page, DEMO.designer);
+  const coldName = `Bathhouse cold ${fresh()}`;
+
+  // The cold system: a connection at 60 psi low, 70 psi high.
+  const coldUrl = await newSystem(page, project.path, coldName, 'cold');
+  await typeLowStatic(page, '60');
+  await page.getByLabel(/Static pressure, high/).fill('70');
+  await page.getByLabel('Where the pressure figures came from').fill('Wrenmoor Water Department letter (invented figure)');
+  await saved(page);
+
+  // The hot system, fed from the cold system's connection.
+  const hotUrl = await newSystem(page, project.path, `Bathhouse hot ${fresh()}`, 'hot');
+  await page.getByLabel('Cold-water system feeding the heater').selectOption({ label: coldName });
+  await page.getByLabel('Node of the cold system that feeds the heater').selectOption({ label: 'Connection to the main' });
+  await expect(page.getByTestId('fed-from-pressure')).toHaveText('60.00 psi');
+  await expect(page.getByTestId('fed-from-supply')).toContainText(`Fed from ${coldName} at Connection to the main`);
+  // The typed pressure fields give way to the cold system's figures: they cannot be typed over.
+  await expect(page.getByLabel(/Static pressure, low/)).toHaveCount(0);
+  await expect(page.getByTestId('fed-pressures-note')).toContainText('low 60.00 psi');
+  await expect(page.getByTestId('source-at-design-flow')).toContainText('60.00 psi');
+  await saved(page);
+  await shot(page, '01-hot-fed-from-cold');
+
+  // The cold supply drops to 52 psi.
+  await page.goto(coldUrl);
+  await typeLowStatic(page, '52');
+  await saved(page);
+
+  // The hot system follows it, on screen and in the live ledger.
+  await page.goto(hotUrl);
+  await expect(page.getByTestId('fed-from-pressure')).toHaveText('52.00 psi');
+  await expect(page.getByTestId('source-at-design-flow')).toContainText('52.00 psi');
+  await shot(page, '02-hot-follows-cold');
+
+  // And the server holds the same: the stored draft's supply is the cold figure.
+  const hotPath = new URL(hotUrl).pathname.replace(/\/supply$/, '');
+  const revision = await project.designer.get<{ revision: { document: { source: { staticPressureLow: number } } } }>(`/api${hotPath}`);
+  // The cold analysis holds Pa (SI inside); psi → Pa → psi returns 52 within rounding (relative 1e-12).
+  expect(Math.abs(revision.revision.document.source.staticPressureLow - 52) / 52).toBeLessThan(1e-12);
+  expect(problems).toEqual([]);
+});

@@ -1,0 +1,46 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { analyzeSystem, applyFedFrom, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
+import { renderSummaryPdf } from '../../server/pdf/summaryPdf';
+import { fedFromText } from '../../server/pdf/summaryContent';
+
+// The summary of a hot system fed from a cold one (no database): the invented "Alder & Finch" demo systems.
+
+const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-hot-'));
+afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
+const example = (name: string): SystemDocument => SystemDocumentSchema.parse(JSON.parse(fs.readFileSync(new URL(`../../src/engine/examples/${name}.json`, import.meta.url), 'utf8')));
+const HEADER = { projectName: 'Alder & Finch', address: '410 Quarry Lane, Wrenmoor', codeBasis: '', systemName: 'Domestic hot water', revisionNumber: 2, issuedAt: '2026-12-02T10:00:00.000Z', preparerName: 'Dana Reyes', preparerEmail: '', inputHash: 'x'.repeat(64), note: null };
+
+function fedHot(): SystemDocument {
+  const cold = example('alder-finch-cold');
+  const hot = example('alder-finch-hot');
+  hot.source.fedFrom = { systemId: 'cold-system', nodeId: 'heater-feed' };
+  return applyFedFrom(hot, { systemId: 'cold-system', name: 'Domestic cold water', service: 'cold', revision: { number: 4, status: 'issued', analysis: { ok: true, analysis: analyzeSystem(cold) } } });
+}
+
+describe("the summary names a hot system's source", () => {
+  it('when the demo hot system is fed from the demo cold system at its heater feed, then the PDF says from which system, node and revision, with the figures read there', async () => {
+    const doc = fedHot();
+    const r = doc.source.fedFrom!.resolution!;
+    if (r.status !== 'resolved') throw new Error(`expected resolved, got ${JSON.stringify(r)}`);
+    const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: analyzeSystem(doc) });
+    const file = path.join(tmp, 'hot.pdf');
+    fs.writeFileSync(file, bytes);
+    const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    expect(text).toContain('Hot water fed from');
+    expect(text).toContain('the cold-water system "Domestic cold water"');
+    expect(text).toContain('revision 4 (issued)');
+    expect(text).toContain(`residual ${r.residualPressure.toFixed(2)} psi`);
+    console.log(fedFromText(doc, 'psi'));
+  });
+
+  it('when a document is not fed from a system, then no line is added; when unresolved, then the line says it was not read', () => {
+    expect(fedFromText(example('alder-finch-hot'), 'psi')).toBeNull();
+    const doc = example('alder-finch-hot');
+    doc.source.fedFrom = { systemId: 'x', nodeId: 'y' };
+    expect(fedFromText(applyFedFrom(doc, null), 'psi')).toMatch(/^NOT READ — The cold-water system this hot system is fed from is not in the project/);
+  });
+});
