@@ -28,11 +28,11 @@ try {
   // the save as it was before this branch: whole rows read back, the whole analysis written, the whole revision answered
   const before = async () => {
     const analysis = analyse(document);
-    const answer = await db.transaction(async (trx) => {
+    const answer: { version: number } = await db.transaction(async (trx): Promise<{ version: number }> => {
       await trx('revisions').where({ id: rev.id, system_id: system.id }).forUpdate().first();
       const [saved] = await trx('revisions').where({ id: rev.id, version, status: 'draft' }).update({ document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: ENGINE_VERSION, version: trx.raw('version + 1'), updated_at: trx.fn.now() }).returning('*');
       await auditRepo.record(trx, { actorId: user.id, projectId: project.id, action: 'revision.saved', subjectType: 'revision', subjectId: rev.id, details: { number: 1, version: saved.version } });
-      return trx('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id').where({ 'r.id': rev.id }).first(['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name', 'fc.record as field_change_record']);
+      return (await trx('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by').leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id').where({ 'r.id': rev.id }).first(['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name', 'fc.record as field_change_record'])) as { version: number };
     });
     version = answer.version;
     return JSON.stringify({ revision: answer }).length;
