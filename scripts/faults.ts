@@ -20,6 +20,7 @@ import { createDb, makeUsers, root, startCluster, startServer, demoDocument, typ
 import { UrlClient, want } from '../tests/api/support/hardening';
 import { smallDocument } from '../tests/api/support/documents';
 import { analyse } from '../server/services/systems';
+import { readStoredAnalysis } from '../server/services/storedAnalysis';
 import { loadConfig } from '../server/config';
 import { canonicalJson } from '../server/services/canonicalJson';
 
@@ -131,7 +132,7 @@ async function databaseOutage() {
     const problems: string[] = [];
     let ackCount = 0;
     for (const u of users) {
-      const row = await db2('revisions').where({ id: u.revisionId }).first('version', 'document', 'analysis');
+      const row = await db2('revisions').where({ id: u.revisionId }).first('version', 'document', 'analysis', 'engine_version');
       const mine = acked.get(u.revisionId)!;
       ackCount += mine.size;
       const last = Math.max(0, ...mine.keys());
@@ -140,7 +141,7 @@ async function databaseOutage() {
       else if (row.version === last && stored !== mine.get(last)) problems.push(`${u.revisionId}: version ${last} holds another document than the acknowledged one`);
       else if (row.version > last && !attempted.get(u.revisionId)!.has(stored)) problems.push(`${u.revisionId}: version ${row.version} holds a document nobody sent`);
       // whole, not half: the stored analysis is the analysis of the stored document
-      if (canonicalJson(row.analysis) !== canonicalJson(JSON.parse(JSON.stringify(analyse(row.document))))) problems.push(`${u.revisionId}: the stored analysis does not belong to the stored document`);
+      if (canonicalJson(readStoredAnalysis(row.analysis, row.engine_version).outcome) !== canonicalJson(JSON.parse(JSON.stringify(analyse(row.document))))) problems.push(`${u.revisionId}: the stored analysis does not belong to the stored document`);
       const audits = await db2('audit_log').where({ action: 'revision.saved', subject_id: u.revisionId }).select('details');
       const auditedVersions = new Set(audits.map((a: { details: { version: number } }) => a.details.version));
       for (const v of mine.keys()) if (!auditedVersions.has(v)) problems.push(`${u.revisionId}: acknowledged version ${v} has no audit entry`);

@@ -2,7 +2,7 @@
  * The API row: requests per second of the draft save — `PUT /api/projects/:projectId/systems/
  * :systemId/revisions/:revisionId/document`, the route a client calls to have the server analyse
  * a document (it validates it, re-runs the engine, stores document and analysis, and answers
- * with the revision and its analysis; the walk's autosave calls it). There is no separate
+ * with the revision's summary: its new version and verdict; the walk's autosave calls it). There is no separate
  * "analyse this document" route: the client runs the engine itself and the server re-runs it on
  * every save.
  *
@@ -224,7 +224,7 @@ export async function apiRows(o: ApiOptions): Promise<BenchRow[]> {
     await db.destroy();
   }
 
-  // one real save gives the answer the peer sends back (same size, same shape)
+  // one real save gives the answer the peer sends back (same bytes: the peer reads this file)
   const u0 = users[0];
   const sample = await u0.client.request('PUT', u0.paths.document, { raw: saveBody(u0, 0) });
   if (sample.status !== 200) throw new Error(`the sample save failed: ${sample.status} ${sample.text.slice(0, 300)}`);

@@ -1,4 +1,6 @@
 import type { Tx } from '../db/rows';
+import type { AnalysisOutcome } from '../../src/shared/api/systems';
+import { readStoredAnalysis, toStoredAnalysis } from '../services/storedAnalysis';
 
 export interface SystemRow {
   id: string;
@@ -14,8 +16,12 @@ export interface RevisionRow {
   number: number;
   status: 'draft' | 'issued' | 'superseded';
   document: unknown;
-  analysis: unknown;
+  /** the stored analysis as read (server/services/storedAnalysis.ts), with every display value */
+  analysis: AnalysisOutcome;
+  /** the engine version that made `analysis` */
   engine_version: string;
+  /** the format the analysis was stored in (0: before formats) */
+  analysis_format: number;
   version: number;
   input_hash: string | null;
   note: string | null;
@@ -38,7 +44,27 @@ export interface RevisionRow {
   field_change_record?: unknown;
 }
 
+/** A revision without its document and analysis: what a save answers (the large columns are neither read nor parsed). */
+export type RevisionSummaryRow = Omit<RevisionRow, 'document' | 'analysis' | 'analysis_format' | 'field_change_record'>;
+
 const revisionColumns = ['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name'];
+/** Every column of `revisions` but the document and the analysis. */
+const SUMMARY_COLUMNS = [
+  'id', 'system_id', 'number', 'status', 'engine_version', 'version', 'input_hash', 'note', 'issued_by', 'issued_at', 'updated_at',
+  'failure_ack_by', 'failure_ack_at', 'failure_ack_statement', 'attestation_by', 'attestation_name', 'attestation_licence', 'attestation_statement', 'attestation_at',
+];
+
+/** A row as the database holds it: the analysis in its stored form. */
+type StoredRevisionRow = Omit<RevisionRow, 'analysis' | 'analysis_format'> & { analysis: unknown };
+/** The storage boundary of the analysis: every revision read goes through here. */
+function fromDb(row: StoredRevisionRow): RevisionRow;
+function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined;
+function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined {
+  if (!row) return undefined;
+  const read = readStoredAnalysis(row.analysis, row.engine_version);
+  return { ...row, analysis: read.outcome, engine_version: read.engineVersion, analysis_format: read.format };
+}
+const storedJson = (outcome: AnalysisOutcome, engineVersion: string) => JSON.stringify(toStoredAnalysis(outcome, engineVersion));
 
 export const systemsRepo = {
   listForProject: (db: Tx, projectId: string) => db<SystemRow>('systems').where({ project_id: projectId }).orderBy('created_at'),
@@ -50,44 +76,68 @@ export const systemsRepo = {
 };
 
 export const revisionsRepo = {
-  listForSystem: (db: Tx, systemId: string) =>
-    db<RevisionRow>('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by')
-      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc'),
+  listForSystem: async (db: Tx, systemId: string): Promise<RevisionRow[]> =>
+    (
+      (await db('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by')
+        .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc')) as StoredRevisionRow[]
+    ).map((r) => fromDb(r)),
   /** the newest revision of each of the given systems */
-  latestForSystems: (db: Tx, systemIds: string[]) =>
-    db<RevisionRow>('revisions as r')
-      .leftJoin('users as u', 'u.id', 'r.issued_by')
-      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
-      .whereIn('r.system_id', systemIds)
-      .distinctOn('r.system_id')
-      .select(revisionColumns)
-      .orderBy([{ column: 'r.system_id' }, { column: 'r.number', order: 'desc' }]),
-  find: (db: Tx, systemId: string, revisionId: string) =>
-    db<RevisionRow>('revisions as r')
-      .leftJoin('users as u', 'u.id', 'r.issued_by')
-      .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
-      .leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id')
-      .where({ 'r.id': revisionId, 'r.system_id': systemId })
-      .first([...revisionColumns, 'fc.record as field_change_record']),
-  findForUpdate: (db: Tx, systemId: string, revisionId: string) => db<RevisionRow>('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first(),
-  draftOf: (db: Tx, systemId: string) => db<RevisionRow>('revisions').where({ system_id: systemId, status: 'draft' }).first(),
+  latestForSystems: async (db: Tx, systemIds: string[]): Promise<RevisionRow[]> =>
+    (
+      (await db('revisions as r')
+        .leftJoin('users as u', 'u.id', 'r.issued_by')
+        .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
+        .whereIn('r.system_id', systemIds)
+        .distinctOn('r.system_id')
+        .select(revisionColumns)
+        .orderBy([{ column: 'r.system_id' }, { column: 'r.number', order: 'desc' }])) as StoredRevisionRow[]
+    ).map((r) => fromDb(r)),
+  find: async (db: Tx, systemId: string, revisionId: string): Promise<RevisionRow | undefined> =>
+    fromDb(
+      (await db('revisions as r')
+        .leftJoin('users as u', 'u.id', 'r.issued_by')
+        .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
+        .leftJoin('field_changes as fc', 'fc.id', 'r.field_change_id')
+        .where({ 'r.id': revisionId, 'r.system_id': systemId })
+        .first([...revisionColumns, 'fc.record as field_change_record'])) as StoredRevisionRow | undefined,
+    ),
+  findForUpdate: async (db: Tx, systemId: string, revisionId: string): Promise<RevisionRow | undefined> =>
+    fromDb((await db('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first()) as StoredRevisionRow | undefined),
+  /** The issued revision of each of the given systems of a project, with the system's name. */
+  issuedOfSystems: async (db: Tx, projectId: string, systemIds: string[]) =>
+    (
+      (await db('revisions as v')
+        .join('systems as s', 's.id', 'v.system_id')
+        .where('s.project_id', projectId)
+        .whereIn('s.id', systemIds)
+        .where('v.status', 'issued')
+        .select('v.id', 'v.number', 'v.analysis', 'v.engine_version', 's.id as system_id', 's.name as system_name')) as { id: string; number: number; analysis: unknown; engine_version: string; system_id: string; system_name: string }[]
+    ).map((r) => ({ ...r, analysis: readStoredAnalysis(r.analysis, r.engine_version).outcome })),
+  /** Locks a revision for a save and reads only what the save checks (its document and analysis stay unread). */
+  lockForSave: (db: Tx, systemId: string, revisionId: string) =>
+    db('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first('id', 'number', 'status', 'version') as Promise<Pick<RevisionRow, 'id' | 'number' | 'status' | 'version'> | undefined>,
+  draftOf: async (db: Tx, systemId: string): Promise<RevisionRow | undefined> =>
+    fromDb((await db('revisions').where({ system_id: systemId, status: 'draft' }).first()) as StoredRevisionRow | undefined),
   async nextNumber(db: Tx, systemId: string): Promise<number> {
     const row = (await db('revisions').where({ system_id: systemId }).max({ n: 'number' }).first()) as { n: number | null };
     return (row?.n ?? 0) + 1;
   },
-  async insert(db: Tx, values: { system_id: string; number: number; document: unknown; analysis: unknown; engine_version: string; created_by: string; note?: string | null }) {
-    const [row] = await db<RevisionRow>('revisions')
-      .insert({ ...values, document: JSON.stringify(values.document), analysis: JSON.stringify(values.analysis) } as never)
+  async insert(db: Tx, values: { system_id: string; number: number; document: unknown; analysis: AnalysisOutcome; engine_version: string; created_by: string; note?: string | null }) {
+    const [row] = await db('revisions')
+      .insert({ ...values, document: JSON.stringify(values.document), analysis: storedJson(values.analysis, values.engine_version) })
       .returning('*');
-    return row as RevisionRow;
+    return fromDb(row as StoredRevisionRow);
   },
-  /** Optimistic save of a draft: undefined when the version is stale or the revision is no longer a draft. */
-  async saveDraft(db: Tx, revisionId: string, version: number, document: unknown, analysis: unknown, engineVersion: string) {
-    const [row] = await db<RevisionRow>('revisions')
+  /**
+   * Optimistic save of a draft: undefined when the version is stale or the revision is no longer a
+   * draft. Answers the saved row without its document and analysis (the caller has both).
+   */
+  async saveDraft(db: Tx, revisionId: string, version: number, document: unknown, analysis: AnalysisOutcome, engineVersion: string) {
+    const [row] = await db('revisions')
       .where({ id: revisionId, version, status: 'draft' })
-      .update({ document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: engineVersion, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)
-      .returning('*');
-    return row as RevisionRow | undefined;
+      .update({ document: JSON.stringify(document), analysis: storedJson(analysis, engineVersion), engine_version: engineVersion, version: db.raw('version + 1'), updated_at: db.fn.now() })
+      .returning(SUMMARY_COLUMNS);
+    return row as RevisionSummaryRow | undefined;
   },
   /**
    * Issues a draft with the analysis it is issued on (made at issue time by the current engine) and,
@@ -101,14 +151,14 @@ export const revisionsRepo = {
     values: {
       inputHash: string;
       note: string | null;
-      analysis: unknown;
+      analysis: AnalysisOutcome;
       engineVersion: string;
       failureAcknowledgement: string | null;
       attestation: { name: string; licenceNumber: string; statement: string };
     },
   ) {
     const ack = values.failureAcknowledgement;
-    const [row] = await db<RevisionRow>('revisions')
+    const [row] = await db('revisions')
       .where({ id: revisionId, version, status: 'draft' })
       .update({
         status: 'issued',
@@ -116,7 +166,7 @@ export const revisionsRepo = {
         issued_at: db.fn.now(),
         input_hash: values.inputHash,
         note: values.note,
-        analysis: JSON.stringify(values.analysis),
+        analysis: storedJson(values.analysis, values.engineVersion),
         engine_version: values.engineVersion,
         failure_ack_by: ack === null ? null : by,
         failure_ack_at: ack === null ? null : db.fn.now(),
@@ -128,9 +178,9 @@ export const revisionsRepo = {
         attestation_at: db.fn.now(),
         version: db.raw('version + 1'),
         updated_at: db.fn.now(),
-      } as never)
-      .returning('*');
-    return row as RevisionRow | undefined;
+      })
+      .returning(SUMMARY_COLUMNS);
+    return row as RevisionSummaryRow | undefined;
   },
   supersedeIssued: (db: Tx, systemId: string, exceptId: string) =>
     db('revisions').where({ system_id: systemId, status: 'issued' }).whereNot({ id: exceptId }).update({ status: 'superseded', updated_at: db.fn.now() }),

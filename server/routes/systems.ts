@@ -4,7 +4,7 @@ import { actorOf, requireProjectRole } from '../http/guards';
 import { systemsService } from '../services/systems';
 import { exportsService } from '../services/exports';
 import { asciiFallback, rfc5987 } from '../http/upload';
-import { CompareQuery, CreateSystemBody, ExportTableParams, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams } from '../../src/shared/api/systems';
+import { CompareQuery, CreateSystemBody, ExportTableParams, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams, type SaveDocumentResponse } from '../../src/shared/api/systems';
 import { ProjectParams } from '../../src/shared/api/projects';
 import type { ServiceContext } from '../services/context';
 
@@ -50,7 +50,9 @@ export function systemsRoutes(ctx: ServiceContext): Router {
   router.put(`${base}/:systemId/revisions/:revisionId/document`, designer, async (req, res) => {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     const body = parse(SaveDocumentBody, req.body);
-    res.json({ revision: await systemsService.saveDraft(ctx, actorOf(req.user), projectId, systemId, revisionId, body.document, body.version) });
+    // the revision's summary only (src/shared/api/systems.ts SaveDocumentResponse): the client has the document and its analysis
+    const answer: SaveDocumentResponse = { revision: await systemsService.saveDraft(ctx, actorOf(req.user), projectId, systemId, revisionId, body.document, body.version) };
+    res.json(answer);
   });
 
   router.post(`${base}/:systemId/revisions/:revisionId/issue`, designer, async (req, res) => {

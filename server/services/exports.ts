@@ -3,7 +3,7 @@
  * ledger), as CSV or one spreadsheet workbook. Read from the stored revision and its stored
  * analysis: an issued revision exports the numbers it was issued with.
  */
-import type { Analysis, SystemDocument } from '../../src/engine';
+import type { SystemDocument } from '../../src/engine';
 import { conflict, notFound } from './errors';
 import { systemsRepo } from '../repositories/systems';
 import { tableCsv, tablesXlsx } from '../exports/encode';
@@ -17,9 +17,9 @@ async function tablesOf(ctx: ServiceContext, projectId: string, systemId: string
   const system = await systemsRepo.find(ctx.db, projectId, systemId);
   if (!system) throw notFound('The system');
   const revision = await systemsService.revision(ctx, projectId, systemId, revisionId);
-  const stored = revision.analysis as { ok: true; analysis: Analysis } | { ok: false; error?: { message?: string } } | null;
-  if (!stored?.ok) {
-    throw conflict(`Revision ${revision.number} cannot be computed (${stored?.error?.message ?? 'no analysis'}); there is nothing to export.`);
+  const stored = revision.analysis;
+  if (!stored.ok) {
+    throw conflict(`Revision ${revision.number} cannot be computed (${stored.error.message}); there is nothing to export.`);
   }
   const tables = resultTables(stored.analysis, revision.document as SystemDocument, { systemName: system.name, revisionNumber: revision.number, status: revision.status });
   const base = `${system.name} rev ${revision.number}`.replace(/[^\p{L}\p{N} ._-]+/gu, '').trim() || 'headroom';

@@ -186,7 +186,7 @@ export const fieldChangesService = {
       requireCurrent(m.base, row, await fieldChangesRepo.currentIssued(trx, systemId), 'accepted');
       const [contractor, designer] = await Promise.all([usersRepo.findById(trx, row.created_by), usersRepo.findById(trx, actor.id)]);
       const existing = await revisionsRepo.draftOf(trx, systemId);
-      let revision: RevisionRow;
+      let revision: { id: string; number: number };
       if (existing) {
         // A system has one draft at a time: the contractor's changes are carried onto the designer's
         // draft, unless the designer changed the same thing differently (then nothing is merged).

@@ -5,6 +5,8 @@
  * with their system. All or nothing, in one transaction.
  */
 import { verdictStatus, type Analysis } from '../../src/engine';
+import { revisionsRepo } from '../repositories/systems';
+import type { AnalysisOutcome } from '../../src/shared/api/systems';
 import { conflict, invalid, notFound } from './errors';
 import { membersRepo, projectsRepo } from '../repositories/projects';
 import { reviewsRepo } from '../repositories/reviews';
@@ -19,13 +21,11 @@ import type { Actor, ServiceContext } from './context';
 import { resultViewPath } from '../../src/shared/api/summaries';
 import type { SendPackageResponse } from '../../src/shared/api/reviewLoop';
 
-interface IssuedRow {
-  id: string;
-  number: number;
-  analysis: { ok: boolean; analysis?: Analysis };
-  system_id: string;
-  system_name: string;
-}
+/** The analysis of a revision already checked to have one (an incomplete or unanalysed one is refused above). */
+const analysisOf = (a: AnalysisOutcome): Analysis => {
+  if (!a.ok) throw new Error('a revision without an analysis reached the package');
+  return a.analysis;
+};
 
 export const submissionsService = {
   async sendPackage(ctx: ServiceContext, actor: Actor, projectId: string, body: { systemIds: string[]; inspectorIds: string[]; message?: string }): Promise<SendPackageResponse> {
@@ -33,12 +33,7 @@ export const submissionsService = {
     if (!project) throw notFound('The project');
     const fields: Record<string, string> = {};
     const systemIds = [...new Set(body.systemIds)];
-    const issued: IssuedRow[] = await ctx.db('revisions as v')
-      .join('systems as s', 's.id', 'v.system_id')
-      .where('s.project_id', projectId)
-      .whereIn('s.id', systemIds)
-      .where('v.status', 'issued')
-      .select('v.id', 'v.number', 'v.analysis', 's.id as system_id', 's.name as system_name');
+    const issued = await revisionsRepo.issuedOfSystems(ctx.db, projectId, systemIds);
     const known: { id: string; name: string }[] = await ctx.db('systems').where({ project_id: projectId }).whereIn('id', systemIds).select('id', 'name');
     for (const [i, id] of body.systemIds.entries()) {
       const system = known.find((s) => s.id === id);
@@ -47,7 +42,7 @@ export const submissionsService = {
     }
     for (const r of issued) {
       const a = r.analysis;
-      if (!a?.ok || !a.analysis || verdictStatus(a.analysis) === 'incomplete') fields[`systemIds.${body.systemIds.indexOf(r.system_id)}`] = `${r.system_name}, revision ${r.number}, is incomplete: it has no summary`;
+      if (!a.ok || verdictStatus(a.analysis) === 'incomplete') fields[`systemIds.${body.systemIds.indexOf(r.system_id)}`] = `${r.system_name}, revision ${r.number}, is incomplete: it has no summary`;
     }
     const recipients: { id: string; email: string; name: string }[] = [];
     for (const [i, userId] of body.inspectorIds.entries()) {
@@ -82,10 +77,10 @@ export const submissionsService = {
           senderName: sender?.name ?? 'A designer',
           projectName: project.name,
           address: project.address,
-          systems: ordered.map((r, i) => ({ header: summaries[i].header, verdict: verdictLine(r.analysis.analysis!), viewUrl: `${base}${resultViewPath(projectId, r.system_id, r.id)}` })),
+          systems: ordered.map((r, i) => ({ header: summaries[i].header, verdict: verdictLine(analysisOf(r.analysis)), viewUrl: `${base}${resultViewPath(projectId, r.system_id, r.id)}` })),
           note: body.message,
         });
-        const failing = ordered.some((r) => verdictStatus(r.analysis.analysis!) === 'fail');
+        const failing = ordered.some((r) => verdictStatus(analysisOf(r.analysis)) === 'fail');
         const row = await outboxService.enqueue(ctx, trx, {
           kind: 'summary',
           project_id: projectId,

@@ -31,7 +31,6 @@ import { resultViewPath, type SendSummaryResponse, type SummaryHeader, type Summ
 import type { SendSummaryBody } from '../../src/shared/api/summaries';
 import { log } from '../log';
 
-type StoredAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: { message: string } };
 
 const apiBase = (projectId: string, systemId: string, revisionId: string) => `/api/projects/${projectId}/systems/${systemId}/revisions/${revisionId}`;
 
@@ -65,9 +64,9 @@ export function verdictLine(a: Analysis): string {
 
 /** The stored analysis of an issued revision, refused when it cannot back a summary (none, or incomplete). */
 function summarisable(revision: RevisionRow): Analysis {
-  const stored = revision.analysis as StoredAnalysis;
-  if (!stored?.ok) throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored?.error?.message ?? 'not analysed'}); it has no summary.`, undefined, {
-    reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored?.error?.message ?? 'Not analysed' }],
+  const stored = revision.analysis;
+  if (!stored.ok) throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored.error.message}); it has no summary.`, undefined, {
+    reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored.error.message }],
   });
   if (verdictStatus(stored.analysis) === 'incomplete') {
     const reasons = stored.analysis.verdict.incomplete?.length

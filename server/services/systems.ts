@@ -4,7 +4,7 @@ import { AppError, notFound, staleVersion } from '../http/errors';
 import { fieldsFromZod } from '../http/errors';
 import { assertStorable } from '../http/storable';
 import { projectsRepo } from '../repositories/projects';
-import { revisionsRepo, systemsRepo, type RevisionRow, type SystemRow } from '../repositories/systems';
+import { revisionsRepo, systemsRepo, type RevisionRow, type RevisionSummaryRow, type SystemRow } from '../repositories/systems';
 import { auditRepo } from '../repositories/audit';
 import { iso } from '../db/rows';
 import { inputHash } from './canonicalJson';
@@ -13,19 +13,17 @@ import { reviewLoopService } from './reviewLoop';
 import { hotWaterSupply } from './hotWaterSupply';
 import type { Actor, ServiceContext } from './context';
 import { ATTESTATION_STATEMENTS, type Attestation, type AttestationRecord } from '../../src/shared/api/systems';
-import type { CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+import type { AnalysisOutcome, CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
 import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 
 /** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
-export function analyse(document: unknown) {
+export function analyse(document: unknown): AnalysisOutcome {
   const result = safeAnalyzeSystem(document);
   return result.ok ? { ok: true as const, analysis: result.analysis } : { ok: false as const, error: result.error.toJSON() };
 }
-type StoredAnalysis = ReturnType<typeof analyse>;
 
-function verdictOf(stored: unknown): RevisionVerdict {
-  const a = stored as StoredAnalysis;
-  if (!a?.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: (a as { error?: { message?: string } })?.error?.message ?? 'Not analysed' };
+function verdictOf(a: AnalysisOutcome): RevisionVerdict {
+  if (!a.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: a.error.message ?? 'Not analysed' };
   const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
   const status = verdictStatus(a.analysis);
   return {
@@ -39,7 +37,7 @@ function verdictOf(stored: unknown): RevisionVerdict {
   };
 }
 
-const toSummary = (r: RevisionRow): RevisionSummary => ({
+const toSummary = (r: RevisionSummaryRow, verdict: RevisionVerdict): RevisionSummary => ({
   id: r.id,
   number: r.number,
   status: r.status,
@@ -48,17 +46,18 @@ const toSummary = (r: RevisionRow): RevisionSummary => ({
   issuedAt: r.issued_at ? iso(r.issued_at) : null,
   issuedBy: r.issued_by_name ?? null,
   inputHash: r.input_hash,
-  verdict: verdictOf(r.analysis),
+  verdict,
   failureAcknowledgement: r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null,
   attestation: attestationOf(r),
 });
 
 /** The attestation recorded at issue, as the API and the summary show it. */
-export const attestationOf = (r: RevisionRow): AttestationRecord | null =>
+export const attestationOf = (r: RevisionSummaryRow): AttestationRecord | null =>
   r.attestation_statement && r.attestation_at
     ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, by: r.issued_by_name ?? null, at: iso(r.attestation_at) }
     : null;
-const toRevision = (r: RevisionRow): Revision => ({ ...toSummary(r), document: r.document, analysis: r.analysis, note: r.note, origin: originOf(r.field_change_record) });
+const summaryOf = (r: RevisionRow): RevisionSummary => toSummary(r, verdictOf(r.analysis));
+const toRevision = (r: RevisionRow): Revision => ({ ...summaryOf(r), document: r.document, analysis: r.analysis, engineVersion: r.engine_version, note: r.note, origin: originOf(r.field_change_record) });
 
 /** The revision's history line from the field change it was accepted from (null for a designer's own). */
 function originOf(record: unknown): RevisionOrigin | null {
@@ -84,7 +83,7 @@ const toSystem = (s: SystemRow, latest: RevisionRow | undefined, returned: Retur
   name: s.name,
   service: s.service,
   createdAt: iso(s.created_at),
-  latest: latest ? toSummary(latest) : null,
+  latest: latest ? summaryOf(latest) : null,
   returned,
 });
 
@@ -121,7 +120,7 @@ function parseDocument(document: unknown): SystemDocument {
  * reasons; fail without an acknowledgement → 409 FAILURE_NOT_ACKNOWLEDGED; an acknowledgement on a
  * revision that does not fail → 409 NOTHING_TO_ACKNOWLEDGE (the verdict is not what the designer saw).
  */
-export function issueGate(number: number, analysis: StoredAnalysis, acknowledgeFailure: { statement: string } | null) {
+export function issueGate(number: number, analysis: AnalysisOutcome, acknowledgeFailure: { statement: string } | null) {
   if (!analysis.ok) {
     const e = analysis.error;
     const reasons: IncompleteReason[] = [{ code: e.code, elementType: reasonElement(e.elementType), elementId: e.elementId, message: e.message }];
@@ -153,7 +152,7 @@ export function issueGate(number: number, analysis: StoredAnalysis, acknowledgeF
 const REASON_ELEMENTS = new Set<IncompleteReason['elementType']>(['system', 'source', 'device', 'node', 'segment', 'fixture-group', 'checked-fixture', 'fitting']);
 const reasonElement = (t: string): IncompleteReason['elementType'] => (REASON_ELEMENTS.has(t as IncompleteReason['elementType']) ? (t as IncompleteReason['elementType']) : 'system');
 
-const locked = (r: RevisionRow) =>
+const locked = (r: Pick<RevisionRow, 'number' | 'status'>) =>
   new AppError(409, 'CONFLICT', `Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
 
 export const systemsService = {
@@ -186,7 +185,7 @@ export const systemsService = {
     if (!system) throw notFound('The system');
     const revisions = await revisionsRepo.listForSystem(ctx.db, systemId);
     const returned = await reviewLoopService.markers(ctx.db, [systemId]);
-    return { system: toSystem(system, revisions[0], returned.get(systemId) ?? null), revisions: revisions.map(toSummary) };
+    return { system: toSystem(system, revisions[0], returned.get(systemId) ?? null), revisions: revisions.map(summaryOf) };
   },
 
   async revision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Revision> {
@@ -196,13 +195,19 @@ export const systemsService = {
     return toRevision({ ...revision, ...(await hotWaterSupply.refreshRow(ctx.db, projectId, revision)) });
   },
 
-  /** Saves a draft; the server recomputes the analysis with the same engine the client runs. */
-  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, typed: SystemDocument, version: number): Promise<Revision> {
+  /**
+   * Saves a draft; the server recomputes the analysis with the same engine the client runs, stores
+   * it, and answers the revision's summary (its new version and verdict): the client has the
+   * document and its own analysis of it, so neither is read back nor sent again. A hot system fed
+   * from a cold one has its supply resolved first (hotWaterSupply), and the hot drafts fed from this
+   * system are recomputed in the same transaction.
+   */
+  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, typed: SystemDocument, version: number): Promise<RevisionSummary> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const document = await hotWaterSupply.resolve(ctx.db, projectId, typed);
     const analysis = analyse(document);
     return ctx.db.transaction(async (trx) => {
-      const current = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
+      const current = await revisionsRepo.lockForSave(trx, systemId, revisionId);
       if (!current) throw notFound('The revision');
       if (current.status !== 'draft') throw locked(current);
       if (current.version !== version) throw staleVersion();
@@ -210,7 +215,8 @@ export const systemsService = {
       if (!saved) throw staleVersion();
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.saved', subjectType: 'revision', subjectId: revisionId, details: { number: saved.number, version: saved.version } });
       await hotWaterSupply.refreshDependents(trx, projectId, systemId);
-      return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
+      // a draft has no issuer, acknowledgement or attestation: the summary needs no join
+      return toSummary(saved, verdictOf(analysis));
     });
   },
 
@@ -312,8 +318,8 @@ export const systemsService = {
 
   async compare(ctx: ServiceContext, projectId: string, systemId: string, aId: string, bId: string): Promise<CompareResponse> {
     const [a, b] = await Promise.all([this.revision(ctx, projectId, systemId, aId), this.revision(ctx, projectId, systemId, bId)]);
-    const fa = (a.analysis as StoredAnalysis).ok ? (a.analysis as Extract<StoredAnalysis, { ok: true }>).analysis : null;
-    const fb = (b.analysis as StoredAnalysis).ok ? (b.analysis as Extract<StoredAnalysis, { ok: true }>).analysis : null;
+    const fa = a.analysis.ok ? a.analysis.analysis : null;
+    const fb = b.analysis.ok ? b.analysis.analysis : null;
     const ids = [...new Set([...(fa?.fixtures ?? []).map((f) => f.id), ...(fb?.fixtures ?? []).map((f) => f.id)])];
     const fixtures = ids.map((id) => {
       const x = fa?.fixtures.find((f) => f.id === id);

@@ -1,5 +1,7 @@
 import { z } from 'zod';
 import { SystemDocumentSchema } from '../../engine/model/schema';
+import type { Analysis } from '../../engine/analysis/types';
+import type { EngineInputErrorJSON } from '../../engine/errors';
 import { ProjectParams } from './projects';
 
 export const SERVICES = ['cold', 'hot'] as const;
@@ -128,10 +130,24 @@ export const RevisionOrigin = z.object({
 });
 export type RevisionOrigin = z.infer<typeof RevisionOrigin>;
 
+/**
+ * What the engine made of a revision's document: its analysis, or the input error that stopped it.
+ * The server stores it compactly (server/services/storedAnalysis.ts) and answers it whole, with every
+ * display value; an issued revision's numbers are the ones it was issued with.
+ */
+export type AnalysisOutcome = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputErrorJSON };
+/** Checked only for its shape's root: the server builds it from the engine's own types. */
+export const AnalysisOutcome = z.custom<AnalysisOutcome>(
+  (v) => typeof v === 'object' && v !== null && ((v as { ok?: unknown }).ok === true ? typeof (v as { analysis?: unknown }).analysis === 'object' : typeof (v as { error?: unknown }).error === 'object'),
+  'Not an analysis outcome',
+);
+
 export const Revision = RevisionSummary.extend({
   document: z.unknown(),
-  /** the engine's analysis ({ ok: true, analysis } or { ok: false, error }) computed by the server */
-  analysis: z.unknown(),
+  /** the engine's analysis computed by the server when the revision was last saved (a draft) or issued */
+  analysis: AnalysisOutcome,
+  /** the engine version that analysis was made with (an issued revision keeps its own) */
+  engineVersion: z.string(),
   note: z.string().nullable(),
   /** set when the revision came from an accepted field change */
   origin: RevisionOrigin.nullable().default(null),
@@ -168,6 +184,13 @@ export type SystemInfo = z.infer<typeof SystemInfo>;
 export const SystemListResponse = z.object({ systems: z.array(SystemInfo) });
 export const SystemDetailResponse = z.object({ system: SystemInfo, revisions: z.array(RevisionSummary) });
 export const RevisionResponse = z.object({ revision: Revision });
+/**
+ * The answer to a draft save: the revision's summary (its new version, its verdict with the count of
+ * warnings) and nothing more. The client has run the engine on the same document itself; the stored
+ * analysis is read through the revision's GET by whoever needs it.
+ */
+export const SaveDocumentResponse = z.object({ revision: RevisionSummary });
+export type SaveDocumentResponse = z.infer<typeof SaveDocumentResponse>;
 export const CreateSystemResponse = z.object({ system: SystemInfo, revision: Revision });
 
 export const CompareResponse = z.object({

@@ -11,13 +11,13 @@
  * another person's save can be played (`someoneElseSaves`) so the next save answers 409.
  */
 import type { z } from 'zod';
-import { safeAnalyzeSystem, SystemDocumentSchema } from '../../../src/engine';
+import { ENGINE_VERSION, safeAnalyzeSystem, SystemDocumentSchema } from '../../../src/engine';
 import type { SystemDocument } from '../../../src/engine';
 import { MeResponse } from '../../../src/shared/api/auth';
 import { ApiErrorBody } from '../../../src/shared/api/errors';
 import { ProjectDetailResponse } from '../../../src/shared/api/projects';
 import type { ProjectRole } from '../../../src/shared/api/projects';
-import { RevisionResponse, SaveDocumentBody, SystemDetailResponse } from '../../../src/shared/api/systems';
+import { RevisionResponse, SaveDocumentBody, SaveDocumentResponse, SystemDetailResponse } from '../../../src/shared/api/systems';
 import type { RevisionStatus, RevisionSummary, RevisionVerdict } from '../../../src/shared/api/systems';
 import { ProjectCatalogResponse } from '../../../src/shared/api/catalog';
 import { ReviewResponse, ReviewsResponse } from '../../../src/shared/api/summaries';
@@ -157,6 +157,7 @@ export function fakeApi(options: FakeApiOptions = {}) {
         // a JSON round trip, as the document and analysis come out of PostgreSQL's jsonb
         document: JSON.parse(JSON.stringify(server.document)),
         analysis: JSON.parse(JSON.stringify(analysis.ok ? { ok: true, analysis: analysis.analysis } : { ok: false, error: analysis.error.toJSON() })),
+        engineVersion: ENGINE_VERSION,
         note: null,
       },
     };
@@ -207,7 +208,8 @@ export function fakeApi(options: FakeApiOptions = {}) {
         if (body.version !== server.version) return apiError(409, 'STALE_VERSION', 'Someone else changed this since you opened it. Reload to see their change.');
         server.document = body.document;
         server.version += 1;
-        return checked(RevisionResponse, revisionBody());
+        // the server answers the revision's summary only
+        return checked(SaveDocumentResponse, { revision: summary() });
       },
     },
     ...(returnedReview

@@ -307,6 +307,9 @@ export function ResultStep() {
               Revision {revision.number} was issued{revision.issuedAt ? ` on ${formatDateTime(revision.issuedAt)}` : ''}
               {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
             </p>
+            <p className="text-sm text-ink-soft" data-testid="issued-engine">
+              Its stored analysis, in the summary and the downloads, was made with Headroom engine {revision.engineVersion}; the figures on these pages are recomputed in your browser with engine {live.analysis.engineVersion}.
+            </p>
             {revision.attestation ? (
               <p className="text-sm" data-testid="issued-attestation">
                 Attested by {revision.attestation.name}, licence or registration no. {revision.attestation.licenceNumber}, on {formatDateTime(revision.attestation.at)}: “{revision.attestation.statement}”
