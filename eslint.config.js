@@ -67,4 +67,20 @@ export default tseslint.config(
       'no-restricted-imports': ['error', { patterns: [{ group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'], message: 'The server imports the engine and the shared API contract only.' }] }],
     },
   },
+  {
+    // Services and repositories know nothing of HTTP: no request, response or status; they throw
+    // ServiceError (server/services/errors.ts) and the HTTP layer maps its code to a status.
+    files: ['server/services/**/*.ts', 'server/repositories/**/*.ts'],
+    rules: {
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'], message: 'The server imports the engine and the shared API contract only.' },
+            { group: ['**/http/**', '../http/*', 'express', 'express-*', 'multer'], message: 'Services and repositories know nothing of HTTP: throw ServiceError (server/services/errors.ts).' },
+          ],
+        },
+      ],
+    },
+  },
 );

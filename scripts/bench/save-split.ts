@@ -13,7 +13,7 @@ import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import { createDb, demoDocument, startCluster } from '../../tests/load/world';
 import { checkValue } from '../../server/http/validate';
-import { assertStorable } from '../../server/http/storable';
+import { assertStorable } from '../../server/services/storable';
 import { SaveDocumentBody } from '../../src/shared/api/systems';
 import { analyse, systemsService } from '../../server/services/systems';
 import { revisionsRepo, systemsRepo } from '../../server/repositories/systems';

@@ -1,6 +1,6 @@
 import type { z } from 'zod';
 import { AppError, fieldsFromIssues, type Issue } from './errors';
-import { assertStorable } from './storable';
+import { assertStorable } from '../services/storable';
 
 /**
  * Validation that stops early. zod reports every problem of a value; a body made of thousands of

@@ -1,8 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { ENGINE_VERSION, readSystemDocument, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type IncompleteReason, type SystemDocument } from '../../src/engine';
-import { AppError, notFound, staleVersion } from '../http/errors';
-import { fieldsFromZod } from '../http/errors';
-import { assertStorable } from '../http/storable';
+import { ServiceError, conflict, invalid, notFound, staleVersion } from './errors';
+import { fieldsFromZod } from './validationFields';
+import { assertStorable } from './storable';
+import { locks } from '../repositories/locks';
+import { log } from '../log';
 import { projectsRepo } from '../repositories/projects';
 import { revisionsRepo, systemsRepo, type RevisionRow, type RevisionSummaryRow, type SystemRow } from '../repositories/systems';
 import { auditRepo } from '../repositories/audit';
@@ -110,7 +112,7 @@ function parseDocument(document: unknown): SystemDocument {
   const parsed = readSystemDocument(document, { riseConflict: 'follow-rises' });
   if (!parsed.success) {
     const fields = Object.fromEntries(Object.entries(fieldsFromZod(parsed.error)).map(([k, v]) => [`document.${k}`, v]));
-    throw new AppError(400, 'VALIDATION_FAILED', 'The system document does not match the format.', fields);
+    throw invalid('The system document does not match the format.', fields);
   }
   return parsed.data;
 }
@@ -124,27 +126,24 @@ export function issueGate(number: number, analysis: AnalysisOutcome, acknowledge
   if (!analysis.ok) {
     const e = analysis.error;
     const reasons: IncompleteReason[] = [{ code: e.code, elementType: reasonElement(e.elementType), elementId: e.elementId, message: e.message }];
-    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${number} cannot be issued: the engine cannot compute it (${e.message})`, undefined, { reasons });
+    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${number} cannot be issued: the engine cannot compute it (${e.message})`, undefined, { reasons });
   }
   const status = verdictStatus(analysis.analysis);
   if (status === 'incomplete') {
     const reasons = analysis.analysis.verdict.incomplete.length
       ? analysis.analysis.verdict.incomplete
       : [{ code: 'no-checked-fixtures', elementType: 'system' as const, elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
-    throw new AppError(409, 'REVISION_INCOMPLETE', `Revision ${number} cannot be issued: its description is incomplete (${reasons.length === 1 ? 'one item' : `${reasons.length} items`} to settle).`, undefined, { reasons });
+    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${number} cannot be issued: its description is incomplete (${reasons.length === 1 ? 'one item' : `${reasons.length} items`} to settle).`, undefined, { reasons });
   }
   const failures = analysis.analysis.verdict.failures;
   if (status === 'fail' && !acknowledgeFailure) {
-    throw new AppError(
-      409,
-      'FAILURE_NOT_ACKNOWLEDGED',
-      `Revision ${number} fails ${failures === 1 ? 'one check' : `${failures} checks`}. It can be issued only with your acknowledgement of the failure, in your own words; the summary will say FAIL on its first line.`,
+    throw new ServiceError('FAILURE_NOT_ACKNOWLEDGED', `Revision ${number} fails ${failures === 1 ? 'one check' : `${failures} checks`}. It can be issued only with your acknowledgement of the failure, in your own words; the summary will say FAIL on its first line.`,
       undefined,
       { failures },
     );
   }
   if (status !== 'fail' && acknowledgeFailure) {
-    throw new AppError(409, 'NOTHING_TO_ACKNOWLEDGE', `Revision ${number} does not fail (its verdict is ${status}); issue it without an acknowledgement of failure.`);
+    throw new ServiceError('NOTHING_TO_ACKNOWLEDGE', `Revision ${number} does not fail (its verdict is ${status}); issue it without an acknowledgement of failure.`);
   }
   return { status, failures, acknowledgement: status === 'fail' ? acknowledgeFailure!.statement.trim() : null };
 }
@@ -153,7 +152,7 @@ const REASON_ELEMENTS = new Set<IncompleteReason['elementType']>(['system', 'sou
 const reasonElement = (t: string): IncompleteReason['elementType'] => (REASON_ELEMENTS.has(t as IncompleteReason['elementType']) ? (t as IncompleteReason['elementType']) : 'system');
 
 const locked = (r: Pick<RevisionRow, 'number' | 'status'>) =>
-  new AppError(409, 'CONFLICT', `Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
+  conflict(`Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
 
 export const systemsService = {
   async list(ctx: ServiceContext, projectId: string): Promise<SystemInfo[]> {
@@ -241,6 +240,8 @@ export const systemsService = {
   ): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const revision = await ctx.db.transaction(async (trx) => {
+      // the lock order of server/repositories/locks.ts: the system, then its revisions
+      await locks.system(trx, systemId);
       const found = await revisionsRepo.findForUpdate(trx, systemId, revisionId);
       if (!found) throw notFound('The revision');
       if (found.status !== 'draft') throw locked(found);
@@ -288,7 +289,7 @@ export const systemsService = {
       return toRevision((await revisionsRepo.find(trx, systemId, revisionId))!);
     });
     // the PDF's own failures are recorded on the summary; anything else must not undo the issue
-    await summariesService.generate(ctx, projectId, systemId, revisionId).catch((err) => console.error(`[headroom] summary of revision ${revisionId}:`, err));
+    await summariesService.generate(ctx, projectId, systemId, revisionId).catch((err) => log.error({ err, revisionId }, `summary of revision ${revisionId}`));
     return revision;
   },
 
@@ -296,9 +297,9 @@ export const systemsService = {
   async newDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, fromRevisionId: string): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     return ctx.db.transaction(async (trx) => {
-      await trx.raw('SELECT id FROM systems WHERE id = ? FOR UPDATE', [systemId]);
+      await locks.system(trx, systemId);
       const existing = await revisionsRepo.draftOf(trx, systemId);
-      if (existing) throw new AppError(409, 'CONFLICT', `Revision ${existing.number} is already a draft; continue there.`);
+      if (existing) throw conflict(`Revision ${existing.number} is already a draft; continue there.`);
       const from = await revisionsRepo.find(trx, systemId, fromRevisionId);
       if (!from) throw notFound('The revision');
       const number = await revisionsRepo.nextNumber(trx, systemId);

@@ -1,4 +1,4 @@
-import { AppError } from './errors';
+import { invalid } from './errors';
 
 // PostgreSQL text and jsonb cannot hold NUL, and jsonb refuses unpaired UTF-16 surrogates:
 // such strings are refused here with the field named, instead of failing in the database.
@@ -28,9 +28,9 @@ function firstUnstorable(body: unknown): [string, string] | null {
 
 /**
  * Refuses a validated value holding text the database cannot store. It runs after the zod
- * schema (server/http/validate.ts), so a body that breaks the schema is reported by the schema.
+ * schema (server/http/validate.ts, or a service's own parse), so a body that breaks the schema is reported by the schema.
  */
 export function assertStorable(value: unknown): void {
   const found = firstUnstorable(value);
-  if (found) throw new AppError(400, 'VALIDATION_FAILED', 'Some fields need attention.', { [found[0]]: found[1] });
+  if (found) throw invalid('Some fields need attention.', { [found[0]]: found[1] });
 }
