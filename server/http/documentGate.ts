@@ -12,6 +12,7 @@ import type { RequestHandler } from 'express';
 import type { z } from 'zod';
 import { CreateSystemBody } from '../../src/shared/api/systems';
 import { AppError } from './errors';
+import { firstOverBoundInJson } from './jsonPrescan';
 import { markValidated } from './validate';
 import { GATED_SCHEMAS, type GatedSchema } from './validateWorker';
 import type { Checked } from './validate';
@@ -35,6 +36,9 @@ export interface DocumentGate {
 /** The JSON text of each request as received (express.json's `verify` puts it here; server/app.ts). */
 const rawBodies = new WeakMap<object, Buffer>();
 export const keepRawBody = (req: object, _res: unknown, buf: Buffer) => {
+  // lists and objects over the bounds are refused on the text, before JSON.parse builds them (jsonPrescan.ts)
+  const found = firstOverBoundInJson(buf);
+  if (found) throw new AppError(400, 'VALIDATION_FAILED', 'The request is larger than any real one; nothing was read further.', { [found[0]]: found[1] });
   rawBodies.set(req, buf);
 };
 
