@@ -4,6 +4,7 @@ import { usersRepo } from '../repositories/users';
 import { auditRepo } from '../repositories/audit';
 import type { Actor, ServiceContext } from './context';
 import { reviewLoopService } from './reviewLoop';
+import { systemsService } from './systems';
 import type { AddMemberBody, CreateProjectBody, Member, Project, ProjectRole, UpdateProjectBody } from '../../src/shared/api/projects';
 
 export const canCreateProjects = (actor: Actor) => actor.isAdmin || actor.accountRole === 'designer';
@@ -51,13 +52,16 @@ export const projectsService = {
       if (body.notes !== undefined) values.notes = body.notes;
       if (body.permit !== undefined) values.permit = JSON.stringify(body.permit);
       if (body.archived !== undefined) values.archived = body.archived;
+      const before = await projectsRepo.findById(trx, projectId);
       const row = await projectsRepo.update(trx, projectId, body.version, values);
       if (!row) {
-        if (!(await projectsRepo.findById(trx, projectId))) throw notFound('The project');
+        if (!before) throw notFound('The project');
         throw staleVersion();
       }
       const { version: _v, ...changed } = body;
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'project.updated', subjectType: 'project', subjectId: projectId, details: changed });
+      // switching the unit system converts every draft in the same transaction: a draft is never in other units than its project
+      if (body.unitSystem !== undefined && before && before.unit_system !== body.unitSystem) await systemsService.convertDrafts(trx, actor, projectId, body.unitSystem);
       return toProject(row, 'designer');
     });
   },

@@ -8,7 +8,7 @@ import { log } from '../log';
 import { projectsRepo } from '../repositories/projects';
 import { revisionsRepo, systemsRepo, type RevisionRow, type RevisionSummaryRow, type SystemRow } from '../repositories/systems';
 import { auditRepo } from '../repositories/audit';
-import { iso } from '../db/rows';
+import { iso, type Tx } from '../db/rows';
 import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
 import { reviewLoopService } from './reviewLoop';
@@ -17,6 +17,8 @@ import type { Actor, ServiceContext } from './context';
 import { ATTESTATION_STATEMENTS, type Attestation, type AttestationRecord } from '../../src/shared/api/systems';
 import type { AnalysisOutcome, CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
 import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
+import { convertDocumentUnits } from '../../src/engine/building/convertUnits';
+import type { UnitSystem } from '../../src/engine';
 
 /** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
 export function analyse(document: unknown): AnalysisOutcome {
@@ -105,6 +107,13 @@ function starterDocument(name: string, service: 'cold' | 'hot', unitSystem: 'US'
     nodes: [{ id: 'connection', label: 'Connection to the main', elevation: 0, fixtureGroups: [], checkedFixtures: [] }],
     segments: [],
   });
+}
+
+/** A stored document in the project's units (as it is when they already agree, or when it cannot be read). */
+function inUnits(document: unknown, to: UnitSystem | undefined): unknown {
+  const parsed = readSystemDocument(document, { riseConflict: 'follow-rises' });
+  if (!to || !parsed.success || parsed.data.unitSystem === to) return document;
+  return convertDocumentUnits(parsed.data, to, { round: true });
 }
 
 function parseDocument(document: unknown): SystemDocument {
@@ -293,6 +302,29 @@ export const systemsService = {
     return revision;
   },
 
+  /**
+   * After the project's unit system changed: every system's draft is converted to it (each number
+   * with a unit, rounded to the places a designer writes in that unit: src/engine/building/
+   * convertUnits.ts), analysed again and saved as a new version, in the caller's transaction.
+   * Issued revisions stay as issued; a draft started from one later is converted then (newDraft).
+   */
+  async convertDrafts(trx: Tx, actor: Actor, projectId: string, to: UnitSystem): Promise<number> {
+    let converted = 0;
+    for (const system of await systemsRepo.listForProject(trx, projectId)) {
+      await locks.system(trx, system.id);
+      const draft = await revisionsRepo.draftOf(trx, system.id);
+      if (!draft) continue;
+      const before = parseDocument(draft.document);
+      if (before.unitSystem === to) continue;
+      const document = convertDocumentUnits(before, to, { round: true });
+      const saved = await revisionsRepo.saveDraft(trx, draft.id, draft.version, document, analyse(document), ENGINE_VERSION);
+      if (!saved) throw staleVersion();
+      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.units-converted', subjectType: 'revision', subjectId: draft.id, details: { number: draft.number, from: before.unitSystem, to, version: saved.version } });
+      converted++;
+    }
+    return converted;
+  },
+
   /** A new draft copied from any revision; a system has at most one draft. */
   async newDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, fromRevisionId: string): Promise<Revision> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
@@ -303,11 +335,14 @@ export const systemsService = {
       const from = await revisionsRepo.find(trx, systemId, fromRevisionId);
       if (!from) throw notFound('The revision');
       const number = await revisionsRepo.nextNumber(trx, systemId);
+      // a draft is in the project's units: a revision issued before the project switched is converted in its copy
+      const project = await projectsRepo.findById(trx, projectId);
+      const document = inUnits(from.document, project?.unit_system);
       const revision = await revisionsRepo.insert(trx, {
         system_id: systemId,
         number,
-        document: from.document,
-        analysis: analyse(from.document),
+        document,
+        analysis: analyse(document),
         engine_version: ENGINE_VERSION,
         created_by: actor.id,
         note: `Started from revision ${from.number}`,

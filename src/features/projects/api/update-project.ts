@@ -4,6 +4,7 @@ import { PermitFormFields, ProjectResponse, UpdateProjectBody } from '../../../s
 import type { Project } from '../../../shared/api/projects';
 import { api } from '../../../lib/api-client';
 import { projectKeys } from './keys';
+import { systemKeys } from '../../systems/api/keys';
 import type { getProject } from './get-project';
 
 /**
@@ -34,6 +35,8 @@ export function useUpdateProject() {
       return Promise.all([
         queryClient.invalidateQueries({ queryKey: projectKeys.detail(project.id) }),
         queryClient.invalidateQueries({ queryKey: projectKeys.lists() }),
+        // a switch of the unit system converts the project's drafts on the server (systems service convertDrafts)
+        queryClient.invalidateQueries({ queryKey: systemKeys.all }),
       ]);
     },
   });
