@@ -28,7 +28,7 @@ export function PipeStep() {
       </StepIntro>
       <SubstitutePanel onChanged={() => undefined} />
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Pipe and sizes">
-        <fieldset disabled={readOnlyReason !== null}>
+        <fieldset disabled={readOnlyReason !== null} className="min-w-0">
           <TreeEditor
             label="Pipe substitutions by segment"
             testIdPrefix="pipe"

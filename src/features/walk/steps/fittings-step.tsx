@@ -255,7 +255,7 @@ export function FittingsStep() {
         methods, on the size and the flow; the source of each type’s data is shown under it.
       </StepIntro>
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
-        <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
+        <fieldset disabled={readOnlyReason !== null} className="flex min-w-0 flex-col gap-4">
           {scope === 'field-change' ? (
             // the loss method is one of the designer's criteria: a field change keeps it as issued
             <p className="text-sm" data-testid="fitting-method-as-issued">

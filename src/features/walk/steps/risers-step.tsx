@@ -557,7 +557,7 @@ export function RisersStep() {
       </StepIntro>
       {scope === 'design' ? <p className="mb-4"><Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>Build from floors: floors, typical units and a riser from a short form →</Link></p> : null}
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Risers">
-        <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
+        <fieldset disabled={readOnlyReason !== null} className="flex min-w-0 flex-col gap-4">
           <div aria-live="polite">
             {undo ? (
               <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
