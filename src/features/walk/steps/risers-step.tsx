@@ -423,6 +423,45 @@ function SegmentDetail(p: DetailProps) {
 }
 
 /**
+ * The connection node itself: no segment ends there, so no row of the tree opens it. Fixtures served
+ * right at the connection (a hose bibb at the meter, a yard hydrant) and its name are edited here.
+ */
+function ConnectionNode({ view, update, policy, catalog, projectFixtures, units }: {
+  view: SystemDocument;
+  update: (change: (doc: SystemDocument) => SystemDocument) => void;
+  policy: EditPolicy;
+  catalog: Catalog;
+  projectFixtures: readonly ProjectEntryOf<'fixture-type'>[];
+  units: WalkContextValue['units'];
+}) {
+  const id = view.source.nodeId;
+  const node = view.nodes.find((n) => n.id === id);
+  const [defaults] = useState(() => ({
+    segments: [],
+    nodes: [{ id, label: node?.label ?? '', elevation: node?.elevation, continuousDemand: node?.continuousDemand, fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow) }],
+  }));
+  const form = useLiveForm(detailSchema, defaults, (v) => update((doc) => applyDetail(doc, v, projectFixtures)));
+  const { register, control, setValue, watch, formState: { errors } } = form;
+  const nodeLabel = watch('nodes.0.label') || id;
+  const groups = watch('nodes.0.fixtureGroups');
+  if (!node) return null;
+  return (
+    <details className="rounded-md border border-rule p-3" open={(node.fixtureGroups.length > 0) || undefined} data-testid="connection-node">
+      <summary className="cursor-pointer text-sm font-semibold">
+        At the connection ({nodeLabel}): {groups?.length ? plural(groups.length, 'fixture group') : 'no fixtures'}
+      </summary>
+      <div className="mt-3 flex flex-col gap-3">
+        <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
+          <label className="flex flex-col text-xs font-semibold">Node name<CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} /></label>
+          <label className="flex flex-col text-xs font-semibold">Continuous demand ({units.flow})<CellInput label={`Continuous demand at node ${id} (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[0]?.continuousDemand?.message)} {...register('nodes.0.continuousDemand', numberInput)} /></label>
+        </div>
+        <FixtureGroups index={0} control={control as never} register={register as never} setValue={setValue as never} rows={groups} projectFixtures={projectFixtures} catalog={catalog} nodeLabel={nodeLabel} errors={errors.nodes?.[0]?.fixtureGroups as never} locked={policy.locked.fixtures !== null} units={units} />
+      </div>
+    </details>
+  );
+}
+
+/**
  * The pipe step of the walk: the tree editor (one row per segment, edited in place), with the open
  * row's details — name, flow override, custom pipe, end node, its fixtures, add and remove — under it.
  */
@@ -584,6 +623,7 @@ export function RisersStep() {
           <div>
             <Button variant="secondary" disabled={policy.locked.topology !== null} onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
           </div>
+          <ConnectionNode key={`${document.source.nodeId}:${detailEpoch}`} view={view} update={update} policy={policy} catalog={catalog} projectFixtures={projectFixtures} units={units} />
           <Section title="Import fixture groups (CSV)" headingLevel={3}>
             <TextAreaField label="Lines of node id, fixture type id, count" hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named." value={csv} onChange={(ev) => setCsv(ev.target.value)} />
             <div className="mt-2 flex flex-wrap items-end gap-3">
