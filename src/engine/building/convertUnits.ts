@@ -84,6 +84,17 @@ function convertValue(q: Q, value: number, from: UnitSystem, to: UnitSystem, rou
   return rounded === 0 && out !== 0 ? Number(out.toPrecision(4)) : rounded;
 }
 
+/**
+ * A value held in SI, in the unit system's unit rounded to the places a designer writes (the same
+ * places as a converted document): a catalog template's 0.000946353 m³/s reads 15 gpm or 0.9464 L/s,
+ * not 15.0000001 or 0.946353. For values copied from a catalog into a document or shown beside one.
+ */
+export function roundedFromSI(q: Exclude<Q, 'pressurePerFlow'>, valueSI: number, to: UnitSystem): number {
+  const out = fromSI(q, valueSI, to);
+  const rounded = Number(out.toFixed(PLACES[q][to]));
+  return rounded === 0 && out !== 0 ? Number(out.toPrecision(4)) : rounded;
+}
+
 function visit(node: unknown, keys: readonly string[], fn: (v: number) => number): void {
   if (node === null || typeof node !== 'object') return;
   const [key, ...rest] = keys;

@@ -3,7 +3,7 @@
  * segment in tree order with what the row shows, the rows left visible by collapsed branches and
  * floors, and the edits a row or a selection makes.
  */
-import { fromSI } from '../../engine';
+import { roundedFromSI } from '../../engine/building/convertUnits';
 import type { CustomPipe, Device, Fitting, Segment, SegmentResult, SystemDocument } from '../../engine';
 import { DeviceSchema } from '../../engine/model/schema';
 import { MATERIALS } from '../../engine/catalog/materials';
@@ -180,9 +180,6 @@ export function setFittings(doc: SystemDocument, ids: Iterable<string>, fittings
 /** The loss a row shows: friction plus fittings, in the project's pressure unit. */
 export const lossOf = (r: SegmentResult | undefined) => (r ? r.frictionLoss + r.fittingLoss : undefined);
 
-/** Six significant figures: a template's converted points without binary noise (as the devices step rounds them). */
-const tidy = (x: number) => Number(x.toPrecision(6));
-
 /**
  * A device from a catalog template on a segment, as the devices step makes one: the template's
  * loss curve converted to the document's units, at the segment's inlet, after its devices.
@@ -205,6 +202,6 @@ export function deviceFromTemplate(
     kind: k,
     label: template.label,
     segmentId,
-    loss: { kind: 'curve', points: template.data.points.map((p) => ({ flow: tidy(fromSI('flow', p.flowM3s, sys)), loss: tidy(fromSI('pressure', p.lossPa, sys)) })) },
+    loss: { kind: 'curve', points: template.data.points.map((p) => ({ flow: roundedFromSI('flow', p.flowM3s, sys), loss: roundedFromSI('pressure', p.lossPa, sys) })) },
   } as Device;
 }

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { convertDocumentUnits } from '../../../src/engine/building/convertUnits';
+import { convertDocumentUnits, roundedFromSI } from '../../../src/engine/building/convertUnits';
 import { analyzeSystem } from '../../../src/engine';
 import { expectClose } from '../../helpers/expectClose';
 
@@ -43,5 +43,17 @@ describe('converting a document between unit systems', () => {
     const mb = b.fixtures.find((f) => f.id === a.criticalFixtureId)!.margin; // psi
     // Rounding to 0.01 ft, 0.01 psi, 0.0001 in: the design itself is unchanged to well under 0.1 psi.
     expect(Math.abs(mb - ma / 6.894757293168361)).toBeLessThan(0.1);
+  });
+
+  it('when a catalog value held in SI is shown in a unit system, then it reads rounded to the places a designer writes', () => {
+    // 15 gpm and 5 psi held in SI (1 gpm = 6.30901964e-5 m³/s, 1 psi = 6894.757 Pa: NIST SP 811 (2008) App. B)
+    const flowSI = 15 * 6.30901964e-5;
+    const lossSI = 5 * 6894.757293168361;
+    expect(roundedFromSI('flow', flowSI, 'US')).toBe(15);
+    expect(roundedFromSI('pressure', lossSI, 'US')).toBe(5);
+    expect(roundedFromSI('flow', flowSI, 'SI')).toBe(0.9464); // 0.946353 L/s
+    expect(roundedFromSI('pressure', lossSI, 'SI')).toBe(34.5); // 34.47379 kPa
+    // too small for its places: four significant figures instead of zero
+    expect(roundedFromSI('flow', 1e-9, 'SI')).toBe(0.000001);
   });
 });

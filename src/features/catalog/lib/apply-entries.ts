@@ -12,6 +12,7 @@
  * entry, or its removal, does not change a document already carrying the copy.
  */
 import { fromSI } from '../../../engine';
+import { roundedFromSI } from '../../../engine/building/convertUnits';
 import type { CustomFitting, CustomFixture, CustomPipe, Device, Fitting, FixtureGroup, UnitSystem } from '../../../engine';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 
@@ -57,15 +58,12 @@ export function matchProjectPipe(custom: CustomPipe | undefined, entries: readon
   return null;
 }
 
-/** Six significant figures: converted curve points without binary noise (0.1 + 0.2 …), as the seeded templates are shown. */
-const tidy = (x: number) => Number(x.toPrecision(6));
-
 /** A device's kind and loss curve from a project device template, in the document's units. */
 export function deviceFromProjectTemplate(entry: ProjectEntryOf<'device-template'>, sys: UnitSystem): Pick<Device, 'kind' | 'label'> & { points: { flow: number; loss: number }[] } {
   return {
     kind: entry.data.kind,
     label: entry.label,
-    points: entry.data.points.map((p) => ({ flow: tidy(fromSI('flow', p.flowM3s, sys)), loss: tidy(fromSI('pressure', p.lossPa, sys)) })),
+    points: entry.data.points.map((p) => ({ flow: roundedFromSI('flow', p.flowM3s, sys), loss: roundedFromSI('pressure', p.lossPa, sys) })),
   };
 }
 

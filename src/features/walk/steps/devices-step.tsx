@@ -5,7 +5,8 @@ import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
-import { boosterDesignGain, fromSI } from '../../../engine';
+import { boosterDesignGain } from '../../../engine';
+import { roundedFromSI } from '../../../engine/building/convertUnits';
 import type { Device, SystemDocument } from '../../../engine';
 import { DeviceSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
@@ -140,9 +141,6 @@ function BoosterFields({ index, register, control, errors, pressureUnit }: {
     </>
   );
 }
-
-/** Six significant figures: a template's converted points without binary noise (0.1 + 0.2 …). */
-const tidy = (x: number) => Number(x.toPrecision(6));
 
 function CurvePoints({ index, control, register, setValue, errors, units }: {
   index: number;
@@ -287,7 +285,7 @@ export function DevicesStep() {
       segmentId: firstSegment,
       lossKind: 'curve',
       fixedLoss: 0,
-      points: t.data.points.map((p) => ({ flow: tidy(fromSI('flow', p.flowM3s, sys)), loss: tidy(fromSI('pressure', p.lossPa, sys)) })),
+      points: t.data.points.map((p) => ({ flow: roundedFromSI('flow', p.flowM3s, sys), loss: roundedFromSI('pressure', p.lossPa, sys) })),
       prvSet: undefined,
       prvFalloff: 0,
       boostGain: undefined,
