@@ -63,6 +63,8 @@ async function enterAndCheck(page: Page, storeys: number, aims: { entries: numbe
     `velocities ${truth.verdict.allVelocitiesPass ? 'pass' : 'fail'}, static ${truth.verdict.allStaticPass ? 'pass' : 'fail'}`;
   console.log(line);
   fs.appendFileSync(`${screenshotDir()}/counts.txt`, `${line}\n`);
+  // `npm run bench` (scripts/bench/entry.ts) reads the counts from here
+  if (process.env.BENCH_ENTRY_OUT) fs.appendFileSync(process.env.BENCH_ENTRY_OUT, `${JSON.stringify({ storeys, fixtures: truth.fixtures.length, entries: c.entries, clicks: c.clicks, verdictAfterMs: shownAfterMs })}\n`);
   expect(c.entries).toBeLessThanOrEqual(aims.entries);
   expect(c.clicks).toBeLessThanOrEqual(aims.clicks);
 }

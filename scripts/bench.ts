@@ -10,14 +10,16 @@
  *   API     — the draft save (the server's analysis) in req/s against a bare Express endpoint,
  *             and the same save with 2 app processes against 1 (HEADROOM_PROCESSES: the scaling);
  *   client  — the first page's gzip JavaScript against its library chunks, and edit-to-ledger
- *             in Chromium against the same page's event-plus-one-frame floor.
+ *             in Chromium against the same page's event-plus-one-frame floor;
+ *   entry   — a new user entering the 4- and 40-storey buildings from an empty project: field
+ *             entries, clicks and the verdict after Generate (scripts/bench/entry.ts).
  *
  * The API and edit-to-ledger rows run the real server (`node --import tsx server/index.ts`) over
  * a throw-away PostgreSQL cluster (scripts/lib/postgres.mjs, via tests/load/world.ts), removed at
  * the end. Options:
  *
  *   npm run bench -- --quick          fewer runs and shorter rounds (about a third of the time)
- *   npm run bench -- --only engine,sizing,pdf,calc,api,processes,client
+ *   npm run bench -- --only engine,sizing,pdf,calc,api,processes,client,entry
  *   npm run bench -- --rebuild        build the client even when dist/ looks up to date
  *
  * Writes bench-output/bench.md (the table as markdown, with its date and machine) and
@@ -34,6 +36,7 @@ import { apiRows, startNodeServer, type NodeServer } from './bench/api';
 import { processRows } from './bench/processes';
 import { calcRows } from './bench/calc';
 import { buildClient, firstPageRow, ledgerRows } from './bench/client';
+import { entryRows } from './bench/entry';
 import { markdownTable, machineLine, ratioOf, type BenchRow } from './bench/table';
 import { root, startCluster, type Cluster } from '../tests/load/world';
 
@@ -41,7 +44,7 @@ const args = process.argv.slice(2);
 const quick = args.includes('--quick');
 const onlyArg = args.find((a) => a.startsWith('--only'));
 const onlyValue = onlyArg?.includes('=') ? onlyArg.split('=')[1] : onlyArg ? args[args.indexOf(onlyArg) + 1] : undefined;
-const PARTS = ['engine', 'sizing', 'pdf', 'calc', 'api', 'processes', 'client'] as const;
+const PARTS = ['engine', 'sizing', 'pdf', 'calc', 'api', 'processes', 'client', 'entry'] as const;
 const only = new Set(onlyValue ? onlyValue.split(',') : PARTS);
 for (const p of only) if (!(PARTS as readonly string[]).includes(p)) throw new Error(`--only: unknown part "${p}" (parts: ${PARTS.join(', ')})`);
 const want = (p: (typeof PARTS)[number]) => only.has(p);
@@ -93,10 +96,10 @@ try {
     log(`command line: ${PLAN.calcRuns} runs of each process …`);
     rows.push(...calcRows(PLAN.calcRuns, log));
   }
-  const build = want('client') ? buildClient(args.includes('--rebuild'), log) : null;
-  if (build) rows.push(...firstPageRow(build));
+  const build = want('client') || want('entry') ? buildClient(args.includes('--rebuild'), log) : null;
+  if (build && want('client')) rows.push(...firstPageRow(build));
 
-  if (want('api') || want('processes') || (want('client') && build?.dist)) {
+  if (want('api') || want('processes') || ((want('client') || want('entry')) && build?.dist)) {
     log('a throw-away PostgreSQL cluster, migrated and seeded (scripts/db.ts setup) …');
     cluster = await startCluster('bench');
     // the client is served when there is a build, so the browser part can use the same server
@@ -120,6 +123,8 @@ try {
     }
   }
   if (want('client') && build?.dist) rows.push(...ledgerRows({ baseUrl: app!.url, edits: PLAN.edits, tmpDir, log, buildNote: build.note }));
+  if (want('entry') && build?.dist) rows.push(...entryRows({ baseUrl: app!.url, tmpDir, log, buildNote: build.note }));
+  else if (want('entry')) rows.push({ figure: 'client: building entry from an empty project', unit: 'count', median: Number.NaN, runs: 0, note: build?.note ?? 'no client build' });
 } catch (err) {
   problems.push(err instanceof Error ? (err.stack ?? err.message) : String(err));
   if (app) problems.push(`server log (end):\n${app.log.join('').slice(-2000)}`);

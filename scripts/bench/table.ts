@@ -4,7 +4,7 @@
  */
 import os from 'node:os';
 
-export type Unit = 'ms' | 'req/s' | 'kB' | 'px';
+export type Unit = 'ms' | 'req/s' | 'kB' | 'px' | 'count';
 
 export interface BenchRow {
   /** what is measured, e.g. "engine: 40-storey building, 5,000 segments, analyzeSystem" */
@@ -32,6 +32,7 @@ function fmt(value: number, unit: Unit): string {
   if (unit === 'req/s') return `${Math.round(value).toLocaleString('en-US')} req/s`;
   if (unit === 'kB') return `${value.toFixed(1)} kB`;
   if (unit === 'px') return `${Math.round(value).toLocaleString('en-US')} px`;
+  if (unit === 'count') return Math.round(value).toLocaleString('en-US');
   return `${value < 10 ? value.toFixed(2) : value.toFixed(1)} ms`;
 }
 
