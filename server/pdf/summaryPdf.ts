@@ -7,7 +7,7 @@ import { PDFDocument, PDFName, PDFNumber, PDFString } from 'pdf-lib';
 import { ledgerFor, fromSI, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
-import { boosterText, fixtureGroupLabel, fixtureGroupWsfu } from '../../src/engine/model/labels';
+import { boosterText, DEVICE_KIND_LABELS, fixtureGroupLabel, fixtureGroupWsfu, SOURCE_KIND_LABELS, WARNING_SEVERITY_WORDS } from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows, zoneRows, type Names } from './summaryTables';
 import { adoptedCodeText, attestationLines, permitFrame, permitRows, type AttestationText } from './permitContent';
@@ -72,19 +72,10 @@ export interface SummaryPdf {
   pageCount: number;
 }
 
-const DEVICE_KIND: Record<string, string> = {
-  meter: 'Meter',
-  'backflow-preventer': 'Backflow preventer',
-  prv: 'Pressure-reducing valve',
-  strainer: 'Strainer',
-  softener: 'Softener',
-  filter: 'Filter',
-  'water-heater': 'Water heater',
-  'booster-pump': 'Booster pump',
-  other: 'Other device',
-};
-const SOURCE_KIND: Record<string, string> = { 'utility-main': 'Utility main', tank: 'Tank', 'booster-outlet': 'Booster outlet' };
-const SEVERITY: Record<string, string> = { fail: 'Not met', caution: 'Caution', note: 'Note' };
+// the screens' own words (src/engine/model/labels.ts)
+const DEVICE_KIND: Record<string, string> = DEVICE_KIND_LABELS;
+const SOURCE_KIND: Record<string, string> = SOURCE_KIND_LABELS;
+const SEVERITY: Record<string, string> = WARNING_SEVERITY_WORDS;
 
 export async function renderSummaryPdf(input: SummaryPdfInput, sections: readonly SummarySection[] = SUMMARY_SECTIONS): Promise<SummaryPdf> {
   const { header, document: doc, analysis: a } = input;

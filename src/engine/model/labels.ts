@@ -6,7 +6,26 @@
  */
 import { FIXTURE_TYPES } from '../catalog/fixtures';
 import { FITTING_TYPES } from '../fittings/types';
-import type { Boost, Fitting, FixtureGroup } from './schema';
+import type { Boost, Device, Fitting, FixtureGroup, Source } from './schema';
+
+/*
+ * The words the screens and the issued summary share, so the paper says what the screen said:
+ * a device's kind, a source's kind, a warning's severity.
+ */
+export const DEVICE_KIND_LABELS: Record<Device['kind'], string> = {
+  meter: 'Meter',
+  'backflow-preventer': 'Backflow preventer',
+  prv: 'Pressure-reducing valve',
+  strainer: 'Strainer',
+  softener: 'Softener',
+  filter: 'Filter',
+  'water-heater': 'Water heater',
+  'booster-pump': 'Booster pump',
+  other: 'Other device',
+};
+export const SOURCE_KIND_LABELS: Record<Source['kind'], string> = { 'utility-main': 'Utility main', tank: 'Tank', 'booster-outlet': 'Booster pump outlet' };
+/** A warning's severity in words: a criterion not met, a caution, a note. */
+export const WARNING_SEVERITY_WORDS = { fail: 'Not met', caution: 'Caution', note: 'Note' } as const;
 
 /** "90° standard elbow", or "Ball valve (project data, K 0.05)" / "Y-strainer (project data, equivalent length 4 ft)". */
 export function fittingLabel(f: Fitting, lengthUnit?: string): string {

@@ -1,6 +1,5 @@
 import type { EngineWarning } from '../../../engine';
-
-const SEVERITY_WORDS = { fail: 'Fails a criterion', caution: 'Caution', note: 'Note' } as const;
+import { WARNING_SEVERITY_WORDS as SEVERITY_WORDS } from '../../../engine/model/labels';
 
 /** What a warning is about, in the words the designer typed (the engine's label), never an internal id. */
 function aboutText(w: EngineWarning): string {

@@ -7,6 +7,7 @@ import { Section } from '../../../components/ui/card';
 import { SelectField, TextAreaField } from '../../../components/ui/field';
 import { boosterDesignGain } from '../../../engine';
 import { roundedFromSI } from '../../../engine/building/convertUnits';
+import { DEVICE_KIND_LABELS } from '../../../engine/model/labels';
 import type { Device, SystemDocument } from '../../../engine';
 import { DeviceSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
@@ -19,17 +20,7 @@ import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { deviceFromProjectTemplate, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 
 const KINDS = DeviceSchema.shape.kind.options;
-const KIND_LABELS: Record<Device['kind'], string> = {
-  meter: 'Meter',
-  'backflow-preventer': 'Backflow preventer',
-  prv: 'Pressure-reducing valve',
-  strainer: 'Strainer',
-  softener: 'Softener',
-  filter: 'Filter',
-  'water-heater': 'Water heater',
-  'booster-pump': 'Booster pump',
-  other: 'Other',
-};
+const KIND_LABELS = DEVICE_KIND_LABELS;
 
 const num = z.number({ error: 'Enter a number' }).nonnegative('Must be zero or more');
 const row = z

@@ -10,12 +10,9 @@ import { fmt } from '../lib/format';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { FedFromSection } from '../components/fed-from-section';
+import { SOURCE_KIND_LABELS } from '../../../engine/model/labels';
 
-const SOURCE_KINDS = [
-  { value: 'utility-main', label: 'Utility main' },
-  { value: 'tank', label: 'Tank' },
-  { value: 'booster-outlet', label: 'Booster pump outlet' },
-] as const;
+const SOURCE_KINDS = (['utility-main', 'tank', 'booster-outlet'] as const).map((value) => ({ value, label: SOURCE_KIND_LABELS[value] }));
 
 const optionalDate = z.preprocess((v) => (v === '' ? undefined : v), z.iso.date('Enter a date as YYYY-MM-DD').optional());
 
