@@ -215,7 +215,7 @@ describe('the closed-system check across the cold system (fedFrom)', () => {
       { id: 'rp', kind: 'backflow-preventer', label: 'RP assembly at the meter', segmentId: 'sa', loss: { kind: 'fixed', loss: 70 } },
       { id: 'prv-d', kind: 'prv', label: 'Hose branch PRV', segmentId: 'sd', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 300, falloffPerFlow: 0 } },
     ];
-    d.segments = d.segments.map((s) => (s.id === 'sb' ? { ...s, fittings: [...s.fittings, { typeId: 'valve-check-swing', count: 1 }] } : s));
+    d.segments = d.segments.map((s) => (s.id === 'sb' ? { ...s, fittings: [...(s.fittings ?? []), { typeId: 'valve-check-swing', count: 1 }] } : s));
     return d;
   }
   const view = (doc: SystemDocumentInput, withDocument = true): ColdSupplyView => ({
