@@ -89,6 +89,16 @@ export function analyseRecirculation(doc: SystemDocument, criteria: Pick<Criteri
     if (!(r.temperatureDrop > 0)) {
       throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', `The allowed temperature drop around the loop must be greater than zero (it is ${r.temperatureDrop} ${us ? '°F' : 'K'}).`);
     }
+    for (const s of r.segments) {
+      if (s.heatLoss === undefined && r.heatLossPerLength === undefined) {
+        throw new HotWaterInputError(
+          'heat-loss-missing',
+          'heatLoss',
+          `Loop pipe "${s.label || s.id}" has no heat loss: give its own (${us ? 'Btu/h' : 'W'}) or the loop's heat loss per length (${us ? 'Btu/h per ft' : 'W/m'}).`,
+          s.id,
+        );
+      }
+    }
     const segments = r.segments.map((s): LoopSegment => {
       const lengthM = toSI('length', s.length, sys);
       return {
