@@ -76,3 +76,52 @@ test("when a hot system is fed from a cold one, then its supply is the cold syst
   expect(Math.abs(revision.revision.document.source.staticPressureLow - 52) / 52).toBeLessThan(1e-12);
   expect(problems).toEqual([]);
 });
+
+test('when a designer describes a recirculation loop on a fresh hot system, then the result step shows the loop flow, the pump flow and head and the return sizes, and names a loop it cannot compute', async ({ page }) => {
+  const problems: string[] = [];
+  page.on('pageerror', (error) => problems.push(`uncaught: ${error.message}`));
+  const project = await newProject([], 'Wrenmoor Laundry');
+  await signIn(page, DEMO.designer);
+  const hotUrl = await newSystem(page, project.path, `Laundry hot ${fresh()}`, 'hot');
+  await page.goto(hotUrl.replace(/\/supply$/, '/result'));
+
+  const loop = page.getByTestId('recirculation');
+  await expect(loop).toContainText('No recirculation loop is described.');
+  await page.getByRole('button', { name: 'Describe a recirculation loop' }).click();
+  // The starting loop has no heat loss yet: a named error, and the loop is not computed.
+  await expect(page.getByTestId('recirculation-error')).toContainText('has no heat loss');
+  await expect(page.getByTestId('recirculation-error')).toContainText('recirculation.segments[0].heatLoss');
+
+  // 20 Btu/h per ft over the starting loop's 2 × 50 ft, 10 °F drop (invented figures).
+  await page.getByLabel('Heat loss per length of pipe (Btu/h per ft)').fill('20');
+  await expect(page.getByTestId('recirculation-pump-flow')).toContainText('gpm');
+  await saved(page);
+  await shot(page, '03-recirculation');
+
+  // The page shows what the server's analysis of the saved draft says.
+  const path = new URL(hotUrl).pathname.replace(/\/supply$/, '');
+  type Stored = { revision: { document: { recirculation?: unknown }; analysis: { analysis: { recirculation?: { ok: boolean; pumpFlow: number; pumpHead: number; pumpHeadLength: number; heatLoss: number; pipes: { segmentId: string; size: string; sizeChosen: boolean }[] } } } } };
+  const stored = await project.designer.get<Stored>(`/api${path}`);
+  const r = stored.revision.analysis.analysis.recirculation;
+  expect(r?.ok).toBe(true);
+  if (!r?.ok) return;
+  // 100 ft × 20 Btu/h per ft, through W and back (relative 1e-12: floating-point rounding only).
+  expect(Math.abs(r.heatLoss - 2000) / 2000).toBeLessThan(1e-12);
+  await expect(page.getByTestId('recirculation-heat-loss')).toHaveText('2,000 Btu/h');
+  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(`${r.pumpFlow.toFixed(2)} gpm`);
+  await expect(page.getByTestId('recirculation-pump-head')).toHaveText(`${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft of water)`);
+  for (const p of r.pipes) await expect(page.getByTestId(`recirculation-size-${p.segmentId}`)).toHaveText(`${p.size} (chosen)`);
+  await expect(page.getByTestId('recirculation-sources')).toContainText('Rinnai design manual R-TRWH-E-02');
+  console.log(`fresh loop: ${r.pumpFlow.toFixed(3)} gpm at ${r.pumpHead.toFixed(3)} psi; returns ${r.pipes.map((p) => p.size).join(', ')}`);
+
+  // A drop of zero: named, and the rest of the result is still shown.
+  const drop = page.getByLabel('Temperature drop allowed around the loop (°F)');
+  await drop.fill('0');
+  await expect(page.getByTestId('recirculation-error')).toContainText('recirculation.temperatureDrop');
+  await expect(page.getByTestId('overall-verdict')).toContainText('Incomplete');
+  await expect(page.getByTestId('overall-verdict')).toContainText('Recirculation loop');
+  await drop.fill('10');
+  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(`${r.pumpFlow.toFixed(2)} gpm`);
+  await saved(page);
+  expect(problems).toEqual([]);
+});

@@ -14,6 +14,7 @@ import { adoptedCodeText, attestationLines, permitFrame, permitRows, type Attest
 import type { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { embedFonts } from './fonts';
 import { reviewResponsesSection, type ReviewResponses } from './sections/reviewResponses';
+import { recirculationSection } from './sections/recirculation';
 import { riserDiagramSection } from './riserSection';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
@@ -147,6 +148,7 @@ export const SUMMARY_SECTIONS: readonly SummarySection[] = [
   { id: 'inputs', build: inputsSection },
   { id: 'results', build: resultsSection },
   { id: 'zones', build: zonesSection },
+  { id: 'recirculation', build: recirculationSection },
   { id: 'cautions', build: cautionsSection },
   { id: 'preparer', build: preparerSection },
   { id: 'riser-diagram', build: riserDiagramSection },

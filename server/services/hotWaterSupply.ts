@@ -20,7 +20,7 @@ async function coldView(db: Tx, projectId: string, systemId: string): Promise<Co
     name: system.name,
     service: system.service,
     revision: revision
-      ? { number: revision.number, status: revision.status === 'draft' ? 'draft' : 'issued', analysis: revision.analysis as NonNullable<ColdSupplyView['revision']>['analysis'] }
+      ? { number: revision.number, status: revision.status === 'draft' ? 'draft' : 'issued', analysis: revision.analysis as NonNullable<ColdSupplyView['revision']>['analysis'], document: revision.document }
       : null,
   };
 }

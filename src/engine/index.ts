@@ -70,10 +70,12 @@ export { sizeSystem, SizingError, type SizingOptions, type SizingResult, type Se
 export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult } from './sizing/substitute';
 export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';
 export { thermalExpansionTank } from './hotWater/expansionTank';
-export { closedSystemCheck } from './hotWater/closedSystem';
+export { closedSystemCheck, closingElementWords } from './hotWater/closedSystem';
 export { applyFedFrom, resolveFedFrom, fedFromBasis } from './hotWater/fedFrom';
 export { sizeDocumentExpansionTank } from './hotWater/expansionTankCheck';
 export type { ExpansionTankSizing } from './hotWater/expansionTankCheck';
-export type { ColdSupplyView } from './hotWater/fedFrom';
+export type { ColdSupplyView, ClosingElementView } from './hotWater/fedFrom';
 export { sizeRecirculation, recirculationFlow } from './hotWater/recirculation';
 export { HotWaterInputError } from './hotWater/errors';
+export { RecirculationSchema, RecirculationSegmentSchema, type Recirculation, type RecirculationSegment } from './model/schema';
+export { analyseRecirculation, W_PER_BTU_PER_H, type RecirculationAnalysis, type RecirculationPipeResult } from './hotWater/recirculationDocument';

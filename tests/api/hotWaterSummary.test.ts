@@ -44,3 +44,44 @@ describe("the summary names a hot system's source", () => {
     expect(fedFromText(applyFedFrom(doc, null), 'psi')).toMatch(/^NOT READ — The cold-water system this hot system is fed from is not in the project/);
   });
 });
+
+describe('the summary shows the hot system\'s recirculation loop', () => {
+  it('when the demo hot system describes a loop up its riser and back, then the PDF prints the loop flow, the pump head and the return sizes, as the analysis has them', async () => {
+    const doc = example('alder-finch-hot');
+    // Invented loop: out along the hot distribution to the riser at level 2, back by a return to the heater.
+    doc.recirculation = {
+      segments: [
+        { id: 'rc-out-1', label: 'Heater to mixing valve', from: 'heater', to: 'tmv-out', length: 12, material: 'copper-l', size: '2' },
+        { id: 'rc-out-2', label: 'Distribution to riser base', from: 'tmv-out', to: 'riser-base', length: 35, material: 'copper-l', size: '2' },
+        { id: 'rc-out-3', label: 'Riser to level 2', from: 'riser-base', to: 'hr2', length: 16, material: 'copper-l', size: '2-1/2' },
+        { id: 'rc-ret-1', label: 'Return down to level 1', from: 'hr2', to: 'ret-base', length: 16, material: 'copper-l' },
+        { id: 'rc-ret-2', label: 'Return to the heater', from: 'ret-base', to: 'heater', length: 50, material: 'copper-l' },
+      ],
+      heatLossPerLength: 25,
+      temperatureDrop: 10,
+    };
+    const a = analyzeSystem(doc);
+    const r = a.recirculation;
+    if (!r?.ok) throw new Error(`expected a computed loop, got ${JSON.stringify(r)}`);
+    const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: a });
+    const file = path.join(tmp, 'hot-loop.pdf');
+    fs.writeFileSync(file, bytes);
+    const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+    expect(text).toContain('Hot-water recirculation');
+    // pdftotext reads the label column before the values: each is looked for on its own.
+    expect(text).toContain('Loop flow = pump flow');
+    expect(text).toContain(`${r.pumpFlow.toFixed(2)} gpm`);
+    expect(text).toContain(`${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft of water)`);
+    for (const p of r.pipes.filter((x) => x.sizeChosen)) expect(text).toContain(`${p.size} (chosen, return)`);
+    expect(text).toContain('Rinnai design manual R-TRWH-E-02');
+    console.log(`demo loop: ${r.pumpFlow.toFixed(2)} gpm at ${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft); returns ${r.pipes.filter((x) => x.sizeChosen).map((x) => x.size).join(', ')}`);
+  });
+
+  it('when the hot system describes no loop, then the summary has no recirculation part', async () => {
+    const doc = example('alder-finch-hot');
+    const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: analyzeSystem(doc) });
+    const file = path.join(tmp, 'hot-no-loop.pdf');
+    fs.writeFileSync(file, bytes);
+    expect(execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' })).not.toContain('Hot-water recirculation');
+  });
+});

@@ -127,4 +127,42 @@ describe('a hot system fed from a cold system', () => {
     expect(res.body.revision.document.source.staticPressureLow).toBe(coldNode.pressure);
     expect(res.body.revision.document.source.fedFrom.resolution).toMatchObject({ status: 'resolved', systemName: 'Cold water', revisionNumber: 1, revisionStatus: 'draft' });
   });
+
+  it("when the cold system has an RP assembly upstream of the heater feed and the hot system has no expansion tank, then the hot analysis cautions, naming the cold system's device", async () => {
+    const p = await projectWithRoles(h);
+    const systems = `/api/projects/${p.projectId}/systems`;
+    const coldDoc = smallDocument();
+    coldDoc.devices.push({ id: 'rp', kind: 'backflow-preventer', label: 'Reduced-pressure assembly at the service', segmentId: 'service', loss: { kind: 'fixed', loss: 10 } });
+    const cold = (await p.designer.send('POST', systems, { name: 'Bathhouse cold water', service: 'cold', document: coldDoc }).expect(201)).body;
+    const hot = (await p.designer.send('POST', systems, { name: 'Bathhouse hot water', service: 'hot', document: hotDocument(cold.system.id, 'l2') }).expect(201)).body;
+    const saved = (await p.designer.send('GET', `${systems}/${hot.system.id}/revisions/${hot.revision.id}`).expect(200)).body.revision;
+    expect(saved.document.source.fedFrom.resolution).toMatchObject({ status: 'resolved', closedBy: [{ kind: 'backflow-preventer', elementId: 'rp', label: 'Reduced-pressure assembly at the service' }] });
+    // The hot document itself has no closing device: only the cold side closes it.
+    expect(saved.document.devices.map((d: { kind: string }) => d.kind)).toEqual(['water-heater']);
+    const cautions = saved.analysis.analysis.warnings.filter((w: { code: string }) => w.code === 'expansion-tank-missing');
+    expect(cautions).toHaveLength(1);
+    expect(cautions[0].detail).toContain('Reduced-pressure assembly at the service');
+    expect(cautions[0].detail).toContain('"Bathhouse cold water"');
+    console.log(cautions[0].detail);
+
+    // With an expansion tank described on the hot system, the caution goes.
+    const doc = structuredClone(saved.document);
+    doc.expansionTank = { heaterVolume: 80, coldTemperature: 50, hotTemperature: 140, supplyPressure: 50, reliefPressure: 135 };
+    await p.designer.send('PUT', `${systems}/${hot.system.id}/revisions/${hot.revision.id}/document`, { document: doc, version: saved.version }).expect(200);
+    const withTank = (await p.designer.send('GET', `${systems}/${hot.system.id}/revisions/${hot.revision.id}`).expect(200)).body.revision;
+    expect(withTank.analysis.analysis.warnings.some((w: { code: string }) => w.code === 'expansion-tank-missing')).toBe(false);
+  });
+
+  it('when the cold system has no closing device upstream of the feed, then no caution and nothing recorded; adding one to the cold draft brings the caution to the hot draft', async () => {
+    const { designer, cold, coldBase, hotBase } = await coldAndHot();
+    const before = (await designer.send('GET', hotBase).expect(200)).body.revision;
+    expect('closedBy' in before.document.source.fedFrom.resolution).toBe(false);
+    expect(before.analysis.analysis.warnings.some((w: { code: string }) => w.code === 'expansion-tank-missing')).toBe(false);
+    const doc = structuredClone(cold.revision.document);
+    doc.devices.push({ id: 'dc', kind: 'backflow-preventer', label: 'Double check assembly', segmentId: 'service', loss: { kind: 'fixed', loss: 5 } });
+    await designer.send('PUT', `${coldBase}/document`, { document: doc, version: cold.revision.version }).expect(200);
+    const after = (await designer.send('GET', hotBase).expect(200)).body.revision;
+    const caution = after.analysis.analysis.warnings.find((w: { code: string }) => w.code === 'expansion-tank-missing');
+    expect(caution?.detail).toContain('Double check assembly');
+  });
 });

@@ -14,6 +14,7 @@ import { runStaticChecks } from './staticChecks';
 import { labelWarnings } from './names';
 import { pexMetalFittingWarnings } from './pexFittings';
 import { expansionTankWarnings } from '../hotWater/expansionTankCheck';
+import { addRecirculation } from '../hotWater/recirculationDocument';
 import { computeDemand } from './demand';
 import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
@@ -49,6 +50,7 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   // assembleReport ends with the last guard: no NaN or Infinity in the SI results (finite.ts).
   const analysis = assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
   analysis.zones = computeZones(model, topo, hyd, checks, analysis.verdict.incomplete);
+  addRecirculation(analysis, model.doc, model.criteria);
   return analysis;
 }
 

@@ -7,6 +7,7 @@
 import type { UnitSystem } from '../units';
 import type { EngineWarning } from '../warnings';
 import type { FlowRegime } from '../friction';
+import type { RecirculationAnalysis } from '../hotWater/recirculationDocument';
 
 export interface DeviceLossResult {
   deviceId: string;
@@ -273,6 +274,8 @@ export interface Analysis extends AnalysisResults {
   staticChecks: StaticChecks;
   /** Pressure zones (analysis/zones.ts), the supply's first; absent in analyses stored before zones existed. */
   zones?: ZoneResult[];
+  /** Hot water: the recirculation loop's flow, return sizes and pump (hotWater/recirculationDocument.ts), when the document describes one. */
+  recirculation?: RecirculationAnalysis;
   warnings: EngineWarning[];
   /** The same results in SI base units: Pa, m, m³/s, m/s. */
   si: AnalysisResults;

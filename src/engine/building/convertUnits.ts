@@ -8,9 +8,23 @@
  * 1 kPa would be coarser than the analysis needs; these keep the converted design within 0.1 % of
  * the original). Catalog sizes ("3/4") are names, not numbers, and stay as they are.
  */
-import { fromSI, toSI, type Quantity, type UnitSystem } from '../units';
+import { fromSI, M3_PER_GAL, M_PER_FT, toSI, type Quantity, type UnitSystem } from '../units';
+import { W_PER_BTU_PER_H } from '../hotWater/recirculationDocument';
 
-type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | 'pressurePerFlow';
+/** The hot-water inputs' own quantities, which the units module does not carry: heat (Btu/h ↔ W), heat per length, a temperature difference (°F ↔ K) and a volume (gal ↔ L). */
+type HotWaterQ = 'heat' | 'heatPerLength' | 'temperatureDifference' | 'volume';
+type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | 'pressurePerFlow' | HotWaterQ;
+
+/**
+ * SI per US unit: 1 Btu_IT = 1055.05585262 J (NIST SP 811 (2008) App. B.8), per hour; 1 ft = 0.3048 m;
+ * 1 °F of difference = 1/1.8 K (NIST SP 811 §B.9); 1 US gal = 3.785411784 L (exact, NIST SP 811 App. B).
+ */
+const HOT_WATER_FACTORS: Record<HotWaterQ, number> = {
+  heat: W_PER_BTU_PER_H,
+  heatPerLength: W_PER_BTU_PER_H / M_PER_FT,
+  temperatureDifference: 1 / 1.8,
+  volume: M3_PER_GAL * 1000,
+};
 
 /** Decimal places per quantity and target unit system. */
 const PLACES: Record<Q, Record<UnitSystem, number>> = {
@@ -22,6 +36,10 @@ const PLACES: Record<Q, Record<UnitSystem, number>> = {
   velocity: { US: 2, SI: 3 },
   temperature: { US: 1, SI: 1 },
   pressurePerFlow: { US: 4, SI: 2 },
+  heat: { US: 0, SI: 1 },
+  heatPerLength: { US: 2, SI: 2 },
+  temperatureDifference: { US: 1, SI: 2 },
+  volume: { US: 2, SI: 1 },
 };
 
 /** Where the numbers with a unit are, as paths of keys ("*" = every element or every record key). */
@@ -71,12 +89,27 @@ const FIELDS: readonly [path: string, q: Q][] = [
   ['placements.*.overrides.segments.*.length', 'length'],
   ['placements.*.overrides.segments.*.fittings.*.custom.equivalentLength', 'length'],
   ['placements.*.overrides.nodes.*.heightAboveFloor', 'length'],
+  ['expansionTank.heaterVolume', 'volume'],
+  ['expansionTank.coldTemperature', 'temperature'],
+  ['expansionTank.hotTemperature', 'temperature'],
+  ['expansionTank.supplyPressure', 'pressure'],
+  ['expansionTank.reliefPressure', 'pressure'],
+  ['recirculation.segments.*.length', 'length'],
+  ['recirculation.segments.*.heatLoss', 'heat'],
+  ['recirculation.heatLossPerLength', 'heatPerLength'],
+  ['recirculation.temperatureDrop', 'temperatureDifference'],
+  ['recirculation.hotTemperature', 'temperature'],
+  ['recirculation.heaterLoss', 'pressure'],
 ];
 
 function convertValue(q: Q, value: number, from: UnitSystem, to: UnitSystem, round: boolean): number {
   let out: number;
   if (q === 'pressurePerFlow') out = fromSI('pressure', toSI('pressure', value, from), to) / fromSI('flow', toSI('flow', 1, from), to);
-  else out = fromSI(q, toSI(q, value, from), to);
+  else if (q in HOT_WATER_FACTORS) {
+    const f = HOT_WATER_FACTORS[q as HotWaterQ];
+    const si = from === 'US' ? value * f : value;
+    out = to === 'US' ? si / f : si;
+  } else out = fromSI(q as Exclude<Q, 'pressurePerFlow' | HotWaterQ>, toSI(q as Exclude<Q, 'pressurePerFlow' | HotWaterQ>, value, from), to);
   if (!round) return out;
   // A value too small for its places (a tiny PRV fall-off) keeps 4 significant figures instead of 0.
   const places = PLACES[q][to];
@@ -89,7 +122,7 @@ function convertValue(q: Q, value: number, from: UnitSystem, to: UnitSystem, rou
  * places as a converted document): a catalog template's 0.000946353 m³/s reads 15 gpm or 0.9464 L/s,
  * not 15.0000001 or 0.946353. For values copied from a catalog into a document or shown beside one.
  */
-export function roundedFromSI(q: Exclude<Q, 'pressurePerFlow'>, valueSI: number, to: UnitSystem): number {
+export function roundedFromSI(q: Exclude<Q, 'pressurePerFlow' | HotWaterQ>, valueSI: number, to: UnitSystem): number {
   const out = fromSI(q, valueSI, to);
   const rounded = Number(out.toFixed(PLACES[q][to]));
   return rounded === 0 && out !== 0 ? Number(out.toPrecision(4)) : rounded;

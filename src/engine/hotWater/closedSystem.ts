@@ -15,6 +15,8 @@ export interface ClosingElement {
   elementId: string;
   label: string;
   kind: 'backflow-preventer' | 'prv' | 'check-valve';
+  /** Set when the element is in the cold system this hot system is fed from (upstream of the heater feed). */
+  coldSystemName?: string;
 }
 
 export interface ClosedSystemCheck {
@@ -30,8 +32,25 @@ export interface ClosedSystemCheck {
 const CHECK_VALVE_FITTINGS = new Set(['valve-check-swing', 'valve-check-lift']);
 const TANK_LABEL = /expansion\s*tank/i;
 
-export function closedSystemCheck(doc: Pick<SystemDocument, 'devices' | 'segments' | 'service'>): ClosedSystemCheck {
+/** How a closing element is named in words: the cold system's are named with their system. */
+export function closingElementWords(c: ClosingElement): string {
+  return c.coldSystemName === undefined ? c.label : `${c.label} (in the cold system "${c.coldSystemName}", upstream of the heater feed)`;
+}
+
+/**
+ * Closed by the system's own devices and check valves, and — for a hot system fed from a cold one —
+ * by the cold system's backflow preventers, PRVs and check valves between its source and the heater
+ * feed (recorded on `source.fedFrom.resolution.closedBy` by fedFrom.ts): the water heated cannot
+ * push back past them either.
+ */
+export function closedSystemCheck(doc: Pick<SystemDocument, 'devices' | 'segments' | 'service'> & { source?: Pick<SystemDocument['source'], 'fedFrom'> }): ClosedSystemCheck {
   const closingElements: ClosingElement[] = [];
+  const resolution = doc.source?.fedFrom?.resolution;
+  if (resolution?.status === 'resolved') {
+    for (const c of resolution.closedBy ?? []) {
+      closingElements.push({ elementType: c.kind === 'check-valve' ? 'fitting' : 'device', elementId: c.elementId, label: c.label, kind: c.kind, coldSystemName: resolution.systemName });
+    }
+  }
   for (const d of doc.devices) {
     if (d.kind === 'backflow-preventer' || d.kind === 'prv') {
       closingElements.push({ elementType: 'device', elementId: d.id, label: d.label, kind: d.kind });
@@ -55,7 +74,7 @@ export function closedSystemCheck(doc: Pick<SystemDocument, 'devices' | 'segment
     expansionTankPresent,
     cautionMissingTank,
     message: cautionMissingTank
-      ? `The system is closed by ${closingElements.map((c) => c.label).join(', ')} and has no expansion tank: heated water will raise the pressure to the relief setting. Size a thermal expansion tank; the adopted code and the AHJ govern.`
+      ? `The system is closed by ${closingElements.map(closingElementWords).join(', ')} and has no expansion tank: heated water will raise the pressure to the relief setting. Size a thermal expansion tank; the adopted code and the AHJ govern.`
       : null,
   };
 }

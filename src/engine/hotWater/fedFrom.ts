@@ -18,7 +18,7 @@
  * the reason as Incomplete (report.ts), so the verdict is never green on them. Nothing else changes.
  */
 import type { Analysis } from '../analysis/types';
-import type { FedFrom, SystemDocument } from '../model/schema';
+import { FED_FROM_CLOSING_MAX, type FedFrom, type SystemDocument } from '../model/schema';
 import { fromSI } from '../units';
 
 /** What the resolver needs of the cold system: its name and service, and its current revision's analysis. */
@@ -32,7 +32,46 @@ export interface ColdSupplyView {
     status: 'draft' | 'issued';
     /** The stored analysis: the engine's result, or its error. */
     analysis: { ok: true; analysis: Analysis } | { ok: false; error?: { message?: string } };
+    /** The revision's document, where the reader has it: its check-valve fittings upstream of the node close the hot system too. */
+    document?: unknown;
   } | null;
+}
+
+/** A device or check valve of the cold system between its source and the heater feed (closes the hot system to thermal expansion). */
+export type ClosingElementView = NonNullable<Extract<Resolution, { status: 'resolved' }>['closedBy']>[number];
+
+const CLOSING_DEVICES = new Set(['backflow-preventer', 'prv']);
+const CHECK_VALVES = new Set(['valve-check-swing', 'valve-check-lift']);
+
+/**
+ * The cold system's backflow preventers and PRVs (from its analysis) and check valves (from its
+ * document, when given) on the path from its source to `nodeId`, source first. A device sits at its
+ * segment's inlet, so every device of a segment on the path is upstream of the node.
+ */
+export function closingElementsUpstream(a: Analysis, nodeId: string, document?: unknown): ClosingElementView[] {
+  const segs = a.segments;
+  const byId = new Map(segs.map((s) => [s.id, s]));
+  const path: typeof segs = [];
+  let seg = segs.find((s) => s.to === nodeId);
+  while (seg && path.length <= segs.length) {
+    path.push(seg);
+    seg = seg.parentSegmentId === null ? undefined : byId.get(seg.parentSegmentId);
+  }
+  path.reverse();
+  const docSegments = new Map<string, { label?: string; fittings?: { typeId: string }[] }>();
+  const raw = (document as { segments?: unknown } | null | undefined)?.segments;
+  if (Array.isArray(raw)) for (const s of raw as { id?: unknown }[]) if (s && typeof s.id === 'string') docSegments.set(s.id, s as never);
+  const out: ClosingElementView[] = [];
+  for (const s of path) {
+    for (const d of s.devices) {
+      if (CLOSING_DEVICES.has(d.kind)) out.push({ kind: d.kind as 'backflow-preventer' | 'prv', elementId: d.deviceId, label: (d.label || d.deviceId).slice(0, 200) });
+    }
+    const fittings = docSegments.get(s.id)?.fittings;
+    if (Array.isArray(fittings) && fittings.some((f) => f && CHECK_VALVES.has(f.typeId))) {
+      out.push({ kind: 'check-valve', elementId: s.id, label: `check valve on ${s.label || `segment ${s.id}`}`.slice(0, 200) });
+    }
+  }
+  return out.slice(0, FED_FROM_CLOSING_MAX);
 }
 
 type Resolution = NonNullable<FedFrom['resolution']>;
@@ -61,6 +100,7 @@ export function resolveFedFrom(fedFrom: Pick<FedFrom, 'systemId' | 'nodeId'>, un
     return unresolved('cold-node-missing', `The cold system "${cold.name}" has no node "${fedFrom.nodeId}": choose its node that feeds the heater.`);
   }
   const node = a.si.nodes[i];
+  const closedBy = closingElementsUpstream(a, fedFrom.nodeId, rev.document);
   return {
     status: 'resolved',
     systemName: cold.name,
@@ -70,6 +110,7 @@ export function resolveFedFrom(fedFrom: Pick<FedFrom, 'systemId' | 'nodeId'>, un
     // The pressure unit of the hot document (the cold one may use the other unit system).
     residualPressure: Math.max(0, fromSI('pressure', node.pressure, unitSystem)),
     staticPressureHigh: Math.max(0, fromSI('pressure', node.staticPressureHigh, unitSystem)),
+    ...(closedBy.length > 0 ? { closedBy } : {}),
   };
 }
 

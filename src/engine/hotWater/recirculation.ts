@@ -63,6 +63,8 @@ export interface LoopSegment {
   heatLossWPerM?: number;
   /** Part of the return (sized here). */
   isReturn?: boolean;
+  /** This pipe's velocity limit, m/s (default: the input's). */
+  maxVelocityMs?: number;
 }
 
 export interface RecirculationInput {
@@ -88,6 +90,11 @@ export interface LoopSegmentResult {
   frictionPaPerM: number;
   frictionLossPa: number;
   heatLossW: number;
+  /** The size was chosen here (the return), not given. */
+  sizeChosen: boolean;
+  maxVelocityMs: number;
+  /** Velocity and friction gradient within the limits (always true for a chosen size). */
+  withinLimits: boolean;
 }
 
 export interface RecirculationResult {
@@ -149,20 +156,32 @@ export function sizeRecirculation(input: RecirculationInput): RecirculationResul
   const heatLossW = heat.reduce((a, b) => a + b, 0);
   const flowM3s = recirculationFlow(heatLossW, input.temperatureDropK, input.temperatureC);
   const segments = order.map((s, i): LoopSegmentResult => {
-    const material = MATERIALS[s.material];
+    const material = Object.hasOwn(MATERIALS, s.material) ? MATERIALS[s.material] : undefined;
     if (!material) throw new HotWaterInputError('unknown-catalog-entry', 'material', `Material "${s.material}" is not in the catalog.`, s.id);
     const sizes = [...material.sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM);
     let size = s.isReturn ? undefined : sizes.find((z) => z.key === s.size);
-    if (!s.isReturn && !size) throw new HotWaterInputError('size-missing', 'size', `Supply segment "${s.label ?? s.id}" needs a catalog size.`, s.id);
+    if (!s.isReturn && !size) throw new HotWaterInputError('size-missing', 'size', `Size "${s.size ?? ''}" of loop pipe "${s.label ?? s.id}" is not in the catalog of ${material.label}.`, s.id);
+    const maxVs = s.maxVelocityMs ?? maxV;
     if (s.isReturn) {
       size = sizes.find((z) => {
         const g = frictionGradient(flowM3s, z.innerDiameterM, material.roughnessM, water.density, water.kinematicViscosity);
-        return g.v <= maxV && g.dpdx <= maxG;
+        return g.v <= maxVs && g.dpdx <= maxG;
       });
       if (!size) throw new HotWaterInputError('no-size-passes', 'size', `No size of ${material.label} keeps the return "${s.label ?? s.id}" within the velocity and friction limits.`, s.id);
     }
     const g = frictionGradient(flowM3s, size!.innerDiameterM, material.roughnessM, water.density, water.kinematicViscosity);
-    return { segmentId: s.id, size: size!.key, innerDiameterM: size!.innerDiameterM, velocityMs: g.v, frictionPaPerM: g.dpdx, frictionLossPa: g.dpdx * s.lengthM, heatLossW: heat[i] };
+    return {
+      segmentId: s.id,
+      size: size!.key,
+      innerDiameterM: size!.innerDiameterM,
+      velocityMs: g.v,
+      frictionPaPerM: g.dpdx,
+      frictionLossPa: g.dpdx * s.lengthM,
+      heatLossW: heat[i],
+      sizeChosen: s.isReturn === true,
+      maxVelocityMs: maxVs,
+      withinLimits: g.v <= maxVs && g.dpdx <= maxG,
+    };
   });
   const friction = segments.reduce((a, s) => a + s.frictionLossPa, 0);
   const allowance = input.fittingAllowance ?? DEFAULT_FITTING_ALLOWANCE;

@@ -27,7 +27,7 @@ import type {
   SystemDocument,
   SystemNode,
 } from './schema';
-import { DOCUMENT_BOUNDS as B, SCHEMA_VERSION } from './schema';
+import { DOCUMENT_BOUNDS as B, FED_FROM_CLOSING_MAX, RECIRCULATION_SEGMENTS_MAX, SCHEMA_VERSION } from './schema';
 
 /** Thrown inside the reader when the input is not one it accepts; caught at its entry. */
 class Declined {}
@@ -165,6 +165,16 @@ function flowTest(v: unknown): NonNullable<Source['flowTest']> {
   return out as NonNullable<Source['flowTest']>;
 }
 
+function fedFromClosing(v: unknown): Obj {
+  const o = obj(v);
+  const out: Obj = { kind: oneOf(o.kind, 'backflow-preventer', 'prv', 'check-valve'), elementId: id(o.elementId), label: label(o.label) };
+  strictKeys(o, 3);
+  return out;
+}
+function fedFromClosedBy(v: unknown): Obj[] {
+  return list(v, fedFromClosing, FED_FROM_CLOSING_MAX);
+}
+
 function fedFromResolution(v: unknown): NonNullable<NonNullable<Source['fedFrom']>['resolution']> {
   const o = obj(v);
   if (o.status === 'resolved') {
@@ -179,7 +189,7 @@ function fedFromResolution(v: unknown): NonNullable<NonNullable<Source['fedFrom'
       residualPressure: nonNegative(o.residualPressure),
       staticPressureHigh: nonNegative(o.staticPressureHigh),
     };
-    strictKeys(o, 7);
+    strictKeys(o, 7 + optional(o, out, 'closedBy', fedFromClosedBy));
     return out as NonNullable<NonNullable<Source['fedFrom']>['resolution']>;
   }
   if (o.status !== 'unresolved') decline();
@@ -473,6 +483,39 @@ function expansionTank(v: unknown): NonNullable<SystemDocument['expansionTank']>
   return out as NonNullable<SystemDocument['expansionTank']>;
 }
 
+function recirculationSegment(v: unknown): Obj {
+  const o = obj(v);
+  const out: Obj = { id: id(o.id) };
+  let known = 1 + optional(o, out, 'label', label);
+  out.from = id(o.from);
+  out.to = id(o.to);
+  out.length = positive(o.length);
+  out.material = id(o.material);
+  known += 4;
+  known += optional(o, out, 'size', id);
+  known += optional(o, out, 'heatLoss', nonNegative);
+  strictKeys(o, known);
+  return out;
+}
+
+function fittingAllowance(v: unknown): number {
+  if (!(num(v) >= 0 && (v as number) <= 5)) decline();
+  return v as number;
+}
+
+function recirculation(v: unknown): NonNullable<SystemDocument['recirculation']> {
+  const o = obj(v);
+  const out: Obj = { segments: list(o.segments, recirculationSegment, RECIRCULATION_SEGMENTS_MAX) };
+  let known = 1 + optional(o, out, 'heatLossPerLength', nonNegative);
+  out.temperatureDrop = num(o.temperatureDrop);
+  known += 1;
+  known += optional(o, out, 'hotTemperature', num);
+  known += optional(o, out, 'fittingAllowance', fittingAllowance);
+  known += optional(o, out, 'heaterLoss', nonNegative);
+  strictKeys(o, known);
+  return out as NonNullable<SystemDocument['recirculation']>;
+}
+
 function systemDocument(v: unknown): SystemDocument {
   const o = obj(v);
   if (o.schemaVersion !== SCHEMA_VERSION) decline();
@@ -499,6 +542,7 @@ function systemDocument(v: unknown): SystemDocument {
   known += 2;
   known += optional(o, out, 'criteria', criteria);
   known += optional(o, out, 'expansionTank', expansionTank);
+  known += optional(o, out, 'recirculation', recirculation);
   known += optional(o, out, 'notes', notes);
   strictKeys(o, known);
   return out as SystemDocument;

@@ -45,7 +45,11 @@ export type LimitQuantity =
   | 'useDuration'
   | 'useInterval'
   | 'heaterVolume'
-  | 'revisionNumber';
+  | 'revisionNumber'
+  | 'loopHeatLoss'
+  | 'loopHeatLossPerLength'
+  | 'loopTemperatureDrop'
+  | 'fittingAllowance';
 
 export interface Bounds {
   min: number;
@@ -308,6 +312,46 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     SI: { min: 0, max: 3600 },
     why: "Hunter's durations of use are seconds to minutes (a flush, a bath fill); a use longer than an hour is a continuous demand.",
   },
+  loopHeatLoss: {
+    noun: 'heat loss of a loop pipe (Btu/h in US units, W in SI)',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: false,
+    US: { min: 0, max: 1000000 },
+    SI: { min: 0, max: 300000 },
+    why: "A recirculation loop's pipe loses tens of Btu/h per ft insulated, about a hundred bare (from memory); 1,000,000 Btu/h (300 kW) is more than a whole tower's loop loses.",
+  },
+  loopHeatLossPerLength: {
+    noun: 'heat loss per length (Btu/h per ft in US units, W/m in SI)',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: false,
+    US: { min: 0, max: 200 },
+    SI: { min: 0, max: 200 },
+    why: 'Insulated hot-water pipe loses about 10–30 Btu/h per ft and bare copper up to about 100 (from memory); 200 Btu/h per ft (about 190 W/m; 200 W/m in SI) is above any domestic loop.',
+  },
+  loopTemperatureDrop: {
+    noun: 'temperature drop around the loop (°F in US units, K in SI)',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: false,
+    US: { min: 0, max: 50 },
+    SI: { min: 0, max: 28 },
+    why: 'Loops are designed for a drop of about 5–20 °F (common practice); 50 °F (28 K) would leave the far end of the loop too cool to use. Zero is refused by the engine by name.',
+  },
+  fittingAllowance: {
+    noun: 'fitting allowance (fraction of the pipe friction)',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: false,
+    US: { min: 0, max: 5 },
+    SI: { min: 0, max: 5 },
+    why: "The rule of thumb takes fittings as 25 % of the pipe's friction (0.25); 5 (fittings five times the pipe) bounds any loop that is still mostly pipe.",
+  },
   useInterval: {
     noun: 'time between uses',
     unitQuantity: null,
@@ -428,6 +472,13 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'expansionTank.hotTemperature': 'waterTemperature',
   'expansionTank.supplyPressure': 'staticPressure',
   'expansionTank.reliefPressure': 'pressureSetting',
+  'recirculation.segments[].length': 'length',
+  'recirculation.segments[].heatLoss': 'loopHeatLoss',
+  'recirculation.heatLossPerLength': 'loopHeatLossPerLength',
+  'recirculation.temperatureDrop': 'loopTemperatureDrop',
+  'recirculation.hotTemperature': 'waterTemperature',
+  'recirculation.fittingAllowance': 'fittingAllowance',
+  'recirculation.heaterLoss': 'pressureLoss',
   // Typical units and their placements (checked by the engine after expansion into nodes and segments).
   'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
   'unitTypes[].nodes[].fixtureGroups[].count': 'fixtureCount',

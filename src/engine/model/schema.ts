@@ -98,6 +98,14 @@ export const FlowTestSchema = z
  * its analysis not computable) makes the verdict Incomplete with the reason.
  */
 export const FED_FROM_UNRESOLVED_CODES = ['cold-system-missing', 'cold-system-not-cold', 'cold-node-missing', 'cold-analysis-missing', 'not-yet-resolved'] as const;
+/** Most closing elements a resolution records (a bound). */
+export const FED_FROM_CLOSING_MAX = 50;
+/** A device or check valve of the cold system upstream of the heater feed, as the resolver read it. */
+export const FedFromClosingSchema = z.strictObject({
+  kind: z.enum(['backflow-preventer', 'prv', 'check-valve']),
+  elementId: id().describe('The device id, or the segment id carrying the check valve.'),
+  label: label().describe('As labelled in the cold system.'),
+});
 export const FedFromSchema = z.strictObject({
   systemId: id().describe('The cold-water system whose analysis feeds this hot system.'),
   nodeId: id().describe("The cold system's node that feeds the water heater."),
@@ -111,6 +119,11 @@ export const FedFromSchema = z.strictObject({
         revisionStatus: z.enum(['draft', 'issued']),
         residualPressure: nonNegative().describe('Residual pressure at the node at design flow, pressure unit (of this document).'),
         staticPressureHigh: nonNegative().describe('High static pressure at the node, pressure unit (of this document).'),
+        closedBy: z
+          .array(FedFromClosingSchema)
+          .max(FED_FROM_CLOSING_MAX)
+          .optional()
+          .describe("The cold system's backflow preventers, PRVs and check valves between its source and the node: they close this hot system to thermal expansion."),
       }),
       z.strictObject({
         status: z.literal('unresolved'),
@@ -441,6 +454,39 @@ export const ExpansionTankSchema = z.strictObject({
   reliefPressure: positive().describe('Pressure the tank is sized for: the relief setting or somewhat below it, pressure unit.'),
 });
 
+/** Most segments a recirculation loop may have (a bound, as DOCUMENT_BOUNDS gives the others). */
+export const RECIRCULATION_SEGMENTS_MAX = 500;
+
+/**
+ * One pipe of a hot-water recirculation loop (sized by hotWater/recirculationDocument.ts): from the
+ * heater out along the hot tree and back by the return. A segment with a size is checked at it; one
+ * without is sized (the return).
+ */
+export const RecirculationSegmentSchema = z.strictObject({
+  id: id(),
+  label: label().optional(),
+  from: id().describe('Node the pipe leaves, toward the loop\'s end: the heater (the source node), a node of the hot tree, or a return-only node.'),
+  to: id().describe('Node the pipe reaches; the last pipe of the loop reaches the heater (the source node).'),
+  length: positive().describe('Developed length of pipe, length unit.'),
+  material: id().describe('Material id from the materials catalog.'),
+  size: id().optional().describe('Nominal size key; leave out (on the return) to have the smallest size within the velocity and friction limits chosen.'),
+  heatLoss: nonNegative().optional().describe('Heat lost by this pipe, Btu/h (US) or W (SI); without it the loop\'s heat loss per length applies.'),
+});
+
+/**
+ * The recirculation loop of a hot-water system: its pipes, their heat loss, and the temperature
+ * drop allowed around it; Headroom computes the loop flow, the return sizes and the pump's flow
+ * and head (hotWater/recirculation.ts).
+ */
+export const RecirculationSchema = z.strictObject({
+  segments: z.array(RecirculationSegmentSchema).max(RECIRCULATION_SEGMENTS_MAX).describe('The loop, from the heater back to it.'),
+  heatLossPerLength: nonNegative().optional().describe('Heat lost per length of loop pipe, Btu/h per ft (US) or W/m (SI), for pipes without their own heat loss.'),
+  temperatureDrop: finite().describe('Temperature drop allowed around the loop, °F (US) or K (SI); must be above zero.'),
+  hotTemperature: finite().optional().describe('Temperature leaving the heater, °F or °C; default the system\'s water temperature.'),
+  fittingAllowance: z.number().min(0).max(5).optional().describe('Fittings and valves as a fraction of the loop\'s pipe friction, for the pump head (default 0.25, a designers\' rule of thumb).'),
+  heaterLoss: nonNegative().optional().describe('Pressure lost through the heater at the loop flow, pressure unit (default 0).'),
+});
+
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
@@ -457,6 +503,7 @@ export const SystemDocumentSchema = z.strictObject({
   placements: z.array(PlacementSchema).max(B.placements).optional().describe('Occurrences of the unit types on floors.'),
   criteria: CriteriaOverridesSchema.optional(),
   expansionTank: ExpansionTankSchema.optional().describe('Hot water: the thermal expansion tank and its sizing inputs.'),
+  recirculation: RecirculationSchema.optional().describe('Hot water: the recirculation loop, its heat loss and allowed temperature drop.'),
   notes: z.string().max(B.notesLength).optional(),
 });
 
@@ -466,6 +513,8 @@ export type SystemDocumentInput = z.input<typeof SystemDocumentSchema>;
 export type Source = z.infer<typeof SourceSchema>;
 export type FedFrom = z.infer<typeof FedFromSchema>;
 export type ExpansionTank = z.infer<typeof ExpansionTankSchema>;
+export type Recirculation = z.infer<typeof RecirculationSchema>;
+export type RecirculationSegment = z.infer<typeof RecirculationSegmentSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
 export type Boost = z.infer<typeof BoostSchema>;
 export type Floor = z.infer<typeof FloorSchema>;

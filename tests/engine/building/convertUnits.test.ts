@@ -56,4 +56,33 @@ describe('converting a document between unit systems', () => {
     // too small for its places: four significant figures instead of zero
     expect(roundedFromSI('flow', 1e-9, 'SI')).toBe(0.000001);
   });
+
+  it("when a hot system with a recirculation loop and an expansion tank is converted to SI, then the loop's figures are converted (1 Btu_IT/h = 0.29307107 W, 1 °F = 1/1.8 K, 1 gal = 3.785411784 L; NIST SP 811 App. B) and its flow stays within 0.1 %", () => {
+    const us = example('alder-finch-hot');
+    us.expansionTank = { heaterVolume: 100, coldTemperature: 50, hotTemperature: 140, supplyPressure: 60, reliefPressure: 135 };
+    us.recirculation = {
+      segments: [
+        { id: 'out', from: 'heater', to: 'riser-base', length: 47, material: 'copper-l', size: '2' },
+        { id: 'back', from: 'riser-base', to: 'heater', length: 47, material: 'copper-l', heatLoss: 900 },
+      ],
+      heatLossPerLength: 25,
+      temperatureDrop: 10,
+      hotTemperature: 140,
+      heaterLoss: 1.5,
+    };
+    const si = convertDocumentUnits(us, 'SI');
+    const wPerBtuH = 1055.05585262 / 3600;
+    expect(si.recirculation.segments[0].length).toBe(Number((47 * 0.3048).toFixed(3)));
+    expect(si.recirculation.segments[1].heatLoss).toBe(Number((900 * wPerBtuH).toFixed(1)));
+    expect(si.recirculation.heatLossPerLength).toBe(Number(((25 * wPerBtuH) / 0.3048).toFixed(2)));
+    expect(si.recirculation.temperatureDrop).toBe(Number((10 / 1.8).toFixed(2)));
+    expect(si.recirculation.hotTemperature).toBe(60);
+    expect(si.expansionTank.heaterVolume).toBe(Number((100 * 3.785411784).toFixed(1)));
+    const a = analyzeSystem(us).recirculation;
+    const b = analyzeSystem(si).recirculation;
+    if (!a?.ok || !b?.ok) throw new Error('expected both loops computed');
+    // Rounded inputs (0.01 W/m, 0.01 K, 1 mm): the loop flow moves by well under 0.1 %.
+    expectClose(b.flow, (a.flow * 3.785411784) / 60, { rtol: 1e-3 }, 'L/s');
+    expect(b.pipes.map((p) => p.size)).toEqual(a.pipes.map((p) => p.size));
+  });
 });

@@ -49,6 +49,7 @@ const fedFromResolution = fc.oneof(
     revisionStatus: fc.constantFrom('draft', 'issued'),
     residualPressure: nonNegative,
     staticPressureHigh: nonNegative,
+    closedBy: opt(fc.array(rec({ kind: fc.constantFrom('backflow-preventer', 'prv', 'check-valve'), elementId: id, label: text }), { maxLength: 2 })),
   }),
   rec({
     status: fc.constant('unresolved'),
@@ -142,6 +143,17 @@ const criteria = rec({
   frictionMethod: opt(fc.constantFrom('colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams')),
   fittingMethod: opt(fc.constantFrom('crane', 'hooper-2k', 'darby-3k', 'equivalent-length')),
 });
+const recirculation = rec({
+  segments: fc.array(
+    rec({ id, label: opt(text), from: id, to: id, length: positive, material: id, size: opt(id), heatLoss: opt(nonNegative) }),
+    { maxLength: 3 },
+  ),
+  heatLossPerLength: opt(nonNegative),
+  temperatureDrop: finite,
+  hotTemperature: opt(finite),
+  fittingAllowance: opt(fc.oneof(fc.constant(0), fc.constant(5), fc.double({ noNaN: true, min: 0, max: 5 }))),
+  heaterLoss: opt(nonNegative),
+});
 const validDocument = rec({
   schemaVersion: fc.constant(2),
   id,
@@ -156,6 +168,7 @@ const validDocument = rec({
   segments: fc.array(segment, { maxLength: 3 }),
   criteria: opt(criteria),
   expansionTank: opt(rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive })),
+  recirculation: opt(recirculation),
   notes: opt(text),
 });
 

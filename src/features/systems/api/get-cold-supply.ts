@@ -28,6 +28,7 @@ export async function getColdSupply(projectId: string, systemId: string, signal?
       number: revision.number,
       status: revision.status === 'draft' ? 'draft' : 'issued',
       analysis: revision.analysis as NonNullable<ColdSupplyView['revision']>['analysis'],
+      document: revision.document,
     },
   };
 }

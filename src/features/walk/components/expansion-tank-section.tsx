@@ -1,7 +1,7 @@
 import { Section } from '../../../components/ui/card';
 import { TextField } from '../../../components/ui/field';
 import { Button } from '../../../components/ui/button';
-import { closedSystemCheck, sizeDocumentExpansionTank } from '../../../engine';
+import { closedSystemCheck, closingElementWords, sizeDocumentExpansionTank } from '../../../engine';
 import type { SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
 import { fmt } from '../lib/format';
@@ -40,8 +40,10 @@ export function ExpansionTankSection() {
       <div className="flex flex-col gap-3 text-sm" data-testid="expansion-tank">
         <p className="max-w-prose">
           {closed.closed
-            ? `The system is closed to thermal expansion by ${closed.closingElements.map((c) => c.label).join(', ')}: heated water cannot push back into the main.`
-            : 'Nothing in this system (check valve, backflow preventer or PRV) closes it; a closed cold system upstream of the heater closes it too — check there.'}
+            ? `The system is closed to thermal expansion by ${closed.closingElements.map(closingElementWords).join(', ')}: heated water cannot push back into the main.`
+            : document.source.fedFrom
+              ? 'Nothing in this system, nor in the cold system upstream of the heater feed (check valve, backflow preventer or PRV), closes it.'
+              : 'Nothing in this system (check valve, backflow preventer or PRV) closes it; a closed cold system upstream of the heater closes it too — check there, or feed this system from it.'}
         </p>
         {tank ? (
           <>

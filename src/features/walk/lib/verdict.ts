@@ -33,6 +33,8 @@ export function stepOfReason(reason: Pick<IncompleteReason, 'code' | 'elementTyp
       return 'risers';
     case 'booster-shutoff-missing':
       return 'devices';
+    case 'recirculation-not-computed':
+      return 'result';
   }
   switch (reason.elementType) {
     case 'source':

@@ -28,6 +28,7 @@ import { fmt, signed } from '../lib/format';
 import { SizingPanel } from '../../sizing/components/sizing-panel';
 import { ZonesTable } from '../components/zones-table';
 import { ExpansionTankSection } from '../components/expansion-tank-section';
+import { RecirculationSection } from '../components/recirculation-section';
 
 const STATEMENT_MIN = 20;
 
@@ -283,6 +284,7 @@ export function ResultStep() {
       ) : null}
 
       {document.service === 'hot' ? <ExpansionTankSection /> : null}
+      {document.service === 'hot' ? <RecirculationSection /> : null}
 
       <Section title="Export for the report" headingLevel={3}>
         <ResultExports />
