@@ -10,6 +10,7 @@ import { upgradeDocument } from '../model/upgrade';
 import { fastParseSystemDocument } from '../model/fastParse';
 import { checkRanges } from './ranges';
 import { defineLazy } from './lazy';
+import { IdIndex } from './idIndex';
 import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
 import { toSI, type UnitSystem } from '../units';
 import { waterProperties, type WaterProperties } from '../water';
@@ -210,7 +211,7 @@ export interface SiModel {
   criteria: Criteria;
   nodeIds: string[];
   nodeLabels: (string | null)[];
-  nodeIndex: Map<string, number>;
+  nodeIndex: IdIndex;
   /**
    * Elevation of each node. After buildModel: set for the nodes placed by an elevation or a floor
    * (`placed` = 1), NaN for the others; the elevation stage (elevations.ts) fills those in.
@@ -224,7 +225,7 @@ export interface SiModel {
   seg: SiSegments;
   /** The same segments as objects, built on first read (segmentAt): for readers outside the hot stages. */
   segments: SiSegment[];
-  segIndex: Map<string, number>;
+  segIndex: IdIndex;
   devicesBySeg: SiDevice[][];
   /** Elements given by the project's own data, in document order (empty for a catalog-only document). */
   projectData: ProjectDataUse[];
@@ -548,8 +549,8 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
   const L = (v: number) => v * scale.lF;
   const Q = (v: number) => v * scale.qF;
   const nNodes = doc.nodes.length;
-  const nodeIndex = new Map<string, number>();
   const nodeIds: string[] = new Array(nNodes);
+  const nodeIndex = new IdIndex(nodeIds, nNodes);
   const nodeLabels: (string | null)[] = new Array(nNodes);
   const elevationM = new Float64Array(nNodes);
   const placed = new Uint8Array(nNodes);
@@ -560,9 +561,9 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
   const projectData: ProjectDataUse[] = [];
   for (let i = 0; i < nNodes; i++) {
     const node = doc.nodes[i];
-    // One hash lookup: a repeated id leaves the size unchanged.
-    if (nodeIndex.set(node.id, i).size === i) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeIds[i] = node.id;
+    // One probe: a repeated id is not added.
+    if (!nodeIndex.add(i)) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeLabels[i] = node.label ?? null;
     // One position at most (schema.ts NodeSchema): absolute, on a floor, or by the feed's rise.
     if (node.elevation !== undefined && node.floor !== undefined) {
@@ -646,15 +647,16 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
 }
 
 /** The segments as parallel arrays in SI, with their pipe data from the catalog (buildModel, stage 2). */
-function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string, number>, placed: Uint8Array, projectData: ProjectDataUse[]) {
+function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: IdIndex, placed: Uint8Array, projectData: ProjectDataUse[]) {
   const L = (v: number) => v * scale.lF;
   const Dm = (v: number) => v * scale.dF;
   const Q = (v: number) => v * scale.qF;
-  const segIndex = new Map<string, number>();
   const nSegs = doc.segments.length;
+  const segIds: string[] = new Array(nSegs);
+  const segIndex = new IdIndex(segIds, nSegs);
   const seg: SiSegments = {
     count: nSegs,
-    id: new Array(nSegs),
+    id: segIds,
     label: new Array(nSegs),
     from: new Int32Array(nSegs),
     to: new Int32Array(nSegs),
@@ -688,8 +690,9 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string,
   const pipeByMaterial = new Map<string, Map<string, PipeData>>();
   for (let s = 0; s < nSegs; s++) {
     const d = doc.segments[s];
-    // One hash lookup: a repeated id leaves the size unchanged.
-    if (segIndex.set(d.id, s).size === s) throw inputError('duplicate-id', 'segment', d.id, 'id');
+    segIds[s] = d.id;
+    // One probe: a repeated id is not added.
+    if (!segIndex.add(s)) throw inputError('duplicate-id', 'segment', d.id, 'id');
     const from = nodeIndex.get(d.from);
     if (from === undefined) throw inputError('unknown-node', 'segment', d.id, 'from', `node "${d.from}" is not in the system`);
     const to = nodeIndex.get(d.to);
@@ -758,7 +761,6 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string,
         throw inputError('unknown-catalog-entry', 'fitting', d.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
       }
     }
-    seg.id[s] = d.id;
     seg.label[s] = d.label ?? null;
     seg.from[s] = from;
     seg.to[s] = to;
