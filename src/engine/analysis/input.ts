@@ -219,7 +219,14 @@ export interface SiModel {
   elevationM: Float64Array;
   placed: Uint8Array;
   continuousM3s: Float64Array;
+  /** The fixture groups of each node in SI, built on first read (the binomial method reads them). */
   groupsByNode: SiFixtureGroup[][];
+  /** Each node's own fixture units: the sum of its groups' WSFU, in group order (what demand.ts accumulates). */
+  nodeWsfu: Float64Array;
+  /** Each node's own flush valves: the count of its groups on the flush-valve curve with WSFU > 0. */
+  nodeFlushValves: Float64Array;
+  /** 1 for a node that serves fixtures (a fixture group or a checked fixture), else 0. */
+  servesFixtures: Uint8Array;
   fixtures: SiCheckedFixture[];
   /** The segments, as arrays the stages walk. */
   seg: SiSegments;
@@ -435,7 +442,7 @@ export function buildModel(doc: SystemDocument): SiModel {
   // Nodes
   const nNodes = doc.nodes.length;
   const scale: Scales = { pF, lF, qF, dF };
-  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
 
   // Source
   const sourceIdx = nodeIndex.get(doc.source.nodeId);
@@ -496,7 +503,7 @@ export function buildModel(doc: SystemDocument): SiModel {
 
   if (criteria.demandMethod === 'hunter-binomial') {
     for (let i = 0; i < nNodes; i++) {
-      for (const g of groupsByNode[i]) {
+      for (const g of doc.nodes[i].fixtureGroups) {
         if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
       }
     }
@@ -514,7 +521,11 @@ export function buildModel(doc: SystemDocument): SiModel {
     elevationM,
     placed,
     continuousM3s,
-    groupsByNode,
+    // placeholder: defined below, built on first read
+    groupsByNode: [],
+    nodeWsfu,
+    nodeFlushValves,
+    servesFixtures,
     fixtures,
     seg,
     // placeholder: defined below, built on first read
@@ -532,6 +543,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     },
   };
   defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
+  defineLazy(model, 'groupsByNode', () => doc.nodes.map((node) => (node.fixtureGroups.length === 0 ? NO_GROUPS : node.fixtureGroups.map((g) => siGroup(doc, g, scale)))));
   return model;
 }
 
@@ -555,7 +567,9 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
   const elevationM = new Float64Array(nNodes);
   const placed = new Uint8Array(nNodes);
   const continuousM3s = new Float64Array(nNodes);
-  const groupsByNode: SiFixtureGroup[][] = new Array(nNodes);
+  const nodeWsfu = new Float64Array(nNodes);
+  const nodeFlushValves = new Float64Array(nNodes);
+  const servesFixtures = new Uint8Array(nNodes);
   const fixtures: SiCheckedFixture[] = [];
   const fixtureIds = new Set<string>();
   const projectData: ProjectDataUse[] = [];
@@ -584,42 +598,26 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
       elevationM[i] = Number.NaN;
     }
     continuousM3s[i] = node.continuousDemand !== undefined ? Q(node.continuousDemand) : 0;
-    const groups: SiFixtureGroup[] = node.fixtureGroups.length === 0 ? NO_GROUPS : [];
+    // Validated here; the group objects themselves are built only when read (groupsByNode).
+    let wsfuSum = 0;
+    let valves = 0;
     for (const g of node.fixtureGroups) {
       const own = g.custom;
-      // With its own data a group needs no catalog type; a catalog type it names still supplies
-      // what the data leaves out (demand curve, flow while in use).
-      // (The catalog-only lookup is kept exactly as it was, for old documents.)
-      const type = own && !Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? undefined : FIXTURE_TYPES[g.fixtureTypeId];
+      const type = groupType(g);
       if (!type && !own) {
         throw inputError('unknown-catalog-entry', 'fixture-group', node.id, 'fixtureTypeId', `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`);
       }
-      const basis = g.wsfuBasis ?? doc.service;
-      const perFixture = own
-        ? basis === 'cold' ? own.wsfuCold : basis === 'hot' ? own.wsfuHot : own.wsfuTotal
-        : type!.wsfu[basis];
+      const wsfu = groupWsfu(doc, g, type);
       if (own) projectData.push({ elementType: 'node', elementId: node.id, label: own.label, source: own.source });
-      const usageFlow = g.usage?.flow !== undefined ? Q(g.usage.flow) : type?.flowRateM3s;
-      if (g.usage && usageFlow === undefined) {
+      if (g.usage && g.usage.flow === undefined && type?.flowRateM3s === undefined) {
         throw inputError('missing-field', 'fixture-group', node.id, 'usage.flow', `fixture type "${own!.label}" has its own data and no catalog type: give the flow while in use`);
       }
-      groups.push({
-        fixtureTypeId: g.fixtureTypeId,
-        count: g.count,
-        wsfu: (perFixture ?? 0) * g.count,
-        // Curve: the group's override, else the own data's, else the catalog type's; flush-tank
-        // when none says (the common case of private dwellings, IPC Table E103.3(3) column).
-        curve: g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank'),
-        usage: g.usage
-          ? {
-              flowM3s: usageFlow!,
-              durationS: g.usage.durationSeconds,
-              recurrenceS: g.usage.recurrenceSeconds,
-            }
-          : null,
-      });
+      wsfuSum += wsfu;
+      if (groupCurve(g, type) === 'flush-valve' && wsfu > 0) valves += g.count;
     }
-    groupsByNode[i] = groups;
+    nodeWsfu[i] = wsfuSum;
+    nodeFlushValves[i] = valves;
+    if (node.fixtureGroups.length > 0 || node.checkedFixtures.length > 0) servesFixtures[i] = 1;
     for (const f of node.checkedFixtures) {
       if (fixtureIds.has(f.id)) throw inputError('duplicate-id', 'checked-fixture', f.id, 'id');
       fixtureIds.add(f.id);
@@ -643,7 +641,53 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
     }
   }
 
-  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData };
+  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData };
+}
+
+type DocFixtureGroup = SystemDocument['nodes'][number]['fixtureGroups'][number];
+
+/**
+ * The catalog type of a group. With its own data a group needs no catalog type; a catalog type it
+ * names still supplies what the data leaves out (demand curve, flow while in use).
+ * (The catalog-only lookup is kept exactly as it was, for old documents.)
+ */
+function groupType(g: DocFixtureGroup): (typeof FIXTURE_TYPES)[string] | undefined {
+  return g.custom && !Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? undefined : FIXTURE_TYPES[g.fixtureTypeId];
+}
+
+/** The group's fixture units: per fixture (its own data, else the catalog's, on the group's basis) × count. */
+function groupWsfu(doc: SystemDocument, g: DocFixtureGroup, type: (typeof FIXTURE_TYPES)[string] | undefined): number {
+  const own = g.custom;
+  const basis = g.wsfuBasis ?? doc.service;
+  const perFixture = own ? (basis === 'cold' ? own.wsfuCold : basis === 'hot' ? own.wsfuHot : own.wsfuTotal) : type!.wsfu[basis];
+  return (perFixture ?? 0) * g.count;
+}
+
+/**
+ * Curve: the group's override, else the own data's, else the catalog type's; flush-tank when none
+ * says (the common case of private dwellings, IPC Table E103.3(3) column).
+ */
+function groupCurve(g: DocFixtureGroup, type: (typeof FIXTURE_TYPES)[string] | undefined): DemandCurve {
+  const own = g.custom;
+  return g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank');
+}
+
+/** One fixture group in SI (validated by readNodes before any is built). */
+function siGroup(doc: SystemDocument, g: DocFixtureGroup, scale: Scales): SiFixtureGroup {
+  const type = groupType(g);
+  return {
+    fixtureTypeId: g.fixtureTypeId,
+    count: g.count,
+    wsfu: groupWsfu(doc, g, type),
+    curve: groupCurve(g, type),
+    usage: g.usage
+      ? {
+          flowM3s: g.usage.flow !== undefined ? g.usage.flow * scale.qF : type!.flowRateM3s,
+          durationS: g.usage.durationSeconds,
+          recurrenceS: g.usage.recurrenceSeconds,
+        }
+      : null,
+  };
 }
 
 /** The segments as parallel arrays in SI, with their pipe data from the catalog (buildModel, stage 2). */

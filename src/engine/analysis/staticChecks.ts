@@ -50,7 +50,7 @@ export function runStaticChecks(
   // Which nodes serve fixtures (the static maximum applies there, as in checks.ts).
   const serves = new Uint8Array(model.nodeIds.length);
   for (let i = 0; i < model.nodeIds.length; i++) {
-    serves[i] = model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0 ? 1 : 0;
+    serves[i] = model.servesFixtures[i];
   }
 
   // Boosters
