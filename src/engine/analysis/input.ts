@@ -429,7 +429,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       `water temperature ${doc.waterTemperature} ${sys === 'US' ? '°F' : '°C'} is outside 0.01–100 °C (liquid water at 1 atm)`,
     );
   }
-  const water = waterProperties(temperatureC);
+  const water = waterAt(temperatureC);
   const criteria = mergeCriteria(doc, P);
 
   // Floors
@@ -545,6 +545,25 @@ export function buildModel(doc: SystemDocument): SiModel {
   defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
   defineLazy(model, 'groupsByNode', () => doc.nodes.map((node) => (node.fixtureGroups.length === 0 ? NO_GROUPS : node.fixtureGroups.map((g) => siGroup(doc, g, scale)))));
   return model;
+}
+
+/**
+ * Water properties by temperature, remembered for the last few temperatures: the IAPWS density
+ * solve is the same for every analysis of a document (the live client re-runs it on each edit).
+ * A copy is returned, so no analysis shares an object with another.
+ */
+const WATER_MEMO = new Map<number, WaterProperties>();
+/** Distinct temperatures remembered (a project has a cold and a hot system, and a few what-ifs). */
+const WATER_MEMO_SIZE = 8;
+
+function waterAt(temperatureC: number): WaterProperties {
+  let w = WATER_MEMO.get(temperatureC);
+  if (w === undefined) {
+    w = waterProperties(temperatureC);
+    if (WATER_MEMO.size >= WATER_MEMO_SIZE) WATER_MEMO.clear();
+    WATER_MEMO.set(temperatureC, w);
+  }
+  return { ...w };
 }
 
 /** Unit factors of the document's quantities (pure scalings, units.ts): SI = value × factor. */
