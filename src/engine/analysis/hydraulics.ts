@@ -234,7 +234,8 @@ export function computeHydraulics(
     let deviceTotal = 0;
     const segDevices = model.devicesBySeg[s];
     const devs: DeviceLossSI[] = segDevices.length === 0 ? NO_DEVICES : [];
-    for (const d of segDevices) {
+    for (let j = 0; j < segDevices.length; j++) {
+      const d = segDevices[j];
       let loss = 0;
       let extrapolated = false;
       if (d.curve) {

@@ -234,6 +234,8 @@ export interface SiModel {
   segments: SiSegment[];
   segIndex: IdIndex;
   devicesBySeg: SiDevice[][];
+  /** The same devices as one list, segment by segment in document order (devicesBySeg flattened). */
+  devicesInSegmentOrder: SiDevice[];
   /** Elements given by the project's own data, in document order (empty for a catalog-only document). */
   projectData: ProjectDataUse[];
   /** Segments with no material and size (nor custom pipe): computed with a borrowed pipe, verdict incomplete. */
@@ -501,6 +503,9 @@ export function buildModel(doc: SystemDocument): SiModel {
     });
   }
 
+  const devicesInSegmentOrder: SiDevice[] = [];
+  if (deviceIds.size > 0) for (let s = 0; s < nSegs; s++) if (devicesBySeg[s] !== NO_DEVICES) devicesInSegmentOrder.push(...devicesBySeg[s]);
+
   if (criteria.demandMethod === 'hunter-binomial') {
     for (let i = 0; i < nNodes; i++) {
       for (const g of doc.nodes[i].fixtureGroups) {
@@ -532,6 +537,7 @@ export function buildModel(doc: SystemDocument): SiModel {
     segments: [],
     segIndex,
     devicesBySeg,
+    devicesInSegmentOrder,
     projectData,
     pipeMissing,
     source: {

@@ -46,7 +46,9 @@ export function assignZones(model: SiModel, topo: Topology): { zones: ZoneBuild[
   for (let k = 0; k < topo.order.length; k++) {
     const s = topo.order[k];
     let z = nodeZone[model.seg.from[s]];
-    for (const d of model.devicesBySeg[s]) {
+    const devs = model.devicesBySeg[s];
+    for (let j = 0; j < devs.length; j++) {
+      const d = devs[j];
       if (d.prv) {
         zones.push({ id: d.id, parent: z, kind: 'prv', deviceId: d.id, deviceLabel: d.label, segIdx: s, settingPa: d.prv.setPa, settingKind: 'set' });
         z = zones.length - 1;
@@ -155,7 +157,7 @@ export function computeZones(
   // green zone on an incomplete description.
   const reasonsByZone: string[][] = Array.from({ length: n }, () => []);
   const deviceSeg = new Map<string, number>();
-  for (const devs of model.devicesBySeg) for (const d of devs) deviceSeg.set(d.id, d.segIdx);
+  for (const d of model.devicesInSegmentOrder) deviceSeg.set(d.id, d.segIdx);
   const fixtureNode = new Map<string, number>();
   for (const f of model.fixtures) fixtureNode.set(f.id, f.nodeIdx);
   for (const r of incomplete) {
