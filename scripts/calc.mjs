@@ -1,11 +1,14 @@
 /**
  * `npm run calc` launcher: runs the prebuilt bundle dist-cli/calc.cjs, rebuilding it first when it is
- * missing or older than any engine source (src/engine/**, scripts/calc.ts, the build script) — so an
- * edited engine is never run stale, and an unchanged one starts without any compile step.
+ * missing or older than any file it was built from — the list build-cli.mjs writes beside it
+ * (dist-cli/calc.inputs.json: the engine sources it bundled, scripts/calc.ts, the build script and
+ * zod's package.json). So an edited engine is never run stale, and an unchanged one starts after a
+ * stat of each of those files: no walk of src/, no compile step.
  * The bundle runs through node:vm with V8's code cache (dist-cli/calc.v8cache), written after the
  * first run and whenever V8 rejects it (another Node version): later starts skip most compiling.
+ * The bundle is ASCII (build-cli.mjs): read as Latin-1, a one-byte string, without UTF-8 decoding.
  */
-import { readdirSync, readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
+import { readFileSync, renameSync, statSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { fileURLToPath } from 'node:url';
 import path from 'node:path';
@@ -13,42 +16,38 @@ import vm from 'node:vm';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const bundle = path.join(root, 'dist-cli', 'calc.cjs');
+const inputs = path.join(root, 'dist-cli', 'calc.inputs.json');
 const codeCache = path.join(root, 'dist-cli', 'calc.v8cache');
-const SOURCES = [path.join(root, 'src', 'engine'), path.join(root, 'scripts', 'calc.ts'), path.join(root, 'scripts', 'build-cli.mjs')];
 
-/** Newest modification time (ms) under a file or folder. */
-function newestMtime(p) {
-  const st = statSync(p);
-  if (!st.isDirectory()) return st.mtimeMs;
-  let newest = st.mtimeMs; // a deleted or renamed file changes its folder's mtime
-  for (const entry of readdirSync(p, { withFileTypes: true })) newest = Math.max(newest, newestMtime(path.join(p, entry.name)));
-  return newest;
-}
-
-function mtimeOrNone(p) {
+function readOrNone(p, encoding) {
   try {
-    return statSync(p).mtimeMs;
-  } catch {
-    return -Infinity;
-  }
-}
-
-function readOrNone(p) {
-  try {
-    return readFileSync(p);
+    return readFileSync(p, encoding);
   } catch {
     return undefined;
   }
 }
 
-if (mtimeOrNone(bundle) < Math.max(...SOURCES.map(newestMtime))) {
+/** True when the bundle is missing, or a file it was built from is missing or newer than it. */
+function stale() {
+  const built = statSync(bundle, { throwIfNoEntry: false })?.mtimeMs;
+  const list = readOrNone(inputs, 'utf8');
+  if (built === undefined || list === undefined) return true;
+  for (const file of JSON.parse(list)) {
+    const st = statSync(path.join(root, file), { throwIfNoEntry: false });
+    if (st === undefined || st.mtimeMs > built) return true;
+  }
+  return false;
+}
+
+if (stale()) {
   const { buildCli } = await import('./build-cli.mjs');
   await buildCli(['calc']);
 }
 
-const code = readFileSync(bundle, 'utf8');
+const code = readFileSync(bundle, 'latin1');
 const cachedData = readOrNone(codeCache);
-const script = new vm.Script(`(function (exports, require, module, __filename, __dirname) {${code}\n})`, {
+// The file is already wrapped as a CommonJS function (build-cli.mjs): compiled as read.
+const script = new vm.Script(code, {
   filename: bundle,
   cachedData,
 });

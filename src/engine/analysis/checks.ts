@@ -121,7 +121,7 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
   const nodeStaticPass: (boolean | null)[] = new Array(model.nodeIds.length);
   const max = model.criteria.maxStaticPressurePa;
   for (let i = 0; i < model.nodeIds.length; i++) {
-    const serves = model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0;
+    const serves = model.servesFixtures[i] === 1;
     if (!serves) {
       nodeStaticPass[i] = null;
       continue;

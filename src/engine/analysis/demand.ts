@@ -38,13 +38,12 @@ export function computeDemand(model: SiModel, topo: Topology, warnings: EngineWa
   const nodeCont = new Float64Array(nNodes);
   const nodeValves = new Float64Array(nNodes);
   const nodeBinomial: Map<string, BinomialKey>[] | null = binomial ? new Array(nNodes) : null;
-  for (let i = 0; i < nNodes; i++) {
-    nodeCont[i] = model.continuousM3s[i];
-    for (const g of model.groupsByNode[i]) {
-      nodeWsfu[i] += g.wsfu;
-      if (g.curve === 'flush-valve' && g.wsfu > 0) nodeValves[i] += g.count;
-    }
-    if (nodeBinomial) {
+  // Each node's own load (its groups summed in order when the model was read, input.ts).
+  nodeWsfu.set(model.nodeWsfu);
+  nodeCont.set(model.continuousM3s);
+  nodeValves.set(model.nodeFlushValves);
+  if (nodeBinomial) {
+    for (let i = 0; i < nNodes; i++) {
       const m = new Map<string, BinomialKey>();
       for (const g of model.groupsByNode[i]) addBinomial(m, g.count, g.usage!);
       nodeBinomial[i] = m;

@@ -10,7 +10,7 @@
  *   a variable-speed booster's is p − max(p − its own loss, set discharge pressure));
  *   p −= friction; p −= fittings (incl. size change); p −= ρ·g·rise  →  p(to node).
  */
-import { darcyFrictionFactor, hazenWilliamsPressureLoss, type FlowRegime } from '../friction';
+import { darcyFrictionFactor, hazenWilliamsPressureLoss, type DarcyFrictionResult, type FlowRegime } from '../friction';
 import { fittingK, suddenContractionK, suddenExpansionK, changeKBasis, FITTING_TYPES, type FittingKResult } from '../fittings';
 import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
@@ -122,6 +122,10 @@ export function computeHydraulics(
   // K from Crane's N·f_T (by nominal size) or a constant K does not depend on the flow: one
   // evaluation per catalog size and fitting type serves every segment of that size.
   const flowFreeK: FlowFreeKCache = new Map();
+  // The friction factor is a function of (Re, ε/D) alone: the many segments of a repeated floor or
+  // apartment carry the same flow in the same pipe, and take the result computed for the first
+  // (the same function of the same arguments, so the same number).
+  const frictionMemo = method === 'hazen-williams' ? null : new FrictionMemo(method);
   const sizeChangeIds: string[] = [];
   let boosterSeen = false;
   for (let k = 0; k < topo.order.length; k++) {
@@ -147,7 +151,7 @@ export function computeHydraulics(
         // Darcy factor equivalent to the Hazen–Williams loss, for reporting and for the fittings.
         f = (frictionPa * D) / (lengthM * dynamicPressure);
       } else {
-        const fr = darcyFrictionFactor(method, Re, seg.roughnessM[s] / D);
+        const fr = frictionMemo!.get(Re, seg.roughnessM[s] / D);
         f = fr.f;
         regime = fr.regime;
         frictionPa = f * (lengthM / D) * dynamicPressure;
@@ -230,7 +234,8 @@ export function computeHydraulics(
     let deviceTotal = 0;
     const segDevices = model.devicesBySeg[s];
     const devs: DeviceLossSI[] = segDevices.length === 0 ? NO_DEVICES : [];
-    for (const d of segDevices) {
+    for (let j = 0; j < segDevices.length; j++) {
+      const d = segDevices[j];
       let loss = 0;
       let extrapolated = false;
       if (d.curve) {
@@ -298,6 +303,39 @@ export function computeHydraulics(
   if (sizeChangeIds.length > 0) warnings.push(makeGroupedWarning('size-change-loss', 'segment', sizeChangeIds));
   if (boosterSeen) warnings.push(makeWarning('booster-gain-at-static', 'system', model.doc.id));
   return r;
+}
+
+/** Slots of the friction memo: a power of two; more than the distinct (Re, ε/D) pairs of a repeated building. */
+const FRICTION_MEMO_BITS = 10;
+
+/**
+ * The friction factor's results by (Re, ε/D), direct-mapped: a slot per hash of the two numbers'
+ * bits, overwritten on a miss. Fixed size (no table that grows with the tree); a result is the
+ * same function of the same arguments, so reusing it changes no number.
+ */
+class FrictionMemo {
+  private readonly re = new Float64Array(1 << FRICTION_MEMO_BITS).fill(Number.NaN);
+  private readonly eD = new Float64Array(1 << FRICTION_MEMO_BITS);
+  private readonly result: DarcyFrictionResult[] = new Array(1 << FRICTION_MEMO_BITS);
+  private readonly bits = new Float64Array(1);
+  private readonly words = new Int32Array(this.bits.buffer);
+
+  constructor(private readonly method: Parameters<typeof darcyFrictionFactor>[0]) {}
+
+  get(Re: number, relRoughness: number): DarcyFrictionResult {
+    const { bits, words } = this;
+    bits[0] = Re;
+    let h = Math.imul(words[0] ^ words[1], 0x9e3779b1);
+    bits[0] = relRoughness;
+    h = Math.imul(h ^ words[0] ^ Math.imul(words[1], 0x85ebca6b), 0xc2b2ae35);
+    const slot = h >>> (32 - FRICTION_MEMO_BITS);
+    if (this.re[slot] === Re && this.eD[slot] === relRoughness) return this.result[slot];
+    const r = darcyFrictionFactor(this.method, Re, relRoughness);
+    this.re[slot] = Re;
+    this.eD[slot] = relRoughness;
+    this.result[slot] = r;
+    return r;
+  }
 }
 
 /** What the hydraulics stage uses of a fittingK result. */

@@ -10,6 +10,7 @@ import { upgradeDocument } from '../model/upgrade';
 import { fastParseSystemDocument } from '../model/fastParse';
 import { checkRanges } from './ranges';
 import { defineLazy } from './lazy';
+import { IdIndex } from './idIndex';
 import { EngineInputError, inputError, type ElementType, type EngineIssue, type ErrorCode } from '../errors';
 import { toSI, type UnitSystem } from '../units';
 import { waterProperties, type WaterProperties } from '../water';
@@ -210,7 +211,7 @@ export interface SiModel {
   criteria: Criteria;
   nodeIds: string[];
   nodeLabels: (string | null)[];
-  nodeIndex: Map<string, number>;
+  nodeIndex: IdIndex;
   /**
    * Elevation of each node. After buildModel: set for the nodes placed by an elevation or a floor
    * (`placed` = 1), NaN for the others; the elevation stage (elevations.ts) fills those in.
@@ -218,14 +219,23 @@ export interface SiModel {
   elevationM: Float64Array;
   placed: Uint8Array;
   continuousM3s: Float64Array;
+  /** The fixture groups of each node in SI, built on first read (the binomial method reads them). */
   groupsByNode: SiFixtureGroup[][];
+  /** Each node's own fixture units: the sum of its groups' WSFU, in group order (what demand.ts accumulates). */
+  nodeWsfu: Float64Array;
+  /** Each node's own flush valves: the count of its groups on the flush-valve curve with WSFU > 0. */
+  nodeFlushValves: Float64Array;
+  /** 1 for a node that serves fixtures (a fixture group or a checked fixture), else 0. */
+  servesFixtures: Uint8Array;
   fixtures: SiCheckedFixture[];
   /** The segments, as arrays the stages walk. */
   seg: SiSegments;
   /** The same segments as objects, built on first read (segmentAt): for readers outside the hot stages. */
   segments: SiSegment[];
-  segIndex: Map<string, number>;
+  segIndex: IdIndex;
   devicesBySeg: SiDevice[][];
+  /** The same devices as one list, segment by segment in document order (devicesBySeg flattened). */
+  devicesInSegmentOrder: SiDevice[];
   /** Elements given by the project's own data, in document order (empty for a catalog-only document). */
   projectData: ProjectDataUse[];
   /** Segments with no material and size (nor custom pipe): computed with a borrowed pipe, verdict incomplete. */
@@ -421,7 +431,7 @@ export function buildModel(doc: SystemDocument): SiModel {
       `water temperature ${doc.waterTemperature} ${sys === 'US' ? '°F' : '°C'} is outside 0.01–100 °C (liquid water at 1 atm)`,
     );
   }
-  const water = waterProperties(temperatureC);
+  const water = waterAt(temperatureC);
   const criteria = mergeCriteria(doc, P);
 
   // Floors
@@ -434,7 +444,7 @@ export function buildModel(doc: SystemDocument): SiModel {
   // Nodes
   const nNodes = doc.nodes.length;
   const scale: Scales = { pF, lF, qF, dF };
-  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
 
   // Source
   const sourceIdx = nodeIndex.get(doc.source.nodeId);
@@ -493,9 +503,12 @@ export function buildModel(doc: SystemDocument): SiModel {
     });
   }
 
+  const devicesInSegmentOrder: SiDevice[] = [];
+  if (deviceIds.size > 0) for (let s = 0; s < nSegs; s++) if (devicesBySeg[s] !== NO_DEVICES) devicesInSegmentOrder.push(...devicesBySeg[s]);
+
   if (criteria.demandMethod === 'hunter-binomial') {
     for (let i = 0; i < nNodes; i++) {
-      for (const g of groupsByNode[i]) {
+      for (const g of doc.nodes[i].fixtureGroups) {
         if (!g.usage) throw inputError('missing-usage-data', 'fixture-group', nodeIds[i], 'usage');
       }
     }
@@ -513,13 +526,18 @@ export function buildModel(doc: SystemDocument): SiModel {
     elevationM,
     placed,
     continuousM3s,
-    groupsByNode,
+    // placeholder: defined below, built on first read
+    groupsByNode: [],
+    nodeWsfu,
+    nodeFlushValves,
+    servesFixtures,
     fixtures,
     seg,
     // placeholder: defined below, built on first read
     segments: [],
     segIndex,
     devicesBySeg,
+    devicesInSegmentOrder,
     projectData,
     pipeMissing,
     source: {
@@ -531,7 +549,27 @@ export function buildModel(doc: SystemDocument): SiModel {
     },
   };
   defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
+  defineLazy(model, 'groupsByNode', () => doc.nodes.map((node) => (node.fixtureGroups.length === 0 ? NO_GROUPS : node.fixtureGroups.map((g) => siGroup(doc, g, scale)))));
   return model;
+}
+
+/**
+ * Water properties by temperature, remembered for the last few temperatures: the IAPWS density
+ * solve is the same for every analysis of a document (the live client re-runs it on each edit).
+ * A copy is returned, so no analysis shares an object with another.
+ */
+const WATER_MEMO = new Map<number, WaterProperties>();
+/** Distinct temperatures remembered (a project has a cold and a hot system, and a few what-ifs). */
+const WATER_MEMO_SIZE = 8;
+
+function waterAt(temperatureC: number): WaterProperties {
+  let w = WATER_MEMO.get(temperatureC);
+  if (w === undefined) {
+    w = waterProperties(temperatureC);
+    if (WATER_MEMO.size >= WATER_MEMO_SIZE) WATER_MEMO.clear();
+    WATER_MEMO.set(temperatureC, w);
+  }
+  return { ...w };
 }
 
 /** Unit factors of the document's quantities (pure scalings, units.ts): SI = value × factor. */
@@ -548,21 +586,23 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
   const L = (v: number) => v * scale.lF;
   const Q = (v: number) => v * scale.qF;
   const nNodes = doc.nodes.length;
-  const nodeIndex = new Map<string, number>();
   const nodeIds: string[] = new Array(nNodes);
+  const nodeIndex = new IdIndex(nodeIds, nNodes);
   const nodeLabels: (string | null)[] = new Array(nNodes);
   const elevationM = new Float64Array(nNodes);
   const placed = new Uint8Array(nNodes);
   const continuousM3s = new Float64Array(nNodes);
-  const groupsByNode: SiFixtureGroup[][] = new Array(nNodes);
+  const nodeWsfu = new Float64Array(nNodes);
+  const nodeFlushValves = new Float64Array(nNodes);
+  const servesFixtures = new Uint8Array(nNodes);
   const fixtures: SiCheckedFixture[] = [];
   const fixtureIds = new Set<string>();
   const projectData: ProjectDataUse[] = [];
   for (let i = 0; i < nNodes; i++) {
     const node = doc.nodes[i];
-    // One hash lookup: a repeated id leaves the size unchanged.
-    if (nodeIndex.set(node.id, i).size === i) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeIds[i] = node.id;
+    // One probe: a repeated id is not added.
+    if (!nodeIndex.add(i)) throw inputError('duplicate-id', 'node', node.id, 'id');
     nodeLabels[i] = node.label ?? null;
     // One position at most (schema.ts NodeSchema): absolute, on a floor, or by the feed's rise.
     if (node.elevation !== undefined && node.floor !== undefined) {
@@ -583,42 +623,26 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
       elevationM[i] = Number.NaN;
     }
     continuousM3s[i] = node.continuousDemand !== undefined ? Q(node.continuousDemand) : 0;
-    const groups: SiFixtureGroup[] = node.fixtureGroups.length === 0 ? NO_GROUPS : [];
+    // Validated here; the group objects themselves are built only when read (groupsByNode).
+    let wsfuSum = 0;
+    let valves = 0;
     for (const g of node.fixtureGroups) {
       const own = g.custom;
-      // With its own data a group needs no catalog type; a catalog type it names still supplies
-      // what the data leaves out (demand curve, flow while in use).
-      // (The catalog-only lookup is kept exactly as it was, for old documents.)
-      const type = own && !Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? undefined : FIXTURE_TYPES[g.fixtureTypeId];
+      const type = groupType(g);
       if (!type && !own) {
         throw inputError('unknown-catalog-entry', 'fixture-group', node.id, 'fixtureTypeId', `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`);
       }
-      const basis = g.wsfuBasis ?? doc.service;
-      const perFixture = own
-        ? basis === 'cold' ? own.wsfuCold : basis === 'hot' ? own.wsfuHot : own.wsfuTotal
-        : type!.wsfu[basis];
+      const wsfu = groupWsfu(doc, g, type);
       if (own) projectData.push({ elementType: 'node', elementId: node.id, label: own.label, source: own.source });
-      const usageFlow = g.usage?.flow !== undefined ? Q(g.usage.flow) : type?.flowRateM3s;
-      if (g.usage && usageFlow === undefined) {
+      if (g.usage && g.usage.flow === undefined && type?.flowRateM3s === undefined) {
         throw inputError('missing-field', 'fixture-group', node.id, 'usage.flow', `fixture type "${own!.label}" has its own data and no catalog type: give the flow while in use`);
       }
-      groups.push({
-        fixtureTypeId: g.fixtureTypeId,
-        count: g.count,
-        wsfu: (perFixture ?? 0) * g.count,
-        // Curve: the group's override, else the own data's, else the catalog type's; flush-tank
-        // when none says (the common case of private dwellings, IPC Table E103.3(3) column).
-        curve: g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank'),
-        usage: g.usage
-          ? {
-              flowM3s: usageFlow!,
-              durationS: g.usage.durationSeconds,
-              recurrenceS: g.usage.recurrenceSeconds,
-            }
-          : null,
-      });
+      wsfuSum += wsfu;
+      if (groupCurve(g, type) === 'flush-valve' && wsfu > 0) valves += g.count;
     }
-    groupsByNode[i] = groups;
+    nodeWsfu[i] = wsfuSum;
+    nodeFlushValves[i] = valves;
+    if (node.fixtureGroups.length > 0 || node.checkedFixtures.length > 0) servesFixtures[i] = 1;
     for (const f of node.checkedFixtures) {
       if (fixtureIds.has(f.id)) throw inputError('duplicate-id', 'checked-fixture', f.id, 'id');
       fixtureIds.add(f.id);
@@ -642,19 +666,66 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
     }
   }
 
-  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, groupsByNode, fixtures, projectData };
+  return { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData };
+}
+
+type DocFixtureGroup = SystemDocument['nodes'][number]['fixtureGroups'][number];
+
+/**
+ * The catalog type of a group. With its own data a group needs no catalog type; a catalog type it
+ * names still supplies what the data leaves out (demand curve, flow while in use).
+ * (The catalog-only lookup is kept exactly as it was, for old documents.)
+ */
+function groupType(g: DocFixtureGroup): (typeof FIXTURE_TYPES)[string] | undefined {
+  return g.custom && !Object.prototype.hasOwnProperty.call(FIXTURE_TYPES, g.fixtureTypeId) ? undefined : FIXTURE_TYPES[g.fixtureTypeId];
+}
+
+/** The group's fixture units: per fixture (its own data, else the catalog's, on the group's basis) × count. */
+function groupWsfu(doc: SystemDocument, g: DocFixtureGroup, type: (typeof FIXTURE_TYPES)[string] | undefined): number {
+  const own = g.custom;
+  const basis = g.wsfuBasis ?? doc.service;
+  const perFixture = own ? (basis === 'cold' ? own.wsfuCold : basis === 'hot' ? own.wsfuHot : own.wsfuTotal) : type!.wsfu[basis];
+  return (perFixture ?? 0) * g.count;
+}
+
+/**
+ * Curve: the group's override, else the own data's, else the catalog type's; flush-tank when none
+ * says (the common case of private dwellings, IPC Table E103.3(3) column).
+ */
+function groupCurve(g: DocFixtureGroup, type: (typeof FIXTURE_TYPES)[string] | undefined): DemandCurve {
+  const own = g.custom;
+  return g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank');
+}
+
+/** One fixture group in SI (validated by readNodes before any is built). */
+function siGroup(doc: SystemDocument, g: DocFixtureGroup, scale: Scales): SiFixtureGroup {
+  const type = groupType(g);
+  return {
+    fixtureTypeId: g.fixtureTypeId,
+    count: g.count,
+    wsfu: groupWsfu(doc, g, type),
+    curve: groupCurve(g, type),
+    usage: g.usage
+      ? {
+          flowM3s: g.usage.flow !== undefined ? g.usage.flow * scale.qF : type!.flowRateM3s,
+          durationS: g.usage.durationSeconds,
+          recurrenceS: g.usage.recurrenceSeconds,
+        }
+      : null,
+  };
 }
 
 /** The segments as parallel arrays in SI, with their pipe data from the catalog (buildModel, stage 2). */
-function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string, number>, placed: Uint8Array, projectData: ProjectDataUse[]) {
+function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: IdIndex, placed: Uint8Array, projectData: ProjectDataUse[]) {
   const L = (v: number) => v * scale.lF;
   const Dm = (v: number) => v * scale.dF;
   const Q = (v: number) => v * scale.qF;
-  const segIndex = new Map<string, number>();
   const nSegs = doc.segments.length;
+  const segIds: string[] = new Array(nSegs);
+  const segIndex = new IdIndex(segIds, nSegs);
   const seg: SiSegments = {
     count: nSegs,
-    id: new Array(nSegs),
+    id: segIds,
     label: new Array(nSegs),
     from: new Int32Array(nSegs),
     to: new Int32Array(nSegs),
@@ -688,8 +759,9 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string,
   const pipeByMaterial = new Map<string, Map<string, PipeData>>();
   for (let s = 0; s < nSegs; s++) {
     const d = doc.segments[s];
-    // One hash lookup: a repeated id leaves the size unchanged.
-    if (segIndex.set(d.id, s).size === s) throw inputError('duplicate-id', 'segment', d.id, 'id');
+    segIds[s] = d.id;
+    // One probe: a repeated id is not added.
+    if (!segIndex.add(s)) throw inputError('duplicate-id', 'segment', d.id, 'id');
     const from = nodeIndex.get(d.from);
     if (from === undefined) throw inputError('unknown-node', 'segment', d.id, 'from', `node "${d.from}" is not in the system`);
     const to = nodeIndex.get(d.to);
@@ -758,7 +830,6 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: Map<string,
         throw inputError('unknown-catalog-entry', 'fitting', d.id, 'typeId', `fitting type "${f.typeId}" is not in the fittings catalog`);
       }
     }
-    seg.id[s] = d.id;
     seg.label[s] = d.label ?? null;
     seg.from[s] = from;
     seg.to[s] = to;

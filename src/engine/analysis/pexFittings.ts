@@ -17,19 +17,24 @@ export function pexMetalFittingWarnings(model: SiModel, warnings: EngineWarning[
   const ids: string[] = [];
   const names: string[] = [];
   const types: string[] = [];
-  for (const seg of model.segments) {
-    if (seg.materialId === null || !PEX_MATERIALS.has(seg.materialId)) continue;
+  const seg = model.seg;
+  for (let s = 0; s < seg.count; s++) {
+    const materialId = seg.materialId[s];
+    if (materialId === null || !PEX_MATERIALS.has(materialId)) continue;
+    const fittings = seg.fittings[s];
+    const own = seg.customFittings[s];
     let found = false;
-    seg.fittings.forEach((fit, i) => {
-      if (seg.customFittings !== null && seg.customFittings[i] !== null) return;
-      const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, fit.typeId) ? FITTING_TYPES[fit.typeId] : undefined;
-      if (entry?.pipeFamily !== 'metal') return;
+    for (let i = 0; i < fittings.length; i++) {
+      if (own !== null && own[i] !== null) continue;
+      const typeId = fittings[i].typeId;
+      const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, typeId) ? FITTING_TYPES[typeId] : undefined;
+      if (entry?.pipeFamily !== 'metal') continue;
       found = true;
       if (!types.includes(entry.label)) types.push(entry.label);
-    });
+    }
     if (found) {
-      ids.push(seg.id);
-      names.push(seg.label ?? seg.id);
+      ids.push(seg.id[s]);
+      names.push(seg.label[s] ?? seg.id[s]);
     }
   }
   if (ids.length === 0) return;

@@ -188,8 +188,8 @@ function incompleteReasons(model: SiModel, topo: Topology, checks: ChecksResult,
       message: `${capitalise(segmentName(model, s))} has no material and size: choose them (or enter custom pipe data). It was computed with the pipe feeding it.`,
     });
   }
-  for (const devs of model.devicesBySeg) {
-    for (const d of devs) {
+  {
+    for (const d of model.devicesInSegmentOrder) {
       if (d.boost?.control !== 'constant-speed' || !d.boost.assumed) continue;
       add({
         code: 'booster-shutoff-missing',

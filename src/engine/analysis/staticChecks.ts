@@ -50,13 +50,13 @@ export function runStaticChecks(
   // Which nodes serve fixtures (the static maximum applies there, as in checks.ts).
   const serves = new Uint8Array(model.nodeIds.length);
   for (let i = 0; i < model.nodeIds.length; i++) {
-    serves[i] = model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0 ? 1 : 0;
+    serves[i] = model.servesFixtures[i];
   }
 
   // Boosters
   const boosters: StaticChecks['boosters'] = [];
-  for (const devs of model.devicesBySeg) {
-    for (const d of devs) {
+  {
+    for (const d of model.devicesInSegmentOrder) {
       if (!d.boost) continue;
       const g = hyd.boosterGains.get(d.id) ?? { designPa: 0, shutoffPa: 0 };
       boosters.push({
@@ -74,8 +74,8 @@ export function runStaticChecks(
   const max = model.criteria.maxStaticPressurePa;
   const prvFailOpen: StaticChecks['prvFailOpen'] = [];
   let scratch: FailedOpenScratch | null = null;
-  for (const devs of model.devicesBySeg) {
-    for (const d of devs) {
+  {
+    for (const d of model.devicesInSegmentOrder) {
       if (!d.prv) continue;
       const segIdx = d.segIdx;
       scratch ??= { high: new Float64Array(model.nodeIds.length), nodes: new Int32Array(model.nodeIds.length), stack: new Int32Array(model.seg.count) };
@@ -115,20 +115,34 @@ export function runStaticChecks(
   }
 
   // Pipe ratings: per catalog material and size, the segment with the highest static pressure.
-  const worstBySize = new Map<string, { s: number; pa: number }>();
+  // By material, then size (the ids' own strings, no key built per segment); `worstBySize` keeps
+  // the pairs in the order first met, which is the order of the list.
+  const worstByMaterial = new Map<string, Map<string, { s: number; pa: number }>>();
+  const worstBySize: { s: number; pa: number }[] = [];
   const seg = model.seg;
   for (let s = 0; s < seg.count; s++) {
     const materialId = seg.materialId[s];
     if (materialId === null) continue;
     const pa = Math.max(hyd.segStaticHighInletPa[s], hyd.nodeStaticHighPa[seg.to[s]]);
-    const key = `${materialId}\u0000${seg.nominalSizeKey[s]}`;
-    const prev = worstBySize.get(key);
-    if (prev === undefined || pa > prev.pa) worstBySize.set(key, { s, pa });
+    let bySize = worstByMaterial.get(materialId);
+    if (bySize === undefined) {
+      bySize = new Map();
+      worstByMaterial.set(materialId, bySize);
+    }
+    const prev = bySize.get(seg.nominalSizeKey[s]);
+    if (prev === undefined) {
+      const worst = { s, pa };
+      bySize.set(seg.nominalSizeKey[s], worst);
+      worstBySize.push(worst);
+    } else if (pa > prev.pa) {
+      prev.s = s;
+      prev.pa = pa;
+    }
   }
   const pipeRatings: StaticChecks['pipeRatings'] = [];
   const unrated = new Set<string>();
   let pipeRatingsPass = true;
-  for (const { s, pa } of worstBySize.values()) {
+  for (const { s, pa } of worstBySize) {
     const materialId = seg.materialId[s]!;
     const sizeKey = seg.nominalSizeKey[s];
     const material = MATERIALS[materialId as MaterialId];
@@ -235,7 +249,9 @@ function failedOpenBelow(
     const s = stack[--top];
     const below = to[s];
     let h = high[from[s]];
-    for (const d of model.devicesBySeg[s]) {
+    const devs = model.devicesBySeg[s];
+    for (let j = 0; j < devs.length; j++) {
+      const d = devs[j];
       if (d.prv && d.id !== failedId) h = Math.min(h, d.prv.setPa);
       const b = d.boost;
       if (b && b.control === 'constant-speed') h += b.shutoffPa;

@@ -41,13 +41,14 @@ export function assignZones(model: SiModel, topo: Topology): { zones: ZoneBuild[
     { id: 'supply', parent: -1, kind: 'supply', deviceId: null, deviceLabel: null, segIdx: -1, settingPa: null, settingKind: null },
   ];
   const nodeZone = new Int32Array(model.nodeIds.length).fill(-1);
-  const segZone = new Int32Array(model.segments.length).fill(-1);
+  const segZone = new Int32Array(model.seg.count).fill(-1);
   nodeZone[model.source.nodeIdx] = 0;
   for (let k = 0; k < topo.order.length; k++) {
     const s = topo.order[k];
-    const seg = model.segments[s];
-    let z = nodeZone[seg.from];
-    for (const d of model.devicesBySeg[s]) {
+    let z = nodeZone[model.seg.from[s]];
+    const devs = model.devicesBySeg[s];
+    for (let j = 0; j < devs.length; j++) {
+      const d = devs[j];
       if (d.prv) {
         zones.push({ id: d.id, parent: z, kind: 'prv', deviceId: d.id, deviceLabel: d.label, segIdx: s, settingPa: d.prv.setPa, settingKind: 'set' });
         z = zones.length - 1;
@@ -67,7 +68,7 @@ export function assignZones(model: SiModel, topo: Topology): { zones: ZoneBuild[
       }
     }
     segZone[s] = z;
-    nodeZone[seg.to] = z;
+    nodeZone[model.seg.to[s]] = z;
   }
   return { zones, nodeZone, segZone };
 }
@@ -109,7 +110,7 @@ export function computeZones(
     const z = nodeZone[i];
     if (z === -1) continue;
     nodeCount[z]++;
-    groupCount[z] += model.groupsByNode[i].length;
+    groupCount[z] += model.doc.nodes[i].fixtureGroups.length;
     const pa = hyd.nodePressurePa[i];
     if (highest[z] === null || pa > highest[z]!.pa) highest[z] = { pa, node: i };
     if (lowest[z] === null || pa < lowest[z]!.pa) lowest[z] = { pa, node: i };
@@ -118,7 +119,7 @@ export function computeZones(
     if (elev < minZAll[z]) minZAll[z] = elev;
     if (elev > maxZAll[z]) maxZAll[z] = elev;
     if (floor !== undefined) allFloorIds[z].add(floor);
-    if (model.groupsByNode[i].length > 0 || model.doc.nodes[i].checkedFixtures.length > 0) {
+    if (model.servesFixtures[i] === 1) {
       if (elev < minZ[z]) minZ[z] = elev;
       if (elev > maxZ[z]) maxZ[z] = elev;
       if (floor !== undefined) floorIds[z].add(floor);
@@ -133,7 +134,7 @@ export function computeZones(
 
   const segCount = new Int32Array(n);
   const velocityFail = new Int32Array(n);
-  for (let s = 0; s < model.segments.length; s++) {
+  for (let s = 0; s < model.seg.count; s++) {
     const z = segZone[s];
     if (z === -1) continue;
     segCount[z]++;
@@ -156,7 +157,7 @@ export function computeZones(
   // green zone on an incomplete description.
   const reasonsByZone: string[][] = Array.from({ length: n }, () => []);
   const deviceSeg = new Map<string, number>();
-  for (const devs of model.devicesBySeg) for (const d of devs) deviceSeg.set(d.id, d.segIdx);
+  for (const d of model.devicesInSegmentOrder) deviceSeg.set(d.id, d.segIdx);
   const fixtureNode = new Map<string, number>();
   for (const f of model.fixtures) fixtureNode.set(f.id, f.nodeIdx);
   for (const r of incomplete) {
@@ -201,7 +202,7 @@ export function computeZones(
     // static and velocity checks still fail it. The system's own verdict rule (report.ts) is unchanged.
     const status: ZoneResult['status'] =
       reasons.length > 0 ? 'incomplete' : failures > 0 ? 'fail' : fixtureCount[z] === 0 ? 'not-checked' : 'pass';
-    const entry = zb.segIdx === -1 ? null : model.segments[zb.segIdx];
+    const entry = zb.segIdx === -1 ? null : { id: model.seg.id[zb.segIdx], from: model.seg.from[zb.segIdx] };
     return {
       id: zb.id,
       index,

@@ -1,7 +1,8 @@
 /**
  * The command line (`npm run calc` → scripts/calc.mjs → the prebuilt bundle dist-cli/calc.cjs):
  * the same analysis as the engine, the same structured errors as the server (safeAnalyzeSystem),
- * and a rebuild when the bundle is older than the engine's sources. (The product's own contract.)
+ * and a rebuild when the bundle is older than any source it was built from (the list beside it,
+ * dist-cli/calc.inputs.json). (The product's own contract.)
  */
 import { execFile } from 'node:child_process';
 import { mkdtempSync, readFileSync, statSync, utimesSync, writeFileSync } from 'node:fs';
@@ -75,5 +76,30 @@ describe('npm run calc, from the prebuilt bundle', () => {
     expect(r.code).toBe(0);
     expect(statSync(BUNDLE).mtimeMs).toBeGreaterThan(past.getTime() + 1000);
     expect(JSON.parse(r.stdout).systemId).toBe('small-house');
+  });
+
+  it('rebuilds when one engine source it was built from is newer, and not when none is', async () => {
+    await calc(SMALL); // a current bundle
+    const source = path.join(ROOT, 'src', 'engine', 'analysis', 'verdict.ts');
+    const inputs: string[] = JSON.parse(readFileSync(path.join(ROOT, 'dist-cli', 'calc.inputs.json'), 'utf8'));
+    expect(inputs).toContain('src/engine/analysis/verdict.ts');
+    // Unchanged sources: the bundle is run as it is (its modification time stays).
+    const fresh = new Date(Date.now() + 60_000);
+    utimesSync(BUNDLE, fresh, fresh);
+    expect((await calc(SMALL)).code).toBe(0);
+    expect(Math.abs(statSync(BUNDLE).mtimeMs - fresh.getTime())).toBeLessThan(1);
+    // One source edited after the build (its time set past the bundle's, then put back).
+    const before = statSync(source);
+    const later = new Date(fresh.getTime() + 60_000);
+    utimesSync(source, later, later);
+    try {
+      const r = await calc(SMALL);
+      expect(r.code).toBe(0);
+      // rebuilt now, a minute before the time it was given
+      expect(statSync(BUNDLE).mtimeMs).toBeLessThan(fresh.getTime() - 1000);
+      expect(JSON.parse(r.stdout).systemId).toBe('small-house');
+    } finally {
+      utimesSync(source, before.atime, before.mtime);
+    }
   });
 });
