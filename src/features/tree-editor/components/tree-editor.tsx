@@ -464,6 +464,10 @@ export function TreeEditor(props: TreeEditorProps) {
   const editing = useRef<{ el: Element; value: string; editing: boolean } | null>(null);
   const virtual = lines.length > VIRTUALISE_AT;
   const scrollRef = useRef<HTMLDivElement>(null);
+  const getItemKey = useCallback((i: number) => {
+    const l = lines[i];
+    return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
+  }, [lines]);
   const activeRef = useRef(active);
   activeRef.current = active;
   const virtualizer = useVirtualizer({
@@ -476,10 +480,8 @@ export function TreeEditor(props: TreeEditorProps) {
     },
     // a few rows beyond each edge: every extra row is mounted on each jump of the list
     overscan: 4,
-    getItemKey: (i) => {
-      const l = lines[i];
-      return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
-    },
+    // the same function while the lines stay: a new one makes the virtualizer lay out every line again
+    getItemKey,
   });
   // another row opened or closed: the sizes measured before (the old open row's) no longer hold
   useEffect(() => {
