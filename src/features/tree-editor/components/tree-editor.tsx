@@ -350,13 +350,19 @@ export function TreeEditor(props: TreeEditorProps) {
   docRef.current = doc;
   const policyRef = useRef(policy);
   policyRef.current = policy;
+  // The composition's update may be a new function on each of its renders (the walk's is, after
+  // every edit): the rows' callbacks call it through a ref, so they stay the same objects and an
+  // edit re-renders only the rows whose values changed.
+  const onChangeRef = useRef(onChange);
+  onChangeRef.current = onChange;
+  const change = useCallback((c: DocChange) => onChangeRef.current(c), []);
   const onNumber = useCallback(
     (cellKey: string, value: number | undefined) => {
       const [id, field] = cellKey.split('\u0000');
-      if (field === 'length' && value !== undefined && !policyRef.current.locked.length) onChange((d) => setLength(d, id, value));
-      if (field === 'rise' && !policyRef.current.locked.rise) onChange((d) => setRise(d, id, value));
+      if (field === 'length' && value !== undefined && !policyRef.current.locked.length) change((d) => setLength(d, id, value));
+      if (field === 'rise' && !policyRef.current.locked.rise) change((d) => setRise(d, id, value));
     },
-    [onChange],
+    [change],
   );
   const applyMaterial = useCallback(
     (ids: readonly string[], value: string) => {
@@ -369,12 +375,12 @@ export function TreeEditor(props: TreeEditorProps) {
       setPendingMaterial((m) => (ids.some((id) => m.has(id)) ? new Map([...m].filter(([k]) => !ids.includes(k))) : m));
       if (value === '') {
         // a custom pipe: the catalog reference goes, its own data is given in the row's details
-        onChange((d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument);
+        change((d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument);
         return;
       }
-      onChange((d) => setMaterial(d, ids, value));
+      change((d) => setMaterial(d, ids, value));
     },
-    [onChange],
+    [change],
   );
   const pendingRef = useRef(pendingMaterial);
   pendingRef.current = pendingMaterial;
@@ -391,14 +397,14 @@ export function TreeEditor(props: TreeEditorProps) {
         if (entry) {
           const pipe = pipeFromProjectEntry(entry, size, sys);
           if (!pipe) continue;
-          onChange((d) => setCustomPipe(d, list, pipe));
+          change((d) => setCustomPipe(d, list, pipe));
           setPendingMaterial((m) => new Map([...m].filter(([k]) => !list.includes(k))));
         } else if (value !== '') {
-          onChange((d) => ({ ...d, segments: d.segments.map((s) => (list.includes(s.id) ? ({ ...s, material: value, size } as typeof s) : s)) }));
+          change((d) => ({ ...d, segments: d.segments.map((s) => (list.includes(s.id) ? ({ ...s, material: value, size } as typeof s) : s)) }));
         }
       }
     },
-    [onChange, project, sys],
+    [change, project, sys],
   );
   const onMaterial = useCallback((id: string, value: string) => applyMaterial([id], value), [applyMaterial]);
   const onSize = useCallback((id: string, value: string) => applySize([id], value), [applySize]);
