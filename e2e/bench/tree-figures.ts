@@ -39,3 +39,36 @@ export async function longestScrollFrame(page: Page): Promise<{ longestMs: numbe
     return { longestMs: longest, medianMs: deltas[Math.floor(deltas.length / 2)] ?? 0, frames, rowsInPage };
   });
 }
+
+/**
+ * On the building page, with its form filled: clicks "Generate into draft" in the page and returns
+ * the time until the generated building's verdict is drawn (the verdict bar says pass or fail
+ * beside the "Generated …" note, then one animation frame), and the verdict it shows. Printed by
+ * the bench (e2e/bench/ledger.bench.ts); never asserted against a time.
+ */
+export async function verdictAfterGenerate(page: Page): Promise<{ ms: number; status: string; segments: number }> {
+  return page.evaluate(async () => {
+    const button = [...document.querySelectorAll('button')].find((b) => b.textContent?.trim() === 'Generate into draft');
+    if (!button) throw new Error('no "Generate into draft" button');
+    const shown = () => {
+      const done = document.querySelector('[data-testid="generated"]')?.textContent ?? '';
+      const status = document.querySelector('[data-testid="verdict-bar"]')?.getAttribute('data-status') ?? '';
+      return /^Generated \d+ segments/.test(done) && (status === 'pass' || status === 'fail') ? { status, segments: Number(done.match(/^Generated (\d+)/)![1]) } : null;
+    };
+    const t0 = performance.now();
+    const seen = new Promise<{ status: string; segments: number }>((resolve) => {
+      const obs = new MutationObserver(() => {
+        const s = shown();
+        if (s) {
+          obs.disconnect();
+          resolve(s);
+        }
+      });
+      obs.observe(document.body, { subtree: true, childList: true, attributes: true, characterData: true });
+    });
+    button.click();
+    const s = shown() ?? (await seen);
+    await new Promise((r) => requestAnimationFrame(() => r(null)));
+    return { ms: performance.now() - t0, ...s };
+  });
+}

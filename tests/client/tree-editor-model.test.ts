@@ -11,6 +11,7 @@ import { CONTRACTOR_POLICY, DESIGNER_POLICY, segmentKeysWritten } from '../../sr
 import { treeOrder } from '../../src/features/walk/lib/tree';
 import { forbiddenDifferences, SEGMENT_KEYS_ALLOWED } from '../../server/services/fieldChangeRules';
 import { demoDocument } from '../routes/support/fake-api';
+import { generateBuilding } from '../../src/engine/testing/generateTree';
 
 const demo = demoDocument();
 
@@ -22,6 +23,22 @@ describe('rows in tree order', () => {
     const below = (nodeId: string): number => demo.segments.filter((s) => s.from === nodeId).reduce((n, s) => n + 1 + below(s.to), 0);
     for (const r of rows) expect(r.below).toBe(below(r.toId));
     expect(rows[0].below).toBe(demo.segments.length - 1);
+  });
+
+  it('when a generated 4-storey building on named floors is read, then each row counts its branch and says whether its end node sits on a floor', () => {
+    const doc = generateBuilding({ storeys: 4 }) as unknown as SystemDocument;
+    const rows = treeRows(doc);
+    expect(rows).toHaveLength(doc.segments.length);
+    const children = new Map<string, string[]>();
+    for (const s of doc.segments) children.set(s.from, [...(children.get(s.from) ?? []), s.to]);
+    const below = (nodeId: string): number => (children.get(nodeId) ?? []).reduce((n, to) => n + 1 + below(to), 0);
+    const nodes = new Map(doc.nodes.map((n) => [n.id, n]));
+    for (const r of rows) {
+      expect(r.below).toBe(below(r.toId));
+      expect(r.toOnFloor).toBe(nodes.get(r.toId)?.floor !== undefined);
+    }
+    // the building has nodes of both kinds (on a floor, and placed by a rise), so both answers are checked
+    expect(new Set(rows.map((r) => r.toOnFloor))).toEqual(new Set([true, false]));
   });
 
   it('when a branch is collapsed, then only its subtree is hidden and the line says how many', () => {

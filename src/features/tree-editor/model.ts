@@ -22,6 +22,8 @@ export interface TreeRow {
   fromName: string;
   toName: string;
   toId: string;
+  /** whether the segment's end node sits on a floor (its rise then follows the floor, not a typed value) */
+  toOnFloor: boolean;
   /** how many segments its subtree holds below it */
   below: number;
   floorId: string | null;
@@ -47,17 +49,23 @@ export function treeRows(doc: SystemDocument): TreeRow[] {
   const nameOf = (id: string) => nodes.get(id)?.label || id;
   const rows: TreeRow[] = order.map(({ index, depth }, position) => {
     const s = doc.segments[index];
-    const floorId = nodes.get(s.to)?.floor ?? nodes.get(s.from)?.floor ?? null;
+    const toNode = nodes.get(s.to);
+    const floorId = toNode?.floor ?? nodes.get(s.from)?.floor ?? null;
     const floor = floorId ? floors.get(floorId) : undefined;
-    return { id: s.id, index, position, depth, name: s.label || s.id, fromName: nameOf(s.from), toName: nameOf(s.to), toId: s.to, below: 0, floorId, floorLabel: floor ? floor.name || floor.id : floorId };
+    return { id: s.id, index, position, depth, name: s.label || s.id, fromName: nameOf(s.from), toName: nameOf(s.to), toId: s.to, toOnFloor: toNode?.floor !== undefined, below: 0, floorId, floorLabel: floor ? floor.name || floor.id : floorId };
   });
   // pre-order: a row's subtree is the rows after it that are deeper than it
+  // (one pass: a row leaving the stack hands its count and itself to the row under it)
   const stack: number[] = [];
+  const close = () => {
+    const k = stack.pop()!;
+    if (stack.length) rows[stack[stack.length - 1]].below += rows[k].below + 1;
+  };
   rows.forEach((r, i) => {
-    while (stack.length && rows[stack[stack.length - 1]].depth >= r.depth) stack.pop();
-    for (const k of stack) rows[k].below++;
+    while (stack.length && rows[stack[stack.length - 1]].depth >= r.depth) close();
     stack.push(i);
   });
+  while (stack.length) close();
   return rows;
 }
 

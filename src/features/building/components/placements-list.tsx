@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
@@ -18,6 +18,13 @@ function withLength(p: Placement, segmentId: string, length: number | null): Pla
   return Object.keys(overrides).length > 0 ? { ...rest, overrides } : rest;
 }
 
+/**
+ * Placements listed at first: a generated tower has hundreds (320 on 40 floors), each row a few
+ * controls; drawing them all held the verdict back by about a second after "Generate". The rest
+ * come a page at a time, on request.
+ */
+export const PLACEMENTS_PAGE = 24;
+
 /** One row per placement: its unit type, floor, and every field it overrides (editable, removable, marked). */
 export function PlacementsList({ placements, unitTypes, floors, lengthUnit, readOnly, onChange }: {
   placements: readonly Placement[];
@@ -28,9 +35,13 @@ export function PlacementsList({ placements, unitTypes, floors, lengthUnit, read
   onChange: (p: Placement) => void;
 }) {
   const [adding, setAdding] = useState<Record<string, string>>({});
+  const [shown, setShown] = useState(PLACEMENTS_PAGE);
+  const types = useMemo(() => new Map(unitTypes.map((t) => [t.id, t])), [unitTypes]);
+  const floorNames = useMemo(() => new Map(floors.map((f) => [f.id, f.name])), [floors]);
   if (placements.length === 0) return null;
-  const typeOf = (id: string) => unitTypes.find((t) => t.id === id);
-  const floorName = (id: string) => floors.find((f) => f.id === id)?.name ?? id;
+  const typeOf = (id: string) => types.get(id);
+  const floorName = (id: string) => floorNames.get(id) ?? id;
+  const rest = placements.length - shown;
   return (
     <Section title={`Placements (${placements.length})`}>
       <table className="w-full text-sm" data-testid="placements">
@@ -43,7 +54,7 @@ export function PlacementsList({ placements, unitTypes, floors, lengthUnit, read
           </tr>
         </thead>
         <tbody>
-          {placements.map((p) => {
+          {placements.slice(0, shown).map((p) => {
             const type = typeOf(p.unitTypeId);
             const overrides = Object.entries(p.overrides?.segments ?? {});
             const segLabel = (id: string) => type?.segments.find((s) => s.id === id)?.label ?? id;
@@ -83,6 +94,13 @@ export function PlacementsList({ placements, unitTypes, floors, lengthUnit, read
           })}
         </tbody>
       </table>
+      {rest > 0 ? (
+        <p className="mt-2 flex flex-wrap items-center gap-3 text-sm" data-testid="placements-more">
+          <span>{shown} of {placements.length} shown.</span>
+          <Button variant="secondary" onClick={() => setShown((n) => n + PLACEMENTS_PAGE * 4)}>Show {Math.min(rest, PLACEMENTS_PAGE * 4)} more</Button>
+          <Button variant="quiet" onClick={() => setShown(placements.length)}>Show all {placements.length}</Button>
+        </p>
+      ) : null}
     </Section>
   );
 }

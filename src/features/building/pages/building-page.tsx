@@ -40,7 +40,9 @@ function tryBuild(values: unknown, doc: SystemDocument) {
  */
 export function BuildingPage() {
   const { document, draft, catalog, readOnlyReason, units, links, system } = useWalk();
-  const form = useForm<BuildingForm>({ resolver: zodResolver(BuildingFormSchema), defaultValues: defaultBuildingForm(document), mode: 'onChange' });
+  // read once: useForm takes its defaults on the first render only (and a generated tower makes them slow to read)
+  const [defaults] = useState(() => defaultBuildingForm(document));
+  const form = useForm<BuildingForm>({ resolver: zodResolver(BuildingFormSchema), defaultValues: defaults, mode: 'onChange' });
   const values = useWatch({ control: form.control });
   const { result, problem } = useMemo(() => tryBuild(values, document), [values, document]);
   const counts = useMemo(() => (result ? countBuilding(result, system.service) : null), [result, system.service]);

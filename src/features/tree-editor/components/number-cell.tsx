@@ -29,6 +29,13 @@ export const NumberCell = memo(function NumberCell(p: {
 }) {
   const [text, setText] = useState(() => show(p.value));
   const [error, setError] = useState<string | null>(null);
+  // a recycled row (the virtualised list) hands the box another segment's cell: start from its value
+  const [cellKey, setCellKey] = useState(p.cellKey);
+  if (cellKey !== p.cellKey) {
+    setCellKey(p.cellKey);
+    setText(show(p.value));
+    setError(null);
+  }
   // the document changed under the box (a bulk edit, an undo): show the new value unless the box holds a refused one
   useEffect(() => {
     setText((t) => {
@@ -50,7 +57,8 @@ export const NumberCell = memo(function NumberCell(p: {
     if (message === null && !(parsed instanceof RefusedNumber)) p.onCommit(p.cellKey, parsed);
   };
   return (
-    <div className="flex flex-col">
+    // the message floats under the box: the row keeps its fixed height (tree-editor.tsx, ROW_HEIGHT)
+    <div className="relative flex flex-col">
       <input
         aria-label={p.label}
         type="text"
@@ -67,7 +75,7 @@ export const NumberCell = memo(function NumberCell(p: {
         onChange={(ev) => change(ev.target.value)}
       />
       {error ? (
-        <span className="text-xs font-medium text-fault" role="alert">
+        <span className="absolute left-0 top-full z-10 mt-0.5 w-max max-w-64 rounded border border-fault bg-surface px-1 text-xs font-medium text-fault shadow" role="alert">
           <span aria-hidden="true">⚠ </span>
           {error}
         </span>

@@ -19,8 +19,16 @@ import { BulkBar } from './bulk-bar';
 
 /** Above this many segments the rows are virtualised (only those near the window are in the page). */
 export const VIRTUALISE_AT = 150;
-/** A row's height before it is measured, px (one line of cells). */
-const ROW_ESTIMATE = 38;
+/**
+ * A row's height, px: one line of cells (a select or box of text-sm, 20 px, with its padding and
+ * border, 28 px, in the row's 4 px padding, and the row's 1 px rule). Fixed, so a virtualised
+ * list places rows without measuring them; only the open row (its details under it) is measured.
+ */
+export const ROW_HEIGHT = 38;
+/** The open row's height before it is measured, px (its details take a few hundred pixels). */
+const OPEN_ROW_ESTIMATE = 480;
+/** Recycled row slots of the virtualised list: more than a tall window's rows and overscan (see `slotted`). */
+const SLOTS = 160;
 
 export type DocChange = (doc: SystemDocument) => SystemDocument;
 
@@ -71,7 +79,10 @@ function columnsOf(hasFloors: boolean, units: (typeof UNIT_LABELS)[UnitSystem]) 
 const COLS = 6;
 
 interface RowProps {
-  row: TreeRow;
+  id: string;
+  depth: number;
+  /** segments in its branch below it */
+  below: number;
   line: number;
   grid: string;
   prefix: string;
@@ -118,11 +129,27 @@ interface RowProps {
   onHeld: (cellKey: string, message: string | null) => void;
   measure?: (el: HTMLElement | null) => void;
   index?: number;
+  /** a virtualised row: its selects hold only their chosen option until the pointer or the focus comes to the row */
+  lean: boolean;
+}
+
+type Options = readonly { value: string; label: string }[];
+/** A lean select's one option: the chosen one (or the first, as the select would show it). */
+function chosenOnly(options: Options, value: string): Options {
+  const hit = options.find((o) => o.value === value);
+  return hit ? [hit] : options.slice(0, 1);
 }
 
 /** One segment's line; memoised on plain values, so an edit re-renders only the rows whose values changed. */
 const Row = memo(function Row(p: RowProps) {
-  const id = p.row.id;
+  const id = p.id;
+  // Every option is an element to make and style: a list scrolled past thousands of rows makes the
+  // full lists only for the row a person reaches (pointer or keyboard focus), before any choice.
+  const [warm, setWarm] = useState(false);
+  const full = !p.lean || warm;
+  const materialOptions = full ? p.materialOptions : chosenOnly(p.materialOptions, p.materialValue);
+  const sizeOptions = full ? p.sizeOptions : chosenOnly(p.sizeOptions, p.size);
+  const wake = p.lean && !warm ? () => setWarm(true) : undefined;
   return (
     <div
       role="row"
@@ -133,19 +160,22 @@ const Row = memo(function Row(p: RowProps) {
       data-active={p.active || undefined}
       data-index={p.index}
       ref={p.measure}
+      onPointerEnter={wake}
+      onFocus={wake}
+      style={p.detail ? undefined : { height: ROW_HEIGHT }}
       className={cx('border-b border-rule', p.active ? 'bg-standpipe-soft/40' : p.selected ? 'bg-paper-deep' : '')}
     >
       <div className="grid items-start gap-x-2 py-1 text-sm" style={{ gridTemplateColumns: p.grid }} onClick={(ev) => p.onRowClick(id, ev)}>
         <div role="gridcell" className="pt-1">
           <input type="checkbox" aria-label={`Select ${p.name}`} checked={p.selected} data-col={0} data-row={p.line} onChange={() => p.onToggleSelect(id)} onClick={(ev) => ev.stopPropagation()} />
         </div>
-        <div role="gridcell" className="flex min-w-0 items-start gap-1" style={{ paddingLeft: `${Math.min(p.row.depth - 1, 12) * 0.75}rem` }}>
+        <div role="gridcell" className="flex min-w-0 items-start gap-1" style={{ paddingLeft: `${Math.min(p.depth - 1, 12) * 0.75}rem` }}>
           {p.hasChildren ? (
             <button
               type="button"
               className="w-5 shrink-0 text-standpipe"
               aria-expanded={!p.collapsed}
-              aria-label={`${p.collapsed ? 'Expand' : 'Collapse'} the branch of ${p.name} (${p.row.below} below)`}
+              aria-label={`${p.collapsed ? 'Expand' : 'Collapse'} the branch of ${p.name} (${p.below} below)`}
               onClick={(ev) => {
                 ev.stopPropagation();
                 p.onToggleCollapse(id);
@@ -168,12 +198,12 @@ const Row = memo(function Row(p: RowProps) {
         </div>
         <div role="gridcell">
           <select aria-label={`${p.name} material`} className={CELL} value={p.materialValue} disabled={p.lockMaterial !== null} title={p.lockMaterial ?? undefined} aria-description={p.lockMaterial ?? undefined} data-col={2} data-row={p.line} onChange={(ev) => p.onMaterial(id, ev.target.value)}>
-            {p.materialOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+            {materialOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
           </select>
         </div>
         <div role="gridcell">
           <select aria-label={`${p.name} size`} className={CELL} value={p.size} disabled={p.lockSize !== null} title={p.lockSize ?? undefined} aria-description={p.lockSize ?? undefined} data-col={3} data-row={p.line} onChange={(ev) => p.onSize(id, ev.target.value)}>
-            {p.sizeOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+            {sizeOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
           </select>
         </div>
         <div role="gridcell">
@@ -212,9 +242,9 @@ function RowFlags({ fast, failing, missing }: SegmentFlagValues) {
   );
 }
 
-const FloorLine = memo(function FloorLine({ floorId, label, count, collapsed, onToggle, measure, index }: { floorId: string; label: string; count: number; collapsed: boolean; onToggle: (id: string) => void; measure?: (el: HTMLElement | null) => void; index?: number }) {
+const FloorLine = memo(function FloorLine({ floorId, label, count, collapsed, onToggle }: { floorId: string; label: string; count: number; collapsed: boolean; onToggle: (id: string) => void }) {
   return (
-    <div role="row" ref={measure} data-index={index} className="border-b-2 border-rule bg-paper-deep px-2 py-1" data-testid={`floor-${floorId || 'none'}`}>
+    <div role="row" style={{ height: ROW_HEIGHT }} className="border-b-2 border-rule bg-paper-deep px-2 py-1" data-testid={`floor-${floorId || 'none'}`}>
       <div role="gridcell">
         <button type="button" className="font-semibold text-standpipe" aria-expanded={!collapsed} onClick={() => onToggle(floorId)}>
           <span aria-hidden="true">{collapsed ? '▸ ' : '▾ '}</span>
@@ -224,6 +254,8 @@ const FloorLine = memo(function FloorLine({ floorId, label, count, collapsed, on
     </div>
   );
 });
+
+const RISE_ON_FLOOR = 'Placed by its floor: change the floor on the building page, not a rise.';
 
 const setNative = (el: HTMLInputElement | HTMLSelectElement, value: string) => {
   const proto = el instanceof HTMLSelectElement ? HTMLSelectElement.prototype : HTMLInputElement.prototype;
@@ -266,7 +298,8 @@ export function TreeEditor(props: TreeEditorProps) {
   const before = useMemo(() => new Map((baseline?.analysis?.segments ?? []).map((s) => [s.id, s])), [baseline?.analysis]);
   const issued = useMemo(() => new Map((baseline?.document.segments ?? []).map((s) => [s.id, s])), [baseline?.document]);
 
-  const projectMaterials = project.of('material');
+  // `of` filters anew on each call: kept per catalog, so the material choices (a prop of every row) stay the same object
+  const projectMaterials = useMemo(() => project.of('material'), [project]);
   const materialOptions = useMemo(
     () => [
       { value: '', label: 'Custom pipe (give its data)' },
@@ -294,6 +327,9 @@ export function TreeEditor(props: TreeEditorProps) {
   const heldKey = useId();
   const held = useRef(new Map<string, string>());
   const nameById = useMemo(() => new Map(rows.map((r) => [r.id, r.name])), [rows]);
+  // read through a ref: the rows' callback stays the same object across edits (the rows are memoised on it)
+  const nameByIdRef = useRef(nameById);
+  nameByIdRef.current = nameById;
   const onHeld = useCallback(
     (cellKey: string, message: string | null) => {
       const had = held.current.get(cellKey);
@@ -302,10 +338,10 @@ export function TreeEditor(props: TreeEditorProps) {
       if (had === (message ?? undefined)) return;
       reportHeld?.(heldKey, [...held.current].map(([k, m]) => {
         const [segId, field] = k.split('\u0000');
-        return { path: `segments.${segId}.${field}`, message: `${nameById.get(segId) ?? segId}, ${field}: ${m}` };
+        return { path: `segments.${segId}.${field}`, message: `${nameByIdRef.current.get(segId) ?? segId}, ${field}: ${m}` };
       }));
     },
-    [reportHeld, heldKey, nameById],
+    [reportHeld, heldKey],
   );
   useEffect(() => () => reportHeld?.(heldKey, []), [reportHeld, heldKey]);
 
@@ -314,13 +350,19 @@ export function TreeEditor(props: TreeEditorProps) {
   docRef.current = doc;
   const policyRef = useRef(policy);
   policyRef.current = policy;
+  // The composition's update may be a new function on each of its renders (the walk's is, after
+  // every edit): the rows' callbacks call it through a ref, so they stay the same objects and an
+  // edit re-renders only the rows whose values changed.
+  const onChangeRef = useRef(onChange);
+  onChangeRef.current = onChange;
+  const change = useCallback((c: DocChange) => onChangeRef.current(c), []);
   const onNumber = useCallback(
     (cellKey: string, value: number | undefined) => {
       const [id, field] = cellKey.split('\u0000');
-      if (field === 'length' && value !== undefined && !policyRef.current.locked.length) onChange((d) => setLength(d, id, value));
-      if (field === 'rise' && !policyRef.current.locked.rise) onChange((d) => setRise(d, id, value));
+      if (field === 'length' && value !== undefined && !policyRef.current.locked.length) change((d) => setLength(d, id, value));
+      if (field === 'rise' && !policyRef.current.locked.rise) change((d) => setRise(d, id, value));
     },
-    [onChange],
+    [change],
   );
   const applyMaterial = useCallback(
     (ids: readonly string[], value: string) => {
@@ -333,12 +375,12 @@ export function TreeEditor(props: TreeEditorProps) {
       setPendingMaterial((m) => (ids.some((id) => m.has(id)) ? new Map([...m].filter(([k]) => !ids.includes(k))) : m));
       if (value === '') {
         // a custom pipe: the catalog reference goes, its own data is given in the row's details
-        onChange((d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument);
+        change((d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument);
         return;
       }
-      onChange((d) => setMaterial(d, ids, value));
+      change((d) => setMaterial(d, ids, value));
     },
-    [onChange],
+    [change],
   );
   const pendingRef = useRef(pendingMaterial);
   pendingRef.current = pendingMaterial;
@@ -355,14 +397,14 @@ export function TreeEditor(props: TreeEditorProps) {
         if (entry) {
           const pipe = pipeFromProjectEntry(entry, size, sys);
           if (!pipe) continue;
-          onChange((d) => setCustomPipe(d, list, pipe));
+          change((d) => setCustomPipe(d, list, pipe));
           setPendingMaterial((m) => new Map([...m].filter(([k]) => !list.includes(k))));
         } else if (value !== '') {
-          onChange((d) => ({ ...d, segments: d.segments.map((s) => (list.includes(s.id) ? ({ ...s, material: value, size } as typeof s) : s)) }));
+          change((d) => ({ ...d, segments: d.segments.map((s) => (list.includes(s.id) ? ({ ...s, material: value, size } as typeof s) : s)) }));
         }
       }
     },
-    [onChange, project, sys],
+    [change, project, sys],
   );
   const onMaterial = useCallback((id: string, value: string) => applyMaterial([id], value), [applyMaterial]);
   const onSize = useCallback((id: string, value: string) => applySize([id], value), [applySize]);
@@ -428,16 +470,29 @@ export function TreeEditor(props: TreeEditorProps) {
   const editing = useRef<{ el: Element; value: string; editing: boolean } | null>(null);
   const virtual = lines.length > VIRTUALISE_AT;
   const scrollRef = useRef<HTMLDivElement>(null);
+  const getItemKey = useCallback((i: number) => {
+    const l = lines[i];
+    return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
+  }, [lines]);
+  const activeRef = useRef(active);
+  activeRef.current = active;
   const virtualizer = useVirtualizer({
     count: virtual ? lines.length : 0,
     getScrollElement: () => scrollRef.current,
-    estimateSize: () => ROW_ESTIMATE,
-    overscan: 12,
-    getItemKey: (i) => {
-      const l = lines[i];
-      return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
+    // fixed heights: only the open row is measured (see ROW_HEIGHT)
+    estimateSize: (i) => {
+      const l = linesRef.current[i];
+      return l?.kind === 'segment' && l.row.id === activeRef.current && renderDetail ? OPEN_ROW_ESTIMATE : ROW_HEIGHT;
     },
+    // a few rows beyond each edge: every extra row is mounted on each jump of the list
+    overscan: 4,
+    // the same function while the lines stay: a new one makes the virtualizer lay out every line again
+    getItemKey,
   });
+  // another row opened or closed: the sizes measured before (the old open row's) no longer hold
+  useEffect(() => {
+    if (virtual) virtualizer.measure();
+  }, [active, virtual, virtualizer]);
   const wantFocus = useRef<{ row: number; col: number } | null>(null);
   const focusCell = useCallback((row: number, col: number) => {
     const el = gridRef.current?.querySelector<HTMLElement>(`[data-row="${row}"][data-col="${col}"]`);
@@ -522,9 +577,22 @@ export function TreeEditor(props: TreeEditorProps) {
   };
 
   // ---- what each row shows
+  // the open row's details: made again when the document or the composition changes, not on a scroll
+  const activeDetail = useMemo(() => {
+    const row = active && renderDetail ? rows.find((r) => r.id === active) : undefined;
+    return row && renderDetail ? renderDetail(row) : null;
+  }, [active, rows, renderDetail]);
+  // Recycled slots: a line keeps slot (index mod SLOTS) while it stays in the window, and a line
+  // scrolled in takes the slot of one scrolled out, so React updates that row's elements in place
+  // instead of removing ~60 elements and making ~60 new ones per row (the cost of a scroll frame).
+  // Unique while the window holds at most SLOTS lines (consecutive indices); else keyed by line.
+  const virtualItems = virtual ? virtualizer.getVirtualItems() : [];
+  const slotted = virtualItems.length <= SLOTS;
+  const shownCount = useMemo(() => lines.reduce((n, l) => n + (l.kind === 'segment' ? 1 : 0), 0), [lines]);
   const lengthLock = policy.locked.length;
-  const renderLine = (line: TreeLine, i: number, measure?: (el: HTMLElement | null) => void) => {
-    if (line.kind === 'floor') return <FloorLine key={`floor:${line.floorId}`} floorId={line.floorId} label={line.label} count={line.count} collapsed={line.collapsed} onToggle={onToggleFloor} measure={measure} index={measure ? i : undefined} />;
+  // `slotted`: the line fills a recycled slot of the virtualised list, so its elements are not keyed by the segment
+  const renderLine = (line: TreeLine, i: number, measure?: (el: HTMLElement | null) => void, slotted = false) => {
+    if (line.kind === 'floor') return <FloorLine key={slotted ? 'floor' : `floor:${line.floorId}`} floorId={line.floorId} label={line.label} count={line.count} collapsed={line.collapsed} onToggle={onToggleFloor} />;
     const r = line.row;
     const s = doc.segments[r.index];
     const res: SegmentResult | undefined = results.get(r.id);
@@ -532,8 +600,7 @@ export function TreeEditor(props: TreeEditorProps) {
     const match = !s.material && s.custom ? matchProjectPipe(s.custom, projectMaterials, sys) : null;
     const materialValue = pendingMaterial.get(r.id) ?? (match ? projectOptionValue(match.entryId) : (s.material ?? ''));
     const size = pendingMaterial.has(r.id) ? '' : match ? match.sizeKey : (s.size ?? '');
-    const toNode = doc.nodes.find((n) => n.id === s.to);
-    const riseLocked = policy.locked.rise ?? (toNode?.floor !== undefined ? 'Placed by its floor: change the floor on the building page, not a rise.' : null);
+    const riseLocked = policy.locked.rise ?? (r.toOnFloor ? RISE_ON_FLOOR : null);
     const was = issued.get(r.id);
     const b = before.get(r.id);
     const changed = was ? was.material !== s.material || was.size !== s.size || was.length !== s.length || JSON.stringify(was.fittings) !== JSON.stringify(s.fittings) || JSON.stringify(was.custom) !== JSON.stringify(s.custom) : false;
@@ -541,8 +608,10 @@ export function TreeEditor(props: TreeEditorProps) {
     const lossBefore = lossOf(b);
     return (
       <Row
-        key={r.id}
-        row={r}
+        key={slotted ? 'row' : r.id}
+        id={r.id}
+        depth={r.depth}
+        below={r.below}
         line={i}
         grid={grid}
         prefix={prefix}
@@ -579,7 +648,7 @@ export function TreeEditor(props: TreeEditorProps) {
         lockLength={lengthLock}
         system={sys}
         lengthUnit={units.length}
-        detail={active === r.id && renderDetail ? renderDetail(r) : null}
+        detail={active === r.id ? activeDetail : null}
         onRowClick={onRowClick}
         onToggleSelect={onToggleSelect}
         onToggleCollapse={onToggleCollapse}
@@ -587,8 +656,10 @@ export function TreeEditor(props: TreeEditorProps) {
         onSize={onSize}
         onNumber={onNumber}
         onHeld={onHeld}
-        measure={measure}
+        // only the open row is measured; the others have the fixed ROW_HEIGHT
+        measure={active === r.id ? measure : undefined}
         index={measure ? i : undefined}
+        lean={slotted}
       />
     );
   };
@@ -604,7 +675,7 @@ export function TreeEditor(props: TreeEditorProps) {
     <div className="flex flex-col gap-2" data-testid="tree-editor" data-policy={policy.id}>
       <div className="flex flex-wrap items-center gap-2 text-sm">
         <span aria-live="polite" data-testid="tree-counts">
-          {rows.length} {rows.length === 1 ? 'segment' : 'segments'}, {lines.filter((l) => l.kind === 'segment').length} shown
+          {rows.length} {rows.length === 1 ? 'segment' : 'segments'}, {shownCount} shown
         </span>
         <button type="button" className="text-standpipe underline" onClick={collapseAll}>Collapse branches</button>
         <button type="button" className="text-standpipe underline" onClick={expandAll}>Expand all</button>
@@ -645,9 +716,10 @@ export function TreeEditor(props: TreeEditorProps) {
           {virtual ? (
             <div ref={scrollRef} className="max-h-[70vh] overflow-y-auto [contain:strict]" style={{ height: '70vh' }} data-testid="tree-scroll">
               <div style={{ height: virtualizer.getTotalSize(), position: 'relative' }}>
-                {virtualizer.getVirtualItems().map((item) => (
-                  <div key={item.key} style={{ position: 'absolute', top: 0, left: 0, right: 0, transform: `translateY(${item.start}px)` }}>
-                    {renderLine(lines[item.index], item.index, virtualizer.measureElement)}
+                {virtualItems.map((item) => (
+                  // placed by `top`, not a transform: no stacking context per row, so a cell's message (z-10) shows over the rows below
+                  <div key={slotted ? `slot:${item.index % SLOTS}` : item.key} style={{ position: 'absolute', top: item.start, left: 0, right: 0 }}>
+                    {renderLine(lines[item.index], item.index, virtualizer.measureElement, slotted)}
                   </div>
                 ))}
               </div>
