@@ -1,5 +1,5 @@
 /**
- * A hand-written reading of SystemDocumentSchema for the hot path: the same checks, the same
+ * A reading of SystemDocumentSchema for the hot path: the same checks, the same
  * defaults and the same output (a fresh copy, keys in the schema's order, an optional key kept
  * as `undefined` when the input has it so), without zod's per-value machinery.
  *
@@ -12,6 +12,10 @@
  * minimum-flow-pressure record. Lists longer than their bound are declined (zod words the error). A committed property
  * test (tests/engine/model/fastParse.test.ts) compares the two on generated valid and invalid
  * documents.
+ *
+ * The elements described in elements.ts (the segment, its custom pipe and fittings) are read by the
+ * readers compiled from their descriptions (describe.ts), so a key added there is read here with no
+ * edit; the other elements are still read by hand below, with the primitives of describe.ts.
  */
 import type {
   Boost,
@@ -20,68 +24,30 @@ import type {
   CriteriaOverrides,
   Device,
   DeviceLoss,
-  Fitting,
   FixtureGroup,
-  Segment,
   Source,
   SystemDocument,
   SystemNode,
 } from './schema';
 import { DOCUMENT_BOUNDS as B, SCHEMA_VERSION } from './schema';
-
-/** Thrown inside the reader when the input is not one it accepts; caught at its entry. */
-class Declined {}
-const DECLINED = Object.freeze(new Declined());
-
-
-type Obj = Record<string, unknown>;
-
-function decline(): never {
-  throw DECLINED;
-}
-
-function obj(v: unknown): Obj {
-  if (typeof v !== 'object' || v === null) decline();
-  const proto = Object.getPrototypeOf(v);
-  if (proto !== Object.prototype && proto !== null) decline();
-  return v as Obj;
-}
+import {
+  DECLINED,
+  decline,
+  keyCount,
+  obj,
+  readBoolean as bool,
+  readBounded as bounded,
+  readNonNegative as nonNegative,
+  readNumber as num,
+  readPositive as positive,
+  readPositiveInt as positiveInt,
+  strictKeys,
+  type Obj,
+} from './describe';
+import { SEGMENT } from './elements';
 
 function arr(v: unknown, max: number): unknown[] {
   if (!Array.isArray(v) || v.length > max) decline();
-  return v;
-}
-
-/** Number of own enumerable keys: compared with the keys read, it rejects unknown keys (strict objects). */
-function keyCount(o: Obj): number {
-  let n = 0;
-  for (const _ in o) n++;
-  return n;
-}
-
-function strictKeys(o: Obj, known: number): void {
-  if (keyCount(o) !== known) decline();
-}
-
-function num(v: unknown): number {
-  if (typeof v !== 'number' || !Number.isFinite(v)) decline();
-  return v;
-}
-function positive(v: unknown): number {
-  if (!(num(v) > 0)) decline();
-  return v as number;
-}
-function nonNegative(v: unknown): number {
-  if (!(num(v) >= 0)) decline();
-  return v as number;
-}
-function positiveInt(v: unknown): number {
-  if (!Number.isSafeInteger(v) || !((v as number) > 0)) decline();
-  return v as number;
-}
-/** A string of at least `min` and at most `max` UTF-16 units (over `max` units zod may still accept: declined). */
-function bounded(v: unknown, min: number, max: number): string {
-  if (typeof v !== 'string' || v.length < min || v.length > max) decline();
   return v;
 }
 function id(v: unknown): string {
@@ -101,10 +67,6 @@ function date(v: unknown): string {
 }
 function notes(v: unknown): string {
   return bounded(v, 0, B.notesLength);
-}
-function bool(v: unknown): boolean {
-  if (typeof v !== 'boolean') decline();
-  return v;
 }
 function oneOf<T extends string>(v: unknown, ...values: readonly T[]): T {
   for (let i = 0; i < values.length; i++) if (v === values[i]) return v as T;
@@ -360,62 +322,8 @@ function node(v: unknown): SystemNode {
   return out as SystemNode;
 }
 
-/** The union of schema.ts: exactly one of `k` or `equivalentLength` (both strict objects of three keys). */
-function customFitting(v: unknown): NonNullable<Fitting['custom']> {
-  const o = obj(v);
-  const name = labelNonEmpty(o.label);
-  let out: NonNullable<Fitting['custom']>;
-  if ('k' in o) out = { label: name, k: nonNegative(o.k), source: sourceText(o.source) };
-  else if ('equivalentLength' in o) out = { label: name, equivalentLength: nonNegative(o.equivalentLength), source: sourceText(o.source) };
-  else return decline();
-  strictKeys(o, 3);
-  return out;
-}
-
-function fitting(v: unknown): Fitting {
-  const o = obj(v);
-  const out: Obj = { typeId: id(o.typeId), count: positiveInt(o.count) };
-  strictKeys(o, 2 + optional(o, out, 'custom', customFitting));
-  return out as Fitting;
-}
-
-function customPipe(v: unknown): NonNullable<Segment['custom']> {
-  const o = obj(v);
-  const out = {
-    innerDiameter: positive(o.innerDiameter),
-    roughness: nonNegative(o.roughness),
-    hazenWilliamsC: positive(o.hazenWilliamsC),
-    velocityClass: oneOf(o.velocityClass, 'copper', 'plastic', 'steel'),
-  };
-  strictKeys(o, 4);
-  return out;
-}
-
-function segment(v: unknown): Segment {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id) };
-  let known = 1;
-  known += optional(o, out, 'label', label);
-  out.from = id(o.from);
-  out.to = id(o.to);
-  known += 2;
-  known += optional(o, out, 'material', id);
-  known += optional(o, out, 'size', id);
-  known += optional(o, out, 'custom', customPipe);
-  out.length = positive(o.length);
-  known++;
-  known += optional(o, out, 'rise', num);
-  const [fittings, hasFittings] = listOrEmpty(o, 'fittings', fitting, B.fittingsPerSegment);
-  out.fittings = fittings;
-  known += hasFittings;
-  known += optional(o, out, 'flowOverride', nonNegative);
-  const reducerAuto = o.reducerAuto;
-  out.reducerAuto = reducerAuto === undefined ? true : bool(reducerAuto);
-  known += 'reducerAuto' in o ? 1 : 0;
-  known += optional(o, out, 'sizeLocked', bool);
-  strictKeys(o, known);
-  return out as Segment;
-}
+/** The segment (and its custom pipe and fittings): the reader compiled from its description (elements.ts). */
+const segment = SEGMENT.read;
 
 function velocityLimit(v: unknown): NonNullable<CriteriaOverrides['velocityLimits']>[number] {
   const o = obj(v);
