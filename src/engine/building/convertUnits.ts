@@ -8,6 +8,9 @@
  * 1 kPa would be coarser than the analysis needs; these keep the converted design within 0.1 % of
  * the original). Catalog sizes ("3/4") are names, not numbers, and stay as they are.
  */
+import { rangedPaths } from '../model/describe';
+import { SEGMENT } from '../model/elements';
+import { LIMITS } from '../model/limits';
 import { fromSI, toSI, type Quantity, type UnitSystem } from '../units';
 
 type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | 'pressurePerFlow';
@@ -49,12 +52,11 @@ const FIELDS: readonly [path: string, q: Q][] = [
   ['nodes.*.fixtureGroups.*.usage.flow', 'flow'],
   ['nodes.*.checkedFixtures.*.minFlowPressure', 'pressure'],
   ['nodes.*.checkedFixtures.*.flowRate', 'flow'],
-  ['segments.*.length', 'length'],
-  ['segments.*.rise', 'length'],
-  ['segments.*.flowOverride', 'flow'],
-  ['segments.*.custom.innerDiameter', 'diameter'],
-  ['segments.*.custom.roughness', 'diameter'],
-  ['segments.*.fittings.*.custom.equivalentLength', 'length'],
+  // The segment's numbers with a unit: those whose range (its description, elements.ts) has one.
+  ...rangedPaths(SEGMENT, '*').flatMap(([path, range]): [string, Q][] => {
+    const q = LIMITS[range].unitQuantity;
+    return q && q !== 'density' && q !== 'pressurePerLength' ? [[['segments', '*', ...path].join('.'), q]] : [];
+  }),
   ['criteria.maxStaticPressure', 'pressure'],
   ['criteria.minStaticPressure', 'pressure'],
   ['criteria.velocityLimits.*.maxVelocity', 'velocity'],

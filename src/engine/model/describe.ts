@@ -277,7 +277,9 @@ export function rangedPaths(e: AnyElement, list: string): [string[], LimitQuanti
   const seen = new Set<string>();
   const add = (path: string[], range: LimitQuantity) => {
     const id = path.join('\u0000');
-    if (!seen.has(id)) out.push([path, range]), seen.add(id);
+    if (seen.has(id)) return;
+    seen.add(id);
+    out.push([path, range]);
   };
   const walk = (shape: ValueShape, path: string[]) => {
     if (shape.kind === 'list') walk(shape.item, [...path, list]);

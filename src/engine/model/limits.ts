@@ -17,6 +17,8 @@
  * the checks (analysis/checks.ts) judge that. A range only keeps nonsense out.
  */
 import { toSI, UNIT_LABELS, type Quantity, type UnitSystem } from '../units';
+import { rangedPaths } from './describe';
+import { SEGMENT } from './elements';
 
 /** The kinds of numeric input a document holds, each with one range. */
 export type LimitQuantity =
@@ -410,15 +412,8 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
   'nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
   'nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
-  'segments[].length': 'length',
-  'segments[].rise': 'rise',
-  'segments[].flowOverride': 'flow',
-  'segments[].custom.innerDiameter': 'innerDiameter',
-  'segments[].custom.roughness': 'roughness',
-  'segments[].custom.hazenWilliamsC': 'hazenWilliamsC',
-  'segments[].fittings[].count': 'fittingCount',
-  'segments[].fittings[].custom.k': 'lossCoefficient',
-  'segments[].fittings[].custom.equivalentLength': 'equivalentLength',
+  // The segment's ranges are in its description (elements.ts).
+  ...Object.fromEntries(rangedPaths(SEGMENT, '[]').map(([path, range]) => [`segments[].${path.join('.').replaceAll('.[]', '[]')}`, range])),
   'criteria.maxStaticPressure': 'staticPressure',
   'criteria.minStaticPressure': 'staticPressure',
   'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
