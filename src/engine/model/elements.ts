@@ -106,4 +106,8 @@ export const SEGMENT = element('segment', {
     help: 'Add a sudden expansion or contraction loss where the size differs from the feeding segment.',
   }),
   sizeLocked: optional(value.boolean(), { label: 'Size locked', help: 'The designer fixed this size: automatic sizing keeps it.' }),
+  minSize: optional(id(), {
+    label: 'Smallest size',
+    help: 'Smallest nominal size key automatic sizing may choose for this segment, in the material\'s catalog (e.g. "3/4" where a flush valve or the local code needs it).',
+  }),
 });
