@@ -111,3 +111,66 @@ export const SEGMENT = element('segment', {
     help: 'Smallest nominal size key automatic sizing may choose for this segment, in the material\'s catalog (e.g. "3/4" where a flush valve or the local code needs it).',
   }),
 });
+
+/**
+ * A fixture type given by its own data (a project's fixture type copied into the document), in
+ * place of the fixtures catalog's values for this group. Fixture units are per fixture; an absent
+ * cold or hot value counts as no load on that service, as a catalog type without one does.
+ * `flushValve` sets the demand curve (true: flush-valve, false: flush-tank); without it the
+ * catalog type's curve applies, or flush-tank when `fixtureTypeId` is not a catalog type.
+ * The values and their `source` are the designer's: the analysis repeats them in a note.
+ */
+export const CUSTOM_FIXTURE = element('custom fixture type', {
+  label: required(value.text(B.labelLength, { nonEmpty: true }), { label: 'Name', help: 'Name of the fixture type, as the project catalog gives it.' }),
+  wsfuCold: optional(value.nonNegative(), { label: 'Cold WSFU', help: 'Cold-water fixture units per fixture.', range: 'fixtureUnits' }),
+  wsfuHot: optional(value.nonNegative(), { label: 'Hot WSFU', help: 'Hot-water fixture units per fixture.', range: 'fixtureUnits' }),
+  wsfuTotal: required(value.nonNegative(), { label: 'Total WSFU', help: 'Total fixture units per fixture.', range: 'fixtureUnits' }),
+  flushValve: optional(value.boolean(), { label: 'Flush valve', help: 'Flush-valve demand curve (true) or flush-tank (false).' }),
+  source: required(sourceText(), { label: 'Source', help: 'Where the values come from (standard, table, manufacturer).' }),
+});
+
+/** For Hunter's binomial method: how long and how often a fixture of the group is used. */
+export const FIXTURE_USAGE = element('fixture usage', {
+  flow: optional(value.positive(), { label: 'Flow in use', help: "Flow while in use, flow unit; defaults to the fixture type's flow.", range: 'fixtureFlow' }),
+  durationSeconds: required(value.positive(), { label: 'Duration of use', range: 'useDuration' }),
+  recurrenceSeconds: required(value.positive(), { label: 'Time between uses', range: 'useInterval' }),
+});
+
+export const FIXTURE_GROUP = element('fixture group', {
+  fixtureTypeId: required(id(), {
+    label: 'Fixture type',
+    help: 'Fixture type id from the fixtures catalog; with `custom`, any reference (e.g. "project:<entry id>"), looked up only as a fallback.',
+  }),
+  count: required(value.count(), { label: 'Count', range: 'fixtureCount' }),
+  custom: optional(value.element(CUSTOM_FIXTURE), { label: 'Project data', help: "The fixture type's own data, overriding the catalog's." }),
+  demandCurve: optional(value.oneOf(['flush-tank', 'flush-valve']), { label: 'Demand curve', help: "Overrides the fixture type's demand curve." }),
+  wsfuBasis: optional(value.oneOf(['cold', 'hot', 'total']), { label: 'Fixture-unit basis', help: "Which fixture-unit load counts: defaults to the system's service (cold or hot)." }),
+  usage: optional(value.element(FIXTURE_USAGE), { label: 'Usage', help: "For Hunter's binomial method: flow, duration of use and time between uses." }),
+});
+
+export const CHECKED_FIXTURE = element('checked fixture', {
+  id: required(id(), { label: 'Fixture id' }),
+  fixtureTypeId: required(id(), { label: 'Fixture type' }),
+  label: optional(value.text(B.labelLength), { label: 'Name' }),
+  minFlowPressure: optional(value.nonNegative(), { label: 'Minimum flow pressure', help: 'Overrides the minimum flow pressure, pressure unit.', range: 'minFlowPressure' }),
+  flowRate: optional(value.positive(), { label: 'Flow rate', help: "Overrides the fixture's flow rate (reported), flow unit.", range: 'fixtureFlow' }),
+  expectedCritical: optional(value.boolean(), { label: 'Expected critical', help: 'The designer expects this fixture to be the critical one.' }),
+});
+
+/**
+ * A node's position is exactly one of: an absolute `elevation`; a `floor` with an optional
+ * `heightAboveFloor` (default 0); or neither, and then its feed segment's `rise` places it
+ * (elevation = elevation of the upstream node + rise). Both `elevation` and `floor` at once is an
+ * error, and so is a `rise` on the feed segment of a node that has either. Everything at a node is
+ * the designer's: a field change changes none of it.
+ */
+export const NODE = element('node', {
+  id: required(id(), { label: 'Node id' }),
+  label: optional(value.text(B.labelLength), { label: 'Name' }),
+  elevation: optional(value.number(), { label: 'Elevation', help: 'Absolute elevation, length unit, any datum (the same for all nodes and floors).', range: 'elevation' }),
+  floor: optional(id(), { label: 'Floor', help: 'Id of the floor the node is on (instead of an absolute elevation).' }),
+  heightAboveFloor: optional(value.number(), { label: 'Height above floor', help: 'Height above its floor, length unit (default 0); only with `floor`.', range: 'heightAboveFloor' }),
+  fixtureGroups: withDefault(value.list(value.element(FIXTURE_GROUP), B.fixtureGroupsPerNode), [], { label: 'Fixture groups' }),
+  continuousDemand: optional(value.nonNegative(), { label: 'Continuous demand', help: 'Continuous demand drawn at this node, flow unit.', range: 'flow' }),
+  checkedFixtures: withDefault(value.list(value.element(CHECKED_FIXTURE), B.checkedFixturesPerNode), [], { label: 'Checked fixtures' }),
+});

@@ -13,21 +13,18 @@
  * test (tests/engine/model/fastParse.test.ts) compares the two on generated valid and invalid
  * documents.
  *
- * The elements described in elements.ts (the segment, its custom pipe and fittings) are read by the
+ * The elements described in elements.ts (nodes and segments, with what they hold) are read by the
  * readers compiled from their descriptions (describe.ts), so a key added there is read here with no
  * edit; the other elements are still read by hand below, with the primitives of describe.ts.
  */
 import type {
   Boost,
   Floor,
-  CheckedFixture,
   CriteriaOverrides,
   Device,
   DeviceLoss,
-  FixtureGroup,
   Source,
   SystemDocument,
-  SystemNode,
 } from './schema';
 import { DOCUMENT_BOUNDS as B, SCHEMA_VERSION } from './schema';
 import {
@@ -35,16 +32,14 @@ import {
   decline,
   keyCount,
   obj,
-  readBoolean as bool,
   readBounded as bounded,
   readNonNegative as nonNegative,
   readNumber as num,
   readPositive as positive,
-  readPositiveInt as positiveInt,
   strictKeys,
   type Obj,
 } from './describe';
-import { SEGMENT } from './elements';
+import { NODE, SEGMENT } from './elements';
 
 function arr(v: unknown, max: number): unknown[] {
   if (!Array.isArray(v) || v.length > max) decline();
@@ -98,12 +93,6 @@ function listOrEmpty<T>(from: Obj, key: string, item: (x: unknown) => T, max: nu
 }
 
 // The enumerations and lists of schema.ts, as named readers (no closure per call).
-function demandCurve(x: unknown) {
-  return oneOf(x, 'flush-tank', 'flush-valve');
-}
-function wsfuBasis(x: unknown) {
-  return oneOf(x, 'cold', 'hot', 'total');
-}
 function velocityLimits(x: unknown) {
   return list(x, velocityLimit, B.velocityLimits);
 }
@@ -246,56 +235,6 @@ function device(v: unknown): Device {
   return out as Device;
 }
 
-function usage(v: unknown): NonNullable<FixtureGroup['usage']> {
-  const o = obj(v);
-  const out: Obj = {};
-  let known = optional(o, out, 'flow', positive);
-  out.durationSeconds = positive(o.durationSeconds);
-  out.recurrenceSeconds = positive(o.recurrenceSeconds);
-  known += 2;
-  strictKeys(o, known);
-  return out as NonNullable<FixtureGroup['usage']>;
-}
-
-function customFixture(v: unknown): NonNullable<FixtureGroup['custom']> {
-  const o = obj(v);
-  const out: Obj = { label: labelNonEmpty(o.label) };
-  let known = 1;
-  known += optional(o, out, 'wsfuCold', nonNegative);
-  known += optional(o, out, 'wsfuHot', nonNegative);
-  out.wsfuTotal = nonNegative(o.wsfuTotal);
-  known++;
-  known += optional(o, out, 'flushValve', bool);
-  out.source = sourceText(o.source);
-  known++;
-  strictKeys(o, known);
-  return out as NonNullable<FixtureGroup['custom']>;
-}
-
-function fixtureGroup(v: unknown): FixtureGroup {
-  const o = obj(v);
-  const out: Obj = { fixtureTypeId: id(o.fixtureTypeId), count: positiveInt(o.count) };
-  let known = 2;
-  known += optional(o, out, 'custom', customFixture);
-  known += optional(o, out, 'demandCurve', demandCurve);
-  known += optional(o, out, 'wsfuBasis', wsfuBasis);
-  known += optional(o, out, 'usage', usage);
-  strictKeys(o, known);
-  return out as FixtureGroup;
-}
-
-function checkedFixture(v: unknown): CheckedFixture {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id), fixtureTypeId: id(o.fixtureTypeId) };
-  let known = 2;
-  known += optional(o, out, 'label', label);
-  known += optional(o, out, 'minFlowPressure', nonNegative);
-  known += optional(o, out, 'flowRate', positive);
-  known += optional(o, out, 'expectedCritical', bool);
-  strictKeys(o, known);
-  return out as CheckedFixture;
-}
-
 function floor(v: unknown): Floor {
   const o = obj(v);
   const out = { id: id(o.id), name: labelNonEmpty(o.name), elevation: num(o.elevation) };
@@ -303,24 +242,8 @@ function floor(v: unknown): Floor {
   return out;
 }
 
-function node(v: unknown): SystemNode {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id) };
-  let known = 1;
-  known += optional(o, out, 'label', label);
-  known += optional(o, out, 'elevation', num);
-  known += optional(o, out, 'floor', id);
-  known += optional(o, out, 'heightAboveFloor', num);
-  const [fixtureGroups, hasGroups] = listOrEmpty(o, 'fixtureGroups', fixtureGroup, B.fixtureGroupsPerNode);
-  out.fixtureGroups = fixtureGroups;
-  known += hasGroups;
-  known += optional(o, out, 'continuousDemand', nonNegative);
-  const [checkedFixtures, hasChecked] = listOrEmpty(o, 'checkedFixtures', checkedFixture, B.checkedFixturesPerNode);
-  out.checkedFixtures = checkedFixtures;
-  known += hasChecked;
-  strictKeys(o, known);
-  return out as SystemNode;
-}
+/** The node (and its fixture groups and checked fixtures): the reader compiled from its description (elements.ts). */
+const node = NODE.read;
 
 /** The segment (and its custom pipe and fittings): the reader compiled from its description (elements.ts). */
 const segment = SEGMENT.read;

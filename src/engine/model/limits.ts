@@ -17,8 +17,8 @@
  * the checks (analysis/checks.ts) judge that. A range only keeps nonsense out.
  */
 import { toSI, UNIT_LABELS, type Quantity, type UnitSystem } from '../units';
-import { rangedPaths } from './describe';
-import { SEGMENT } from './elements';
+import { rangedPaths, type AnyElement } from './describe';
+import { CHECKED_FIXTURE, FIXTURE_GROUP, NODE, SEGMENT } from './elements';
 
 /** The kinds of numeric input a document holds, each with one range. */
 export type LimitQuantity =
@@ -374,6 +374,11 @@ export function checkRange(quantity: LimitQuantity, value: number, unitSystem: U
   return null;
 }
 
+/** The ranges of a described element's numbers, as FIELD_QUANTITIES paths under `prefix`. */
+function describedRanges(prefix: string, e: AnyElement): Record<string, LimitQuantity> {
+  return Object.fromEntries(rangedPaths(e, '[]').map(([path, range]) => [`${prefix}.${path.join('.').replaceAll('.[]', '[]')}`, range]));
+}
+
 /**
  * Which range applies to each numeric field of a document, by its path with `[]` for a list
  * index (the engine's checks in analysis/ranges.ts follow the same table; forms look fields up here).
@@ -400,20 +405,9 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'devices[].boost.designFlow': 'flow',
   'devices[].boost.setPressure': 'pressureSetting',
   'floors[].elevation': 'elevation',
-  'nodes[].elevation': 'elevation',
-  'nodes[].heightAboveFloor': 'heightAboveFloor',
-  'nodes[].continuousDemand': 'flow',
-  'nodes[].fixtureGroups[].count': 'fixtureCount',
-  'nodes[].fixtureGroups[].custom.wsfuCold': 'fixtureUnits',
-  'nodes[].fixtureGroups[].custom.wsfuHot': 'fixtureUnits',
-  'nodes[].fixtureGroups[].custom.wsfuTotal': 'fixtureUnits',
-  'nodes[].fixtureGroups[].usage.flow': 'fixtureFlow',
-  'nodes[].fixtureGroups[].usage.durationSeconds': 'useDuration',
-  'nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
-  'nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
-  'nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
-  // The segment's ranges are in its description (elements.ts).
-  ...Object.fromEntries(rangedPaths(SEGMENT, '[]').map(([path, range]) => [`segments[].${path.join('.').replaceAll('.[]', '[]')}`, range])),
+  // The node's and the segment's ranges are in their descriptions (elements.ts).
+  ...describedRanges('nodes[]', NODE),
+  ...describedRanges('segments[]', SEGMENT),
   'criteria.maxStaticPressure': 'staticPressure',
   'criteria.minStaticPressure': 'staticPressure',
   'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
@@ -425,15 +419,8 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'expansionTank.reliefPressure': 'pressureSetting',
   // Typical units and their placements (checked by the engine after expansion into nodes and segments).
   'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
-  'unitTypes[].nodes[].fixtureGroups[].count': 'fixtureCount',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuCold': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuHot': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuTotal': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].usage.flow': 'fixtureFlow',
-  'unitTypes[].nodes[].fixtureGroups[].usage.durationSeconds': 'useDuration',
-  'unitTypes[].nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
-  'unitTypes[].nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
-  'unitTypes[].nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
+  ...describedRanges('unitTypes[].nodes[].fixtureGroups[]', FIXTURE_GROUP),
+  ...describedRanges('unitTypes[].nodes[].checkedFixtures[]', CHECKED_FIXTURE),
   'unitTypes[].segments[].length': 'length',
   'unitTypes[].segments[].custom.innerDiameter': 'innerDiameter',
   'unitTypes[].segments[].custom.roughness': 'roughness',

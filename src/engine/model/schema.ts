@@ -29,7 +29,7 @@ export const SCHEMA_VERSION = 2 as const;
 // The bounds live in bounds.ts so that the element descriptions (elements.ts) can use them too.
 export { DOCUMENT_BOUNDS } from './bounds';
 import { DOCUMENT_BOUNDS } from './bounds';
-import { CUSTOM_FITTING, CUSTOM_PIPE, FITTING, SEGMENT } from './elements';
+import { CHECKED_FIXTURE, CUSTOM_FITTING, CUSTOM_FIXTURE, CUSTOM_PIPE, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from './elements';
 
 const B = DOCUMENT_BOUNDS;
 const id = () => z.string().min(1).max(B.idLength);
@@ -169,52 +169,10 @@ export const DeviceSchema = z.strictObject({
   boost: BoostSchema.optional().describe('Required when kind is "booster-pump".'),
 });
 
-/**
- * A fixture type given by its own data (a project's fixture type copied into the document), in
- * place of the fixtures catalog's values for this group. Fixture units are per fixture; an absent
- * cold or hot value counts as no load on that service, as a catalog type without one does.
- * `flushValve` sets the demand curve (true: flush-valve, false: flush-tank); without it the
- * catalog type's curve applies, or flush-tank when `fixtureTypeId` is not a catalog type.
- * The values and their `source` are the designer's: the analysis repeats them in a note.
- */
-export const CustomFixtureSchema = z.strictObject({
-  label: label().min(1).describe('Name of the fixture type, as the project catalog gives it.'),
-  wsfuCold: nonNegative().optional().describe('Cold-water fixture units per fixture.'),
-  wsfuHot: nonNegative().optional().describe('Hot-water fixture units per fixture.'),
-  wsfuTotal: nonNegative().describe('Total fixture units per fixture.'),
-  flushValve: z.boolean().optional().describe('Flush-valve demand curve (true) or flush-tank (false).'),
-  source: sourceText().describe('Where the values come from (standard, table, manufacturer).'),
-});
-
-export const FixtureGroupSchema = z.strictObject({
-  fixtureTypeId: id().describe(
-    'Fixture type id from the fixtures catalog; with `custom`, any reference (e.g. "project:<entry id>"), looked up only as a fallback.',
-  ),
-  count: z.number().int().positive(),
-  custom: CustomFixtureSchema.optional().describe("The fixture type's own data, overriding the catalog's."),
-  demandCurve: DemandCurveSchema.optional().describe("Overrides the fixture type's demand curve."),
-  wsfuBasis: z
-    .enum(['cold', 'hot', 'total'])
-    .optional()
-    .describe("Which fixture-unit load counts: defaults to the system's service (cold or hot)."),
-  usage: z
-    .strictObject({
-      flow: positive().optional().describe("Flow while in use, flow unit; defaults to the fixture type's flow."),
-      durationSeconds: positive(),
-      recurrenceSeconds: positive(),
-    })
-    .optional()
-    .describe("For Hunter's binomial method: flow, duration of use and time between uses."),
-});
-
-export const CheckedFixtureSchema = z.strictObject({
-  id: id(),
-  fixtureTypeId: id(),
-  label: label().optional(),
-  minFlowPressure: nonNegative().optional().describe('Overrides the minimum flow pressure, pressure unit.'),
-  flowRate: positive().optional().describe("Overrides the fixture's flow rate (reported), flow unit."),
-  expectedCritical: z.boolean().optional().describe('The designer expects this fixture to be the critical one.'),
-});
+// The fixture groups and checked fixtures are described once in elements.ts; their zod schemas:
+export const CustomFixtureSchema = CUSTOM_FIXTURE.schema;
+export const FixtureGroupSchema = FIXTURE_GROUP.schema;
+export const CheckedFixtureSchema = CHECKED_FIXTURE.schema;
 
 /** A named level of the building; nodes placed on it move with it. */
 export const FloorSchema = z.strictObject({
@@ -223,22 +181,8 @@ export const FloorSchema = z.strictObject({
   elevation: finite().describe('Elevation of the finished floor, length unit, the datum of the node elevations.'),
 });
 
-/**
- * A node's position is exactly one of: an absolute `elevation`; a `floor` with an optional
- * `heightAboveFloor` (default 0); or neither, and then its feed segment's `rise` places it
- * (elevation = elevation of the upstream node + rise). Both `elevation` and `floor` at once is an
- * error, and so is a `rise` on the feed segment of a node that has either.
- */
-export const NodeSchema = z.strictObject({
-  id: id(),
-  label: label().optional(),
-  elevation: finite().optional().describe('Absolute elevation, length unit, any datum (the same for all nodes and floors).'),
-  floor: id().optional().describe('Id of the floor the node is on (instead of an absolute elevation).'),
-  heightAboveFloor: finite().optional().describe('Height above its floor, length unit (default 0); only with `floor`.'),
-  fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
-  continuousDemand: nonNegative().optional().describe('Continuous demand drawn at this node, flow unit.'),
-  checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
-});
+/** A node (its position, fixture groups, checked fixtures), described once in elements.ts. */
+export const NodeSchema = NODE.schema;
 
 // The segment and what it holds are described once in elements.ts (keys, ranges, who may change
 // them, labels); these are their zod schemas, derived from the descriptions.

@@ -13,7 +13,7 @@ import { SystemDocumentSchema, analyzeSystem } from '../../../src/engine';
 import { analyzeValidated } from '../../../src/engine/analysis/analyze';
 import { parseDocument } from '../../../src/engine/analysis/input';
 import type { AnyElement, ValueShape } from '../../../src/engine/model/describe';
-import { SEGMENT } from '../../../src/engine/model/elements';
+import { NODE, SEGMENT } from '../../../src/engine/model/elements';
 import { fastParseSystemDocument } from '../../../src/engine/model/fastParse';
 import { generateBuilding, generateRandomTree, mulberry32 } from '../../../src/engine/testing/generateTree';
 import { oneSegment, smallTree } from '../support/docs';
@@ -88,8 +88,6 @@ const device = rec({
     ),
   ),
 });
-/** A fixture type's own data (CustomFixtureSchema). */
-const customFixture = rec({ label, wsfuCold: opt(nonNegative), wsfuHot: opt(nonNegative), wsfuTotal: nonNegative, flushValve: opt(fc.boolean()), source: label });
 
 /**
  * The generator of a described element (elements.ts), from its description: every key, optional
@@ -121,33 +119,8 @@ function arbitraryOf(e: AnyElement): fc.Arbitrary<Record<string, unknown>> {
   );
   return rec(fields);
 }
-const fixtureGroup = rec({
-  fixtureTypeId: id,
-  count,
-  custom: opt(customFixture),
-  demandCurve: opt(fc.constantFrom('flush-tank', 'flush-valve')),
-  wsfuBasis: opt(fc.constantFrom('cold', 'hot', 'total')),
-  usage: opt(rec({ flow: opt(positive), durationSeconds: positive, recurrenceSeconds: positive })),
-});
-const checkedFixture = rec({
-  id,
-  fixtureTypeId: id,
-  label: opt(text),
-  minFlowPressure: opt(nonNegative),
-  flowRate: opt(positive),
-  expectedCritical: opt(fc.boolean()),
-});
 const floor = rec({ id, name: label, elevation: finite });
-const node = rec({
-  id,
-  label: opt(text),
-  elevation: opt(finite),
-  floor: opt(id),
-  heightAboveFloor: opt(finite),
-  fixtureGroups: opt(fc.array(fixtureGroup, { maxLength: 2 })),
-  continuousDemand: opt(nonNegative),
-  checkedFixtures: opt(fc.array(checkedFixture, { maxLength: 2 })),
-});
+const node = arbitraryOf(NODE);
 const segment = arbitraryOf(SEGMENT);
 const criteria = rec({
   maxStaticPressure: opt(positive),
