@@ -6,9 +6,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { DECLINED, element, fieldChangeKeys, optional, rangedPaths, required, value, withDefault, type AnyElement, type ValueShape } from '../../../src/engine/model/describe';
-import { CUSTOM_PIPE, FITTING, SEGMENT } from '../../../src/engine/model/elements';
+import { CHECKED_FIXTURE, CUSTOM_PIPE, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from '../../../src/engine/model/elements';
 import { LIMITS } from '../../../src/engine/model/limits';
-import { SegmentSchema } from '../../../src/engine/model/schema';
+import { NodeSchema, SegmentSchema } from '../../../src/engine/model/schema';
 
 /** The reader's answer: the value, or 'declined'. */
 function read(e: AnyElement, v: unknown): unknown {
@@ -76,9 +76,10 @@ describe('a described element', () => {
 describe('the segment description', () => {
   it('is the zod schema the document uses', () => {
     expect(SegmentSchema).toBe(SEGMENT.schema);
+    expect(NodeSchema).toBe(NODE.schema);
   });
 
-  it('gives every number of the segment, its custom pipe and fittings a plausible range', () => {
+  it('gives every number of the segment and the node (and what they hold) a plausible range', () => {
     const numbers: string[] = [];
     const walk = (e: AnyElement, path: string) => {
       for (const [k, d] of Object.entries(e.keys)) {
@@ -95,16 +96,19 @@ describe('the segment description', () => {
       }
     };
     walk(SEGMENT, 'segment');
+    walk(NODE, 'node');
     expect(numbers).toContain('segment.fittings[].custom.k');
-    expect(numbers.length).toBeGreaterThanOrEqual(9);
+    expect(numbers).toContain('node.fixtureGroups[].usage.recurrenceSeconds');
+    expect(numbers.length).toBeGreaterThanOrEqual(20);
   });
 
   it('lets a field change change the pipe (catalog or custom), its length and its fittings, and nothing else', () => {
     expect(fieldChangeKeys(SEGMENT).sort()).toEqual(['custom', 'fittings', 'length', 'material', 'size']);
     expect(fieldChangeKeys(FITTING)).toEqual([]);
+    expect(fieldChangeKeys(NODE)).toEqual([]);
   });
 
   it('labels every key', () => {
-    for (const e of [SEGMENT, FITTING, CUSTOM_PIPE]) for (const [k, d] of Object.entries(e.keys)) expect(d.label.length, `${e.name}.${k}`).toBeGreaterThan(0);
+    for (const e of [SEGMENT, FITTING, CUSTOM_PIPE, NODE, FIXTURE_GROUP, CHECKED_FIXTURE]) for (const [k, d] of Object.entries(e.keys)) expect(d.label.length, `${e.name}.${k}`).toBeGreaterThan(0);
   });
 });
