@@ -140,14 +140,26 @@ export const value = {
   /** A nested described element. */
   element: <S extends z.ZodType>(e: Element<S>): Value<S> => ({ zod: e.schema, read: e.read, shape: { kind: 'element', element: e } }),
   /**
-   * One of several described elements (a zod union, tried in order). Its reader is given: it must
-   * decide which one applies as zod would, and decline otherwise.
+   * One of several described elements (a zod union, tried in order). Each option must have a
+   * required key no other option has: as the options are strict, the key present decides which one
+   * can apply, so the reader follows zod without trying them in turn.
    */
-  union: <const E extends readonly [AnyElement, AnyElement, ...AnyElement[]]>(of: E, read: Reader): Value<z.ZodUnion<{ [K in keyof E]: E[K]['schema'] }>> => ({
-    zod: z.union(of.map((e) => e.schema) as unknown as { [K in keyof E]: E[K]['schema'] }),
-    read,
-    shape: { kind: 'union', of },
-  }),
+  union: <const E extends readonly [AnyElement, AnyElement, ...AnyElement[]]>(of: E): Value<z.ZodUnion<{ [K in keyof E]: E[K]['schema'] }>> => {
+    const by = of.map((e) => {
+      const own = Object.keys(e.keys).find((k) => e.keys[k].presence === 'required' && of.every((f) => f === e || !(k in f.keys)));
+      if (!own) throw new Error(`union option "${e.name}" has no required key of its own`);
+      return [own, e.read] as const;
+    });
+    return {
+      zod: z.union(of.map((e) => e.schema) as unknown as { [K in keyof E]: E[K]['schema'] }),
+      read: (v) => {
+        const o = obj(v);
+        for (const [key, read] of by) if (key in o) return read(o);
+        return decline();
+      },
+      shape: { kind: 'union', of },
+    };
+  },
 };
 
 // ---- keys: a value with its presence and what the trade and the workflow say about it

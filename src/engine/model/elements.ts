@@ -12,7 +12,7 @@
  * flow gpm or L/s; a range (limits.ts) gives a number's unit.
  */
 import { DOCUMENT_BOUNDS as B } from './bounds';
-import { element, obj, optional, required, decline, value, withDefault, type Reader } from './describe';
+import { element, optional, required, value, withDefault, type AnyElement } from './describe';
 
 const id = () => value.string(1, B.idLength);
 const sourceText = () => value.string(1, B.sourceLength);
@@ -45,16 +45,8 @@ export const CUSTOM_FITTING_EQUIVALENT_LENGTH = element('custom fitting (equival
   source: required(sourceText(), projectSource),
 });
 
-/** zod tries the K form first, then the equivalent-length form; both are strict, so the key present decides. */
-const readCustomFitting: Reader = (v) => {
-  const o = obj(v);
-  if ('k' in o) return CUSTOM_FITTING_K.read(o);
-  if ('equivalentLength' in o) return CUSTOM_FITTING_EQUIVALENT_LENGTH.read(o);
-  return decline();
-};
-
 /** A fitting's own data: the K form or the equivalent-length form. */
-export const CUSTOM_FITTING = value.union([CUSTOM_FITTING_K, CUSTOM_FITTING_EQUIVALENT_LENGTH], readCustomFitting);
+export const CUSTOM_FITTING = value.union([CUSTOM_FITTING_K, CUSTOM_FITTING_EQUIVALENT_LENGTH]);
 
 export const FITTING = element('fitting', {
   typeId: required(id(), {
@@ -174,3 +166,8 @@ export const NODE = element('node', {
   continuousDemand: optional(value.nonNegative(), { label: 'Continuous demand', help: 'Continuous demand drawn at this node, flow unit.', range: 'flow' }),
   checkedFixtures: withDefault(value.list(value.element(CHECKED_FIXTURE), B.checkedFixturesPerNode), [], { label: 'Checked fixtures' }),
 });
+
+/** Every described element by its constant's name (the generated readers are named after them). */
+export function describedElements(): Record<string, AnyElement> {
+  return { CUSTOM_FITTING_K, CUSTOM_FITTING_EQUIVALENT_LENGTH, FITTING, CUSTOM_PIPE, SEGMENT, CUSTOM_FIXTURE, FIXTURE_USAGE, FIXTURE_GROUP, CHECKED_FIXTURE, NODE };
+}

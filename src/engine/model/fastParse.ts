@@ -14,8 +14,9 @@
  * documents.
  *
  * The elements described in elements.ts (nodes and segments, with what they hold) are read by the
- * readers compiled from their descriptions (describe.ts), so a key added there is read here with no
- * edit; the other elements are still read by hand below, with the primitives of describe.ts.
+ * readers generated from their descriptions (readers.generated.ts, `npx tsx scripts/generate-readers.ts`;
+ * a test fails while it is stale), so a key added there needs no edit here; the other elements are
+ * still read by hand below, with the primitives of describe.ts.
  */
 import type {
   Boost,
@@ -39,7 +40,7 @@ import {
   strictKeys,
   type Obj,
 } from './describe';
-import { NODE, SEGMENT } from './elements';
+import { readNode, readSegment } from './readers.generated';
 
 function arr(v: unknown, max: number): unknown[] {
   if (!Array.isArray(v) || v.length > max) decline();
@@ -242,11 +243,11 @@ function floor(v: unknown): Floor {
   return out;
 }
 
-/** The node (and its fixture groups and checked fixtures): the reader compiled from its description (elements.ts). */
-const node = NODE.read;
+/** The node (and its fixture groups and checked fixtures): the reader generated from its description (elements.ts). */
+const node = readNode as (v: unknown) => SystemDocument['nodes'][number];
 
-/** The segment (and its custom pipe and fittings): the reader compiled from its description (elements.ts). */
-const segment = SEGMENT.read;
+/** The segment (and its custom pipe and fittings): the reader generated from its description (elements.ts). */
+const segment = readSegment as (v: unknown) => SystemDocument['segments'][number];
 
 function velocityLimit(v: unknown): NonNullable<CriteriaOverrides['velocityLimits']>[number] {
   const o = obj(v);

@@ -4,9 +4,11 @@
  * key, every number has a plausible range, and the field change's keys are the segment's pipe,
  * length and fittings. These are consistency checks of the format (no published values).
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { DECLINED, element, fieldChangeKeys, optional, rangedPaths, required, value, withDefault, type AnyElement, type ValueShape } from '../../../src/engine/model/describe';
-import { CHECKED_FIXTURE, CUSTOM_PIPE, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from '../../../src/engine/model/elements';
+import { CHECKED_FIXTURE, CUSTOM_PIPE, describedElements, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from '../../../src/engine/model/elements';
+import { readerSource } from '../../../src/engine/model/readerSource';
 import { LIMITS } from '../../../src/engine/model/limits';
 import { NodeSchema, SegmentSchema } from '../../../src/engine/model/schema';
 
@@ -110,5 +112,12 @@ describe('the segment description', () => {
 
   it('labels every key', () => {
     for (const e of [SEGMENT, FITTING, CUSTOM_PIPE, NODE, FIXTURE_GROUP, CHECKED_FIXTURE]) for (const [k, d] of Object.entries(e.keys)) expect(d.label.length, `${e.name}.${k}`).toBeGreaterThan(0);
+  });
+});
+
+describe('the generated readers', () => {
+  it('are the committed readers.generated.ts (run `npx tsx scripts/generate-readers.ts` after changing a description)', () => {
+    const committed = readFileSync(new URL('../../../src/engine/model/readers.generated.ts', import.meta.url), 'utf8');
+    expect(committed).toBe(readerSource(describedElements()));
   });
 });
