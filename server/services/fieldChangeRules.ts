@@ -3,22 +3,26 @@
  * not trusted), and the list of what it did change, in words, for the side by side, the e-mails
  * and the issued summary.
  *
- * A contractor may change, per existing segment, its material, size, custom pipe data, length (an
- * extra offset adds pipe) and fittings; and the devices (change, add, remove). Everything else is
- * the designer's and stays as issued: source, criteria, nodes (elevations, fixture groups, checked
- * fixtures), segment topology (from/to), rise, label, design-flow override, size-change setting,
- * water temperature, name, notes; no segment is added or removed.
+ * A contractor may change, per existing segment, the keys its description marks `changedBy:
+ * 'field-change'` (src/engine/model/elements.ts: material, size, custom pipe data, length — an extra
+ * offset adds pipe — and fittings); and the devices (change, add, remove). Everything else is the
+ * designer's and stays as issued: source, criteria, nodes (elevations, fixture groups, checked
+ * fixtures), the segment's other keys (topology, rise, label, design-flow override, size-change
+ * setting, any key added later unless its description says otherwise), water temperature, name,
+ * notes; no segment is added or removed.
  */
 import { UNIT_LABELS, type Device, type Segment, type SystemDocument } from '../../src/engine';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
+import { fieldChangeKeys } from '../../src/engine/model/describe';
+import { SEGMENT } from '../../src/engine/model/elements';
 import { boosterText, fittingLabel } from '../../src/engine/model/labels';
 import { canonicalJson } from './canonicalJson';
 import { num } from '../pdf/format';
 import type { ChangeField, ChangeItem } from '../../src/shared/api/fieldChanges';
 
-/** The keys of a segment a contractor may change. */
-export const SEGMENT_KEYS_ALLOWED = ['material', 'size', 'custom', 'length', 'fittings'] as const;
+/** The keys of a segment a contractor may change: from the segment's description. */
+export const SEGMENT_KEYS_ALLOWED: readonly (keyof Segment)[] = fieldChangeKeys(SEGMENT);
 const ALLOWED = new Set<string>(SEGMENT_KEYS_ALLOWED);
 
 const same = (a: unknown, b: unknown) => canonicalJson(a) === canonicalJson(b);

@@ -7,7 +7,8 @@ import { describe, expect, it } from 'vitest';
 import { analyzeSystem } from '../../src/engine';
 import type { SystemDocument } from '../../src/engine';
 import { branchIds, fittingsSummary, rangeIds, setFittings, setMaterial, setSize, sizesOf, treeRows, visibleLines } from '../../src/features/tree-editor/model';
-import { CONTRACTOR_POLICY, DESIGNER_POLICY, segmentKeysWritten } from '../../src/features/tree-editor/policy';
+import { SEGMENT } from '../../src/engine/model/elements';
+import { CONTRACTOR_POLICY, DESIGNER_POLICY, EDITABLE_PARTS, segmentKeysWritten } from '../../src/features/tree-editor/policy';
 import { treeOrder } from '../../src/features/walk/lib/tree';
 import { forbiddenDifferences, SEGMENT_KEYS_ALLOWED } from '../../server/services/fieldChangeRules';
 import { demoDocument } from '../routes/support/fake-api';
@@ -119,5 +120,12 @@ describe('edit policies', () => {
     // the designer's policy writes more than a field change may: the rise is refused by the server's rule
     expect(segmentKeysWritten(DESIGNER_POLICY)).toContain('rise');
     expect(SEGMENT_KEYS_ALLOWED).not.toContain('rise');
+  });
+
+  it('when the segment description names the editor columns of its keys, then each is a column of the editor, and the contractor keeps name and rise locked', () => {
+    for (const [key, d] of Object.entries(SEGMENT.keys)) for (const part of d.editor ?? []) expect(EDITABLE_PARTS, key).toContain(part);
+    expect(CONTRACTOR_POLICY.locked.name).not.toBeNull();
+    expect(CONTRACTOR_POLICY.locked.material).toBeNull();
+    expect(CONTRACTOR_POLICY.locked.fittings).toBeNull();
   });
 });

@@ -8,6 +8,9 @@
  * 1 kPa would be coarser than the analysis needs; these keep the converted design within 0.1 % of
  * the original). Catalog sizes ("3/4") are names, not numbers, and stay as they are.
  */
+import { rangedPaths, type AnyElement } from '../model/describe';
+import { CHECKED_FIXTURE, FIXTURE_GROUP, NODE, SEGMENT } from '../model/elements';
+import { LIMITS } from '../model/limits';
 import { fromSI, M3_PER_GAL, M_PER_FT, toSI, type Quantity, type UnitSystem } from '../units';
 import { W_PER_BTU_PER_H } from '../hotWater/recirculationDocument';
 
@@ -42,6 +45,14 @@ const PLACES: Record<Q, Record<UnitSystem, number>> = {
   volume: { US: 2, SI: 1 },
 };
 
+/** The paths of a described element's numbers whose range has a unit, under `prefix`. */
+function describedUnits(prefix: string, e: AnyElement): [string, Q][] {
+  return rangedPaths(e, '*').flatMap(([path, range]): [string, Q][] => {
+    const q = LIMITS[range].unitQuantity;
+    return q && q !== 'density' && q !== 'pressurePerLength' ? [[[prefix, ...path].join('.'), q]] : [];
+  });
+}
+
 /** Where the numbers with a unit are, as paths of keys ("*" = every element or every record key). */
 const FIELDS: readonly [path: string, q: Q][] = [
   ['waterTemperature', 'temperature'],
@@ -61,27 +72,17 @@ const FIELDS: readonly [path: string, q: Q][] = [
   ['devices.*.boost.shutoffGain', 'pressure'],
   ['devices.*.boost.setPressure', 'pressure'],
   ['devices.*.boost.designFlow', 'flow'],
-  ['nodes.*.elevation', 'elevation'],
-  ['nodes.*.heightAboveFloor', 'length'],
-  ['nodes.*.continuousDemand', 'flow'],
-  ['nodes.*.fixtureGroups.*.usage.flow', 'flow'],
-  ['nodes.*.checkedFixtures.*.minFlowPressure', 'pressure'],
-  ['nodes.*.checkedFixtures.*.flowRate', 'flow'],
-  ['segments.*.length', 'length'],
-  ['segments.*.rise', 'length'],
-  ['segments.*.flowOverride', 'flow'],
-  ['segments.*.custom.innerDiameter', 'diameter'],
-  ['segments.*.custom.roughness', 'diameter'],
-  ['segments.*.fittings.*.custom.equivalentLength', 'length'],
+  // The node's and the segment's numbers with a unit: those whose range (their descriptions, elements.ts) has one.
+  ...describedUnits('nodes.*', NODE),
+  ...describedUnits('segments.*', SEGMENT),
   ['criteria.maxStaticPressure', 'pressure'],
   ['criteria.minStaticPressure', 'pressure'],
   ['criteria.velocityLimits.*.maxVelocity', 'velocity'],
   ['criteria.minFlowPressures.*', 'pressure'],
   ['criteria.riseTolerance', 'length'],
   ['unitTypes.*.nodes.*.heightAboveFloor', 'length'],
-  ['unitTypes.*.nodes.*.fixtureGroups.*.usage.flow', 'flow'],
-  ['unitTypes.*.nodes.*.checkedFixtures.*.minFlowPressure', 'pressure'],
-  ['unitTypes.*.nodes.*.checkedFixtures.*.flowRate', 'flow'],
+  ...describedUnits('unitTypes.*.nodes.*.fixtureGroups.*', FIXTURE_GROUP),
+  ...describedUnits('unitTypes.*.nodes.*.checkedFixtures.*', CHECKED_FIXTURE),
   ['unitTypes.*.segments.*.length', 'length'],
   ['unitTypes.*.segments.*.custom.innerDiameter', 'diameter'],
   ['unitTypes.*.segments.*.custom.roughness', 'diameter'],

@@ -1,5 +1,5 @@
 /**
- * A hand-written reading of SystemDocumentSchema for the hot path: the same checks, the same
+ * A reading of SystemDocumentSchema for the hot path: the same checks, the same
  * defaults and the same output (a fresh copy, keys in the schema's order, an optional key kept
  * as `undefined` when the input has it so), without zod's per-value machinery.
  *
@@ -12,76 +12,38 @@
  * minimum-flow-pressure record. Lists longer than their bound are declined (zod words the error). A committed property
  * test (tests/engine/model/fastParse.test.ts) compares the two on generated valid and invalid
  * documents.
+ *
+ * The elements described in elements.ts (nodes and segments, with what they hold) are read by the
+ * readers generated from their descriptions (readers.generated.ts, `npx tsx scripts/generate-readers.ts`;
+ * a test fails while it is stale), so a key added there needs no edit here; the other elements are
+ * still read by hand below, with the primitives of describe.ts.
  */
 import type {
   Boost,
   Floor,
-  CheckedFixture,
   CriteriaOverrides,
   Device,
   DeviceLoss,
-  Fitting,
-  FixtureGroup,
-  Segment,
   Source,
   SystemDocument,
-  SystemNode,
 } from './schema';
 import { DOCUMENT_BOUNDS as B, FED_FROM_CLOSING_MAX, RECIRCULATION_SEGMENTS_MAX, SCHEMA_VERSION } from './schema';
-
-/** Thrown inside the reader when the input is not one it accepts; caught at its entry. */
-class Declined {}
-const DECLINED = Object.freeze(new Declined());
-
-
-type Obj = Record<string, unknown>;
-
-function decline(): never {
-  throw DECLINED;
-}
-
-function obj(v: unknown): Obj {
-  if (typeof v !== 'object' || v === null) decline();
-  const proto = Object.getPrototypeOf(v);
-  if (proto !== Object.prototype && proto !== null) decline();
-  return v as Obj;
-}
+import {
+  DECLINED,
+  decline,
+  keyCount,
+  obj,
+  readBounded as bounded,
+  readNonNegative as nonNegative,
+  readNumber as num,
+  readPositive as positive,
+  strictKeys,
+  type Obj,
+} from './describe';
+import { readNode, readSegment } from './readers.generated';
 
 function arr(v: unknown, max: number): unknown[] {
   if (!Array.isArray(v) || v.length > max) decline();
-  return v;
-}
-
-/** Number of own enumerable keys: compared with the keys read, it rejects unknown keys (strict objects). */
-function keyCount(o: Obj): number {
-  let n = 0;
-  for (const _ in o) n++;
-  return n;
-}
-
-function strictKeys(o: Obj, known: number): void {
-  if (keyCount(o) !== known) decline();
-}
-
-function num(v: unknown): number {
-  if (typeof v !== 'number' || !Number.isFinite(v)) decline();
-  return v;
-}
-function positive(v: unknown): number {
-  if (!(num(v) > 0)) decline();
-  return v as number;
-}
-function nonNegative(v: unknown): number {
-  if (!(num(v) >= 0)) decline();
-  return v as number;
-}
-function positiveInt(v: unknown): number {
-  if (!Number.isSafeInteger(v) || !((v as number) > 0)) decline();
-  return v as number;
-}
-/** A string of at least `min` and at most `max` UTF-16 units (over `max` units zod may still accept: declined). */
-function bounded(v: unknown, min: number, max: number): string {
-  if (typeof v !== 'string' || v.length < min || v.length > max) decline();
   return v;
 }
 function id(v: unknown): string {
@@ -101,10 +63,6 @@ function date(v: unknown): string {
 }
 function notes(v: unknown): string {
   return bounded(v, 0, B.notesLength);
-}
-function bool(v: unknown): boolean {
-  if (typeof v !== 'boolean') decline();
-  return v;
 }
 function oneOf<T extends string>(v: unknown, ...values: readonly T[]): T {
   for (let i = 0; i < values.length; i++) if (v === values[i]) return v as T;
@@ -136,12 +94,6 @@ function listOrEmpty<T>(from: Obj, key: string, item: (x: unknown) => T, max: nu
 }
 
 // The enumerations and lists of schema.ts, as named readers (no closure per call).
-function demandCurve(x: unknown) {
-  return oneOf(x, 'flush-tank', 'flush-valve');
-}
-function wsfuBasis(x: unknown) {
-  return oneOf(x, 'cold', 'hot', 'total');
-}
 function velocityLimits(x: unknown) {
   return list(x, velocityLimit, B.velocityLimits);
 }
@@ -294,56 +246,6 @@ function device(v: unknown): Device {
   return out as Device;
 }
 
-function usage(v: unknown): NonNullable<FixtureGroup['usage']> {
-  const o = obj(v);
-  const out: Obj = {};
-  let known = optional(o, out, 'flow', positive);
-  out.durationSeconds = positive(o.durationSeconds);
-  out.recurrenceSeconds = positive(o.recurrenceSeconds);
-  known += 2;
-  strictKeys(o, known);
-  return out as NonNullable<FixtureGroup['usage']>;
-}
-
-function customFixture(v: unknown): NonNullable<FixtureGroup['custom']> {
-  const o = obj(v);
-  const out: Obj = { label: labelNonEmpty(o.label) };
-  let known = 1;
-  known += optional(o, out, 'wsfuCold', nonNegative);
-  known += optional(o, out, 'wsfuHot', nonNegative);
-  out.wsfuTotal = nonNegative(o.wsfuTotal);
-  known++;
-  known += optional(o, out, 'flushValve', bool);
-  out.source = sourceText(o.source);
-  known++;
-  strictKeys(o, known);
-  return out as NonNullable<FixtureGroup['custom']>;
-}
-
-function fixtureGroup(v: unknown): FixtureGroup {
-  const o = obj(v);
-  const out: Obj = { fixtureTypeId: id(o.fixtureTypeId), count: positiveInt(o.count) };
-  let known = 2;
-  known += optional(o, out, 'custom', customFixture);
-  known += optional(o, out, 'demandCurve', demandCurve);
-  known += optional(o, out, 'wsfuBasis', wsfuBasis);
-  known += optional(o, out, 'usage', usage);
-  strictKeys(o, known);
-  return out as FixtureGroup;
-}
-
-function checkedFixture(v: unknown): CheckedFixture {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id), fixtureTypeId: id(o.fixtureTypeId) };
-  let known = 2;
-  known += optional(o, out, 'label', label);
-  known += optional(o, out, 'minFlowPressure', nonNegative);
-  known += optional(o, out, 'flowRate', positive);
-  known += optional(o, out, 'expectedCritical', bool);
-  strictKeys(o, known);
-  return out as CheckedFixture;
-}
-
 function floor(v: unknown): Floor {
   const o = obj(v);
   const out = { id: id(o.id), name: labelNonEmpty(o.name), elevation: num(o.elevation) };
@@ -351,81 +253,11 @@ function floor(v: unknown): Floor {
   return out;
 }
 
-function node(v: unknown): SystemNode {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id) };
-  let known = 1;
-  known += optional(o, out, 'label', label);
-  known += optional(o, out, 'elevation', num);
-  known += optional(o, out, 'floor', id);
-  known += optional(o, out, 'heightAboveFloor', num);
-  const [fixtureGroups, hasGroups] = listOrEmpty(o, 'fixtureGroups', fixtureGroup, B.fixtureGroupsPerNode);
-  out.fixtureGroups = fixtureGroups;
-  known += hasGroups;
-  known += optional(o, out, 'continuousDemand', nonNegative);
-  const [checkedFixtures, hasChecked] = listOrEmpty(o, 'checkedFixtures', checkedFixture, B.checkedFixturesPerNode);
-  out.checkedFixtures = checkedFixtures;
-  known += hasChecked;
-  strictKeys(o, known);
-  return out as SystemNode;
-}
+/** The node (and its fixture groups and checked fixtures): the reader generated from its description (elements.ts). */
+const node = readNode as (v: unknown) => SystemDocument['nodes'][number];
 
-/** The union of schema.ts: exactly one of `k` or `equivalentLength` (both strict objects of three keys). */
-function customFitting(v: unknown): NonNullable<Fitting['custom']> {
-  const o = obj(v);
-  const name = labelNonEmpty(o.label);
-  let out: NonNullable<Fitting['custom']>;
-  if ('k' in o) out = { label: name, k: nonNegative(o.k), source: sourceText(o.source) };
-  else if ('equivalentLength' in o) out = { label: name, equivalentLength: nonNegative(o.equivalentLength), source: sourceText(o.source) };
-  else return decline();
-  strictKeys(o, 3);
-  return out;
-}
-
-function fitting(v: unknown): Fitting {
-  const o = obj(v);
-  const out: Obj = { typeId: id(o.typeId), count: positiveInt(o.count) };
-  strictKeys(o, 2 + optional(o, out, 'custom', customFitting));
-  return out as Fitting;
-}
-
-function customPipe(v: unknown): NonNullable<Segment['custom']> {
-  const o = obj(v);
-  const out = {
-    innerDiameter: positive(o.innerDiameter),
-    roughness: nonNegative(o.roughness),
-    hazenWilliamsC: positive(o.hazenWilliamsC),
-    velocityClass: oneOf(o.velocityClass, 'copper', 'plastic', 'steel'),
-  };
-  strictKeys(o, 4);
-  return out;
-}
-
-function segment(v: unknown): Segment {
-  const o = obj(v);
-  const out: Obj = { id: id(o.id) };
-  let known = 1;
-  known += optional(o, out, 'label', label);
-  out.from = id(o.from);
-  out.to = id(o.to);
-  known += 2;
-  known += optional(o, out, 'material', id);
-  known += optional(o, out, 'size', id);
-  known += optional(o, out, 'custom', customPipe);
-  out.length = positive(o.length);
-  known++;
-  known += optional(o, out, 'rise', num);
-  const [fittings, hasFittings] = listOrEmpty(o, 'fittings', fitting, B.fittingsPerSegment);
-  out.fittings = fittings;
-  known += hasFittings;
-  known += optional(o, out, 'flowOverride', nonNegative);
-  const reducerAuto = o.reducerAuto;
-  out.reducerAuto = reducerAuto === undefined ? true : bool(reducerAuto);
-  known += 'reducerAuto' in o ? 1 : 0;
-  known += optional(o, out, 'sizeLocked', bool);
-  strictKeys(o, known);
-  return out as Segment;
-}
+/** The segment (and its custom pipe and fittings): the reader generated from its description (elements.ts). */
+const segment = readSegment as (v: unknown) => SystemDocument['segments'][number];
 
 function velocityLimit(v: unknown): NonNullable<CriteriaOverrides['velocityLimits']>[number] {
   const o = obj(v);

@@ -17,6 +17,8 @@
  * the checks (analysis/checks.ts) judge that. A range only keeps nonsense out.
  */
 import { toSI, UNIT_LABELS, type Quantity, type UnitSystem } from '../units';
+import { rangedPaths, type AnyElement } from './describe';
+import { CHECKED_FIXTURE, FIXTURE_GROUP, NODE, SEGMENT } from './elements';
 
 /** The kinds of numeric input a document holds, each with one range. */
 export type LimitQuantity =
@@ -416,6 +418,11 @@ export function checkRange(quantity: LimitQuantity, value: number, unitSystem: U
   return null;
 }
 
+/** The ranges of a described element's numbers, as FIELD_QUANTITIES paths under `prefix`. */
+function describedRanges(prefix: string, e: AnyElement): Record<string, LimitQuantity> {
+  return Object.fromEntries(rangedPaths(e, '[]').map(([path, range]) => [`${prefix}.${path.join('.').replaceAll('.[]', '[]')}`, range]));
+}
+
 /**
  * Which range applies to each numeric field of a document, by its path with `[]` for a list
  * index (the engine's checks in analysis/ranges.ts follow the same table; forms look fields up here).
@@ -442,27 +449,9 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'devices[].boost.designFlow': 'flow',
   'devices[].boost.setPressure': 'pressureSetting',
   'floors[].elevation': 'elevation',
-  'nodes[].elevation': 'elevation',
-  'nodes[].heightAboveFloor': 'heightAboveFloor',
-  'nodes[].continuousDemand': 'flow',
-  'nodes[].fixtureGroups[].count': 'fixtureCount',
-  'nodes[].fixtureGroups[].custom.wsfuCold': 'fixtureUnits',
-  'nodes[].fixtureGroups[].custom.wsfuHot': 'fixtureUnits',
-  'nodes[].fixtureGroups[].custom.wsfuTotal': 'fixtureUnits',
-  'nodes[].fixtureGroups[].usage.flow': 'fixtureFlow',
-  'nodes[].fixtureGroups[].usage.durationSeconds': 'useDuration',
-  'nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
-  'nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
-  'nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
-  'segments[].length': 'length',
-  'segments[].rise': 'rise',
-  'segments[].flowOverride': 'flow',
-  'segments[].custom.innerDiameter': 'innerDiameter',
-  'segments[].custom.roughness': 'roughness',
-  'segments[].custom.hazenWilliamsC': 'hazenWilliamsC',
-  'segments[].fittings[].count': 'fittingCount',
-  'segments[].fittings[].custom.k': 'lossCoefficient',
-  'segments[].fittings[].custom.equivalentLength': 'equivalentLength',
+  // The node's and the segment's ranges are in their descriptions (elements.ts).
+  ...describedRanges('nodes[]', NODE),
+  ...describedRanges('segments[]', SEGMENT),
   'criteria.maxStaticPressure': 'staticPressure',
   'criteria.minStaticPressure': 'staticPressure',
   'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
@@ -481,15 +470,8 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'recirculation.heaterLoss': 'pressureLoss',
   // Typical units and their placements (checked by the engine after expansion into nodes and segments).
   'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
-  'unitTypes[].nodes[].fixtureGroups[].count': 'fixtureCount',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuCold': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuHot': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].custom.wsfuTotal': 'fixtureUnits',
-  'unitTypes[].nodes[].fixtureGroups[].usage.flow': 'fixtureFlow',
-  'unitTypes[].nodes[].fixtureGroups[].usage.durationSeconds': 'useDuration',
-  'unitTypes[].nodes[].fixtureGroups[].usage.recurrenceSeconds': 'useInterval',
-  'unitTypes[].nodes[].checkedFixtures[].minFlowPressure': 'minFlowPressure',
-  'unitTypes[].nodes[].checkedFixtures[].flowRate': 'fixtureFlow',
+  ...describedRanges('unitTypes[].nodes[].fixtureGroups[]', FIXTURE_GROUP),
+  ...describedRanges('unitTypes[].nodes[].checkedFixtures[]', CHECKED_FIXTURE),
   'unitTypes[].segments[].length': 'length',
   'unitTypes[].segments[].custom.innerDiameter': 'innerDiameter',
   'unitTypes[].segments[].custom.roughness': 'roughness',

@@ -26,45 +26,10 @@ import { z } from 'zod';
 
 export const SCHEMA_VERSION = 2 as const;
 
-/**
- * Bounds on every list and string of a document. Reference: a 40-storey tower with about 12
- * dwellings a floor has about 500 dwellings, 5,000 fixtures and, entered fixture by fixture, about
- * 5,000 segments; 20,000 nodes and segments is four times that. Per-element lists (fixture groups
- * at a node, fittings on a segment) are tens in practice; 100 each is headroom. Text fields are
- * names (200 characters, two lines of a drawing title block), sources and bases (1,000: a
- * citation with edition, table and row) and free notes (20,000).
- */
-export const DOCUMENT_BOUNDS = Object.freeze({
-  nodes: 20000,
-  segments: 20000,
-  /** Meters, backflow preventers, PRVs, pumps, heaters: a tower has tens; one per segment of a large riser zone bank is far more. */
-  devices: 2000,
-  /** A 40-storey tower has about 45 levels with basements and plant; 500 covers mezzanines and several buildings on one service. */
-  floors: 500,
-  fixtureGroupsPerNode: 100,
-  checkedFixturesPerNode: 100,
-  fittingsPerSegment: 100,
-  /**
-   * A unit type is one apartment, room or restroom: 200 segments is several times the branch
-   * piping of the largest apartment or restroom core; 2,000 types and 20,000 placements cover a
-   * 40-storey tower of 20 units a floor many times over.
-   */
-  unitSegments: 200,
-  unitNodes: 201,
-  unitTypes: 2000,
-  placements: 20000,
-  /** A manufacturer's loss curve is read at 5–20 points. */
-  curvePoints: 100,
-  /** Three material classes × two services, with room for repeats. */
-  velocityLimits: 20,
-  /** One per fixture type of the catalogs (about 60) with project types. */
-  minFlowPressures: 500,
-  idLength: 200,
-  labelLength: 200,
-  sourceLength: 1000,
-  dateLength: 40,
-  notesLength: 20000,
-});
+// The bounds live in bounds.ts so that the element descriptions (elements.ts) can use them too.
+export { DOCUMENT_BOUNDS } from './bounds';
+import { DOCUMENT_BOUNDS } from './bounds';
+import { CHECKED_FIXTURE, CUSTOM_FITTING, CUSTOM_FIXTURE, CUSTOM_PIPE, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from './elements';
 
 const B = DOCUMENT_BOUNDS;
 const id = () => z.string().min(1).max(B.idLength);
@@ -217,52 +182,10 @@ export const DeviceSchema = z.strictObject({
   boost: BoostSchema.optional().describe('Required when kind is "booster-pump".'),
 });
 
-/**
- * A fixture type given by its own data (a project's fixture type copied into the document), in
- * place of the fixtures catalog's values for this group. Fixture units are per fixture; an absent
- * cold or hot value counts as no load on that service, as a catalog type without one does.
- * `flushValve` sets the demand curve (true: flush-valve, false: flush-tank); without it the
- * catalog type's curve applies, or flush-tank when `fixtureTypeId` is not a catalog type.
- * The values and their `source` are the designer's: the analysis repeats them in a note.
- */
-export const CustomFixtureSchema = z.strictObject({
-  label: label().min(1).describe('Name of the fixture type, as the project catalog gives it.'),
-  wsfuCold: nonNegative().optional().describe('Cold-water fixture units per fixture.'),
-  wsfuHot: nonNegative().optional().describe('Hot-water fixture units per fixture.'),
-  wsfuTotal: nonNegative().describe('Total fixture units per fixture.'),
-  flushValve: z.boolean().optional().describe('Flush-valve demand curve (true) or flush-tank (false).'),
-  source: sourceText().describe('Where the values come from (standard, table, manufacturer).'),
-});
-
-export const FixtureGroupSchema = z.strictObject({
-  fixtureTypeId: id().describe(
-    'Fixture type id from the fixtures catalog; with `custom`, any reference (e.g. "project:<entry id>"), looked up only as a fallback.',
-  ),
-  count: z.number().int().positive(),
-  custom: CustomFixtureSchema.optional().describe("The fixture type's own data, overriding the catalog's."),
-  demandCurve: DemandCurveSchema.optional().describe("Overrides the fixture type's demand curve."),
-  wsfuBasis: z
-    .enum(['cold', 'hot', 'total'])
-    .optional()
-    .describe("Which fixture-unit load counts: defaults to the system's service (cold or hot)."),
-  usage: z
-    .strictObject({
-      flow: positive().optional().describe("Flow while in use, flow unit; defaults to the fixture type's flow."),
-      durationSeconds: positive(),
-      recurrenceSeconds: positive(),
-    })
-    .optional()
-    .describe("For Hunter's binomial method: flow, duration of use and time between uses."),
-});
-
-export const CheckedFixtureSchema = z.strictObject({
-  id: id(),
-  fixtureTypeId: id(),
-  label: label().optional(),
-  minFlowPressure: nonNegative().optional().describe('Overrides the minimum flow pressure, pressure unit.'),
-  flowRate: positive().optional().describe("Overrides the fixture's flow rate (reported), flow unit."),
-  expectedCritical: z.boolean().optional().describe('The designer expects this fixture to be the critical one.'),
-});
+// The fixture groups and checked fixtures are described once in elements.ts; their zod schemas:
+export const CustomFixtureSchema = CUSTOM_FIXTURE.schema;
+export const FixtureGroupSchema = FIXTURE_GROUP.schema;
+export const CheckedFixtureSchema = CHECKED_FIXTURE.schema;
 
 /** A named level of the building; nodes placed on it move with it. */
 export const FloorSchema = z.strictObject({
@@ -271,91 +194,15 @@ export const FloorSchema = z.strictObject({
   elevation: finite().describe('Elevation of the finished floor, length unit, the datum of the node elevations.'),
 });
 
-/**
- * A node's position is exactly one of: an absolute `elevation`; a `floor` with an optional
- * `heightAboveFloor` (default 0); or neither, and then its feed segment's `rise` places it
- * (elevation = elevation of the upstream node + rise). Both `elevation` and `floor` at once is an
- * error, and so is a `rise` on the feed segment of a node that has either.
- */
-export const NodeSchema = z.strictObject({
-  id: id(),
-  label: label().optional(),
-  elevation: finite().optional().describe('Absolute elevation, length unit, any datum (the same for all nodes and floors).'),
-  floor: id().optional().describe('Id of the floor the node is on (instead of an absolute elevation).'),
-  heightAboveFloor: finite().optional().describe('Height above its floor, length unit (default 0); only with `floor`.'),
-  fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
-  continuousDemand: nonNegative().optional().describe('Continuous demand drawn at this node, flow unit.'),
-  checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
-});
+/** A node (its position, fixture groups, checked fixtures), described once in elements.ts. */
+export const NodeSchema = NODE.schema;
 
-/**
- * A fitting given by its own data (a project's fitting type copied into the document): exactly
- * one of a loss coefficient `k` or an `equivalentLength` (length unit), with its source.
- *
- * The rule, under every fitting method of the criteria (the data has no method-specific form):
- *   - `k`: used as it is, K referred to the segment's velocity, loss = count·K·ρV²/2 — as the
- *     engine already treats its constant-K entries (entrances, exits). With the equivalent-length
- *     method it is not refused and not rescaled: a K is the more direct statement of a loss, and
- *     converting it to a length and back (K·D/f, then f·L/D) would return the same K.
- *   - `equivalentLength`: K = f·L/D with the segment's own Darcy friction factor f and inside
- *     diameter D (the equivalent-length rule of the fittings catalog: "this many feet of this
- *     pipe"), so the loss is count·f·(L/D)·ρV²/2. Crane's f_T (fully turbulent) is not used: an
- *     equivalent length of pipe loses what that pipe loses at the actual flow.
- * Either way the analysis repeats the label and source in a note (a custom value is an assumption).
- */
-export const CustomFittingSchema = z.union([
-  z.strictObject({
-    label: label().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
-    k: nonNegative().describe('Loss coefficient K (velocity heads), referred to the segment velocity.'),
-    source: sourceText().describe('Where the value comes from (standard, table, manufacturer).'),
-  }),
-  z.strictObject({
-    label: label().min(1).describe('Name of the fitting type, as the project catalog gives it.'),
-    equivalentLength: nonNegative().describe('Equivalent length of the segment pipe, length unit.'),
-    source: sourceText().describe('Where the value comes from (standard, table, manufacturer).'),
-  }),
-]);
-
-export const FittingSchema = z.strictObject({
-  typeId: id().describe(
-    'Fitting type id from the fittings catalog; with `custom`, a reference to where the data came from (e.g. "project:<entry id>"), not looked up.',
-  ),
-  count: z.number().int().positive(),
-  custom: CustomFittingSchema.optional().describe("Instead of the catalog's data: the fitting's own K or equivalent length."),
-});
-
-export const CustomPipeSchema = z.strictObject({
-  innerDiameter: positive().describe('Inside diameter, diameter unit.'),
-  roughness: nonNegative().describe('Absolute roughness, diameter unit.'),
-  hazenWilliamsC: positive(),
-  velocityClass: VelocityClassSchema.describe('Which velocity limit applies.'),
-});
-
-export const SegmentSchema = z.strictObject({
-  id: id(),
-  label: label().optional(),
-  from: id().describe('Upstream node (toward the source).'),
-  to: id().describe('Downstream node.'),
-  material: id().optional().describe('Material id from the materials catalog (with size).'),
-  size: id().optional().describe("Nominal size key in the material's catalog, e.g. \"3/4\"."),
-  custom: CustomPipeSchema.optional().describe('Instead of material and size: a pipe given by its own data.'),
-  length: positive().describe('Developed length of pipe, length unit.'),
-  rise: finite()
-    .optional()
-    .describe(
-      'Rise from the upstream to the downstream node, length unit; places the downstream node, so only where that node has neither an elevation nor a floor.',
-    ),
-  fittings: z.array(FittingSchema).max(B.fittingsPerSegment).default([]),
-  flowOverride: nonNegative().optional().describe('Design flow to use instead of the fixture-unit demand, flow unit.'),
-  reducerAuto: z
-    .boolean()
-    .default(true)
-    .describe('Add a sudden expansion or contraction loss where the size differs from the feeding segment.'),
-  sizeLocked: z
-    .boolean()
-    .optional()
-    .describe('The designer fixed this size: automatic sizing keeps it.'),
-});
+// The segment and what it holds are described once in elements.ts (keys, ranges, who may change
+// them, labels); these are their zod schemas, derived from the descriptions.
+export const CustomFittingSchema = CUSTOM_FITTING.zod;
+export const FittingSchema = FITTING.schema;
+export const CustomPipeSchema = CUSTOM_PIPE.schema;
+export const SegmentSchema = SEGMENT.schema;
 
 export const CriteriaOverridesSchema = z
   .strictObject({

@@ -25,6 +25,10 @@
  */
 import type { SystemDocument } from './schema';
 import type { SystemDocumentV1 } from './schemaV1';
+import { keyOrder } from './describe';
+import { SEGMENT } from './elements';
+
+const SEGMENT_ORDER = keyOrder(SEGMENT);
 
 export type RiseConflictRule = 'keep-elevations' | 'follow-rises';
 
@@ -147,8 +151,7 @@ export function upgradeDocumentWithReport(doc: SystemDocumentV1, options: Upgrad
 
 /** Keys in the schema's order (a parsed version 2 document has them so). */
 function reorderSegment(seg: SystemDocument['segments'][number]): SystemDocument['segments'][number] {
-  const order = ['id', 'label', 'from', 'to', 'material', 'size', 'custom', 'length', 'rise', 'fittings', 'flowOverride', 'reducerAuto', 'sizeLocked'] as const;
   const out: Record<string, unknown> = {};
-  for (const k of order) if (k in seg) out[k] = (seg as Record<string, unknown>)[k];
+  for (const k of SEGMENT_ORDER) if (k in seg) out[k] = (seg as Record<string, unknown>)[k];
   return out as SystemDocument['segments'][number];
 }

@@ -216,8 +216,11 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
         throw new SizingError('unknown-size', `Size "${key}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
       }
     }
+    // The designer's smallest size (segment `minSize`): no candidate below its inside diameter.
+    const floorSize = s.minSize === undefined ? undefined : material.sizes.find((z) => z.key === s.minSize);
+    if (s.minSize !== undefined && !floorSize) throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
     const sizes = [...material.sizes]
-      .filter((z) => !allowed || allowed.includes(z.key))
+      .filter((z) => (!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM))
       .sort((a, b) => a.innerDiameterM - b.innerDiameterM)
       .map((z) => z.key);
     const index = segIndex.get(s.id);

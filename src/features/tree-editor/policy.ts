@@ -2,6 +2,8 @@
  * What the tree editor lets the person change. One editor serves the designer's walk and the
  * contractor's field change; the difference is this object, never a copy of the screen.
  */
+import type { ChangedBy } from '../../engine/model/describe';
+import { SEGMENT } from '../../engine/model/elements';
 
 /** The parts of a segment the editor can change, each a column or an action. */
 export const EDITABLE_PARTS = ['name', 'material', 'size', 'length', 'rise', 'fittings', 'devices', 'topology', 'fixtures'] as const;
@@ -20,27 +22,31 @@ export const DESIGNER_POLICY: EditPolicy = { id: 'designer', locked: open() };
 
 const AS_ISSUED = 'Stays as the designer issued it: a field change substitutes pipe material, size, length and fittings, and devices.';
 
+/** The segment's keys, by the editor columns that write them (from the segment's description). */
+const SEGMENT_KEYS_BY_PART = new Map<EditablePart, { key: string; changedBy: ChangedBy }[]>(EDITABLE_PARTS.map((p) => [p, []]));
+for (const [key, d] of Object.entries(SEGMENT.keys)) for (const part of d.editor ?? []) SEGMENT_KEYS_BY_PART.get(part as EditablePart)?.push({ key, changedBy: d.changedBy });
+
 /**
- * A contractor's field change: material, size, length and fittings of each issued segment, and the
- * devices — the segment keys server/services/fieldChangeRules.ts allows (SEGMENT_KEYS_ALLOWED; a
- * test keeps the two in step). The tree itself (segments added or removed, names, rises, fixtures)
- * stays as issued.
+ * A contractor's field change: the columns that write only segment keys a field change may change
+ * (`changedBy: 'field-change'` in src/engine/model/elements.ts, the keys server/services/fieldChangeRules.ts
+ * allows — material, size, length and fittings), and the devices. The tree itself (segments added or
+ * removed, fixtures) and every column writing a key of the designer's (names, rises) stay as issued.
  */
 export const CONTRACTOR_POLICY: EditPolicy = {
   id: 'contractor',
-  locked: { ...open(), name: AS_ISSUED, rise: AS_ISSUED, topology: AS_ISSUED, fixtures: AS_ISSUED },
+  locked: {
+    ...open(),
+    ...Object.fromEntries([...SEGMENT_KEYS_BY_PART].filter(([, keys]) => keys.some((k) => k.changedBy === 'designer')).map(([part]) => [part, AS_ISSUED])),
+    topology: AS_ISSUED,
+    fixtures: AS_ISSUED,
+  },
 };
 
 /** The document keys a policy lets the editor write on a segment (for the check against the server's rule). */
 export function segmentKeysWritten(policy: EditPolicy): string[] {
-  const keys: string[] = [];
-  if (!policy.locked.name) keys.push('label');
-  if (!policy.locked.material) keys.push('material', 'custom');
-  if (!policy.locked.size) keys.push('size', 'custom');
-  if (!policy.locked.length) keys.push('length');
-  if (!policy.locked.rise) keys.push('rise');
-  if (!policy.locked.fittings) keys.push('fittings');
-  return [...new Set(keys)];
+  const keys = new Set<string>();
+  for (const [part, written] of SEGMENT_KEYS_BY_PART) if (!policy.locked[part]) for (const k of written) keys.add(k.key);
+  return [...keys];
 }
 
 /** Everything locked with one reason (an issued revision, a reader). */

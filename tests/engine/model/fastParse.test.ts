@@ -12,6 +12,8 @@ import { describe, expect, it } from 'vitest';
 import { SystemDocumentSchema, analyzeSystem } from '../../../src/engine';
 import { analyzeValidated } from '../../../src/engine/analysis/analyze';
 import { parseDocument } from '../../../src/engine/analysis/input';
+import type { AnyElement, ValueShape } from '../../../src/engine/model/describe';
+import { NODE, SEGMENT } from '../../../src/engine/model/elements';
 import { fastParseSystemDocument } from '../../../src/engine/model/fastParse';
 import { generateBuilding, generateRandomTree, mulberry32 } from '../../../src/engine/testing/generateTree';
 import { oneSegment, smallTree } from '../support/docs';
@@ -87,52 +89,40 @@ const device = rec({
     ),
   ),
 });
-/** A fixture type's own data (CustomFixtureSchema). */
-const customFixture = rec({ label, wsfuCold: opt(nonNegative), wsfuHot: opt(nonNegative), wsfuTotal: nonNegative, flushValve: opt(fc.boolean()), source: label });
-/** A fitting's own data (CustomFittingSchema): exactly one of k or equivalentLength. */
-const customFitting = fc.oneof(rec({ label, k: nonNegative, source: label }), rec({ label, equivalentLength: nonNegative, source: label }));
-const fixtureGroup = rec({
-  fixtureTypeId: id,
-  count,
-  custom: opt(customFixture),
-  demandCurve: opt(fc.constantFrom('flush-tank', 'flush-valve')),
-  wsfuBasis: opt(fc.constantFrom('cold', 'hot', 'total')),
-  usage: opt(rec({ flow: opt(positive), durationSeconds: positive, recurrenceSeconds: positive })),
-});
-const checkedFixture = rec({
-  id,
-  fixtureTypeId: id,
-  label: opt(text),
-  minFlowPressure: opt(nonNegative),
-  flowRate: opt(positive),
-  expectedCritical: opt(fc.boolean()),
-});
+
+/**
+ * The generator of a described element (elements.ts), from its description: every key, optional
+ * ones absent, undefined or present, lists of up to 3 items, strings within their bounds.
+ */
+function arbitraryOfShape(shape: ValueShape): fc.Arbitrary<unknown> {
+  switch (shape.kind) {
+    case 'number':
+      return shape.sign === 'positive' ? positive : shape.sign === 'nonNegative' ? nonNegative : finite;
+    case 'count':
+      return count;
+    case 'string':
+      return shape.min > 0 ? (shape.max >= 12 ? id : label) : text;
+    case 'boolean':
+      return fc.boolean();
+    case 'enum':
+      return fc.constantFrom(...shape.values);
+    case 'list':
+      return fc.array(arbitraryOfShape(shape.item), { minLength: shape.min, maxLength: Math.min(shape.max, 3) });
+    case 'element':
+      return arbitraryOf(shape.element);
+    case 'union':
+      return fc.oneof(...shape.of.map(arbitraryOf));
+  }
+}
+function arbitraryOf(e: AnyElement): fc.Arbitrary<Record<string, unknown>> {
+  const fields = Object.fromEntries(
+    Object.entries(e.keys).map(([k, d]) => [k, d.presence === 'required' ? arbitraryOfShape(d.shape) : opt(arbitraryOfShape(d.shape))]),
+  );
+  return rec(fields);
+}
 const floor = rec({ id, name: label, elevation: finite });
-const node = rec({
-  id,
-  label: opt(text),
-  elevation: opt(finite),
-  floor: opt(id),
-  heightAboveFloor: opt(finite),
-  fixtureGroups: opt(fc.array(fixtureGroup, { maxLength: 2 })),
-  continuousDemand: opt(nonNegative),
-  checkedFixtures: opt(fc.array(checkedFixture, { maxLength: 2 })),
-});
-const segment = rec({
-  id,
-  label: opt(text),
-  from: id,
-  to: id,
-  material: opt(label),
-  size: opt(label),
-  custom: opt(rec({ innerDiameter: positive, roughness: nonNegative, hazenWilliamsC: positive, velocityClass: fc.constantFrom('copper', 'plastic', 'steel') })),
-  length: positive,
-  rise: opt(finite),
-  fittings: opt(fc.array(rec({ typeId: id, count, custom: opt(customFitting) }), { maxLength: 3 })),
-  flowOverride: opt(nonNegative),
-  reducerAuto: opt(fc.boolean()),
-  sizeLocked: opt(fc.boolean()),
-});
+const node = arbitraryOf(NODE);
+const segment = arbitraryOf(SEGMENT);
 const criteria = rec({
   maxStaticPressure: opt(positive),
   minStaticPressure: opt(nonNegative),

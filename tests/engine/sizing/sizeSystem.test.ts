@@ -182,6 +182,20 @@ describe('sizeSystem: answers, locks and bad input', () => {
     }
   });
 
+  it('when a segment has a smallest size, then sizing chooses none below it, and an unknown one is a named error', () => {
+    const t = randomTree(4, 150);
+    const free = sizeSystem(t.doc);
+    const small = free.segments.find((s) => s.after === '1/2');
+    if (!small) throw new Error('tree 4 at 150 psi was expected to size a segment at 1/2');
+    const withFloor = { ...t.doc, segments: t.doc.segments.map((s) => (s.id === small.segmentId ? { ...s, minSize: '3/4' } : s)) };
+    const floored = sizeSystem(withFloor).segments.find((s) => s.segmentId === small.segmentId)!;
+    const material = MATERIALS[small.material as keyof typeof MATERIALS];
+    const id = (key: string | null) => material.sizes.find((z) => z.key === key)!.innerDiameterM;
+    expect(id(floored.after)).toBeGreaterThanOrEqual(id('3/4'));
+    const unknown = { ...t.doc, segments: t.doc.segments.map((s) => (s.id === small.segmentId ? { ...s, minSize: '7/8-inch' } : s)) };
+    expect(() => sizeSystem(unknown)).toThrow(/Smallest size "7\/8-inch" is not a size of/);
+  });
+
   it('when a lock names no segment, then a named error', () => {
     expect(() => sizeSystem(tree.doc, { lockedSegmentIds: ['nope'] })).toThrow(/No segment "nope"/);
   });
