@@ -473,6 +473,34 @@ function expansionTank(v: unknown): NonNullable<SystemDocument['expansionTank']>
   return out as NonNullable<SystemDocument['expansionTank']>;
 }
 
+function count(v: unknown): number {
+  if (!Number.isSafeInteger(v) || (v as number) < 0) decline();
+  return v as number;
+}
+
+function sizingBasis(v: unknown): NonNullable<SystemDocument['sizingBasis']> {
+  const o = obj(v);
+  const out: Obj = {
+    sizedAt: date(o.sizedAt),
+    scope: oneOf(o.scope, 'system', 'selection'),
+    margin: nonNegative(o.margin),
+    supplyPressure: nonNegative(o.supplyPressure),
+    velocityLimits: list(o.velocityLimits, classLimit, B.velocityLimits),
+    segmentsChanged: count(o.segmentsChanged),
+    segmentsLocked: count(o.segmentsLocked),
+    sizesFingerprint: bounded(o.sizesFingerprint, 0, B.idLength),
+  };
+  strictKeys(o, 8);
+  return out as NonNullable<SystemDocument['sizingBasis']>;
+}
+
+function classLimit(v: unknown) {
+  const o = obj(v);
+  const out = { material: oneOf(o.material, 'copper', 'plastic', 'steel'), maxVelocity: positive(o.maxVelocity) };
+  strictKeys(o, 2);
+  return out;
+}
+
 function systemDocument(v: unknown): SystemDocument {
   const o = obj(v);
   if (o.schemaVersion !== SCHEMA_VERSION) decline();
@@ -500,6 +528,7 @@ function systemDocument(v: unknown): SystemDocument {
   known += optional(o, out, 'criteria', criteria);
   known += optional(o, out, 'expansionTank', expansionTank);
   known += optional(o, out, 'notes', notes);
+  known += optional(o, out, 'sizingBasis', sizingBasis);
   strictKeys(o, known);
   return out as SystemDocument;
 }

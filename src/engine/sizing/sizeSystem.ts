@@ -110,6 +110,12 @@ export interface FixtureMargin {
   afterPa: number | null;
 }
 
+/** What the sizing measured against: the supply's minimum pressure at the design flow, Pa, and the velocity limit of each material class for the system's service, m/s. */
+export interface SizingConditions {
+  supplyPressurePa: number;
+  velocityLimits: { material: string; maxVelocityMs: number }[];
+}
+
 export interface SizingResult {
   /** true when the sizes found meet every velocity limit and every fixture with the margin. */
   feasible: boolean;
@@ -133,6 +139,8 @@ export interface SizingResult {
    * margin), and its budget per 100 ft of equivalent length (frictionBudget.ts).
    */
   frictionBudget: FrictionBudget | null;
+  /** The supply pressure and velocity limits used, recorded with an applied sizing (basis.ts). */
+  conditions: SizingConditions;
   /** The sized document (null when not feasible: nothing changes). */
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
@@ -201,6 +209,12 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const segs = base.si.segments;
   const segIndex = new Map(segs.map((s, i) => [s.id, i]));
   const budget = frictionBudgetOf(base, marginPa);
+  const conditions: SizingConditions = {
+    supplyPressurePa: base.si.source.pressureAtDesignFlow,
+    velocityLimits: base.criteria.velocityLimits
+      .filter((v) => v.service === doc.service)
+      .map((v) => ({ material: v.material, maxVelocityMs: toSI('velocity', v.maxVelocity, doc.unitSystem) })),
+  };
   const locked = new Set([...(options.lockedSegmentIds ?? []), ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id)]);
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
@@ -383,6 +397,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       shortfallPa: shortfall,
       boosterPressurePa: booster,
       frictionBudget: budget,
+      conditions,
       document: null,
       analyses,
       timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
@@ -479,6 +494,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     shortfallPa: verified ? 0 : Math.max(0, ...(after?.si.fixtures.map((f) => f.required + marginPa - f.residual) ?? [0])),
     boosterPressurePa: null,
     frictionBudget: budget,
+    conditions,
     document: verified && allVelocity ? sized : null,
     analyses,
     timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
