@@ -26,7 +26,7 @@ import {
   staticCheckContent,
   summaryVerdict,
   UNVERIFIED_NOTE,
-  warningWhere,
+  groupedWarningRows,
   type FailureAcknowledgementText,
   type SummaryVerdict,
 } from './summaryContent';
@@ -488,10 +488,7 @@ function resultsSection(c: SummaryContext) {
         { header: 'What', width: 52, wrap: true },
         { header: 'Where', width: 37, wrap: true },
       ],
-      a.warnings.map((w) => {
-        const where = warningWhere(w, a, doc);
-        return { cells: [SEVERITY[w.severity] ?? w.severity, w.detail ? `${w.message} (${w.detail})` : w.message, where], style: w.severity === 'fail' ? { fail: true } : undefined };
-      }),
+      groupedWarningRows(a, doc).map((w) => ({ cells: [SEVERITY[w.severity] ?? w.severity, w.what, w.where], style: w.severity === 'fail' ? { fail: true } : undefined })),
       { continued: 'Warnings' },
     );
   else L.paragraph('No warnings.');

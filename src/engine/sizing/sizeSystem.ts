@@ -50,6 +50,8 @@ import { analyzeValidated } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
 import type { Analysis } from '../analysis/types';
 import { MATERIALS, type MaterialId } from '../catalog/materials';
+import { fittingKOfEntry } from '../fittings/fittingK';
+import { FITTING_TYPES } from '../fittings/types';
 import type { SystemDocument } from '../model/schema';
 import { frictionBudgetOf, type FrictionBudget } from './frictionBudget';
 import { lossCurveAt } from '../devices/lossCurve';
@@ -232,6 +234,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     }
     const sizes = [...material.sizes]
       .filter((z) => !allowed || allowed.includes(z.key))
+      .filter((z) => fittingsHaveData(s, z))
       .sort((a, b) => a.innerDiameterM - b.innerDiameterM)
       .map((z) => z.key);
     const index = segIndex.get(s.id);
@@ -499,6 +502,26 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     analyses,
     timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
   };
+}
+
+/**
+ * Whether every catalog fitting of the segment has loss data at this size: a fitting published only
+ * by size (the manufacturers' PEX equivalent lengths, 1/2–1 in for some lines) rules out the sizes
+ * its table does not cover, which the sizing then never offers (rather than fail the analysis).
+ */
+function fittingsHaveData(s: SystemDocument['segments'][number], z: { key: string; nominalIn: number; innerDiameterM: number }): boolean {
+  return (s.fittings ?? []).every((f) => {
+    if (f.custom) return true;
+    const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, f.typeId) ? FITTING_TYPES[f.typeId] : undefined;
+    if (!entry) return true;
+    try {
+      // a nominal flow state (Re 1e5, f 0.02: turbulent, common practice) only to ask whether data exist
+      fittingKOfEntry(entry, { method: 'crane', innerDiameterM: z.innerDiameterM, nominalSizeIn: z.nominalIn, nominalSizeKey: z.key, Re: 1e5, frictionFactor: 0.02 });
+      return true;
+    } catch {
+      return false;
+    }
+  });
 }
 
 /** Step 4: the dynamic programme over the tree; returns the chosen size index of each free segment, or null. */
