@@ -45,14 +45,17 @@ function zoneDevice(d: GeneratedBuilding['devices'][number]): SystemDocument['de
     : { ...base, kind: 'booster-pump', boost: { control: 'variable-speed', setPressure: d.setPressure } };
 }
 
+/** The PEX insert fitting type for each metal elbow and tee type (the fitting catalog's PEX lines). */
+const PEX_TYPE: Record<string, string> = { 'elbow-90-standard': 'pex-insert-brass-elbow-90', 'tee-run': 'pex-insert-brass-tee-run', 'tee-branch': 'pex-insert-brass-tee-branch' };
+
 /** Storeys of the zoned tall building (an invented study beside the demo building). */
 export const TOWER_STOREYS = 16;
 
 /**
  * The zoned tall building: 16 storeys of four apartments, a high-pressure main (100 psi low,
- * 110 psi high: invented figures of the scenario's utility letter); Level 1–5 through a PRV set at
+ * 102 psi high: invented figures of the scenario's utility letter); Level 1–5 through a PRV set at
  * 70 psi, Level 6–8 from the supply, Level 9–16 through a variable-speed booster holding
- * 118 psi (invented design figures). Sized by Headroom's sizing, so its service and risers carry
+ * 116 psi (invented design figures). Sized by Headroom's sizing, so its service and risers carry
  * the flow of 64 apartments within the velocity limits.
  */
 export function zonedTowerDocument(): SystemDocument {
@@ -62,8 +65,19 @@ export function zonedTowerDocument(): SystemDocument {
   spec.zones = [
     { fromFloor: f[0].id, toFloor: f[4].id, feed: 'prv', setPressure: 70 },
     { fromFloor: f[5].id, toFloor: f[7].id, feed: 'supply' },
-    { fromFloor: f[8].id, toFloor: f[TOWER_STOREYS - 1].id, feed: 'booster-pump', setPressure: 118 },
+    { fromFloor: f[8].id, toFloor: f[TOWER_STOREYS - 1].id, feed: 'booster-pump', setPressure: 116 },
   ];
+  // the typical apartment with the PEX fitting types its PEX piping takes, and its water closet
+  // line at 3/4 in (at 1/2 in its flow runs above the velocity limit)
+  const unitType = {
+    ...spec.unitTypes[0],
+    segments: spec.unitTypes[0].segments.map((s) => ({
+      ...s,
+      ...(s.id === 'to-wc' ? { size: '3/4' } : {}),
+      fittings: (s.fittings ?? []).map((f) => ({ ...f, typeId: PEX_TYPE[f.typeId] ?? f.typeId })),
+    })),
+  };
+  spec.unitTypes = [unitType];
   const built = buildRiser(spec);
   const startNodes = base.nodes.filter((n) => 'elevation' in n);
   const serviceSegments = base.segments.filter((s) => ['service', 'meter-set', 'backflow-set'].includes(s.id));
@@ -71,14 +85,15 @@ export function zonedTowerDocument(): SystemDocument {
     ...base,
     id: 'wrenmoor-tower-zoned',
     name: `Quarry Lane tower study, ${TOWER_STOREYS} storeys in three pressure zones (invented)`,
-    source: { ...base.source, staticPressureLow: 100, staticPressureHigh: 110, pressureBasis: 'Wrenmoor Water Department letter for the high-pressure main on Quarry Lane (invented demo figures)' },
+    source: { ...base.source, staticPressureLow: 100, staticPressureHigh: 102, pressureBasis: 'Wrenmoor Water Department letter for the high-pressure main on Quarry Lane (invented demo figures)' },
     floors: built.floors,
     nodes: [...startNodes, ...built.nodes],
     segments: [...serviceSegments, ...built.segments],
     devices: [...base.devices, ...built.devices.map(zoneDevice)],
+    unitTypes: [unitType],
     placements: built.placements,
   });
-  return sizedVariant(doc, 0);
+  return sizedVariant(doc, 1);
 }
 
 /** The demo hot system, its supply fed from the cold system's node that feeds the water heater. */
