@@ -139,9 +139,9 @@ export class Layout {
   }
 
   /**
-   * Breaks `text` into lines no wider than `width`: at spaces; a word too long for its line breaks
-   * after a hyphen, dash or slash in it ("Pressure-" / "reducing"); only a part longer than a whole
-   * line is cut, and the cut is marked with a hyphen.
+   * Breaks `text` into lines no wider than `width`: at spaces; a word longer than a whole line
+   * breaks after a hyphen, dash or slash in it ("Pressure-" / "reducing"); only a part longer than
+   * a whole line is cut, and the cut is marked with a hyphen.
    */
   wrap(text: string, font: PDFFont, size: number, width: number): string[] {
     const fits = (s: string) => this.measure(s, font, size) <= width;
@@ -153,7 +153,12 @@ export class Layout {
         line = candidate;
         continue;
       }
-      // the parts of the word, each ending at its hyphens: "Pressure-reducing" → "Pressure-", "reducing"
+      if (fits(word)) {
+        if (line) lines.push(line);
+        line = word;
+        continue;
+      }
+      // a word longer than a whole line: the parts of the word, each ending at its hyphens: "Pressure-reducing" → "Pressure-", "reducing"
       const parts = word.match(/[^-‐–—/]+[-‐–—/]*|[-‐–—/]+/g) ?? [word];
       let joiner = line ? ' ' : '';
       for (const part of parts) {
