@@ -354,17 +354,21 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         const text = `${zb.short} starts`;
         // bold runs wider than the regular bound: 1.15 × (Work Sans SemiBold against Regular, lower case)
         const w = textWidth(text, LABEL_SIZE) * 1.15;
-        // left of the bar, else right of it, else a line lower: the first place clear of every
+        // left of the bar, else right of it, else a line lower or higher: the first place clear of every
         // device's box and name (a name placed right of its box can reach across this column)
         const left = Math.max(area.left + gutterLeft, cx - half - w - 2);
         const right = Math.min(cx + half + 2, area.left + area.width - 10 - w);
-        const low = area.bottom + 16;
-        const candidates = [0, -7, -14, -21].flatMap((k) => [left, right].map((x) => ({ x, y: Math.max(low, cy - LABEL_SIZE - 0.5 + k) })));
-        const clear = (c: { x: number; y: number }) => {
+        const low = area.bottom + 2;
+        const farLeft = area.left + gutterLeft;
+        const candidates = [0, -7, -14, -21, 7, 14, 21, 28].flatMap((k) => [left, right, farLeft].map((x) => ({ x, y: Math.max(low, cy - LABEL_SIZE - 0.5 + k) })));
+        // how much a place is in the way: each device box it covers counts 3 (a covered tag is unreadable), each name 1
+        const hits = (c: { x: number; y: number }) => {
           const b = { x0: c.x, y0: c.y - 1, x1: c.x + w, y1: c.y + LABEL_SIZE };
-          return !overlaps(b) && !boxes.some((q) => b.x0 < q.x1 && q.x0 < b.x1 && b.y0 < q.y1 && q.y0 < b.y1);
+          const meets = (q: { x0: number; y0: number; x1: number; y1: number }) => b.x0 < q.x1 && q.x0 < b.x1 && b.y0 < q.y1 && q.y0 < b.y1;
+          return 3 * boxes.filter(meets).length + placed.filter(meets).length;
         };
-        const at = candidates.find(clear) ?? candidates[0];
+        // the first clear place, else the least crowded one (a crowded base of several zone devices)
+        const at = candidates.reduce((best, c) => (hits(c) < hits(best) ? c : best), candidates[0]);
         placed.push({ x0: at.x, y0: at.y - 1, x1: at.x + w, y1: at.y + LABEL_SIZE });
         items.push({ type: 'text', x: at.x, y: at.y, text, size: LABEL_SIZE, maxWidth: w + 2, bold: true });
       }
