@@ -175,3 +175,90 @@ export async function generate(page: Page, c: EntryCounter): Promise<number> {
   await expect(page.getByText(/^Generated \d+ segments/)).toBeVisible();
   return shownMs;
 }
+
+/** A new project of the signed-in designer's, made on the New project page (US units). */
+export async function createProject(page: Page, name: string, address: string): Promise<void> {
+  await page.getByRole('link', { name: 'New project' }).click();
+  await page.getByLabel('Project name').fill(name);
+  await page.getByLabel('Building address').fill(address);
+  await page.getByLabel('Units').selectOption('US');
+  await page.getByRole('button', { name: 'Create project' }).click();
+  await expect(page.getByRole('heading', { level: 1, name })).toBeVisible();
+}
+
+/** A new system in the open project, ready at its Supply step. */
+export async function createSystem(page: Page, name: string, service: 'cold' | 'hot'): Promise<void> {
+  await page.getByRole('button', { name: 'New system' }).click();
+  await page.getByLabel('System name').fill(name);
+  await page.getByLabel('Service').selectOption(service);
+  await page.getByRole('button', { name: 'Create system and start the walk' }).click();
+  await expect(page.getByRole('heading', { level: 2, name: 'Supply' })).toBeVisible();
+}
+
+/**
+ * From a new system's Supply step: 55 / 65 psi at the main, a 30 ft service pipe and one 12 ft lift
+ * to twenty lavatories at "Level 2", all in 1/2 in copper — too small, so it fails (invented inputs) —
+ * and a checked lavatory there. Ends on the Remote fixture step.
+ */
+export async function enterUndersizedLift(page: Page): Promise<void> {
+  await page.getByLabel(/Static pressure, low/).fill('55');
+  await page.getByLabel(/Static pressure, high/).fill('65');
+  await page.getByLabel('Where the pressure figures came from').fill('Wrenmoor Water Department letter (invented demo figure)');
+  await step(page, 'Meter & devices').click();
+  await page.getByRole('button', { name: /Add the service pipe/ }).click();
+  await step(page, 'Risers').click();
+  const service = page.getByTestId('segment-service-1');
+  await service.getByLabel('Service pipe material').selectOption('copper-l');
+  await service.getByLabel('Service pipe size').selectOption('1/2');
+  await service.getByLabel('Service pipe length (ft)').fill('30');
+  await service.getByLabel('Service pipe rise (ft)').fill('0');
+  await page.getByRole('button', { name: 'Add a segment from Building entry' }).click();
+  const lift = page.getByTestId('segment-seg-1');
+  await lift.getByLabel('seg-1 material').selectOption('copper-l');
+  await lift.getByLabel('seg-1 size').selectOption('1/2');
+  await lift.getByLabel('seg-1 length (ft)').fill('12');
+  await lift.getByLabel('seg-1 rise (ft)').fill('12');
+  await lift.getByLabel('Name of node node-1').fill('Level 2');
+  await page.getByRole('button', { name: 'Add fixtures at Level 2' }).click();
+  await page.getByLabel('Level 2: fixture group 1 type').selectOption('lavatory-private');
+  await page.getByLabel('Level 2: fixture group 1 count').fill('20');
+  await step(page, 'Remote fixture').click();
+  await page.getByRole('button', { name: 'Check a fixture at Level 2' }).click();
+  await page.getByLabel('Level 2: checked fixture 1 type').selectOption('lavatory-private');
+  await page.getByLabel('Level 2: checked fixture 1 name').fill('Lavatory, level 2');
+}
+
+/** One pressure zone as the riser builder's form takes it: up to which floor, fed through what. */
+export interface ZoneEntry {
+  toFloor: string;
+  feed: 'supply' | 'prv' | 'booster-pump';
+  /** psi, for a PRV or a booster */
+  setPressure?: string;
+}
+
+/** Adds the zones on the Building page, lowest first; each starts on the floor after the one before. */
+export async function addZones(page: Page, c: EntryCounter, zones: readonly ZoneEntry[]): Promise<void> {
+  for (const [i, z] of zones.entries()) {
+    const n = i + 1;
+    await c.click(page.getByRole('button', { name: 'Add a pressure zone' }));
+    await c.select(page.getByLabel(`Zone ${n} to floor`), z.toFloor);
+    await c.select(page.getByLabel(`Zone ${n} fed through`), z.feed);
+    if (z.setPressure !== undefined) await c.fill(page.getByLabel(`Zone ${n} set pressure (psi)`), z.setPressure);
+  }
+  await expect(page.getByTestId('preview-devices')).toHaveText(String(zones.filter((z) => z.feed !== 'supply').length));
+}
+
+/** Issues the open revision from its Result step: the note, the attestation and, for a failing one, the statement. */
+export async function issueThroughUi(page: Page, note: string): Promise<void> {
+  await page.getByLabel('Note for this revision (optional)').fill(note);
+  await page.getByRole('button', { name: 'Issue revision…' }).click();
+  const confirm = page.getByRole('group', { name: 'Confirm issuing' });
+  await expect(confirm).toBeVisible();
+  const statement = confirm.getByLabel('Your statement: why this failing revision is issued');
+  if (await statement.count()) await statement.fill('Issued to record this check; the failing fixture is being resized (demo).');
+  await confirm.getByLabel('Your name, as on your licence').fill('Dana Whitlow');
+  await confirm.getByLabel('Licence or registration number').fill('PE 40417');
+  await confirm.getByLabel(/^I confirm:/).check();
+  await confirm.getByRole('button', { name: /^Yes, issue/ }).click();
+  await expect(page.getByTestId('issued-note')).toContainText('issued');
+}

@@ -4,6 +4,7 @@ import type { Page } from '@playwright/test';
 import { analyzeSystem, nodeElevations, SystemDocumentSchema, verdictStatus } from '../src/engine';
 import { signed } from '../src/features/walk/lib/format';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
+import { createSystem } from './building-entry';
 
 // A new user, step by step in the order the screens suggest, on invented buildings (the numbers
 // typed are invented inputs). Each test makes its own system, so none depends on another; every
@@ -30,12 +31,8 @@ test.afterEach(() => expect(pageProblems).toEqual([]));
 async function newSystem(page: Page, name: string) {
   await signIn(page, DEMO.designer);
   await openProject(page, DEMO_PROJECT);
-  await page.getByRole('button', { name: 'New system' }).click();
-  await page.getByLabel('System name').fill(`${name} ${run}`);
-  await page.getByLabel('Service').selectOption('cold');
-  await page.getByRole('button', { name: 'Create system and start the walk' }).click();
+  await createSystem(page, `${name} ${run}`, 'cold');
   await expect(page).toHaveURL(/\/revisions\/[^/]+\/supply$/);
-  await expect(page.getByRole('heading', { level: 2, name: 'Supply' })).toBeVisible();
 }
 
 /** The revision's document as the server stored it (the API address of the page's revision). */

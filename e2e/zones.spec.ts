@@ -2,7 +2,7 @@ import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { analyzeSystem, SystemDocumentSchema, zoneVerdictWords } from '../src/engine';
 import { DEMO, signIn } from './helpers';
-import { EntryCounter, enterBuilding, generate, INVENTED_BACKFLOW_POINTS, INVENTED_METER_POINTS, screenshotDir, waitSaved } from './building-entry';
+import { addZones, EntryCounter, enterBuilding, generate, INVENTED_BACKFLOW_POINTS, INVENTED_METER_POINTS, screenshotDir, waitSaved } from './building-entry';
 
 // A zoned tall building entered on the building page from a new project: floors 1–3 straight from
 // the supply, floors 4–12 through a booster pump at the base (invented figures). After Generate
@@ -40,16 +40,11 @@ test('when a 12-storey building is entered with a supply zone and a booster zone
   });
 
   // the zones: Level 1–3 from the supply, Level 4–12 through a variable-speed booster holding 95 psi
-  await c.click(page.getByRole('button', { name: 'Add a pressure zone' }));
-  await expect(page.getByLabel('Zone 1 from floor')).toHaveValue('Level 1');
-  await c.select(page.getByLabel('Zone 1 to floor'), 'Level 3');
-  await c.select(page.getByLabel('Zone 1 fed through'), 'supply');
-  await c.click(page.getByRole('button', { name: 'Add a pressure zone' }));
+  await addZones(page, c, [
+    { toFloor: 'Level 3', feed: 'supply' },
+    { toFloor: 'Level 12', feed: 'booster-pump', setPressure: '95' },
+  ]);
   await expect(page.getByLabel('Zone 2 from floor')).toHaveValue('Level 4');
-  await c.select(page.getByLabel('Zone 2 to floor'), 'Level 12');
-  await c.select(page.getByLabel('Zone 2 fed through'), 'booster-pump');
-  await c.fill(page.getByLabel('Zone 2 set pressure (psi)'), '95');
-  await expect(page.getByTestId('preview-devices')).toHaveText('1');
   await expect(page.getByTestId('preview-placements')).toHaveText(String(12 * 4));
   await generate(page, c);
 

@@ -36,4 +36,22 @@ export async function seed(knex: Knex): Promise<void> {
   await knex('project_members').insert(
     DEMO_USERS.filter((u) => u.projectRole).map((u) => ({ project_id: project.id, user_id: idOf(u.email), role: u.projectRole })),
   );
+
+  // A second invented project of the same team: a tall building study down the lane, in pressure zones.
+  const [tower] = await knex('projects')
+    .insert({
+      name: TOWER_PROJECT,
+      address: '414 Quarry Lane, Wrenmoor',
+      code_basis: 'Model plumbing code as adopted by the (invented) Town of Wrenmoor, with its local amendments; state the edition here.',
+      unit_system: 'US',
+      notes: 'Sixteen storeys of apartments on the high-pressure main: a PRV zone, a zone from the supply and a booster zone (invented study).',
+      created_by: idOf('designer@alder-finch.example'),
+    })
+    .returning('id');
+  await knex('project_members').insert(
+    DEMO_USERS.filter((u) => u.projectRole).map((u) => ({ project_id: tower.id, user_id: idOf(u.email), role: u.projectRole })),
+  );
 }
+
+/** The demo's second project: the zoned tall building (invented). */
+export const TOWER_PROJECT = 'Quarry Lane tower study';

@@ -138,26 +138,47 @@ export class Layout {
     return chars.slice(0, lo).join('').trimEnd() + '…';
   }
 
-  /** Breaks `text` into lines no wider than `width` (a word longer than a line is cut). */
+  /**
+   * Breaks `text` into lines no wider than `width`: at spaces; a word longer than a whole line
+   * breaks after a hyphen, dash or slash in it ("Pressure-" / "reducing"); only a part longer than
+   * a whole line is cut, and the cut is marked with a hyphen.
+   */
   wrap(text: string, font: PDFFont, size: number, width: number): string[] {
+    const fits = (s: string) => this.measure(s, font, size) <= width;
     const lines: string[] = [];
     let line = '';
     for (const word of text.split(' ')) {
       const candidate = line ? `${line} ${word}` : word;
-      if (this.measure(candidate, font, size) <= width) {
+      if (fits(candidate)) {
         line = candidate;
         continue;
       }
-      if (line) lines.push(line);
-      let rest = word;
-      while (this.measure(rest, font, size) > width) {
-        const chars = [...rest];
-        let n = chars.length - 1;
-        while (n > 1 && this.measure(chars.slice(0, n).join(''), font, size) > width) n--;
-        lines.push(chars.slice(0, n).join(''));
-        rest = chars.slice(n).join('');
+      if (fits(word)) {
+        if (line) lines.push(line);
+        line = word;
+        continue;
       }
-      line = rest;
+      // a word longer than a whole line: the parts of the word, each ending at its hyphens: "Pressure-reducing" → "Pressure-", "reducing"
+      const parts = word.match(/[^-‐–—/]+[-‐–—/]*|[-‐–—/]+/g) ?? [word];
+      let joiner = line ? ' ' : '';
+      for (const part of parts) {
+        const joined = `${line}${joiner}${part}`;
+        joiner = '';
+        if (fits(joined)) {
+          line = joined;
+          continue;
+        }
+        if (line) lines.push(line);
+        let rest = part;
+        while (!fits(rest)) {
+          const chars = [...rest];
+          let n = chars.length - 1;
+          while (n > 1 && !fits(`${chars.slice(0, n).join('')}-`)) n--;
+          lines.push(`${chars.slice(0, n).join('')}-`);
+          rest = chars.slice(n).join('');
+        }
+        line = rest;
+      }
     }
     if (line || !lines.length) lines.push(line);
     return lines;

@@ -200,6 +200,8 @@ export function warningWhere(w: EngineWarning & { elementLabel?: string | null }
       const to = d ? nodeName(a, doc, d.to) : null;
       return from && to ? `pipe from ${from} to ${to}` : 'a segment';
     }
+    // a fitting's warning names the segment that carries it (the engine gives the segment's id)
+    if (type === 'fitting') return a.segments.some((x) => x.id === id) || doc.segments.some((x) => x.id === id) ? `fittings on ${name('segment', id)}` : 'a fitting';
     if (type === 'node') return nodeName(a, doc, id) ?? 'a node';
     if (type === 'device') return doc.devices.find((x) => x.id === id)?.label ?? 'a device';
     if (type === 'checked-fixture') return a.fixtures.find((x) => x.id === id)?.label ?? 'a checked fixture';
@@ -230,4 +232,22 @@ export function fedFromText(doc: SystemDocument, pressureUnit: string): string |
   if (r?.status !== 'resolved') return `NOT READ — ${r?.message ?? 'the cold system has not been read'}`;
   const p = (x: number) => `${x.toFixed(2)} ${pressureUnit}`;
   return `the cold-water system "${r.systemName}" at ${r.nodeLabel}, its revision ${r.revisionNumber} (${r.revisionStatus}): residual ${p(r.residualPressure)} at its design flow, high static ${p(r.staticPressureHigh)}. The water heater's loss is its device's, under Devices.`;
+}
+
+/** Warnings as the summary lists them: the same kind and words on several elements make one row naming them (up to 8, then a count). */
+export function groupedWarningRows(a: Analysis, doc: SystemDocument): { severity: EngineWarning['severity']; what: string; where: string }[] {
+  const groups = new Map<string, { severity: EngineWarning['severity']; what: string; wheres: string[] }>();
+  for (const w of a.warnings) {
+    const what = w.detail ? `${w.message} (${w.detail})` : w.message;
+    const key = `${w.severity}\u0000${w.code}\u0000${what}`;
+    const g = groups.get(key) ?? { severity: w.severity, what, wheres: [] };
+    g.wheres.push(warningWhere(w, a, doc));
+    groups.set(key, g);
+  }
+  const SHOWN = 8;
+  return [...groups.values()].map((g) => ({
+    severity: g.severity,
+    what: g.what,
+    where: g.wheres.length === 1 ? g.wheres[0] : `${g.wheres.length} places: ${g.wheres.slice(0, SHOWN).join('; ')}${g.wheres.length > SHOWN ? `; and ${g.wheres.length - SHOWN} more` : ''}`,
+  }));
 }

@@ -5,7 +5,7 @@
  * diagram's elements, without the drawing. A change to any of them is a failing test until the
  * golden files are written again on purpose.
  */
-import { ledgerFor } from '../../src/engine';
+import { ledgerFor, sizingBasisText } from '../../src/engine';
 import type { SummaryPdfInput } from './summaryPdf';
 import { summaryVerdict } from './summaryContent';
 import { attestationLines, permitFrame, permitRows } from './permitContent';
@@ -27,6 +27,8 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
   out.push(`page header: ${frame.left} | ${frame.right}`, '');
 
   out.push('## Attestation', ...attestationLines(input.attestation).lines, '');
+
+  out.push('## Sizing basis', sizingBasisText(doc), '');
 
   const basis = frictionBasis(a.unitSystem);
   out.push(`## Segments (flow ${u.flow}, velocity ${u.velocity}, friction ${u.pressure} and ${u.pressure}/${basis.label}, fitting loss ${u.pressure})`);

@@ -4,7 +4,7 @@
  * same input gives the same bytes (the dates come from the issue time, not the clock).
  */
 import { PDFDocument, PDFName, PDFNumber, PDFString } from 'pdf-lib';
-import { ledgerFor, fromSI, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
+import { ledgerFor, fromSI, sizingBasisText, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
 import { boosterText, DEVICE_KIND_LABELS, fixtureGroupLabel, fixtureGroupWsfu, SOURCE_KIND_LABELS, WARNING_SEVERITY_WORDS } from '../../src/engine/model/labels';
@@ -27,7 +27,7 @@ import {
   staticCheckContent,
   summaryVerdict,
   UNVERIFIED_NOTE,
-  warningWhere,
+  groupedWarningRows,
   type FailureAcknowledgementText,
   type SummaryVerdict,
 } from './summaryContent';
@@ -193,6 +193,7 @@ function basisSection(c: SummaryContext) {
     ['Code basis (designer)', header.codeBasis || 'not stated by the designer'],
     ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : sourceText(CRITERIA_SOURCES.maxStaticPressurePa)}`],
     ['Minimum static pressure', a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`],
+    ['Pipe sizes', sizingBasisText(doc)],
     ['Water temperature', `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`],
     ['Engine', `Headroom engine ${a.engineVersion}, document schema ${a.schemaVersion}`],
   ]);
@@ -480,10 +481,7 @@ function resultsSection(c: SummaryContext) {
         { header: 'What', width: 52, wrap: true },
         { header: 'Where', width: 37, wrap: true },
       ],
-      a.warnings.map((w) => {
-        const where = warningWhere(w, a, doc);
-        return { cells: [SEVERITY[w.severity] ?? w.severity, w.detail ? `${w.message} (${w.detail})` : w.message, where], style: w.severity === 'fail' ? { fail: true } : undefined };
-      }),
+      groupedWarningRows(a, doc).map((w) => ({ cells: [SEVERITY[w.severity] ?? w.severity, w.what, w.where], style: w.severity === 'fail' ? { fail: true } : undefined })),
       { continued: 'Warnings' },
     );
   else L.paragraph('No warnings.');

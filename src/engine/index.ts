@@ -45,6 +45,7 @@ export {
   type CustomFitting,
   type CustomFixture,
   type CriteriaOverrides,
+  type SizingBasis,
 } from './model/schema';
 export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu, boosterDesignGain, boosterText } from './model/labels';
 export { nodeElevations, segmentRises } from './model/positions';
@@ -66,8 +67,9 @@ export {
   type Bounds,
 } from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';
-export { sizeSystem, SizingError, type SizingOptions, type SizingResult, type SegmentSizing, type Governing, type FixtureMargin } from './sizing/sizeSystem';
+export { sizeSystem, SizingError, type SizingOptions, type SizingResult, type SizingConditions, type SegmentSizing, type Governing, type FixtureMargin } from './sizing/sizeSystem';
 export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult } from './sizing/substitute';
+export { sizesFingerprint, sizingBasisOf, sizingBasisState, sizingBasisText, type SizingBasisInput, type SizingBasisState } from './sizing/basis';
 export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';
 export { thermalExpansionTank } from './hotWater/expansionTank';
 export { closedSystemCheck, closingElementWords } from './hotWater/closedSystem';

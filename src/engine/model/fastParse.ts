@@ -348,6 +348,34 @@ function recirculation(v: unknown): NonNullable<SystemDocument['recirculation']>
   return out as NonNullable<SystemDocument['recirculation']>;
 }
 
+function count(v: unknown): number {
+  if (!Number.isSafeInteger(v) || (v as number) < 0) decline();
+  return v as number;
+}
+
+function sizingBasis(v: unknown): NonNullable<SystemDocument['sizingBasis']> {
+  const o = obj(v);
+  const out: Obj = {
+    sizedAt: date(o.sizedAt),
+    scope: oneOf(o.scope, 'system', 'selection'),
+    margin: nonNegative(o.margin),
+    supplyPressure: nonNegative(o.supplyPressure),
+    velocityLimits: list(o.velocityLimits, classLimit, B.velocityLimits),
+    segmentsChanged: count(o.segmentsChanged),
+    segmentsLocked: count(o.segmentsLocked),
+    sizesFingerprint: bounded(o.sizesFingerprint, 0, B.idLength),
+  };
+  strictKeys(o, 8);
+  return out as NonNullable<SystemDocument['sizingBasis']>;
+}
+
+function classLimit(v: unknown) {
+  const o = obj(v);
+  const out = { material: oneOf(o.material, 'copper', 'plastic', 'steel'), maxVelocity: positive(o.maxVelocity) };
+  strictKeys(o, 2);
+  return out;
+}
+
 function systemDocument(v: unknown): SystemDocument {
   const o = obj(v);
   if (o.schemaVersion !== SCHEMA_VERSION) decline();
@@ -376,6 +404,7 @@ function systemDocument(v: unknown): SystemDocument {
   known += optional(o, out, 'expansionTank', expansionTank);
   known += optional(o, out, 'recirculation', recirculation);
   known += optional(o, out, 'notes', notes);
+  known += optional(o, out, 'sizingBasis', sizingBasis);
   strictKeys(o, known);
   return out as SystemDocument;
 }

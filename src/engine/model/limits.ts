@@ -51,7 +51,8 @@ export type LimitQuantity =
   | 'loopHeatLoss'
   | 'loopHeatLossPerLength'
   | 'loopTemperatureDrop'
-  | 'fittingAllowance';
+  | 'fittingAllowance'
+  | 'segmentCount';
 
 export interface Bounds {
   min: number;
@@ -284,6 +285,16 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     SI: { min: 1, max: 10000 },
     why: 'One group of identical fixtures at one node: a 40-storey tower has a few thousand fixtures in all; 10,000 in one group covers a whole building entered as one load.',
   },
+  segmentCount: {
+    noun: 'segment count',
+    unitQuantity: null,
+    fixedUnit: '',
+    minExclusive: false,
+    integer: true,
+    US: { min: 0, max: 20000 },
+    SI: { min: 0, max: 20000 },
+    why: 'Segments counted by Headroom in an applied sizing: from none to every segment a document may hold (DOCUMENT_BOUNDS.segments).',
+  },
   fittingCount: {
     noun: 'fitting count',
     unitQuantity: null,
@@ -468,6 +479,12 @@ export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.
   'recirculation.hotTemperature': 'waterTemperature',
   'recirculation.fittingAllowance': 'fittingAllowance',
   'recirculation.heaterLoss': 'pressureLoss',
+  // The record of an applied sizing (written by Headroom, sizing/basis.ts).
+  'sizingBasis.margin': 'minFlowPressure',
+  'sizingBasis.supplyPressure': 'staticPressure',
+  'sizingBasis.velocityLimits[].maxVelocity': 'velocityLimit',
+  'sizingBasis.segmentsChanged': 'segmentCount',
+  'sizingBasis.segmentsLocked': 'segmentCount',
   // Typical units and their placements (checked by the engine after expansion into nodes and segments).
   'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
   ...describedRanges('unitTypes[].nodes[].fixtureGroups[]', FIXTURE_GROUP),

@@ -334,6 +334,26 @@ export const RecirculationSchema = z.strictObject({
   heaterLoss: nonNegative().optional().describe('Pressure lost through the heater at the loop flow, pressure unit (default 0).'),
 });
 
+/**
+ * What an applied automatic sizing was asked to meet (src/engine/sizing/basis.ts writes it when the
+ * designer applies an answer): when, on which segments, the margin, the supply pressure and the
+ * velocity limits it used, and a fingerprint of every segment's pipe after it, so a later edit of
+ * the sizes can be told apart from the sizes it chose. Its absence says the sizes are the designer's.
+ */
+export const SizingBasisSchema = z.strictObject({
+  sizedAt: date().describe('When the sizing was applied (ISO 8601, UTC).'),
+  scope: z.enum(['system', 'selection']).describe('Whether every segment of the system, or a selection, was sized.'),
+  margin: nonNegative().describe('Margin kept above each checked fixture’s minimum, pressure unit.'),
+  supplyPressure: nonNegative().describe('The minimum supply pressure at the design flow the sizing used, pressure unit.'),
+  velocityLimits: z
+    .array(z.strictObject({ material: VelocityClassSchema, maxVelocity: positive() }))
+    .max(B.velocityLimits)
+    .describe('The velocity limit of each material class for the system’s service, velocity unit.'),
+  segmentsChanged: z.number().int().nonnegative().describe('Segments whose size the sizing changed.'),
+  segmentsLocked: z.number().int().nonnegative().describe('Segments the designer had locked, kept at their size.'),
+  sizesFingerprint: z.string().max(B.idLength).describe('Fingerprint of every segment’s material and size after the sizing was applied.'),
+});
+
 export const SystemDocumentSchema = z.strictObject({
   schemaVersion: z.literal(SCHEMA_VERSION),
   id: id(),
@@ -352,6 +372,7 @@ export const SystemDocumentSchema = z.strictObject({
   expansionTank: ExpansionTankSchema.optional().describe('Hot water: the thermal expansion tank and its sizing inputs.'),
   recirculation: RecirculationSchema.optional().describe('Hot water: the recirculation loop, its heat loss and allowed temperature drop.'),
   notes: z.string().max(B.notesLength).optional(),
+  sizingBasis: SizingBasisSchema.optional().describe('The automatic sizing last applied to this draft; absent when the sizes are as entered.'),
 });
 
 export type SystemDocument = z.infer<typeof SystemDocumentSchema>;
@@ -362,6 +383,7 @@ export type FedFrom = z.infer<typeof FedFromSchema>;
 export type ExpansionTank = z.infer<typeof ExpansionTankSchema>;
 export type Recirculation = z.infer<typeof RecirculationSchema>;
 export type RecirculationSegment = z.infer<typeof RecirculationSegmentSchema>;
+export type SizingBasis = z.infer<typeof SizingBasisSchema>;
 export type Device = z.infer<typeof DeviceSchema>;
 export type Boost = z.infer<typeof BoostSchema>;
 export type Floor = z.infer<typeof FloorSchema>;

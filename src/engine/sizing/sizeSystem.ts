@@ -50,6 +50,8 @@ import { analyzeValidated } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
 import type { Analysis } from '../analysis/types';
 import { MATERIALS, type MaterialId } from '../catalog/materials';
+import { fittingKOfEntry } from '../fittings/fittingK';
+import { FITTING_TYPES } from '../fittings/types';
 import type { SystemDocument } from '../model/schema';
 import { frictionBudgetOf, type FrictionBudget } from './frictionBudget';
 import { lossCurveAt } from '../devices/lossCurve';
@@ -110,6 +112,12 @@ export interface FixtureMargin {
   afterPa: number | null;
 }
 
+/** What the sizing measured against: the supply's minimum pressure at the design flow, Pa, and the velocity limit of each material class for the system's service, m/s. */
+export interface SizingConditions {
+  supplyPressurePa: number;
+  velocityLimits: { material: string; maxVelocityMs: number }[];
+}
+
 export interface SizingResult {
   /** true when the sizes found meet every velocity limit and every fixture with the margin. */
   feasible: boolean;
@@ -133,6 +141,8 @@ export interface SizingResult {
    * margin), and its budget per 100 ft of equivalent length (frictionBudget.ts).
    */
   frictionBudget: FrictionBudget | null;
+  /** The supply pressure and velocity limits used, recorded with an applied sizing (basis.ts). */
+  conditions: SizingConditions;
   /** The sized document (null when not feasible: nothing changes). */
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
@@ -201,6 +211,12 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const segs = base.si.segments;
   const segIndex = new Map(segs.map((s, i) => [s.id, i]));
   const budget = frictionBudgetOf(base, marginPa);
+  const conditions: SizingConditions = {
+    supplyPressurePa: base.si.source.pressureAtDesignFlow,
+    velocityLimits: base.criteria.velocityLimits
+      .filter((v) => v.service === doc.service)
+      .map((v) => ({ material: v.material, maxVelocityMs: toSI('velocity', v.maxVelocity, doc.unitSystem) })),
+  };
   const locked = new Set([...(options.lockedSegmentIds ?? []), ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id)]);
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
@@ -221,6 +237,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (s.minSize !== undefined && !floorSize) throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
     const sizes = [...material.sizes]
       .filter((z) => (!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM))
+      .filter((z) => fittingsHaveData(s, z))
       .sort((a, b) => a.innerDiameterM - b.innerDiameterM)
       .map((z) => z.key);
     const index = segIndex.get(s.id);
@@ -386,6 +403,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       shortfallPa: shortfall,
       boosterPressurePa: booster,
       frictionBudget: budget,
+      conditions,
       document: null,
       analyses,
       timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
@@ -482,10 +500,31 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     shortfallPa: verified ? 0 : Math.max(0, ...(after?.si.fixtures.map((f) => f.required + marginPa - f.residual) ?? [0])),
     boosterPressurePa: null,
     frictionBudget: budget,
+    conditions,
     document: verified && allVelocity ? sized : null,
     analyses,
     timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
   };
+}
+
+/**
+ * Whether every catalog fitting of the segment has loss data at this size: a fitting published only
+ * by size (the manufacturers' PEX equivalent lengths, 1/2–1 in for some lines) rules out the sizes
+ * its table does not cover, which the sizing then never offers (rather than fail the analysis).
+ */
+function fittingsHaveData(s: SystemDocument['segments'][number], z: { key: string; nominalIn: number; innerDiameterM: number }): boolean {
+  return (s.fittings ?? []).every((f) => {
+    if (f.custom) return true;
+    const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, f.typeId) ? FITTING_TYPES[f.typeId] : undefined;
+    if (!entry) return true;
+    try {
+      // a nominal flow state (Re 1e5, f 0.02: turbulent, common practice) only to ask whether data exist
+      fittingKOfEntry(entry, { method: 'crane', innerDiameterM: z.innerDiameterM, nominalSizeIn: z.nominalIn, nominalSizeKey: z.key, Re: 1e5, frictionFactor: 0.02 });
+      return true;
+    } catch {
+      return false;
+    }
+  });
 }
 
 /** Step 4: the dynamic programme over the tree; returns the chosen size index of each free segment, or null. */

@@ -314,6 +314,7 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         }
       }
       const placed: { x0: number; y0: number; x1: number; y1: number }[] = [];
+      const boxes: { x0: number; y0: number; x1: number; y1: number }[] = [];
       const overlaps = (b: { x0: number; y0: number; x1: number; y1: number }) => placed.some((q) => b.x0 < q.x1 && q.x0 < b.x1 && b.y0 < q.y1 && q.y0 < b.y1);
       for (const dv of d.devices) {
         if (!inTile(dv.at)) continue;
@@ -324,6 +325,7 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         const bx = Math.max(area.left + gutterLeft, Math.min(cx - w / 2, area.left + area.width - 10 - w));
         const by = Math.max(area.bottom + 14, Math.min(cy - 4.5, area.bottom + area.height - top - 9));
         items.push({ type: 'box', x: bx, y: by, width: w, height: 9 });
+        boxes.push({ x0: bx, y0: by, x1: bx + w, y1: by + 9 });
         items.push({ type: 'text', x: bx + 2, y: by + 2.6, text: dv.tag, size: 5, maxWidth: w - 3, bold: true });
         // the name right of the box; where it would overlap another name it moves a line down or up, with a leader
         const labelX = bx + w + 3;
@@ -350,9 +352,25 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         const half = Math.min(cw / 2, 8);
         items.push({ type: 'line', x1: cx - half, y1: cy, x2: cx + half, y2: cy, weight: 'zone' });
         const text = `${zb.short} starts`;
-        const w = textWidth(text, LABEL_SIZE);
-        const tx = Math.max(area.left + gutterLeft, cx - half - w - 2);
-        items.push({ type: 'text', x: tx, y: cy - LABEL_SIZE - 0.5, text, size: LABEL_SIZE, maxWidth: Math.max(cx - half - tx, w), bold: true });
+        // bold runs wider than the regular bound: 1.15 × (Work Sans SemiBold against Regular, lower case)
+        const w = textWidth(text, LABEL_SIZE) * 1.15;
+        // left of the bar, else right of it, else a line lower or higher: the first place clear of every
+        // device's box and name (a name placed right of its box can reach across this column)
+        const left = Math.max(area.left + gutterLeft, cx - half - w - 2);
+        const right = Math.min(cx + half + 2, area.left + area.width - 10 - w);
+        const low = area.bottom + 2;
+        const farLeft = area.left + gutterLeft;
+        const candidates = [0, -7, -14, -21, 7, 14, 21, 28].flatMap((k) => [left, right, farLeft].map((x) => ({ x, y: Math.max(low, cy - LABEL_SIZE - 0.5 + k) })));
+        // how much a place is in the way: each device box it covers counts 3 (a covered tag is unreadable), each name 1
+        const hits = (c: { x: number; y: number }) => {
+          const b = { x0: c.x, y0: c.y - 1, x1: c.x + w, y1: c.y + LABEL_SIZE };
+          const meets = (q: { x0: number; y0: number; x1: number; y1: number }) => b.x0 < q.x1 && q.x0 < b.x1 && b.y0 < q.y1 && q.y0 < b.y1;
+          return 3 * boxes.filter(meets).length + placed.filter(meets).length;
+        };
+        // the first clear place, else the least crowded one (a crowded base of several zone devices)
+        const at = candidates.reduce((best, c) => (hits(c) < hits(best) ? c : best), candidates[0]);
+        placed.push({ x0: at.x, y0: at.y - 1, x1: at.x + w, y1: at.y + LABEL_SIZE });
+        items.push({ type: 'text', x: at.x, y: at.y, text, size: LABEL_SIZE, maxWidth: w + 2, bold: true });
       }
       for (const f of d.fixtures) {
         if (!inTile(f.at)) continue;

@@ -114,7 +114,8 @@ describe('examples', () => {
     expect(byMargin[0].id).toBe('shower-704');
     expect(byMargin[0].margin).toBeGreaterThan(0);
     expect(byMargin[0].margin).toBeLessThan(10); // psi: "modest" for the demo
-    expect(byMargin.slice(0, 3).map((f) => f.id)).toContain('retail-wc-2');
+    // the grade's flush valve follows the top floor's showers (the level-7 bathroom lines are 1 in to pass with PEX insert fittings)
+    expect(byMargin.slice(0, 5).map((f) => f.id)).toContain('retail-wc-2');
     expect(a.verdict.allFixturesPass).toBe(true);
   });
 });

@@ -160,6 +160,18 @@ const validDocument = rec({
   expansionTank: opt(rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive })),
   recirculation: opt(recirculation),
   notes: opt(text),
+  sizingBasis: opt(
+    rec({
+      sizedAt: text,
+      scope: fc.constantFrom('system', 'selection'),
+      margin: nonNegative,
+      supplyPressure: nonNegative,
+      velocityLimits: fc.array(rec({ material: fc.constantFrom('copper', 'plastic', 'steel'), maxVelocity: positive }), { maxLength: 2 }),
+      segmentsChanged: fc.integer({ min: 0, max: 20 }),
+      segmentsLocked: fc.integer({ min: 0, max: 20 }),
+      sizesFingerprint: text,
+    }),
+  ),
 });
 
 /** Values that break (or sometimes keep) a field: wrong types, non-finite, signs, bounds, lengths. */

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem, SystemDocumentSchema, type SystemDocument } from '../../../src/engine';
 import { MATERIALS } from '../../../src/engine/catalog/materials';
+import { FITTING_TYPES } from '../../../src/engine/fittings/types';
 import { SizingError } from '../../../src/engine/sizing/sizeSystem';
 import { smallestSubstitute } from '../../../src/engine/sizing/substitute';
 import { forbiddenDifferences } from '../../../server/services/fieldChangeRules';
@@ -35,11 +36,18 @@ describe('smallest PEX that still passes (a contractor on a field change)', () =
       }
     }
     expect(passes(doc)).toBe(true);
-    // each substituted segment one PEX size smaller fails a fixture or a velocity (the engine decides, not this test)
+    // each substituted segment at the next smaller PEX size its fittings have data for (the PEX
+    // fitting tables cover 1/2–1 in or 1/2–2 in) fails a fixture or a velocity (the engine decides, not this test)
     const ascending = [...PEX.sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM).map((z) => z.key);
+    const covered = (id: string, size: string) =>
+      (doc.segments.find((s) => s.id === id)!.fittings ?? []).every((f) => {
+        const e = FITTING_TYPES[f.typeId];
+        return f.custom || !e || e.pipeFamily !== 'pex' || e.equivalentLengthFt?.[size] !== undefined;
+      });
     for (const id of APARTMENT_7A) {
       const k = ascending.indexOf(doc.segments.find((s) => s.id === id)!.size!);
-      if (k > 0) expect(passes(withSize(doc, id, ascending[k - 1]))).toBe(false);
+      const smaller = ascending.slice(0, Math.max(k, 0)).filter((size) => covered(id, size)).at(-1);
+      if (smaller !== undefined) expect(passes(withSize(doc, id, smaller))).toBe(false);
     }
   });
 

@@ -2,11 +2,11 @@ import { useEffect, useRef, useState } from 'react';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { CheckboxField, TextField } from '../../../components/ui/field';
-import { fromSI, toSI } from '../../../engine';
-import type { SegmentSizing, SizingResult, SystemDocument } from '../../../engine';
+import { fromSI, sizingBasisText, toSI } from '../../../engine';
+import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
 import { useWalk } from '../../walk/draft/walk-context';
 import { fmt, signed } from '../../walk/lib/format';
-import { applySizes, changedRows, setSizeLocked, undoSizes } from '../lib/apply';
+import { applySizing, changedRows, setSizeLocked, undoSizing } from '../lib/apply';
 import type { SizingReply } from '../lib/compute';
 import { runSizing, type SizingRun } from '../lib/run-sizing';
 
@@ -14,11 +14,15 @@ import { runSizing, type SizingRun } from '../lib/run-sizing';
 interface Answered {
   reply: SizingReply;
   document: SystemDocument;
+  /** The margin asked for, Pa (recorded with the sizes when applied). */
+  marginPa: number;
 }
 
 /** What was applied, to take it back. */
 interface Applied {
   rows: SegmentSizing[];
+  /** The sizing basis the draft had before, restored by undo. */
+  previousBasis: SizingBasis | undefined;
 }
 
 function governingText(row: SegmentSizing, velocityUnit: string, sys: SystemDocument['unitSystem']): string {
@@ -62,12 +66,13 @@ export function SizingPanel() {
     setRunning(true);
     setApplied(null);
     const sizedFrom = document;
-    const current = runSizing({ document: sizedFrom, options: { marginPa: toSI('pressure', margin, sys) } });
+    const marginPa = toSI('pressure', margin, sys);
+    const current = runSizing({ document: sizedFrom, options: { marginPa } });
     run.current = current;
     const reply = await current.answer;
     if (run.current !== current) return;
     run.current = null;
-    setAnswered({ reply, document: sizedFrom });
+    setAnswered({ reply, document: sizedFrom, marginPa });
     setRunning(false);
   };
 
@@ -82,13 +87,14 @@ export function SizingPanel() {
   const v = (ms: number | null) => (ms === null ? '—' : fmt(fromSI('velocity', ms, sys), 1));
 
   const apply = () => {
-    if (!result || !result.feasible || stale) return;
-    draft.update((doc) => applySizes(doc, rows));
-    setApplied({ rows: changed });
+    if (!answered || !result || !result.feasible || stale) return;
+    const at = new Date();
+    draft.update((doc) => applySizing(doc, result, answered.marginPa, at));
+    setApplied({ rows: changed, previousBasis: document.sizingBasis });
   };
   const undo = () => {
     if (!applied) return;
-    draft.update((doc) => undoSizes(doc, applied.rows));
+    draft.update((doc) => undoSizing(doc, applied.rows, applied.previousBasis));
     setApplied(null);
     setAnswered(null);
   };
@@ -102,6 +108,10 @@ export function SizingPanel() {
         every checked fixture at its minimum flow pressure plus the margin below, on the supply’s minimum pressure. Locked
         segments keep their size. Nothing changes until you apply the answer to the draft. Check the sizes against the adopted
         code and the pipe actually available; the AHJ and your judgement govern.
+      </p>
+      <p className="max-w-prose text-sm" data-testid="sizing-basis">
+        <span className="font-semibold">Sizing basis: </span>
+        {sizingBasisText(document)}
       </p>
       <div className="flex flex-wrap items-end gap-3">
         <TextField

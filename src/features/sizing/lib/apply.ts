@@ -3,7 +3,8 @@
  * taking them back (only where the size is still the one applied, so a later hand edit stays),
  * and the lock a designer puts on a segment's size.
  */
-import type { SegmentSizing, SystemDocument } from '../../../engine';
+import { sizingBasisOf } from '../../../engine';
+import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
 
 /** The rows whose size changes. */
 export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) => r.after !== null && r.after !== r.before);
@@ -11,6 +12,23 @@ export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) =
 export function applySizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
   const next = new Map(changedRows(rows).map((r) => [r.segmentId, r.after!]));
   return { ...doc, segments: doc.segments.map((s) => (next.has(s.id) ? { ...s, size: next.get(s.id)! } : s)) };
+}
+
+/**
+ * Applies a sizing answer and records its basis in the document (what it was asked to meet, when,
+ * and a fingerprint of the sizes it left), so the summary can state how the sizes were chosen.
+ */
+export function applySizing(doc: SystemDocument, result: SizingResult, marginPa: number, at: Date): SystemDocument {
+  const sized = applySizes(doc, result.segments);
+  return { ...sized, sizingBasis: sizingBasisOf({ sized, result, marginPa, scope: 'system', at }) };
+}
+
+/** Takes an applied sizing back: the sizes still as applied, and the basis recorded before it. */
+export function undoSizing(doc: SystemDocument, rows: readonly SegmentSizing[], previousBasis: SizingBasis | undefined): SystemDocument {
+  const back = undoSizes(doc, rows);
+  if (previousBasis) return { ...back, sizingBasis: previousBasis };
+  const { sizingBasis: _dropped, ...rest } = back;
+  return rest;
 }
 
 export function undoSizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
