@@ -434,17 +434,18 @@ export function buildModel(doc: SystemDocument): SiModel {
   const water = waterAt(temperatureC);
   const criteria = mergeCriteria(doc, P);
 
-  // Floors
-  const floorElevationM = new Map<string, number>();
+  // Floors, in the document's length unit: a node on a floor is at floor + height, added before
+  // the conversion to SI, so it sits exactly where the same elevation typed absolutely would.
+  const floorElevation = new Map<string, number>();
   for (const f of doc.floors) {
-    if (floorElevationM.has(f.id)) throw inputError('duplicate-id', 'floor', f.id, 'id');
-    floorElevationM.set(f.id, L(f.elevation));
+    if (floorElevation.has(f.id)) throw inputError('duplicate-id', 'floor', f.id, 'id');
+    floorElevation.set(f.id, f.elevation);
   }
 
   // Nodes
   const nNodes = doc.nodes.length;
   const scale: Scales = { pF, lF, qF, dF };
-  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevationM);
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevation);
 
   // Source
   const sourceIdx = nodeIndex.get(doc.source.nodeId);
@@ -581,7 +582,7 @@ interface Scales {
 }
 
 /** The nodes: ids, positions, demand and the checked fixtures, in SI (buildModel, stage 2). */
-function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floorElevationM: Map<string, number>) {
+function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floorElevation: Map<string, number>) {
   const P = (v: number) => v * scale.pF;
   const L = (v: number) => v * scale.lF;
   const Q = (v: number) => v * scale.qF;
@@ -615,9 +616,9 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
       elevationM[i] = L(node.elevation);
       placed[i] = 1;
     } else if (node.floor !== undefined) {
-      const floorZ = floorElevationM.get(node.floor);
+      const floorZ = floorElevation.get(node.floor);
       if (floorZ === undefined) throw inputError('unknown-floor', 'node', node.id, 'floor', `floor "${node.floor}" is not in the system's floors`);
-      elevationM[i] = floorZ + L(node.heightAboveFloor ?? 0);
+      elevationM[i] = L(floorZ + (node.heightAboveFloor ?? 0));
       placed[i] = 1;
     } else {
       elevationM[i] = Number.NaN;
