@@ -18,6 +18,17 @@ export const elevationFormSchema = z.object({
   nodes: z.array(z.object({ id: z.string(), elevation: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), NodeSchema.shape.elevation) })),
   segments: z.array(z.object({ id: z.string(), rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise) })),
 });
+/** The elevation of each node placed on a named floor (the floor's elevation + its height above it), in the document's unit. */
+function floorPlacedElevations(doc: SystemDocument): Map<string, number> {
+  const floorZ = new Map(doc.floors.map((f) => [f.id, f.elevation]));
+  const out = new Map<string, number>();
+  for (const n of doc.nodes) {
+    const z = n.elevation === undefined && n.floor !== undefined ? floorZ.get(n.floor) : undefined;
+    if (z !== undefined) out.set(n.id, z + (n.heightAboveFloor ?? 0));
+  }
+  return out;
+}
+
 type ElevationForm = { nodes: { id: string; elevation?: number }[]; segments: { id: string; rise?: number }[] };
 
 /**
@@ -28,11 +39,13 @@ type ElevationForm = { nodes: { id: string; elevation?: number }[]; segments: { 
  */
 export function applyElevations(doc: SystemDocument, v: z.output<typeof elevationFormSchema>): SystemDocument {
   const oldNode = new Map(doc.nodes.map((n) => [n.id, n]));
+  const onFloor = floorPlacedElevations(doc);
   const oldSeg = new Map(doc.segments.map((s) => [s.id, s]));
   const feedOf = new Map(doc.segments.map((s) => [s.to, s.id]));
   const typedElevation = new Map<string, number>();
   for (const n of v.nodes) {
-    if (n.elevation !== undefined && n.elevation !== oldNode.get(n.id)?.elevation) typedElevation.set(n.id, n.elevation);
+    // a node on a named floor shows its floor + height: only a different value places it absolutely
+    if (n.elevation !== undefined && n.elevation !== (oldNode.get(n.id)?.elevation ?? onFloor.get(n.id))) typedElevation.set(n.id, n.elevation);
   }
   const typedRise = new Map<string, number | undefined>();
   for (const s of v.segments) {
@@ -92,8 +105,10 @@ export function planFromText(t: PlanText): FloorPlan {
 
 export function ElevationStep() {
   const { document, draft, readOnlyReason, units, live } = useWalk();
+  const onFloor = floorPlacedElevations(document);
+  const floorName = new Map(document.floors.map((f) => [f.id, f.name]));
   const [defaults] = useState<ElevationForm>(() => ({
-    nodes: document.nodes.map((n) => ({ id: n.id, elevation: n.elevation })),
+    nodes: document.nodes.map((n) => ({ id: n.id, elevation: n.elevation ?? onFloor.get(n.id) })),
     segments: document.segments.map((s) => ({ id: s.id, rise: s.rise })),
   }));
   const form = useLiveForm(elevationFormSchema, defaults, (v) => draft.update((doc) => applyElevations(doc, v)));
@@ -111,6 +126,7 @@ export function ElevationStep() {
         .map((r) => ({ code: 'booster-gain-at-static' as const, severity: 'note' as const, message: r.message, elementType: 'node' as const, elementId: r.elementId }))
     : [];
   const label = new Map(document.nodes.map((n) => [n.id, n.label || n.id]));
+  const nodeFloor = new Map(document.nodes.map((n) => [n.id, n.floor]));
   const sourceNode = document.source.nodeId;
   const [planText, setPlanText] = useState<PlanText>(() => ({ floors: '', typicalHeight: '', groundHeight: '', groundLevel: '0', aboveFloor: '0', connection: String(document.nodes.find((n) => n.id === sourceNode)?.elevation ?? 0) }));
   const [assignment, setAssignment] = useState<Map<string, number>>(() => new Map());
@@ -180,7 +196,10 @@ export function ElevationStep() {
             <tbody>
               {defaults.nodes.map((n, i) => (
                 <tr key={n.id} className="border-t border-rule">
-                  <th scope="row" className="py-1 pr-2 text-left font-normal">{label.get(n.id)}{n.id === document.source.nodeId ? ' (source)' : ''}</th>
+                  <th scope="row" className="py-1 pr-2 text-left font-normal">
+                    {label.get(n.id)}{n.id === document.source.nodeId ? ' (source)' : ''}
+                    {onFloor.has(n.id) ? <span className="block text-xs text-ink-muted" data-testid={`on-floor-${n.id}`}>on {floorName.get(nodeFloor.get(n.id) ?? '') ?? 'its floor'}; a different elevation here places it apart from the floor</span> : null}
+                  </th>
                   <td className="w-48 py-1 pr-2">
                     {n.id === sourceNode ? <span className="text-ink-muted">connection</span> : (
                       <CellSelect label={`Floor of ${label.get(n.id)}`} options={floorOptions} value={String(assignment.get(n.id) ?? '')}
