@@ -46,8 +46,14 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['react', 'react-dom', 'react-*', '@tanstack/*', 'express', 'express-*', 'knex', 'pg', 'nodemailer', 'pdf-lib', ...NODE_BUILTINS], message: 'src/engine is pure: no UI, server, database or Node I/O.' },
-            { group: ['**/server/**', '**/features/**', '**/components/**', '**/app/**', '**/lib/**', '**/shared/**'], message: 'src/engine imports nothing from the client or the server.' },
+            {
+              group: ['react', 'react-dom', 'react-*', '@tanstack/*', 'express', 'express-*', 'knex', 'pg', 'nodemailer', 'pdf-lib', ...NODE_BUILTINS],
+              message: 'src/engine is pure: no UI, server, database or Node I/O.',
+            },
+            {
+              group: ['**/server/**', '**/features/**', '**/components/**', '**/app/**', '**/lib/**', '**/shared/**'],
+              message: 'src/engine imports nothing from the client or the server.',
+            },
           ],
         },
       ],
@@ -58,13 +64,30 @@ export default tseslint.config(
     files: ['src/components/**/*.{ts,tsx}', 'src/lib/**/*.{ts,tsx}', 'src/shared/**/*.ts'],
     rules: {
       // The route-path table (app/paths) is the one place addresses are written; shared pages may link with it.
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/features/**', '**/app/*', '!**/app/paths', '**/server/**'], message: 'Shared code does not import features, the app or the server.' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            { group: ['**/features/**', '**/app/*', '!**/app/paths', '**/server/**'], message: 'Shared code does not import features, the app or the server.' },
+          ],
+        },
+      ],
     },
   },
   {
     files: ['server/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'], message: 'The server imports the engine and the shared API contract only.' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'],
+              message: 'The server imports the engine and the shared API contract only.',
+            },
+          ],
+        },
+      ],
     },
   },
   {
@@ -76,8 +99,14 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'], message: 'The server imports the engine and the shared API contract only.' },
-            { group: ['**/http/**', '../http/*', 'express', 'express-*', 'multer'], message: 'Services and repositories know nothing of HTTP: throw ServiceError (server/services/errors.ts).' },
+            {
+              group: ['**/src/features/**', '**/src/components/**', '**/src/app/**', 'react', 'react-dom'],
+              message: 'The server imports the engine and the shared API contract only.',
+            },
+            {
+              group: ['**/http/**', '../http/*', 'express', 'express-*', 'multer'],
+              message: 'Services and repositories know nothing of HTTP: throw ServiceError (server/services/errors.ts).',
+            },
           ],
         },
       ],

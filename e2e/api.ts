@@ -56,7 +56,10 @@ export class Api {
 
   /** A multipart upload of one file in the field "file"; must answer 201. */
   async upload(url: string, fileName: string, content: Buffer): Promise<void> {
-    const res = await this.context.post(url, { headers: { 'x-csrf-token': this.token }, multipart: { file: { name: fileName, mimeType: 'application/pdf', buffer: content } } });
+    const res = await this.context.post(url, {
+      headers: { 'x-csrf-token': this.token },
+      multipart: { file: { name: fileName, mimeType: 'application/pdf', buffer: content } },
+    });
     expect(res.status(), `upload to ${url}: ${await res.text()}`).toBe(201);
   }
 
@@ -73,7 +76,10 @@ export interface MadeProject {
 }
 
 /** A project of the demo designer's, with the given demo members (invented "Wrenmoor" names). */
-export async function newProject(members: { email: string; role: 'contractor' | 'inspector' | 'designer' }[] = [], label = 'Wrenmoor Depot'): Promise<MadeProject & { designer: Api }> {
+export async function newProject(
+  members: { email: string; role: 'contractor' | 'inspector' | 'designer' }[] = [],
+  label = 'Wrenmoor Depot',
+): Promise<MadeProject & { designer: Api }> {
   const designer = await Api.as(DEMO.designer);
   const name = `${label} ${fresh()}`;
   const created = await designer.send('POST', '/api/projects', { name, address: '12 Kiln Row, Wrenmoor' }, 201);
@@ -157,7 +163,11 @@ export async function proposedFieldChange(title: string, dataSheet: Buffer): Pro
   const fcBase = `/api/projects/${project.id}/systems/${system.systemId}/field-changes`;
   const created = (await contractor.send('POST', fcBase, { revisionId: system.revisionId, title }, 201)).fieldChange;
   const api = `${fcBase}/${created.id}`;
-  const issued = (await contractor.get<{ revision: { document: { segments: { id: string; material: string; size: string; fittings: { typeId: string }[] }[] } } }>(system.base)).revision.document;
+  const issued = (
+    await contractor.get<{ revision: { document: { segments: { id: string; material: string; size: string; fittings: { typeId: string }[] }[] } } }>(
+      system.base,
+    )
+  ).revision.document;
   const document = structuredClone(issued);
   const floor7 = document.segments.find((s) => s.id === 'floor-7')!;
   floor7.material = 'pex-sdr9';

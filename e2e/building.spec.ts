@@ -57,19 +57,26 @@ async function enterAndCheck(page: Page, storeys: number, aims: { entries: numbe
   await expect(page.getByTestId(`margin-${critical.id}`)).toHaveText(signed(critical.margin, 2));
   await page.screenshot({ path: `${screenshotDir()}/${storeys}-storeys-result.png` });
 
-  const line = `building entry: ${storeys} storeys, ${truth.fixtures.length} checked fixtures: ${c.entries} field entries, ${c.clicks} clicks ` +
+  const line =
+    `building entry: ${storeys} storeys, ${truth.fixtures.length} checked fixtures: ${c.entries} field entries, ${c.clicks} clicks ` +
     `(first version: 377 entries, 203 clicks for 4 storeys); verdict on screen ${shownAfterMs} ms after the last entry (Generate); ` +
     `critical ${critical.label} ${signed(critical.margin, 2)}; fixtures ${truth.verdict.allFixturesPass ? 'pass' : 'fail'}, ` +
     `velocities ${truth.verdict.allVelocitiesPass ? 'pass' : 'fail'}, static ${truth.verdict.allStaticPass ? 'pass' : 'fail'}`;
   console.log(line);
   fs.appendFileSync(`${screenshotDir()}/counts.txt`, `${line}\n`);
   // `npm run bench` (scripts/bench/entry.ts) reads the counts from here
-  if (process.env.BENCH_ENTRY_OUT) fs.appendFileSync(process.env.BENCH_ENTRY_OUT, `${JSON.stringify({ storeys, fixtures: truth.fixtures.length, entries: c.entries, clicks: c.clicks, verdictAfterMs: shownAfterMs })}\n`);
+  if (process.env.BENCH_ENTRY_OUT)
+    fs.appendFileSync(
+      process.env.BENCH_ENTRY_OUT,
+      `${JSON.stringify({ storeys, fixtures: truth.fixtures.length, entries: c.entries, clicks: c.clicks, verdictAfterMs: shownAfterMs })}\n`,
+    );
   expect(c.entries).toBeLessThanOrEqual(aims.entries);
   expect(c.clicks).toBeLessThanOrEqual(aims.clicks);
 }
 
-test('when a new user enters the 4-storey, 16-apartment building from an empty project, then it takes at most 60 entries and 60 clicks and the result is the true fail', async ({ page }) => {
+test('when a new user enters the 4-storey, 16-apartment building from an empty project, then it takes at most 60 entries and 60 clicks and the result is the true fail', async ({
+  page,
+}) => {
   await enterAndCheck(page, 4, { entries: 60, clicks: 60 });
 });
 

@@ -36,7 +36,8 @@ test.beforeEach(({ page }) => {
 test.afterEach(() => expect(pageProblems).toEqual([]));
 
 /** The revision's API address, from the walk's address on screen. */
-const revisionApi = (page: Page) => `/api${new URL(page.url()).pathname.replace(/\/(supply|devices|risers|fittings|elevation|fixtures|result|table|diagram|building)$/, '')}`;
+const revisionApi = (page: Page) =>
+  `/api${new URL(page.url()).pathname.replace(/\/(supply|devices|risers|fittings|elevation|fixtures|result|table|diagram|building)$/, '')}`;
 
 async function storedDocument(page: Page) {
   const response = await page.request.get(revisionApi(page));
@@ -56,7 +57,9 @@ async function summaryText(page: Page, name: string): Promise<string> {
   return execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
 }
 
-test('when a designer sizes a system and applies it, then the result and the issued summary state the sizing basis, and a hot system fed from it reads its pressure', async ({ page }) => {
+test('when a designer sizes a system and applies it, then the result and the issued summary state the sizing basis, and a hot system fed from it reads its pressure', async ({
+  page,
+}) => {
   test.slow();
   await signIn(page, DEMO.designer);
   await createProject(page, `Kiln Row laundry ${run}`, '5 Kiln Row, Wrenmoor');
@@ -98,7 +101,9 @@ test('when a designer sizes a system and applies it, then the result and the iss
   expect(hot.source.fedFrom?.resolution).toMatchObject({ status: 'resolved', systemName: coldName, nodeLabel: 'Building entry' });
 });
 
-test('when a tall building is entered with the riser builder in a PRV zone and a supply zone, then the result and the issued summary show each zone', async ({ page }) => {
+test('when a tall building is entered with the riser builder in a PRV zone and a supply zone, then the result and the issued summary show each zone', async ({
+  page,
+}) => {
   test.setTimeout(300_000);
   await signIn(page, DEMO.designer);
   const c = new EntryCounter();

@@ -21,7 +21,10 @@ export default class DurationsReporter implements Reporter {
 
   onEnd(result: FullResult) {
     const rows = this.rows.sort((a, b) => b.ms - a.ms);
-    const lines = rows.map((r) => `${(r.ms / 1000).toFixed(1).padStart(7)} s  of ${(r.timeout / 1000).toFixed(0).padStart(4)} s  ${String(Math.round((100 * r.ms) / r.timeout)).padStart(3)} %  ${r.status.padEnd(8)} ${r.title.slice(0, 110)}`);
+    const lines = rows.map(
+      (r) =>
+        `${(r.ms / 1000).toFixed(1).padStart(7)} s  of ${(r.timeout / 1000).toFixed(0).padStart(4)} s  ${String(Math.round((100 * r.ms) / r.timeout)).padStart(3)} %  ${r.status.padEnd(8)} ${r.title.slice(0, 110)}`,
+    );
     const total = rows.reduce((sum, r) => sum + r.ms, 0);
     process.stdout.write(`\nTest durations (slowest first; run ${result.status}, ${(total / 1000).toFixed(1)} s in tests):\n${lines.join('\n')}\n`);
   }

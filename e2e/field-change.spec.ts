@@ -39,7 +39,9 @@ async function dataSheet(): Promise<Buffer> {
   return Buffer.from(await pdf.save());
 }
 
-test('when the contractor checks a substitution on the issued demo building, then every fixture shows the issued and new margins, and a data sheet is attached and proposed', async ({ page }) => {
+test('when the contractor checks a substitution on the issued demo building, then every fixture shows the issued and new margins, and a data sheet is attached and proposed', async ({
+  page,
+}) => {
   // the longest story of the suite (five steps, two full analyses, an upload): measured over 2.2 min
   // at load average 14 on 2 cores, so 300 s (playwright.config.ts, TIMEOUTS)
   test.setTimeout(300_000);

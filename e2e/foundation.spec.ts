@@ -236,7 +236,10 @@ test('when someone uses only the keyboard, then sign-in works and the focused co
   await shot(page, '17-keyboard-skip-link');
 });
 
-test('when the outsider forgets the password, then a link comes by e-mail, sets the password once, and the outsider signs in with it', async ({ page, browser }) => {
+test('when the outsider forgets the password, then a link comes by e-mail, sets the password once, and the outsider signs in with it', async ({
+  page,
+  browser,
+}) => {
   await page.goto('/sign-in');
   await page.getByRole('link', { name: 'Forgot your password?' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Forgot your password?' })).toBeVisible();

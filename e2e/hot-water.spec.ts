@@ -31,7 +31,9 @@ async function typeLowStatic(page: Page, value: string) {
   await expect(low).toHaveValue(value);
 }
 
-test("when a hot system is fed from a cold one, then its supply is the cold system's pressure at the heater feed and follows a change to the cold supply", async ({ page }) => {
+test("when a hot system is fed from a cold one, then its supply is the cold system's pressure at the heater feed and follows a change to the cold supply", async ({
+  page,
+}) => {
   const problems: string[] = [];
   page.on('pageerror', (error) => problems.push(`uncaught: ${error.message}`));
   const project = await newProject([], 'Wrenmoor Bathhouse');
@@ -77,7 +79,9 @@ test("when a hot system is fed from a cold one, then its supply is the cold syst
   expect(problems).toEqual([]);
 });
 
-test('when a designer describes a recirculation loop on a fresh hot system, then the result step shows the loop flow, the pump flow and head and the return sizes, and names a loop it cannot compute', async ({ page }) => {
+test('when a designer describes a recirculation loop on a fresh hot system, then the result step shows the loop flow, the pump flow and head and the return sizes, and names a loop it cannot compute', async ({
+  page,
+}) => {
   const problems: string[] = [];
   page.on('pageerror', (error) => problems.push(`uncaught: ${error.message}`));
   const project = await newProject([], 'Wrenmoor Laundry');
@@ -100,7 +104,23 @@ test('when a designer describes a recirculation loop on a fresh hot system, then
 
   // The page shows what the server's analysis of the saved draft says.
   const path = new URL(hotUrl).pathname.replace(/\/supply$/, '');
-  type Stored = { revision: { document: { recirculation?: unknown }; analysis: { analysis: { recirculation?: { ok: boolean; pumpFlow: number; pumpHead: number; pumpHeadLength: number; heatLoss: number; pipes: { segmentId: string; size: string; sizeChosen: boolean }[] } } } } };
+  type Stored = {
+    revision: {
+      document: { recirculation?: unknown };
+      analysis: {
+        analysis: {
+          recirculation?: {
+            ok: boolean;
+            pumpFlow: number;
+            pumpHead: number;
+            pumpHeadLength: number;
+            heatLoss: number;
+            pipes: { segmentId: string; size: string; sizeChosen: boolean }[];
+          };
+        };
+      };
+    };
+  };
   const stored = await project.designer.get<Stored>(`/api${path}`);
   const r = stored.revision.analysis.analysis.recirculation;
   expect(r?.ok).toBe(true);

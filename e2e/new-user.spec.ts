@@ -49,7 +49,9 @@ async function waitSaved(page: Page) {
   await expect(page.getByTestId('save-state')).toHaveAttribute('data-held', '0');
 }
 
-test('when a new user enters a 4-storey building with the rises typed at the pipe step and never opens the elevation step, then the result is the true one: fail, never green', async ({ page }) => {
+test('when a new user enters a 4-storey building with the rises typed at the pipe step and never opens the elevation step, then the result is the true one: fail, never green', async ({
+  page,
+}) => {
   await newSystem(page, 'Four storeys');
 
   // 1. Supply
@@ -69,7 +71,11 @@ test('when a new user enters a 4-storey building with the rises typed at the pip
   await service.getByLabel('Service pipe length (ft)').fill('30');
   await service.getByLabel('Service pipe rise (ft)').fill('0');
   let from = 'Building entry';
-  for (const [i, level] of [[1, 'Level 2'], [2, 'Level 3'], [3, 'Level 4']] as const) {
+  for (const [i, level] of [
+    [1, 'Level 2'],
+    [2, 'Level 3'],
+    [3, 'Level 4'],
+  ] as const) {
     await page.getByRole('button', { name: `Add a segment from ${from}` }).click();
     const card = page.getByTestId(`segment-seg-${i}`);
     await card.getByLabel(`seg-${i} length (ft)`).fill('12');

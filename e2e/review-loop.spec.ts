@@ -31,7 +31,6 @@ async function shot(page: Page, name: string, what: 'page' | Locator = 'page') {
   else await what.screenshot({ path });
 }
 
-
 /** The signed-in page's API, with its CSRF token (the set-up only; the loop itself goes through the screens). */
 async function apiOf(page: Page) {
   const token = (await (await page.request.get('/api/csrf-token')).json()).token as string;
@@ -51,7 +50,9 @@ test.afterAll(async ({ browser }) => {
   const context = await browser.newContext();
   const page = await context.newPage();
   await signIn(page, DEMO.designer);
-  await (await apiOf(page))('DELETE', `/api/projects/${ctx.projectId}/members/${ctx.inspectorId}`);
+  await (
+    await apiOf(page)
+  )('DELETE', `/api/projects/${ctx.projectId}/members/${ctx.inspectorId}`);
   await context.close();
 });
 const step = (page: Page, name: string) => page.getByRole('navigation', { name: 'Steps of the walk' }).getByRole('link', { name });
@@ -65,7 +66,10 @@ async function part1(page: Page) {
   const created = await send('POST', `/api/projects/${ctx.projectId}/systems`, { name: SYSTEM, service: 'cold', document });
   ctx.systemId = created.system.id;
   ctx.rev1 = created.revision.id;
-  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/issue`, { version: created.revision.version, attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true } });
+  await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/issue`, {
+    version: created.revision.version,
+    attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true },
+  });
   const members = (await (await page.request.get(`/api/projects/${ctx.projectId}/members`)).json()).members as { userId: string; email: string }[];
   ctx.inspectorId = members.find((m) => m.email === DEMO.inspector)!.userId;
   await send('POST', `/api/projects/${ctx.projectId}/systems/${ctx.systemId}/revisions/${ctx.rev1}/summary/send`, { inspectorIds: [ctx.inspectorId] });
@@ -230,10 +234,14 @@ async function fresh(browser: Browser, part: (page: Page) => Promise<void>) {
 }
 
 // One test: the loop is one story whose parts build on each other, so no test depends on another's success.
-test('when an inspector returns a revision with item comments and the designer answers and reissues, then the inspector sees the compare and the answers and accepts, and the acceptance record downloads', async ({ browser }) => {
+test('when an inspector returns a revision with item comments and the designer answers and reissues, then the inspector sees the compare and the answers and accepts, and the acceptance record downloads', async ({
+  browser,
+}) => {
   test.setTimeout(600_000);
   await test.step('set-up: the designer issues revision 1 of a new project’s cold-water system and sends it to the inspector', () => fresh(browser, part1));
   await test.step('when the inspector returns revision 1 with two item comments, then the review records both', () => fresh(browser, part2));
-  await test.step('when the designer opens the returned project, then the marker shows on the list, the project and the system, and the next draft shows each comment at its item', () => fresh(browser, part3));
-  await test.step('when the inspector opens revision 2, then the review shows the compare against revision 1 and the answers; accepting stores a record that downloads', () => fresh(browser, part4));
+  await test.step('when the designer opens the returned project, then the marker shows on the list, the project and the system, and the next draft shows each comment at its item', () =>
+    fresh(browser, part3));
+  await test.step('when the inspector opens revision 2, then the review shows the compare against revision 1 and the answers; accepting stores a record that downloads', () =>
+    fresh(browser, part4));
 });

@@ -16,7 +16,9 @@ test.beforeEach(({ page }) => {
 });
 test.afterEach(() => expect(pageProblems).toEqual([]));
 
-test('when the designer opens the demo cold system’s riser diagram, then it fits the window’s width, names its devices and levels, zooms, and prints on one sheet', async ({ page }) => {
+test('when the designer opens the demo cold system’s riser diagram, then it fits the window’s width, names its devices and levels, zooms, and prints on one sheet', async ({
+  page,
+}) => {
   test.slow(); // the diagram computes the whole demo (94 segments) in the browser
   fs.mkdirSync('e2e-output/screens', { recursive: true });
   await page.setViewportSize({ width: 1280, height: 900 });

@@ -42,7 +42,9 @@ test.beforeEach(({ page }) => {
 });
 test.afterEach(() => expect(pageProblems).toEqual([]));
 
-test('when a designer sizes an undersized system in a fresh project, applies the answer and undoes it, then the verdict turns to pass and back', async ({ page }) => {
+test('when a designer sizes an undersized system in a fresh project, applies the answer and undoes it, then the verdict turns to pass and back', async ({
+  page,
+}) => {
   // A fresh project and system, with pipes drawn too small
   await signIn(page, DEMO.designer);
   await createProject(page, `Kiln Row kiosk ${run}`, '3 Kiln Row, Wrenmoor');
@@ -85,7 +87,9 @@ test('when a designer sizes an undersized system in a fresh project, applies the
   await shot(page, 'undone');
 });
 
-test('when the contractor asks for the smallest PEX for apartment 701 on a field change, then the sizes are the engine\'s and can be used and undone', async ({ page }) => {
+test("when the contractor asks for the smallest PEX for apartment 701 on a field change, then the sizes are the engine's and can be used and undone", async ({
+  page,
+}) => {
   // the field change's pipe step renders the whole demo (94 segments): slow on a loaded 2-core machine
   test.slow();
   // The demo's issued revision 1 is the example document (seeds/02_demo_systems.ts).

@@ -29,7 +29,12 @@ async function issuedProject(inspectorEmail: string): Promise<{ project: MadePro
 
 /** The designer sends the issued summary to one inspector (by id) through the API. */
 async function sendTo(designer: Api, system: MadeSystem, inspectorId: string) {
-  await designer.send('POST', `${system.base}/summary/send`, { inspectorIds: [inspectorId], message: 'Permit set for the cold-water system, revision 1.' }, 202);
+  await designer.send(
+    'POST',
+    `${system.base}/summary/send`,
+    { inspectorIds: [inspectorId], message: 'Permit set for the cold-water system, revision 1.' },
+    202,
+  );
 }
 
 /** The id of a member of the project, by e-mail. */
@@ -181,12 +186,16 @@ test('when the inspector opens the summary from the inbox, then the PDF download
   await shot(page, '05-inspector-returned', panel(page));
 
   // The inbox moves it to the decided list and the count drops.
-  await mainNav(page).getByRole('link', { name: /Review inbox/ }).click();
+  await mainNav(page)
+    .getByRole('link', { name: /Review inbox/ })
+    .click();
   await expect(page.getByRole('list', { name: 'Decided or superseded' }).getByText('Returned with comments')).toBeVisible();
   await expect(page.getByText('Nothing is waiting for you.')).toBeVisible();
 });
 
-test('when the inspector has returned it, then the designer sees the outcome and the fixture comment on the revision and the project page', async ({ page }) => {
+test('when the inspector has returned it, then the designer sees the outcome and the fixture comment on the revision and the project page', async ({
+  page,
+}) => {
   const { project, system } = await issuedProject(DEMO.inspector);
   await sendTo(project.designer, system, await memberId(project.designer, project.id, DEMO.inspector));
   // the demo inspector returns it with a comment on the top-floor shower (through the API)
@@ -196,7 +205,12 @@ test('when the inspector has returned it, then the designer sees the outcome and
   await inspector.send(
     'PATCH',
     `/api/projects/${project.id}/reviews/${review.id}`,
-    { decision: 'returned', comment: OVERALL_COMMENT, items: [{ itemType: 'fixture', itemId: 'shower-704', comment: FIXTURE_COMMENT }], version: review.version },
+    {
+      decision: 'returned',
+      comment: OVERALL_COMMENT,
+      items: [{ itemType: 'fixture', itemId: 'shower-704', comment: FIXTURE_COMMENT }],
+      version: review.version,
+    },
     200,
   );
   const resultUrl = system.resultPath;
@@ -224,13 +238,17 @@ test('when the inspector has returned it, then the designer sees the outcome and
   await shot(page, '07-designer-revision-reviews', panel(page));
 });
 
-test('when an administrator opens the development mail page, then the caught summary e-mail is listed with its text and PDF withheld (they are the inspector’s)', async ({ page }) => {
+test('when an administrator opens the development mail page, then the caught summary e-mail is listed with its text and PDF withheld (they are the inspector’s)', async ({
+  page,
+}) => {
   const inspector = await newUser('inspector', 'Rowan Tierney');
   const { project, system } = await issuedProject(inspector.email);
   await sendTo(project.designer, system, inspector.id);
   // the outbox delivers in the background: wait for the state "sent", not for a time
   await expect
-    .poll(async () => (await project.designer.get<{ messages: { status: string }[] }>(`${system.base}/messages`)).messages.map((m) => m.status), { timeout: 30_000 })
+    .poll(async () => (await project.designer.get<{ messages: { status: string }[] }>(`${system.base}/messages`)).messages.map((m) => m.status), {
+      timeout: 30_000,
+    })
     .toEqual(['sent']);
   await signIn(page, DEMO.admin);
   await page.goto('/dev/mail');

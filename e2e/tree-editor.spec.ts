@@ -10,7 +10,8 @@ import { longestScrollFrame, pageHeight } from './bench/tree-figures';
 // The compact tree editor of the pipe step (issue #14), each test on a project of its own made
 // through the API (e2e/api.ts) holding the invented demo building "Alder & Finch".
 
-const walkStep = (p: { projectId: string; systemId: string; revisionId: string }, step: string) => `/projects/${p.projectId}/systems/${p.systemId}/revisions/${p.revisionId}/${step}`;
+const walkStep = (p: { projectId: string; systemId: string; revisionId: string }, step: string) =>
+  `/projects/${p.projectId}/systems/${p.systemId}/revisions/${p.revisionId}/${step}`;
 const barMargin = (page: Page) => page.getByTestId('verdict-bar').getByTestId('bar-margin');
 
 let problems: string[] = [];
@@ -20,7 +21,9 @@ test.beforeEach(({ context }) => {
 });
 test.afterEach(() => expect(problems).toEqual([]));
 
-test('when a size is changed with the keyboard and a branch’s material in bulk, then the verdict bar follows each and the draft keeps both', async ({ page }) => {
+test('when a size is changed with the keyboard and a branch’s material in bulk, then the verdict bar follows each and the draft keeps both', async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   const project = await newProject([], 'Kiln Row');
   const system = await newSystem(project.designer, project.id, 'Domestic cold water', demoColdDocument(), false);
@@ -63,12 +66,21 @@ test('when a size is changed with the keyboard and a branch’s material in bulk
   await expect(barMargin(page)).toContainText(Math.abs(critical.margin).toFixed(2));
 });
 
-test('when a contractor opens a field change, then the same editor offers material, size and length, and shows the tree as issued, locked with the reason', async ({ page }) => {
+test('when a contractor opens a field change, then the same editor offers material, size and length, and shows the tree as issued, locked with the reason', async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   const project = await newProject([{ email: DEMO.contractor, role: 'contractor' }], 'Kiln Row');
   const system = await newSystem(project.designer, project.id, 'Domestic cold water');
   const contractor = await Api.as(DEMO.contractor);
-  const fc = (await contractor.send('POST', `/api/projects/${project.id}/systems/${system.systemId}/field-changes`, { revisionId: system.revisionId, title: `PEX floor main (${fresh()})` }, 201)).fieldChange;
+  const fc = (
+    await contractor.send(
+      'POST',
+      `/api/projects/${project.id}/systems/${system.systemId}/field-changes`,
+      { revisionId: system.revisionId, title: `PEX floor main (${fresh()})` },
+      201,
+    )
+  ).fieldChange;
   await contractor.dispose();
   await signIn(page, DEMO.contractor);
   await page.goto(`/projects/${project.id}/systems/${system.systemId}/field-changes/${fc.id}/pipe`);
@@ -87,7 +99,9 @@ test('when a contractor opens a field change, then the same editor offers materi
   await shot(page, 'tree-editor-field-change');
 });
 
-test('figures: the demo’s pipe and fittings step heights, and the 40-storey pipe step’s longest frame while scrolling (printed, not asserted)', async ({ page }) => {
+test('figures: the demo’s pipe and fittings step heights, and the 40-storey pipe step’s longest frame while scrolling (printed, not asserted)', async ({
+  page,
+}) => {
   // a 5,000-segment import, its analysis and two scroll passes over ~300 frames each: measured over 5 min on the shared 2-core machine
   test.setTimeout(720_000);
   const project = await newProject([], 'Kiln Row');

@@ -27,7 +27,9 @@ test.beforeEach(({ context }) => {
 });
 test.afterEach(() => expect(pageProblems).toEqual([]));
 
-test('when a designer walks a new system from the supply to the result, then the verdict, chart and ledger follow the inputs, and an issued revision keeps its numbers', async ({ page }) => {
+test('when a designer walks a new system from the supply to the result, then the verdict, chart and ledger follow the inputs, and an issued revision keeps its numbers', async ({
+  page,
+}) => {
   page.on('pageerror', (error) => pageProblems.push(`uncaught: ${error.message}`));
   await signIn(page, DEMO.designer);
   await openProject(page, DEMO_PROJECT);
@@ -224,7 +226,8 @@ test('when two tabs edit one draft, then the second save is refused and offers t
   await expect(b.getByLabel(/Static pressure, low/)).toBeEditable();
   // Saves here are the walk's autosave (1.5 s after an edit) and the waits are on what it leads to:
   // a "Save now" click could race the autosave on a slow machine (the button is disabled once saved).
-  const stored = async () => (await project.designer.get<{ revision: { document: { source: { staticPressureLow: number } } } }>(system.base)).revision.document.source.staticPressureLow;
+  const stored = async () =>
+    (await project.designer.get<{ revision: { document: { source: { staticPressureLow: number } } } }>(system.base)).revision.document.source.staticPressureLow;
   await a.getByLabel(/Static pressure, low/).fill('71');
   await expect.poll(stored).toBe(71);
   await expect(a.getByTestId('save-state')).toHaveAttribute('data-state', 'saved');

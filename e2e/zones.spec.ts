@@ -26,7 +26,9 @@ async function storedDocument(page: Page) {
   return SystemDocumentSchema.parse(revision.document);
 }
 
-test('when a 12-storey building is entered with a supply zone and a booster zone, then the result shows each zone’s verdict and the riser diagram marks the boundary', async ({ page }) => {
+test('when a 12-storey building is entered with a supply zone and a booster zone, then the result shows each zone’s verdict and the riser diagram marks the boundary', async ({
+  page,
+}) => {
   test.setTimeout(300_000);
   await signIn(page, DEMO.designer);
   const c = new EntryCounter();
@@ -59,7 +61,10 @@ test('when a 12-storey building is entered with a supply zone and a booster zone
   for (const z of zones) {
     await expect(page.getByTestId(`zone-${z.index}`)).toContainText(z.name);
     await expect(page.getByTestId(`zone-verdict-${z.index}`)).toHaveText(zoneVerdictWords(z));
-    await expect(page.getByTestId(`zone-verdict-${z.index}`).locator('[data-verdict]')).toHaveAttribute('data-verdict', z.status === 'not-checked' ? 'unknown' : z.status);
+    await expect(page.getByTestId(`zone-verdict-${z.index}`).locator('[data-verdict]')).toHaveAttribute(
+      'data-verdict',
+      z.status === 'not-checked' ? 'unknown' : z.status,
+    );
   }
   console.log(`zones: ${zones.map((z) => `${z.name}: ${zoneVerdictWords(z)}`).join(' | ')}`);
   await table.screenshot({ path: `${screenshotDir()}/zones-table.png` });

@@ -63,7 +63,9 @@ export async function down(knex: Knex): Promise<void> {
       RETURN NEW;
     END $$ LANGUAGE plpgsql;
   `);
-  await knex.raw('ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_failure_ack_issued; ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_failure_ack_whole;');
+  await knex.raw(
+    'ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_failure_ack_issued; ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_failure_ack_whole;',
+  );
   await knex.schema.alterTable('revisions', (t) => {
     t.dropColumn('failure_ack_statement');
     t.dropColumn('failure_ack_at');

@@ -29,7 +29,13 @@ export async function up(knex: Knex): Promise<void> {
     const analysis = result.ok ? { ok: true, analysis: result.analysis } : { ok: false, error: result.error.toJSON() };
     await knex('revisions')
       .where({ id: d.id, status: 'draft' })
-      .update({ document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: ENGINE_VERSION, version: knex.raw('version + 1'), updated_at: knex.fn.now() });
+      .update({
+        document: JSON.stringify(document),
+        analysis: JSON.stringify(analysis),
+        engine_version: ENGINE_VERSION,
+        version: knex.raw('version + 1'),
+        updated_at: knex.fn.now(),
+      });
     await knex('audit_log').insert({
       actor_id: null,
       project_id: d.project_id,

@@ -22,5 +22,8 @@ export async function up(knex: Knex): Promise<void> {
 
 export async function down(knex: Knex): Promise<void> {
   await knex('outbox').where({ kind: 'review-decision' }).delete();
-  await replaceOutboxKinds(knex, KINDS.filter((k) => k !== 'review-decision'));
+  await replaceOutboxKinds(
+    knex,
+    KINDS.filter((k) => k !== 'review-decision'),
+  );
 }

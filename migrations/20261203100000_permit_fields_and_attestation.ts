@@ -45,7 +45,9 @@ export async function up(knex: Knex): Promise<void> {
 
 export async function down(knex: Knex): Promise<void> {
   await knex.raw('DROP TRIGGER IF EXISTS revisions_attestation_frozen ON revisions; DROP FUNCTION IF EXISTS revisions_attestation_frozen();');
-  await knex.raw('ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_attestation_issued; ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_attestation_whole;');
+  await knex.raw(
+    'ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_attestation_issued; ALTER TABLE revisions DROP CONSTRAINT IF EXISTS revisions_attestation_whole;',
+  );
   await knex.schema.alterTable('revisions', (t) => {
     t.dropColumn('attestation_at');
     t.dropColumn('attestation_statement');

@@ -3,5 +3,7 @@ import { benchSummaryPdf } from '../server/pdf/bench';
 
 const runs = Number(process.argv[2] ?? 9);
 for (const r of await benchSummaryPdf(runs)) {
-  console.log(`${r.name.padEnd(40)} ${String(r.segments).padStart(4)} segments ${String(r.pages).padStart(3)} pages ${(r.bytes / 1024).toFixed(0).padStart(5)} kB  median ${r.medianMs.toFixed(0).padStart(5)} ms`);
+  console.log(
+    `${r.name.padEnd(40)} ${String(r.segments).padStart(4)} segments ${String(r.pages).padStart(3)} pages ${(r.bytes / 1024).toFixed(0).padStart(5)} kB  median ${r.medianMs.toFixed(0).padStart(5)} ms`,
+  );
 }

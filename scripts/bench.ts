@@ -108,7 +108,18 @@ try {
   }
   if (want('api')) {
     try {
-      rows.push(...(await apiRows({ cluster: cluster!, app: app!, connections: CONNECTIONS, rounds: PLAN.apiRounds, seconds: PLAN.apiSeconds, warmupSeconds: PLAN.apiWarmup, tmpDir, log })));
+      rows.push(
+        ...(await apiRows({
+          cluster: cluster!,
+          app: app!,
+          connections: CONNECTIONS,
+          rounds: PLAN.apiRounds,
+          seconds: PLAN.apiSeconds,
+          warmupSeconds: PLAN.apiWarmup,
+          tmpDir,
+          log,
+        })),
+      );
     } catch (err) {
       problems.push(`API: ${err instanceof Error ? err.message : err}`);
       rows.push({ figure: 'API: draft save with server analysis', unit: 'req/s', median: Number.NaN, runs: 0, note: 'failed; see the log' });
@@ -116,7 +127,16 @@ try {
   }
   if (want('processes')) {
     try {
-      rows.push(...(await processRows({ cluster: cluster!, connections: CONNECTIONS, rounds: PLAN.apiRounds, seconds: PLAN.apiSeconds, warmupSeconds: PLAN.apiWarmup, log })));
+      rows.push(
+        ...(await processRows({
+          cluster: cluster!,
+          connections: CONNECTIONS,
+          rounds: PLAN.apiRounds,
+          seconds: PLAN.apiSeconds,
+          warmupSeconds: PLAN.apiWarmup,
+          log,
+        })),
+      );
     } catch (err) {
       problems.push(`processes: ${err instanceof Error ? err.message : err}`);
       rows.push({ figure: 'API: draft save with 2 app processes', unit: 'req/s', median: Number.NaN, runs: 0, note: 'failed; see the log' });
@@ -124,7 +144,8 @@ try {
   }
   if (want('client') && build?.dist) rows.push(...ledgerRows({ baseUrl: app!.url, edits: PLAN.edits, tmpDir, log, buildNote: build.note }));
   if (want('entry') && build?.dist) rows.push(...entryRows({ baseUrl: app!.url, tmpDir, log, buildNote: build.note }));
-  else if (want('entry')) rows.push({ figure: 'client: building entry from an empty project', unit: 'count', median: Number.NaN, runs: 0, note: build?.note ?? 'no client build' });
+  else if (want('entry'))
+    rows.push({ figure: 'client: building entry from an empty project', unit: 'count', median: Number.NaN, runs: 0, note: build?.note ?? 'no client build' });
 } catch (err) {
   problems.push(err instanceof Error ? (err.stack ?? err.message) : String(err));
   if (app) problems.push(`server log (end):\n${app.log.join('').slice(-2000)}`);
@@ -144,14 +165,21 @@ const notes = [
   `Engine and PDF run in this process; the API rows run Headroom and the peer as child processes (node --import tsx) on loopback with autocannon; edit-to-ledger runs in Debian's Chromium through Playwright. kB = 1,000 bytes.`,
   quick ? 'Quick run (--quick): fewer runs and shorter rounds than the full bench.' : null,
 ].filter(Boolean);
-const md = [`\`npm run ${quick ? 'bench -- --quick' : 'bench'}\`, ${when.toUTCString()}; ${machine}.`, '', table, '', ...notes.map((n) => `- ${n}`), ''].join('\n');
+const md = [`\`npm run ${quick ? 'bench -- --quick' : 'bench'}\`, ${when.toUTCString()}; ${machine}.`, '', table, '', ...notes.map((n) => `- ${n}`), ''].join(
+  '\n',
+);
 
 console.log('\n' + table + '\n');
 for (const n of notes) console.log(`- ${n}`);
 console.log(`- Machine: ${machine}.`);
 fs.writeFileSync(path.join(outDir, 'bench.md'), md);
-fs.writeFileSync(path.join(outDir, 'bench.json'), JSON.stringify({ date: when.toISOString(), quick, machine, rows: rows.map((r) => ({ ...r, ratio: ratioOf(r) })) }, null, 2));
-console.log(`\nwritten: ${path.relative(root, path.join(outDir, 'bench.md'))}, ${path.relative(root, path.join(outDir, 'bench.json'))} (${((Date.now() - started) / 1000).toFixed(0)} s in all)`);
+fs.writeFileSync(
+  path.join(outDir, 'bench.json'),
+  JSON.stringify({ date: when.toISOString(), quick, machine, rows: rows.map((r) => ({ ...r, ratio: ratioOf(r) })) }, null, 2),
+);
+console.log(
+  `\nwritten: ${path.relative(root, path.join(outDir, 'bench.md'))}, ${path.relative(root, path.join(outDir, 'bench.json'))} (${((Date.now() - started) / 1000).toFixed(0)} s in all)`,
+);
 const failedRows = rows.filter((r) => !Number.isFinite(r.median));
 if (failedRows.length) problems.push(`rows without a figure: ${failedRows.map((r) => r.figure).join('; ')}`);
 // kept when something failed: the Playwright traces and the peer's answer are in it

@@ -32,7 +32,11 @@ const check = (name: string, ok: boolean, detail = '') => {
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const log = (m: string) => console.log(`[faults] ${m}`);
 /** the machine's load average (1, 5, 15 min): figures from a busy machine are read with it */
-const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(' ');
+const loadAverage = () =>
+  os
+    .loadavg()
+    .map((x) => x.toFixed(2))
+    .join(' ');
 const loadAtStart = loadAverage();
 
 async function timed(fn: () => Promise<Response>): Promise<{ status: number; ms: number; text: string }> {
@@ -66,13 +70,24 @@ async function databaseOutage() {
       acked.set(u.revisionId, new Map());
       attempted.set(u.revisionId, new Set());
       let n = 0;
-      const headers = { cookie: [...u.client.cookies].map(([k, v]) => `${k}=${v}`).join('; '), 'x-csrf-token': u.client.token, 'content-type': 'application/json' };
+      const headers = {
+        cookie: [...u.client.cookies].map(([k, v]) => `${k}=${v}`).join('; '),
+        'x-csrf-token': u.client.token,
+        'content-type': 'application/json',
+      };
       while (running) {
         const doc = structuredClone(u.document) as { notes?: string };
         doc.notes = `writer ${i} save ${++n}`;
         const text = canonicalJson(doc);
         attempted.get(u.revisionId)!.add(text);
-        const r = await timed(() => fetch(server.url + u.paths.document, { method: 'PUT', headers, body: JSON.stringify({ document: doc, version: u.version }), signal: AbortSignal.timeout(10_000) }));
+        const r = await timed(() =>
+          fetch(server.url + u.paths.document, {
+            method: 'PUT',
+            headers,
+            body: JSON.stringify({ document: doc, version: u.version }),
+            signal: AbortSignal.timeout(10_000),
+          }),
+        );
         // during the outage the answer (503) must come within a second; otherwise a save is only hung past 5 s
         // (a full analysis on a busy 2-core machine can take a second by itself)
         if (r.ms > (phase === 'down' ? 1000 : 5000)) slow.push(`${phase} save ${r.status} in ${r.ms.toFixed(0)} ms`);
@@ -98,11 +113,22 @@ async function databaseOutage() {
     const downProbes = [];
     for (let k = 0; k < 10; k++) {
       downProbes.push(await timed(() => fetch(`${server.url}/api/health`, { signal: AbortSignal.timeout(5000) })));
-      downProbes.push(await timed(() => fetch(server.url + users[k % users.length].paths.project, { headers: { cookie: [...users[0].client.cookies].map(([a, b]) => `${a}=${b}`).join('; ') }, signal: AbortSignal.timeout(5000) })));
+      downProbes.push(
+        await timed(() =>
+          fetch(server.url + users[k % users.length].paths.project, {
+            headers: { cookie: [...users[0].client.cookies].map(([a, b]) => `${a}=${b}`).join('; ') },
+            signal: AbortSignal.timeout(5000),
+          }),
+        ),
+      );
       await sleep(200);
     }
     const worst = Math.max(...downProbes.map((p) => p.ms));
-    check('(a) while PostgreSQL is down, every probe answers 503 within a second', downProbes.every((p) => p.status === 503 && p.ms < 1000), `statuses ${[...new Set(downProbes.map((p) => p.status))].join(',')}, slowest ${worst.toFixed(0)} ms`);
+    check(
+      '(a) while PostgreSQL is down, every probe answers 503 within a second',
+      downProbes.every((p) => p.status === 503 && p.ms < 1000),
+      `statuses ${[...new Set(downProbes.map((p) => p.status))].join(',')}, slowest ${worst.toFixed(0)} ms`,
+    );
 
     log('starting PostgreSQL again …');
     cluster.start();
@@ -111,21 +137,42 @@ async function databaseOutage() {
     let recoveredMs = Infinity;
     while (Date.now() - back < 15_000) {
       const h = await timed(() => fetch(`${server.url}/api/health`, { signal: AbortSignal.timeout(2000) }));
-      const p = await timed(() => fetch(server.url + users[0].paths.project, { headers: { cookie: [...users[0].client.cookies].map(([a, b]) => `${a}=${b}`).join('; ') }, signal: AbortSignal.timeout(2000) }));
+      const p = await timed(() =>
+        fetch(server.url + users[0].paths.project, {
+          headers: { cookie: [...users[0].client.cookies].map(([a, b]) => `${a}=${b}`).join('; ') },
+          signal: AbortSignal.timeout(2000),
+        }),
+      );
       if (h.status === 200 && p.status === 200) {
         recoveredMs = Date.now() - back;
         break;
       }
       await sleep(100);
     }
-    check('(a) the API recovers by itself within 5 s of PostgreSQL’s return', recoveredMs <= 5000, `${recoveredMs === Infinity ? 'not within 15 s' : `${recoveredMs} ms`}`);
+    check(
+      '(a) the API recovers by itself within 5 s of PostgreSQL’s return',
+      recoveredMs <= 5000,
+      `${recoveredMs === Infinity ? 'not within 15 s' : `${recoveredMs} ms`}`,
+    );
     await sleep(2000);
     running = false;
     await Promise.all(writers);
     const wrong = [...statusesDown.keys()].filter((s) => s !== 200 && s !== 503);
-    const failures = server.log.join('').split('\n').filter((l) => /failed:/.test(l)).slice(0, 3);
-    check('(a) during the outage a save is answered 503 DATABASE_UNAVAILABLE (or 200 if it got in first), never another error', wrong.length === 0, wrong.length ? `statuses ${JSON.stringify(Object.fromEntries(statusesDown))}; server log: ${failures.join(' | ').slice(0, 600)}` : '');
-    check('(a) no save hung: during the outage every save answered within a second (before and after: within 5 s)', slow.length === 0, slow.slice(0, 5).join('; ') || `saves during the outage: ${JSON.stringify(Object.fromEntries(statusesDown))}`);
+    const failures = server.log
+      .join('')
+      .split('\n')
+      .filter((l) => /failed:/.test(l))
+      .slice(0, 3);
+    check(
+      '(a) during the outage a save is answered 503 DATABASE_UNAVAILABLE (or 200 if it got in first), never another error',
+      wrong.length === 0,
+      wrong.length ? `statuses ${JSON.stringify(Object.fromEntries(statusesDown))}; server log: ${failures.join(' | ').slice(0, 600)}` : '',
+    );
+    check(
+      '(a) no save hung: during the outage every save answered within a second (before and after: within 5 s)',
+      slow.length === 0,
+      slow.slice(0, 5).join('; ') || `saves during the outage: ${JSON.stringify(Object.fromEntries(statusesDown))}`,
+    );
 
     // compare what was acknowledged with what is stored
     const db2 = createDb(cluster.url);
@@ -138,16 +185,23 @@ async function databaseOutage() {
       const last = Math.max(0, ...mine.keys());
       const stored = canonicalJson(row.document);
       if (row.version < last) problems.push(`${u.revisionId}: stored version ${row.version} < acknowledged ${last}`);
-      else if (row.version === last && stored !== mine.get(last)) problems.push(`${u.revisionId}: version ${last} holds another document than the acknowledged one`);
-      else if (row.version > last && !attempted.get(u.revisionId)!.has(stored)) problems.push(`${u.revisionId}: version ${row.version} holds a document nobody sent`);
+      else if (row.version === last && stored !== mine.get(last))
+        problems.push(`${u.revisionId}: version ${last} holds another document than the acknowledged one`);
+      else if (row.version > last && !attempted.get(u.revisionId)!.has(stored))
+        problems.push(`${u.revisionId}: version ${row.version} holds a document nobody sent`);
       // whole, not half: the stored analysis is the analysis of the stored document
-      if (canonicalJson(readStoredAnalysis(row.analysis, row.engine_version).outcome) !== canonicalJson(JSON.parse(JSON.stringify(analyse(row.document))))) problems.push(`${u.revisionId}: the stored analysis does not belong to the stored document`);
+      if (canonicalJson(readStoredAnalysis(row.analysis, row.engine_version).outcome) !== canonicalJson(JSON.parse(JSON.stringify(analyse(row.document)))))
+        problems.push(`${u.revisionId}: the stored analysis does not belong to the stored document`);
       const audits = await db2('audit_log').where({ action: 'revision.saved', subject_id: u.revisionId }).select('details');
       const auditedVersions = new Set(audits.map((a: { details: { version: number } }) => a.details.version));
       for (const v of mine.keys()) if (!auditedVersions.has(v)) problems.push(`${u.revisionId}: acknowledged version ${v} has no audit entry`);
     }
     await db2.destroy();
-    check('(a) every acknowledged save is stored whole (document, its analysis, its audit entry)', problems.length === 0 && ackCount > 0, problems.slice(0, 5).join('; ') || `${ackCount} acknowledged saves checked`);
+    check(
+      '(a) every acknowledged save is stored whole (document, its analysis, its audit entry)',
+      problems.length === 0 && ackCount > 0,
+      problems.slice(0, 5).join('; ') || `${ackCount} acknowledged saves checked`,
+    );
   } finally {
     await server.stop().catch(() => {});
     cluster.destroy();
@@ -187,12 +241,26 @@ async function killedWithMailQueued() {
   });
   await new Promise<void>((r) => sink.listen(0, '127.0.0.1', () => r()));
   const smtpPort = (sink.server.address() as { port: number }).port;
-  const env = { DATABASE_URL: cluster.url, SMTP_HOST: '127.0.0.1', SMTP_PORT: String(smtpPort), OUTBOX_POLL_MS: '100', OUTBOX_RETRY_BASE_MS: '200', OUTBOX_RETRY_MAX_MS: '1000', OUTBOX_LEASE_SECONDS: '2' };
+  const env = {
+    DATABASE_URL: cluster.url,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(smtpPort),
+    OUTBOX_POLL_MS: '100',
+    OUTBOX_RETRY_BASE_MS: '200',
+    OUTBOX_RETRY_MAX_MS: '1000',
+    OUTBOX_LEASE_SECONDS: '2',
+  };
   let server = await startServer(env);
   try {
     const db = createDb(cluster.url);
     const [u] = await makeUsers(db, server.url, 1, demoDocument);
-    await want(u.client.send('POST', `${u.paths.revision}/issue`, { version: u.version, attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true } }), 200);
+    await want(
+      u.client.send('POST', `${u.paths.revision}/issue`, {
+        version: u.version,
+        attestation: { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared', confirmed: true },
+      }),
+      200,
+    );
     for (let i = 0; i < 100; i++) {
       const s = await u.client.get(`${u.paths.revision}/summary`);
       if (s.body?.summary?.status === 'ready') break;
@@ -224,10 +292,22 @@ async function killedWithMailQueued() {
     }
     await sleep(1500); // a late duplicate would arrive within the lease (2 s)
     await db.destroy();
-    check('(b) the server was killed while messages were still queued', Number((queuedAtKill as { n: string }).n) > 0, `${(queuedAtKill as { n: string }).n} queued`);
-    check('(b) after the restart every message is sent', rows.length === ids.length && rows.every((r) => r.status === 'sent'), rows.map((r) => r.status).join(','));
+    check(
+      '(b) the server was killed while messages were still queued',
+      Number((queuedAtKill as { n: string }).n) > 0,
+      `${(queuedAtKill as { n: string }).n} queued`,
+    );
+    check(
+      '(b) after the restart every message is sent',
+      rows.length === ids.length && rows.every((r) => r.status === 'sent'),
+      rows.map((r) => r.status).join(','),
+    );
     const counts = ids.map((id) => delivered.get(id) ?? 0);
-    check('(b) each message reached the relay exactly once', counts.every((c) => c === 1), `deliveries per message: ${counts.join(',')}`);
+    check(
+      '(b) each message reached the relay exactly once',
+      counts.every((c) => c === 1),
+      `deliveries per message: ${counts.join(',')}`,
+    );
   } finally {
     await server.stop().catch(() => {});
     await new Promise<void>((r) => sink.close(() => r()));
@@ -293,11 +373,27 @@ async function anonymousHashingAttack(linkLimit: string, checked: boolean) {
     await Promise.all(attackers);
     pageMs.sort((a, b) => a - b);
     const med = pageMs[Math.floor(pageMs.length / 2)] ?? Infinity;
-    log(`LINK_LIMIT=${linkLimit}: ${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`);
-    if (checked) check(`(c) under 48 anonymous link attackers (LINK_LIMIT=${linkLimit}, as shipped) the start page answers with a median under 100 ms`, med < 100, `${med.toFixed(1)} ms`);
+    log(
+      `LINK_LIMIT=${linkLimit}: ${attacks} made-up link confirmations (${[...statuses].map(([s, n]) => `${n}× ${s}`).join(', ')}); start page ${startPage}: median ${med.toFixed(1)} ms, p99 ${(pageMs[Math.floor(pageMs.length * 0.99)] ?? Infinity).toFixed(1)} ms over ${pageMs.length} loads`,
+    );
+    if (checked)
+      check(
+        `(c) under 48 anonymous link attackers (LINK_LIMIT=${linkLimit}, as shipped) the start page answers with a median under 100 ms`,
+        med < 100,
+        `${med.toFixed(1)} ms`,
+      );
     else log(`(c) for information, the link limit lifted: start page median ${med.toFixed(1)} ms (not checked; see anonymousHashingAttack)`);
-    for (const line of server.log.join('').split('\n').filter((l) => /failed:|Error/.test(l)).slice(0, 5)) log(`server: ${line.slice(0, 300)}`);
-    check('(c) every made-up link was refused (400/404/429), none failed', [...statuses.keys()].every((s) => s === 400 || s === 404 || s === 429), [...statuses.keys()].join(','));
+    for (const line of server.log
+      .join('')
+      .split('\n')
+      .filter((l) => /failed:|Error/.test(l))
+      .slice(0, 5))
+      log(`server: ${line.slice(0, 300)}`);
+    check(
+      '(c) every made-up link was refused (400/404/429), none failed',
+      [...statuses.keys()].every((s) => s === 400 || s === 404 || s === 429),
+      [...statuses.keys()].join(','),
+    );
   } finally {
     await server.stop().catch(() => {});
     cluster.destroy();
@@ -306,22 +402,25 @@ async function anonymousHashingAttack(linkLimit: string, checked: boolean) {
 
 // FAULTS_ONLY=a|b|c runs one part (all by default)
 const only = process.env.FAULTS_ONLY;
-if (!only || only === 'a') try {
-  await databaseOutage();
-} catch (e) {
-  check('(a) the database-outage run completed', false, e instanceof Error ? e.message : String(e));
-}
-if (!only || only === 'b') try {
-  await killedWithMailQueued();
-} catch (e) {
-  check('(b) the killed-server run completed', false, e instanceof Error ? e.message : String(e));
-}
-if (!only || only === 'c') try {
-  await anonymousHashingAttack(SHIPPED_LINK_LIMIT, true);
-  await anonymousHashingAttack('100000', false);
-} catch (e) {
-  check('(c) the anonymous-hashing run completed', false, e instanceof Error ? e.message : String(e));
-}
+if (!only || only === 'a')
+  try {
+    await databaseOutage();
+  } catch (e) {
+    check('(a) the database-outage run completed', false, e instanceof Error ? e.message : String(e));
+  }
+if (!only || only === 'b')
+  try {
+    await killedWithMailQueued();
+  } catch (e) {
+    check('(b) the killed-server run completed', false, e instanceof Error ? e.message : String(e));
+  }
+if (!only || only === 'c')
+  try {
+    await anonymousHashingAttack(SHIPPED_LINK_LIMIT, true);
+    await anonymousHashingAttack('100000', false);
+  } catch (e) {
+    check('(c) the anonymous-hashing run completed', false, e instanceof Error ? e.message : String(e));
+  }
 const failed = results.filter((r) => !r.ok).length;
 console.log(`load average ${loadAtStart} at start, ${loadAverage()} at end (${os.availableParallelism()} cores)`);
 console.log(`\nFAULTS: ${failed ? 'FAIL' : 'PASS'} (${results.length - failed} passed, ${failed} failed)`);

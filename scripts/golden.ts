@@ -13,7 +13,9 @@ import { goldenOf } from '../tests/engine/golden/goldenOf';
 
 const examples = fileURLToPath(new URL('../src/engine/examples/', import.meta.url));
 const target = fileURLToPath(new URL('../tests/engine/golden/', import.meta.url));
-for (const file of readdirSync(examples).filter((f) => f.endsWith('.json')).sort()) {
+for (const file of readdirSync(examples)
+  .filter((f) => f.endsWith('.json'))
+  .sort()) {
   const golden = goldenOf(JSON.parse(readFileSync(examples + file, 'utf8')));
   writeFileSync(target + file, JSON.stringify(golden, null, 1) + '\n');
   process.stdout.write(`wrote tests/engine/golden/${file}: ${golden.verdict}, critical ${golden.criticalFixtureId}\n`);

@@ -35,7 +35,11 @@ type Kind = (typeof KINDS)[number];
 
 const log = (m: string) => console.log(`[load] ${m}`);
 /** the machine's load average (1, 5, 15 min): figures from a busy machine are read with it */
-const loadAverage = () => os.loadavg().map((x) => x.toFixed(2)).join(' ');
+const loadAverage = () =>
+  os
+    .loadavg()
+    .map((x) => x.toFixed(2))
+    .join(' ');
 const loadAtStart = loadAverage();
 const cluster = await startCluster('load');
 let server: Awaited<ReturnType<typeof startServer>> | null = null;
@@ -119,7 +123,11 @@ try {
   };
   const attackLoop = async (u: LoadUser) => {
     const body = attackBody(u);
-    const headers = { cookie: [...u.client.cookies].map(([k, v]) => `${k}=${v}`).join('; '), 'x-csrf-token': u.client.token, 'content-type': 'application/json' };
+    const headers = {
+      cookie: [...u.client.cookies].map(([k, v]) => `${k}=${v}`).join('; '),
+      'x-csrf-token': u.client.token,
+      'content-type': 'application/json',
+    };
     while (attacking) {
       const t = performance.now();
       const res = await fetch(server!.url + u.paths.document, { method: 'PUT', headers, body }).catch((e) => ({ status: 0, text: async () => String(e) }));
@@ -148,10 +156,19 @@ try {
   const pace = THINK_MS > 0 ? `each waiting ${THINK_MS / 2}–${(THINK_MS * 3) / 2} ms between requests` : 'closed loop (no wait): a capacity run';
   console.log(`\nHeadroom load: ${USERS} users, ${pace}; ${elapsed.toFixed(0)} s, ${total} requests (${(total / elapsed).toFixed(0)}/s)`);
   const phases: Phase[] = attackers.length ? ['alone', 'attack'] : ['alone'];
-  const cell = (xs: number[], q: number) => (xs.length ? percentile(xs.slice().sort((a, b) => a - b), q).toFixed(1) : '—').padStart(9);
+  const cell = (xs: number[], q: number) =>
+    (xs.length
+      ? percentile(
+          xs.slice().sort((a, b) => a - b),
+          q,
+        ).toFixed(1)
+      : '—'
+    ).padStart(9);
   console.log(`kind      ${phases.map((p) => `${p === 'alone' ? 'users alone' : 'under attack'}: requests   p50 ms    p99 ms`).join('   |   ')}`);
   for (const k of KINDS) {
-    console.log(`${k.padEnd(10)}${phases.map((p) => `${String(latencies[p][k].length).padStart(22)} ${cell(latencies[p][k], 50)} ${cell(latencies[p][k], 99)}`).join('   |   ')}`);
+    console.log(
+      `${k.padEnd(10)}${phases.map((p) => `${String(latencies[p][k].length).padStart(22)} ${cell(latencies[p][k], 50)} ${cell(latencies[p][k], 99)}`).join('   |   ')}`,
+    );
   }
   console.log(`server RSS: ${rssStart.toFixed(0)} MB at start, ${rssEnd.toFixed(0)} MB at end`);
   console.log(`errors: ${unexpected.length} non-2xx, ${networkErrors} network errors, ${timeouts} time-outs (${TIMEOUT_MS / 1000} s)`);
@@ -159,10 +176,15 @@ try {
   failed = unexpected.length + networkErrors + timeouts > 0 || total === 0;
   if (ATTACK) {
     const sortedAttack = attack.ms.slice().sort((a, b) => a - b);
-    console.log(`oversized-document attack: ${ATTACKERS} attackers, ${attack.sent} bodies of ~1.3 MB, ${attack.refused} refused with 400 (median ${percentile(sortedAttack, 50).toFixed(0)} ms)`);
+    console.log(
+      `oversized-document attack: ${ATTACKERS} attackers, ${attack.sent} bodies of ~1.3 MB, ${attack.refused} refused with 400 (median ${percentile(sortedAttack, 50).toFixed(0)} ms)`,
+    );
     for (const e of attack.other.slice(0, 5)) console.log(`  ${e}`);
     for (const k of ['project', 'system', 'revision'] as const) {
-      const p99 = percentile(latencies.attack[k].slice().sort((a, b) => a - b), 99);
+      const p99 = percentile(
+        latencies.attack[k].slice().sort((a, b) => a - b),
+        99,
+      );
       if (THINK_MS > 0 && p99 >= 1000) {
         console.log(`  other users' ${k} reads: p99 ${p99.toFixed(0)} ms, over 1 s during the attack`);
         failed = true;

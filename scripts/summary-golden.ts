@@ -14,7 +14,9 @@ import { goldenSummaryText } from '../tests/engine/summary-golden/input';
 const examples = fileURLToPath(new URL('../src/engine/examples/', import.meta.url));
 const target = fileURLToPath(new URL('../tests/engine/summary-golden/', import.meta.url));
 mkdirSync(target, { recursive: true });
-for (const file of readdirSync(examples).filter((f) => f.endsWith('.json')).sort()) {
+for (const file of readdirSync(examples)
+  .filter((f) => f.endsWith('.json'))
+  .sort()) {
   const name = file.replace(/\.json$/, '');
   const text = goldenSummaryText(examples + file);
   writeFileSync(`${target}${name}.txt`, text);

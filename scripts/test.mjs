@@ -80,7 +80,8 @@ try {
     env.E2E_DATABASE_URL = pg.databaseUrl(port, 'headroom_e2e');
     env.TEST_PG_BIN = pgBin;
     env.TEST_PG_DATA = pgData;
-    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'catalogs'], { DATABASE_URL: env.TEST_DATABASE_URL }) !== 0) throw new Error('migrations failed');
+    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'catalogs'], { DATABASE_URL: env.TEST_DATABASE_URL }) !== 0)
+      throw new Error('migrations failed');
     pg.log(`throw-away PostgreSQL on 127.0.0.1:${port}`);
   }
 
@@ -89,7 +90,14 @@ try {
   if (projects.length) {
     const reportFile = path.join(reports, 'vitest-report.json');
     fs.rmSync(reportFile, { force: true });
-    const args = ['node_modules/vitest/vitest.mjs', 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${reportFile}`];
+    const args = [
+      'node_modules/vitest/vitest.mjs',
+      'run',
+      ...projects.flatMap((p) => ['--project', p]),
+      '--reporter=default',
+      '--reporter=json',
+      `--outputFile.json=${reportFile}`,
+    ];
     runSync(process.execPath, args, env);
     if (fs.existsSync(reportFile)) {
       const r = JSON.parse(fs.readFileSync(reportFile, 'utf8'));
@@ -103,7 +111,8 @@ try {
 
   // 2. Playwright
   if (want('e2e')) {
-    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'setup'], { DATABASE_URL: env.E2E_DATABASE_URL }) !== 0) throw new Error('e2e seed failed');
+    if (runSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'setup'], { DATABASE_URL: env.E2E_DATABASE_URL }) !== 0)
+      throw new Error('e2e seed failed');
     if (runSync(process.execPath, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']) !== 0) throw new Error('client build failed');
     const appPort = await pg.freePort();
     server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {

@@ -28,8 +28,15 @@ export async function seed(knex: Knex): Promise<void> {
       code_basis: 'Model plumbing code as adopted by the (invented) Town of Wrenmoor, with its local amendments; state the edition here.',
       unit_system: 'US',
       // an invented plan-check number and licence, in the invented town
-      permit: JSON.stringify({ permitNumber: 'WRN-PC-2026-0418', adoptedCode: 'ipc-2018', localAmendments: 'Town of Wrenmoor plumbing amendments (invented)', preparerLicence: 'PE 40417', licenceJurisdiction: 'Wrenmoor (invented)' }),
-      notes: 'Seven storeys: retail at grade, six floors of apartments, roof mechanical room. 2-inch meter, reduced-pressure backflow assembly, copper risers, PEX fixture branches.',
+      permit: JSON.stringify({
+        permitNumber: 'WRN-PC-2026-0418',
+        adoptedCode: 'ipc-2018',
+        localAmendments: 'Town of Wrenmoor plumbing amendments (invented)',
+        preparerLicence: 'PE 40417',
+        licenceJurisdiction: 'Wrenmoor (invented)',
+      }),
+      notes:
+        'Seven storeys: retail at grade, six floors of apartments, roof mechanical room. 2-inch meter, reduced-pressure backflow assembly, copper risers, PEX fixture branches.',
       created_by: idOf('designer@alder-finch.example'),
     })
     .returning('id');

@@ -30,7 +30,11 @@ export async function seed(knex: Knex): Promise<void> {
   const attestation = { name: 'Dana Whitlow', licenceNumber: 'PE 40417', basis: 'prepared' as const, confirmed: true as const };
 
   // Cold water: revision 1 issued, revision 2 a draft started from it.
-  const cold = await systemsService.create(ctx, actor, project.id, { name: 'Domestic cold water', service: 'cold', document: example('alder-finch-cold.json') });
+  const cold = await systemsService.create(ctx, actor, project.id, {
+    name: 'Domestic cold water',
+    service: 'cold',
+    document: example('alder-finch-cold.json'),
+  });
   const issued = await systemsService.issue(ctx, actor, project.id, cold.system.id, cold.revision.id, cold.revision.version, 'Permit set', null, attestation);
   await systemsService.newDraft(ctx, actor, project.id, cold.system.id, issued.id);
 
@@ -40,10 +44,24 @@ export async function seed(knex: Knex): Promise<void> {
 
   // The cold system as Headroom's sizing leaves it (basis recorded), issued so its summary states the basis.
   const sized = await systemsService.create(ctx, actor, project.id, { name: DEMO_VARIANTS.sizedCold, service: 'cold', document: sizedColdDocument() });
-  await systemsService.issue(ctx, actor, project.id, sized.system.id, sized.revision.id, sized.revision.version, 'Sized variant for comparison', null, attestation);
+  await systemsService.issue(
+    ctx,
+    actor,
+    project.id,
+    sized.system.id,
+    sized.revision.id,
+    sized.revision.version,
+    'Sized variant for comparison',
+    null,
+    attestation,
+  );
 
   // The hot system fed from the cold one: its supply is read from the cold system's draft at the heater feed.
-  const fed = await systemsService.create(ctx, actor, project.id, { name: DEMO_VARIANTS.hotFedFromCold, service: 'hot', document: hotFedFromColdDocument(cold.system.id) });
+  const fed = await systemsService.create(ctx, actor, project.id, {
+    name: DEMO_VARIANTS.hotFedFromCold,
+    service: 'hot',
+    document: hotFedFromColdDocument(cold.system.id),
+  });
   await systemsService.issue(ctx, actor, project.id, fed.system.id, fed.revision.id, fed.revision.version, 'Fed from the cold system', null, attestation);
 
   // The zoned tall building, in its own project.

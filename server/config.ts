@@ -62,7 +62,11 @@ const ConfigSchema = z.object({
    */
   RESET_TOKEN_MINUTES: z.coerce.number().int().min(1).default(60),
   /** largest field-change attachment, bytes (10 MiB: a scanned data sheet or a phone photo fits; a choice) */
-  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).default(10 * 1024 * 1024),
+  UPLOAD_MAX_BYTES: z.coerce
+    .number()
+    .int()
+    .min(1024)
+    .default(10 * 1024 * 1024),
 
   // ---- e-mail (server/mail): SMTP relay, sender, the outbox worker's pace
   SMTP_HOST: z.string().default('127.0.0.1'),
@@ -100,7 +104,11 @@ const ConfigSchema = z.object({
 
 const CheckedConfigSchema = ConfigSchema.superRefine((c, ctx) => {
   if (c.NODE_ENV === 'production' && c.HEADROOM_DEV_MAIL === '1') {
-    ctx.addIssue({ code: 'custom', path: ['HEADROOM_DEV_MAIL'], message: 'the development mail sink never runs with NODE_ENV=production; set SMTP_HOST (and SMTP_USER/SMTP_PASS) to a real relay' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['HEADROOM_DEV_MAIL'],
+      message: 'the development mail sink never runs with NODE_ENV=production; set SMTP_HOST (and SMTP_USER/SMTP_PASS) to a real relay',
+    });
   }
 });
 

@@ -20,7 +20,10 @@ else serve();
 function serve() {
   const db = createDb(config.DATABASE_URL);
   const { app, close, devMail } = createApp({ config, db, startOutbox: true, oneOfSeveralProcesses: cluster.isWorker });
-  void devMail?.ready.then(({ port }) => log.info(`development mail sink on 127.0.0.1:${port} (messages at /api/dev/mail)`), (err) => log.error({ err }, 'the development mail sink did not start'));
+  void devMail?.ready.then(
+    ({ port }) => log.info(`development mail sink on 127.0.0.1:${port} (messages at /api/dev/mail)`),
+    (err) => log.error({ err }, 'the development mail sink did not start'),
+  );
 
   const server = app.listen(config.PORT, config.HOST, () => {
     const address = server.address();

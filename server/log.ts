@@ -6,12 +6,15 @@
  */
 import { pino } from 'pino';
 
-export const log = pino({
-  level: process.env.LOG_LEVEL ?? 'info',
-  base: { pid: process.pid, app: 'headroom' },
-  // errors passed as { err } keep their message and stack as fields
-  serializers: { err: pino.stdSerializers.err },
-}, pino.destination({ dest: 1, sync: true }));
+export const log = pino(
+  {
+    level: process.env.LOG_LEVEL ?? 'info',
+    base: { pid: process.pid, app: 'headroom' },
+    // errors passed as { err } keep their message and stack as fields
+    serializers: { err: pino.stdSerializers.err },
+  },
+  pino.destination({ dest: 1, sync: true }),
+);
 
 /**
  * Last-resort handlers: a promise rejected with nobody to catch it, or an exception thrown outside

@@ -66,7 +66,9 @@ async function timeEdits(page: Page, inputLabel: string, values: number[], uncha
 async function importSystem(page: Page, projectUrl: string, name: string, document: unknown) {
   await page.goto(projectUrl);
   await page.getByRole('button', { name: 'Import a system (JSON)' }).click();
-  await page.getByLabel('System document (JSON)').setInputFiles({ name: `${name}.json`, mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(document)) });
+  await page
+    .getByLabel('System document (JSON)')
+    .setInputFiles({ name: `${name}.json`, mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(document)) });
   await page.getByLabel('Name of the imported system').fill(name);
   await page.getByRole('button', { name: 'Import system' }).click();
   await expect(page).toHaveURL(/\/result$/);
@@ -129,7 +131,14 @@ test('bench: edit-to-ledger time in the browser, the demo building and a generat
   // the riser builder: the 40-storey, 320-apartment building of issue #14 entered through the
   // screens, then "Generate into draft" timed in the page until its verdict is drawn
   await page.goto('/');
-  await enterBuilding(page, new EntryCounter(), `Generate ${run}`, { storeys: 40, staticLow: '60', staticHigh: '72', connectionElevation: '-5', meterPoints: INVENTED_METER_POINTS, backflowPoints: INVENTED_BACKFLOW_POINTS });
+  await enterBuilding(page, new EntryCounter(), `Generate ${run}`, {
+    storeys: 40,
+    staticLow: '60',
+    staticHigh: '72',
+    connectionElevation: '-5',
+    meterPoints: INVENTED_METER_POINTS,
+    backflowPoints: INVENTED_BACKFLOW_POINTS,
+  });
   const generate = await verdictAfterGenerate(page);
   expect(problems).toEqual([]);
   fs.mkdirSync(OUT.replace(/\/[^/]*$/, '') || '.', { recursive: true });

@@ -53,7 +53,9 @@ export async function verdictAfterGenerate(page: Page): Promise<{ ms: number; st
     const shown = () => {
       const done = document.querySelector('[data-testid="generated"]')?.textContent ?? '';
       const status = document.querySelector('[data-testid="verdict-bar"]')?.getAttribute('data-status') ?? '';
-      return /^Generated \d+ segments/.test(done) && (status === 'pass' || status === 'fail') ? { status, segments: Number(done.match(/^Generated (\d+)/)![1]) } : null;
+      return /^Generated \d+ segments/.test(done) && (status === 'pass' || status === 'fail')
+        ? { status, segments: Number(done.match(/^Generated (\d+)/)![1]) }
+        : null;
     };
     const t0 = performance.now();
     const seen = new Promise<{ status: string; segments: number }>((resolve) => {

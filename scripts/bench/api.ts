@@ -229,7 +229,8 @@ export async function apiRows(o: ApiOptions): Promise<BenchRow[]> {
   const sample = await u0.client.request('PUT', u0.paths.document, { raw: saveBody(u0, 0) });
   if (sample.status !== 200) throw new Error(`the sample save failed: ${sample.status} ${sample.text.slice(0, 300)}`);
   u0.version = (sample.body as { revision: { version: number } }).revision.version;
-  if (answerVersion(sample.text) !== u0.version) throw new Error(`the answer's first "version" is not the revision's (${answerVersion(sample.text)} ≠ ${u0.version})`);
+  if (answerVersion(sample.text) !== u0.version)
+    throw new Error(`the answer's first "version" is not the revision's (${answerVersion(sample.text)} ≠ ${u0.version})`);
   const requestBytes = Buffer.byteLength(saveBody(u0, 0));
   const answerBytes = Buffer.byteLength(sample.text);
   const bodyFile = path.join(o.tmpDir, 'peer-answer.json');
@@ -242,9 +243,12 @@ export async function apiRows(o: ApiOptions): Promise<BenchRow[]> {
     u0.version = (check.body as { revision: { version: number } }).revision.version;
     const peerCheck = await fetch(peer.url + u0.paths.document, { method: 'PUT', headers: { 'content-type': 'application/json' }, body: saveBody(u0, 0) });
     const peerText = await peerCheck.text();
-    if (peerCheck.status !== 200 || Buffer.byteLength(peerText) !== answerBytes) throw new Error(`the peer's answer differs: ${peerCheck.status}, ${Buffer.byteLength(peerText)} bytes, expected ${answerBytes}`);
+    if (peerCheck.status !== 200 || Buffer.byteLength(peerText) !== answerBytes)
+      throw new Error(`the peer's answer differs: ${peerCheck.status}, ${Buffer.byteLength(peerText)} bytes, expected ${answerBytes}`);
 
-    o.log(`API: request ${(requestBytes / 1000).toFixed(1)} kB, answer ${(answerBytes / 1000).toFixed(1)} kB; warm-up ${o.warmupSeconds} s each, then ${o.rounds} rounds of ${o.seconds} s each, alternating …`);
+    o.log(
+      `API: request ${(requestBytes / 1000).toFixed(1)} kB, answer ${(answerBytes / 1000).toFixed(1)} kB; warm-up ${o.warmupSeconds} s each, then ${o.rounds} rounds of ${o.seconds} s each, alternating …`,
+    );
     await round(o.app.url, users, o.warmupSeconds, true);
     await round(peer.url, users, o.warmupSeconds, false);
     const ours: number[] = [];

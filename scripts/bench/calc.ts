@@ -39,10 +39,18 @@ export function calcRows(runs: number, log: (m: string) => void = () => {}): Ben
   log(`calc: ${median(direct).toFixed(0)} ms (node scripts/calc.mjs), ${median(viaNpm).toFixed(0)} ms (npm run calc), bare node ${peer.median.toFixed(0)} ms`);
   return [
     { figure: 'command line: `node scripts/calc.mjs` on the demo, whole process', unit: 'ms', median: median(direct), runs, peer, aim: '≤ 300 ms' },
-    { figure: 'command line: `npm run --silent calc` on the demo, whole process (npm start-up included)', unit: 'ms', median: median(viaNpm), runs, peer, aim: '≤ 300 ms' },
+    {
+      figure: 'command line: `npm run --silent calc` on the demo, whole process (npm start-up included)',
+      unit: 'ms',
+      median: median(viaNpm),
+      runs,
+      peer,
+      aim: '≤ 300 ms',
+    },
   ];
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  for (const r of calcRows(Number(process.argv[2] ?? 7), (m) => console.log(m))) console.log(`${r.figure}: ${r.median.toFixed(0)} ms, ratio ${(r.median / r.peer!.median).toFixed(2)}`);
+  for (const r of calcRows(Number(process.argv[2] ?? 7), (m) => console.log(m)))
+    console.log(`${r.figure}: ${r.median.toFixed(0)} ms, ratio ${(r.median / r.peer!.median).toFixed(2)}`);
 }

@@ -134,12 +134,41 @@ function engineCases(): EngineCase[] {
   const aim = 'ratio ≤ 1.0';
   const computeAim = 'ratio ≤ 0.20';
   return [
-    { figure: `engine: 40-storey building, ${n} segments, analyzeSystem (with schema)`, run: () => analyzeSystem(building), peer: epanetPeer(() => building, building.segments.length), aim },
-    { figure: `engine: 40-storey building, ${n} segments, analyzeSystem and every result object read`, run: () => analyzeAndReadAll(building), peer: epanetPeer(() => building, building.segments.length) },
-    { figure: `engine: 40-storey building, ${n} segments, analyzeValidated`, run: () => analyzeValidated(buildingParsed), peer: epanetPeer(() => building, building.segments.length), aim },
-    { figure: `engine: 40-storey building, ${n} segments, computation only (no result objects)`, run: () => computeOnly(buildingParsed), peer: epanetPeer(() => building, building.segments.length), aim: computeAim },
-    { figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeSystem (with schema)', run: () => analyzeSystem(randomTree), peer: epanetPeer(() => randomTree, randomTree.segments.length), aim },
-    { figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeValidated', run: () => analyzeValidated(randomParsed), peer: epanetPeer(() => randomTree, randomTree.segments.length), aim },
+    {
+      figure: `engine: 40-storey building, ${n} segments, analyzeSystem (with schema)`,
+      run: () => analyzeSystem(building),
+      peer: epanetPeer(() => building, building.segments.length),
+      aim,
+    },
+    {
+      figure: `engine: 40-storey building, ${n} segments, analyzeSystem and every result object read`,
+      run: () => analyzeAndReadAll(building),
+      peer: epanetPeer(() => building, building.segments.length),
+    },
+    {
+      figure: `engine: 40-storey building, ${n} segments, analyzeValidated`,
+      run: () => analyzeValidated(buildingParsed),
+      peer: epanetPeer(() => building, building.segments.length),
+      aim,
+    },
+    {
+      figure: `engine: 40-storey building, ${n} segments, computation only (no result objects)`,
+      run: () => computeOnly(buildingParsed),
+      peer: epanetPeer(() => building, building.segments.length),
+      aim: computeAim,
+    },
+    {
+      figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeSystem (with schema)',
+      run: () => analyzeSystem(randomTree),
+      peer: epanetPeer(() => randomTree, randomTree.segments.length),
+      aim,
+    },
+    {
+      figure: 'engine: random tree, 5,000 segments (EPANET-checked), analyzeValidated',
+      run: () => analyzeValidated(randomParsed),
+      peer: epanetPeer(() => randomTree, randomTree.segments.length),
+      aim,
+    },
     { figure: `engine: demo building (${demo.segments.length} segments), analyzeSystem`, run: () => analyzeSystem(demo), repeatsFactor: 5 },
   ];
 }
@@ -170,7 +199,14 @@ async function timeCases(repeats: number): Promise<BenchRow[]> {
     await c.peer?.setup();
     try {
       const t = timePair(c.run, c.peer?.run ?? null, n);
-      rows.push({ figure: c.figure, unit: 'ms', median: t.ours, runs: n, peer: c.peer && t.peer !== null ? { name: c.peer.name, median: t.peer } : undefined, aim: c.aim });
+      rows.push({
+        figure: c.figure,
+        unit: 'ms',
+        median: t.ours,
+        runs: n,
+        peer: c.peer && t.peer !== null ? { name: c.peer.name, median: t.peer } : undefined,
+        aim: c.aim,
+      });
     } finally {
       c.peer?.teardown();
     }

@@ -29,22 +29,71 @@ export function entryRows(o: { baseUrl: string; tmpDir: string; log: (m: string)
   o.log('building entry: Playwright (e2e/building.spec.ts), 4 and 40 storeys from an empty project …');
   const r = spawnSync(
     process.execPath,
-    [path.join(root, 'node_modules/@playwright/test/cli.js'), 'test', 'e2e/building.spec.ts', '--reporter=line', `--output=${path.join(o.tmpDir, 'playwright-entry')}`],
-    { cwd: root, encoding: 'utf8', env: { ...process.env, HEADROOM_BENCH: '0', E2E_BASE_URL: o.baseUrl, BENCH_ENTRY_OUT: out, PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1' } },
+    [
+      path.join(root, 'node_modules/@playwright/test/cli.js'),
+      'test',
+      'e2e/building.spec.ts',
+      '--reporter=line',
+      `--output=${path.join(o.tmpDir, 'playwright-entry')}`,
+    ],
+    {
+      cwd: root,
+      encoding: 'utf8',
+      env: { ...process.env, HEADROOM_BENCH: '0', E2E_BASE_URL: o.baseUrl, BENCH_ENTRY_OUT: out, PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1' },
+    },
   );
-  const written: EntryFigures[] = fs.existsSync(out) ? fs.readFileSync(out, 'utf8').trim().split('\n').filter(Boolean).map((l) => JSON.parse(l) as EntryFigures) : [];
+  const written: EntryFigures[] = fs.existsSync(out)
+    ? fs
+        .readFileSync(out, 'utf8')
+        .trim()
+        .split('\n')
+        .filter(Boolean)
+        .map((l) => JSON.parse(l) as EntryFigures)
+    : [];
   if (r.status !== 0 || written.length === 0) {
     o.log(`the building entry spec failed:\n${(r.stdout + r.stderr).split('\n').slice(-40).join('\n')}`);
-    return [{ figure: 'client: building entry from an empty project', unit: 'count', median: Number.NaN, runs: 0, note: 'the Playwright spec failed; see the log above' }];
+    return [
+      {
+        figure: 'client: building entry from an empty project',
+        unit: 'count',
+        median: Number.NaN,
+        runs: 0,
+        note: 'the Playwright spec failed; see the log above',
+      },
+    ];
   }
   const rows: BenchRow[] = [];
   for (const f of written.sort((a, b) => a.storeys - b.storeys)) {
     const what = `client: building entry, ${f.storeys} storeys (${f.storeys * 4} apartments, ${f.fixtures} checked fixtures) from an empty project`;
     const aimEntries = f.storeys <= 4 ? '≤ 60' : '≤ 80';
     rows.push(
-      { figure: `${what}: field entries`, unit: 'count', median: f.entries, runs: 1, peer: { name: 'first version, 4 storeys (issue #14)', median: FIRST_VERSION.entries }, aim: aimEntries, note: o.buildNote },
-      { figure: `${what}: clicks`, unit: 'count', median: f.clicks, runs: 1, peer: { name: 'first version, 4 storeys (issue #14)', median: FIRST_VERSION.clicks }, aim: '≤ 60', note: o.buildNote },
-      { figure: `${what}: verdict on screen after the last entry (Generate)`, unit: 'ms', median: f.verdictAfterMs, runs: 1, peer: { name: 'the aim, 1 s (issue #14)', median: 1000 }, aim: '≤ 1 s', note: o.buildNote },
+      {
+        figure: `${what}: field entries`,
+        unit: 'count',
+        median: f.entries,
+        runs: 1,
+        peer: { name: 'first version, 4 storeys (issue #14)', median: FIRST_VERSION.entries },
+        aim: aimEntries,
+        note: o.buildNote,
+      },
+      {
+        figure: `${what}: clicks`,
+        unit: 'count',
+        median: f.clicks,
+        runs: 1,
+        peer: { name: 'first version, 4 storeys (issue #14)', median: FIRST_VERSION.clicks },
+        aim: '≤ 60',
+        note: o.buildNote,
+      },
+      {
+        figure: `${what}: verdict on screen after the last entry (Generate)`,
+        unit: 'ms',
+        median: f.verdictAfterMs,
+        runs: 1,
+        peer: { name: 'the aim, 1 s (issue #14)', median: 1000 },
+        aim: '≤ 1 s',
+        note: o.buildNote,
+      },
     );
   }
   return rows;

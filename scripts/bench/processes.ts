@@ -42,7 +42,9 @@ export async function processRows(o: ProcessesOptions): Promise<BenchRow[]> {
     const db = createDb(o.cluster.url);
     // signed in through the one-process server; the sessions are in PostgreSQL, so both servers know them
     const users = await makeUsers(db, one.url, o.connections).finally(() => db.destroy());
-    o.log(`processes: ${o.connections} designers saving their drafts; warm-up ${o.warmupSeconds} s each, then ${o.rounds} rounds of ${o.seconds} s on 1 and on 2 app processes, alternating …`);
+    o.log(
+      `processes: ${o.connections} designers saving their drafts; warm-up ${o.warmupSeconds} s each, then ${o.rounds} rounds of ${o.seconds} s on 1 and on 2 app processes, alternating …`,
+    );
     await round(one.url, users, o.warmupSeconds, true);
     await round(two.url, users, o.warmupSeconds, true);
     const single: number[] = [];
@@ -93,6 +95,11 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   } finally {
     cluster.destroy();
   }
-  console.log(`load average ${loadStart.map((x) => x.toFixed(2)).join(' ')} at start, ${os.loadavg().map((x) => x.toFixed(2)).join(' ')} at end`);
+  console.log(
+    `load average ${loadStart.map((x) => x.toFixed(2)).join(' ')} at start, ${os
+      .loadavg()
+      .map((x) => x.toFixed(2))
+      .join(' ')} at end`,
+  );
   process.exit(code);
 }

@@ -37,11 +37,20 @@ const time = async <T>(stage: string, f: () => T | Promise<T>): Promise<T> => {
 };
 
 try {
-  const [user] = await db('users').insert({ email: `split-${randomUUID()}@test.example`, name: 'Split', account_role: 'designer', status: 'active', password_hash: 'x', is_admin: false }).returning('*');
+  const [user] = await db('users')
+    .insert({ email: `split-${randomUUID()}@test.example`, name: 'Split', account_role: 'designer', status: 'active', password_hash: 'x', is_admin: false })
+    .returning('*');
   const [project] = await db('projects').insert({ name: 'Split', unit_system: 'US', created_by: user.id }).returning('*');
   const system = await systemsRepo.insert(db, { project_id: project.id, name: 'Cold', service: 'cold', created_by: user.id });
   const document = demoDocument() as unknown as SystemDocument;
-  const revision = await revisionsRepo.insert(db, { system_id: system.id, number: 1, document, analysis: analyse(document), engine_version: ENGINE_VERSION, created_by: user.id });
+  const revision = await revisionsRepo.insert(db, {
+    system_id: system.id,
+    number: 1,
+    document,
+    analysis: analyse(document),
+    engine_version: ENGINE_VERSION,
+    created_by: user.id,
+  });
   let version = revision.version;
   const ctx = { db, config: {} } as Parameters<typeof systemsService.saveDraft>[0];
   const actor = { id: user.id } as Parameters<typeof systemsService.saveDraft>[1];
@@ -72,13 +81,25 @@ try {
     // the database parts on their own, inside one transaction like the service's
     await db.transaction(async (trx) => {
       await time('11 db: SELECT … FOR UPDATE (columns the save needs)', () => revisionsRepo.lockForSave(trx, system.id, revision.id));
-      const saved = await time('12 db: UPDATE document + analysis', () => revisionsRepo.saveDraft(trx, revision.id, version, document, analysis, ENGINE_VERSION));
+      const saved = await time('12 db: UPDATE document + analysis', () =>
+        revisionsRepo.saveDraft(trx, revision.id, version, document, analysis, ENGINE_VERSION),
+      );
       version = saved!.version;
-      await time('13 db: audit row', () => auditRepo.record(trx, { actorId: user.id, projectId: project.id, action: 'revision.saved', subjectType: 'revision', subjectId: revision.id, details: { number: 1, version } }));
+      await time('13 db: audit row', () =>
+        auditRepo.record(trx, {
+          actorId: user.id,
+          projectId: project.id,
+          action: 'revision.saved',
+          subjectType: 'revision',
+          subjectId: revision.id,
+          details: { number: 1, version },
+        }),
+      );
     });
   }
   console.log(`save split, demo document, median of ${runs} runs (ms):`);
-  for (const [stage, list] of [...times].sort(([a], [b]) => parseFloat(a) - parseFloat(b))) console.log(`  ${stage.padEnd(88)} ${median(list).toFixed(2).padStart(8)}`);
+  for (const [stage, list] of [...times].sort(([a], [b]) => parseFloat(a) - parseFloat(b)))
+    console.log(`  ${stage.padEnd(88)} ${median(list).toFixed(2).padStart(8)}`);
   console.log('bytes:');
   for (const [what, n] of bytes) console.log(`  ${what.padEnd(30)} ${(n / 1000).toFixed(1).padStart(8)} kB`);
 } finally {

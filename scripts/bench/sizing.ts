@@ -50,7 +50,15 @@ export async function sizingRows(runs: number, log: (m: string) => void = () => 
       `${last.analyses} analyses inside (${share(analysesMs)} of the time), search ${share(searchMs)}, the rest ${share(totalMs - analysesMs - searchMs)}; ` +
       `${last.feasible ? `${last.changedSegments} segments resized` : `no sizes pass: short ${(last.shortfallPa / 6894.757).toFixed(1)} psi`}`;
     log(`${c.figure}: ${m.toFixed(0)} ms vs one analysis ${p.toFixed(0)} ms → ratio ${(m / p).toFixed(2)} (${note})`);
-    rows.push({ figure: c.figure, unit: 'ms', median: m, runs, peer: { name: 'one analyzeSystem of the same document', median: p }, aim: `≤ ${SIZING_AIM_RATIO} × one analysis`, note });
+    rows.push({
+      figure: c.figure,
+      unit: 'ms',
+      median: m,
+      runs,
+      peer: { name: 'one analyzeSystem of the same document', median: p },
+      aim: `≤ ${SIZING_AIM_RATIO} × one analysis`,
+      note,
+    });
   }
   return rows;
 }

@@ -145,7 +145,11 @@ export function stopCluster(bin, dataDir) {
 }
 
 export function createDatabase(bin, port, name) {
-  const exists = spawnSync(path.join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(port), '-U', DB_SUPERUSER, '-d', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname = '${name}'`], { encoding: 'utf8' });
+  const exists = spawnSync(
+    path.join(bin, 'psql'),
+    ['-h', '127.0.0.1', '-p', String(port), '-U', DB_SUPERUSER, '-d', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname = '${name}'`],
+    { encoding: 'utf8' },
+  );
   if (exists.stdout.trim() === '1') return false;
   const result = spawnSync(path.join(bin, 'createdb'), ['-h', '127.0.0.1', '-p', String(port), '-U', DB_SUPERUSER, name], { encoding: 'utf8' });
   if (result.status !== 0) {
@@ -162,7 +166,20 @@ function serverOsUser() {
 
 /** psql as the superuser over the unix socket inside the data folder (reachable only by the server's OS user). */
 function superuserSql(bin, dataDir, port, database, sql) {
-  const result = asServerUser(path.join(bin, 'psql'), ['-h', dataDir, '-p', String(port), '-U', DB_SUPERUSER, '-d', database, '-v', 'ON_ERROR_STOP=1', '-qtAc', sql]);
+  const result = asServerUser(path.join(bin, 'psql'), [
+    '-h',
+    dataDir,
+    '-p',
+    String(port),
+    '-U',
+    DB_SUPERUSER,
+    '-d',
+    database,
+    '-v',
+    'ON_ERROR_STOP=1',
+    '-qtAc',
+    sql,
+  ]);
   if (result.status !== 0) throw new Error(`psql on ${database} failed: ${result.stderr || result.stdout}`);
   return result.stdout.trim();
 }
@@ -173,7 +190,7 @@ const quoteLiteral = (value) => `'${String(value).replaceAll("'", "''")}'`;
 export function passwordHba(database, role = APP_ROLE) {
   return [
     HBA_MARK,
-    '# The superuser only through the unix socket inside the data folder, as the server\'s OS user;',
+    "# The superuser only through the unix socket inside the data folder, as the server's OS user;",
     '# the application role only to its own database, over loopback TCP, with its password (SCRAM).',
     '# Everything else is refused.',
     '# TYPE  DATABASE  USER  ADDRESS  METHOD',
@@ -238,7 +255,10 @@ export function secureCluster(bin, dataDir, port, database, passwordFile, { role
   if (!hasDb) sql('postgres', `CREATE DATABASE "${database}" OWNER "${role}"`);
   else sql('postgres', `ALTER DATABASE "${database}" OWNER TO "${role}"`);
   // no role but the superuser may connect to the other databases (pg_hba.conf refuses them too)
-  sql('postgres', `REVOKE CONNECT ON DATABASE postgres FROM PUBLIC; REVOKE CONNECT ON DATABASE template1 FROM PUBLIC; REVOKE ALL ON DATABASE "${database}" FROM PUBLIC; GRANT ALL ON DATABASE "${database}" TO "${role}"`);
+  sql(
+    'postgres',
+    `REVOKE CONNECT ON DATABASE postgres FROM PUBLIC; REVOKE CONNECT ON DATABASE template1 FROM PUBLIC; REVOKE ALL ON DATABASE "${database}" FROM PUBLIC; GRANT ALL ON DATABASE "${database}" TO "${role}"`,
+  );
   // every object of the database made by an older start (as the superuser) now belongs to the role;
   // sequences that belong to a table column follow their table
   sql(

@@ -26,7 +26,8 @@ const DEMO_MARGIN_PSI = 2;
 export function sizedVariant(doc: SystemDocument, marginPsi = DEMO_MARGIN_PSI): SystemDocument {
   const marginPa = marginPsi * PA_PER_PSI;
   const result = sizeSystem(doc, { marginPa });
-  if (!result.feasible || !result.document) throw new Error(`the demo variant "${doc.name}" cannot be sized (short by ${(result.shortfallPa / PA_PER_PSI).toFixed(2)} psi)`);
+  if (!result.feasible || !result.document)
+    throw new Error(`the demo variant "${doc.name}" cannot be sized (short by ${(result.shortfallPa / PA_PER_PSI).toFixed(2)} psi)`);
   const sized = result.document;
   return { ...sized, sizingBasis: sizingBasisOf({ sized, result, marginPa, scope: 'system', at: DEMO_SIZED_AT }) };
 }
@@ -46,7 +47,11 @@ function zoneDevice(d: GeneratedBuilding['devices'][number]): SystemDocument['de
 }
 
 /** The PEX insert fitting type for each metal elbow and tee type (the fitting catalog's PEX lines). */
-const PEX_TYPE: Record<string, string> = { 'elbow-90-standard': 'pex-insert-brass-elbow-90', 'tee-run': 'pex-insert-brass-tee-run', 'tee-branch': 'pex-insert-brass-tee-branch' };
+const PEX_TYPE: Record<string, string> = {
+  'elbow-90-standard': 'pex-insert-brass-elbow-90',
+  'tee-run': 'pex-insert-brass-tee-run',
+  'tee-branch': 'pex-insert-brass-tee-branch',
+};
 
 /** Storeys of the zoned tall building (an invented study beside the demo building). */
 export const TOWER_STOREYS = 16;
@@ -85,7 +90,12 @@ export function zonedTowerDocument(): SystemDocument {
     ...base,
     id: 'wrenmoor-tower-zoned',
     name: `Quarry Lane tower study, ${TOWER_STOREYS} storeys in three pressure zones (invented)`,
-    source: { ...base.source, staticPressureLow: 100, staticPressureHigh: 102, pressureBasis: 'Wrenmoor Water Department letter for the high-pressure main on Quarry Lane (invented demo figures)' },
+    source: {
+      ...base.source,
+      staticPressureLow: 100,
+      staticPressureHigh: 102,
+      pressureBasis: 'Wrenmoor Water Department letter for the high-pressure main on Quarry Lane (invented demo figures)',
+    },
     floors: built.floors,
     nodes: [...startNodes, ...built.nodes],
     segments: [...serviceSegments, ...built.segments],

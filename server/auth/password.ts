@@ -3,9 +3,7 @@ import pLimit from 'p-limit';
 import { AppError } from '../http/errors';
 
 const scryptRaw = (password: string, salt: Buffer, keylen: number, options: ScryptOptions) =>
-  new Promise<Buffer>((resolve, reject) =>
-    scryptCb(password, salt, keylen, options, (err, key) => (err ? reject(err) : resolve(key))),
-  );
+  new Promise<Buffer>((resolve, reject) => scryptCb(password, salt, keylen, options, (err, key) => (err ? reject(err) : resolve(key))));
 
 /**
  * At most this many scrypt computations at once. Each takes a thread of libuv's pool (4 threads

@@ -38,29 +38,88 @@ export function resultTables(a: Analysis, doc: SystemDocument, context: { system
   const segments: ResultTable = {
     id: 'segments',
     title: 'Segments',
-    columns: ['Segment', 'From', 'To', 'Material', 'Size', `Inside diameter (${u.diameter})`, `Length (${u.length})`, `Rise (${u.elevation})`, 'Fittings', 'Sum of K',
-      `Design flow (${u.flow})`, `Velocity (${u.velocity})`, 'Velocity within limit', `Friction loss (${u.pressure})`, `Friction per ${basis.label} (${u.pressure})`, `Fitting loss (${u.pressure})`],
+    columns: [
+      'Segment',
+      'From',
+      'To',
+      'Material',
+      'Size',
+      `Inside diameter (${u.diameter})`,
+      `Length (${u.length})`,
+      `Rise (${u.elevation})`,
+      'Fittings',
+      'Sum of K',
+      `Design flow (${u.flow})`,
+      `Velocity (${u.velocity})`,
+      'Velocity within limit',
+      `Friction loss (${u.pressure})`,
+      `Friction per ${basis.label} (${u.pressure})`,
+      `Fitting loss (${u.pressure})`,
+    ],
     rows: a.segments.map((s) => {
       const d = docSeg.get(s.id);
       const material = d?.material ? (MATERIALS[d.material as keyof typeof MATERIALS]?.label ?? d.material) : 'custom pipe';
-      const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`).join('; ');
-      return [names.segment(s.id), names.node(s.from), names.node(s.to), material, d?.size ?? null, s.innerDiameter, s.length, s.rise, fittings || 'none', s.totalK,
-        s.designFlow, s.velocity, s.velocityPass === null ? null : s.velocityPass ? 'yes' : 'no', s.frictionLoss,
+      const fittings = (d?.fittings ?? [])
+        .map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`)
+        .join('; ');
+      return [
+        names.segment(s.id),
+        names.node(s.from),
+        names.node(s.to),
+        material,
+        d?.size ?? null,
+        s.innerDiameter,
+        s.length,
+        s.rise,
+        fittings || 'none',
+        s.totalK,
+        s.designFlow,
+        s.velocity,
+        s.velocityPass === null ? null : s.velocityPass ? 'yes' : 'no',
+        s.frictionLoss,
         // the analysis's own friction loss spread over its length (no hydraulics here)
-        s.length > 0 ? (s.frictionLoss / s.length) * basis.per : null, s.fittingLoss];
+        s.length > 0 ? (s.frictionLoss / s.length) * basis.per : null,
+        s.fittingLoss,
+      ];
     }),
   };
 
   const fixtures: ResultTable = {
     id: 'fixtures',
     title: 'Checked fixtures',
-    columns: ['Fixture', 'At', `Residual pressure (${u.pressure})`, `Minimum flow pressure (${u.pressure})`, `Margin (${u.pressure})`, 'Meets its minimum', 'Critical',
-      `Flow (${u.flow})`, `Elevation (${u.elevation})`, `Developed length (${u.length})`],
-    rows: a.fixtures.map((f) => [f.label, names.node(f.nodeId), f.residual, f.required, f.margin, f.pass ? 'yes' : 'no', f.id === a.criticalFixtureId ? 'critical' : '',
-      f.flowRate, f.elevation, f.developedLength]),
+    columns: [
+      'Fixture',
+      'At',
+      `Residual pressure (${u.pressure})`,
+      `Minimum flow pressure (${u.pressure})`,
+      `Margin (${u.pressure})`,
+      'Meets its minimum',
+      'Critical',
+      `Flow (${u.flow})`,
+      `Elevation (${u.elevation})`,
+      `Developed length (${u.length})`,
+    ],
+    rows: a.fixtures.map((f) => [
+      f.label,
+      names.node(f.nodeId),
+      f.residual,
+      f.required,
+      f.margin,
+      f.pass ? 'yes' : 'no',
+      f.id === a.criticalFixtureId ? 'critical' : '',
+      f.flowRate,
+      f.elevation,
+      f.developedLength,
+    ]),
   };
 
-  const KIND = { start: 'Start: pressure at the source at design flow', device: 'Device', friction: 'Pipe friction', fittings: 'Fittings', rise: 'Elevation' } as const;
+  const KIND = {
+    start: 'Start: pressure at the source at design flow',
+    device: 'Device',
+    friction: 'Pipe friction',
+    fittings: 'Fittings',
+    rise: 'Elevation',
+  } as const;
   const ledgers: ResultTable = {
     id: 'ledgers',
     title: 'Pressure ledgers',

@@ -63,7 +63,8 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     const target = route.field ? (req.body as Record<string, unknown>)[route.field] : req.body;
     if (target === undefined || target === null || typeof target !== 'object') return next();
     if (route.outer && !route.outer.safeParse(req.body).success) return next();
-    if (pool.queueSize >= MAX_QUEUE) throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
+    if (pool.queueSize >= MAX_QUEUE)
+      throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     const raw = rawBodies.get(req);
     const utf8 = !/charset=(?!"?utf-?8)/i.test(req.headers['content-type'] ?? '');
     let result: Checked<unknown>;
@@ -74,7 +75,9 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
       return next();
     }
     if (!result.success) {
-      const fields = route.field ? Object.fromEntries(Object.entries(result.fields).map(([k, v]) => [k === '(more)' ? k : `${route.field}.${k}`, v])) : result.fields;
+      const fields = route.field
+        ? Object.fromEntries(Object.entries(result.fields).map(([k, v]) => [k === '(more)' ? k : `${route.field}.${k}`, v]))
+        : result.fields;
       const message = route.field ? 'The system document does not match the format.' : 'Some fields need attention.';
       throw new AppError(400, 'VALIDATION_FAILED', message, fields);
     }

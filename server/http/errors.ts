@@ -5,7 +5,7 @@ import { ServiceError } from '../services/errors';
 import { log } from '../log';
 import { fieldsFromZod } from '../services/validationFields';
 
-export { notFound, forbidden, staleVersion } from '../services/errors';
+export { notFound, forbidden } from '../services/errors';
 
 /** The HTTP status of each error code: the one place where a service's error becomes a protocol's number. */
 export const HTTP_STATUS: Record<ErrorCode, number> = {
@@ -48,7 +48,7 @@ export class AppError extends ServiceError {
 
 const statusOf = (err: ServiceError) => (err instanceof AppError ? err.status : HTTP_STATUS[err.code]);
 
-export { fieldsFromIssues, fieldsFromZod, MAX_REPORTED_FIELDS, MORE_FIELDS_KEY, type Issue } from '../services/validationFields';
+export { fieldsFromIssues, fieldsFromZod, MAX_REPORTED_FIELDS, type Issue } from '../services/validationFields';
 
 function isDatabaseDown(err: unknown): boolean {
   const e = err as { code?: string; name?: string; message?: string };
@@ -93,7 +93,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     // mis-sized body (400): the client's mistake, answered without a stack trace in the log
     const type = (err as { type?: string }).type;
     const message =
-      type === 'charset.unsupported' ? 'Send the body as UTF-8.' : type === 'encoding.unsupported' ? 'The body’s content encoding is not supported.' : 'The request could not be read.';
+      type === 'charset.unsupported'
+        ? 'Send the body as UTF-8.'
+        : type === 'encoding.unsupported'
+          ? 'The body’s content encoding is not supported.'
+          : 'The request could not be read.';
     res.status(status).json({ error: { code: 'VALIDATION_FAILED', message } });
     return;
   }
@@ -104,7 +108,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     return;
   }
   if (pgCode === '22P02' || pgCode === '22021' || pgCode === '22P05' || pgCode === '54001' || pgCode === '22003') {
-    res.status(400).json({ error: { code: 'VALIDATION_FAILED', message: 'The request holds a value the database cannot store.', fields: { '(body)': 'Value cannot be stored' } } });
+    res.status(400).json({
+      error: { code: 'VALIDATION_FAILED', message: 'The request holds a value the database cannot store.', fields: { '(body)': 'Value cannot be stored' } },
+    });
     return;
   }
   if (isDatabaseDown(err)) {

@@ -69,7 +69,8 @@ export function firstOverBoundInJson(text: Buffer, bounds: Bounds = BODY_BOUNDS)
       if (!top) continue;
       top.commas++;
       // commas + 1 items are there once the next one starts; refuse as soon as it is one too many
-      if (top.array && top.commas + 1 > bounds.maxArrayItems) return [pathOf(text, levels, levels.length - 1), `Has more than ${bounds.maxArrayItems} items; at most ${bounds.maxArrayItems} are accepted`];
+      if (top.array && top.commas + 1 > bounds.maxArrayItems)
+        return [pathOf(text, levels, levels.length - 1), `Has more than ${bounds.maxArrayItems} items; at most ${bounds.maxArrayItems} are accepted`];
       if (!top.array) {
         if (top.commas + 1 > bounds.maxObjectKeys) return [pathOf(text, levels, levels.length - 1), `Has more than ${bounds.maxObjectKeys} fields`];
         top.expectKey = true;

@@ -9,7 +9,7 @@ import type { RequestHandler } from 'express';
 import { AppError } from './errors';
 import { UPLOAD_FIELD } from '../../src/shared/api/fieldChanges';
 
-export { detectType, sanitizeFileName, MAX_FILE_NAME_LENGTH, type DetectedType } from '../services/fileTypes';
+export { MAX_FILE_NAME_LENGTH, type DetectedType } from '../services/fileTypes';
 
 /** An ASCII-only fallback of a safe name for the plain `filename=` parameter (RFC 6266 §4.3). */
 export const asciiFallback = (name: string) => name.replace(/[^\x20-\x7e]/g, '_').replace(/["\\%]/g, '_');
@@ -33,15 +33,27 @@ export function singleFileUpload(maxBytes: number): RequestHandler {
   };
   const upload = multer(options).single(UPLOAD_FIELD);
   return (req, res, next) => {
-    if (!req.is('multipart/form-data')) return next(new AppError(400, 'VALIDATION_FAILED', `Send the file as multipart/form-data in the field "${UPLOAD_FIELD}".`, { [UPLOAD_FIELD]: 'No file' }));
+    if (!req.is('multipart/form-data'))
+      return next(
+        new AppError(400, 'VALIDATION_FAILED', `Send the file as multipart/form-data in the field "${UPLOAD_FIELD}".`, { [UPLOAD_FIELD]: 'No file' }),
+      );
     upload(req, res, (err: unknown) => {
       if (!err) {
         if (!req.file) return next(new AppError(400, 'VALIDATION_FAILED', `Attach one file in the field "${UPLOAD_FIELD}".`, { [UPLOAD_FIELD]: 'No file' }));
         return next();
       }
       if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'VALIDATION_FAILED', `The file is larger than the ${megabytes(maxBytes)} limit; nothing was stored.`, { [UPLOAD_FIELD]: `Over ${megabytes(maxBytes)}` }));
-        return next(new AppError(400, 'VALIDATION_FAILED', `Attach exactly one file in the field "${UPLOAD_FIELD}" (${err.message}); nothing was stored.`, { [err.field ?? UPLOAD_FIELD]: err.message }));
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(
+            new AppError(413, 'VALIDATION_FAILED', `The file is larger than the ${megabytes(maxBytes)} limit; nothing was stored.`, {
+              [UPLOAD_FIELD]: `Over ${megabytes(maxBytes)}`,
+            }),
+          );
+        return next(
+          new AppError(400, 'VALIDATION_FAILED', `Attach exactly one file in the field "${UPLOAD_FIELD}" (${err.message}); nothing was stored.`, {
+            [err.field ?? UPLOAD_FIELD]: err.message,
+          }),
+        );
       }
       return next(new AppError(400, 'VALIDATION_FAILED', 'The upload could not be read; nothing was stored.', { [UPLOAD_FIELD]: 'Unreadable upload' }));
     });

@@ -32,15 +32,18 @@ function lengthBounds(schema: AnySchema): { min?: number; max?: number } {
 
 function pushZodIssues(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: number): void {
   const r = schema.safeParse(value);
-  if (!r.success) for (const issue of r.error.issues) {
-    if (out.length >= max) return;
-    out.push({ code: issue.code, path: [...path, ...(issue.path as Path)], message: issue.message });
-  }
+  if (!r.success)
+    for (const issue of r.error.issues) {
+      if (out.length >= max) return;
+      out.push({ code: issue.code, path: [...path, ...(issue.path as Path)], message: issue.message });
+    }
 }
 
 /** Checks other than an array's length bounds: refinements, which zod runs on the whole value. */
 const hasRefinements = (schema: AnySchema) =>
-  ((schema._zod.def.checks as { _zod: { def: { check: string } } }[] | undefined) ?? []).some((c) => c._zod.def.check !== 'max_length' && c._zod.def.check !== 'min_length');
+  ((schema._zod.def.checks as { _zod: { def: { check: string } } }[] | undefined) ?? []).some(
+    (c) => c._zod.def.check !== 'max_length' && c._zod.def.check !== 'min_length',
+  );
 
 function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: number): void {
   if (out.length >= max) return;
@@ -54,7 +57,8 @@ function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: 
       return;
     }
     for (let i = 0; i < value.length && out.length < max; i++) walk(def.element as AnySchema, value[i], [...path, i], out, max);
-    if (min !== undefined && value.length < min && out.length < max) out.push({ code: 'too_small', path, message: `Needs at least ${min} item${min === 1 ? '' : 's'}` });
+    if (min !== undefined && value.length < min && out.length < max)
+      out.push({ code: 'too_small', path, message: `Needs at least ${min} item${min === 1 ? '' : 's'}` });
   } else if (def.type === 'object' && isPlainObject(value)) {
     const shape = def.shape as Record<string, AnySchema>;
     for (const key of Object.keys(shape)) {
@@ -64,8 +68,15 @@ function walk(schema: AnySchema, value: unknown, path: Path, out: Issue[], max: 
     if ((def.catchall as AnySchema | undefined)?._zod.def.type === 'never') {
       const unknown = Object.keys(value).filter((k) => !(k in shape));
       if (unknown.length) {
-        const listed = unknown.slice(0, 5).map((k) => JSON.stringify(k.slice(0, 40))).join(', ');
-        out.push({ code: 'unrecognized_keys', path, message: `Unrecognized key${unknown.length === 1 ? '' : 's'}: ${listed}${unknown.length > 5 ? ` and ${unknown.length - 5} more` : ''}` });
+        const listed = unknown
+          .slice(0, 5)
+          .map((k) => JSON.stringify(k.slice(0, 40)))
+          .join(', ');
+        out.push({
+          code: 'unrecognized_keys',
+          path,
+          message: `Unrecognized key${unknown.length === 1 ? '' : 's'}: ${listed}${unknown.length > 5 ? ` and ${unknown.length - 5} more` : ''}`,
+        });
       }
     }
   } else {

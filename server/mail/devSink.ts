@@ -28,7 +28,11 @@ export function startDevSink(db: Db, port: number): DevSink {
       stream.on('end', () => {
         const raw = Buffer.concat(chunks);
         const head = raw.subarray(0, raw.indexOf('\r\n\r\n') > 0 ? raw.indexOf('\r\n\r\n') : raw.length).toString('utf8');
-        const header = (name: string) => head.match(new RegExp(`^${name}:\\s*(.*(?:\\r\\n[ \\t].*)*)`, 'im'))?.[1]?.replace(/\r\n[ \t]/g, ' ').trim() ?? null;
+        const header = (name: string) =>
+          head
+            .match(new RegExp(`^${name}:\\s*(.*(?:\\r\\n[ \\t].*)*)`, 'im'))?.[1]
+            ?.replace(/\r\n[ \t]/g, ' ')
+            .trim() ?? null;
         db('dev_mail')
           .insert({
             envelope_from: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
@@ -37,7 +41,10 @@ export function startDevSink(db: Db, port: number): DevSink {
             subject: header('Subject') ?? '',
             raw,
           })
-          .then(() => callback(), (err: Error) => callback(err));
+          .then(
+            () => callback(),
+            (err: Error) => callback(err),
+          );
       });
     },
   });

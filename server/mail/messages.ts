@@ -11,12 +11,28 @@ export function invitationMessage(opts: { name: string; expiresAt: string; purpo
   if (opts.purpose === 'password-reset') {
     return {
       subject: 'Headroom: choose a new password',
-      text: [`Hello ${opts.name},`, '', 'Someone asked to reset the password of your Headroom account. Choose a new one here:', '', SECRET_URL, '', `The link works once, until ${utc(opts.expiresAt)}. If you did not ask, ignore this message.`].join('\n'),
+      text: [
+        `Hello ${opts.name},`,
+        '',
+        'Someone asked to reset the password of your Headroom account. Choose a new one here:',
+        '',
+        SECRET_URL,
+        '',
+        `The link works once, until ${utc(opts.expiresAt)}. If you did not ask, ignore this message.`,
+      ].join('\n'),
     };
   }
   return {
     subject: 'Your Headroom account',
-    text: [`Hello ${opts.name},`, '', 'An account on Headroom has been made for you. Choose your password here:', '', SECRET_URL, '', `The link works once, until ${utc(opts.expiresAt)}.`].join('\n'),
+    text: [
+      `Hello ${opts.name},`,
+      '',
+      'An account on Headroom has been made for you. Choose your password here:',
+      '',
+      SECRET_URL,
+      '',
+      `The link works once, until ${utc(opts.expiresAt)}.`,
+    ].join('\n'),
   };
 }
 
@@ -46,7 +62,12 @@ export function summaryMessage(opts: {
     `  ${opts.viewUrl}`,
   ];
   if (opts.invitation) {
-    lines.push('', `You do not have a Headroom account yet. Choose your password first (the link works once, until ${utc(opts.invitation.expiresAt)}):`, '', `  ${SECRET_URL}`);
+    lines.push(
+      '',
+      `You do not have a Headroom account yet. Choose your password first (the link works once, until ${utc(opts.invitation.expiresAt)}):`,
+      '',
+      `  ${SECRET_URL}`,
+    );
   }
   if (opts.note) lines.push('', `Note from ${opts.senderName}:`, opts.note);
   lines.push('', '—', SUMMARY_CAUTIONS[0], SUMMARY_CAUTIONS[1]);
@@ -84,7 +105,9 @@ export function fieldChangeProposedMessage(o: FieldChangeMailBase & { contractor
 }
 
 /** To the contractor when a designer accepts or declines their field change. */
-export function fieldChangeDecidedMessage(o: FieldChangeMailBase & { designerName: string; decision: 'accepted' | 'declined'; text: string | null; newRevisionNumber: number | null }) {
+export function fieldChangeDecidedMessage(
+  o: FieldChangeMailBase & { designerName: string; decision: 'accepted' | 'declined'; text: string | null; newRevisionNumber: number | null },
+) {
   const lines = [
     `Hello ${o.recipientName},`,
     '',

@@ -28,8 +28,14 @@ export function packageMessage(opts: {
       `   Review:  ${s.viewUrl}`,
     );
   });
-  lines.push('', `Each system's summary is attached as its own PDF. Accept or return each system on Headroom at its link above; comments stay with their system.`);
+  lines.push(
+    '',
+    `Each system's summary is attached as its own PDF. Accept or return each system on Headroom at its link above; comments stay with their system.`,
+  );
   if (opts.note) lines.push('', `Note from ${opts.senderName}:`, opts.note);
   lines.push('', '—', SUMMARY_CAUTIONS[0], SUMMARY_CAUTIONS[1]);
-  return { subject: `For review: ${opts.projectName}, ${n === 1 ? opts.systems[0].header.systemName : `${n} systems`} (one submission)`, text: lines.join('\n') };
+  return {
+    subject: `For review: ${opts.projectName}, ${n === 1 ? opts.systems[0].header.systemName : `${n} systems`} (one submission)`,
+    text: lines.join('\n'),
+  };
 }

@@ -101,7 +101,12 @@ export class OutboxWorker {
       await this.deliver(row);
       tried++;
     }
-    if (tried < rows.length) await outboxRepo.release(this.ctx.db, rows.slice(tried).map((r) => r.id), this.name);
+    if (tried < rows.length)
+      await outboxRepo.release(
+        this.ctx.db,
+        rows.slice(tried).map((r) => r.id),
+        this.name,
+      );
     return tried;
   }
 
@@ -132,7 +137,14 @@ export class OutboxWorker {
       const reason = describe(err);
       if (row.attempts >= row.max_attempts) {
         await outboxRepo.markFailed(db, row.id, this.name, reason);
-        await auditRepo.record(db, { actorId: null, projectId: row.project_id, action: 'message.failed', subjectType: 'message', subjectId: row.id, details: { to: row.to_address, attempts: row.attempts, reason } });
+        await auditRepo.record(db, {
+          actorId: null,
+          projectId: row.project_id,
+          action: 'message.failed',
+          subjectType: 'message',
+          subjectId: row.id,
+          details: { to: row.to_address, attempts: row.attempts, reason },
+        });
       } else {
         const delay = Math.min(this.opts.retryBaseMs * 2 ** (row.attempts - 1), this.opts.retryMaxMs);
         await outboxRepo.markRetry(db, row.id, this.name, reason, delay);
@@ -140,7 +152,14 @@ export class OutboxWorker {
       return;
     }
     if (await outboxRepo.markSent(db, row.id, this.name, response)) {
-      await auditRepo.record(db, { actorId: null, projectId: row.project_id, action: 'message.sent', subjectType: 'message', subjectId: row.id, details: { to: row.to_address, kind: row.kind, attempts: row.attempts } });
+      await auditRepo.record(db, {
+        actorId: null,
+        projectId: row.project_id,
+        action: 'message.sent',
+        subjectType: 'message',
+        subjectId: row.id,
+        details: { to: row.to_address, kind: row.kind, attempts: row.attempts },
+      });
     }
   }
 }

@@ -28,7 +28,12 @@ const HEADER: SummaryHeader = {
 export function twoHundredSegmentDocument() {
   const doc = generateBuilding({ storeys: 2, apartmentsPerStorey: 4 });
   const checked = new Set(doc.nodes.filter((n) => (n.checkedFixtures ?? []).length > 0).map((n) => n.id));
-  const drop = new Set(doc.segments.filter((s) => s.id.startsWith('fb-') && !checked.has(s.to)).slice(0, doc.segments.length - 200).map((s) => s.id));
+  const drop = new Set(
+    doc.segments
+      .filter((s) => s.id.startsWith('fb-') && !checked.has(s.to))
+      .slice(0, doc.segments.length - 200)
+      .map((s) => s.id),
+  );
   const dropNodes = new Set(doc.segments.filter((s) => drop.has(s.id)).map((s) => s.to));
   return SystemDocumentSchema.parse({ ...doc, segments: doc.segments.filter((s) => !drop.has(s.id)), nodes: doc.nodes.filter((n) => !dropNodes.has(n.id)) });
 }

@@ -73,7 +73,9 @@ export function profileAxes(points: ProfilePoint[], required: number, pressureUn
   return {
     y: axisTicks(pMin, pMax, 5),
     x: axisTicks(0, xMax, 6),
-    devices: points.filter((p) => p.device).map((p) => ({ x: p.x, pressure: p.pressure, text: `${p.device!.label} ${signed(p.device!.change, pressureUnit)} ${pressureUnit}` })),
+    devices: points
+      .filter((p) => p.device)
+      .map((p) => ({ x: p.x, pressure: p.pressure, text: `${p.device!.label} ${signed(p.device!.change, pressureUnit)} ${pressureUnit}` })),
   };
 }
 

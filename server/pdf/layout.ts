@@ -230,7 +230,12 @@ export class Layout {
       lines.forEach((line, i) => {
         this.ensure(leading);
         this.y -= leading;
-        if (i === 0) this.draw(this.fit(this.clean(label, this.fonts.bold), this.fonts.bold, size, labelWidth - 8), this.left, this.y + size * 0.25, { font: 'bold', size, color: COLORS.muted });
+        if (i === 0)
+          this.draw(this.fit(this.clean(label, this.fonts.bold), this.fonts.bold, size, labelWidth - 8), this.left, this.y + size * 0.25, {
+            font: 'bold',
+            size,
+            color: COLORS.muted,
+          });
         this.draw(line, this.left + labelWidth, this.y + size * 0.25, { size });
       });
     }

@@ -63,6 +63,9 @@ export function attestationLines(att: AttestationText | null | undefined): { rec
   if (!att) return { recorded: false, lines: ['No attestation was recorded when this revision was issued.'] };
   return {
     recorded: true,
-    lines: [`“${att.statement}”`, `Confirmed at issue by ${att.name}, licence or registration no. ${att.licenceNumber}, on ${utc(att.at)}; recorded with this revision.`],
+    lines: [
+      `“${att.statement}”`,
+      `Confirmed at issue by ${att.name}, licence or registration no. ${att.licenceNumber}, on ${utc(att.at)}; recorded with this revision.`,
+    ],
   };
 }

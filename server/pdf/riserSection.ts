@@ -25,7 +25,12 @@ export function riserDiagramSection(c: SummaryContext) {
   const sheets = fitRiserDiagram(diagram, { left: L.left, bottom: L.bottom, width: L.contentWidth, height });
   sheets.forEach((sheet, i) => {
     if (i > 0) L.newPage();
-    L.draw(`Riser diagram, sheet ${sheet.number} of ${sheets.length}${sheets.length > 1 ? ` (row ${sheet.row + 1}, column ${sheet.column + 1})` : ''}`, L.left, L.bottom + height + 6, { font: 'bold', size: 8 });
+    L.draw(
+      `Riser diagram, sheet ${sheet.number} of ${sheets.length}${sheets.length > 1 ? ` (row ${sheet.row + 1}, column ${sheet.column + 1})` : ''}`,
+      L.left,
+      L.bottom + height + 6,
+      { font: 'bold', size: 8 },
+    );
     for (const item of sheet.items) drawItem(L, item);
   });
   L.y = L.bottom;

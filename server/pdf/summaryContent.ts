@@ -121,7 +121,11 @@ export function catalogSourcesUsed(doc: SystemDocument, fittingMethod?: string):
     if (!m) continue;
     const unverified = new Set<string>(m.unverified ?? []);
     const datum = (key: string, words: string, source: string) => `${words}: ${sourceText(source, { verified: !unverified.has(key) })}`;
-    const source = [datum('dimensions', 'inside diameters', m.dimensionSource), datum('roughness', 'roughness', m.roughnessSource), datum('hazenWilliamsC', 'Hazen–Williams C', m.hazenWilliamsSource)].join('; ');
+    const source = [
+      datum('dimensions', 'inside diameters', m.dimensionSource),
+      datum('roughness', 'roughness', m.roughnessSource),
+      datum('hazenWilliamsC', 'Hazen–Williams C', m.hazenWilliamsSource),
+    ].join('; ');
     rows.push({ kind: 'Pipe material', item: m.label, source, verified: m.verified !== false && unverified.size === 0 && !isUnverified(source) });
   }
   for (const id of [...fittings].sort()) {
@@ -142,7 +146,8 @@ export function catalogSourcesUsed(doc: SystemDocument, fittingMethod?: string):
 }
 
 /** The worst-case static results (document units); absent from analyses stored before the engine made them. */
-export const staticChecksOf = (a: Analysis): StaticChecks | null => (a as Omit<Analysis, 'staticChecks'> & { staticChecks?: StaticChecks }).staticChecks ?? null;
+export const staticChecksOf = (a: Analysis): StaticChecks | null =>
+  (a as Omit<Analysis, 'staticChecks'> & { staticChecks?: StaticChecks }).staticChecks ?? null;
 
 /** The lines the summary prints for the worst-case static results; null when the analysis has none. */
 export function staticCheckContent(a: Analysis) {
@@ -201,7 +206,8 @@ export function warningWhere(w: EngineWarning & { elementLabel?: string | null }
       return from && to ? `pipe from ${from} to ${to}` : 'a segment';
     }
     // a fitting's warning names the segment that carries it (the engine gives the segment's id)
-    if (type === 'fitting') return a.segments.some((x) => x.id === id) || doc.segments.some((x) => x.id === id) ? `fittings on ${name('segment', id)}` : 'a fitting';
+    if (type === 'fitting')
+      return a.segments.some((x) => x.id === id) || doc.segments.some((x) => x.id === id) ? `fittings on ${name('segment', id)}` : 'a fitting';
     if (type === 'node') return nodeName(a, doc, id) ?? 'a node';
     if (type === 'device') return doc.devices.find((x) => x.id === id)?.label ?? 'a device';
     if (type === 'checked-fixture') return a.fixtures.find((x) => x.id === id)?.label ?? 'a checked fixture';
@@ -248,6 +254,9 @@ export function groupedWarningRows(a: Analysis, doc: SystemDocument): { severity
   return [...groups.values()].map((g) => ({
     severity: g.severity,
     what: g.what,
-    where: g.wheres.length === 1 ? g.wheres[0] : `${g.wheres.length} places: ${g.wheres.slice(0, SHOWN).join('; ')}${g.wheres.length > SHOWN ? `; and ${g.wheres.length - SHOWN} more` : ''}`,
+    where:
+      g.wheres.length === 1
+        ? g.wheres[0]
+        : `${g.wheres.length} places: ${g.wheres.slice(0, SHOWN).join('; ')}${g.wheres.length > SHOWN ? `; and ${g.wheres.length - SHOWN} more` : ''}`,
   }));
 }

@@ -33,7 +33,9 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
   const basis = frictionBasis(a.unitSystem);
   out.push(`## Segments (flow ${u.flow}, velocity ${u.velocity}, friction ${u.pressure} and ${u.pressure}/${basis.label}, fitting loss ${u.pressure})`);
   for (const r of segmentRows(a, doc, names)) {
-    out.push(`${r.name} | ${r.material} ${r.size} | flow ${r.flow} | velocity ${r.velocity}${r.velocityOver ? ' over' : ''} | sum K ${r.sumK} | friction ${r.frictionLoss} (${r.frictionGradient}/${basis.label}) | fittings ${r.fittingLoss}`);
+    out.push(
+      `${r.name} | ${r.material} ${r.size} | flow ${r.flow} | velocity ${r.velocity}${r.velocityOver ? ' over' : ''} | sum K ${r.sumK} | friction ${r.frictionLoss} (${r.frictionGradient}/${basis.label}) | fittings ${r.fittingLoss}`,
+    );
   }
   out.push('');
 
@@ -41,7 +43,13 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
   if (critical) {
     const ledger = ledgerFor(a, critical.id);
     out.push(`## Ledger of the critical fixture: ${critical.label}`);
-    for (const l of ledger.lines) out.push(`${l.step} ${l.kind} ${l.segmentId ? names.segment(l.segmentId) : ''} ${l.kind === 'device' || l.kind === 'start' ? l.label : ''} ${l.kind === 'start' ? '' : signed(l.change, u.pressure)} -> ${num(l.pressureAfter, u.pressure)}`.replace(/\s+/g, ' '));
+    for (const l of ledger.lines)
+      out.push(
+        `${l.step} ${l.kind} ${l.segmentId ? names.segment(l.segmentId) : ''} ${l.kind === 'device' || l.kind === 'start' ? l.label : ''} ${l.kind === 'start' ? '' : signed(l.change, u.pressure)} -> ${num(l.pressureAfter, u.pressure)}`.replace(
+          /\s+/g,
+          ' ',
+        ),
+      );
     out.push(`residual ${num(ledger.residual, u.pressure)}, required ${num(ledger.required, u.pressure)}, margin ${signed(ledger.margin, u.pressure)}`, '');
     const axes = profileAxes(profilePoints(a, critical.id), critical.required, u.pressure);
     out.push(`## Pressure profile to ${critical.label}`);
@@ -54,7 +62,10 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
   const zones = zoneRows(a);
   if (zones.length) {
     out.push(`## Pressure zones (${u.pressure})`);
-    for (const z of zones) out.push(`${z.name} | fed by ${z.fedBy} | ${z.floors} | highest ${z.highestResidual} | lowest ${z.lowestResidual} | static ${z.highestStatic} | critical ${z.critical} | ${z.verdict}`);
+    for (const z of zones)
+      out.push(
+        `${z.name} | fed by ${z.fedBy} | ${z.floors} | highest ${z.highestResidual} | lowest ${z.lowestResidual} | static ${z.highestStatic} | critical ${z.critical} | ${z.verdict}`,
+      );
     out.push('');
   }
 
@@ -63,7 +74,10 @@ export function summaryGoldenText(input: SummaryPdfInput, extra: ((input: Summar
     out.push(`### ${l.title}: residual ${l.residual}, required ${l.required}, margin ${l.margin} (${l.pass ? 'pass' : 'FAIL'})`);
     if (l.carried) out.push(`carried from ${l.carried.from} after ${l.carried.after}: ${l.carried.pressure}`);
     if (l.start) out.push(l.start);
-    for (const r of l.rows) out.push(`${r.segment}${r.devices ? ` [${r.devices}]` : ''} friction ${r.friction} fittings ${r.fittings} elevation ${r.elevation} -> ${r.pressureAfter}`);
+    for (const r of l.rows)
+      out.push(
+        `${r.segment}${r.devices ? ` [${r.devices}]` : ''} friction ${r.friction} fittings ${r.fittings} elevation ${r.elevation} -> ${r.pressureAfter}`,
+      );
   }
   out.push('');
   out.push('## Riser diagram', ...riserElementsByFloor(riserDiagram(doc, a)), '');

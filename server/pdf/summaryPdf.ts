@@ -7,7 +7,14 @@ import { PDFDocument, PDFName, PDFNumber, PDFString } from 'pdf-lib';
 import { ledgerFor, fromSI, sizingBasisText, type Analysis, type LedgerLine, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { CRITERIA_SOURCES } from '../../src/engine/catalog/criteria';
-import { boosterText, DEVICE_KIND_LABELS, fixtureGroupLabel, fixtureGroupWsfu, SOURCE_KIND_LABELS, WARNING_SEVERITY_WORDS } from '../../src/engine/model/labels';
+import {
+  boosterText,
+  DEVICE_KIND_LABELS,
+  fixtureGroupLabel,
+  fixtureGroupWsfu,
+  SOURCE_KIND_LABELS,
+  WARNING_SEVERITY_WORDS,
+} from '../../src/engine/model/labels';
 import { SUMMARY_CAUTIONS, type SummaryHeader } from '../../src/shared/api/summaries';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows, zoneRows, type Names } from './summaryTables';
 import { adoptedCodeText, attestationLines, permitFrame, permitRows, type AttestationText } from './permitContent';
@@ -143,7 +150,12 @@ export async function renderSummaryPdf(input: SummaryPdfInput, sections: readonl
 export const SUMMARY_SECTIONS: readonly SummarySection[] = [
   { id: 'title', build: titleSection },
   // the answers to the returned review come first: the reviewer reads them before anything else
-  { id: 'review-responses', build: (c) => { if (c.input.reviewResponses) reviewResponsesSection(c.L, c.input.reviewResponses); } },
+  {
+    id: 'review-responses',
+    build: (c) => {
+      if (c.input.reviewResponses) reviewResponsesSection(c.L, c.input.reviewResponses);
+    },
+  },
   { id: 'basis', build: basisSection },
   { id: 'inputs', build: inputsSection },
   { id: 'results', build: resultsSection },
@@ -186,15 +198,26 @@ function basisSection(c: SummaryContext) {
   const { L, header, a, u, doc, P, catalogRows } = c;
   L.heading('Basis');
   const minimums = new Map<string, { required: number; label: string }>();
-  for (const f of a.fixtures) if (!minimums.has(f.fixtureTypeId)) minimums.set(f.fixtureTypeId, { required: f.required, label: FIXTURE_TYPES[f.fixtureTypeId]?.label ?? f.fixtureTypeId });
+  for (const f of a.fixtures)
+    if (!minimums.has(f.fixtureTypeId))
+      minimums.set(f.fixtureTypeId, { required: f.required, label: FIXTURE_TYPES[f.fixtureTypeId]?.label ?? f.fixtureTypeId });
   const overrides = doc.criteria ?? {};
   L.keyValues([
     ['Code adopted', header.permit ? adoptedCodeText(header.permit) : 'not recorded'],
     ['Code basis (designer)', header.codeBasis || 'not stated by the designer'],
-    ['Maximum static pressure', `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : sourceText(CRITERIA_SOURCES.maxStaticPressurePa)}`],
-    ['Minimum static pressure', a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`],
+    [
+      'Maximum static pressure',
+      `${withUnit(a.criteria.maxStaticPressure, u.pressure)}: ${overrides.maxStaticPressure !== undefined ? 'set by the designer' : sourceText(CRITERIA_SOURCES.maxStaticPressurePa)}`,
+    ],
+    [
+      'Minimum static pressure',
+      a.criteria.minStaticPressure === null ? 'not set' : `${withUnit(a.criteria.minStaticPressure, u.pressure)}, set by the designer`,
+    ],
     ['Pipe sizes', sizingBasisText(doc)],
-    ['Water temperature', `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`],
+    [
+      'Water temperature',
+      `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`,
+    ],
     ['Engine', `Headroom engine ${a.engineVersion}, document schema ${a.schemaVersion}`],
   ]);
   L.heading('Methods', 2);
@@ -219,7 +242,10 @@ function basisSection(c: SummaryContext) {
   );
   if (catalogRows.length) {
     L.heading('Catalog data used', 2, 120);
-    L.paragraph(`Each entry's own sources, as the catalog records them. Entries marked "${UNVERIFIED_NOTE}" are not verified.`, { size: 8, color: COLORS.muted });
+    L.paragraph(`Each entry's own sources, as the catalog records them. Entries marked "${UNVERIFIED_NOTE}" are not verified.`, {
+      size: 8,
+      color: COLORS.muted,
+    });
     L.table(
       [
         { header: 'Kind', width: 14 },
@@ -238,7 +264,15 @@ function basisSection(c: SummaryContext) {
       { header: 'Source', width: 52, wrap: true },
     ],
     [...minimums].map(([id, m]) => ({
-      cells: [m.label, P(m.required), overrides.minFlowPressures?.[id] !== undefined ? 'set by the designer' : FIXTURE_TYPES[id] ? sourceText(FIXTURE_TYPES[id].source, FIXTURE_TYPES[id]) : 'project fixture type (the designer’s data)'],
+      cells: [
+        m.label,
+        P(m.required),
+        overrides.minFlowPressures?.[id] !== undefined
+          ? 'set by the designer'
+          : FIXTURE_TYPES[id]
+            ? sourceText(FIXTURE_TYPES[id].source, FIXTURE_TYPES[id])
+            : 'project fixture type (the designer’s data)',
+      ],
     })),
     { continued: 'Minimum flow pressures used' },
   );
@@ -250,10 +284,11 @@ function basisSection(c: SummaryContext) {
       { header: `Limit (${u.velocity})`, width: 14, align: 'right' },
       { header: 'Source', width: 56, wrap: true },
     ],
-    a.criteria.velocityLimits.map((v) => ({ cells: [v.material, v.service, num(v.maxVelocity, u.velocity), sourceText(v.source, v as { verified?: boolean })] })),
+    a.criteria.velocityLimits.map((v) => ({
+      cells: [v.material, v.service, num(v.maxVelocity, u.velocity), sourceText(v.source, v as { verified?: boolean })],
+    })),
     { continued: 'Velocity limits' },
   );
-
 }
 
 /** The inputs: supply, devices, fixtures served and every segment with its losses. */
@@ -281,7 +316,10 @@ function inputsSection(c: SummaryContext) {
           ],
         ] as [string, string][])
       : []),
-    ['At design flow', `${withUnit(a.source.pressureAtDesignFlow, u.pressure)} at ${withUnit(a.source.designFlow, u.flow)} (${a.source.pressureBasis === 'flow-test' ? 'from the flow test' : 'the low static pressure'})`],
+    [
+      'At design flow',
+      `${withUnit(a.source.pressureAtDesignFlow, u.pressure)} at ${withUnit(a.source.designFlow, u.flow)} (${a.source.pressureBasis === 'flow-test' ? 'from the flow test' : 'the low static pressure'})`,
+    ],
   ]);
 
   L.heading('Devices', 2);
@@ -294,7 +332,16 @@ function inputsSection(c: SummaryContext) {
       d.boost ? boosterText(d.boost, u.pressure) : '',
       d.loss.kind === 'curve' ? `curve of ${d.loss.points.length} point(s)` : 'fixed loss',
     ].filter(Boolean);
-    return { cells: [d.label, DEVICE_KIND[d.kind] ?? d.kind, seg?.label ?? d.segmentId, num(seg?.designFlow, u.flow), r ? signed(-r.loss, u.pressure) : '—', notes.join('; ')] };
+    return {
+      cells: [
+        d.label,
+        DEVICE_KIND[d.kind] ?? d.kind,
+        seg?.label ?? d.segmentId,
+        num(seg?.designFlow, u.flow),
+        r ? signed(-r.loss, u.pressure) : '—',
+        notes.join('; '),
+      ],
+    };
   });
   if (deviceRows.length)
     L.table(
@@ -371,12 +418,25 @@ function inputsSection(c: SummaryContext) {
       { header: `Fitting loss (${u.pressure})`, width: 6.5, align: 'right' },
     ],
     segmentRows(a, doc, names).map((r) => ({
-      cells: [r.name, r.material, r.size, r.innerDiameter, r.length, r.rise, r.fittings, r.sumK, r.flow, `${r.velocity}${r.velocityOver ? ' over' : ''}`, r.frictionLoss, r.frictionGradient, r.fittingLoss],
+      cells: [
+        r.name,
+        r.material,
+        r.size,
+        r.innerDiameter,
+        r.length,
+        r.rise,
+        r.fittings,
+        r.sumK,
+        r.flow,
+        `${r.velocity}${r.velocityOver ? ' over' : ''}`,
+        r.frictionLoss,
+        r.frictionGradient,
+        r.fittingLoss,
+      ],
       style: r.velocityOver ? { fail: true } : undefined,
     })),
     { continued: 'Segments', size: 6.5 },
   );
-
 }
 
 /** The results: every checked fixture, the critical ledger and profile, velocity, static pressure, warnings. */
@@ -401,7 +461,16 @@ function resultsSection(c: SummaryContext) {
       { header: 'Result', width: 7 },
     ],
     byMargin.map((f) => ({
-      cells: [f.id === a.criticalFixtureId ? `${f.label} (critical)` : f.label, nodeLabel(f.nodeId), num(f.elevation, u.elevation), num(f.developedLength, u.length), P(f.residual), P(f.required), signed(f.margin, u.pressure), f.pass ? 'pass' : 'FAIL'],
+      cells: [
+        f.id === a.criticalFixtureId ? `${f.label} (critical)` : f.label,
+        nodeLabel(f.nodeId),
+        num(f.elevation, u.elevation),
+        num(f.developedLength, u.length),
+        P(f.residual),
+        P(f.required),
+        signed(f.margin, u.pressure),
+        f.pass ? 'pass' : 'FAIL',
+      ],
       style: f.pass ? (f.id === a.criticalFixtureId ? { bold: true } : undefined) : { fail: true },
     })),
     { continued: 'Checked fixtures' },
@@ -418,15 +487,25 @@ function resultsSection(c: SummaryContext) {
         { header: `Pressure after (${u.pressure})`, width: 18, align: 'right' },
       ],
       [
-        ...ledger.lines.map((l) => ({ cells: [String(l.step), ledgerLineLabel(l, a, names), l.kind === 'start' ? '' : signed(l.change, u.pressure), P(l.pressureAfter)] })),
+        ...ledger.lines.map((l) => ({
+          cells: [String(l.step), ledgerLineLabel(l, a, names), l.kind === 'start' ? '' : signed(l.change, u.pressure), P(l.pressureAfter)],
+        })),
         { cells: ['', 'Residual pressure at the fixture', '', P(ledger.residual)], style: { bold: true } },
         { cells: ['', 'Minimum flow pressure the fixture needs', '', P(ledger.required)] },
-        { cells: ['', `Margin (${ledger.pass ? 'pass' : 'FAIL'})`, '', signed(ledger.margin, u.pressure)], style: ledger.pass ? { bold: true } : { fail: true, bold: true } },
+        {
+          cells: ['', `Margin (${ledger.pass ? 'pass' : 'FAIL'})`, '', signed(ledger.margin, u.pressure)],
+          style: ledger.pass ? { bold: true } : { fail: true, bold: true },
+        },
       ],
       { continued: 'Pressure ledger' },
     );
     L.heading('Pressure profile along the path to the critical fixture', 2, 220);
-    drawProfile(L, profilePoints(a, critical.id), { required: critical.required, pressureUnit: u.pressure, lengthUnit: u.length, fixtureLabel: critical.label });
+    drawProfile(L, profilePoints(a, critical.id), {
+      required: critical.required,
+      pressureUnit: u.pressure,
+      lengthUnit: u.length,
+      fixtureLabel: critical.label,
+    });
   }
 
   L.heading('Velocity check', 2);
@@ -438,7 +517,14 @@ function resultsSection(c: SummaryContext) {
       : `All ${limited.length} segments with a limit are within it at design flow. The ones closest to their limit:`,
   );
   const velocityRows = (failingVelocity.length ? failingVelocity : [...limited].sort((x, y) => ratio(y) - ratio(x)).slice(0, 5)).map((s) => ({
-    cells: [s.label ?? s.id, num(s.designFlow, u.flow), num(s.velocity, u.velocity), num(s.velocityLimit, u.velocity), `${Math.round(ratio(s) * 100)} %`, s.velocityPass === false ? 'FAIL' : 'pass'],
+    cells: [
+      s.label ?? s.id,
+      num(s.designFlow, u.flow),
+      num(s.velocity, u.velocity),
+      num(s.velocityLimit, u.velocity),
+      `${Math.round(ratio(s) * 100)} %`,
+      s.velocityPass === false ? 'FAIL' : 'pass',
+    ],
     style: s.velocityPass === false ? { fail: true } : undefined,
   }));
   if (velocityRows.length)
@@ -481,11 +567,13 @@ function resultsSection(c: SummaryContext) {
         { header: 'What', width: 52, wrap: true },
         { header: 'Where', width: 37, wrap: true },
       ],
-      groupedWarningRows(a, doc).map((w) => ({ cells: [SEVERITY[w.severity] ?? w.severity, w.what, w.where], style: w.severity === 'fail' ? { fail: true } : undefined })),
+      groupedWarningRows(a, doc).map((w) => ({
+        cells: [SEVERITY[w.severity] ?? w.severity, w.what, w.where],
+        style: w.severity === 'fail' ? { fail: true } : undefined,
+      })),
       { continued: 'Warnings' },
     );
   else L.paragraph('No warnings.');
-
 }
 
 /** The pressure zones: the supply's and each one fed through a PRV or booster, with its checks and verdict. */
@@ -524,9 +612,11 @@ function cautionsSection(c: SummaryContext) {
   L.heading('Cautions', 1, 120);
   for (const c of SUMMARY_CAUTIONS) L.paragraph(`•  ${c}`, { indent: 0, after: 4 });
   if (catalogRows.some((r) => !r.verified) || Object.values(a.methods).some((m) => isUnverified(m.source, m as { verified?: boolean }))) {
-    L.paragraph(`•  Some values used here are marked "${UNVERIFIED_NOTE}": they could not be checked against a printed copy of their code, standard or table. Confirm each against the adopted edition before relying on this check.`, { indent: 0, after: 4, font: 'bold' });
+    L.paragraph(
+      `•  Some values used here are marked "${UNVERIFIED_NOTE}": they could not be checked against a printed copy of their code, standard or table. Confirm each against the adopted edition before relying on this check.`,
+      { indent: 0, after: 4, font: 'bold' },
+    );
   }
-
 }
 
 /** The preparer: the attestation recorded at issue, the signature field and the input hash. */
@@ -539,7 +629,7 @@ function preparerSection(c: SummaryContext) {
   L.gap(4);
   signatureBlock(c);
   L.heading('Input hash', 2, 40);
-  L.paragraph('SHA-256 of the revision\'s inputs (canonical JSON); the same hash means the same inputs.', { size: 8, color: COLORS.muted });
+  L.paragraph("SHA-256 of the revision's inputs (canonical JSON); the same hash means the same inputs.", { size: 8, color: COLORS.muted });
   L.paragraph(header.inputHash, { font: 'bold', size: 8.5 });
 }
 
@@ -560,7 +650,10 @@ function ledgerAppendix(c: SummaryContext) {
   );
   const rows: { cells: string[]; style?: { bold?: boolean; fail?: boolean } }[] = [];
   for (const l of ledgers) {
-    rows.push({ cells: [l.title, `${l.pass ? 'passes' : 'FAILS'}: residual ${l.residual}, required ${l.required}`, '', '', 'margin', l.margin], style: l.pass ? { bold: true } : { bold: true, fail: true } });
+    rows.push({
+      cells: [l.title, `${l.pass ? 'passes' : 'FAILS'}: residual ${l.residual}, required ${l.required}`, '', '', 'margin', l.margin],
+      style: l.pass ? { bold: true } : { bold: true, fail: true },
+    });
     if (l.carried) rows.push({ cells: [`carried from the ledger of ${l.carried.from}, after ${l.carried.after}`, '', '', '', '', l.carried.pressure] });
     else if (l.start) rows.push({ cells: [l.start, '', '', '', '', ''] });
     for (const r of l.rows) rows.push({ cells: [r.segment, r.devices, r.friction, r.fittings, r.elevation, r.pressureAfter] });
@@ -602,7 +695,10 @@ function fieldChangeSection(L: Layout, fc: FieldChangeRecord) {
       { header: 'What changed', width: 76, wrap: true },
     ],
     fc.changes.map((c) => ({
-      cells: [`${c.elementType === 'segment' ? 'Segment' : 'Device'} ${c.label}`, c.change === 'changed' ? c.fields.map((f) => `${f.field}: ${f.before ?? 'none'} → ${f.after ?? 'none'}`).join('; ') : c.text],
+      cells: [
+        `${c.elementType === 'segment' ? 'Segment' : 'Device'} ${c.label}`,
+        c.change === 'changed' ? c.fields.map((f) => `${f.field}: ${f.before ?? 'none'} → ${f.after ?? 'none'}`).join('; ') : c.text,
+      ],
     })),
     { continued: 'Field change in this revision' },
   );
@@ -615,7 +711,15 @@ function verdictBox(L: Layout, title: string, lines: string[], fail: boolean) {
   const height = 22 + wrapped.length * leading + 8;
   L.ensure(height + 6);
   L.gap(6);
-  L.page.drawRectangle({ x: L.left, y: L.y - height, width: L.contentWidth, height, color: fail ? COLORS.failBand : COLORS.band, borderColor: fail ? COLORS.fail : COLORS.accent, borderWidth: 0.8 });
+  L.page.drawRectangle({
+    x: L.left,
+    y: L.y - height,
+    width: L.contentWidth,
+    height,
+    color: fail ? COLORS.failBand : COLORS.band,
+    borderColor: fail ? COLORS.fail : COLORS.accent,
+    borderWidth: 0.8,
+  });
   L.draw(title, L.left + 10, L.y - 16, { font: 'bold', size: 10.5, color: fail ? COLORS.fail : COLORS.accent });
   wrapped.forEach((line, i) => L.draw(line, L.left + 10, L.y - 22 - (i + 1) * leading + 3, { size }));
   L.gap(height + 4);
@@ -688,7 +792,10 @@ function worstCaseStatic(L: Layout, a: Analysis) {
   const c = staticCheckContent(a);
   const u = a.units;
   if (!c) {
-    L.paragraph('This revision was analysed before Headroom checked the worst cases of static pressure (boosters at shutoff, a PRV failing open, pipe ratings); they are not part of it.', { size: 8.5, color: COLORS.muted });
+    L.paragraph(
+      'This revision was analysed before Headroom checked the worst cases of static pressure (boosters at shutoff, a PRV failing open, pipe ratings); they are not part of it.',
+      { size: 8.5, color: COLORS.muted },
+    );
     return;
   }
   if (c.boosters.length) {
@@ -707,7 +814,8 @@ function worstCaseStatic(L: Layout, a: Analysis) {
   }
   if (c.prvFailOpen.length) {
     L.heading('If a pressure-reducing valve fails open', 2);
-    for (const r of c.prvFailOpen) L.paragraph(`${r.caution ? 'Caution: ' : ''}${r.text}`, { indent: 0, after: 4, ...(r.caution ? { font: 'bold' as const, color: COLORS.fail } : {}) });
+    for (const r of c.prvFailOpen)
+      L.paragraph(`${r.caution ? 'Caution: ' : ''}${r.text}`, { indent: 0, after: 4, ...(r.caution ? { font: 'bold' as const, color: COLORS.fail } : {}) });
   }
   if (c.pipeRatings.length) {
     L.heading('Pipe pressure ratings against the highest static pressure', 2);

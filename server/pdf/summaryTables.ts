@@ -84,7 +84,9 @@ export function segmentRows(a: Analysis, doc: SystemDocument, names: Names = nam
     const d = docSeg.get(s.id);
     // the catalog label without its parenthesis: "PEX tubing, SDR 9 (copper tube size)" → "PEX tubing, SDR 9"
     const material = d?.material ? (MATERIALS[d.material as keyof typeof MATERIALS]?.label ?? d.material).replace(/\s*\(.*\)\s*$/, '') : 'custom pipe';
-    const fittings = (d?.fittings ?? []).map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`).join('; ');
+    const fittings = (d?.fittings ?? [])
+      .map((f) => `${f.count}× ${f.custom ? fittingLabel(f, u.length) : (FITTING_TYPES[f.typeId]?.label ?? f.typeId)}`)
+      .join('; ');
     return {
       name: names.segment(s.id),
       material,
@@ -174,7 +176,9 @@ export function fixtureLedgers(a: Analysis, doc: SystemDocument, opts: { exclude
       bySegment.set(l.segmentId, r);
     }
     const deviceNames = new Map<string, string[]>();
-    for (const l of ledger.lines) if (l.kind === 'device' && l.segmentId) deviceNames.set(l.segmentId, [...(deviceNames.get(l.segmentId) ?? []), `${l.label} ${signed(l.change, a.units.pressure)}`]);
+    for (const l of ledger.lines)
+      if (l.kind === 'device' && l.segmentId)
+        deviceNames.set(l.segmentId, [...(deviceNames.get(l.segmentId) ?? []), `${l.label} ${signed(l.change, a.units.pressure)}`]);
     const rows = f.path.slice(shared).map((id) => {
       const r = bySegment.get(id)!;
       return {

@@ -27,15 +27,34 @@ export const catalogRepo = {
   find: (db: Tx, projectId: string, kind: CatalogKind, id: string) =>
     db<CatalogEntryRow>('catalog_entries').where({ project_id: projectId, kind, id }).first(COLUMNS) as Promise<CatalogEntryRow | undefined>,
 
-  async insert(db: Tx, v: { projectId: string; kind: CatalogKind; id: string; label: string; source: string; data: unknown; createdBy: string }): Promise<CatalogEntryRow> {
+  async insert(
+    db: Tx,
+    v: { projectId: string; kind: CatalogKind; id: string; label: string; source: string; data: unknown; createdBy: string },
+  ): Promise<CatalogEntryRow> {
     const [row] = await db('catalog_entries')
-      .insert({ project_id: v.projectId, kind: v.kind, id: v.id, label: v.label, source: v.source, from_memory: false, data: JSON.stringify(v.data), created_by: v.createdBy })
+      .insert({
+        project_id: v.projectId,
+        kind: v.kind,
+        id: v.id,
+        label: v.label,
+        source: v.source,
+        from_memory: false,
+        data: JSON.stringify(v.data),
+        created_by: v.createdBy,
+      })
       .returning(COLUMNS);
     return row as CatalogEntryRow;
   },
 
   /** Changes the entry only at `version` (optimistic concurrency); undefined when it was changed meanwhile or is gone. */
-  async update(db: Tx, projectId: string, kind: CatalogKind, id: string, version: number, v: { label?: string; source?: string; data?: unknown }): Promise<CatalogEntryRow | undefined> {
+  async update(
+    db: Tx,
+    projectId: string,
+    kind: CatalogKind,
+    id: string,
+    version: number,
+    v: { label?: string; source?: string; data?: unknown },
+  ): Promise<CatalogEntryRow | undefined> {
     const patch: Record<string, unknown> = { version: db.raw('version + 1'), updated_at: db.fn.now() };
     if (v.label !== undefined) patch.label = v.label;
     if (v.source !== undefined) patch.source = v.source;
@@ -44,5 +63,6 @@ export const catalogRepo = {
     return row as CatalogEntryRow | undefined;
   },
 
-  remove: async (db: Tx, projectId: string, kind: CatalogKind, id: string) => (await db('catalog_entries').where({ project_id: projectId, kind, id }).delete()) === 1,
+  remove: async (db: Tx, projectId: string, kind: CatalogKind, id: string) =>
+    (await db('catalog_entries').where({ project_id: projectId, kind, id }).delete()) === 1,
 };

@@ -69,7 +69,9 @@ export const fieldChangesRepo = {
   listForSystem: (db: Tx, projectId: string, systemId: string) =>
     listQuery(db).where({ 'fc.project_id': projectId, 'fc.system_id': systemId }).orderBy('fc.number', 'desc') as Promise<FieldChangeListRow[]>,
   listForProject: (db: Tx, projectId: string, status?: FieldChangeStatus) => {
-    const q = listQuery(db).where('fc.project_id', projectId).orderBy([{ column: 'fc.updated_at', order: 'desc' }]);
+    const q = listQuery(db)
+      .where('fc.project_id', projectId)
+      .orderBy([{ column: 'fc.updated_at', order: 'desc' }]);
     if (status) q.where('fc.status', status);
     return q as Promise<FieldChangeListRow[]>;
   },
@@ -79,14 +81,25 @@ export const fieldChangesRepo = {
     const row = (await db('field_changes').where({ system_id: systemId }).max({ n: 'number' }).first()) as { n: number | null };
     return (row?.n ?? 0) + 1;
   },
-  async insert(db: Tx, values: Pick<FieldChangeRow, 'project_id' | 'system_id' | 'base_revision_id' | 'number' | 'title' | 'description' | 'document' | 'analysis' | 'engine_version' | 'created_by'>) {
+  async insert(
+    db: Tx,
+    values: Pick<
+      FieldChangeRow,
+      'project_id' | 'system_id' | 'base_revision_id' | 'number' | 'title' | 'description' | 'document' | 'analysis' | 'engine_version' | 'created_by'
+    >,
+  ) {
     const [row] = await db('field_changes')
       .insert({ ...values, document: JSON.stringify(values.document), analysis: JSON.stringify(values.analysis) })
       .returning('*');
     return row as FieldChangeRow;
   },
   /** Optimistic update of a draft; undefined when the version is stale or it is no longer a draft. */
-  async updateDraft(db: Tx, id: string, version: number, values: { title?: string; description?: string; document?: unknown; analysis?: unknown; engine_version?: string }) {
+  async updateDraft(
+    db: Tx,
+    id: string,
+    version: number,
+    values: { title?: string; description?: string; document?: unknown; analysis?: unknown; engine_version?: string },
+  ) {
     const set: Record<string, unknown> = { version: db.raw('version + 1'), updated_at: db.fn.now() };
     if (values.title !== undefined) set.title = values.title;
     if (values.description !== undefined) set.description = values.description;
@@ -109,12 +122,17 @@ export const fieldChangesRepo = {
     const row = await db('revisions as r').join('field_changes as fc', 'fc.id', 'r.field_change_id').where('r.id', revisionId).first('fc.record');
     return (row?.record as FieldChangeRecord | null) ?? null;
   },
-  setRevisionOrigin: (db: Tx, revisionId: string, fieldChangeId: string) => db('revisions').where({ id: revisionId, status: 'draft' }).update({ field_change_id: fieldChangeId }),
+  setRevisionOrigin: (db: Tx, revisionId: string, fieldChangeId: string) =>
+    db('revisions').where({ id: revisionId, status: 'draft' }).update({ field_change_id: fieldChangeId }),
   /** The system's current issued revision, the only one a field change starts on or is decided against. */
   currentIssued: (db: Tx, systemId: string) => db<RevisionRow>('revisions').where({ system_id: systemId, status: 'issued' }).first(),
   /** Project designers, who receive proposed field changes. */
   designers: (db: Tx, projectId: string) =>
-    db('project_members as m').join('users as u', 'u.id', 'm.user_id').where({ 'm.project_id': projectId, 'm.role': 'designer' }).whereNot('u.status', 'disabled').select('u.id', 'u.name', 'u.email') as Promise<{ id: string; name: string; email: string }[]>,
+    db('project_members as m')
+      .join('users as u', 'u.id', 'm.user_id')
+      .where({ 'm.project_id': projectId, 'm.role': 'designer' })
+      .whereNot('u.status', 'disabled')
+      .select('u.id', 'u.name', 'u.email') as Promise<{ id: string; name: string; email: string }[]>,
 };
 
 export type { ChangeItem };

@@ -34,7 +34,12 @@ export const hotWaterSupplyRepo = {
   async refreshDraft(db: Tx, revisionId: string, document: unknown, analysis: AnalysisOutcome, engineVersion: string): Promise<RevisionRow | undefined> {
     const [row] = await db('revisions')
       .where({ id: revisionId, status: 'draft' })
-      .update({ document: JSON.stringify(document), analysis: JSON.stringify(toStoredAnalysis(analysis, engineVersion)), engine_version: engineVersion, updated_at: db.fn.now() } as never)
+      .update({
+        document: JSON.stringify(document),
+        analysis: JSON.stringify(toStoredAnalysis(analysis, engineVersion)),
+        engine_version: engineVersion,
+        updated_at: db.fn.now(),
+      } as never)
       .returning('*');
     return read(row as StoredRow | undefined);
   },

@@ -31,14 +31,30 @@ export interface OutboxRow {
 }
 
 export type NewOutboxMessage = Pick<OutboxRow, 'kind' | 'to_address' | 'subject' | 'text_body' | 'max_attempts'> &
-  Partial<Pick<OutboxRow, 'project_id' | 'revision_id' | 'field_change_id' | 'recipient_user_id' | 'to_name' | 'secret_url' | 'attachment_summary_id' | 'extra_summary_ids' | 'created_by'>>;
+  Partial<
+    Pick<
+      OutboxRow,
+      | 'project_id'
+      | 'revision_id'
+      | 'field_change_id'
+      | 'recipient_user_id'
+      | 'to_name'
+      | 'secret_url'
+      | 'attachment_summary_id'
+      | 'extra_summary_ids'
+      | 'created_by'
+    >
+  >;
 
 export const outboxRepo = {
   async insert(db: Tx, values: NewOutboxMessage): Promise<OutboxRow> {
     const [row] = await db<OutboxRow>('outbox').insert(values).returning('*');
     return row as OutboxRow;
   },
-  listForRevision: (db: Tx, projectId: string, revisionId: string) => db<OutboxRow>('outbox').where({ project_id: projectId, revision_id: revisionId }).orderBy([{ column: 'created_at', order: 'desc' }, 'to_address']),
+  listForRevision: (db: Tx, projectId: string, revisionId: string) =>
+    db<OutboxRow>('outbox')
+      .where({ project_id: projectId, revision_id: revisionId })
+      .orderBy([{ column: 'created_at', order: 'desc' }, 'to_address']),
   find: (db: Tx, projectId: string, id: string) => db<OutboxRow>('outbox').where({ id, project_id: projectId }).first(),
 
   /**
@@ -62,15 +78,29 @@ export const outboxRepo = {
   },
   /** Only the lease holder marks; false when the lease was lost to another worker meanwhile. */
   async markSent(db: Tx, id: string, owner: string, smtpResponse: string): Promise<boolean> {
-    const n = await db('outbox')
-      .where({ id, lease_owner: owner, status: 'sending' })
-      .update({ status: 'sent', sent_at: db.fn.now(), smtp_response: smtpResponse, secret_url: null, lease_owner: null, lease_until: null, last_error: null, updated_at: db.fn.now() });
+    const n = await db('outbox').where({ id, lease_owner: owner, status: 'sending' }).update({
+      status: 'sent',
+      sent_at: db.fn.now(),
+      smtp_response: smtpResponse,
+      secret_url: null,
+      lease_owner: null,
+      lease_until: null,
+      last_error: null,
+      updated_at: db.fn.now(),
+    });
     return n === 1;
   },
   async markRetry(db: Tx, id: string, owner: string, error: string, delayMs: number): Promise<boolean> {
     const n = await db('outbox')
       .where({ id, lease_owner: owner, status: 'sending' })
-      .update({ status: 'queued', last_error: error, lease_owner: null, lease_until: null, next_attempt_at: db.raw(`now() + make_interval(secs => ?)`, [delayMs / 1000]), updated_at: db.fn.now() });
+      .update({
+        status: 'queued',
+        last_error: error,
+        lease_owner: null,
+        lease_until: null,
+        next_attempt_at: db.raw(`now() + make_interval(secs => ?)`, [delayMs / 1000]),
+        updated_at: db.fn.now(),
+      });
     return n === 1;
   },
   /** The one-time link stays: the sender may queue the message again while the link is valid. */
@@ -82,10 +112,16 @@ export const outboxRepo = {
   },
   /** A worker that stops hands back what it claimed but did not try (the attempt is not counted). */
   release: (db: Tx, ids: string[], owner: string) =>
-    db('outbox').whereIn('id', ids).where({ lease_owner: owner, status: 'sending' }).update({ status: 'queued', attempts: db.raw('attempts - 1'), lease_owner: null, lease_until: null, updated_at: db.fn.now() }),
+    db('outbox')
+      .whereIn('id', ids)
+      .where({ lease_owner: owner, status: 'sending' })
+      .update({ status: 'queued', attempts: db.raw('attempts - 1'), lease_owner: null, lease_until: null, updated_at: db.fn.now() }),
   /** A failed message queued again by its sender, with a fresh set of attempts. */
   async requeue(db: Tx, id: string): Promise<OutboxRow | undefined> {
-    const [row] = await db<OutboxRow>('outbox').where({ id, status: 'failed' }).update({ status: 'queued', attempts: 0, next_attempt_at: db.fn.now(), updated_at: db.fn.now() }).returning('*');
+    const [row] = await db<OutboxRow>('outbox')
+      .where({ id, status: 'failed' })
+      .update({ status: 'queued', attempts: 0, next_attempt_at: db.fn.now(), updated_at: db.fn.now() })
+      .returning('*');
     return row as OutboxRow | undefined;
   },
 };

@@ -60,11 +60,19 @@ export const projectsRepo = {
       .select('p.*', 'm.role')
       .orderBy([{ column: 'p.archived' }, { column: 'p.updated_at', order: 'desc' }]),
   findById: (db: Tx, id: string) => db<ProjectRow>('projects').where({ id }).first(),
-  async insert(db: Tx, values: Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'archived' | 'permit'> & { permit?: string } & { created_by: string }) {
+  async insert(
+    db: Tx,
+    values: Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'archived' | 'permit'> & { permit?: string } & { created_by: string },
+  ) {
     const [row] = await db<ProjectRow>('projects').insert(values).returning('*');
     return row;
   },
-  async update(db: Tx, id: string, version: number, values: Partial<Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'permit'>> & { permit?: string }) {
+  async update(
+    db: Tx,
+    id: string,
+    version: number,
+    values: Partial<Omit<ProjectRow, 'id' | 'version' | 'created_at' | 'updated_at' | 'permit'>> & { permit?: string },
+  ) {
     const [row] = await db<ProjectRow>('projects')
       .where({ id, version })
       .update({ ...values, version: db.raw('version + 1'), updated_at: db.fn.now() } as never)
@@ -93,10 +101,15 @@ export const membersRepo = {
   },
   /** Inserts unless already a member; returns false on a duplicate. */
   async insert(db: Tx, projectId: string, userId: string, role: ProjectRole): Promise<boolean> {
-    const rows = await db('project_members').insert({ project_id: projectId, user_id: userId, role }).onConflict(['project_id', 'user_id']).ignore().returning('user_id');
+    const rows = await db('project_members')
+      .insert({ project_id: projectId, user_id: userId, role })
+      .onConflict(['project_id', 'user_id'])
+      .ignore()
+      .returning('user_id');
     return rows.length === 1;
   },
-  setRole: (db: Tx, projectId: string, userId: string, role: ProjectRole) => db('project_members').where({ project_id: projectId, user_id: userId }).update({ role }),
+  setRole: (db: Tx, projectId: string, userId: string, role: ProjectRole) =>
+    db('project_members').where({ project_id: projectId, user_id: userId }).update({ role }),
   remove: (db: Tx, projectId: string, userId: string) => db('project_members').where({ project_id: projectId, user_id: userId }).delete(),
   /** Locks the project's designer rows so two concurrent removals cannot both leave none. */
   async designerIdsForUpdate(db: Tx, projectId: string): Promise<string[]> {

@@ -89,14 +89,20 @@ export const reviewsRepo = {
   forReviewer: (db: Tx, userId: string) =>
     joined(db)
       .where('r.reviewer_id', userId)
-      .whereExists((q) => q.select(db.raw('1')).from('project_members as m').whereRaw('m.project_id = r.project_id').andWhere('m.user_id', userId)) as Promise<ReviewRow[]>,
+      .whereExists((q) => q.select(db.raw('1')).from('project_members as m').whereRaw('m.project_id = r.project_id').andWhere('m.user_id', userId)) as Promise<
+      ReviewRow[]
+    >,
   lock: (db: Tx, projectId: string, id: string) => db<ReviewRow>('reviews').where({ id, project_id: projectId }).forUpdate().first(),
   async decide(db: Tx, id: string, version: number, v: { status: 'accepted' | 'returned'; comment: string }) {
-    const n = await db('reviews').where({ id, version, status: 'received' }).update({ ...v, decided_at: db.fn.now(), version: db.raw('version + 1') });
+    const n = await db('reviews')
+      .where({ id, version, status: 'received' })
+      .update({ ...v, decided_at: db.fn.now(), version: db.raw('version + 1') });
     return n === 1;
   },
   addComments: (db: Tx, reviewId: string, items: { itemType: ReviewCommentRow['item_type']; itemId: string | null; comment: string }[]) =>
-    items.length ? db('review_comments').insert(items.map((i) => ({ review_id: reviewId, item_type: i.itemType, item_id: i.itemId, comment: i.comment }))) : Promise.resolve(),
+    items.length
+      ? db('review_comments').insert(items.map((i) => ({ review_id: reviewId, item_type: i.itemType, item_id: i.itemId, comment: i.comment })))
+      : Promise.resolve(),
   commentsFor: (db: Tx, reviewIds: string[]) =>
     db('review_comments as c')
       .leftJoin('users as ru', 'ru.id', 'c.replied_by')
@@ -106,7 +112,8 @@ export const reviewsRepo = {
       .then((rows: ReviewCommentRow[]) => rows.map((r) => ({ ...r, id: String(r.id) }))),
   /** The comment of that review, locked for the reply. */
   lockComment: (db: Tx, reviewId: string, commentId: string) => db('review_comments').where({ id: commentId, review_id: reviewId }).forUpdate().first('id'),
-  setReply: (db: Tx, commentId: string, reply: string, userId: string) => db('review_comments').where({ id: commentId }).update({ reply, replied_by: userId, replied_at: db.fn.now() }),
+  setReply: (db: Tx, commentId: string, reply: string, userId: string) =>
+    db('review_comments').where({ id: commentId }).update({ reply, replied_by: userId, replied_at: db.fn.now() }),
   /**
    * In the transaction that issues `newRevisionId`: the returned reviews of the system's issued
    * revision (the one about to be superseded) are answered by the new revision; their replies freeze.
@@ -149,8 +156,11 @@ export interface AcceptanceRecordRow {
 }
 
 export const acceptanceRecordsRepo = {
-  insert: (db: Tx, v: { review_id: string; project_id: string; revision_id: string; file_name: string; pdf: Buffer; sha256: string; byte_length: number }) => db('acceptance_records').insert(v),
+  insert: (db: Tx, v: { review_id: string; project_id: string; revision_id: string; file_name: string; pdf: Buffer; sha256: string; byte_length: number }) =>
+    db('acceptance_records').insert(v),
   /** The record's bytes, only when the review is of that project. */
   pdfOf: (db: Tx, projectId: string, reviewId: string) =>
-    db('acceptance_records').where({ review_id: reviewId, project_id: projectId }).first('pdf', 'sha256', 'file_name') as Promise<{ pdf: Buffer; sha256: string; file_name: string } | undefined>,
+    db('acceptance_records').where({ review_id: reviewId, project_id: projectId }).first('pdf', 'sha256', 'file_name') as Promise<
+      { pdf: Buffer; sha256: string; file_name: string } | undefined
+    >,
 };

@@ -50,8 +50,25 @@ export type RevisionSummaryRow = Omit<RevisionRow, 'document' | 'analysis' | 'an
 const revisionColumns = ['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name'];
 /** Every column of `revisions` but the document and the analysis. */
 const SUMMARY_COLUMNS = [
-  'id', 'system_id', 'number', 'status', 'engine_version', 'version', 'input_hash', 'note', 'issued_by', 'issued_at', 'updated_at',
-  'failure_ack_by', 'failure_ack_at', 'failure_ack_statement', 'attestation_by', 'attestation_name', 'attestation_licence', 'attestation_statement', 'attestation_at',
+  'id',
+  'system_id',
+  'number',
+  'status',
+  'engine_version',
+  'version',
+  'input_hash',
+  'note',
+  'issued_by',
+  'issued_at',
+  'updated_at',
+  'failure_ack_by',
+  'failure_ack_at',
+  'failure_ack_statement',
+  'attestation_by',
+  'attestation_name',
+  'attestation_licence',
+  'attestation_statement',
+  'attestation_at',
 ];
 
 /** A row as the database holds it: the analysis in its stored form. */
@@ -78,8 +95,12 @@ export const systemsRepo = {
 export const revisionsRepo = {
   listForSystem: async (db: Tx, systemId: string): Promise<RevisionRow[]> =>
     (
-      (await db('revisions as r').leftJoin('users as u', 'u.id', 'r.issued_by')
-        .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by').where('r.system_id', systemId).select(revisionColumns).orderBy('r.number', 'desc')) as StoredRevisionRow[]
+      (await db('revisions as r')
+        .leftJoin('users as u', 'u.id', 'r.issued_by')
+        .leftJoin('users as ua', 'ua.id', 'r.failure_ack_by')
+        .where('r.system_id', systemId)
+        .select(revisionColumns)
+        .orderBy('r.number', 'desc')) as StoredRevisionRow[]
     ).map((r) => fromDb(r)),
   /** the newest revision of each of the given systems */
   latestForSystems: async (db: Tx, systemIds: string[]): Promise<RevisionRow[]> =>
@@ -111,18 +132,38 @@ export const revisionsRepo = {
         .where('s.project_id', projectId)
         .whereIn('s.id', systemIds)
         .where('v.status', 'issued')
-        .select('v.id', 'v.number', 'v.analysis', 'v.engine_version', 's.id as system_id', 's.name as system_name')) as { id: string; number: number; analysis: unknown; engine_version: string; system_id: string; system_name: string }[]
+        .select('v.id', 'v.number', 'v.analysis', 'v.engine_version', 's.id as system_id', 's.name as system_name')) as {
+        id: string;
+        number: number;
+        analysis: unknown;
+        engine_version: string;
+        system_id: string;
+        system_name: string;
+      }[]
     ).map((r) => ({ ...r, analysis: readStoredAnalysis(r.analysis, r.engine_version).outcome })),
   /** Locks a revision for a save and reads only what the save checks (its document and analysis stay unread). */
   lockForSave: (db: Tx, systemId: string, revisionId: string) =>
-    db('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first('id', 'number', 'status', 'version') as Promise<Pick<RevisionRow, 'id' | 'number' | 'status' | 'version'> | undefined>,
+    db('revisions').where({ id: revisionId, system_id: systemId }).forUpdate().first('id', 'number', 'status', 'version') as Promise<
+      Pick<RevisionRow, 'id' | 'number' | 'status' | 'version'> | undefined
+    >,
   draftOf: async (db: Tx, systemId: string): Promise<RevisionRow | undefined> =>
     fromDb((await db('revisions').where({ system_id: systemId, status: 'draft' }).first()) as StoredRevisionRow | undefined),
   async nextNumber(db: Tx, systemId: string): Promise<number> {
     const row = (await db('revisions').where({ system_id: systemId }).max({ n: 'number' }).first()) as { n: number | null };
     return (row?.n ?? 0) + 1;
   },
-  async insert(db: Tx, values: { system_id: string; number: number; document: unknown; analysis: AnalysisOutcome; engine_version: string; created_by: string; note?: string | null }) {
+  async insert(
+    db: Tx,
+    values: {
+      system_id: string;
+      number: number;
+      document: unknown;
+      analysis: AnalysisOutcome;
+      engine_version: string;
+      created_by: string;
+      note?: string | null;
+    },
+  ) {
     const [row] = await db('revisions')
       .insert({ ...values, document: JSON.stringify(values.document), analysis: storedJson(values.analysis, values.engine_version) })
       .returning('*');
@@ -135,7 +176,13 @@ export const revisionsRepo = {
   async saveDraft(db: Tx, revisionId: string, version: number, document: unknown, analysis: AnalysisOutcome, engineVersion: string) {
     const [row] = await db('revisions')
       .where({ id: revisionId, version, status: 'draft' })
-      .update({ document: JSON.stringify(document), analysis: storedJson(analysis, engineVersion), engine_version: engineVersion, version: db.raw('version + 1'), updated_at: db.fn.now() })
+      .update({
+        document: JSON.stringify(document),
+        analysis: storedJson(analysis, engineVersion),
+        engine_version: engineVersion,
+        version: db.raw('version + 1'),
+        updated_at: db.fn.now(),
+      })
       .returning(SUMMARY_COLUMNS);
     return row as RevisionSummaryRow | undefined;
   },

@@ -29,7 +29,9 @@ export const usersRepo = {
   findByEmail: (db: Tx, email: string) => db<UserRow>('users').where({ email: email.toLowerCase() }).first(),
   list: (db: Tx) => db<UserRow>('users').orderBy([{ column: 'is_admin', order: 'desc' }, 'name']),
   async insert(db: Tx, values: Pick<UserRow, 'email' | 'name' | 'is_admin' | 'account_role'> & Partial<Pick<UserRow, 'password_hash' | 'status'>>) {
-    const [row] = await db<UserRow>('users').insert({ ...values, email: values.email.toLowerCase() }).returning('*');
+    const [row] = await db<UserRow>('users')
+      .insert({ ...values, email: values.email.toLowerCase() })
+      .returning('*');
     return row;
   },
   /** Optimistic update: returns undefined when the version is stale. */
@@ -41,6 +43,8 @@ export const usersRepo = {
     return row as UserRow | undefined;
   },
   async setPassword(db: Tx, id: string, passwordHash: string) {
-    await db('users').where({ id }).update({ password_hash: passwordHash, status: 'active', version: db.raw('version + 1'), updated_at: db.fn.now() });
+    await db('users')
+      .where({ id })
+      .update({ password_hash: passwordHash, status: 'active', version: db.raw('version + 1'), updated_at: db.fn.now() });
   },
 };

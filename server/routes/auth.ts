@@ -62,9 +62,19 @@ export function authRoutes(
     limiter({ name: 'sign-in-client', limit: ctx.config.SIGN_IN_CLIENT_LIMIT, key: client, message: signInMessage, onlyFailures: true }),
   ];
   // also keeps anyone from filling a person's mailbox with reset links
-  const passwordResetLimiter = limiter({ name: 'password-reset', limit: ctx.config.SIGN_IN_LIMIT, key: clientAndEmail, message: 'Too many requests for a new password link. Wait 15 minutes and try again.' });
+  const passwordResetLimiter = limiter({
+    name: 'password-reset',
+    limit: ctx.config.SIGN_IN_LIMIT,
+    key: clientAndEmail,
+    message: 'Too many requests for a new password link. Wait 15 minutes and try again.',
+  });
   /** LINK_LIMIT uses of reset and invitation links per 15 minutes per address: each may cost a password hash (issue 13 finding 3) */
-  const linkLimiter = limiter({ name: 'link', limit: ctx.config.LINK_LIMIT, key: client, message: 'Too many tries with this kind of link. Wait 15 minutes and try again.' });
+  const linkLimiter = limiter({
+    name: 'link',
+    limit: ctx.config.LINK_LIMIT,
+    key: client,
+    message: 'Too many tries with this kind of link. Wait 15 minutes and try again.',
+  });
 
   router.post('/auth/sign-in', ...signInLimiters, async (req, res, next) => {
     const body = parse(SignInBody, req.body);
@@ -102,7 +112,9 @@ export function authRoutes(
   router.post('/auth/password-reset/confirm', linkLimiter, async (req, res, next) => {
     const body = parse(PasswordResetConfirmBody, req.body);
     const { userId } = await passwordResetService.confirm(ctx, body.token, body.password);
-    const done = { message: 'Your password is changed, and every session of your account has ended. Sign in with the new password.' } satisfies PasswordResetDoneResponse;
+    const done = {
+      message: 'Your password is changed, and every session of your account has ended. Sign in with the new password.',
+    } satisfies PasswordResetDoneResponse;
     // the service already removed this browser's session from the store if it was that user's: drop it here too
     if (req.user?.id !== userId) return res.json(done);
     req.session.destroy((err) => {

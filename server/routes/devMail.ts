@@ -13,7 +13,8 @@ import type { ServiceContext } from '../services/context';
 export function devMailRoutes(ctx: ServiceContext): Router {
   const router = Router();
   const enabled: RequestHandler = (req, _res, next) => {
-    if (ctx.config.HEADROOM_DEV_MAIL !== '1' || ctx.config.HEADROOM_DEV_MAIL_PAGE !== '1') throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
+    if (ctx.config.HEADROOM_DEV_MAIL !== '1' || ctx.config.HEADROOM_DEV_MAIL_PAGE !== '1')
+      throw new AppError(404, 'NOT_FOUND', `No API route ${req.method} ${req.path}.`);
     next();
   };
 

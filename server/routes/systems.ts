@@ -4,7 +4,17 @@ import { actorOf, requireProjectRole } from '../http/guards';
 import { systemsService } from '../services/systems';
 import { exportsService } from '../services/exports';
 import { asciiFallback, rfc5987 } from '../http/upload';
-import { CompareQuery, CreateSystemBody, ExportTableParams, IssueBody, NewDraftBody, RevisionParams, SaveDocumentBody, SystemParams, type SaveDocumentResponse } from '../../src/shared/api/systems';
+import {
+  CompareQuery,
+  CreateSystemBody,
+  ExportTableParams,
+  IssueBody,
+  NewDraftBody,
+  RevisionParams,
+  SaveDocumentBody,
+  SystemParams,
+  type SaveDocumentResponse,
+} from '../../src/shared/api/systems';
 import { ProjectParams } from '../../src/shared/api/projects';
 import type { ServiceContext } from '../services/context';
 
@@ -51,14 +61,28 @@ export function systemsRoutes(ctx: ServiceContext): Router {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     const body = parse(SaveDocumentBody, req.body);
     // the revision's summary only (src/shared/api/systems.ts SaveDocumentResponse): the client has the document and its analysis
-    const answer: SaveDocumentResponse = { revision: await systemsService.saveDraft(ctx, actorOf(req.user), projectId, systemId, revisionId, body.document, body.version) };
+    const answer: SaveDocumentResponse = {
+      revision: await systemsService.saveDraft(ctx, actorOf(req.user), projectId, systemId, revisionId, body.document, body.version),
+    };
     res.json(answer);
   });
 
   router.post(`${base}/:systemId/revisions/:revisionId/issue`, designer, async (req, res) => {
     const { projectId, systemId, revisionId } = parse(RevisionParams, req.params);
     const body = parse(IssueBody, req.body);
-    res.json({ revision: await systemsService.issue(ctx, actorOf(req.user), projectId, systemId, revisionId, body.version, body.note ?? null, body.acknowledgeFailure ?? null, body.attestation) });
+    res.json({
+      revision: await systemsService.issue(
+        ctx,
+        actorOf(req.user),
+        projectId,
+        systemId,
+        revisionId,
+        body.version,
+        body.note ?? null,
+        body.acknowledgeFailure ?? null,
+        body.attestation,
+      ),
+    });
   });
 
   // the result for the engineer's report: one table as CSV, or all three as a spreadsheet workbook

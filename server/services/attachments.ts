@@ -39,7 +39,8 @@ export const attachmentsService = {
       const row = await locks.fieldChange(trx, projectId, systemId, fieldChangeId);
       if (!row) throw notFound('The field change');
       if (row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change attaches files to it.');
-      if (row.status !== 'draft' && row.status !== 'proposed') throw conflict(`Field change ${row.number} is ${row.status}; files are attached while it is a draft or proposed.`);
+      if (row.status !== 'draft' && row.status !== 'proposed')
+        throw conflict(`Field change ${row.number} is ${row.status}; files are attached while it is a draft or proposed.`);
       if (file.buffer.length === 0) throw invalid('The file is empty; nothing was stored.', { file: 'Empty file' });
       const type = detectType(file.buffer);
       if (!type) {
@@ -47,7 +48,8 @@ export const attachmentsService = {
           file: 'Not a PDF, JPEG or PNG',
         });
       }
-      if ((await attachmentsRepo.count(trx, fieldChangeId)) >= MAX_ATTACHMENTS) throw conflict(`A field change holds at most ${MAX_ATTACHMENTS} files; remove one first.`);
+      if ((await attachmentsRepo.count(trx, fieldChangeId)) >= MAX_ATTACHMENTS)
+        throw conflict(`A field change holds at most ${MAX_ATTACHMENTS} files; remove one first.`);
       const fileName = sanitizeFileName(file.originalname, type);
       const sha256 = createHash('sha256').update(file.buffer).digest('hex');
       const attachmentId = await attachmentsRepo.insert(trx, {
@@ -60,7 +62,14 @@ export const attachmentsService = {
         content: file.buffer,
         uploaded_by: actor.id,
       });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.attachment-added', subjectType: 'field-change', subjectId: fieldChangeId, details: { attachmentId, fileName, contentType: type, bytes: file.buffer.length, sha256 } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'field-change.attachment-added',
+        subjectType: 'field-change',
+        subjectId: fieldChangeId,
+        details: { attachmentId, fileName, contentType: type, bytes: file.buffer.length, sha256 },
+      });
       return attachmentId;
     });
     return toAttachment((await attachmentsRepo.find(ctx.db, fieldChangeId, id))!, systemId);
@@ -84,7 +93,14 @@ export const attachmentsService = {
       const info = await attachmentsRepo.find(trx, fieldChangeId, attachmentId);
       if (!info) throw notFound('The attachment');
       await attachmentsRepo.remove(trx, fieldChangeId, attachmentId);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.attachment-removed', subjectType: 'field-change', subjectId: fieldChangeId, details: { attachmentId, fileName: info.file_name, sha256: info.sha256 } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'field-change.attachment-removed',
+        subjectType: 'field-change',
+        subjectId: fieldChangeId,
+        details: { attachmentId, fileName: info.file_name, sha256: info.sha256 },
+      });
     });
   },
 };

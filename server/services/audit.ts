@@ -17,7 +17,8 @@ interface AuditRow {
 export const auditService = {
   async list(ctx: ServiceContext, projectId: string, q: { before?: number; limit: number }): Promise<{ entries: AuditEntry[]; nextBefore: number | null }> {
     // the read side of server/repositories/audit.ts (which only records)
-    const query = ctx.db('audit_log as a')
+    const query = ctx
+      .db('audit_log as a')
       .leftJoin('users as u', 'u.id', 'a.actor_id')
       .where('a.project_id', projectId)
       .select('a.id', 'a.at', 'a.actor_id', 'u.name as actor_name', 'a.action', 'a.subject_type', 'a.subject_id', 'a.details')

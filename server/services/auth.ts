@@ -8,8 +8,7 @@ import { auditRepo } from '../repositories/audit';
 import type { ServiceContext } from './context';
 import type { InvitationInfo, User } from '../../src/shared/api/auth';
 
-const invalidInvitation = () =>
-  new ServiceError('INVITATION_INVALID', 'This link has expired or was already used. Ask your administrator for a new one.');
+const invalidInvitation = () => new ServiceError('INVITATION_INVALID', 'This link has expired or was already used. Ask your administrator for a new one.');
 
 export const authService = {
   /** The same answer for an unknown e-mail and a wrong password: no user enumeration. */

@@ -30,9 +30,13 @@ function stored(kind: CatalogKind, data: unknown): unknown {
 
 /** Back to the body's shape (the derived nominal size dropped), then presented. */
 function present(row: CatalogEntryRow): ProjectCatalogEntry {
-  const data = row.kind === 'material'
-    ? { ...(row.data as object), sizes: (row.data as { sizes: { key: string; innerDiameterM: number }[] }).sizes.map((s) => ({ key: s.key, innerDiameterM: s.innerDiameterM })) }
-    : row.data;
+  const data =
+    row.kind === 'material'
+      ? {
+          ...(row.data as object),
+          sizes: (row.data as { sizes: { key: string; innerDiameterM: number }[] }).sizes.map((s) => ({ key: s.key, innerDiameterM: s.innerDiameterM })),
+        }
+      : row.data;
   return ProjectCatalogEntry.parse({
     kind: row.kind,
     id: row.id,
@@ -61,19 +65,52 @@ export const catalogService = {
 
   async add(ctx: ServiceContext, actor: Actor, projectId: string, body: CreateCatalogEntryBody): Promise<ProjectCatalogEntry> {
     return ctx.db.transaction(async (trx) => {
-      const row = await catalogRepo.insert(trx, { projectId, kind: body.kind, id: randomUUID(), label: body.label, source: body.source, data: stored(body.kind, body.data), createdBy: actor.id });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'catalog.entry-added', subjectType: 'catalog-entry', subjectId: row.id, details: { kind: row.kind, label: row.label, source: row.source } });
+      const row = await catalogRepo.insert(trx, {
+        projectId,
+        kind: body.kind,
+        id: randomUUID(),
+        label: body.label,
+        source: body.source,
+        data: stored(body.kind, body.data),
+        createdBy: actor.id,
+      });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'catalog.entry-added',
+        subjectType: 'catalog-entry',
+        subjectId: row.id,
+        details: { kind: row.kind, label: row.label, source: row.source },
+      });
       return present(row);
     });
   },
 
-  async update(ctx: ServiceContext, actor: Actor, projectId: string, kind: CatalogKind, id: string, body: UpdateCatalogEntryBody): Promise<ProjectCatalogEntry> {
+  async update(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    kind: CatalogKind,
+    id: string,
+    body: UpdateCatalogEntryBody,
+  ): Promise<ProjectCatalogEntry> {
     return ctx.db.transaction(async (trx) => {
       if (!(await catalogRepo.find(trx, projectId, kind, id))) throw notFound('The catalog entry');
-      const row = await catalogRepo.update(trx, projectId, kind, id, body.version, { label: body.label, source: body.source, data: body.data === undefined ? undefined : stored(kind, body.data) });
+      const row = await catalogRepo.update(trx, projectId, kind, id, body.version, {
+        label: body.label,
+        source: body.source,
+        data: body.data === undefined ? undefined : stored(kind, body.data),
+      });
       if (!row) throw staleVersion();
       const changed = (['label', 'source', 'data'] as const).filter((k) => body[k] !== undefined);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'catalog.entry-changed', subjectType: 'catalog-entry', subjectId: id, details: { kind, label: row.label, changed, version: row.version } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'catalog.entry-changed',
+        subjectType: 'catalog-entry',
+        subjectId: id,
+        details: { kind, label: row.label, changed, version: row.version },
+      });
       return present(row);
     });
   },
@@ -82,7 +119,14 @@ export const catalogService = {
     await ctx.db.transaction(async (trx) => {
       const row = await catalogRepo.find(trx, projectId, kind, id);
       if (!row || !(await catalogRepo.remove(trx, projectId, kind, id))) throw notFound('The catalog entry');
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'catalog.entry-removed', subjectType: 'catalog-entry', subjectId: id, details: { kind, label: row.label } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'catalog.entry-removed',
+        subjectType: 'catalog-entry',
+        subjectId: id,
+        details: { kind, label: row.label },
+      });
     });
   },
 };

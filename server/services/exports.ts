@@ -21,7 +21,11 @@ async function tablesOf(ctx: ServiceContext, projectId: string, systemId: string
   if (!stored.ok) {
     throw conflict(`Revision ${revision.number} cannot be computed (${stored.error.message}); there is nothing to export.`);
   }
-  const tables = resultTables(stored.analysis, revision.document as SystemDocument, { systemName: system.name, revisionNumber: revision.number, status: revision.status });
+  const tables = resultTables(stored.analysis, revision.document as SystemDocument, {
+    systemName: system.name,
+    revisionNumber: revision.number,
+    status: revision.status,
+  });
   const base = `${system.name} rev ${revision.number}`.replace(/[^\p{L}\p{N} ._-]+/gu, '').trim() || 'headroom';
   return { tables, base, revision };
 }

@@ -26,16 +26,23 @@ function verdictSentence(issued: Analysis | null, proposed: Analysis, unit: stri
   const parts: string[] = [];
   if (failingFixtures.length) {
     const worst = failingFixtures[0];
-    parts.push(`Fails at ${worst.label} by ${P(-worst.margin)}${failingFixtures.length > 1 ? ` (and ${failingFixtures.length - 1} more checked fixture${failingFixtures.length > 2 ? 's' : ''} fall short)` : ''}`);
+    parts.push(
+      `Fails at ${worst.label} by ${P(-worst.margin)}${failingFixtures.length > 1 ? ` (and ${failingFixtures.length - 1} more checked fixture${failingFixtures.length > 2 ? 's' : ''} fall short)` : ''}`,
+    );
   }
   const fastSegments = proposed.segments.filter((s) => s.velocityPass === false);
   if (fastSegments.length) {
     const s = fastSegments[0];
     const u = proposed.units.velocity;
-    parts.push(`${parts.length ? 'and' : 'Fails:'} segment ${s.label ?? s.id} runs at ${num(s.velocity, u)} ${u}, above its limit of ${num(s.velocityLimit, u)} ${u}${fastSegments.length > 1 ? ` (${fastSegments.length - 1} more segment(s) over their limit)` : ''}`);
+    parts.push(
+      `${parts.length ? 'and' : 'Fails:'} segment ${s.label ?? s.id} runs at ${num(s.velocity, u)} ${u}, above its limit of ${num(s.velocityLimit, u)} ${u}${fastSegments.length > 1 ? ` (${fastSegments.length - 1} more segment(s) over their limit)` : ''}`,
+    );
   }
   const highStatic = proposed.nodes.filter((n) => n.staticPass === false);
-  if (highStatic.length) parts.push(`${parts.length ? 'and' : 'Fails:'} the static pressure at ${highStatic[0].label ?? highStatic[0].id} is ${P(highStatic[0].staticPressureHigh)}, above the maximum of ${P(proposed.criteria.maxStaticPressure)}`);
+  if (highStatic.length)
+    parts.push(
+      `${parts.length ? 'and' : 'Fails:'} the static pressure at ${highStatic[0].label ?? highStatic[0].id} is ${P(highStatic[0].staticPressureHigh)}, above the maximum of ${P(proposed.criteria.maxStaticPressure)}`,
+    );
   if (parts.length) return `${parts.join(' ')}.`;
   if (!now) return 'Still passes; the system has no checked fixtures, so no margin was compared.';
   if (!before) return `Passes; the smallest margin is ${P(now.margin)} at ${now.label}.`;
@@ -62,7 +69,16 @@ const warningOut = ({ w, elementId }: { w: EngineWarning; elementId: string | nu
 
 const segmentNumbers = (a: Analysis | null, id: string) => {
   const s = a?.segments.find((x) => x.id === id);
-  return s ? { frictionLoss: s.frictionLoss, fittingLoss: s.fittingLoss, loss: s.frictionLoss + s.fittingLoss, velocity: s.velocity, velocityPass: s.velocityPass, designFlow: s.designFlow } : null;
+  return s
+    ? {
+        frictionLoss: s.frictionLoss,
+        fittingLoss: s.fittingLoss,
+        loss: s.frictionLoss + s.fittingLoss,
+        velocity: s.velocity,
+        velocityPass: s.velocityPass,
+        designFlow: s.designFlow,
+      }
+    : null;
 };
 const deviceLoss = (a: Analysis | null, id: string) => {
   for (const s of a?.segments ?? []) for (const d of s.devices) if (d.deviceId === id) return d.loss;
@@ -101,7 +117,15 @@ export function compareDocuments(issuedDoc: SystemDocument, proposedDoc: SystemD
     .map((c) => {
       const before = segmentNumbers(a, c.elementId);
       const after = segmentNumbers(b, c.elementId);
-      return { id: c.elementId, label: c.label, changes: c.fields, issued: before, proposed: after, lossDifference: diff(before?.loss, after?.loss), velocityDifference: diff(before?.velocity, after?.velocity) };
+      return {
+        id: c.elementId,
+        label: c.label,
+        changes: c.fields,
+        issued: before,
+        proposed: after,
+        lossDifference: diff(before?.loss, after?.loss),
+        velocityDifference: diff(before?.velocity, after?.velocity),
+      };
     });
   const devices = changes
     .filter((c) => c.elementType === 'device')
@@ -136,6 +160,3 @@ export function compareDocuments(issuedDoc: SystemDocument, proposedDoc: SystemD
     resolvedWarnings,
   };
 }
-
-/** The verdict in one line for an e-mail (the sentence of the comparison). */
-export const verdictOfChange = (issuedDoc: SystemDocument, proposedDoc: SystemDocument) => compareDocuments(issuedDoc, proposedDoc, []).verdict.sentence;

@@ -73,7 +73,8 @@ export function mergeFieldChange(issued: SystemDocument, proposed: SystemDocumen
   // a device carried over must sit on a segment the draft has
   const segmentIds = new Set(document.segments.map((s) => s.id));
   for (const d of document.devices) {
-    if (!segmentIds.has(d.segmentId) && proposedDevices.has(d.id)) conflicts[`document.devices.${d.id}.segmentId`] = 'The draft no longer has the segment this device sits on';
+    if (!segmentIds.has(d.segmentId) && proposedDevices.has(d.id))
+      conflicts[`document.devices.${d.id}.segmentId`] = 'The draft no longer has the segment this device sits on';
   }
   return { document, conflicts };
 }

@@ -61,7 +61,8 @@ export function forbiddenDifferences(issued: SystemDocument, proposed: SystemDoc
   const fields: Record<string, string> = {};
   const keep = 'Stays as issued: the designer changes this, not a field change';
   const top = [...new Set([...Object.keys(issued), ...Object.keys(proposed)])].filter((k) => k !== 'segments' && k !== 'devices');
-  for (const k of top) for (const p of differingPaths(issued[k as keyof SystemDocument], proposed[k as keyof SystemDocument], `document.${k}`)) fields[p] = keep;
+  for (const k of top)
+    for (const p of differingPaths(issued[k as keyof SystemDocument], proposed[k as keyof SystemDocument], `document.${k}`)) fields[p] = keep;
 
   const before = new Map(issued.segments.map((s) => [s.id, s]));
   const after = new Map(proposed.segments.map((s) => [s.id, s]));
@@ -82,7 +83,8 @@ export function forbiddenDifferences(issued: SystemDocument, proposed: SystemDoc
 
 const materialLabel = (id: string | undefined) => (id ? (MATERIALS[id as keyof typeof MATERIALS]?.label ?? id) : null);
 /** A custom fitting (project data) prints its own label and value (src/engine/model/labels.ts). */
-const fittingsText = (f: Segment['fittings']) => (f.length ? f.map((x) => `${x.count}× ${x.custom ? fittingLabel(x) : (FITTING_TYPES[x.typeId]?.label ?? x.typeId)}`).join('; ') : 'none');
+const fittingsText = (f: Segment['fittings']) =>
+  f.length ? f.map((x) => `${x.count}× ${x.custom ? fittingLabel(x) : (FITTING_TYPES[x.typeId]?.label ?? x.typeId)}`).join('; ') : 'none';
 
 function deviceLossText(d: Device, pressure: string, flow: string): string {
   if (d.loss.kind === 'fixed') return `fixed loss ${num(d.loss.loss, pressure)} ${pressure}`;
@@ -94,7 +96,8 @@ function segmentFields(s: Segment, t: Segment, length: string, diameter: string)
   if (s.material !== t.material) out.push({ field: 'material', before: materialLabel(s.material), after: materialLabel(t.material) });
   if (s.size !== t.size) out.push({ field: 'size', before: s.size ?? null, after: t.size ?? null });
   if (!same(s.custom, t.custom)) {
-    const c = (x: Segment['custom']) => (x ? `custom pipe, inside diameter ${num(x.innerDiameter, diameter)} ${diameter}, roughness ${x.roughness} ${diameter}, C ${x.hazenWilliamsC}` : null);
+    const c = (x: Segment['custom']) =>
+      x ? `custom pipe, inside diameter ${num(x.innerDiameter, diameter)} ${diameter}, roughness ${x.roughness} ${diameter}, C ${x.hazenWilliamsC}` : null;
     out.push({ field: 'custom', before: c(s.custom), after: c(t.custom) });
   }
   if (s.length !== t.length) out.push({ field: 'length', before: `${num(s.length, length)} ${length}`, after: `${num(t.length, length)} ${length}` });
@@ -108,8 +111,14 @@ function deviceFields(d: Device, e: Device, pressure: string, flow: string): Cha
   if (d.label !== e.label) out.push({ field: 'label', before: d.label, after: e.label });
   if (d.segmentId !== e.segmentId) out.push({ field: 'segmentId', before: d.segmentId, after: e.segmentId });
   if (!same(d.loss, e.loss)) out.push({ field: 'loss', before: deviceLossText(d, pressure, flow), after: deviceLossText(e, pressure, flow) });
-  if (!same(d.prv, e.prv)) out.push({ field: 'prv', before: d.prv ? `set ${num(d.prv.setPressure, pressure)} ${pressure}` : null, after: e.prv ? `set ${num(e.prv.setPressure, pressure)} ${pressure}` : null });
-  if (!same(d.boost, e.boost)) out.push({ field: 'boost', before: d.boost ? boosterText(d.boost, pressure) : null, after: e.boost ? boosterText(e.boost, pressure) : null });
+  if (!same(d.prv, e.prv))
+    out.push({
+      field: 'prv',
+      before: d.prv ? `set ${num(d.prv.setPressure, pressure)} ${pressure}` : null,
+      after: e.prv ? `set ${num(e.prv.setPressure, pressure)} ${pressure}` : null,
+    });
+  if (!same(d.boost, e.boost))
+    out.push({ field: 'boost', before: d.boost ? boosterText(d.boost, pressure) : null, after: e.boost ? boosterText(e.boost, pressure) : null });
   return out;
 }
 
@@ -128,7 +137,8 @@ export function describeChanges(issued: SystemDocument, proposed: SystemDocument
     if (!t) continue; // refused by forbiddenDifferences
     const fields = segmentFields(s, t, u.length, u.diameter);
     const label = s.label ?? s.id;
-    if (fields.length) items.push({ elementType: 'segment', elementId: s.id, label, change: 'changed', fields, text: sentence('Segment', label, 'changed', fields) });
+    if (fields.length)
+      items.push({ elementType: 'segment', elementId: s.id, label, change: 'changed', fields, text: sentence('Segment', label, 'changed', fields) });
   }
   const devicesAfter = new Map(proposed.devices.map((d) => [d.id, d]));
   const devicesBefore = new Map(issued.devices.map((d) => [d.id, d]));
@@ -139,12 +149,20 @@ export function describeChanges(issued: SystemDocument, proposed: SystemDocument
       continue;
     }
     const fields = deviceFields(d, e, u.pressure, u.flow);
-    if (fields.length) items.push({ elementType: 'device', elementId: d.id, label: e.label, change: 'changed', fields, text: sentence('Device', e.label, 'changed', fields) });
+    if (fields.length)
+      items.push({ elementType: 'device', elementId: d.id, label: e.label, change: 'changed', fields, text: sentence('Device', e.label, 'changed', fields) });
   }
   for (const e of proposed.devices) {
     if (devicesBefore.has(e.id)) continue;
     const fields: ChangeField[] = [{ field: 'loss', before: null, after: deviceLossText(e, u.pressure, u.flow) }];
-    items.push({ elementType: 'device', elementId: e.id, label: e.label, change: 'added', fields, text: `Device ${e.label} added on segment ${e.segmentId} (${fields[0].after})` });
+    items.push({
+      elementType: 'device',
+      elementId: e.id,
+      label: e.label,
+      change: 'added',
+      fields,
+      text: `Device ${e.label} added on segment ${e.segmentId} (${fields[0].after})`,
+    });
   }
   return items;
 }

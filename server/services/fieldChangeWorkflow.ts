@@ -39,19 +39,43 @@ const decided = 'it is decided already.';
 
 export const TRANSITIONS: Readonly<Record<FieldChangeAction, Transition>> = Object.freeze({
   save: {
-    action: 'save', from: 'draft', to: 'draft', by: 'author', audit: 'field-change.saved', mail: null,
-    refusal: { proposed: 'only a draft field change is edited.', accepted: 'only a draft field change is edited.', declined: 'only a draft field change is edited.' },
+    action: 'save',
+    from: 'draft',
+    to: 'draft',
+    by: 'author',
+    audit: 'field-change.saved',
+    mail: null,
+    refusal: {
+      proposed: 'only a draft field change is edited.',
+      accepted: 'only a draft field change is edited.',
+      declined: 'only a draft field change is edited.',
+    },
   },
   propose: {
-    action: 'propose', from: 'draft', to: 'proposed', by: 'author', audit: 'field-change.proposed', mail: 'designers',
+    action: 'propose',
+    from: 'draft',
+    to: 'proposed',
+    by: 'author',
+    audit: 'field-change.proposed',
+    mail: 'designers',
     refusal: { proposed: 'only a draft is proposed.', accepted: 'only a draft is proposed.', declined: 'only a draft is proposed.' },
   },
   accept: {
-    action: 'accept', from: 'proposed', to: 'accepted', by: 'designer', audit: 'field-change.accepted', mail: 'author',
+    action: 'accept',
+    from: 'proposed',
+    to: 'accepted',
+    by: 'designer',
+    audit: 'field-change.accepted',
+    mail: 'author',
     refusal: { draft: 'its contractor proposes it before it is accepted.', accepted: decided, declined: decided },
   },
   decline: {
-    action: 'decline', from: 'proposed', to: 'declined', by: 'designer', audit: 'field-change.declined', mail: 'author',
+    action: 'decline',
+    from: 'proposed',
+    to: 'declined',
+    by: 'designer',
+    audit: 'field-change.declined',
+    mail: 'author',
     refusal: { draft: 'its contractor proposes it before it is declined.', accepted: decided, declined: decided },
   },
 });
@@ -83,14 +107,20 @@ export interface TransitionRequest {
  * Runs one transition of the table. `step` does the action's own checks and work inside the
  * transaction, after the locks and the state, actor and version checks, and before the row moves.
  */
-export async function runTransition<T>(ctx: ServiceContext, actor: Actor, req: TransitionRequest, step: (trx: Tx, row: FieldChangeRow) => Promise<StepOutcome<T>>): Promise<T> {
+export async function runTransition<T>(
+  ctx: ServiceContext,
+  actor: Actor,
+  req: TransitionRequest,
+  step: (trx: Tx, row: FieldChangeRow) => Promise<StepOutcome<T>>,
+): Promise<T> {
   const t = TRANSITIONS[req.action];
   return ctx.db.transaction(async (trx) => {
     await locks.system(trx, req.systemId);
     const row = await locks.fieldChange(trx, req.projectId, req.systemId, req.id);
     if (!row) throw notFound('The field change');
     if (t.by === 'author' && row.created_by !== actor.id) throw forbidden('Only the contractor who started this field change changes it.');
-    if (row.status !== t.from) throw conflict(`Field change ${row.number} is ${stateWords[row.status]}; ${t.refusal[row.status] ?? 'that step does not apply.'}`);
+    if (row.status !== t.from)
+      throw conflict(`Field change ${row.number} is ${stateWords[row.status]}; ${t.refusal[row.status] ?? 'that step does not apply.'}`);
     if (row.version !== req.version) throw staleVersion();
 
     const outcome = await step(trx, row);
@@ -101,9 +131,21 @@ export async function runTransition<T>(ctx: ServiceContext, actor: Actor, req: T
         : await fieldChangesRepo.transition(trx, row.id, req.version, t.from, t.to, outcome.set ?? {});
     if (!moved) throw staleVersion();
 
-    await auditRepo.record(trx, { actorId: actor.id, projectId: req.projectId, action: t.audit, subjectType: 'field-change', subjectId: row.id, details: { number: row.number, ...(t.action === 'save' ? { version: moved.version } : {}), ...outcome.details } });
+    await auditRepo.record(trx, {
+      actorId: actor.id,
+      projectId: req.projectId,
+      action: t.audit,
+      subjectType: 'field-change',
+      subjectId: row.id,
+      details: { number: row.number, ...(t.action === 'save' ? { version: moved.version } : {}), ...outcome.details },
+    });
     for (const a of outcome.moreAudit ?? []) await auditRepo.record(trx, { actorId: actor.id, projectId: req.projectId, ...a });
-    const recipients = !t.mail || !outcome.message ? [] : t.mail === 'designers' ? await fieldChangesRepo.designers(trx, req.projectId) : [await usersRepo.findById(trx, row.created_by)].filter((u) => !!u);
+    const recipients =
+      !t.mail || !outcome.message
+        ? []
+        : t.mail === 'designers'
+          ? await fieldChangesRepo.designers(trx, req.projectId)
+          : [await usersRepo.findById(trx, row.created_by)].filter((u) => !!u);
     for (const to of recipients) {
       const m = outcome.message!(to);
       await outboxService.enqueue(ctx, trx, {

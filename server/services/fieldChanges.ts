@@ -71,7 +71,11 @@ function requireCurrent(base: RevisionRow | undefined, row: FieldChangeRow, curr
 }
 
 async function mailContext(ctx: ServiceContext, trx: Tx, row: FieldChangeRow) {
-  const [project, system, base] = await Promise.all([projectsRepo.findById(trx, row.project_id), systemsRepo.find(trx, row.project_id, row.system_id), revisionsRepo.find(trx, row.system_id, row.base_revision_id)]);
+  const [project, system, base] = await Promise.all([
+    projectsRepo.findById(trx, row.project_id),
+    systemsRepo.find(trx, row.project_id, row.system_id),
+    revisionsRepo.find(trx, row.system_id, row.base_revision_id),
+  ]);
   return {
     projectName: project?.name ?? '',
     systemName: system?.name ?? '',
@@ -106,7 +110,9 @@ export const fieldChangesService = {
       if (!base) throw notFound('The revision');
       if (base.status !== 'issued') {
         const current = await fieldChangesRepo.currentIssued(trx, systemId);
-        throw conflict(`Revision ${base.number} is ${base.status === 'draft' ? 'a draft' : 'superseded'}; a field change starts on the current issued revision${current ? ` (revision ${current.number})` : ', and this system has none yet'}.`);
+        throw conflict(
+          `Revision ${base.number} is ${base.status === 'draft' ? 'a draft' : 'superseded'}; a field change starts on the current issued revision${current ? ` (revision ${current.number})` : ', and this system has none yet'}.`,
+        );
       }
       const document = doc(base.document);
       const number = await fieldChangesRepo.nextNumber(trx, systemId);
@@ -122,14 +128,28 @@ export const fieldChangesService = {
         engine_version: ENGINE_VERSION,
         created_by: actor.id,
       });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'field-change.created', subjectType: 'field-change', subjectId: row.id, details: { number, title: body.title, baseRevision: base.number } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'field-change.created',
+        subjectType: 'field-change',
+        subjectId: row.id,
+        details: { number, title: body.title, baseRevision: base.number },
+      });
       return row.id;
     });
     return this.get(ctx, projectId, systemId, id);
   },
 
   /** Saves a draft's title, description and document; a document may differ from the issued one only where a field change may. */
-  async update(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, id: string, body: { title?: string; description?: string; document?: SystemDocument; version: number }): Promise<FieldChange> {
+  async update(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    systemId: string,
+    id: string,
+    body: { title?: string; description?: string; document?: SystemDocument; version: number },
+  ): Promise<FieldChange> {
     await runTransition(ctx, actor, { projectId, systemId, id, version: body.version, action: 'save' }, async (trx, row) => {
       let analysis: unknown;
       if (body.document) {
@@ -139,14 +159,23 @@ export const fieldChangesService = {
         if (paths.length) {
           throw new ServiceError(
             'FORBIDDEN',
-            `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths.slice(0, 8).map((p) => p.replace(/^document\./, '')).join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
+            `A field change may change only the segments' material, size, custom pipe data, length and fittings, and the devices. These stay as issued: ${paths
+              .slice(0, 8)
+              .map((p) => p.replace(/^document\./, ''))
+              .join(', ')}${paths.length > 8 ? ` and ${paths.length - 8} more` : ''}.`,
             fields,
           );
         }
         analysis = analyse(body.document);
       }
       return {
-        set: { title: body.title, description: body.description, document: body.document, analysis, engine_version: body.document ? ENGINE_VERSION : undefined },
+        set: {
+          title: body.title,
+          description: body.description,
+          document: body.document,
+          analysis,
+          engine_version: body.document ? ENGINE_VERSION : undefined,
+        },
         details: { document: !!body.document, ...(body.title !== undefined ? { title: body.title } : {}) },
         result: undefined,
       };
@@ -169,7 +198,17 @@ export const fieldChangesService = {
       return {
         set: { proposed_at: trx.fn.now() },
         details: { to: designers.map((d) => d.email), changes: changes.map((c) => c.text) },
-        message: (to) => fieldChangeProposedMessage({ ...m, recipientName: to.name, contractorName: contractor?.name ?? 'A contractor', number: row.number, title: row.title, description: row.description, changes: changes.map((c) => c.text), verdict }),
+        message: (to) =>
+          fieldChangeProposedMessage({
+            ...m,
+            recipientName: to.name,
+            contractorName: contractor?.name ?? 'A contractor',
+            number: row.number,
+            title: row.title,
+            description: row.description,
+            changes: changes.map((c) => c.text),
+            verdict,
+          }),
         result: undefined,
       };
     });
@@ -192,7 +231,10 @@ export const fieldChangesService = {
         // draft, unless the designer changed the same thing differently (then nothing is merged).
         const merged = mergeFieldChange(doc(m.base!.document), doc(row.document), doc(existing.document));
         if (Object.keys(merged.conflicts).length) {
-          throw conflict(`Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`, merged.conflicts);
+          throw conflict(
+            `Revision ${existing.number} is a draft that changes some of the same things as field change ${row.number}; nothing was merged. Settle the fields named, then accept again.`,
+            merged.conflicts,
+          );
         }
         const saved = await revisionsRepo.saveDraft(trx, existing.id, existing.version, merged.document, analyse(merged.document), ENGINE_VERSION);
         if (!saved) throw staleVersion();
@@ -226,8 +268,25 @@ export const fieldChangesService = {
       return {
         set: { decided_by: actor.id, decided_at: acceptedAt, accepted_revision_id: revision.id, record: JSON.stringify(record) },
         details: { revision: revision.number, comment },
-        moreAudit: [{ action: 'revision.drafted', subjectType: 'revision', subjectId: revision.id, details: { number: revision.number, from: m.baseRevisionNumber, fieldChangeId: id } }],
-        message: (to) => fieldChangeDecidedMessage({ ...m, recipientName: to.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'accepted', text: comment, newRevisionNumber: revision.number }),
+        moreAudit: [
+          {
+            action: 'revision.drafted',
+            subjectType: 'revision',
+            subjectId: revision.id,
+            details: { number: revision.number, from: m.baseRevisionNumber, fieldChangeId: id },
+          },
+        ],
+        message: (to) =>
+          fieldChangeDecidedMessage({
+            ...m,
+            recipientName: to.name,
+            designerName: designer?.name ?? 'The designer',
+            number: row.number,
+            title: row.title,
+            decision: 'accepted',
+            text: comment,
+            newRevisionNumber: revision.number,
+          }),
         result: revision.id,
       };
     });
@@ -241,7 +300,17 @@ export const fieldChangesService = {
       return {
         set: { decided_by: actor.id, decided_at: trx.fn.now(), decline_reason: reason },
         details: { reason },
-        message: (to) => fieldChangeDecidedMessage({ ...m, recipientName: to.name, designerName: designer?.name ?? 'The designer', number: row.number, title: row.title, decision: 'declined', text: reason, newRevisionNumber: null }),
+        message: (to) =>
+          fieldChangeDecidedMessage({
+            ...m,
+            recipientName: to.name,
+            designerName: designer?.name ?? 'The designer',
+            number: row.number,
+            title: row.title,
+            decision: 'declined',
+            text: reason,
+            newRevisionNumber: null,
+          }),
         result: undefined,
       };
     });
@@ -254,6 +323,10 @@ export const fieldChangesService = {
     if (!row) throw notFound('The field change');
     const issuedDoc = doc(row.base_document);
     const proposedDoc = doc(row.document);
-    return { fieldChangeId: id, baseRevision: { id: row.base_revision_id, number: row.base_number }, ...compareDocuments(issuedDoc, proposedDoc, describeChanges(issuedDoc, proposedDoc)) };
+    return {
+      fieldChangeId: id,
+      baseRevision: { id: row.base_revision_id, number: row.base_number },
+      ...compareDocuments(issuedDoc, proposedDoc, describeChanges(issuedDoc, proposedDoc)),
+    };
   },
 };

@@ -54,6 +54,10 @@ export function sanitizeFileName(original: string, type: DetectedType): string {
   base = base.replace(/[.\s]+$/, '');
   if (!base || RESERVED_BASE.test(base.split('.')[0])) base = `attachment${base ? `-${base}` : ''}`;
   const room = MAX_FILE_NAME_LENGTH - keptExt.length - 1;
-  base = [...base].slice(0, room).join('').replace(/[.\s]+$/, '') || 'attachment';
+  base =
+    [...base]
+      .slice(0, room)
+      .join('')
+      .replace(/[.\s]+$/, '') || 'attachment';
   return `${base}.${keptExt}`;
 }

@@ -20,7 +20,12 @@ async function coldView(db: Tx, projectId: string, systemId: string): Promise<Co
     name: system.name,
     service: system.service,
     revision: revision
-      ? { number: revision.number, status: revision.status === 'draft' ? 'draft' : 'issued', analysis: revision.analysis as NonNullable<ColdSupplyView['revision']>['analysis'], document: revision.document }
+      ? {
+          number: revision.number,
+          status: revision.status === 'draft' ? 'draft' : 'issued',
+          analysis: revision.analysis as NonNullable<ColdSupplyView['revision']>['analysis'],
+          document: revision.document,
+        }
       : null,
   };
 }
@@ -48,7 +53,10 @@ export const hotWaterSupply = {
   async refreshDependents(db: Tx, projectId: string, coldSystemId: string): Promise<void> {
     const hot = await hotWaterSupplyRepo.hotSystems(db, projectId);
     if (hot.length === 0) return;
-    const drafts = await hotWaterSupplyRepo.drafts(db, hot.map((s) => s.id));
+    const drafts = await hotWaterSupplyRepo.drafts(
+      db,
+      hot.map((s) => s.id),
+    );
     for (const draft of drafts) {
       if (fedFromOf(draft.document)?.systemId === coldSystemId) await this.refreshRow(db, projectId, draft);
     }

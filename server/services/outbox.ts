@@ -30,7 +30,11 @@ export const outboxService = {
     outboxRepo.insert(trx, { ...message, max_attempts: ctx.config.OUTBOX_MAX_ATTEMPTS }),
 
   /** An invitation or password-reset link by e-mail; the link itself is kept apart from the body. */
-  enqueueAccountLink: (ctx: ServiceContext, trx: Tx, o: { userId: string; email: string; name: string; url: string; expiresAt: string; purpose: 'invitation' | 'password-reset'; createdBy: string | null }) => {
+  enqueueAccountLink: (
+    ctx: ServiceContext,
+    trx: Tx,
+    o: { userId: string; email: string; name: string; url: string; expiresAt: string; purpose: 'invitation' | 'password-reset'; createdBy: string | null },
+  ) => {
     const m = invitationMessage({ name: o.name, expiresAt: o.expiresAt, purpose: o.purpose });
     return outboxService.enqueue(ctx, trx, {
       kind: o.purpose,
@@ -56,7 +60,14 @@ export const outboxService = {
       if (current.status !== 'failed') throw conflict(`The message is ${current.status}; only a failed message is sent again.`);
       const row = await outboxRepo.requeue(trx, messageId);
       if (!row) throw conflict('The message changed meanwhile; reload.');
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'message.requeued', subjectType: 'message', subjectId: messageId, details: { to: row.to_address } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'message.requeued',
+        subjectType: 'message',
+        subjectId: messageId,
+        details: { to: row.to_address },
+      });
       return toMessageInfo(row, ctx.config.PUBLIC_URL);
     });
   },

@@ -18,7 +18,10 @@ import type { ServiceContext } from './context';
 import { resetPasswordPath } from '../../src/shared/api/auth';
 
 export const invalidResetLink = () =>
-  new ServiceError('RESET_LINK_INVALID', 'This link to choose a new password cannot be used: it is incomplete, was already used, or has expired. Ask for a new one.');
+  new ServiceError(
+    'RESET_LINK_INVALID',
+    'This link to choose a new password cannot be used: it is incomplete, was already used, or has expired. Ask for a new one.',
+  );
 
 export const passwordResetService = {
   /**
@@ -35,7 +38,15 @@ export const passwordResetService = {
     await ctx.db.transaction(async (trx) => {
       // earlier open links stay valid until one is used: a slow first e-mail still works
       const reset = await passwordResetsRepo.insert(trx, { user_id: user.id, token_hash: tokenHash, expires_at: expiresAt, requested_from: requestedFrom });
-      await outboxService.enqueueAccountLink(ctx, trx, { userId: user.id, email: user.email, name: user.name, url, expiresAt: expiresAt.toISOString(), purpose: 'password-reset', createdBy: null });
+      await outboxService.enqueueAccountLink(ctx, trx, {
+        userId: user.id,
+        email: user.email,
+        name: user.name,
+        url,
+        expiresAt: expiresAt.toISOString(),
+        purpose: 'password-reset',
+        createdBy: null,
+      });
       await auditRepo.record(trx, {
         actorId: null,
         action: 'password-reset.requested',

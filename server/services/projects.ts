@@ -13,7 +13,10 @@ export const projectsService = {
   async list(ctx: ServiceContext, actor: Actor): Promise<Project[]> {
     const rows = actor.isAdmin ? await projectsRepo.listAll(ctx.db, actor.id) : await projectsRepo.listForUser(ctx.db, actor.id);
     // the "returned" marker is design information: members only (an administrator who is not a member sees none)
-    const returned = await reviewLoopService.returnedCounts(ctx.db, rows.filter((r) => r.role).map((r) => r.id));
+    const returned = await reviewLoopService.returnedCounts(
+      ctx.db,
+      rows.filter((r) => r.role).map((r) => r.id),
+    );
     return rows.map((r) => ({ ...toProject(r, r.role), ...(r.role ? { returnedSystems: returned.get(r.id) ?? 0 } : {}) }));
   },
 
@@ -39,7 +42,10 @@ export const projectsService = {
     const row = await projectsRepo.findById(ctx.db, projectId);
     if (!row) throw notFound('The project');
     const returned = myRole ? await reviewLoopService.returnedCounts(ctx.db, [projectId]) : null;
-    return { project: { ...toProject(row, myRole), ...(returned ? { returnedSystems: returned.get(projectId) ?? 0 } : {}) }, members: await membersRepo.list(ctx.db, projectId) };
+    return {
+      project: { ...toProject(row, myRole), ...(returned ? { returnedSystems: returned.get(projectId) ?? 0 } : {}) },
+      members: await membersRepo.list(ctx.db, projectId),
+    };
   },
 
   async update(ctx: ServiceContext, actor: Actor, projectId: string, body: UpdateProjectBody): Promise<Project> {
@@ -61,7 +67,8 @@ export const projectsService = {
       const { version: _v, ...changed } = body;
       await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'project.updated', subjectType: 'project', subjectId: projectId, details: changed });
       // switching the unit system converts every draft in the same transaction: a draft is never in other units than its project
-      if (body.unitSystem !== undefined && before && before.unit_system !== body.unitSystem) await systemsService.convertDrafts(trx, actor, projectId, body.unitSystem);
+      if (body.unitSystem !== undefined && before && before.unit_system !== body.unitSystem)
+        await systemsService.convertDrafts(trx, actor, projectId, body.unitSystem);
       return toProject(row, 'designer');
     });
   },
@@ -76,12 +83,21 @@ export const membersService = {
     return ctx.db.transaction(async (trx) => {
       const user = await usersRepo.findByEmail(trx, body.email);
       if (!user || user.status === 'disabled') {
-        throw new ServiceError('USER_NOT_FOUND', 'No active account has this e-mail. Ask an administrator to invite the person first.', { email: 'No account with this e-mail' });
+        throw new ServiceError('USER_NOT_FOUND', 'No active account has this e-mail. Ask an administrator to invite the person first.', {
+          email: 'No account with this e-mail',
+        });
       }
       if (!(await membersRepo.insert(trx, projectId, user.id, body.role))) {
         throw conflict(`${user.name} is already a member of this project.`, { email: 'Already a member' });
       }
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'member.added', subjectType: 'user', subjectId: user.id, details: { role: body.role } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'member.added',
+        subjectType: 'user',
+        subjectId: user.id,
+        details: { role: body.role },
+      });
       return (await membersRepo.find(trx, projectId, user.id))!;
     });
   },
@@ -93,7 +109,14 @@ export const membersService = {
       const designers = await membersRepo.designerIdsForUpdate(trx, projectId);
       if (member.role === 'designer' && role !== 'designer' && designers.length === 1) throw lastDesigner();
       await membersRepo.setRole(trx, projectId, userId, role);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'member.role-changed', subjectType: 'user', subjectId: userId, details: { from: member.role, to: role } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'member.role-changed',
+        subjectType: 'user',
+        subjectId: userId,
+        details: { from: member.role, to: role },
+      });
       return (await membersRepo.find(trx, projectId, userId))!;
     });
   },
@@ -105,7 +128,14 @@ export const membersService = {
       const designers = await membersRepo.designerIdsForUpdate(trx, projectId);
       if (member.role === 'designer' && designers.length === 1) throw lastDesigner();
       await membersRepo.remove(trx, projectId, userId);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'member.removed', subjectType: 'user', subjectId: userId, details: { role: member.role } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'member.removed',
+        subjectType: 'user',
+        subjectId: userId,
+        details: { role: member.role },
+      });
     });
   },
 };

@@ -22,7 +22,14 @@ import type { Answers, RevisionCompare } from '../../src/shared/api/reviewLoop';
 import type { ChangeItem } from '../../src/shared/api/fieldChanges';
 import type { Review } from '../../src/shared/api/summaries';
 
-const ITEM_WORD: Record<string, string> = { segment: 'Segment', fixture: 'Checked fixture', device: 'Device', node: 'Node', input: 'Input', general: 'General' };
+const ITEM_WORD: Record<string, string> = {
+  segment: 'Segment',
+  fixture: 'Checked fixture',
+  device: 'Device',
+  node: 'Node',
+  input: 'Input',
+  general: 'General',
+};
 
 type NamedDoc = {
   segments?: { id: string; label?: string }[];
@@ -42,11 +49,15 @@ export function itemLabel(documents: unknown[], itemType: string, itemId: string
   for (const d of documents) {
     const doc = (d ?? {}) as NamedDoc;
     const named =
-      itemType === 'segment' ? doc.segments?.find((x) => x.id === itemId)?.label
-      : itemType === 'node' ? doc.nodes?.find((x) => x.id === itemId)?.label
-      : itemType === 'device' ? doc.devices?.find((x) => x.id === itemId)?.label
-      : itemType === 'fixture' ? (doc.nodes ?? []).flatMap((n) => n.checkedFixtures ?? []).find((x) => x.id === itemId)?.label
-      : undefined;
+      itemType === 'segment'
+        ? doc.segments?.find((x) => x.id === itemId)?.label
+        : itemType === 'node'
+          ? doc.nodes?.find((x) => x.id === itemId)?.label
+          : itemType === 'device'
+            ? doc.devices?.find((x) => x.id === itemId)?.label
+            : itemType === 'fixture'
+              ? (doc.nodes ?? []).flatMap((n) => n.checkedFixtures ?? []).find((x) => x.id === itemId)?.label
+              : undefined;
     if (named) return `${word} ${named}`;
   }
   return `${word} (unnamed)`;
@@ -62,8 +73,26 @@ function segmentAdditions(before: SystemDocument, after: SystemDocument): Change
   const had = new Set(before.segments.map((s) => s.id));
   const has = new Set(after.segments.map((s) => s.id));
   const out: ChangeItem[] = [];
-  for (const s of before.segments) if (!has.has(s.id)) out.push({ elementType: 'segment', elementId: s.id, label: s.label ?? 'unnamed segment', change: 'removed', fields: [], text: `Segment ${s.label ?? '(unnamed)'} removed` });
-  for (const s of after.segments) if (!had.has(s.id)) out.push({ elementType: 'segment', elementId: s.id, label: s.label ?? 'unnamed segment', change: 'added', fields: [], text: `Segment ${s.label ?? '(unnamed)'} added` });
+  for (const s of before.segments)
+    if (!has.has(s.id))
+      out.push({
+        elementType: 'segment',
+        elementId: s.id,
+        label: s.label ?? 'unnamed segment',
+        change: 'removed',
+        fields: [],
+        text: `Segment ${s.label ?? '(unnamed)'} removed`,
+      });
+  for (const s of after.segments)
+    if (!had.has(s.id))
+      out.push({
+        elementType: 'segment',
+        elementId: s.id,
+        label: s.label ?? 'unnamed segment',
+        change: 'added',
+        fields: [],
+        text: `Segment ${s.label ?? '(unnamed)'} added`,
+      });
   return out;
 }
 
@@ -86,7 +115,15 @@ export const reviewLoopService = {
         .filter((r) => r.status === 'returned')
         .map((r) => [
           r.system_id,
-          { reviewId: r.review_id, revisionId: r.revision_id, revisionNumber: r.revision_number, reviewerName: r.reviewer_name, decidedAt: iso(r.decided_at), comments: r.comments, answered: r.answered },
+          {
+            reviewId: r.review_id,
+            revisionId: r.revision_id,
+            revisionNumber: r.revision_number,
+            reviewerName: r.reviewer_name,
+            decidedAt: iso(r.decided_at),
+            comments: r.comments,
+            answered: r.answered,
+          },
         ]),
     );
   },
@@ -95,7 +132,10 @@ export const reviewLoopService = {
   async returnedCounts(db: Tx, projectIds: string[]): Promise<Map<string, number>> {
     if (!projectIds.length) return new Map();
     const systems: { id: string; project_id: string }[] = await db('systems').whereIn('project_id', projectIds).select('id', 'project_id');
-    const markers = await this.markers(db, systems.map((s) => s.id));
+    const markers = await this.markers(
+      db,
+      systems.map((s) => s.id),
+    );
     const counts = new Map<string, number>();
     for (const s of systems) if (markers.has(s.id)) counts.set(s.project_id, (counts.get(s.project_id) ?? 0) + 1);
     return counts;
@@ -105,7 +145,15 @@ export const reviewLoopService = {
    * The designer's reply to one comment of a returned review. Refused once the next revision is
    * issued (the replies are then part of its summary) and on a review that was not returned.
    */
-  async reply(ctx: ServiceContext, actor: Actor, projectId: string, reviewId: string, commentId: string, reply: string, present: (db: Tx, ids: string[]) => Promise<Review[]>): Promise<Review> {
+  async reply(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    reviewId: string,
+    commentId: string,
+    reply: string,
+    present: (db: Tx, ids: string[]) => Promise<Review[]>,
+  ): Promise<Review> {
     return ctx.db.transaction(async (trx) => {
       const review = await reviewsRepo.lock(trx, projectId, reviewId);
       if (!review) throw notFound('The review');
@@ -117,7 +165,14 @@ export const reviewLoopService = {
         throw conflict(`The replies to the review of revision ${revision.number} are frozen: a newer revision has been issued with them.`);
       }
       await reviewsRepo.setReply(trx, commentId, reply, actor.id);
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'review.comment-answered', subjectType: 'review', subjectId: reviewId, details: { commentId, revisionNumber: revision.number } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'review.comment-answered',
+        subjectType: 'review',
+        subjectId: reviewId,
+        details: { commentId, revisionNumber: revision.number },
+      });
       return (await present(trx, [reviewId]))[0];
     });
   },
@@ -129,9 +184,13 @@ export const reviewLoopService = {
   async responsesFor(trx: Tx, revisionId: string, answeringDocument: unknown): Promise<ReviewResponses[]> {
     const reviews = await reviewsRepo.answeredBy(trx, revisionId);
     if (!reviews.length) return [];
-    const comments = await reviewsRepo.commentsFor(trx, reviews.map((r) => r.id));
+    const comments = await reviewsRepo.commentsFor(
+      trx,
+      reviews.map((r) => r.id),
+    );
     const docs = new Map<string, unknown>();
-    for (const r of reviews) if (!docs.has(r.revision_id)) docs.set(r.revision_id, (await trx('revisions').where({ id: r.revision_id }).first('document'))?.document);
+    for (const r of reviews)
+      if (!docs.has(r.revision_id)) docs.set(r.revision_id, (await trx('revisions').where({ id: r.revision_id }).first('document'))?.document);
     return [...reviews]
       .sort((x, y) => x.revision_number - y.revision_number || iso(x.decided_at ?? x.received_at).localeCompare(iso(y.decided_at ?? y.received_at)))
       .map((r) => ({
@@ -146,7 +205,13 @@ export const reviewLoopService = {
   },
 
   /** The returned reviews a revision answers, and what changed since the returned revision. */
-  async answers(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string, present: (db: Tx, ids: string[]) => Promise<Review[]>): Promise<Answers | null> {
+  async answers(
+    ctx: ServiceContext,
+    projectId: string,
+    systemId: string,
+    revisionId: string,
+    present: (db: Tx, ids: string[]) => Promise<Review[]>,
+  ): Promise<Answers | null> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const rows: ReviewRow[] = (await reviewsRepo.answeredBy(ctx.db, revisionId)).filter((r) => r.system_id === systemId);
     if (!rows.length) return null;
@@ -158,14 +223,23 @@ export const reviewLoopService = {
     if (!answering) throw notFound('The revision');
     const compare = compareRevisions(returned, answering);
     if (!compare) return null;
-    return { reviews: await present(ctx.db, rows.map((r) => r.id)), compare };
+    return {
+      reviews: await present(
+        ctx.db,
+        rows.map((r) => r.id),
+      ),
+      compare,
+    };
   },
 
   /** In the accepting transaction: the one-page acceptance record, made and stored. */
   async recordAcceptance(trx: Tx, reviewId: string, labels: (itemType: string, itemId: string | null) => string) {
     const review = (await reviewsRepo.byIds(trx, [reviewId]))[0];
     const project = await trx('projects').where({ id: review.project_id }).first('*');
-    const revision = await trx('revisions as v').leftJoin('users as u', 'u.id', 'v.issued_by').where('v.id', review.revision_id).first('v.number', 'v.issued_at', 'v.updated_at', 'v.input_hash', 'v.document', 'u.name as preparer_name');
+    const revision = await trx('revisions as v')
+      .leftJoin('users as u', 'u.id', 'v.issued_by')
+      .where('v.id', review.revision_id)
+      .first('v.number', 'v.issued_at', 'v.updated_at', 'v.input_hash', 'v.document', 'u.name as preparer_name');
     const summary = await summariesRepo.findByRevision(trx, review.revision_id);
     const comments = await reviewsRepo.commentsFor(trx, [reviewId]);
     // the project's permit or plan-check number, as the designer entered it (projects.permit, a JSON of PermitFields)
@@ -189,7 +263,12 @@ export const reviewLoopService = {
       unitSystem: doc?.unitSystem ?? project.unit_system ?? 'US',
     });
     const pdf = Buffer.from(bytes);
-    const safe = (s: string) => s.replace(/[^A-Za-z0-9 ._-]+/g, '').trim().replace(/\s+/g, ' ').slice(0, 80) || 'system';
+    const safe = (s: string) =>
+      s
+        .replace(/[^A-Za-z0-9 ._-]+/g, '')
+        .trim()
+        .replace(/\s+/g, ' ')
+        .slice(0, 80) || 'system';
     await acceptanceRecordsRepo.insert(trx, {
       review_id: reviewId,
       project_id: review.project_id,

@@ -18,7 +18,12 @@ import { itemLabel, reviewLoopService } from './reviewLoop';
 import { resultViewPath, type DecideReviewBody, type InboxItem, type Review } from '../../src/shared/api/summaries';
 
 async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
-  const comments = rows.length ? await reviewsRepo.commentsFor(db, rows.map((r) => r.id)) : [];
+  const comments = rows.length
+    ? await reviewsRepo.commentsFor(
+        db,
+        rows.map((r) => r.id),
+      )
+    : [];
   return rows.map((r) => ({
     id: r.id,
     projectId: r.project_id,
@@ -44,7 +49,8 @@ async function present(db: Tx, rows: ReviewRow[]): Promise<Review[]> {
     receivedAt: iso(r.received_at),
     decidedAt: r.decided_at ? iso(r.decided_at) : null,
     packageId: r.package_id ?? null,
-    answeredIn: r.answered_in_revision_id && r.answered_in_number !== null ? { revisionId: r.answered_in_revision_id, revisionNumber: r.answered_in_number } : null,
+    answeredIn:
+      r.answered_in_revision_id && r.answered_in_number !== null ? { revisionId: r.answered_in_revision_id, revisionNumber: r.answered_in_number } : null,
     acceptanceRecord:
       r.record_sha256 && r.record_file_name && r.record_created_at
         ? { url: acceptanceRecordApiPath(r.project_id, r.id), fileName: r.record_file_name, sha256: r.record_sha256, createdAt: iso(r.record_created_at) }
@@ -62,11 +68,15 @@ function itemWhere(document: unknown, itemType: string, itemId: string | null): 
   };
   const fixtures = (doc.nodes ?? []).flatMap((n) => n.checkedFixtures ?? []);
   const named =
-    itemType === 'segment' ? doc.segments?.find((x) => x.id === itemId)?.label
-    : itemType === 'node' ? doc.nodes?.find((x) => x.id === itemId)?.label
-    : itemType === 'device' ? doc.devices?.find((x) => x.id === itemId)?.label
-    : itemType === 'fixture' ? fixtures.find((x) => x.id === itemId)?.label
-    : undefined;
+    itemType === 'segment'
+      ? doc.segments?.find((x) => x.id === itemId)?.label
+      : itemType === 'node'
+        ? doc.nodes?.find((x) => x.id === itemId)?.label
+        : itemType === 'device'
+          ? doc.devices?.find((x) => x.id === itemId)?.label
+          : itemType === 'fixture'
+            ? fixtures.find((x) => x.id === itemId)?.label
+            : undefined;
   return `${itemType} ${named ?? itemId}`;
 }
 
@@ -86,7 +96,10 @@ async function notifySender(
   const sender = await trx('users').where({ id: review.sent_by, status: 'active' }).first('id', 'email', 'name');
   if (!sender) return;
   const project = await trx('projects').where({ id: review.project_id }).first('name');
-  const revision = await trx('revisions as v').join('systems as s', 's.id', 'v.system_id').where('v.id', review.revision_id).first('v.document', 's.id as system_id', 's.name as system_name');
+  const revision = await trx('revisions as v')
+    .join('systems as s', 's.id', 'v.system_id')
+    .where('v.id', review.revision_id)
+    .first('v.document', 's.id as system_id', 's.name as system_name');
   const inspector = await trx('users').where({ id: actor.id }).first('name');
   const viewUrl = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}${resultViewPath(review.project_id, revision.system_id, review.revision_id)}`;
   const m = reviewDecidedMessage({
@@ -121,7 +134,8 @@ export const reviewsService = {
   reply: (ctx: ServiceContext, actor: Actor, projectId: string, reviewId: string, commentId: string, reply: string) =>
     reviewLoopService.reply(ctx, actor, projectId, reviewId, commentId, reply, presentIds),
 
-  answers: (ctx: ServiceContext, projectId: string, systemId: string, revisionId: string) => reviewLoopService.answers(ctx, projectId, systemId, revisionId, presentIds),
+  answers: (ctx: ServiceContext, projectId: string, systemId: string, revisionId: string) =>
+    reviewLoopService.answers(ctx, projectId, systemId, revisionId, presentIds),
 
   async forRevision(ctx: ServiceContext, projectId: string, systemId: string, revisionId: string): Promise<Review[]> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
@@ -134,8 +148,18 @@ export const reviewsService = {
   async inbox(ctx: ServiceContext, actor: Actor): Promise<InboxItem[]> {
     const rows = await reviewsRepo.forReviewer(ctx.db, actor.id);
     const reviews = await present(ctx.db, rows);
-    const summaries = rows.length ? await summariesRepo.findManyByRevision(ctx.db, rows.map((r) => r.revision_id)) : [];
-    const projects = rows.length ? await ctx.db('projects').whereIn('id', [...new Set(rows.map((r) => r.project_id))]).select('id', 'name', 'address') : [];
+    const summaries = rows.length
+      ? await summariesRepo.findManyByRevision(
+          ctx.db,
+          rows.map((r) => r.revision_id),
+        )
+      : [];
+    const projects = rows.length
+      ? await ctx
+          .db('projects')
+          .whereIn('id', [...new Set(rows.map((r) => r.project_id))])
+          .select('id', 'name', 'address')
+      : [];
     return reviews.map((review) => {
       const s = summaries.find((x) => x.revision_id === review.revisionId);
       const p = projects.find((x: { id: string }) => x.id === review.projectId);
@@ -148,7 +172,13 @@ export const reviewsService = {
     });
   },
 
-  async decide(ctx: ServiceContext, actor: Actor, projectId: string, reviewId: string, body: DecideReviewBody & { comment: string; items: { itemType: Review['items'][number]['itemType']; itemId: string | null; comment: string }[] }): Promise<Review> {
+  async decide(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    reviewId: string,
+    body: DecideReviewBody & { comment: string; items: { itemType: Review['items'][number]['itemType']; itemId: string | null; comment: string }[] },
+  ): Promise<Review> {
     return ctx.db.transaction(async (trx) => {
       const current = await reviewsRepo.lock(trx, projectId, reviewId);
       if (!current) throw notFound('The review');

@@ -28,7 +28,12 @@ const analysisOf = (a: AnalysisOutcome): Analysis => {
 };
 
 export const submissionsService = {
-  async sendPackage(ctx: ServiceContext, actor: Actor, projectId: string, body: { systemIds: string[]; inspectorIds: string[]; message?: string }): Promise<SendPackageResponse> {
+  async sendPackage(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    body: { systemIds: string[]; inspectorIds: string[]; message?: string },
+  ): Promise<SendPackageResponse> {
     const project = await projectsRepo.findById(ctx.db, projectId);
     if (!project) throw notFound('The project');
     const fields: Record<string, string> = {};
@@ -42,7 +47,8 @@ export const submissionsService = {
     }
     for (const r of issued) {
       const a = r.analysis;
-      if (!a.ok || verdictStatus(a.analysis) === 'incomplete') fields[`systemIds.${body.systemIds.indexOf(r.system_id)}`] = `${r.system_name}, revision ${r.number}, is incomplete: it has no summary`;
+      if (!a.ok || verdictStatus(a.analysis) === 'incomplete')
+        fields[`systemIds.${body.systemIds.indexOf(r.system_id)}`] = `${r.system_name}, revision ${r.number}, is incomplete: it has no summary`;
     }
     const recipients: { id: string; email: string; name: string }[] = [];
     for (const [i, userId] of body.inspectorIds.entries()) {
@@ -59,7 +65,8 @@ export const submissionsService = {
     for (const r of ordered) {
       let s = await summariesRepo.findByRevision(ctx.db, r.id);
       if (!s || s.status === 'pending') s = await summariesService.generate(ctx, projectId, r.system_id, r.id);
-      if (s.status !== 'ready') throw conflict(`The summary of ${r.system_name} could not be made, so the submission cannot be sent: ${s.error ?? 'unknown reason'}`);
+      if (s.status !== 'ready')
+        throw conflict(`The summary of ${r.system_name} could not be made, so the submission cannot be sent: ${s.error ?? 'unknown reason'}`);
       summaries.push(s);
     }
     const sender = await usersRepo.findById(ctx.db, actor.id);
@@ -77,7 +84,11 @@ export const submissionsService = {
           senderName: sender?.name ?? 'A designer',
           projectName: project.name,
           address: project.address,
-          systems: ordered.map((r, i) => ({ header: summaries[i].header, verdict: verdictLine(analysisOf(r.analysis)), viewUrl: `${base}${resultViewPath(projectId, r.system_id, r.id)}` })),
+          systems: ordered.map((r, i) => ({
+            header: summaries[i].header,
+            verdict: verdictLine(analysisOf(r.analysis)),
+            viewUrl: `${base}${resultViewPath(projectId, r.system_id, r.id)}`,
+          })),
           note: body.message,
         });
         const failing = ordered.some((r) => verdictStatus(analysisOf(r.analysis)) === 'fail');

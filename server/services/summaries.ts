@@ -31,7 +31,6 @@ import { resultViewPath, type SendSummaryResponse, type SummaryHeader, type Summ
 import type { SendSummaryBody } from '../../src/shared/api/summaries';
 import { log } from '../log';
 
-
 const apiBase = (projectId: string, systemId: string, revisionId: string) => `/api/projects/${projectId}/systems/${systemId}/revisions/${revisionId}`;
 
 export const toSummaryInfo = (row: SummaryRow, systemId: string): SummaryInfo => ({
@@ -59,20 +58,35 @@ export function verdictLine(a: Analysis): string {
   const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId);
   const failures = a.verdict.failures;
   const head = status === 'pass' ? 'PASS: every check is met' : `FAIL: ${failures === 1 ? 'one check is' : `${failures} checks are`} not met`;
-  return critical ? `${head}; critical fixture ${critical.label}, margin ${signed(critical.margin, a.units.pressure)} ${a.units.pressure} (residual ${withUnit(critical.residual, a.units.pressure)})` : head;
+  return critical
+    ? `${head}; critical fixture ${critical.label}, margin ${signed(critical.margin, a.units.pressure)} ${a.units.pressure} (residual ${withUnit(critical.residual, a.units.pressure)})`
+    : head;
 }
 
 /** The stored analysis of an issued revision, refused when it cannot back a summary (none, or incomplete). */
 function summarisable(revision: RevisionRow): Analysis {
   const stored = revision.analysis;
-  if (!stored.ok) throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored.error.message}); it has no summary.`, undefined, {
-    reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored.error.message }],
-  });
+  if (!stored.ok)
+    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} has no analysis (${stored.error.message}); it has no summary.`, undefined, {
+      reasons: [{ code: 'not-analysed', elementType: 'system', elementId: null, message: stored.error.message }],
+    });
   if (verdictStatus(stored.analysis) === 'incomplete') {
     const reasons = stored.analysis.verdict.incomplete?.length
       ? stored.analysis.verdict.incomplete
-      : [{ code: 'no-checked-fixtures', elementType: 'system', elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
-    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${revision.number} is incomplete; an incomplete revision has no summary and is never sent.`, undefined, { reasons });
+      : [
+          {
+            code: 'no-checked-fixtures',
+            elementType: 'system',
+            elementId: null,
+            message: 'No checked fixture: nothing was compared with a minimum flow pressure.',
+          },
+        ];
+    throw new ServiceError(
+      'REVISION_INCOMPLETE',
+      `Revision ${revision.number} is incomplete; an incomplete revision has no summary and is never sent.`,
+      undefined,
+      { reasons },
+    );
   }
   return stored.analysis;
 }
@@ -90,7 +104,9 @@ function issuedDocument(revision: RevisionRow): SystemDocument {
 
 /** The preparer's attestation at issue, as the PDF prints it (null for revisions issued before attestations). */
 const attestationOf = (r: RevisionRow) =>
-  r.attestation_statement && r.attestation_at ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, at: iso(r.attestation_at) } : null;
+  r.attestation_statement && r.attestation_at
+    ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, at: iso(r.attestation_at) }
+    : null;
 
 /** The designer's acknowledgement of a failing verdict, as the PDF prints it. */
 const acknowledgementOf = (r: RevisionRow) =>
@@ -162,8 +178,21 @@ export const summariesService = {
         });
         const pdf = Buffer.from(bytes);
         const sha256 = createHash('sha256').update(pdf).digest('hex');
-        await summariesRepo.markReady(trx, row.id, { pdf, sha256, byte_length: pdf.length, page_count: pageCount, generation_ms: Math.round(performance.now() - started) });
-        await auditRepo.record(trx, { actorId: null, projectId, action: 'summary.ready', subjectType: 'revision', subjectId: revisionId, details: { sha256, pages: pageCount } });
+        await summariesRepo.markReady(trx, row.id, {
+          pdf,
+          sha256,
+          byte_length: pdf.length,
+          page_count: pageCount,
+          generation_ms: Math.round(performance.now() - started),
+        });
+        await auditRepo.record(trx, {
+          actorId: null,
+          projectId,
+          action: 'summary.ready',
+          subjectType: 'revision',
+          subjectId: revisionId,
+          details: { sha256, pages: pageCount },
+        });
         return { row: (await summariesRepo.findByRevision(trx, revisionId))!, error: null };
       } catch (err) {
         return { row, error: err instanceof Error ? err.message : String(err) };
@@ -208,9 +237,19 @@ export const summariesService = {
    * addresses, which get an inspector account, membership and an invitation link in the same
    * message. One outbox message and one review ("received") per recipient, in one transaction.
    */
-  async send(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, body: SendSummaryBody & { inspectorIds: string[]; emails: string[] }): Promise<SendSummaryResponse> {
+  async send(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    systemId: string,
+    revisionId: string,
+    body: SendSummaryBody & { inspectorIds: string[]; emails: string[] },
+  ): Promise<SendSummaryResponse> {
     const revision = await loadRevision(ctx, projectId, systemId, revisionId);
-    if (revision.status !== 'issued') throw conflict(revision.status === 'draft' ? 'Issue the revision before sending it.' : `Revision ${revision.number} is superseded; send the current issued revision.`);
+    if (revision.status !== 'issued')
+      throw conflict(
+        revision.status === 'draft' ? 'Issue the revision before sending it.' : `Revision ${revision.number} is superseded; send the current issued revision.`,
+      );
     const analysis = summarisable(revision);
     const failing = verdictStatus(analysis) === 'fail';
     let summary = await summariesRepo.findByRevision(ctx.db, revisionId);
@@ -241,11 +280,25 @@ export const summariesService = {
         }
         if (!user) {
           user = await usersRepo.insert(trx, { email, name: email.split('@')[0], is_admin: false, account_role: 'inspector' });
-          await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'user.created', subjectType: 'user', subjectId: user.id, details: { email, reason: 'summary sent to an outside address' } });
+          await auditRepo.record(trx, {
+            actorId: actor.id,
+            projectId,
+            action: 'user.created',
+            subjectType: 'user',
+            subjectId: user.id,
+            details: { email, reason: 'summary sent to an outside address' },
+          });
         }
         if (!role) {
           await membersRepo.insert(trx, projectId, user.id, 'inspector');
-          await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'member.added', subjectType: 'user', subjectId: user.id, details: { email, role: 'inspector' } });
+          await auditRepo.record(trx, {
+            actorId: actor.id,
+            projectId,
+            action: 'member.added',
+            subjectType: 'user',
+            subjectId: user.id,
+            details: { email, role: 'inspector' },
+          });
         }
         const invitation = user.status === 'invited' ? await issueInvitation(ctx, trx, user.id, actor, { send: false }) : undefined;
         recipients.set(user.id, { id: user.id, email: user.email, name: user.name, invitation });
@@ -255,7 +308,15 @@ export const summariesService = {
       const messages = [];
       const reviewIds: string[] = [];
       for (const r of recipients.values()) {
-        const m = summaryMessage({ header: summary.header, recipientName: r.name, senderName: sender?.name ?? 'A designer', viewUrl, verdict: verdictLine(analysis), note: body.message, invitation: r.invitation });
+        const m = summaryMessage({
+          header: summary.header,
+          recipientName: r.name,
+          senderName: sender?.name ?? 'A designer',
+          viewUrl,
+          verdict: verdictLine(analysis),
+          note: body.message,
+          invitation: r.invitation,
+        });
         const row = await outboxService.enqueue(ctx, trx, {
           kind: 'summary',
           project_id: projectId,
@@ -273,7 +334,14 @@ export const summariesService = {
         messages.push(toMessageInfo(row, ctx.config.PUBLIC_URL));
         reviewIds.push(await reviewsRepo.receive(trx, { project_id: projectId, revision_id: revisionId, reviewer_id: r.id, sent_by: actor.id }));
       }
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'summary.sent', subjectType: 'revision', subjectId: revisionId, details: { number: revision.number, to: [...recipients.values()].map((r) => r.email), sha256: summary.sha256 } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'summary.sent',
+        subjectType: 'revision',
+        subjectId: revisionId,
+        details: { number: revision.number, to: [...recipients.values()].map((r) => r.email), sha256: summary.sha256 },
+      });
       return { messages, reviews: await reviewsService.byIds(trx, reviewIds) };
     });
   },

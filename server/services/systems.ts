@@ -1,5 +1,13 @@
 import { randomUUID } from 'node:crypto';
-import { ENGINE_VERSION, readSystemDocument, safeAnalyzeSystem, SystemDocumentSchema, verdictStatus, type IncompleteReason, type SystemDocument } from '../../src/engine';
+import {
+  ENGINE_VERSION,
+  readSystemDocument,
+  safeAnalyzeSystem,
+  SystemDocumentSchema,
+  verdictStatus,
+  type IncompleteReason,
+  type SystemDocument,
+} from '../../src/engine';
 import { ServiceError, conflict, invalid, notFound, staleVersion } from './errors';
 import { fieldsFromZod } from './validationFields';
 import { assertStorable } from './storable';
@@ -15,7 +23,17 @@ import { reviewLoopService } from './reviewLoop';
 import { hotWaterSupply } from './hotWaterSupply';
 import type { Actor, ServiceContext } from './context';
 import { ATTESTATION_STATEMENTS, type Attestation, type AttestationRecord } from '../../src/shared/api/systems';
-import type { AnalysisOutcome, CompareResponse, CreateSystemBody, ReturnedMarker, Revision, RevisionOrigin, RevisionSummary, RevisionVerdict, SystemInfo } from '../../src/shared/api/systems';
+import type {
+  AnalysisOutcome,
+  CompareResponse,
+  CreateSystemBody,
+  ReturnedMarker,
+  Revision,
+  RevisionOrigin,
+  RevisionSummary,
+  RevisionVerdict,
+  SystemInfo,
+} from '../../src/shared/api/systems';
 import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { convertDocumentUnits } from '../../src/engine/building/convertUnits';
 import type { UnitSystem } from '../../src/engine';
@@ -27,7 +45,16 @@ export function analyse(document: unknown): AnalysisOutcome {
 }
 
 function verdictOf(a: AnalysisOutcome): RevisionVerdict {
-  if (!a.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: a.error.message ?? 'Not analysed' };
+  if (!a.ok)
+    return {
+      ok: false,
+      status: null,
+      allPass: null,
+      criticalFixtureId: null,
+      criticalMargin: null,
+      warningCount: 0,
+      errorMessage: a.error.message ?? 'Not analysed',
+    };
   const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
   const status = verdictStatus(a.analysis);
   return {
@@ -51,17 +78,32 @@ const toSummary = (r: RevisionSummaryRow, verdict: RevisionVerdict): RevisionSum
   issuedBy: r.issued_by_name ?? null,
   inputHash: r.input_hash,
   verdict,
-  failureAcknowledgement: r.failure_ack_statement ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) } : null,
+  failureAcknowledgement: r.failure_ack_statement
+    ? { statement: r.failure_ack_statement, by: r.failure_ack_by_name ?? null, at: iso(r.failure_ack_at ?? r.updated_at) }
+    : null,
   attestation: attestationOf(r),
 });
 
 /** The attestation recorded at issue, as the API and the summary show it. */
 export const attestationOf = (r: RevisionSummaryRow): AttestationRecord | null =>
   r.attestation_statement && r.attestation_at
-    ? { name: r.attestation_name ?? '', licenceNumber: r.attestation_licence ?? '', statement: r.attestation_statement, by: r.issued_by_name ?? null, at: iso(r.attestation_at) }
+    ? {
+        name: r.attestation_name ?? '',
+        licenceNumber: r.attestation_licence ?? '',
+        statement: r.attestation_statement,
+        by: r.issued_by_name ?? null,
+        at: iso(r.attestation_at),
+      }
     : null;
 const summaryOf = (r: RevisionRow): RevisionSummary => toSummary(r, verdictOf(r.analysis));
-const toRevision = (r: RevisionRow): Revision => ({ ...summaryOf(r), document: r.document, analysis: r.analysis, engineVersion: r.engine_version, note: r.note, origin: originOf(r.field_change_record) });
+const toRevision = (r: RevisionRow): Revision => ({
+  ...summaryOf(r),
+  document: r.document,
+  analysis: r.analysis,
+  engineVersion: r.engine_version,
+  note: r.note,
+  origin: originOf(r.field_change_record),
+});
 
 /** The revision's history line from the field change it was accepted from (null for a designer's own). */
 function originOf(record: unknown): RevisionOrigin | null {
@@ -141,34 +183,74 @@ export function issueGate(number: number, analysis: AnalysisOutcome, acknowledge
   if (status === 'incomplete') {
     const reasons = analysis.analysis.verdict.incomplete.length
       ? analysis.analysis.verdict.incomplete
-      : [{ code: 'no-checked-fixtures', elementType: 'system' as const, elementId: null, message: 'No checked fixture: nothing was compared with a minimum flow pressure.' }];
-    throw new ServiceError('REVISION_INCOMPLETE', `Revision ${number} cannot be issued: its description is incomplete (${reasons.length === 1 ? 'one item' : `${reasons.length} items`} to settle).`, undefined, { reasons });
+      : [
+          {
+            code: 'no-checked-fixtures',
+            elementType: 'system' as const,
+            elementId: null,
+            message: 'No checked fixture: nothing was compared with a minimum flow pressure.',
+          },
+        ];
+    throw new ServiceError(
+      'REVISION_INCOMPLETE',
+      `Revision ${number} cannot be issued: its description is incomplete (${reasons.length === 1 ? 'one item' : `${reasons.length} items`} to settle).`,
+      undefined,
+      { reasons },
+    );
   }
   const failures = analysis.analysis.verdict.failures;
   if (status === 'fail' && !acknowledgeFailure) {
-    throw new ServiceError('FAILURE_NOT_ACKNOWLEDGED', `Revision ${number} fails ${failures === 1 ? 'one check' : `${failures} checks`}. It can be issued only with your acknowledgement of the failure, in your own words; the summary will say FAIL on its first line.`,
+    throw new ServiceError(
+      'FAILURE_NOT_ACKNOWLEDGED',
+      `Revision ${number} fails ${failures === 1 ? 'one check' : `${failures} checks`}. It can be issued only with your acknowledgement of the failure, in your own words; the summary will say FAIL on its first line.`,
       undefined,
       { failures },
     );
   }
   if (status !== 'fail' && acknowledgeFailure) {
-    throw new ServiceError('NOTHING_TO_ACKNOWLEDGE', `Revision ${number} does not fail (its verdict is ${status}); issue it without an acknowledgement of failure.`);
+    throw new ServiceError(
+      'NOTHING_TO_ACKNOWLEDGE',
+      `Revision ${number} does not fail (its verdict is ${status}); issue it without an acknowledgement of failure.`,
+    );
   }
   return { status, failures, acknowledgement: status === 'fail' ? acknowledgeFailure!.statement.trim() : null };
 }
 
-const REASON_ELEMENTS = new Set<IncompleteReason['elementType']>(['system', 'source', 'device', 'node', 'segment', 'fixture-group', 'checked-fixture', 'fitting']);
-const reasonElement = (t: string): IncompleteReason['elementType'] => (REASON_ELEMENTS.has(t as IncompleteReason['elementType']) ? (t as IncompleteReason['elementType']) : 'system');
+const REASON_ELEMENTS = new Set<IncompleteReason['elementType']>([
+  'system',
+  'source',
+  'device',
+  'node',
+  'segment',
+  'fixture-group',
+  'checked-fixture',
+  'fitting',
+]);
+const reasonElement = (t: string): IncompleteReason['elementType'] =>
+  REASON_ELEMENTS.has(t as IncompleteReason['elementType']) ? (t as IncompleteReason['elementType']) : 'system';
 
-const locked = (r: Pick<RevisionRow, 'number' | 'status'>) =>
-  conflict(`Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
+const locked = (r: Pick<RevisionRow, 'number' | 'status'>) => conflict(`Revision ${r.number} is ${r.status}; it cannot change. Start a new draft from it.`);
 
 export const systemsService = {
   async list(ctx: ServiceContext, projectId: string): Promise<SystemInfo[]> {
     const systems = await systemsRepo.listForProject(ctx.db, projectId);
-    const latest = systems.length ? await revisionsRepo.latestForSystems(ctx.db, systems.map((s) => s.id)) : [];
-    const returned = await reviewLoopService.markers(ctx.db, systems.map((s) => s.id));
-    return systems.map((s) => toSystem(s, latest.find((r) => r.system_id === s.id), returned.get(s.id) ?? null));
+    const latest = systems.length
+      ? await revisionsRepo.latestForSystems(
+          ctx.db,
+          systems.map((s) => s.id),
+        )
+      : [];
+    const returned = await reviewLoopService.markers(
+      ctx.db,
+      systems.map((s) => s.id),
+    );
+    return systems.map((s) =>
+      toSystem(
+        s,
+        latest.find((r) => r.system_id === s.id),
+        returned.get(s.id) ?? null,
+      ),
+    );
   },
 
   async create(ctx: ServiceContext, actor: Actor, projectId: string, body: CreateSystemBody) {
@@ -182,8 +264,22 @@ export const systemsService = {
     assertStorable({ name: body.name, document });
     return ctx.db.transaction(async (trx) => {
       const system = await systemsRepo.insert(trx, { project_id: projectId, name: body.name, service: body.service, created_by: actor.id });
-      const revision = await revisionsRepo.insert(trx, { system_id: system.id, number: 1, document, analysis: analyse(document), engine_version: ENGINE_VERSION, created_by: actor.id });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'system.created', subjectType: 'system', subjectId: system.id, details: { name: body.name, imported: body.document !== undefined } });
+      const revision = await revisionsRepo.insert(trx, {
+        system_id: system.id,
+        number: 1,
+        document,
+        analysis: analyse(document),
+        engine_version: ENGINE_VERSION,
+        created_by: actor.id,
+      });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'system.created',
+        subjectType: 'system',
+        subjectId: system.id,
+        details: { name: body.name, imported: body.document !== undefined },
+      });
       return { system: toSystem(system, revision), revision: toRevision(revision) };
     });
   },
@@ -210,7 +306,15 @@ export const systemsService = {
    * from a cold one has its supply resolved first (hotWaterSupply), and the hot drafts fed from this
    * system are recomputed in the same transaction.
    */
-  async saveDraft(ctx: ServiceContext, actor: Actor, projectId: string, systemId: string, revisionId: string, typed: SystemDocument, version: number): Promise<RevisionSummary> {
+  async saveDraft(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    systemId: string,
+    revisionId: string,
+    typed: SystemDocument,
+    version: number,
+  ): Promise<RevisionSummary> {
     if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const document = await hotWaterSupply.resolve(ctx.db, projectId, typed);
     const analysis = analyse(document);
@@ -221,7 +325,14 @@ export const systemsService = {
       if (current.version !== version) throw staleVersion();
       const saved = await revisionsRepo.saveDraft(trx, revisionId, version, document, analysis, ENGINE_VERSION);
       if (!saved) throw staleVersion();
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.saved', subjectType: 'revision', subjectId: revisionId, details: { number: saved.number, version: saved.version } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'revision.saved',
+        subjectType: 'revision',
+        subjectId: revisionId,
+        details: { number: saved.number, version: saved.version },
+      });
       await hotWaterSupply.refreshDependents(trx, projectId, systemId);
       // a draft has no issuer, acknowledgement or attestation: the summary needs no join
       return toSummary(saved, verdictOf(analysis));
@@ -281,7 +392,8 @@ export const systemsService = {
           inputHash: issued.input_hash,
           verdict: gate.status,
           attestation: { name: attestation.name, licenceNumber: attestation.licenceNumber, basis: attestation.basis },
-          ...(gate.acknowledgement ? { failureAcknowledgement: gate.acknowledgement } : {}) },
+          ...(gate.acknowledgement ? { failureAcknowledgement: gate.acknowledgement } : {}),
+        },
       });
       if (gate.acknowledgement) {
         await auditRepo.record(trx, {
@@ -319,7 +431,14 @@ export const systemsService = {
       const document = convertDocumentUnits(before, to, { round: true });
       const saved = await revisionsRepo.saveDraft(trx, draft.id, draft.version, document, analyse(document), ENGINE_VERSION);
       if (!saved) throw staleVersion();
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.units-converted', subjectType: 'revision', subjectId: draft.id, details: { number: draft.number, from: before.unitSystem, to, version: saved.version } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'revision.units-converted',
+        subjectType: 'revision',
+        subjectId: draft.id,
+        details: { number: draft.number, from: before.unitSystem, to, version: saved.version },
+      });
       converted++;
     }
     return converted;
@@ -347,7 +466,14 @@ export const systemsService = {
         created_by: actor.id,
         note: `Started from revision ${from.number}`,
       });
-      await auditRepo.record(trx, { actorId: actor.id, projectId, action: 'revision.drafted', subjectType: 'revision', subjectId: revision.id, details: { number, from: from.number } });
+      await auditRepo.record(trx, {
+        actorId: actor.id,
+        projectId,
+        action: 'revision.drafted',
+        subjectType: 'revision',
+        subjectId: revision.id,
+        details: { number, from: from.number },
+      });
       return toRevision((await revisionsRepo.find(trx, systemId, revision.id))!);
     });
   },

@@ -22,7 +22,16 @@ export async function issueInvitation(ctx: ServiceContext, trx: Tx, userId: stri
   const url = `${ctx.config.PUBLIC_URL.replace(/\/$/, '')}/invitations/${token}`;
   if (opts.send ?? true) {
     const user = await usersRepo.findById(trx, userId);
-    if (user) await outboxService.enqueueAccountLink(ctx, trx, { userId, email: user.email, name: user.name, url, expiresAt: expiresAt.toISOString(), purpose: 'invitation', createdBy: actor?.id ?? null });
+    if (user)
+      await outboxService.enqueueAccountLink(ctx, trx, {
+        userId,
+        email: user.email,
+        name: user.name,
+        url,
+        expiresAt: expiresAt.toISOString(),
+        purpose: 'invitation',
+        createdBy: actor?.id ?? null,
+      });
   }
   return { url, expiresAt: expiresAt.toISOString() };
 }

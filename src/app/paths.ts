@@ -13,9 +13,7 @@ export const paths = {
     path: '/sign-in',
     /** `redirectTo` is where to return after signing in; only same-site paths are kept. */
     getHref: (redirectTo?: string | null) =>
-      redirectTo && isSafeRedirect(redirectTo) && redirectTo !== '/sign-in'
-        ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}`
-        : '/sign-in',
+      redirectTo && isSafeRedirect(redirectTo) && redirectTo !== '/sign-in' ? `/sign-in?redirectTo=${encodeURIComponent(redirectTo)}` : '/sign-in',
   },
   invitation: {
     path: '/invitations/:token',

@@ -24,27 +24,15 @@ export const ERROR_CODES = {
   'unknown-fixture': 'No checked fixture in the analysis has this id.',
   'self-loop': 'A segment starts and ends at the same node.',
   'missing-usage-data': 'The binomial demand method needs flow, duration and recurrence for every fixture group.',
-  'rise-and-elevation':
-    "A segment has a rise and its downstream node has an elevation or a floor: the node's height would be given twice. Keep one.",
-  'node-position-conflict':
-    'A node has both an elevation and a floor, or a height above floor without a floor: give one position.',
+  'rise-and-elevation': "A segment has a rise and its downstream node has an elevation or a floor: the node's height would be given twice. Keep one.",
+  'node-position-conflict': 'A node has both an elevation and a floor, or a height above floor without a floor: give one position.',
   'unknown-floor': 'A node names a floor that is not in the system.',
   'document-too-large': 'A list or text in the document is longer than any building needs.',
 } as const;
 
 export type ErrorCode = keyof typeof ERROR_CODES;
 
-export type ElementType =
-  | 'system'
-  | 'source'
-  | 'device'
-  | 'node'
-  | 'segment'
-  | 'fixture-group'
-  | 'checked-fixture'
-  | 'fitting'
-  | 'floor'
-  | 'criteria';
+export type ElementType = 'system' | 'source' | 'device' | 'node' | 'segment' | 'fixture-group' | 'checked-fixture' | 'fitting' | 'floor' | 'criteria';
 
 export interface EngineInputErrorJSON {
   name: 'EngineInputError';
@@ -75,14 +63,7 @@ export class EngineInputError extends Error {
   readonly field: string | null;
   readonly issues: EngineIssue[] | undefined;
 
-  constructor(args: {
-    code: ErrorCode;
-    elementType: ElementType;
-    elementId?: string | null;
-    field?: string | null;
-    message: string;
-    issues?: EngineIssue[];
-  }) {
+  constructor(args: { code: ErrorCode; elementType: ElementType; elementId?: string | null; field?: string | null; message: string; issues?: EngineIssue[] }) {
     super(args.message);
     this.code = args.code;
     this.elementType = args.elementType;
@@ -110,13 +91,7 @@ export function isEngineInputError(value: unknown): value is EngineInputError {
 }
 
 /** Shorthand used by the analysis stages. */
-export function inputError(
-  code: ErrorCode,
-  elementType: ElementType,
-  elementId: string | null,
-  field: string | null,
-  detail?: string,
-): EngineInputError {
+export function inputError(code: ErrorCode, elementType: ElementType, elementId: string | null, field: string | null, detail?: string): EngineInputError {
   const where = elementId ? `${elementType} "${elementId}"` : elementType;
   const what = field ? `${where}, field "${field}"` : where;
   return new EngineInputError({

@@ -22,11 +22,3 @@ export function requireNonNegative(fn: string, name: string, value: number): num
   if (value < 0) throw new RangeError(`${fn}: ${name} must not be negative, got ${value}`);
   return value;
 }
-
-export function requireInRange(fn: string, name: string, value: number, min: number, max: number): number {
-  requireFinite(fn, name, value);
-  if (value < min || value > max) {
-    throw new RangeError(`${fn}: ${name} must be between ${min} and ${max}, got ${value}`);
-  }
-  return value;
-}

@@ -48,7 +48,7 @@ export {
   type SizingBasis,
 } from './model/schema';
 export { fittingLabel, fixtureGroupLabel, fixtureGroupWsfu, boosterDesignGain, boosterText } from './model/labels';
-export { nodeElevations, segmentRises } from './model/positions';
+export { nodeElevations } from './model/positions';
 export { readSystemDocument, type ReadResult } from './model/read';
 export { upgradeDocument, upgradeDocumentWithReport, type RiseConflictRule, type RiseConflict, type UpgradeOptions } from './model/upgrade';
 export { SystemDocumentSchemaV1, SCHEMA_VERSION_V1, type SystemDocumentV1 } from './model/schemaV1';
@@ -67,7 +67,16 @@ export {
   type Bounds,
 } from './model/limits';
 export { UNIT_LABELS, toSI, fromSI, type UnitSystem } from './units';
-export { sizeSystem, SizingError, type SizingOptions, type SizingResult, type SizingConditions, type SegmentSizing, type Governing, type FixtureMargin } from './sizing/sizeSystem';
+export {
+  sizeSystem,
+  SizingError,
+  type SizingOptions,
+  type SizingResult,
+  type SizingConditions,
+  type SegmentSizing,
+  type Governing,
+  type FixtureMargin,
+} from './sizing/sizeSystem';
 export { smallestSubstitute, DEFAULT_SUBSTITUTE_MATERIAL, type SubstituteResult } from './sizing/substitute';
 export { sizesFingerprint, sizingBasisOf, sizingBasisState, sizingBasisText, type SizingBasisInput, type SizingBasisState } from './sizing/basis';
 export { frictionBudgetOf, pressureAvailableForFriction, frictionBudgetPer100Ft, type FrictionBudget } from './sizing/frictionBudget';

@@ -6,16 +6,7 @@
 import { requireFinite } from './guards';
 
 export type UnitSystem = 'US' | 'SI';
-export type Quantity =
-  | 'pressure'
-  | 'length'
-  | 'elevation'
-  | 'diameter'
-  | 'flow'
-  | 'velocity'
-  | 'temperature'
-  | 'density'
-  | 'pressurePerLength';
+export type Quantity = 'pressure' | 'length' | 'elevation' | 'diameter' | 'flow' | 'velocity' | 'temperature' | 'density' | 'pressurePerLength';
 
 /** Standard acceleration of gravity, m/s². CGPM 1901 (3rd CGPM); NIST SP 811 (2008) §B.8. */
 export const G = 9.80665;

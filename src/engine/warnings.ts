@@ -19,8 +19,7 @@ export const WARNING_CODES = {
   },
   'static-over-max': {
     severity: 'fail',
-    message:
-      'The static pressure here (source high static plus the drop in elevation) is above the maximum; a pressure-reducing valve is likely needed.',
+    message: 'The static pressure here (source high static plus the drop in elevation) is above the maximum; a pressure-reducing valve is likely needed.',
   },
   'static-below-min': {
     severity: 'caution',
@@ -40,8 +39,7 @@ export const WARNING_CODES = {
   },
   'transitional-flow': {
     severity: 'caution',
-    message:
-      'Flow in this segment is transitional at design flow (Reynolds number 2300–4000); Churchill (1977) was used and the friction factor is uncertain.',
+    message: 'Flow in this segment is transitional at design flow (Reynolds number 2300–4000); Churchill (1977) was used and the friction factor is uncertain.',
   },
   'friction-outside-validity': {
     severity: 'caution',
@@ -87,8 +85,7 @@ export const WARNING_CODES = {
   },
   'flow-test-used': {
     severity: 'note',
-    message:
-      'The source pressure at design flow follows the flow test: P(Q) = Ps − (Ps − Pr)·(Q/Qf)^1.85 (NFPA 291).',
+    message: 'The source pressure at design flow follows the flow test: P(Q) = Ps − (Ps − Pr)·(Q/Qf)^1.85 (NFPA 291).',
   },
   'flow-test-beyond-test-flow': {
     severity: 'caution',
@@ -109,8 +106,7 @@ export const WARNING_CODES = {
   },
   'size-change-loss': {
     severity: 'note',
-    message:
-      'The segment differs in size from the one feeding it; a sudden expansion or contraction loss at its start, carrying its own flow, was added.',
+    message: 'The segment differs in size from the one feeding it; a sudden expansion or contraction loss at its start, carrying its own flow, was added.',
   },
   'no-checked-fixtures': {
     severity: 'caution',
@@ -119,7 +115,7 @@ export const WARNING_CODES = {
   'booster-gain-at-static': {
     severity: 'note',
     message:
-      "The static-pressure check counts each booster at no flow: a constant-speed pump at its shutoff gain, a variable-speed pump at its set discharge pressure (worst case for the maximum).",
+      'The static-pressure check counts each booster at no flow: a constant-speed pump at its shutoff gain, a variable-speed pump at its set discharge pressure (worst case for the maximum).',
   },
   'booster-beyond-curve': {
     severity: 'caution',
@@ -173,12 +169,7 @@ export interface EngineWarning {
   elementIds?: string[];
 }
 
-export function makeWarning(
-  code: WarningCode,
-  elementType: EngineWarning['elementType'],
-  elementId: string | null,
-  detail?: string,
-): EngineWarning {
+export function makeWarning(code: WarningCode, elementType: EngineWarning['elementType'], elementId: string | null, detail?: string): EngineWarning {
   const entry = WARNING_CODES[code];
   const w: EngineWarning = { code, severity: entry.severity, message: entry.message, elementType, elementId };
   if (detail !== undefined) w.detail = detail;
@@ -189,12 +180,7 @@ export function makeWarning(
  * One warning for many elements: the first id is `elementId`, all are in `elementIds`.
  * Used for notes that would otherwise repeat on hundreds of segments of a tall building.
  */
-export function makeGroupedWarning(
-  code: WarningCode,
-  elementType: EngineWarning['elementType'],
-  elementIds: string[],
-  detail?: string,
-): EngineWarning {
+export function makeGroupedWarning(code: WarningCode, elementType: EngineWarning['elementType'], elementIds: string[], detail?: string): EngineWarning {
   const n = elementIds.length;
   const noun = elementType === 'checked-fixture' ? 'checked fixture' : elementType;
   const w = makeWarning(code, elementType, elementIds[0] ?? null, detail ?? `${n} ${n === 1 ? noun : `${noun}s`}`);

@@ -150,7 +150,5 @@ export function iapws95LiquidDensity(temperatureK: number, pressurePa: number): 
     if (Math.abs(next - rho) <= 1e-12 * rho) return next;
     rho = next;
   }
-  throw new RangeError(
-    `iapws95LiquidDensity: no liquid density found at T = ${temperatureK} K, p = ${pressurePa} Pa`,
-  );
+  throw new RangeError(`iapws95LiquidDensity: no liquid density found at T = ${temperatureK} K, p = ${pressurePa} Pa`);
 }

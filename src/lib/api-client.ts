@@ -97,10 +97,7 @@ export function createApiClient(fetchImpl: typeof fetch = (...args) => globalThi
     return csrfToken;
   }
 
-  async function request<S extends z.ZodType | undefined = undefined>(
-    path: string,
-    options: RequestOptions<S> = {},
-  ): Promise<Result<S>> {
+  async function request<S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}): Promise<Result<S>> {
     const method = options.method ?? 'GET';
     const needsCsrf = !SAFE_METHODS.has(method);
 
@@ -140,8 +137,7 @@ export function createApiClient(fetchImpl: typeof fetch = (...args) => globalThi
 
   return {
     request,
-    get: <S extends z.ZodType>(path: string, schema: S, signal?: AbortSignal) =>
-      request<S>(path, { schema, signal }) as Promise<z.output<S>>,
+    get: <S extends z.ZodType>(path: string, schema: S, signal?: AbortSignal) => request<S>(path, { schema, signal }) as Promise<z.output<S>>,
     post: (path, body, schema) => request(path, { method: 'POST', body, schema }),
     patch: (path, body, schema) => request(path, { method: 'PATCH', body, schema }),
     delete: (path) => request(path, { method: 'DELETE' }),

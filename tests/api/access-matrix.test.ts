@@ -37,13 +37,22 @@ const adminOnly = (status: number) => ({ ...all(403), anonymous: 401, administra
 const membersRead = { anonymous: 401, administrator: 200, designer: 200, contractor: 200, inspector: 200, nonMember: 404 };
 /** administrators who are not members may see membership, not the design */
 const membersRead403 = { ...membersRead, administrator: 403 };
-const designersWrite = (status: number, admin = 403) => ({ anonymous: 401, administrator: admin, designer: status, contractor: 403, inspector: 403, nonMember: 404 });
+const designersWrite = (status: number, admin = 403) => ({
+  anonymous: 401,
+  administrator: admin,
+  designer: status,
+  contractor: 403,
+  inspector: 403,
+  nonMember: 404,
+});
 
 /** One issued system for the summary rows, made on first use. */
 let issued: Promise<{ base: string; revisionId: string }> | null = null;
 function issuedOnce(w: World) {
   issued ??= (async () => {
-    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix issued', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const created = (
+      await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix issued', service: 'cold', document: smallDocument() }).expect(201)
+    ).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
     await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     return { base, revisionId: created.revision.id as string };
@@ -55,10 +64,22 @@ function issuedOnce(w: World) {
 let returnedReview: Promise<{ id: string; commentId: string }> | null = null;
 function returnedReviewOnce(w: World) {
   returnedReview ??= (async () => {
-    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix returned', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const created = (
+      await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix returned', service: 'cold', document: smallDocument() }).expect(201)
+    ).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
     await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
-    const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId, status: 'returned', comment: 'Matrix return', decided_at: w.h.db.fn.now() }).returning('id');
+    const [review] = await w.h
+      .db('reviews')
+      .insert({
+        project_id: w.projectId,
+        revision_id: created.revision.id,
+        reviewer_id: w.inspectorId,
+        status: 'returned',
+        comment: 'Matrix return',
+        decided_at: w.h.db.fn.now(),
+      })
+      .returning('id');
     const [comment] = await w.h.db('review_comments').insert({ review_id: review.id, item_type: 'general', comment: 'Matrix comment' }).returning('id');
     return { id: review.id as string, commentId: String(comment.id) };
   })();
@@ -69,7 +90,9 @@ let packageSystem: Promise<string> | null = null;
 let acceptedReview: Promise<{ id: string }> | null = null;
 function acceptedReviewOnce(w: World) {
   acceptedReview ??= (async () => {
-    const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix accepted', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const created = (
+      await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix accepted', service: 'cold', document: smallDocument() }).expect(201)
+    ).body;
     const base = `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
     await w.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const [review] = await w.h.db('reviews').insert({ project_id: w.projectId, revision_id: created.revision.id, reviewer_id: w.inspectorId }).returning('id');
@@ -84,7 +107,11 @@ const contractorsWrite = (status: number) => ({ anonymous: 401, administrator: 4
 
 /** A fresh issued system with a field change by the project's contractor: a draft, changed, or proposed. */
 async function freshFieldChange(w: World, stage: 'draft' | 'changed' | 'proposed' = 'draft') {
-  const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix field change', service: 'cold', document: smallDocument() }).expect(201)).body;
+  const created = (
+    await w.designer
+      .send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix field change', service: 'cold', document: smallDocument() })
+      .expect(201)
+  ).body;
   const sys = `/api/projects/${w.projectId}/systems/${created.system.id}`;
   await w.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
   const fcBase = `${sys}/field-changes`;
@@ -113,7 +140,16 @@ function fieldChangeOnce(w: World) {
 let sharedEntry: Promise<string> | null = null;
 function matrixEntry(w: World, fresh = false): Promise<string> {
   const make = async () =>
-    (await w.designer.send('POST', `/api/projects/${w.projectId}/catalog/entries`, { kind: 'fitting-type', label: 'Matrix entry', source: 'Invented matrix sheet', data: { k: 0.5 } }).expect(201)).body.entry.id as string;
+    (
+      await w.designer
+        .send('POST', `/api/projects/${w.projectId}/catalog/entries`, {
+          kind: 'fitting-type',
+          label: 'Matrix entry',
+          source: 'Invented matrix sheet',
+          data: { k: 0.5 },
+        })
+        .expect(201)
+    ).body.entry.id as string;
   if (fresh) return make();
   sharedEntry ??= make();
   return sharedEntry;
@@ -122,9 +158,19 @@ function matrixEntry(w: World, fresh = false): Promise<string> {
 const ROWS: Row[] = [
   { method: 'GET', path: '/api/health', expect: all(200), request: async () => ({ url: '/api/health' }) },
   { method: 'GET', path: '/api/csrf-token', expect: all(200), request: async () => ({ url: '/api/csrf-token' }) },
-  { method: 'POST', path: '/api/auth/sign-in', expect: all(401), request: async () => ({ url: '/api/auth/sign-in', body: { email: 'nobody@test.example', password: 'wrong password' } }) },
+  {
+    method: 'POST',
+    path: '/api/auth/sign-in',
+    expect: all(401),
+    request: async () => ({ url: '/api/auth/sign-in', body: { email: 'nobody@test.example', password: 'wrong password' } }),
+  },
   // "forgot my password" (issue 7): open to everyone, the same answer for every address; a made-up link is refused alike
-  { method: 'POST', path: '/api/auth/password-reset', expect: all(202), request: async () => ({ url: '/api/auth/password-reset', body: { email: `nobody-${randomUUID()}@test.example` } }) },
+  {
+    method: 'POST',
+    path: '/api/auth/password-reset',
+    expect: all(202),
+    request: async () => ({ url: '/api/auth/password-reset', body: { email: `nobody-${randomUUID()}@test.example` } }),
+  },
   {
     method: 'POST',
     path: '/api/auth/password-reset/confirm',
@@ -133,9 +179,19 @@ const ROWS: Row[] = [
   },
   { method: 'GET', path: '/api/auth/me', expect: signedInOnly(200), request: async () => ({ url: '/api/auth/me' }) },
   { method: 'GET', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}` }) },
-  { method: 'POST', path: '/api/invitations/:token', expect: all(404), request: async () => ({ url: `/api/invitations/${randomUUID()}`, body: { password: 'a long enough password' } }) },
+  {
+    method: 'POST',
+    path: '/api/invitations/:token',
+    expect: all(404),
+    request: async () => ({ url: `/api/invitations/${randomUUID()}`, body: { password: 'a long enough password' } }),
+  },
   { method: 'GET', path: '/api/users', expect: adminOnly(200), request: async () => ({ url: '/api/users' }) },
-  { method: 'POST', path: '/api/users', expect: adminOnly(201), request: async () => ({ url: '/api/users', body: { email: `m-${randomUUID()}@test.example`, name: 'Matrix Person', accountRole: 'inspector' } }) },
+  {
+    method: 'POST',
+    path: '/api/users',
+    expect: adminOnly(201),
+    request: async () => ({ url: '/api/users', body: { email: `m-${randomUUID()}@test.example`, name: 'Matrix Person', accountRole: 'inspector' } }),
+  },
   {
     method: 'PATCH',
     path: '/api/users/:userId',
@@ -154,12 +210,20 @@ const ROWS: Row[] = [
   { method: 'GET', path: '/api/catalog', expect: signedInOnly(200), request: async () => ({ url: '/api/catalog' }) },
   { method: 'GET', path: '/api/projects', expect: signedInOnly(200), request: async () => ({ url: '/api/projects' }) },
   // ---- a project's own catalog entries (issue 4): members read, designers write
-  { method: 'GET', path: '/api/projects/:projectId/catalog', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/catalog` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/catalog',
+    expect: membersRead403,
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/catalog` }),
+  },
   {
     method: 'POST',
     path: '/api/projects/:projectId/catalog/entries',
     expect: designersWrite(201),
-    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/catalog/entries`, body: { kind: 'fitting-type', label: 'Matrix elbow', source: 'Invented matrix sheet', data: { k: 0.5 } } }),
+    request: async ({ projectId }) => ({
+      url: `/api/projects/${projectId}/catalog/entries`,
+      body: { kind: 'fitting-type', label: 'Matrix elbow', source: 'Invented matrix sheet', data: { k: 0.5 } },
+    }),
   },
   {
     method: 'PATCH',
@@ -194,7 +258,12 @@ const ROWS: Row[] = [
       return { url: `/api/projects/${projectId}`, body: { notes: `edited ${randomUUID()}`, version } };
     },
   },
-  { method: 'GET', path: '/api/projects/:projectId/members', expect: membersRead, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/members` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/members',
+    expect: membersRead,
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/members` }),
+  },
   {
     method: 'POST',
     path: '/api/projects/:projectId/members',
@@ -221,14 +290,24 @@ const ROWS: Row[] = [
       return { url: `/api/projects/${projectId}/members/${u.id}` };
     },
   },
-  { method: 'GET', path: '/api/projects/:projectId/systems', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/systems` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems',
+    expect: membersRead403,
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/systems` }),
+  },
   {
     method: 'POST',
     path: '/api/projects/:projectId/systems',
     expect: designersWrite(201),
     request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/systems`, body: { name: 'Matrix system', service: 'cold' } }),
   },
-  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId', expect: membersRead403, request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId',
+    expect: membersRead403,
+    request: async (w) => ({ url: `/api/projects/${w.projectId}/systems/${w.systemId}` }),
+  },
   {
     method: 'GET',
     path: '/api/projects/:projectId/systems/:systemId/compare',
@@ -269,8 +348,13 @@ const ROWS: Row[] = [
     expect: designersWrite(200),
     request: async (w) => {
       // a fresh system each time: issuing is once per draft
-      const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To issue', service: 'cold', document: smallDocument() }).expect(201)).body;
-      return { url: `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, body: { version: 1, attestation: ATTESTATION } };
+      const created = (
+        await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To issue', service: 'cold', document: smallDocument() }).expect(201)
+      ).body;
+      return {
+        url: `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`,
+        body: { version: 1, attestation: ATTESTATION },
+      };
     },
   },
   {
@@ -278,7 +362,9 @@ const ROWS: Row[] = [
     path: '/api/projects/:projectId/systems/:systemId/revisions',
     expect: designersWrite(201),
     request: async (w) => {
-      const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To redraft', service: 'cold', document: smallDocument() }).expect(201)).body;
+      const created = (
+        await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'To redraft', service: 'cold', document: smallDocument() }).expect(201)
+      ).body;
       const base = `/api/projects/${w.projectId}/systems/${created.system.id}`;
       await w.designer.send('POST', `${base}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
       return { url: `${base}/revisions`, body: { fromRevisionId: created.revision.id } };
@@ -315,7 +401,9 @@ const ROWS: Row[] = [
       const { base, revisionId } = await issuedOnce(w);
       const row = await w.h.db('summaries').where({ revision_id: revisionId }).first('header');
       await w.h.db('summaries').where({ revision_id: revisionId }).delete();
-      await w.h.db('summaries').insert({ revision_id: revisionId, project_id: w.projectId, header: JSON.stringify(row.header), status: 'failed', error: 'matrix' });
+      await w.h
+        .db('summaries')
+        .insert({ revision_id: revisionId, project_id: w.projectId, header: JSON.stringify(row.header), status: 'failed', error: 'matrix' });
       return { url: `${base}/summary/retry` };
     },
   },
@@ -330,8 +418,19 @@ const ROWS: Row[] = [
     path: '/api/projects/:projectId/messages/:messageId/retry',
     expect: designersWrite(200),
     request: async (w) => {
-      const [row] = await w.h.db('outbox')
-        .insert({ kind: 'invitation', project_id: w.projectId, to_address: 'matrix@test.example', subject: 'Matrix', text_body: 'Matrix', status: 'failed', attempts: 3, max_attempts: 3, last_error: 'matrix' })
+      const [row] = await w.h
+        .db('outbox')
+        .insert({
+          kind: 'invitation',
+          project_id: w.projectId,
+          to_address: 'matrix@test.example',
+          subject: 'Matrix',
+          text_body: 'Matrix',
+          status: 'failed',
+          attempts: 3,
+          max_attempts: 3,
+          last_error: 'matrix',
+        })
         .returning('id');
       return { url: `/api/projects/${w.projectId}/messages/${row.id}/retry` };
     },
@@ -342,7 +441,12 @@ const ROWS: Row[] = [
     expect: membersRead403,
     request: async (w) => ({ url: `${(await issuedOnce(w)).base}/reviews` }),
   },
-  { method: 'GET', path: '/api/projects/:projectId/reviews', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/reviews` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/reviews',
+    expect: membersRead403,
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/reviews` }),
+  },
   {
     method: 'PATCH',
     path: '/api/projects/:projectId/reviews/:reviewId',
@@ -363,7 +467,10 @@ const ROWS: Row[] = [
     expect: designersWrite(200),
     request: async (w) => {
       const review = await returnedReviewOnce(w);
-      return { url: `/api/projects/${w.projectId}/reviews/${review.id}/comments/${review.commentId}/reply`, body: { reply: `Answered ${randomUUID().slice(0, 6)}` } };
+      return {
+        url: `/api/projects/${w.projectId}/reviews/${review.id}/comments/${review.commentId}/reply`,
+        body: { reply: `Answered ${randomUUID().slice(0, 6)}` },
+      };
     },
   },
   {
@@ -373,8 +480,17 @@ const ROWS: Row[] = [
     request: async (w) => {
       // its own issued system: the summary/retry row fails the shared one's summary on purpose
       packageSystem ??= (async () => {
-        const created = (await w.designer.send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix package', service: 'cold', document: smallDocument() }).expect(201)).body;
-        await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
+        const created = (
+          await w.designer
+            .send('POST', `/api/projects/${w.projectId}/systems`, { name: 'Matrix package', service: 'cold', document: smallDocument() })
+            .expect(201)
+        ).body;
+        await w.designer
+          .send('POST', `/api/projects/${w.projectId}/systems/${created.system.id}/revisions/${created.revision.id}/issue`, {
+            version: 1,
+            attestation: ATTESTATION,
+          })
+          .expect(200);
         return created.system.id as string;
       })();
       return { url: `/api/projects/${w.projectId}/submissions`, body: { systemIds: [await packageSystem], inspectorIds: [w.inspectorId] } };
@@ -392,15 +508,30 @@ const ROWS: Row[] = [
     expect: membersRead403,
     request: async (w) => ({ url: `/api/projects/${w.projectId}/reviews/${(await acceptedReviewOnce(w)).id}/acceptance.pdf` }),
   },
-  { method: 'GET', path: '/api/projects/:projectId/audit', expect: designersWrite(200), request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/audit` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/audit',
+    expect: designersWrite(200),
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/audit` }),
+  },
   // the matrix's app runs without HEADROOM_DEV_MAIL: the development mail routes answer 404 to
   // everyone (tests/api/mail.test.ts checks them switched on: administrators only)
   { method: 'GET', path: '/api/dev/mail', expect: all(404), request: async () => ({ url: '/api/dev/mail' }) },
   { method: 'GET', path: '/api/dev/mail/:mailId', expect: all(404), request: async () => ({ url: '/api/dev/mail/1' }) },
   { method: 'GET', path: '/api/dev/mail/:mailId/attachments/:index', expect: all(404), request: async () => ({ url: '/api/dev/mail/1/attachments/0' }) },
   // ---- field changes (issue 6)
-  { method: 'GET', path: '/api/projects/:projectId/field-changes', expect: membersRead403, request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/field-changes` }) },
-  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes', expect: membersRead403, request: async (w) => ({ url: (await fieldChangeOnce(w)).fcBase }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/field-changes',
+    expect: membersRead403,
+    request: async ({ projectId }) => ({ url: `/api/projects/${projectId}/field-changes` }),
+  },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes',
+    expect: membersRead403,
+    request: async (w) => ({ url: (await fieldChangeOnce(w)).fcBase }),
+  },
   {
     method: 'POST',
     path: '/api/projects/:projectId/systems/:systemId/field-changes',
@@ -410,7 +541,12 @@ const ROWS: Row[] = [
       return { url: fc.fcBase, body: { revisionId: fc.revisionId, title: 'Matrix start' } };
     },
   },
-  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId', expect: membersRead403, request: async (w) => ({ url: (await fieldChangeOnce(w)).url }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId',
+    expect: membersRead403,
+    request: async (w) => ({ url: (await fieldChangeOnce(w)).url }),
+  },
   {
     method: 'PATCH',
     path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId',
@@ -421,7 +557,12 @@ const ROWS: Row[] = [
       return { url: fc.url, body: { title: `Edited ${randomUUID().slice(0, 6)}`, version } };
     },
   },
-  { method: 'GET', path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/comparison', expect: membersRead403, request: async (w) => ({ url: `${(await fieldChangeOnce(w)).url}/comparison` }) },
+  {
+    method: 'GET',
+    path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/comparison',
+    expect: membersRead403,
+    request: async (w) => ({ url: `${(await fieldChangeOnce(w)).url}/comparison` }),
+  },
   {
     method: 'POST',
     path: '/api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/propose',
@@ -484,7 +625,9 @@ const clients = {} as Record<Who, Client>;
 beforeAll(async () => {
   h = startHarness();
   const p = await projectWithRoles(h);
-  const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Matrix cold', service: 'cold', document: smallDocument() }).expect(201)).body;
+  const created = (
+    await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Matrix cold', service: 'cold', document: smallDocument() }).expect(201)
+  ).body;
   world = { h, projectId: p.projectId, systemId: created.system.id, revisionId: created.revision.id, designer: p.designer, inspectorId: p.inspectorUser.id };
   clients.designer = p.designer;
   clients.contractor = await signedIn(h, p.contractorUser);

@@ -8,8 +8,7 @@ beforeAll(() => {
 });
 afterAll(() => h.close());
 
-const sessionCookie = (res: request.Response) =>
-  ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('headroom.sid='));
+const sessionCookie = (res: request.Response) => ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('headroom.sid='));
 
 describe('signing in and out', () => {
   it('when the password is right, then the user is returned without any password field and /me answers', async () => {
@@ -128,15 +127,22 @@ describe('invitations', () => {
 
   it('when an invitation has expired, then it is refused', async () => {
     const admin = await signedIn(h, await makeUser(h.db, { isAdmin: true }));
-    const created = await admin.send('POST', '/api/users', { email: `late-${Date.now()}@test.example`, name: 'Late Person', accountRole: 'inspector' }).expect(201);
+    const created = await admin
+      .send('POST', '/api/users', { email: `late-${Date.now()}@test.example`, name: 'Late Person', accountRole: 'inspector' })
+      .expect(201);
     const token = new URL(created.body.invitation.url).pathname.split('/').pop()!;
-    await h.db('invitations').where({ user_id: created.body.user.id }).update({ expires_at: new Date(Date.now() - 1000) });
+    await h
+      .db('invitations')
+      .where({ user_id: created.body.user.id })
+      .update({ expires_at: new Date(Date.now() - 1000) });
     await request(h.headroom.app).get(`/api/invitations/${token}`).expect(404);
   });
 
   it('when a new link is issued, then the earlier one stops working', async () => {
     const admin = await signedIn(h, await makeUser(h.db, { isAdmin: true }));
-    const created = await admin.send('POST', '/api/users', { email: `twice-${Date.now()}@test.example`, name: 'Twice Person', accountRole: 'designer' }).expect(201);
+    const created = await admin
+      .send('POST', '/api/users', { email: `twice-${Date.now()}@test.example`, name: 'Twice Person', accountRole: 'designer' })
+      .expect(201);
     const first = new URL(created.body.invitation.url).pathname.split('/').pop()!;
     const again = await admin.send('POST', `/api/users/${created.body.user.id}/invitations`).expect(201);
     const second = new URL(again.body.invitation.url).pathname.split('/').pop()!;

@@ -33,7 +33,15 @@ describe('one submission for a building', () => {
     const p = await projectWithRoles(h);
     const cold = await issuedSystem(p.designer, p.projectId, demoDocument(), 'Domestic cold water');
     const hot = await issuedSystem(p.designer, p.projectId, hotDocument(), 'Domestic hot water');
-    const sent = (await p.designer.send('POST', `/api/projects/${p.projectId}/submissions`, { systemIds: [cold.systemId, hot.systemId], inspectorIds: [p.inspectorUser.id], message: 'The building’s two systems.' }).expect(202)).body;
+    const sent = (
+      await p.designer
+        .send('POST', `/api/projects/${p.projectId}/submissions`, {
+          systemIds: [cold.systemId, hot.systemId],
+          inspectorIds: [p.inspectorUser.id],
+          message: 'The building’s two systems.',
+        })
+        .expect(202)
+    ).body;
     expect(sent.messages).toHaveLength(1);
     expect(sent.reviews).toHaveLength(2);
     expect(new Set(sent.reviews.map((r: { packageId: string }) => r.packageId))).toEqual(new Set([sent.packageId]));
@@ -55,12 +63,20 @@ describe('one submission for a building', () => {
 
     // the inspector decides each system on its own: comments stay with their system
     const inspector = await signedIn(h, p.inspectorUser);
-    const inbox = (await inspector.get('/api/inbox').expect(200)).body.items.filter((i: { review: { packageId: string } }) => i.review.packageId === sent.packageId);
+    const inbox = (await inspector.get('/api/inbox').expect(200)).body.items.filter(
+      (i: { review: { packageId: string } }) => i.review.packageId === sent.packageId,
+    );
     expect(inbox).toHaveLength(2);
     const coldReview = inbox.find((i: { review: { systemId: string } }) => i.review.systemId === cold.systemId).review;
     const hotReview = inbox.find((i: { review: { systemId: string } }) => i.review.systemId === hot.systemId).review;
     await inspector.send('PATCH', `/api/projects/${p.projectId}/reviews/${coldReview.id}`, { decision: 'accepted', version: coldReview.version }).expect(200);
-    await inspector.send('PATCH', `/api/projects/${p.projectId}/reviews/${hotReview.id}`, { decision: 'returned', items: [{ itemType: 'input', itemId: 'waterTemperature', comment: 'State the heater set point.' }], version: hotReview.version }).expect(200);
+    await inspector
+      .send('PATCH', `/api/projects/${p.projectId}/reviews/${hotReview.id}`, {
+        decision: 'returned',
+        items: [{ itemType: 'input', itemId: 'waterTemperature', comment: 'State the heater set point.' }],
+        version: hotReview.version,
+      })
+      .expect(200);
     const systems = (await p.designer.get(`/api/projects/${p.projectId}/systems`).expect(200)).body.systems;
     expect(systems.find((s: { id: string }) => s.id === hot.systemId).returned.comments).toBe(1);
     expect(systems.find((s: { id: string }) => s.id === cold.systemId).returned).toBeNull();
@@ -69,8 +85,11 @@ describe('one submission for a building', () => {
   it('when a chosen system has no issued revision or a recipient is not an inspector, then nothing is sent and each field says why', async () => {
     const p = await projectWithRoles(h);
     const cold = await issuedSystem(p.designer, p.projectId, demoDocument());
-    const draft = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Hot water (draft)', service: 'hot' }).expect(201)).body.system;
-    const refused = await p.designer.send('POST', `/api/projects/${p.projectId}/submissions`, { systemIds: [cold.systemId, draft.id], inspectorIds: [p.contractorUser.id] }).expect(400);
+    const draft = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Hot water (draft)', service: 'hot' }).expect(201)).body
+      .system;
+    const refused = await p.designer
+      .send('POST', `/api/projects/${p.projectId}/submissions`, { systemIds: [cold.systemId, draft.id], inspectorIds: [p.contractorUser.id] })
+      .expect(400);
     expect(refused.body.error.fields['systemIds.1']).toMatch(/no issued revision/);
     expect(refused.body.error.fields['inspectorIds.0']).toMatch(/not an inspector/);
     expect(await h.db('outbox').where({ project_id: p.projectId, kind: 'summary' })).toHaveLength(0);

@@ -16,9 +16,21 @@ describe('the catalogs in PostgreSQL', () => {
     const { entries } = (await client.get('/api/catalog').expect(200)).body as { entries: { kind: string; id: string; source: string; data: unknown }[] };
     for (const e of entries) expect(e.source.trim().length, `${e.kind} ${e.id}`).toBeGreaterThan(10);
     const byKind = (k: string) => entries.filter((e) => e.kind === k);
-    expect(byKind('material').map((e) => e.id).sort()).toEqual(Object.keys(MATERIALS).sort());
-    expect(byKind('fitting-type').map((e) => e.id).sort()).toEqual(Object.keys(FITTING_TYPES).sort());
-    expect(byKind('fixture-type').map((e) => e.id).sort()).toEqual(Object.keys(FIXTURE_TYPES).sort());
+    expect(
+      byKind('material')
+        .map((e) => e.id)
+        .sort(),
+    ).toEqual(Object.keys(MATERIALS).sort());
+    expect(
+      byKind('fitting-type')
+        .map((e) => e.id)
+        .sort(),
+    ).toEqual(Object.keys(FITTING_TYPES).sort());
+    expect(
+      byKind('fixture-type')
+        .map((e) => e.id)
+        .sort(),
+    ).toEqual(Object.keys(FIXTURE_TYPES).sort());
     const copperL = byKind('material').find((e) => e.id === 'copper-l')!.data;
     expect(copperL).toEqual(JSON.parse(JSON.stringify(MATERIALS['copper-l'])));
     expect(byKind('device-template').length).toBeGreaterThan(0);

@@ -159,7 +159,7 @@ describe('the local cluster of npm start asks for a password', () => {
       // the role owns what it uses: it can write, change the table and call the function
       await app.client.query("INSERT INTO kept (kind, note) VALUES ('b', 'after the upgrade')");
       await app.client.query('ALTER TABLE kept ADD COLUMN later int');
-      const count = await app.client.query('SELECT kept_count() AS n, (SELECT string_agg(note, \' / \' ORDER BY note) FROM kept_notes) AS notes');
+      const count = await app.client.query("SELECT kept_count() AS n, (SELECT string_agg(note, ' / ' ORDER BY note) FROM kept_notes) AS notes");
       expect(count.rows[0]).toEqual({ n: '2', notes: 'after the upgrade / from the old cluster' });
     } finally {
       await app.client.end();

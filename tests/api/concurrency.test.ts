@@ -23,7 +23,8 @@ afterAll(async () => {
 
 async function draft() {
   const project = (await want(designer.send('POST', '/api/projects', { name: 'Concurrency' }), 201)).body.project;
-  const created = (await want(designer.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: smallDocument() }), 201)).body;
+  const created = (await want(designer.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: smallDocument() }), 201))
+    .body;
   return { path: `/api/projects/${project.id}/systems/${created.system.id}/revisions/${created.revision.id}`, revisionId: created.revision.id as string };
 }
 
@@ -33,12 +34,14 @@ describe('parallel saves of one draft', () => {
     // each save differs (its elbow count), so the stored document tells whose save won
     const bodies = Array.from({ length: 20 }, (_, i) => ({ document: { ...smallDocument({ elbowCount: i + 1 }), id: `doc-${i}` }, version: 1 }));
     // separate clients: separate connections, so the requests really overlap at the database
-    const clients = await Promise.all(bodies.map(async () => {
-      const c = new UrlClient(server.url);
-      for (const [k, v] of designer.cookies) c.cookies.set(k, v);
-      c.token = designer.token;
-      return c;
-    }));
+    const clients = await Promise.all(
+      bodies.map(async () => {
+        const c = new UrlClient(server.url);
+        for (const [k, v] of designer.cookies) c.cookies.set(k, v);
+        c.token = designer.token;
+        return c;
+      }),
+    );
     const answers = await Promise.all(bodies.map((b, i) => clients[i].send('PUT', `${path}/document`, b)));
     const statuses = answers.map((a) => a.status);
     expect(statuses.filter((s) => s === 200)).toHaveLength(1);
@@ -74,7 +77,11 @@ describe('parallel saves of one draft', () => {
     );
     const row = await h.db('revisions').where({ id: revisionId }).first('version', 'document');
     expect(row.version).toBe(21);
-    const marks = String(row.document.nodes[0].label).split('|').slice(1).map(Number).sort((a, b) => a - b);
+    const marks = String(row.document.nodes[0].label)
+      .split('|')
+      .slice(1)
+      .map(Number)
+      .sort((a, b) => a - b);
     expect(marks).toEqual(Array.from({ length: 20 }, (_, i) => i));
   });
 });

@@ -35,11 +35,30 @@ async function storedV1System() {
   expect(analysis.ok).toBe(true);
   const [issued] = await h
     .db('revisions')
-    .insert({ system_id: system.id, number: 1, status: 'issued', document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: 'v1-era', created_by: user.id, issued_by: user.id, issued_at: h.db.fn.now(), input_hash: 'a'.repeat(64) })
+    .insert({
+      system_id: system.id,
+      number: 1,
+      status: 'issued',
+      document: JSON.stringify(document),
+      analysis: JSON.stringify(analysis),
+      engine_version: 'v1-era',
+      created_by: user.id,
+      issued_by: user.id,
+      issued_at: h.db.fn.now(),
+      input_hash: 'a'.repeat(64),
+    })
     .returning('*');
   const [draft] = await h
     .db('revisions')
-    .insert({ system_id: system.id, number: 2, status: 'draft', document: JSON.stringify(document), analysis: JSON.stringify(analysis), engine_version: 'v1-era', created_by: user.id })
+    .insert({
+      system_id: system.id,
+      number: 2,
+      status: 'draft',
+      document: JSON.stringify(document),
+      analysis: JSON.stringify(analysis),
+      engine_version: 'v1-era',
+      created_by: user.id,
+    })
     .returning('*');
   return { ...p, system, issued, draft, document, base: `/api/projects/${p.projectId}/systems/${system.id}` };
 }
@@ -61,7 +80,9 @@ describe('stored drafts move to document version 2; issued revisions never chang
     expect(after.analysis).toEqual({ ok: true, analysis: JSON.parse(JSON.stringify(engine.analysis)) });
     const lav2 = engine.analysis.fixtures.find((f) => f.id === 'lav-2')!;
     expect(lav2.elevation).toBe(12);
-    const flat = (issued.analysis as { analysis: { fixtures: { id: string; elevation: number; margin: number }[] } }).analysis.fixtures.find((f) => f.id === 'lav-2')!;
+    const flat = (issued.analysis as { analysis: { fixtures: { id: string; elevation: number; margin: number }[] } }).analysis.fixtures.find(
+      (f) => f.id === 'lav-2',
+    )!;
     expect(flat.elevation).toBe(0);
     expect(lav2.margin).toBeLessThan(flat.margin); // the climb the flat document hid
 

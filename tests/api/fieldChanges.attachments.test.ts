@@ -12,7 +12,8 @@ beforeAll(() => {
 afterAll(() => h.close());
 
 const sha = (b: Buffer) => createHash('sha256').update(b).digest('hex');
-const stored = async (fieldChangeId: string) => Number((await h.db('field_change_attachments').where({ field_change_id: fieldChangeId }).count({ n: '*' }).first())!.n);
+const stored = async (fieldChangeId: string) =>
+  Number((await h.db('field_change_attachments').where({ field_change_id: fieldChangeId }).count({ n: '*' }).first())!.n);
 
 async function draft() {
   const w = await fieldChangeWorld(h);
@@ -74,7 +75,9 @@ describe('field change attachments', () => {
     for (const c of cases) {
       const res = await upload(w.contractor, w.url, c.content, c.name, c.declared);
       expect(res.status, c.name).toBe(400);
-      expect(res.body.error.message).toBe('The file is not a PDF, JPEG or PNG by its content (its name and declared type are not trusted); nothing was stored.');
+      expect(res.body.error.message).toBe(
+        'The file is not a PDF, JPEG or PNG by its content (its name and declared type are not trusted); nothing was stored.',
+      );
       expect(res.body.error.fields).toEqual({ file: 'Not a PDF, JPEG or PNG' });
     }
     const empty = await upload(w.contractor, w.url, Buffer.alloc(0), 'empty.pdf', 'application/pdf');
@@ -104,7 +107,9 @@ describe('field change attachments', () => {
     }
     // NUL and other control characters: sent encoded (RFC 5987) they reach the server and are removed;
     // sent raw in the part header the multipart body is malformed and refused whole
-    const nul = await upload(w.contractor, w.url, tinyPdf(), 'data\u0000sheet\u0007\u001b[31m<script>alert(1)</script>.pdf', 'application/pdf', { encodedName: true });
+    const nul = await upload(w.contractor, w.url, tinyPdf(), 'data\u0000sheet\u0007\u001b[31m<script>alert(1)</script>.pdf', 'application/pdf', {
+      encodedName: true,
+    });
     expect(nul.status, JSON.stringify(nul.body)).toBe(201);
     expect(nul.body.attachment.fileName).toBe('script_.pdf');
     const nulOnly = await upload(w.contractor, w.url, tinyPdf(), 'data\u0000sheet\u0007<b>x.pdf', 'application/pdf', { encodedName: true });

@@ -71,7 +71,8 @@ describe('field changes: accepted while the system has a draft', () => {
   it('when the draft changed something else, then accepting carries the contractor’s changes onto that draft, which records the field change', async () => {
     const { w, revisions, draft, fieldChange, url } = await proposedOnDraftedSystem();
     const designerEdit = edited(draft.document as Doc, (d) => void (d.source.staticPressureLow -= 1));
-    const savedDraft = (await w.designer.send('PUT', `${revisions}/${draft.id}/document`, { document: designerEdit, version: draft.version }).expect(200)).body.revision;
+    const savedDraft = (await w.designer.send('PUT', `${revisions}/${draft.id}/document`, { document: designerEdit, version: draft.version }).expect(200)).body
+      .revision;
     const change = edited(fieldChange.document as Doc, (d) => {
       d.segments[1].material = 'pex-sdr9';
       d.segments[1].size = '1';
@@ -93,7 +94,8 @@ describe('field changes: accepted while the system has a draft', () => {
   it('when the draft changed the same field differently, then 409 names it, nothing is merged and the field change stays proposed', async () => {
     const { w, revisions, draft, fieldChange, url } = await proposedOnDraftedSystem();
     const designerEdit = edited(draft.document as Doc, (d) => void (d.segments[1].size = '1-1/4'));
-    const savedDraft = (await w.designer.send('PUT', `${revisions}/${draft.id}/document`, { document: designerEdit, version: draft.version }).expect(200)).body.revision;
+    const savedDraft = (await w.designer.send('PUT', `${revisions}/${draft.id}/document`, { document: designerEdit, version: draft.version }).expect(200)).body
+      .revision;
     const change = edited(fieldChange.document as Doc, (d) => void (d.segments[1].size = '1'));
     const saved = (await w.contractor.send('PATCH', url, { document: change, version: fieldChange.version }).expect(200)).body.fieldChange;
     const proposed = (await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200)).body.fieldChange;

@@ -138,9 +138,7 @@ describe('field changes: the side by side', () => {
       expect(s.lossDifference).toBe(y.frictionLoss + y.fittingLoss - (x.frictionLoss + x.fittingLoss));
       expect(s.velocityDifference).toBe(y.velocity - x.velocity);
     }
-    expect(cmp.devices).toEqual([
-      expect.objectContaining({ id: 'meter', change: 'changed', issuedLoss: 3, newLoss: 4.5, lossDifference: 1.5 }),
-    ]);
+    expect(cmp.devices).toEqual([expect.objectContaining({ id: 'meter', change: 'changed', issuedLoss: 3, newLoss: 4.5, lossDifference: 1.5 })]);
 
     const keys = (ws: EngineWarning[]) => new Set(ws.flatMap((x) => (x.elementIds ?? [x.elementId]).map((id) => `${x.code}|${x.elementType}|${id}`)));
     const [ka, kb] = [keys(a.warnings), keys(b.warnings)];
@@ -151,8 +149,15 @@ describe('field changes: the side by side', () => {
     const before = a.fixtures.find((f) => f.id === a.criticalFixtureId)!;
     const after = b.fixtures.find((f) => f.id === b.criticalFixtureId)!;
     expect(after.margin).toBeLessThan(before.margin);
-    expect(cmp.verdict).toMatchObject({ pass: true, criticalFixtureId: b.criticalFixtureId, issuedSmallestMargin: before.margin, newSmallestMargin: after.margin });
-    expect(cmp.verdict.sentence).toBe(`Still passes; the smallest margin falls from ${num(before.margin, 'psi')} psi to ${num(after.margin, 'psi')} psi at ${after.label}.`);
+    expect(cmp.verdict).toMatchObject({
+      pass: true,
+      criticalFixtureId: b.criticalFixtureId,
+      issuedSmallestMargin: before.margin,
+      newSmallestMargin: after.margin,
+    });
+    expect(cmp.verdict.sentence).toBe(
+      `Still passes; the smallest margin falls from ${num(before.margin, 'psi')} psi to ${num(after.margin, 'psi')} psi at ${after.label}.`,
+    );
     expect(cmp.units.pressure).toBe('psi');
   });
 
@@ -160,7 +165,10 @@ describe('field changes: the side by side', () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
     // a strainer with a fixed 45 psi loss on the riser: more than lav-2's issued margin (invented figure)
-    const document = edited(fieldChange.document as Doc, (d) => void d.devices.push({ id: 'strainer', kind: 'strainer', label: 'Riser strainer', segmentId: 'riser', loss: { kind: 'fixed', loss: 45 } }));
+    const document = edited(
+      fieldChange.document as Doc,
+      (d) => void d.devices.push({ id: 'strainer', kind: 'strainer', label: 'Riser strainer', segmentId: 'riser', loss: { kind: 'fixed', loss: 45 } }),
+    );
     await w.contractor.send('PATCH', url, { document, version: fieldChange.version }).expect(200);
     const cmp = (await w.contractor.get(`${url}/comparison`).expect(200)).body;
     const b = engine(document);
@@ -178,7 +186,8 @@ describe('field changes: proposed, accepted, declined', () => {
   it('when a proposed field change is accepted, then a new draft revision holds exactly its document, records it, both sides are e-mailed, every step is audited, and the issued summary lists the change', async () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
-    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200)).body.fieldChange;
+    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200))
+      .body.fieldChange;
     const proposed = (await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200)).body.fieldChange;
     expect(proposed.status).toBe('proposed');
     expect(proposed.proposedAt).not.toBeNull();
@@ -189,7 +198,8 @@ describe('field changes: proposed, accepted, declined', () => {
     expect(toDesigner[0].text_body).toContain('Still passes');
     expect(toDesigner[0].text_body).toContain(`/projects/${w.projectId}/systems/${w.systemId}/field-changes/${fieldChange.id}`);
 
-    const accepted = (await w.designer.send('POST', `${url}/accept`, { version: proposed.version, comment: 'Accepted; issue with the next set.' }).expect(200)).body;
+    const accepted = (await w.designer.send('POST', `${url}/accept`, { version: proposed.version, comment: 'Accepted; issue with the next set.' }).expect(200))
+      .body;
     expect(accepted.fieldChange.status).toBe('accepted');
     expect(accepted.revision).toMatchObject({ number: 2, status: 'draft' });
     expect(accepted.fieldChange.acceptedRevision).toEqual({ id: accepted.revision.id, number: 2 });
@@ -204,30 +214,48 @@ describe('field changes: proposed, accepted, declined', () => {
     expect(toContractor[0].text_body).toContain('revision 2');
 
     const audit = await h.db('audit_log').where({ project_id: w.projectId }).whereIn('subject_id', [fieldChange.id, accepted.revision.id]).orderBy('id');
-    expect(audit.map((a: { action: string }) => a.action)).toEqual(['field-change.created', 'field-change.saved', 'field-change.proposed', 'field-change.accepted', 'revision.drafted']);
+    expect(audit.map((a: { action: string }) => a.action)).toEqual([
+      'field-change.created',
+      'field-change.saved',
+      'field-change.proposed',
+      'field-change.accepted',
+      'revision.drafted',
+    ]);
 
     // the designer issues it; the summary says where the revision came from
-    await w.designer.send('POST', `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/issue`, { version: accepted.revision.version, attestation: ATTESTATION }).expect(200);
-    const pdf = (await w.designer.get(`/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
+    await w.designer
+      .send('POST', `/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/issue`, {
+        version: accepted.revision.version,
+        attestation: ATTESTATION,
+      })
+      .expect(200);
+    const pdf = (
+      await w.designer.get(`/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${accepted.revision.id}/summary.pdf`).responseType('blob').expect(200)
+    ).body as Buffer;
     const text = pdfPlainText(pdf);
     expect(text).toContain('Field change in this revision');
     expect(text).toContain(`${fieldChange.number}: Press-connect fittings on the service line (on revision 1)`);
     const contractorName = (await h.db('users').where({ id: w.contractorUser.id }).first()).name;
-    expect(text).toMatch(new RegExp(`Proposed by ${contractorName} <${w.contractorUser.email.replace(/[.]/g, '\\.')}>, \\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d UTC`));
+    expect(text).toMatch(
+      new RegExp(`Proposed by ${contractorName} <${w.contractorUser.email.replace(/[.]/g, '\\.')}>, \\d{4}-\\d\\d-\\d\\d \\d\\d:\\d\\d UTC`),
+    );
     expect(text).toMatch(/Accepted by Test [^<]+<[^>]+>, \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
     expect(text).toContain('material: Copper tube, Type L');
     expect(text).toContain('PEX tubing, SDR 9');
     expect(text).toContain('length: 14.0 ft');
 
     // the first summary (revision 1) did not come from a field change and says nothing of one
-    const first = (await w.designer.get(`/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
+    const first = (
+      await w.designer.get(`/api/projects/${w.projectId}/systems/${w.systemId}/revisions/${w.revisionId}/summary.pdf`).responseType('blob').expect(200)
+    ).body as Buffer;
     expect(pdfPlainText(first)).not.toContain('Field change in this revision');
   });
 
   it('when a field change is declined, then a reason is required, the contractor is told it, and nothing more can happen to it', async () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
-    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200)).body.fieldChange;
+    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200))
+      .body.fieldChange;
     const proposed = (await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200)).body.fieldChange;
 
     const noReason = await w.designer.send('POST', `${url}/decline`, { version: proposed.version, reason: '  ' });
@@ -235,7 +263,11 @@ describe('field changes: proposed, accepted, declined', () => {
     expect(noReason.body.error.fields.reason).toMatch(/why/);
     expect((await w.designer.send('POST', `${url}/decline`, { version: proposed.version })).status).toBe(400);
 
-    const declined = (await w.designer.send('POST', `${url}/decline`, { version: proposed.version, reason: 'The PEX riser needs a listed transition at the copper tee.' }).expect(200)).body.fieldChange;
+    const declined = (
+      await w.designer
+        .send('POST', `${url}/decline`, { version: proposed.version, reason: 'The PEX riser needs a listed transition at the copper tee.' })
+        .expect(200)
+    ).body.fieldChange;
     expect(declined).toMatchObject({ status: 'declined', declineReason: 'The PEX riser needs a listed transition at the copper tee.', acceptedRevision: null });
     const mail = await h.db('outbox').where({ field_change_id: fieldChange.id, to_address: w.contractorUser.email }).first();
     expect(mail.subject).toMatch(/^Field change declined/);
@@ -259,13 +291,16 @@ describe('field changes: proposed, accepted, declined', () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
     // a draft cannot be accepted or declined, and an unchanged copy cannot be proposed
-    expect((await w.designer.send('POST', `${url}/accept`, { version: fieldChange.version })).body.error.message).toMatch(/is a draft; its contractor proposes it/);
+    expect((await w.designer.send('POST', `${url}/accept`, { version: fieldChange.version })).body.error.message).toMatch(
+      /is a draft; its contractor proposes it/,
+    );
     expect((await w.designer.send('POST', `${url}/decline`, { version: fieldChange.version, reason: 'No' })).status).toBe(409);
     const same = await w.contractor.send('POST', `${url}/propose`, { version: fieldChange.version });
     expect(same.status).toBe(409);
     expect(same.body.error.message).toMatch(/same as the issued revision/);
 
-    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200)).body.fieldChange;
+    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200))
+      .body.fieldChange;
     const stale = await w.contractor.send('PATCH', url, { title: 'Stale tab', version: fieldChange.version });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('STALE_VERSION');
@@ -281,7 +316,8 @@ describe('field changes: proposed, accepted, declined', () => {
   it('when the revision a field change was made on is superseded, then it cannot be accepted (409 naming the current revision) and no new field change starts on it', async () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
-    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200)).body.fieldChange;
+    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200))
+      .body.fieldChange;
     const proposed = (await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200)).body.fieldChange;
     const sys = `/api/projects/${w.projectId}/systems/${w.systemId}`;
     const draft = (await w.designer.send('POST', `${sys}/revisions`, { fromRevisionId: w.revisionId }).expect(201)).body.revision;
@@ -304,7 +340,8 @@ describe('field changes: proposed, accepted, declined', () => {
     const w = await fieldChangeWorld(h);
     const { fieldChange, url } = await startFieldChange(w.contractor, w.fcBase, w.revisionId);
     await startFieldChange(w.contractor, w.fcBase, w.revisionId, 'A second, still a draft');
-    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200)).body.fieldChange;
+    const saved = (await w.contractor.send('PATCH', url, { document: substitution(fieldChange.document as Doc), version: fieldChange.version }).expect(200))
+      .body.fieldChange;
     await w.contractor.send('POST', `${url}/propose`, { version: saved.version }).expect(200);
     const proposed = (await w.designer.get(`/api/projects/${w.projectId}/field-changes?status=proposed`).expect(200)).body.fieldChanges;
     expect(proposed.map((f: { id: string }) => f.id)).toEqual([fieldChange.id]);

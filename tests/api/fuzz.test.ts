@@ -47,7 +47,11 @@ const createSystemExpect: Expect = (value) => {
   const doc = (value as { document?: unknown }).document;
   if (doc === undefined) return null;
   const r = SystemDocumentSchema.safeParse(doc);
-  return r.success ? null : Object.keys(fieldsFromZod(r.error)).map((k) => `document.${k}`).sort();
+  return r.success
+    ? null
+    : Object.keys(fieldsFromZod(r.error))
+        .map((k) => `document.${k}`)
+        .sort();
 };
 
 interface BodyRoute {
@@ -66,25 +70,61 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
   'POST /api/auth/sign-out': NO_BODY,
   'POST /api/auth/password-reset': { as: 'anonymous', expect: bySchema(PasswordResetRequestBody), seed: () => ({ email: 'nobody-reset@test.example' }) },
   // a made-up token of the real length (43 base64url characters): a valid body is refused as a bad link
-  'POST /api/auth/password-reset/confirm': { as: 'anonymous', expect: bySchema(PasswordResetConfirmBody), seed: () => ({ token: 'x'.repeat(43), password: 'a long enough password' }) },
+  'POST /api/auth/password-reset/confirm': {
+    as: 'anonymous',
+    expect: bySchema(PasswordResetConfirmBody),
+    seed: () => ({ token: 'x'.repeat(43), password: 'a long enough password' }),
+  },
   'POST /api/invitations/:token': { as: 'anonymous', expect: bySchema(AcceptInvitationBody), seed: () => ({ password: 'a long enough password' }) },
-  'POST /api/users': { as: 'administrator', expect: bySchema(CreateUserBody), seed: () => ({ email: 'fuzz-new@test.example', name: 'Fuzz Person', accountRole: 'inspector', isAdmin: false }) },
-  'PATCH /api/users/:userId': { as: 'administrator', expect: bySchema(UpdateUserBody), seed: () => ({ name: 'Renamed', accountRole: 'contractor', isAdmin: false, disabled: false, version: 7 }) },
+  'POST /api/users': {
+    as: 'administrator',
+    expect: bySchema(CreateUserBody),
+    seed: () => ({ email: 'fuzz-new@test.example', name: 'Fuzz Person', accountRole: 'inspector', isAdmin: false }),
+  },
+  'PATCH /api/users/:userId': {
+    as: 'administrator',
+    expect: bySchema(UpdateUserBody),
+    seed: () => ({ name: 'Renamed', accountRole: 'contractor', isAdmin: false, disabled: false, version: 7 }),
+  },
   'POST /api/users/:userId/invitations': NO_BODY,
-  'POST /api/projects': { as: 'designer', expect: bySchema(CreateProjectBody), seed: () => ({ name: 'Fuzz project', address: '1 Kiln Row', codeBasis: 'Invented', unitSystem: 'US', notes: '' }) },
-  'PATCH /api/projects/:projectId': { as: 'designer', expect: bySchema(UpdateProjectBody), seed: () => ({ name: 'Renamed', notes: 'n', archived: false, unitSystem: 'SI', version: 7 }) },
-  'POST /api/projects/:projectId/members': { as: 'designer', expect: bySchema(AddMemberBody), seed: () => ({ email: 'nobody-member@test.example', role: 'contractor' }) },
+  'POST /api/projects': {
+    as: 'designer',
+    expect: bySchema(CreateProjectBody),
+    seed: () => ({ name: 'Fuzz project', address: '1 Kiln Row', codeBasis: 'Invented', unitSystem: 'US', notes: '' }),
+  },
+  'PATCH /api/projects/:projectId': {
+    as: 'designer',
+    expect: bySchema(UpdateProjectBody),
+    seed: () => ({ name: 'Renamed', notes: 'n', archived: false, unitSystem: 'SI', version: 7 }),
+  },
+  'POST /api/projects/:projectId/members': {
+    as: 'designer',
+    expect: bySchema(AddMemberBody),
+    seed: () => ({ email: 'nobody-member@test.example', role: 'contractor' }),
+  },
   'PATCH /api/projects/:projectId/members/:userId': { as: 'designer', expect: bySchema(UpdateMemberBody), seed: () => ({ role: 'inspector' }) },
   'DELETE /api/projects/:projectId/members/:userId': NO_BODY,
-  'POST /api/projects/:projectId/systems': { as: 'designer', expect: createSystemExpect, seed: () => ({ name: 'Fuzz system', service: 'cold', waterTemperature: 60, document: smallDocument() }) },
-  'POST /api/projects/:projectId/systems/:systemId/revisions': { as: 'designer', expect: bySchema(NewDraftBody), seed: () => ({ fromRevisionId: randomUUID() }) },
+  'POST /api/projects/:projectId/systems': {
+    as: 'designer',
+    expect: createSystemExpect,
+    seed: () => ({ name: 'Fuzz system', service: 'cold', waterTemperature: 60, document: smallDocument() }),
+  },
+  'POST /api/projects/:projectId/systems/:systemId/revisions': {
+    as: 'designer',
+    expect: bySchema(NewDraftBody),
+    seed: () => ({ fromRevisionId: randomUUID() }),
+  },
   'PUT /api/projects/:projectId/systems/:systemId/revisions/:revisionId/document': {
     as: 'designer',
     expect: bySchema(SaveDocumentBody),
     // version 7: a valid mutation is refused as stale, so the draft the other runs aim at stays put
     seed: () => ({ document: smallDocument(), version: 7 }),
   },
-  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': { as: 'designer', expect: bySchema(IssueBody), seed: () => ({ version: 7, note: 'Issued for review', attestation: ATTESTATION }) },
+  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/issue': {
+    as: 'designer',
+    expect: bySchema(IssueBody),
+    seed: () => ({ version: 7, note: 'Issued for review', attestation: ATTESTATION }),
+  },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': NO_BODY,
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': {
     as: 'designer',
@@ -98,30 +138,64 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
     seed: () => ({ decision: 'returned', comment: 'See the riser', items: [{ itemType: 'segment', itemId: 'riser', comment: 'Upsize' }], version: 7 }),
   },
   // ---- the review loop (issue 17): a reply to a comment, one submission for a building
-  'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': { as: 'designer', expect: bySchema(ReplyBody), seed: () => ({ reply: 'Added the elbows to the riser.' }) },
-  'POST /api/projects/:projectId/submissions': { as: 'designer', expect: bySchema(SendPackageBody), seed: () => ({ systemIds: [randomUUID()], inspectorIds: [randomUUID()], message: 'The building’s systems' }) },
+  'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': {
+    as: 'designer',
+    expect: bySchema(ReplyBody),
+    seed: () => ({ reply: 'Added the elbows to the riser.' }),
+  },
+  'POST /api/projects/:projectId/submissions': {
+    as: 'designer',
+    expect: bySchema(SendPackageBody),
+    seed: () => ({ systemIds: [randomUUID()], inspectorIds: [randomUUID()], message: 'The building’s systems' }),
+  },
   // ---- field changes (issue 6)
-  'POST /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor', expect: bySchema(CreateFieldChangeBody), seed: () => ({ revisionId: randomUUID(), title: 'Press fittings', description: 'On the service line' }) },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes': {
+    as: 'contractor',
+    expect: bySchema(CreateFieldChangeBody),
+    seed: () => ({ revisionId: randomUUID(), title: 'Press fittings', description: 'On the service line' }),
+  },
   'PATCH /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId': {
     as: 'contractor',
     expect: bySchema(UpdateFieldChangeBody),
     seed: () => ({ title: 'Press fittings', description: 'd', document: smallDocument(), version: 7 }),
   },
-  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/propose': { as: 'contractor', expect: bySchema(VersionBody), seed: () => ({ version: 7 }) },
-  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/accept': { as: 'designer', expect: bySchema(AcceptFieldChangeBody), seed: () => ({ version: 7, comment: 'Fine' }) },
-  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/decline': { as: 'designer', expect: bySchema(DeclineFieldChangeBody), seed: () => ({ version: 7, reason: 'Too small' }) },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/propose': {
+    as: 'contractor',
+    expect: bySchema(VersionBody),
+    seed: () => ({ version: 7 }),
+  },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/accept': {
+    as: 'designer',
+    expect: bySchema(AcceptFieldChangeBody),
+    seed: () => ({ version: 7, comment: 'Fine' }),
+  },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/decline': {
+    as: 'designer',
+    expect: bySchema(DeclineFieldChangeBody),
+    seed: () => ({ version: 7, reason: 'Too small' }),
+  },
   'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments': MULTIPART,
   // ---- a project's own catalog entries (issue 4); the PATCH target is a material entry (targetsFor)
   'POST /api/projects/:projectId/catalog/entries': {
     as: 'designer',
     expect: bySchema(CreateCatalogEntryBody),
-    seed: () => ({ kind: 'material', label: 'Fuzz tube', source: 'Invented sheet', data: { velocityClass: 'plastic', roughnessM: 0.0000015, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }] } }),
+    seed: () => ({
+      kind: 'material',
+      label: 'Fuzz tube',
+      source: 'Invented sheet',
+      data: { velocityClass: 'plastic', roughnessM: 0.0000015, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }] },
+    }),
   },
   'PATCH /api/projects/:projectId/catalog/entries/:kind/:entryId': {
     as: 'designer',
     expect: bySchema(updateCatalogEntryBody('material')),
     // version 7: a valid mutation is refused as stale, so the entry stays put
-    seed: () => ({ label: 'Renamed tube', source: 'Invented sheet, 2nd edition', data: { velocityClass: 'plastic', roughnessM: 0.0000015, hazenWilliamsC: 140, sizes: [{ key: '25 mm', innerDiameterM: 0.0204 }] }, version: 7 }),
+    seed: () => ({
+      label: 'Renamed tube',
+      source: 'Invented sheet, 2nd edition',
+      data: { velocityClass: 'plastic', roughnessM: 0.0000015, hazenWilliamsC: 140, sizes: [{ key: '25 mm', innerDiameterM: 0.0204 }] },
+      version: 7,
+    }),
   },
   'DELETE /api/projects/:projectId/catalog/entries/:kind/:entryId': NO_BODY,
   'DELETE /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId': NO_BODY,
@@ -131,9 +205,44 @@ const ROUTES: Record<string, BodyRoute | typeof NO_BODY | typeof MULTIPART> = {
 
 /** Strings chosen to trip parsers and databases: NUL, lone surrogates, bidi marks, number look-alikes. */
 const NASTY_STRINGS = [
-  '', ' ', '\u0000', 'a\u0000b', '\ud800', 'x\udfffy', '\udc00\ud800', '\u202eevil\u202c', '\u200f\u200e', '\ufeff', '\uffff', '\u{10ffff}',
-  'e\u0301', '👩‍🔧', '١٢٣', '12', '-1', '0', '1e309', '-0', 'NaN', 'Infinity', '0x1F', ' 42 ', '1,5', 'true', 'null', '[]', '{}',
-  '../../etc/passwd', '<script>alert(1)</script>', "'; drop table users; --", '%00', '\r\n\r\n', '\\', '"', 'x'.repeat(5000), 'ü'.repeat(300),
+  '',
+  ' ',
+  '\u0000',
+  'a\u0000b',
+  '\ud800',
+  'x\udfffy',
+  '\udc00\ud800',
+  '\u202eevil\u202c',
+  '\u200f\u200e',
+  '\ufeff',
+  '\uffff',
+  '\u{10ffff}',
+  'e\u0301',
+  '👩‍🔧',
+  '١٢٣',
+  '12',
+  '-1',
+  '0',
+  '1e309',
+  '-0',
+  'NaN',
+  'Infinity',
+  '0x1F',
+  ' 42 ',
+  '1,5',
+  'true',
+  'null',
+  '[]',
+  '{}',
+  '../../etc/passwd',
+  '<script>alert(1)</script>',
+  "'; drop table users; --",
+  '%00',
+  '\r\n\r\n',
+  '\\',
+  '"',
+  'x'.repeat(5000),
+  'ü'.repeat(300),
 ];
 const NASTY_NUMBERS = [0, -0, -1, 1, 0.5, -0.5, 1e308, -1e308, 5e-324, 2 ** 31, -(2 ** 31), 2 ** 53 + 2, 2 ** 63, -1e21, 1e21, 123456789.123456789];
 
@@ -202,7 +311,13 @@ function mutate(seed: unknown, mutations: Mutation[]): unknown {
         else set({ [m.key]: m.value });
         break;
       case 'numberString':
-        set(typeof current === 'number' ? String(current) : typeof current === 'string' && current !== '' && !Number.isNaN(Number(current)) ? Number(current) : '42');
+        set(
+          typeof current === 'number'
+            ? String(current)
+            : typeof current === 'string' && current !== '' && !Number.isNaN(Number(current))
+              ? Number(current)
+              : '42',
+        );
         break;
       case 'wrap':
         set([current]);
@@ -225,19 +340,36 @@ function bodyArbitrary(seed: () => unknown): fc.Arbitrary<string> {
     // a valid body with one to three things wrong
     { weight: 10, arbitrary: fc.array(mutation, { minLength: 1, maxLength: 3 }).map((ms) => JSON.stringify(mutate(seedValue, ms))) },
     // the right field names with arbitrary values, plus maybe some unknown ones
-    { weight: 3, arbitrary: fc.record({ known: fc.subarray(topKeys), values: fc.array(weirdValue, { minLength: topKeys.length, maxLength: topKeys.length }), extra: fc.dictionary(identifier, weirdValue, { maxKeys: 2 }) }).map(({ known, values, extra }) => JSON.stringify({ ...Object.fromEntries(known.map((k, i) => [k, values[i]])), ...extra })) },
+    {
+      weight: 3,
+      arbitrary: fc
+        .record({
+          known: fc.subarray(topKeys),
+          values: fc.array(weirdValue, { minLength: topKeys.length, maxLength: topKeys.length }),
+          extra: fc.dictionary(identifier, weirdValue, { maxKeys: 2 }),
+        })
+        .map(({ known, values, extra }) => JSON.stringify({ ...Object.fromEntries(known.map((k, i) => [k, values[i]])), ...extra })),
+    },
     // not an object at all
     { weight: 2, arbitrary: weirdValue.map((v) => JSON.stringify(v) ?? 'null') },
     // a field nested very deep
     {
       weight: 1,
-      arbitrary: fc.record({ key: fc.constantFrom(...topKeys), depth: fc.integer({ min: 50, max: 20_000 }), kind: fc.constantFrom('array' as const, 'object' as const) }).map(({ key, depth, kind }) => {
-        const rest = JSON.stringify({ ...(seedValue as object), [key]: 0 });
-        return rest.replace(`"${key}":0`, `"${key}":${deepText(depth, kind)}`);
-      }),
+      arbitrary: fc
+        .record({ key: fc.constantFrom(...topKeys), depth: fc.integer({ min: 50, max: 20_000 }), kind: fc.constantFrom('array' as const, 'object' as const) })
+        .map(({ key, depth, kind }) => {
+          const rest = JSON.stringify({ ...(seedValue as object), [key]: 0 });
+          return rest.replace(`"${key}":0`, `"${key}":${deepText(depth, kind)}`);
+        }),
     },
     // broken JSON: the valid text cut short, or trailing garbage
-    { weight: 1, arbitrary: fc.record({ cut: fc.nat(), tail: fc.constantFrom('', ',', '}', '\u0000', 'garbage', '{"a":') }).map(({ cut, tail }) => { const t = JSON.stringify(seedValue); return t.slice(0, 1 + (cut % (t.length - 1))) + tail; }) },
+    {
+      weight: 1,
+      arbitrary: fc.record({ cut: fc.nat(), tail: fc.constantFrom('', ',', '}', '\u0000', 'garbage', '{"a":') }).map(({ cut, tail }) => {
+        const t = JSON.stringify(seedValue);
+        return t.slice(0, 1 + (cut % (t.length - 1))) + tail;
+      }),
+    },
   );
 }
 
@@ -291,7 +423,8 @@ async function targetsFor(routePath: string): Promise<string> {
     { project_id: project.id, user_id: contractor.id, role: 'contractor' },
     { project_id: project.id, user_id: inspectorId, role: 'inspector' },
   ]);
-  const created = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz cold', service: 'cold', document: smallDocument() }), 201)).body;
+  const created = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz cold', service: 'cold', document: smallDocument() }), 201))
+    .body;
   // field changes start from an issued revision: their routes get an issued system
   if (routePath.includes('/field-changes')) {
     const base = `/api/projects/${project.id}/systems/${created.system.id}`;
@@ -303,19 +436,57 @@ async function targetsFor(routePath: string): Promise<string> {
     systemId: async () => created.system.id,
     revisionId: async () => created.revision.id,
     fieldChangeId: async () =>
-      (await want(callers.contractor.send('POST', `/api/projects/${project.id}/systems/${created.system.id}/field-changes`, { revisionId: created.revision.id, title: 'Fuzz substitution' }), 201)).body.fieldChange.id,
+      (
+        await want(
+          callers.contractor.send('POST', `/api/projects/${project.id}/systems/${created.system.id}/field-changes`, {
+            revisionId: created.revision.id,
+            title: 'Fuzz substitution',
+          }),
+          201,
+        )
+      ).body.fieldChange.id,
     userId: async () => (routePath.includes('/members/') ? contractor.id : (await makeUser(h.db)).id),
     token: async () => randomUUID().replace(/-/g, ''),
     kind: async () => 'material',
     entryId: async () =>
-      (await want(d.send('POST', `/api/projects/${project.id}/catalog/entries`, { kind: 'material', label: 'Fuzz tube', source: 'Invented sheet', data: { velocityClass: 'plastic', roughnessM: 0, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }] } }), 201)).body.entry.id,
+      (
+        await want(
+          d.send('POST', `/api/projects/${project.id}/catalog/entries`, {
+            kind: 'material',
+            label: 'Fuzz tube',
+            source: 'Invented sheet',
+            data: { velocityClass: 'plastic', roughnessM: 0, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }] },
+          }),
+          201,
+        )
+      ).body.entry.id,
     messageId: async () =>
-      (await h.db('outbox').insert({ kind: 'invitation', project_id: project.id, to_address: 'fuzz@test.example', subject: 'Fuzz', text_body: 'Fuzz', status: 'failed', attempts: 3, max_attempts: 3 }).returning('id'))[0].id,
+      (
+        await h
+          .db('outbox')
+          .insert({
+            kind: 'invitation',
+            project_id: project.id,
+            to_address: 'fuzz@test.example',
+            subject: 'Fuzz',
+            text_body: 'Fuzz',
+            status: 'failed',
+            attempts: 3,
+            max_attempts: 3,
+          })
+          .returning('id')
+      )[0].id,
     // a comment of the review made just before (the reply route's path names the review first)
-    commentId: async () => String((await h.db('review_comments').insert({ review_id: lastReviewId, item_type: 'general', comment: 'Fuzz comment' }).returning('id'))[0].id),
+    commentId: async () =>
+      String((await h.db('review_comments').insert({ review_id: lastReviewId, item_type: 'general', comment: 'Fuzz comment' }).returning('id'))[0].id),
     reviewId: async () => {
-      const other = (await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz issued', service: 'cold', document: smallDocument() }), 201)).body;
-      await want(d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1, attestation: ATTESTATION }), 200);
+      const other = (
+        await want(d.send('POST', `/api/projects/${project.id}/systems`, { name: 'Fuzz issued', service: 'cold', document: smallDocument() }), 201)
+      ).body;
+      await want(
+        d.send('POST', `/api/projects/${project.id}/systems/${other.system.id}/revisions/${other.revision.id}/issue`, { version: 1, attestation: ATTESTATION }),
+        200,
+      );
       lastReviewId = (await h.db('reviews').insert({ project_id: project.id, revision_id: other.revision.id, reviewer_id: inspectorId }).returning('id'))[0].id;
       return lastReviewId;
     },
@@ -356,7 +527,10 @@ function checkError(res: Answer, where: string) {
 describe('bad input on the write routes', () => {
   it('when the app registers a write route, then this suite knows what body it reads and who may call it', () => {
     const keys = writeRoutes().map((r) => `${r.method} ${r.path}`);
-    expect(keys.filter((k) => !(k in ROUTES)), 'add a row to ROUTES in tests/api/fuzz.test.ts').toEqual([]);
+    expect(
+      keys.filter((k) => !(k in ROUTES)),
+      'add a row to ROUTES in tests/api/fuzz.test.ts',
+    ).toEqual([]);
   });
 
   // one test per route present in both the app and the table (a new route fails the test above)
@@ -364,7 +538,10 @@ describe('bad input on the write routes', () => {
     if (route === NO_BODY || route === MULTIPART) continue;
     const [method, routePath] = key.split(' ');
     it(`${key}: generated bad bodies get 400 naming the fields, never a 5xx, and write nothing`, async () => {
-      expect(writeRoutes().some((r) => r.method === method && r.path === routePath), `${key} is no longer registered`).toBe(true);
+      expect(
+        writeRoutes().some((r) => r.method === method && r.path === routePath),
+        `${key} is no longer registered`,
+      ).toBe(true);
       const path = await targetsFor(routePath);
       const client = callers[route.as];
       await fc.assert(
@@ -423,7 +600,14 @@ describe('bad input on the write routes', () => {
  * it itself — 400 naming the field — or store exactly what was sent.
  */
 describe('text the database cannot hold', () => {
-  const CASES: { name: string; method: string; route: string; body: (doc: Record<string, unknown>) => unknown; field: string; stored?: (path: string, res: Answer) => Promise<string> }[] = [
+  const CASES: {
+    name: string;
+    method: string;
+    route: string;
+    body: (doc: Record<string, unknown>) => unknown;
+    field: string;
+    stored?: (path: string, res: Answer) => Promise<string>;
+  }[] = [
     { name: 'a project name with NUL', method: 'POST', route: '/api/projects', body: () => ({ name: 'Kiln\u0000Row' }), field: 'name' },
     {
       name: 'a project name with a lone surrogate',
@@ -433,13 +617,28 @@ describe('text the database cannot hold', () => {
       field: 'name',
       stored: async (_p, res) => (await h.db('projects').where({ id: res.body.project.id }).first('name')).name,
     },
-    { name: 'a system name with NUL', method: 'POST', route: '/api/projects/:projectId/systems', body: () => ({ name: 'Cold\u0000', service: 'cold' }), field: 'name' },
-    { name: 'document notes with NUL', method: 'PUT', route: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/document', body: (doc) => ({ document: { ...doc, notes: 'a\u0000b' }, version: 1 }), field: 'document.notes' },
+    {
+      name: 'a system name with NUL',
+      method: 'POST',
+      route: '/api/projects/:projectId/systems',
+      body: () => ({ name: 'Cold\u0000', service: 'cold' }),
+      field: 'name',
+    },
+    {
+      name: 'document notes with NUL',
+      method: 'PUT',
+      route: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/document',
+      body: (doc) => ({ document: { ...doc, notes: 'a\u0000b' }, version: 1 }),
+      field: 'document.notes',
+    },
     {
       name: 'a segment label with a lone surrogate',
       method: 'PUT',
       route: '/api/projects/:projectId/systems/:systemId/revisions/:revisionId/document',
-      body: (doc) => ({ document: { ...doc, segments: (doc.segments as object[]).map((s, i) => (i === 0 ? { ...s, label: 'Service \udc00' } : s)) }, version: 1 }),
+      body: (doc) => ({
+        document: { ...doc, segments: (doc.segments as object[]).map((s, i) => (i === 0 ? { ...s, label: 'Service \udc00' } : s)) },
+        version: 1,
+      }),
       field: 'document.segments.0.label',
     },
   ];

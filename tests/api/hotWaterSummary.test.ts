@@ -11,14 +11,31 @@ import { fedFromText } from '../../server/pdf/summaryContent';
 
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-hot-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
-const example = (name: string): SystemDocument => SystemDocumentSchema.parse(JSON.parse(fs.readFileSync(new URL(`../../src/engine/examples/${name}.json`, import.meta.url), 'utf8')));
-const HEADER = { projectName: 'Alder & Finch', address: '410 Quarry Lane, Wrenmoor', codeBasis: '', systemName: 'Domestic hot water', revisionNumber: 2, issuedAt: '2026-12-02T10:00:00.000Z', preparerName: 'Dana Reyes', preparerEmail: '', inputHash: 'x'.repeat(64), note: null };
+const example = (name: string): SystemDocument =>
+  SystemDocumentSchema.parse(JSON.parse(fs.readFileSync(new URL(`../../src/engine/examples/${name}.json`, import.meta.url), 'utf8')));
+const HEADER = {
+  projectName: 'Alder & Finch',
+  address: '410 Quarry Lane, Wrenmoor',
+  codeBasis: '',
+  systemName: 'Domestic hot water',
+  revisionNumber: 2,
+  issuedAt: '2026-12-02T10:00:00.000Z',
+  preparerName: 'Dana Reyes',
+  preparerEmail: '',
+  inputHash: 'x'.repeat(64),
+  note: null,
+};
 
 function fedHot(): SystemDocument {
   const cold = example('alder-finch-cold');
   const hot = example('alder-finch-hot');
   hot.source.fedFrom = { systemId: 'cold-system', nodeId: 'heater-feed' };
-  return applyFedFrom(hot, { systemId: 'cold-system', name: 'Domestic cold water', service: 'cold', revision: { number: 4, status: 'issued', analysis: { ok: true, analysis: analyzeSystem(cold) } } });
+  return applyFedFrom(hot, {
+    systemId: 'cold-system',
+    name: 'Domestic cold water',
+    service: 'cold',
+    revision: { number: 4, status: 'issued', analysis: { ok: true, analysis: analyzeSystem(cold) } },
+  });
 }
 
 describe("the summary names a hot system's source", () => {
@@ -45,7 +62,7 @@ describe("the summary names a hot system's source", () => {
   });
 });
 
-describe('the summary shows the hot system\'s recirculation loop', () => {
+describe("the summary shows the hot system's recirculation loop", () => {
   it('when the demo hot system describes a loop up its riser and back, then the PDF prints the loop flow, the pump head and the return sizes, as the analysis has them', async () => {
     const doc = example('alder-finch-hot');
     // Invented loop: out along the hot distribution to the riser at level 2, back by a return to the heater.
@@ -74,7 +91,12 @@ describe('the summary shows the hot system\'s recirculation loop', () => {
     expect(text).toContain(`${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft of water)`);
     for (const p of r.pipes.filter((x) => x.sizeChosen)) expect(text).toContain(`${p.size} (chosen, return)`);
     expect(text).toContain('Rinnai design manual R-TRWH-E-02');
-    console.log(`demo loop: ${r.pumpFlow.toFixed(2)} gpm at ${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft); returns ${r.pipes.filter((x) => x.sizeChosen).map((x) => x.size).join(', ')}`);
+    console.log(
+      `demo loop: ${r.pumpFlow.toFixed(2)} gpm at ${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft); returns ${r.pipes
+        .filter((x) => x.sizeChosen)
+        .map((x) => x.size)
+        .join(', ')}`,
+    );
   });
 
   it('when the hot system describes no loop, then the summary has no recirculation part', async () => {

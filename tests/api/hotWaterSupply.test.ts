@@ -29,7 +29,13 @@ function hotDocument(systemId: string, nodeId = 'l1') {
     devices: [{ id: 'wh', kind: 'water-heater', label: 'Water heater', segmentId: 'hot-main', loss: { kind: 'fixed', loss: 1 } }],
     nodes: [
       { id: 'heater', label: 'Heater', elevation: 2, fixtureGroups: [], checkedFixtures: [] },
-      { id: 'h2', label: 'Level 2 hot', elevation: 12, fixtureGroups: [{ fixtureTypeId: 'lavatory-private', count: 1 }], checkedFixtures: [{ id: 'hlav-2', fixtureTypeId: 'lavatory-private', label: 'Lavatory hot, level 2' }] },
+      {
+        id: 'h2',
+        label: 'Level 2 hot',
+        elevation: 12,
+        fixtureGroups: [{ fixtureTypeId: 'lavatory-private', count: 1 }],
+        checkedFixtures: [{ id: 'hlav-2', fixtureTypeId: 'lavatory-private', label: 'Lavatory hot, level 2' }],
+      },
     ],
     segments: [{ id: 'hot-main', from: 'heater', to: 'h2', material: 'copper-l', size: '3/4', length: 20, fittings: [] }],
   };
@@ -45,7 +51,9 @@ async function coldAndHot() {
   return { ...p, systems, cold, hot, coldBase, hotBase };
 }
 
-const supplyOf = (revision: { document: { source: { staticPressureLow: number; fedFrom?: { resolution?: { status: string; code?: string; residualPressure?: number } } } } }) => revision.document.source;
+const supplyOf = (revision: {
+  document: { source: { staticPressureLow: number; fedFrom?: { resolution?: { status: string; code?: string; residualPressure?: number } } } };
+}) => revision.document.source;
 
 describe('a hot system fed from a cold system', () => {
   it("when the hot draft is read, then its supply is the cold system's residual at the heater feed, and its analysis is the engine's on that document", async () => {
@@ -89,7 +97,11 @@ describe('a hot system fed from a cold system', () => {
   it('when the cold system is not in the project, then the hot draft is Incomplete with the named reason, it cannot be issued, and nothing typed is lost', async () => {
     const { designer, hotBase } = await coldAndHot();
     const other = await projectWithRoles(h);
-    const foreign = (await other.designer.send('POST', `/api/projects/${other.projectId}/systems`, { name: 'Cold elsewhere', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const foreign = (
+      await other.designer
+        .send('POST', `/api/projects/${other.projectId}/systems`, { name: 'Cold elsewhere', service: 'cold', document: smallDocument() })
+        .expect(201)
+    ).body;
     const current = (await designer.send('GET', hotBase).expect(200)).body.revision;
     const doc = structuredClone(current.document);
     doc.source.fedFrom = { systemId: foreign.system.id, nodeId: 'l1' };
@@ -125,18 +137,34 @@ describe('a hot system fed from a cold system', () => {
     expect(res.status).toBe(200);
     expect(res.body.revision.status).toBe('issued');
     expect(res.body.revision.document.source.staticPressureLow).toBe(coldNode.pressure);
-    expect(res.body.revision.document.source.fedFrom.resolution).toMatchObject({ status: 'resolved', systemName: 'Cold water', revisionNumber: 1, revisionStatus: 'draft' });
+    expect(res.body.revision.document.source.fedFrom.resolution).toMatchObject({
+      status: 'resolved',
+      systemName: 'Cold water',
+      revisionNumber: 1,
+      revisionStatus: 'draft',
+    });
   });
 
   it("when the cold system has an RP assembly upstream of the heater feed and the hot system has no expansion tank, then the hot analysis cautions, naming the cold system's device", async () => {
     const p = await projectWithRoles(h);
     const systems = `/api/projects/${p.projectId}/systems`;
     const coldDoc = smallDocument();
-    coldDoc.devices.push({ id: 'rp', kind: 'backflow-preventer', label: 'Reduced-pressure assembly at the service', segmentId: 'service', loss: { kind: 'fixed', loss: 10 } });
+    coldDoc.devices.push({
+      id: 'rp',
+      kind: 'backflow-preventer',
+      label: 'Reduced-pressure assembly at the service',
+      segmentId: 'service',
+      loss: { kind: 'fixed', loss: 10 },
+    });
     const cold = (await p.designer.send('POST', systems, { name: 'Bathhouse cold water', service: 'cold', document: coldDoc }).expect(201)).body;
-    const hot = (await p.designer.send('POST', systems, { name: 'Bathhouse hot water', service: 'hot', document: hotDocument(cold.system.id, 'l2') }).expect(201)).body;
+    const hot = (
+      await p.designer.send('POST', systems, { name: 'Bathhouse hot water', service: 'hot', document: hotDocument(cold.system.id, 'l2') }).expect(201)
+    ).body;
     const saved = (await p.designer.send('GET', `${systems}/${hot.system.id}/revisions/${hot.revision.id}`).expect(200)).body.revision;
-    expect(saved.document.source.fedFrom.resolution).toMatchObject({ status: 'resolved', closedBy: [{ kind: 'backflow-preventer', elementId: 'rp', label: 'Reduced-pressure assembly at the service' }] });
+    expect(saved.document.source.fedFrom.resolution).toMatchObject({
+      status: 'resolved',
+      closedBy: [{ kind: 'backflow-preventer', elementId: 'rp', label: 'Reduced-pressure assembly at the service' }],
+    });
     // The hot document itself has no closing device: only the cold side closes it.
     expect(saved.document.devices.map((d: { kind: string }) => d.kind)).toEqual(['water-heater']);
     const cautions = saved.analysis.analysis.warnings.filter((w: { code: string }) => w.code === 'expansion-tank-missing');

@@ -52,7 +52,11 @@ async function draftOf(document?: unknown) {
 async function footprint(revisionId: string) {
   const row = await h.db('revisions').where({ id: revisionId }).first();
   const summaries = await h.db('summaries').where({ revision_id: revisionId }).count<{ count: string }[]>({ count: '*' });
-  const audit = await h.db('audit_log').where({ subject_id: revisionId }).whereIn('action', ['revision.issued', 'revision.failure-acknowledged']).count<{ count: string }[]>({ count: '*' });
+  const audit = await h
+    .db('audit_log')
+    .where({ subject_id: revisionId })
+    .whereIn('action', ['revision.issued', 'revision.failure-acknowledged'])
+    .count<{ count: string }[]>({ count: '*' });
   return {
     status: row.status,
     version: row.version,
@@ -69,7 +73,11 @@ function pdfText(bytes: Buffer, args: string[] = []): string {
   fs.writeFileSync(file, bytes);
   return execFileSync('pdftotext', [...args, file, '-'], { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
 }
-const firstLine = (text: string) => text.split('\n').find((l) => l.trim() !== '')!.trim();
+const firstLine = (text: string) =>
+  text
+    .split('\n')
+    .find((l) => l.trim() !== '')!
+    .trim();
 const flat = (s: string) => s.replace(/\s+/g, ' ');
 
 async function pdfOf(client: Awaited<ReturnType<typeof draftOf>>['designer'], url: string) {
@@ -116,7 +124,11 @@ describe('issuing a revision: only a complete description, and a failing one onl
   it('when the acknowledgement is a word or two, then 400 names the statement field and nothing is written', async () => {
     const { designer, issueUrl, revision } = await draftOf(failingDocument());
     const before = await footprint(revision.id);
-    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: '   ok, issue it   ' } });
+    const res = await designer.send('POST', issueUrl, {
+      version: revision.version,
+      attestation: ATTESTATION,
+      acknowledgeFailure: { statement: '   ok, issue it   ' },
+    });
     expect(res.status).toBe(400);
     expect(Object.keys(res.body.error.fields)).toContain('acknowledgeFailure.statement');
     expect(await footprint(revision.id)).toEqual(before);
@@ -124,7 +136,9 @@ describe('issuing a revision: only a complete description, and a failing one onl
 
   it('when a failing draft is issued with an acknowledgement, then 200, the statement is recorded, frozen and audited, and the PDF says FAIL on its first line', async () => {
     const { designer, issueUrl, revision, base, designerUser } = await draftOf(failingDocument());
-    const res = await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: `  ${STATEMENT}  ` } }).expect(200);
+    const res = await designer
+      .send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION, acknowledgeFailure: { statement: `  ${STATEMENT}  ` } })
+      .expect(200);
     const issued = res.body.revision;
     expect(issued.status).toBe('issued');
     expect(issued.verdict.status).toBe('fail');
@@ -146,7 +160,9 @@ describe('issuing a revision: only a complete description, and a failing one onl
     const plain = pdfText(pdf.body as Buffer);
     expect(firstLine(plain)).toMatch(/^FAIL\b/);
     const layout = flat(pdfText(pdf.body as Buffer, ['-layout']));
-    expect(layout).toContain(`FAIL: ${issued.analysis.analysis.verdict.failures === 1 ? 'one check is' : `${issued.analysis.analysis.verdict.failures} checks are`} not met`);
+    expect(layout).toContain(
+      `FAIL: ${issued.analysis.analysis.verdict.failures === 1 ? 'one check is' : `${issued.analysis.analysis.verdict.failures} checks are`} not met`,
+    );
     expect(layout).toContain(STATEMENT);
     expect(layout).not.toContain('every check is met');
     expect(layout).not.toMatch(/\bPASS\b/);
@@ -179,7 +195,10 @@ describe('issuing a revision: only a complete description, and a failing one onl
     const document = smallDocument({ elbowCount: 5 });
     const { designer, issueUrl, revision } = await draftOf(document);
     // a stored analysis older than the engine (here: made to look stale) is not what gets issued
-    await h.db('revisions').where({ id: revision.id }).update({ analysis: JSON.stringify({ ok: true, analysis: { stale: true } }), engine_version: '0.0.0' });
+    await h
+      .db('revisions')
+      .where({ id: revision.id })
+      .update({ analysis: JSON.stringify({ ok: true, analysis: { stale: true } }), engine_version: '0.0.0' });
     const issued = (await designer.send('POST', issueUrl, { version: revision.version, attestation: ATTESTATION }).expect(200)).body.revision;
     const engine = analyzeSystem(SystemDocumentSchema.parse(issued.document));
     expect(issued.analysis).toEqual({ ok: true, analysis: JSON.parse(JSON.stringify(engine)) });
@@ -196,7 +215,9 @@ describe('an issued revision that is incomplete (issued before the server refuse
     const user = await h.db('users').where({ email: d.designerUser.email }).first('id');
     await h.db.transaction(async (trx) => {
       await trx.raw('ALTER TABLE revisions DISABLE TRIGGER revisions_frozen');
-      await trx('revisions').where({ id: d.revision.id }).update({ status: 'issued', issued_by: user.id, issued_at: trx.fn.now(), input_hash: 'f'.repeat(64) });
+      await trx('revisions')
+        .where({ id: d.revision.id })
+        .update({ status: 'issued', issued_by: user.id, issued_at: trx.fn.now(), input_hash: 'f'.repeat(64) });
       await trx.raw('ALTER TABLE revisions ENABLE TRIGGER revisions_frozen');
     });
     return d;
@@ -207,7 +228,10 @@ describe('an issued revision that is incomplete (issued before the server refuse
     await expect(h.db('revisions').where({ id: incomplete.revision.id }).update({ status: 'issued' })).rejects.toThrow(/incomplete; it cannot be issued/);
     const failing = await draftOf(failingDocument());
     await expect(h.db('revisions').where({ id: failing.revision.id }).update({ status: 'issued' })).rejects.toThrow(/issued only with an acknowledgement/);
-    expect((await h.db('revisions').whereIn('id', [incomplete.revision.id, failing.revision.id]).select('status')).map((r) => r.status)).toEqual(['draft', 'draft']);
+    expect((await h.db('revisions').whereIn('id', [incomplete.revision.id, failing.revision.id]).select('status')).map((r) => r.status)).toEqual([
+      'draft',
+      'draft',
+    ]);
   });
 
   it('when its summary or PDF is asked for, then the summary is failed with the reason and the PDF is refused', async () => {
@@ -233,7 +257,18 @@ describe('an issued revision that is incomplete (issued before the server refuse
     const doc = SystemDocumentSchema.parse(noCheckedFixtureDocument());
     const analysis = analyzeSystem(doc);
     expect(verdictStatus(analysis)).toBe('incomplete');
-    const header = { projectName: 'P', address: '', codeBasis: '', systemName: 'S', revisionNumber: 1, issuedAt: '2026-12-02T10:00:00.000Z', preparerName: 'D', preparerEmail: '', inputHash: 'x', note: null };
+    const header = {
+      projectName: 'P',
+      address: '',
+      codeBasis: '',
+      systemName: 'S',
+      revisionNumber: 1,
+      issuedAt: '2026-12-02T10:00:00.000Z',
+      preparerName: 'D',
+      preparerEmail: '',
+      inputHash: 'x',
+      note: null,
+    };
     await expect(renderSummaryPdf({ header, document: doc, analysis })).rejects.toThrow(/incomplete revision has no summary/);
   });
 });

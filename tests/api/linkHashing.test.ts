@@ -40,7 +40,14 @@ describe('one-time links are looked up before any password is hashed', () => {
     const admin = await makeUser(h.db, { isAdmin: true });
     const adminClient = new Client(h);
     await adminClient.signIn(admin.email);
-    const created = await adminClient.send('POST', '/api/users', { email: `inv-${randomBytes(4).toString('hex')}@test.example`, name: 'Invited Person', accountRole: 'designer', isAdmin: false }).expect(201);
+    const created = await adminClient
+      .send('POST', '/api/users', {
+        email: `inv-${randomBytes(4).toString('hex')}@test.example`,
+        name: 'Invited Person',
+        accountRole: 'designer',
+        isAdmin: false,
+      })
+      .expect(201);
     const token = decodeURIComponent(created.body.invitation.url.split('/invitations/')[1]);
     const before = hashStats().started;
     const res = await (await anonymous()).send('POST', `/api/invitations/${token}`, { password: 'a long enough password' });

@@ -57,7 +57,9 @@ describe('password rules beyond length', () => {
 
   it('when an invitation is accepted with a common password, then 400 names password and the link still works', async () => {
     const admin = await signedIn(h, await makeUser(h.db, { isAdmin: true }));
-    const created = await admin.send('POST', '/api/users', { email: `inv-${randomUUID().slice(0, 8)}@test.example`, name: 'Invited Person', accountRole: 'designer', isAdmin: false }).expect(201);
+    const created = await admin
+      .send('POST', '/api/users', { email: `inv-${randomUUID().slice(0, 8)}@test.example`, name: 'Invited Person', accountRole: 'designer', isAdmin: false })
+      .expect(201);
     const token = decodeURIComponent(created.body.invitation.url.split('/invitations/')[1]);
     const refused = await (await anonymous()).send('POST', `/api/invitations/${token}`, { password: 'iloveyou123' });
     expect(refused.status).toBe(400);
@@ -75,7 +77,8 @@ describe('sign-in limits', () => {
       for (let i = 0; i < 8; i++) expect((await new Client(limited).signIn(user.email)).status).toBe(200);
       const client = await anonymous(limited);
       const statuses: number[] = [];
-      for (let i = 0; i < 6; i++) statuses.push((await client.send('POST', '/api/auth/sign-in', { email: `spray-${i}@test.example`, password: 'Summer2026!' })).status);
+      for (let i = 0; i < 6; i++)
+        statuses.push((await client.send('POST', '/api/auth/sign-in', { email: `spray-${i}@test.example`, password: 'Summer2026!' })).status);
       expect(statuses).toEqual([401, 401, 401, 401, 401, 429]);
     } finally {
       await limited.close();
@@ -94,9 +97,17 @@ describe('malformed requests', () => {
       const bad = await fetch(`${server.url}/api/projects/%E0%A4%A`, { headers: { cookie } });
       expect(bad.status).toBe(400);
       expect((await bad.json()).error.code).toBe('VALIDATION_FAILED');
-      const charset = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json; charset=klingon' }, body: '{}' });
+      const charset = await fetch(`${server.url}/api/auth/sign-in`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json; charset=klingon' },
+        body: '{}',
+      });
       expect(charset.status).toBe(415);
-      const encoding = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json', 'content-encoding': 'bogus' }, body: '{}' });
+      const encoding = await fetch(`${server.url}/api/auth/sign-in`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'content-encoding': 'bogus' },
+        body: '{}',
+      });
       expect(encoding.status).toBe(415);
       expect(errors.mock.calls.filter((c) => String(c[0]).includes('failed'))).toEqual([]);
     } finally {
@@ -123,11 +134,20 @@ describe('sessions are stored only when there is something to keep', () => {
 describe('the database freezes issued and decided records whole', () => {
   it('when any column of an issued revision is changed in SQL, then the database refuses; superseding it is allowed', async () => {
     const p = await projectWithRoles(h);
-    const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const created = (
+      await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen', service: 'cold', document: smallDocument() }).expect(201)
+    ).body;
     const base = `/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
     await p.designer.send('POST', `${base}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
     const id = created.revision.id;
-    for (const change of [{ note: 'changed later' }, { engine_version: '0.0.0' }, { number: 99 }, { version: 42 }, { issued_at: new Date(0) }, { status: 'draft' }]) {
+    for (const change of [
+      { note: 'changed later' },
+      { engine_version: '0.0.0' },
+      { number: 99 },
+      { version: 42 },
+      { issued_at: new Date(0) },
+      { status: 'draft' },
+    ]) {
       await expect(h.db('revisions').where({ id }).update(change), JSON.stringify(change)).rejects.toThrow(/cannot/);
     }
     await h.db('revisions').where({ id }).update({ status: 'superseded', updated_at: h.db.fn.now() });
@@ -137,16 +157,26 @@ describe('the database freezes issued and decided records whole', () => {
   it('when any column of a decided field change is changed in SQL, then the database refuses', async () => {
     const p = await projectWithRoles(h);
     const contractor = await signedIn(h, p.contractorUser);
-    const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen FC', service: 'cold', document: smallDocument() }).expect(201)).body;
+    const created = (
+      await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Frozen FC', service: 'cold', document: smallDocument() }).expect(201)
+    ).body;
     const sys = `/api/projects/${p.projectId}/systems/${created.system.id}`;
     await p.designer.send('POST', `${sys}/revisions/${created.revision.id}/issue`, { version: 1, attestation: ATTESTATION }).expect(200);
-    const fc = (await contractor.send('POST', `${sys}/field-changes`, { revisionId: created.revision.id, title: 'Frozen substitution' }).expect(201)).body.fieldChange;
+    const fc = (await contractor.send('POST', `${sys}/field-changes`, { revisionId: created.revision.id, title: 'Frozen substitution' }).expect(201)).body
+      .fieldChange;
     const doc = structuredClone(fc.document);
     doc.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 5 }];
     const changed = (await contractor.send('PATCH', `${sys}/field-changes/${fc.id}`, { document: doc, version: fc.version }).expect(200)).body.fieldChange;
     const proposed = (await contractor.send('POST', `${sys}/field-changes/${fc.id}/propose`, { version: changed.version }).expect(200)).body.fieldChange;
     await p.designer.send('POST', `${sys}/field-changes/${fc.id}/decline`, { version: proposed.version, reason: 'Keep the design' }).expect(200);
-    for (const change of [{ title: 'Rewritten' }, { description: 'Rewritten' }, { decline_reason: 'Other reason' }, { decided_at: new Date(0) }, { status: 'draft' }, { version: 99 }]) {
+    for (const change of [
+      { title: 'Rewritten' },
+      { description: 'Rewritten' },
+      { decline_reason: 'Other reason' },
+      { decided_at: new Date(0) },
+      { status: 'draft' },
+      { version: 99 },
+    ]) {
       await expect(h.db('field_changes').where({ id: fc.id }).update(change), JSON.stringify(change)).rejects.toThrow(/cannot change/);
     }
   });

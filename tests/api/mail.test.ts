@@ -30,7 +30,9 @@ describe('sending the issued summary', () => {
     const p = await projectWithRoles(h);
     const { base, revisionId, systemId } = await issuedSystem(p.designer, p.projectId, demoDocument());
     const outsider = `outside-${randomUUID().slice(0, 8)}@reviewers.example`;
-    const sent = await p.designer.send('POST', `${base}/summary/send`, { inspectorIds: [p.inspectorUser.id], emails: [outsider], message: 'Second floor riser resized.' }).expect(202);
+    const sent = await p.designer
+      .send('POST', `${base}/summary/send`, { inspectorIds: [p.inspectorUser.id], emails: [outsider], message: 'Second floor riser resized.' })
+      .expect(202);
     expect(sent.body.messages.map((m: { status: string }) => m.status)).toEqual(['queued', 'queued']);
     expect(sent.body.reviews.map((r: { status: string }) => r.status)).toEqual(['received', 'received']);
 
@@ -145,7 +147,10 @@ describe('sending the issued summary', () => {
       const rows = await h.db('outbox').where({ revision_id: revisionId }).orderBy('to_address');
       expect(rows).toHaveLength(6);
       // a worker that claimed one and died before sending: its lease ran out
-      await h.db('outbox').where({ id: rows[0].id }).update({ status: 'sending', attempts: 1, lease_owner: 'worker-crashed', lease_until: h.db.raw(`now() - interval '1 second'`) });
+      await h
+        .db('outbox')
+        .where({ id: rows[0].id })
+        .update({ status: 'sending', attempts: 1, lease_owner: 'worker-crashed', lease_until: h.db.raw(`now() - interval '1 second'`) });
 
       // server A starts, delivers some, and is stopped mid-way
       const a = startHarness({ SMTP_HOST: '127.0.0.1', SMTP_PORT: String(sink.port), ...FAST_OUTBOX });
@@ -162,7 +167,11 @@ describe('sending the issued summary', () => {
       } finally {
         await b.close();
       }
-      for (const r of rows) expect(sink.messages.filter((m) => m.parsed.headers.get('x-headroom-outbox-id') === r.id), r.to_address).toHaveLength(1);
+      for (const r of rows)
+        expect(
+          sink.messages.filter((m) => m.parsed.headers.get('x-headroom-outbox-id') === r.id),
+          r.to_address,
+        ).toHaveLength(1);
     } finally {
       h.headroom.outbox.start();
     }
@@ -208,7 +217,10 @@ describe('the development mail page (HEADROOM_DEV_MAIL=1)', () => {
     expect((await admin.get(`/api/dev/mail/${caught.id}/attachments/0`)).status).toBe(404);
     expect((await admin.get(`/api/dev/mail/${caught.id}`).expect(200)).body.message.text).toBe(WITHHELD_TEXT);
     // the sink itself holds the whole message, PDF included (the recipient's mailbox)
-    const stored = await dev.db('dev_mail').whereRaw('envelope_to @> ?::jsonb', [JSON.stringify([p.inspectorUser.email])]).first('raw');
+    const stored = await dev
+      .db('dev_mail')
+      .whereRaw('envelope_to @> ?::jsonb', [JSON.stringify([p.inspectorUser.email])])
+      .first('raw');
     const pdf = (await p.designer.get(`${base}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
     const { simpleParser } = await import('mailparser');
     expect((await simpleParser(stored.raw)).attachments[0].content.equals(pdf)).toBe(true);
@@ -247,7 +259,9 @@ describe('the development mail page (HEADROOM_DEV_MAIL=1)', () => {
   });
 
   it('when NODE_ENV=production, then the development sink is refused at start', () => {
-    expect(() => loadConfig({ NODE_ENV: 'production', HEADROOM_DEV_MAIL: '1', DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) })).toThrow(/HEADROOM_DEV_MAIL/);
+    expect(() =>
+      loadConfig({ NODE_ENV: 'production', HEADROOM_DEV_MAIL: '1', DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) }),
+    ).toThrow(/HEADROOM_DEV_MAIL/);
     expect(loadConfig({ NODE_ENV: 'development', DATABASE_URL: 'postgres://x@127.0.0.1/x', SESSION_SECRET: 'x'.repeat(40) }).HEADROOM_DEV_MAIL).toBe('0');
   });
 });

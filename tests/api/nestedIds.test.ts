@@ -35,7 +35,11 @@ const ROWS: Record<string, Row> = {
   'PATCH /api/projects/:projectId/members/:userId': { as: 'designer', body: b(() => ({ role: 'inspector' })) },
   'DELETE /api/projects/:projectId/members/:userId': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId': { as: 'designer' },
-  'GET /api/projects/:projectId/systems/:systemId/compare': { as: 'designer', extraIds: ['revisionId', 'draftId'], query: (i) => `?a=${i.revisionId}&b=${i.draftId}` },
+  'GET /api/projects/:projectId/systems/:systemId/compare': {
+    as: 'designer',
+    extraIds: ['revisionId', 'draftId'],
+    query: (i) => `?a=${i.revisionId}&b=${i.draftId}`,
+  },
   'POST /api/projects/:projectId/systems/:systemId/revisions': { as: 'designer', extraIds: ['revisionId'], body: (i) => ({ fromRevisionId: i.revisionId }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId': { as: 'designer' },
   'PUT /api/projects/:projectId/systems/:systemId/revisions/:revisionId/document': { as: 'designer', body: () => ({ document: smallDocument(), version: 1 }) },
@@ -43,7 +47,11 @@ const ROWS: Record<string, Row> = {
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary.pdf': { as: 'designer' },
   'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/retry': { as: 'designer' },
-  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': { as: 'designer', extraIds: ['inspectorId'], body: (i) => ({ inspectorIds: [i.inspectorId] }) },
+  'POST /api/projects/:projectId/systems/:systemId/revisions/:revisionId/summary/send': {
+    as: 'designer',
+    extraIds: ['inspectorId'],
+    body: (i) => ({ inspectorIds: [i.inspectorId] }),
+  },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/messages': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/export/:table.csv': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/export.xlsx': { as: 'designer' },
@@ -53,17 +61,31 @@ const ROWS: Record<string, Row> = {
   'PUT /api/projects/:projectId/reviews/:reviewId/comments/:commentId/reply': { as: 'designer', body: () => ({ reply: 'Answered in the next revision.' }) },
   'GET /api/projects/:projectId/systems/:systemId/revisions/:revisionId/answers': { as: 'designer' },
   'GET /api/projects/:projectId/reviews/:reviewId/acceptance.pdf': { as: 'designer' },
-  'POST /api/projects/:projectId/submissions': { as: 'designer', extraIds: ['systemId', 'inspectorId'], body: (i) => ({ systemIds: [i.systemId], inspectorIds: [i.inspectorId] }) },
-  'PATCH /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer', body: () => ({ label: `Renamed ${randomUUID().slice(0, 4)}`, version: 1 }) },
+  'POST /api/projects/:projectId/submissions': {
+    as: 'designer',
+    extraIds: ['systemId', 'inspectorId'],
+    body: (i) => ({ systemIds: [i.systemId], inspectorIds: [i.inspectorId] }),
+  },
+  'PATCH /api/projects/:projectId/catalog/entries/:kind/:entryId': {
+    as: 'designer',
+    body: () => ({ label: `Renamed ${randomUUID().slice(0, 4)}`, version: 1 }),
+  },
   'DELETE /api/projects/:projectId/catalog/entries/:kind/:entryId': { as: 'designer' },
   'GET /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor' },
-  'POST /api/projects/:projectId/systems/:systemId/field-changes': { as: 'contractor', extraIds: ['revisionId'], body: (i) => ({ revisionId: i.revisionId, title: 'Press fittings' }) },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes': {
+    as: 'contractor',
+    extraIds: ['revisionId'],
+    body: (i) => ({ revisionId: i.revisionId, title: 'Press fittings' }),
+  },
   'GET /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId': { as: 'contractor' },
   'PATCH /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId': { as: 'contractor', body: () => ({ title: 'Renamed', version: 1 }) },
   'GET /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/comparison': { as: 'contractor' },
   'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/propose': { as: 'contractor', body: () => ({ version: 1 }) },
   'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/accept': { as: 'designer', body: () => ({ version: 1 }) },
-  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/decline': { as: 'designer', body: () => ({ version: 1, reason: 'Not this one' }) },
+  'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/decline': {
+    as: 'designer',
+    body: () => ({ version: 1, reason: 'Not this one' }),
+  },
   'POST /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments': { as: 'contractor', upload: true },
   'GET /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId': { as: 'contractor' },
   'DELETE /api/projects/:projectId/systems/:systemId/field-changes/:fieldChangeId/attachments/:attachmentId': { as: 'contractor' },
@@ -81,13 +103,16 @@ const world = {} as Record<'A' | 'B', Ids>;
 
 async function makeProject(designer: Client, users: Record<Role, { id: string; email: string }>): Promise<Ids> {
   const projectId: string = (await designer.send('POST', '/api/projects', { name: `Nested ${randomUUID().slice(0, 6)}` }).expect(201)).body.project.id;
-  for (const role of ['contractor', 'inspector'] as const) await designer.send('POST', `/api/projects/${projectId}/members`, { email: users[role].email, role }).expect(201);
+  for (const role of ['contractor', 'inspector'] as const)
+    await designer.send('POST', `/api/projects/${projectId}/members`, { email: users[role].email, role }).expect(201);
   // people who are members of this project only
   const only = await makeUser(h.db, { accountRole: 'contractor' });
   await designer.send('POST', `/api/projects/${projectId}/members`, { email: only.email, role: 'contractor' }).expect(201);
   const onlyInspector = await makeUser(h.db, { accountRole: 'inspector' });
   await designer.send('POST', `/api/projects/${projectId}/members`, { email: onlyInspector.email, role: 'inspector' }).expect(201);
-  const created = (await designer.send('POST', `/api/projects/${projectId}/systems`, { name: 'Nested', service: 'cold', document: smallDocument() }).expect(201)).body;
+  const created = (
+    await designer.send('POST', `/api/projects/${projectId}/systems`, { name: 'Nested', service: 'cold', document: smallDocument() }).expect(201)
+  ).body;
   const systemId: string = created.system.id;
   const revisionId: string = created.revision.id;
   const sys = `/api/projects/${projectId}/systems/${systemId}`;
@@ -97,11 +122,35 @@ async function makeProject(designer: Client, users: Record<Role, { id: string; e
   const attachment = (await upload(clients.contractor, `${sys}/field-changes/${fc.id}`, tinyPdf(), 'sheet.pdf', 'application/pdf').expect(201)).body.attachment;
   const [review] = await h.db('reviews').insert({ project_id: projectId, revision_id: revisionId, reviewer_id: users.inspector.id }).returning('id');
   // the review accepted with one comment: it has a comment id and an acceptance record
-  const accepted = (await clients.inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', items: [{ itemType: 'general', comment: 'Nested comment' }], version: 1 }).expect(200)).body.review;
-  const [message] = await h.db('outbox')
-    .insert({ kind: 'summary', project_id: projectId, revision_id: revisionId, to_address: 'nested@test.example', subject: 'Nested', text_body: 'Nested', status: 'failed', attempts: 3, max_attempts: 3, last_error: 'nested' })
+  const accepted = (
+    await clients.inspector
+      .send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, {
+        decision: 'accepted',
+        items: [{ itemType: 'general', comment: 'Nested comment' }],
+        version: 1,
+      })
+      .expect(200)
+  ).body.review;
+  const [message] = await h
+    .db('outbox')
+    .insert({
+      kind: 'summary',
+      project_id: projectId,
+      revision_id: revisionId,
+      to_address: 'nested@test.example',
+      subject: 'Nested',
+      text_body: 'Nested',
+      status: 'failed',
+      attempts: 3,
+      max_attempts: 3,
+      last_error: 'nested',
+    })
     .returning('id');
-  const entryId: string = (await designer.send('POST', `/api/projects/${projectId}/catalog/entries`, { kind: 'fitting-type', label: 'Nested entry', source: 'Invented sheet', data: { k: 0.5 } }).expect(201)).body.entry.id;
+  const entryId: string = (
+    await designer
+      .send('POST', `/api/projects/${projectId}/catalog/entries`, { kind: 'fitting-type', label: 'Nested entry', source: 'Invented sheet', data: { k: 0.5 } })
+      .expect(201)
+  ).body.entry.id;
   return {
     projectId,
     systemId,
@@ -159,7 +208,10 @@ describe('every id in a request belongs to the one before it', () => {
   it('when the app registers a route with two or more ids, then this test has a row for it', () => {
     const routes = multiIdRoutes();
     expect(routes.length).toBeGreaterThan(20);
-    expect(routes.filter((k) => !ROWS[k]), 'add a row to ROWS in tests/api/nestedIds.test.ts').toEqual([]);
+    expect(
+      routes.filter((k) => !ROWS[k]),
+      'add a row to ROWS in tests/api/nestedIds.test.ts',
+    ).toEqual([]);
   });
 
   it('when one id comes from another project, then every such route refuses it, and the same request with its own ids is found', async () => {
@@ -175,7 +227,8 @@ describe('every id in a request belongs to the one before it', () => {
         if (!refused) problems.push(`${key} with ${id} of another project: ${mixed.status} ${JSON.stringify(mixed.body).slice(0, 160)}`);
       }
       const own = await send(key, world.A);
-      if (own.status === 404 || own.status >= 500) problems.push(`${key} with its own ids: ${own.status} ${JSON.stringify(own.body).slice(0, 160)} (the world of this test is wrong)`);
+      if (own.status === 404 || own.status >= 500)
+        problems.push(`${key} with its own ids: ${own.status} ${JSON.stringify(own.body).slice(0, 160)} (the world of this test is wrong)`);
     }
     expect(problems).toEqual([]);
   }, 180_000);

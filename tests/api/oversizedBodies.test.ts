@@ -46,7 +46,10 @@ function bodyOf(count: number, element: string): string {
   return text.replace('["@N"]', `[${list}]`).replace('["@S"]', `[${list}]`);
 }
 
-function expectShortReport(res: { status: number; text: string; body: { error: { code: string; fields?: Record<string, string> } } }, maxFields = MAX_REPORTED_FIELDS + 1) {
+function expectShortReport(
+  res: { status: number; text: string; body: { error: { code: string; fields?: Record<string, string> } } },
+  maxFields = MAX_REPORTED_FIELDS + 1,
+) {
   expect(res.status).toBe(400);
   expect(res.body.error.code).toBe('VALIDATION_FAILED');
   const fields = Object.keys(res.body.error.fields ?? {});
@@ -132,8 +135,22 @@ describe('a maximum-size valid document is validated off the event loop', () => 
     doc.segments = [];
     doc.devices = [];
     for (let i = 1; i < n; i++) {
-      doc.nodes.push({ id: `n${i}`, label: `Node ${i}`, elevation: i % 40, fixtureGroups: [{ fixtureTypeId: 'lavatory-private', count: 1 }], checkedFixtures: [{ id: `f${i}`, fixtureTypeId: 'lavatory-private', label: `Lavatory ${i}` }] });
-      doc.segments.push({ id: `s${i}`, from: i === 1 ? 'main' : `n${Math.floor(i / 2) || 1}`, to: `n${i}`, material: 'copper-l', size: '3/4', length: 5, fittings: [{ typeId: 'elbow-90-standard', count: 2 }] });
+      doc.nodes.push({
+        id: `n${i}`,
+        label: `Node ${i}`,
+        elevation: i % 40,
+        fixtureGroups: [{ fixtureTypeId: 'lavatory-private', count: 1 }],
+        checkedFixtures: [{ id: `f${i}`, fixtureTypeId: 'lavatory-private', label: `Lavatory ${i}` }],
+      });
+      doc.segments.push({
+        id: `s${i}`,
+        from: i === 1 ? 'main' : `n${Math.floor(i / 2) || 1}`,
+        to: `n${i}`,
+        material: 'copper-l',
+        size: '3/4',
+        length: 5,
+        fittings: [{ typeId: 'elbow-90-standard', count: 2 }],
+      });
     }
     return doc;
   }
@@ -155,7 +172,9 @@ describe('a maximum-size valid document is validated off the event loop', () => 
       const inWorkerMs = performance.now() - t1;
       delay.disable();
       const worstStallMs = delay.max / 1e6;
-      console.log(`[oversized] max-size document: ${onMainThreadMs.toFixed(0)} ms on the main thread; in the worker ${inWorkerMs.toFixed(0)} ms with the event loop's worst stall ${worstStallMs.toFixed(1)} ms`);
+      console.log(
+        `[oversized] max-size document: ${onMainThreadMs.toFixed(0)} ms on the main thread; in the worker ${inWorkerMs.toFixed(0)} ms with the event loop's worst stall ${worstStallMs.toFixed(1)} ms`,
+      );
       expect(result.success).toBe(true);
       expect(result.success && result.data).toEqual(expected);
       // The figures above are the measurement (printed); that the work ran in the worker is what is

@@ -125,7 +125,10 @@ describe('the e-mail and its link', () => {
 
     const other = await makeUser(h.db);
     const expired = await requestLink(other.email, 1);
-    await h.db('password_resets').where({ user_id: other.id }).update({ expires_at: h.db.raw(`now() - interval '1 second'`) });
+    await h
+      .db('password_resets')
+      .where({ user_id: other.id })
+      .update({ expires_at: h.db.raw(`now() - interval '1 second'`) });
     const late = await confirm(expired);
     const madeUp = await confirm(randomUUID());
     expect(late.status).toBe(400);
@@ -180,7 +183,8 @@ describe('the request rate limit', () => {
       const user = await makeUser(limited.db);
       const client = await anonymous(limited);
       // capitals and spaces name the same account, so they count together
-      for (const email of [user.email, user.email.toUpperCase(), ` ${user.email} `]) expect((await client.send('POST', '/api/auth/password-reset', { email })).status).toBe(202);
+      for (const email of [user.email, user.email.toUpperCase(), ` ${user.email} `])
+        expect((await client.send('POST', '/api/auth/password-reset', { email })).status).toBe(202);
       const blocked = await client.send('POST', '/api/auth/password-reset', { email: user.email });
       expect(blocked.status).toBe(429);
       expect(blocked.body.error.code).toBe('RATE_LIMITED');

@@ -32,14 +32,24 @@ function pdfText(bytes: Buffer): string {
 }
 const flat = (s: string) => s.replace(/\s+/g, ' ');
 
-const PERMIT = { permitNumber: 'WRN-PC-2026-0931', adoptedCode: 'upc-2018', localAmendments: 'Wrenmoor amendment 7 (invented)', preparerLicence: 'PE 51123', licenceJurisdiction: 'Wrenmoor (invented)' };
+const PERMIT = {
+  permitNumber: 'WRN-PC-2026-0931',
+  adoptedCode: 'upc-2018',
+  localAmendments: 'Wrenmoor amendment 7 (invented)',
+  preparerLicence: 'PE 51123',
+  licenceJurisdiction: 'Wrenmoor (invented)',
+};
 const ATTEST = { name: 'Morgan Ashdown', licenceNumber: 'PE 51123', basis: 'supervised', confirmed: true };
 
 async function draftWithPermit() {
   const p = await projectWithRoles(h);
   const patched = await p.designer.send('PATCH', `/api/projects/${p.projectId}`, { permit: PERMIT, version: p.project.version }).expect(200);
   expect(patched.body.project.permit).toEqual(PERMIT);
-  const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() }).expect(201)).body;
+  const created = (
+    await p.designer
+      .send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() })
+      .expect(201)
+  ).body;
   const base = `/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
   return { ...p, base, revision: created.revision };
 }
@@ -71,7 +81,12 @@ describe('the permit fields and the attestation in the issued summary', () => {
     // friction per segment: velocity, friction, friction per 100 ft and fitting loss side by side, from the analysis
     const analysis = issued.analysis.analysis as Analysis;
     for (const seg of analysis.segments) {
-      const cells = [num(seg.velocity, 'ft/s'), num(seg.frictionLoss, 'psi'), num((seg.frictionLoss / seg.length) * 100, 'psi'), num(seg.fittingLoss, 'psi')].join(' ');
+      const cells = [
+        num(seg.velocity, 'ft/s'),
+        num(seg.frictionLoss, 'psi'),
+        num((seg.frictionLoss / seg.length) * 100, 'psi'),
+        num(seg.fittingLoss, 'psi'),
+      ].join(' ');
       expect(all, `friction of ${seg.label}`).toContain(cells);
     }
 
@@ -91,14 +106,16 @@ describe('the permit fields and the attestation in the issued summary', () => {
     const { designer, base, revision } = await draftWithPermit();
     const none = await designer.send('POST', `${base}/issue`, { version: revision.version }).expect(400);
     expect(Object.keys(none.body.error.fields)).toContain('attestation');
-    const unconfirmed = await designer.send('POST', `${base}/issue`, { version: revision.version, attestation: { ...ATTEST, confirmed: false, licenceNumber: ' ' } }).expect(400);
+    const unconfirmed = await designer
+      .send('POST', `${base}/issue`, { version: revision.version, attestation: { ...ATTEST, confirmed: false, licenceNumber: ' ' } })
+      .expect(400);
     expect(Object.keys(unconfirmed.body.error.fields).sort()).toEqual(['attestation.confirmed', 'attestation.licenceNumber']);
     const still = (await designer.get(`${base}`).expect(200)).body.revision;
     expect(still.status).toBe('draft');
     expect(still.attestation ?? null).toBeNull();
   });
 
-  it('when an issued revision\'s attestation is changed in the database, then the database refuses it', async () => {
+  it("when an issued revision's attestation is changed in the database, then the database refuses it", async () => {
     const { designer, base, revision } = await draftWithPermit();
     const issued = (await designer.send('POST', `${base}/issue`, { version: revision.version, attestation: ATTEST }).expect(200)).body.revision;
     await expect(h.db('revisions').where({ id: issued.id }).update({ attestation_licence: 'PE 00000' })).rejects.toThrow(/attestation cannot change/);
@@ -108,7 +125,9 @@ describe('the permit fields and the attestation in the issued summary', () => {
 
   it('when the permit fields name a code Headroom does not offer, then the project is not changed and the field is named', async () => {
     const p = await projectWithRoles(h);
-    const res = await p.designer.send('PATCH', `/api/projects/${p.projectId}`, { permit: { ...PERMIT, adoptedCode: 'ipc-1997' }, version: p.project.version }).expect(400);
+    const res = await p.designer
+      .send('PATCH', `/api/projects/${p.projectId}`, { permit: { ...PERMIT, adoptedCode: 'ipc-1997' }, version: p.project.version })
+      .expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['permit.adoptedCode']);
     const project = (await p.designer.get(`/api/projects/${p.projectId}`).expect(200)).body.project;
     expect(project.permit.permitNumber).toBe('');

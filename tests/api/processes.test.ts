@@ -39,7 +39,12 @@ async function failedSignIn(url: string, email: string): Promise<number> {
     const token = await call('GET', '/api/csrf-token', {});
     const cookie = (token.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
     const body = JSON.stringify({ email, password: 'not the password at all' });
-    const res = await call('POST', '/api/auth/sign-in', { cookie, 'x-csrf-token': JSON.parse(token.text).token, 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(body)) }, body);
+    const res = await call(
+      'POST',
+      '/api/auth/sign-in',
+      { cookie, 'x-csrf-token': JSON.parse(token.text).token, 'content-type': 'application/json', 'content-length': String(Buffer.byteLength(body)) },
+      body,
+    );
     return res.status;
   } finally {
     agent.destroy();
@@ -107,7 +112,14 @@ describe('the server with two app processes', () => {
     expect((await client.request('POST', '/api/auth/sign-in', { json: { email: user.email, password: PASSWORD } })).status).toBe(429);
 
     // the control: the same two processes counting in memory let the attempts through, since they alternate
-    const control = await startServer({ NODE_ENV: 'test', DATABASE_URL: testDatabaseUrl(), HEADROOM_PROCESSES: '2', RATE_LIMIT_STORE: 'memory', SIGN_IN_LIMIT: '3', SIGN_IN_CLIENT_LIMIT: '100000' });
+    const control = await startServer({
+      NODE_ENV: 'test',
+      DATABASE_URL: testDatabaseUrl(),
+      HEADROOM_PROCESSES: '2',
+      RATE_LIMIT_STORE: 'memory',
+      SIGN_IN_LIMIT: '3',
+      SIGN_IN_CLIENT_LIMIT: '100000',
+    });
     try {
       await until('both control processes listening', () => [...control.log.join('').matchAll(/\(app process \d+, pid/g)].length >= 2);
       const other = await makeUser(h.db);
@@ -128,7 +140,11 @@ describe('the server with two app processes', () => {
     expect(project.status).toBe(201);
     const projectId = project.body.project.id;
     expect((await designer.send('POST', `/api/projects/${projectId}/members`, { email: inspectorUser.email, role: 'inspector' })).status).toBe(201);
-    const created = await designer.send('POST', `/api/projects/${projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() });
+    const created = await designer.send('POST', `/api/projects/${projectId}/systems`, {
+      name: 'Domestic cold water',
+      service: 'cold',
+      document: demoDocument(),
+    });
     expect(created.status).toBe(201);
     const base = `/api/projects/${projectId}/systems/${created.body.system.id}/revisions/${created.body.revision.id}`;
     expect((await designer.send('POST', `${base}/issue`, { version: created.body.revision.version, attestation: ATTESTATION })).status).toBe(200);
@@ -152,7 +168,13 @@ describe('the server with two app processes', () => {
     expect([first, second]).not.toContain(third);
 
     await server.stop();
-    console.log(`supervisor exit ${server.proc.exitCode}; log: ${server.log.join('').split('\n').filter((l) => /stopping/.test(l)).join(' | ')}`);
+    console.log(
+      `supervisor exit ${server.proc.exitCode}; log: ${server.log
+        .join('')
+        .split('\n')
+        .filter((l) => /stopping/.test(l))
+        .join(' | ')}`,
+    );
     expect(server.proc.exitCode).toBe(0);
     await until('every app process gone', () => ![second, third].some(alive), 30_000);
   }, 120_000);

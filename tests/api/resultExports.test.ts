@@ -27,7 +27,11 @@ const binary = (res: import('superagent').Response, cb: (err: Error | null, body
 
 async function issuedDemo() {
   const p = await projectWithRoles(h);
-  const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() }).expect(201)).body;
+  const created = (
+    await p.designer
+      .send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Domestic cold water', service: 'cold', document: demoDocument() })
+      .expect(201)
+  ).body;
   const base = `/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
   const issued = (await p.designer.send('POST', `${base}/issue`, { version: created.revision.version, attestation: ATTESTATION }).expect(200)).body.revision;
   const analysis = ((await p.designer.get(base).expect(200)).body.revision.analysis as { ok: true; analysis: Analysis }).analysis;

@@ -32,7 +32,14 @@ describe('the designer hears the inspector’s decision', () => {
       { itemType: 'segment', itemId: 'riser-2', comment: 'Show the riser support spacing.' },
       { itemType: 'fixture', itemId: 'shower-201', comment: 'Confirm the valve model.' },
     ];
-    await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'returned', comment: 'Two items to address.', items, version: review.version }).expect(200);
+    await inspector
+      .send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, {
+        decision: 'returned',
+        comment: 'Two items to address.',
+        items,
+        version: review.version,
+      })
+      .expect(200);
     const rows = await waitForMessages(h, { revision_id: revisionId, kind: 'review-decision' }, 'sent', 1);
     expect(rows).toHaveLength(1);
     expect(rows[0].to_address).toBe(designerUser.email);

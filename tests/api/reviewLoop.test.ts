@@ -37,7 +37,8 @@ function pdfText(bytes: Buffer, args: string[] = []): string {
   // -raw: the content order, so a table cell's wrapped lines read together
   return execFileSync('pdftotext', ['-raw', ...args, file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
 }
-const pdfBytes = async (client: Client, url: string) => (await client.get(url).responseType('blob').expect(200).expect('Content-Type', 'application/pdf')).body as Buffer;
+const pdfBytes = async (client: Client, url: string) =>
+  (await client.get(url).responseType('blob').expect(200).expect('Content-Type', 'application/pdf')).body as Buffer;
 
 const ITEMS = [
   { itemType: 'segment', itemId: 'riser-2', comment: 'Show the fittings on the riser to level 2.' },
@@ -51,9 +52,25 @@ async function returnedSystem() {
   await p.designer.send('POST', `${s.base}/summary/send`, { inspectorIds: [p.inspectorUser.id] }).expect(202);
   const inspector = await signedIn(h, p.inspectorUser);
   const review = (await inspector.get(`${s.base}/reviews`).expect(200)).body.reviews[0];
-  const returned = (await inspector.send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, { decision: 'returned', comment: 'Two items to address.', items: ITEMS, version: review.version }).expect(200)).body.review;
+  const returned = (
+    await inspector
+      .send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, {
+        decision: 'returned',
+        comment: 'Two items to address.',
+        items: ITEMS,
+        version: review.version,
+      })
+      .expect(200)
+  ).body.review;
   const systemUrl = `/api/projects/${p.projectId}/systems/${s.systemId}`;
-  return { ...p, ...s, inspector, review: returned, systemUrl, replyUrl: (commentId: string) => `/api/projects/${p.projectId}/reviews/${review.id}/comments/${commentId}/reply` };
+  return {
+    ...p,
+    ...s,
+    inspector,
+    review: returned,
+    systemUrl,
+    replyUrl: (commentId: string) => `/api/projects/${p.projectId}/reviews/${review.id}/comments/${commentId}/reply`,
+  };
 }
 
 /** The designer's next revision: a new draft with 4 more standard elbows on the riser to level 2, issued. */
@@ -133,7 +150,11 @@ describe('the designer answers the comments', () => {
     await p.designer.send('POST', `${s.base}/summary/send`, { inspectorIds: [p.inspectorUser.id] }).expect(202);
     const inspector = await signedIn(h, p.inspectorUser);
     const review = (await inspector.get(`${s.base}/reviews`).expect(200)).body.reviews[0];
-    const accepted = (await inspector.send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, { decision: 'accepted', items: [ITEMS[0]], version: review.version }).expect(200)).body.review;
+    const accepted = (
+      await inspector
+        .send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, { decision: 'accepted', items: [ITEMS[0]], version: review.version })
+        .expect(200)
+    ).body.review;
     await p.designer.send('PUT', `/api/projects/${p.projectId}/reviews/${review.id}/comments/${accepted.items[0].id}/reply`, { reply: 'Noted.' }).expect(409);
   });
 });
@@ -168,7 +189,9 @@ describe('the next revision answers the returned one', () => {
     expect(change.text).toContain('→');
     // the same fixtures on both sides, with their margins before and after
     expect(answers.compare.fixtures.length).toBeGreaterThan(0);
-    expect(answers.compare.fixtures.every((f: { issuedMargin: number | null; newMargin: number | null }) => f.issuedMargin !== null && f.newMargin !== null)).toBe(true);
+    expect(
+      answers.compare.fixtures.every((f: { issuedMargin: number | null; newMargin: number | null }) => f.issuedMargin !== null && f.newMargin !== null),
+    ).toBe(true);
 
     // the first revision answers nothing
     expect((await w.inspector.get(`${w.base}/answers`).expect(200)).body.answers).toBeNull();
@@ -182,7 +205,16 @@ describe('the acceptance record', () => {
     await p.designer.send('POST', `${s.base}/summary/send`, { inspectorIds: [p.inspectorUser.id] }).expect(202);
     const inspector = await signedIn(h, p.inspectorUser);
     const review = (await inspector.get(`${s.base}/reviews`).expect(200)).body.reviews[0];
-    const accepted = (await inspector.send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, { decision: 'accepted', comment: 'Meets the adopted code as read.', items: [ITEMS[1]], version: review.version }).expect(200)).body.review;
+    const accepted = (
+      await inspector
+        .send('PATCH', `/api/projects/${p.projectId}/reviews/${review.id}`, {
+          decision: 'accepted',
+          comment: 'Meets the adopted code as read.',
+          items: [ITEMS[1]],
+          version: review.version,
+        })
+        .expect(200)
+    ).body.review;
     await waitForMessages(h, { revision_id: s.revisionId, kind: 'review-decision' }, 'sent', 1);
     expect(accepted.acceptanceRecord.url).toBe(`/api/projects/${p.projectId}/reviews/${review.id}/acceptance.pdf`);
 

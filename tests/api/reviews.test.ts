@@ -30,7 +30,14 @@ describe('the inspector’s review', () => {
       { itemType: 'segment', itemId: 'riser-2', comment: 'Show the riser support spacing.' },
       { itemType: 'input', itemId: 'source', comment: 'The pressure letter is older than a year; send a current flow test.' },
     ];
-    const decided = await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${item.review.id}`, { decision: 'returned', comment: 'Two items to address.', items, version: item.review.version }).expect(200);
+    const decided = await inspector
+      .send('PATCH', `/api/projects/${projectId}/reviews/${item.review.id}`, {
+        decision: 'returned',
+        comment: 'Two items to address.',
+        items,
+        version: item.review.version,
+      })
+      .expect(200);
     expect(decided.body.review.status).toBe('returned');
     expect(decided.body.review.decidedAt).not.toBeNull();
 
@@ -38,29 +45,42 @@ describe('the inspector’s review', () => {
     expect(seen).toHaveLength(1);
     expect(seen[0]).toMatchObject({ status: 'returned', comment: 'Two items to address.', reviewer: { id: inspectorUser.id } });
     // each comment as sent, with its id and no reply yet (the designer answers it: tests/api/reviewLoop.test.ts)
-    expect(seen[0].items.map(({ itemType, itemId, comment }: { itemType: string; itemId: string | null; comment: string }) => ({ itemType, itemId, comment }))).toEqual(items);
+    expect(
+      seen[0].items.map(({ itemType, itemId, comment }: { itemType: string; itemId: string | null; comment: string }) => ({ itemType, itemId, comment })),
+    ).toEqual(items);
     expect(seen[0].items.every((i: { id: string; reply: unknown }) => /^\d+$/.test(i.id) && i.reply === null)).toBe(true);
     const onProject = (await designer.get(`/api/projects/${projectId}/reviews`).expect(200)).body.reviews;
     expect(onProject.map((r: { id: string }) => r.id)).toEqual([item.review.id]);
 
     // a decision is final; a return needs a reason
-    const again = await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${item.review.id}`, { decision: 'accepted', version: decided.body.review.version });
+    const again = await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${item.review.id}`, {
+      decision: 'accepted',
+      version: decided.body.review.version,
+    });
     expect(again.status).toBe(409);
   });
 
   it('when an inspector returns without a reason, or someone else decides, then it is refused', async () => {
     const { inspector, designer, projectId, revisionId } = await sentToInspector();
-    const review = (await designer.get(`/api/projects/${projectId}/reviews`).expect(200)).body.reviews.find((r: { revisionId: string }) => r.revisionId === revisionId);
+    const review = (await designer.get(`/api/projects/${projectId}/reviews`).expect(200)).body.reviews.find(
+      (r: { revisionId: string }) => r.revisionId === revisionId,
+    );
     const bare = await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'returned', version: review.version });
     expect(bare.status).toBe(400);
     expect(Object.keys(bare.body.error.fields)).toContain('comment');
-    expect((await designer.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version })).status).toBe(403);
+    expect((await designer.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version })).status).toBe(
+      403,
+    );
     // a second inspector of the project, to whom it was not sent
     const other = await makeUser(h.db, { accountRole: 'inspector' });
     await designer.send('POST', `/api/projects/${projectId}/members`, { email: other.email, role: 'inspector' }).expect(201);
     const otherClient = await signedIn(h, other);
-    expect((await otherClient.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version })).status).toBe(403);
-    const accepted = await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version }).expect(200);
+    expect((await otherClient.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version })).status).toBe(
+      403,
+    );
+    const accepted = await inspector
+      .send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version })
+      .expect(200);
     expect(accepted.body.review.status).toBe('accepted');
   });
 
@@ -77,14 +97,20 @@ describe('the inspector’s review', () => {
 
   it('when an inspector is removed from the project, then the summary leaves their inbox', async () => {
     const { inspector, designer, projectId, revisionId, inspectorUser } = await sentToInspector();
-    expect((await inspector.get('/api/inbox').expect(200)).body.items.some((i: { review: { revisionId: string } }) => i.review.revisionId === revisionId)).toBe(true);
+    expect((await inspector.get('/api/inbox').expect(200)).body.items.some((i: { review: { revisionId: string } }) => i.review.revisionId === revisionId)).toBe(
+      true,
+    );
     await designer.send('DELETE', `/api/projects/${projectId}/members/${inspectorUser.id}`).expect(204);
-    expect((await inspector.get('/api/inbox').expect(200)).body.items.some((i: { review: { revisionId: string } }) => i.review.revisionId === revisionId)).toBe(false);
+    expect((await inspector.get('/api/inbox').expect(200)).body.items.some((i: { review: { revisionId: string } }) => i.review.revisionId === revisionId)).toBe(
+      false,
+    );
   });
 
   it('when things happen on a project, then its designers read who did what and when in the audit log, and others may not', async () => {
     const { inspector, designer, projectId, revisionId, designerUser, inspectorUser, contractorUser } = await sentToInspector();
-    const review = (await inspector.get('/api/inbox').expect(200)).body.items.find((i: { review: { revisionId: string } }) => i.review.revisionId === revisionId).review;
+    const review = (await inspector.get('/api/inbox').expect(200)).body.items.find(
+      (i: { review: { revisionId: string } }) => i.review.revisionId === revisionId,
+    ).review;
     await inspector.send('PATCH', `/api/projects/${projectId}/reviews/${review.id}`, { decision: 'accepted', version: review.version }).expect(200);
     const log = (await designer.get(`/api/projects/${projectId}/audit`).expect(200)).body;
     const actions = log.entries.map((e: { action: string }) => e.action);

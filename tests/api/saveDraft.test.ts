@@ -20,7 +20,9 @@ afterAll(() => h.close());
 
 async function withSystem() {
   const p = await projectWithRoles(h);
-  const created = await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() }).expect(201);
+  const created = await p.designer
+    .send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() })
+    .expect(201);
   const base = `/api/projects/${p.projectId}/systems/${created.body.system.id}`;
   return { ...p, base, system: created.body.system, revision: created.body.revision };
 }
@@ -36,7 +38,14 @@ describe('the draft save answers what the client needs', () => {
     expect(Object.keys(res.body.revision).sort()).toEqual(Object.keys(RevisionSummary.shape).sort());
     expect(res.body.revision).not.toHaveProperty('document');
     expect(res.body.revision).not.toHaveProperty('analysis');
-    expect(answer.revision).toMatchObject({ id: revision.id, number: revision.number, status: 'draft', version: revision.version + 1, issuedAt: null, issuedBy: null });
+    expect(answer.revision).toMatchObject({
+      id: revision.id,
+      number: revision.number,
+      status: 'draft',
+      version: revision.version + 1,
+      issuedAt: null,
+      issuedBy: null,
+    });
     // the verdict is the engine's on the document just saved
     const engine = analyzeSystem(SystemDocumentSchema.parse(document));
     const critical = engine.fixtures.find((f) => f.id === engine.criticalFixtureId)!;
@@ -99,7 +108,10 @@ describe('the stored analysis as a versioned contract', () => {
     const row = await h.db('revisions').where({ id: revision.id }).first('analysis');
     const incomplete = structuredClone(row.analysis);
     incomplete.result.analysis.verdict.status = 'incomplete';
-    await h.db('revisions').where({ id: revision.id }).update({ analysis: JSON.stringify(incomplete) });
+    await h
+      .db('revisions')
+      .where({ id: revision.id })
+      .update({ analysis: JSON.stringify(incomplete) });
     await expect(h.db('revisions').where({ id: revision.id }).update({ status: 'issued' })).rejects.toThrow(/incomplete; it cannot be issued/);
   });
 
@@ -110,7 +122,18 @@ describe('the stored analysis as a versioned contract', () => {
     // written as the code before formats wrote it: the fixture's analysis, at the top of the column
     const [issued] = await h
       .db('revisions')
-      .insert({ system_id: system.id, number: 1, status: 'issued', document: JSON.stringify({ ...smallHouse, id: randomUUID() }), analysis: JSON.stringify(format0.computed.stored), engine_version: format0.engineVersion, created_by: user.id, issued_by: user.id, issued_at: h.db.fn.now(), input_hash: 'b'.repeat(64) })
+      .insert({
+        system_id: system.id,
+        number: 1,
+        status: 'issued',
+        document: JSON.stringify({ ...smallHouse, id: randomUUID() }),
+        analysis: JSON.stringify(format0.computed.stored),
+        engine_version: format0.engineVersion,
+        created_by: user.id,
+        issued_by: user.id,
+        issued_at: h.db.fn.now(),
+        input_hash: 'b'.repeat(64),
+      })
       .returning('id');
     const got = await p.designer.get(`/api/projects/${p.projectId}/systems/${system.id}/revisions/${issued.id}`).expect(200);
     expect(got.body.revision.analysis).toEqual(format0.computed.stored);

@@ -34,7 +34,9 @@ describe('CSRF on every state-changing route', () => {
     const designer = await new UrlClient(server.url).signIn((await makeUser(h.db, { accountRole: 'designer' })).email);
     const other = await new UrlClient(server.url).signIn((await makeUser(h.db, { accountRole: 'designer' })).email);
     const project = (await want(designer.send('POST', '/api/projects', { name: 'CSRF' }), 201)).body.project;
-    const created = (await want(designer.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: smallDocument() }), 201)).body;
+    const created = (
+      await want(designer.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: smallDocument() }), 201)
+    ).body;
     // real ids where the designer has them, so a forged request would have something to change
     const ids: Record<string, string> = { projectId: project.id, systemId: created.system.id, revisionId: created.revision.id };
     const writes = h.headroom.apiRoutes.filter((r) => !['GET', 'HEAD', 'OPTIONS'].includes(r.method));
@@ -70,7 +72,10 @@ describe('cookie flags', () => {
     expect(session!.attrs).toContain('httponly');
     expect(session!.attrs).toContain('samesite=lax');
     expect(session!.attrs).not.toContain('secure');
-    const token = (await fetch(`${server.url}/api/csrf-token`)).headers.getSetCookie().map(parseCookie).find((k) => k.name.includes('csrf'));
+    const token = (await fetch(`${server.url}/api/csrf-token`)).headers
+      .getSetCookie()
+      .map(parseCookie)
+      .find((k) => k.name.includes('csrf'));
     expect(token!.attrs).toContain('httponly');
     expect(token!.attrs).toContain('samesite=lax');
   });
@@ -85,12 +90,18 @@ describe('cookie flags', () => {
       const c = new UrlClient(s.url);
       const tokenRes = await c.request('GET', '/api/csrf-token', { headers: https });
       c.token = tokenRes.body.token;
-      const csrf = tokenRes.headers.getSetCookie().map(parseCookie).find((k) => k.name.includes('csrf'));
+      const csrf = tokenRes.headers
+        .getSetCookie()
+        .map(parseCookie)
+        .find((k) => k.name.includes('csrf'));
       expect(csrf!.name).toBe('__Host-headroom.csrf');
       expect(csrf!.attrs).toEqual(expect.arrayContaining(['secure', 'httponly', 'samesite=lax', 'path=/']));
       const res = await c.request('POST', '/api/auth/sign-in', { json: { email: user.email, password: 'correct horse battery' }, headers: https });
       expect(res.status).toBe(200);
-      const session = res.headers.getSetCookie().map(parseCookie).find((k) => k.name === 'headroom.sid');
+      const session = res.headers
+        .getSetCookie()
+        .map(parseCookie)
+        .find((k) => k.name === 'headroom.sid');
       expect(session!.attrs).toEqual(expect.arrayContaining(['secure', 'httponly', 'samesite=lax']));
     } finally {
       await s.close();
@@ -107,7 +118,10 @@ describe('session expiry', () => {
       const c = await new UrlClient(s.url).signIn((await makeUser(short.db)).email);
       const res = await c.get('/api/auth/me');
       expect(res.status).toBe(200);
-      const session = res.headers.getSetCookie().map(parseCookie).find((k) => k.name === 'headroom.sid');
+      const session = res.headers
+        .getSetCookie()
+        .map(parseCookie)
+        .find((k) => k.name === 'headroom.sid');
       // rolling: every answer renews the cookie for the idle period (60 s; express-session writes Expires)
       const expires = session!.attrs.find((a) => a.startsWith('expires='));
       const cookieLeft = new Date(expires!.slice('expires='.length)).getTime() - Date.now();
@@ -131,7 +145,12 @@ describe('session expiry', () => {
     expect((await c.get('/api/auth/me')).status).toBe(200);
     const sid = decodeURIComponent(c.cookies.get('headroom.sid')!).replace(/^s:/, '').split('.')[0];
     // what the idle period does, without waiting for it: the stored session's expiry is in the past
-    expect(await h.db('session').where({ sid }).update({ expire: h.db.raw("now() - interval '1 second'") })).toBe(1);
+    expect(
+      await h
+        .db('session')
+        .where({ sid })
+        .update({ expire: h.db.raw("now() - interval '1 second'") }),
+    ).toBe(1);
     const me = await c.get('/api/auth/me');
     expect(me.status).toBe(401);
     expect(me.body.error.code).toBe('NOT_SIGNED_IN');

@@ -39,7 +39,12 @@ const flat = (s: string) => s.replace(/\s+/g, ' ');
 function twoHundredSegments() {
   const doc = generateBuilding({ storeys: 2, apartmentsPerStorey: 4 });
   const checkedNodes = new Set(doc.nodes.filter((n) => (n.checkedFixtures ?? []).length > 0).map((n) => n.id));
-  const drop = new Set(doc.segments.filter((s) => s.id.startsWith('fb-') && !checkedNodes.has(s.to)).slice(0, doc.segments.length - 200).map((s) => s.id));
+  const drop = new Set(
+    doc.segments
+      .filter((s) => s.id.startsWith('fb-') && !checkedNodes.has(s.to))
+      .slice(0, doc.segments.length - 200)
+      .map((s) => s.id),
+  );
   const dropNodes = new Set(doc.segments.filter((s) => drop.has(s.id)).map((s) => s.to));
   return { ...doc, id: randomUUID(), segments: doc.segments.filter((s) => !drop.has(s.id)), nodes: doc.nodes.filter((n) => !dropNodes.has(n.id)) };
 }
@@ -47,7 +52,9 @@ function twoHundredSegments() {
 async function issuedWithProject(document: unknown) {
   const p = await projectWithRoles(h);
   const project = (await p.designer.get(`/api/projects/${p.projectId}`).expect(200)).body.project;
-  await p.designer.send('PATCH', `/api/projects/${p.projectId}`, { codeBasis: 'Wrenmoor plumbing code (invented), 2024 edition', version: project.version }).expect(200);
+  await p.designer
+    .send('PATCH', `/api/projects/${p.projectId}`, { codeBasis: 'Wrenmoor plumbing code (invented), 2024 edition', version: project.version })
+    .expect(200);
   const s = await issuedSystem(p.designer, p.projectId, document);
   return { ...p, ...s };
 }
@@ -59,11 +66,14 @@ describe('the issued summary PDF', () => {
     expect(summary.status).toBe('ready');
     expect(summary.sha256).toMatch(/^[0-9a-f]{64}$/);
 
-    const res = await designer.get(`${base}/summary.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    const res = await designer
+      .get(`${base}/summary.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const bytes = res.body as Buffer;
@@ -84,7 +94,10 @@ describe('the issued summary PDF', () => {
     // the critical fixture's ledger, line by line
     const ledger = ledgerFor(analysis, analysis.criticalFixtureId!);
     for (const line of ledger.lines) {
-      const cells = line.kind === 'start' ? `${line.step} ${line.label} ${num(line.pressureAfter, u)}` : `${line.step} ${line.label} ${signed(line.change, u)} ${num(line.pressureAfter, u)}`;
+      const cells =
+        line.kind === 'start'
+          ? `${line.step} ${line.label} ${num(line.pressureAfter, u)}`
+          : `${line.step} ${line.label} ${signed(line.change, u)} ${num(line.pressureAfter, u)}`;
       expect(text, `ledger line ${line.step}`).toContain(cells);
     }
     expect(text).toContain(`Margin (pass) ${signed(ledger.margin, u)}`);
@@ -149,12 +162,22 @@ describe('the issued summary PDF', () => {
     const third = (await inspector.get(`${base}/summary.pdf`).responseType('blob').expect(200)).body as Buffer;
     expect(second.equals(first)).toBe(true);
     expect(third.equals(first)).toBe(true);
-    await expect(h.db('summaries').where({ revision_id: revisionId }).update({ pdf: Buffer.from('tampered') })).rejects.toThrow(/cannot change/);
+    await expect(
+      h
+        .db('summaries')
+        .where({ revision_id: revisionId })
+        .update({ pdf: Buffer.from('tampered') }),
+    ).rejects.toThrow(/cannot change/);
 
     const row = await h.db('summaries').where({ revision_id: revisionId }).first('header');
     const att = revision.attestation;
     const attestation = { name: att.name, licenceNumber: att.licenceNumber, statement: att.statement, at: att.at };
-    const again = await renderSummaryPdf({ header: row.header, document: SystemDocumentSchema.parse(revision.document), analysis: revision.analysis.analysis, attestation });
+    const again = await renderSummaryPdf({
+      header: row.header,
+      document: SystemDocumentSchema.parse(revision.document),
+      analysis: revision.analysis.analysis,
+      attestation,
+    });
     expect(Buffer.from(again.bytes).equals(first)).toBe(true);
     // a designer cannot make an issued summary again
     expect((await designer.send('POST', `${base}/summary/retry`)).status).toBe(409);
@@ -162,7 +185,9 @@ describe('the issued summary PDF', () => {
 
   it('when a draft has not been issued, then it has no summary; a non-member is told nothing', async () => {
     const p = await projectWithRoles(h);
-    const created = (await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Draft only', service: 'cold', document: demoDocument() }).expect(201)).body;
+    const created = (
+      await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Draft only', service: 'cold', document: demoDocument() }).expect(201)
+    ).body;
     const base = `/api/projects/${p.projectId}/systems/${created.system.id}/revisions/${created.revision.id}`;
     expect((await p.designer.get(`${base}/summary`)).status).toBe(404);
     expect((await p.designer.get(`${base}/summary.pdf`)).status).toBe(404);
@@ -195,7 +220,18 @@ describe('the summary of an analysis computed here', () => {
   it('when the same document is rendered twice, then the two PDFs are byte-identical (its speed is measured by npm run bench, not here)', async () => {
     const doc = SystemDocumentSchema.parse(twoHundredSegments());
     const analysis = analyzeSystem(doc);
-    const header = { projectName: 'Twice', address: '', codeBasis: '', systemName: 'Generated', revisionNumber: 1, issuedAt: '2026-12-01T00:00:00.000Z', preparerName: 'Test', preparerEmail: '', inputHash: '0'.repeat(64), note: null };
+    const header = {
+      projectName: 'Twice',
+      address: '',
+      codeBasis: '',
+      systemName: 'Generated',
+      revisionNumber: 1,
+      issuedAt: '2026-12-01T00:00:00.000Z',
+      preparerName: 'Test',
+      preparerEmail: '',
+      inputHash: '0'.repeat(64),
+      note: null,
+    };
     const a = Buffer.from((await renderSummaryPdf({ header, document: doc, analysis })).bytes);
     const b = Buffer.from((await renderSummaryPdf({ header, document: doc, analysis })).bytes);
     expect(a.length).toBeGreaterThan(10_000);

@@ -18,7 +18,8 @@ import { smallDocument } from './support/documents';
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'headroom-content-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
-const demo = (): SystemDocument => SystemDocumentSchema.parse(JSON.parse(fs.readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
+const demo = (): SystemDocument =>
+  SystemDocumentSchema.parse(JSON.parse(fs.readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
 /** The demo with its supply cut to 25/30 psi and no flow test: fixtures beyond the booster's reach fall short. */
 function weakSupply(): SystemDocument {
   const doc = demo();
@@ -28,7 +29,18 @@ function weakSupply(): SystemDocument {
   return doc;
 }
 const ACK = { statement: 'Issued for the permit review; the booster is resized before occupancy.', by: 'Dana Reyes', at: '2026-12-02T10:00:00.000Z' };
-const HEADER = { projectName: 'Alder & Finch', address: '410 Quarry Lane, Wrenmoor', codeBasis: '', systemName: 'Domestic cold water', revisionNumber: 3, issuedAt: '2026-12-02T10:00:00.000Z', preparerName: 'Dana Reyes', preparerEmail: '', inputHash: 'x'.repeat(64), note: null };
+const HEADER = {
+  projectName: 'Alder & Finch',
+  address: '410 Quarry Lane, Wrenmoor',
+  codeBasis: '',
+  systemName: 'Domestic cold water',
+  revisionNumber: 3,
+  issuedAt: '2026-12-02T10:00:00.000Z',
+  preparerName: 'Dana Reyes',
+  preparerEmail: '',
+  inputHash: 'x'.repeat(64),
+  note: null,
+};
 
 function pdfText(bytes: Uint8Array, args: string[] = []): string {
   const file = path.join(tmp, `${Math.random().toString(36).slice(2)}.pdf`);
@@ -75,8 +87,18 @@ describe('sources printed from the data used', () => {
     const rows = catalogSourcesUsed(doc, a.criteria.fittingMethod);
     const materials = new Set(doc.segments.map((s) => s.material).filter(Boolean));
     const fittings = new Set(doc.segments.flatMap((s) => (s.fittings ?? []).filter((f) => !f.custom).map((f) => f.typeId)));
-    const fixtures = new Set(doc.nodes.flatMap((n) => [...(n.fixtureGroups ?? []).filter((g) => !g.custom).map((g) => g.fixtureTypeId), ...(n.checkedFixtures ?? []).map((c) => c.fixtureTypeId)]));
-    expect(rows.filter((r) => r.kind === 'Pipe material').map((r) => r.item).sort()).toEqual([...materials].map((id) => MATERIALS[id as keyof typeof MATERIALS].label).sort());
+    const fixtures = new Set(
+      doc.nodes.flatMap((n) => [
+        ...(n.fixtureGroups ?? []).filter((g) => !g.custom).map((g) => g.fixtureTypeId),
+        ...(n.checkedFixtures ?? []).map((c) => c.fixtureTypeId),
+      ]),
+    );
+    expect(
+      rows
+        .filter((r) => r.kind === 'Pipe material')
+        .map((r) => r.item)
+        .sort(),
+    ).toEqual([...materials].map((id) => MATERIALS[id as keyof typeof MATERIALS].label).sort());
     expect(rows.filter((r) => r.kind === 'Fitting type').length).toBe(fittings.size);
     expect(rows.filter((r) => r.kind === 'Fixture type').length).toBe(fixtures.size);
     for (const id of fixtures) {
@@ -145,7 +167,12 @@ describe('the drawn summary', () => {
     const a = analyzeSystem(doc);
     const { bytes } = await renderSummaryPdf({ header: HEADER, document: doc, analysis: a, failureAcknowledgement: ACK });
     const plain = pdfText(bytes);
-    expect(plain.split('\n').find((l) => l.trim())!.trim()).toMatch(/^FAIL · Alder & Finch/);
+    expect(
+      plain
+        .split('\n')
+        .find((l) => l.trim())!
+        .trim(),
+    ).toMatch(/^FAIL · Alder & Finch/);
     const flat = pdfText(bytes, ['-layout']).replace(/\s+/g, ' ');
     expect(flat).toContain(`FAIL: ${a.verdict.failures} checks are not met`);
     expect(flat).toContain(ACK.statement);

@@ -12,7 +12,9 @@ afterAll(() => h.close());
 
 async function withSystem() {
   const p = await projectWithRoles(h);
-  const created = await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() }).expect(201);
+  const created = await p.designer
+    .send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() })
+    .expect(201);
   const base = `/api/projects/${p.projectId}/systems/${created.body.system.id}`;
   return { ...p, base, system: created.body.system, revision: created.body.revision };
 }
@@ -39,8 +41,14 @@ describe('systems and revisions', () => {
 
   it('when two tabs save one draft at the same version, then the second gets 409 and the first is kept', async () => {
     const { designer, base, revision } = await withSystem();
-    const first = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument({ elbowCount: 3 }), version: revision.version });
-    const second = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument({ elbowCount: 9 }), version: revision.version });
+    const first = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, {
+      document: smallDocument({ elbowCount: 3 }),
+      version: revision.version,
+    });
+    const second = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, {
+      document: smallDocument({ elbowCount: 9 }),
+      version: revision.version,
+    });
     expect(first.status).toBe(200);
     expect(second.status).toBe(409);
     expect(second.body.error.code).toBe('STALE_VERSION');
@@ -66,7 +74,12 @@ describe('systems and revisions', () => {
     expect(issued.body.revision.inputHash).toMatch(/^[0-9a-f]{64}$/);
     const edit = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument(), version: issued.body.revision.version });
     expect(edit.status).toBe(409);
-    await expect(h.db('revisions').where({ id: revision.id }).update({ document: JSON.stringify({ tampered: true }) })).rejects.toThrow(/cannot change/);
+    await expect(
+      h
+        .db('revisions')
+        .where({ id: revision.id })
+        .update({ document: JSON.stringify({ tampered: true }) }),
+    ).rejects.toThrow(/cannot change/);
 
     const contractor = await signedIn(h, contractorUser);
     expect((await contractor.send('POST', `${base}/revisions`, { fromRevisionId: revision.id })).status).toBe(403);
@@ -74,7 +87,9 @@ describe('systems and revisions', () => {
     const draft = await designer.send('POST', `${base}/revisions`, { fromRevisionId: revision.id }).expect(201);
     expect(draft.body.revision).toMatchObject({ number: 2, status: 'draft' });
     expect((await designer.send('POST', `${base}/revisions`, { fromRevisionId: revision.id })).status).toBe(409);
-    await designer.send('POST', `${base}/revisions/${draft.body.revision.id}/issue`, { version: draft.body.revision.version, attestation: ATTESTATION }).expect(200);
+    await designer
+      .send('POST', `${base}/revisions/${draft.body.revision.id}/issue`, { version: draft.body.revision.version, attestation: ATTESTATION })
+      .expect(200);
     const list = (await designer.get(base).expect(200)).body.revisions;
     expect(list.map((r: { number: number; status: string }) => `${r.number}:${r.status}`)).toEqual(['2:issued', '1:superseded']);
   });
@@ -100,7 +115,10 @@ describe('systems and revisions', () => {
   it('when an inspector or contractor tries to save a draft, then 403 and nothing changes', async () => {
     const { base, revision, inspectorUser } = await withSystem();
     const inspector = await signedIn(h, inspectorUser);
-    const res = await inspector.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument({ elbowCount: 1 }), version: revision.version });
+    const res = await inspector.send('PUT', `${base}/revisions/${revision.id}/document`, {
+      document: smallDocument({ elbowCount: 1 }),
+      version: revision.version,
+    });
     expect(res.status).toBe(403);
     const stored = await inspector.get(`${base}/revisions/${revision.id}`).expect(200);
     expect(stored.body.revision.version).toBe(revision.version);

@@ -18,7 +18,9 @@ afterAll(() => h.close());
 
 async function withSystem() {
   const p = await projectWithRoles(h);
-  const created = await p.designer.send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() }).expect(201);
+  const created = await p.designer
+    .send('POST', `/api/projects/${p.projectId}/systems`, { name: 'Cold water', service: 'cold', document: smallDocument() })
+    .expect(201);
   const base = `/api/projects/${p.projectId}/systems/${created.body.system.id}`;
   return { ...p, base, revision: created.body.revision };
 }
@@ -41,7 +43,8 @@ describe('switching a project’s unit system', () => {
     // the same building, in other units: the critical margin agrees within the inputs' rounding (0.1 %)
     expect(after.analysis.ok && before.analysis.ok).toBe(true);
     expect(after.analysis.analysis.units.pressure).toBe('kPa');
-    const marginOf = (a: { analysis: { criticalFixtureId: string; fixtures: { id: string; margin: number }[] } }) => a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId)!.margin;
+    const marginOf = (a: { analysis: { criticalFixtureId: string; fixtures: { id: string; margin: number }[] } }) =>
+      a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId)!.margin;
     expectClose(marginOf(after.analysis), marginOf(before.analysis) * KPA_PER_PSI, { rtol: 1e-3 });
 
     const audit = await h.db('audit_log').where({ subject_id: revision.id, action: 'revision.units-converted' });

@@ -16,7 +16,9 @@ describe('api client', () => {
   });
 
   it('when writing, then it fetches the CSRF token once and sends it with every write', async () => {
-    const fetch = fakeFetch((call) => (call.url === '/api/csrf-token' ? { status: 200, body: { token: 'tok-1' } } : { status: 200, body: { thing: { id: 'x' } } }));
+    const fetch = fakeFetch((call) =>
+      call.url === '/api/csrf-token' ? { status: 200, body: { token: 'tok-1' } } : { status: 200, body: { thing: { id: 'x' } } },
+    );
     const api = createApiClient(fetch.impl);
     await api.post('/api/things', { name: 'a' }, Thing);
     await api.patch('/api/things/x', { name: 'b' }, Thing);
@@ -28,7 +30,9 @@ describe('api client', () => {
   });
 
   it('when the body is FormData (an upload), then it goes as multipart with the CSRF token and no JSON content type', async () => {
-    const fetch = fakeFetch((call) => (call.url === '/api/csrf-token' ? { status: 200, body: { token: 'tok-9' } } : { status: 201, body: { thing: { id: 'f' } } }));
+    const fetch = fakeFetch((call) =>
+      call.url === '/api/csrf-token' ? { status: 200, body: { token: 'tok-9' } } : { status: 201, body: { thing: { id: 'f' } } },
+    );
     const api = createApiClient(fetch.impl);
     const form = new FormData();
     form.append('file', new Blob(['%PDF-1.4'], { type: 'application/pdf' }), 'sheet.pdf');
@@ -77,9 +81,17 @@ describe('api client', () => {
   });
 
   it('when the answer is 400 with fields, then the ApiError carries code, message and each field', async () => {
-    const body = { error: { code: 'VALIDATION_FAILED', message: 'Check the fields', fields: { name: 'Enter a project name', 'members.0.email': 'Enter a valid e-mail address' } } };
+    const body = {
+      error: {
+        code: 'VALIDATION_FAILED',
+        message: 'Check the fields',
+        fields: { name: 'Enter a project name', 'members.0.email': 'Enter a valid e-mail address' },
+      },
+    };
     const fetch = fakeFetch((call) => (call.url === '/api/csrf-token' ? { status: 200, body: { token: 't' } } : { status: 400, body }));
-    const error = (await createApiClient(fetch.impl).post('/api/projects', {}).catch((e: unknown) => e)) as ApiError;
+    const error = (await createApiClient(fetch.impl)
+      .post('/api/projects', {})
+      .catch((e: unknown) => e)) as ApiError;
     expect(error).toBeInstanceOf(ApiError);
     expect([error.status, error.code, error.message]).toEqual([400, 'VALIDATION_FAILED', 'Check the fields']);
     expect(error.fields).toEqual(body.error.fields);
@@ -87,27 +99,37 @@ describe('api client', () => {
 
   it('when the answer is 409 STALE_VERSION, then the code survives for the form to show Reload', async () => {
     const fetch = fakeFetch((call) =>
-      call.url === '/api/csrf-token' ? { status: 200, body: { token: 't' } } : { status: 409, body: { error: { code: 'STALE_VERSION', message: 'Changed meanwhile' } } },
+      call.url === '/api/csrf-token'
+        ? { status: 200, body: { token: 't' } }
+        : { status: 409, body: { error: { code: 'STALE_VERSION', message: 'Changed meanwhile' } } },
     );
-    const error = (await createApiClient(fetch.impl).patch('/api/projects/p', { version: 1 }).catch((e: unknown) => e)) as ApiError;
+    const error = (await createApiClient(fetch.impl)
+      .patch('/api/projects/p', { version: 1 })
+      .catch((e: unknown) => e)) as ApiError;
     expect([error.status, error.code]).toEqual([409, 'STALE_VERSION']);
   });
 
   it('when the server answers outside the error format (a proxy page), then the error keeps the status and says UNKNOWN', async () => {
     const fetch = fakeFetch(() => ({ status: 502, raw: '<html>Bad gateway</html>' }));
-    const error = (await createApiClient(fetch.impl).get('/api/projects', Thing).catch((e: unknown) => e)) as ApiError;
+    const error = (await createApiClient(fetch.impl)
+      .get('/api/projects', Thing)
+      .catch((e: unknown) => e)) as ApiError;
     expect([error.status, error.code]).toEqual([502, 'UNKNOWN']);
   });
 
   it('when the network fails, then the error is NETWORK with status 0', async () => {
     const fetch = fakeFetch(() => new TypeError('Failed to fetch'));
-    const error = (await createApiClient(fetch.impl).get('/api/projects', Thing).catch((e: unknown) => e)) as ApiError;
+    const error = (await createApiClient(fetch.impl)
+      .get('/api/projects', Thing)
+      .catch((e: unknown) => e)) as ApiError;
     expect([error.status, error.code]).toEqual([0, 'NETWORK']);
   });
 
   it('when a 200 answer does not match the shared schema, then it is refused as BAD_RESPONSE', async () => {
     const fetch = fakeFetch(() => ({ status: 200, body: { thing: { id: 42 } } }));
-    const error = (await createApiClient(fetch.impl).get('/api/things/1', Thing).catch((e: unknown) => e)) as ApiError;
+    const error = (await createApiClient(fetch.impl)
+      .get('/api/things/1', Thing)
+      .catch((e: unknown) => e)) as ApiError;
     expect(error.code).toBe('BAD_RESPONSE');
   });
 

@@ -22,7 +22,10 @@ describe('applyElevations on nodes placed on floors', () => {
 
   it('when one node on a floor gets another elevation, then only that node leaves its floor', () => {
     const target = demo.nodes.find((n) => n.floor !== undefined && (n.heightAboveFloor ?? 0) > 0)!;
-    const v = { nodes: demo.nodes.map((n) => ({ id: n.id, elevation: n.id === target.id ? shown(n)! + 1 : shown(n) })), segments: demo.segments.map((s) => ({ id: s.id, rise: s.rise })) };
+    const v = {
+      nodes: demo.nodes.map((n) => ({ id: n.id, elevation: n.id === target.id ? shown(n)! + 1 : shown(n) })),
+      segments: demo.segments.map((s) => ({ id: s.id, rise: s.rise })),
+    };
     const out = applyElevations(demo, v);
     const moved = out.nodes.find((n) => n.id === target.id)!;
     expect(moved.elevation).toBe(shown(target)! + 1);

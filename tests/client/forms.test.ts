@@ -36,9 +36,17 @@ describe('form schemas (derived from the shared API schemas)', () => {
 
   it('when the permit fields name a code Headroom does not offer or run too long, then each field is in error by its path', () => {
     const values = { name: 'Alder & Finch', address: '', codeBasis: '', unitSystem: 'US', notes: '' };
-    const permit = { permitNumber: 'x'.repeat(81), adoptedCode: 'ipc-1997', localAmendments: '', preparerLicence: 'PE 40417', licenceJurisdiction: 'Wrenmoor (invented)' };
+    const permit = {
+      permitNumber: 'x'.repeat(81),
+      adoptedCode: 'ipc-1997',
+      localAmendments: '',
+      preparerLicence: 'PE 40417',
+      licenceJurisdiction: 'Wrenmoor (invented)',
+    };
     expect(issuePaths(updateProjectInputSchema.safeParse({ ...values, permit })).sort()).toEqual(['permit.adoptedCode', 'permit.permitNumber']);
-    expect(updateProjectInputSchema.safeParse({ ...values, permit: { ...permit, permitNumber: 'WRN-PC-2026-0418', adoptedCode: 'upc-2018' } }).success).toBe(true);
+    expect(updateProjectInputSchema.safeParse({ ...values, permit: { ...permit, permitNumber: 'WRN-PC-2026-0418', adoptedCode: 'upc-2018' } }).success).toBe(
+      true,
+    );
   });
 
   it('when a member is added with a mixed-case e-mail, then it is sent trimmed and lower-cased', () => {

@@ -17,7 +17,14 @@ function allPatterns(list: RouteObject[]): string[] {
 }
 
 // the app's table and the features' own tables (a feature composes its routes from its table)
-const TABLE_PATTERNS = [...Object.values(paths), ...Object.values(walkPaths), ...Object.values(summaryPaths), ...Object.values(fieldChangePaths), ...Object.values(catalogPaths), ...Object.values(buildingPaths)].map((entry) => entry.path);
+const TABLE_PATTERNS = [
+  ...Object.values(paths),
+  ...Object.values(walkPaths),
+  ...Object.values(summaryPaths),
+  ...Object.values(fieldChangePaths),
+  ...Object.values(catalogPaths),
+  ...Object.values(buildingPaths),
+].map((entry) => entry.path);
 
 const routes = appRoutes(new QueryClient());
 
@@ -91,7 +98,9 @@ describe('route loaders', () => {
 
   it('when a revision’s step is opened, then its loaders have asked for the project, the system, the revision and the catalog before the page’s code is loaded', async () => {
     const asked = await requestedBy(walkPaths.step.getHref('p1', 's1', 'r1', 'supply'));
-    expect(asked).toEqual(expect.arrayContaining(['/api/projects/p1', '/api/projects/p1/systems/s1', '/api/projects/p1/systems/s1/revisions/r1', '/api/catalog']));
+    expect(asked).toEqual(
+      expect.arrayContaining(['/api/projects/p1', '/api/projects/p1/systems/s1', '/api/projects/p1/systems/s1/revisions/r1', '/api/catalog']),
+    );
   });
 
   it('when a field change is opened, then its loader has asked for the field change beside the project and system', async () => {

@@ -2,7 +2,16 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { sizeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
 import { sizingBasisState } from '../../src/engine';
-import { applySizes, applySizing, applySubstitution, changedRows, setSizeLocked, undoSizes, undoSizing, undoSubstitution } from '../../src/features/sizing/lib/apply';
+import {
+  applySizes,
+  applySizing,
+  applySubstitution,
+  changedRows,
+  setSizeLocked,
+  undoSizes,
+  undoSizing,
+  undoSubstitution,
+} from '../../src/features/sizing/lib/apply';
 
 /** The invented demo (Alder & Finch) with its risers drawn at 1 in, so that sizing changes them. */
 function undersized(): SystemDocument {
@@ -45,7 +54,11 @@ describe('applying a sizing answer to a draft', () => {
     const at = new Date('2026-11-30T10:00:00Z');
     const applied = applySizing(start, answer, 0, at);
     expect(applied.segments.map((s) => s.size)).toEqual(answer.document!.segments.map((s) => s.size));
-    expect(sizingBasisState(applied)).toMatchObject({ kind: 'sized', edited: false, basis: { sizedAt: at.toISOString(), segmentsChanged: changedRows(answer.segments).length } });
+    expect(sizingBasisState(applied)).toMatchObject({
+      kind: 'sized',
+      edited: false,
+      basis: { sizedAt: at.toISOString(), segmentsChanged: changedRows(answer.segments).length },
+    });
     expect(undoSizing(applied, answer.segments, undefined)).toEqual(start);
     // a second sizing over a recorded one: undo gives the first record back
     const again = applySizing(applied, answer, 0, new Date('2026-12-01T10:00:00Z'));

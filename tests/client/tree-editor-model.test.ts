@@ -57,7 +57,10 @@ describe('rows in tree order', () => {
     const doc: SystemDocument = {
       ...demo,
       floors: [{ id: 'l2', name: 'Level 2', elevation: 14 }],
-      nodes: demo.nodes.map((n) => (n.id === demo.segments.find((s) => s.id === 'floor-2')!.to ? { ...n, floor: 'l2', elevation: undefined } : n)),
+      // one node on the one floor; the demo's own floors are left out (the rest are on no floor)
+      nodes: demo.nodes.map((n) =>
+        n.id === demo.segments.find((s) => s.id === 'floor-2')!.to ? { ...n, floor: 'l2', elevation: undefined } : { ...n, floor: undefined },
+      ),
     } as SystemDocument;
     const rows = treeRows(doc);
     expect(rows.find((r) => r.id === 'floor-2')!.floorLabel).toBe('Level 2');
@@ -67,7 +70,10 @@ describe('rows in tree order', () => {
     expect(onL2).toBeGreaterThan(1);
     const open = visibleLines(rows, new Set(), { floors: doc.floors, collapsed: new Set() });
     const heads = open.filter((l) => l.kind === 'floor');
-    expect(heads.map((h) => (h.kind === 'floor' ? [h.label, h.count] : null))).toEqual([['Level 2', onL2], ['Not on a floor', rows.length - onL2]]);
+    expect(heads.map((h) => (h.kind === 'floor' ? [h.label, h.count] : null))).toEqual([
+      ['Level 2', onL2],
+      ['Not on a floor', rows.length - onL2],
+    ]);
     const shut = visibleLines(rows, new Set(), { floors: doc.floors, collapsed: new Set(['l2']) });
     expect(shut.some((l) => l.kind === 'segment' && l.row.id === 'floor-2')).toBe(false);
   });

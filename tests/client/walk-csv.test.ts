@@ -5,7 +5,14 @@ import { parseCurvePoints, parseFixtureGroups, readDelimited } from '../../src/f
 describe('strict CSV reading for the walk', () => {
   it('when a spreadsheet range is pasted (tabs, header, blank line), then the points are read and the header skipped', () => {
     const text = 'Flow gpm\tLoss psi\n50\t1.9\n\n100\t7.8\r\n150\t17.3\n';
-    expect(parseCurvePoints(text)).toEqual({ rows: [{ flow: 50, loss: 1.9 }, { flow: 100, loss: 7.8 }, { flow: 150, loss: 17.3 }], errors: [] });
+    expect(parseCurvePoints(text)).toEqual({
+      rows: [
+        { flow: 50, loss: 1.9 },
+        { flow: 100, loss: 7.8 },
+        { flow: 150, loss: 17.3 },
+      ],
+      errors: [],
+    });
   });
 
   it('when a line has a non-number or a negative loss, then the error names that line and no point is taken from it', () => {
@@ -25,7 +32,10 @@ describe('strict CSV reading for the walk', () => {
 
   it('when fixture groups name an unknown node, an unknown type or a bad count, then each is refused with its line', () => {
     const known = { nodeIds: new Set(['floor-2', 'floor-3']), fixtureTypeIds: new Set(['lavatory-private']) };
-    const result = parseFixtureGroups('node,type,count\nfloor-2,lavatory-private,4\nroof,lavatory-private,1\nfloor-3,bidet,1\nfloor-3,lavatory-private,1.5\nfloor-3,lavatory-private,0', known);
+    const result = parseFixtureGroups(
+      'node,type,count\nfloor-2,lavatory-private,4\nroof,lavatory-private,1\nfloor-3,bidet,1\nfloor-3,lavatory-private,1.5\nfloor-3,lavatory-private,0',
+      known,
+    );
     expect(result.rows).toEqual([{ nodeId: 'floor-2', fixtureTypeId: 'lavatory-private', count: 4 }]);
     expect(result.errors).toEqual([
       'Line 3: there is no node “roof” in this system.',

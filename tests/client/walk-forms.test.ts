@@ -54,14 +54,34 @@ describe('who may edit a revision', () => {
 
 describe('step forms write the draft the engine reads', () => {
   it('when the supply form has a high static below the low one, then that field is in error and nothing is applied', () => {
-    const r = supplyFormSchema.safeParse({ kind: 'utility-main', staticPressureLow: 400, staticPressureHigh: 300, pressureBasis: 'gauge', pressureDate: '', connectionElevation: 0, waterTemperature: 10, hasFlowTest: false, flowTest: {} });
+    const r = supplyFormSchema.safeParse({
+      kind: 'utility-main',
+      staticPressureLow: 400,
+      staticPressureHigh: 300,
+      pressureBasis: 'gauge',
+      pressureDate: '',
+      connectionElevation: 0,
+      waterTemperature: 10,
+      hasFlowTest: false,
+      flowTest: {},
+    });
     expect(r.success).toBe(false);
     expect(r.error?.issues.map((i) => i.path.join('.'))).toEqual(['staticPressureHigh']);
   });
 
   it('when a flow test is entered, then the document carries it, the connection node moves, and the engine uses the test', () => {
     const doc = house();
-    const v = supplyFormSchema.parse({ kind: 'utility-main', staticPressureLow: 380, staticPressureHigh: 480, pressureBasis: 'Hydrant test', pressureDate: '2026-05-01', connectionElevation: -1.5, waterTemperature: 12, hasFlowTest: true, flowTest: { staticPressure: 380, residualPressure: 300, flow: 10, date: '' } });
+    const v = supplyFormSchema.parse({
+      kind: 'utility-main',
+      staticPressureLow: 380,
+      staticPressureHigh: 480,
+      pressureBasis: 'Hydrant test',
+      pressureDate: '2026-05-01',
+      connectionElevation: -1.5,
+      waterTemperature: 12,
+      hasFlowTest: true,
+      flowTest: { staticPressure: 380, residualPressure: 300, flow: 10, date: '' },
+    });
     const next = applySupply(doc, v);
     expect(next.source.flowTest).toEqual({ staticPressure: 380, residualPressure: 300, flow: 10 });
     expect(next.nodes.find((n) => n.id === 'main')?.elevation).toBe(-1.5);
@@ -83,7 +103,16 @@ describe('step forms write the draft the engine reads', () => {
   it('when the risers form changes a length, then fittings and checked fixtures the form does not show are kept', () => {
     const doc = house();
     const values = {
-      segments: doc.segments.map((s) => ({ id: s.id, label: s.label ?? '', from: s.from, to: s.to, material: s.material ?? '', size: s.size ?? '', length: s.id === 'riser' ? 7 : s.length, rise: s.rise })),
+      segments: doc.segments.map((s) => ({
+        id: s.id,
+        label: s.label ?? '',
+        from: s.from,
+        to: s.to,
+        material: s.material ?? '',
+        size: s.size ?? '',
+        length: s.id === 'riser' ? 7 : s.length,
+        rise: s.rise,
+      })),
       nodes: doc.nodes.map((n) => ({ id: n.id, label: n.label ?? '', elevation: n.elevation, fixtureGroups: n.fixtureGroups })),
     };
     const next = applyRisers(doc, risersFormSchema.parse(values));
@@ -94,14 +123,37 @@ describe('step forms write the draft the engine reads', () => {
   });
 
   it('when a PRV row has no set pressure, then the error sits on the set-pressure field', () => {
-    const r = devicesFormSchema.safeParse({ devices: [{ id: 'prv', kind: 'prv', label: 'PRV', segmentId: 'service', lossKind: 'fixed', fixedLoss: 0, points: [], prvSet: undefined, prvFalloff: 0, boostGain: undefined }] });
+    const r = devicesFormSchema.safeParse({
+      devices: [
+        {
+          id: 'prv',
+          kind: 'prv',
+          label: 'PRV',
+          segmentId: 'service',
+          lossKind: 'fixed',
+          fixedLoss: 0,
+          points: [],
+          prvSet: undefined,
+          prvFalloff: 0,
+          boostGain: undefined,
+        },
+      ],
+    });
     expect(r.success).toBe(false);
     expect(r.error?.issues.map((i) => i.path.join('.'))).toContain('devices.0.prvSet');
   });
 
   it('when the segment table clears a rise, then the rise is removed (taken from the elevations), not set to 0', () => {
     const doc = house();
-    const v = segmentTableSchema.parse({ segments: doc.segments.map((s) => ({ id: s.id, material: s.material ?? '', size: s.size ?? '', length: s.length, rise: s.id === 'riser' ? Number.NaN : s.rise })) });
+    const v = segmentTableSchema.parse({
+      segments: doc.segments.map((s) => ({
+        id: s.id,
+        material: s.material ?? '',
+        size: s.size ?? '',
+        length: s.length,
+        rise: s.id === 'riser' ? Number.NaN : s.rise,
+      })),
+    });
     const next = applySegmentTable(doc, v);
     expect('rise' in next.segments.find((s) => s.id === 'riser')!).toBe(false);
     // Document version 2: the riser's top node has its elevation, which places it; nothing is missing.

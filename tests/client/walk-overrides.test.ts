@@ -24,9 +24,24 @@ function viaRisers(doc: SystemDocument, change: (v: ReturnType<typeof risersForm
 
 /** An invented project tube (test data, not a product): inside diameters made up, roughness and C plausible for plastic. */
 const tube: ProjectEntryOf<'material'> = {
-  kind: 'material', id: '7b0a4a36-7d29-4a47-9d3e-0d6b8d2f3c11', label: 'Invented PE-RT tube', source: 'Invented sheet PR-7 (test)', fromMemory: false,
-  projectId: 'p', version: 1, createdBy: null, updatedAt: '2026-01-01T00:00:00.000Z',
-  data: { velocityClass: 'plastic', roughnessM: 0.0000015, hazenWilliamsC: 150, sizes: [{ key: '20 mm', innerDiameterM: 0.0162 }, { key: '25 mm', innerDiameterM: 0.0204 }] },
+  kind: 'material',
+  id: '7b0a4a36-7d29-4a47-9d3e-0d6b8d2f3c11',
+  label: 'Invented PE-RT tube',
+  source: 'Invented sheet PR-7 (test)',
+  fromMemory: false,
+  projectId: 'p',
+  version: 1,
+  createdBy: null,
+  updatedAt: '2026-01-01T00:00:00.000Z',
+  data: {
+    velocityClass: 'plastic',
+    roughnessM: 0.0000015,
+    hazenWilliamsC: 150,
+    sizes: [
+      { key: '20 mm', innerDiameterM: 0.0162 },
+      { key: '25 mm', innerDiameterM: 0.0204 },
+    ],
+  },
 };
 
 describe('segment overrides in the risers form', () => {
@@ -82,7 +97,11 @@ describe('segment overrides in the risers form', () => {
       v.nodes.find((n) => n.id === 'bath')!.fixtureGroups[0].demandCurve = 'flush-valve';
     });
     expect(parsed.success).toBe(true);
-    expect(next!.nodes.find((n) => n.id === 'bath')!.fixtureGroups[0]).toEqual({ fixtureTypeId: 'bathroom-group-flush-tank-private', count: 1, demandCurve: 'flush-valve' });
+    expect(next!.nodes.find((n) => n.id === 'bath')!.fixtureGroups[0]).toEqual({
+      fixtureTypeId: 'bathroom-group-flush-tank-private',
+      count: 1,
+      demandCurve: 'flush-valve',
+    });
     // Hunter's curves: at the same fixture units the flush-valve curve gives more flow (IPC 2018 Table E103.3(3))
     const flow = (d: SystemDocument) => analyzeSystem(d).segments.find((s) => s.id === 'to-bath')!.designFlow;
     expect(flow(next!)).toBeGreaterThan(flow(doc));
@@ -107,7 +126,16 @@ describe('project entries copied into the document', () => {
     expectClose(pipe.innerDiameter, 16.2, { rtol: 1e-12 }); // 0.0162 m in mm: a unit conversion only
     expectClose(pipe.roughness, 0.0015, { rtol: 1e-12 });
     expect(pipeFromProjectEntry(tube, '32 mm', 'SI')).toBeNull();
-    const v = segmentTableSchema.parse({ segments: doc.segments.map((s) => ({ id: s.id, material: s.id === 'riser' ? projectOptionValue(tube.id) : s.material, size: s.id === 'riser' ? '20 mm' : s.size, length: s.length, rise: s.rise, custom: s.id === 'riser' ? pipe : undefined })) });
+    const v = segmentTableSchema.parse({
+      segments: doc.segments.map((s) => ({
+        id: s.id,
+        material: s.id === 'riser' ? projectOptionValue(tube.id) : s.material,
+        size: s.id === 'riser' ? '20 mm' : s.size,
+        length: s.length,
+        rise: s.rise,
+        custom: s.id === 'riser' ? pipe : undefined,
+      })),
+    });
     const next = applySegmentTable(doc, v);
     const riser = next.segments.find((s) => s.id === 'riser')!;
     expect(riser.custom).toEqual(pipe);
@@ -124,13 +152,23 @@ describe('project entries copied into the document', () => {
     const bad = segmentTableSchema.safeParse({ segments: [{ id: 'riser', material: projectOptionValue(tube.id), size: '', length: 3, rise: 2.9 }] });
     expect(bad.error?.issues.map((i) => i.path.join('.'))).toEqual(['segments.0.size']);
     const withCustom = { ...doc, segments: doc.segments.map((s) => (s.id === 'riser' ? { ...s, custom: pipeFromProjectEntry(tube, '25 mm', 'SI')! } : s)) };
-    const v = segmentTableSchema.parse({ segments: withCustom.segments.map((s) => ({ id: s.id, material: 'pex-sdr9', size: s.size ?? '3/4', length: s.length, rise: s.rise })) });
+    const v = segmentTableSchema.parse({
+      segments: withCustom.segments.map((s) => ({ id: s.id, material: 'pex-sdr9', size: s.size ?? '3/4', length: s.length, rise: s.rise })),
+    });
     expect(applySegmentTable(withCustom, v).segments.find((s) => s.id === 'riser')).not.toHaveProperty('custom');
   });
 
   it('when a project device template is used, then its kind and points come over in the document’s units', () => {
     const t: ProjectEntryOf<'device-template'> = {
-      kind: 'device-template', id: 'e1', label: 'Invented filter', source: 'Invented curve (test)', fromMemory: false, projectId: 'p', version: 1, createdBy: null, updatedAt: '2026-01-01T00:00:00.000Z',
+      kind: 'device-template',
+      id: 'e1',
+      label: 'Invented filter',
+      source: 'Invented curve (test)',
+      fromMemory: false,
+      projectId: 'p',
+      version: 1,
+      createdBy: null,
+      updatedAt: '2026-01-01T00:00:00.000Z',
       data: { kind: 'filter', points: [{ flowM3s: 0.000063090196, lossPa: 6894.757 }] },
     };
     const us = deviceFromProjectTemplate(t, 'US');
@@ -145,18 +183,46 @@ describe('project entries copied into the document', () => {
   });
 
   it('when the catalog form is filled in US units, then the body is in SI; a missing diameter is named on the sizes box', () => {
-    const ok = entryBodyFromForm({ ...EMPTY_ENTRY_FORM, kind: 'material', label: 'Invented tube', source: 'Invented sheet', velocityClass: 'plastic', roughness: '0.00006', hazenWilliamsC: '150', sizes: 'size, inside\n3/4, 0.75\n1, 1.0' }, 'US');
+    const ok = entryBodyFromForm(
+      {
+        ...EMPTY_ENTRY_FORM,
+        kind: 'material',
+        label: 'Invented tube',
+        source: 'Invented sheet',
+        velocityClass: 'plastic',
+        roughness: '0.00006',
+        hazenWilliamsC: '150',
+        sizes: 'size, inside\n3/4, 0.75\n1, 1.0',
+      },
+      'US',
+    );
     expect(ok.ok).toBe(true);
     if (!ok.ok) return;
     const data = ok.body.data as { sizes: { key: string; innerDiameterM: number }[]; roughnessM: number };
     expect(data.sizes.map((s) => s.key)).toEqual(['3/4', '1']);
     expectClose(data.sizes[0].innerDiameterM, 0.75 * 0.0254, { rtol: 1e-12 }); // 1 in = 0.0254 m exactly
     expectClose(data.roughnessM, 0.00006 * 0.0254, { rtol: 1e-12 });
-    const bad = entryBodyFromForm({ ...EMPTY_ENTRY_FORM, kind: 'material', label: 'Invented tube', source: '', roughness: '0', hazenWilliamsC: '150', sizes: '3/4,' }, 'US');
+    const bad = entryBodyFromForm(
+      { ...EMPTY_ENTRY_FORM, kind: 'material', label: 'Invented tube', source: '', roughness: '0', hazenWilliamsC: '150', sizes: '3/4,' },
+      'US',
+    );
     expect(bad.ok).toBe(false);
     if (bad.ok) return;
     expect(Object.keys(bad.errors).sort()).toEqual(['sizes', 'source']);
-    const fixture = entryBodyFromForm({ ...EMPTY_ENTRY_FORM, kind: 'fixture-type', label: 'Invented fountain', source: 'Invented sheet', wsfuCold: '1', wsfuHot: '', wsfuTotal: '1', minFlowPressure: '8', flowRate: '0.5' }, 'US');
+    const fixture = entryBodyFromForm(
+      {
+        ...EMPTY_ENTRY_FORM,
+        kind: 'fixture-type',
+        label: 'Invented fountain',
+        source: 'Invented sheet',
+        wsfuCold: '1',
+        wsfuHot: '',
+        wsfuTotal: '1',
+        minFlowPressure: '8',
+        flowRate: '0.5',
+      },
+      'US',
+    );
     expect(fixture.ok && fixture.body.kind === 'fixture-type' && fixture.body.data.wsfu.hot).toBeNull();
   });
 });
@@ -172,9 +238,28 @@ describe('the floor-height helper', () => {
 
   it('when nodes are put on floors, then their elevations are filled, the connection takes its own, others keep theirs; the rises can follow', () => {
     const plan = { floors: 3, typicalHeight: 3.1, groundHeight: 4.2, groundLevel: 0, aboveFloor: 0.3 };
-    const nodes = [{ id: 'main', elevation: 0 }, { id: 'f1', elevation: 0 }, { id: 'f3', elevation: 0 }, { id: 'loose', elevation: 9 }];
-    const next = elevationsFromFloors(nodes, new Map([['f1', 1], ['f3', 3], ['main', 2]]), plan, { nodeId: 'main', elevation: -1.2 });
-    expect(next).toEqual([{ id: 'main', elevation: -1.2 }, { id: 'f1', elevation: 0.3 }, { id: 'f3', elevation: 7.6 }, { id: 'loose', elevation: 9 }]);
+    const nodes = [
+      { id: 'main', elevation: 0 },
+      { id: 'f1', elevation: 0 },
+      { id: 'f3', elevation: 0 },
+      { id: 'loose', elevation: 9 },
+    ];
+    const next = elevationsFromFloors(
+      nodes,
+      new Map([
+        ['f1', 1],
+        ['f3', 3],
+        ['main', 2],
+      ]),
+      plan,
+      { nodeId: 'main', elevation: -1.2 },
+    );
+    expect(next).toEqual([
+      { id: 'main', elevation: -1.2 },
+      { id: 'f1', elevation: 0.3 },
+      { id: 'f3', elevation: 7.6 },
+      { id: 'loose', elevation: 9 },
+    ]);
     expect(floorOf(7.6, floorLevels(plan), 0.3)).toBe(3);
     expect(floorOf(7.29, floorLevels(plan), 0.3)).toBe(2);
     expect(floorOf(-2, floorLevels(plan))).toBe(1);
@@ -183,9 +268,29 @@ describe('the floor-height helper', () => {
 
 describe('risers form: a fixture group whose usage boxes are left empty', () => {
   it('when the three usage inputs are empty (undefined from the number boxes), then the group still reaches the draft, without usage', () => {
-    const segment = { id: 's', label: '', from: 'a', to: 'b', material: 'copper-l', size: '3/4', length: 10, rise: 0, custom: { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: '' }, flowOverride: undefined };
-    const group = { fixtureTypeId: 'lavatory-private', count: 6, demandCurve: '', wsfuBasis: '', usage: { flow: undefined, durationSeconds: undefined, recurrenceSeconds: undefined } };
-    const parsed = risersFormSchema.safeParse({ segments: [segment], nodes: [{ id: 'b', label: '', elevation: 0, continuousDemand: undefined, fixtureGroups: [group] }] });
+    const segment = {
+      id: 's',
+      label: '',
+      from: 'a',
+      to: 'b',
+      material: 'copper-l',
+      size: '3/4',
+      length: 10,
+      rise: 0,
+      custom: { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: '' },
+      flowOverride: undefined,
+    };
+    const group = {
+      fixtureTypeId: 'lavatory-private',
+      count: 6,
+      demandCurve: '',
+      wsfuBasis: '',
+      usage: { flow: undefined, durationSeconds: undefined, recurrenceSeconds: undefined },
+    };
+    const parsed = risersFormSchema.safeParse({
+      segments: [segment],
+      nodes: [{ id: 'b', label: '', elevation: 0, continuousDemand: undefined, fixtureGroups: [group] }],
+    });
     expect(parsed.success).toBe(true);
     expect(parsed.data?.nodes[0].fixtureGroups).toEqual([{ fixtureTypeId: 'lavatory-private', count: 6 }]);
   });

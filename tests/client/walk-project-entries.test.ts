@@ -30,18 +30,38 @@ const house = (): SystemDocument =>
 
 const base = { fromMemory: false as const, projectId: 'p', version: 1, createdBy: null, updatedAt: '2026-01-01T00:00:00.000Z' };
 /** An invented project valve (test data): K 2.5. */
-const valve: ProjectEntryOf<'fitting-type'> = { ...base, kind: 'fitting-type', id: '0d7e3c1a-5b8f-4c2e-9a61-3f4b2d1c0e9a', label: 'Invented check valve', source: 'Invented sheet CV-2 (test)', data: { k: 2.5 } };
+const valve: ProjectEntryOf<'fitting-type'> = {
+  ...base,
+  kind: 'fitting-type',
+  id: '0d7e3c1a-5b8f-4c2e-9a61-3f4b2d1c0e9a',
+  label: 'Invented check valve',
+  source: 'Invented sheet CV-2 (test)',
+  data: { k: 2.5 },
+};
 const group = FIXTURE_TYPES['bathroom-group-flush-tank-private'];
 /** An invented project fixture type with the seeded bathroom group's numbers. */
 const bath: ProjectEntryOf<'fixture-type'> = {
-  ...base, kind: 'fixture-type', id: '5c2d9e4f-1a3b-4c6d-8e7f-9a0b1c2d3e4f', label: 'Invented bath suite', source: 'Invented sheet BS-1 (test)',
-  data: { occupancy: 'private', demandCurve: group.demandCurve, wsfu: { ...group.wsfu }, minFlowPressurePa: group.minFlowPressurePa, flowRateM3s: group.flowRateM3s },
+  ...base,
+  kind: 'fixture-type',
+  id: '5c2d9e4f-1a3b-4c6d-8e7f-9a0b1c2d3e4f',
+  label: 'Invented bath suite',
+  source: 'Invented sheet BS-1 (test)',
+  data: {
+    occupancy: 'private',
+    demandCurve: group.demandCurve,
+    wsfu: { ...group.wsfu },
+    minFlowPressurePa: group.minFlowPressurePa,
+    flowRateM3s: group.flowRateM3s,
+  },
 };
 
 function withProjectValve(doc: SystemDocument, entries: readonly ProjectEntryOf<'fitting-type'>[], rowExtra: object = {}) {
   const v = fittingsFormSchema.parse({
     fittingMethod: 'crane',
-    segments: doc.segments.map((s) => ({ id: s.id, fittings: s.id === 'to-bath' ? [...s.fittings, { typeId: projectOptionValue(valve.id), count: 2, ...rowExtra }] : s.fittings })),
+    segments: doc.segments.map((s) => ({
+      id: s.id,
+      fittings: s.id === 'to-bath' ? [...s.fittings, { typeId: projectOptionValue(valve.id), count: 2, ...rowExtra }] : s.fittings,
+    })),
   });
   return applyFittings(doc, v, entries);
 }
@@ -72,8 +92,16 @@ describe('project fitting types in the fittings step', () => {
     const doc = house();
     const copied = fittingFromProjectEntry(valve);
     const changed = { ...valve, data: { k: 9 } };
-    expect(withProjectValve(doc, [changed], { custom: copied }).segments.find((s) => s.id === 'to-bath')!.fittings.at(-1)!.custom).toEqual(copied);
-    expect(withProjectValve(doc, [], { custom: copied }).segments.find((s) => s.id === 'to-bath')!.fittings.at(-1)!.custom).toEqual(copied);
+    expect(
+      withProjectValve(doc, [changed], { custom: copied })
+        .segments.find((s) => s.id === 'to-bath')!
+        .fittings.at(-1)!.custom,
+    ).toEqual(copied);
+    expect(
+      withProjectValve(doc, [], { custom: copied })
+        .segments.find((s) => s.id === 'to-bath')!
+        .fittings.at(-1)!.custom,
+    ).toEqual(copied);
   });
 
   it('a seeded row carries no project data unless the document gave it some; a project row with no entry and no copy stays unresolved', () => {
@@ -98,7 +126,14 @@ describe('project fitting types in the fittings step', () => {
 
 describe('project fixture types in the risers step', () => {
   it('copy their fixture units and demand curve; an absent service value stays absent', () => {
-    expect(fixtureFromProjectEntry(bath)).toEqual({ label: 'Invented bath suite', wsfuCold: group.wsfu.cold, wsfuHot: group.wsfu.hot, wsfuTotal: group.wsfu.total, flushValve: false, source: 'Invented sheet BS-1 (test)' });
+    expect(fixtureFromProjectEntry(bath)).toEqual({
+      label: 'Invented bath suite',
+      wsfuCold: group.wsfu.cold,
+      wsfuHot: group.wsfu.hot,
+      wsfuTotal: group.wsfu.total,
+      flushValve: false,
+      source: 'Invented sheet BS-1 (test)',
+    });
     const coldOnly = { ...bath, data: { ...bath.data, demandCurve: 'flush-valve' as const, wsfu: { cold: 5, hot: null, total: 5 } } };
     const own = fixtureFromProjectEntry(coldOnly);
     expect(own).not.toHaveProperty('wsfuHot');
@@ -128,6 +163,10 @@ describe('project fixture types in the risers step', () => {
   it('a seeded group gets no project data; a group that has some keeps it, whatever its type id', () => {
     expect(groupWithProjectData({ fixtureTypeId: 'lavatory-private', count: 2 }, [bath])).toEqual({ fixtureTypeId: 'lavatory-private', count: 2 });
     const own = fixtureFromProjectEntry(bath);
-    expect(groupWithProjectData({ fixtureTypeId: 'lavatory-private', count: 2, custom: own }, [])).toEqual({ fixtureTypeId: 'lavatory-private', count: 2, custom: own });
+    expect(groupWithProjectData({ fixtureTypeId: 'lavatory-private', count: 2, custom: own }, [])).toEqual({
+      fixtureTypeId: 'lavatory-private',
+      count: 2,
+      custom: own,
+    });
   });
 });

@@ -20,7 +20,17 @@ const EXAMPLES: Record<string, unknown>[] = fs
   .map((f) => JSON.parse(fs.readFileSync(path.join(examplesDir, f), 'utf8')));
 
 /** Codes whose error is about one element: it must say which. */
-const ELEMENT_CODES = new Set(['duplicate-id', 'unknown-node', 'unknown-segment', 'cycle', 'multiple-feeds', 'disconnected-segment', 'disconnected-node', 'self-loop', 'non-positive-length']);
+const ELEMENT_CODES = new Set([
+  'duplicate-id',
+  'unknown-node',
+  'unknown-segment',
+  'cycle',
+  'multiple-feeds',
+  'disconnected-segment',
+  'disconnected-node',
+  'self-loop',
+  'non-positive-length',
+]);
 
 function deep(depth: number): unknown {
   let v: unknown = [];
@@ -34,7 +44,35 @@ const selfReferencing = () => {
 };
 
 const nastyValue = fc.oneof(
-  fc.constantFrom<unknown>(NaN, Infinity, -Infinity, -0, 0, -1, 1e308, -1e308, 5e-324, 2 ** 53 + 2, 1e21, '12', '-1', 'NaN', 'Infinity', '1e309', '', ' ', '\u0000', '\ud800', '\u202e', null, undefined, true, [], {}, 10n),
+  fc.constantFrom<unknown>(
+    NaN,
+    Infinity,
+    -Infinity,
+    -0,
+    0,
+    -1,
+    1e308,
+    -1e308,
+    5e-324,
+    2 ** 53 + 2,
+    1e21,
+    '12',
+    '-1',
+    'NaN',
+    'Infinity',
+    '1e309',
+    '',
+    ' ',
+    '\u0000',
+    '\ud800',
+    '\u202e',
+    null,
+    undefined,
+    true,
+    [],
+    {},
+    10n,
+  ),
   fc.double(),
   fc.integer(),
   fc.string({ unit: 'binary', maxLength: 20 }),
@@ -190,7 +228,9 @@ function checkOutcome(doc: unknown) {
 
 const base = fc.oneof(
   fc.constantFrom(...EXAMPLES),
-  fc.record({ seed: fc.integer({ min: 1, max: 1e9 }), segments: fc.integer({ min: 1, max: 40 }) }).map(({ seed, segments }) => generateRandomTree(mulberry32(seed), { segments }) as unknown as Record<string, unknown>),
+  fc
+    .record({ seed: fc.integer({ min: 1, max: 1e9 }), segments: fc.integer({ min: 1, max: 40 }) })
+    .map(({ seed, segments }) => generateRandomTree(mulberry32(seed), { segments }) as unknown as Record<string, unknown>),
 );
 
 describe('safeAnalyzeSystem on generated bad documents', () => {
@@ -202,11 +242,14 @@ describe('safeAnalyzeSystem on generated bad documents', () => {
   });
 
   it('when the input is not a document at all, then it is a structured error', () => {
-    fc.assert(fc.property(nastyValue, (v) => {
-      const r = safeAnalyzeSystem(v);
-      expect(r.ok).toBe(false);
-      checkOutcome(v);
-    }), { numRuns: 500 });
+    fc.assert(
+      fc.property(nastyValue, (v) => {
+        const r = safeAnalyzeSystem(v);
+        expect(r.ok).toBe(false);
+        checkOutcome(v);
+      }),
+      { numRuns: 500 },
+    );
   });
 
   it('when every structural mutation is applied to every example, then each gives its structured error', () => {

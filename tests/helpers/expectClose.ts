@@ -10,12 +10,7 @@ export interface CloseTolerance {
   atol?: number;
 }
 
-export function expectClose(
-  actual: number,
-  expected: number,
-  tolerance: CloseTolerance,
-  label?: string,
-): void {
+export function expectClose(actual: number, expected: number, tolerance: CloseTolerance, label?: string): void {
   const { rtol, atol = 0 } = tolerance;
   const name = label ? `${label}: ` : '';
   if (!Number.isFinite(rtol) || rtol < 0 || !Number.isFinite(atol) || atol < 0) {

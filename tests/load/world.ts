@@ -39,7 +39,11 @@ export async function startCluster(name: string): Promise<Cluster> {
   pg.startCluster(bin, data);
   pg.createDatabase(bin, port, `headroom_${name}`);
   const url = pg.databaseUrl(port, `headroom_${name}`);
-  const setup = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'setup'], { cwd: root, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8' });
+  const setup = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'setup'], {
+    cwd: root,
+    env: { ...process.env, DATABASE_URL: url },
+    encoding: 'utf8',
+  });
   if (setup.status !== 0) throw new Error(`database setup failed: ${setup.stdout}${setup.stderr}`);
   let destroyed = false;
   return {
@@ -150,7 +154,14 @@ export function demoDocument(): Record<string, unknown> {
 export async function makeUsers(db: Db, baseUrl: string, count: number, document = demoDocument): Promise<LoadUser[]> {
   const hash = await hashPassword(LOAD_PASSWORD);
   const run = randomUUID().slice(0, 8);
-  const rows = Array.from({ length: count }, (_, i) => ({ email: `load-${run}-${i}@test.example`, name: `Load ${i}`, account_role: 'designer', status: 'active', password_hash: hash, is_admin: false }));
+  const rows = Array.from({ length: count }, (_, i) => ({
+    email: `load-${run}-${i}@test.example`,
+    name: `Load ${i}`,
+    account_role: 'designer',
+    status: 'active',
+    password_hash: hash,
+    is_admin: false,
+  }));
   await db('users').insert(rows);
   const users: LoadUser[] = [];
   // ten at a time: sign-in hashes are deliberately slow
@@ -160,7 +171,8 @@ export async function makeUsers(db: Db, baseUrl: string, count: number, document
         rows.slice(i, i + 10).map(async ({ email }) => {
           const client = await new UrlClient(baseUrl).signIn(email, LOAD_PASSWORD);
           const project = (await want(client.send('POST', '/api/projects', { name: `Load ${email}` }), 201)).body.project;
-          const created = (await want(client.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: document() }), 201)).body;
+          const created = (await want(client.send('POST', `/api/projects/${project.id}/systems`, { name: 'Cold', service: 'cold', document: document() }), 201))
+            .body;
           const system = `/api/projects/${project.id}/systems/${created.system.id}`;
           const revision = `${system}/revisions/${created.revision.id}`;
           return {

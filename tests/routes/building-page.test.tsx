@@ -29,7 +29,13 @@ const TYPE: UnitType = {
   name: 'Apartment A',
   nodes: [
     { id: 'unit-manifold', label: 'unit manifold', heightAboveFloor: 0, fixtureGroups: [], checkedFixtures: [] },
-    { id: 'shower', label: 'shower', heightAboveFloor: 6.5, fixtureGroups: [{ fixtureTypeId: 'shower-private', count: 1 }], checkedFixtures: [{ id: 'shower', fixtureTypeId: 'shower-private' }] },
+    {
+      id: 'shower',
+      label: 'shower',
+      heightAboveFloor: 6.5,
+      fixtureGroups: [{ fixtureTypeId: 'shower-private', count: 1 }],
+      checkedFixtures: [{ id: 'shower', fixtureTypeId: 'shower-private' }],
+    },
   ],
   segments: [
     { id: 'branch', from: 'inlet', to: 'unit-manifold', material: 'pex-sdr9', size: '1', length: 10, fittings: [] },

@@ -36,7 +36,13 @@ describe('fixture schedules on the building page', () => {
     fireEvent.change(box, { target: { value: good } });
     await user.click(screen.getByRole('button', { name: 'Preview the schedule' }));
     await user.click(await screen.findByRole('button', { name: 'Apply 2 rows' }));
-    await waitFor(() => expect(fixtureSelects().map((s) => s.value).filter(Boolean)).toEqual(['lavatory-private', 'water-closet-flush-tank-private']));
+    await waitFor(() =>
+      expect(
+        fixtureSelects()
+          .map((s) => s.value)
+          .filter(Boolean),
+      ).toEqual(['lavatory-private', 'water-closet-flush-tank-private']),
+    );
     expect(world.saves()).toHaveLength(0);
   }, 60_000);
 
@@ -55,14 +61,53 @@ describe('fixture schedules on the building page', () => {
   }, 60_000);
 
   it('when unit types are exported, then the same import reads every row back to the same fixtures and counts', () => {
-    const types: UnitTypeForm[] = [{
-      id: 'apt', name: 'Apartment B',
-      rows: [
-        { key: 'm', name: 'manifold', from: 'inlet', heightAboveFloor: 8, fixtureTypeId: '', count: 1, checked: false, material: 'pex-sdr9', size: '1', length: 10, fittings: [] },
-        { key: 'w', name: 'wc', from: 'm', heightAboveFloor: 1, fixtureTypeId: 'water-closet-flush-tank-private', count: 2, checked: false, material: 'pex-sdr9', size: '1/2', length: 12, fittings: [] },
-        { key: 's', name: 'shower', from: 'm', heightAboveFloor: 6.5, fixtureTypeId: 'shower-private', count: 1, checked: true, material: 'pex-sdr9', size: '1/2', length: 18, fittings: [] },
-      ],
-    }];
+    const types: UnitTypeForm[] = [
+      {
+        id: 'apt',
+        name: 'Apartment B',
+        rows: [
+          {
+            key: 'm',
+            name: 'manifold',
+            from: 'inlet',
+            heightAboveFloor: 8,
+            fixtureTypeId: '',
+            count: 1,
+            checked: false,
+            material: 'pex-sdr9',
+            size: '1',
+            length: 10,
+            fittings: [],
+          },
+          {
+            key: 'w',
+            name: 'wc',
+            from: 'm',
+            heightAboveFloor: 1,
+            fixtureTypeId: 'water-closet-flush-tank-private',
+            count: 2,
+            checked: false,
+            material: 'pex-sdr9',
+            size: '1/2',
+            length: 12,
+            fittings: [],
+          },
+          {
+            key: 's',
+            name: 'shower',
+            from: 'm',
+            heightAboveFloor: 6.5,
+            fixtureTypeId: 'shower-private',
+            count: 1,
+            checked: true,
+            material: 'pex-sdr9',
+            size: '1/2',
+            length: 18,
+            fittings: [],
+          },
+        ],
+      },
+    ];
     const back = previewSchedule(exportSchedule(types), types);
     expect(back.fileErrors).toEqual([]);
     expect(back.rows.map((r) => [r.unitTypeId, r.fixtureTypeId, r.count, r.heightAboveFloor, r.length, r.size, r.checked, r.error])).toEqual([

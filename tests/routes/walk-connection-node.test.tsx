@@ -24,35 +24,39 @@ const withConnectionFixtures = (doc: SystemDocument, fixtureTypeId: string, coun
 });
 
 describe('the connection node in the pipe step', () => {
-  it('when fixtures are added at the connection, then they and its name reach the draft, and the live margin is the engine’s on the edited document', { timeout: 120_000 }, async () => {
-    const world = fakeApi();
-    const { user } = await renderWalk(world, stepHref(world, 'risers'));
-    await screen.findByTestId('step-risers', {}, CATCH_UP);
-    const section = screen.getByTestId('connection-node');
-    expect(section.textContent).toContain(sourceLabel);
-    expect(section.textContent).toContain('no fixtures');
-    await user.click(within(section).getByText(/At the connection/));
-    await user.click(within(section).getByRole('button', { name: `Add fixtures at ${sourceLabel}` }));
-    await user.selectOptions(field(`${sourceLabel}: fixture group 1 type`), 'hose-bibb');
-    const count = field(`${sourceLabel}: fixture group 1 count`);
-    await user.clear(count);
-    await user.type(count, '3');
+  it(
+    'when fixtures are added at the connection, then they and its name reach the draft, and the live margin is the engine’s on the edited document',
+    { timeout: 120_000 },
+    async () => {
+      const world = fakeApi();
+      const { user } = await renderWalk(world, stepHref(world, 'risers'));
+      await screen.findByTestId('step-risers', {}, CATCH_UP);
+      const section = screen.getByTestId('connection-node');
+      expect(section.textContent).toContain(sourceLabel);
+      expect(section.textContent).toContain('no fixtures');
+      await user.click(within(section).getByText(/At the connection/));
+      await user.click(within(section).getByRole('button', { name: `Add fixtures at ${sourceLabel}` }));
+      await user.selectOptions(field(`${sourceLabel}: fixture group 1 type`), 'hose-bibb');
+      const count = field(`${sourceLabel}: fixture group 1 count`);
+      await user.clear(count);
+      await user.type(count, '3');
 
-    await waitFor(() => expect(shownMargin()).toBe(expectedMarginText(withConnectionFixtures(demo, 'hose-bibb', 3))), CATCH_UP);
-    await waitFor(() => {
-      const saved = (world.saves().at(-1)?.body as { document: SystemDocument } | undefined)?.document;
-      expect(saved?.nodes.find((n) => n.id === sourceId)?.fixtureGroups).toEqual([{ fixtureTypeId: 'hose-bibb', count: 3 }]);
-    }, SAVE_WAIT);
-    expect(section.textContent).toContain('1 fixture group');
-    // its name is edited here too
-    const name = field(`Name of node ${sourceId}`);
-    await user.clear(name);
-    await user.type(name, 'Main at the curb');
-    await waitFor(() => {
-      const saved = (world.saves().at(-1)?.body as { document: SystemDocument } | undefined)?.document;
-      expect(saved?.nodes.find((n) => n.id === sourceId)?.label).toBe('Main at the curb');
-    }, SAVE_WAIT);
-    expect(section.textContent).toContain('At the connection (Main at the curb)');
-    expect(world.unknown).toEqual([]);
-  });
+      await waitFor(() => expect(shownMargin()).toBe(expectedMarginText(withConnectionFixtures(demo, 'hose-bibb', 3))), CATCH_UP);
+      await waitFor(() => {
+        const saved = (world.saves().at(-1)?.body as { document: SystemDocument } | undefined)?.document;
+        expect(saved?.nodes.find((n) => n.id === sourceId)?.fixtureGroups).toEqual([{ fixtureTypeId: 'hose-bibb', count: 3 }]);
+      }, SAVE_WAIT);
+      expect(section.textContent).toContain('1 fixture group');
+      // its name is edited here too
+      const name = field(`Name of node ${sourceId}`);
+      await user.clear(name);
+      await user.type(name, 'Main at the curb');
+      await waitFor(() => {
+        const saved = (world.saves().at(-1)?.body as { document: SystemDocument } | undefined)?.document;
+        expect(saved?.nodes.find((n) => n.id === sourceId)?.label).toBe('Main at the curb');
+      }, SAVE_WAIT);
+      expect(section.textContent).toContain('At the connection (Main at the curb)');
+      expect(world.unknown).toEqual([]);
+    },
+  );
 });

@@ -30,22 +30,26 @@ describe('an issued revision', () => {
     ['supply', 'Supply', `Static pressure, low (${u.pressure})`, String(demo.source.staticPressureLow)],
     ['fittings', 'Fittings', `${serviceName}: fitting 1 count`, String(service.fittings[0].count)],
     ['risers', 'Risers', `${serviceName} length (${u.length})`, String(service.length)],
-  // the demo's risers step is the heaviest page in jsdom (every segment card with its flags and buttons): ~55 s alone on the shared machine
-  ] as const)('when its %s step is opened, then the read-only note shows, every input is disabled and no save is offered', { timeout: 150_000 }, async (step, formName, label, value) => {
-    const world = fakeApi({ status: 'issued' });
-    const { user } = await renderWalk(world, stepHref(world, step));
-    await screen.findByTestId(`step-${step}`, {}, { timeout: 10_000 });
-    expect(screen.getByTestId('read-only-note').textContent).toContain('Revision 3 is issued: it never changes.');
-    expect(screen.getByRole('button', { name: 'Start a new draft from this revision' })).toBeTruthy();
-    expect(screen.queryByTestId('save-state')).toBeNull();
-    for (const control of controlsOf(formName)) expect(control.matches(':disabled')).toBe(true);
-    // the issued values are shown, and typing does not change them
-    expect(field(label).value).toBe(value);
-    await user.type(field(label), '9');
-    expect(field(label).value).toBe(value);
-    expect(shownMargin()).toBe(expectedMarginText(demo));
-    expect(world.saves()).toHaveLength(0);
-  });
+    // the demo's risers step is the heaviest page in jsdom (every segment card with its flags and buttons): ~55 s alone on the shared machine
+  ] as const)(
+    'when its %s step is opened, then the read-only note shows, every input is disabled and no save is offered',
+    { timeout: 150_000 },
+    async (step, formName, label, value) => {
+      const world = fakeApi({ status: 'issued' });
+      const { user } = await renderWalk(world, stepHref(world, step));
+      await screen.findByTestId(`step-${step}`, {}, { timeout: 10_000 });
+      expect(screen.getByTestId('read-only-note').textContent).toContain('Revision 3 is issued: it never changes.');
+      expect(screen.getByRole('button', { name: 'Start a new draft from this revision' })).toBeTruthy();
+      expect(screen.queryByTestId('save-state')).toBeNull();
+      for (const control of controlsOf(formName)) expect(control.matches(':disabled')).toBe(true);
+      // the issued values are shown, and typing does not change them
+      expect(field(label).value).toBe(value);
+      await user.type(field(label), '9');
+      expect(field(label).value).toBe(value);
+      expect(shownMargin()).toBe(expectedMarginText(demo));
+      expect(world.saves()).toHaveLength(0);
+    },
+  );
 
   it('when its segment table is opened, then the table’s inputs are disabled too', async () => {
     const world = fakeApi({ status: 'issued' });

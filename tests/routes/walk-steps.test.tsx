@@ -92,31 +92,34 @@ function stepNavLinks() {
 const current = () => stepNavLinks().filter((a) => a.getAttribute('aria-current') === 'page');
 
 describe('each step of the walk at its own address', () => {
-  it.each(WALK_STEPS.map((s, i) => [s.id, s, i] as const))('when %s is opened, then it shows its heading, the demo’s values, the current step and its neighbours', async (_id, step, i) => {
-    const world = fakeApi();
-    await renderWalk(world, stepHref(world, step.id));
-    expect(await screen.findByRole('heading', { level: 2, name: step.label }, { timeout: 10_000 })).toBeTruthy();
-    expect(screen.getByTestId(`step-${step.id}`)).toBeTruthy();
-    await SHOWS[step.id](analysis, doc);
+  it.each(WALK_STEPS.map((s, i) => [s.id, s, i] as const))(
+    'when %s is opened, then it shows its heading, the demo’s values, the current step and its neighbours',
+    async (_id, step, i) => {
+      const world = fakeApi();
+      await renderWalk(world, stepHref(world, step.id));
+      expect(await screen.findByRole('heading', { level: 2, name: step.label }, { timeout: 10_000 })).toBeTruthy();
+      expect(screen.getByTestId(`step-${step.id}`)).toBeTruthy();
+      await SHOWS[step.id](analysis, doc);
 
-    // the live ledger is the engine's ledger to the critical fixture
-    expect(shownMargin()).toBe(expectedMarginText(doc));
+      // the live ledger is the engine's ledger to the critical fixture
+      expect(shownMargin()).toBe(expectedMarginText(doc));
 
-    // the step navigation marks this step, and only it
-    const marked = current();
-    expect(marked).toHaveLength(1);
-    expect(marked[0].textContent).toContain(step.label);
-    expect(marked[0].getAttribute('href')).toBe(stepHref(world, step.id));
+      // the step navigation marks this step, and only it
+      const marked = current();
+      expect(marked).toHaveLength(1);
+      expect(marked[0].textContent).toContain(step.label);
+      expect(marked[0].getAttribute('href')).toBe(stepHref(world, step.id));
 
-    // previous and next go to the neighbouring steps' addresses
-    const around = within(screen.getByRole('navigation', { name: 'Previous and next step' }));
-    const prev = WALK_STEPS[i - 1];
-    const next = WALK_STEPS[i + 1];
-    if (prev) expect(around.getByRole('link', { name: `← ${prev.label}` }).getAttribute('href')).toBe(stepHref(world, prev.id));
-    if (next) expect(around.getByRole('link', { name: `Next: ${next.label} →` }).getAttribute('href')).toBe(stepHref(world, next.id));
-    expect(around.queryAllByRole('link')).toHaveLength((prev ? 1 : 0) + (next ? 1 : 0));
-    expect(world.unknown).toEqual([]);
-  });
+      // previous and next go to the neighbouring steps' addresses
+      const around = within(screen.getByRole('navigation', { name: 'Previous and next step' }));
+      const prev = WALK_STEPS[i - 1];
+      const next = WALK_STEPS[i + 1];
+      if (prev) expect(around.getByRole('link', { name: `← ${prev.label}` }).getAttribute('href')).toBe(stepHref(world, prev.id));
+      if (next) expect(around.getByRole('link', { name: `Next: ${next.label} →` }).getAttribute('href')).toBe(stepHref(world, next.id));
+      expect(around.queryAllByRole('link')).toHaveLength((prev ? 1 : 0) + (next ? 1 : 0));
+      expect(world.unknown).toEqual([]);
+    },
+  );
 
   it('when the previous and next links are followed, then the router lands on those steps', async () => {
     const world = fakeApi();
@@ -176,7 +179,9 @@ describe('the segment table and the riser diagram', () => {
     const svg = screen.getByTestId('riser-diagram');
     expect(svg.querySelector('title')?.textContent).toBe(`Riser diagram of ${doc.name}`);
     const passing = analysis.fixtures.filter((f) => f.pass).length;
-    expect(svg.querySelector('desc')?.textContent).toContain(`${analysis.fixtures.length} checked fixtures, ${passing} pass and ${analysis.fixtures.length - passing} fail`);
+    expect(svg.querySelector('desc')?.textContent).toContain(
+      `${analysis.fixtures.length} checked fixtures, ${passing} pass and ${analysis.fixtures.length - passing} fail`,
+    );
     for (const f of analysis.fixtures) {
       const label = screen.getByTestId(`diagram-fixture-${f.id}`).textContent ?? '';
       expect(label).toContain(`${f.label}: ${signed(f.margin, 1)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);

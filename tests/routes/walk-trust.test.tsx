@@ -25,7 +25,10 @@ const serviceName = service.label || service.id;
 const lengthLabel = `${serviceName} length (${u.length})`;
 const SAVE_WAIT = { timeout: AUTOSAVE_DELAY_MS + 10_000 };
 const CATCH_UP = { timeout: 15_000 };
-const withServiceLength = (doc: SystemDocument, length: number): SystemDocument => ({ ...doc, segments: doc.segments.map((s, i) => (i === 0 ? { ...s, length } : s)) });
+const withServiceLength = (doc: SystemDocument, length: number): SystemDocument => ({
+  ...doc,
+  segments: doc.segments.map((s, i) => (i === 0 ? { ...s, length } : s)),
+});
 const sent = (world: FakeApi, i: number) => SaveDocumentBody.parse(world.saves()[i].body);
 const tableHref = (world: FakeApi) => walkPaths.table.getHref(world.ids.projectId, world.ids.systemId, world.ids.revisionId);
 const saveText = () => screen.getByTestId('save-state').textContent ?? '';
@@ -125,7 +128,9 @@ describe('nothing lost', () => {
     const { user } = await renderWalk(world, stepHref(world, 'risers'));
     await screen.findByTestId('step-risers', {}, CATCH_UP);
     // a leaf segment whose end node has checked fixtures: removing it takes them with it
-    const target = demo.segments.find((s) => !demo.segments.some((t) => t.from === s.to) && (demo.nodes.find((n) => n.id === s.to)?.checkedFixtures.length ?? 0) > 0)!;
+    const target = demo.segments.find(
+      (s) => !demo.segments.some((t) => t.from === s.to) && (demo.nodes.find((n) => n.id === s.to)?.checkedFixtures.length ?? 0) > 0,
+    )!;
     const node = demo.nodes.find((n) => n.id === target.to)!;
     const name = target.label || target.id;
     // the tree editor: the row's details (where Remove is) open under it when it is opened

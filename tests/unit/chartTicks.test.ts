@@ -5,10 +5,20 @@ import { axisTicks, niceStep } from '../../server/pdf/chart';
 // practice for chart axes). Exact comparisons: the ticks are k × step, never a running sum.
 describe('the profile chart ticks at round values', () => {
   it('when spans of several sizes are ticked, then each step is 1, 2 or 5 times a power of ten', () => {
-    for (const [span, target] of [[0.37, 5], [3.3, 5], [68, 5], [142.7, 6], [1234, 6], [9.99, 4]] as const) {
+    for (const [span, target] of [
+      [0.37, 5],
+      [3.3, 5],
+      [68, 5],
+      [142.7, 6],
+      [1234, 6],
+      [9.99, 4],
+    ] as const) {
       const step = niceStep(span, target);
       const mantissa = step / 10 ** Math.floor(Math.log10(step) + 1e-12);
-      expect([1, 2, 5].some((m) => Math.abs(mantissa - m) < 1e-9), `step ${step} for span ${span}`).toBe(true);
+      expect(
+        [1, 2, 5].some((m) => Math.abs(mantissa - m) < 1e-9),
+        `step ${step} for span ${span}`,
+      ).toBe(true);
       // about `target` intervals: never more than 2.5 times as many (the 1 → 2 → 5 gaps)
       expect(span / step).toBeLessThanOrEqual(target);
       expect(span / step).toBeGreaterThan(target / 5);

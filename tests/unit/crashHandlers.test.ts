@@ -14,7 +14,11 @@ function runWithHandlers(body: string) {
   return spawnSync(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { cwd: root, encoding: 'utf8', timeout: 60_000 });
 }
 
-const lines = (out: string) => out.split('\n').filter(Boolean).map((l) => JSON.parse(l) as { level: number; msg: string; err?: { message: string; stack: string } });
+const lines = (out: string) =>
+  out
+    .split('\n')
+    .filter(Boolean)
+    .map((l) => JSON.parse(l) as { level: number; msg: string; err?: { message: string; stack: string } });
 
 describe('process-level failures', () => {
   it('when a promise is rejected with nobody to catch it, then the process logs it as fatal with its stack, runs its stop and exits 1', () => {

@@ -19,7 +19,7 @@ describe('field change transition table', () => {
 
   it('when the states are walked from a draft, then every state is reached and only accepted and declined are final', () => {
     const reached = new Set<string>(['draft']);
-    for (let changed = true; changed; ) {
+    for (let changed = true; changed;) {
       changed = false;
       for (const t of all) {
         if (reached.has(t.from) && !reached.has(t.to)) {

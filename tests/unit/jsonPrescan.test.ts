@@ -34,7 +34,14 @@ describe('bounds checked on the JSON text before it is parsed', () => {
 
   it('when the only list over the bound is found, then the scan and the walk name the same place', () => {
     const bounds = { maxArrayItems: 3, maxObjectKeys: 50 };
-    const value = { document: { nodes: [{ id: 'a', fixtureGroups: [1, 2] }, { id: 'b', fixtureGroups: [1, 2, 3, 4] }] } };
+    const value = {
+      document: {
+        nodes: [
+          { id: 'a', fixtureGroups: [1, 2] },
+          { id: 'b', fixtureGroups: [1, 2, 3, 4] },
+        ],
+      },
+    };
     // the same place; the walk can say how many items there were, the scan stops counting at one too many
     expect(scan(JSON.stringify(value), bounds)?.[0]).toBe('document.nodes.1.fixtureGroups');
     expect(firstOverBound(value, bounds)?.[0]).toBe('document.nodes.1.fixtureGroups');

@@ -93,7 +93,9 @@ describe('the riser diagram on paper', () => {
       }
     }
     // legible: neighbouring drops of a tile stand at least the minimum column width apart
-    const xs = [...new Set(sheets[0].items.filter((i) => i.type === 'line' && i.weight === 'pipe' && i.x1 === i.x2).map((i) => (i as { x1: number }).x1))].sort((p, q) => p - q);
+    const xs = [...new Set(sheets[0].items.filter((i) => i.type === 'line' && i.weight === 'pipe' && i.x1 === i.x2).map((i) => (i as { x1: number }).x1))].sort(
+      (p, q) => p - q,
+    );
     expect(xs.length).toBeGreaterThan(10);
     for (let k = 1; k < xs.length; k++) expect(xs[k] - xs[k - 1]).toBeGreaterThanOrEqual(MIN_COLUMN_PT - 0.01);
     expect(d.devices.map((x) => x.tag).sort()).toEqual(['BFP', 'M']);

@@ -45,7 +45,9 @@ describe('the riser diagram on screen', () => {
     const texts = items.flatMap((i) => (i.type === 'text' ? [i.text] : []));
     for (const l of diagram.levels) expect(texts).toContain(l.name);
     expect(texts.some((t) => t.startsWith('match line'))).toBe(false);
-    const drops = [...new Set(items.filter((i) => i.type === 'line' && i.weight === 'pipe' && i.x1 === i.x2).map((i) => (i as { x1: number }).x1))].sort((p, q) => p - q);
+    const drops = [...new Set(items.filter((i) => i.type === 'line' && i.weight === 'pipe' && i.x1 === i.x2).map((i) => (i as { x1: number }).x1))].sort(
+      (p, q) => p - q,
+    );
     for (let k = 1; k < drops.length; k++) expect(drops[k] - drops[k - 1]).toBeGreaterThanOrEqual(MIN_COLUMN_PT - 0.01);
     const levels = [...new Set(items.filter((i) => i.type === 'line' && i.weight === 'level').map((i) => (i as { y1: number }).y1))].sort((p, q) => p - q);
     for (let k = 1; k < levels.length; k++) expect(levels[k] - levels[k - 1]).toBeGreaterThanOrEqual(MIN_STOREY_PT - 0.01);

@@ -19,15 +19,24 @@ export function recirculationSection(c: { L: Layout; a: Analysis; doc: SystemDoc
   if (!r || !doc.recirculation) return;
   L.heading('Hot-water recirculation', 2, 120);
   if (!r.ok) {
-    L.paragraph(`The recirculation loop could not be computed: ${r.error.field ? `${r.error.field}: ` : ''}${r.error.message}`, { size: 8.5, color: COLORS.fail });
+    L.paragraph(`The recirculation loop could not be computed: ${r.error.field ? `${r.error.field}: ` : ''}${r.error.message}`, {
+      size: 8.5,
+      color: COLORS.fail,
+    });
     return;
   }
   const u = r.units;
   const drop = `${num(r.temperatureDrop, u.temperature)} ${u.heat === 'W' ? 'K' : '°F'}`;
   L.keyValues([
-    ['Loop heat loss', `${r.heatLoss.toFixed(0)} ${u.heat}, at ${num(r.hotTemperature, u.temperature)} ${u.temperature} leaving the heater, drop allowed ${drop}`],
+    [
+      'Loop heat loss',
+      `${r.heatLoss.toFixed(0)} ${u.heat}, at ${num(r.hotTemperature, u.temperature)} ${u.temperature} leaving the heater, drop allowed ${drop}`,
+    ],
     ['Loop flow = pump flow', flowText(r.pumpFlow, u.flow)],
-    ['Pump head', `${num(r.pumpHead, u.pressure)} ${u.pressure} (${num(r.pumpHeadLength, u.length)} ${u.length} of water): pipe friction × ${(1 + r.fittingAllowance).toFixed(2)} + heater loss ${num(r.heaterLoss, u.pressure)} ${u.pressure}`],
+    [
+      'Pump head',
+      `${num(r.pumpHead, u.pressure)} ${u.pressure} (${num(r.pumpHeadLength, u.length)} ${u.length} of water): pipe friction × ${(1 + r.fittingAllowance).toFixed(2)} + heater loss ${num(r.heaterLoss, u.pressure)} ${u.pressure}`,
+    ],
   ]);
   const unverified = r.pipes.filter((p) => Object.hasOwn(MATERIALS, p.material) && !MATERIALS[p.material as keyof typeof MATERIALS].verified);
   L.table(

@@ -28,7 +28,10 @@ export function reviewResponsesSection(L: Layout, responses: ReviewResponses[]) 
   if (!responses.length) return;
   L.heading('Response to review comments');
   for (const r of responses) {
-    L.paragraph(`Revision ${r.returnedRevisionNumber} was returned by ${r.reviewerName} on ${utc(r.decidedAt)}. This revision answers it.`, { size: 9, after: 4 });
+    L.paragraph(`Revision ${r.returnedRevisionNumber} was returned by ${r.reviewerName} on ${utc(r.decidedAt)}. This revision answers it.`, {
+      size: 9,
+      after: 4,
+    });
     if (r.overall) L.keyValues([['Reviewer’s overall comment', r.overall]]);
     if (!r.comments.length) continue;
     L.table(
@@ -37,10 +40,17 @@ export function reviewResponsesSection(L: Layout, responses: ReviewResponses[]) 
         { header: 'Reviewer’s comment', width: 38, wrap: true },
         { header: 'Designer’s reply', width: 38, wrap: true },
       ],
-      r.comments.map((c) => ({ cells: [c.item, c.comment, c.reply ?? 'Not answered before this revision was issued'], style: c.reply ? undefined : { fail: true } })),
+      r.comments.map((c) => ({
+        cells: [c.item, c.comment, c.reply ?? 'Not answered before this revision was issued'],
+        style: c.reply ? undefined : { fail: true },
+      })),
       { continued: 'Response to review comments' },
     );
     const open = r.comments.filter((c) => !c.reply).length;
-    if (open) L.paragraph(`${open === 1 ? 'One comment was' : `${open} comments were`} not answered before this revision was issued.`, { size: 8.5, color: COLORS.fail });
+    if (open)
+      L.paragraph(`${open === 1 ? 'One comment was' : `${open} comments were`} not answered before this revision was issued.`, {
+        size: 8.5,
+        color: COLORS.fail,
+      });
   }
 }

@@ -18,10 +18,7 @@ export function NewProjectRoute() {
       <PageHeader title="New project" subtitle="One building. You become its designer and can add the other members." />
       {canCreateProject(user) ? (
         <Section title="Project details">
-          <CreateProjectForm
-            onCreated={(project) => navigate(paths.project.getHref(project.id))}
-            onCancel={() => navigate(paths.projects.getHref())}
-          />
+          <CreateProjectForm onCreated={(project) => navigate(paths.project.getHref(project.id))} onCancel={() => navigate(paths.projects.getHref())} />
         </Section>
       ) : (
         <Alert tone="caution" title="Designer accounts create projects">

@@ -115,7 +115,9 @@ export function ProjectRoute() {
           <Section title="Project catalog">
             <p className="text-ink-soft">
               This project’s own pipe materials, fitting types, fixture types and device templates, with their sources.{' '}
-              <Link className="font-semibold text-standpipe underline" to={catalogPaths.projectCatalog.getHref(project.id)}>Open the project catalog</Link>
+              <Link className="font-semibold text-standpipe underline" to={catalogPaths.projectCatalog.getHref(project.id)}>
+                Open the project catalog
+              </Link>
             </p>
           </Section>
         ) : null}

@@ -49,8 +49,8 @@ export function AppShell({ nav, person, children, extraNav }: { nav: readonly Na
       </main>
       <footer className="border-t-2 border-rule bg-paper-deep">
         <p className="mx-auto max-w-page px-6 py-4 text-sm text-ink-soft">
-          Headroom assists a qualified person. The adopted plumbing code, the authority having jurisdiction, the
-          manufacturers' data and licensed practice govern.
+          Headroom assists a qualified person. The adopted plumbing code, the authority having jurisdiction, the manufacturers' data and licensed practice
+          govern.
         </p>
       </footer>
     </div>
@@ -68,8 +68,8 @@ export function PlainShell({ children }: { children: ReactNode }) {
         {children}
       </main>
       <p className="mt-8 max-w-md text-center text-sm text-ink-soft">
-        Headroom checks that every fixture keeps its minimum flow pressure and that static pressure stays under the limit.
-        It assists a qualified person; the adopted code and the authority having jurisdiction govern.
+        Headroom checks that every fixture keeps its minimum flow pressure and that static pressure stays under the limit. It assists a qualified person; the
+        adopted code and the authority having jurisdiction govern.
       </p>
     </div>
   );

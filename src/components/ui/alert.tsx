@@ -14,7 +14,13 @@ const TONES: Record<Tone, { box: string; word: string }> = {
  * A message box that screen readers announce: `role="alert"` for failures (assertive),
  * `role="status"` otherwise (polite). Its tone is also written as a word, not shown by colour alone.
  */
-export function Alert({ tone = 'info', title, children, actions, className }: {
+export function Alert({
+  tone = 'info',
+  title,
+  children,
+  actions,
+  className,
+}: {
   tone?: Tone;
   title?: string;
   children?: ReactNode;
@@ -36,5 +42,9 @@ export function Alert({ tone = 'info', title, children, actions, className }: {
 
 /** A live region that is always in the page, so that messages put into it are read out. */
 export function LiveMessage({ message, tone = 'info' }: { message: string | null; tone?: Tone }) {
-  return <div aria-live={tone === 'fault' ? 'assertive' : 'polite'} aria-atomic="true">{message ? <Alert tone={tone} title={message} /> : null}</div>;
+  return (
+    <div aria-live={tone === 'fault' ? 'assertive' : 'polite'} aria-atomic="true">
+      {message ? <Alert tone={tone} title={message} /> : null}
+    </div>
+  );
 }

@@ -3,7 +3,13 @@ import type { ReactNode } from 'react';
 import { cx } from './cx';
 
 /** A titled panel; the heading names the region for screen-reader navigation. */
-export function Section({ title, children, actions, className, headingLevel = 2 }: {
+export function Section({
+  title,
+  children,
+  actions,
+  className,
+  headingLevel = 2,
+}: {
   title: string;
   children: ReactNode;
   actions?: ReactNode;

@@ -43,9 +43,7 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
     if (!c.pass) {
       failures++;
       const fx = model.fixtures[c.index];
-      warnings.push(
-        makeWarning('residual-below-minimum', 'checked-fixture', fx.id, `residual ${psys(c.residualPa)}, needs ${psys(fx.requiredPa)}`),
-      );
+      warnings.push(makeWarning('residual-below-minimum', 'checked-fixture', fx.id, `residual ${psys(c.residualPa)}, needs ${psys(fx.requiredPa)}`));
     }
     if (criticalIndex === -1 || c.marginPa < fixtures[criticalIndex].marginPa) criticalIndex = c.index;
   }
@@ -76,9 +74,7 @@ export function runChecks(model: SiModel, hyd: HydraulicsResult, warnings: Engin
     }
     const expected = model.fixtures.filter((f) => f.expectedCritical);
     if (expected.length > 0 && !expected.some((f) => f.id === crit.id)) {
-      warnings.push(
-        makeWarning('critical-not-expected', 'checked-fixture', crit.id, `expected: ${expected.map((f) => `"${f.label}"`).join(', ')}`),
-      );
+      warnings.push(makeWarning('critical-not-expected', 'checked-fixture', crit.id, `expected: ${expected.map((f) => `"${f.label}"`).join(', ')}`));
     }
   }
 

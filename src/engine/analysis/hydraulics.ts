@@ -74,13 +74,7 @@ export function constantSpeedGainPa(b: Extract<SiBoost, { control: 'constant-spe
   return Math.max(0, b.shutoffPa - (b.shutoffPa - b.designPa) * r * r);
 }
 
-export function computeHydraulics(
-  model: SiModel,
-  topo: Topology,
-  demand: DemandResult,
-  elev: ElevationResult,
-  warnings: EngineWarning[],
-): HydraulicsResult {
+export function computeHydraulics(model: SiModel, topo: Topology, demand: DemandResult, elev: ElevationResult, warnings: EngineWarning[]): HydraulicsResult {
   const seg = model.seg;
   const nSegs = seg.count;
   const nNodes = model.nodeIds.length;

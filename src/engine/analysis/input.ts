@@ -321,7 +321,12 @@ function refuseOversized(doc: unknown): void {
   tooLong(d.floors, DOCUMENT_BOUNDS.floors, 'floors');
   if (typeof d.notes === 'string' && d.notes.length > DOCUMENT_BOUNDS.notesLength * 2) {
     // Twice the bound in UTF-16 units is surely over the bound in code points.
-    throw new EngineInputError({ code: 'document-too-large', elementType: 'system', field: 'notes', message: `system, field "notes": longer than ${DOCUMENT_BOUNDS.notesLength} characters` });
+    throw new EngineInputError({
+      code: 'document-too-large',
+      elementType: 'system',
+      field: 'notes',
+      message: `system, field "notes": longer than ${DOCUMENT_BOUNDS.notesLength} characters`,
+    });
   }
   // Nested lists, each bounded per element: their total is what a flood of elements would use.
   let nested = 0;
@@ -380,16 +385,12 @@ function mapIssue(issue: z.core.$ZodIssue, doc: unknown): EngineIssue {
     cursor = next;
   }
   const stringKeys = path.filter((p): p is string => typeof p === 'string');
-  const field = path.length === 0 ? null : stringKeys[stringKeys.length - 1] ?? null;
+  const field = path.length === 0 ? null : (stringKeys[stringKeys.length - 1] ?? null);
 
   let code: ErrorCode = 'schema-violation';
   const raw = issue as unknown as { code: string; received?: string };
   const lastKey = path[path.length - 1];
-  const absent =
-    path.length > 0 &&
-    parent !== null &&
-    typeof parent === 'object' &&
-    !Object.prototype.hasOwnProperty.call(parent, lastKey as PropertyKey);
+  const absent = path.length > 0 && parent !== null && typeof parent === 'object' && !Object.prototype.hasOwnProperty.call(parent, lastKey as PropertyKey);
   if (raw.code !== 'unrecognized_keys' && absent) code = 'missing-field';
   if (raw.code === 'invalid_type' && (raw.received === 'NaN' || raw.received === 'Infinity' || raw.received === '-Infinity')) {
     code = 'non-finite-number';
@@ -418,7 +419,6 @@ export function buildModel(doc: SystemDocument): SiModel {
   const dF = toSI('diameter', 1, sys);
   const qF = toSI('flow', 1, sys);
   const P = (v: number) => v * pF;
-  const L = (v: number) => v * lF;
   const Q = (v: number) => v * qF;
 
   const temperatureC = toSI('temperature', doc.waterTemperature, sys);
@@ -445,7 +445,12 @@ export function buildModel(doc: SystemDocument): SiModel {
   // Nodes
   const nNodes = doc.nodes.length;
   const scale: Scales = { pF, lF, qF, dF };
-  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(doc, scale, criteria, floorElevation);
+  const { nodeIndex, nodeIds, nodeLabels, elevationM, placed, continuousM3s, nodeWsfu, nodeFlushValves, servesFixtures, fixtures, projectData } = readNodes(
+    doc,
+    scale,
+    criteria,
+    floorElevation,
+  );
 
   // Source
   const sourceIdx = nodeIndex.get(doc.source.nodeId);
@@ -457,7 +462,13 @@ export function buildModel(doc: SystemDocument): SiModel {
   }
   const ft = doc.source.flowTest;
   if (ft && !(ft.residualPressure < ft.staticPressure)) {
-    throw inputError('value-out-of-range', 'source', doc.source.nodeId, 'flowTest.residualPressure', 'the flow-test residual pressure must be below its static pressure');
+    throw inputError(
+      'value-out-of-range',
+      'source',
+      doc.source.nodeId,
+      'flowTest.residualPressure',
+      'the flow-test residual pressure must be below its static pressure',
+    );
   }
 
   // Segments
@@ -480,7 +491,13 @@ export function buildModel(doc: SystemDocument): SiModel {
       if ('gain' in b) boost = { control: 'constant-speed', designPa: P(b.gain), shutoffPa: P(b.gain), designFlowM3s: null, assumed: true };
       else if (b.control === 'constant-speed') {
         if (b.shutoffGain < b.designGain) {
-          throw inputError('value-out-of-range', 'device', d.id, 'boost.shutoffGain', `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`);
+          throw inputError(
+            'value-out-of-range',
+            'device',
+            d.id,
+            'boost.shutoffGain',
+            `booster "${d.label}": the shutoff gain is below the design gain; a centrifugal pump gives its highest pressure at no flow`,
+          );
         }
         boost = {
           control: 'constant-speed',
@@ -550,7 +567,9 @@ export function buildModel(doc: SystemDocument): SiModel {
     },
   };
   defineLazy(model, 'segments', () => Array.from({ length: nSegs }, (_, s) => segmentAt(seg, s)));
-  defineLazy(model, 'groupsByNode', () => doc.nodes.map((node) => (node.fixtureGroups.length === 0 ? NO_GROUPS : node.fixtureGroups.map((g) => siGroup(doc, g, scale)))));
+  defineLazy(model, 'groupsByNode', () =>
+    doc.nodes.map((node) => (node.fixtureGroups.length === 0 ? NO_GROUPS : node.fixtureGroups.map((g) => siGroup(doc, g, scale)))),
+  );
   return model;
 }
 
@@ -631,12 +650,24 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
       const own = g.custom;
       const type = groupType(g);
       if (!type && !own) {
-        throw inputError('unknown-catalog-entry', 'fixture-group', node.id, 'fixtureTypeId', `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`);
+        throw inputError(
+          'unknown-catalog-entry',
+          'fixture-group',
+          node.id,
+          'fixtureTypeId',
+          `fixture type "${g.fixtureTypeId}" is not in the fixtures catalog`,
+        );
       }
       const wsfu = groupWsfu(doc, g, type);
       if (own) projectData.push({ elementType: 'node', elementId: node.id, label: own.label, source: own.source });
       if (g.usage && g.usage.flow === undefined && type?.flowRateM3s === undefined) {
-        throw inputError('missing-field', 'fixture-group', node.id, 'usage.flow', `fixture type "${own!.label}" has its own data and no catalog type: give the flow while in use`);
+        throw inputError(
+          'missing-field',
+          'fixture-group',
+          node.id,
+          'usage.flow',
+          `fixture type "${own!.label}" has its own data and no catalog type: give the flow while in use`,
+        );
       }
       wsfuSum += wsfu;
       if (groupCurve(g, type) === 'flush-valve' && wsfu > 0) valves += g.count;
@@ -652,9 +683,7 @@ function readNodes(doc: SystemDocument, scale: Scales, criteria: Criteria, floor
         throw inputError('unknown-catalog-entry', 'checked-fixture', f.id, 'fixtureTypeId', `fixture type "${f.fixtureTypeId}" is not in the fixtures catalog`);
       }
       const requiredPa =
-        f.minFlowPressure !== undefined
-          ? P(f.minFlowPressure)
-          : criteria.minFlowPressureOverridesPa[f.fixtureTypeId] ?? type.minFlowPressurePa;
+        f.minFlowPressure !== undefined ? P(f.minFlowPressure) : (criteria.minFlowPressureOverridesPa[f.fixtureTypeId] ?? type.minFlowPressurePa);
       fixtures.push({
         id: f.id,
         nodeIdx: i,
@@ -695,7 +724,7 @@ function groupWsfu(doc: SystemDocument, g: DocFixtureGroup, type: (typeof FIXTUR
  */
 function groupCurve(g: DocFixtureGroup, type: (typeof FIXTURE_TYPES)[string] | undefined): DemandCurve {
   const own = g.custom;
-  return g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : type?.demandCurve ?? 'flush-tank');
+  return g.demandCurve ?? (own?.flushValve !== undefined ? (own.flushValve ? 'flush-valve' : 'flush-tank') : (type?.demandCurve ?? 'flush-tank'));
 }
 
 /** One fixture group in SI (validated by readNodes before any is built). */
@@ -842,7 +871,7 @@ function readSegments(doc: SystemDocument, scale: Scales, nodeIndex: IdIndex, pl
     seg.nominalSizeKey[s] = pipe.nominalSizeKey;
     seg.lengthM[s] = L(d.length);
     seg.riseEnteredM[s] = d.rise !== undefined ? L(d.rise) : Number.NaN;
-    seg.materialId[s] = d.custom || d.size === undefined ? null : d.material ?? null;
+    seg.materialId[s] = d.custom || d.size === undefined ? null : (d.material ?? null);
     seg.fittings[s] = d.fittings;
     seg.customFittings[s] = customFittings;
     seg.flowOverrideM3s[s] = d.flowOverride !== undefined ? Q(d.flowOverride) : Number.NaN;
@@ -858,9 +887,7 @@ function mergeCriteria(doc: SystemDocument, P: (v: number) => number): Criteria 
   if (!o) return base;
   const velocityLimits = base.velocityLimits.map((lim) => {
     const over = o.velocityLimits?.find((v) => v.material === lim.material && v.service === lim.service);
-    return over
-      ? { ...lim, maxVelocityMs: toSI('velocity', over.maxVelocity, doc.unitSystem), source: 'system criteria (entered)' }
-      : lim;
+    return over ? { ...lim, maxVelocityMs: toSI('velocity', over.maxVelocity, doc.unitSystem), source: 'system criteria (entered)' } : lim;
   });
   for (const v of o.velocityLimits ?? []) {
     if (!velocityLimits.some((l) => l.material === v.material && l.service === v.service)) {

@@ -60,7 +60,13 @@ export function ledgerFor(analysis: Analysis, fixtureId: string): PressureLedger
     p -= s.frictionLoss;
     push('friction', s.id, s.id, `${name}: pipe friction`, -s.frictionLoss);
     p -= s.fittingLoss;
-    push('fittings', s.id, s.id, `${name}: fittings${withProjectFittings.has(s.id) ? ' (incl. project data)' : ''}${s.sizeChangeK > 0 ? ' and size change' : ''}`, -s.fittingLoss);
+    push(
+      'fittings',
+      s.id,
+      s.id,
+      `${name}: fittings${withProjectFittings.has(s.id) ? ' (incl. project data)' : ''}${s.sizeChangeK > 0 ? ' and size change' : ''}`,
+      -s.fittingLoss,
+    );
     p -= s.riseLoss;
     push('rise', s.id, s.id, `${name}: elevation`, -s.riseLoss);
   }
@@ -84,12 +90,7 @@ export function formatLedger(ledger: PressureLedger, analysis: Analysis): string
   const u = ledger.pressureUnit;
   const rows: string[][] = [['#', 'item', `change (${u})`, `pressure (${u})`]];
   for (const l of ledger.lines) {
-    rows.push([
-      String(l.step),
-      l.label,
-      l.kind === 'start' ? '' : l.change.toFixed(3),
-      l.pressureAfter.toFixed(3),
-    ]);
+    rows.push([String(l.step), l.label, l.kind === 'start' ? '' : l.change.toFixed(3), l.pressureAfter.toFixed(3)]);
   }
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
   const fmt = (r: string[]) => r.map((cell, c) => (c >= 2 ? cell.padStart(widths[c]) : cell.padEnd(widths[c]))).join('  ');

@@ -13,12 +13,6 @@ export function formatPressure(pa: number, sys: UnitSystem): string {
   return `${v.toFixed(sys === 'US' ? 2 : 1)} ${UNIT_LABELS[sys].pressure}`;
 }
 
-/** "12.5 ft" / "3.81 m". */
-export function formatLength(m: number, sys: UnitSystem): string {
-  const v = fromSI('length', m, sys);
-  return `${v.toFixed(sys === 'US' ? 1 : 2)} ${UNIT_LABELS[sys].length}`;
-}
-
 /** A node's typed label; else the source, or the fixture checked there; else its id in quotes. */
 export function nodeName(model: SiModel, nodeIdx: number): string {
   const label = model.nodeLabels[nodeIdx];

@@ -39,7 +39,10 @@ function noteFor(elementType: 'node' | 'fitting', uses: ProjectDataUse[]): Engin
   if (uses.length === 1) {
     detail = uses[0].label + ': source ' + uses[0].source;
   } else {
-    const what = elementType === 'fitting' ? `${uses.length} fittings on ${count(ids.length, 'segment')}` : `${uses.length} fixture groups at ${count(ids.length, 'node')}`;
+    const what =
+      elementType === 'fitting'
+        ? `${uses.length} fittings on ${count(ids.length, 'segment')}`
+        : `${uses.length} fixture groups at ${count(ids.length, 'node')}`;
     const named = [...entries.values()].slice(0, MAX_ENTRIES_NAMED).map((e) => (e.count > 1 ? `${e.text} (${e.count.toLocaleString('en-US')} uses)` : e.text));
     const more = entries.size - named.length;
     detail = `${what} use the project's own data: ${named.join('; ')}${more > 0 ? `; and ${more.toLocaleString('en-US')} more ${more === 1 ? 'entry' : 'entries'}` : ''}`;

@@ -138,8 +138,32 @@ export function checkRanges(doc: SystemDocument): void {
       }
       if (g.usage) {
         check(B.fixtureFlow, g.usage.flow, 'fixture-group', n.id, 'usage.flow', 'nodes', i, 'fixtureGroups', k, 'usage', 'flow');
-        check(B.useDuration, g.usage.durationSeconds, 'fixture-group', n.id, 'usage.durationSeconds', 'nodes', i, 'fixtureGroups', k, 'usage', 'durationSeconds');
-        check(B.useInterval, g.usage.recurrenceSeconds, 'fixture-group', n.id, 'usage.recurrenceSeconds', 'nodes', i, 'fixtureGroups', k, 'usage', 'recurrenceSeconds');
+        check(
+          B.useDuration,
+          g.usage.durationSeconds,
+          'fixture-group',
+          n.id,
+          'usage.durationSeconds',
+          'nodes',
+          i,
+          'fixtureGroups',
+          k,
+          'usage',
+          'durationSeconds',
+        );
+        check(
+          B.useInterval,
+          g.usage.recurrenceSeconds,
+          'fixture-group',
+          n.id,
+          'usage.recurrenceSeconds',
+          'nodes',
+          i,
+          'fixtureGroups',
+          k,
+          'usage',
+          'recurrenceSeconds',
+        );
       }
     }
     for (let k = 0; k < n.checkedFixtures.length; k++) {
@@ -164,7 +188,19 @@ export function checkRanges(doc: SystemDocument): void {
       check(B.fittingCount, f.count, 'fitting', s.id, 'count', 'segments', i, 'fittings', k, 'count');
       if (f.custom && 'k' in f.custom) check(B.lossCoefficient, f.custom.k, 'fitting', s.id, 'custom.k', 'segments', i, 'fittings', k, 'custom', 'k');
       if (f.custom && 'equivalentLength' in f.custom) {
-        check(B.equivalentLength, f.custom.equivalentLength, 'fitting', s.id, 'custom.equivalentLength', 'segments', i, 'fittings', k, 'custom', 'equivalentLength');
+        check(
+          B.equivalentLength,
+          f.custom.equivalentLength,
+          'fitting',
+          s.id,
+          'custom.equivalentLength',
+          'segments',
+          i,
+          'fittings',
+          k,
+          'custom',
+          'equivalentLength',
+        );
       }
     }
   }
@@ -173,7 +209,9 @@ export function checkRanges(doc: SystemDocument): void {
   if (c) {
     check(B.staticPressure, c.maxStaticPressure, 'criteria', null, 'maxStaticPressure', 'criteria', 'maxStaticPressure');
     check(B.staticPressure, c.minStaticPressure, 'criteria', null, 'minStaticPressure', 'criteria', 'minStaticPressure');
-    c.velocityLimits?.forEach((v, k) => check(B.velocityLimit, v.maxVelocity, 'criteria', null, `velocityLimits[${k}].maxVelocity`, 'criteria', 'velocityLimits', k, 'maxVelocity'));
+    c.velocityLimits?.forEach((v, k) =>
+      check(B.velocityLimit, v.maxVelocity, 'criteria', null, `velocityLimits[${k}].maxVelocity`, 'criteria', 'velocityLimits', k, 'maxVelocity'),
+    );
     for (const [typeId, v] of Object.entries(c.minFlowPressures ?? {})) {
       check(B.minFlowPressure, v, 'criteria', null, `minFlowPressures.${typeId}`, 'criteria', 'minFlowPressures', typeId);
     }

@@ -16,14 +16,7 @@ import { defineLazy } from './lazy';
 import type { ElevationResult } from './elevations';
 import type { StaticChecksResult } from './staticChecks';
 import { formatPressure, nodeName, plural, segmentName } from './names';
-import type {
-  Analysis,
-  IncompleteReason,
-  AnalysisResults,
-  MethodUsed,
-  SegmentResult,
-  SourceResult,
-} from './types';
+import type { Analysis, IncompleteReason, AnalysisResults, MethodUsed, SegmentResult, SourceResult } from './types';
 
 /** 0.2.0: document version 2 (positions, boosters by curve), incomplete reasons, worst-case static checks. */
 export const ENGINE_VERSION = '0.2.0';
@@ -339,42 +332,40 @@ export function toDisplay(si: AnalysisResults, sys: UnitSystem): AnalysisResults
   };
   return {
     source,
-    segments: si.segments.map(
-      (s): SegmentResult => ({
-        id: s.id,
-        label: s.label,
-        from: s.from,
-        to: s.to,
-        parentSegmentId: s.parentSegmentId,
-        wsfu: s.wsfu,
-        demandCurve: s.demandCurve,
-        flowBasis: s.flowBasis,
-        designFlow: s.designFlow / qF,
-        innerDiameter: s.innerDiameter / dF,
-        length: s.length / lF,
-        rise: s.rise / lF,
-        velocity: s.velocity / vF,
-        reynolds: s.reynolds,
-        frictionFactor: s.frictionFactor,
-        regime: s.regime,
-        fittingsK: s.fittingsK,
-        sizeChangeK: s.sizeChangeK,
-        totalK: s.totalK,
-        frictionLoss: s.frictionLoss / pF,
-        fittingLoss: s.fittingLoss / pF,
-        riseLoss: s.riseLoss / pF,
-        deviceLoss: s.deviceLoss / pF,
-        devices:
-          s.devices.length === 0
-            ? []
-            : s.devices.map((dv) => ({ deviceId: dv.deviceId, kind: dv.kind, label: dv.label, loss: dv.loss / pF, extrapolated: dv.extrapolated })),
-        inletPressure: s.inletPressure / pF,
-        outletPressure: s.outletPressure / pF,
-        velocityLimit: s.velocityLimit === null ? null : s.velocityLimit / vF,
-        velocityPass: s.velocityPass,
-        developedLength: s.developedLength / lF,
-      }),
-    ),
+    segments: si.segments.map((s): SegmentResult => ({
+      id: s.id,
+      label: s.label,
+      from: s.from,
+      to: s.to,
+      parentSegmentId: s.parentSegmentId,
+      wsfu: s.wsfu,
+      demandCurve: s.demandCurve,
+      flowBasis: s.flowBasis,
+      designFlow: s.designFlow / qF,
+      innerDiameter: s.innerDiameter / dF,
+      length: s.length / lF,
+      rise: s.rise / lF,
+      velocity: s.velocity / vF,
+      reynolds: s.reynolds,
+      frictionFactor: s.frictionFactor,
+      regime: s.regime,
+      fittingsK: s.fittingsK,
+      sizeChangeK: s.sizeChangeK,
+      totalK: s.totalK,
+      frictionLoss: s.frictionLoss / pF,
+      fittingLoss: s.fittingLoss / pF,
+      riseLoss: s.riseLoss / pF,
+      deviceLoss: s.deviceLoss / pF,
+      devices:
+        s.devices.length === 0
+          ? []
+          : s.devices.map((dv) => ({ deviceId: dv.deviceId, kind: dv.kind, label: dv.label, loss: dv.loss / pF, extrapolated: dv.extrapolated })),
+      inletPressure: s.inletPressure / pF,
+      outletPressure: s.outletPressure / pF,
+      velocityLimit: s.velocityLimit === null ? null : s.velocityLimit / vF,
+      velocityPass: s.velocityPass,
+      developedLength: s.developedLength / lF,
+    })),
     nodes: si.nodes.map((n) => ({
       ...n,
       elevation: z(n.elevation),

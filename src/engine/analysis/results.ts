@@ -220,9 +220,24 @@ function allFinite(stages: StageResults): boolean {
     const devs = hyd.devices[s];
     for (let k = 0; k < devs.length; k++) nonFinite += devs[k].lossPa * 0;
     nonFinite +=
-      (demand.wsfu[s] + demand.designFlowM3s[s] + seg.innerDiameterM[s] + seg.lengthM[s] + hyd.riseM[s] + hyd.velocity[s] + hyd.reynolds[s] +
-        hyd.frictionFactor[s] + hyd.fittingsK[s] + hyd.sizeChangeK[s] + hyd.frictionLossPa[s] + hyd.fittingLossPa[s] + hyd.riseLossPa[s] +
-        hyd.deviceLossPa[s] + hyd.inletPa[s] + hyd.outletPa[s] + hyd.nodeDevelopedLengthM[seg.to[s]] + (checks.velocityLimitMs[s] ?? 0)) *
+      (demand.wsfu[s] +
+        demand.designFlowM3s[s] +
+        seg.innerDiameterM[s] +
+        seg.lengthM[s] +
+        hyd.riseM[s] +
+        hyd.velocity[s] +
+        hyd.reynolds[s] +
+        hyd.frictionFactor[s] +
+        hyd.fittingsK[s] +
+        hyd.sizeChangeK[s] +
+        hyd.frictionLossPa[s] +
+        hyd.fittingLossPa[s] +
+        hyd.riseLossPa[s] +
+        hyd.deviceLossPa[s] +
+        hyd.inletPa[s] +
+        hyd.outletPa[s] +
+        hyd.nodeDevelopedLengthM[seg.to[s]] +
+        (checks.velocityLimitMs[s] ?? 0)) *
       0;
   }
   const sys = model.unitSystem;

@@ -36,13 +36,7 @@ export interface StaticChecksResult {
   minStaticPass: boolean;
 }
 
-export function runStaticChecks(
-  model: SiModel,
-  topo: Topology,
-  hyd: HydraulicsResult,
-  elev: ElevationResult,
-  warnings: EngineWarning[],
-): StaticChecksResult {
+export function runStaticChecks(model: SiModel, topo: Topology, hyd: HydraulicsResult, elev: ElevationResult, warnings: EngineWarning[]): StaticChecksResult {
   const sys = model.unitSystem;
   const toDoc = (pa: number) => fromSI('pressure', pa, sys);
   let failures = 0;
@@ -96,7 +90,7 @@ export function runStaticChecks(
         label: d.label,
         nodesOverMax: over,
         worstNodeId: worst === -1 ? null : model.nodeIds[worst],
-        worstNodeLabel: worst === -1 ? null : model.nodeLabels[worst] ?? nodeName(model, worst),
+        worstNodeLabel: worst === -1 ? null : (model.nodeLabels[worst] ?? nodeName(model, worst)),
         worstStatic: toDoc(worstStatic),
         maxStaticPressure: toDoc(max),
         excess: toDoc(excess),

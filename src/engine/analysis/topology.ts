@@ -92,7 +92,13 @@ export function buildTopology(model: SiModel): Topology {
         node = segFrom[feedSeg[node]];
       }
       if (seen.has(node)) {
-        throw inputError('cycle', 'segment', segId[feedSeg[node]], null, `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`);
+        throw inputError(
+          'cycle',
+          'segment',
+          segId[feedSeg[node]],
+          null,
+          `segments form a closed loop through node "${model.nodeIds[node]}"; Headroom analyses trees only`,
+        );
       }
       unreachedSegments.push(s);
     }

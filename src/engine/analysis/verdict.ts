@@ -6,8 +6,7 @@
 import type { Analysis, VerdictStatus } from './types';
 
 type VerdictLike = Pick<Analysis, 'fixtures'> & {
-  verdict: Partial<Pick<Analysis['verdict'], 'status'>> &
-    Pick<Analysis['verdict'], 'allFixturesPass' | 'allVelocitiesPass' | 'allStaticPass'>;
+  verdict: Partial<Pick<Analysis['verdict'], 'status'>> & Pick<Analysis['verdict'], 'allFixturesPass' | 'allVelocitiesPass' | 'allStaticPass'>;
 };
 
 export function verdictStatus(a: VerdictLike): VerdictStatus {

@@ -37,9 +37,7 @@ interface ZoneBuild {
 
 /** The zone index of every node (−1 where the source does not reach) and the zones, in tree order. */
 export function assignZones(model: SiModel, topo: Topology): { zones: ZoneBuild[]; nodeZone: Int32Array; segZone: Int32Array } {
-  const zones: ZoneBuild[] = [
-    { id: 'supply', parent: -1, kind: 'supply', deviceId: null, deviceLabel: null, segIdx: -1, settingPa: null, settingKind: null },
-  ];
+  const zones: ZoneBuild[] = [{ id: 'supply', parent: -1, kind: 'supply', deviceId: null, deviceLabel: null, segIdx: -1, settingPa: null, settingKind: null }];
   const nodeZone = new Int32Array(model.nodeIds.length).fill(-1);
   const segZone = new Int32Array(model.seg.count).fill(-1);
   nodeZone[model.source.nodeIdx] = 0;
@@ -78,13 +76,7 @@ interface At {
   node: number;
 }
 
-export function computeZones(
-  model: SiModel,
-  topo: Topology,
-  hyd: HydraulicsResult,
-  checks: ChecksResult,
-  incomplete: IncompleteReason[],
-): ZoneResult[] {
+export function computeZones(model: SiModel, topo: Topology, hyd: HydraulicsResult, checks: ChecksResult, incomplete: IncompleteReason[]): ZoneResult[] {
   const sys = model.unitSystem;
   const p = (pa: number) => fromSI('pressure', pa, sys);
   const zUnit = (m: number) => fromSI('elevation', m, sys);
@@ -200,8 +192,7 @@ export function computeZones(
     // No checked fixture in the zone (a PRV on a water heater's feed, whose fixtures the hot system
     // checks): nothing is compared with a minimum here, so the zone is never shown as passing; its
     // static and velocity checks still fail it. The system's own verdict rule (report.ts) is unchanged.
-    const status: ZoneResult['status'] =
-      reasons.length > 0 ? 'incomplete' : failures > 0 ? 'fail' : fixtureCount[z] === 0 ? 'not-checked' : 'pass';
+    const status: ZoneResult['status'] = reasons.length > 0 ? 'incomplete' : failures > 0 ? 'fail' : fixtureCount[z] === 0 ? 'not-checked' : 'pass';
     const entry = zb.segIdx === -1 ? null : { id: model.seg.id[zb.segIdx], from: model.seg.from[zb.segIdx] };
     return {
       id: zb.id,
@@ -225,9 +216,7 @@ export function computeZones(
       highestResidual: hi === null ? null : { pressure: p(hi.pa), nodeId: model.nodeIds[hi.node], where: where(hi.node) },
       lowestResidual: lo === null ? null : { pressure: p(lo.pa), nodeId: model.nodeIds[lo.node], where: where(lo.node) },
       highestStatic:
-        st === null
-          ? null
-          : { pressure: p(st.pa), nodeId: model.nodeIds[st.node], where: where(st.node), maximum: p(maxStatic), pass: staticFail[z] === 0 },
+        st === null ? null : { pressure: p(st.pa), nodeId: model.nodeIds[st.node], where: where(st.node), maximum: p(maxStatic), pass: staticFail[z] === 0 },
       criticalFixture:
         crit === null
           ? null

@@ -63,7 +63,10 @@ export function expandPlacements(
   let expandedCount = treeNodeIds.size;
   for (const p of placements) expandedCount += perType.get(p.unitTypeId) ?? 0;
   if (expandedCount > DOCUMENT_BOUNDS.segments) {
-    throw buildingError('placements', `The placements expand to ${expandedCount} nodes and segments; a system holds at most ${DOCUMENT_BOUNDS.segments}. Split the building into systems (or zones).`);
+    throw buildingError(
+      'placements',
+      `The placements expand to ${expandedCount} nodes and segments; a system holds at most ${DOCUMENT_BOUNDS.segments}. Split the building into systems (or zones).`,
+    );
   }
   const nodes: ExpandedNode[] = [];
   const segments: ExpandedSegment[] = [];
@@ -78,7 +81,8 @@ export function expandPlacements(
     const segOverrides = p.overrides?.segments ?? {};
     const nodeOverrides = p.overrides?.nodes ?? {};
     for (const key of Object.keys(segOverrides)) {
-      if (!t.segments.some((s) => s.id === key)) throw buildingError(p.id, `placement "${p.label}": override of segment "${key}", which ${t.name} does not have`);
+      if (!t.segments.some((s) => s.id === key))
+        throw buildingError(p.id, `placement "${p.label}": override of segment "${key}", which ${t.name} does not have`);
     }
     for (const key of Object.keys(nodeOverrides)) {
       if (!t.nodes.some((n) => n.id === key)) throw buildingError(p.id, `placement "${p.label}": override of node "${key}", which ${t.name} does not have`);
@@ -134,7 +138,8 @@ function checkUnitType(t: UnitType): void {
     if (segIds.has(s.id)) throw buildingError(t.id, `unit type "${t.name}": two segments share the id "${s.id}"`);
     segIds.add(s.id);
     if (s.from === UNIT_INLET) inlets++;
-    else if (!nodeIds.has(s.from)) throw buildingError(t.id, `unit type "${t.name}", segment "${s.label ?? s.id}": upstream node "${s.from}" is not in the unit`);
+    else if (!nodeIds.has(s.from))
+      throw buildingError(t.id, `unit type "${t.name}", segment "${s.label ?? s.id}": upstream node "${s.from}" is not in the unit`);
     if (!nodeIds.has(s.to)) throw buildingError(t.id, `unit type "${t.name}", segment "${s.label ?? s.id}": downstream node "${s.to}" is not in the unit`);
     if (fed.has(s.to)) throw buildingError(t.id, `unit type "${t.name}": node "${s.to}" is fed by two segments; a unit's piping is a tree`);
     fed.add(s.to);

@@ -51,7 +51,12 @@ function builderError(field: string, message: string): EngineInputError {
 
 /** A short, stable id from a floor name ("Level 7" → "level-7"); unique within the list. */
 export function floorIdOf(name: string, taken: Set<string>): string {
-  const base = name.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'floor';
+  const base =
+    name
+      .trim()
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'floor';
   let id = base;
   for (let n = 2; taken.has(id); n++) id = `${base}-${n}`;
   taken.add(id);
@@ -263,7 +268,10 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
       const base = spec.floors[from];
       const baseNode = `${tag}base`;
       if (!(spec.riser.footLength > 0)) {
-        throw builderError('riser.footLength', `${zoneWords}needs a run from the start point to the foot of its riser, where its device sits: enter the run to the foot of the risers.`);
+        throw builderError(
+          'riser.footLength',
+          `${zoneWords}needs a run from the start point to the foot of its riser, where its device sits: enter the run to the foot of the risers.`,
+        );
       }
       nodes.push({ id: baseNode, label: `${zoneWords}riser base`, floor: base.id, heightAboveFloor: spec.startElevation - base.elevation });
       segments.push({
@@ -290,19 +298,26 @@ export function buildRiser(spec: RiserBuilderSpec): GeneratedBuilding {
       // A pipe of no length is not a description of anything: the start point sits level with the first floor main
       // and no run to the riser's foot was given. Said here, before anything is written to the draft.
       if (first && !(length > 0)) {
-        throw builderError('riser.footLength', `The riser's first pipe would have no length: the start point is level with the ${floor.name} floor main. Enter the run from the start point to the foot of the riser.`);
+        throw builderError(
+          'riser.footLength',
+          `The riser's first pipe would have no length: the start point is level with the ${floor.name} floor main. Enter the run from the start point to the foot of the riser.`,
+        );
       }
       const id = foot ? `${tag}riser-foot` : first ? `${tag}express` : `riser-to-${floor.id}`;
       segments.push({
         id,
-        label: foot ? `${zoneWords}riser foot to ${floor.name}`.replace(/^./, (c) => c.toUpperCase()) : first ? `${zoneWords}express riser to ${floor.name}` : `Riser to ${floor.name}`,
+        label: foot
+          ? `${zoneWords}riser foot to ${floor.name}`.replace(/^./, (c) => c.toUpperCase())
+          : first
+            ? `${zoneWords}express riser to ${floor.name}`
+            : `Riser to ${floor.name}`,
         from: below,
         to: riserNode,
         material: spec.riser.material,
         size: sizeAt(i),
         // Vertical pipe: its developed length is the climb (plus the foot's horizontal run).
         length,
-        fittings: [...(foot ? spec.riser.footFittings ?? [] : []), ...(spec.riser.fittings ?? TEE_RUN)],
+        fittings: [...(foot ? (spec.riser.footFittings ?? []) : []), ...(spec.riser.fittings ?? TEE_RUN)],
       });
       if (first && deviceSeg === null) deviceSeg = id;
       floorMain(floor, riserNode);
@@ -340,14 +355,24 @@ function zoneRanges(spec: RiserBuilderSpec, floorIndex: Map<string, number>, fro
     if (hi < lo) throw builderError(`${where}.toFloor`, `Zone ${k + 1} must end on or above the floor it starts on.`);
     if (lo !== next) {
       const expected = spec.floors[next]?.name ?? 'no further floor';
-      throw builderError(`${where}.fromFloor`, `Zone ${k + 1} starts at "${spec.floors[lo].name}"; the zones must follow each other up the riser's floors without gap or overlap, so it should start at "${expected}".`);
+      throw builderError(
+        `${where}.fromFloor`,
+        `Zone ${k + 1} starts at "${spec.floors[lo].name}"; the zones must follow each other up the riser's floors without gap or overlap, so it should start at "${expected}".`,
+      );
     }
     if (z.feed !== 'supply' && !(z.setPressure !== undefined && z.setPressure > 0)) {
-      throw builderError(`${where}.setPressure`, `Zone ${k + 1} (${spec.floors[lo].name}–${spec.floors[hi].name}): enter the ${z.feed === 'prv' ? "PRV's set pressure" : "booster's set discharge pressure"}.`);
+      throw builderError(
+        `${where}.setPressure`,
+        `Zone ${k + 1} (${spec.floors[lo].name}–${spec.floors[hi].name}): enter the ${z.feed === 'prv' ? "PRV's set pressure" : "booster's set discharge pressure"}.`,
+      );
     }
     out.push({ lo, hi });
     next = hi + 1;
   });
-  if (next !== to + 1) throw builderError('zones', `The zones end at "${spec.floors[next - 1].name}" but the riser goes up to "${spec.floors[to].name}": add a zone for the floors above.`);
+  if (next !== to + 1)
+    throw builderError(
+      'zones',
+      `The zones end at "${spec.floors[next - 1].name}" but the riser goes up to "${spec.floors[to].name}": add a zone for the floors above.`,
+    );
   return out;
 }

@@ -47,9 +47,21 @@ const norm = (s: string) =>
  * and plumbing schedules use (common practice), several for each type.
  */
 const ALIASES: readonly [phrases: string[], privateId: string | null, publicId: string | null][] = [
-  [['water closet flush tank', 'water closet tank', 'water closet gravity tank', 'wc tank', 'toilet tank', 'toilet', 'water closet', 'wc'], 'water-closet-flush-tank-private', 'water-closet-flush-tank-public'],
-  [['water closet flushometer valve', 'water closet flush valve', 'wc flush valve', 'water closet flushometer'], 'water-closet-flush-valve-private', 'water-closet-flush-valve-public'],
-  [['water closet flushometer tank', 'water closet pressure assisted', 'wc flushometer tank'], 'water-closet-flushometer-tank', 'water-closet-flushometer-tank'],
+  [
+    ['water closet flush tank', 'water closet tank', 'water closet gravity tank', 'wc tank', 'toilet tank', 'toilet', 'water closet', 'wc'],
+    'water-closet-flush-tank-private',
+    'water-closet-flush-tank-public',
+  ],
+  [
+    ['water closet flushometer valve', 'water closet flush valve', 'wc flush valve', 'water closet flushometer'],
+    'water-closet-flush-valve-private',
+    'water-closet-flush-valve-public',
+  ],
+  [
+    ['water closet flushometer tank', 'water closet pressure assisted', 'wc flushometer tank'],
+    'water-closet-flushometer-tank',
+    'water-closet-flushometer-tank',
+  ],
   [['lavatory', 'lav', 'wash basin', 'basin', 'vanity'], 'lavatory-private', 'lavatory-public'],
   [['shower', 'shower head', 'shower valve'], 'shower-private', 'shower-public'],
   [['bathtub', 'tub', 'bath'], 'bathtub-private', 'bathtub-public'],
@@ -78,12 +90,13 @@ export function matchFixtureType(words: string, occupancy: 'private' | 'public')
   const key = norm(raw);
   const hit = PHRASES.get(key);
   if (hit) {
-    const id = occupancy === 'public' ? hit[1] ?? hit[0] : hit[0] ?? hit[1];
+    const id = occupancy === 'public' ? (hit[1] ?? hit[0]) : (hit[0] ?? hit[1]);
     return id && FIXTURE_TYPES[id] ? FIXTURE_TYPES[id] : null;
   }
   // A catalog label written out ("Water closet, gravity tank (close coupled)").
   for (const t of Object.values(FIXTURE_TYPES)) {
-    if (norm(t.label) === key && (t.occupancy === occupancy || !Object.values(FIXTURE_TYPES).some((o) => norm(o.label) === key && o.occupancy === occupancy))) return t;
+    if (norm(t.label) === key && (t.occupancy === occupancy || !Object.values(FIXTURE_TYPES).some((o) => norm(o.label) === key && o.occupancy === occupancy)))
+      return t;
   }
   return null;
 }
@@ -114,7 +127,8 @@ export function parseFixtureSchedule(text: string): ScheduleResult {
   if (parsed.data.length === 0) return { rows: [], fileErrors: ['The schedule is empty.'] };
   const header = parsed.data[0].map((h) => HEADERS[norm(h)]);
   for (const need of ['floor', 'unit', 'fixture', 'count'] as const) {
-    if (!header.includes(need)) fileErrors.push(`The first line must name the columns; "${need}" is missing (expected: floor, unit, fixture, count, occupancy).`);
+    if (!header.includes(need))
+      fileErrors.push(`The first line must name the columns; "${need}" is missing (expected: floor, unit, fixture, count, occupancy).`);
   }
   if (fileErrors.length > 0) return { rows: [], fileErrors };
   for (const e of parsed.errors) {
@@ -130,14 +144,16 @@ export function parseFixtureSchedule(text: string): ScheduleResult {
     const occText = norm(cell('occupancy'));
     let error: string | null = null;
     const occupancy: 'private' | 'public' = occText === 'public' ? 'public' : 'private';
-    if (occText !== '' && occText !== 'private' && occText !== 'public') error = `Line ${line}: occupancy "${cell('occupancy')}" is neither private nor public.`;
+    if (occText !== '' && occText !== 'private' && occText !== 'public')
+      error = `Line ${line}: occupancy "${cell('occupancy')}" is neither private nor public.`;
     const countText = cell('count');
     const count = /^\d+$/.test(countText) ? Number(countText) : null;
     if (!error && (count === null || count < 1 || count > 1000)) error = `Line ${line}: count "${countText}" is not a whole number from 1 to 1,000.`;
     const fixture = cell('fixture');
     const type = fixture === '' ? null : matchFixtureType(fixture, occupancy);
     if (!error && fixture === '') error = `Line ${line}: no fixture named.`;
-    else if (!error && !type) error = `Line ${line}: "${fixture}" is not a fixture type Headroom knows; use a name such as "water closet, flush tank", "lavatory", "shower", "kitchen sink".`;
+    else if (!error && !type)
+      error = `Line ${line}: "${fixture}" is not a fixture type Headroom knows; use a name such as "water closet, flush tank", "lavatory", "shower", "kitchen sink".`;
     if (!error && cell('floor') === '') error = `Line ${line}: no floor named.`;
     if (!error && cell('unit') === '') error = `Line ${line}: no unit or room named.`;
     rows.push({

@@ -36,7 +36,24 @@ const meter = (id: string, label: string, pointsUS: [number, number][]): DeviceT
 });
 
 export const DEVICE_TEMPLATES: readonly DeviceTemplate[] = Object.freeze([
-  meter('meter-displacement-5-8', 'Displacement meter, 5/8 in', [[1, 0.2], [5, 0.9], [10, 3.7], [15, 8.3], [20, 15.0]]),
-  meter('meter-displacement-1', 'Displacement meter, 1 in', [[10, 0.7], [20, 2.2], [30, 5.3], [40, 9.6], [50, 15.0]]),
-  meter('meter-displacement-2', 'Displacement meter, 2 in', [[50, 1.9], [100, 7.8], [150, 17.3], [160, 20.0]]),
+  meter('meter-displacement-5-8', 'Displacement meter, 5/8 in', [
+    [1, 0.2],
+    [5, 0.9],
+    [10, 3.7],
+    [15, 8.3],
+    [20, 15.0],
+  ]),
+  meter('meter-displacement-1', 'Displacement meter, 1 in', [
+    [10, 0.7],
+    [20, 2.2],
+    [30, 5.3],
+    [40, 9.6],
+    [50, 15.0],
+  ]),
+  meter('meter-displacement-2', 'Displacement meter, 2 in', [
+    [50, 1.9],
+    [100, 7.8],
+    [150, 17.3],
+    [160, 20.0],
+  ]),
 ]);

@@ -71,7 +71,16 @@ function readCurve(curve: Curve, tF: number): Reading | null {
 // the 400 psi rating at 73 °F). The same factors are GF Harvel's CPVC temperature de-rating table, and
 // GF Harvel's HydroKing CTS specification gives the two ends (400 psi at 73 °F, 100 psi at 180 °F);
 // 180 °F is the continuous-use limit in ASTM D2846's scope.
-const CPVC_SDR11: Curve = [[73, 400], [80, 400], [90, 360], [100, 325], [120, 260], [140, 200], [160, 160], [180, 100]];
+const CPVC_SDR11: Curve = [
+  [73, 400],
+  [80, 400],
+  [90, 360],
+  [100, 325],
+  [120, 260],
+  [140, 200],
+  [160, 160],
+  [180, 100],
+];
 const CPVC_SOURCE =
   'CPVC CTS SDR 11 (ASTM D2846): Charlotte Pipe How-to Guide (manufacturer), "Temperature De-Rating for ASTM D 2846 CTS CPVC SDR 11 Piping Systems" (73 °F 400, 80 °F 400, 90 °F 360, 100 °F 325, 120 °F 260, 140 °F 200, 160 °F 160, 180 °F 100 psi), factors as GF Harvel\'s CPVC de-rating table; 180 °F is the D2846 continuous-use limit';
 
@@ -80,9 +89,12 @@ const CPVC_SOURCE =
 // ASTM F876 rates PEX "for water at three temperatures (see Appendix X1)"; the Appendix X1 figures
 // 160 psi at 73.4 °F, 100 psi at 180 °F and 80 psi at 200 °F were seen only on secondary pages
 // (plumbing-trade articles), not in the standard's text: flagged unverified.
-const PEX_SDR9: Curve = [[73.4, 160], [180, 100], [200, 80]];
-const PEX_SOURCE =
-  `PEX SDR 9 (ASTM F876 Appendix X1, three rated temperatures: 160 psi at 73.4 °F, 100 psi at 180 °F, 80 psi at 200 °F) as restated by plumbing-trade pages, ${NOT_VERIFIED}`;
+const PEX_SDR9: Curve = [
+  [73.4, 160],
+  [180, 100],
+  [200, 80],
+];
+const PEX_SOURCE = `PEX SDR 9 (ASTM F876 Appendix X1, three rated temperatures: 160 psi at 73.4 °F, 100 psi at 180 °F, 80 psi at 200 °F) as restated by plumbing-trade pages, ${NOT_VERIFIED}`;
 
 // ---------------------------------------------------------------- Copper (ASTM B88), soldered
 
@@ -90,19 +102,42 @@ const PEX_SOURCE =
 // drawn tube, psi, at 100, 150, 200 and 250 °F (drawn allowable stress 10,300 psi over 100–250 °F, so
 // the rating is the same at the four temperatures).
 const TYPE_M_DRAWN_PSI: Readonly<Record<string, number>> = {
-  '3/8': 982, '1/2': 850, '3/4': 701, '1': 580, '1-1/4': 582, '1-1/2': 569, '2': 514, '2-1/2': 471, '3': 435, '4': 431,
+  '3/8': 982,
+  '1/2': 850,
+  '3/4': 701,
+  '1': 580,
+  '1-1/4': 582,
+  '1-1/2': 569,
+  '2': 514,
+  '2-1/2': 471,
+  '3': 435,
+  '4': 431,
 };
 const TYPE_M_TABLE_TOP_F = 250;
-const TYPE_M_SOURCE =
-  'CDA Copper Tube Handbook Table 14.3c (Type M, drawn, rated internal working pressure, 100–250 °F)';
+const TYPE_M_SOURCE = 'CDA Copper Tube Handbook Table 14.3c (Type M, drawn, rated internal working pressure, 100–250 °F)';
 
 // CDA "Pressure–temperature ratings for copper tube joints" (Table F, as reproduced by a copper-tube
 // supplier), 95-5 tin-antimony solder, psi, by size range: 1/4–1, 1-1/4–2, 2-1/2–4 in.
 type JointRange = '1/4–1' | '1-1/4–2' | '2-1/2–4';
 const JOINT_95_5: Readonly<Record<JointRange, Curve>> = {
-  '1/4–1': [[100, 500], [150, 400], [200, 300], [250, 200]],
-  '1-1/4–2': [[100, 400], [150, 350], [200, 250], [250, 175]],
-  '2-1/2–4': [[100, 300], [150, 275], [200, 200], [250, 150]],
+  '1/4–1': [
+    [100, 500],
+    [150, 400],
+    [200, 300],
+    [250, 200],
+  ],
+  '1-1/4–2': [
+    [100, 400],
+    [150, 350],
+    [200, 250],
+    [250, 175],
+  ],
+  '2-1/2–4': [
+    [100, 300],
+    [150, 275],
+    [200, 200],
+    [250, 150],
+  ],
 };
 const JOINT_SOURCE =
   'CDA Copper Tube Handbook, Table F "Pressure–temperature ratings for copper tube joints", 95-5 tin-antimony solder (lead free, as potable water requires)';
@@ -115,8 +150,17 @@ function jointRange(nominalIn: number): JointRange | null {
 }
 
 const NOMINAL_IN: Readonly<Record<string, number>> = {
-  '3/8': 0.375, '1/2': 0.5, '3/4': 0.75, '1': 1, '1-1/4': 1.25, '1-1/2': 1.5, '2': 2, '2-1/2': 2.5, '3': 3,
-  '3-1/2': 3.5, '4': 4,
+  '3/8': 0.375,
+  '1/2': 0.5,
+  '3/4': 0.75,
+  '1': 1,
+  '1-1/4': 1.25,
+  '1-1/2': 1.5,
+  '2': 2,
+  '2-1/2': 2.5,
+  '3': 3,
+  '3-1/2': 3.5,
+  '4': 4,
 };
 const COPPER_SIZES = Object.keys(NOMINAL_IN);
 
@@ -190,11 +234,7 @@ function ratingOfSize(materialId: string, sizeKey: string, tF: number): Pressure
  * @returns the rating in Pa with its source and whether it was checked against a published table;
  *   null where no published rating is known or the temperature is above the table
  */
-export function pressureRating(
-  materialId: string,
-  sizeKey: string | null,
-  temperatureC: number,
-): PressureRating | null {
+export function pressureRating(materialId: string, sizeKey: string | null, temperatureC: number): PressureRating | null {
   if (!Number.isFinite(temperatureC)) return null;
   const tF = celsiusToFahrenheit(temperatureC);
   switch (materialId) {

@@ -54,7 +54,14 @@ export function shippedSources(): ShippedSource[] {
     out.push(
       { kind: 'material', id: m.id, field: 'dimensions', label: m.label, source: m.dimensionSource, verified: !m.unverified.includes('dimensions') },
       { kind: 'material', id: m.id, field: 'roughness', label: m.label, source: m.roughnessSource, verified: !m.unverified.includes('roughness') },
-      { kind: 'material', id: m.id, field: 'hazenWilliamsC', label: m.label, source: m.hazenWilliamsSource, verified: !m.unverified.includes('hazenWilliamsC') },
+      {
+        kind: 'material',
+        id: m.id,
+        field: 'hazenWilliamsC',
+        label: m.label,
+        source: m.hazenWilliamsSource,
+        verified: !m.unverified.includes('hazenWilliamsC'),
+      },
     );
   }
   for (const f of Object.values(FIXTURE_TYPES)) {
@@ -70,8 +77,12 @@ export function shippedSources(): ShippedSource[] {
     out.push({ kind: 'device-template', id: d.id, field: 'points', label: d.label, source: d.source, verified: d.verified });
   }
   out.push({
-    kind: 'demand-table', id: 'hunter-table-ipc', field: 'rows', label: 'Fixture units to design flow (table for estimating demand)',
-    source: HUNTER_TABLE_IPC_SOURCE, verified: HUNTER_TABLE_IPC_VERIFIED,
+    kind: 'demand-table',
+    id: 'hunter-table-ipc',
+    field: 'rows',
+    label: 'Fixture units to design flow (table for estimating demand)',
+    source: HUNTER_TABLE_IPC_SOURCE,
+    verified: HUNTER_TABLE_IPC_VERIFIED,
   });
   for (const m of Object.values(FRICTION_METHODS)) {
     out.push({ kind: 'friction-method', id: m.id, field: 'source', label: m.label, source: m.source, verified: isVerifiedSource(m.source) });
@@ -87,8 +98,12 @@ export function shippedSources(): ShippedSource[] {
   }
   for (const v of DEFAULT_CRITERIA.velocityLimits) {
     out.push({
-      kind: 'criteria', id: `velocity-${v.material}-${v.service}`, field: 'maxVelocity', label: `velocity limit, ${v.material}, ${v.service}`,
-      source: v.source, verified: isVerifiedSource(v.source),
+      kind: 'criteria',
+      id: `velocity-${v.material}-${v.service}`,
+      field: 'maxVelocity',
+      label: `velocity limit, ${v.material}, ${v.service}`,
+      source: v.source,
+      verified: isVerifiedSource(v.source),
     });
   }
   for (const r of PRESSURE_RATING_SOURCES) {

@@ -85,7 +85,6 @@ export function lossCurveAt(points: readonly LossCurvePoint[], flowM3s: number):
   const t = (flowM3s - x[i]) / h;
   const t2 = t * t;
   const t3 = t2 * t;
-  const lossPa =
-    (2 * t3 - 3 * t2 + 1) * y[i] + (t3 - 2 * t2 + t) * h * m[i] + (-2 * t3 + 3 * t2) * y[i + 1] + (t3 - t2) * h * m[i + 1];
+  const lossPa = (2 * t3 - 3 * t2 + 1) * y[i] + (t3 - 2 * t2 + t) * h * m[i] + (-2 * t3 + 3 * t2) * y[i + 1] + (t3 - t2) * h * m[i + 1];
   return { lossPa, extrapolated: false };
 }

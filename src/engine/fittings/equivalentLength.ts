@@ -22,8 +22,7 @@ function row(values: readonly number[]): EquivalentLengthRow {
   return Object.freeze(out);
 }
 
-export const IPC_E103_3_5_SOURCE =
-  `plumbing-code allowance in equivalent length of pipe for threaded (galvanized steel) fittings, ft (IPC Appendix E / UPC Table A 104.4(1)), ${NOT_VERIFIED}`;
+export const IPC_E103_3_5_SOURCE = `plumbing-code allowance in equivalent length of pipe for threaded (galvanized steel) fittings, ft (IPC Appendix E / UPC Table A 104.4(1)), ${NOT_VERIFIED}`;
 
 export const IPC_E103_3_5 = {
   elbow90Standard: row([1.0, 2.0, 2.5, 3.0, 4.0, 5.0, 7.0, 8.0, 10, 14, 17, 20]),

@@ -91,7 +91,6 @@ function tryCrane(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
   return { K: N * fT, method: 'crane', source: sourceFor(entry, 'crane'), extrapolated: extrapolated || extrapolatedN };
 }
 
-
 /** At Re = 0 the K1/Re term is dropped in the two- and three-K methods: its share of the loss,
  * K1·μV/(2D), vanishes with V, so the zero-flow loss is 0 either way and K stays finite. */
 function tryHooper(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
@@ -129,8 +128,11 @@ const ATTEMPTS: Record<FittingMethod, (entry: FittingTypeEntry, ctx: FittingCont
 
 function hasMethodData(entry: FittingTypeEntry): boolean {
   return (
-    entry.craneN !== undefined || entry.craneNBySize !== undefined || entry.hooper !== undefined ||
-    entry.darby !== undefined || entry.equivalentLengthFt !== undefined
+    entry.craneN !== undefined ||
+    entry.craneNBySize !== undefined ||
+    entry.hooper !== undefined ||
+    entry.darby !== undefined ||
+    entry.equivalentLengthFt !== undefined
   );
 }
 

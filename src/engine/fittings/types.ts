@@ -54,7 +54,7 @@ const DARBY = 'R. Darby, Chemical Engineering 106(7) (1999) and Chemical Enginee
  * Cold-expansion rows were not retrieved from any source and copper press-connect losses were not
  * found anywhere, so neither is listed: no value is invented for them.
  */
-const VIEGA_PEX = 'Viega PEX Installation Manual (IM-PF 724596 0416) §10.2, equivalent feet of SDR 9 PEX tubing — manufacturer data, one maker\'s fittings';
+const VIEGA_PEX = "Viega PEX Installation Manual (IM-PF 724596 0416) §10.2, equivalent feet of SDR 9 PEX tubing — manufacturer data, one maker's fittings";
 
 interface PexLine {
   /** The fitting line, in Headroom's words. */
@@ -224,10 +224,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
     label: 'Ball valve, full port, open',
     craneN: 3,
     darby: { K1: 300, Ki: 0.017, Kd: 3.5 },
-    sources: [
-      `crane: N = 3 (ball valve, full bore), ${CRANE_2009}`,
-      `darby-3k: ball valve (β = 1), ${DARBY}`,
-    ],
+    sources: [`crane: N = 3 (ball valve, full bore), ${CRANE_2009}`, `darby-3k: ball valve (β = 1), ${DARBY}`],
   },
   'valve-ball-reduced-port': {
     id: 'valve-ball-reduced-port',
@@ -322,7 +319,9 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
     id: 'entrance-sharp',
     label: 'Entrance, sharp-edged (flush)',
     fixedK: ENTRANCE_SHARP_K,
-    sources: ['fixed K = 0.5: Crane Technical Paper No. 410 (2009); Idelchik, Handbook of Hydraulic Resistance, 4th ed.; Blevins, Applied Fluid Dynamics Handbook (1984)'],
+    sources: [
+      'fixed K = 0.5: Crane Technical Paper No. 410 (2009); Idelchik, Handbook of Hydraulic Resistance, 4th ed.; Blevins, Applied Fluid Dynamics Handbook (1984)',
+    ],
   },
   'entrance-reentrant': {
     id: 'entrance-reentrant',
@@ -341,9 +340,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
 
 /** Sets each entry's `verified` from its source lines (one rule, no hand-kept flag to drift). */
 function withVerified(entries: Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>>): Record<FittingTypeId, FittingTypeEntry> {
-  return Object.fromEntries(
-    Object.entries(entries).map(([id, e]) => [id, { ...e, verified: e.sources.every((line) => !line.includes(NOT_VERIFIED)) }]),
-  );
+  return Object.fromEntries(Object.entries(entries).map(([id, e]) => [id, { ...e, verified: e.sources.every((line) => !line.includes(NOT_VERIFIED)) }]));
 }
 
 for (const entry of Object.values(ENTRIES)) {

@@ -14,8 +14,7 @@ export const HAZEN_WILLIAMS_US_CONSTANT = 4.52;
  * rounded constant. For comparison, NFPA 13's SI form 6.05e5 bar/m (Q in L/min, d in mm, exponents
  * 1.85 and 4.87; from memory) agrees with it to about 0.1 % at plumbing sizes.
  */
-export const HAZEN_WILLIAMS_SI_CONSTANT =
-  (HAZEN_WILLIAMS_US_CONSTANT * (PA_PER_PSI / M_PER_FT) * M_PER_IN ** 4.8704) / M3S_PER_GPM ** 1.852;
+export const HAZEN_WILLIAMS_SI_CONSTANT = (HAZEN_WILLIAMS_US_CONSTANT * (PA_PER_PSI / M_PER_FT) * M_PER_IN ** 4.8704) / M3S_PER_GPM ** 1.852;
 
 /**
  * Hazen–Williams pressure loss in the form the codes print (US pressure form):

@@ -43,12 +43,20 @@ export function closingElementWords(c: ClosingElement): string {
  * feed (recorded on `source.fedFrom.resolution.closedBy` by fedFrom.ts): the water heated cannot
  * push back past them either.
  */
-export function closedSystemCheck(doc: Pick<SystemDocument, 'devices' | 'segments' | 'service'> & { source?: Pick<SystemDocument['source'], 'fedFrom'> }): ClosedSystemCheck {
+export function closedSystemCheck(
+  doc: Pick<SystemDocument, 'devices' | 'segments' | 'service'> & { source?: Pick<SystemDocument['source'], 'fedFrom'> },
+): ClosedSystemCheck {
   const closingElements: ClosingElement[] = [];
   const resolution = doc.source?.fedFrom?.resolution;
   if (resolution?.status === 'resolved') {
     for (const c of resolution.closedBy ?? []) {
-      closingElements.push({ elementType: c.kind === 'check-valve' ? 'fitting' : 'device', elementId: c.elementId, label: c.label, kind: c.kind, coldSystemName: resolution.systemName });
+      closingElements.push({
+        elementType: c.kind === 'check-valve' ? 'fitting' : 'device',
+        elementId: c.elementId,
+        label: c.label,
+        kind: c.kind,
+        coldSystemName: resolution.systemName,
+      });
     }
   }
   for (const d of doc.devices) {

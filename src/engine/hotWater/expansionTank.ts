@@ -58,7 +58,10 @@ export function thermalExpansionTank(input: ExpansionTankInput): ExpansionTankRe
   if (!(heaterVolumeM3 > 0) || !Number.isFinite(heaterVolumeM3)) {
     throw new HotWaterInputError('heater-volume-not-positive', 'heaterVolume', 'The water heater volume must be greater than zero.');
   }
-  for (const [field, t] of [['coldTemperature', coldC], ['hotTemperature', hotC]] as const) {
+  for (const [field, t] of [
+    ['coldTemperature', coldC],
+    ['hotTemperature', hotC],
+  ] as const) {
     if (!(t >= T_MIN_C && t <= T_MAX_C)) {
       throw new HotWaterInputError('temperature-out-of-range', field, `Temperatures must be between ${T_MIN_C} and ${T_MAX_C} °C (liquid water at 1 atm).`);
     }
@@ -68,7 +71,11 @@ export function thermalExpansionTank(input: ExpansionTankInput): ExpansionTankRe
     throw new HotWaterInputError('pressure-out-of-range', 'supplyPressure', 'The supply pressure must be above a vacuum.');
   }
   if (!(reliefPa > supplyPa) || !Number.isFinite(reliefPa)) {
-    throw new HotWaterInputError('relief-not-above-supply', 'reliefPressure', 'The relief (maximum) pressure must be above the supply pressure: the tank could take no water.');
+    throw new HotWaterInputError(
+      'relief-not-above-supply',
+      'reliefPressure',
+      'The relief (maximum) pressure must be above the supply pressure: the tank could take no water.',
+    );
   }
   const densityColdKgM3 = waterProperties(coldC).density;
   const densityHotKgM3 = waterProperties(hotC).density;

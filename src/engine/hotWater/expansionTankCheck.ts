@@ -38,9 +38,16 @@ export function sizeDocumentExpansionTank(doc: Pick<SystemDocument, 'expansionTa
       supplyPa: toSI('pressure', t.supplyPressure, sys),
       reliefPa: toSI('pressure', t.reliefPressure, sys),
     });
-    return { ok: true, tankVolume: result.tankVolumeM3 / m3PerUnit, expansionVolume: result.expansionVolumeM3 / m3PerUnit, volumeUnit: sys === 'US' ? 'gal' : 'L', result };
+    return {
+      ok: true,
+      tankVolume: result.tankVolumeM3 / m3PerUnit,
+      expansionVolume: result.expansionVolumeM3 / m3PerUnit,
+      volumeUnit: sys === 'US' ? 'gal' : 'L',
+      result,
+    };
   } catch (e) {
-    if (e instanceof HotWaterInputError) return { ok: false, error: { code: e.code, field: e.field === null ? null : `expansionTank.${e.field}`, message: e.message } };
+    if (e instanceof HotWaterInputError)
+      return { ok: false, error: { code: e.code, field: e.field === null ? null : `expansionTank.${e.field}`, message: e.message } };
     throw e;
   }
 }

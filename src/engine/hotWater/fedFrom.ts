@@ -64,7 +64,8 @@ export function closingElementsUpstream(a: Analysis, nodeId: string, document?: 
   const out: ClosingElementView[] = [];
   for (const s of path) {
     for (const d of s.devices) {
-      if (CLOSING_DEVICES.has(d.kind)) out.push({ kind: d.kind as 'backflow-preventer' | 'prv', elementId: d.deviceId, label: (d.label || d.deviceId).slice(0, 200) });
+      if (CLOSING_DEVICES.has(d.kind))
+        out.push({ kind: d.kind as 'backflow-preventer' | 'prv', elementId: d.deviceId, label: (d.label || d.deviceId).slice(0, 200) });
     }
     const fittings = docSegments.get(s.id)?.fittings;
     if (Array.isArray(fittings) && fittings.some((f) => f && CHECK_VALVES.has(f.typeId))) {
@@ -82,9 +83,16 @@ function unresolved(code: Unresolved['code'], message: string): Unresolved {
 }
 
 /** The resolution of `fedFrom` against the cold system (null: the cold system is not in the project). */
-export function resolveFedFrom(fedFrom: Pick<FedFrom, 'systemId' | 'nodeId'>, unitSystem: SystemDocument['unitSystem'], cold: ColdSupplyView | null): Resolution {
+export function resolveFedFrom(
+  fedFrom: Pick<FedFrom, 'systemId' | 'nodeId'>,
+  unitSystem: SystemDocument['unitSystem'],
+  cold: ColdSupplyView | null,
+): Resolution {
   if (cold === null || cold.systemId !== fedFrom.systemId) {
-    return unresolved('cold-system-missing', 'The cold-water system this hot system is fed from is not in the project (deleted, or never chosen): choose the cold system and the node that feeds the heater.');
+    return unresolved(
+      'cold-system-missing',
+      'The cold-water system this hot system is fed from is not in the project (deleted, or never chosen): choose the cold system and the node that feeds the heater.',
+    );
   }
   if (cold.service !== 'cold') {
     return unresolved('cold-system-not-cold', `"${cold.name}" is a hot-water system: a hot system is fed from a cold-water system.`);

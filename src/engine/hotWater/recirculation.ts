@@ -38,13 +38,15 @@ export const DEFAULT_FITTING_ALLOWANCE = 0.25;
 
 /** The manufacturer's US form: gpm = Btu/h / (500 × ΔT °F). */
 export function recirculationFlowGpm500(heatLossBtuH: number, temperatureDropF: number): number {
-  if (!(temperatureDropF > 0)) throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', 'The allowed temperature drop must be greater than zero.');
+  if (!(temperatureDropF > 0))
+    throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', 'The allowed temperature drop must be greater than zero.');
   return heatLossBtuH / (500 * temperatureDropF);
 }
 
 /** Q = H/(ρ·c·ΔT), m³/s, with ρ of water at temperatureC (IAPWS-95). */
 export function recirculationFlow(heatLossW: number, temperatureDropK: number, temperatureC: number): number {
-  if (!(temperatureDropK > 0)) throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', 'The allowed temperature drop must be greater than zero.');
+  if (!(temperatureDropK > 0))
+    throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', 'The allowed temperature drop must be greater than zero.');
   if (!(heatLossW >= 0)) throw new HotWaterInputError('heat-loss-missing', 'heatLoss', 'The heat loss must be zero or more.');
   return heatLossW / (waterProperties(temperatureC).density * SPECIFIC_HEAT_BTU_IT_J_PER_KG_K * temperatureDropK);
 }
@@ -131,7 +133,12 @@ export function loopOrder(heaterNodeId: string, segments: readonly LoopSegment[]
   } while (node !== heaterNodeId);
   if (node !== heaterNodeId || order.length !== segments.length) {
     const stray = segments.find((s) => !order.includes(s));
-    throw new HotWaterInputError('loop-not-closed', 'segments', `The recirculation loop is not closed: segment "${stray?.label ?? stray?.id ?? node}" is not on the path from the heater back to it.`, stray?.id ?? node);
+    throw new HotWaterInputError(
+      'loop-not-closed',
+      'segments',
+      `The recirculation loop is not closed: segment "${stray?.label ?? stray?.id ?? node}" is not on the path from the heater back to it.`,
+      stray?.id ?? node,
+    );
   }
   return order;
 }
@@ -150,7 +157,8 @@ export function sizeRecirculation(input: RecirculationInput): RecirculationResul
   const maxG = input.maxFrictionPaPerM ?? RETURN_FRICTION_LIMIT_PA_PER_M;
   const heat = order.map((s) => {
     const h = s.heatLossW ?? (s.heatLossWPerM !== undefined ? s.heatLossWPerM * s.lengthM : undefined);
-    if (h === undefined || !(h >= 0)) throw new HotWaterInputError('heat-loss-missing', 'heatLoss', `Segment "${s.label ?? s.id}" has no heat loss (give W or W per metre).`, s.id);
+    if (h === undefined || !(h >= 0))
+      throw new HotWaterInputError('heat-loss-missing', 'heatLoss', `Segment "${s.label ?? s.id}" has no heat loss (give W or W per metre).`, s.id);
     return h;
   });
   const heatLossW = heat.reduce((a, b) => a + b, 0);
@@ -160,14 +168,26 @@ export function sizeRecirculation(input: RecirculationInput): RecirculationResul
     if (!material) throw new HotWaterInputError('unknown-catalog-entry', 'material', `Material "${s.material}" is not in the catalog.`, s.id);
     const sizes = [...material.sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM);
     let size = s.isReturn ? undefined : sizes.find((z) => z.key === s.size);
-    if (!s.isReturn && !size) throw new HotWaterInputError('size-missing', 'size', `Size "${s.size ?? ''}" of loop pipe "${s.label ?? s.id}" is not in the catalog of ${material.label}.`, s.id);
+    if (!s.isReturn && !size)
+      throw new HotWaterInputError(
+        'size-missing',
+        'size',
+        `Size "${s.size ?? ''}" of loop pipe "${s.label ?? s.id}" is not in the catalog of ${material.label}.`,
+        s.id,
+      );
     const maxVs = s.maxVelocityMs ?? maxV;
     if (s.isReturn) {
       size = sizes.find((z) => {
         const g = frictionGradient(flowM3s, z.innerDiameterM, material.roughnessM, water.density, water.kinematicViscosity);
         return g.v <= maxVs && g.dpdx <= maxG;
       });
-      if (!size) throw new HotWaterInputError('no-size-passes', 'size', `No size of ${material.label} keeps the return "${s.label ?? s.id}" within the velocity and friction limits.`, s.id);
+      if (!size)
+        throw new HotWaterInputError(
+          'no-size-passes',
+          'size',
+          `No size of ${material.label} keeps the return "${s.label ?? s.id}" within the velocity and friction limits.`,
+          s.id,
+        );
     }
     const g = frictionGradient(flowM3s, size!.innerDiameterM, material.roughnessM, water.density, water.kinematicViscosity);
     return {

@@ -87,7 +87,11 @@ export function analyseRecirculation(doc: SystemDocument, criteria: Pick<Criteri
   };
   try {
     if (!(r.temperatureDrop > 0)) {
-      throw new HotWaterInputError('temperature-drop-not-positive', 'temperatureDrop', `The allowed temperature drop around the loop must be greater than zero (it is ${r.temperatureDrop} ${us ? '°F' : 'K'}).`);
+      throw new HotWaterInputError(
+        'temperature-drop-not-positive',
+        'temperatureDrop',
+        `The allowed temperature drop around the loop must be greater than zero (it is ${r.temperatureDrop} ${us ? '°F' : 'K'}).`,
+      );
     }
     for (const s of r.segments) {
       if (s.heatLoss === undefined && r.heatLossPerLength === undefined) {
@@ -128,7 +132,14 @@ export function analyseRecirculation(doc: SystemDocument, criteria: Pick<Criteri
     const labels = UNIT_LABELS[sys];
     return {
       ok: true,
-      units: { flow: labels.flow, pressure: labels.pressure, length: labels.length, velocity: labels.velocity, heat: us ? 'Btu/h' : 'W', temperature: labels.temperature },
+      units: {
+        flow: labels.flow,
+        pressure: labels.pressure,
+        length: labels.length,
+        velocity: labels.velocity,
+        heat: us ? 'Btu/h' : 'W',
+        temperature: labels.temperature,
+      },
       heatLoss: si.heatLossW / heatToW,
       hotTemperature,
       temperatureDrop: r.temperatureDrop,

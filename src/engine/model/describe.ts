@@ -123,11 +123,19 @@ export const value = {
   count: (): Value<z.ZodNumber> => ({ zod: z.number().int().positive(), read: readPositiveInt, shape: { kind: 'count' } }),
   boolean: (): Value<z.ZodBoolean> => ({ zod: z.boolean(), read: readBoolean, shape: { kind: 'boolean' } }),
   /** A string of `min` (at least 1: an id, a source) to `max` characters. */
-  string: (min: number, max: number): Value<z.ZodString> => ({ zod: z.string().min(min).max(max), read: (v) => readBounded(v, min, max), shape: { kind: 'string', min, max } }),
+  string: (min: number, max: number): Value<z.ZodString> => ({
+    zod: z.string().min(min).max(max),
+    read: (v) => readBounded(v, min, max),
+    shape: { kind: 'string', min, max },
+  }),
   /** Text of at most `max` characters, at least one when `nonEmpty`. */
   text: (max: number, opts: { nonEmpty?: boolean } = {}): Value<z.ZodString> => {
     const min = opts.nonEmpty ? 1 : 0;
-    return { zod: opts.nonEmpty ? z.string().max(max).min(1) : z.string().max(max), read: (v) => readBounded(v, min, max), shape: { kind: 'string', min, max } };
+    return {
+      zod: opts.nonEmpty ? z.string().max(max).min(1) : z.string().max(max),
+      read: (v) => readBounded(v, min, max),
+      shape: { kind: 'string', min, max },
+    };
   },
   oneOf: <const T extends readonly [string, ...string[]]>(values: T): Value<z.ZodEnum<{ [K in T[number]]: K }>> => ({
     zod: z.enum(values),
@@ -182,7 +190,8 @@ export interface KeyMeta {
   editor?: readonly string[];
 }
 
-export interface Key<Z extends z.ZodType = z.ZodType> extends Readonly<Required<Pick<KeyMeta, 'label' | 'changedBy'>>>, Readonly<Omit<KeyMeta, 'label' | 'changedBy'>> {
+export interface Key<Z extends z.ZodType = z.ZodType>
+  extends Readonly<Required<Pick<KeyMeta, 'label' | 'changedBy'>>>, Readonly<Omit<KeyMeta, 'label' | 'changedBy'>> {
   readonly zod: Z;
   readonly presence: Presence;
   readonly read: Reader;

@@ -41,7 +41,11 @@ export const CUSTOM_FITTING_K = element('custom fitting (K)', {
 });
 export const CUSTOM_FITTING_EQUIVALENT_LENGTH = element('custom fitting (equivalent length)', {
   label: required(value.text(B.labelLength, { nonEmpty: true }), projectLabel),
-  equivalentLength: required(value.nonNegative(), { label: 'Equivalent length', help: 'Equivalent length of the segment pipe, length unit.', range: 'equivalentLength' }),
+  equivalentLength: required(value.nonNegative(), {
+    label: 'Equivalent length',
+    help: 'Equivalent length of the segment pipe, length unit.',
+    range: 'equivalentLength',
+  }),
   source: required(sourceText(), projectSource),
 });
 
@@ -84,7 +88,13 @@ export const SEGMENT = element('segment', {
     changedBy: 'field-change',
     editor: ['material', 'size'],
   }),
-  length: required(value.positive(), { label: 'Developed length', help: 'Developed length of pipe, length unit.', range: 'length', changedBy: 'field-change', editor: ['length'] }),
+  length: required(value.positive(), {
+    label: 'Developed length',
+    help: 'Developed length of pipe, length unit.',
+    range: 'length',
+    changedBy: 'field-change',
+    editor: ['length'],
+  }),
   rise: optional(value.number(), {
     label: 'Rise',
     help: 'Rise from the upstream to the downstream node, length unit; places the downstream node, so only where that node has neither an elevation nor a floor.',
@@ -92,7 +102,11 @@ export const SEGMENT = element('segment', {
     editor: ['rise'],
   }),
   fittings: withDefault(value.list(value.element(FITTING), B.fittingsPerSegment), [], { label: 'Fittings', changedBy: 'field-change', editor: ['fittings'] }),
-  flowOverride: optional(value.nonNegative(), { label: 'Design flow override', help: 'Design flow to use instead of the fixture-unit demand, flow unit.', range: 'flow' }),
+  flowOverride: optional(value.nonNegative(), {
+    label: 'Design flow override',
+    help: 'Design flow to use instead of the fixture-unit demand, flow unit.',
+    range: 'flow',
+  }),
   reducerAuto: withDefault(value.boolean(), true, {
     label: 'Size-change loss',
     help: 'Add a sudden expansion or contraction loss where the size differs from the feeding segment.',
@@ -136,7 +150,10 @@ export const FIXTURE_GROUP = element('fixture group', {
   count: required(value.count(), { label: 'Count', range: 'fixtureCount' }),
   custom: optional(value.element(CUSTOM_FIXTURE), { label: 'Project data', help: "The fixture type's own data, overriding the catalog's." }),
   demandCurve: optional(value.oneOf(['flush-tank', 'flush-valve']), { label: 'Demand curve', help: "Overrides the fixture type's demand curve." }),
-  wsfuBasis: optional(value.oneOf(['cold', 'hot', 'total']), { label: 'Fixture-unit basis', help: "Which fixture-unit load counts: defaults to the system's service (cold or hot)." }),
+  wsfuBasis: optional(value.oneOf(['cold', 'hot', 'total']), {
+    label: 'Fixture-unit basis',
+    help: "Which fixture-unit load counts: defaults to the system's service (cold or hot).",
+  }),
   usage: optional(value.element(FIXTURE_USAGE), { label: 'Usage', help: "For Hunter's binomial method: flow, duration of use and time between uses." }),
 });
 
@@ -144,7 +161,11 @@ export const CHECKED_FIXTURE = element('checked fixture', {
   id: required(id(), { label: 'Fixture id' }),
   fixtureTypeId: required(id(), { label: 'Fixture type' }),
   label: optional(value.text(B.labelLength), { label: 'Name' }),
-  minFlowPressure: optional(value.nonNegative(), { label: 'Minimum flow pressure', help: 'Overrides the minimum flow pressure, pressure unit.', range: 'minFlowPressure' }),
+  minFlowPressure: optional(value.nonNegative(), {
+    label: 'Minimum flow pressure',
+    help: 'Overrides the minimum flow pressure, pressure unit.',
+    range: 'minFlowPressure',
+  }),
   flowRate: optional(value.positive(), { label: 'Flow rate', help: "Overrides the fixture's flow rate (reported), flow unit.", range: 'fixtureFlow' }),
   expectedCritical: optional(value.boolean(), { label: 'Expected critical', help: 'The designer expects this fixture to be the critical one.' }),
 });
@@ -159,9 +180,17 @@ export const CHECKED_FIXTURE = element('checked fixture', {
 export const NODE = element('node', {
   id: required(id(), { label: 'Node id' }),
   label: optional(value.text(B.labelLength), { label: 'Name' }),
-  elevation: optional(value.number(), { label: 'Elevation', help: 'Absolute elevation, length unit, any datum (the same for all nodes and floors).', range: 'elevation' }),
+  elevation: optional(value.number(), {
+    label: 'Elevation',
+    help: 'Absolute elevation, length unit, any datum (the same for all nodes and floors).',
+    range: 'elevation',
+  }),
   floor: optional(id(), { label: 'Floor', help: 'Id of the floor the node is on (instead of an absolute elevation).' }),
-  heightAboveFloor: optional(value.number(), { label: 'Height above floor', help: 'Height above its floor, length unit (default 0); only with `floor`.', range: 'heightAboveFloor' }),
+  heightAboveFloor: optional(value.number(), {
+    label: 'Height above floor',
+    help: 'Height above its floor, length unit (default 0); only with `floor`.',
+    range: 'heightAboveFloor',
+  }),
   fixtureGroups: withDefault(value.list(value.element(FIXTURE_GROUP), B.fixtureGroupsPerNode), [], { label: 'Fixture groups' }),
   continuousDemand: optional(value.nonNegative(), { label: 'Continuous demand', help: 'Continuous demand drawn at this node, flow unit.', range: 'flow' }),
   checkedFixtures: withDefault(value.list(value.element(CHECKED_FIXTURE), B.checkedFixturesPerNode), [], { label: 'Checked fixtures' }),
@@ -169,5 +198,16 @@ export const NODE = element('node', {
 
 /** Every described element by its constant's name (the generated readers are named after them). */
 export function describedElements(): Record<string, AnyElement> {
-  return { CUSTOM_FITTING_K, CUSTOM_FITTING_EQUIVALENT_LENGTH, FITTING, CUSTOM_PIPE, SEGMENT, CUSTOM_FIXTURE, FIXTURE_USAGE, FIXTURE_GROUP, CHECKED_FIXTURE, NODE };
+  return {
+    CUSTOM_FITTING_K,
+    CUSTOM_FITTING_EQUIVALENT_LENGTH,
+    FITTING,
+    CUSTOM_PIPE,
+    SEGMENT,
+    CUSTOM_FIXTURE,
+    FIXTURE_USAGE,
+    FIXTURE_GROUP,
+    CHECKED_FIXTURE,
+    NODE,
+  };
 }

@@ -18,15 +18,7 @@
  * a test fails while it is stale), so a key added there needs no edit here; the other elements are
  * still read by hand below, with the primitives of describe.ts.
  */
-import type {
-  Boost,
-  Floor,
-  CriteriaOverrides,
-  Device,
-  DeviceLoss,
-  Source,
-  SystemDocument,
-} from './schema';
+import type { Boost, Floor, CriteriaOverrides, Device, DeviceLoss, Source, SystemDocument } from './schema';
 import { DOCUMENT_BOUNDS as B, FED_FROM_CLOSING_MAX, RECIRCULATION_SEGMENTS_MAX, SCHEMA_VERSION } from './schema';
 import {
   DECLINED,

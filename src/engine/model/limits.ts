@@ -224,7 +224,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     integer: false,
     US: { min: 0.1, max: 24 },
     SI: { min: 2.5, max: 600 },
-    why: "Building water pipe runs from 1/4 in tube to a 12 in service (common practice); 0.1–24 in covers them with headroom, and a smaller figure is usually millimetres typed into inches.",
+    why: 'Building water pipe runs from 1/4 in tube to a 12 in service (common practice); 0.1–24 in covers them with headroom, and a smaller figure is usually millimetres typed into inches.',
   },
   roughness: {
     noun: 'roughness',
@@ -388,7 +388,7 @@ export function limitUnit(quantity: LimitQuantity, unitSystem: UnitSystem): stri
 /** Bounds of a quantity in SI base units (Pa, m, m³/s, m/s, °C; Pa per m³/s for fall-off; s). */
 export function siBase(quantity: LimitQuantity): Bounds {
   const lim = LIMITS[quantity];
-  if (quantity === 'pressureFalloff') return { min: lim.SI.min * 1000 / 1e-3, max: lim.SI.max * 1000 / 1e-3 };
+  if (quantity === 'pressureFalloff') return { min: (lim.SI.min * 1000) / 1e-3, max: (lim.SI.max * 1000) / 1e-3 };
   if (!lim.unitQuantity) return { ...lim.SI };
   return { min: toSI(lim.unitQuantity, lim.SI.min, 'SI'), max: toSI(lim.unitQuantity, lim.SI.max, 'SI') };
 }
@@ -396,7 +396,10 @@ export function siBase(quantity: LimitQuantity): Bounds {
 /** "5,000", "-1,000", "0.5": thousands grouped with commas, up to 3 decimals, no locale lookup. */
 export function formatBound(value: number): string {
   const negative = value < 0;
-  const [whole, frac] = Math.abs(value).toFixed(3).replace(/\.?0+$/, '').split('.');
+  const [whole, frac] = Math.abs(value)
+    .toFixed(3)
+    .replace(/\.?0+$/, '')
+    .split('.');
   const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',');
   return `${negative ? '−' : ''}${grouped}${frac ? `.${frac}` : ''}`;
 }

@@ -39,15 +39,3 @@ export function nodeElevations(doc: PositionDoc): Map<string, number | null> {
   }
   return z;
 }
-
-/** Rise of each segment from its two node positions (null where either is unknown). */
-export function segmentRises(doc: PositionDoc): Map<string, number | null> {
-  const z = nodeElevations(doc);
-  const out = new Map<string, number | null>();
-  for (const s of doc.segments) {
-    const a = z.get(s.from);
-    const b = z.get(s.to);
-    out.set(s.id, a === null || a === undefined || b === null || b === undefined ? null : b - a);
-  }
-  return out;
-}

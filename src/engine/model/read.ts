@@ -9,9 +9,7 @@ import { SystemDocumentSchema, type SystemDocument } from './schema';
 import { SystemDocumentSchemaV1 } from './schemaV1';
 import { upgradeDocumentWithReport, type RiseConflict, type RiseConflictRule } from './upgrade';
 
-export type ReadResult =
-  | { success: true; data: SystemDocument; upgradedFrom: 1 | null; conflicts: RiseConflict[] }
-  | { success: false; error: z.ZodError };
+export type ReadResult = { success: true; data: SystemDocument; upgradedFrom: 1 | null; conflicts: RiseConflict[] } | { success: false; error: z.ZodError };
 
 export function readSystemDocument(doc: unknown, options: { riseConflict: RiseConflictRule }): ReadResult {
   const version = doc !== null && typeof doc === 'object' ? (doc as { schemaVersion?: unknown }).schemaVersion : undefined;

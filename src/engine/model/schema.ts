@@ -62,7 +62,13 @@ export const FlowTestSchema = z
  * are the cold system's figures at that node. Unresolved (the cold system or its node missing, or
  * its analysis not computable) makes the verdict Incomplete with the reason.
  */
-export const FED_FROM_UNRESOLVED_CODES = ['cold-system-missing', 'cold-system-not-cold', 'cold-node-missing', 'cold-analysis-missing', 'not-yet-resolved'] as const;
+export const FED_FROM_UNRESOLVED_CODES = [
+  'cold-system-missing',
+  'cold-system-not-cold',
+  'cold-node-missing',
+  'cold-analysis-missing',
+  'not-yet-resolved',
+] as const;
 /** Most closing elements a resolution records (a bound). */
 export const FED_FROM_CLOSING_MAX = 50;
 /** A device or check valve of the cold system upstream of the heater feed, as the resolver read it. */
@@ -88,7 +94,9 @@ export const FedFromSchema = z.strictObject({
           .array(FedFromClosingSchema)
           .max(FED_FROM_CLOSING_MAX)
           .optional()
-          .describe("The cold system's backflow preventers, PRVs and check valves between its source and the node: they close this hot system to thermal expansion."),
+          .describe(
+            "The cold system's backflow preventers, PRVs and check valves between its source and the node: they close this hot system to thermal expansion.",
+          ),
       }),
       z.strictObject({
         status: z.literal('unresolved'),
@@ -156,26 +164,14 @@ export const BoostSchema = z.union([
 
 export const DeviceSchema = z.strictObject({
   id: id(),
-  kind: z.enum([
-    'meter',
-    'backflow-preventer',
-    'prv',
-    'strainer',
-    'softener',
-    'filter',
-    'water-heater',
-    'booster-pump',
-    'other',
-  ]),
+  kind: z.enum(['meter', 'backflow-preventer', 'prv', 'strainer', 'softener', 'filter', 'water-heater', 'booster-pump', 'other']),
   label: label().min(1),
   segmentId: id().describe('The segment at whose inlet the device sits; devices on one segment act in list order.'),
   loss: DeviceLossSchema,
   prv: z
     .strictObject({
       setPressure: positive().describe('Outlet set pressure, pressure unit.'),
-      falloffPerFlow: nonNegative()
-        .default(0)
-        .describe('Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).'),
+      falloffPerFlow: nonNegative().default(0).describe('Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).'),
     })
     .optional()
     .describe('Required when kind is "prv".'),
@@ -238,7 +234,12 @@ export const UNIT_INLET = 'inlet';
 export const UnitNodeSchema = z.strictObject({
   id: id().refine((v) => v !== UNIT_INLET, { message: `"${UNIT_INLET}" names the unit's connection point` }),
   label: label().optional(),
-  heightAboveFloor: z.number().min(0).max(50).default(0).describe('Height above the floor, length unit (0–50, the plausible range of limits.ts in feet; less in metres).'),
+  heightAboveFloor: z
+    .number()
+    .min(0)
+    .max(50)
+    .default(0)
+    .describe('Height above the floor, length unit (0–50, the plausible range of limits.ts in feet; less in metres).'),
   fixtureGroups: z.array(FixtureGroupSchema).max(B.fixtureGroupsPerNode).default([]),
   checkedFixtures: z.array(CheckedFixtureSchema).max(B.checkedFixturesPerNode).default([]),
 });
@@ -312,12 +313,12 @@ export const RECIRCULATION_SEGMENTS_MAX = 500;
 export const RecirculationSegmentSchema = z.strictObject({
   id: id(),
   label: label().optional(),
-  from: id().describe('Node the pipe leaves, toward the loop\'s end: the heater (the source node), a node of the hot tree, or a return-only node.'),
+  from: id().describe("Node the pipe leaves, toward the loop's end: the heater (the source node), a node of the hot tree, or a return-only node."),
   to: id().describe('Node the pipe reaches; the last pipe of the loop reaches the heater (the source node).'),
   length: positive().describe('Developed length of pipe, length unit.'),
   material: id().describe('Material id from the materials catalog.'),
   size: id().optional().describe('Nominal size key; leave out (on the return) to have the smallest size within the velocity and friction limits chosen.'),
-  heatLoss: nonNegative().optional().describe('Heat lost by this pipe, Btu/h (US) or W (SI); without it the loop\'s heat loss per length applies.'),
+  heatLoss: nonNegative().optional().describe("Heat lost by this pipe, Btu/h (US) or W (SI); without it the loop's heat loss per length applies."),
 });
 
 /**
@@ -327,10 +328,17 @@ export const RecirculationSegmentSchema = z.strictObject({
  */
 export const RecirculationSchema = z.strictObject({
   segments: z.array(RecirculationSegmentSchema).max(RECIRCULATION_SEGMENTS_MAX).describe('The loop, from the heater back to it.'),
-  heatLossPerLength: nonNegative().optional().describe('Heat lost per length of loop pipe, Btu/h per ft (US) or W/m (SI), for pipes without their own heat loss.'),
+  heatLossPerLength: nonNegative()
+    .optional()
+    .describe('Heat lost per length of loop pipe, Btu/h per ft (US) or W/m (SI), for pipes without their own heat loss.'),
   temperatureDrop: finite().describe('Temperature drop allowed around the loop, °F (US) or K (SI); must be above zero.'),
-  hotTemperature: finite().optional().describe('Temperature leaving the heater, °F or °C; default the system\'s water temperature.'),
-  fittingAllowance: z.number().min(0).max(5).optional().describe('Fittings and valves as a fraction of the loop\'s pipe friction, for the pump head (default 0.25, a designers\' rule of thumb).'),
+  hotTemperature: finite().optional().describe("Temperature leaving the heater, °F or °C; default the system's water temperature."),
+  fittingAllowance: z
+    .number()
+    .min(0)
+    .max(5)
+    .optional()
+    .describe("Fittings and valves as a fraction of the loop's pipe friction, for the pump head (default 0.25, a designers' rule of thumb)."),
   heaterLoss: nonNegative().optional().describe('Pressure lost through the heater at the loop flow, pressure unit (default 0).'),
 });
 

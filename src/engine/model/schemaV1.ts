@@ -46,10 +46,7 @@ export const SourceSchemaV1 = z.strictObject({
   nodeId: id().describe('The node where the water enters; its elevation is the connection elevation.'),
   staticPressureLow: nonNegative().describe('Lowest expected static pressure at the connection, pressure unit.'),
   staticPressureHigh: nonNegative().describe('Highest expected static pressure at the connection, pressure unit.'),
-  pressureBasis: z
-    .string()
-    .min(1)
-    .describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
+  pressureBasis: z.string().min(1).describe('Where the pressure figures came from: utility letter, flow test, gauge reading, ...'),
   pressureDate: z.string().optional().describe('Date of the pressure figures (ISO 8601).'),
   flowTest: FlowTestSchemaV1.optional(),
 });
@@ -70,26 +67,14 @@ export const DeviceLossSchemaV1 = z.discriminatedUnion('kind', [
 
 export const DeviceSchemaV1 = z.strictObject({
   id: id(),
-  kind: z.enum([
-    'meter',
-    'backflow-preventer',
-    'prv',
-    'strainer',
-    'softener',
-    'filter',
-    'water-heater',
-    'booster-pump',
-    'other',
-  ]),
+  kind: z.enum(['meter', 'backflow-preventer', 'prv', 'strainer', 'softener', 'filter', 'water-heater', 'booster-pump', 'other']),
   label: z.string().min(1),
   segmentId: id().describe('The segment at whose inlet the device sits; devices on one segment act in list order.'),
   loss: DeviceLossSchemaV1,
   prv: z
     .strictObject({
       setPressure: positive().describe('Outlet set pressure, pressure unit.'),
-      falloffPerFlow: nonNegative()
-        .default(0)
-        .describe('Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).'),
+      falloffPerFlow: nonNegative().default(0).describe('Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).'),
     })
     .optional()
     .describe('Required when kind is "prv".'),
@@ -123,10 +108,7 @@ export const FixtureGroupSchemaV1 = z.strictObject({
   count: z.number().int().positive(),
   custom: CustomFixtureSchemaV1.optional().describe("The fixture type's own data, overriding the catalog's."),
   demandCurve: DemandCurveSchemaV1.optional().describe("Overrides the fixture type's demand curve."),
-  wsfuBasis: z
-    .enum(['cold', 'hot', 'total'])
-    .optional()
-    .describe("Which fixture-unit load counts: defaults to the system's service (cold or hot)."),
+  wsfuBasis: z.enum(['cold', 'hot', 'total']).optional().describe("Which fixture-unit load counts: defaults to the system's service (cold or hot)."),
   usage: z
     .strictObject({
       flow: positive().optional().describe("Flow while in use, flow unit; defaults to the fixture type's flow."),
@@ -204,18 +186,13 @@ export const SegmentSchemaV1 = z.strictObject({
   from: id().describe('Upstream node (toward the source).'),
   to: id().describe('Downstream node.'),
   material: z.string().min(1).optional().describe('Material id from the materials catalog (with size).'),
-  size: z.string().min(1).optional().describe("Nominal size key in the material's catalog, e.g. \"3/4\"."),
+  size: z.string().min(1).optional().describe('Nominal size key in the material\'s catalog, e.g. "3/4".'),
   custom: CustomPipeSchemaV1.optional().describe('Instead of material and size: a pipe given by its own data.'),
   length: positive().describe('Developed length of pipe, length unit.'),
-  rise: finite()
-    .optional()
-    .describe('Rise from the upstream to the downstream node, length unit; checked against the node elevations.'),
+  rise: finite().optional().describe('Rise from the upstream to the downstream node, length unit; checked against the node elevations.'),
   fittings: z.array(FittingSchemaV1).default([]),
   flowOverride: nonNegative().optional().describe('Design flow to use instead of the fixture-unit demand, flow unit.'),
-  reducerAuto: z
-    .boolean()
-    .default(true)
-    .describe('Add a sudden expansion or contraction loss where the size differs from the feeding segment.'),
+  reducerAuto: z.boolean().default(true).describe('Add a sudden expansion or contraction loss where the size differs from the feeding segment.'),
 });
 
 export const CriteriaOverridesSchemaV1 = z
@@ -226,17 +203,12 @@ export const CriteriaOverridesSchemaV1 = z
       .array(z.strictObject({ material: VelocityClassSchemaV1, service: ServiceSchemaV1, maxVelocity: positive() }))
       .optional()
       .describe('Replace the default limit of each material class and service listed.'),
-    minFlowPressures: z
-      .record(z.string(), nonNegative())
-      .optional()
-      .describe('Minimum flow pressure per fixture type id, pressure unit.'),
+    minFlowPressures: z.record(z.string(), nonNegative()).optional().describe('Minimum flow pressure per fixture type id, pressure unit.'),
     demandCurve: z.enum(['auto', 'flush-tank', 'flush-valve']).optional(),
     demandMethod: z.enum(['hunter-table', 'hunter-binomial']).optional(),
     frictionMethod: z.enum(['colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams']).optional(),
     fittingMethod: z.enum(['crane', 'hooper-2k', 'darby-3k', 'equivalent-length']).optional(),
-    riseTolerance: nonNegative()
-      .optional()
-      .describe('Allowed difference between a rise and its node elevations, length unit.'),
+    riseTolerance: nonNegative().optional().describe('Allowed difference between a rise and its node elevations, length unit.'),
   })
   .describe("Overrides of the engine's default criteria; the local code governs.");
 

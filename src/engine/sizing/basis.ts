@@ -54,7 +54,10 @@ export function sizingBasisOf({ sized, result, marginPa, scope, at }: SizingBasi
     margin: fromSI('pressure', marginPa, sys),
     supplyPressure: fromSI('pressure', result.conditions.supplyPressurePa, sys),
     velocityLimits: result.conditions.velocityLimits
-      .filter((v): v is { material: 'copper' | 'plastic' | 'steel'; maxVelocityMs: number } => v.material === 'copper' || v.material === 'plastic' || v.material === 'steel')
+      .filter(
+        (v): v is { material: 'copper' | 'plastic' | 'steel'; maxVelocityMs: number } =>
+          v.material === 'copper' || v.material === 'plastic' || v.material === 'steel',
+      )
       .map((v) => ({ material: v.material, maxVelocity: fromSI('velocity', v.maxVelocityMs, sys) })),
     segmentsChanged: result.segments.filter((r) => r.after !== null && r.after !== r.before).length,
     segmentsLocked: result.segments.filter((r) => r.governing === 'locked').length,
@@ -102,6 +105,9 @@ export function sizingBasisText(doc: SystemDocument): string {
     `at the minimum supply pressure of ${p(b.supplyPressure)} at the design flow;`,
     `${plural(b.segmentsChanged, 'segment', 'segments')} changed size and ${plural(b.segmentsLocked, 'segment was', 'segments were')} kept at ${b.segmentsLocked === 1 ? 'its' : 'their'} locked size.`,
   ];
-  if (state.edited) words.push('Pipe sizes or materials have been edited since that sizing, so some sizes may not be the ones it chose; the checks in this summary are of the sizes as they are now.');
+  if (state.edited)
+    words.push(
+      'Pipe sizes or materials have been edited since that sizing, so some sizes may not be the ones it chose; the checks in this summary are of the sizes as they are now.',
+    );
   return words.join(' ');
 }

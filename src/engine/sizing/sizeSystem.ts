@@ -151,7 +151,8 @@ export interface SizingResult {
   timings: { analysesMs: number; searchMs: number; totalMs: number };
 }
 
-export type SizingErrorCode = 'nothing-to-size' | 'all-locked' | 'unknown-material' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
+export type SizingErrorCode =
+  'nothing-to-size' | 'all-locked' | 'unknown-material' | 'analysis-incomplete' | 'unknown-segment' | 'unknown-size' | 'negative-margin';
 
 /** Sizing cannot start: names the cause and, where there is one, the element. */
 export class SizingError extends Error {
@@ -234,7 +235,8 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     }
     // The designer's smallest size (segment `minSize`): no candidate below its inside diameter.
     const floorSize = s.minSize === undefined ? undefined : material.sizes.find((z) => z.key === s.minSize);
-    if (s.minSize !== undefined && !floorSize) throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
+    if (s.minSize !== undefined && !floorSize)
+      throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
     const sizes = [...material.sizes]
       .filter((z) => (!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM))
       .filter((z) => fittingsHaveData(s, z))
@@ -246,7 +248,11 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   if (candidates.size === 0) {
     const inScope = doc.segments.filter((s) => (!selected || selected.has(s.id)) && s.material && s.size && !s.custom);
     if (inScope.length > 0 && inScope.every((s) => locked.has(s.id))) {
-      const names = inScope.slice(0, 3).map((s) => `"${s.label ?? s.id}"`).join(', ') + (inScope.length > 3 ? ` and ${inScope.length - 3} more` : '');
+      const names =
+        inScope
+          .slice(0, 3)
+          .map((s) => `"${s.label ?? s.id}"`)
+          .join(', ') + (inScope.length > 3 ? ` and ${inScope.length - 3} more` : '');
       throw new SizingError(
         'all-locked',
         `Every segment ${selected ? 'selected' : 'of the system'} is locked (${names}): nothing can be sized and nothing was changed. Unlock a segment or select others.`,
@@ -379,7 +385,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       fixtureId: f.id,
       label: f.label,
       beforePa: f.margin,
-      afterPa: after ? after.si.fixtures[i]?.margin ?? null : null,
+      afterPa: after ? (after.si.fixtures[i]?.margin ?? null) : null,
     }));
   const volumeBefore = [...free.values()].reduce((sum, fr) => {
     const d = MATERIALS[fr.material].sizes.find((z) => z.key === doc.segments[fr.docIndex].size)!.innerDiameterM;
@@ -440,7 +446,17 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   let sized: SystemDocument | null = null;
   for (let round = 0; round <= MAX_REPAIRS; round++) {
     const searchStart = performance.now();
-    const best = search(order, children, free, cuts, leafNeed, allSlack.map((s, i) => s - adjust[i]), minAbove, maxAbove, roots);
+    const best = search(
+      order,
+      children,
+      free,
+      cuts,
+      leafNeed,
+      allSlack.map((s, i) => s - adjust[i]),
+      minAbove,
+      maxAbove,
+      roots,
+    );
     searchMs += performance.now() - searchStart;
     if (!best) break;
     chosen = best;
@@ -471,7 +487,9 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   }
 
   const passes = (a: Analysis | null) =>
-    a !== null && a.si.fixtures.every((f) => f.residual - f.required >= marginPa * (1 - 1e-9) - 1e-6) && [...free.keys()].every((e) => a.si.segments[e].velocityPass !== false);
+    a !== null &&
+    a.si.fixtures.every((f) => f.residual - f.required >= marginPa * (1 - 1e-9) - 1e-6) &&
+    [...free.keys()].every((e) => a.si.segments[e].velocityPass !== false);
   const verified = passes(after);
   const allVelocity = [...free.values()].every((f) => f.velocityMet);
   // The fixture that holds a segment at its size: the one with the least slack left among the fixtures its loss counts for.
@@ -519,7 +537,14 @@ function fittingsHaveData(s: SystemDocument['segments'][number], z: { key: strin
     if (!entry) return true;
     try {
       // a nominal flow state (Re 1e5, f 0.02: turbulent, common practice) only to ask whether data exist
-      fittingKOfEntry(entry, { method: 'crane', innerDiameterM: z.innerDiameterM, nominalSizeIn: z.nominalIn, nominalSizeKey: z.key, Re: 1e5, frictionFactor: 0.02 });
+      fittingKOfEntry(entry, {
+        method: 'crane',
+        innerDiameterM: z.innerDiameterM,
+        nominalSizeIn: z.nominalIn,
+        nominalSizeKey: z.key,
+        Re: 1e5,
+        frictionFactor: 0.02,
+      });
       return true;
     } catch {
       return false;
@@ -616,7 +641,9 @@ function deviceHolds(doc: SystemDocument, analysis: Analysis, segIndex: Map<stri
     const flow = seg.designFlow;
     const own = d.loss.kind === 'fixed' ? (flow > 0 ? toSI('pressure', d.loss.loss, doc.unitSystem) : 0) : ownCurveLossPa(d.loss.points, flow, doc.unitSystem);
     if (isPrv) {
-      const target = toSI('pressure', d.prv!.setPressure, doc.unitSystem) - toSI('pressure', d.prv!.falloffPerFlow, doc.unitSystem) / toSI('flow', 1, doc.unitSystem) * flow;
+      const target =
+        toSI('pressure', d.prv!.setPressure, doc.unitSystem) -
+        (toSI('pressure', d.prv!.falloffPerFlow, doc.unitSystem) / toSI('flow', 1, doc.unitSystem)) * flow;
       out.set(e, { kind: 'prv', holdSlackPa: p - own - target });
     } else {
       const set = toSI('pressure', (d.boost as { setPressure: number }).setPressure, doc.unitSystem);
@@ -628,7 +655,10 @@ function deviceHolds(doc: SystemDocument, analysis: Analysis, segIndex: Map<stri
 
 /** A device's own loss from its curve at a flow (m³/s), Pa: the analysis's own curve reading (devices/lossCurve.ts). */
 function ownCurveLossPa(points: readonly { flow: number; loss: number }[], flowSI: number, system: SystemDocument['unitSystem']): number {
-  return lossCurveAt(points.map((q) => ({ flowM3s: toSI('flow', q.flow, system), lossPa: toSI('pressure', q.loss, system) })), flowSI).lossPa;
+  return lossCurveAt(
+    points.map((q) => ({ flowM3s: toSI('flow', q.flow, system), lossPa: toSI('pressure', q.loss, system) })),
+    flowSI,
+  ).lossPa;
 }
 
 /**
@@ -644,7 +674,18 @@ function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: nu
   const sourceNode = doc.nodes.find((n) => n.id === doc.source.nodeId)!;
   const twins = jobs.map(({ docIndex, size, k }) => {
     const s = doc.segments[docIndex];
-    return { ...s, id: probeId(s.id, k), label: undefined, from: sourceNode.id, to: probeId(s.to, k), size, rise: 0, flowOverride: flow.get(s.id) ?? 0, reducerAuto: false, sizeLocked: undefined };
+    return {
+      ...s,
+      id: probeId(s.id, k),
+      label: undefined,
+      from: sourceNode.id,
+      to: probeId(s.to, k),
+      size,
+      rise: 0,
+      flowOverride: flow.get(s.id) ?? 0,
+      reducerAuto: false,
+      sizeLocked: undefined,
+    };
   });
   const twinNodes = twins.map((t) => ({ id: t.to, fixtureGroups: [], checkedFixtures: [] }));
   return {
@@ -712,7 +753,12 @@ function describe({ doc, segs, segIndex, free, locked, selected, chosen, governi
       worstFixture:
         w === undefined
           ? null
-          : { fixtureId: fixtures[w].id, label: fixtures[w].label, marginBeforePa: fixtures[w].margin, marginAfterPa: after ? after.si.fixtures[w].margin : null },
+          : {
+              fixtureId: fixtures[w].id,
+              label: fixtures[w].label,
+              marginBeforePa: fixtures[w].margin,
+              marginAfterPa: after ? after.si.fixtures[w].margin : null,
+            },
     };
     if (locked.has(s.id)) return { ...base, after: before, governing: 'locked' as const, velocityMet: seg?.velocityPass !== false };
     if (!fr || (selected && !selected.has(s.id))) return { ...base, after: before, governing: 'unchanged' as const, velocityMet: seg?.velocityPass !== false };
@@ -721,7 +767,8 @@ function describe({ doc, segs, segIndex, free, locked, selected, chosen, governi
     return {
       ...base,
       after: chosen ? fr.sizes[k] : before,
-      governing: g !== undefined ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label } : fr.velocityRemoved ? ('velocity' as const) : ('smallest' as const),
+      governing:
+        g !== undefined ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label } : fr.velocityRemoved ? ('velocity' as const) : ('smallest' as const),
       velocityMet: fr.velocityMet,
     };
   });

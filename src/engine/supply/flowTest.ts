@@ -52,9 +52,7 @@ export function flowTestFlowAtResidual(residualPa: number, test: FlowTest): numb
   requireNonNegative('flowTestFlowAtResidual', 'residualPa', residualPa);
   checkTest('flowTestFlowAtResidual', test);
   if (residualPa > test.staticPa) {
-    throw new RangeError(
-      `flowTestFlowAtResidual: desired residual (${residualPa} Pa) exceeds static pressure (${test.staticPa} Pa)`,
-    );
+    throw new RangeError(`flowTestFlowAtResidual: desired residual (${residualPa} Pa) exceeds static pressure (${test.staticPa} Pa)`);
   }
   const hr = test.staticPa - residualPa;
   const hf = test.staticPa - test.residualPa;

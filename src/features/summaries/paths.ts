@@ -13,8 +13,7 @@ export const summaryPaths = {
   /** one issued revision's summary: PDF, sending, messages, reviews (and the inspector's review form) */
   revisionSummary: {
     path: '/projects/:projectId/systems/:systemId/revisions/:revisionId/summary',
-    getHref: (projectId: string, systemId: string, revisionId: string) =>
-      `/projects/${e(projectId)}/systems/${e(systemId)}/revisions/${e(revisionId)}/summary`,
+    getHref: (projectId: string, systemId: string, revisionId: string) => `/projects/${e(projectId)}/systems/${e(systemId)}/revisions/${e(revisionId)}/summary`,
   },
   /** administrators, development only: the messages the local SMTP sink caught */
   devMail: {

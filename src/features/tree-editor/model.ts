@@ -36,11 +36,6 @@ export function fittingsSummary(fittings: readonly Fitting[]): string {
   return fittings.map((f) => `${f.count}× ${fittingLabel(f)}`).join(', ');
 }
 
-export function materialLabel(id: string | undefined): string {
-  if (!id) return '';
-  return MATERIALS[id as keyof typeof MATERIALS]?.label ?? id;
-}
-
 /** The rows of the tree, in tree order (pre-order from the source), with the size of each subtree. */
 export function treeRows(doc: SystemDocument): TreeRow[] {
   const order = treeOrder(doc.segments, doc.source.nodeId);
@@ -52,7 +47,20 @@ export function treeRows(doc: SystemDocument): TreeRow[] {
     const toNode = nodes.get(s.to);
     const floorId = toNode?.floor ?? nodes.get(s.from)?.floor ?? null;
     const floor = floorId ? floors.get(floorId) : undefined;
-    return { id: s.id, index, position, depth, name: s.label || s.id, fromName: nameOf(s.from), toName: nameOf(s.to), toId: s.to, toOnFloor: toNode?.floor !== undefined, below: 0, floorId, floorLabel: floor ? floor.name || floor.id : floorId };
+    return {
+      id: s.id,
+      index,
+      position,
+      depth,
+      name: s.label || s.id,
+      fromName: nameOf(s.from),
+      toName: nameOf(s.to),
+      toId: s.to,
+      toOnFloor: toNode?.floor !== undefined,
+      below: 0,
+      floorId,
+      floorLabel: floor ? floor.name || floor.id : floorId,
+    };
   });
   // pre-order: a row's subtree is the rows after it that are deeper than it
   // (one pass: a row leaving the stack hands its count and itself to the row under it)
@@ -71,15 +79,18 @@ export function treeRows(doc: SystemDocument): TreeRow[] {
 
 /** A line of the editor: a segment's row, or a floor's heading when grouped by floor. */
 export type TreeLine =
-  | { kind: 'segment'; row: TreeRow; hiddenBelow: number }
-  | { kind: 'floor'; floorId: string; label: string; count: number; collapsed: boolean };
+  { kind: 'segment'; row: TreeRow; hiddenBelow: number } | { kind: 'floor'; floorId: string; label: string; count: number; collapsed: boolean };
 
 /**
  * The lines left visible: a collapsed branch hides its subtree (its line says how many); grouped by
  * floor, each floor (in the document's floor order, then "no floor") is a heading whose segments
  * follow in tree order unless the floor is collapsed.
  */
-export function visibleLines(rows: readonly TreeRow[], collapsed: ReadonlySet<string>, byFloor: { floors: readonly { id: string; name?: string }[]; collapsed: ReadonlySet<string> } | null): TreeLine[] {
+export function visibleLines(
+  rows: readonly TreeRow[],
+  collapsed: ReadonlySet<string>,
+  byFloor: { floors: readonly { id: string; name?: string }[]; collapsed: ReadonlySet<string> } | null,
+): TreeLine[] {
   if (byFloor) {
     const NO_FLOOR = '';
     const groups = new Map<string, TreeRow[]>();
@@ -210,6 +221,9 @@ export function deviceFromTemplate(
     kind: k,
     label: template.label,
     segmentId,
-    loss: { kind: 'curve', points: template.data.points.map((p) => ({ flow: roundedFromSI('flow', p.flowM3s, sys), loss: roundedFromSI('pressure', p.lossPa, sys) })) },
+    loss: {
+      kind: 'curve',
+      points: template.data.points.map((p) => ({ flow: roundedFromSI('flow', p.flowM3s, sys), loss: roundedFromSI('pressure', p.lossPa, sys) })),
+    },
   } as Device;
 }

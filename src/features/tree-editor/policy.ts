@@ -24,7 +24,8 @@ const AS_ISSUED = 'Stays as the designer issued it: a field change substitutes p
 
 /** The segment's keys, by the editor columns that write them (from the segment's description). */
 const SEGMENT_KEYS_BY_PART = new Map<EditablePart, { key: string; changedBy: ChangedBy }[]>(EDITABLE_PARTS.map((p) => [p, []]));
-for (const [key, d] of Object.entries(SEGMENT.keys)) for (const part of d.editor ?? []) SEGMENT_KEYS_BY_PART.get(part as EditablePart)?.push({ key, changedBy: d.changedBy });
+for (const [key, d] of Object.entries(SEGMENT.keys))
+  for (const part of d.editor ?? []) SEGMENT_KEYS_BY_PART.get(part as EditablePart)?.push({ key, changedBy: d.changedBy });
 
 /**
  * A contractor's field change: the columns that write only segment keys a field change may change

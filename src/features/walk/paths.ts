@@ -6,8 +6,7 @@ import type { WalkStepId } from './steps';
 
 const e = encodeURIComponent;
 const system = (projectId: string, systemId: string) => `/projects/${e(projectId)}/systems/${e(systemId)}`;
-const revision = (projectId: string, systemId: string, revisionId: string) =>
-  `${system(projectId, systemId)}/revisions/${e(revisionId)}`;
+const revision = (projectId: string, systemId: string, revisionId: string) => `${system(projectId, systemId)}/revisions/${e(revisionId)}`;
 
 export const walkPaths = {
   system: {
@@ -21,8 +20,7 @@ export const walkPaths = {
   },
   step: {
     path: '/projects/:projectId/systems/:systemId/revisions/:revisionId/:step',
-    getHref: (projectId: string, systemId: string, revisionId: string, step: WalkStepId) =>
-      `${revision(projectId, systemId, revisionId)}/${e(step)}`,
+    getHref: (projectId: string, systemId: string, revisionId: string, step: WalkStepId) => `${revision(projectId, systemId, revisionId)}/${e(step)}`,
   },
   table: {
     path: '/projects/:projectId/systems/:systemId/revisions/:revisionId/table',

@@ -222,8 +222,26 @@ export const ComparisonResponse = z.object({
       id: z.string(),
       label: z.string(),
       changes: z.array(ChangeField),
-      issued: z.object({ frictionLoss: z.number(), fittingLoss: z.number(), loss: z.number(), velocity: z.number(), velocityPass: z.boolean().nullable(), designFlow: z.number() }).nullable(),
-      proposed: z.object({ frictionLoss: z.number(), fittingLoss: z.number(), loss: z.number(), velocity: z.number(), velocityPass: z.boolean().nullable(), designFlow: z.number() }).nullable(),
+      issued: z
+        .object({
+          frictionLoss: z.number(),
+          fittingLoss: z.number(),
+          loss: z.number(),
+          velocity: z.number(),
+          velocityPass: z.boolean().nullable(),
+          designFlow: z.number(),
+        })
+        .nullable(),
+      proposed: z
+        .object({
+          frictionLoss: z.number(),
+          fittingLoss: z.number(),
+          loss: z.number(),
+          velocity: z.number(),
+          velocityPass: z.boolean().nullable(),
+          designFlow: z.number(),
+        })
+        .nullable(),
       lossDifference: z.number().nullable(),
       velocityDifference: z.number().nullable(),
     }),
@@ -240,9 +258,27 @@ export const ComparisonResponse = z.object({
     }),
   ),
   /** warnings of the new run whose code + element the issued run does not have */
-  newWarnings: z.array(z.object({ code: z.string(), severity: z.string(), message: z.string(), elementType: z.string(), elementId: z.string().nullable(), detail: z.string().nullable() })),
+  newWarnings: z.array(
+    z.object({
+      code: z.string(),
+      severity: z.string(),
+      message: z.string(),
+      elementType: z.string(),
+      elementId: z.string().nullable(),
+      detail: z.string().nullable(),
+    }),
+  ),
   /** warnings of the issued run that the change removes */
-  resolvedWarnings: z.array(z.object({ code: z.string(), severity: z.string(), message: z.string(), elementType: z.string(), elementId: z.string().nullable(), detail: z.string().nullable() })),
+  resolvedWarnings: z.array(
+    z.object({
+      code: z.string(),
+      severity: z.string(),
+      message: z.string(),
+      elementType: z.string(),
+      elementId: z.string().nullable(),
+      detail: z.string().nullable(),
+    }),
+  ),
 });
 export type ComparisonResponse = z.infer<typeof ComparisonResponse>;
 

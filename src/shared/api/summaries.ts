@@ -28,7 +28,6 @@
 import { z } from 'zod';
 import { Email } from './auth';
 import { PermitFields, ProjectParams } from './projects';
-import { RevisionParams } from './systems';
 
 /** The cautions printed in every summary and shown beside a result (plain words; DESIGN.md "Cautions"). */
 export const SUMMARY_CAUTIONS = [
@@ -216,10 +215,20 @@ export type AuditEntry = z.infer<typeof AuditEntry>;
 export const AuditResponse = z.object({ entries: z.array(AuditEntry), nextBefore: z.number().int().nullable() });
 
 /** ?to= keeps the messages sent to that address; newest first */
-export const DevMailListQuery = z.object({ to: z.string().trim().toLowerCase().max(254).optional(), limit: z.coerce.number().int().min(1).max(500).default(100) });
+export const DevMailListQuery = z.object({
+  to: z.string().trim().toLowerCase().max(254).optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
 export const DevMailParams = z.object({ mailId: z.coerce.number().int().positive() });
 export const DevMailAttachmentParams = DevMailParams.extend({ index: z.coerce.number().int().min(0) });
-export const DevMailAttachment = z.object({ index: z.number().int(), filename: z.string(), contentType: z.string(), size: z.number().int(), sha256: z.string(), url: z.string() });
+export const DevMailAttachment = z.object({
+  index: z.number().int(),
+  filename: z.string(),
+  contentType: z.string(),
+  size: z.number().int(),
+  sha256: z.string(),
+  url: z.string(),
+});
 export const DevMail = z.object({
   id: z.number().int(),
   receivedAt: z.string(),
@@ -234,9 +243,6 @@ export const DevMail = z.object({
 });
 export type DevMail = z.infer<typeof DevMail>;
 export const DevMailListResponse = z.object({ messages: z.array(DevMail) });
-export const DevMailResponse = z.object({ message: DevMail });
-
-export { RevisionParams };
 
 /** The client path of a revision's read-only result view (also linked from the e-mail). */
 export const resultViewPath = (projectId: string, systemId: string, revisionId: string) =>

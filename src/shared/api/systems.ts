@@ -65,7 +65,10 @@ export const IssueBody = z
         statement: z
           .string()
           .trim()
-          .min(FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH, `In your own words (at least ${FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH} characters), say why this revision is issued although it fails`)
+          .min(
+            FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH,
+            `In your own words (at least ${FAILURE_ACKNOWLEDGEMENT_MIN_LENGTH} characters), say why this revision is issued although it fails`,
+          )
           .max(2000),
       })
       .strict()
@@ -138,7 +141,10 @@ export type RevisionOrigin = z.infer<typeof RevisionOrigin>;
 export type AnalysisOutcome = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputErrorJSON };
 /** Checked only for its shape's root: the server builds it from the engine's own types. */
 export const AnalysisOutcome = z.custom<AnalysisOutcome>(
-  (v) => typeof v === 'object' && v !== null && ((v as { ok?: unknown }).ok === true ? typeof (v as { analysis?: unknown }).analysis === 'object' : typeof (v as { error?: unknown }).error === 'object'),
+  (v) =>
+    typeof v === 'object' &&
+    v !== null &&
+    ((v as { ok?: unknown }).ok === true ? typeof (v as { analysis?: unknown }).analysis === 'object' : typeof (v as { error?: unknown }).error === 'object'),
   'Not an analysis outcome',
 );
 
@@ -197,7 +203,15 @@ export const CompareResponse = z.object({
   a: RevisionSummary,
   b: RevisionSummary,
   fixtures: z.array(
-    z.object({ id: z.string(), label: z.string(), marginA: z.number().nullable(), marginB: z.number().nullable(), delta: z.number().nullable(), passA: z.boolean().nullable(), passB: z.boolean().nullable() }),
+    z.object({
+      id: z.string(),
+      label: z.string(),
+      marginA: z.number().nullable(),
+      marginB: z.number().nullable(),
+      delta: z.number().nullable(),
+      passA: z.boolean().nullable(),
+      passB: z.boolean().nullable(),
+    }),
   ),
   segments: z.array(z.object({ id: z.string(), change: z.enum(['added', 'removed', 'changed']), fields: z.array(z.string()) })),
   pressureUnit: z.string(),
@@ -205,4 +219,6 @@ export const CompareResponse = z.object({
 export type CompareResponse = z.infer<typeof CompareResponse>;
 
 /** The result tables a revision exports for the engineer's report (GET …/export/:table.csv, …/export.xlsx). */
-export const ExportTableParams = RevisionParams.extend({ table: z.enum(['segments', 'fixtures', 'ledgers'], { error: 'Choose segments, fixtures or ledgers' }) });
+export const ExportTableParams = RevisionParams.extend({
+  table: z.enum(['segments', 'fixtures', 'ledgers'], { error: 'Choose segments, fixtures or ledgers' }),
+});

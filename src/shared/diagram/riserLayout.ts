@@ -123,7 +123,13 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
   // floors as the document names them; else the levels where risers end
   const levels: DiagramLevel[] = doc.floors.length
     ? [...doc.floors].sort((x, y) => x.elevation - y.elevation).map((f) => ({ name: f.name, elevation: f.elevation }))
-    : [...new Map([doc.source.nodeId, ...a.segments.filter(isRiser).map((s) => s.to)].reverse().map((id) => [Math.round((elevation.get(id) ?? 0) * 10) / 10, nodeLabel.get(id) ?? 'level'])).entries()]
+    : [
+        ...new Map(
+          [doc.source.nodeId, ...a.segments.filter(isRiser).map((s) => s.to)]
+            .reverse()
+            .map((id) => [Math.round((elevation.get(id) ?? 0) * 10) / 10, nodeLabel.get(id) ?? 'level']),
+        ).entries(),
+      ]
         .sort((x, y) => x[0] - y[0])
         .map(([e, name]) => ({ name, elevation: e }));
   const levelOf = (e: number): DiagramLevel | null => {
@@ -148,7 +154,8 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
         // a riser keeps its column; every level it passes keeps clear of it
         const lo = Math.min(elevation.get(s.from) ?? 0, elevation.get(s.to) ?? 0);
         const hi = Math.max(elevation.get(s.from) ?? 0, elevation.get(s.to) ?? 0);
-        for (const l of levels) if (l.elevation >= lo - 1e-6 && l.elevation <= hi + 1e-6) cursor.set(l.elevation, Math.max(cursor.get(l.elevation) ?? 0, col + 1));
+        for (const l of levels)
+          if (l.elevation >= lo - 1e-6 && l.elevation <= hi + 1e-6) cursor.set(l.elevation, Math.max(cursor.get(l.elevation) ?? 0, col + 1));
         place(s.to, col);
       } else {
         const cb = band(elevation.get(s.to) ?? 0);
@@ -188,7 +195,12 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
   }
   const fixtures: DiagramFixture[] = a.fixtures
     .filter((f) => x.has(f.nodeId))
-    .map((f) => ({ fixtureId: f.id, label: f.label, at: { x: x.get(f.nodeId)!, y: elevation.get(f.nodeId) ?? 0 }, floor: floorName(elevation.get(f.nodeId) ?? 0) }));
+    .map((f) => ({
+      fixtureId: f.id,
+      label: f.label,
+      at: { x: x.get(f.nodeId)!, y: elevation.get(f.nodeId) ?? 0 },
+      floor: floorName(elevation.get(f.nodeId) ?? 0),
+    }));
   const deviceAt = new Map(devices.map((dv) => [dv.deviceId, dv]));
   const zones: DiagramZoneBoundary[] = [];
   for (const z of a.zones ?? []) {
@@ -245,7 +257,8 @@ export const textWidth = (text: string, size: number) => text.length * size * CH
 
 /** The bounding box of a drawn item (text by the width bound above; the PDF fits text into it). */
 export function itemBox(item: DrawItem): { x0: number; y0: number; x1: number; y1: number } {
-  if (item.type === 'line') return { x0: Math.min(item.x1, item.x2), y0: Math.min(item.y1, item.y2), x1: Math.max(item.x1, item.x2), y1: Math.max(item.y1, item.y2) };
+  if (item.type === 'line')
+    return { x0: Math.min(item.x1, item.x2), y0: Math.min(item.y1, item.y2), x1: Math.max(item.x1, item.x2), y1: Math.max(item.y1, item.y2) };
   if (item.type === 'box') return { x0: item.x, y0: item.y, x1: item.x + item.width, y1: item.y + item.height };
   const w = Math.min(textWidth(item.text, item.size), item.maxWidth);
   // descender 0.25 em below the baseline, ascender 0.8 em above (Work Sans is within both)
@@ -290,7 +303,14 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         const y = Y(l.elevation);
         items.push({ type: 'line', x1: area.left + gutterLeft - 4, y1: y, x2: area.left + area.width - 10, y2: y, weight: 'level' });
         items.push({ type: 'text', x: area.left, y: y + 2, text: l.name, size: LEVEL_SIZE, maxWidth: gutterLeft - 6, bold: true });
-        items.push({ type: 'text', x: area.left, y: y - LEVEL_SIZE - 1, text: `el. ${fmt(l.elevation)} ${d.lengthUnit}`, size: LEVEL_SIZE - 1, maxWidth: gutterLeft - 6 });
+        items.push({
+          type: 'text',
+          x: area.left,
+          y: y - LEVEL_SIZE - 1,
+          text: `el. ${fmt(l.elevation)} ${d.lengthUnit}`,
+          size: LEVEL_SIZE - 1,
+          maxWidth: gutterLeft - 6,
+        });
       }
       for (const p of d.pipes) {
         if (!inTile(p.from) && !inTile(p.to)) continue;
@@ -360,7 +380,9 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
         const right = Math.min(cx + half + 2, area.left + area.width - 10 - w);
         const low = area.bottom + 2;
         const farLeft = area.left + gutterLeft;
-        const candidates = [0, -7, -14, -21, 7, 14, 21, 28].flatMap((k) => [left, right, farLeft].map((x) => ({ x, y: Math.max(low, cy - LABEL_SIZE - 0.5 + k) })));
+        const candidates = [0, -7, -14, -21, 7, 14, 21, 28].flatMap((k) =>
+          [left, right, farLeft].map((x) => ({ x, y: Math.max(low, cy - LABEL_SIZE - 0.5 + k) })),
+        );
         // how much a place is in the way: each device box it covers counts 3 (a covered tag is unreadable), each name 1
         const hits = (c: { x: number; y: number }) => {
           const b = { x0: c.x, y0: c.y - 1, x1: c.x + w, y1: c.y + LABEL_SIZE };
@@ -383,20 +405,50 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
       const neighbour = (dx: number, dy: number) => (tilesY - 1 - (ty + dy)) * tilesX + (tx + dx) + 1;
       if (tx < tilesX - 1) {
         items.push({ type: 'line', x1: right, y1: base, x2: right, y2: roof, weight: 'match' });
-        items.push({ type: 'text', x: right - 2, y: base + 2, text: `match line: continues on sheet ${neighbour(1, 0)}`, size: 5, maxWidth: roof - base - 4, vertical: true });
+        items.push({
+          type: 'text',
+          x: right - 2,
+          y: base + 2,
+          text: `match line: continues on sheet ${neighbour(1, 0)}`,
+          size: 5,
+          maxWidth: roof - base - 4,
+          vertical: true,
+        });
       }
       if (tx > 0) {
         const left = area.left + gutterLeft;
         items.push({ type: 'line', x1: left, y1: base, x2: left, y2: roof, weight: 'match' });
-        items.push({ type: 'text', x: left + 7, y: base + 2, text: `match line: continues on sheet ${neighbour(-1, 0)}`, size: 5, maxWidth: roof - base - 4, vertical: true });
+        items.push({
+          type: 'text',
+          x: left + 7,
+          y: base + 2,
+          text: `match line: continues on sheet ${neighbour(-1, 0)}`,
+          size: 5,
+          maxWidth: roof - base - 4,
+          vertical: true,
+        });
       }
       if (ty < tilesY - 1) {
         items.push({ type: 'line', x1: area.left + gutterLeft, y1: roof, x2: right, y2: roof, weight: 'match' });
-        items.push({ type: 'text', x: area.left + gutterLeft + 2, y: roof - 6, text: `match line: continues on sheet ${neighbour(0, 1)}`, size: 5, maxWidth: right - area.left - gutterLeft - 4 });
+        items.push({
+          type: 'text',
+          x: area.left + gutterLeft + 2,
+          y: roof - 6,
+          text: `match line: continues on sheet ${neighbour(0, 1)}`,
+          size: 5,
+          maxWidth: right - area.left - gutterLeft - 4,
+        });
       }
       if (ty > 0) {
         items.push({ type: 'line', x1: area.left + gutterLeft, y1: base, x2: right, y2: base, weight: 'match' });
-        items.push({ type: 'text', x: area.left + gutterLeft + 2, y: base + 2, text: `match line: continues on sheet ${neighbour(0, -1)}`, size: 5, maxWidth: right - area.left - gutterLeft - 4 });
+        items.push({
+          type: 'text',
+          x: area.left + gutterLeft + 2,
+          y: base + 2,
+          text: `match line: continues on sheet ${neighbour(0, -1)}`,
+          size: 5,
+          maxWidth: right - area.left - gutterLeft - 4,
+        });
       }
       sheets.push({ number, row: tilesY - 1 - ty, column: tx, items });
     }
@@ -418,7 +470,11 @@ export function oneSheetArea(d: RiserDiagram, base: { width: number; height: num
 
 /** The typical storey: the median gap between consecutive levels (the whole span when there is one level). */
 function storeyOf(d: RiserDiagram): number {
-  const gaps = d.levels.slice(1).map((l, i) => l.elevation - d.levels[i].elevation).filter((g) => g > 0).sort((p, q) => p - q);
+  const gaps = d.levels
+    .slice(1)
+    .map((l, i) => l.elevation - d.levels[i].elevation)
+    .filter((g) => g > 0)
+    .sort((p, q) => p - q);
   return gaps.length ? gaps[Math.floor(gaps.length / 2)] : Math.max(d.maxElevation - d.minElevation, 1);
 }
 

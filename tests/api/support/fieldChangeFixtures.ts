@@ -36,7 +36,14 @@ export function edited<T>(document: T, edit: (d: T) => void): T {
  * is written here byte for byte, so the file name reaches the server exactly as given (form-data,
  * which supertest's .attach uses, strips paths on the client side).
  */
-export function upload(client: Client, url: string, content: Buffer, filename: string, contentType: string, opts: { csrf?: boolean; encodedName?: boolean } = {}) {
+export function upload(
+  client: Client,
+  url: string,
+  content: Buffer,
+  filename: string,
+  contentType: string,
+  opts: { csrf?: boolean; encodedName?: boolean } = {},
+) {
   const boundary = `----headroom-test-${randomUUID()}`;
   // encodedName: the RFC 5987 form filename*=UTF-8''…, which can carry any character, NUL included
   const name = opts.encodedName ? `filename*=UTF-8''${rfc5987(filename)}` : `filename="${filename}"`;
@@ -61,7 +68,8 @@ export const tinyPdf = () =>
 /** A 1×1 PNG (signature 89 50 4E 47 0D 0A 1A 0A, IHDR, IDAT, IEND). */
 export const tinyPng = () => Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
 /** The start of a JFIF JPEG: SOI FF D8, APP0 "JFIF", then EOI FF D9 (enough for the signature check). */
-export const tinyJpeg = () => Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00, 0xff, 0xd9]);
+export const tinyJpeg = () =>
+  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01, 0x00, 0x01, 0x00, 0x00, 0xff, 0xd9]);
 /** A Windows executable's start: the "MZ" DOS header. */
 export const fakeExe = () => Buffer.concat([Buffer.from('MZ\x90\x00\x03\x00\x00\x00', 'latin1'), Buffer.alloc(56)]);
 export const htmlPage = () => Buffer.from('<!doctype html><html><body><script>alert(document.cookie)</script></body></html>');

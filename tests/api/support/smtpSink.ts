@@ -88,7 +88,13 @@ export class SmtpSink {
 }
 
 /** Outbox settings for tests: quick polls and retries (ms), so an outage of a second is a few attempts. */
-export const FAST_OUTBOX = { OUTBOX_POLL_MS: '30', OUTBOX_RETRY_BASE_MS: '40', OUTBOX_RETRY_MAX_MS: '300', OUTBOX_MAX_ATTEMPTS: '6', OUTBOX_LEASE_SECONDS: '30' } as const;
+export const FAST_OUTBOX = {
+  OUTBOX_POLL_MS: '30',
+  OUTBOX_RETRY_BASE_MS: '40',
+  OUTBOX_RETRY_MAX_MS: '300',
+  OUTBOX_MAX_ATTEMPTS: '6',
+  OUTBOX_LEASE_SECONDS: '30',
+} as const;
 
 export function demoDocument(): Record<string, unknown> {
   const file = path.resolve(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url).pathname);
@@ -110,7 +116,10 @@ export async function waitForMessages(h: Harness, where: Record<string, unknown>
   for (;;) {
     const rows = await h.db('outbox').where(where);
     if (rows.length >= count && rows.every((r: { status: string }) => r.status === status)) return rows;
-    if (Date.now() > deadline) throw new Error(`outbox rows ${JSON.stringify(rows.map((r: { status: string; last_error: string }) => [r.status, r.last_error]))} did not all reach ${status}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `outbox rows ${JSON.stringify(rows.map((r: { status: string; last_error: string }) => [r.status, r.last_error]))} did not all reach ${status}`,
+      );
     await new Promise((r) => setTimeout(r, 25));
   }
 }

@@ -11,8 +11,7 @@ import { expectClose } from '../../helpers/expectClose';
 import { clone, oneSegment, smallTree } from '../support/docs';
 
 const EXAMPLES = ['alder-finch-cold', 'alder-finch-hot', 'small-house'];
-const loadExample = (name: string): unknown =>
-  JSON.parse(readFileSync(new URL(`../../../src/engine/examples/${name}.json`, import.meta.url), 'utf8'));
+const loadExample = (name: string): unknown => JSON.parse(readFileSync(new URL(`../../../src/engine/examples/${name}.json`, import.meta.url), 'utf8'));
 
 function allNumbers(value: unknown, out: number[] = []): number[] {
   if (typeof value === 'number') out.push(value);
@@ -145,9 +144,7 @@ describe('devices and source', () => {
     const d = clone(oneSegment());
     d.source.staticPressureLow = 700;
     d.source.staticPressureHigh = 800;
-    d.devices = [
-      { id: 'prv', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 350, falloffPerFlow: 20 } },
-    ];
+    d.devices = [{ id: 'prv', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 350, falloffPerFlow: 20 } }];
     const a = analyzeSystem(d);
     const s = a.segments[0];
     // outlet of the PRV = 350 − 20 kPa/(L/s)·0.5 L/s = 340 kPa; loss = 700 − 340.
@@ -196,7 +193,19 @@ describe('devices and source', () => {
   it('a device curve used beyond its last point is extrapolated and flagged', () => {
     const d = clone(oneSegment());
     d.devices = [
-      { id: 'm', kind: 'meter', label: 'Meter', segmentId: 's1', loss: { kind: 'curve', points: [{ flow: 0.1, loss: 2 }, { flow: 0.25, loss: 10 }] } },
+      {
+        id: 'm',
+        kind: 'meter',
+        label: 'Meter',
+        segmentId: 's1',
+        loss: {
+          kind: 'curve',
+          points: [
+            { flow: 0.1, loss: 2 },
+            { flow: 0.25, loss: 10 },
+          ],
+        },
+      },
     ];
     const a = analyzeSystem(d);
     expect(a.segments[0].devices[0].extrapolated).toBe(true);
@@ -204,7 +213,13 @@ describe('devices and source', () => {
     // Beyond the last point the loss grows with Q² from it: 10·(0.5/0.25)² = 40 kPa (contract of lossCurveAt).
     expectClose(a.segments[0].devices[0].loss, 40, { rtol: 1e-9 }, 'extrapolated loss');
     // Within the curve there is no flag.
-    d.devices[0].loss = { kind: 'curve', points: [{ flow: 0.25, loss: 3 }, { flow: 1, loss: 30 }] };
+    d.devices[0].loss = {
+      kind: 'curve',
+      points: [
+        { flow: 0.25, loss: 3 },
+        { flow: 1, loss: 30 },
+      ],
+    };
     const b = analyzeSystem(d);
     expect(b.segments[0].devices[0].extrapolated).toBe(false);
   });

@@ -42,7 +42,9 @@ function dynamicPressure(a: Analysis, rho: number): number {
 describe('custom fitting with a K', () => {
   it('adds count·K to the segment K and loses count·K·ρV²/2, under every fitting method', () => {
     for (const fittingMethod of ['crane', 'hooper-2k', 'darby-3k', 'equivalent-length'] as const) {
-      const a = analyzeSystem(withFittings([{ typeId: 'project:ball', count: 3, custom: { label: 'Ball valve', k: 0.05, source: SOURCE } }], { fittingMethod }));
+      const a = analyzeSystem(
+        withFittings([{ typeId: 'project:ball', count: 3, custom: { label: 'Ball valve', k: 0.05, source: SOURCE } }], { fittingMethod }),
+      );
       const s = a.si.segments[0];
       // Exact: the engine sums count·K into the segment K (no size change on a first segment).
       expect(s.fittingsK).toBe(3 * 0.05);
@@ -63,7 +65,12 @@ describe('custom fitting with a K', () => {
 
   it('adds to the catalog fittings of the same segment, which keep their own K', () => {
     const catalogOnly = analyzeSystem(oneSegment()).si.segments[0];
-    const both = analyzeSystem(withFittings([{ typeId: 'elbow-90-standard', count: 2 }, { typeId: 'project:ball', count: 1, custom: { label: 'Ball valve', k: 0.7, source: SOURCE } }])).si.segments[0];
+    const both = analyzeSystem(
+      withFittings([
+        { typeId: 'elbow-90-standard', count: 2 },
+        { typeId: 'project:ball', count: 1, custom: { label: 'Ball valve', k: 0.7, source: SOURCE } },
+      ]),
+    ).si.segments[0];
     // rtol 1e-15: one addition of different order may round in the last bit.
     expectClose(both.fittingsK, catalogOnly.fittingsK + 0.7, { rtol: 1e-15 }, 'K sum');
     expect(both.frictionLoss).toBe(catalogOnly.frictionLoss);
@@ -111,10 +118,36 @@ describe('custom fixture group', () => {
     const wc = FIXTURE_TYPES['water-closet-flush-valve-public'];
     expect(wc.demandCurve).toBe('flush-valve');
     d.nodes[2].fixtureGroups = own
-      ? [{ fixtureTypeId: 'project:lav', count: 4, custom: { label: 'Lavatory (project)', wsfuCold: lav.wsfu.cold!, wsfuHot: lav.wsfu.hot!, wsfuTotal: lav.wsfu.total, flushValve: false, source: SOURCE } }]
+      ? [
+          {
+            fixtureTypeId: 'project:lav',
+            count: 4,
+            custom: {
+              label: 'Lavatory (project)',
+              wsfuCold: lav.wsfu.cold!,
+              wsfuHot: lav.wsfu.hot!,
+              wsfuTotal: lav.wsfu.total,
+              flushValve: false,
+              source: SOURCE,
+            },
+          },
+        ]
       : [{ fixtureTypeId: 'lavatory-private', count: 4 }];
     d.nodes[4].fixtureGroups = own
-      ? [{ fixtureTypeId: 'project:wc', count: 2, custom: { label: 'Closet (project)', wsfuCold: wc.wsfu.cold ?? undefined, wsfuHot: wc.wsfu.hot ?? undefined, wsfuTotal: wc.wsfu.total, flushValve: true, source: SOURCE } }]
+      ? [
+          {
+            fixtureTypeId: 'project:wc',
+            count: 2,
+            custom: {
+              label: 'Closet (project)',
+              wsfuCold: wc.wsfu.cold ?? undefined,
+              wsfuHot: wc.wsfu.hot ?? undefined,
+              wsfuTotal: wc.wsfu.total,
+              flushValve: true,
+              source: SOURCE,
+            },
+          },
+        ]
       : [{ fixtureTypeId: 'water-closet-flush-valve-public', count: 2 }];
     return d;
   }
@@ -132,7 +165,9 @@ describe('custom fixture group', () => {
     const extra = own.warnings.filter((w) => w.code === 'project-data-used');
     expect(extra).toHaveLength(1);
     expect(extra[0].elementIds).toEqual(['b', 'd']);
-    expect(extra[0].detail).toBe(`2 fixture groups at 2 nodes use the project's own data: Lavatory (project): source ${SOURCE}; Closet (project): source ${SOURCE}`);
+    expect(extra[0].detail).toBe(
+      `2 fixture groups at 2 nodes use the project's own data: Lavatory (project): source ${SOURCE}; Closet (project): source ${SOURCE}`,
+    );
     expect(own.warnings.filter((w) => w.code !== 'project-data-used')).toStrictEqual(catalog.warnings);
   });
 
@@ -149,7 +184,14 @@ describe('custom fixture group', () => {
   it("without a catalog type, Hunter's binomial method needs the flow while in use: a structured error names the group", () => {
     const d = clone(smallTree());
     d.criteria = { demandMethod: 'hunter-binomial' };
-    d.nodes[2].fixtureGroups = [{ fixtureTypeId: 'project:lav', count: 2, usage: { durationSeconds: 10, recurrenceSeconds: 600 }, custom: { label: 'Lav', wsfuTotal: 1, source: SOURCE } }];
+    d.nodes[2].fixtureGroups = [
+      {
+        fixtureTypeId: 'project:lav',
+        count: 2,
+        usage: { durationSeconds: 10, recurrenceSeconds: 600 },
+        custom: { label: 'Lav', wsfuTotal: 1, source: SOURCE },
+      },
+    ];
     try {
       analyzeSystem(d);
       expect.unreachable('should throw');
@@ -189,7 +231,14 @@ describe('errors and old documents', () => {
     for (let i = 0; i < 12; i++) {
       const from = i === 0 ? first.from : `n${i}`;
       d.nodes.push({ id: `n${i + 1}`, elevation: 0 });
-      d.segments.push({ ...first, id: `s${i + 1}`, from, to: `n${i + 1}`, length: 1, fittings: [{ typeId: `project:v${Math.min(i, 10)}`, count: 1, custom: { label: `Valve ${Math.min(i, 10)}`, k: 0.5, source: SOURCE } }] });
+      d.segments.push({
+        ...first,
+        id: `s${i + 1}`,
+        from,
+        to: `n${i + 1}`,
+        length: 1,
+        fittings: [{ typeId: `project:v${Math.min(i, 10)}`, count: 1, custom: { label: `Valve ${Math.min(i, 10)}`, k: 0.5, source: SOURCE } }],
+      });
     }
     d.nodes[d.nodes.length - 1].checkedFixtures = [{ id: 'lav', fixtureTypeId: 'lavatory-private' }];
     d.nodes[d.nodes.length - 1].continuousDemand = 0.2;

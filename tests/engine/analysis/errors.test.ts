@@ -212,7 +212,10 @@ describe('positions (document version 2)', () => {
 
   it('two floors with one id', () => {
     const d = clone(oneSegment());
-    d.floors = [{ id: 'L2', name: 'Level 2', elevation: 2.5 }, { id: 'L2', name: 'Level 2 again', elevation: 5 }];
+    d.floors = [
+      { id: 'L2', name: 'Level 2', elevation: 2.5 },
+      { id: 'L2', name: 'Level 2 again', elevation: 5 },
+    ];
     expectError(d, 'duplicate-id', 'floor', 'L2', 'id');
   });
 });

@@ -20,10 +20,11 @@ describe('a PEX segment still carrying metal-pipe fittings', () => {
 
   it('when the PEX segments carry PEX fittings, valves or their own data, then there is no caution', () => {
     const doc = clone(smallTree());
-    doc.segments[2].fittings = [{ typeId: 'pex-press-bronze-elbow-90', count: 2 }, { typeId: 'valve-ball-full-port', count: 1 }];
-    doc.segments[3].fittings = [
-      { typeId: 'project:tee', count: 1, custom: { label: 'Our tee', equivalentLength: 2, source: 'maker sheet' } },
+    doc.segments[2].fittings = [
+      { typeId: 'pex-press-bronze-elbow-90', count: 2 },
+      { typeId: 'valve-ball-full-port', count: 1 },
     ];
+    doc.segments[3].fittings = [{ typeId: 'project:tee', count: 1, custom: { label: 'Our tee', equivalentLength: 2, source: 'maker sheet' } }];
     expect(pexWarnings(doc)).toEqual([]);
   });
 

@@ -19,16 +19,54 @@ function full(): Doc {
   d.nodes.push({ id: 'onfloor', floor: 'L1', heightAboveFloor: 1 });
   d.nodes.push({ id: 'rel' });
   d.segments.push({ id: 's2', from: 'end', to: 'onfloor', material: 'copper-l', size: '1/2', length: 2 });
-  d.segments.push({ id: 's3', from: 'end', to: 'rel', custom: { innerDiameter: 15, roughness: 0.0015, hazenWilliamsC: 140, velocityClass: 'copper' }, length: 2, rise: 1, flowOverride: 0.1, fittings: [{ typeId: 'project:k', count: 1, custom: { label: 'Valve', k: 2, source: 'invented' } }, { typeId: 'project:le', count: 1, custom: { label: 'Strainer', equivalentLength: 1, source: 'invented' } }] });
-  d.nodes[1].fixtureGroups = [{ fixtureTypeId: 'lavatory-private', count: 2, custom: { label: 'Own lav', wsfuCold: 0.5, wsfuHot: 0.5, wsfuTotal: 0.7, source: 'invented' }, usage: { flow: 0.1, durationSeconds: 30, recurrenceSeconds: 600 } }];
+  d.segments.push({
+    id: 's3',
+    from: 'end',
+    to: 'rel',
+    custom: { innerDiameter: 15, roughness: 0.0015, hazenWilliamsC: 140, velocityClass: 'copper' },
+    length: 2,
+    rise: 1,
+    flowOverride: 0.1,
+    fittings: [
+      { typeId: 'project:k', count: 1, custom: { label: 'Valve', k: 2, source: 'invented' } },
+      { typeId: 'project:le', count: 1, custom: { label: 'Strainer', equivalentLength: 1, source: 'invented' } },
+    ],
+  });
+  d.nodes[1].fixtureGroups = [
+    {
+      fixtureTypeId: 'lavatory-private',
+      count: 2,
+      custom: { label: 'Own lav', wsfuCold: 0.5, wsfuHot: 0.5, wsfuTotal: 0.7, source: 'invented' },
+      usage: { flow: 0.1, durationSeconds: 30, recurrenceSeconds: 600 },
+    },
+  ];
   d.nodes[1].checkedFixtures = [{ id: 'lav', fixtureTypeId: 'lavatory-private', minFlowPressure: 55, flowRate: 0.1 }];
   d.devices = [
     { id: 'm', kind: 'meter', label: 'Meter', segmentId: 's1', loss: { kind: 'curve', points: [{ flow: 0.5, loss: 20 }] } },
     { id: 'p', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 5 }, prv: { setPressure: 400, falloffPerFlow: 10 } },
-    { id: 'b', kind: 'booster-pump', label: 'Pump', segmentId: 's2', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 100, shutoffGain: 150, designFlow: 1 } },
-    { id: 'v', kind: 'booster-pump', label: 'VFD pump', segmentId: 's3', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'variable-speed', setPressure: 500 } },
+    {
+      id: 'b',
+      kind: 'booster-pump',
+      label: 'Pump',
+      segmentId: 's2',
+      loss: { kind: 'fixed', loss: 0 },
+      boost: { control: 'constant-speed', designGain: 100, shutoffGain: 150, designFlow: 1 },
+    },
+    {
+      id: 'v',
+      kind: 'booster-pump',
+      label: 'VFD pump',
+      segmentId: 's3',
+      loss: { kind: 'fixed', loss: 0 },
+      boost: { control: 'variable-speed', setPressure: 500 },
+    },
   ];
-  d.criteria = { maxStaticPressure: 550, minStaticPressure: 100, velocityLimits: [{ material: 'copper', service: 'cold', maxVelocity: 2.4 }], minFlowPressures: { 'kitchen-sink-private': 55 } };
+  d.criteria = {
+    maxStaticPressure: 550,
+    minStaticPressure: 100,
+    velocityLimits: [{ material: 'copper', service: 'cold', maxVelocity: 2.4 }],
+    minFlowPressures: { 'kitchen-sink-private': 55 },
+  };
   return d;
 }
 
@@ -40,47 +78,375 @@ const seg = (d: Doc, id: string): Loose => d.segments.find((x) => x.id === id)!;
 const node = (d: Doc, id: string): Loose => d.nodes.find((x) => x.id === id)!;
 
 const CASES: Case[] = [
-  ['water temperature', 'waterTemperature', 'one', 'waterTemperature', (d, v) => { d.waterTemperature = v; }],
-  ['source low static', 'staticPressure', 'src', 'staticPressureLow', (d, v) => { d.source.staticPressureLow = v; }],
-  ['source high static', 'staticPressure', 'src', 'staticPressureHigh', (d, v) => { d.source.staticPressureHigh = v; }],
-  ['flow-test static', 'staticPressure', 'src', 'flowTest.staticPressure', (d, v) => { d.source.flowTest!.staticPressure = v; }],
-  ['flow-test residual', 'staticPressure', 'src', 'flowTest.residualPressure', (d, v) => { d.source.flowTest!.residualPressure = v; }],
-  ['flow-test flow', 'flow', 'src', 'flowTest.flow', (d, v) => { d.source.flowTest!.flow = v; }],
-  ['device curve flow', 'flow', 'm', 'loss.points[0].flow', (d, v) => { dev(d, 'm').loss.points[0].flow = v; }],
-  ['device curve loss', 'pressureLoss', 'm', 'loss.points[0].loss', (d, v) => { dev(d, 'm').loss.points[0].loss = v; }],
-  ['device fixed loss', 'pressureLoss', 'p', 'loss.loss', (d, v) => { dev(d, 'p').loss.loss = v; }],
-  ['PRV set pressure', 'pressureSetting', 'p', 'prv.setPressure', (d, v) => { dev(d, 'p').prv.setPressure = v; }],
-  ['PRV fall-off', 'pressureFalloff', 'p', 'prv.falloffPerFlow', (d, v) => { dev(d, 'p').prv.falloffPerFlow = v; }],
-  ['booster design gain', 'pressureGain', 'b', 'boost.designGain', (d, v) => { dev(d, 'b').boost.designGain = v; }],
-  ['booster shutoff gain', 'pressureGain', 'b', 'boost.shutoffGain', (d, v) => { dev(d, 'b').boost.shutoffGain = v; }],
-  ['booster design flow', 'flow', 'b', 'boost.designFlow', (d, v) => { dev(d, 'b').boost.designFlow = v; }],
-  ['booster set pressure', 'pressureSetting', 'v', 'boost.setPressure', (d, v) => { dev(d, 'v').boost.setPressure = v; }],
-  ['floor elevation', 'elevation', 'L1', 'elevation', (d, v) => { d.floors![0].elevation = v; }],
-  ['node elevation', 'elevation', 'src', 'elevation', (d, v) => { node(d, 'src').elevation = v; }],
-  ['height above floor', 'heightAboveFloor', 'onfloor', 'heightAboveFloor', (d, v) => { node(d, 'onfloor').heightAboveFloor = v; }],
-  ['continuous demand', 'flow', 'end', 'continuousDemand', (d, v) => { node(d, 'end').continuousDemand = v; }],
-  ['fixture count', 'fixtureCount', 'end', 'count', (d, v) => { node(d, 'end').fixtureGroups[0].count = v; }],
-  ['own cold fixture units', 'fixtureUnits', 'end', 'custom.wsfuCold', (d, v) => { node(d, 'end').fixtureGroups[0].custom.wsfuCold = v; }],
-  ['own hot fixture units', 'fixtureUnits', 'end', 'custom.wsfuHot', (d, v) => { node(d, 'end').fixtureGroups[0].custom.wsfuHot = v; }],
-  ['own total fixture units', 'fixtureUnits', 'end', 'custom.wsfuTotal', (d, v) => { node(d, 'end').fixtureGroups[0].custom.wsfuTotal = v; }],
-  ['usage flow', 'fixtureFlow', 'end', 'usage.flow', (d, v) => { node(d, 'end').fixtureGroups[0].usage.flow = v; }],
-  ['usage duration', 'useDuration', 'end', 'usage.durationSeconds', (d, v) => { node(d, 'end').fixtureGroups[0].usage.durationSeconds = v; }],
-  ['usage recurrence', 'useInterval', 'end', 'usage.recurrenceSeconds', (d, v) => { node(d, 'end').fixtureGroups[0].usage.recurrenceSeconds = v; }],
-  ['fixture minimum flow pressure', 'minFlowPressure', 'lav', 'minFlowPressure', (d, v) => { node(d, 'end').checkedFixtures[0].minFlowPressure = v; }],
-  ['fixture flow rate', 'fixtureFlow', 'lav', 'flowRate', (d, v) => { node(d, 'end').checkedFixtures[0].flowRate = v; }],
-  ['segment length', 'length', 's1', 'length', (d, v) => { seg(d, 's1').length = v; }],
-  ['segment rise', 'rise', 's3', 'rise', (d, v) => { seg(d, 's3').rise = v; }],
-  ['flow override', 'flow', 's3', 'flowOverride', (d, v) => { seg(d, 's3').flowOverride = v; }],
-  ['custom inside diameter', 'innerDiameter', 's3', 'custom.innerDiameter', (d, v) => { seg(d, 's3').custom.innerDiameter = v; }],
-  ['custom roughness', 'roughness', 's3', 'custom.roughness', (d, v) => { seg(d, 's3').custom.roughness = v; }],
-  ['custom Hazen–Williams C', 'hazenWilliamsC', 's3', 'custom.hazenWilliamsC', (d, v) => { seg(d, 's3').custom.hazenWilliamsC = v; }],
-  ['fitting count', 'fittingCount', 's1', 'count', (d, v) => { seg(d, 's1').fittings[0].count = v; }],
-  ['custom fitting K', 'lossCoefficient', 's3', 'custom.k', (d, v) => { seg(d, 's3').fittings[0].custom.k = v; }],
-  ['custom fitting equivalent length', 'equivalentLength', 's3', 'custom.equivalentLength', (d, v) => { seg(d, 's3').fittings[1].custom.equivalentLength = v; }],
-  ['criteria maximum static', 'staticPressure', null, 'maxStaticPressure', (d, v) => { d.criteria!.maxStaticPressure = v; }],
-  ['criteria minimum static', 'staticPressure', null, 'minStaticPressure', (d, v) => { d.criteria!.minStaticPressure = v; }],
-  ['criteria velocity limit', 'velocityLimit', null, 'velocityLimits[0].maxVelocity', (d, v) => { d.criteria!.velocityLimits![0].maxVelocity = v; }],
-  ['criteria minimum flow pressure', 'minFlowPressure', null, 'minFlowPressures.kitchen-sink-private', (d, v) => { d.criteria!.minFlowPressures!['kitchen-sink-private'] = v; }],
+  [
+    'water temperature',
+    'waterTemperature',
+    'one',
+    'waterTemperature',
+    (d, v) => {
+      d.waterTemperature = v;
+    },
+  ],
+  [
+    'source low static',
+    'staticPressure',
+    'src',
+    'staticPressureLow',
+    (d, v) => {
+      d.source.staticPressureLow = v;
+    },
+  ],
+  [
+    'source high static',
+    'staticPressure',
+    'src',
+    'staticPressureHigh',
+    (d, v) => {
+      d.source.staticPressureHigh = v;
+    },
+  ],
+  [
+    'flow-test static',
+    'staticPressure',
+    'src',
+    'flowTest.staticPressure',
+    (d, v) => {
+      d.source.flowTest!.staticPressure = v;
+    },
+  ],
+  [
+    'flow-test residual',
+    'staticPressure',
+    'src',
+    'flowTest.residualPressure',
+    (d, v) => {
+      d.source.flowTest!.residualPressure = v;
+    },
+  ],
+  [
+    'flow-test flow',
+    'flow',
+    'src',
+    'flowTest.flow',
+    (d, v) => {
+      d.source.flowTest!.flow = v;
+    },
+  ],
+  [
+    'device curve flow',
+    'flow',
+    'm',
+    'loss.points[0].flow',
+    (d, v) => {
+      dev(d, 'm').loss.points[0].flow = v;
+    },
+  ],
+  [
+    'device curve loss',
+    'pressureLoss',
+    'm',
+    'loss.points[0].loss',
+    (d, v) => {
+      dev(d, 'm').loss.points[0].loss = v;
+    },
+  ],
+  [
+    'device fixed loss',
+    'pressureLoss',
+    'p',
+    'loss.loss',
+    (d, v) => {
+      dev(d, 'p').loss.loss = v;
+    },
+  ],
+  [
+    'PRV set pressure',
+    'pressureSetting',
+    'p',
+    'prv.setPressure',
+    (d, v) => {
+      dev(d, 'p').prv.setPressure = v;
+    },
+  ],
+  [
+    'PRV fall-off',
+    'pressureFalloff',
+    'p',
+    'prv.falloffPerFlow',
+    (d, v) => {
+      dev(d, 'p').prv.falloffPerFlow = v;
+    },
+  ],
+  [
+    'booster design gain',
+    'pressureGain',
+    'b',
+    'boost.designGain',
+    (d, v) => {
+      dev(d, 'b').boost.designGain = v;
+    },
+  ],
+  [
+    'booster shutoff gain',
+    'pressureGain',
+    'b',
+    'boost.shutoffGain',
+    (d, v) => {
+      dev(d, 'b').boost.shutoffGain = v;
+    },
+  ],
+  [
+    'booster design flow',
+    'flow',
+    'b',
+    'boost.designFlow',
+    (d, v) => {
+      dev(d, 'b').boost.designFlow = v;
+    },
+  ],
+  [
+    'booster set pressure',
+    'pressureSetting',
+    'v',
+    'boost.setPressure',
+    (d, v) => {
+      dev(d, 'v').boost.setPressure = v;
+    },
+  ],
+  [
+    'floor elevation',
+    'elevation',
+    'L1',
+    'elevation',
+    (d, v) => {
+      d.floors![0].elevation = v;
+    },
+  ],
+  [
+    'node elevation',
+    'elevation',
+    'src',
+    'elevation',
+    (d, v) => {
+      node(d, 'src').elevation = v;
+    },
+  ],
+  [
+    'height above floor',
+    'heightAboveFloor',
+    'onfloor',
+    'heightAboveFloor',
+    (d, v) => {
+      node(d, 'onfloor').heightAboveFloor = v;
+    },
+  ],
+  [
+    'continuous demand',
+    'flow',
+    'end',
+    'continuousDemand',
+    (d, v) => {
+      node(d, 'end').continuousDemand = v;
+    },
+  ],
+  [
+    'fixture count',
+    'fixtureCount',
+    'end',
+    'count',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].count = v;
+    },
+  ],
+  [
+    'own cold fixture units',
+    'fixtureUnits',
+    'end',
+    'custom.wsfuCold',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].custom.wsfuCold = v;
+    },
+  ],
+  [
+    'own hot fixture units',
+    'fixtureUnits',
+    'end',
+    'custom.wsfuHot',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].custom.wsfuHot = v;
+    },
+  ],
+  [
+    'own total fixture units',
+    'fixtureUnits',
+    'end',
+    'custom.wsfuTotal',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].custom.wsfuTotal = v;
+    },
+  ],
+  [
+    'usage flow',
+    'fixtureFlow',
+    'end',
+    'usage.flow',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].usage.flow = v;
+    },
+  ],
+  [
+    'usage duration',
+    'useDuration',
+    'end',
+    'usage.durationSeconds',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].usage.durationSeconds = v;
+    },
+  ],
+  [
+    'usage recurrence',
+    'useInterval',
+    'end',
+    'usage.recurrenceSeconds',
+    (d, v) => {
+      node(d, 'end').fixtureGroups[0].usage.recurrenceSeconds = v;
+    },
+  ],
+  [
+    'fixture minimum flow pressure',
+    'minFlowPressure',
+    'lav',
+    'minFlowPressure',
+    (d, v) => {
+      node(d, 'end').checkedFixtures[0].minFlowPressure = v;
+    },
+  ],
+  [
+    'fixture flow rate',
+    'fixtureFlow',
+    'lav',
+    'flowRate',
+    (d, v) => {
+      node(d, 'end').checkedFixtures[0].flowRate = v;
+    },
+  ],
+  [
+    'segment length',
+    'length',
+    's1',
+    'length',
+    (d, v) => {
+      seg(d, 's1').length = v;
+    },
+  ],
+  [
+    'segment rise',
+    'rise',
+    's3',
+    'rise',
+    (d, v) => {
+      seg(d, 's3').rise = v;
+    },
+  ],
+  [
+    'flow override',
+    'flow',
+    's3',
+    'flowOverride',
+    (d, v) => {
+      seg(d, 's3').flowOverride = v;
+    },
+  ],
+  [
+    'custom inside diameter',
+    'innerDiameter',
+    's3',
+    'custom.innerDiameter',
+    (d, v) => {
+      seg(d, 's3').custom.innerDiameter = v;
+    },
+  ],
+  [
+    'custom roughness',
+    'roughness',
+    's3',
+    'custom.roughness',
+    (d, v) => {
+      seg(d, 's3').custom.roughness = v;
+    },
+  ],
+  [
+    'custom Hazen–Williams C',
+    'hazenWilliamsC',
+    's3',
+    'custom.hazenWilliamsC',
+    (d, v) => {
+      seg(d, 's3').custom.hazenWilliamsC = v;
+    },
+  ],
+  [
+    'fitting count',
+    'fittingCount',
+    's1',
+    'count',
+    (d, v) => {
+      seg(d, 's1').fittings[0].count = v;
+    },
+  ],
+  [
+    'custom fitting K',
+    'lossCoefficient',
+    's3',
+    'custom.k',
+    (d, v) => {
+      seg(d, 's3').fittings[0].custom.k = v;
+    },
+  ],
+  [
+    'custom fitting equivalent length',
+    'equivalentLength',
+    's3',
+    'custom.equivalentLength',
+    (d, v) => {
+      seg(d, 's3').fittings[1].custom.equivalentLength = v;
+    },
+  ],
+  [
+    'criteria maximum static',
+    'staticPressure',
+    null,
+    'maxStaticPressure',
+    (d, v) => {
+      d.criteria!.maxStaticPressure = v;
+    },
+  ],
+  [
+    'criteria minimum static',
+    'staticPressure',
+    null,
+    'minStaticPressure',
+    (d, v) => {
+      d.criteria!.minStaticPressure = v;
+    },
+  ],
+  [
+    'criteria velocity limit',
+    'velocityLimit',
+    null,
+    'velocityLimits[0].maxVelocity',
+    (d, v) => {
+      d.criteria!.velocityLimits![0].maxVelocity = v;
+    },
+  ],
+  [
+    'criteria minimum flow pressure',
+    'minFlowPressure',
+    null,
+    'minFlowPressures.kitchen-sink-private',
+    (d, v) => {
+      d.criteria!.minFlowPressures!['kitchen-sink-private'] = v;
+    },
+  ],
 ];
 
 describe('every numeric input outside its plausible range', () => {
@@ -114,10 +480,34 @@ describe('every numeric input outside its plausible range', () => {
     us.source.staticPressureLow = 50;
     us.source.staticPressureHigh = 60;
     const tries: [(d: Doc) => void, string, string][] = [
-      [(d) => { d.segments[0].length = 1e9; }, 'length', 'Out of range: length 0–5,000 ft (more than 0)'],
-      [(d) => { d.source.staticPressureHigh = 99999; }, 'staticPressureHigh', 'Out of range: static pressure 0–300 psi'],
-      [(d) => { d.waterTemperature = 250; }, 'waterTemperature', 'Out of range: water temperature 33–200 °F'],
-      [(d) => { d.segments[0].length = 1e308; }, 'length', 'Out of range: length 0–5,000 ft (more than 0)'],
+      [
+        (d) => {
+          d.segments[0].length = 1e9;
+        },
+        'length',
+        'Out of range: length 0–5,000 ft (more than 0)',
+      ],
+      [
+        (d) => {
+          d.source.staticPressureHigh = 99999;
+        },
+        'staticPressureHigh',
+        'Out of range: static pressure 0–300 psi',
+      ],
+      [
+        (d) => {
+          d.waterTemperature = 250;
+        },
+        'waterTemperature',
+        'Out of range: water temperature 33–200 °F',
+      ],
+      [
+        (d) => {
+          d.segments[0].length = 1e308;
+        },
+        'length',
+        'Out of range: length 0–5,000 ft (more than 0)',
+      ],
     ];
     for (const [set, field, text] of tries) {
       const d = clone(us);

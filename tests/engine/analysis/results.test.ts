@@ -6,8 +6,7 @@ import { clone, smallTree } from '../support/docs';
 // The per-element results are built when first read (src/engine/analysis/results.ts). These tests
 // hold what a consumer relies on: they behave as plain data fields, and their numbers are those
 // of the SI results converted exactly as toDisplay converts them.
-const demo = (): unknown =>
-  JSON.parse(readFileSync(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8'));
+const demo = (): unknown => JSON.parse(readFileSync(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8'));
 
 describe('result fields built on first read', () => {
   it('are enumerable fields in the documented order, read through JSON, spread and structured clone alike', () => {

@@ -27,7 +27,13 @@ function base(over: Partial<SystemDocumentInput> = {}): SystemDocumentInput {
     devices: [],
     nodes: [
       { id: 'src', elevation: 0 },
-      { id: 'a', label: 'Level 1 tap', elevation: 10, continuousDemand: 2, checkedFixtures: [{ id: 'lav', fixtureTypeId: 'lavatory-private', label: 'Lavatory' }] },
+      {
+        id: 'a',
+        label: 'Level 1 tap',
+        elevation: 10,
+        continuousDemand: 2,
+        checkedFixtures: [{ id: 'lav', fixtureTypeId: 'lavatory-private', label: 'Lavatory' }],
+      },
     ],
     segments: [{ id: 's1', label: 'Service', from: 'src', to: 'a', material: 'copper-l', size: '1', length: 30 }],
     ...over,
@@ -37,7 +43,16 @@ function base(over: Partial<SystemDocumentInput> = {}): SystemDocumentInput {
 describe('constant-speed booster: the static check at shutoff', () => {
   it('adds the shutoff gain to the high static and the design gain at design flow', () => {
     const doc = base({
-      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30 } }],
+      devices: [
+        {
+          id: 'bp',
+          kind: 'booster-pump',
+          label: 'Booster',
+          segmentId: 's1',
+          loss: { kind: 'fixed', loss: 0 },
+          boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30 },
+        },
+      ],
     });
     const a = analyzeSystem(doc);
     // High static at "a": 60 + 30 (shutoff) − 10 ft × 0.4331 psi/ft = 85.669 psi > 80 → fail.
@@ -59,7 +74,16 @@ describe('constant-speed booster: the static check at shutoff', () => {
   it('follows the parabola gain(Q) = shutoff − (shutoff − design)·(Q/Qd)² when the design flow is given', () => {
     // Design point 20 psi at 4 gpm; the system draws 2 gpm: 30 − 10·(2/4)² = 27.5 psi.
     const doc = base({
-      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30, designFlow: 4 } }],
+      devices: [
+        {
+          id: 'bp',
+          kind: 'booster-pump',
+          label: 'Booster',
+          segmentId: 's1',
+          loss: { kind: 'fixed', loss: 0 },
+          boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30, designFlow: 4 },
+        },
+      ],
     });
     const a = analyzeSystem(doc);
     expectClose(a.segments[0].designFlow, 2, { rtol: RTOL }, 'design flow is the continuous demand');
@@ -69,7 +93,16 @@ describe('constant-speed booster: the static check at shutoff', () => {
   it('beyond the end of its curve the pump adds nothing, and says so', () => {
     // Design point 20 psi at 1 gpm; the system draws 2 gpm: 30 − 10·(2/1)² = −10 → no gain (0).
     const doc = base({
-      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Small booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30, designFlow: 1 } }],
+      devices: [
+        {
+          id: 'bp',
+          kind: 'booster-pump',
+          label: 'Small booster',
+          segmentId: 's1',
+          loss: { kind: 'fixed', loss: 0 },
+          boost: { control: 'constant-speed', designGain: 20, shutoffGain: 30, designFlow: 1 },
+        },
+      ],
     });
     const a = analyzeSystem(doc);
     expect(a.segments[0].devices[0].loss).toBe(0);
@@ -79,7 +112,16 @@ describe('constant-speed booster: the static check at shutoff', () => {
 
   it('a variable-speed booster holds its set discharge pressure, at flow and at no flow', () => {
     const doc = base({
-      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'variable-speed', setPressure: 75 } }],
+      devices: [
+        {
+          id: 'bp',
+          kind: 'booster-pump',
+          label: 'Booster',
+          segmentId: 's1',
+          loss: { kind: 'fixed', loss: 0 },
+          boost: { control: 'variable-speed', setPressure: 75 },
+        },
+      ],
     });
     const a = analyzeSystem(doc);
     // High static at "a": max(60, 75) − 4.331 = 70.669 psi.
@@ -91,7 +133,16 @@ describe('constant-speed booster: the static check at shutoff', () => {
 
   it('refuses a shutoff gain below the design gain', () => {
     const doc = base({
-      devices: [{ id: 'bp', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 30, shutoffGain: 20 } }],
+      devices: [
+        {
+          id: 'bp',
+          kind: 'booster-pump',
+          label: 'Booster',
+          segmentId: 's1',
+          loss: { kind: 'fixed', loss: 0 },
+          boost: { control: 'constant-speed', designGain: 30, shutoffGain: 20 },
+        },
+      ],
     });
     expect(() => analyzeSystem(doc)).toThrow(/shutoff gain is below the design gain/);
   });
@@ -124,7 +175,9 @@ describe('a PRV that fails open', () => {
     const w = a.warnings.find((x) => x.code === 'prv-fail-open-over-max')!;
     expect(w.severity).toBe('caution');
     expect(w.elementLabel).toBe('Building PRV');
-    expect(w.detail).toBe('If "Building PRV" fails open, 2 nodes that serve fixtures would see up to 100.00 psi static, 20.00 psi over the 80.00 psi maximum (highest at "Ground-floor sink").');
+    expect(w.detail).toBe(
+      'If "Building PRV" fails open, 2 nodes that serve fixtures would see up to 100.00 psi static, 20.00 psi over the 80.00 psi maximum (highest at "Ground-floor sink").',
+    );
   });
 });
 

@@ -28,7 +28,9 @@ describe('incomplete, with each reason', () => {
     const a = analyzeSystem(empty);
     expect(a.verdict.status).toBe('incomplete');
     expect(a.verdict.incomplete.map((r) => r.code)).toStrictEqual(['no-checked-fixtures', 'source-pressure-missing', 'source-basis-missing']);
-    expect(a.verdict.incomplete[1].message).toBe('The supply static pressure is not entered (low 0.00 psi, high 0.00 psi): enter both from the utility or a gauge reading.');
+    expect(a.verdict.incomplete[1].message).toBe(
+      'The supply static pressure is not entered (low 0.00 psi, high 0.00 psi): enter both from the utility or a gauge reading.',
+    );
   });
 
   it('a system without a checked fixture is incomplete even when everything else is described', () => {
@@ -53,7 +55,9 @@ describe('incomplete, with each reason', () => {
     expect(a.verdict.status).toBe('incomplete');
     const r = a.verdict.incomplete.find((x) => x.code === 'fixture-unreachable')!;
     expect(r.elementId).toBe('sink');
-    expect(r.message).toBe('The checked fixture "Kitchen sink, unit 4" is not connected to the source: connect the node of "Kitchen sink, unit 4" with a segment.');
+    expect(r.message).toBe(
+      'The checked fixture "Kitchen sink, unit 4" is not connected to the source: connect the node of "Kitchen sink, unit 4" with a segment.',
+    );
     expect(a.verdict.incomplete.map((x) => x.code)).toContain('part-unreachable');
     // every number is still finite (the unreached node has no flow and no pressure computed)
     expect(Number.isFinite(a.fixtures.find((f) => f.id === 'sink')!.residual)).toBe(true);
@@ -67,7 +71,9 @@ describe('incomplete, with each reason', () => {
     const a = analyzeSystem(d);
     expect(a.verdict.status).toBe('incomplete');
     const r = a.verdict.incomplete.find((x) => x.code === 'node-elevation-missing')!;
-    expect(r.message).toBe('"Lavatory stub" has no elevation: enter the rise of "Branch to lavatory" (0 for a level run), or the node\'s elevation or floor. It was computed level with the source connection.');
+    expect(r.message).toBe(
+      '"Lavatory stub" has no elevation: enter the rise of "Branch to lavatory" (0 for a level run), or the node\'s elevation or floor. It was computed level with the source connection.',
+    );
     expect(a.segments[0].rise).toBe(0);
   });
 
@@ -117,7 +123,12 @@ function fourStoreys(): SystemDocumentInput {
   for (let f = 1; f <= 4; f++) {
     nodes.push({ id: `r${f}`, label: `Riser, level ${f}` });
     segments.push({ id: `riser-${f}`, label: `Riser to level ${f}`, from: below, to: `r${f}`, material: 'copper-l', size: '1', length: 10, rise: 10 });
-    nodes.push({ id: `sh${f}`, label: `Shower, level ${f}`, fixtureGroups: [{ fixtureTypeId: 'shower-private', count: 1 }], checkedFixtures: [{ id: `shower-${f}`, fixtureTypeId: 'shower-private', label: `Shower, level ${f}` }] });
+    nodes.push({
+      id: `sh${f}`,
+      label: `Shower, level ${f}`,
+      fixtureGroups: [{ fixtureTypeId: 'shower-private', count: 1 }],
+      checkedFixtures: [{ id: `shower-${f}`, fixtureTypeId: 'shower-private', label: `Shower, level ${f}` }],
+    });
     segments.push({ id: `branch-${f}`, from: `r${f}`, to: `sh${f}`, material: 'copper-l', size: '1/2', length: 8, rise: 4 });
     below = `r${f}`;
   }
@@ -156,7 +167,9 @@ describe('the four-storey building with the rises typed', () => {
     // Hand check of the elevation term: 44 ft of water at 60 °F is ρ·g·13.4112 m.
     const rho = waterProperties((60 - 32) / 1.8).density;
     const headPsi = (rho * G * 44 * M_PER_FT) / PA_PER_PSI; // ≈ 19.06 psi
-    const climb = byRises.segments.filter((s) => ['riser-1', 'riser-2', 'riser-3', 'riser-4', 'branch-4'].includes(s.id)).reduce((sum, s) => sum + s.riseLoss, 0);
+    const climb = byRises.segments
+      .filter((s) => ['riser-1', 'riser-2', 'riser-3', 'riser-4', 'branch-4'].includes(s.id))
+      .reduce((sum, s) => sum + s.riseLoss, 0);
     expectClose(climb, headPsi, { rtol: 1e-12 }, 'rise losses on the path');
   });
 

@@ -45,7 +45,14 @@ function zoned(): SystemDocumentInput {
     ],
     devices: [
       { id: 'prv-2', kind: 'prv', label: 'PRV-2', segmentId: 'low', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 50 } },
-      { id: 'bp-1', kind: 'booster-pump', label: 'BP-1', segmentId: 'up', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'variable-speed', setPressure: 120 } },
+      {
+        id: 'bp-1',
+        kind: 'booster-pump',
+        label: 'BP-1',
+        segmentId: 'up',
+        loss: { kind: 'fixed', loss: 0 },
+        boost: { control: 'variable-speed', setPressure: 120 },
+      },
       { id: 'prv-4', kind: 'prv', label: 'PRV-4', segmentId: 'top', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 70 } },
     ],
     nodes: [
@@ -122,7 +129,7 @@ describe('pressure zones', () => {
     expect(a.verdict.status).toBe('fail');
   });
 
-  it('zone 4 (PRV below the booster): the set pressure less its own climb, not the booster\'s', () => {
+  it("zone 4 (PRV below the booster): the set pressure less its own climb, not the booster's", () => {
     // PRV-4 at b (23 ft) holds 70 psi; "c" at 33 ft: 70 − 10 × 0.4331 = 65.669 psi.
     const z = zone('prv-4');
     expectClose(z.lowestResidual!.pressure, 70 - 10 * psiPerFt, { rtol: RTOL }, 'residual');
@@ -160,7 +167,14 @@ describe('pressure zones', () => {
 
   it('a constant-speed booster names its design gain', () => {
     const d = clone(zoned());
-    d.devices![1] = { id: 'bp-1', kind: 'booster-pump', label: 'BP-1', segmentId: 'up', loss: { kind: 'fixed', loss: 0 }, boost: { control: 'constant-speed', designGain: 40, shutoffGain: 50 } };
+    d.devices![1] = {
+      id: 'bp-1',
+      kind: 'booster-pump',
+      label: 'BP-1',
+      segmentId: 'up',
+      loss: { kind: 'fixed', loss: 0 },
+      boost: { control: 'constant-speed', designGain: 40, shutoffGain: 50 },
+    };
     expect(analyzeSystem(d).zones![2].name).toBe('Zone 3 — BP-1 (gain 40 psi)');
   });
 
@@ -170,7 +184,7 @@ describe('pressure zones', () => {
     expect(() => analyzeSystem(d)).toThrow(expect.objectContaining({ code: 'missing-field', elementType: 'device', elementId: 'prv-2', field: 'prv' }));
   });
 
-  it('the demo building: every checked fixture in exactly one zone, and the zones\' verdicts agree with the system\'s', () => {
+  it("the demo building: every checked fixture in exactly one zone, and the zones' verdicts agree with the system's", () => {
     const demo = analyzeSystem(JSON.parse(readFileSync(new URL('../../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
     const zs = demo.zones!;
     expect(zs.length).toBeGreaterThan(1);

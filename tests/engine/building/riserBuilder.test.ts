@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { buildRiser, floorsFromTable } from '../../../src/engine/building/riserBuilder';
 import { expandBuilding, expandPlacements } from '../../../src/engine/building/expand';
 import { APARTMENT_A, APARTMENT_BRANCH_LENGTHS_FT, apartmentBuildingDocument, apartmentBuildingSpec } from '../../../src/engine/building/apartmentBuilding';
-import { FIXTURE_TYPES } from "../../../src/engine/catalog/fixtures";
+import { FIXTURE_TYPES } from '../../../src/engine/catalog/fixtures';
 import { EngineInputError } from '../../../src/engine/errors';
 import { UnitTypeSchema, type UnitType } from '../../../src/engine/building/schema';
 import { expectClose } from '../../helpers/expectClose';
@@ -13,7 +13,15 @@ import { expectClose } from '../../helpers/expectClose';
 describe('floors from a table', () => {
   it('when some elevations are missing, then each is the previous one plus the typical height', () => {
     const floors = floorsFromTable(
-      [{ name: 'Level 1', elevation: 0 }, { name: 'Level 2' }, { name: 'Level 3' }, { name: 'Level 4' }, { name: 'Level 5' }, { name: 'Level 6' }, { name: 'Level 7', elevation: 62 }],
+      [
+        { name: 'Level 1', elevation: 0 },
+        { name: 'Level 2' },
+        { name: 'Level 3' },
+        { name: 'Level 4' },
+        { name: 'Level 5' },
+        { name: 'Level 6' },
+        { name: 'Level 7', elevation: 62 },
+      ],
       10,
     );
     expect(floors.map((f) => f.elevation)).toEqual([0, 10, 20, 30, 40, 50, 62]);
@@ -21,9 +29,16 @@ describe('floors from a table', () => {
   });
 
   it('when a floor is not above the one before it, then the error names that floor', () => {
-    expect(() => floorsFromTable([{ name: 'Level 1', elevation: 0 }, { name: 'Level 2', elevation: 10 }, { name: 'Mezzanine', elevation: 8 }], 10)).toThrow(
-      /Mezzanine.*not above "Level 2"/,
-    );
+    expect(() =>
+      floorsFromTable(
+        [
+          { name: 'Level 1', elevation: 0 },
+          { name: 'Level 2', elevation: 10 },
+          { name: 'Mezzanine', elevation: 8 },
+        ],
+        10,
+      ),
+    ).toThrow(/Mezzanine.*not above "Level 2"/);
   });
 
   it('when the first floor has no elevation, then it says so', () => {
@@ -57,7 +72,7 @@ describe('the riser builder', () => {
     expect(expanded.segments).toHaveLength(3 + 40 * 9 + 320 * 7);
     // 4 service nodes + 40·9 riser and main-tap nodes + 320 · 7 apartment nodes.
     expect(expanded.nodes).toHaveLength(4 + 40 * 9 + 320 * 7);
-    const checked = expanded.nodes.flatMap((n) => ((n as { checkedFixtures?: { id: string }[] }).checkedFixtures ?? []));
+    const checked = expanded.nodes.flatMap((n) => (n as { checkedFixtures?: { id: string }[] }).checkedFixtures ?? []);
     expect(checked).toHaveLength(320);
     expect(new Set(checked.map((c) => c.id)).size).toBe(320);
   });
@@ -65,7 +80,7 @@ describe('the riser builder', () => {
   it('when the apartments are expanded, then the cold fixture units per apartment are the catalog sum', () => {
     const doc = apartmentBuildingDocument(4);
     const expanded = expandBuilding(doc);
-    const groups = expanded.nodes.flatMap((n) => ((n as { fixtureGroups?: { fixtureTypeId: string; count: number }[] }).fixtureGroups ?? []));
+    const groups = expanded.nodes.flatMap((n) => (n as { fixtureGroups?: { fixtureTypeId: string; count: number }[] }).fixtureGroups ?? []);
     let cold = 0;
     for (const g of groups) cold += (FIXTURE_TYPES[g.fixtureTypeId]!.wsfu.cold ?? 0) * g.count;
     // IPC Table E103.3(2) cold loads: WC tank 2.2, lavatory 0.5, shower 1.0, kitchen sink 1.0,
@@ -101,14 +116,28 @@ describe('bad building input gets a message naming the row or field, and nothing
   it('when a placement names a missing floor or unit type, then the error names the placement', () => {
     const floorIds = new Set(['level-1']);
     const nodes = new Set(['main-level-1-1']);
-    expect(() => expandPlacements([APARTMENT_A], [{ id: 'p1', unitTypeId: 'apartment-a', label: 'Apt 101', floor: 'level-9', at: 'main-level-1-1' }], floorIds, nodes)).toThrow(
-      /Apt 101.*floor "level-9" does not exist/,
-    );
-    expect(() => expandPlacements([APARTMENT_A], [{ id: 'p1', unitTypeId: 'studio', label: 'Apt 101', floor: 'level-1', at: 'main-level-1-1' }], floorIds, nodes)).toThrow(
-      /Apt 101.*unit type "studio" does not exist/,
-    );
     expect(() =>
-      expandPlacements([APARTMENT_A], [{ id: 'p1', unitTypeId: 'apartment-a', label: 'Apt 101', floor: 'level-1', at: 'main-level-1-1', overrides: { segments: { 'to-bidet': { length: 3 } } } }], floorIds, nodes),
+      expandPlacements([APARTMENT_A], [{ id: 'p1', unitTypeId: 'apartment-a', label: 'Apt 101', floor: 'level-9', at: 'main-level-1-1' }], floorIds, nodes),
+    ).toThrow(/Apt 101.*floor "level-9" does not exist/);
+    expect(() =>
+      expandPlacements([APARTMENT_A], [{ id: 'p1', unitTypeId: 'studio', label: 'Apt 101', floor: 'level-1', at: 'main-level-1-1' }], floorIds, nodes),
+    ).toThrow(/Apt 101.*unit type "studio" does not exist/);
+    expect(() =>
+      expandPlacements(
+        [APARTMENT_A],
+        [
+          {
+            id: 'p1',
+            unitTypeId: 'apartment-a',
+            label: 'Apt 101',
+            floor: 'level-1',
+            at: 'main-level-1-1',
+            overrides: { segments: { 'to-bidet': { length: 3 } } },
+          },
+        ],
+        floorIds,
+        nodes,
+      ),
     ).toThrow(/override of segment "to-bidet"/);
   });
 
@@ -136,6 +165,8 @@ describe('bad building input gets a message naming the row or field, and nothing
 describe('the expanded building obeys the document bounds', () => {
   it('when placements would expand past the node and segment bound, then the error says so before building anything', () => {
     const many = Array.from({ length: 3000 }, (_, i) => ({ id: `p${i}`, unitTypeId: 'apartment-a', label: `Apt ${i}`, floor: 'level-1', at: 'tap' }));
-    expect(() => expandPlacements([APARTMENT_A], many, new Set(['level-1']), new Set(['tap']))).toThrow(/expand to 21001 nodes and segments; a system holds at most 20000/);
+    expect(() => expandPlacements([APARTMENT_A], many, new Set(['level-1']), new Set(['tap']))).toThrow(
+      /expand to 21001 nodes and segments; a system holds at most 20000/,
+    );
   });
 });

@@ -37,8 +37,22 @@ function zonedDocument(storeys = 40, zones: ZoneSpec[] = TWO_ZONES) {
       ...doc.devices,
       ...built.devices.map((d) =>
         d.kind === 'prv'
-          ? { id: d.id, kind: 'prv' as const, label: d.label, segmentId: d.segmentId, loss: { kind: 'fixed' as const, loss: 0 }, prv: { setPressure: d.setPressure } }
-          : { id: d.id, kind: 'booster-pump' as const, label: d.label, segmentId: d.segmentId, loss: { kind: 'fixed' as const, loss: 0 }, boost: { control: 'variable-speed' as const, setPressure: d.setPressure } },
+          ? {
+              id: d.id,
+              kind: 'prv' as const,
+              label: d.label,
+              segmentId: d.segmentId,
+              loss: { kind: 'fixed' as const, loss: 0 },
+              prv: { setPressure: d.setPressure },
+            }
+          : {
+              id: d.id,
+              kind: 'booster-pump' as const,
+              label: d.label,
+              segmentId: d.segmentId,
+              loss: { kind: 'fixed' as const, loss: 0 },
+              boost: { control: 'variable-speed' as const, setPressure: d.setPressure },
+            },
       ),
     ],
   };

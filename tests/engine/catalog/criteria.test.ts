@@ -14,8 +14,7 @@ describe('DEFAULT_CRITERIA (defaults the local code overrides)', () => {
     expect(CRITERIA_SOURCES.maxStaticPressurePa).toMatch(/IRC P2903\.3\.1/);
   });
   it('velocity: 8 ft/s cold, 5 ft/s hot in copper, 8 ft/s for plastic and steel (NSPC 10.14.1)', () => {
-    const limit = (material: string, service: string) =>
-      DEFAULT_CRITERIA.velocityLimits.find((v) => v.material === material && v.service === service)!;
+    const limit = (material: string, service: string) => DEFAULT_CRITERIA.velocityLimits.find((v) => v.material === material && v.service === service)!;
     expectClose(limit('copper', 'cold').maxVelocityMs, 8 * FT, EXACT);
     expectClose(limit('copper', 'hot').maxVelocityMs, 5 * FT, EXACT);
     for (const material of ['plastic', 'steel']) {
@@ -26,7 +25,10 @@ describe('DEFAULT_CRITERIA (defaults the local code overrides)', () => {
   });
   it('methods default to Colebrook, Crane and the IPC Hunter table', () => {
     expect(DEFAULT_CRITERIA).toMatchObject({
-      frictionMethod: 'colebrook', fittingMethod: 'crane', demandMethod: 'hunter-table', demandCurve: 'auto',
+      frictionMethod: 'colebrook',
+      fittingMethod: 'crane',
+      demandMethod: 'hunter-table',
+      demandCurve: 'auto',
     });
   });
   it('every field has a source string', () => {

@@ -56,10 +56,22 @@ describe('minimum flow pressure and flow, IPC 2018 Table 604.3 (REFERENCES §8a)
 describe('FIXTURE_TYPES catalog', () => {
   it('has the ids the engine contract names', () => {
     for (const id of [
-      'lavatory-private', 'water-closet-flush-tank-private', 'water-closet-flush-valve-public', 'shower-private',
-      'bathtub-private', 'kitchen-sink-private', 'dishwasher-private', 'clothes-washer-private', 'hose-bibb',
-      'urinal-flush-valve-public', 'lavatory-public', 'service-sink', 'drinking-fountain', 'bathroom-group-flush-tank-private',
-    ]) expect(FIXTURE_TYPES[id], id).toBeDefined();
+      'lavatory-private',
+      'water-closet-flush-tank-private',
+      'water-closet-flush-valve-public',
+      'shower-private',
+      'bathtub-private',
+      'kitchen-sink-private',
+      'dishwasher-private',
+      'clothes-washer-private',
+      'hose-bibb',
+      'urinal-flush-valve-public',
+      'lavatory-public',
+      'service-sink',
+      'drinking-fountain',
+      'bathroom-group-flush-tank-private',
+    ])
+      expect(FIXTURE_TYPES[id], id).toBeDefined();
   });
   for (const [id, f] of Object.entries(FIXTURE_TYPES)) {
     it(`${id}: source named, flagged where not verified, consistent values`, () => {

@@ -13,7 +13,16 @@ const psiAt = (material: string, size: string | null, tF: number): number => {
 const TABLE = { rtol: 1e-9 };
 
 describe('CPVC SDR 11 against the Charlotte Pipe How-to Guide de-rating table for ASTM D2846 CTS SDR 11 (REFERENCES §13f ends; whole table read in the guide)', () => {
-  const rows: [number, number][] = [[73, 400], [80, 400], [90, 360], [100, 325], [120, 260], [140, 200], [160, 160], [180, 100]];
+  const rows: [number, number][] = [
+    [73, 400],
+    [80, 400],
+    [90, 360],
+    [100, 325],
+    [120, 260],
+    [140, 200],
+    [160, 160],
+    [180, 100],
+  ];
   for (const [tF, psi] of rows) {
     it(`${tF} °F → ${psi} psi, every size`, () => {
       for (const size of ['1/2', '1', '2', null]) expectClose(psiAt('cpvc-sdr11', size, tF), psi, TABLE, `${size} at ${tF} °F`);
@@ -40,7 +49,11 @@ describe('CPVC SDR 11 against the Charlotte Pipe How-to Guide de-rating table fo
 
 describe('PEX SDR 9, ASTM F876 Appendix X1 ratings as restated by trade pages (REFERENCES §13g)', () => {
   it('160 psi at 73.4 °F, 100 psi at 180 °F, 80 psi at 200 °F, all flagged unverified', () => {
-    for (const [tF, psi] of [[73.4, 160], [180, 100], [200, 80]] as const) {
+    for (const [tF, psi] of [
+      [73.4, 160],
+      [180, 100],
+      [200, 80],
+    ] as const) {
       const r = pressureRating('pex-sdr9', '3/4', fahrenheitToCelsius(tF))!;
       expectClose(r.ratingPa / PA_PER_PSI, psi, TABLE, `${tF} °F`);
       expect(r.verified).toBe(false);

@@ -7,8 +7,25 @@ const TABLE = { rtol: 1e-12 };
 const GPM = 3.785411784e-3 / 60;
 
 describe('IPC Table E103.3(3) — rows read in a copy of the table ([SEEN], REFERENCES §7c)', () => {
-  const seenTank: [number, number][] = [[1, 3], [2, 5], [4, 8], [8, 12.8], [12, 16.0], [15, 17.5], [30, 23.3], [50, 29.1]];
-  const seenValve: [number, number][] = [[5, 15], [7, 19.8], [10, 27], [15, 31], [20, 35], [30, 42], [50, 50]];
+  const seenTank: [number, number][] = [
+    [1, 3],
+    [2, 5],
+    [4, 8],
+    [8, 12.8],
+    [12, 16.0],
+    [15, 17.5],
+    [30, 23.3],
+    [50, 29.1],
+  ];
+  const seenValve: [number, number][] = [
+    [5, 15],
+    [7, 19.8],
+    [10, 27],
+    [15, 31],
+    [20, 35],
+    [30, 42],
+    [50, 50],
+  ];
   for (const [wsfu, gpm] of seenTank) {
     it(`flush tanks: ${wsfu} wsfu → ${gpm} gpm`, () => {
       expectClose(hunterDesignFlowGpm(wsfu, 'flush-tank').gpm, gpm, TABLE);
@@ -77,7 +94,7 @@ function smallestM(n: number, p: number, pct: number): number {
   return m;
 }
 
-describe("hunterBinomialDemand (Hunter, NBS BMS65, 1940; 99th percentile)", () => {
+describe('hunterBinomialDemand (Hunter, NBS BMS65, 1940; 99th percentile)', () => {
   // The grid used to merge flows is 1e-7 of the maximum flow: rtol 1e-6 covers it.
   const GRID = { rtol: 1e-6 };
   it("one flush valve (Hunter: q = 27 gpm, t = 9 s, T = 300 s, from memory) → 27 gpm, the table's 10 wsfu row", () => {
@@ -87,7 +104,12 @@ describe("hunterBinomialDemand (Hunter, NBS BMS65, 1940; 99th percentile)", () =
     expectClose(q, 27 * GPM, GRID);
   });
   it('one group equals m·q with the smallest m whose binomial CDF reaches 0.99 (independent sum)', () => {
-    for (const [n, t, T] of [[10, 60, 300], [50, 9, 300], [200, 60, 900], [1000, 9, 300]] as const) {
+    for (const [n, t, T] of [
+      [10, 60, 300],
+      [50, 9, 300],
+      [200, 60, 900],
+      [1000, 9, 300],
+    ] as const) {
       const q = 4 * GPM;
       const m = smallestM(n, t / T, 0.99);
       expectClose(hunterBinomialDemand([{ count: n, flowM3s: q, durationS: t, recurrenceS: T }]), m * q, GRID, `n=${n}`);
@@ -95,7 +117,10 @@ describe("hunterBinomialDemand (Hunter, NBS BMS65, 1940; 99th percentile)", () =
   });
   it('two identical groups behave as one group of the combined count', () => {
     const g = { flowM3s: 8 * GPM, durationS: 60, recurrenceS: 900 };
-    const split = hunterBinomialDemand([{ ...g, count: 30 }, { ...g, count: 20 }]);
+    const split = hunterBinomialDemand([
+      { ...g, count: 30 },
+      { ...g, count: 20 },
+    ]);
     const whole = hunterBinomialDemand([{ ...g, count: 50 }]);
     expectClose(split, whole, GRID);
   });

@@ -3,9 +3,22 @@ import { FITTING_TYPES, fittingK, type FittingMethod } from '../../../src/engine
 import { NOT_VERIFIED } from '../../../src/engine/catalog/notVerified';
 
 const REQUIRED = [
-  'elbow-90-standard', 'elbow-90-long-radius', 'elbow-45-standard', 'tee-run', 'tee-branch', 'valve-gate',
-  'valve-ball-full-port', 'valve-ball-reduced-port', 'valve-globe', 'valve-check-swing', 'valve-check-lift',
-  'valve-angle', 'valve-butterfly', 'coupling', 'entrance-sharp', 'exit',
+  'elbow-90-standard',
+  'elbow-90-long-radius',
+  'elbow-45-standard',
+  'tee-run',
+  'tee-branch',
+  'valve-gate',
+  'valve-ball-full-port',
+  'valve-ball-reduced-port',
+  'valve-globe',
+  'valve-check-swing',
+  'valve-check-lift',
+  'valve-angle',
+  'valve-butterfly',
+  'coupling',
+  'entrance-sharp',
+  'exit',
 ];
 const METHODS: FittingMethod[] = ['crane', 'hooper-2k', 'darby-3k', 'equivalent-length'];
 
@@ -13,7 +26,7 @@ describe('FITTING_TYPES registry', () => {
   it('has every type the engine needs', () => {
     for (const id of REQUIRED) expect(FITTING_TYPES[id], id).toBeDefined();
   });
-  it('lists no copper press-connect or push-fit fitting (no published K available); PEX press only from its maker\'s table', () => {
+  it("lists no copper press-connect or push-fit fitting (no published K available); PEX press only from its maker's table", () => {
     for (const id of Object.keys(FITTING_TYPES)) {
       expect(id).not.toMatch(/push/);
       if (/press/.test(id)) expect(id).toMatch(/^pex-press-(bronze|polymer)-/);
@@ -34,7 +47,12 @@ describe('FITTING_TYPES registry', () => {
     });
     it(`${id}: gives a finite, non-negative K by every method at every common size`, () => {
       for (const method of METHODS) {
-        for (const [key, nominal, idIn] of [['1/2', 0.5, 0.545], ['1', 1, 1.025], ['2', 2, 1.985], ['4', 4, 3.905]] as const) {
+        for (const [key, nominal, idIn] of [
+          ['1/2', 0.5, 0.545],
+          ['1', 1, 1.025],
+          ['2', 2, 1.985],
+          ['4', 4, 3.905],
+        ] as const) {
           // A manufacturer's line published only at some sizes (PEX inserts, 1/2–1 in) has no value at the others.
           const lengthOnly = entry.equivalentLengthFt && entry.craneN === undefined && !entry.hooper && !entry.darby && entry.fixedK === undefined;
           if (lengthOnly && entry.equivalentLengthFt![key] === undefined) continue;

@@ -1,8 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import {
-  CRANE_FT_2009, ENTRANCE_SHARP_K, EXIT_K, FITTING_TYPES, changeKBasis, craneFt, craneFtLookup, craneK, darby3K,
-  fittingK, hooper2K, suddenContractionK, suddenExpansionK,
+  CRANE_FT_2009,
+  ENTRANCE_SHARP_K,
+  EXIT_K,
+  FITTING_TYPES,
+  changeKBasis,
+  craneFt,
+  craneFtLookup,
+  craneK,
+  darby3K,
+  fittingK,
+  hooper2K,
+  suddenContractionK,
+  suddenExpansionK,
 } from '../../../src/engine/fittings';
 
 // Explicit formulas against values printed to 16 digits: floating-point rounding only.
@@ -11,8 +22,19 @@ const EXPLICIT = { rtol: 1e-12 };
 describe('craneFt — Crane TP-410 (2009) f_T by nominal size (REFERENCES §6a)', () => {
   it('reads the table rows exactly', () => {
     const published: [number, number][] = [
-      [0.5, 0.026], [0.75, 0.024], [1, 0.022], [1.25, 0.021], [1.5, 0.02], [2, 0.019], [2.5, 0.018],
-      [3, 0.017], [4, 0.016], [5, 0.015], [6, 0.015], [8, 0.014], [10, 0.013],
+      [0.5, 0.026],
+      [0.75, 0.024],
+      [1, 0.022],
+      [1.25, 0.021],
+      [1.5, 0.02],
+      [2, 0.019],
+      [2.5, 0.018],
+      [3, 0.017],
+      [4, 0.016],
+      [5, 0.015],
+      [6, 0.015],
+      [8, 0.014],
+      [10, 0.013],
     ];
     expect(CRANE_FT_2009).toHaveLength(published.length);
     for (const [size, fT] of published) {

@@ -1,8 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import {
-  FRICTION_METHODS, churchill1977, colebrook, darcyFrictionFactor, hazenWilliamsHeadLoss, hazenWilliamsPressureLoss,
-  laminarFrictionFactor, swameeJain1976, type FrictionMethod,
+  FRICTION_METHODS,
+  churchill1977,
+  colebrook,
+  darcyFrictionFactor,
+  hazenWilliamsHeadLoss,
+  hazenWilliamsPressureLoss,
+  laminarFrictionFactor,
+  swameeJain1976,
+  type FrictionMethod,
   HAZEN_WILLIAMS_SI_CONSTANT,
 } from '../../../src/engine/friction';
 import { waterProperties } from '../../../src/engine/water';
@@ -43,7 +50,12 @@ describe('colebrook (solved iteratively)', () => {
     expectClose(colebrook(104800000000, 2.55e-8), 0.0037751087365339906, ITERATED);
   });
   it('satisfies its own equation (residual of the implicit form)', () => {
-    for (const [Re, eD] of [[4000, 0], [1e4, 1e-3], [1e6, 0.05], [1e8, 1e-6]] as const) {
+    for (const [Re, eD] of [
+      [4000, 0],
+      [1e4, 1e-3],
+      [1e6, 0.05],
+      [1e8, 1e-6],
+    ] as const) {
       const f = colebrook(Re, eD);
       const rhs = -2 * Math.log10(eD / 3.7 + 2.51 / (Re * Math.sqrt(f)));
       // The stopping rule bounds the relative change of 1/√f at 1e-10.
@@ -134,7 +146,12 @@ describe('hazenWilliamsHeadLoss', () => {
   const usPsiPerFt = (gpm: number, dIn: number, C: number) => (4.52 * gpm ** 1.852) / (C ** 1.852 * dIn ** 4.8704);
 
   it('agrees with the US pressure form 4.52·Q^1.852/(C^1.852·d^4.8704) psi/ft, converted', () => {
-    for (const [gpm, dIn, C] of [[10, 0.785, 130], [100, 2.067, 120], [500, 4.026, 140], [2, 0.485, 150]] as const) {
+    for (const [gpm, dIn, C] of [
+      [10, 0.785, 130],
+      [100, 2.067, 120],
+      [500, 4.026, 140],
+      [2, 0.485, 150],
+    ] as const) {
       const hPerFt = hazenWilliamsHeadLoss(gpm * GPM, dIn * IN, FT, C);
       const psiPerFt = (hPerFt * RHO_60F * G) / PSI;
       // The two published constants (10.67 SI, 4.52 US) are each rounded to 3–4 digits: 0.5 %.
@@ -143,7 +160,15 @@ describe('hazenWilliamsHeadLoss', () => {
   });
   it('correction factors (100/C)^1.85 of a C = 100 table (Engineers Edge, after AGA/NFPA)', () => {
     const base = hazenWilliamsHeadLoss(0.01, 0.1, 100, 100);
-    const printed: [number, number][] = [[150, 0.47], [140, 0.54], [130, 0.62], [120, 0.71], [110, 0.84], [90, 1.22], [80, 1.51]];
+    const printed: [number, number][] = [
+      [150, 0.47],
+      [140, 0.54],
+      [130, 0.62],
+      [120, 0.71],
+      [110, 0.84],
+      [90, 1.22],
+      [80, 1.51],
+    ];
     for (const [C, factor] of printed) {
       // Factors printed to 2 decimals (and computed with 1.85, not 1.852): ±0.01 absolute.
       expectClose(hazenWilliamsHeadLoss(0.01, 0.1, 100, C) / base, factor, { rtol: 0, atol: 0.011 }, `C ${C}`);
@@ -162,7 +187,13 @@ describe('hazenWilliamsPressureLoss: the pressure form the codes print (REFERENC
   const PSI = 6894.757293168361; // Pa per psi (REFERENCES §12)
   /** US pressure form, psi per ft: 4.52·Q^1.852/(C^1.852·d^4.8704), Q gpm, d in (NFPA 13; piping-designer.com). */
   const usPsiPerFt = (gpm: number, dIn: number, C: number) => (4.52 * gpm ** 1.852) / (C ** 1.852 * dIn ** 4.8704);
-  const cases = [[10, 0.785, 130], [100, 2.067, 120], [500, 4.026, 140], [2, 0.485, 150], [1000, 6.065, 100]] as const;
+  const cases = [
+    [10, 0.785, 130],
+    [100, 2.067, 120],
+    [500, 4.026, 140],
+    [2, 0.485, 150],
+    [1000, 6.065, 100],
+  ] as const;
 
   it('is the printed US pressure form exactly, in SI units (a unit conversion: rtol 1e-12)', () => {
     for (const [gpm, dIn, C] of cases) {

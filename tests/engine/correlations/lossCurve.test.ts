@@ -6,7 +6,13 @@ const PSI = 6894.757293168361;
 const GPM = 3.785411784e-3 / 60;
 // 5/8 in displacement meter, unattributed "AWWA standard pressure loss" sheet (REFERENCES §10):
 // 1 → 0.2, 5 → 0.9, 10 → 3.7, 15 → 8.3, 20 → 15.0 psi. Used as realistic curve data.
-const meter = [[1, 0.2], [5, 0.9], [10, 3.7], [15, 8.3], [20, 15.0]].map(([g, p]) => ({ flowM3s: g * GPM, lossPa: p * PSI }));
+const meter = [
+  [1, 0.2],
+  [5, 0.9],
+  [10, 3.7],
+  [15, 8.3],
+  [20, 15.0],
+].map(([g, p]) => ({ flowM3s: g * GPM, lossPa: p * PSI }));
 
 describe('lossCurveAt — Fritsch–Carlson monotone cubic (SIAM J. Numer. Anal. 17(2), 1980)', () => {
   it('passes through every point (interpolation)', () => {
@@ -26,7 +32,11 @@ describe('lossCurveAt — Fritsch–Carlson monotone cubic (SIAM J. Numer. Anal.
     }
   });
   it('does not overshoot a flat stretch (the property that plain cubic splines lack)', () => {
-    const pts = [{ flowM3s: 1, lossPa: 10 }, { flowM3s: 2, lossPa: 10 }, { flowM3s: 3, lossPa: 30 }];
+    const pts = [
+      { flowM3s: 1, lossPa: 10 },
+      { flowM3s: 2, lossPa: 10 },
+      { flowM3s: 3, lossPa: 30 },
+    ];
     // Hermite basis sums to 1 with zero tangents: only rounding, 1e-12.
     for (let q = 1; q <= 2; q += 0.01) expectClose(lossCurveAt(pts, q).lossPa, 10, { rtol: 1e-12 });
   });
@@ -40,7 +50,10 @@ describe('lossCurveAt — Fritsch–Carlson monotone cubic (SIAM J. Numer. Anal.
     expectClose(r.lossPa, 15 * PSI * (25 / 20) ** 2, { rtol: 1e-12 });
   });
   it('keeps a given zero-flow loss (e.g. a backflow assembly) instead of implying zero', () => {
-    const rp = [{ flowM3s: 0, lossPa: 10 * PSI }, { flowM3s: 50 * GPM, lossPa: 12 * PSI }];
+    const rp = [
+      { flowM3s: 0, lossPa: 10 * PSI },
+      { flowM3s: 50 * GPM, lossPa: 12 * PSI },
+    ];
     expectClose(lossCurveAt(rp, 0).lossPa, 10 * PSI, { rtol: 1e-12 });
   });
   it('sorts unsorted input, and rejects duplicates, negatives and empty curves', () => {

@@ -26,7 +26,12 @@ const TABLE: Record<string, Record<string, number>> = {
 // ASTM F876 SDR 9 PEX inside diameters (REFERENCES §5b, in), nominal sizes in inches.
 // 1-1/4–2 in: wall = OD/9 (F876's SDR 9 definition), REFERENCES §5b, as the materials catalog has them.
 const PEX = {
-  '1/2': [0.5, 0.485], '3/4': [0.75, 0.681], '1': [1, 0.875], '1-1/4': [1.25, 1.069], '1-1/2': [1.5, 1.263], '2': [2, 1.653],
+  '1/2': [0.5, 0.485],
+  '3/4': [0.75, 0.681],
+  '1': [1, 0.875],
+  '1-1/4': [1.25, 1.069],
+  '1-1/2': [1.5, 1.263],
+  '2': [2, 1.653],
 } as const;
 const METHODS: FittingMethod[] = ['equivalent-length', 'crane', 'hooper-2k', 'darby-3k'];
 const M_PER_FT = 0.3048; // exact
@@ -57,7 +62,7 @@ describe('PEX insert and press fittings, manufacturer equivalent lengths', () =>
     ).toThrow(/no data .* at size 2/);
   });
 
-  it('every PEX entry is checked above, and each says it is one maker\'s data (verified as manufacturer data, not a code table)', () => {
+  it("every PEX entry is checked above, and each says it is one maker's data (verified as manufacturer data, not a code table)", () => {
     const pex = Object.keys(FITTING_TYPES).filter((id) => id.startsWith('pex-'));
     expect(pex.sort()).toEqual(Object.keys(TABLE).sort());
     for (const id of pex) {

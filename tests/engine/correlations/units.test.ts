@@ -1,8 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { expectClose } from '../../helpers/expectClose';
 import {
-  G, M3S_PER_GPM, M3_PER_GAL, M_PER_FT, M_PER_IN, PA_PER_PSI, KGM3_PER_LBFT3, UNIT_LABELS,
-  fromSI, toSI, type Quantity,
+  G,
+  M3S_PER_GPM,
+  M3_PER_GAL,
+  M_PER_FT,
+  M_PER_IN,
+  PA_PER_PSI,
+  KGM3_PER_LBFT3,
+  UNIT_LABELS,
+  fromSI,
+  toSI,
+  type Quantity,
 } from '../../../src/engine/units';
 import { waterProperties } from '../../../src/engine/water';
 

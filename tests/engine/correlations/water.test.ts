@@ -89,7 +89,11 @@ describe('waterProperties at 1 atm', () => {
   });
   it('M. Chaplin, LSBU "Water structure and science" data table', () => {
     const rows: [number, number, number][] = [
-      [10, 999.7, 1.307], [20, 998.2, 1.002], [40, 992.2, 0.653], [60, 983.2, 0.467], [80, 971.8, 0.355],
+      [10, 999.7, 1.307],
+      [20, 998.2, 1.002],
+      [40, 992.2, 0.653],
+      [60, 983.2, 0.467],
+      [80, 971.8, 0.355],
     ];
     for (const [t, rho, muCp] of rows) {
       const w = waterProperties(t);

@@ -26,8 +26,7 @@ describe('Hazen–Williams through analyzeSystem at 60 °F and 140 °F', () => {
     });
   }
   it('the two temperatures give bit-identical friction (the loss has no temperature term)', () => {
-    const at = (tC: number) =>
-      analyzeSystem(oneSegment({ waterTemperature: tC, criteria: { frictionMethod: 'hazen-williams' } })).si.segments[0].frictionLoss;
+    const at = (tC: number) => analyzeSystem(oneSegment({ waterTemperature: tC, criteria: { frictionMethod: 'hazen-williams' } })).si.segments[0].frictionLoss;
     expect(at(15.5556)).toBe(at(60));
     expect(at(15.5556)).toBeGreaterThan(0);
   });

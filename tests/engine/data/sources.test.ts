@@ -17,7 +17,18 @@ describe('shipped source strings', () => {
 
   it('cover every catalog: materials, fixtures, fittings, meters, the demand table, methods, criteria, pressure ratings', () => {
     const kinds = new Set(all.map((s) => s.kind));
-    for (const k of ['material', 'fixture-type', 'fitting-type', 'device-template', 'demand-table', 'friction-method', 'fitting-method', 'demand-method', 'criteria', 'pressure-rating']) {
+    for (const k of [
+      'material',
+      'fixture-type',
+      'fitting-type',
+      'device-template',
+      'demand-table',
+      'friction-method',
+      'fitting-method',
+      'demand-method',
+      'criteria',
+      'pressure-rating',
+    ]) {
       expect(kinds.has(k as never), k).toBe(true);
     }
     expect(all.length).toBeGreaterThan(100);
@@ -88,7 +99,12 @@ describe('sources reaching a result carry the caution where they are unverified'
     expect(fittingK('elbow-90-standard', { ...ctx, method: 'crane' }).source).not.toContain(NOT_VERIFIED);
   });
   it('a pressure rating flagged unverified says so in its source; a verified one does not', () => {
-    for (const [m, tF] of [['pex-sdr9', 140], ['cpvc-sdr11', 100], ['cpvc-sdr11', 140], ['copper-l', 140]] as const) {
+    for (const [m, tF] of [
+      ['pex-sdr9', 140],
+      ['cpvc-sdr11', 100],
+      ['cpvc-sdr11', 140],
+      ['copper-l', 140],
+    ] as const) {
       const r = pressureRating(m, '3/4', fahrenheitToCelsius(tF))!;
       expect(r.source.includes(NOT_VERIFIED), `${m} ${tF} °F`).toBe(!r.verified);
       expect(r.source).not.toMatch(/from\s+memory/i);

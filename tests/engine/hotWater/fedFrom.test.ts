@@ -7,7 +7,13 @@ import { clone, oneSegment, smallTree } from '../support/docs';
 
 /** The cold system: the small tree (SI); its node "a" feeds the heater. */
 function coldView(overrides: Partial<ColdSupplyView> = {}, doc: unknown = smallTree()): ColdSupplyView {
-  return { systemId: 'cold-1', name: 'Domestic cold', service: 'cold', revision: { number: 3, status: 'draft', analysis: { ok: true, analysis: analyzeSystem(doc) } }, ...overrides };
+  return {
+    systemId: 'cold-1',
+    name: 'Domestic cold',
+    service: 'cold',
+    revision: { number: 3, status: 'draft', analysis: { ok: true, analysis: analyzeSystem(doc) } },
+    ...overrides,
+  };
 }
 
 /** A hot system fed from node "a" of the cold one, with a water heater (fixed 10 kPa) on its first segment. */
@@ -62,8 +68,18 @@ describe('a hot system fed from a cold system', () => {
   const cases: [string, ColdSupplyView | null, string, (d: SystemDocument) => SystemDocument][] = [
     ['the cold system is missing (deleted)', null, 'cold-system-missing', (d) => d],
     ['the chosen system is a hot system', coldView({ service: 'hot' }), 'cold-system-not-cold', (d) => d],
-    ['the node is not in the cold system', coldView(), 'cold-node-missing', (d) => ({ ...d, source: { ...d.source, fedFrom: { systemId: 'cold-1', nodeId: 'gone' } } })],
-    ['the cold system cannot be computed', coldView({ revision: { number: 1, status: 'draft', analysis: { ok: false, error: { message: 'a cycle' } } } }), 'cold-analysis-missing', (d) => d],
+    [
+      'the node is not in the cold system',
+      coldView(),
+      'cold-node-missing',
+      (d) => ({ ...d, source: { ...d.source, fedFrom: { systemId: 'cold-1', nodeId: 'gone' } } }),
+    ],
+    [
+      'the cold system cannot be computed',
+      coldView({ revision: { number: 1, status: 'draft', analysis: { ok: false, error: { message: 'a cycle' } } } }),
+      'cold-analysis-missing',
+      (d) => d,
+    ],
     ['the cold system has no revision', coldView({ revision: null }), 'cold-analysis-missing', (d) => d],
   ];
   for (const [when, cold, code, edit] of cases) {

@@ -26,7 +26,7 @@ function gradient(q: number, d: number): { v: number; dpdx: number } {
   const v = q / ((Math.PI * d * d) / 4);
   const re = (v * d) / nu;
   const f = 0.25 / Math.log10(eps / (3.7 * d) + 5.74 / re ** 0.9) ** 2;
-  return { v, dpdx: (f / d) * (rho * v * v) / 2 };
+  return { v, dpdx: ((f / d) * (rho * v * v)) / 2 };
 }
 
 function code(fn: () => unknown): string | undefined {

@@ -134,16 +134,24 @@ describe('the recirculation loop of a hot system (post-pass of the analysis)', (
     const si = hotWithLoop();
     si.unitSystem = 'SI';
     si.waterTemperature = (120 - 32) / 1.8;
-    si.source = { ...si.source, staticPressureLow: 60 * PA_PER_PSI / 1000, staticPressureHigh: 65 * PA_PER_PSI / 1000 };
-    si.nodes = si.nodes.map((n) => ({ ...n, elevation: (n.elevation ?? 0) * M_PER_FT, continuousDemand: n.continuousDemand === undefined ? undefined : n.continuousDemand * M3S_PER_GPM * 1000 }));
+    si.source = { ...si.source, staticPressureLow: (60 * PA_PER_PSI) / 1000, staticPressureHigh: (65 * PA_PER_PSI) / 1000 };
+    si.nodes = si.nodes.map((n) => ({
+      ...n,
+      elevation: (n.elevation ?? 0) * M_PER_FT,
+      continuousDemand: n.continuousDemand === undefined ? undefined : n.continuousDemand * M3S_PER_GPM * 1000,
+    }));
     si.segments = si.segments.map((s) => ({ ...s, length: s.length * M_PER_FT }));
     const wPerBtuH = 1055.05585262 / 3600;
     si.recirculation = {
       ...si.recirculation!,
-      segments: si.recirculation!.segments.map((s) => ({ ...s, length: s.length * M_PER_FT, heatLoss: s.heatLoss === undefined ? undefined : s.heatLoss * wPerBtuH })),
-      heatLossPerLength: 20 * wPerBtuH / M_PER_FT,
+      segments: si.recirculation!.segments.map((s) => ({
+        ...s,
+        length: s.length * M_PER_FT,
+        heatLoss: s.heatLoss === undefined ? undefined : s.heatLoss * wPerBtuH,
+      })),
+      heatLossPerLength: (20 * wPerBtuH) / M_PER_FT,
       temperatureDrop: 10 / 1.8,
-      heaterLoss: 2 * PA_PER_PSI / 1000,
+      heaterLoss: (2 * PA_PER_PSI) / 1000,
     };
     const r = loopOf(si).r;
     if (!r.ok || !us.ok) throw new Error('expected both computed');
@@ -166,7 +174,13 @@ describe('a loop that cannot be computed: a named error, the rest of the analysi
   const cases: [string, Partial<NonNullable<SystemDocumentInput['recirculation']>>, string, string | RegExp][] = [
     [
       'the return does not come back to the heater',
-      { segments: [hotWithLoop().recirculation!.segments[0], hotWithLoop().recirculation!.segments[1], { ...hotWithLoop().recirculation!.segments[2], to: 'basement' }] },
+      {
+        segments: [
+          hotWithLoop().recirculation!.segments[0],
+          hotWithLoop().recirculation!.segments[1],
+          { ...hotWithLoop().recirculation!.segments[2], to: 'basement' },
+        ],
+      },
       'loop-not-closed',
       'recirculation.segments',
     ],
@@ -201,7 +215,15 @@ describe('a loop that cannot be computed: a named error, the rest of the analysi
   }
 
   it('the heater is the source node: a loop from another node is named as not closed, with the node', () => {
-    const { r } = loopOf(hotWithLoop({ segments: hotWithLoop().recirculation!.segments.map((s) => ({ ...s, from: s.from === 'heater' ? 'boiler' : s.from, to: s.to === 'heater' ? 'boiler' : s.to })) }));
+    const { r } = loopOf(
+      hotWithLoop({
+        segments: hotWithLoop().recirculation!.segments.map((s) => ({
+          ...s,
+          from: s.from === 'heater' ? 'boiler' : s.from,
+          to: s.to === 'heater' ? 'boiler' : s.to,
+        })),
+      }),
+    );
     if (r.ok) throw new Error('expected an error');
     expect(r.error.message).toContain('"heater"');
   });
@@ -225,7 +247,12 @@ describe('the closed-system check across the cold system (fedFrom)', () => {
     revision: { number: 1, status: 'draft', analysis: { ok: true, analysis: analyzeSystem(doc) }, ...(withDocument ? { document: doc } : {}) },
   });
   function hotFedFrom(nodeId: string): SystemDocument {
-    const d = SystemDocumentSchema.parse({ ...hotWithLoop(), unitSystem: 'SI', waterTemperature: 60, source: { kind: 'tank', nodeId: 'heater', staticPressureLow: 1, staticPressureHigh: 2, pressureBasis: 'typed', fedFrom: { systemId: 'cold-1', nodeId } } });
+    const d = SystemDocumentSchema.parse({
+      ...hotWithLoop(),
+      unitSystem: 'SI',
+      waterTemperature: 60,
+      source: { kind: 'tank', nodeId: 'heater', staticPressureLow: 1, staticPressureHigh: 2, pressureBasis: 'typed', fedFrom: { systemId: 'cold-1', nodeId } },
+    });
     delete d.recirculation;
     d.nodes = d.nodes.map((n) => ({ ...n, elevation: 0, continuousDemand: 0.1 }));
     d.segments = d.segments.map((s) => ({ ...s, length: 30 }));

@@ -6,7 +6,18 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { DECLINED, element, fieldChangeKeys, optional, rangedPaths, required, value, withDefault, type AnyElement, type ValueShape } from '../../../src/engine/model/describe';
+import {
+  DECLINED,
+  element,
+  fieldChangeKeys,
+  optional,
+  rangedPaths,
+  required,
+  value,
+  withDefault,
+  type AnyElement,
+  type ValueShape,
+} from '../../../src/engine/model/describe';
 import { CHECKED_FIXTURE, CUSTOM_PIPE, describedElements, FITTING, FIXTURE_GROUP, NODE, SEGMENT } from '../../../src/engine/model/elements';
 import { readerSource } from '../../../src/engine/model/readerSource';
 import { LIMITS } from '../../../src/engine/model/limits';
@@ -111,7 +122,8 @@ describe('the segment description', () => {
   });
 
   it('labels every key', () => {
-    for (const e of [SEGMENT, FITTING, CUSTOM_PIPE, NODE, FIXTURE_GROUP, CHECKED_FIXTURE]) for (const [k, d] of Object.entries(e.keys)) expect(d.label.length, `${e.name}.${k}`).toBeGreaterThan(0);
+    for (const e of [SEGMENT, FITTING, CUSTOM_PIPE, NODE, FIXTURE_GROUP, CHECKED_FIXTURE])
+      for (const [k, d] of Object.entries(e.keys)) expect(d.label.length, `${e.name}.${k}`).toBeGreaterThan(0);
   });
 });
 

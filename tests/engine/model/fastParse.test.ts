@@ -30,8 +30,7 @@ function objectOf(fields: Record<string, unknown>, reverse: boolean): Record<str
   return Object.fromEntries(entries);
 }
 
-const rec = (fields: Record<string, fc.Arbitrary<unknown>>) =>
-  fc.tuple(fc.record(fields), fc.boolean()).map(([f, reverse]) => objectOf(f, reverse));
+const rec = (fields: Record<string, fc.Arbitrary<unknown>>) => fc.tuple(fc.record(fields), fc.boolean()).map(([f, reverse]) => objectOf(f, reverse));
 
 const finite = fc.double({ noNaN: true, noDefaultInfinity: true, min: -1e6, max: 1e6 });
 const positive = fc.double({ noNaN: true, min: Number.MIN_VALUE, max: 1e6 });
@@ -126,18 +125,27 @@ const segment = arbitraryOf(SEGMENT);
 const criteria = rec({
   maxStaticPressure: opt(positive),
   minStaticPressure: opt(nonNegative),
-  velocityLimits: opt(fc.array(rec({ material: fc.constantFrom('copper', 'plastic', 'steel'), service: fc.constantFrom('cold', 'hot'), maxVelocity: positive }), { maxLength: 2 })),
-  minFlowPressures: opt(fc.dictionary(fc.string({ minLength: 1, maxLength: 6 }).filter((k) => k !== '__proto__'), nonNegative, { maxKeys: 3 })),
+  velocityLimits: opt(
+    fc.array(rec({ material: fc.constantFrom('copper', 'plastic', 'steel'), service: fc.constantFrom('cold', 'hot'), maxVelocity: positive }), {
+      maxLength: 2,
+    }),
+  ),
+  minFlowPressures: opt(
+    fc.dictionary(
+      fc.string({ minLength: 1, maxLength: 6 }).filter((k) => k !== '__proto__'),
+      nonNegative,
+      { maxKeys: 3 },
+    ),
+  ),
   demandCurve: opt(fc.constantFrom('auto', 'flush-tank', 'flush-valve')),
   demandMethod: opt(fc.constantFrom('hunter-table', 'hunter-binomial')),
   frictionMethod: opt(fc.constantFrom('colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams')),
   fittingMethod: opt(fc.constantFrom('crane', 'hooper-2k', 'darby-3k', 'equivalent-length')),
 });
 const recirculation = rec({
-  segments: fc.array(
-    rec({ id, label: opt(text), from: id, to: id, length: positive, material: id, size: opt(id), heatLoss: opt(nonNegative) }),
-    { maxLength: 3 },
-  ),
+  segments: fc.array(rec({ id, label: opt(text), from: id, to: id, length: positive, material: id, size: opt(id), heatLoss: opt(nonNegative) }), {
+    maxLength: 3,
+  }),
   heatLossPerLength: opt(nonNegative),
   temperatureDrop: finite,
   hotTemperature: opt(finite),
@@ -157,7 +165,9 @@ const validDocument = rec({
   nodes: fc.array(node, { minLength: 1, maxLength: 3 }),
   segments: fc.array(segment, { maxLength: 3 }),
   criteria: opt(criteria),
-  expansionTank: opt(rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive })),
+  expansionTank: opt(
+    rec({ heaterVolume: nonNegative, coldTemperature: finite, hotTemperature: finite, supplyPressure: nonNegative, reliefPressure: positive }),
+  ),
   recirculation: opt(recirculation),
   notes: opt(text),
   sizingBasis: opt(
@@ -176,8 +186,33 @@ const validDocument = rec({
 
 /** Values that break (or sometimes keep) a field: wrong types, non-finite, signs, bounds, lengths. */
 const weird = fc.constantFrom<unknown>(
-  NaN, Infinity, -Infinity, -1, 0, -0, 0.5, 1.5, 2 ** 53, 2 ** 53 - 1, 1e308, '', 'x', 'x'.repeat(200), 'x'.repeat(201),
-  '😀'.repeat(100), '😀'.repeat(101), null, true, [], {}, [1], { kind: 'fixed' }, 'flush-tank', 'SI', 'curve', undefined,
+  NaN,
+  Infinity,
+  -Infinity,
+  -1,
+  0,
+  -0,
+  0.5,
+  1.5,
+  2 ** 53,
+  2 ** 53 - 1,
+  1e308,
+  '',
+  'x',
+  'x'.repeat(200),
+  'x'.repeat(201),
+  '😀'.repeat(100),
+  '😀'.repeat(101),
+  null,
+  true,
+  [],
+  {},
+  [1],
+  { kind: 'fixed' },
+  'flush-tank',
+  'SI',
+  'curve',
+  undefined,
 );
 
 type Path = (string | number)[];
@@ -197,24 +232,22 @@ function at(v: unknown, path: Path): Record<string | number, unknown> {
 }
 
 /** One mutation at a chosen container: delete a key, replace a value, or add an unknown key. */
-const mutated = fc
-  .tuple(validDocument, fc.nat(), fc.nat(), fc.constantFrom('delete', 'replace', 'add'), weird)
-  .map(([doc, pickC, pickK, op, value]) => {
-    const spots = containers(doc);
-    const spot = spots[pickC % spots.length];
-    const target = at(doc, spot.path);
-    if (op === 'add' || spot.keys.length === 0) {
-      if (Array.isArray(target)) target.push(value);
-      else target.unknownKey = value;
-    } else {
-      const key = spot.keys[pickK % spot.keys.length];
-      if (op === 'delete') {
-        if (Array.isArray(target)) target.splice(key as number, 1);
-        else delete target[key];
-      } else target[key] = value;
-    }
-    return doc;
-  });
+const mutated = fc.tuple(validDocument, fc.nat(), fc.nat(), fc.constantFrom('delete', 'replace', 'add'), weird).map(([doc, pickC, pickK, op, value]) => {
+  const spots = containers(doc);
+  const spot = spots[pickC % spots.length];
+  const target = at(doc, spot.path);
+  if (op === 'add' || spot.keys.length === 0) {
+    if (Array.isArray(target)) target.push(value);
+    else target.unknownKey = value;
+  } else {
+    const key = spot.keys[pickK % spot.keys.length];
+    if (op === 'delete') {
+      if (Array.isArray(target)) target.splice(key as number, 1);
+      else delete target[key];
+    } else target[key] = value;
+  }
+  return doc;
+});
 
 /** First difference between two values: key order, key presence (undefined included), Object.is on primitives. */
 function difference(a: unknown, b: unknown, path = '$'): string | null {
@@ -289,7 +322,10 @@ describe('fast reader ≡ zod schema', () => {
   it('project data: custom fittings and fixture groups, valid and invalid, get the same verdict and value', () => {
     const withFitting = (custom: unknown) => {
       const d = oneSegment() as unknown as { segments: { fittings: unknown[] }[] };
-      d.segments[0].fittings = [{ typeId: 'elbow-90-standard', count: 1 }, { typeId: 'project:e1', count: 2, custom }];
+      d.segments[0].fittings = [
+        { typeId: 'elbow-90-standard', count: 1 },
+        { typeId: 'project:e1', count: 2, custom },
+      ];
       return d;
     };
     const withGroup = (custom: unknown) => {
@@ -325,7 +361,15 @@ describe('fast reader ≡ zod schema', () => {
 
   it('a hot system fed from a cold one: valid and invalid resolutions get the same verdict and value', () => {
     const withFedFrom = (fedFrom: unknown) => ({ ...oneSegment(), service: 'hot', source: { ...oneSegment().source, fedFrom } });
-    const resolved = { status: 'resolved', systemName: 'Cold', nodeLabel: 'Heater feed', revisionNumber: 2, revisionStatus: 'draft', residualPressure: 420, staticPressureHigh: 480 };
+    const resolved = {
+      status: 'resolved',
+      systemName: 'Cold',
+      nodeLabel: 'Heater feed',
+      revisionNumber: 2,
+      revisionStatus: 'draft',
+      residualPressure: 420,
+      staticPressureHigh: 480,
+    };
     const valid = [
       withFedFrom({ systemId: 'cold', nodeId: 'heater-feed' }),
       withFedFrom({ systemId: 'cold', nodeId: 'heater-feed', resolution: resolved }),

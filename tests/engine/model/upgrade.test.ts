@@ -11,7 +11,12 @@ import { expectClose } from '../../helpers/expectClose';
 
 const V1_RESULTS = JSON.parse(readFileSync(new URL('./fixtures/v1-example-results.json', import.meta.url), 'utf8')) as Record<
   string,
-  { source: number[]; nodes: [string, number, number, number, number][]; segments: [string, number, number, number, number][]; fixtures: [string, number, number][] }
+  {
+    source: number[];
+    nodes: [string, number, number, number, number][];
+    segments: [string, number, number, number, number][];
+    fixtures: [string, number, number][];
+  }
 >;
 const example = (name: string): unknown => JSON.parse(readFileSync(new URL(`../../../src/engine/examples/${name}.json`, import.meta.url), 'utf8'));
 
@@ -38,7 +43,11 @@ describe('the examples in version 2 analyse exactly as in version 1', () => {
   }
 });
 
-const PEX_TO_METAL: Record<string, string> = { 'pex-insert-brass-elbow-90': 'elbow-90-standard', 'pex-insert-brass-tee-run': 'tee-run', 'pex-insert-brass-tee-branch': 'tee-branch' };
+const PEX_TO_METAL: Record<string, string> = {
+  'pex-insert-brass-elbow-90': 'elbow-90-standard',
+  'pex-insert-brass-tee-run': 'tee-run',
+  'pex-insert-brass-tee-branch': 'tee-branch',
+};
 const SIZES_BEFORE: Record<string, Record<string, string>> = {
   'alder-finch-cold': { '7A-bath': '3/4', '7B-bath': '3/4', '7C-bath': '3/4', '7D-bath': '3/4' },
   'alder-finch-hot': { 'hfloor-7': '1-1/2', 'h7A-bath': '3/4', 'h7B-bath': '3/4', 'h7C-bath': '3/4', 'h7D-bath': '3/4' },

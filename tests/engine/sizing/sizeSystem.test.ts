@@ -78,7 +78,7 @@ function randomTree(seed: number, pressurePsi = 60): Tree {
 function volume(doc: SystemDocumentInput): number {
   return doc.segments.reduce((sum, s) => {
     const d = MATERIALS['copper-l'].sizes.find((z) => z.key === s.size)!.innerDiameterM;
-    return sum + ((s.length * 0.3048) * Math.PI * d * d) / 4;
+    return sum + (s.length * 0.3048 * Math.PI * d * d) / 4;
   }, 0);
 }
 

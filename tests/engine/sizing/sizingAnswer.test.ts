@@ -67,7 +67,13 @@ function handSystem(): SystemDocumentInput {
         size: '1',
         length: 40,
         rise: 0,
-        fittings: [{ typeId: 'sheet:elbow-90', count: 2, custom: { label: 'Copper 90° elbow, 1 in', equivalentLength: 6, source: 'utility sheet of fitting equivalent footage (copper column)' } }],
+        fittings: [
+          {
+            typeId: 'sheet:elbow-90',
+            count: 2,
+            custom: { label: 'Copper 90° elbow, 1 in', equivalentLength: 6, source: 'utility sheet of fitting equivalent footage (copper column)' },
+          },
+        ],
         reducerAuto: false,
       },
       {
@@ -79,7 +85,13 @@ function handSystem(): SystemDocumentInput {
         size: '3/4',
         length: 30,
         rise: HAND.risesFt,
-        fittings: [{ typeId: 'sheet:tee-side', count: 1, custom: { label: 'Copper tee, side outlet, 3/4 in', equivalentLength: 9, source: 'utility sheet of fitting equivalent footage (copper column)' } }],
+        fittings: [
+          {
+            typeId: 'sheet:tee-side',
+            count: 1,
+            custom: { label: 'Copper tee, side outlet, 3/4 in', equivalentLength: 9, source: 'utility sheet of fitting equivalent footage (copper column)' },
+          },
+        ],
         reducerAuto: false,
       },
     ],
@@ -225,6 +237,8 @@ describe('sizing a building with a booster and pressure-reducing valves', () => 
     expect(result.minMarginAfterPa!).toBeGreaterThanOrEqual(0);
     // Least volume: the sizes may only shrink the pipe held, never grow it past a design that already passes.
     expect(result.volumeAfterM3!).toBeLessThanOrEqual(result.volumeBeforeM3);
-    console.log(`demo sizing: ${result.changedSegments} segments changed, ${result.analyses} analyses, volume ${result.volumeBeforeM3.toFixed(4)} → ${result.volumeAfterM3!.toFixed(4)} m³`);
+    console.log(
+      `demo sizing: ${result.changedSegments} segments changed, ${result.analyses} analyses, volume ${result.volumeBeforeM3.toFixed(4)} → ${result.volumeAfterM3!.toFixed(4)} m³`,
+    );
   });
 });

@@ -29,14 +29,24 @@ function twoZones(withPrv: boolean): SystemDocumentInput {
     unitSystem: 'US',
     waterTemperature: 60,
     source: { kind: 'utility-main', nodeId: 'src', staticPressureLow: 50, staticPressureHigh: 55, pressureBasis: 'invented' },
-    devices: withPrv
-      ? [{ id: 'prv-l', kind: 'prv', label: 'PRV-L', segmentId: 'low', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 35 } }]
-      : [],
+    devices: withPrv ? [{ id: 'prv-l', kind: 'prv', label: 'PRV-L', segmentId: 'low', loss: { kind: 'fixed', loss: 0 }, prv: { setPressure: 35 } }] : [],
     nodes: [
       { id: 'src', elevation: 0 },
       { id: 'tee', label: 'Tee', elevation: 0 },
-      { id: 'a', label: 'Low-zone lavatory', elevation: 10, continuousDemand: 8, checkedFixtures: [{ id: 'lav-low', fixtureTypeId: 'lavatory-private', label: 'Low lavatory' }] },
-      { id: 'b', label: 'High-zone lavatory', elevation: 40, continuousDemand: 4, checkedFixtures: [{ id: 'lav-high', fixtureTypeId: 'lavatory-private', label: 'High lavatory' }] },
+      {
+        id: 'a',
+        label: 'Low-zone lavatory',
+        elevation: 10,
+        continuousDemand: 8,
+        checkedFixtures: [{ id: 'lav-low', fixtureTypeId: 'lavatory-private', label: 'Low lavatory' }],
+      },
+      {
+        id: 'b',
+        label: 'High-zone lavatory',
+        elevation: 40,
+        continuousDemand: 4,
+        checkedFixtures: [{ id: 'lav-high', fixtureTypeId: 'lavatory-private', label: 'High lavatory' }],
+      },
     ],
     segments: [
       { id: 'trunk', label: 'Trunk', from: 'src', to: 'tee', material: 'copper-l', size: '2', length: 150 },

@@ -17,7 +17,10 @@ const passes = (doc: SystemDocument) => {
   const a = analyzeSystem(doc);
   return a.verdict.allFixturesPass && a.verdict.allVelocitiesPass;
 };
-const withSize = (doc: SystemDocument, id: string, size: string): SystemDocument => ({ ...doc, segments: doc.segments.map((s) => (s.id === id ? { ...s, size } : s)) });
+const withSize = (doc: SystemDocument, id: string, size: string): SystemDocument => ({
+  ...doc,
+  segments: doc.segments.map((s) => (s.id === id ? { ...s, size } : s)),
+});
 
 describe('smallest PEX that still passes (a contractor on a field change)', () => {
   it('when apartment 7A is substituted with PEX, then only its segments change, to PEX sizes that pass, and no one of them can be a size smaller', () => {
@@ -46,7 +49,10 @@ describe('smallest PEX that still passes (a contractor on a field change)', () =
       });
     for (const id of APARTMENT_7A) {
       const k = ascending.indexOf(doc.segments.find((s) => s.id === id)!.size!);
-      const smaller = ascending.slice(0, Math.max(k, 0)).filter((size) => covered(id, size)).at(-1);
+      const smaller = ascending
+        .slice(0, Math.max(k, 0))
+        .filter((size) => covered(id, size))
+        .at(-1);
       if (smaller !== undefined) expect(passes(withSize(doc, id, smaller))).toBe(false);
     }
   });

@@ -58,13 +58,23 @@ function validCases(): [string, unknown][] {
   binomial.criteria = { demandMethod: 'hunter-binomial' };
   cases.push(['building-10-binomial', binomial]);
   const FITTINGS = ['elbow-90-standard', 'tee-run', 'tee-branch', 'valve-globe'];
-  for (const [seed, method] of [[2024, 'swamee-jain'], [7, 'colebrook'], [99, 'churchill-1977'], [123, 'hazen-williams']] as const) {
+  for (const [seed, method] of [
+    [2024, 'swamee-jain'],
+    [7, 'colebrook'],
+    [99, 'churchill-1977'],
+    [123, 'hazen-williams'],
+  ] as const) {
     cases.push([`random-${seed}-${method}`, generateRandomTree(mulberry32(seed), { segments: 2000, fittingTypes: FITTINGS, frictionMethod: method })]);
   }
-  cases.push(['random-bench', generateRandomTree(mulberry32(2024), { segments: 5000, fittingTypes: ['elbow-90-standard', 'tee-run'], frictionMethod: 'swamee-jain' })]);
+  cases.push([
+    'random-bench',
+    generateRandomTree(mulberry32(2024), { segments: 5000, fittingTypes: ['elbow-90-standard', 'tee-run'], frictionMethod: 'swamee-jain' }),
+  ]);
   const lowRe = generateRandomTree(mulberry32(5), { segments: 300, fittingTypes: FITTINGS, frictionMethod: 'colebrook', minReynolds: 200 });
   // Tiny demands: laminar and transitional segments (and their warnings).
-  lowRe.nodes.forEach((n, i) => { if (n.continuousDemand !== undefined) n.continuousDemand *= [0.002, 0.02, 0.2][i % 3]; });
+  lowRe.nodes.forEach((n, i) => {
+    if (n.continuousDemand !== undefined) n.continuousDemand *= [0.002, 0.02, 0.2][i % 3];
+  });
   cases.push(['random-lowRe-colebrook', lowRe]);
   for (const fm of ['hooper-2k', 'darby-3k', 'equivalent-length'] as const) cases.push([`random-lowRe-${fm}`, withCriteria(lowRe, { fittingMethod: fm })]);
   const reducers = generateRandomTree(mulberry32(11), { segments: 400, fittingTypes: FITTINGS });
@@ -81,18 +91,49 @@ function validCases(): [string, unknown][] {
     if (i % 23 === 0) s.reducerAuto = false;
   });
   valves.criteria = {
-    velocityLimits: [{ material: 'copper', service: 'cold', maxVelocity: 4 }, { material: 'steel', service: 'hot', maxVelocity: 9 }],
+    velocityLimits: [
+      { material: 'copper', service: 'cold', maxVelocity: 4 },
+      { material: 'steel', service: 'hot', maxVelocity: 9 },
+    ],
     minFlowPressures: { 'lavatory-private': 12 },
   };
   cases.push(['building-10-valves-overrides', valves]);
-  cases.push(['one-segment-flow-test', oneSegment({ source: { kind: 'utility-main', nodeId: 'src', staticPressureLow: 450, staticPressureHigh: 500, pressureBasis: 'test', flowTest: { staticPressure: 480, residualPressure: 300, flow: 0.3 } } })]);
-  cases.push(['one-segment-devices', oneSegment({
-    devices: [
-      { id: 'm', kind: 'meter', label: 'Meter', segmentId: 's1', loss: { kind: 'curve', points: [{ flow: 0.2, loss: 10 }, { flow: 0.4, loss: 30 }, { flow: 1, loss: 100 }] } },
-      { id: 'b', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 5 }, boost: { gain: 200 } },
-      { id: 'p', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 3 }, prv: { setPressure: 350 } },
-    ],
-  })]);
+  cases.push([
+    'one-segment-flow-test',
+    oneSegment({
+      source: {
+        kind: 'utility-main',
+        nodeId: 'src',
+        staticPressureLow: 450,
+        staticPressureHigh: 500,
+        pressureBasis: 'test',
+        flowTest: { staticPressure: 480, residualPressure: 300, flow: 0.3 },
+      },
+    }),
+  ]);
+  cases.push([
+    'one-segment-devices',
+    oneSegment({
+      devices: [
+        {
+          id: 'm',
+          kind: 'meter',
+          label: 'Meter',
+          segmentId: 's1',
+          loss: {
+            kind: 'curve',
+            points: [
+              { flow: 0.2, loss: 10 },
+              { flow: 0.4, loss: 30 },
+              { flow: 1, loss: 100 },
+            ],
+          },
+        },
+        { id: 'b', kind: 'booster-pump', label: 'Booster', segmentId: 's1', loss: { kind: 'fixed', loss: 5 }, boost: { gain: 200 } },
+        { id: 'p', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 3 }, prv: { setPressure: 350 } },
+      ],
+    }),
+  ]);
   cases.push(['one-segment-US', oneSegment({ unitSystem: 'US', waterTemperature: 60 })]);
   cases.push(['small-tree', smallTree()]);
   return cases;
@@ -104,33 +145,181 @@ function invalidCases(): [string, unknown][] {
   const mutations: [string, (d: Doc) => unknown][] = [
     ['not-an-object', () => 42],
     ['null', () => null],
-    ['missing-id', (d) => { delete (d as Record<string, unknown>).id; return d; }],
+    [
+      'missing-id',
+      (d) => {
+        delete (d as Record<string, unknown>).id;
+        return d;
+      },
+    ],
     ['wrong-schema-version', (d) => ({ ...d, schemaVersion: 3 })],
     ['unknown-key', (d) => ({ ...d, colour: 'red' })],
-    ['nan-elevation', (d) => { d.nodes[0].elevation = NaN; return d; }],
-    ['infinite-length', (d) => { d.segments[0].length = Infinity; return d; }],
-    ['negative-length', (d) => { d.segments[0].length = -1; return d; }],
-    ['zero-diameter', (d) => { d.segments[0] = { ...d.segments[0], material: undefined, size: undefined, custom: { innerDiameter: 0, roughness: 0, hazenWilliamsC: 130, velocityClass: 'copper' } }; delete d.segments[0].material; delete d.segments[0].size; return d; }],
-    ['string-count', (d) => { d.segments[0].fittings = [{ typeId: 'tee-run', count: '2' as unknown as number }]; return d; }],
-    ['fractional-count', (d) => { d.segments[0].fittings = [{ typeId: 'tee-run', count: 1.5 }]; return d; }],
+    [
+      'nan-elevation',
+      (d) => {
+        d.nodes[0].elevation = NaN;
+        return d;
+      },
+    ],
+    [
+      'infinite-length',
+      (d) => {
+        d.segments[0].length = Infinity;
+        return d;
+      },
+    ],
+    [
+      'negative-length',
+      (d) => {
+        d.segments[0].length = -1;
+        return d;
+      },
+    ],
+    [
+      'zero-diameter',
+      (d) => {
+        d.segments[0] = {
+          ...d.segments[0],
+          material: undefined,
+          size: undefined,
+          custom: { innerDiameter: 0, roughness: 0, hazenWilliamsC: 130, velocityClass: 'copper' },
+        };
+        delete d.segments[0].material;
+        delete d.segments[0].size;
+        return d;
+      },
+    ],
+    [
+      'string-count',
+      (d) => {
+        d.segments[0].fittings = [{ typeId: 'tee-run', count: '2' as unknown as number }];
+        return d;
+      },
+    ],
+    [
+      'fractional-count',
+      (d) => {
+        d.segments[0].fittings = [{ typeId: 'tee-run', count: 1.5 }];
+        return d;
+      },
+    ],
     ['bad-enum', (d) => ({ ...d, service: 'warm' })],
     ['empty-nodes', (d) => ({ ...d, nodes: [] })],
-    ['unknown-material', (d) => { d.segments[0].material = 'gold'; return d; }],
-    ['unknown-size', (d) => { d.segments[0].size = '9'; return d; }],
-    ['unknown-fitting', (d) => { d.segments[0].fittings = [{ typeId: 'teapot', count: 1 }]; return d; }],
-    ['unknown-fixture', (d) => { d.nodes[1].checkedFixtures = [{ id: 'x', fixtureTypeId: 'bathtub-of-gold' }]; return d; }],
-    ['duplicate-node', (d) => { d.nodes.push({ ...d.nodes[1] }); return d; }],
-    ['unknown-node', (d) => { d.segments[0].to = 'nowhere'; return d; }],
-    ['no-source', (d) => { d.source.nodeId = 'nowhere'; return d; }],
-    ['static-high-below-low', (d) => { d.source.staticPressureHigh = 100; return d; }],
-    ['self-loop', (d) => { d.segments[0].to = 'src'; d.segments[0].from = 'src'; return d; }],
-    ['disconnected', (d) => { d.nodes.push({ id: 'island', elevation: 0 }); return d; }],
-    ['cycle', (d) => { d.nodes.push({ id: 'a', elevation: 0 }, { id: 'b', elevation: 0 }); d.segments.push({ id: 'ab', from: 'a', to: 'b', material: 'copper-l', size: '1', length: 1 }, { id: 'ba', from: 'b', to: 'a', material: 'copper-l', size: '1', length: 1 }); return d; }],
-    ['prv-without-set', (d) => { d.devices = [{ id: 'p', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 0 } }]; return d; }],
-    ['device-bad-loss-kind', (d) => { d.devices = [{ id: 'p', kind: 'meter', label: 'M', segmentId: 's1', loss: { kind: 'table' } as never }]; return d; }],
+    [
+      'unknown-material',
+      (d) => {
+        d.segments[0].material = 'gold';
+        return d;
+      },
+    ],
+    [
+      'unknown-size',
+      (d) => {
+        d.segments[0].size = '9';
+        return d;
+      },
+    ],
+    [
+      'unknown-fitting',
+      (d) => {
+        d.segments[0].fittings = [{ typeId: 'teapot', count: 1 }];
+        return d;
+      },
+    ],
+    [
+      'unknown-fixture',
+      (d) => {
+        d.nodes[1].checkedFixtures = [{ id: 'x', fixtureTypeId: 'bathtub-of-gold' }];
+        return d;
+      },
+    ],
+    [
+      'duplicate-node',
+      (d) => {
+        d.nodes.push({ ...d.nodes[1] });
+        return d;
+      },
+    ],
+    [
+      'unknown-node',
+      (d) => {
+        d.segments[0].to = 'nowhere';
+        return d;
+      },
+    ],
+    [
+      'no-source',
+      (d) => {
+        d.source.nodeId = 'nowhere';
+        return d;
+      },
+    ],
+    [
+      'static-high-below-low',
+      (d) => {
+        d.source.staticPressureHigh = 100;
+        return d;
+      },
+    ],
+    [
+      'self-loop',
+      (d) => {
+        d.segments[0].to = 'src';
+        d.segments[0].from = 'src';
+        return d;
+      },
+    ],
+    [
+      'disconnected',
+      (d) => {
+        d.nodes.push({ id: 'island', elevation: 0 });
+        return d;
+      },
+    ],
+    [
+      'cycle',
+      (d) => {
+        d.nodes.push({ id: 'a', elevation: 0 }, { id: 'b', elevation: 0 });
+        d.segments.push(
+          { id: 'ab', from: 'a', to: 'b', material: 'copper-l', size: '1', length: 1 },
+          { id: 'ba', from: 'b', to: 'a', material: 'copper-l', size: '1', length: 1 },
+        );
+        return d;
+      },
+    ],
+    [
+      'prv-without-set',
+      (d) => {
+        d.devices = [{ id: 'p', kind: 'prv', label: 'PRV', segmentId: 's1', loss: { kind: 'fixed', loss: 0 } }];
+        return d;
+      },
+    ],
+    [
+      'device-bad-loss-kind',
+      (d) => {
+        d.devices = [{ id: 'p', kind: 'meter', label: 'M', segmentId: 's1', loss: { kind: 'table' } as never }];
+        return d;
+      },
+    ],
     ['temperature-out-of-range', (d) => ({ ...d, waterTemperature: 150 })],
-    ['binomial-without-usage', (d) => { d.nodes[1].fixtureGroups = [{ fixtureTypeId: 'lavatory-private', count: 2 }]; d.criteria = { demandMethod: 'hunter-binomial' }; return d; }],
-    ['many-issues', (d) => { d.segments[0].length = -1; d.nodes[0].elevation = 'x' as unknown as number; (d as Record<string, unknown>).extra = 1; delete (d.source as Record<string, unknown>).pressureBasis; return d; }],
+    [
+      'binomial-without-usage',
+      (d) => {
+        d.nodes[1].fixtureGroups = [{ fixtureTypeId: 'lavatory-private', count: 2 }];
+        d.criteria = { demandMethod: 'hunter-binomial' };
+        return d;
+      },
+    ],
+    [
+      'many-issues',
+      (d) => {
+        d.segments[0].length = -1;
+        d.nodes[0].elevation = 'x' as unknown as number;
+        (d as Record<string, unknown>).extra = 1;
+        delete (d.source as Record<string, unknown>).pressureBasis;
+        return d;
+      },
+    ],
   ];
   return mutations.map(([name, m]) => [`invalid-${name}`, m(base())]);
 }
@@ -214,7 +403,9 @@ function main() {
     console.log(`wrote ${allCases().length} snapshots to ${OUT}`);
     return;
   }
-  console.log(`${allCases().length} cases, ${failed} differ; ${total.numbers} numbers compared, ${total.bitDiffer} not bit-identical, largest relative difference ${total.maxRel}`);
+  console.log(
+    `${allCases().length} cases, ${failed} differ; ${total.numbers} numbers compared, ${total.bitDiffer} not bit-identical, largest relative difference ${total.maxRel}`,
+  );
   if (failed > 0) process.exitCode = 1;
 }
 

@@ -11,7 +11,9 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
 const [root, out] = process.argv.slice(2);
-const engine = (await import(join(root, 'src/engine/index.ts'))) as { analyzeSystem: (d: unknown) => { si: Record<string, { [k: string]: unknown }[]> & { source: Record<string, number> } } };
+const engine = (await import(join(root, 'src/engine/index.ts'))) as {
+  analyzeSystem: (d: unknown) => { si: Record<string, { [k: string]: unknown }[]> & { source: Record<string, number> } };
+};
 const results: Record<string, unknown> = {};
 for (const name of ['alder-finch-cold', 'alder-finch-hot', 'small-house']) {
   const doc = JSON.parse(readFileSync(join(root, 'src/engine/examples', `${name}.json`), 'utf8'));

@@ -57,7 +57,8 @@ export interface FakeApiOptions {
 }
 
 function verdictOf(analysis: ReturnType<typeof safeAnalyzeSystem>): RevisionVerdict {
-  if (!analysis.ok) return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: analysis.error.message };
+  if (!analysis.ok)
+    return { ok: false, status: null, allPass: null, criticalFixtureId: null, criticalMargin: null, warningCount: 0, errorMessage: analysis.error.message };
   const a = analysis.analysis;
   const v = a.verdict;
   return {
@@ -169,14 +170,37 @@ export function fakeApi(options: FakeApiOptions = {}) {
       method: 'GET',
       url: '/api/auth/me',
       answer: () =>
-        checked(MeResponse, { user: { id: '0d9c8b7a-6f5e-4d3c-8b2a-1f0e9d8c7b6a', email: 'dana@example.test', name: 'Dana Okafor', isAdmin: false, accountRole: 'designer', status: 'active', version: 1, createdAt: STAMP } }),
+        checked(MeResponse, {
+          user: {
+            id: '0d9c8b7a-6f5e-4d3c-8b2a-1f0e9d8c7b6a',
+            email: 'dana@example.test',
+            name: 'Dana Okafor',
+            isAdmin: false,
+            accountRole: 'designer',
+            status: 'active',
+            version: 1,
+            createdAt: STAMP,
+          },
+        }),
     },
     {
       method: 'GET',
       url: `/api/projects/${ids.projectId}`,
       answer: () =>
         checked(ProjectDetailResponse, {
-          project: { id: ids.projectId, name: 'Alder & Finch', address: '410 Quarry Lane, Wrenmoor', codeBasis: 'Demo: invented scenario', unitSystem: 'US', notes: '', archived: false, version: 1, createdAt: STAMP, updatedAt: STAMP, myRole },
+          project: {
+            id: ids.projectId,
+            name: 'Alder & Finch',
+            address: '410 Quarry Lane, Wrenmoor',
+            codeBasis: 'Demo: invented scenario',
+            unitSystem: 'US',
+            notes: '',
+            archived: false,
+            version: 1,
+            createdAt: STAMP,
+            updatedAt: STAMP,
+            myRole,
+          },
           members: [],
         }),
     },
@@ -185,7 +209,15 @@ export function fakeApi(options: FakeApiOptions = {}) {
       url: systemUrls.detail(ids.projectId, ids.systemId),
       answer: () =>
         checked(SystemDetailResponse, {
-          system: { id: ids.systemId, projectId: ids.projectId, name: 'Domestic cold water', service: 'cold', createdAt: STAMP, latest: summary(), returned: marker() },
+          system: {
+            id: ids.systemId,
+            projectId: ids.projectId,
+            name: 'Domestic cold water',
+            service: 'cold',
+            createdAt: STAMP,
+            latest: summary(),
+            returned: marker(),
+          },
           revisions: [summary()],
         }),
     },
@@ -205,7 +237,8 @@ export function fakeApi(options: FakeApiOptions = {}) {
         if (call.headers['x-csrf-token'] !== CSRF_TOKEN) return apiError(403, 'CSRF_FAILED', 'The form expired.');
         if (status !== 'draft') return apiError(409, 'CONFLICT', `Revision 3 is ${status}; it cannot change. Start a new draft from it.`);
         const body = SaveDocumentBody.parse(call.body);
-        if (body.version !== server.version) return apiError(409, 'STALE_VERSION', 'Someone else changed this since you opened it. Reload to see their change.');
+        if (body.version !== server.version)
+          return apiError(409, 'STALE_VERSION', 'Someone else changed this since you opened it. Reload to see their change.');
         server.document = body.document;
         server.version += 1;
         // the server answers the revision's summary only
@@ -214,7 +247,11 @@ export function fakeApi(options: FakeApiOptions = {}) {
     },
     ...(returnedReview
       ? [
-          { method: 'GET', url: reviewUrls.revision(ids.projectId, ids.systemId, returnedIds.revisionId), answer: () => checked(ReviewsResponse, { reviews: [returnedReview] }) },
+          {
+            method: 'GET',
+            url: reviewUrls.revision(ids.projectId, ids.systemId, returnedIds.revisionId),
+            answer: () => checked(ReviewsResponse, { reviews: [returnedReview] }),
+          },
           ...returnedReview.items.map((item) => ({
             method: 'PUT',
             url: reviewUrls.reply(ids.projectId, returnedReview.id, item.id),
@@ -241,7 +278,10 @@ export function fakeApi(options: FakeApiOptions = {}) {
     const route = routes.find((r) => r.method === call.method && r.url === call.url);
     if (!route) unknown.push(call);
     const answer = route ? await route.answer(call) : apiError(404, 'NOT_FOUND', 'Not found.');
-    return new Response(answer.body === undefined ? null : JSON.stringify(answer.body), { status: answer.status, headers: { 'content-type': 'application/json' } });
+    return new Response(answer.body === undefined ? null : JSON.stringify(answer.body), {
+      status: answer.status,
+      headers: { 'content-type': 'application/json' },
+    });
   };
 
   return {

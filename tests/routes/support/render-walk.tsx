@@ -62,7 +62,9 @@ export function field(name: string, container: ParentNode = document): HTMLInput
   const byLabel = [...container.querySelectorAll('label')]
     .filter((l) => l.htmlFor && l.textContent?.trim() === name)
     .map((l) => document.getElementById(l.htmlFor));
-  const found = [...byAria, ...byLabel].filter((el): el is HTMLElement => el instanceof HTMLInputElement || el instanceof HTMLSelectElement || el instanceof HTMLTextAreaElement);
+  const found = [...byAria, ...byLabel].filter(
+    (el): el is HTMLElement => el instanceof HTMLInputElement || el instanceof HTMLSelectElement || el instanceof HTMLTextAreaElement,
+  );
   if (found.length !== 1) throw new Error(`expected one form control named “${name}”, found ${found.length}`);
   return found[0] as HTMLInputElement;
 }

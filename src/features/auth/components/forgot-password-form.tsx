@@ -17,9 +17,7 @@ export function ForgotPasswordForm() {
   });
   const { errors } = form.formState;
 
-  const onSubmit = form.handleSubmit((values) =>
-    request.mutate(values, { onError: (error) => applyServerFieldErrors(error, form.setError, ['email']) }),
-  );
+  const onSubmit = form.handleSubmit((values) => request.mutate(values, { onError: (error) => applyServerFieldErrors(error, form.setError, ['email']) }));
 
   if (request.isSuccess) {
     return (

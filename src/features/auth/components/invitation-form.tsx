@@ -20,10 +20,7 @@ export function InvitationForm({ token, invitation, onAccepted }: { token: strin
   const { errors } = form.formState;
 
   const onSubmit = form.handleSubmit(({ password }) =>
-    accept.mutate(
-      { token, password },
-      { onSuccess: onAccepted, onError: (error) => applyServerFieldErrors(error, form.setError, ['password']) },
-    ),
+    accept.mutate({ token, password }, { onSuccess: onAccepted, onError: (error) => applyServerFieldErrors(error, form.setError, ['password']) }),
   );
 
   return (
@@ -53,7 +50,13 @@ export function InvitationForm({ token, invitation, onAccepted }: { token: strin
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <TextField label="New password again" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...form.register('confirmPassword')} />
+      <TextField
+        label="New password again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...form.register('confirmPassword')}
+      />
       <Button type="submit" pending={accept.isPending} pendingLabel="Setting password…">
         Set password and sign in
       </Button>

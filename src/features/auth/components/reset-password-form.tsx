@@ -46,7 +46,13 @@ export function ResetPasswordForm({ token, onDone, invalidLink }: { token: strin
         error={errors.password?.message}
         {...form.register('password')}
       />
-      <TextField label="New password again" type="password" autoComplete="new-password" error={errors.confirmPassword?.message} {...form.register('confirmPassword')} />
+      <TextField
+        label="New password again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirmPassword?.message}
+        {...form.register('confirmPassword')}
+      />
       <Button type="submit" pending={confirm.isPending} pendingLabel="Changing password…">
         Change password
       </Button>

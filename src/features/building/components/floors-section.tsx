@@ -9,7 +9,11 @@ import { asNumber, msg } from './form-helpers';
 
 /** The floors table: a name and an elevation per floor; a blank elevation is the one below plus the typical height. */
 export function FloorsSection({ lengthUnit }: { lengthUnit: string }) {
-  const { control, register, formState: { errors } } = useFormContext<BuildingForm>();
+  const {
+    control,
+    register,
+    formState: { errors },
+  } = useFormContext<BuildingForm>();
   const rows = useFieldArray({ control, name: 'floors.rows' });
   const values = useWatch({ control, name: 'floors' });
   const filled = floorElevations(values.rows, values.typicalHeight);
@@ -24,14 +28,23 @@ export function FloorsSection({ lengthUnit }: { lengthUnit: string }) {
   return (
     <Section title="Floors">
       <div className="mb-3 flex flex-wrap items-end gap-3">
-        <label className="flex flex-col gap-1 text-xs font-semibold">Typical floor-to-floor height ({lengthUnit})
-          <CellInput label={`Typical floor-to-floor height (${lengthUnit})`} inputMode="decimal" className="w-44"
-            error={msg(errors.floors?.typicalHeight)} {...register('floors.typicalHeight', asNumber)} />
+        <label className="flex flex-col gap-1 text-xs font-semibold">
+          Typical floor-to-floor height ({lengthUnit})
+          <CellInput
+            label={`Typical floor-to-floor height (${lengthUnit})`}
+            inputMode="decimal"
+            className="w-44"
+            error={msg(errors.floors?.typicalHeight)}
+            {...register('floors.typicalHeight', asNumber)}
+          />
         </label>
-        <label className="flex flex-col gap-1 text-xs font-semibold">Floors to add above
+        <label className="flex flex-col gap-1 text-xs font-semibold">
+          Floors to add above
           <CellInput label="Floors to add" inputMode="numeric" className="w-32" value={count} onChange={(e) => setCount(e.target.value)} />
         </label>
-        <Button variant="secondary" onClick={addFloors}>Add floors</Button>
+        <Button variant="secondary" onClick={addFloors}>
+          Add floors
+        </Button>
       </div>
       <table className="w-full max-w-xl text-sm">
         <thead>
@@ -39,20 +52,35 @@ export function FloorsSection({ lengthUnit }: { lengthUnit: string }) {
             <th scope="col">Floor</th>
             <th scope="col">Elevation ({lengthUnit})</th>
             <th scope="col">Used</th>
-            <th scope="col"><span className="sr-only">Remove</span></th>
+            <th scope="col">
+              <span className="sr-only">Remove</span>
+            </th>
           </tr>
         </thead>
         <tbody>
           {rows.fields.map((field, i) => (
             <tr key={field.id} className="align-top">
-              <td className="pr-2 pb-1"><CellInput label={`Floor ${i + 1} name`} error={msg(errors.floors?.rows?.[i]?.name)} {...register(`floors.rows.${i}.name`)} /></td>
               <td className="pr-2 pb-1">
-                <CellInput label={`Floor ${i + 1} elevation`} inputMode="decimal" placeholder={filled[i] === null ? '' : `${fmt(filled[i], 2)} (typical)`}
-                  error={msg(errors.floors?.rows?.[i]?.elevation)} {...register(`floors.rows.${i}.elevation`, asNumber)} />
+                <CellInput label={`Floor ${i + 1} name`} error={msg(errors.floors?.rows?.[i]?.name)} {...register(`floors.rows.${i}.name`)} />
               </td>
-              <td className="pr-2 pb-1 tabular-nums" data-testid={`floor-elevation-${i}`}>{fmt(filled[i], 2)}</td>
+              <td className="pr-2 pb-1">
+                <CellInput
+                  label={`Floor ${i + 1} elevation`}
+                  inputMode="decimal"
+                  placeholder={filled[i] === null ? '' : `${fmt(filled[i], 2)} (typical)`}
+                  error={msg(errors.floors?.rows?.[i]?.elevation)}
+                  {...register(`floors.rows.${i}.elevation`, asNumber)}
+                />
+              </td>
+              <td className="pr-2 pb-1 tabular-nums" data-testid={`floor-elevation-${i}`}>
+                {fmt(filled[i], 2)}
+              </td>
               <td className="pb-1">
-                {rows.fields.length > 1 ? <Button variant="quiet" onClick={() => rows.remove(i)} aria-label={`Remove floor ${i + 1}`}>Remove</Button> : null}
+                {rows.fields.length > 1 ? (
+                  <Button variant="quiet" onClick={() => rows.remove(i)} aria-label={`Remove floor ${i + 1}`}>
+                    Remove
+                  </Button>
+                ) : null}
               </td>
             </tr>
           ))}

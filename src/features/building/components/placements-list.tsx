@@ -26,7 +26,14 @@ function withLength(p: Placement, segmentId: string, length: number | null): Pla
 export const PLACEMENTS_PAGE = 24;
 
 /** One row per placement: its unit type, floor, and every field it overrides (editable, removable, marked). */
-export function PlacementsList({ placements, unitTypes, floors, lengthUnit, readOnly, onChange }: {
+export function PlacementsList({
+  placements,
+  unitTypes,
+  floors,
+  lengthUnit,
+  readOnly,
+  onChange,
+}: {
   placements: readonly Placement[];
   unitTypes: readonly UnitType[];
   floors: readonly Floor[];
@@ -70,20 +77,49 @@ export function PlacementsList({ placements, unitTypes, floors, lengthUnit, read
                     {overrides.map(([segId, o]) => (
                       <div key={segId} className="flex flex-wrap items-center gap-2">
                         <Badge tone="copper">override</Badge>
-                        <span>{segLabel(segId)} length ({lengthUnit}; type: {type?.segments.find((s) => s.id === segId)?.length ?? '—'})</span>
+                        <span>
+                          {segLabel(segId)} length ({lengthUnit}; type: {type?.segments.find((s) => s.id === segId)?.length ?? '—'})
+                        </span>
                         {o.length !== undefined ? (
-                          <CellInput label={`${p.label} ${segLabel(segId)} length override`} className="w-20" inputMode="decimal" defaultValue={o.length} disabled={readOnly}
-                            onBlur={(e) => { const v = Number(e.target.value); if (v > 0 && v !== o.length) onChange(withLength(p, segId, v)); }} />
+                          <CellInput
+                            label={`${p.label} ${segLabel(segId)} length override`}
+                            className="w-20"
+                            inputMode="decimal"
+                            defaultValue={o.length}
+                            disabled={readOnly}
+                            onBlur={(e) => {
+                              const v = Number(e.target.value);
+                              if (v > 0 && v !== o.length) onChange(withLength(p, segId, v));
+                            }}
+                          />
                         ) : null}
-                        {!readOnly ? <Button variant="quiet" onClick={() => onChange(withLength(p, segId, null))}>Use the type’s</Button> : null}
+                        {!readOnly ? (
+                          <Button variant="quiet" onClick={() => onChange(withLength(p, segId, null))}>
+                            Use the type’s
+                          </Button>
+                        ) : null}
                       </div>
                     ))}
                     {!readOnly && free.length > 0 ? (
                       <div className="flex items-center gap-2">
-                        <CellSelect label={`${p.label} override a segment`} className="w-44" value={adding[p.id] ?? ''} onChange={(e) => setAdding({ ...adding, [p.id]: e.target.value })}
-                          options={[{ value: '', label: 'Override a length…' }, ...free.map((s) => ({ value: s.id, label: s.label ?? s.id }))]} />
+                        <CellSelect
+                          label={`${p.label} override a segment`}
+                          className="w-44"
+                          value={adding[p.id] ?? ''}
+                          onChange={(e) => setAdding({ ...adding, [p.id]: e.target.value })}
+                          options={[{ value: '', label: 'Override a length…' }, ...free.map((s) => ({ value: s.id, label: s.label ?? s.id }))]}
+                        />
                         {adding[p.id] ? (
-                          <Button variant="quiet" onClick={() => { const s = type!.segments.find((x) => x.id === adding[p.id])!; onChange(withLength(p, s.id, s.length)); setAdding({ ...adding, [p.id]: '' }); }}>Add</Button>
+                          <Button
+                            variant="quiet"
+                            onClick={() => {
+                              const s = type!.segments.find((x) => x.id === adding[p.id])!;
+                              onChange(withLength(p, s.id, s.length));
+                              setAdding({ ...adding, [p.id]: '' });
+                            }}
+                          >
+                            Add
+                          </Button>
                         ) : null}
                       </div>
                     ) : null}
@@ -96,9 +132,15 @@ export function PlacementsList({ placements, unitTypes, floors, lengthUnit, read
       </table>
       {rest > 0 ? (
         <p className="mt-2 flex flex-wrap items-center gap-3 text-sm" data-testid="placements-more">
-          <span>{shown} of {placements.length} shown.</span>
-          <Button variant="secondary" onClick={() => setShown((n) => n + PLACEMENTS_PAGE * 4)}>Show {Math.min(rest, PLACEMENTS_PAGE * 4)} more</Button>
-          <Button variant="quiet" onClick={() => setShown(placements.length)}>Show all {placements.length}</Button>
+          <span>
+            {shown} of {placements.length} shown.
+          </span>
+          <Button variant="secondary" onClick={() => setShown((n) => n + PLACEMENTS_PAGE * 4)}>
+            Show {Math.min(rest, PLACEMENTS_PAGE * 4)} more
+          </Button>
+          <Button variant="quiet" onClick={() => setShown(placements.length)}>
+            Show all {placements.length}
+          </Button>
         </p>
       ) : null}
     </Section>

@@ -23,7 +23,9 @@ export function PreviewPanel({ counts, problem }: { counts: BuildingCounts | nul
       {items.map(([key, label, value]) => (
         <div key={key} className="rounded-md border-2 border-rule bg-paper p-2">
           <dt className="text-xs font-semibold uppercase tracking-wide text-ink-muted">{label}</dt>
-          <dd className="text-2xl tabular-nums" data-testid={`preview-${key}`}>{value}</dd>
+          <dd className="text-2xl tabular-nums" data-testid={`preview-${key}`}>
+            {value}
+          </dd>
         </div>
       ))}
     </dl>

@@ -52,21 +52,38 @@ export function ScheduleImport() {
       <summary className="cursor-pointer font-semibold">Fixture schedule: import or export</summary>
       <div className="mt-3 flex flex-col gap-3">
         <p className="max-w-prose text-sm text-ink-soft">
-          Columns floor, unit, fixture, count, occupancy (private when empty), with a header line. Write “typical” as the floor and a
-          unit type’s name as the unit; fixtures in the trade’s words (“water closet, flush tank”, “lavatory”, “shower”, “kitchen sink”).
-          Optional columns fill the fixture’s point: height (above the floor), length and size of its branch, check (yes).
+          Columns floor, unit, fixture, count, occupancy (private when empty), with a header line. Write “typical” as the floor and a unit type’s name as the
+          unit; fixtures in the trade’s words (“water closet, flush tank”, “lavatory”, “shower”, “kitchen sink”). Optional columns fill the fixture’s point:
+          height (above the floor), length and size of its branch, check (yes).
         </p>
         <TextAreaField label="Paste a schedule (CSV or a spreadsheet range)" value={text} onChange={(e) => setText(e.target.value)} rows={5} />
         <div className="flex flex-wrap items-center gap-3">
-          <Button variant="secondary" onClick={() => show(text)} disabled={text.trim() === ''}>Preview the schedule</Button>
+          <Button variant="secondary" onClick={() => show(text)} disabled={text.trim() === ''}>
+            Preview the schedule
+          </Button>
           <label className="text-sm font-semibold">
             Or upload a CSV file{' '}
-            <input type="file" accept=".csv,.tsv,.txt,text/csv,text/plain" aria-label="Upload a schedule file" onChange={(e) => void onFile(e.target.files?.[0])} />
+            <input
+              type="file"
+              accept=".csv,.tsv,.txt,text/csv,text/plain"
+              aria-label="Upload a schedule file"
+              onChange={(e) => void onFile(e.target.files?.[0])}
+            />
           </label>
-          <Button variant="quiet" onClick={() => download(exportSchedule(getValues('unitTypes')), 'fixture-schedule.csv')}>Export the unit types’ schedule</Button>
+          <Button variant="quiet" onClick={() => download(exportSchedule(getValues('unitTypes')), 'fixture-schedule.csv')}>
+            Export the unit types’ schedule
+          </Button>
         </div>
-        {problem ? <Alert tone="fault" title="File refused">{problem}</Alert> : null}
-        {applied ? <p role="status" className="text-sm text-sound">{applied}</p> : null}
+        {problem ? (
+          <Alert tone="fault" title="File refused">
+            {problem}
+          </Alert>
+        ) : null}
+        {applied ? (
+          <p role="status" className="text-sm text-sound">
+            {applied}
+          </p>
+        ) : null}
         {preview ? <SchedulePreviewTable preview={preview} onApply={apply} onCancel={() => setPreview(null)} /> : null}
       </div>
     </details>
@@ -77,26 +94,47 @@ function SchedulePreviewTable({ preview, onApply, onCancel }: { preview: Schedul
   const bad = preview.rows.filter((r) => r.error).length;
   return (
     <div className="flex flex-col gap-2" data-testid="schedule-preview">
-      {preview.fileErrors.map((e) => <Alert key={e} tone="fault" title="The schedule cannot be read">{e}</Alert>)}
+      {preview.fileErrors.map((e) => (
+        <Alert key={e} tone="fault" title="The schedule cannot be read">
+          {e}
+        </Alert>
+      ))}
       {preview.rows.length > 0 ? (
         <table className="w-full text-sm">
           <thead>
-            <tr className="text-left"><th scope="col">Line</th><th scope="col">Floor</th><th scope="col">Unit</th><th scope="col">Fixture</th><th scope="col">Count</th><th scope="col">Match</th></tr>
+            <tr className="text-left">
+              <th scope="col">Line</th>
+              <th scope="col">Floor</th>
+              <th scope="col">Unit</th>
+              <th scope="col">Fixture</th>
+              <th scope="col">Count</th>
+              <th scope="col">Match</th>
+            </tr>
           </thead>
           <tbody>
             {preview.rows.map((r) => (
               <tr key={r.line} className="border-t border-rule align-top" data-testid={`schedule-line-${r.line}`}>
-                <td className="pr-2">{r.line}</td><td className="pr-2">{r.floor}</td><td className="pr-2">{r.unit}</td><td className="pr-2">{r.fixture}</td><td className="pr-2">{r.count ?? '—'}</td>
+                <td className="pr-2">{r.line}</td>
+                <td className="pr-2">{r.floor}</td>
+                <td className="pr-2">{r.unit}</td>
+                <td className="pr-2">{r.fixture}</td>
+                <td className="pr-2">{r.count ?? '—'}</td>
                 <td className={r.error ? 'text-fault' : 'text-sound'}>{r.error ? `⚠ ${r.error}` : `✓ ${r.matchedLabel}`}</td>
               </tr>
             ))}
           </tbody>
         </table>
       ) : null}
-      <p className="text-sm">{preview.good} row{preview.good === 1 ? '' : 's'} ready{bad ? `, ${bad} with an error (not applied; correct them and preview again)` : ''}.</p>
+      <p className="text-sm">
+        {preview.good} row{preview.good === 1 ? '' : 's'} ready{bad ? `, ${bad} with an error (not applied; correct them and preview again)` : ''}.
+      </p>
       <div className="flex gap-2">
-        <Button onClick={onApply} disabled={preview.good === 0 || bad > 0 || preview.fileErrors.length > 0}>Apply {preview.good} row{preview.good === 1 ? '' : 's'}</Button>
-        <Button variant="secondary" onClick={onCancel}>Cancel</Button>
+        <Button onClick={onApply} disabled={preview.good === 0 || bad > 0 || preview.fileErrors.length > 0}>
+          Apply {preview.good} row{preview.good === 1 ? '' : 's'}
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
       </div>
     </div>
   );

@@ -44,7 +44,12 @@ export function buildFromForm(form: BuildingForm, startElevation: number): Build
     floorMain: { material: r.mainMaterial, size: r.mainSize, heightAboveFloor: r.mainHeight },
     units: form.units.map((u) => ({ unitTypeId: u.unitTypeId, labelPattern: u.labelPattern, mainLength: u.mainLength, inletLength: u.branchLength })),
     unitTypes,
-    zones: r.zones.map((zr) => ({ fromFloor: idOf(zr.fromFloor, floors[0]), toFloor: idOf(zr.toFloor, floors[floors.length - 1]), feed: zr.feed, setPressure: zr.setPressure })),
+    zones: r.zones.map((zr) => ({
+      fromFloor: idOf(zr.fromFloor, floors[0]),
+      toFloor: idOf(zr.toFloor, floors[floors.length - 1]),
+      feed: zr.feed,
+      setPressure: zr.setPressure,
+    })),
   });
   return { floors, unitTypes, built };
 }

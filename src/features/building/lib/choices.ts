@@ -8,6 +8,9 @@ export const sizeChoicesOf = (catalog: Catalog, materialId: string) => [
   ...(catalog.material(materialId)?.data.sizes ?? []).map((s) => ({ value: s.key, label: `${s.key} in` })),
 ];
 
-export const fixtureChoices = (catalog: Catalog) => [{ value: '', label: 'No fixture (a junction)' }, ...catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label }))];
+export const fixtureChoices = (catalog: Catalog) => [
+  { value: '', label: 'No fixture (a junction)' },
+  ...catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label })),
+];
 
 export const fittingChoices = (catalog: Catalog) => [{ value: '', label: 'Fitting…' }, ...catalog.fittingTypes.map((f) => ({ value: f.id, label: f.label }))];

@@ -8,7 +8,11 @@ import { readBuilding } from './document-adapter';
 import type { BuildingForm, PipingRow, UnitTypeForm } from './form';
 import { unitTypeToForm } from './unit-types';
 
-export const BRANCH_FITTINGS = [{ typeId: 'tee-branch', count: 1 }, { typeId: 'valve-ball-full-port', count: 1 }, { typeId: 'elbow-90-standard', count: 2 }];
+export const BRANCH_FITTINGS = [
+  { typeId: 'tee-branch', count: 1 },
+  { typeId: 'valve-ball-full-port', count: 1 },
+  { typeId: 'elbow-90-standard', count: 2 },
+];
 export const FIXTURE_BRANCH_FITTINGS = [{ typeId: 'elbow-90-standard', count: 2 }];
 
 /** A key for a new row, unique while the page is open. */
@@ -38,8 +42,19 @@ export function newUnitType(id: string, name: string): UnitTypeForm {
     id,
     name,
     rows: [
-      { key: newRowKey(), name: 'unit manifold', from: 'inlet', heightAboveFloor: 0, fixtureTypeId: '', count: 1, checked: false, material: '', size: '',
-        length: undefined as unknown as number, fittings: BRANCH_FITTINGS.map((f) => ({ ...f })) },
+      {
+        key: newRowKey(),
+        name: 'unit manifold',
+        from: 'inlet',
+        heightAboveFloor: 0,
+        fixtureTypeId: '',
+        count: 1,
+        checked: false,
+        material: '',
+        size: '',
+        length: undefined as unknown as number,
+        fittings: BRANCH_FITTINGS.map((f) => ({ ...f })),
+      },
     ],
   };
 }

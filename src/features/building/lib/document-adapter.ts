@@ -55,18 +55,6 @@ export function downstreamOf(doc: Doc, startNodeId: string): { segments: DocSegm
   return { segments, nodes: doc.nodes.filter((n) => nodeIds.has(n.id)), placements };
 }
 
-/** Every generated id (nodes, segments, placements) with a prefix, so a second riser can sit beside the first. */
-export function prefixGenerated(built: GeneratedBuilding, prefix: string, startNodeId: string): GeneratedBuilding {
-  const p = (id: string) => (id === startNodeId ? id : `${prefix}${id}`);
-  return {
-    floors: built.floors,
-    nodes: built.nodes.map((n) => ({ ...n, id: p(n.id) })),
-    segments: built.segments.map((s) => ({ ...s, id: p(s.id), from: p(s.from), to: p(s.to) })),
-    placements: built.placements.map((pl) => ({ ...pl, id: p(pl.id), at: p(pl.at) })),
-    devices: built.devices.map((d) => ({ ...d, id: p(d.id), segmentId: p(d.segmentId) })),
-  };
-}
-
 export interface GenerateOptions {
   startNodeId: string;
   /** replace: everything after the start node goes; append: the new riser joins what is there */
@@ -95,7 +83,14 @@ export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: re
     built.placements.find((p) => keptPlacements.some((k) => k.id === p.id)) ??
     built.devices.find((d) => keptDevices.some((k) => k.id === d.id));
   if (clash) throw new Error(`The draft already has “${clash.label ?? clash.id}”: replace what follows the start point, or start the new riser elsewhere.`);
-  const newNodes: DocNode[] = built.nodes.map((n) => ({ id: n.id, label: n.label, floor: n.floor, heightAboveFloor: n.heightAboveFloor, fixtureGroups: [], checkedFixtures: [] }));
+  const newNodes: DocNode[] = built.nodes.map((n) => ({
+    id: n.id,
+    label: n.label,
+    floor: n.floor,
+    heightAboveFloor: n.heightAboveFloor,
+    fixtureGroups: [],
+    checkedFixtures: [],
+  }));
   const newSegments: DocSegment[] = built.segments.map((s) => ({ ...s, reducerAuto: true }));
   return {
     ...doc,
@@ -113,7 +108,8 @@ function mergeFloors(existing: readonly Floor[], added: readonly Floor[]): Floor
   for (const f of added) {
     const same = out.find((e) => e.id === f.id);
     if (!same) out.push(f);
-    else if (same.elevation !== f.elevation) throw new Error(`Floor “${f.name}” is at ${same.elevation} in the draft and at ${f.elevation} here: use one elevation.`);
+    else if (same.elevation !== f.elevation)
+      throw new Error(`Floor “${f.name}” is at ${same.elevation} in the draft and at ${f.elevation} here: use one elevation.`);
   }
   return out.sort((a, b) => a.elevation - b.elevation);
 }

@@ -41,7 +41,8 @@ export const UnitTypeFormSchema = z
   .superRefine((t, ctx) => {
     const keys = new Set<string>();
     t.rows.forEach((r, i) => {
-      if (r.from !== 'inlet' && !keys.has(r.from)) ctx.addIssue({ code: 'custom', path: ['rows', i, 'from'], message: 'Feed it from the tap or a point above it in the list' });
+      if (r.from !== 'inlet' && !keys.has(r.from))
+        ctx.addIssue({ code: 'custom', path: ['rows', i, 'from'], message: 'Feed it from the tap or a point above it in the list' });
       if (i > 0 && r.from === 'inlet') ctx.addIssue({ code: 'custom', path: ['rows', i, 'from'], message: 'Only the first row starts at the tap' });
       if (r.checked && !r.fixtureTypeId) ctx.addIssue({ code: 'custom', path: ['rows', i, 'checked'], message: 'Only a fixture can be checked' });
       keys.add(r.key);
@@ -69,7 +70,11 @@ export const ZoneRowSchema = z
   })
   .superRefine((zr, ctx) => {
     if (zr.feed !== 'supply' && zr.setPressure === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['setPressure'], message: zr.feed === 'prv' ? 'Enter the PRV’s set pressure' : 'Enter the booster’s set discharge pressure' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['setPressure'],
+        message: zr.feed === 'prv' ? 'Enter the PRV’s set pressure' : 'Enter the booster’s set discharge pressure',
+      });
     }
   });
 
@@ -110,9 +115,14 @@ export const FloorsFormSchema = z
     f.rows.forEach((r, i) => {
       if (names.has(r.name.trim())) ctx.addIssue({ code: 'custom', path: ['rows', i, 'name'], message: 'Another floor has this name' });
       names.add(r.name.trim());
-      if (elevations[i] === null) ctx.addIssue({ code: 'custom', path: ['rows', i, 'elevation'], message: i === 0 ? 'The first floor needs an elevation' : 'Enter an elevation' });
+      if (elevations[i] === null)
+        ctx.addIssue({ code: 'custom', path: ['rows', i, 'elevation'], message: i === 0 ? 'The first floor needs an elevation' : 'Enter an elevation' });
       else if (i > 0 && elevations[i - 1] !== null && !(elevations[i]! > elevations[i - 1]!)) {
-        ctx.addIssue({ code: 'custom', path: ['rows', i, 'elevation'], message: `Not above ${f.rows[i - 1].name || 'the floor below'}: list floors from the lowest up` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['rows', i, 'elevation'],
+          message: `Not above ${f.rows[i - 1].name || 'the floor below'}: list floors from the lowest up`,
+        });
       }
     });
   });
@@ -128,7 +138,8 @@ export const BuildingFormSchema = z
     const floorNames = new Set(b.floors.rows.map((r) => r.name.trim()));
     const typeIds = new Set(b.unitTypes.map((t) => t.id));
     for (const key of ['fromFloor', 'toFloor'] as const) {
-      if (b.riser[key] !== '' && !floorNames.has(b.riser[key])) ctx.addIssue({ code: 'custom', path: ['riser', key], message: 'That floor is not in the list' });
+      if (b.riser[key] !== '' && !floorNames.has(b.riser[key]))
+        ctx.addIssue({ code: 'custom', path: ['riser', key], message: 'That floor is not in the list' });
     }
     b.riser.zones.forEach((zr, i) => {
       for (const key of ['fromFloor', 'toFloor'] as const) {
@@ -136,7 +147,8 @@ export const BuildingFormSchema = z
       }
     });
     b.riser.sizeChanges.forEach((c, i) => {
-      if (!floorNames.has(c.fromFloor)) ctx.addIssue({ code: 'custom', path: ['riser', 'sizeChanges', i, 'fromFloor'], message: 'That floor is not in the list' });
+      if (!floorNames.has(c.fromFloor))
+        ctx.addIssue({ code: 'custom', path: ['riser', 'sizeChanges', i, 'fromFloor'], message: 'That floor is not in the list' });
     });
     b.units.forEach((u, i) => {
       if (!typeIds.has(u.unitTypeId)) ctx.addIssue({ code: 'custom', path: ['units', i, 'unitTypeId'], message: 'That unit type does not exist' });

@@ -26,7 +26,16 @@ export interface PreviewRow extends ScheduleRow, BranchColumns {
   unitTypeId: string | null;
 }
 
-const EXTRA_HEADERS: Record<string, keyof BranchColumns> = { height: 'heightAboveFloor', 'height above floor': 'heightAboveFloor', length: 'length', 'branch length': 'length', size: 'size', 'branch size': 'size', check: 'checked', checked: 'checked' };
+const EXTRA_HEADERS: Record<string, keyof BranchColumns> = {
+  height: 'heightAboveFloor',
+  'height above floor': 'heightAboveFloor',
+  length: 'length',
+  'branch length': 'length',
+  size: 'size',
+  'branch size': 'size',
+  check: 'checked',
+  checked: 'checked',
+};
 
 /** The optional branch columns of each line (by line number), or the line's error. */
 function branchColumns(text: string): Map<number, BranchColumns | string> {
@@ -79,9 +88,14 @@ export function previewSchedule(text: string, types: readonly UnitTypeForm[]): S
     const cols = extra.get(r.line) ?? {};
     if (typeof cols === 'string') return { ...r, unitTypeId: null, error: cols };
     if (!TYPICAL_FLOOR_WORDS.includes(norm(r.floor))) {
-      return { ...r, unitTypeId: null, error: `Line ${r.line}: floor “${r.floor}” — this page takes the typical floor’s fixtures (write “typical”); a single floor’s differences are overrides of its placements.` };
+      return {
+        ...r,
+        unitTypeId: null,
+        error: `Line ${r.line}: floor “${r.floor}” — this page takes the typical floor’s fixtures (write “typical”); a single floor’s differences are overrides of its placements.`,
+      };
     }
-    if (!type) return { ...r, unitTypeId: null, error: `Line ${r.line}: there is no unit type named “${r.unit}” (${types.map((t) => `“${t.name}”`).join(', ')}).` };
+    if (!type)
+      return { ...r, unitTypeId: null, error: `Line ${r.line}: there is no unit type named “${r.unit}” (${types.map((t) => `“${t.name}”`).join(', ')}).` };
     return { ...r, ...cols, unitTypeId: type.id };
   });
   return { rows, fileErrors: parsed.fileErrors, good: parsed.fileErrors.length === 0 ? rows.filter((r) => !r.error).length : 0 };
@@ -104,8 +118,18 @@ export function applySchedule(types: readonly UnitTypeForm[], preview: ScheduleP
       else {
         const last = rows[rows.length - 1];
         rows.push({
-          key: newRowKey(), name: s.fixture, from: rows[0].key, heightAboveFloor: 0, fixtureTypeId: s.fixtureTypeId, count: s.count, checked: false,
-          material: last.material, size: rows.length > 1 ? last.size : '', length: undefined as unknown as number, fittings: FIXTURE_BRANCH_FITTINGS.map((f) => ({ ...f })), ...given,
+          key: newRowKey(),
+          name: s.fixture,
+          from: rows[0].key,
+          heightAboveFloor: 0,
+          fixtureTypeId: s.fixtureTypeId,
+          count: s.count,
+          checked: false,
+          material: last.material,
+          size: rows.length > 1 ? last.size : '',
+          length: undefined as unknown as number,
+          fittings: FIXTURE_BRANCH_FITTINGS.map((f) => ({ ...f })),
+          ...given,
         });
       }
     }
@@ -117,9 +141,23 @@ export function applySchedule(types: readonly UnitTypeForm[], preview: ScheduleP
 export function exportSchedule(types: readonly UnitTypeForm[]): string {
   return Papa.unparse({
     fields: ['floor', 'unit', 'fixture', 'count', 'occupancy', 'height', 'length', 'size', 'check'],
-    data: types.flatMap((t) => t.rows.filter((r) => r.fixtureTypeId).map((r) => {
-      const f = FIXTURE_TYPES[r.fixtureTypeId];
-      return ['typical', t.name, f ? f.label : r.fixtureTypeId, r.count, f?.occupancy === 'public' ? 'public' : 'private', r.heightAboveFloor, r.length, r.size, r.checked ? 'yes' : 'no'];
-    })),
+    data: types.flatMap((t) =>
+      t.rows
+        .filter((r) => r.fixtureTypeId)
+        .map((r) => {
+          const f = FIXTURE_TYPES[r.fixtureTypeId];
+          return [
+            'typical',
+            t.name,
+            f ? f.label : r.fixtureTypeId,
+            r.count,
+            f?.occupancy === 'public' ? 'public' : 'private',
+            r.heightAboveFloor,
+            r.length,
+            r.size,
+            r.checked ? 'yes' : 'no',
+          ];
+        }),
+    ),
   });
 }

@@ -6,7 +6,12 @@
 import { UNIT_INLET, type UnitType } from '../../../engine/building/schema';
 import type { PipingRow, UnitTypeForm } from './form';
 
-const slug = (name: string) => name.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'point';
+const slug = (name: string) =>
+  name
+    .trim()
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-|-$/g, '') || 'point';
 
 /** A row read from a stored unit type keeps its node id (placements' overrides and checked fixtures refer to it); a new row gets one from its name. */
 const isNewRow = (key: string) => key.startsWith('row-');

@@ -98,22 +98,57 @@ export function BuildingPage() {
     <FormProvider {...form}>
       <div className="flex flex-col gap-6" data-testid="building-page">
         <StepIntro title="Building">
-          Enter the floors, define each typical unit once, and describe the riser: Headroom generates the riser, the floor mains
-          and every unit’s piping into this draft. Review and edit the result in the <Link to={links.step('risers')}>walk</Link>.
+          Enter the floors, define each typical unit once, and describe the riser: Headroom generates the riser, the floor mains and every unit’s piping into
+          this draft. Review and edit the result in the <Link to={links.step('risers')}>walk</Link>.
         </StepIntro>
-        {readOnly ? <Alert tone="info" title="Read only">{readOnlyReason}</Alert> : null}
+        {readOnly ? (
+          <Alert tone="info" title="Read only">
+            {readOnlyReason}
+          </Alert>
+        ) : null}
         <fieldset disabled={readOnly} className="flex flex-col gap-6">
           <FloorsSection lengthUnit={units.length} />
-          <Section title="Unit types" actions={stored.placements.length > 0 ? <Button variant="secondary" onClick={applyTypes}>Apply unit types to every placement</Button> : null}>
+          <Section
+            title="Unit types"
+            actions={
+              stored.placements.length > 0 ? (
+                <Button variant="secondary" onClick={applyTypes}>
+                  Apply unit types to every placement
+                </Button>
+              ) : null
+            }
+          >
             <div className="flex flex-col gap-4">
               {form.watch('unitTypes').map((t, i) => (
-                <UnitTypeEditor key={t.id} index={i} catalog={catalog} lengthUnit={units.length}
-                  onRemove={i > 0 ? () => form.setValue('unitTypes', form.getValues('unitTypes').filter((_, k) => k !== i)) : undefined} />
+                <UnitTypeEditor
+                  key={t.id}
+                  index={i}
+                  catalog={catalog}
+                  lengthUnit={units.length}
+                  onRemove={
+                    i > 0
+                      ? () =>
+                          form.setValue(
+                            'unitTypes',
+                            form.getValues('unitTypes').filter((_, k) => k !== i),
+                          )
+                      : undefined
+                  }
+                />
               ))}
-              <Button variant="secondary" className="self-start" onClick={() => {
-                const n = form.getValues('unitTypes').length;
-                form.setValue('unitTypes', [...form.getValues('unitTypes'), newUnitType(`unit-${String.fromCharCode(97 + (n % 26))}${n >= 26 ? n : ''}`, `Unit ${String.fromCharCode(65 + (n % 26))}`)]);
-              }}>Add a unit type</Button>
+              <Button
+                variant="secondary"
+                className="self-start"
+                onClick={() => {
+                  const n = form.getValues('unitTypes').length;
+                  form.setValue('unitTypes', [
+                    ...form.getValues('unitTypes'),
+                    newUnitType(`unit-${String.fromCharCode(97 + (n % 26))}${n >= 26 ? n : ''}`, `Unit ${String.fromCharCode(65 + (n % 26))}`),
+                  ]);
+                }}
+              >
+                Add a unit type
+              </Button>
               <ScheduleImport />
             </div>
           </Section>
@@ -121,12 +156,27 @@ export function BuildingPage() {
           <Section title="Preview">
             <div className="flex flex-col gap-4">
               <PreviewPanel counts={counts} problem={problem} />
-              <Button className="self-start" onClick={() => void generate(false)}>Generate into draft</Button>
-              <GeneratePanel pending={pending} onConfirm={() => void generate(true)} onCancel={() => setPending(null)} done={done} onUndo={undoTo ? undo : null} failure={failure} />
+              <Button className="self-start" onClick={() => void generate(false)}>
+                Generate into draft
+              </Button>
+              <GeneratePanel
+                pending={pending}
+                onConfirm={() => void generate(true)}
+                onCancel={() => setPending(null)}
+                done={done}
+                onUndo={undoTo ? undo : null}
+                failure={failure}
+              />
             </div>
           </Section>
-          <PlacementsList placements={stored.placements} unitTypes={stored.unitTypes} floors={stored.floors} lengthUnit={units.length} readOnly={readOnly}
-            onChange={(p) => draft.update((doc) => writePlacement(doc, p))} />
+          <PlacementsList
+            placements={stored.placements}
+            unitTypes={stored.unitTypes}
+            floors={stored.floors}
+            lengthUnit={units.length}
+            readOnly={readOnly}
+            onChange={(p) => draft.update((doc) => writePlacement(doc, p))}
+          />
         </fieldset>
       </div>
     </FormProvider>

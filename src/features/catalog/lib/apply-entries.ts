@@ -45,12 +45,21 @@ const SAME = 1e-9;
 const same = (a: number, b: number) => Math.abs(a - b) <= SAME * Math.max(Math.abs(a), Math.abs(b), Number.MIN_VALUE);
 
 /** The project material and size a segment's custom pipe was copied from, if one matches exactly. */
-export function matchProjectPipe(custom: CustomPipe | undefined, entries: readonly ProjectEntryOf<'material'>[], sys: UnitSystem): { entryId: string; sizeKey: string } | null {
+export function matchProjectPipe(
+  custom: CustomPipe | undefined,
+  entries: readonly ProjectEntryOf<'material'>[],
+  sys: UnitSystem,
+): { entryId: string; sizeKey: string } | null {
   if (!custom) return null;
   for (const entry of entries) {
     for (const size of entry.data.sizes) {
       const pipe = pipeFromProjectEntry(entry, size.key, sys)!;
-      if (pipe.velocityClass === custom.velocityClass && same(pipe.innerDiameter, custom.innerDiameter) && same(pipe.roughness, custom.roughness) && same(pipe.hazenWilliamsC, custom.hazenWilliamsC)) {
+      if (
+        pipe.velocityClass === custom.velocityClass &&
+        same(pipe.innerDiameter, custom.innerDiameter) &&
+        same(pipe.roughness, custom.roughness) &&
+        same(pipe.hazenWilliamsC, custom.hazenWilliamsC)
+      ) {
         return { entryId: entry.id, sizeKey: size.key };
       }
     }
@@ -59,7 +68,10 @@ export function matchProjectPipe(custom: CustomPipe | undefined, entries: readon
 }
 
 /** A device's kind and loss curve from a project device template, in the document's units. */
-export function deviceFromProjectTemplate(entry: ProjectEntryOf<'device-template'>, sys: UnitSystem): Pick<Device, 'kind' | 'label'> & { points: { flow: number; loss: number }[] } {
+export function deviceFromProjectTemplate(
+  entry: ProjectEntryOf<'device-template'>,
+  sys: UnitSystem,
+): Pick<Device, 'kind' | 'label'> & { points: { flow: number; loss: number }[] } {
   return {
     kind: entry.data.kind,
     label: entry.label,

@@ -38,8 +38,23 @@ export interface EntryFormValues {
 }
 
 export const EMPTY_ENTRY_FORM: EntryFormValues = {
-  kind: 'material', label: '', source: '', velocityClass: 'plastic', roughness: '', hazenWilliamsC: '', sizes: '', k: '',
-  occupancy: 'private', demandCurve: 'flush-tank', wsfuCold: '', wsfuHot: '', wsfuTotal: '', minFlowPressure: '', flowRate: '', deviceKind: 'meter', points: '',
+  kind: 'material',
+  label: '',
+  source: '',
+  velocityClass: 'plastic',
+  roughness: '',
+  hazenWilliamsC: '',
+  sizes: '',
+  k: '',
+  occupancy: 'private',
+  demandCurve: 'flush-tank',
+  wsfuCold: '',
+  wsfuHot: '',
+  wsfuTotal: '',
+  minFlowPressure: '',
+  flowRate: '',
+  deviceKind: 'meter',
+  points: '',
 };
 
 /** An empty box is "not given" (NaN, refused by the schema), never 0. */
@@ -49,9 +64,22 @@ const si = (q: 'diameter' | 'pressure' | 'flow', v: number, sys: UnitSystem) => 
 
 /** Where each body path is shown on the form. */
 const FIELD_OF: Record<string, keyof EntryFormValues> = {
-  label: 'label', source: 'source', 'data.velocityClass': 'velocityClass', 'data.roughnessM': 'roughness', 'data.hazenWilliamsC': 'hazenWilliamsC', 'data.sizes': 'sizes',
-  'data.k': 'k', 'data.occupancy': 'occupancy', 'data.demandCurve': 'demandCurve', 'data.wsfu.cold': 'wsfuCold', 'data.wsfu.hot': 'wsfuHot', 'data.wsfu.total': 'wsfuTotal',
-  'data.minFlowPressurePa': 'minFlowPressure', 'data.flowRateM3s': 'flowRate', 'data.kind': 'deviceKind', 'data.points': 'points',
+  label: 'label',
+  source: 'source',
+  'data.velocityClass': 'velocityClass',
+  'data.roughnessM': 'roughness',
+  'data.hazenWilliamsC': 'hazenWilliamsC',
+  'data.sizes': 'sizes',
+  'data.k': 'k',
+  'data.occupancy': 'occupancy',
+  'data.demandCurve': 'demandCurve',
+  'data.wsfu.cold': 'wsfuCold',
+  'data.wsfu.hot': 'wsfuHot',
+  'data.wsfu.total': 'wsfuTotal',
+  'data.minFlowPressurePa': 'minFlowPressure',
+  'data.flowRateM3s': 'flowRate',
+  'data.kind': 'deviceKind',
+  'data.points': 'points',
 };
 
 function fieldOf(path: (string | number | symbol)[]): keyof EntryFormValues {

@@ -67,8 +67,8 @@ function DevMailList() {
   if (mail.isError && isNotFound(mail.error)) {
     return (
       <Alert tone="caution" title="The development mail page is not enabled">
-        This server does not catch e-mail. The page works only when the server runs with HEADROOM_DEV_MAIL=1 and its local
-        mail sink (as <code>npm start</code> and the tests do); in production, e-mail goes to the configured SMTP server.
+        This server does not catch e-mail. The page works only when the server runs with HEADROOM_DEV_MAIL=1 and its local mail sink (as <code>npm start</code>{' '}
+        and the tests do); in production, e-mail goes to the configured SMTP server.
       </Alert>
     );
   }

@@ -12,7 +12,9 @@ export { DEFAULT_UPLOAD_MAX_BYTES };
 export async function uploadAttachment({ ids, file }: { ids: FieldChangeIds; file: File }) {
   const form = new FormData();
   form.append(UPLOAD_FIELD, file, file.name);
-  return (await api.request(fieldChangeUrls.attachments(ids.projectId, ids.systemId, ids.fieldChangeId), { method: 'POST', body: form, schema: AttachmentResponse })).attachment;
+  return (
+    await api.request(fieldChangeUrls.attachments(ids.projectId, ids.systemId, ids.fieldChangeId), { method: 'POST', body: form, schema: AttachmentResponse })
+  ).attachment;
 }
 
 export async function deleteAttachment({ ids, attachmentId }: { ids: FieldChangeIds; attachmentId: string }) {

@@ -9,7 +9,8 @@ export const fieldChangeUrls = {
   forSystem: (projectId: string, systemId: string) => fieldChangesApiPath(e(projectId), e(systemId)),
   one,
   comparison: (projectId: string, systemId: string, fieldChangeId: string) => `${one(projectId, systemId, fieldChangeId)}/comparison`,
-  action: (projectId: string, systemId: string, fieldChangeId: string, action: 'propose' | 'accept' | 'decline') => `${one(projectId, systemId, fieldChangeId)}/${action}`,
+  action: (projectId: string, systemId: string, fieldChangeId: string, action: 'propose' | 'accept' | 'decline') =>
+    `${one(projectId, systemId, fieldChangeId)}/${action}`,
   attachments: (projectId: string, systemId: string, fieldChangeId: string) => `${one(projectId, systemId, fieldChangeId)}/attachments`,
   attachment: (projectId: string, systemId: string, fieldChangeId: string, attachmentId: string) =>
     `${one(projectId, systemId, fieldChangeId)}/attachments/${e(attachmentId)}`,

@@ -46,7 +46,12 @@ export function AttachmentsPanel({ ids, fieldChange, isAuthor }: { ids: FieldCha
                 {TYPE_WORDS[a.contentType]} · {size(a.byteLength)} · {a.uploadedBy.name}, {formatDateTime(a.createdAt)}
               </span>
               {canRemove ? (
-                <Button variant="quiet" onClick={() => remove.mutate({ ids, attachmentId: a.id })} aria-label={`Remove ${a.fileName}`} disabled={remove.isPending}>
+                <Button
+                  variant="quiet"
+                  onClick={() => remove.mutate({ ids, attachmentId: a.id })}
+                  aria-label={`Remove ${a.fileName}`}
+                  disabled={remove.isPending}
+                >
                   Remove
                 </Button>
               ) : null}

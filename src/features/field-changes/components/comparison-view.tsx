@@ -36,19 +36,40 @@ export function FixtureEffectTable({ comparison }: Props) {
         <caption className="mb-2 text-left text-ink-soft">Margin = residual pressure − the fixture’s minimum flow pressure, at the design flow ({u}).</caption>
         <thead>
           <tr className="border-b-2 border-rule text-left">
-            <th scope="col" className="py-1 pr-2">Fixture</th>
-            <th scope="col" className="py-1 pr-2 text-right">Required</th>
-            <th scope="col" className="py-1 pr-2 text-right">Issued residual</th>
-            <th scope="col" className="py-1 pr-2 text-right">New residual</th>
-            <th scope="col" className="py-1 pr-2 text-right">Issued margin</th>
-            <th scope="col" className="py-1 pr-2 text-right">New margin</th>
-            <th scope="col" className="py-1 pr-2 text-right">Difference</th>
-            <th scope="col" className="py-1">With the change</th>
+            <th scope="col" className="py-1 pr-2">
+              Fixture
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              Required
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              Issued residual
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              New residual
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              Issued margin
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              New margin
+            </th>
+            <th scope="col" className="py-1 pr-2 text-right">
+              Difference
+            </th>
+            <th scope="col" className="py-1">
+              With the change
+            </th>
           </tr>
         </thead>
         <tbody>
           {comparison.fixtures.map((f) => (
-            <tr key={f.id} className="border-b border-rule" data-testid={`fixture-effect-${f.id}`} data-critical={f.id === comparison.verdict.criticalFixtureId || undefined}>
+            <tr
+              key={f.id}
+              className="border-b border-rule"
+              data-testid={`fixture-effect-${f.id}`}
+              data-critical={f.id === comparison.verdict.criticalFixtureId || undefined}
+            >
               <th scope="row" className="py-1 pr-2 text-left font-normal">
                 {f.label}
                 {f.id === comparison.verdict.criticalFixtureId ? <span className="ml-1 text-xs font-semibold">(critical)</span> : null}
@@ -57,8 +78,12 @@ export function FixtureEffectTable({ comparison }: Props) {
               <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.issuedResidual, 2)}</td>
               <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.newResidual, 2)}</td>
               <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, 2)}</td>
-              <td className="py-1 pr-2 text-right tabular-nums" data-testid="new-margin">{signed(f.newMargin, 2)}</td>
-              <td className="py-1 pr-2 text-right tabular-nums" data-testid="margin-difference">{signed(f.difference, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums" data-testid="new-margin">
+                {signed(f.newMargin, 2)}
+              </td>
+              <td className="py-1 pr-2 text-right tabular-nums" data-testid="margin-difference">
+                {signed(f.difference, 2)}
+              </td>
               <td className="py-1">
                 <VerdictMark verdict={fixtureVerdict(f.newPass, statusOf(comparison))} />
               </td>
@@ -88,17 +113,29 @@ export function ChangedElements({ comparison }: Props) {
             <caption className="mb-2 text-left font-semibold">Changed segments (loss = friction + fittings of the segment, {units.pressure})</caption>
             <thead>
               <tr className="border-b-2 border-rule text-left">
-                <th scope="col" className="py-1 pr-2">Segment</th>
-                <th scope="col" className="py-1 pr-2">What changed</th>
-                <th scope="col" className="py-1 pr-2 text-right">Loss issued → new</th>
-                <th scope="col" className="py-1 pr-2 text-right">Difference</th>
-                <th scope="col" className="py-1 text-right">Velocity ({units.velocity})</th>
+                <th scope="col" className="py-1 pr-2">
+                  Segment
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  What changed
+                </th>
+                <th scope="col" className="py-1 pr-2 text-right">
+                  Loss issued → new
+                </th>
+                <th scope="col" className="py-1 pr-2 text-right">
+                  Difference
+                </th>
+                <th scope="col" className="py-1 text-right">
+                  Velocity ({units.velocity})
+                </th>
               </tr>
             </thead>
             <tbody>
               {comparison.segments.map((s) => (
                 <tr key={s.id} className="border-b border-rule align-top" data-testid={`segment-effect-${s.id}`}>
-                  <th scope="row" className="py-1 pr-2 text-left font-normal">{s.label}</th>
+                  <th scope="row" className="py-1 pr-2 text-left font-normal">
+                    {s.label}
+                  </th>
                   <td className="py-1 pr-2">{changeWords(s.changes)}</td>
                   <td className="py-1 pr-2 text-right tabular-nums">
                     {fmt(s.issued?.loss, 2)} → {fmt(s.proposed?.loss, 2)}
@@ -119,10 +156,18 @@ export function ChangedElements({ comparison }: Props) {
           <caption className="mb-2 text-left font-semibold">Changed devices ({units.pressure})</caption>
           <thead>
             <tr className="border-b-2 border-rule text-left">
-              <th scope="col" className="py-1 pr-2">Device</th>
-              <th scope="col" className="py-1 pr-2">What changed</th>
-              <th scope="col" className="py-1 pr-2 text-right">Loss issued → new</th>
-              <th scope="col" className="py-1 text-right">Difference</th>
+              <th scope="col" className="py-1 pr-2">
+                Device
+              </th>
+              <th scope="col" className="py-1 pr-2">
+                What changed
+              </th>
+              <th scope="col" className="py-1 pr-2 text-right">
+                Loss issued → new
+              </th>
+              <th scope="col" className="py-1 text-right">
+                Difference
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -147,7 +192,8 @@ export function ChangedElements({ comparison }: Props) {
 
 /** Warnings the change brings, and those it clears. */
 export function WarningChanges({ comparison }: Props) {
-  if (comparison.newWarnings.length === 0 && comparison.resolvedWarnings.length === 0) return <p className="text-ink-soft">No warning appears or goes away with the change.</p>;
+  if (comparison.newWarnings.length === 0 && comparison.resolvedWarnings.length === 0)
+    return <p className="text-ink-soft">No warning appears or goes away with the change.</p>;
   return (
     <div className="flex flex-col gap-3">
       {comparison.newWarnings.length ? (

@@ -30,8 +30,8 @@ function ProposeForm({ ids, draft, attachmentCount }: { ids: FieldChangeIds; dra
   return (
     <div className="flex flex-col gap-3">
       <p className="max-w-prose text-sm">
-        Proposing sends this field change to the project’s designers by e-mail. It can then no longer be edited; you can
-        still attach files until the designer decides.
+        Proposing sends this field change to the project’s designers by e-mail. It can then no longer be edited; you can still attach files until the designer
+        decides.
         {attachmentCount === 0 ? ' No product data is attached yet.' : ''}
       </p>
       <div>
@@ -79,15 +79,15 @@ function DecideForms({ ids, fieldChange }: { ids: FieldChangeIds; fieldChange: F
         </div>
       ) : (
         <Alert tone="caution" title="The issued revision has moved on">
-          This field change was made on a revision that is no longer the current issued one, so it cannot be accepted as it
-          is. Decline it with a reason, and ask for a new one on the current revision.
+          This field change was made on a revision that is no longer the current issued one, so it cannot be accepted as it is. Decline it with a reason, and
+          ask for a new one on the current revision.
         </Alert>
       )}
       {canAccept && mode === 'accept' ? (
         <form onSubmit={onAccept} noValidate className="flex flex-col gap-3" aria-label="Accept the field change">
           <p className="max-w-prose text-sm">
-            Accepting makes a new draft revision from this field change, with the change recorded in its history; check it
-            and issue it as usual. The contractor is told by e-mail.
+            Accepting makes a new draft revision from this field change, with the change recorded in its history; check it and issue it as usual. The contractor
+            is told by e-mail.
           </p>
           <TextAreaField label="Comment for the contractor (optional)" error={a.formState.errors.comment?.message} {...a.register('comment')} />
           <div>
@@ -99,7 +99,12 @@ function DecideForms({ ids, fieldChange }: { ids: FieldChangeIds; fieldChange: F
       ) : null}
       {mode === 'decline' || !canAccept ? (
         <form onSubmit={onDecline} noValidate className="flex flex-col gap-3" aria-label="Decline the field change">
-          <TextAreaField label="Why it is declined" hint="The contractor receives this by e-mail." error={d.formState.errors.reason?.message} {...d.register('reason')} />
+          <TextAreaField
+            label="Why it is declined"
+            hint="The contractor receives this by e-mail."
+            error={d.formState.errors.reason?.message}
+            {...d.register('reason')}
+          />
           <div>
             <Button type="submit" variant="danger" pending={decline.isPending} pendingLabel="Declining…">
               Decline
@@ -124,7 +129,19 @@ function DecideForms({ ids, fieldChange }: { ids: FieldChangeIds; fieldChange: F
 }
 
 /** Where the field change stands, and what this person can do about it now. */
-export function DecisionPanel({ ids, fieldChange, draft, isAuthor, isDesigner }: { ids: FieldChangeIds; fieldChange: FieldChange; draft: Draft; isAuthor: boolean; isDesigner: boolean }) {
+export function DecisionPanel({
+  ids,
+  fieldChange,
+  draft,
+  isAuthor,
+  isDesigner,
+}: {
+  ids: FieldChangeIds;
+  fieldChange: FieldChange;
+  draft: Draft;
+  isAuthor: boolean;
+  isDesigner: boolean;
+}) {
   const fc = fieldChange;
   return (
     <Section title="Proposal" headingLevel={3}>

@@ -22,12 +22,25 @@ export function DetailsForm({ ids, fieldChange, draft }: { ids: FieldChangeIds; 
   const onSubmit = form.handleSubmit(async (values) => {
     const version = await draft.versionToIssue();
     if (version === null) return;
-    update.mutate({ ids, body: { ...values, version } }, { onSuccess: (saved) => { draft.acknowledge(saved.version); form.reset(values); } });
+    update.mutate(
+      { ids, body: { ...values, version } },
+      {
+        onSuccess: (saved) => {
+          draft.acknowledge(saved.version);
+          form.reset(values);
+        },
+      },
+    );
   });
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Field change details">
       <TextField label="What is substituted" error={form.formState.errors.title?.message} {...form.register('title')} />
-      <TextAreaField label="Why, and what the designer should know" hint="For example: press fittings in stock, soldering not allowed in the occupied floors." error={form.formState.errors.description?.message} {...form.register('description')} />
+      <TextAreaField
+        label="Why, and what the designer should know"
+        hint="For example: press fittings in stock, soldering not allowed in the occupied floors."
+        error={form.formState.errors.description?.message}
+        {...form.register('description')}
+      />
       <div>
         <Button type="submit" variant="secondary" pending={update.isPending} pendingLabel="Saving…" disabled={!form.formState.isDirty}>
           Save the details

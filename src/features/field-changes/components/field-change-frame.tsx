@@ -54,7 +54,15 @@ export function fieldChangeLinks({ projectId, systemId, fieldChangeId }: FieldCh
   };
 }
 
-function Frame({ ids, project, system, fieldChange, base, catalog, user }: {
+function Frame({
+  ids,
+  project,
+  system,
+  fieldChange,
+  base,
+  catalog,
+  user,
+}: {
   ids: FieldChangeIds;
   project: Project;
   system: SystemInfo;

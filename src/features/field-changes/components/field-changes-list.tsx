@@ -14,13 +14,29 @@ export function FieldChangesTable({ fieldChanges, showSystem }: { fieldChanges: 
       <table className="w-full text-sm" data-testid="field-changes-table">
         <thead>
           <tr className="border-b-2 border-rule text-left">
-            <th scope="col" className="py-1 pr-2">Field change</th>
-            {showSystem ? <th scope="col" className="py-1 pr-2">System</th> : null}
-            <th scope="col" className="py-1 pr-2">On revision</th>
-            <th scope="col" className="py-1 pr-2">By</th>
-            <th scope="col" className="py-1 pr-2">State</th>
-            <th scope="col" className="py-1 pr-2">Changes</th>
-            <th scope="col" className="py-1">Updated</th>
+            <th scope="col" className="py-1 pr-2">
+              Field change
+            </th>
+            {showSystem ? (
+              <th scope="col" className="py-1 pr-2">
+                System
+              </th>
+            ) : null}
+            <th scope="col" className="py-1 pr-2">
+              On revision
+            </th>
+            <th scope="col" className="py-1 pr-2">
+              By
+            </th>
+            <th scope="col" className="py-1 pr-2">
+              State
+            </th>
+            <th scope="col" className="py-1 pr-2">
+              Changes
+            </th>
+            <th scope="col" className="py-1">
+              Updated
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -49,7 +65,13 @@ export function FieldChangesTable({ fieldChanges, showSystem }: { fieldChanges: 
   );
 }
 
-export function FieldChangesQueryView({ query, showSystem }: { query: { data?: FieldChangeSummary[]; isError: boolean; error: unknown; refetch: () => unknown }; showSystem: boolean }) {
+export function FieldChangesQueryView({
+  query,
+  showSystem,
+}: {
+  query: { data?: FieldChangeSummary[]; isError: boolean; error: unknown; refetch: () => unknown };
+  showSystem: boolean;
+}) {
   if (query.isError) return <ErrorView error={query.error} onRetry={() => void query.refetch()} what="the field changes" />;
   if (!query.data) return <Loading label="Loading field changes…" />;
   return <FieldChangesTable fieldChanges={query.data} showSystem={showSystem} />;

@@ -7,5 +7,3 @@ const WORDS: Record<FieldChangeStatus, string> = { draft: 'Draft', proposed: 'Pr
 export function FieldChangeStatusBadge({ status }: { status: FieldChangeStatus }) {
   return <Badge tone={TONE[status]}>{WORDS[status]}</Badge>;
 }
-
-export const statusWords = (status: FieldChangeStatus) => WORDS[status];

@@ -4,7 +4,12 @@ import { FieldChangesQueryView } from './field-changes-list';
 import { StartFieldChange } from './start-field-change';
 
 /** A system's field changes, and for a contractor the way to start one on the current issued revision. */
-export function SystemFieldChanges({ projectId, systemId, myRole, issued }: {
+export function SystemFieldChanges({
+  projectId,
+  systemId,
+  myRole,
+  issued,
+}: {
   projectId: string;
   systemId: string;
   myRole: string | null;
@@ -15,7 +20,9 @@ export function SystemFieldChanges({ projectId, systemId, myRole, issued }: {
   return (
     <Section title="Field changes">
       <div className="flex flex-col gap-4">
-        {myRole === 'contractor' && issued ? <StartFieldChange projectId={projectId} systemId={systemId} revisionId={issued.id} revisionNumber={issued.number} /> : null}
+        {myRole === 'contractor' && issued ? (
+          <StartFieldChange projectId={projectId} systemId={systemId} revisionId={issued.id} revisionNumber={issued.number} />
+        ) : null}
         {myRole === 'contractor' && !issued ? <p className="text-sm">A field change starts from an issued revision; this system has none yet.</p> : null}
         <FieldChangesQueryView query={query} showSystem={false} />
       </div>

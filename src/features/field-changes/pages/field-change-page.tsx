@@ -59,8 +59,8 @@ export function FieldChangePage() {
       <Section title="Cautions" headingLevel={3}>
         <ul className="list-disc pl-5 text-sm" data-testid="cautions">
           <li>
-            A field change is checked on the issued design’s own assumptions (supply, demand, elevations). The designer of
-            record decides; nothing is built on a proposal alone.
+            A field change is checked on the issued design’s own assumptions (supply, demand, elevations). The designer of record decides; nothing is built on a
+            proposal alone.
           </li>
           <li>Check each substitute’s loss against the manufacturer’s data for the product actually installed (insert fittings narrow PEX further).</li>
           {CAUTIONS.map((c) => (

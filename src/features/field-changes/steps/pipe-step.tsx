@@ -22,9 +22,9 @@ export function PipeStep() {
   return (
     <div>
       <StepIntro title="Pipe and sizes">
-        Another pipe material, another size, or more developed length for an offset. Each segment shows what was issued
-        beside what goes in instead, and the effect on its velocity and on its loss (friction and fittings) at the
-        design flow. Insert fittings of PEX narrow the bore further: add them on the fittings step.
+        Another pipe material, another size, or more developed length for an offset. Each segment shows what was issued beside what goes in instead, and the
+        effect on its velocity and on its loss (friction and fittings) at the design flow. Insert fittings of PEX narrow the bore further: add them on the
+        fittings step.
       </StepIntro>
       <SubstitutePanel onChanged={() => undefined} />
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Pipe and sizes">

@@ -31,7 +31,10 @@ export function AddMemberForm({ projectId, config }: { projectId: string; config
       },
       onError: (error) => {
         if (isApiError(error) && (error.code === 'USER_NOT_FOUND' || error.code === 'CONFLICT')) {
-          form.setError('email', { type: 'server', message: error.code === 'CONFLICT' ? 'This person is already a member of the project' : errorMessage(error) });
+          form.setError('email', {
+            type: 'server',
+            message: error.code === 'CONFLICT' ? 'This person is already a member of the project' : errorMessage(error),
+          });
         } else {
           applyServerFieldErrors(error, form.setError, ['email', 'role']);
         }

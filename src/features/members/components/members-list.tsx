@@ -64,7 +64,12 @@ function MemberControls({ projectId, member, config }: { projectId: string; memb
 }
 
 /** The project's members; designers of the project also get controls to change roles and remove people. */
-export function MembersList({ projectId, members, canManage, config }: {
+export function MembersList({
+  projectId,
+  members,
+  canManage,
+  config,
+}: {
   projectId: string;
   members: readonly Member[];
   canManage: boolean;
@@ -75,10 +80,20 @@ export function MembersList({ projectId, members, canManage, config }: {
       <caption className="sr-only">Project members and their roles</caption>
       <thead>
         <tr className="border-b-2 border-rule-strong text-sm">
-          <th scope="col" className="py-2 pr-4">Name</th>
-          <th scope="col" className="py-2 pr-4">E-mail address</th>
-          <th scope="col" className="py-2 pr-4">Role</th>
-          {canManage ? <th scope="col" className="py-2">Change</th> : null}
+          <th scope="col" className="py-2 pr-4">
+            Name
+          </th>
+          <th scope="col" className="py-2 pr-4">
+            E-mail address
+          </th>
+          <th scope="col" className="py-2 pr-4">
+            Role
+          </th>
+          {canManage ? (
+            <th scope="col" className="py-2">
+              Change
+            </th>
+          ) : null}
         </tr>
       </thead>
       <tbody>

@@ -29,9 +29,7 @@ export function useUpdateProject() {
   return useMutation({
     mutationFn: updateProject,
     onSuccess: (project) => {
-      queryClient.setQueryData<ProjectDetail>(projectKeys.detail(project.id), (old) =>
-        old ? { ...old, project } : old,
-      );
+      queryClient.setQueryData<ProjectDetail>(projectKeys.detail(project.id), (old) => (old ? { ...old, project } : old));
       return Promise.all([
         queryClient.invalidateQueries({ queryKey: projectKeys.detail(project.id) }),
         queryClient.invalidateQueries({ queryKey: projectKeys.lists() }),

@@ -26,7 +26,12 @@ function fieldValues(project: Project): ProjectFieldValues {
  * Edits a project's details. The form keeps the version it was opened with (not whatever a
  * background refetch brings), so a save after someone else's change answers 409 and is refused.
  */
-export function EditProjectForm({ project, onSaved, onCancel, reload }: {
+export function EditProjectForm({
+  project,
+  onSaved,
+  onCancel,
+  reload,
+}: {
   project: Project;
   onSaved: () => void;
   onCancel: () => void;

@@ -52,8 +52,19 @@ export function ProjectFields({ register, errors }: { register: UseFormRegister<
           error={errors.permit?.localAmendments?.message}
           {...register('permit.localAmendments')}
         />
-        <TextField label="Preparer's licence or registration number" autoComplete="off" error={errors.permit?.preparerLicence?.message} {...register('permit.preparerLicence')} />
-        <TextField label="Licence jurisdiction" hint="The state, province or body that issued the licence." autoComplete="off" error={errors.permit?.licenceJurisdiction?.message} {...register('permit.licenceJurisdiction')} />
+        <TextField
+          label="Preparer's licence or registration number"
+          autoComplete="off"
+          error={errors.permit?.preparerLicence?.message}
+          {...register('permit.preparerLicence')}
+        />
+        <TextField
+          label="Licence jurisdiction"
+          hint="The state, province or body that issued the licence."
+          autoComplete="off"
+          error={errors.permit?.licenceJurisdiction?.message}
+          {...register('permit.licenceJurisdiction')}
+        />
       </fieldset>
     </div>
   );

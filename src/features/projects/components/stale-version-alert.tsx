@@ -13,8 +13,7 @@ export function StaleVersionAlert({ onReload, reloading }: { onReload: () => voi
         </Button>
       }
     >
-      Your changes were not saved, and theirs were not overwritten. Reload to see the project as it is now, then make
-      your change again.
+      Your changes were not saved, and theirs were not overwritten. Reload to see the project as it is now, then make your change again.
     </Alert>
   );
 }

@@ -34,7 +34,11 @@ export function toDecideReviewBody(input: z.output<typeof decideReviewInputSchem
   return DecideReviewBody.parse({
     decision: input.decision,
     comment: input.comment,
-    items: input.items.map((item) => ({ itemType: item.itemType, itemId: item.itemType === 'general' || item.itemId === '' ? null : item.itemId, comment: item.comment })),
+    items: input.items.map((item) => ({
+      itemType: item.itemType,
+      itemId: item.itemType === 'general' || item.itemId === '' ? null : item.itemId,
+      comment: item.comment,
+    })),
     version,
   });
 }
@@ -51,10 +55,6 @@ export function useDecideReview() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: decideReview,
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: reviewKeys.all }),
-        queryClient.invalidateQueries({ queryKey: inboxKeys.all }),
-      ]),
+    onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: reviewKeys.all }), queryClient.invalidateQueries({ queryKey: inboxKeys.all })]),
   });
 }

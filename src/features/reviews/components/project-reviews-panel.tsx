@@ -24,12 +24,12 @@ export function ProjectReviewsPanel({ projectId }: { projectId: string }) {
     <Section title="Reviews">
       {reviews.isPending ? <Loading label="Loading the reviews…" /> : null}
       {reviews.isError ? <ErrorView error={reviews.error} onRetry={() => void reviews.refetch()} what="the reviews" /> : null}
-      {reviews.data && reviews.data.length === 0 ? (
-        <p className="text-ink-soft">No summary of this project has been sent for review yet.</p>
-      ) : null}
+      {reviews.data && reviews.data.length === 0 ? <p className="text-ink-soft">No summary of this project has been sent for review yet.</p> : null}
       {reviews.data && reviews.data.length > 0 ? (
         <>
-          <p className="mb-3 text-sm text-ink-soft" data-testid="reviews-tally">{tally(reviews.data)}</p>
+          <p className="mb-3 text-sm text-ink-soft" data-testid="reviews-tally">
+            {tally(reviews.data)}
+          </p>
           <ul className="flex flex-col gap-3" aria-label="Reviews in this project">
             {[...reviews.data]
               .sort((a, b) => (b.decidedAt ?? b.receivedAt).localeCompare(a.decidedAt ?? a.receivedAt))
@@ -38,7 +38,10 @@ export function ProjectReviewsPanel({ projectId }: { projectId: string }) {
                   <ReviewCard
                     review={r}
                     heading={
-                      <Link to={resultViewPath(r.projectId, r.systemId, r.revisionId)} aria-label={`${r.systemName}, revision ${r.revisionNumber}: ${reviewStatusWord(r.status)} by ${r.reviewer.name}`}>
+                      <Link
+                        to={resultViewPath(r.projectId, r.systemId, r.revisionId)}
+                        aria-label={`${r.systemName}, revision ${r.revisionNumber}: ${reviewStatusWord(r.status)} by ${r.reviewer.name}`}
+                      >
                         {r.systemName} · revision {r.revisionNumber}
                         {r.revisionStatus === 'superseded' ? ' (superseded)' : ''}
                       </Link>

@@ -19,10 +19,18 @@ function FixtureRows({ fixtures, testId }: { fixtures: Fixture[]; testId: string
     <table className="w-full min-w-[36rem] text-sm" data-testid={testId}>
       <thead>
         <tr className="border-b-2 border-rule text-left">
-          <th scope="col" className="py-1 pr-2">Checked fixture</th>
-          <th scope="col" className="py-1 pr-2 text-right">Margin then</th>
-          <th scope="col" className="py-1 pr-2 text-right">Margin now</th>
-          <th scope="col" className="py-1 text-right">Difference</th>
+          <th scope="col" className="py-1 pr-2">
+            Checked fixture
+          </th>
+          <th scope="col" className="py-1 pr-2 text-right">
+            Margin then
+          </th>
+          <th scope="col" className="py-1 pr-2 text-right">
+            Margin now
+          </th>
+          <th scope="col" className="py-1 text-right">
+            Difference
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -47,7 +55,17 @@ function FixtureRows({ fixtures, testId }: { fixtures: Fixture[]; testId: string
  * rows first, in words such as "fittings 1× … → 5× …", unchanged fixtures folded) and the designer's
  * answer to each comment. Nothing when the revision answers no review.
  */
-export function ReviewAnswersPanel({ projectId, systemId, revisionId, catalog }: { projectId: string; systemId: string; revisionId: string; catalog?: ItemCatalog }) {
+export function ReviewAnswersPanel({
+  projectId,
+  systemId,
+  revisionId,
+  catalog,
+}: {
+  projectId: string;
+  systemId: string;
+  revisionId: string;
+  catalog?: ItemCatalog;
+}) {
   const answers = useAnswers(projectId, systemId, revisionId);
   if (answers.isPending) return <Loading label="Looking for the answers to an earlier review…" />;
   if (answers.isError) return <ErrorView error={answers.error} onRetry={() => void answers.refetch()} what="the answers to the earlier review" />;
@@ -62,7 +80,9 @@ export function ReviewAnswersPanel({ projectId, systemId, revisionId, catalog }:
   return (
     <Section title={`Answers to the review of revision ${n}`} headingLevel={3}>
       <div className="flex flex-col gap-4" data-testid="review-answers">
-        <p className="max-w-prose text-sm text-ink-soft">This revision was issued after revision {n} was returned. Below: what changed since revision {n}, then each comment with the designer’s reply.</p>
+        <p className="max-w-prose text-sm text-ink-soft">
+          This revision was issued after revision {n} was returned. Below: what changed since revision {n}, then each comment with the designer’s reply.
+        </p>
         <ComparisonVerdict comparison={asComparison} />
         <div>
           <h4 className="font-semibold">What changed since revision {n}</h4>
@@ -79,7 +99,13 @@ export function ReviewAnswersPanel({ projectId, systemId, revisionId, catalog }:
         {compare.changes.length ? <ChangedElements comparison={asComparison} /> : null}
         <div className="overflow-x-auto">
           <h4 className="font-semibold">Margins at the checked fixtures ({u}): changed first</h4>
-          {moved.length ? <FixtureRows fixtures={moved} testId="answers-fixtures-changed" /> : <p className="text-ink-soft">No margin moved by {fmt(0.01, 2)} {u} or more.</p>}
+          {moved.length ? (
+            <FixtureRows fixtures={moved} testId="answers-fixtures-changed" />
+          ) : (
+            <p className="text-ink-soft">
+              No margin moved by {fmt(0.01, 2)} {u} or more.
+            </p>
+          )}
           {still.length ? (
             <details className="mt-2">
               <summary className="cursor-pointer text-sm font-semibold">Unchanged fixtures ({still.length})</summary>
@@ -100,7 +126,11 @@ export function ReviewAnswersPanel({ projectId, systemId, revisionId, catalog }:
                   <p className="whitespace-pre-wrap">{item.comment}</p>
                   <p className="mt-1 text-sm">
                     <span className="font-semibold">Reply: </span>
-                    {item.reply ? <span className="whitespace-pre-wrap">{item.reply.text}</span> : <span className="font-semibold text-caution">not answered</span>}
+                    {item.reply ? (
+                      <span className="whitespace-pre-wrap">{item.reply.text}</span>
+                    ) : (
+                      <span className="font-semibold text-caution">not answered</span>
+                    )}
                   </p>
                 </li>
               ))}

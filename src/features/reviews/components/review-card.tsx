@@ -53,7 +53,9 @@ export function ReviewCard({ review, catalog, heading, extra }: { review: Review
         </div>
       ) : null}
       {decided && !review.comment && review.items.length === 0 ? <p className="mt-2 text-sm text-ink-soft">No comments.</p> : null}
-      {review.answeredIn ? <p className="mt-2 text-sm text-ink-soft">Answered by revision {review.answeredIn.revisionNumber}; the replies are frozen.</p> : null}
+      {review.answeredIn ? (
+        <p className="mt-2 text-sm text-ink-soft">Answered by revision {review.answeredIn.revisionNumber}; the replies are frozen.</p>
+      ) : null}
       {review.acceptanceRecord ? (
         <p className="mt-3">
           <a href={review.acceptanceRecord.url} download={review.acceptanceRecord.fileName} className="font-semibold" data-testid="acceptance-record-link">

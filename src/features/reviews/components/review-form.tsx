@@ -19,7 +19,12 @@ const DECISIONS = [
   { value: 'returned', label: 'Return with comments', hint: 'The designer corrects it and sends a new revision.' },
 ] as const;
 
-function ItemRow({ index, catalog, form, onRemove }: {
+function ItemRow({
+  index,
+  catalog,
+  form,
+  onRemove,
+}: {
   index: number;
   catalog: ItemCatalog;
   form: ReturnType<typeof useForm<DecideReviewInput, unknown, Values>>;
@@ -101,7 +106,10 @@ export function ReviewForm({ review, catalog, onDecided }: { review: Review; cat
       <fieldset className="flex flex-col gap-2" aria-describedby={errors.decision ? 'decision-error' : undefined}>
         <legend className="mb-1 text-sm font-semibold">Your decision on revision {review.revisionNumber}</legend>
         {DECISIONS.map((d) => (
-          <label key={d.value} className="flex items-start gap-2 rounded-md border-2 border-rule bg-surface px-3 py-2 has-[:checked]:border-standpipe has-[:checked]:bg-standpipe-soft">
+          <label
+            key={d.value}
+            className="flex items-start gap-2 rounded-md border-2 border-rule bg-surface px-3 py-2 has-[:checked]:border-standpipe has-[:checked]:bg-standpipe-soft"
+          >
             <input type="radio" value={d.value} className="mt-1 size-4 accent-standpipe" {...form.register('decision')} disabled={confirming !== null} />
             <span>
               <span className="font-semibold">{d.label}</span>
@@ -137,7 +145,11 @@ export function ReviewForm({ review, catalog, onDecided }: { review: Review; cat
           <p className="text-sm text-ink-soft">None yet. Add one to point at a segment, a checked fixture, a device, a node or an input.</p>
         )}
         <div>
-          <Button variant="secondary" disabled={confirming !== null} onClick={() => items.append({ itemType: 'fixture', itemId: '', comment: '' }, { focusName: `items.${items.fields.length}.itemType` })}>
+          <Button
+            variant="secondary"
+            disabled={confirming !== null}
+            onClick={() => items.append({ itemType: 'fixture', itemId: '', comment: '' }, { focusName: `items.${items.fields.length}.itemType` })}
+          >
             Add a comment on an item
           </Button>
         </div>
@@ -146,7 +158,11 @@ export function ReviewForm({ review, catalog, onDecided }: { review: Review; cat
       {confirming ? (
         <Alert
           tone="caution"
-          title={confirming.decision === 'accepted' ? `Accept revision ${review.revisionNumber}?` : `Return revision ${review.revisionNumber} with ${count} comment(s)?`}
+          title={
+            confirming.decision === 'accepted'
+              ? `Accept revision ${review.revisionNumber}?`
+              : `Return revision ${review.revisionNumber} with ${count} comment(s)?`
+          }
           actions={
             <>
               <Button onClick={record} pending={decide.isPending} pendingLabel="Recording…" autoFocus>

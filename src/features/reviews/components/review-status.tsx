@@ -37,7 +37,11 @@ function Shape({ status }: { status: Status }) {
 export function ReviewStatusMark({ status, className }: { status: Status; className?: string }) {
   return (
     <span
-      className={cx('inline-flex items-center gap-1.5 font-semibold', status === 'accepted' ? 'text-sound' : status === 'returned' ? 'text-caution' : 'text-standpipe', className)}
+      className={cx(
+        'inline-flex items-center gap-1.5 font-semibold',
+        status === 'accepted' ? 'text-sound' : status === 'returned' ? 'text-caution' : 'text-standpipe',
+        className,
+      )}
       data-review-status={status}
     >
       <Shape status={status} />

@@ -30,7 +30,12 @@ export function SendPackagePanel({ projectId }: { projectId: string }) {
     setDone(null);
     send.mutate(
       { projectId, body: { systemIds, inspectorIds, ...(message.trim() ? { message: message.trim() } : {}) } },
-      { onSuccess: (r) => setDone(`Sent as one submission: ${r.reviews.length / Math.max(1, inspectorIds.length)} system(s) to ${r.messages.map((m) => m.toAddress).join(', ')}.`) },
+      {
+        onSuccess: (r) =>
+          setDone(
+            `Sent as one submission: ${r.reviews.length / Math.max(1, inspectorIds.length)} system(s) to ${r.messages.map((m) => m.toAddress).join(', ')}.`,
+          ),
+      },
     );
   };
   return (
@@ -46,7 +51,9 @@ export function SendPackagePanel({ projectId }: { projectId: string }) {
             <label key={s.id} className="mt-1 flex items-center gap-2">
               <input type="checkbox" className="size-4" checked={systemIds.includes(s.id)} onChange={() => setSystemIds(toggle(systemIds, s.id))} />
               {s.name}
-              {fields[`systemIds.${systemIds.indexOf(s.id)}`] && systemIds.includes(s.id) ? <span className="text-sm text-fault">⚠ {fields[`systemIds.${systemIds.indexOf(s.id)}`]}</span> : null}
+              {fields[`systemIds.${systemIds.indexOf(s.id)}`] && systemIds.includes(s.id) ? (
+                <span className="text-sm text-fault">⚠ {fields[`systemIds.${systemIds.indexOf(s.id)}`]}</span>
+              ) : null}
             </label>
           ))}
         </fieldset>
@@ -54,7 +61,12 @@ export function SendPackagePanel({ projectId }: { projectId: string }) {
           <legend className="text-sm font-semibold">Inspectors</legend>
           {inspectors.map((m) => (
             <label key={m.userId} className="mt-1 flex items-center gap-2">
-              <input type="checkbox" className="size-4" checked={inspectorIds.includes(m.userId)} onChange={() => setInspectorIds(toggle(inspectorIds, m.userId))} />
+              <input
+                type="checkbox"
+                className="size-4"
+                checked={inspectorIds.includes(m.userId)}
+                onChange={() => setInspectorIds(toggle(inspectorIds, m.userId))}
+              />
               {m.name} ({m.email})
             </label>
           ))}

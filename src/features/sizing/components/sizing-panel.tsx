@@ -104,10 +104,9 @@ export function SizingPanel() {
   return (
     <div className="flex flex-col gap-4" data-testid="sizing-panel">
       <p className="max-w-prose text-sm">
-        Headroom chooses the smallest catalog size of each segment’s material that keeps every velocity within its limit and
-        every checked fixture at its minimum flow pressure plus the margin below, on the supply’s minimum pressure. Locked
-        segments keep their size. Nothing changes until you apply the answer to the draft. Check the sizes against the adopted
-        code and the pipe actually available; the AHJ and your judgement govern.
+        Headroom chooses the smallest catalog size of each segment’s material that keeps every velocity within its limit and every checked fixture at its
+        minimum flow pressure plus the margin below, on the supply’s minimum pressure. Locked segments keep their size. Nothing changes until you apply the
+        answer to the draft. Check the sizes against the adopted code and the pipe actually available; the AHJ and your judgement govern.
       </p>
       <p className="max-w-prose text-sm" data-testid="sizing-basis">
         <span className="font-semibold">Sizing basis: </span>
@@ -136,7 +135,9 @@ export function SizingPanel() {
           <div className="flex flex-col gap-3" data-testid="sizing-answer" data-feasible={result.feasible ? 'yes' : 'no'}>
             {result.feasible ? (
               <p data-testid="sizing-summary">
-                {changed.length === 0 ? 'Every segment already has its smallest passing size.' : `${changed.length} segment${changed.length === 1 ? '' : 's'} change size.`}{' '}
+                {changed.length === 0
+                  ? 'Every segment already has its smallest passing size.'
+                  : `${changed.length} segment${changed.length === 1 ? '' : 's'} change size.`}{' '}
                 Lowest fixture margin {ps(result.minMarginBeforePa)} → {ps(result.minMarginAfterPa)} {units.pressure}; pipe volume{' '}
                 {fmt(result.volumeBeforeM3 * 1000, 1)} → {fmt((result.volumeAfterM3 ?? 0) * 1000, 1)} L.
               </p>
@@ -154,18 +155,23 @@ export function SizingPanel() {
             {result.frictionBudget ? (
               <p className="text-sm text-ink-soft" data-testid="friction-budget">
                 Hand check (the model codes’ pressure-available-for-friction method, common practice): to {result.frictionBudget.label}, the supply’s{' '}
-                {p(result.frictionBudget.supplyPa, 1)} less devices {p(result.frictionBudget.devicesPa, 1)}, elevation {p(result.frictionBudget.elevationPa, 1)}, the
-                minimum {p(result.frictionBudget.requiredPa, 1)}
-                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa, 1)}` : ''} leaves {p(result.frictionBudget.availablePa, 1)}{' '}
-                {units.pressure} for friction over {fmt(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), 0)}{' '}
-                {units.length} of pipe and fittings:{' '}
+                {p(result.frictionBudget.supplyPa, 1)} less devices {p(result.frictionBudget.devicesPa, 1)}, elevation {p(result.frictionBudget.elevationPa, 1)}
+                , the minimum {p(result.frictionBudget.requiredPa, 1)}
+                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa, 1)}` : ''} leaves{' '}
+                {p(result.frictionBudget.availablePa, 1)} {units.pressure} for friction over{' '}
+                {fmt(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), 0)} {units.length} of pipe
+                and fittings:{' '}
                 {result.frictionBudget.perHundredFtPa === null
                   ? '—'
                   : `${fmt(fromSI('pressurePerLength', result.frictionBudget.availablePa / (result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM), sys), 2)} ${units.pressurePerLength}`}
                 .
               </p>
             ) : null}
-            {stale ? <p className="text-sm font-semibold text-caution" data-testid="sizing-stale">The draft changed since this answer: size again before applying.</p> : null}
+            {stale ? (
+              <p className="text-sm font-semibold text-caution" data-testid="sizing-stale">
+                The draft changed since this answer: size again before applying.
+              </p>
+            ) : null}
             {editable && result.feasible && !applied ? (
               <div>
                 <Button onClick={apply} disabled={stale || changed.length === 0}>
@@ -175,8 +181,12 @@ export function SizingPanel() {
             ) : null}
             {applied ? (
               <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="sizing-applied">
-                <p>Applied: {applied.rows.length} size{applied.rows.length === 1 ? '' : 's'} changed in the draft.</p>
-                <Button variant="secondary" onClick={undo}>Undo sizing</Button>
+                <p>
+                  Applied: {applied.rows.length} size{applied.rows.length === 1 ? '' : 's'} changed in the draft.
+                </p>
+                <Button variant="secondary" onClick={undo}>
+                  Undo sizing
+                </Button>
               </div>
             ) : null}
             <CheckboxField label="Show every segment" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} />
@@ -185,12 +195,26 @@ export function SizingPanel() {
                 <caption className="sr-only">Size of each segment before and after sizing, and what governs it</caption>
                 <thead>
                   <tr className="border-b-2 border-rule text-left">
-                    <th scope="col" className="py-1 pr-3">Segment</th>
-                    <th scope="col" className="py-1 pr-3">Size before → after</th>
-                    <th scope="col" className="py-1 pr-3">Governed by</th>
-                    <th scope="col" className="py-1 pr-3 text-right">Velocity ({units.velocity})</th>
-                    <th scope="col" className="py-1 pr-3">Worst fixture below: margin ({units.pressure})</th>
-                    {editable ? <th scope="col" className="py-1">Lock</th> : null}
+                    <th scope="col" className="py-1 pr-3">
+                      Segment
+                    </th>
+                    <th scope="col" className="py-1 pr-3">
+                      Size before → after
+                    </th>
+                    <th scope="col" className="py-1 pr-3">
+                      Governed by
+                    </th>
+                    <th scope="col" className="py-1 pr-3 text-right">
+                      Velocity ({units.velocity})
+                    </th>
+                    <th scope="col" className="py-1 pr-3">
+                      Worst fixture below: margin ({units.pressure})
+                    </th>
+                    {editable ? (
+                      <th scope="col" className="py-1">
+                        Lock
+                      </th>
+                    ) : null}
                   </tr>
                 </thead>
                 <tbody>
@@ -198,7 +222,9 @@ export function SizingPanel() {
                     const name = r.label || r.segmentId;
                     return (
                       <tr key={r.segmentId} className="border-b border-rule" data-testid={`sizing-row-${r.segmentId}`}>
-                        <th scope="row" className="py-1 pr-3 text-left font-normal">{name}</th>
+                        <th scope="row" className="py-1 pr-3 text-left font-normal">
+                          {name}
+                        </th>
                         <td className="py-1 pr-3" data-testid={`sizing-after-${r.segmentId}`}>
                           {r.before ?? '—'} → {r.after ?? '—'}
                           {r.before !== r.after ? <strong className="ml-1">changed</strong> : null}

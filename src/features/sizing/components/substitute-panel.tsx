@@ -30,7 +30,9 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
   useEffect(() => () => run.current?.cancel(), []);
   if (readOnlyReason !== null) return null;
 
-  const order = treeOrder(document.segments, document.source.nodeId).map(({ index }) => document.segments[index]).filter((s) => s && s.material && !s.custom);
+  const order = treeOrder(document.segments, document.source.nodeId)
+    .map(({ index }) => document.segments[index])
+    .filter((s) => s && s.material && !s.custom);
   const materialOptions = catalog.materials.map((m) => ({ value: m.id, label: m.label }));
   const toggle = (id: string, on: boolean) =>
     setPicked((prev) => {
@@ -80,23 +82,40 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
   };
 
   return (
-    <section className="mb-6 flex flex-col gap-3 rounded-lg border-2 border-rule bg-surface p-4" aria-label="Smallest sizes in another material" data-testid="substitute-panel">
+    <section
+      className="mb-6 flex flex-col gap-3 rounded-lg border-2 border-rule bg-surface p-4"
+      aria-label="Smallest sizes in another material"
+      data-testid="substitute-panel"
+    >
       <h3 className="text-lg font-semibold">Smallest sizes that still pass, in another material</h3>
       <p className="max-w-prose text-sm">
-        Tick the segments you want to run in another material. Headroom finds, for them only, the smallest sizes that keep every
-        velocity within its limit and every checked fixture at its minimum; every other segment stays as issued. Add the
-        fittings you will actually use (insert or press fittings) on the fittings step: they change the answer. The designer
-        of record reviews the field change.
+        Tick the segments you want to run in another material. Headroom finds, for them only, the smallest sizes that keep every velocity within its limit and
+        every checked fixture at its minimum; every other segment stays as issued. Add the fittings you will actually use (insert or press fittings) on the
+        fittings step: they change the answer. The designer of record reviews the field change.
       </p>
-      <SelectField label="Material to substitute" options={materialOptions} value={material} onChange={(e) => setMaterial(e.target.value)} className="max-w-md" />
+      <SelectField
+        label="Material to substitute"
+        options={materialOptions}
+        value={material}
+        onChange={(e) => setMaterial(e.target.value)}
+        className="max-w-md"
+      />
       <details>
         <summary className="cursor-pointer text-sm font-semibold">Segments to substitute ({picked.size} ticked)</summary>
         <ul className="mt-2 grid gap-1 text-sm sm:grid-cols-2">
           {order.map((s) => (
             <li key={s.id}>
               <label className="flex items-center gap-2">
-                <input type="checkbox" checked={picked.has(s.id)} onChange={(e) => toggle(s.id, e.target.checked)} aria-label={`Substitute ${s.label || s.id}`} />
-                {s.label || s.id} <span className="text-ink-soft">({materialLabel(s.material)}, {s.size})</span>
+                <input
+                  type="checkbox"
+                  checked={picked.has(s.id)}
+                  onChange={(e) => toggle(s.id, e.target.checked)}
+                  aria-label={`Substitute ${s.label || s.id}`}
+                />
+                {s.label || s.id}{' '}
+                <span className="text-ink-soft">
+                  ({materialLabel(s.material)}, {s.size})
+                </span>
               </label>
             </li>
           ))}
@@ -119,7 +138,14 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
               <ul className="text-sm">
                 {rows.map((r) => {
                   const was = issued.get(r.segmentId);
-                  const why = r.governing === 'velocity' ? 'velocity' : r.governing === 'smallest' ? 'smallest size' : typeof r.governing === 'object' ? `pressure at ${r.governing.fixtureLabel}` : r.governing;
+                  const why =
+                    r.governing === 'velocity'
+                      ? 'velocity'
+                      : r.governing === 'smallest'
+                        ? 'smallest size'
+                        : typeof r.governing === 'object'
+                          ? `pressure at ${r.governing.fixtureLabel}`
+                          : r.governing;
                   return (
                     <li key={r.segmentId} data-testid={`substitute-${r.segmentId}`}>
                       {r.label || r.segmentId}: {materialLabel(was?.material)} {was?.size ?? '—'} → {materialLabel(sub.material)} {r.after} ({why};{' '}
@@ -130,27 +156,40 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
               </ul>
             ) : (
               <Alert tone="fault" title="No sizes of this material pass">
-                Even at its largest sizes, the worst fixture stays {fmt(fromSI('pressure', result.shortfallPa, sys), 2)} {units.pressure} short. Nothing was changed.
+                Even at its largest sizes, the worst fixture stays {fmt(fromSI('pressure', result.shortfallPa, sys), 2)} {units.pressure} short. Nothing was
+                changed.
               </Alert>
             )}
             {sub.skipped.length ? (
               <p className="text-sm">
-                Left as issued: {sub.skipped.map((x) => `${issued.get(x.segmentId)?.label || x.segmentId} (${x.reason === 'locked' ? 'size locked by the designer' : 'custom pipe'})`).join('; ')}.
+                Left as issued:{' '}
+                {sub.skipped
+                  .map((x) => `${issued.get(x.segmentId)?.label || x.segmentId} (${x.reason === 'locked' ? 'size locked by the designer' : 'custom pipe'})`)
+                  .join('; ')}
+                .
               </p>
             ) : null}
             {result.feasible ? (
-              <p className="text-sm">Lowest fixture margin with these sizes: {p(result.minMarginAfterPa)} {units.pressure}.</p>
+              <p className="text-sm">
+                Lowest fixture margin with these sizes: {p(result.minMarginAfterPa)} {units.pressure}.
+              </p>
             ) : null}
             {stale ? <p className="text-sm font-semibold text-caution">The field change changed since this answer: find the sizes again.</p> : null}
             {result.feasible && !applied ? (
               <div>
-                <Button onClick={use} disabled={stale}>Use these sizes</Button>
+                <Button onClick={use} disabled={stale}>
+                  Use these sizes
+                </Button>
               </div>
             ) : null}
             {applied ? (
               <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="substitute-applied">
-                <p>Used: {applied.length} segment{applied.length === 1 ? '' : 's'} changed in this field change.</p>
-                <Button variant="secondary" onClick={undo}>Undo</Button>
+                <p>
+                  Used: {applied.length} segment{applied.length === 1 ? '' : 's'} changed in this field change.
+                </p>
+                <Button variant="secondary" onClick={undo}>
+                  Undo
+                </Button>
               </div>
             ) : null}
           </div>

@@ -63,7 +63,12 @@ export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: bo
 export type PipeBefore = { segmentId: string; material: string | undefined; size: string | undefined };
 
 /** Applies a contractor's substitution: each substituted segment takes the answer's material and size. */
-export function applySubstitution(doc: SystemDocument, material: string, rows: readonly SegmentSizing[], substituted: readonly string[]): { document: SystemDocument; before: PipeBefore[] } {
+export function applySubstitution(
+  doc: SystemDocument,
+  material: string,
+  rows: readonly SegmentSizing[],
+  substituted: readonly string[],
+): { document: SystemDocument; before: PipeBefore[] } {
   const chosen = new Map(rows.filter((r) => substituted.includes(r.segmentId) && r.after !== null).map((r) => [r.segmentId, r.after!]));
   const before: PipeBefore[] = [];
   const segments = doc.segments.map((s) => {

@@ -28,7 +28,12 @@ export function computeSizing({ document, options, substitute }: SizingRequest):
   try {
     if (substitute) {
       const r = smallestSubstitute(document, { ...substitute, marginPa: options.marginPa });
-      return { ok: true, result: r.sizing, substitute: { material: r.material, substituted: r.substituted, skipped: r.skipped }, millis: performance.now() - started };
+      return {
+        ok: true,
+        result: r.sizing,
+        substitute: { material: r.material, substituted: r.substituted, skipped: r.skipped },
+        millis: performance.now() - started,
+      };
     }
     const result = sizeSystem(document, options);
     return { ok: true, result, substitute: null, millis: performance.now() - started };

@@ -1,7 +1,6 @@
 /** The API addresses of the summaries feature, in one place (ids are encoded). */
 const e = encodeURIComponent;
-const revision = (projectId: string, systemId: string, revisionId: string) =>
-  `/api/projects/${e(projectId)}/systems/${e(systemId)}/revisions/${e(revisionId)}`;
+const revision = (projectId: string, systemId: string, revisionId: string) => `/api/projects/${e(projectId)}/systems/${e(systemId)}/revisions/${e(revisionId)}`;
 
 export const summaryUrls = {
   summary: (projectId: string, systemId: string, revisionId: string) => `${revision(projectId, systemId, revisionId)}/summary`,

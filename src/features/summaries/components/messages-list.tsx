@@ -13,10 +13,17 @@ const STATE: Record<MessageInfo['status'], { word: string; tone: 'neutral' | 'st
   failed: { word: 'Failed', tone: 'fault' },
 };
 
-const KIND: Record<MessageInfo['kind'], string> = { summary: 'Summary', invitation: 'Invitation', 'password-reset': 'Password reset', 'field-change': 'Field change', 'review-decision': 'Review decision' };
+const KIND: Record<MessageInfo['kind'], string> = {
+  summary: 'Summary',
+  invitation: 'Invitation',
+  'password-reset': 'Password reset',
+  'field-change': 'Field change',
+  'review-decision': 'Review decision',
+};
 
 function StateDetail({ message }: { message: MessageInfo }) {
-  if (message.status === 'sent') return <>{message.sentAt ? `Delivered to the mail server ${formatDateTime(message.sentAt)}` : 'Delivered to the mail server'}</>;
+  if (message.status === 'sent')
+    return <>{message.sentAt ? `Delivered to the mail server ${formatDateTime(message.sentAt)}` : 'Delivered to the mail server'}</>;
   if (message.status === 'failed') {
     return (
       <>
@@ -24,7 +31,12 @@ function StateDetail({ message }: { message: MessageInfo }) {
       </>
     );
   }
-  if (message.status === 'sending') return <>Being handed to the mail server (attempt {message.attempts + 1} of {message.maxAttempts})</>;
+  if (message.status === 'sending')
+    return (
+      <>
+        Being handed to the mail server (attempt {message.attempts + 1} of {message.maxAttempts})
+      </>
+    );
   return (
     <>
       {message.attempts === 0 ? 'Waiting for its first attempt' : `Attempt ${message.attempts} of ${message.maxAttempts} failed; trying again`}
@@ -38,10 +50,22 @@ function RetryButton({ projectId, message }: { projectId: string; message: Messa
   const retry = useRetryMessage();
   return (
     <div className="flex flex-col gap-1">
-      <Button variant="secondary" onClick={() => retry.mutate({ projectId, messageId: message.id })} pending={retry.isPending} pendingLabel="Queueing…" aria-label={`Send again to ${message.toAddress}`}>
+      <Button
+        variant="secondary"
+        onClick={() => retry.mutate({ projectId, messageId: message.id })}
+        pending={retry.isPending}
+        pendingLabel="Queueing…"
+        aria-label={`Send again to ${message.toAddress}`}
+      >
         Send again
       </Button>
-      <div aria-live="assertive">{retry.isError ? <Alert tone="fault" title="Not queued again">{errorMessage(retry.error)}</Alert> : null}</div>
+      <div aria-live="assertive">
+        {retry.isError ? (
+          <Alert tone="fault" title="Not queued again">
+            {errorMessage(retry.error)}
+          </Alert>
+        ) : null}
+      </div>
     </div>
   );
 }
@@ -56,11 +80,23 @@ export function MessagesList({ projectId, messages, canRetry }: { projectId: str
         <caption className="sr-only">E-mail sent with this summary and the state of each</caption>
         <thead>
           <tr className="border-b-2 border-rule text-left">
-            <th scope="col" className="py-1 pr-3">To</th>
-            <th scope="col" className="py-1 pr-3">Message</th>
-            <th scope="col" className="py-1 pr-3">State</th>
-            <th scope="col" className="py-1 pr-3">Details</th>
-            {canRetry ? <th scope="col" className="py-1"><span className="sr-only">Actions</span></th> : null}
+            <th scope="col" className="py-1 pr-3">
+              To
+            </th>
+            <th scope="col" className="py-1 pr-3">
+              Message
+            </th>
+            <th scope="col" className="py-1 pr-3">
+              State
+            </th>
+            <th scope="col" className="py-1 pr-3">
+              Details
+            </th>
+            {canRetry ? (
+              <th scope="col" className="py-1">
+                <span className="sr-only">Actions</span>
+              </th>
+            ) : null}
           </tr>
         </thead>
         <tbody aria-live="polite">

@@ -70,10 +70,18 @@ export function ProjectAuditPanel({ projectId }: { projectId: string }) {
             <caption className="sr-only">Audit log of this project, newest first</caption>
             <thead>
               <tr className="border-b-2 border-rule text-left">
-                <th scope="col" className="py-1 pr-3">When</th>
-                <th scope="col" className="py-1 pr-3">Who</th>
-                <th scope="col" className="py-1 pr-3">What</th>
-                <th scope="col" className="py-1">Details</th>
+                <th scope="col" className="py-1 pr-3">
+                  When
+                </th>
+                <th scope="col" className="py-1 pr-3">
+                  Who
+                </th>
+                <th scope="col" className="py-1 pr-3">
+                  What
+                </th>
+                <th scope="col" className="py-1">
+                  Details
+                </th>
               </tr>
             </thead>
             <tbody>

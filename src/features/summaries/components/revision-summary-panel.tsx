@@ -46,7 +46,9 @@ function Messages({ ids, canSend, revisionNumber }: { ids: Ids; canSend: boolean
           <SendSummaryDialog
             ids={ids}
             revisionNumber={revisionNumber}
-            onSent={(result) => setSent(`The summary is queued for ${result.messages.map((m) => m.toAddress).join(', ')}. The state of each message follows below.`)}
+            onSent={(result) =>
+              setSent(`The summary is queued for ${result.messages.map((m) => m.toAddress).join(', ')}. The state of each message follows below.`)
+            }
           />
         ) : null
       }
@@ -65,7 +67,17 @@ function Messages({ ids, canSend, revisionNumber }: { ids: Ids; canSend: boolean
   );
 }
 
-function Reviews({ ids, catalog, myRole, revisionStatus }: { ids: Ids; catalog: ItemCatalog | undefined; myRole: ProjectRole | null; revisionStatus: RevisionStatus }) {
+function Reviews({
+  ids,
+  catalog,
+  myRole,
+  revisionStatus,
+}: {
+  ids: Ids;
+  catalog: ItemCatalog | undefined;
+  myRole: ProjectRole | null;
+  revisionStatus: RevisionStatus;
+}) {
   const user = useCurrentUser();
   const reviews = useRevisionReviews(ids.projectId, ids.systemId, ids.revisionId);
   const [decided, setDecided] = useState<string | null>(null);
@@ -75,15 +87,17 @@ function Reviews({ ids, catalog, myRole, revisionStatus }: { ids: Ids; catalog: 
   );
   const others = (reviews.data ?? []).filter((r) => r !== mine);
   const onDecided = (r: Review) =>
-    setDecided(`Revision ${r.revisionNumber} ${r.status === 'accepted' ? 'accepted' : 'returned with comments'}. The designer sees the outcome on the revision and on the project page.`);
+    setDecided(
+      `Revision ${r.revisionNumber} ${r.status === 'accepted' ? 'accepted' : 'returned with comments'}. The designer sees the outcome on the revision and on the project page.`,
+    );
 
   return (
     <>
       {mine ? (
         <Section title="Your review" headingLevel={3}>
           <p className="mb-4 max-w-prose text-sm text-ink-soft">
-            Sent to you by {mine.sentBy ?? 'a designer'}. Read the result and the PDF, then accept the summary or return it with
-            comments. Comments on an item point the designer at a segment, a checked fixture, a device, a node or an input.
+            Sent to you by {mine.sentBy ?? 'a designer'}. Read the result and the PDF, then accept the summary or return it with comments. Comments on an item
+            point the designer at a segment, a checked fixture, a device, a node or an input.
           </p>
           {catalog ? <ReviewForm review={mine} catalog={catalog} onDecided={onDecided} /> : <Loading label="Loading the revision’s items…" />}
         </Section>

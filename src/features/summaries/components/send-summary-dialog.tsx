@@ -22,7 +22,17 @@ const EMPTY: SendSummaryInput = { inspectorIds: [], emails: [], message: '' };
  * The send form: the project's inspectors to tick, outside addresses to add (each becomes an
  * inspector of the project and gets an invitation in the same e-mail), and a note.
  */
-function SendSummaryForm({ ids, revisionNumber, onSent, onCancel }: { ids: Ids; revisionNumber: number; onSent: (result: SendSummaryResponse) => void; onCancel: () => void }) {
+function SendSummaryForm({
+  ids,
+  revisionNumber,
+  onSent,
+  onCancel,
+}: {
+  ids: Ids;
+  revisionNumber: number;
+  onSent: (result: SendSummaryResponse) => void;
+  onCancel: () => void;
+}) {
   const members = useMembers(ids.projectId);
   const send = useSendSummary();
   const form = useForm<SendSummaryInput, unknown, Values>({ resolver: zodResolver(sendSummaryInputSchema), defaultValues: EMPTY });
@@ -50,14 +60,20 @@ function SendSummaryForm({ ids, revisionNumber, onSent, onCancel }: { ids: Ids; 
     );
   });
 
-  const unnamedServerError = send.isError && !(isApiError(send.error) && send.error.code === 'VALIDATION_FAILED' && Object.keys(send.error.fields).every((f) => f.startsWith('emails.')));
+  const unnamedServerError =
+    send.isError &&
+    !(isApiError(send.error) && send.error.code === 'VALIDATION_FAILED' && Object.keys(send.error.fields).every((f) => f.startsWith('emails.')));
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-label={`Send revision ${revisionNumber} to inspectors`}>
       <fieldset className="flex flex-col gap-2" aria-describedby={errors.inspectorIds ? 'send-recipients-error' : undefined}>
         <legend className="mb-1 text-sm font-semibold">Inspectors of this project</legend>
         {members.isPending ? <Loading label="Loading the project's inspectors…" /> : null}
-        {members.isError ? <Alert tone="fault" title="The members could not be loaded">{errorMessage(members.error)}</Alert> : null}
+        {members.isError ? (
+          <Alert tone="fault" title="The members could not be loaded">
+            {errorMessage(members.error)}
+          </Alert>
+        ) : null}
         {members.data && inspectors.length === 0 ? (
           <p className="text-sm text-ink-soft">No inspector is a member of this project yet. Add an outside address below.</p>
         ) : null}
@@ -75,12 +91,18 @@ function SendSummaryForm({ ids, revisionNumber, onSent, onCancel }: { ids: Ids; 
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-sm font-semibold">Outside addresses</legend>
         <p className="text-sm text-ink-soft">
-          Someone without a Headroom account, or not yet in this project: they become an inspector of this project, and the
-          e-mail carries an invitation to set a password.
+          Someone without a Headroom account, or not yet in this project: they become an inspector of this project, and the e-mail carries an invitation to set
+          a password.
         </p>
         {emails.fields.map((field, index) => (
           <div key={field.id} className="grid items-start gap-2 sm:grid-cols-[1fr_auto]">
-            <TextField label={`Outside address ${index + 1}`} type="email" autoComplete="off" error={errors.emails?.[index]?.address?.message} {...form.register(`emails.${index}.address`)} />
+            <TextField
+              label={`Outside address ${index + 1}`}
+              type="email"
+              autoComplete="off"
+              error={errors.emails?.[index]?.address?.message}
+              {...form.register(`emails.${index}.address`)}
+            />
             <Button variant="quiet" className="sm:mt-6" onClick={() => emails.remove(index)}>
               Remove address {index + 1}
             </Button>
@@ -94,7 +116,12 @@ function SendSummaryForm({ ids, revisionNumber, onSent, onCancel }: { ids: Ids; 
         </div>
       </fieldset>
 
-      <TextAreaField label="Note to the inspectors (optional)" hint="Printed in the e-mail above the link and the attached PDF." error={errors.message?.message} {...form.register('message')} />
+      <TextAreaField
+        label="Note to the inspectors (optional)"
+        hint="Printed in the e-mail above the link and the attached PDF."
+        error={errors.message?.message}
+        {...form.register('message')}
+      />
 
       <div aria-live="assertive">
         {unnamedServerError ? (
@@ -153,8 +180,7 @@ export function SendSummaryDialog({ ids, revisionNumber, onSent }: { ids: Ids; r
               Send revision {revisionNumber} to inspectors
             </h2>
             <p className="mb-4 text-sm text-ink-soft">
-              Each recipient gets an e-mail with the summary PDF attached and a link to the read-only result, and the revision
-              appears in their review inbox.
+              Each recipient gets an e-mail with the summary PDF attached and a link to the read-only result, and the revision appears in their review inbox.
             </p>
             <SendSummaryForm
               ids={ids}

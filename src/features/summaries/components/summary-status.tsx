@@ -91,7 +91,13 @@ function Failed({ summary, ids, canRetry }: { summary: SummaryInfo; ids: { proje
         {summary.error ?? 'No reason was given.'}
         {canRetry ? null : ' A designer of the project can make it again.'}
       </Alert>
-      <div aria-live="assertive">{retry.isError ? <Alert tone="fault" title="Not made again">{errorMessage(retry.error)}</Alert> : null}</div>
+      <div aria-live="assertive">
+        {retry.isError ? (
+          <Alert tone="fault" title="Not made again">
+            {errorMessage(retry.error)}
+          </Alert>
+        ) : null}
+      </div>
     </div>
   );
 }

@@ -38,7 +38,9 @@ export function RevisionSummaryPage() {
         title={`${system.data.system.name}: summary of revision ${r.number}`}
         subtitle={
           <span className="flex flex-wrap items-center gap-2">
-            <Badge tone={STATUS_TONE[r.status]}>Revision {r.number} · {r.status}</Badge>
+            <Badge tone={STATUS_TONE[r.status]}>
+              Revision {r.number} · {r.status}
+            </Badge>
             <Link to={resultViewPath(projectId, systemId, revisionId)}>Read the result</Link>
           </span>
         }

@@ -67,8 +67,7 @@ export async function getCatalog(signal?: AbortSignal): Promise<Catalog> {
   return indexCatalog(entries);
 }
 
-export const catalogQueryOptions = () =>
-  queryOptions({ queryKey: systemKeys.catalog(), queryFn: ({ signal }) => getCatalog(signal), staleTime: Infinity });
+export const catalogQueryOptions = () => queryOptions({ queryKey: systemKeys.catalog(), queryFn: ({ signal }) => getCatalog(signal), staleTime: Infinity });
 
 export function useCatalog() {
   return useQuery(catalogQueryOptions());

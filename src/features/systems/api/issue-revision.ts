@@ -36,7 +36,13 @@ export function incompleteReasonsOf(error: unknown): string[] {
   const reasons = error.raw.reasons ?? (error.raw.details as { reasons?: unknown } | undefined)?.reasons;
   if (!Array.isArray(reasons)) return [];
   return reasons
-    .map((r: unknown) => (typeof r === 'string' ? r : r && typeof r === 'object' && typeof (r as { message?: unknown }).message === 'string' ? (r as { message: string }).message : null))
+    .map((r: unknown) =>
+      typeof r === 'string'
+        ? r
+        : r && typeof r === 'object' && typeof (r as { message?: unknown }).message === 'string'
+          ? (r as { message: string }).message
+          : null,
+    )
     .filter((m): m is string => m !== null);
 }
 

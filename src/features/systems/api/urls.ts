@@ -7,8 +7,7 @@ export const systemUrls = {
   revision: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revisions(projectId, systemId)}/${e(revisionId)}`,
   document: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/document`,
   issue: (projectId: string, systemId: string, revisionId: string) => `${systemUrls.revision(projectId, systemId, revisionId)}/issue`,
-  compare: (projectId: string, systemId: string, a: string, b: string) =>
-    `${systemUrls.detail(projectId, systemId)}/compare?a=${e(a)}&b=${e(b)}`,
+  compare: (projectId: string, systemId: string, a: string, b: string) => `${systemUrls.detail(projectId, systemId)}/compare?a=${e(a)}&b=${e(b)}`,
   /** the result for the engineer's report: one table as CSV, or every table as a spreadsheet workbook */
   exportCsv: (projectId: string, systemId: string, revisionId: string, table: 'segments' | 'fixtures' | 'ledgers') =>
     `${systemUrls.revision(projectId, systemId, revisionId)}/export/${table}.csv`,

@@ -77,9 +77,15 @@ export function ImportSystemForm({ projectId }: { projectId: string }) {
       {document ? (
         <>
           <p className="text-sm">
-            {document.segments.length} segments, {document.nodes.length} nodes, {document.devices.length} devices · {document.service} water · units {document.unitSystem}
+            {document.segments.length} segments, {document.nodes.length} nodes, {document.devices.length} devices · {document.service} water · units{' '}
+            {document.unitSystem}
           </p>
-          <TextField label="Name of the imported system" value={name} onChange={(ev) => setName(ev.target.value)} error={name.trim() === '' ? 'Enter a system name' : undefined} />
+          <TextField
+            label="Name of the imported system"
+            value={name}
+            onChange={(ev) => setName(ev.target.value)}
+            error={name.trim() === '' ? 'Enter a system name' : undefined}
+          />
           <div>
             <Button type="submit" pending={create.isPending} pendingLabel="Importing…" disabled={name.trim() === ''}>
               Import system

@@ -48,7 +48,14 @@ export function NewSystemForm({ projectId, unitSystem }: { projectId: string; un
       <div className="grid gap-4 md:grid-cols-3">
         <TextField label="System name" autoComplete="off" error={form.formState.errors.name?.message} {...form.register('name')} />
         <SelectField label="Service" options={SERVICE_OPTIONS} {...form.register('service')} />
-        <TextField label={`Water temperature (${unit})`} type="number" step="any" hint={`Empty: the usual ${usual}.`} error={form.formState.errors.waterTemperature?.message} {...form.register('waterTemperature')} />
+        <TextField
+          label={`Water temperature (${unit})`}
+          type="number"
+          step="any"
+          hint={`Empty: the usual ${usual}.`}
+          error={form.formState.errors.waterTemperature?.message}
+          {...form.register('waterTemperature')}
+        />
       </div>
       <div>
         <Button type="submit" pending={create.isPending} pendingLabel="Creating…">

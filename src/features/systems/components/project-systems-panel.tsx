@@ -25,7 +25,10 @@ function SystemRow({ projectId, system, myRole }: { projectId: string; system: S
   const latest = system.latest;
   const v = latest?.verdict;
   return (
-    <li className="flex flex-wrap items-center justify-between gap-3 rounded-md border-2 border-rule bg-surface px-4 py-3" data-testid={`system-${system.name}`}>
+    <li
+      className="flex flex-wrap items-center justify-between gap-3 rounded-md border-2 border-rule bg-surface px-4 py-3"
+      data-testid={`system-${system.name}`}
+    >
       <div>
         <Link to={walkPaths.system.getHref(projectId, system.id)} className="text-lg font-semibold">
           {system.name}
@@ -62,10 +65,18 @@ export function ProjectSystemsPanel({ projectId, canEdit }: { projectId: string;
       actions={
         canEdit ? (
           <>
-            <Button variant={adding === 'new' ? 'primary' : 'secondary'} onClick={() => setAdding(adding === 'new' ? null : 'new')} aria-expanded={adding === 'new'}>
+            <Button
+              variant={adding === 'new' ? 'primary' : 'secondary'}
+              onClick={() => setAdding(adding === 'new' ? null : 'new')}
+              aria-expanded={adding === 'new'}
+            >
               New system
             </Button>
-            <Button variant={adding === 'import' ? 'primary' : 'secondary'} onClick={() => setAdding(adding === 'import' ? null : 'import')} aria-expanded={adding === 'import'}>
+            <Button
+              variant={adding === 'import' ? 'primary' : 'secondary'}
+              onClick={() => setAdding(adding === 'import' ? null : 'import')}
+              aria-expanded={adding === 'import'}
+            >
               Import a system (JSON)
             </Button>
           </>

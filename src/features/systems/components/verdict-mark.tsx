@@ -59,7 +59,14 @@ export const VERDICT_COLOUR: Record<Verdict, string> = {
  */
 export function VerdictShape({ verdict, size = 16 }: { verdict: Verdict; size?: number }) {
   return (
-    <svg width={size} height={size} viewBox="0 0 16 16" aria-hidden="true" className={cx('inline-block shrink-0', VERDICT_TEXT_CLASS[verdict])} data-shape={verdict}>
+    <svg
+      width={size}
+      height={size}
+      viewBox="0 0 16 16"
+      aria-hidden="true"
+      className={cx('inline-block shrink-0', VERDICT_TEXT_CLASS[verdict])}
+      data-shape={verdict}
+    >
       <VerdictGlyph verdict={verdict} />
     </svg>
   );

@@ -6,7 +6,8 @@ import type { EditPolicy } from '../policy';
 import type { DocChange } from './tree-editor';
 
 const CONTROL = 'rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm disabled:bg-paper-deep';
-const ACTION = 'rounded-md border-2 border-standpipe bg-surface px-2 py-0.5 text-sm font-semibold text-standpipe disabled:cursor-not-allowed disabled:opacity-60';
+const ACTION =
+  'rounded-md border-2 border-standpipe bg-surface px-2 py-0.5 text-sm font-semibold text-standpipe disabled:cursor-not-allowed disabled:opacity-60';
 
 /** A quick start for a segment: two standard 90° elbows and a tee, flow through the run (common practice, not a rule). */
 export const USUAL_SET: readonly Fitting[] = [
@@ -42,17 +43,35 @@ export function BulkBar(p: {
   const countOk = Number.isInteger(count) && count >= 1 && count <= 999;
   const { locked } = p.policy;
   return (
-    <section aria-label="Edit the selection" className="flex flex-wrap items-end gap-3 rounded-md border-2 border-standpipe bg-standpipe-soft/30 p-2 text-sm" data-testid="bulk-bar">
+    <section
+      aria-label="Edit the selection"
+      className="flex flex-wrap items-end gap-3 rounded-md border-2 border-standpipe bg-standpipe-soft/30 p-2 text-sm"
+      data-testid="bulk-bar"
+    >
       <p className="font-semibold" data-testid="bulk-count">
         {ids.length} selected
-        <button type="button" className="ml-2 font-normal text-standpipe underline" onClick={p.onClear}>Clear</button>
+        <button type="button" className="ml-2 font-normal text-standpipe underline" onClick={p.onClear}>
+          Clear
+        </button>
       </p>
       <div className="flex items-end gap-1" title={locked.material ?? undefined}>
         <label className="flex flex-col text-xs font-semibold">
           Material for the selection
-          <select className={CONTROL} value={material} disabled={locked.material !== null} aria-description={locked.material ?? undefined} onChange={(ev) => setMaterial(ev.target.value)}>
+          <select
+            className={CONTROL}
+            value={material}
+            disabled={locked.material !== null}
+            aria-description={locked.material ?? undefined}
+            onChange={(ev) => setMaterial(ev.target.value)}
+          >
             <option value="">Choose…</option>
-            {p.materialOptions.filter((o) => o.value !== '').map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+            {p.materialOptions
+              .filter((o) => o.value !== '')
+              .map((o) => (
+                <option key={o.value} value={o.value}>
+                  {o.label}
+                </option>
+              ))}
           </select>
         </label>
         <button
@@ -70,8 +89,18 @@ export function BulkBar(p: {
       <div className="flex items-end gap-1" title={locked.size ?? undefined}>
         <label className="flex flex-col text-xs font-semibold">
           Size for the selection
-          <select className={CONTROL} value={size} disabled={locked.size !== null || sizeMaterial === ''} aria-description={locked.size ?? undefined} onChange={(ev) => setSize(ev.target.value)}>
-            {(sizeMaterial ? p.sizeOptionsOf(sizeMaterial) : [{ value: '', label: 'Choose one material first' }]).map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+          <select
+            className={CONTROL}
+            value={size}
+            disabled={locked.size !== null || sizeMaterial === ''}
+            aria-description={locked.size ?? undefined}
+            onChange={(ev) => setSize(ev.target.value)}
+          >
+            {(sizeMaterial ? p.sizeOptionsOf(sizeMaterial) : [{ value: '', label: 'Choose one material first' }]).map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         </label>
         <button
@@ -90,12 +119,24 @@ export function BulkBar(p: {
         <label className="flex flex-col text-xs font-semibold">
           Fitting
           <select className={CONTROL} value={fittingType} disabled={locked.fittings !== null} onChange={(ev) => setFittingType(ev.target.value)}>
-            {p.catalog.fittingTypes.map((f) => <option key={f.id} value={f.id}>{f.label}</option>)}
+            {p.catalog.fittingTypes.map((f) => (
+              <option key={f.id} value={f.id}>
+                {f.label}
+              </option>
+            ))}
           </select>
         </label>
         <label className="flex flex-col text-xs font-semibold">
           Count
-          <input className={`${CONTROL} w-14`} type="text" inputMode="numeric" value={fittingCount} disabled={locked.fittings !== null} aria-invalid={countOk ? undefined : true} onChange={(ev) => setFittingCount(ev.target.value)} />
+          <input
+            className={`${CONTROL} w-14`}
+            type="text"
+            inputMode="numeric"
+            value={fittingCount}
+            disabled={locked.fittings !== null}
+            aria-invalid={countOk ? undefined : true}
+            onChange={(ev) => setFittingCount(ev.target.value)}
+          />
         </label>
         <button
           type="button"
@@ -120,8 +161,16 @@ export function BulkBar(p: {
           Replace fittings with the usual set (2 elbows, 1 tee run)
         </button>
       </div>
-      {!countOk ? <p className="text-xs text-fault" role="alert">Count: a whole number from 1 to 999</p> : null}
-      {note ? <p className="text-xs text-ink-soft" aria-live="polite" data-testid="bulk-note">{note}</p> : null}
+      {!countOk ? (
+        <p className="text-xs text-fault" role="alert">
+          Count: a whole number from 1 to 999
+        </p>
+      ) : null}
+      {note ? (
+        <p className="text-xs text-ink-soft" aria-live="polite" data-testid="bulk-note">
+          {note}
+        </p>
+      ) : null}
     </section>
   );
 }

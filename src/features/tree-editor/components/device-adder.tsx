@@ -5,7 +5,21 @@ import { deviceFromTemplate } from '../model';
 import type { DocChange } from './tree-editor';
 
 /** A device added on a segment from its row: a catalog template's curve at the segment's inlet (finished at the devices step). */
-export function DeviceAdder({ segmentId, segmentName, doc, catalog, locked, onChange }: { segmentId: string; segmentName: string; doc: SystemDocument; catalog: Catalog; locked: string | null; onChange: (change: DocChange) => void }) {
+export function DeviceAdder({
+  segmentId,
+  segmentName,
+  doc,
+  catalog,
+  locked,
+  onChange,
+}: {
+  segmentId: string;
+  segmentName: string;
+  doc: SystemDocument;
+  catalog: Catalog;
+  locked: string | null;
+  onChange: (change: DocChange) => void;
+}) {
   const templates = catalog.deviceTemplates.filter((t) => deviceFromTemplate(doc, t, segmentId) !== null);
   const [template, setTemplate] = useState(templates[0]?.id ?? '');
   const [added, setAdded] = useState<string | null>(null);
@@ -16,8 +30,17 @@ export function DeviceAdder({ segmentId, segmentName, doc, catalog, locked, onCh
     <div className="flex flex-wrap items-end gap-2 text-sm" title={locked ?? undefined}>
       <label className="flex flex-col text-xs font-semibold">
         Device on {segmentName}
-        <select className="rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm" value={template} disabled={locked !== null} onChange={(ev) => setTemplate(ev.target.value)}>
-          {templates.map((x) => <option key={x.id} value={x.id}>{x.label}</option>)}
+        <select
+          className="rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm"
+          value={template}
+          disabled={locked !== null}
+          onChange={(ev) => setTemplate(ev.target.value)}
+        >
+          {templates.map((x) => (
+            <option key={x.id} value={x.id}>
+              {x.label}
+            </option>
+          ))}
         </select>
       </label>
       <button
@@ -37,7 +60,11 @@ export function DeviceAdder({ segmentId, segmentName, doc, catalog, locked, onCh
       <span className="text-xs text-ink-muted" data-testid={`devices-on-${segmentId}`}>
         {here.length ? `On this segment: ${here.map((d) => d.label).join(', ')}` : 'No device on this segment'}
       </span>
-      {added ? <span className="text-xs" aria-live="polite">{added}</span> : null}
+      {added ? (
+        <span className="text-xs" aria-live="polite">
+          {added}
+        </span>
+      ) : null}
     </div>
   );
 }

@@ -4,7 +4,8 @@ import { numberOrUndefined, RefusedNumber } from '../../walk/lib/form-values';
 import { rangeMessage } from '../../walk/lib/limits';
 import type { LimitKind } from '../../walk/lib/limits';
 
-const CELL = 'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink tabular-nums aria-[invalid=true]:border-fault read-only:border-rule read-only:bg-paper-deep disabled:bg-paper-deep';
+const CELL =
+  'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink tabular-nums aria-[invalid=true]:border-fault read-only:border-rule read-only:bg-paper-deep disabled:bg-paper-deep';
 
 const show = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? '' : String(v));
 
@@ -75,7 +76,10 @@ export const NumberCell = memo(function NumberCell(p: {
         onChange={(ev) => change(ev.target.value)}
       />
       {error ? (
-        <span className="absolute left-0 top-full z-10 mt-0.5 w-max max-w-64 rounded border border-fault bg-surface px-1 text-xs font-medium text-fault shadow" role="alert">
+        <span
+          className="absolute left-0 top-full z-10 mt-0.5 w-max max-w-64 rounded border border-fault bg-surface px-1 text-xs font-medium text-fault shadow"
+          role="alert"
+        >
           <span aria-hidden="true">⚠ </span>
           {error}
         </span>

@@ -55,7 +55,8 @@ export interface TreeEditorProps {
   label: string;
 }
 
-const CELL = 'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink aria-[invalid=true]:border-fault disabled:bg-paper-deep';
+const CELL =
+  'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink aria-[invalid=true]:border-fault disabled:bg-paper-deep';
 
 /** The columns, in order: their header, width and whether the keyboard stops at them. */
 function columnsOf(hasFloors: boolean, units: (typeof UNIT_LABELS)[UnitSystem]) {
@@ -167,7 +168,15 @@ const Row = memo(function Row(p: RowProps) {
     >
       <div className="grid items-start gap-x-2 py-1 text-sm" style={{ gridTemplateColumns: p.grid }} onClick={(ev) => p.onRowClick(id, ev)}>
         <div role="gridcell" className="pt-1">
-          <input type="checkbox" aria-label={`Select ${p.name}`} checked={p.selected} data-col={0} data-row={p.line} onChange={() => p.onToggleSelect(id)} onClick={(ev) => ev.stopPropagation()} />
+          <input
+            type="checkbox"
+            aria-label={`Select ${p.name}`}
+            checked={p.selected}
+            data-col={0}
+            data-row={p.line}
+            onChange={() => p.onToggleSelect(id)}
+            onClick={(ev) => ev.stopPropagation()}
+          />
         </div>
         <div role="gridcell" className="flex min-w-0 items-start gap-1" style={{ paddingLeft: `${Math.min(p.depth - 1, 12) * 0.75}rem` }}>
           {p.hasChildren ? (
@@ -186,10 +195,22 @@ const Row = memo(function Row(p: RowProps) {
           ) : (
             <span className="w-5 shrink-0" aria-hidden="true" />
           )}
-          <button type="button" className="min-w-0 truncate text-left font-semibold" title={p.name} data-col={1} data-row={p.line} aria-label={`Open ${p.name}`} aria-pressed={p.active}>
+          <button
+            type="button"
+            className="min-w-0 truncate text-left font-semibold"
+            title={p.name}
+            data-col={1}
+            data-row={p.line}
+            aria-label={`Open ${p.name}`}
+            aria-pressed={p.active}
+          >
             {p.name}
           </button>
-          {p.collapsed && p.hiddenBelow > 0 ? <span className="shrink-0 text-xs text-ink-muted" data-testid="hidden-count">+{p.hiddenBelow}</span> : null}
+          {p.collapsed && p.hiddenBelow > 0 ? (
+            <span className="shrink-0 text-xs text-ink-muted" data-testid="hidden-count">
+              +{p.hiddenBelow}
+            </span>
+          ) : null}
         </div>
         <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs text-ink-soft" title={p.issuedText ? `${p.ends}; issued: ${p.issuedText}` : p.ends}>
           {p.changed ? <span className="mr-1 rounded border border-caution px-1 font-semibold text-ink">changed</span> : null}
@@ -197,34 +218,106 @@ const Row = memo(function Row(p: RowProps) {
           {p.issuedText ? <span className="text-ink-muted"> · Issued: {p.issuedText}</span> : null}
         </div>
         <div role="gridcell">
-          <select aria-label={`${p.name} material`} className={CELL} value={p.materialValue} disabled={p.lockMaterial !== null} title={p.lockMaterial ?? undefined} aria-description={p.lockMaterial ?? undefined} data-col={2} data-row={p.line} onChange={(ev) => p.onMaterial(id, ev.target.value)}>
-            {materialOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+          <select
+            aria-label={`${p.name} material`}
+            className={CELL}
+            value={p.materialValue}
+            disabled={p.lockMaterial !== null}
+            title={p.lockMaterial ?? undefined}
+            aria-description={p.lockMaterial ?? undefined}
+            data-col={2}
+            data-row={p.line}
+            onChange={(ev) => p.onMaterial(id, ev.target.value)}
+          >
+            {materialOptions.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         </div>
         <div role="gridcell">
-          <select aria-label={`${p.name} size`} className={CELL} value={p.size} disabled={p.lockSize !== null} title={p.lockSize ?? undefined} aria-description={p.lockSize ?? undefined} data-col={3} data-row={p.line} onChange={(ev) => p.onSize(id, ev.target.value)}>
-            {sizeOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+          <select
+            aria-label={`${p.name} size`}
+            className={CELL}
+            value={p.size}
+            disabled={p.lockSize !== null}
+            title={p.lockSize ?? undefined}
+            aria-description={p.lockSize ?? undefined}
+            data-col={3}
+            data-row={p.line}
+            onChange={(ev) => p.onSize(id, ev.target.value)}
+          >
+            {sizeOptions.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
           </select>
         </div>
         <div role="gridcell">
-          <NumberCell label={`${p.name} length (${p.lengthUnit})`} value={p.length} kind="length" system={p.system} optional={false} locked={p.lockLength} cellKey={`${id}\u0000length`} col={4} row={p.line} onCommit={p.onNumber} onHeld={p.onHeld} />
+          <NumberCell
+            label={`${p.name} length (${p.lengthUnit})`}
+            value={p.length}
+            kind="length"
+            system={p.system}
+            optional={false}
+            locked={p.lockLength}
+            cellKey={`${id}\u0000length`}
+            col={4}
+            row={p.line}
+            onCommit={p.onNumber}
+            onHeld={p.onHeld}
+          />
         </div>
         <div role="gridcell">
-          <NumberCell label={`${p.name} rise (${p.lengthUnit})`} value={p.rise} kind="rise" system={p.system} optional locked={p.riseLocked} cellKey={`${id}\u0000rise`} col={5} row={p.line} onCommit={p.onNumber} onHeld={p.onHeld} />
+          <NumberCell
+            label={`${p.name} rise (${p.lengthUnit})`}
+            value={p.rise}
+            kind="rise"
+            system={p.system}
+            optional
+            locked={p.riseLocked}
+            cellKey={`${id}\u0000rise`}
+            col={5}
+            row={p.line}
+            onCommit={p.onNumber}
+            onHeld={p.onHeld}
+          />
         </div>
-        {p.hasFloors ? <div role="gridcell" className="pt-0.5">{p.floor ?? '—'}</div> : null}
-        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs" title={p.fittings} data-testid={`${p.prefix}-fittings-${id}`}>{p.fittings}</div>
-        <div role="gridcell" className="pt-0.5 text-right tabular-nums">{p.flow}</div>
+        {p.hasFloors ? (
+          <div role="gridcell" className="pt-0.5">
+            {p.floor ?? '—'}
+          </div>
+        ) : null}
+        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs" title={p.fittings} data-testid={`${p.prefix}-fittings-${id}`}>
+          {p.fittings}
+        </div>
+        <div role="gridcell" className="pt-0.5 text-right tabular-nums">
+          {p.flow}
+        </div>
         <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-velocity-${id}`}>
           {p.velocityText ?? p.velocity}
           {p.fast ? <span className="font-semibold text-fault"> ▲</span> : null}
         </div>
-        <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-loss-${id}`}>{p.lossText ?? p.loss}</div>
-        <div role="gridcell" className="min-w-0 truncate" title={[p.flagFast && `Velocity ${p.flagFast}`, p.flagFailing, p.flagMissing && `Incomplete: ${p.flagMissing}`].filter(Boolean).join('; ') || undefined}>
+        <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-loss-${id}`}>
+          {p.lossText ?? p.loss}
+        </div>
+        <div
+          role="gridcell"
+          className="min-w-0 truncate"
+          title={
+            [p.flagFast && `Velocity ${p.flagFast}`, p.flagFailing, p.flagMissing && `Incomplete: ${p.flagMissing}`].filter(Boolean).join('; ') || undefined
+          }
+        >
           <RowFlags fast={p.flagFast} failing={p.flagFailing} missing={p.flagMissing} />
         </div>
       </div>
-      {p.detail ? <div className="border-t border-rule bg-surface px-3 py-3" data-testid="row-detail">{p.detail}</div> : null}
+      {p.detail ? (
+        <div className="border-t border-rule bg-surface px-3 py-3" data-testid="row-detail">
+          {p.detail}
+        </div>
+      ) : null}
     </div>
   );
 });
@@ -235,14 +328,39 @@ function RowFlags({ fast, failing, missing }: SegmentFlagValues) {
   const mark = 'mr-1 rounded border px-1 text-xs font-semibold';
   return (
     <span data-testid="segment-flags" className="whitespace-nowrap">
-      {fast ? <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="velocity"><span aria-hidden="true">▲ </span>Velocity {fast}</span> : null}
-      {failing ? <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="failing"><span aria-hidden="true">▼ </span>{failing}</span> : null}
-      {missing ? <span className={`${mark} border-caution bg-caution-soft text-caution`} data-flag="incomplete"><span aria-hidden="true">○ </span>Incomplete: {missing}</span> : null}
+      {fast ? (
+        <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="velocity">
+          <span aria-hidden="true">▲ </span>Velocity {fast}
+        </span>
+      ) : null}
+      {failing ? (
+        <span className={`${mark} border-fault bg-fault-soft text-fault`} data-flag="failing">
+          <span aria-hidden="true">▼ </span>
+          {failing}
+        </span>
+      ) : null}
+      {missing ? (
+        <span className={`${mark} border-caution bg-caution-soft text-caution`} data-flag="incomplete">
+          <span aria-hidden="true">○ </span>Incomplete: {missing}
+        </span>
+      ) : null}
     </span>
   );
 }
 
-const FloorLine = memo(function FloorLine({ floorId, label, count, collapsed, onToggle }: { floorId: string; label: string; count: number; collapsed: boolean; onToggle: (id: string) => void }) {
+const FloorLine = memo(function FloorLine({
+  floorId,
+  label,
+  count,
+  collapsed,
+  onToggle,
+}: {
+  floorId: string;
+  label: string;
+  count: number;
+  collapsed: boolean;
+  onToggle: (id: string) => void;
+}) {
   return (
     <div role="row" style={{ height: ROW_HEIGHT }} className="border-b-2 border-rule bg-paper-deep px-2 py-1" data-testid={`floor-${floorId || 'none'}`}>
       <div role="gridcell">
@@ -282,9 +400,12 @@ export function TreeEditor(props: TreeEditorProps) {
   const [collapsed, setCollapsed] = useState<ReadonlySet<string>>(() => new Set());
   const [byFloor, setByFloor] = useState(false);
   const [floorsCollapsed, setFloorsCollapsed] = useState<ReadonlySet<string>>(() => new Set());
-  const lines = useMemo(() => visibleLines(rows, collapsed, byFloor && hasFloors ? { floors: doc.floors ?? [], collapsed: floorsCollapsed } : null), [rows, collapsed, byFloor, hasFloors, doc.floors, floorsCollapsed]);
+  const lines = useMemo(
+    () => visibleLines(rows, collapsed, byFloor && hasFloors ? { floors: doc.floors ?? [], collapsed: floorsCollapsed } : null),
+    [rows, collapsed, byFloor, hasFloors, doc.floors, floorsCollapsed],
+  );
   const [selected, setSelected] = useState<ReadonlySet<string>>(() => new Set());
-  const [active, setActive] = useState<string | null>(() => props.initialActive === undefined ? (rows[0]?.id ?? null) : props.initialActive);
+  const [active, setActive] = useState<string | null>(() => (props.initialActive === undefined ? (rows[0]?.id ?? null) : props.initialActive));
   const anchor = useRef<string | null>(null);
   // a row the composition opens (a segment just added)
   const request = props.activeRequest;
@@ -315,7 +436,9 @@ export function TreeEditor(props: TreeEditorProps) {
       if (!opts) {
         const projectMaterial = project.find('material', projectEntryIdOf(materialValue));
         const sizes = projectMaterial ? projectMaterial.data.sizes : catalog.material(materialValue || undefined)?.data.sizes;
-        opts = sizes ? sizeChoices(sizes, sys, units.diameter) : [{ value: '', label: materialValue === '' ? 'Custom pipe: see its data' : 'Choose a material first' }];
+        opts = sizes
+          ? sizeChoices(sizes, sys, units.diameter)
+          : [{ value: '', label: materialValue === '' ? 'Custom pipe: see its data' : 'Choose a material first' }];
         sizeOptionsCache.set(materialValue, opts);
       }
       return opts;
@@ -336,10 +459,13 @@ export function TreeEditor(props: TreeEditorProps) {
       if (message === null) held.current.delete(cellKey);
       else held.current.set(cellKey, message);
       if (had === (message ?? undefined)) return;
-      reportHeld?.(heldKey, [...held.current].map(([k, m]) => {
-        const [segId, field] = k.split('\u0000');
-        return { path: `segments.${segId}.${field}`, message: `${nameByIdRef.current.get(segId) ?? segId}, ${field}: ${m}` };
-      }));
+      reportHeld?.(
+        heldKey,
+        [...held.current].map(([k, m]) => {
+          const [segId, field] = k.split('\u0000');
+          return { path: `segments.${segId}.${field}`, message: `${nameByIdRef.current.get(segId) ?? segId}, ${field}: ${m}` };
+        }),
+      );
     },
     [reportHeld, heldKey],
   );
@@ -375,7 +501,9 @@ export function TreeEditor(props: TreeEditorProps) {
       setPendingMaterial((m) => (ids.some((id) => m.has(id)) ? new Map([...m].filter(([k]) => !ids.includes(k))) : m));
       if (value === '') {
         // a custom pipe: the catalog reference goes, its own data is given in the row's details
-        change((d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument);
+        change(
+          (d) => ({ ...d, segments: d.segments.map((s) => (ids.includes(s.id) ? (({ material: _m, size: _s, ...rest }) => rest)(s) : s)) }) as SystemDocument,
+        );
         return;
       }
       change((d) => setMaterial(d, ids, value));
@@ -389,7 +517,7 @@ export function TreeEditor(props: TreeEditorProps) {
       const groups = new Map<string, string[]>();
       for (const id of ids) {
         const seg = docRef.current.segments.find((s) => s.id === id);
-        const value = materialValue ?? pendingRef.current.get(id) ?? (seg?.material ?? '');
+        const value = materialValue ?? pendingRef.current.get(id) ?? seg?.material ?? '';
         groups.set(value, [...(groups.get(value) ?? []), id]);
       }
       for (const [value, list] of groups) {
@@ -412,33 +540,30 @@ export function TreeEditor(props: TreeEditorProps) {
   // ---- selection
   const linesRef = useRef(lines);
   linesRef.current = lines;
-  const onRowClick = useCallback(
-    (id: string, ev: MouseEvent) => {
-      const target = ev.target as HTMLElement;
-      // a click into an input or a select edits it; it does not change the selection
-      if (target.closest('input, select, textarea')) return;
-      if (ev.shiftKey && anchor.current) {
-        const visible = linesRef.current.flatMap((l) => (l.kind === 'segment' ? [l.row] : []));
-        const i = visible.findIndex((r) => r.id === anchor.current);
-        const j = visible.findIndex((r) => r.id === id);
-        const span = i < 0 || j < 0 ? [id] : visible.slice(Math.min(i, j), Math.max(i, j) + 1).map((r) => r.id);
-        setSelected(new Set(span));
-      } else if (ev.ctrlKey || ev.metaKey) {
-        setSelected((s) => {
-          const next = new Set(s);
-          if (next.has(id)) next.delete(id);
-          else next.add(id);
-          return next;
-        });
-        anchor.current = id;
-      } else {
-        setSelected(new Set([id]));
-        anchor.current = id;
-        setActive((a) => (a === id && target.closest('[data-col="1"]') ? null : id));
-      }
-    },
-    [],
-  );
+  const onRowClick = useCallback((id: string, ev: MouseEvent) => {
+    const target = ev.target as HTMLElement;
+    // a click into an input or a select edits it; it does not change the selection
+    if (target.closest('input, select, textarea')) return;
+    if (ev.shiftKey && anchor.current) {
+      const visible = linesRef.current.flatMap((l) => (l.kind === 'segment' ? [l.row] : []));
+      const i = visible.findIndex((r) => r.id === anchor.current);
+      const j = visible.findIndex((r) => r.id === id);
+      const span = i < 0 || j < 0 ? [id] : visible.slice(Math.min(i, j), Math.max(i, j) + 1).map((r) => r.id);
+      setSelected(new Set(span));
+    } else if (ev.ctrlKey || ev.metaKey) {
+      setSelected((s) => {
+        const next = new Set(s);
+        if (next.has(id)) next.delete(id);
+        else next.add(id);
+        return next;
+      });
+      anchor.current = id;
+    } else {
+      setSelected(new Set([id]));
+      anchor.current = id;
+      setActive((a) => (a === id && target.closest('[data-col="1"]') ? null : id));
+    }
+  }, []);
   const onToggleSelect = useCallback((id: string) => {
     setSelected((s) => {
       const next = new Set(s);
@@ -470,10 +595,13 @@ export function TreeEditor(props: TreeEditorProps) {
   const editing = useRef<{ el: Element; value: string; editing: boolean } | null>(null);
   const virtual = lines.length > VIRTUALISE_AT;
   const scrollRef = useRef<HTMLDivElement>(null);
-  const getItemKey = useCallback((i: number) => {
-    const l = lines[i];
-    return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
-  }, [lines]);
+  const getItemKey = useCallback(
+    (i: number) => {
+      const l = lines[i];
+      return l.kind === 'segment' ? l.row.id : `floor:${l.floorId}`;
+    },
+    [lines],
+  );
   const activeRef = useRef(active);
   activeRef.current = active;
   const virtualizer = useVirtualizer({
@@ -592,7 +720,17 @@ export function TreeEditor(props: TreeEditorProps) {
   const lengthLock = policy.locked.length;
   // `slotted`: the line fills a recycled slot of the virtualised list, so its elements are not keyed by the segment
   const renderLine = (line: TreeLine, i: number, measure?: (el: HTMLElement | null) => void, slotted = false) => {
-    if (line.kind === 'floor') return <FloorLine key={slotted ? 'floor' : `floor:${line.floorId}`} floorId={line.floorId} label={line.label} count={line.count} collapsed={line.collapsed} onToggle={onToggleFloor} />;
+    if (line.kind === 'floor')
+      return (
+        <FloorLine
+          key={slotted ? 'floor' : `floor:${line.floorId}`}
+          floorId={line.floorId}
+          label={line.label}
+          count={line.count}
+          collapsed={line.collapsed}
+          onToggle={onToggleFloor}
+        />
+      );
     const r = line.row;
     const s = doc.segments[r.index];
     const res: SegmentResult | undefined = results.get(r.id);
@@ -603,7 +741,13 @@ export function TreeEditor(props: TreeEditorProps) {
     const riseLocked = policy.locked.rise ?? (r.toOnFloor ? RISE_ON_FLOOR : null);
     const was = issued.get(r.id);
     const b = before.get(r.id);
-    const changed = was ? was.material !== s.material || was.size !== s.size || was.length !== s.length || JSON.stringify(was.fittings) !== JSON.stringify(s.fittings) || JSON.stringify(was.custom) !== JSON.stringify(s.custom) : false;
+    const changed = was
+      ? was.material !== s.material ||
+        was.size !== s.size ||
+        was.length !== s.length ||
+        JSON.stringify(was.fittings) !== JSON.stringify(s.fittings) ||
+        JSON.stringify(was.custom) !== JSON.stringify(s.custom)
+      : false;
     const lossNow = lossOf(res);
     const lossBefore = lossOf(b);
     return (
@@ -630,14 +774,22 @@ export function TreeEditor(props: TreeEditorProps) {
         flow={fmt(res?.designFlow, 2)}
         velocity={fmt(res?.velocity, 1)}
         loss={fmt(lossNow, 2)}
-        lossText={baseline ? `${fmt(lossBefore, 2)} → ${fmt(lossNow, 2)} (${lossBefore !== undefined && lossNow !== undefined ? signed(lossNow - lossBefore, 2) : '—'})` : null}
+        lossText={
+          baseline
+            ? `${fmt(lossBefore, 2)} → ${fmt(lossNow, 2)} (${lossBefore !== undefined && lossNow !== undefined ? signed(lossNow - lossBefore, 2) : '—'})`
+            : null
+        }
         velocityText={baseline ? `${fmt(b?.velocity, 1)} → ${fmt(res?.velocity, 1)}` : null}
         fast={res?.velocityPass === false}
         flagFast={flags.fast}
         flagFailing={flags.failing}
         flagMissing={flags.missing}
         changed={changed}
-        issuedText={was ? `${was.material ? `${catalog.material(was.material)?.label ?? was.material}, ${was.size ?? '—'}` : 'custom pipe'}, ${fmt(was.length, 1)} ${units.length}` : null}
+        issuedText={
+          was
+            ? `${was.material ? `${catalog.material(was.material)?.label ?? was.material}, ${was.size ?? '—'}` : 'custom pipe'}, ${fmt(was.length, 1)} ${units.length}`
+            : null
+        }
         selected={selected.has(r.id)}
         active={active === r.id}
         hasChildren={r.below > 0}
@@ -677,14 +829,22 @@ export function TreeEditor(props: TreeEditorProps) {
         <span aria-live="polite" data-testid="tree-counts">
           {rows.length} {rows.length === 1 ? 'segment' : 'segments'}, {shownCount} shown
         </span>
-        <button type="button" className="text-standpipe underline" onClick={collapseAll}>Collapse branches</button>
-        <button type="button" className="text-standpipe underline" onClick={expandAll}>Expand all</button>
+        <button type="button" className="text-standpipe underline" onClick={collapseAll}>
+          Collapse branches
+        </button>
+        <button type="button" className="text-standpipe underline" onClick={expandAll}>
+          Expand all
+        </button>
         {hasFloors ? (
           <label className="flex items-center gap-1">
             <input type="checkbox" checked={byFloor} onChange={(ev) => setByFloor(ev.target.checked)} /> Group by floor
           </label>
         ) : null}
-        {active ? <button type="button" className="text-standpipe underline" onClick={() => selectBranch(active)}>Select the branch of {nameById.get(active) ?? active}</button> : null}
+        {active ? (
+          <button type="button" className="text-standpipe underline" onClick={() => selectBranch(active)}>
+            Select the branch of {nameById.get(active) ?? active}
+          </button>
+        ) : null}
       </div>
       <BulkBar
         selected={selected}
@@ -710,8 +870,17 @@ export function TreeEditor(props: TreeEditorProps) {
         onFocus={onFocus}
       >
         <div className="min-w-[68rem]">
-          <div role="row" aria-rowindex={1} className="grid gap-x-2 border-b-2 border-rule py-1 text-left text-xs font-semibold" style={{ gridTemplateColumns: grid }}>
-            {columns.map((c) => <div role="columnheader" key={c.key} className={['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : ''}>{c.header}</div>)}
+          <div
+            role="row"
+            aria-rowindex={1}
+            className="grid gap-x-2 border-b-2 border-rule py-1 text-left text-xs font-semibold"
+            style={{ gridTemplateColumns: grid }}
+          >
+            {columns.map((c) => (
+              <div role="columnheader" key={c.key} className={['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : ''}>
+                {c.header}
+              </div>
+            ))}
           </div>
           {virtual ? (
             <div ref={scrollRef} className="max-h-[70vh] overflow-y-auto [contain:strict]" style={{ height: '70vh' }} data-testid="tree-scroll">

@@ -30,7 +30,8 @@ export function CreateUserForm({ onCreated }: { onCreated: (result: { user: User
         onCreated(result);
       },
       onError: (error) => {
-        if (isApiError(error) && error.code === 'CONFLICT') form.setError('email', { type: 'server', message: 'An account with this e-mail address already exists' });
+        if (isApiError(error) && error.code === 'CONFLICT')
+          form.setError('email', { type: 'server', message: 'An account with this e-mail address already exists' });
         else applyServerFieldErrors(error, form.setError, ['email', 'name', 'accountRole', 'isAdmin']);
       },
     }),

@@ -37,8 +37,8 @@ export function InvitationLink({ invitation, person, onDismiss }: { invitation: 
       }
     >
       <p>
-        Send this link to the person: it lets them set a password. It works once, until {formatDateTime(invitation.expiresAt)}, and
-        it is not shown again. Any earlier link for this person no longer works.
+        Send this link to the person: it lets them set a password. It works once, until {formatDateTime(invitation.expiresAt)}, and it is not shown again. Any
+        earlier link for this person no longer works.
       </p>
       <label htmlFor={inputId} className="mt-2 block font-semibold">
         Invitation link

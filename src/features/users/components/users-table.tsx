@@ -64,7 +64,11 @@ function UserActions({ user, isSelf, onInvitation }: { user: User; isSelf: boole
   );
 }
 
-export function UsersTable({ users, currentUserId, onInvitation }: {
+export function UsersTable({
+  users,
+  currentUserId,
+  onInvitation,
+}: {
   users: readonly User[];
   currentUserId: string;
   onInvitation: (user: User, invitation: Invitation) => void;
@@ -75,11 +79,21 @@ export function UsersTable({ users, currentUserId, onInvitation }: {
         <caption className="sr-only">Accounts</caption>
         <thead>
           <tr className="border-b-2 border-rule-strong text-sm">
-            <th scope="col" className="py-2 pr-4">Name</th>
-            <th scope="col" className="py-2 pr-4">E-mail address</th>
-            <th scope="col" className="py-2 pr-4">Kind of account</th>
-            <th scope="col" className="py-2 pr-4">Status</th>
-            <th scope="col" className="py-2">Actions</th>
+            <th scope="col" className="py-2 pr-4">
+              Name
+            </th>
+            <th scope="col" className="py-2 pr-4">
+              E-mail address
+            </th>
+            <th scope="col" className="py-2 pr-4">
+              Kind of account
+            </th>
+            <th scope="col" className="py-2 pr-4">
+              Status
+            </th>
+            <th scope="col" className="py-2">
+              Actions
+            </th>
           </tr>
         </thead>
         <tbody>

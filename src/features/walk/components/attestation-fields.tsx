@@ -33,9 +33,19 @@ export function AttestationFields({ value, onChange, disabled }: { value: Attest
       <legend className="font-semibold">Attestation</legend>
       <div className="grid gap-3 md:grid-cols-2">
         <TextField label="Your name, as on your licence" autoComplete="name" value={value.name} onChange={(ev) => set({ name: ev.target.value })} />
-        <TextField label="Licence or registration number" autoComplete="off" value={value.licenceNumber} onChange={(ev) => set({ licenceNumber: ev.target.value })} />
+        <TextField
+          label="Licence or registration number"
+          autoComplete="off"
+          value={value.licenceNumber}
+          onChange={(ev) => set({ licenceNumber: ev.target.value })}
+        />
       </div>
-      <SelectField label="This calculation" options={BASIS_OPTIONS} value={value.basis} onChange={(ev) => set({ basis: ev.target.value as AttestationDraft['basis'] })} />
+      <SelectField
+        label="This calculation"
+        options={BASIS_OPTIONS}
+        value={value.basis}
+        onChange={(ev) => set({ basis: ev.target.value as AttestationDraft['basis'] })}
+      />
       <CheckboxField
         label={`I confirm: “${ATTESTATION_STATEMENTS[value.basis]}”`}
         hint="Recorded with the time on this revision and printed on its summary, beside an empty signature field you can sign with your own certificate."

@@ -18,7 +18,13 @@ export function CellInput({ label, error, className, ...input }: ComponentProps<
   );
 }
 
-export function CellSelect({ label, error, className, options, ...select }: ComponentProps<'select'> & { label: string; error?: string; options: readonly { value: string; label: string; disabled?: boolean }[] }) {
+export function CellSelect({
+  label,
+  error,
+  className,
+  options,
+  ...select
+}: ComponentProps<'select'> & { label: string; error?: string; options: readonly { value: string; label: string; disabled?: boolean }[] }) {
   return (
     <div className={cx('flex flex-col', className)}>
       <select aria-label={label} className={CELL} aria-invalid={error ? true : undefined} {...select}>

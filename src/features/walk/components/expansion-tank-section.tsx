@@ -11,7 +11,13 @@ type Tank = NonNullable<SystemDocument['expansionTank']>;
 /** A starting point for the inputs, to be replaced by the project's figures: 40/140 °F or 4/60 °C water (common practice design temperatures), the source's low static as precharge, 150 psi (1034 kPa) relief less 10 % (REFERENCES §13j, makers' sizing basis). */
 function starterTank(doc: SystemDocument): Tank {
   const us = doc.unitSystem === 'US';
-  return { heaterVolume: 0, coldTemperature: us ? 40 : 4, hotTemperature: doc.waterTemperature, supplyPressure: doc.source.staticPressureLow, reliefPressure: us ? 135 : 931 };
+  return {
+    heaterVolume: 0,
+    coldTemperature: us ? 40 : 4,
+    hotTemperature: doc.waterTemperature,
+    supplyPressure: doc.source.staticPressureLow,
+    reliefPressure: us ? 135 : 931,
+  };
 }
 
 const FIELDS: { key: keyof Tank; label: (u: { pressure: string; temperature: string }, volume: string) => string }[] = [
@@ -63,7 +69,12 @@ export function ExpansionTankSection() {
             </div>
             {sizing?.ok ? (
               <p data-testid="expansion-tank-size">
-                Tank volume needed: <strong>{fmt(sizing.tankVolume, 2)} {sizing.volumeUnit}</strong> (the water gains {fmt(sizing.expansionVolume, 3)} {sizing.volumeUnit}; acceptance factor {fmt(sizing.result.acceptanceFactor, 3)}). Source: {sizing.result.source}.
+                Tank volume needed:{' '}
+                <strong>
+                  {fmt(sizing.tankVolume, 2)} {sizing.volumeUnit}
+                </strong>{' '}
+                (the water gains {fmt(sizing.expansionVolume, 3)} {sizing.volumeUnit}; acceptance factor {fmt(sizing.result.acceptanceFactor, 3)}). Source:{' '}
+                {sizing.result.source}.
               </p>
             ) : sizing ? (
               <p role="alert" className="font-semibold text-fault" data-testid="expansion-tank-error">
@@ -74,7 +85,18 @@ export function ExpansionTankSection() {
             ) : null}
             {!disabled ? (
               <p>
-                <Button variant="quiet" onClick={() => draft.update((doc) => { const next = { ...doc }; delete next.expansionTank; return next; })}>Remove the expansion tank</Button>
+                <Button
+                  variant="quiet"
+                  onClick={() =>
+                    draft.update((doc) => {
+                      const next = { ...doc };
+                      delete next.expansionTank;
+                      return next;
+                    })
+                  }
+                >
+                  Remove the expansion tank
+                </Button>
               </p>
             ) : null}
           </>
@@ -85,7 +107,9 @@ export function ExpansionTankSection() {
             </p>
             {!disabled ? (
               <p>
-                <Button variant="secondary" onClick={() => draft.update((doc) => ({ ...doc, expansionTank: starterTank(doc) }))}>Describe and size an expansion tank</Button>
+                <Button variant="secondary" onClick={() => draft.update((doc) => ({ ...doc, expansionTank: starterTank(doc) }))}>
+                  Describe and size an expansion tank
+                </Button>
               </p>
             ) : null}
           </>

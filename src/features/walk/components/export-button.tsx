@@ -3,7 +3,14 @@ import type { SystemDocument } from '../../../engine';
 
 /** A file name from a free-text title: letters, digits, dashes. */
 export function safeFileName(title: string): string {
-  return title.normalize('NFKD').replace(/[^\w.-]+/g, '-').replace(/-+/g, '-').replace(/^-|-$/g, '').slice(0, 120) || 'system';
+  return (
+    title
+      .normalize('NFKD')
+      .replace(/[^\w.-]+/g, '-')
+      .replace(/-+/g, '-')
+      .replace(/^-|-$/g, '')
+      .slice(0, 120) || 'system'
+  );
 }
 
 /** Downloads the document as it is in the walk now, in the engine's documented JSON format. */

@@ -36,9 +36,8 @@ export function FedFromSection() {
   return (
     <Section title="Fed from a cold-water system" headingLevel={3}>
       <p className="mb-3 max-w-prose text-sm text-ink-soft">
-        A hot system takes its pressure from the cold system at the node that feeds the water heater: the cold system’s
-        residual pressure there at its design flow, recomputed whenever either system changes. Enter the heater’s own loss
-        as a water-heater device on the first segment.
+        A hot system takes its pressure from the cold system at the node that feeds the water heater: the cold system’s residual pressure there at its design
+        flow, recomputed whenever either system changes. Enter the heater’s own loss as a water-heater device on the first segment.
       </p>
       <div className="grid gap-4 md:grid-cols-2">
         <SelectField
@@ -47,11 +46,15 @@ export function FedFromSection() {
           value={fedFrom?.systemId ?? ''}
           onChange={(e) => {
             const systemId = e.target.value;
-            draft.update((doc) => withFedFrom(doc, systemId ? { systemId, nodeId: doc.source.fedFrom?.systemId === systemId ? doc.source.fedFrom.nodeId : NO_NODE } : null));
+            draft.update((doc) =>
+              withFedFrom(doc, systemId ? { systemId, nodeId: doc.source.fedFrom?.systemId === systemId ? doc.source.fedFrom.nodeId : NO_NODE } : null),
+            );
           }}
           options={[
             { value: '', label: 'None: the supply pressures are typed below' },
-            ...(fedFrom && !coldSystems.some((s) => s.id === fedFrom.systemId) ? [{ value: fedFrom.systemId, label: 'A system no longer in the project' }] : []),
+            ...(fedFrom && !coldSystems.some((s) => s.id === fedFrom.systemId)
+              ? [{ value: fedFrom.systemId, label: 'A system no longer in the project' }]
+              : []),
             ...coldSystems.map((s) => ({ value: s.id, label: s.name })),
           ]}
         />
@@ -65,7 +68,9 @@ export function FedFromSection() {
               draft.update((doc) => withFedFrom(doc, { systemId: fedFrom.systemId, nodeId }));
             }}
             options={[
-              ...(nodes.some((n) => n.id === fedFrom.nodeId) ? [] : [{ value: fedFrom.nodeId, label: fedFrom.nodeId === NO_NODE ? 'Choose the node' : `${fedFrom.nodeId} (not in the cold system)` }]),
+              ...(nodes.some((n) => n.id === fedFrom.nodeId)
+                ? []
+                : [{ value: fedFrom.nodeId, label: fedFrom.nodeId === NO_NODE ? 'Choose the node' : `${fedFrom.nodeId} (not in the cold system)` }]),
               ...nodes.map((n) => ({ value: n.id, label: n.label || n.id })),
             ]}
           />
@@ -76,13 +81,20 @@ export function FedFromSection() {
           {resolution?.status === 'resolved' ? (
             <p>
               Fed from <strong>{resolution.systemName}</strong> at <strong>{resolution.nodeLabel}</strong>:{' '}
-              <strong data-testid="fed-from-pressure">{fmt(resolution.residualPressure, 2)} {units.pressure}</strong> at its design flow
-              (high static {fmt(resolution.staticPressureHigh, 2)} {units.pressure}; revision {resolution.revisionNumber}, {resolution.revisionStatus}).
+              <strong data-testid="fed-from-pressure">
+                {fmt(resolution.residualPressure, 2)} {units.pressure}
+              </strong>{' '}
+              at its design flow (high static {fmt(resolution.staticPressureHigh, 2)} {units.pressure}; revision {resolution.revisionNumber},{' '}
+              {resolution.revisionStatus}).
             </p>
           ) : (
             <p className="font-semibold text-caution">
               <span aria-hidden="true">⚠ </span>
-              {resolution?.status === 'unresolved' ? resolution.message : cold.isFetching ? 'Reading the cold system…' : 'The cold system has not been read yet.'}
+              {resolution?.status === 'unresolved'
+                ? resolution.message
+                : cold.isFetching
+                  ? 'Reading the cold system…'
+                  : 'The cold system has not been read yet.'}
             </p>
           )}
         </div>

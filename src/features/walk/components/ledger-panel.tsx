@@ -18,15 +18,23 @@ export function LedgerTable({ ledger, caption }: { ledger: PressureLedger; capti
       <caption className="sr-only">{caption}</caption>
       <thead>
         <tr className="border-b-2 border-rule text-left">
-          <th scope="col" className="py-1 pr-2 font-semibold">Item</th>
-          <th scope="col" className="py-1 pr-2 text-right font-semibold">Change ({u})</th>
-          <th scope="col" className="py-1 text-right font-semibold">Left ({u})</th>
+          <th scope="col" className="py-1 pr-2 font-semibold">
+            Item
+          </th>
+          <th scope="col" className="py-1 pr-2 text-right font-semibold">
+            Change ({u})
+          </th>
+          <th scope="col" className="py-1 text-right font-semibold">
+            Left ({u})
+          </th>
         </tr>
       </thead>
       <tbody>
         {ledger.lines.map((line) => (
           <tr key={line.step} className="border-b border-rule align-top">
-            <th scope="row" className="py-1 pr-2 text-left font-normal">{line.label}</th>
+            <th scope="row" className="py-1 pr-2 text-left font-normal">
+              {line.label}
+            </th>
             <td className="py-1 pr-2 text-right tabular-nums">{line.kind === 'start' ? '' : signed(line.change, 2)}</td>
             <td className="py-1 text-right tabular-nums">{fmt(line.pressureAfter, 2)}</td>
           </tr>
@@ -34,17 +42,23 @@ export function LedgerTable({ ledger, caption }: { ledger: PressureLedger; capti
       </tbody>
       <tfoot>
         <tr className="border-t-2 border-rule">
-          <th scope="row" className="py-1 pr-2 text-left">Residual pressure</th>
+          <th scope="row" className="py-1 pr-2 text-left">
+            Residual pressure
+          </th>
           <td />
           <td className="py-1 text-right font-semibold tabular-nums">{fmt(ledger.residual, 2)}</td>
         </tr>
         <tr>
-          <th scope="row" className="py-1 pr-2 text-left">Minimum flow pressure</th>
+          <th scope="row" className="py-1 pr-2 text-left">
+            Minimum flow pressure
+          </th>
           <td />
           <td className="py-1 text-right tabular-nums">{fmt(ledger.required, 2)}</td>
         </tr>
         <tr>
-          <th scope="row" className="py-1 pr-2 text-left">Margin</th>
+          <th scope="row" className="py-1 pr-2 text-left">
+            Margin
+          </th>
           <td />
           <td className="py-1 text-right font-semibold tabular-nums">{signed(ledger.margin, 2)}</td>
         </tr>
@@ -74,14 +88,20 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
       </div>
     );
   } else if (!ledger) {
-    body = <p className="text-sm text-ink-soft">No checked fixtures yet. Add them at the step “Remote fixture”; the ledger then runs to the one with the smallest margin.</p>;
+    body = (
+      <p className="text-sm text-ink-soft">
+        No checked fixtures yet. Add them at the step “Remote fixture”; the ledger then runs to the one with the smallest margin.
+      </p>
+    );
   } else {
     const fixture = live.analysis.fixtures.find((f) => f.id === ledger.fixtureId);
     body = (
       <>
         <div aria-live="polite" aria-atomic="true" className="mb-3">
           <p className="text-sm text-ink-soft">Critical fixture</p>
-          <p className="font-semibold" data-testid="critical-fixture">{fixture?.label ?? ledger.fixtureId}</p>
+          <p className="font-semibold" data-testid="critical-fixture">
+            {fixture?.label ?? ledger.fixtureId}
+          </p>
           <p className="mt-2 flex flex-wrap items-baseline gap-2">
             <span className="text-sm text-ink-soft">Margin</span>
             <span className="text-2xl font-bold tabular-nums" data-testid="live-margin">
@@ -96,8 +116,15 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
   }
 
   return (
-    <aside aria-labelledby="ledger-heading" className="rounded-lg border-2 border-rule bg-surface p-4 lg:sticky lg:top-14 lg:max-h-[calc(100vh-4.5rem)] lg:self-start lg:overflow-y-auto" data-testid="ledger-panel" data-stamp={renderStamp}>
-      <h2 id="ledger-heading" className="mb-3 text-lg">Live pressure ledger</h2>
+    <aside
+      aria-labelledby="ledger-heading"
+      className="rounded-lg border-2 border-rule bg-surface p-4 lg:sticky lg:top-14 lg:max-h-[calc(100vh-4.5rem)] lg:self-start lg:overflow-y-auto"
+      data-testid="ledger-panel"
+      data-stamp={renderStamp}
+    >
+      <h2 id="ledger-heading" className="mb-3 text-lg">
+        Live pressure ledger
+      </h2>
       {body}
       <p className="mt-3 text-xs text-ink-muted">
         Recomputed in your browser on every change ({fmt(live.millis, 0)} ms){live.ok ? ` · ${plural(live.analysis.warnings.length, 'warning')}` : ''}.

@@ -16,8 +16,7 @@ export function NewDraftButton({ ids }: { ids: WalkIds }) {
     create.mutate(
       { projectId: ids.projectId, systemId: ids.systemId, fromRevisionId: ids.revisionId },
       {
-        onSuccess: (revision) =>
-          navigate(walkPaths.step.getHref(ids.projectId, ids.systemId, revision.id, isWalkStep(step) ? step : 'supply')),
+        onSuccess: (revision) => navigate(walkPaths.step.getHref(ids.projectId, ids.systemId, revision.id, isWalkStep(step) ? step : 'supply')),
       },
     );
   return (

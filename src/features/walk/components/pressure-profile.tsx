@@ -71,7 +71,13 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
   const last = points.at(-1)!;
   return (
     <figure className="flex flex-col gap-2">
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={`${id}-t ${id}-d`} className="w-full max-w-3xl rounded-md border-2 border-rule bg-surface" data-testid="pressure-chart">
+      <svg
+        viewBox={`0 0 ${W} ${H}`}
+        role="img"
+        aria-labelledby={`${id}-t ${id}-d`}
+        className="w-full max-w-3xl rounded-md border-2 border-rule bg-surface"
+        data-testid="pressure-chart"
+      >
         <title id={`${id}-t`}>Pressure along the path to {fixtureLabel}</title>
         <desc id={`${id}-d`}>
           Pressure falls from {fmt(points[0].pressure, 1)} {u.pressure} at the source to {fmt(last.pressure, 1)} {u.pressure} at {fixtureLabel},{' '}
@@ -81,16 +87,26 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
         {ticks(minY, maxY, 5).map((t) => (
           <g key={`y${t}`}>
             <line x1={pad.l} x2={W - pad.r} y1={y(t)} y2={y(t)} stroke="#c7c9c3" strokeWidth="1" />
-            <text x={pad.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#3d4a53">{fmt(t, 0)}</text>
+            <text x={pad.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#3d4a53">
+              {fmt(t, 0)}
+            </text>
           </g>
         ))}
         {ticks(0, maxX, 5).map((t) => (
-          <text key={`x${t}`} x={x(t)} y={H - pad.b + 16} textAnchor="middle" fontSize="11" fill="#3d4a53">{fmt(t, 0)}</text>
+          <text key={`x${t}`} x={x(t)} y={H - pad.b + 16} textAnchor="middle" fontSize="11" fill="#3d4a53">
+            {fmt(t, 0)}
+          </text>
         ))}
-        <text x={(pad.l + W - pad.r) / 2} y={H - 6} textAnchor="middle" fontSize="12" fill="#17222a">Developed length from the source ({u.length})</text>
-        <text x={14} y={(pad.t + H - pad.b) / 2} textAnchor="middle" fontSize="12" fill="#17222a" transform={`rotate(-90 14 ${(pad.t + H - pad.b) / 2})`}>Pressure ({u.pressure})</text>
+        <text x={(pad.l + W - pad.r) / 2} y={H - 6} textAnchor="middle" fontSize="12" fill="#17222a">
+          Developed length from the source ({u.length})
+        </text>
+        <text x={14} y={(pad.t + H - pad.b) / 2} textAnchor="middle" fontSize="12" fill="#17222a" transform={`rotate(-90 14 ${(pad.t + H - pad.b) / 2})`}>
+          Pressure ({u.pressure})
+        </text>
         <line x1={pad.l} x2={W - pad.r} y1={y(ledger.required)} y2={y(ledger.required)} stroke="#9b1c1c" strokeWidth="2" strokeDasharray="8 5" />
-        <text x={W - pad.r - 4} y={y(ledger.required) - 6} textAnchor="end" fontSize="11" fill="#9b1c1c">minimum {fmt(ledger.required, 1)}</text>
+        <text x={W - pad.r - 4} y={y(ledger.required) - 6} textAnchor="end" fontSize="11" fill="#9b1c1c">
+          minimum {fmt(ledger.required, 1)}
+        </text>
         {crossings.map((c, i) => (
           <g key={`zone-${i}`} data-testid="zone-crossing">
             <line x1={x(c.distance)} x2={x(c.distance)} y1={pad.t} y2={H - pad.b} stroke="#3d4a53" strokeWidth="1.5" strokeDasharray="2 3" />
@@ -110,10 +126,28 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
         <summary className="cursor-pointer text-sm font-semibold">The chart’s numbers as a table</summary>
         <table className="mt-2 text-sm" data-testid="chart-table">
           <caption className="sr-only">Pressure against developed length</caption>
-          <thead><tr className="text-left"><th scope="col" className="pr-4">Point</th><th scope="col" className="pr-4 text-right">Distance ({u.length})</th><th scope="col" className="text-right">Pressure ({u.pressure})</th></tr></thead>
+          <thead>
+            <tr className="text-left">
+              <th scope="col" className="pr-4">
+                Point
+              </th>
+              <th scope="col" className="pr-4 text-right">
+                Distance ({u.length})
+              </th>
+              <th scope="col" className="text-right">
+                Pressure ({u.pressure})
+              </th>
+            </tr>
+          </thead>
           <tbody>
             {points.map((p, i) => (
-              <tr key={i}><th scope="row" className="pr-4 text-left font-normal">{p.label}</th><td className="pr-4 text-right tabular-nums">{fmt(p.distance, 1)}</td><td className="text-right tabular-nums">{fmt(p.pressure, 2)}</td></tr>
+              <tr key={i}>
+                <th scope="row" className="pr-4 text-left font-normal">
+                  {p.label}
+                </th>
+                <td className="pr-4 text-right tabular-nums">{fmt(p.distance, 1)}</td>
+                <td className="text-right tabular-nums">{fmt(p.pressure, 2)}</td>
+              </tr>
             ))}
           </tbody>
         </table>

@@ -120,8 +120,8 @@ export function RecirculationSection() {
       <Section title="Recirculation" headingLevel={3}>
         <div className="flex flex-col gap-3 text-sm" data-testid="recirculation">
           <p className="max-w-prose">
-            No recirculation loop is described. Where the hot water must reach far fixtures without a long wait, a loop from the heater out and back,
-            with a pump, keeps it hot; Headroom computes the loop flow, the return sizes and the pump from the loop&apos;s heat loss and the drop you allow.
+            No recirculation loop is described. Where the hot water must reach far fixtures without a long wait, a loop from the heater out and back, with a
+            pump, keeps it hot; Headroom computes the loop flow, the return sizes and the pump from the loop&apos;s heat loss and the drop you allow.
           </p>
           {!disabled ? (
             <p>
@@ -136,19 +136,39 @@ export function RecirculationSection() {
   }
 
   const loopFields: { key: LoopNumber; label: string; optional: boolean; hint?: string }[] = [
-    { key: 'heatLossPerLength', label: `Heat loss per length of pipe (${hu.perLength})`, optional: true, hint: 'For pipes without their own heat loss: from the insulation maker’s tables.' },
+    {
+      key: 'heatLossPerLength',
+      label: `Heat loss per length of pipe (${hu.perLength})`,
+      optional: true,
+      hint: 'For pipes without their own heat loss: from the insulation maker’s tables.',
+    },
     { key: 'temperatureDrop', label: `Temperature drop allowed around the loop (${hu.drop})`, optional: false },
-    { key: 'hotTemperature', label: `Temperature leaving the heater (${units.temperature})`, optional: true, hint: `Empty: the system's ${fmt(document.waterTemperature, 0)} ${units.temperature}.` },
-    { key: 'fittingAllowance', label: 'Fitting allowance (fraction of the pipe friction)', optional: true, hint: 'Empty: 0.25 (fittings as a quarter of the pipe, a designers’ rule of thumb); 0 when fittings are counted in the lengths.' },
-    { key: 'heaterLoss', label: `Heater loss at the loop flow (${units.pressure})`, optional: true, hint: 'Empty: 0. From the heater maker’s pressure-drop data.' },
+    {
+      key: 'hotTemperature',
+      label: `Temperature leaving the heater (${units.temperature})`,
+      optional: true,
+      hint: `Empty: the system's ${fmt(document.waterTemperature, 0)} ${units.temperature}.`,
+    },
+    {
+      key: 'fittingAllowance',
+      label: 'Fitting allowance (fraction of the pipe friction)',
+      optional: true,
+      hint: 'Empty: 0.25 (fittings as a quarter of the pipe, a designers’ rule of thumb); 0 when fittings are counted in the lengths.',
+    },
+    {
+      key: 'heaterLoss',
+      label: `Heater loss at the loop flow (${units.pressure})`,
+      optional: true,
+      hint: 'Empty: 0. From the heater maker’s pressure-drop data.',
+    },
   ];
 
   return (
     <Section title="Recirculation" headingLevel={3}>
       <div className="flex flex-col gap-4 text-sm" data-testid="recirculation">
         <p className="max-w-prose">
-          The loop leaves the heater (the source node, <strong>{document.source.nodeId}</strong>) and comes back to it. Give each pipe in order; a pipe
-          without a size is a return pipe, and Headroom chooses its size.
+          The loop leaves the heater (the source node, <strong>{document.source.nodeId}</strong>) and comes back to it. Give each pipe in order; a pipe without
+          a size is a return pipe, and Headroom chooses its size.
         </p>
         <div className="grid gap-3 md:grid-cols-2">
           {loopFields.map((f) => (
@@ -178,12 +198,24 @@ export function RecirculationSection() {
             <caption className="sr-only">Pipes of the recirculation loop, from the heater back to it</caption>
             <thead>
               <tr className="border-b-2 border-rule text-left align-bottom">
-                <th scope="col" className="py-1 pr-2">From</th>
-                <th scope="col" className="py-1 pr-2">To</th>
-                <th scope="col" className="py-1 pr-2">Length ({units.length})</th>
-                <th scope="col" className="py-1 pr-2">Material</th>
-                <th scope="col" className="py-1 pr-2">Size</th>
-                <th scope="col" className="py-1 pr-2">Heat loss ({hu.heat})</th>
+                <th scope="col" className="py-1 pr-2">
+                  From
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  To
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Length ({units.length})
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Material
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Size
+                </th>
+                <th scope="col" className="py-1 pr-2">
+                  Heat loss ({hu.heat})
+                </th>
                 <th scope="col" className="py-1">
                   <span className="sr-only">Remove</span>
                 </th>
@@ -201,13 +233,35 @@ export function RecirculationSection() {
                 return (
                   <tr key={p.id} className="border-b border-rule align-top">
                     <td className="py-1 pr-2">
-                      <CellInput label={`From, ${name}`} list={nodeListId} disabled={disabled} defaultValue={p.from} error={errors[`${p.id}.from`]} onChange={(e) => setPipeText(p.id, 'from', e.target.value)} />
+                      <CellInput
+                        label={`From, ${name}`}
+                        list={nodeListId}
+                        disabled={disabled}
+                        defaultValue={p.from}
+                        error={errors[`${p.id}.from`]}
+                        onChange={(e) => setPipeText(p.id, 'from', e.target.value)}
+                      />
                     </td>
                     <td className="py-1 pr-2">
-                      <CellInput label={`To, ${name}`} list={nodeListId} disabled={disabled} defaultValue={p.to} error={errors[`${p.id}.to`]} onChange={(e) => setPipeText(p.id, 'to', e.target.value)} />
+                      <CellInput
+                        label={`To, ${name}`}
+                        list={nodeListId}
+                        disabled={disabled}
+                        defaultValue={p.to}
+                        error={errors[`${p.id}.to`]}
+                        onChange={(e) => setPipeText(p.id, 'to', e.target.value)}
+                      />
                     </td>
                     <td className="py-1 pr-2">
-                      <CellInput label={`Length, ${name}`} inputMode="decimal" autoComplete="off" disabled={disabled} defaultValue={String(p.length)} error={errors[`${p.id}.length`]} onChange={(e) => setPipeNumber(p.id, 'length', e.target.value)} />
+                      <CellInput
+                        label={`Length, ${name}`}
+                        inputMode="decimal"
+                        autoComplete="off"
+                        disabled={disabled}
+                        defaultValue={String(p.length)}
+                        error={errors[`${p.id}.length`]}
+                        onChange={(e) => setPipeNumber(p.id, 'length', e.target.value)}
+                      />
                     </td>
                     <td className="py-1 pr-2">
                       <CellSelect
@@ -215,7 +269,13 @@ export function RecirculationSection() {
                         disabled={disabled}
                         value={p.material}
                         options={material ? materialOptions : [...materialOptions, { value: p.material, label: `${p.material} (not in the catalog)` }]}
-                        onChange={(e) => changePipe(p.id, (x) => { const next = { ...x, material: e.target.value }; delete next.size; return next; })}
+                        onChange={(e) =>
+                          changePipe(p.id, (x) => {
+                            const next = { ...x, material: e.target.value };
+                            delete next.size;
+                            return next;
+                          })
+                        }
                       />
                     </td>
                     <td className="py-1 pr-2">
@@ -224,15 +284,35 @@ export function RecirculationSection() {
                         disabled={disabled}
                         value={p.size ?? ''}
                         options={sizeOptions}
-                        onChange={(e) => changePipe(p.id, (x) => { const next = { ...x }; if (e.target.value === '') delete next.size; else next.size = e.target.value; return next; })}
+                        onChange={(e) =>
+                          changePipe(p.id, (x) => {
+                            const next = { ...x };
+                            if (e.target.value === '') delete next.size;
+                            else next.size = e.target.value;
+                            return next;
+                          })
+                        }
                       />
                     </td>
                     <td className="py-1 pr-2">
-                      <CellInput label={`Heat loss, ${name}`} inputMode="decimal" autoComplete="off" placeholder="per length" disabled={disabled} defaultValue={p.heatLoss === undefined ? '' : String(p.heatLoss)} error={errors[`${p.id}.heatLoss`]} onChange={(e) => setPipeNumber(p.id, 'heatLoss', e.target.value)} />
+                      <CellInput
+                        label={`Heat loss, ${name}`}
+                        inputMode="decimal"
+                        autoComplete="off"
+                        placeholder="per length"
+                        disabled={disabled}
+                        defaultValue={p.heatLoss === undefined ? '' : String(p.heatLoss)}
+                        error={errors[`${p.id}.heatLoss`]}
+                        onChange={(e) => setPipeNumber(p.id, 'heatLoss', e.target.value)}
+                      />
                     </td>
                     <td className="py-1">
                       {!disabled ? (
-                        <Button variant="quiet" aria-label={`Remove ${name}`} onClick={() => changeLoop((l) => ({ ...l, segments: l.segments.filter((x) => x.id !== p.id) }))}>
+                        <Button
+                          variant="quiet"
+                          aria-label={`Remove ${name}`}
+                          onClick={() => changeLoop((l) => ({ ...l, segments: l.segments.filter((x) => x.id !== p.id) }))}
+                        >
                           Remove
                         </Button>
                       ) : null}
@@ -250,13 +330,34 @@ export function RecirculationSection() {
               onClick={() =>
                 changeLoop((l) => {
                   const last = l.segments[l.segments.length - 1];
-                  return { ...l, segments: [...l.segments, { id: nextPipeId(l), from: last?.to ?? document.source.nodeId, to: document.source.nodeId, length: last?.length ?? 10, material: last?.material ?? 'copper-l' }] };
+                  return {
+                    ...l,
+                    segments: [
+                      ...l.segments,
+                      {
+                        id: nextPipeId(l),
+                        from: last?.to ?? document.source.nodeId,
+                        to: document.source.nodeId,
+                        length: last?.length ?? 10,
+                        material: last?.material ?? 'copper-l',
+                      },
+                    ],
+                  };
                 })
               }
             >
               Add a loop pipe
             </Button>
-            <Button variant="quiet" onClick={() => draft.update((doc) => { const next = { ...doc }; delete next.recirculation; return next; })}>
+            <Button
+              variant="quiet"
+              onClick={() =>
+                draft.update((doc) => {
+                  const next = { ...doc };
+                  delete next.recirculation;
+                  return next;
+                })
+              }
+            >
               Remove the recirculation loop
             </Button>
           </div>
@@ -303,12 +404,24 @@ export function RecirculationResultView({ result, liveOk }: { result: Recirculat
           <caption className="sr-only">Each loop pipe at the loop flow: size, velocity, friction loss and heat loss</caption>
           <thead>
             <tr className="border-b-2 border-rule text-left align-bottom">
-              <th scope="col" className="py-1 pr-3">Pipe</th>
-              <th scope="col" className="py-1 pr-3">Size</th>
-              <th scope="col" className="py-1 pr-3 text-right">Velocity ({u.velocity}), limit</th>
-              <th scope="col" className="py-1 pr-3 text-right">Friction loss ({u.pressure})</th>
-              <th scope="col" className="py-1 pr-3 text-right">Heat loss ({u.heat})</th>
-              <th scope="col" className="py-1">Limits</th>
+              <th scope="col" className="py-1 pr-3">
+                Pipe
+              </th>
+              <th scope="col" className="py-1 pr-3">
+                Size
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Velocity ({u.velocity}), limit
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Friction loss ({u.pressure})
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Heat loss ({u.heat})
+              </th>
+              <th scope="col" className="py-1">
+                Limits
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -336,7 +449,10 @@ export function RecirculationResultView({ result, liveOk }: { result: Recirculat
             <li key={s}>{s}</li>
           ))}
         </ul>
-        <p>The friction limit and the fitting allowance are designers&apos; rules of thumb, not code limits; the adopted code, the AHJ and the pump maker&apos;s data govern.</p>
+        <p>
+          The friction limit and the fitting allowance are designers&apos; rules of thumb, not code limits; the adopted code, the AHJ and the pump maker&apos;s
+          data govern.
+        </p>
       </div>
     </div>
   );

@@ -55,10 +55,13 @@ export function itemName(doc: SystemDocument, c: Pick<Comment, 'itemType' | 'ite
   if (c.itemType === 'general' || !c.itemId) return type;
   if (c.itemType === 'input') return `${type}: ${INPUT_ITEMS.find((o) => o.value === c.itemId)?.label ?? c.itemId}`;
   const label =
-    c.itemType === 'segment' ? doc.segments.find((s) => s.id === c.itemId)?.label
-    : c.itemType === 'device' ? doc.devices.find((d) => d.id === c.itemId)?.label
-    : c.itemType === 'node' ? doc.nodes.find((n) => n.id === c.itemId)?.label
-    : doc.nodes.flatMap((n) => n.checkedFixtures).find((f) => f.id === c.itemId)?.label;
+    c.itemType === 'segment'
+      ? doc.segments.find((s) => s.id === c.itemId)?.label
+      : c.itemType === 'device'
+        ? doc.devices.find((d) => d.id === c.itemId)?.label
+        : c.itemType === 'node'
+          ? doc.nodes.find((n) => n.id === c.itemId)?.label
+          : doc.nodes.flatMap((n) => n.checkedFixtures).find((f) => f.id === c.itemId)?.label;
   return label ? `${type} ${label}` : `${type} (not in this revision any more)`;
 }
 
@@ -103,7 +106,21 @@ function ReplyForm({ review, comment, n }: { review: Review; comment: Comment; n
   );
 }
 
-function CommentNote({ review, comment, n, doc, canReply, here }: { review: Review; comment: Comment; n: number; doc: SystemDocument; canReply: boolean; here: boolean }) {
+function CommentNote({
+  review,
+  comment,
+  n,
+  doc,
+  canReply,
+  here,
+}: {
+  review: Review;
+  comment: Comment;
+  n: number;
+  doc: SystemDocument;
+  canReply: boolean;
+  here: boolean;
+}) {
   const { links } = useWalk();
   const steps = stepsOfItem(comment);
   const stepLabel = WALK_STEPS.find((s) => s.id === steps[0])?.label ?? steps[0];
@@ -116,7 +133,8 @@ function CommentNote({ review, comment, n, doc, canReply, here }: { review: Revi
       {comment.reply ? (
         <p className="mt-1 text-sm" data-testid="review-note-reply">
           <span className="font-semibold">Answered</span>
-          {comment.reply.by ? ` by ${comment.reply.by}` : ''} on {formatDateTime(comment.reply.at)}: <span className="whitespace-pre-wrap">{comment.reply.text}</span>
+          {comment.reply.by ? ` by ${comment.reply.by}` : ''} on {formatDateTime(comment.reply.at)}:{' '}
+          <span className="whitespace-pre-wrap">{comment.reply.text}</span>
         </p>
       ) : (
         <p className="mt-1 text-sm font-semibold text-caution">Not answered yet</p>
@@ -164,8 +182,8 @@ export function ReviewCommentsPanel() {
         <ReturnedSystemMark marker={marker} myRole={project.myRole} />
       </div>
       <p className="mt-1 max-w-prose text-sm text-ink-soft">
-        Returned by {review.reviewer.name} on {review.decidedAt ? formatDateTime(review.decidedAt) : '—'}. Answer each comment here; the replies are
-        printed under “Response to review comments” in the summary of the next revision you issue, and freeze then.
+        Returned by {review.reviewer.name} on {review.decidedAt ? formatDateTime(review.decidedAt) : '—'}. Answer each comment here; the replies are printed
+        under “Response to review comments” in the summary of the next revision you issue, and freeze then.
       </p>
       {review.comment ? (
         <p className="mt-2 whitespace-pre-wrap">

@@ -55,11 +55,23 @@ export function SaveBar({ draft, editable }: { draft: Draft; editable: boolean }
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-center gap-3">
-        <p role="status" className={held.length ? 'text-sm font-semibold text-fault' : 'text-sm font-semibold'} data-testid="save-state" data-state={draft.state} data-held={held.length}>
+        <p
+          role="status"
+          className={held.length ? 'text-sm font-semibold text-fault' : 'text-sm font-semibold'}
+          data-testid="save-state"
+          data-state={draft.state}
+          data-held={held.length}
+        >
           <span aria-hidden="true">{held.length ? '▲ ' : draft.state === 'saved' ? '● ' : draft.state === 'saving' ? '◌ ' : '○ '}</span>
           {words}
         </p>
-        <Button variant="secondary" onClick={() => void draft.saveNow()} disabled={draft.state === 'saved' || draft.state === 'conflict'} pending={draft.state === 'saving'} pendingLabel="Saving…">
+        <Button
+          variant="secondary"
+          onClick={() => void draft.saveNow()}
+          disabled={draft.state === 'saved' || draft.state === 'conflict'}
+          pending={draft.state === 'saving'}
+          pendingLabel="Saving…"
+        >
           Save now
         </Button>
       </div>
@@ -79,8 +91,8 @@ export function SaveBar({ draft, editable }: { draft: Draft; editable: boolean }
               </>
             }
           >
-            Your changes are not saved, and theirs are not overwritten. “Reload theirs” drops your changes and shows the
-            draft as it is saved now; “Keep mine” saves your draft on top of theirs.
+            Your changes are not saved, and theirs are not overwritten. “Reload theirs” drops your changes and shows the draft as it is saved now; “Keep mine”
+            saves your draft on top of theirs.
             {choiceError ? <p className="mt-2 font-semibold">{choiceError}</p> : null}
           </Alert>
         ) : null}

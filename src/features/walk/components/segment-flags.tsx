@@ -37,7 +37,14 @@ export function useSegmentFlags(): (segmentId: string) => SegmentFlagValues {
       const fast = s.velocityPass === false ? `${fmt(s.velocity, 1)} ${units.velocity} over the limit of ${fmt(s.velocityLimit, 1)} ${units.velocity}` : null;
       const f = failing.get(s.id);
       const m = missingBy.get(s.id);
-      if (fast || f || m) out.set(s.id, { fast, failing: f ? `${plural(f.length, 'fixture')} downstream ${f.length === 1 ? 'fails' : 'fail'}: ${f.slice(0, 3).join(', ')}${f.length > 3 ? ', …' : ''}` : null, missing: m ? m.join(' ') : null });
+      if (fast || f || m)
+        out.set(s.id, {
+          fast,
+          failing: f
+            ? `${plural(f.length, 'fixture')} downstream ${f.length === 1 ? 'fails' : 'fail'}: ${f.slice(0, 3).join(', ')}${f.length > 3 ? ', …' : ''}`
+            : null,
+          missing: m ? m.join(' ') : null,
+        });
     }
     // a segment the engine did not reach (e.g. before it computes) still gets its own missing marks
     for (const [segId, m] of missingBy) if (!out.has(segId) && toOf.has(segId)) out.set(segId, { fast: null, failing: null, missing: m.join(' ') });
@@ -58,7 +65,8 @@ export const SegmentFlags = memo(function SegmentFlags({ fast, failing, missing,
       ) : null}
       {failing ? (
         <span className="rounded border border-fault bg-fault-soft px-1.5 py-0.5 text-fault" data-flag="failing">
-          <span aria-hidden="true">▼ </span>{failing}
+          <span aria-hidden="true">▼ </span>
+          {failing}
         </span>
       ) : null}
       {missing ? (

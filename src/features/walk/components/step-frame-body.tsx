@@ -11,7 +11,17 @@ import { VerdictBar } from './verdict-bar';
  * side by side). Keyed by the draft's generation, so "Reload theirs" remounts the forms.
  * Every step (and the table) has the compact verdict bar, sticky at the top of the window.
  */
-export function StepFrameBody({ generation, live, withLedger, withBar = withLedger }: { generation: number; live: LiveAnalysis; withLedger: boolean; withBar?: boolean }) {
+export function StepFrameBody({
+  generation,
+  live,
+  withLedger,
+  withBar = withLedger,
+}: {
+  generation: number;
+  live: LiveAnalysis;
+  withLedger: boolean;
+  withBar?: boolean;
+}) {
   const walk = useContext(WalkContext);
   const resultHref = walk && walk.scope === 'design' ? walk.links.step('result') : null;
   return (

@@ -26,7 +26,9 @@ export const VerdictBar = memo(function VerdictBar({ live, resultHref }: { live:
         {critical ? (
           <span className="min-w-0 truncate">
             <span className="text-ink-soft">Critical: </span>
-            <span className="font-semibold" data-testid="bar-critical">{critical.label}</span>
+            <span className="font-semibold" data-testid="bar-critical">
+              {critical.label}
+            </span>
             <span className="ml-2 font-semibold tabular-nums" data-testid="bar-margin">
               {signed(critical.margin, 2)} {a.units.pressure}
             </span>

@@ -39,7 +39,12 @@ import { buildingPaths } from '../../building/paths';
 
 /** While leaving the walk: the last change being saved, or the question when a value cannot be saved. */
 function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
-  if (leaving.state === 'saving') return <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">Saving your last change before leaving…</p>;
+  if (leaving.state === 'saving')
+    return (
+      <p role="status" className="mb-2 text-sm font-semibold" data-testid="saving-before-leaving">
+        Saving your last change before leaving…
+      </p>
+    );
   if (leaving.state !== 'held') return null;
   return (
     <div className="mb-3" data-testid="leave-with-held">
@@ -49,7 +54,9 @@ function LeavingNote({ leaving, held }: { leaving: Leaving; held: number }) {
         actions={
           <>
             <Button onClick={leaving.stay}>Stay and correct it</Button>
-            <Button variant="secondary" onClick={leaving.leave}>Leave without it</Button>
+            <Button variant="secondary" onClick={leaving.leave}>
+              Leave without it
+            </Button>
           </>
         }
       >
@@ -128,7 +135,9 @@ function WalkFrame({ ids, project, system, revision, catalog }: { ids: WalkIds; 
           <Badge tone={STATUS_TONE[revision.status]}>
             Revision {revision.number} · {revision.status}
           </Badge>
-          <span className="text-sm text-ink-soft">{system.service === 'hot' ? 'Hot water' : 'Cold water'} · units {draft.document.unitSystem}</span>
+          <span className="text-sm text-ink-soft">
+            {system.service === 'hot' ? 'Hot water' : 'Cold water'} · units {draft.document.unitSystem}
+          </span>
           <ExportButton document={draft.document} fileName={`${system.name} revision ${revision.number}`} />
           <ReturnedSystemMark marker={system.returned} myRole={project.myRole} />
         </div>
@@ -168,14 +177,5 @@ export function WalkLayout() {
     if (query.isError) return <ErrorView error={query.error} onRetry={() => void query.refetch()} what="this system" />;
   }
   if (!project.data || !system.data || !revision.data || !catalog.data) return <Loading label="Opening the system…" />;
-  return (
-    <WalkFrame
-      key={revisionId}
-      ids={ids}
-      project={project.data.project}
-      system={system.data.system}
-      revision={revision.data}
-      catalog={catalog.data}
-    />
-  );
+  return <WalkFrame key={revisionId} ids={ids} project={project.data.project} system={system.data.system} revision={revision.data} catalog={catalog.data} />;
 }

@@ -28,15 +28,33 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
           <caption className="sr-only">Pressure zones: feed, floors, pressures, static check, critical fixture and verdict</caption>
           <thead>
             <tr className="border-b-2 border-rule text-left align-bottom">
-              <th scope="col" className="py-1 pr-3">Zone</th>
-              <th scope="col" className="py-1 pr-3">Fed by</th>
-              <th scope="col" className="py-1 pr-3 text-right">Setting ({u.pressure})</th>
-              <th scope="col" className="py-1 pr-3">Floors</th>
-              <th scope="col" className="py-1 pr-3 text-right">Highest residual ({u.pressure})</th>
-              <th scope="col" className="py-1 pr-3 text-right">Lowest residual ({u.pressure})</th>
-              <th scope="col" className="py-1 pr-3">Highest static ({u.pressure})</th>
-              <th scope="col" className="py-1 pr-3">Critical fixture, margin ({u.pressure})</th>
-              <th scope="col" className="py-1">Verdict</th>
+              <th scope="col" className="py-1 pr-3">
+                Zone
+              </th>
+              <th scope="col" className="py-1 pr-3">
+                Fed by
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Setting ({u.pressure})
+              </th>
+              <th scope="col" className="py-1 pr-3">
+                Floors
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Highest residual ({u.pressure})
+              </th>
+              <th scope="col" className="py-1 pr-3 text-right">
+                Lowest residual ({u.pressure})
+              </th>
+              <th scope="col" className="py-1 pr-3">
+                Highest static ({u.pressure})
+              </th>
+              <th scope="col" className="py-1 pr-3">
+                Critical fixture, margin ({u.pressure})
+              </th>
+              <th scope="col" className="py-1">
+                Verdict
+              </th>
             </tr>
           </thead>
           <tbody>
@@ -50,23 +68,43 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                 </th>
                 <td className="py-1 pr-3">
                   {z.feed.kind === 'supply' ? 'The supply' : z.feed.deviceLabel}
-                  {z.feed.kind !== 'supply' ? <span className="block text-xs text-ink-soft">{z.feed.kind === 'prv' ? 'pressure-reducing valve' : 'booster pump'}</span> : null}
+                  {z.feed.kind !== 'supply' ? (
+                    <span className="block text-xs text-ink-soft">{z.feed.kind === 'prv' ? 'pressure-reducing valve' : 'booster pump'}</span>
+                  ) : null}
                 </td>
                 <td className="py-1 pr-3 text-right tabular-nums">
                   {z.feed.pressure === null ? '—' : `${z.feed.setting === 'gain' ? 'gain ' : ''}${fmt(z.feed.pressure, 1)}`}
                 </td>
                 <td className="py-1 pr-3">{zoneFloorsWords(z, u.elevation)}</td>
                 <td className="py-1 pr-3 text-right tabular-nums">
-                  {z.highestResidual ? <>{fmt(z.highestResidual.pressure, 1)}<span className="block text-xs text-ink-soft">{z.highestResidual.where}</span></> : '—'}
+                  {z.highestResidual ? (
+                    <>
+                      {fmt(z.highestResidual.pressure, 1)}
+                      <span className="block text-xs text-ink-soft">{z.highestResidual.where}</span>
+                    </>
+                  ) : (
+                    '—'
+                  )}
                 </td>
                 <td className="py-1 pr-3 text-right tabular-nums">
-                  {z.lowestResidual ? <>{fmt(z.lowestResidual.pressure, 1)}<span className="block text-xs text-ink-soft">{z.lowestResidual.where}</span></> : '—'}
+                  {z.lowestResidual ? (
+                    <>
+                      {fmt(z.lowestResidual.pressure, 1)}
+                      <span className="block text-xs text-ink-soft">{z.lowestResidual.where}</span>
+                    </>
+                  ) : (
+                    '—'
+                  )}
                 </td>
                 <td className="py-1 pr-3" data-testid={`zone-static-${z.index}`}>
                   {z.highestStatic ? (
                     <>
                       <span className="tabular-nums">{fmt(z.highestStatic.pressure, 1)}</span>{' '}
-                      {z.highestStatic.pass ? `within the ${fmt(z.highestStatic.maximum, 0)} maximum` : <strong className="text-fault">over the {fmt(z.highestStatic.maximum, 0)} maximum</strong>}
+                      {z.highestStatic.pass ? (
+                        `within the ${fmt(z.highestStatic.maximum, 0)} maximum`
+                      ) : (
+                        <strong className="text-fault">over the {fmt(z.highestStatic.maximum, 0)} maximum</strong>
+                      )}
                       <span className="block text-xs text-ink-soft">{z.highestStatic.where}</span>
                     </>
                   ) : (

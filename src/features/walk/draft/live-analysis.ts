@@ -1,9 +1,7 @@
 import { safeAnalyzeSystem } from '../../../engine';
 import type { Analysis, SystemDocument } from '../../../engine';
 
-export type LiveAnalysis =
-  | { ok: true; analysis: Analysis; millis: number }
-  | { ok: false; message: string; element: string | null; millis: number };
+export type LiveAnalysis = { ok: true; analysis: Analysis; millis: number } | { ok: false; message: string; element: string | null; millis: number };
 
 /**
  * The engine's analysis of the draft, run in the browser. An input the engine refuses is an

@@ -89,28 +89,28 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
   );
 
   const send = async (doc: SystemDocument, atVersion?: number): Promise<number | null> => {
-      setState('saving');
-      stateRef.current = 'saving';
-      setFailure(null);
-      try {
-        const savedVersion = await store.save(doc, atVersion ?? versionRef.current);
-        setVersion(savedVersion);
-        versionRef.current = savedVersion;
-        // A change made while the request was out still needs saving.
-        savedDoc.current = doc;
-        const next = latest.current === doc ? 'saved' : 'unsaved';
-        setState(next);
-        stateRef.current = next;
-        return savedVersion;
-      } catch (error) {
-        if (isStaleVersion(error)) setState('conflict');
-        else {
-          setState('failed');
-          setFailure(errorMessage(error));
-        }
-        stateRef.current = isStaleVersion(error) ? 'conflict' : 'failed';
-        return null;
+    setState('saving');
+    stateRef.current = 'saving';
+    setFailure(null);
+    try {
+      const savedVersion = await store.save(doc, atVersion ?? versionRef.current);
+      setVersion(savedVersion);
+      versionRef.current = savedVersion;
+      // A change made while the request was out still needs saving.
+      savedDoc.current = doc;
+      const next = latest.current === doc ? 'saved' : 'unsaved';
+      setState(next);
+      stateRef.current = next;
+      return savedVersion;
+    } catch (error) {
+      if (isStaleVersion(error)) setState('conflict');
+      else {
+        setState('failed');
+        setFailure(errorMessage(error));
       }
+      stateRef.current = isStaleVersion(error) ? 'conflict' : 'failed';
+      return null;
+    }
   };
 
   /**
@@ -159,9 +159,23 @@ export function useDraft(store: DraftStore, initial: StoredDocument, editable: b
     versionRef.current = stored;
   }, []);
 
-  return { document, version, generation, state, failure, update, acknowledge, saveNow: () => saveNow(), flush, held, reportHeld,
+  return {
+    document,
+    version,
+    generation,
+    state,
+    failure,
+    update,
+    acknowledge,
+    saveNow: () => saveNow(),
+    flush,
+    held,
+    reportHeld,
     /** the version to act on (issue, propose): the saved one, after saving any change still pending */
-    versionToIssue: async () => (stateRef.current === 'saved' ? versionRef.current : saveNow()), reloadTheirs, keepMine };
+    versionToIssue: async () => (stateRef.current === 'saved' ? versionRef.current : saveNow()),
+    reloadTheirs,
+    keepMine,
+  };
 }
 
 export type Draft = ReturnType<typeof useDraft>;

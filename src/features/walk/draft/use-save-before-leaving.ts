@@ -19,7 +19,9 @@ export function useSaveBeforeLeaving(draft: Draft, editable: boolean, insideWalk
   const pending = editable && (draft.state !== 'saved' || draft.held.length > 0);
   const insideRef = useRef(insideWalk);
   insideRef.current = insideWalk;
-  const blocker = useBlocker(({ currentLocation, nextLocation }) => pending && currentLocation.pathname !== nextLocation.pathname && !insideRef.current(nextLocation.pathname));
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) => pending && currentLocation.pathname !== nextLocation.pathname && !insideRef.current(nextLocation.pathname),
+  );
   const flush = draft.flush;
   const heldCount = draft.held.length;
   useEffect(() => {

@@ -107,10 +107,7 @@ export interface FixtureGroupRow {
 }
 
 /** Fixture groups: three columns, node id, fixture type id, count (a whole number ≥ 1). */
-export function parseFixtureGroups(
-  text: string,
-  known: { nodeIds: ReadonlySet<string>; fixtureTypeIds: ReadonlySet<string> },
-): CsvResult<FixtureGroupRow> {
+export function parseFixtureGroups(text: string, known: { nodeIds: ReadonlySet<string>; fixtureTypeIds: ReadonlySet<string> }): CsvResult<FixtureGroupRow> {
   const read = readDelimited(text);
   const errors = [...read.errors];
   const rows: FixtureGroupRow[] = [];
@@ -123,7 +120,8 @@ export function parseFixtureGroups(
     const count = Number(countText);
     if (!known.nodeIds.has(nodeId)) errors.push(`Line ${line}: there is no node “${nodeId}” in this system.`);
     else if (!known.fixtureTypeIds.has(fixtureTypeId)) errors.push(`Line ${line}: “${fixtureTypeId}” is not a fixture type in the catalog.`);
-    else if (!isNumber(countText) || !Number.isInteger(count) || count < 1) errors.push(`Line ${line}: the count “${countText}” is not a whole number of 1 or more.`);
+    else if (!isNumber(countText) || !Number.isInteger(count) || count < 1)
+      errors.push(`Line ${line}: the count “${countText}” is not a whole number of 1 or more.`);
     else rows.push({ nodeId, fixtureTypeId, count });
   }
   if (rows.length === 0 && errors.length === 0) errors.push('No fixture groups found: lines of “node id, fixture type id, count” were expected.');

@@ -14,10 +14,14 @@ export class RefusedNumber {
 }
 
 export function parseNumberText(text: string): number | undefined | RefusedNumber {
-  const t = text.trim().replace(/\u2212/g, '-').replace(/\s+/g, '');
+  const t = text
+    .trim()
+    .replace(/\u2212/g, '-')
+    .replace(/\s+/g, '');
   if (t === '') return undefined;
   if (t.includes(',')) {
-    if (/^[+-]?\d{1,3},\d{3}$/.test(t)) return new RefusedNumber(text, `“${text.trim()}” is unclear: write ${t.replace(',', '')}, or ${t.replace(',', '.')} with a decimal point`);
+    if (/^[+-]?\d{1,3},\d{3}$/.test(t))
+      return new RefusedNumber(text, `“${text.trim()}” is unclear: write ${t.replace(',', '')}, or ${t.replace(',', '.')} with a decimal point`);
     // refused rather than guessed: the point version is offered, so nothing is read as another number
     if (/^[+-]?\d*,\d+$/.test(t)) return new RefusedNumber(text, `Use a decimal point: write ${t.replace(',', '.')}`);
     return new RefusedNumber(text, 'Use a decimal point and no thousands separators (e.g. 1250.5)');
@@ -33,9 +37,6 @@ export function numberOrUndefined(value: unknown): number | undefined | RefusedN
 }
 
 export const numberInput = { setValueAs: numberOrUndefined } as const;
-
-/** The props of a number box: a text box with the decimal keypad, so the typed text reaches the parser. */
-export const NUMBER_BOX = { type: 'text', inputMode: 'decimal', autoComplete: 'off' } as const;
 
 /** zod's messages in the words of the screen. */
 export function plainError(message: string | undefined): string | undefined {

@@ -65,11 +65,7 @@ function valueAt(values: unknown, path: string): unknown {
  * typing; a value that does not pass stays in the form with its message, does not reach the
  * draft, and is reported to the draft so the save state says it is not saved.
  */
-export function useLiveForm<T extends FieldValues, S extends z.ZodType>(
-  schema: S,
-  defaultValues: T,
-  apply: (values: z.output<S>) => void,
-) {
+export function useLiveForm<T extends FieldValues, S extends z.ZodType>(schema: S, defaultValues: T, apply: (values: z.output<S>) => void) {
   const walk = useContext(WalkContext);
   const system: UnitSystem = walk?.document.unitSystem ?? 'US';
   const report = walk?.draft.reportHeld;
@@ -96,7 +92,9 @@ export function useLiveForm<T extends FieldValues, S extends z.ZodType>(
       const parsed = schema.safeParse(values);
       if (parsed.success && checks.length === 0) applyRef.current(parsed.data);
       if (report) {
-        const issues = parsed.success ? [] : parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: plainError(i.message) ?? i.message }));
+        const issues = parsed.success
+          ? []
+          : parsed.error.issues.map((i) => ({ path: i.path.map(String).join('.'), message: plainError(i.message) ?? i.message }));
         const seen = new Set(checks.map((c) => c.path));
         report(formKey, [...checks, ...issues.filter((i) => !seen.has(i.path))]);
       }

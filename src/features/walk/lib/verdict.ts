@@ -55,16 +55,6 @@ export function stepOfReason(reason: Pick<IncompleteReason, 'code' | 'elementTyp
   return 'result';
 }
 
-/** Incomplete reasons that concern one segment (or its downstream node): shown on its card and row. */
-export function reasonsForSegment(analysis: Analysis | null, doc: SystemDocument, segmentId: string): IncompleteReason[] {
-  if (!analysis) return [];
-  const seg = doc.segments.find((s) => s.id === segmentId);
-  if (!seg) return [];
-  return (analysis.verdict.incomplete ?? []).filter(
-    (r) => (r.elementType === 'segment' && r.elementId === segmentId) || (r.elementType === 'node' && r.elementId === seg.to),
-  );
-}
-
 /**
  * The checked fixtures that fail downstream of each segment: a segment's flag says "a fixture it
  * feeds fails", so the designer sees where on the tree the margin is lost.

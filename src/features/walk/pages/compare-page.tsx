@@ -49,30 +49,52 @@ export function ComparePage() {
       {data ? (
         <div className="flex flex-col gap-6">
           <p className="flex flex-wrap items-center gap-4" data-testid="compare-verdicts">
-            <span>Revision {data.a.number}: <VerdictMark verdict={revisionVerdict(data.a.verdict)} /></span>
-            <span>Revision {data.b.number}: <VerdictMark verdict={revisionVerdict(data.b.verdict)} /></span>
+            <span>
+              Revision {data.a.number}: <VerdictMark verdict={revisionVerdict(data.a.verdict)} />
+            </span>
+            <span>
+              Revision {data.b.number}: <VerdictMark verdict={revisionVerdict(data.b.verdict)} />
+            </span>
           </p>
           <Section title={`Checked fixtures: revision ${data.a.number} → revision ${data.b.number}`}>
             <table className="w-full text-sm" data-testid="compare-fixtures">
               <caption className="sr-only">Margin of every checked fixture in both revisions</caption>
               <thead>
                 <tr className="border-b-2 border-rule text-left">
-                  <th scope="col" className="py-1 pr-3">Fixture</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Margin A ({u})</th>
-                  <th scope="col" className="py-1 pr-3">A</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Margin B ({u})</th>
-                  <th scope="col" className="py-1 pr-3">B</th>
-                  <th scope="col" className="py-1 text-right">Difference B − A</th>
+                  <th scope="col" className="py-1 pr-3">
+                    Fixture
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right">
+                    Margin A ({u})
+                  </th>
+                  <th scope="col" className="py-1 pr-3">
+                    A
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right">
+                    Margin B ({u})
+                  </th>
+                  <th scope="col" className="py-1 pr-3">
+                    B
+                  </th>
+                  <th scope="col" className="py-1 text-right">
+                    Difference B − A
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {data.fixtures.map((f) => (
                   <tr key={f.id} className="border-b border-rule" data-testid={`compare-${f.id}`}>
-                    <th scope="row" className="py-1 pr-3 text-left font-normal">{f.label}</th>
+                    <th scope="row" className="py-1 pr-3 text-left font-normal">
+                      {f.label}
+                    </th>
                     <td className="py-1 pr-3 text-right tabular-nums">{f.marginA === null ? 'not in A' : signed(f.marginA, 2)}</td>
-                    <td className="py-1 pr-3"><VerdictMark verdict={fixtureVerdict(f.passA, data.a.verdict.status)} /></td>
+                    <td className="py-1 pr-3">
+                      <VerdictMark verdict={fixtureVerdict(f.passA, data.a.verdict.status)} />
+                    </td>
                     <td className="py-1 pr-3 text-right tabular-nums">{f.marginB === null ? 'not in B' : signed(f.marginB, 2)}</td>
-                    <td className="py-1 pr-3"><VerdictMark verdict={fixtureVerdict(f.passB, data.b.verdict.status)} /></td>
+                    <td className="py-1 pr-3">
+                      <VerdictMark verdict={fixtureVerdict(f.passB, data.b.verdict.status)} />
+                    </td>
                     <td className="py-1 text-right tabular-nums">{f.delta === null ? '—' : signed(f.delta, 2)}</td>
                   </tr>
                 ))}

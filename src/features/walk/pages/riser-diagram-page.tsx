@@ -1,6 +1,15 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Button } from '../../../components/ui/button';
-import { fixtureVerdict, VERDICT_COLOUR, VERDICT_WORDS, VerdictGlyph, VerdictMark, VerdictShape, verdictOfStatus, type Verdict } from '../../systems/components/verdict-mark';
+import {
+  fixtureVerdict,
+  VERDICT_COLOUR,
+  VERDICT_WORDS,
+  VerdictGlyph,
+  VerdictMark,
+  VerdictShape,
+  verdictOfStatus,
+  type Verdict,
+} from '../../systems/components/verdict-mark';
 import { liveStatus, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 import { fmt, signed } from '../lib/format';
@@ -63,7 +72,9 @@ export function RiserDiagramPage() {
     return (
       <div className="flex flex-col gap-3">
         <h2 className="text-2xl">Riser diagram</h2>
-        <p className="text-fault">Not computed: {live.ok ? '' : live.message}. The diagram is drawn once the system computes: fix the input named here in the walk.</p>
+        <p className="text-fault">
+          Not computed: {live.ok ? '' : live.message}. The diagram is drawn once the system computes: fix the input named here in the walk.
+        </p>
       </div>
     );
   }
@@ -100,12 +111,24 @@ export function RiserDiagramPage() {
         <VerdictMark verdict={verdictOfStatus(status)} />
       </div>
       <div className="print-hide flex flex-wrap items-center gap-2" role="group" aria-label="Zoom and print">
-        <Button variant={fit ? 'primary' : 'secondary'} onClick={() => setZoom('fit')} aria-pressed={fit}>Fit to width</Button>
-        <Button variant="secondary" onClick={() => stepBy(1 / ZOOM_STEP)} aria-label="Zoom out">−</Button>
-        <span className="min-w-16 text-center text-sm tabular-nums" aria-live="polite" data-testid="riser-zoom">{fit ? 'fitted' : `${Math.round(zoom * 100)} %`}</span>
-        <Button variant="secondary" onClick={() => stepBy(ZOOM_STEP)} aria-label="Zoom in">+</Button>
-        <Button variant="secondary" onClick={() => setZoom(1)}>Printed size</Button>
-        <Button variant="secondary" onClick={() => window.print()}>Print</Button>
+        <Button variant={fit ? 'primary' : 'secondary'} onClick={() => setZoom('fit')} aria-pressed={fit}>
+          Fit to width
+        </Button>
+        <Button variant="secondary" onClick={() => stepBy(1 / ZOOM_STEP)} aria-label="Zoom out">
+          −
+        </Button>
+        <span className="min-w-16 text-center text-sm tabular-nums" aria-live="polite" data-testid="riser-zoom">
+          {fit ? 'fitted' : `${Math.round(zoom * 100)} %`}
+        </span>
+        <Button variant="secondary" onClick={() => stepBy(ZOOM_STEP)} aria-label="Zoom in">
+          +
+        </Button>
+        <Button variant="secondary" onClick={() => setZoom(1)}>
+          Printed size
+        </Button>
+        <Button variant="secondary" onClick={() => window.print()}>
+          Print
+        </Button>
         <span className="text-sm text-ink-soft">Ctrl + wheel over the diagram zooms too.</span>
       </div>
       <div
@@ -129,7 +152,9 @@ export function RiserDiagramPage() {
         >
           <title id="riser-title">Riser diagram of {document.name}</title>
           <desc id="riser-desc">
-            {plural(diagram.pipes.length, 'segment')} from the source, heights to scale; {plural(diagram.levels.length, 'level')}; {plural(diagram.devices.length, 'device')}; {plural(fixtures.length, 'checked fixture')}, {passCount} pass and {fixtures.length - passCount} fail; the verdict is {VERDICT_WORDS[verdictOfStatus(status)].toLowerCase()}.
+            {plural(diagram.pipes.length, 'segment')} from the source, heights to scale; {plural(diagram.levels.length, 'level')};{' '}
+            {plural(diagram.devices.length, 'device')}; {plural(fixtures.length, 'checked fixture')}, {passCount} pass and {fixtures.length - passCount} fail;
+            the verdict is {VERDICT_WORDS[verdictOfStatus(status)].toLowerCase()}.
           </desc>
           {items.map((item, k) => (
             <DrawnItem key={k} item={item} areaHeight={area.height} />
@@ -145,10 +170,19 @@ export function RiserDiagramPage() {
             return [
               <g key={`f-${f.id}`} data-testid={`diagram-fixture-${f.id}`} data-verdict={verdict} color={VERDICT_COLOUR[verdict]}>
                 <title>{full}</title>
-                <g transform={`translate(${item.x + item.width / 2 - 3},${svgY(area, item.y + item.height / 2) - 3}) scale(${GLYPH_SCALE})`} data-shape={verdict}>
+                <g
+                  transform={`translate(${item.x + item.width / 2 - 3},${svgY(area, item.y + item.height / 2) - 3}) scale(${GLYPH_SCALE})`}
+                  data-shape={verdict}
+                >
                   <VerdictGlyph verdict={verdict} />
                 </g>
-                <text transform={`translate(${x},${y}) rotate(-90)`} fontSize={FIXTURE_LABEL_SIZE} fill="currentColor" fontWeight={critical ? 700 : 400} {...HALO}>
+                <text
+                  transform={`translate(${x},${y}) rotate(-90)`}
+                  fontSize={FIXTURE_LABEL_SIZE}
+                  fill="currentColor"
+                  fontWeight={critical ? 700 : 400}
+                  {...HALO}
+                >
                   {shown}
                 </text>
               </g>,
@@ -157,8 +191,10 @@ export function RiserDiagramPage() {
         </svg>
       </div>
       <p className="text-sm text-ink-soft">
-        Schematic, heights to scale (each node at its elevation, {diagram.lengthUnit}); branches spread sideways. Pipes are labelled with nominal size and material; risers are drawn heavier. Devices:{' '}
-        {tags.length ? tags.map((t) => `${t} ${DEVICE_TAG_WORDS[t]}`).join(', ') : 'none'}. Beside each checked fixture, its margin ({units.pressure}) and verdict: <VerdictShape verdict="pass" /> pass · <VerdictShape verdict="fail" /> FAIL · <VerdictShape verdict="incomplete" /> incomplete (the description is not complete yet).
+        Schematic, heights to scale (each node at its elevation, {diagram.lengthUnit}); branches spread sideways. Pipes are labelled with nominal size and
+        material; risers are drawn heavier. Devices: {tags.length ? tags.map((t) => `${t} ${DEVICE_TAG_WORDS[t]}`).join(', ') : 'none'}. Beside each checked
+        fixture, its margin ({units.pressure}) and verdict: <VerdictShape verdict="pass" /> pass · <VerdictShape verdict="fail" /> FAIL ·{' '}
+        <VerdictShape verdict="incomplete" /> incomplete (the description is not complete yet).
       </p>
       <section className="riser-key flex flex-col gap-2" aria-label="Levels, devices and checked fixtures" data-testid="riser-key">
         <h3 className="text-lg">Levels, devices and checked fixtures</h3>
@@ -190,10 +226,12 @@ export function RiserDiagramPage() {
                   const verdict = fixtureVerdict(f.pass, status);
                   return (
                     <li key={f.id} className="break-inside-avoid" data-testid={`key-fixture-${f.id}`}>
-                      <VerdictShape verdict={verdict} size={12} />{' '}
-                      {f.label}: {signed(f.margin, 1)} {units.pressure} {verdictText(verdict)}
+                      <VerdictShape verdict={verdict} size={12} /> {f.label}: {signed(f.margin, 1)} {units.pressure} {verdictText(verdict)}
                       {analysis.criticalFixtureId === f.id ? ' (critical)' : ''}
-                      <span className="text-ink-soft"> · residual {fmt(f.residual, 1)} {units.pressure}</span>
+                      <span className="text-ink-soft">
+                        {' '}
+                        · residual {fmt(f.residual, 1)} {units.pressure}
+                      </span>
                     </li>
                   );
                 })}
@@ -213,7 +251,13 @@ const GLYPH_SCALE = 6 / 16;
  * pipe labels do) on the right of its drop: the drop's own size label sits on the left (its
  * ascent is 0.8 em, the layout's bound), and the next column is at least 11 pt away.
  */
-function fixtureLabel(marker: { x: number; y: number; width: number; height: number }, margin: number, verdict: Verdict, critical: boolean, areaHeight: number) {
+function fixtureLabel(
+  marker: { x: number; y: number; width: number; height: number },
+  margin: number,
+  verdict: Verdict,
+  critical: boolean,
+  areaHeight: number,
+) {
   const x = marker.x + marker.width / 2 + 1 + FIXTURE_LABEL_SIZE * 0.8;
   // above the verdict's shape (6 pt across, centred on the marker)
   const y = areaHeight - (marker.y + marker.height / 2) - 4;
@@ -252,7 +296,9 @@ function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number })
     </text>
   );
   // a shortened text keeps its whole wording as the tooltip (and in the key below the diagram)
-  return text === item.text ? drawn : (
+  return text === item.text ? (
+    drawn
+  ) : (
     <g>
       <title>{item.text}</title>
       {drawn}

@@ -20,21 +20,23 @@ import { followTypedRises } from '../lib/rises';
 const optionalText = z.preprocess((v) => (v === '' ? undefined : v), z.string().optional());
 export const segmentTableSchema = z.object({
   segments: z.array(
-    z.object({
-      id: z.string(),
-      material: optionalText,
-      size: optionalText,
-      length: z.number({ error: 'Enter a number' }).positive('Must be more than zero'),
-      rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise),
-      /** set when a project material and size are chosen: the pipe data copied from the entry */
-      custom: z.unknown().optional(),
-    }).transform((r, ctx) => {
-      if (projectEntryIdOf(r.material) === null) return { ...r, custom: undefined };
-      const pipe = CustomPipeSchema.safeParse(r.custom);
-      if (pipe.success) return { ...r, custom: pipe.data };
-      ctx.addIssue({ code: 'custom', path: ['size'], message: 'Choose a size of the project material' });
-      return z.NEVER;
-    }),
+    z
+      .object({
+        id: z.string(),
+        material: optionalText,
+        size: optionalText,
+        length: z.number({ error: 'Enter a number' }).positive('Must be more than zero'),
+        rise: z.preprocess((v) => (typeof v === 'number' && Number.isNaN(v) ? undefined : v), SegmentSchema.shape.rise),
+        /** set when a project material and size are chosen: the pipe data copied from the entry */
+        custom: z.unknown().optional(),
+      })
+      .transform((r, ctx) => {
+        if (projectEntryIdOf(r.material) === null) return { ...r, custom: undefined };
+        const pipe = CustomPipeSchema.safeParse(r.custom);
+        if (pipe.success) return { ...r, custom: pipe.data };
+        ctx.addIssue({ code: 'custom', path: ['size'], message: 'Choose a size of the project material' });
+        return z.NEVER;
+      }),
   ),
 });
 type Row = { id: string; material: string; size: string; length: number; rise?: number; custom?: CustomPipe };
@@ -100,16 +102,50 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
       <td className="py-1 pr-2">{p.from}</td>
       <td className="py-1 pr-2">{p.to}</td>
       <td className="min-w-40 py-1 pr-2">
-        <CellSelect label={`${p.name} material`} options={p.materialOptions} {...p.register(`segments.${i}.material`, { onChange: () => { p.setValue(`segments.${i}.size`, '', { shouldValidate: true }); p.onPipeChange(i); } })} />
+        <CellSelect
+          label={`${p.name} material`}
+          options={p.materialOptions}
+          {...p.register(`segments.${i}.material`, {
+            onChange: () => {
+              p.setValue(`segments.${i}.size`, '', { shouldValidate: true });
+              p.onPipeChange(i);
+            },
+          })}
+        />
       </td>
       <td className="min-w-36 py-1 pr-2">
-        <CellSelect label={`${p.name} size`} options={p.sizeOptions} error={p.sizeError} {...p.register(`segments.${i}.size`, { onChange: () => p.onPipeChange(i) })} />
+        <CellSelect
+          label={`${p.name} size`}
+          options={p.sizeOptions}
+          error={p.sizeError}
+          {...p.register(`segments.${i}.size`, { onChange: () => p.onPipeChange(i) })}
+        />
       </td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} length (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" error={p.lengthError} {...p.register(`segments.${i}.length`, numberInput)} /></td>
-      <td className="w-24 py-1 pr-2"><CellInput label={`${p.name} rise (${p.lengthUnit})`} type="text" inputMode="decimal" autoComplete="off" {...p.register(`segments.${i}.rise`, numberInput)} /></td>
+      <td className="w-24 py-1 pr-2">
+        <CellInput
+          label={`${p.name} length (${p.lengthUnit})`}
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          error={p.lengthError}
+          {...p.register(`segments.${i}.length`, numberInput)}
+        />
+      </td>
+      <td className="w-24 py-1 pr-2">
+        <CellInput
+          label={`${p.name} rise (${p.lengthUnit})`}
+          type="text"
+          inputMode="decimal"
+          autoComplete="off"
+          {...p.register(`segments.${i}.rise`, numberInput)}
+        />
+      </td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.wsfu, 1)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.flow, 1)}</td>
-      <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.velocity, 2)}{p.fast ? ' ▲ over' : ''}</td>
+      <td className="py-1 pr-2 text-right tabular-nums">
+        {fmt(p.velocity, 2)}
+        {p.fast ? ' ▲ over' : ''}
+      </td>
       <td className="py-1 text-right tabular-nums">{p.loss === undefined ? '—' : fmt(p.loss, 3)}</td>
     </tr>
   );
@@ -140,17 +176,32 @@ export function SegmentTablePage() {
   const [defaults] = useState<{ segments: Row[] }>(() => ({
     segments: document.segments.map((s) => {
       const match = s.material ? null : matchProjectPipe(s.custom, project.of('material'), document.unitSystem);
-      return { id: s.id, material: match ? projectOptionValue(match.entryId) : s.material ?? '', size: match ? match.sizeKey : s.size ?? '', length: s.length, rise: s.rise, custom: s.custom };
+      return {
+        id: s.id,
+        material: match ? projectOptionValue(match.entryId) : (s.material ?? ''),
+        size: match ? match.sizeKey : (s.size ?? ''),
+        length: s.length,
+        rise: s.rise,
+        custom: s.custom,
+      };
     }),
   }));
   const form = useLiveForm(segmentTableSchema, defaults, (v) => draft.update((doc) => applySegmentTable(doc, v)));
-  const { register, watch, setValue, getValues, formState: { errors } } = form;
+  const {
+    register,
+    watch,
+    setValue,
+    getValues,
+    formState: { errors },
+  } = form;
   const projectRef = useRef(project);
   projectRef.current = project;
   const onPipeChange = useCallback(
     (i: number) => {
       const entry = projectRef.current.find('material', projectEntryIdOf(getValues(`segments.${i}.material`)));
-      setValue(`segments.${i}.custom`, entry ? pipeFromProjectEntry(entry, getValues(`segments.${i}.size`), document.unitSystem) ?? undefined : undefined, { shouldValidate: true });
+      setValue(`segments.${i}.custom`, entry ? (pipeFromProjectEntry(entry, getValues(`segments.${i}.size`), document.unitSystem) ?? undefined) : undefined, {
+        shouldValidate: true,
+      });
     },
     [getValues, setValue, document.unitSystem],
   );
@@ -167,17 +218,28 @@ export function SegmentTablePage() {
     const s = seg.get(r.id);
     const res = results.get(r.id);
     switch (key) {
-      case 'id': return s?.label || r.id;
-      case 'from': return s?.from ?? '';
-      case 'to': return s?.to ?? '';
-      case 'material': return r.material;
-      case 'size': return catalog.material(r.material)?.data.sizes.find((z) => z.key === r.size)?.nominalIn ?? 0;
-      case 'length': return r.length;
-      case 'rise': return r.rise ?? 0;
-      case 'wsfu': return res?.wsfu ?? 0;
-      case 'flow': return res?.designFlow ?? 0;
-      case 'velocity': return res?.velocity ?? 0;
-      case 'loss': return (res?.frictionLoss ?? 0) + (res?.fittingLoss ?? 0);
+      case 'id':
+        return s?.label || r.id;
+      case 'from':
+        return s?.from ?? '';
+      case 'to':
+        return s?.to ?? '';
+      case 'material':
+        return r.material;
+      case 'size':
+        return catalog.material(r.material)?.data.sizes.find((z) => z.key === r.size)?.nominalIn ?? 0;
+      case 'length':
+        return r.length;
+      case 'rise':
+        return r.rise ?? 0;
+      case 'wsfu':
+        return res?.wsfu ?? 0;
+      case 'flow':
+        return res?.designFlow ?? 0;
+      case 'velocity':
+        return res?.velocity ?? 0;
+      case 'loss':
+        return (res?.frictionLoss ?? 0) + (res?.fittingLoss ?? 0);
     }
   };
   const needle = filter.trim().toLowerCase();
@@ -194,28 +256,52 @@ export function SegmentTablePage() {
       return (typeof a === 'number' && typeof b === 'number' ? a - b : COLLATOR.compare(String(a), String(b))) * sort.dir;
     });
   const materialOptions = useMemo(
-    () => [{ value: '', label: 'Custom / none' }, ...catalog.materials.map((m) => ({ value: m.id, label: m.label })), ...project.of('material').map((m) => ({ value: projectOptionValue(m.id), label: `${m.label} — project` }))],
+    () => [
+      { value: '', label: 'Custom / none' },
+      ...catalog.materials.map((m) => ({ value: m.id, label: m.label })),
+      ...project.of('material').map((m) => ({ value: projectOptionValue(m.id), label: `${m.label} — project` })),
+    ],
     [catalog, project],
   );
   const sizeOptionsByMaterial = useMemo(() => {
     const map = new Map<string, { value: string; label: string }[]>();
     for (const m of catalog.materials) {
-      map.set(m.id, [{ value: '', label: '—' }, ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` }))]);
+      map.set(m.id, [
+        { value: '', label: '—' },
+        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` })),
+      ]);
     }
     for (const m of project.of('material')) {
-      map.set(projectOptionValue(m.id), [{ value: '', label: '—' }, ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` }))]);
+      map.set(projectOptionValue(m.id), [
+        { value: '', label: '—' },
+        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` })),
+      ]);
     }
     return map;
   }, [catalog, project, sys]);
   const noSizes = useMemo(() => [{ value: '', label: '—' }], []);
   const sizeOptionsFor = (materialId: string) => sizeOptionsByMaterial.get(materialId) ?? noSizes;
-  const unitOf: Partial<Record<SortKey, string>> = { length: units.length, rise: units.length, flow: units.flow, velocity: units.velocity, loss: units.pressure };
+  const unitOf: Partial<Record<SortKey, string>> = {
+    length: units.length,
+    rise: units.length,
+    flow: units.flow,
+    velocity: units.velocity,
+    loss: units.pressure,
+  };
 
   return (
     <div className="flex flex-col gap-4">
       <h2 className="text-2xl">Segment table</h2>
-      <TextField label="Filter segments" hint="By id, name, node, material or size." value={filter} onChange={(ev) => setFilter(ev.target.value)} className="max-w-sm" />
-      <p className="text-sm text-ink-soft" aria-live="polite">{visible.length} of {plural(rows.length, 'segment')} shown.</p>
+      <TextField
+        label="Filter segments"
+        hint="By id, name, node, material or size."
+        value={filter}
+        onChange={(ev) => setFilter(ev.target.value)}
+        className="max-w-sm"
+      />
+      <p className="text-sm text-ink-soft" aria-live="polite">
+        {visible.length} of {plural(rows.length, 'segment')} shown.
+      </p>
       <div className="grid gap-6 xl:grid-cols-[minmax(0,1fr)_20rem]">
         <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Segment table" className="min-w-0 overflow-x-auto [contain:layout_paint]">
           <fieldset disabled={readOnlyReason !== null}>
@@ -225,8 +311,13 @@ export function SegmentTablePage() {
                 <tr className="border-b-2 border-rule text-left">
                   {COLUMNS.map((c) => (
                     <th key={c.key} scope="col" className="py-1 pr-2" aria-sort={sort.key === c.key ? (sort.dir === 1 ? 'ascending' : 'descending') : 'none'}>
-                      <button type="button" className="font-semibold text-standpipe underline-offset-2 hover:underline" onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? (s.dir === 1 ? -1 : 1) : 1 }))}>
-                        {c.label}{unitOf[c.key] ? ` (${unitOf[c.key]})` : ''}
+                      <button
+                        type="button"
+                        className="font-semibold text-standpipe underline-offset-2 hover:underline"
+                        onClick={() => setSort((s) => ({ key: c.key, dir: s.key === c.key ? (s.dir === 1 ? -1 : 1) : 1 }))}
+                      >
+                        {c.label}
+                        {unitOf[c.key] ? ` (${unitOf[c.key]})` : ''}
                         <span aria-hidden="true">{sort.key === c.key ? (sort.dir === 1 ? ' ▲' : ' ▼') : ''}</span>
                       </button>
                     </th>

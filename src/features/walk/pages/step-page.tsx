@@ -43,7 +43,11 @@ export function StepPager({ previous, next, href }: { previous?: StepLink; next?
   return (
     <nav aria-label="Previous and next step" className="mt-8 flex flex-wrap justify-between gap-3 border-t-2 border-rule pt-4 print:hidden">
       {previous ? <Link to={href(previous.id)}>← {previous.label}</Link> : <span />}
-      {next ? <Link to={href(next.id)} className="font-semibold">Next: {next.label} →</Link> : null}
+      {next ? (
+        <Link to={href(next.id)} className="font-semibold">
+          Next: {next.label} →
+        </Link>
+      ) : null}
     </nav>
   );
 }

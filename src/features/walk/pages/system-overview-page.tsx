@@ -27,7 +27,11 @@ export function RevisionVerdictText({ revision }: { revision: RevisionSummary })
   return (
     <span className="flex flex-wrap items-center gap-2">
       <VerdictMark verdict={revisionVerdict(v)} />
-      {v.criticalMargin !== null ? <span className="text-sm">critical margin {signed(v.criticalMargin, 2)}</span> : <span className="text-sm text-ink-muted">no checked fixtures</span>}
+      {v.criticalMargin !== null ? (
+        <span className="text-sm">critical margin {signed(v.criticalMargin, 2)}</span>
+      ) : (
+        <span className="text-sm text-ink-muted">no checked fixtures</span>
+      )}
       {v.warningCount ? <span className="text-sm text-ink-muted">{plural(v.warningCount, 'warning')}</span> : null}
     </span>
   );
@@ -64,7 +68,10 @@ export function SystemOverviewPage() {
         subtitle={`${info.service === 'hot' ? 'Hot water' : 'Cold water'} system · ${plural(revisions.length, 'revision')}`}
         actions={
           current ? (
-            <Link className="rounded-md border-2 border-standpipe bg-standpipe px-4 py-2 text-sm font-semibold text-paper no-underline hover:text-paper" to={walkPaths.step.getHref(projectId, systemId, current.id, 'supply')}>
+            <Link
+              className="rounded-md border-2 border-standpipe bg-standpipe px-4 py-2 text-sm font-semibold text-paper no-underline hover:text-paper"
+              to={walkPaths.step.getHref(projectId, systemId, current.id, 'supply')}
+            >
               {current.status === 'draft' ? `Walk the draft (revision ${current.number})` : `Open revision ${current.number}`}
             </Link>
           ) : null
@@ -76,26 +83,52 @@ export function SystemOverviewPage() {
             <caption className="sr-only">Revisions of {info.name}, newest first</caption>
             <thead>
               <tr className="border-b-2 border-rule text-left">
-                <th scope="col" className="py-1 pr-3">Revision</th>
-                <th scope="col" className="py-1 pr-3">Status</th>
-                <th scope="col" className="py-1 pr-3">Verdict</th>
-                <th scope="col" className="py-1 pr-3">Issued</th>
-                <th scope="col" className="py-1">Open</th>
+                <th scope="col" className="py-1 pr-3">
+                  Revision
+                </th>
+                <th scope="col" className="py-1 pr-3">
+                  Status
+                </th>
+                <th scope="col" className="py-1 pr-3">
+                  Verdict
+                </th>
+                <th scope="col" className="py-1 pr-3">
+                  Issued
+                </th>
+                <th scope="col" className="py-1">
+                  Open
+                </th>
               </tr>
             </thead>
             <tbody>
               {revisions.map((r) => (
                 <tr key={r.id} className="border-b border-rule" data-testid={`revision-${r.number}`}>
-                  <th scope="row" className="py-2 pr-3 text-left">{r.number}</th>
-                  <td className="py-2 pr-3"><Badge tone={STATUS_TONE[r.status]}>{r.status}</Badge></td>
-                  <td className="py-2 pr-3"><RevisionVerdictText revision={r} /></td>
-                  <td className="py-2 pr-3">{r.issuedAt ? `${formatDateTime(r.issuedAt)}${r.issuedBy ? ` by ${r.issuedBy}` : ''}` : `changed ${formatDateTime(r.updatedAt)}`}</td>
+                  <th scope="row" className="py-2 pr-3 text-left">
+                    {r.number}
+                  </th>
+                  <td className="py-2 pr-3">
+                    <Badge tone={STATUS_TONE[r.status]}>{r.status}</Badge>
+                  </td>
+                  <td className="py-2 pr-3">
+                    <RevisionVerdictText revision={r} />
+                  </td>
+                  <td className="py-2 pr-3">
+                    {r.issuedAt ? `${formatDateTime(r.issuedAt)}${r.issuedBy ? ` by ${r.issuedBy}` : ''}` : `changed ${formatDateTime(r.updatedAt)}`}
+                  </td>
                   <td className="py-2">
                     <span className="flex flex-wrap gap-3">
-                      <Link to={walkPaths.step.getHref(projectId, systemId, r.id, 'result')} aria-label={`Result of revision ${r.number}`}>Result</Link>
-                      <Link to={walkPaths.step.getHref(projectId, systemId, r.id, 'supply')} aria-label={`Walk revision ${r.number}`}>Walk</Link>
-                      <Link to={walkPaths.table.getHref(projectId, systemId, r.id)} aria-label={`Segment table of revision ${r.number}`}>Table</Link>
-                      <Link to={walkPaths.diagram.getHref(projectId, systemId, r.id)} aria-label={`Riser diagram of revision ${r.number}`}>Diagram</Link>
+                      <Link to={walkPaths.step.getHref(projectId, systemId, r.id, 'result')} aria-label={`Result of revision ${r.number}`}>
+                        Result
+                      </Link>
+                      <Link to={walkPaths.step.getHref(projectId, systemId, r.id, 'supply')} aria-label={`Walk revision ${r.number}`}>
+                        Walk
+                      </Link>
+                      <Link to={walkPaths.table.getHref(projectId, systemId, r.id)} aria-label={`Segment table of revision ${r.number}`}>
+                        Table
+                      </Link>
+                      <Link to={walkPaths.diagram.getHref(projectId, systemId, r.id)} aria-label={`Riser diagram of revision ${r.number}`}>
+                        Diagram
+                      </Link>
                     </span>
                   </td>
                 </tr>
@@ -116,7 +149,9 @@ export function SystemOverviewPage() {
             >
               <SelectField label="Revision A (before)" options={options} value={pickA} onChange={(ev) => setA(ev.target.value)} />
               <SelectField label="Revision B (after)" options={options} value={pickB} onChange={(ev) => setB(ev.target.value)} />
-              <Button type="submit" disabled={!pickA || !pickB || pickA === pickB}>Compare</Button>
+              <Button type="submit" disabled={!pickA || !pickB || pickA === pickB}>
+                Compare
+              </Button>
             </form>
             <p className="mt-2 text-sm text-ink-soft">A positive difference means revision B leaves the fixture more pressure than A.</p>
           </Section>

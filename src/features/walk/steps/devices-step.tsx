@@ -61,7 +61,16 @@ const row = z
     if (parsed.success) return parsed.data;
     for (const issue of parsed.error.issues) {
       const [first, second] = issue.path.map(String);
-      const path = first === 'loss' ? (r.lossKind === 'fixed' ? ['fixedLoss'] : ['points']) : first === 'prv' ? [second === 'falloffPerFlow' ? 'prvFalloff' : 'prvSet'] : first === 'boost' ? [second === 'shutoffGain' ? 'boostShutoff' : second === 'setPressure' ? 'boostSet' : 'boostGain'] : [first];
+      const path =
+        first === 'loss'
+          ? r.lossKind === 'fixed'
+            ? ['fixedLoss']
+            : ['points']
+          : first === 'prv'
+            ? [second === 'falloffPerFlow' ? 'prvFalloff' : 'prvSet']
+            : first === 'boost'
+              ? [second === 'shutoffGain' ? 'boostShutoff' : second === 'setPressure' ? 'boostSet' : 'boostGain']
+              : [first];
       ctx.addIssue({ code: 'custom', path, message: plainError(issue.message) ?? issue.message });
     }
     return z.NEVER;
@@ -81,7 +90,7 @@ function toRow(d: Device): DeviceRow {
     points: d.loss.kind === 'curve' ? d.loss.points.map((p) => ({ ...p })) : [{ flow: 0, loss: 0 }],
     prvSet: d.prv?.setPressure,
     prvFalloff: d.prv?.falloffPerFlow ?? 0,
-    boostGain: d.boost ? boosterDesignGain(d.boost) ?? undefined : undefined,
+    boostGain: d.boost ? (boosterDesignGain(d.boost) ?? undefined) : undefined,
     boostControl: d.boost && 'control' in d.boost ? d.boost.control : 'constant-speed',
     // a version-1 booster (one gain) has no shutoff: the field stays empty until the designer enters it
     boostShutoff: d.boost && 'control' in d.boost && d.boost.control === 'constant-speed' ? d.boost.shutoffGain : undefined,
@@ -94,7 +103,13 @@ function toRow(d: Device): DeviceRow {
  * shutoff (the static check takes the shutoff gain from the pump curve); a variable-speed package
  * holds its set discharge pressure.
  */
-function BoosterFields({ index, register, control, errors, pressureUnit }: {
+function BoosterFields({
+  index,
+  register,
+  control,
+  errors,
+  pressureUnit,
+}: {
   index: number;
   register: UseFormRegister<DevicesForm>;
   control: Control<DevicesForm>;
@@ -115,17 +130,38 @@ function BoosterFields({ index, register, control, errors, pressureUnit }: {
       {boostControl === 'variable-speed' ? (
         <label className="flex flex-col gap-1 text-sm font-semibold">
           Discharge pressure held ({pressureUnit})
-          <CellInput label={`Device ${n} booster discharge pressure (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostSet?.message)} {...register(`devices.${index}.boostSet`, numberInput)} />
+          <CellInput
+            label={`Device ${n} booster discharge pressure (${pressureUnit})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            error={plainError(errors?.boostSet?.message)}
+            {...register(`devices.${index}.boostSet`, numberInput)}
+          />
         </label>
       ) : (
         <>
           <label className="flex flex-col gap-1 text-sm font-semibold">
             Pressure added at design flow ({pressureUnit})
-            <CellInput label={`Device ${n} booster gain (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostGain?.message)} {...register(`devices.${index}.boostGain`, numberInput)} />
+            <CellInput
+              label={`Device ${n} booster gain (${pressureUnit})`}
+              type="text"
+              inputMode="decimal"
+              autoComplete="off"
+              error={plainError(errors?.boostGain?.message)}
+              {...register(`devices.${index}.boostGain`, numberInput)}
+            />
           </label>
           <label className="flex flex-col gap-1 text-sm font-semibold">
             Pressure added at shutoff ({pressureUnit})
-            <CellInput label={`Device ${n} booster shutoff gain (${pressureUnit})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.boostShutoff?.message)} {...register(`devices.${index}.boostShutoff`, numberInput)} />
+            <CellInput
+              label={`Device ${n} booster shutoff gain (${pressureUnit})`}
+              type="text"
+              inputMode="decimal"
+              autoComplete="off"
+              error={plainError(errors?.boostShutoff?.message)}
+              {...register(`devices.${index}.boostShutoff`, numberInput)}
+            />
           </label>
         </>
       )}
@@ -133,7 +169,14 @@ function BoosterFields({ index, register, control, errors, pressureUnit }: {
   );
 }
 
-function CurvePoints({ index, control, register, setValue, errors, units }: {
+function CurvePoints({
+  index,
+  control,
+  register,
+  setValue,
+  errors,
+  units,
+}: {
   index: number;
   control: Control<DevicesForm>;
   register: UseFormRegister<DevicesForm>;
@@ -161,7 +204,9 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
           <tr className="text-left">
             <th scope="col">Flow ({units.flow})</th>
             <th scope="col">Loss ({units.pressure})</th>
-            <th scope="col"><span className="sr-only">Remove</span></th>
+            <th scope="col">
+              <span className="sr-only">Remove</span>
+            </th>
           </tr>
         </thead>
         <tbody>
@@ -185,7 +230,14 @@ function CurvePoints({ index, control, register, setValue, errors, units }: {
                 />
               </td>
               <td className="pr-2">
-                <CellInput label={`Point ${k + 1} loss (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(rowErrors?.[k]?.loss?.message)} {...register(`devices.${index}.points.${k}.loss`, numberInput)} />
+                <CellInput
+                  label={`Point ${k + 1} loss (${units.pressure})`}
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
+                  error={plainError(rowErrors?.[k]?.loss?.message)}
+                  {...register(`devices.${index}.points.${k}.loss`, numberInput)}
+                />
               </td>
               <td>
                 <Button variant="quiet" onClick={() => points.remove(k)} disabled={points.fields.length <= 1} aria-label={`Remove point ${k + 1}`}>
@@ -244,11 +296,20 @@ export function DevicesStep() {
   const project = useProjectEntries(ids.projectId);
   const [defaults] = useState<DevicesForm>(() => ({ devices: document.devices.map(toRow) }));
   const form = useLiveForm(devicesFormSchema, defaults, (v) => draft.update((doc) => ({ ...doc, devices: v.devices })));
-  const { register, control, formState: { errors }, watch, setValue } = form;
+  const {
+    register,
+    control,
+    formState: { errors },
+    watch,
+    setValue,
+  } = form;
   const devices = useFieldArray({ control, name: 'devices' });
   const [template, setTemplate] = useState(catalog.deviceTemplates[0]?.id ?? '');
   const sys = document.unitSystem;
-  const segmentOptions = [{ value: '', label: 'Choose a segment…' }, ...document.segments.map((s) => ({ value: s.id, label: s.label ? `${s.label} (${s.id})` : s.id }))];
+  const segmentOptions = [
+    { value: '', label: 'Choose a segment…' },
+    ...document.segments.map((s) => ({ value: s.id, label: s.label ? `${s.label} (${s.id})` : s.id })),
+  ];
   const lossById = new Map(live.ok ? live.analysis.segments.flatMap((s) => s.devices.map((d) => [d.deviceId, d] as const)) : []);
   const takenIds = () => watch('devices').map((d) => d.id);
   const firstSegment = document.segments.find((s) => s.from === document.source.nodeId)?.id ?? document.segments[0]?.id ?? '';
@@ -264,7 +325,21 @@ export function DevicesStep() {
     if (projectTemplate) {
       // a project template: its kind and curve are copied into the device (the document does not refer to the entry)
       const copied = deviceFromProjectTemplate(projectTemplate, sys);
-      devices.append({ id: freshId(copied.kind, takenIds()), kind: copied.kind, label: copied.label, segmentId: firstSegment, lossKind: 'curve', fixedLoss: 0, points: copied.points, prvSet: undefined, prvFalloff: 0, boostGain: undefined, boostControl: 'constant-speed', boostShutoff: undefined, boostSet: undefined });
+      devices.append({
+        id: freshId(copied.kind, takenIds()),
+        kind: copied.kind,
+        label: copied.label,
+        segmentId: firstSegment,
+        lossKind: 'curve',
+        fixedLoss: 0,
+        points: copied.points,
+        prvSet: undefined,
+        prvFalloff: 0,
+        boostGain: undefined,
+        boostControl: 'constant-speed',
+        boostShutoff: undefined,
+        boostSet: undefined,
+      });
       return;
     }
     const t = catalog.deviceTemplates.find((d) => d.id === template);
@@ -286,15 +361,13 @@ export function DevicesStep() {
     });
   };
 
-  const addServicePipe = () =>
-    draft.update((doc) => addServiceSegment(doc, catalog.materials[0]?.id, catalog.materials[0]?.data.sizes.at(-1)?.key));
+  const addServicePipe = () => draft.update((doc) => addServiceSegment(doc, catalog.materials[0]?.id, catalog.materials[0]?.data.sizes.at(-1)?.key));
 
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Meter and devices">
       <StepIntro title="Meter & devices">
-        The meter and every device in line — backflow preventer, pressure-reducing valve, strainer, softener, filter —
-        with its loss at flow: a fixed loss, or the manufacturer’s curve points. A device sits at the inlet of a segment.
-        Use the data of the product actually installed.
+        The meter and every device in line — backflow preventer, pressure-reducing valve, strainer, softener, filter — with its loss at flow: a fixed loss, or
+        the manufacturer’s curve points. A device sits at the inlet of a segment. Use the data of the product actually installed.
       </StepIntro>
       {document.segments.length === 0 ? (
         <div className="mb-4 rounded-md border-2 border-caution bg-caution-soft p-3 text-sm">
@@ -311,31 +384,72 @@ export function DevicesStep() {
           const err = errors.devices?.[i];
           const result = lossById.get(watch(`devices.${i}.id`));
           return (
-            <Section key={field.id} title={`Device ${i + 1}: ${watch(`devices.${i}.label`) || 'unnamed'}`} headingLevel={3}
-              actions={<Button variant="danger" onClick={() => devices.remove(i)}>Remove device</Button>}>
+            <Section
+              key={field.id}
+              title={`Device ${i + 1}: ${watch(`devices.${i}.label`) || 'unnamed'}`}
+              headingLevel={3}
+              actions={
+                <Button variant="danger" onClick={() => devices.remove(i)}>
+                  Remove device
+                </Button>
+              }
+            >
               <div className="grid gap-4 md:grid-cols-2">
                 <SelectField label="Kind" options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))} {...register(`devices.${i}.kind`)} />
                 <label className="flex flex-col gap-1 text-sm font-semibold">
                   Name
                   <CellInput label={`Device ${i + 1} name`} error={plainError(err?.label?.message)} {...register(`devices.${i}.label`)} />
                 </label>
-                <SelectField label="On segment (at its inlet)" options={segmentOptions} error={plainError(err?.segmentId?.message)} {...register(`devices.${i}.segmentId`)} />
-                <SelectField label="Loss given as" options={[{ value: 'fixed', label: 'A fixed loss' }, { value: 'curve', label: 'Loss-at-flow curve points' }]} {...register(`devices.${i}.lossKind`)} />
+                <SelectField
+                  label="On segment (at its inlet)"
+                  options={segmentOptions}
+                  error={plainError(err?.segmentId?.message)}
+                  {...register(`devices.${i}.segmentId`)}
+                />
+                <SelectField
+                  label="Loss given as"
+                  options={[
+                    { value: 'fixed', label: 'A fixed loss' },
+                    { value: 'curve', label: 'Loss-at-flow curve points' },
+                  ]}
+                  {...register(`devices.${i}.lossKind`)}
+                />
                 {lossKind === 'fixed' ? (
                   <label className="flex flex-col gap-1 text-sm font-semibold">
                     Loss at any flow ({units.pressure})
-                    <CellInput label={`Device ${i + 1} fixed loss (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.fixedLoss?.message)} {...register(`devices.${i}.fixedLoss`, numberInput)} />
+                    <CellInput
+                      label={`Device ${i + 1} fixed loss (${units.pressure})`}
+                      type="text"
+                      inputMode="decimal"
+                      autoComplete="off"
+                      error={plainError(err?.fixedLoss?.message)}
+                      {...register(`devices.${i}.fixedLoss`, numberInput)}
+                    />
                   </label>
                 ) : null}
                 {kind === 'prv' ? (
                   <>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
                       PRV set pressure ({units.pressure})
-                      <CellInput label={`Device ${i + 1} PRV set pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.prvSet?.message)} {...register(`devices.${i}.prvSet`, numberInput)} />
+                      <CellInput
+                        label={`Device ${i + 1} PRV set pressure (${units.pressure})`}
+                        type="text"
+                        inputMode="decimal"
+                        autoComplete="off"
+                        error={plainError(err?.prvSet?.message)}
+                        {...register(`devices.${i}.prvSet`, numberInput)}
+                      />
                     </label>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
                       PRV fall-off ({units.pressure} per {units.flow})
-                      <CellInput label={`Device ${i + 1} PRV fall-off`} type="text" inputMode="decimal" autoComplete="off" error={plainError(err?.prvFalloff?.message)} {...register(`devices.${i}.prvFalloff`, numberInput)} />
+                      <CellInput
+                        label={`Device ${i + 1} PRV fall-off`}
+                        type="text"
+                        inputMode="decimal"
+                        autoComplete="off"
+                        error={plainError(err?.prvFalloff?.message)}
+                        {...register(`devices.${i}.prvFalloff`, numberInput)}
+                      />
                     </label>
                   </>
                 ) : null}
@@ -358,7 +472,21 @@ export function DevicesStep() {
           <Button
             variant="secondary"
             onClick={() =>
-              devices.append({ id: freshId('device', takenIds()), kind: 'backflow-preventer', label: '', segmentId: firstSegment, lossKind: 'fixed', fixedLoss: Number.NaN, points: [{ flow: Number.NaN, loss: Number.NaN }], prvSet: undefined, prvFalloff: 0, boostGain: undefined, boostControl: 'constant-speed', boostShutoff: undefined, boostSet: undefined })
+              devices.append({
+                id: freshId('device', takenIds()),
+                kind: 'backflow-preventer',
+                label: '',
+                segmentId: firstSegment,
+                lossKind: 'fixed',
+                fixedLoss: Number.NaN,
+                points: [{ flow: Number.NaN, loss: Number.NaN }],
+                prvSet: undefined,
+                prvFalloff: 0,
+                boostGain: undefined,
+                boostControl: 'constant-speed',
+                boostShutoff: undefined,
+                boostSet: undefined,
+              })
             }
           >
             Add a device
@@ -366,7 +494,9 @@ export function DevicesStep() {
           {templateOptions.length ? (
             <>
               <SelectField label="Device template" options={templateOptions} value={template} onChange={(ev) => setTemplate(ev.target.value)} />
-              <Button variant="secondary" onClick={addFromTemplate}>Add from template</Button>
+              <Button variant="secondary" onClick={addFromTemplate}>
+                Add from template
+              </Button>
             </>
           ) : null}
         </div>
@@ -384,14 +514,30 @@ export function DevicesStep() {
 export function addServiceSegment(doc: SystemDocument, material: string | undefined, size: string | undefined): SystemDocument {
   const from = doc.source.nodeId;
   const fromNode = doc.nodes.find((n) => n.id === from);
-  const to = freshId('entry', doc.nodes.map((n) => n.id));
+  const to = freshId(
+    'entry',
+    doc.nodes.map((n) => n.id),
+  );
   return {
     ...doc,
     nodes: [...doc.nodes, { id: to, label: 'Building entry', elevation: fromNode?.elevation ?? 0, fixtureGroups: [], checkedFixtures: [] }],
     segments: [
       ...doc.segments,
       // 10 length units: a placeholder the designer replaces with the measured run.
-      { id: freshId('service', doc.segments.map((s) => s.id)), label: 'Service pipe', from, to, material, size, length: 10, fittings: [], reducerAuto: true },
+      {
+        id: freshId(
+          'service',
+          doc.segments.map((s) => s.id),
+        ),
+        label: 'Service pipe',
+        from,
+        to,
+        material,
+        size,
+        length: 10,
+        fittings: [],
+        reducerAuto: true,
+      },
     ],
   };
 }

@@ -40,15 +40,27 @@ export const USUAL_SET = [
 
 export const fittingsFormSchema = z.object({
   fittingMethod: CriteriaOverridesSchema.shape.fittingMethod.unwrap(),
-  segments: z.array(z.object({ id: z.string(), fittings: z.array(FittingSchema.extend({ count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1') })) })),
+  segments: z.array(
+    z.object({
+      id: z.string(),
+      fittings: z.array(FittingSchema.extend({ count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1') })),
+    }),
+  ),
 });
-type FittingsForm = { fittingMethod: (typeof METHODS)[number]; segments: { id: string; fittings: { typeId: string; count: number; custom?: CustomFitting }[] }[] };
+type FittingsForm = {
+  fittingMethod: (typeof METHODS)[number];
+  segments: { id: string; fittings: { typeId: string; count: number; custom?: CustomFitting }[] }[];
+};
 
 /**
  * Writes the fittings back. A project fitting type (`project:<id>`) is copied into the document
  * as the fitting's own data (catalog/lib/apply-entries.ts); a seeded type carries none.
  */
-export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFormSchema>, projectFittings: readonly ProjectEntryOf<'fitting-type'>[] = []): SystemDocument {
+export function applyFittings(
+  doc: SystemDocument,
+  v: z.output<typeof fittingsFormSchema>,
+  projectFittings: readonly ProjectEntryOf<'fitting-type'>[] = [],
+): SystemDocument {
   const byId = new Map(v.segments.map((s) => [s.id, s.fittings.map((f) => fittingWithProjectData(f, projectFittings))]));
   // The loss method is a criterion: written only when it is changed, so that editing fittings alone
   // leaves the criteria exactly as they were (a field change may not touch them at all).
@@ -64,7 +76,15 @@ export function applyFittings(doc: SystemDocument, v: z.output<typeof fittingsFo
  * One fitting's K in its segment, by the engine's own fitting function and the segment's live Re and f;
  * a fitting with its own data by the engine's rule for it (schema.ts CustomFittingSchema): K as given, or f·L/D.
  */
-export function kOf(typeId: string, segment: SystemDocument['segments'][number] | undefined, si: SegmentResult | undefined, method: FittingsForm['fittingMethod'], catalog: Catalog, custom?: CustomFitting, sys: SystemDocument['unitSystem'] = 'US'): { K: number; fellBackFrom?: string; method?: string } | null {
+export function kOf(
+  typeId: string,
+  segment: SystemDocument['segments'][number] | undefined,
+  si: SegmentResult | undefined,
+  method: FittingsForm['fittingMethod'],
+  catalog: Catalog,
+  custom?: CustomFitting,
+  sys: SystemDocument['unitSystem'] = 'US',
+): { K: number; fellBackFrom?: string; method?: string } | null {
   if (custom) {
     if ('k' in custom) return { K: custom.k };
     return si && si.innerDiameter > 0 ? { K: (si.frictionFactor * toSI('length', custom.equivalentLength, sys)) / si.innerDiameter } : null;
@@ -73,13 +93,33 @@ export function kOf(typeId: string, segment: SystemDocument['segments'][number] 
   const size = catalog.material(segment.material)?.data.sizes.find((s) => s.key === segment.size);
   if (!size) return null;
   try {
-    return fittingK(typeId, { method, innerDiameterM: si.innerDiameter, nominalSizeIn: size.nominalIn, nominalSizeKey: size.key, Re: si.reynolds, frictionFactor: si.frictionFactor });
+    return fittingK(typeId, {
+      method,
+      innerDiameterM: si.innerDiameter,
+      nominalSizeIn: size.nominalIn,
+      nominalSizeKey: size.key,
+      Re: si.reynolds,
+      frictionFactor: si.frictionFactor,
+    });
   } catch {
     return null;
   }
 }
 
-function SegmentFittings({ index, control, register, watch, setValue, catalog, doc, analysis, method, units, projectFittings, flags }: {
+function SegmentFittings({
+  index,
+  control,
+  register,
+  watch,
+  setValue,
+  catalog,
+  doc,
+  analysis,
+  method,
+  units,
+  projectFittings,
+  flags,
+}: {
   index: number;
   control: Control<FittingsForm>;
   register: UseFormRegister<FittingsForm>;
@@ -102,49 +142,88 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
   const si = analysis?.si.segments.find((s) => s.id === id);
   const isPex = segment?.material === 'pex-sdr9';
   // On a PEX segment the PEX fitting types come first; elsewhere they stay after the metal ones.
-  const types = isPex ? [...catalog.fittingTypes.filter((f) => f.id.startsWith('pex-')), ...catalog.fittingTypes.filter((f) => !f.id.startsWith('pex-'))] : catalog.fittingTypes;
+  const types = isPex
+    ? [...catalog.fittingTypes.filter((f) => f.id.startsWith('pex-')), ...catalog.fittingTypes.filter((f) => !f.id.startsWith('pex-'))]
+    : catalog.fittingTypes;
   const options = types.map((f) => ({ value: f.id, label: f.label }));
   const projectOptions = projectOptionsOf(projectFittings);
   const metalRows = isPex ? (rows ?? []).flatMap((r, k) => (r && !r.custom && isMetalPipeFitting(r.typeId) ? [k] : [])) : [];
   return (
     <Section title={name} headingLevel={3}>
-      <div data-testid={`fittings-${id}`}><SegmentFlags {...flags} className="mb-2" /></div>
+      <div data-testid={`fittings-${id}`}>
+        <SegmentFlags {...flags} className="mb-2" />
+      </div>
       <table className="w-full text-sm">
         <caption className="sr-only">Fittings of {name}</caption>
         <thead>
           <tr className="text-left">
             <th scope="col">Type</th>
             <th scope="col">Count</th>
-            <th scope="col" className="text-right">K each</th>
-            <th scope="col" className="text-right">Loss ({units.pressure})</th>
-            <th scope="col"><span className="sr-only">Remove</span></th>
+            <th scope="col" className="text-right">
+              K each
+            </th>
+            <th scope="col" className="text-right">
+              Loss ({units.pressure})
+            </th>
+            <th scope="col">
+              <span className="sr-only">Remove</span>
+            </th>
           </tr>
         </thead>
         <tbody>
           {list.fields.map((f, k) => {
             const row = rows?.[k];
             // the copy the row carries, or what choosing the project entry will copy
-            const custom = row ? fittingWithProjectData(row as z.output<typeof fittingsFormSchema>['segments'][number]['fittings'][number], projectFittings).custom : undefined;
+            const custom = row
+              ? fittingWithProjectData(row as z.output<typeof fittingsFormSchema>['segments'][number]['fittings'][number], projectFittings).custom
+              : undefined;
             const kr = row ? kOf(row.typeId, segment, si, method, catalog, custom, doc.unitSystem) : null;
             const loss = kr && display && display.totalK > 0 && Number.isFinite(row?.count) ? (display.fittingLoss * kr.K * row!.count) / display.totalK : null;
             const entry = row && !custom ? catalog.fittingType(row.typeId) : undefined;
             return (
               <tr key={f.id} className="border-t border-rule align-top">
                 <td className="py-1 pr-2">
-                  <CellSelect label={`${name}: fitting ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`segments.${index}.fittings.${k}.typeId`, { onChange: () => setValue(`segments.${index}.fittings.${k}.custom`, undefined) })} />
-                  {entry ? <p className="mt-0.5 text-xs text-ink-muted">Source: {entry.source}{entry.fromMemory && !/not verified/i.test(entry.source) ? ' — not verified against the printed code; confirm against the adopted edition' : ''}</p> : null}
-                  {custom ? <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>Project data: {custom.label} — source: {custom.source}</p> : null}
+                  <CellSelect
+                    label={`${name}: fitting ${k + 1} type`}
+                    options={[...options, ...projectOptions]}
+                    {...register(`segments.${index}.fittings.${k}.typeId`, { onChange: () => setValue(`segments.${index}.fittings.${k}.custom`, undefined) })}
+                  />
+                  {entry ? (
+                    <p className="mt-0.5 text-xs text-ink-muted">
+                      Source: {entry.source}
+                      {entry.fromMemory && !/not verified/i.test(entry.source)
+                        ? ' — not verified against the printed code; confirm against the adopted edition'
+                        : ''}
+                    </p>
+                  ) : null}
+                  {custom ? (
+                    <p className="mt-0.5 text-xs text-ink-muted" data-testid={`project-fitting-${id}-${k}`}>
+                      Project data: {custom.label} — source: {custom.source}
+                    </p>
+                  ) : null}
                 </td>
                 <td className="w-20 py-1 pr-2">
-                  <CellInput label={`${name}: fitting ${k + 1} count`} type="text" inputMode="numeric" autoComplete="off" {...register(`segments.${index}.fittings.${k}.count`, numberInput)} />
+                  <CellInput
+                    label={`${name}: fitting ${k + 1} count`}
+                    type="text"
+                    inputMode="numeric"
+                    autoComplete="off"
+                    {...register(`segments.${index}.fittings.${k}.count`, numberInput)}
+                  />
                 </td>
                 <td className="py-1 pr-2 text-right tabular-nums" data-testid={`k-${id}-${k}`}>
                   {kr ? fmt(kr.K, 3) : '—'}
-                  {kr?.fellBackFrom ? <span className="block text-xs text-caution">no {kr.fellBackFrom} data: {kr.method} used</span> : null}
+                  {kr?.fellBackFrom ? (
+                    <span className="block text-xs text-caution">
+                      no {kr.fellBackFrom} data: {kr.method} used
+                    </span>
+                  ) : null}
                 </td>
                 <td className="py-1 pr-2 text-right tabular-nums">{loss === null ? '—' : fmt(loss, 3)}</td>
                 <td className="py-1">
-                  <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove fitting ${k + 1} of ${name}`}>Remove</Button>
+                  <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove fitting ${k + 1} of ${name}`}>
+                    Remove
+                  </Button>
                 </td>
               </tr>
             );
@@ -167,23 +246,34 @@ function SegmentFittings({ index, control, register, watch, setValue, catalog, d
         {display ? (
           <>
             Σ K = {fmt(display.fittingsK, 2)}
-            {display.sizeChangeK > 0 ? ` + size change ${fmt(display.sizeChangeK, 2)}` : ''} · loss in fittings {fmt(display.fittingLoss, 3)} {units.pressure} at{' '}
-            {fmt(display.velocity, 2)} {analysis?.units.velocity}
+            {display.sizeChangeK > 0 ? ` + size change ${fmt(display.sizeChangeK, 2)}` : ''} · loss in fittings {fmt(display.fittingLoss, 3)} {units.pressure}{' '}
+            at {fmt(display.velocity, 2)} {analysis?.units.velocity}
           </>
         ) : (
           'Losses appear once the system can be computed.'
         )}
       </p>
       <div className="mt-2 flex flex-wrap gap-2">
-        <Button variant="secondary" onClick={() => list.append({ typeId: options[0]?.value ?? '', count: 1 })}>Add a fitting to {name}</Button>
-        <Button variant="secondary" onClick={() => USUAL_SET.forEach((f) => list.append({ ...f }))}>Add the usual set (2 elbows, 1 tee run) to {name}</Button>
+        <Button variant="secondary" onClick={() => list.append({ typeId: options[0]?.value ?? '', count: 1 })}>
+          Add a fitting to {name}
+        </Button>
+        <Button variant="secondary" onClick={() => USUAL_SET.forEach((f) => list.append({ ...f }))}>
+          Add the usual set (2 elbows, 1 tee run) to {name}
+        </Button>
       </div>
     </Section>
   );
 }
 
 /** The open row's fittings: a form of its own, read again when the segment's fittings change elsewhere (a bulk edit). */
-function ActiveFittings({ segmentId, fittings, analysis, projectFittings, flags, written }: {
+function ActiveFittings({
+  segmentId,
+  fittings,
+  analysis,
+  projectFittings,
+  flags,
+  written,
+}: {
   written: { current: string };
   segmentId: string;
   fittings: SystemDocument['segments'][number]['fittings'];
@@ -200,7 +290,22 @@ function ActiveFittings({ segmentId, fittings, analysis, projectFittings, flags,
     draft.update((doc) => applyFittings(doc, { ...v, fittingMethod: doc.criteria?.fittingMethod ?? 'crane' }, projectFittings));
   });
   const { register, control, watch, setValue } = form;
-  return <SegmentFittings index={0} control={control} register={register} watch={watch} setValue={setValue} projectFittings={projectFittings} catalog={catalog} doc={document} analysis={analysis} method={method} units={units} flags={flags} />;
+  return (
+    <SegmentFittings
+      index={0}
+      control={control}
+      register={register}
+      watch={watch}
+      setValue={setValue}
+      projectFittings={projectFittings}
+      catalog={catalog}
+      doc={document}
+      analysis={analysis}
+      method={method}
+      units={units}
+      flags={flags}
+    />
+  );
 }
 
 /**
@@ -216,8 +321,16 @@ function PexSubstitute({ name, onApply, testId }: { name: string; onApply: (line
         {name} is PEX but still carries fittings made for metal pipe. Choose the PEX fittings installed:
       </p>
       <div className="mt-1 flex flex-wrap items-end gap-2">
-        <CellSelect className="w-72" label={`${name}: PEX fitting line`} value={line} onChange={(e) => setLine(e.target.value as PexFittingLine)} options={PEX_LINES.map((l) => ({ value: l.id, label: l.label }))} />
-        <Button variant="secondary" onClick={() => onApply(line)}>Use these PEX fittings on {name}</Button>
+        <CellSelect
+          className="w-72"
+          label={`${name}: PEX fitting line`}
+          value={line}
+          onChange={(e) => setLine(e.target.value as PexFittingLine)}
+          options={PEX_LINES.map((l) => ({ value: l.id, label: l.label }))}
+        />
+        <Button variant="secondary" onClick={() => onApply(line)}>
+          Use these PEX fittings on {name}
+        </Button>
       </div>
     </div>
   );
@@ -243,16 +356,25 @@ export function FittingsStep() {
     if (o.id !== s.id) opened.current = { id: s.id, json, epoch: o.epoch + 1 };
     // fittings changed by this form are its own values; changed elsewhere (a bulk edit), the form reads them again
     else if (o.json !== json) opened.current = { id: s.id, json, epoch: json === written.current ? o.epoch : o.epoch + 1 };
-    return <ActiveFittings key={`${s.id}:${opened.current.epoch}`} segmentId={s.id} fittings={s.fittings} analysis={analysis} projectFittings={projectFittings} flags={flagsOf(s.id)} written={written} />;
+    return (
+      <ActiveFittings
+        key={`${s.id}:${opened.current.epoch}`}
+        segmentId={s.id}
+        fittings={s.fittings}
+        analysis={analysis}
+        projectFittings={projectFittings}
+        flags={flagsOf(s.id)}
+        written={written}
+      />
+    );
   };
   const update = (change: (doc: SystemDocument) => SystemDocument) => draft.update(change);
   const setMethod = (value: FittingsForm['fittingMethod']) => draft.update((doc) => ({ ...doc, criteria: { ...(doc.criteria ?? {}), fittingMethod: value } }));
   return (
     <div>
       <StepIntro title="Fittings">
-        Per segment, the fittings and valves by type and count: each row sums them up; open a row to change them, or
-        select rows and add a set to all of them. Each type’s loss coefficient K depends on the method and, for most
-        methods, on the size and the flow; the source of each type’s data is shown under it.
+        Per segment, the fittings and valves by type and count: each row sums them up; open a row to change them, or select rows and add a set to all of them.
+        Each type’s loss coefficient K depends on the method and, for most methods, on the size and the flow; the source of each type’s data is shown under it.
       </StepIntro>
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Fittings">
         <fieldset disabled={readOnlyReason !== null} className="flex min-w-0 flex-col gap-4">
@@ -260,7 +382,11 @@ export function FittingsStep() {
             // the loss method is one of the designer's criteria: a field change keeps it as issued
             <p className="text-sm" data-testid="fitting-method-as-issued">
               <span className="font-semibold">Loss method for fittings (as issued):</span> {METHOD_LABELS[method]}
-              {analysis ? <span className="block text-ink-muted">In use: {analysis.methods.fittings.label} — {analysis.methods.fittings.source}</span> : null}
+              {analysis ? (
+                <span className="block text-ink-muted">
+                  In use: {analysis.methods.fittings.label} — {analysis.methods.fittings.source}
+                </span>
+              ) : null}
             </p>
           ) : (
             <SelectField

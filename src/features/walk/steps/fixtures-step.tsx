@@ -23,7 +23,10 @@ const fixtureRow = CheckedFixtureSchema.extend({
   label: optional(CheckedFixtureSchema.shape.label),
   minFlowPressure: optional(CheckedFixtureSchema.shape.minFlowPressure),
   flowRate: optional(CheckedFixtureSchema.shape.flowRate),
-  expectedCritical: z.boolean().optional().transform((v) => (v ? true : undefined)),
+  expectedCritical: z
+    .boolean()
+    .optional()
+    .transform((v) => (v ? true : undefined)),
 });
 export const fixturesFormSchema = z.object({ nodes: z.array(z.object({ id: z.string(), checkedFixtures: z.array(fixtureRow) })) });
 type Row = { id: string; fixtureTypeId: string; label: string; minFlowPressure?: number; flowRate?: number; expectedCritical: boolean };
@@ -31,11 +34,23 @@ type FixturesForm = { nodes: { id: string; checkedFixtures: Row[] }[] };
 
 export function applyFixtures(doc: SystemDocument, v: z.output<typeof fixturesFormSchema>): SystemDocument {
   const byId = new Map(v.nodes.map((n) => [n.id, n.checkedFixtures]));
-  const clean = (f: z.output<typeof fixtureRow>) => Object.fromEntries(Object.entries(f).filter(([, x]) => x !== undefined)) as SystemDocument['nodes'][number]['checkedFixtures'][number];
+  const clean = (f: z.output<typeof fixtureRow>) =>
+    Object.fromEntries(Object.entries(f).filter(([, x]) => x !== undefined)) as SystemDocument['nodes'][number]['checkedFixtures'][number];
   return { ...doc, nodes: doc.nodes.map((n) => (byId.has(n.id) ? { ...n, checkedFixtures: byId.get(n.id)!.map(clean) } : n)) };
 }
 
-function NodeFixtures({ index, control, register, watch, errors, catalog, doc, analysis, units, allIds }: {
+function NodeFixtures({
+  index,
+  control,
+  register,
+  watch,
+  errors,
+  catalog,
+  doc,
+  analysis,
+  units,
+  allIds,
+}: {
   index: number;
   control: Control<FixturesForm>;
   register: UseFormRegister<FixturesForm>;
@@ -68,8 +83,18 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
         return (
           <div key={f.id} className="mb-3 rounded-md border-2 border-rule p-3" data-testid={`checked-${row?.id}`}>
             <div className="grid gap-2 md:grid-cols-4">
-              <label className="flex flex-col text-xs font-semibold md:col-span-2">Fixture type<CellSelect label={`${name}: checked fixture ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.checkedFixtures.${k}.fixtureTypeId`)} /></label>
-              <label className="flex flex-col text-xs font-semibold md:col-span-2">Name<CellInput label={`${name}: checked fixture ${k + 1} name`} {...register(`nodes.${index}.checkedFixtures.${k}.label`)} /></label>
+              <label className="flex flex-col text-xs font-semibold md:col-span-2">
+                Fixture type
+                <CellSelect
+                  label={`${name}: checked fixture ${k + 1} type`}
+                  options={[...options, ...projectOptions]}
+                  {...register(`nodes.${index}.checkedFixtures.${k}.fixtureTypeId`)}
+                />
+              </label>
+              <label className="flex flex-col text-xs font-semibold md:col-span-2">
+                Name
+                <CellInput label={`${name}: checked fixture ${k + 1} name`} {...register(`nodes.${index}.checkedFixtures.${k}.label`)} />
+              </label>
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
                 Minimum flow pressure ({units.pressure})
                 <CellInput
@@ -82,18 +107,21 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
                   {...register(`nodes.${index}.checkedFixtures.${k}.minFlowPressure`, numberInput)}
                 />
                 <span className="font-normal text-ink-muted">
-                  Empty = the catalog’s {catalogMin === undefined ? '—' : `${fmt(catalogMin, 1)} ${units.pressure}`}{type ? ` (${type.source})` : ''}
+                  Empty = the catalog’s {catalogMin === undefined ? '—' : `${fmt(catalogMin, 1)} ${units.pressure}`}
+                  {type ? ` (${type.source})` : ''}
                 </span>
               </label>
               <label className="flex items-center gap-2 text-sm font-semibold md:col-span-2">
-                <input type="checkbox" className="size-5 accent-standpipe" {...register(`nodes.${index}.checkedFixtures.${k}.expectedCritical`)} />
-                I expect this to be the critical one
+                <input type="checkbox" className="size-5 accent-standpipe" {...register(`nodes.${index}.checkedFixtures.${k}.expectedCritical`)} />I expect this
+                to be the critical one
               </label>
             </div>
             <div className="mt-2 flex flex-wrap items-center gap-3 text-sm">
               {result ? (
                 <>
-                  <span>Residual {fmt(result.residual, 2)} {units.pressure}</span>
+                  <span>
+                    Residual {fmt(result.residual, 2)} {units.pressure}
+                  </span>
                   <span>needs {fmt(result.required, 2)}</span>
                   <span>margin {signed(result.margin, 2)}</span>
                   <VerdictMark verdict={fixtureVerdict(result.pass, analysis ? verdictStatus(analysis) : null)} />
@@ -102,12 +130,26 @@ function NodeFixtures({ index, control, register, watch, errors, catalog, doc, a
               ) : (
                 <span className="text-ink-muted">Not computed yet</span>
               )}
-              <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove checked fixture ${k + 1} at ${name}`}>Remove</Button>
+              <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove checked fixture ${k + 1} at ${name}`}>
+                Remove
+              </Button>
             </div>
           </div>
         );
       })}
-      <Button variant="secondary" onClick={() => list.append({ id: freshId(nodeId, allIds()), fixtureTypeId: served, label: '', minFlowPressure: undefined, flowRate: undefined, expectedCritical: false })}>
+      <Button
+        variant="secondary"
+        onClick={() =>
+          list.append({
+            id: freshId(nodeId, allIds()),
+            fixtureTypeId: served,
+            label: '',
+            minFlowPressure: undefined,
+            flowRate: undefined,
+            expectedCritical: false,
+          })
+        }
+      >
         Check a fixture at {name}
       </Button>
     </div>
@@ -119,10 +161,25 @@ export function FixturesStep() {
   const [defaults] = useState<FixturesForm>(() => ({
     nodes: document.nodes
       .filter((n) => n.id !== document.source.nodeId)
-      .map((n) => ({ id: n.id, checkedFixtures: n.checkedFixtures.map((f) => ({ id: f.id, fixtureTypeId: f.fixtureTypeId, label: f.label ?? '', minFlowPressure: f.minFlowPressure, flowRate: f.flowRate, expectedCritical: f.expectedCritical ?? false })) })),
+      .map((n) => ({
+        id: n.id,
+        checkedFixtures: n.checkedFixtures.map((f) => ({
+          id: f.id,
+          fixtureTypeId: f.fixtureTypeId,
+          label: f.label ?? '',
+          minFlowPressure: f.minFlowPressure,
+          flowRate: f.flowRate,
+          expectedCritical: f.expectedCritical ?? false,
+        })),
+      })),
   }));
   const form = useLiveForm(fixturesFormSchema, defaults, (v) => draft.update((doc) => applyFixtures(doc, v)));
-  const { register, control, watch, formState: { errors } } = form;
+  const {
+    register,
+    control,
+    watch,
+    formState: { errors },
+  } = form;
   const analysis = live.ok ? live.analysis : null;
   const allIds = () => watch('nodes').flatMap((n) => n.checkedFixtures.map((f) => f.id));
   const critical = analysis?.fixtures.find((f) => f.id === analysis.criticalFixtureId);
@@ -131,14 +188,15 @@ export function FixturesStep() {
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Remote fixture">
       <StepIntro title="Remote fixture">
-        The fixtures whose residual pressure is compared with the minimum flow pressure they need. Check every one that
-        could be the worst — the highest, the farthest, and any that needs more pressure (a flush valve, a shower with a
-        pressure-balancing valve). Headroom finds the critical one: the smallest margin.
+        The fixtures whose residual pressure is compared with the minimum flow pressure they need. Check every one that could be the worst — the highest, the
+        farthest, and any that needs more pressure (a flush valve, a shower with a pressure-balancing valve). Headroom finds the critical one: the smallest
+        margin.
       </StepIntro>
       <div aria-live="polite" className="mb-4 flex flex-col gap-2">
         {critical ? (
           <p data-testid="critical-summary">
-            Critical fixture: <strong>{critical.label}</strong> at {document.nodes.find((n) => n.id === critical.nodeId)?.label || critical.nodeId}, margin {signed(critical.margin, 2)} {units.pressure}.
+            Critical fixture: <strong>{critical.label}</strong> at {document.nodes.find((n) => n.id === critical.nodeId)?.label || critical.nodeId}, margin{' '}
+            {signed(critical.margin, 2)} {units.pressure}.
           </p>
         ) : null}
         {unexpected ? (
@@ -147,14 +205,28 @@ export function FixturesStep() {
           </Alert>
         ) : null}
         {otherNotes.map((w) => (
-          <p key={w.code} className="text-sm text-ink-soft">{w.message} {w.detail ?? ''}</p>
+          <p key={w.code} className="text-sm text-ink-soft">
+            {w.message} {w.detail ?? ''}
+          </p>
         ))}
       </div>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-4">
         <Section title="Checked fixtures by node" headingLevel={3}>
           {defaults.nodes.length === 0 ? <p className="text-ink-soft">No nodes beyond the source yet: add segments at Risers.</p> : null}
           {defaults.nodes.map((n, i) => (
-            <NodeFixtures key={n.id} index={i} control={control} register={register} watch={watch} errors={errors} catalog={catalog} doc={document} analysis={analysis} units={units} allIds={allIds} />
+            <NodeFixtures
+              key={n.id}
+              index={i}
+              control={control}
+              register={register}
+              watch={watch}
+              errors={errors}
+              catalog={catalog}
+              doc={document}
+              analysis={analysis}
+              units={units}
+              allIds={allIds}
+            />
           ))}
         </Section>
       </fieldset>

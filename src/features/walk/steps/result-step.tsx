@@ -47,7 +47,7 @@ function IssueForm() {
   const attestation = attestationOf(attestationDraft);
   const form = useForm({ resolver: zodResolver(issueRevisionInputSchema), defaultValues: { note: '' } });
   const status = liveStatus(live);
-  const reasons = live.ok ? live.analysis.verdict.incomplete ?? [] : [];
+  const reasons = live.ok ? (live.analysis.verdict.incomplete ?? []) : [];
   const blocked = !live.ok || status === 'incomplete' || draft.state === 'conflict';
   const statementShort = status === 'fail' && statement.trim().length < STATEMENT_MIN;
   const onSubmit = form.handleSubmit(({ note }) => {
@@ -69,10 +69,16 @@ function IssueForm() {
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Issue this revision">
       <p className="max-w-prose text-sm">
-        Issuing freezes this revision — its document, its analysis, the engine version and a hash of the inputs. It can
-        then be read and compared but never changed; later changes go into a new draft started from it.
+        Issuing freezes this revision — its document, its analysis, the engine version and a hash of the inputs. It can then be read and compared but never
+        changed; later changes go into a new draft started from it.
       </p>
-      <TextAreaField label="Note for this revision (optional)" hint="For example what changed, or who it is for." error={form.formState.errors.note?.message} readOnly={confirming !== null} {...form.register('note')} />
+      <TextAreaField
+        label="Note for this revision (optional)"
+        hint="For example what changed, or who it is for."
+        error={form.formState.errors.note?.message}
+        readOnly={confirming !== null}
+        {...form.register('note')}
+      />
       {confirming ? (
         <div className="flex flex-col gap-3 rounded-md border-2 border-standpipe bg-standpipe-soft p-3" role="group" aria-label="Confirm issuing">
           <p className="font-semibold">
@@ -90,7 +96,12 @@ function IssueForm() {
           ) : null}
           <AttestationFields value={attestationDraft} onChange={setAttestationDraft} disabled={issue.isPending || preparing} />
           <div className="flex flex-wrap gap-3">
-            <Button onClick={() => void confirm()} pending={issue.isPending || preparing} pendingLabel="Issuing…" disabled={statementShort || blocked || !attestation}>
+            <Button
+              onClick={() => void confirm()}
+              pending={issue.isPending || preparing}
+              pendingLabel="Issuing…"
+              disabled={statementShort || blocked || !attestation}
+            >
               {status === 'fail' ? `Yes, issue failing revision ${revision.number}` : `Yes, issue revision ${revision.number}`}
             </Button>
             <Button variant="secondary" onClick={() => setConfirming(null)} disabled={issue.isPending || preparing}>
@@ -124,7 +135,9 @@ function IssueForm() {
             {errorMessage(issue.error)}
             {serverReasons.length ? (
               <ul className="mt-2 list-disc pl-5" data-testid="issue-refused-reasons">
-                {serverReasons.map((r) => <li key={r}>{r}</li>)}
+                {serverReasons.map((r) => (
+                  <li key={r}>{r}</li>
+                ))}
               </ul>
             ) : null}
           </Alert>
@@ -192,7 +205,9 @@ export function ResultStep() {
         </p>
         {status === 'incomplete' ? <IncompleteList reasons={reasons} /> : null}
         {status === 'incomplete' && a.verdict.failures > 0 ? (
-          <p className="mt-2 text-sm text-fault">On the description as it is, {plural(a.verdict.failures, 'check')} already {a.verdict.failures === 1 ? 'fails' : 'fail'}.</p>
+          <p className="mt-2 text-sm text-fault">
+            On the description as it is, {plural(a.verdict.failures, 'check')} already {a.verdict.failures === 1 ? 'fails' : 'fail'}.
+          </p>
         ) : null}
         <p className="mt-1 text-sm text-ink-soft">
           {status === 'incomplete' ? (
@@ -216,28 +231,46 @@ export function ResultStep() {
               <caption className="sr-only">Residual pressure, required pressure and margin of every checked fixture</caption>
               <thead>
                 <tr className="border-b-2 border-rule text-left">
-                  <th scope="col" className="py-1 pr-3">Fixture</th>
-                  <th scope="col" className="py-1 pr-3">Node</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Residual ({units.pressure})</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Required ({units.pressure})</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Margin ({units.pressure})</th>
-                  <th scope="col" className="py-1">Verdict</th>
+                  <th scope="col" className="py-1 pr-3">
+                    Fixture
+                  </th>
+                  <th scope="col" className="py-1 pr-3">
+                    Node
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right">
+                    Residual ({units.pressure})
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right">
+                    Required ({units.pressure})
+                  </th>
+                  <th scope="col" className="py-1 pr-3 text-right">
+                    Margin ({units.pressure})
+                  </th>
+                  <th scope="col" className="py-1">
+                    Verdict
+                  </th>
                 </tr>
               </thead>
               <tbody>
-                {[...a.fixtures].sort((x, y) => x.margin - y.margin).map((f) => (
-                  <tr key={f.id} className="border-b border-rule" data-testid={`verdict-${f.id}`}>
-                    <th scope="row" className="py-1 pr-3 text-left font-normal">
-                      {f.label}
-                      {f.id === a.criticalFixtureId ? <strong className="ml-2">◆ critical</strong> : null}
-                    </th>
-                    <td className="py-1 pr-3">{nodeName.get(f.nodeId)}</td>
-                    <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.residual, 2)}</td>
-                    <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.required, 2)}</td>
-                    <td className="py-1 pr-3 text-right tabular-nums" data-testid={`margin-${f.id}`}>{signed(f.margin, 2)}</td>
-                    <td className="py-1"><VerdictMark verdict={fixtureVerdict(f.pass, status)} /></td>
-                  </tr>
-                ))}
+                {[...a.fixtures]
+                  .sort((x, y) => x.margin - y.margin)
+                  .map((f) => (
+                    <tr key={f.id} className="border-b border-rule" data-testid={`verdict-${f.id}`}>
+                      <th scope="row" className="py-1 pr-3 text-left font-normal">
+                        {f.label}
+                        {f.id === a.criticalFixtureId ? <strong className="ml-2">◆ critical</strong> : null}
+                      </th>
+                      <td className="py-1 pr-3">{nodeName.get(f.nodeId)}</td>
+                      <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.residual, 2)}</td>
+                      <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.required, 2)}</td>
+                      <td className="py-1 pr-3 text-right tabular-nums" data-testid={`margin-${f.id}`}>
+                        {signed(f.margin, 2)}
+                      </td>
+                      <td className="py-1">
+                        <VerdictMark verdict={fixtureVerdict(f.pass, status)} />
+                      </td>
+                    </tr>
+                  ))}
               </tbody>
             </table>
           </div>
@@ -269,7 +302,9 @@ export function ResultStep() {
               ? `The highest static pressure at a node serving fixtures is ${fmt(Math.max(0, ...staticNodes.map((n) => n.staticPressureHigh)), 1)} ${units.pressure}, within the maximum of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}.`
               : `${plural(overStatic.length, 'node')} ${overStatic.length === 1 ? 'is' : 'are'} above the maximum static pressure of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}: ${overStatic.map((n) => `${n.label ?? n.id} ${fmt(n.staticPressureHigh, 1)}`).join('; ')}. A pressure-reducing valve is likely needed.`}
           </p>
-          <p className="text-ink-soft">Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.</p>
+          <p className="text-ink-soft">
+            Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.
+          </p>
         </div>
       </Section>
 
@@ -297,7 +332,9 @@ export function ResultStep() {
       <Section title="Cautions" headingLevel={3}>
         <div className="max-w-prose text-sm" data-testid="cautions">
           {CAUTIONS.map((c) => (
-            <p key={c} className="mb-2">{c}</p>
+            <p key={c} className="mb-2">
+              {c}
+            </p>
           ))}
         </div>
       </Section>
@@ -310,11 +347,13 @@ export function ResultStep() {
               {revision.issuedBy ? ` by ${revision.issuedBy}` : ''}. It is {revision.status} and never changes.
             </p>
             <p className="text-sm text-ink-soft" data-testid="issued-engine">
-              Its stored analysis, in the summary and the downloads, was made with Headroom engine {revision.engineVersion}; the figures on these pages are recomputed in your browser with engine {live.analysis.engineVersion}.
+              Its stored analysis, in the summary and the downloads, was made with Headroom engine {revision.engineVersion}; the figures on these pages are
+              recomputed in your browser with engine {live.analysis.engineVersion}.
             </p>
             {revision.attestation ? (
               <p className="text-sm" data-testid="issued-attestation">
-                Attested by {revision.attestation.name}, licence or registration no. {revision.attestation.licenceNumber}, on {formatDateTime(revision.attestation.at)}: “{revision.attestation.statement}”
+                Attested by {revision.attestation.name}, licence or registration no. {revision.attestation.licenceNumber}, on{' '}
+                {formatDateTime(revision.attestation.at)}: “{revision.attestation.statement}”
               </p>
             ) : null}
           </>
@@ -336,15 +375,26 @@ function ResultExports() {
   return (
     <div className="flex flex-col gap-2 text-sm" data-testid="result-exports">
       <p className="text-ink-soft">
-        The segment table (with friction and fitting losses), every checked fixture and every fixture’s pressure ledger, in the project’s units, with the verdict on the first line.
+        The segment table (with friction and fitting losses), every checked fixture and every fixture’s pressure ledger, in the project’s units, with the
+        verdict on the first line.
         {revision.status === 'draft' ? ' They hold the draft as last saved.' : ` They hold revision ${revision.number} as issued.`}
       </p>
-      {revision.status === 'draft' && draft.state !== 'saved' ? <p className="text-ink-soft">A change is being saved: download once it shows “All changes saved”.</p> : null}
+      {revision.status === 'draft' && draft.state !== 'saved' ? (
+        <p className="text-ink-soft">A change is being saved: download once it shows “All changes saved”.</p>
+      ) : null}
       <p className="flex flex-wrap gap-4">
-        <a href={systemUrls.exportXlsx(ids.projectId, ids.systemId, ids.revisionId)} download>All tables as a spreadsheet (.xlsx)</a>
-        <a href={csv('segments')} download>Segments (CSV)</a>
-        <a href={csv('fixtures')} download>Checked fixtures (CSV)</a>
-        <a href={csv('ledgers')} download>Pressure ledgers (CSV)</a>
+        <a href={systemUrls.exportXlsx(ids.projectId, ids.systemId, ids.revisionId)} download>
+          All tables as a spreadsheet (.xlsx)
+        </a>
+        <a href={csv('segments')} download>
+          Segments (CSV)
+        </a>
+        <a href={csv('fixtures')} download>
+          Checked fixtures (CSV)
+        </a>
+        <a href={csv('ledgers')} download>
+          Pressure ledgers (CSV)
+        </a>
       </p>
     </div>
   );

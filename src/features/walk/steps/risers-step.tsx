@@ -9,9 +9,14 @@ import type { CustomFixture, FixtureGroup, Segment, SystemDocument } from '../..
 import { CustomPipeSchema, DemandCurveSchema, FixtureGroupSchema, NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
-import { groupWithProjectData, matchProjectPipe, projectEntryIdOf, projectOptions as projectOptionsOf, projectOptionValue } from '../../catalog/lib/apply-entries';
+import {
+  groupWithProjectData,
+  matchProjectPipe,
+  projectEntryIdOf,
+  projectOptions as projectOptionsOf,
+  projectOptionValue,
+} from '../../catalog/lib/apply-entries';
 import type { Catalog } from '../../systems/api/get-catalog';
-import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { useWalk } from '../draft/walk-context';
 import type { WalkContextValue } from '../draft/walk-context';
 import type { SegmentResult } from '../../../engine';
@@ -38,7 +43,12 @@ const optionalOf = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (blan
 
 /** A custom pipe's four numbers; checked only when the segment has no catalog material (see segmentRow). */
 const customRow = z
-  .object({ innerDiameter: z.unknown().optional(), roughness: z.unknown().optional(), hazenWilliamsC: z.unknown().optional(), velocityClass: z.unknown().optional() })
+  .object({
+    innerDiameter: z.unknown().optional(),
+    roughness: z.unknown().optional(),
+    hazenWilliamsC: z.unknown().optional(),
+    velocityClass: z.unknown().optional(),
+  })
   .optional();
 const segmentRow = SegmentSchema.pick({ id: true, from: true, to: true, length: true })
   .extend({
@@ -59,22 +69,20 @@ const segmentRow = SegmentSchema.pick({ id: true, from: true, to: true, length: 
     if (parsed.success) return { ...rest, material: undefined, size: undefined, custom: parsed.data };
     // no material and no custom data at all: as before, the engine names the missing material
     if (r.material === undefined && (!custom || Object.values(custom).every((v) => blank(v) || v === undefined))) return { ...rest, custom: undefined };
-    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
     return z.NEVER;
   });
 const groupRow = FixtureGroupSchema.extend({
   count: z.number({ error: 'Enter a whole number' }).int('Enter a whole number').positive('At least 1'),
   demandCurve: optionalOf(DemandCurveSchema),
   wsfuBasis: optionalOf(FixtureGroupSchema.shape.wsfuBasis.unwrap()),
-  usage: z.preprocess(
-    (v) => {
-      if (!v || typeof v !== 'object') return undefined;
-      const u = v as Record<string, unknown>;
-      const cleaned = Object.fromEntries(Object.entries(u).filter(([, x]) => !blank(x)));
-      return Object.keys(cleaned).length ? cleaned : undefined;
-    },
-    FixtureGroupSchema.shape.usage,
-  ),
+  usage: z.preprocess((v) => {
+    if (!v || typeof v !== 'object') return undefined;
+    const u = v as Record<string, unknown>;
+    const cleaned = Object.fromEntries(Object.entries(u).filter(([, x]) => !blank(x)));
+    return Object.keys(cleaned).length ? cleaned : undefined;
+  }, FixtureGroupSchema.shape.usage),
 });
 const nodeRow = z.object({
   id: z.string().min(1),
@@ -85,13 +93,38 @@ const nodeRow = z.object({
 });
 export const risersFormSchema = z.object({ segments: z.array(segmentRow), nodes: z.array(nodeRow) });
 type CustomRow = { innerDiameter?: number; roughness?: number; hazenWilliamsC?: number; velocityClass: string };
-type SegmentRow = { id: string; label: string; from: string; to: string; material: string; size: string; length: number; rise?: number; custom: CustomRow; flowOverride?: number };
+type SegmentRow = {
+  id: string;
+  label: string;
+  from: string;
+  to: string;
+  material: string;
+  size: string;
+  length: number;
+  rise?: number;
+  custom: CustomRow;
+  flowOverride?: number;
+};
 /** `custom`: the project fixture type's data the group carries (copied when the type was chosen). */
-type GroupRow = { fixtureTypeId: string; count: number; demandCurve: string; wsfuBasis: string; usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number }; custom?: CustomFixture };
+type GroupRow = {
+  fixtureTypeId: string;
+  count: number;
+  demandCurve: string;
+  wsfuBasis: string;
+  usage: { flow?: number; durationSeconds?: number; recurrenceSeconds?: number };
+  custom?: CustomFixture;
+};
 type NodeRow = { id: string; label: string; elevation?: number; continuousDemand?: number; fixtureGroups: GroupRow[] };
 type RisersForm = { segments: SegmentRow[]; nodes: NodeRow[] };
 
-const groupToRow = (g: FixtureGroup): GroupRow => ({ fixtureTypeId: g.fixtureTypeId, count: g.count, demandCurve: g.demandCurve ?? '', wsfuBasis: g.wsfuBasis ?? '', usage: { ...(g.usage ?? {}) }, ...(g.custom ? { custom: { ...g.custom } } : {}) });
+const groupToRow = (g: FixtureGroup): GroupRow => ({
+  fixtureTypeId: g.fixtureTypeId,
+  count: g.count,
+  demandCurve: g.demandCurve ?? '',
+  wsfuBasis: g.wsfuBasis ?? '',
+  usage: { ...(g.usage ?? {}) },
+  ...(g.custom ? { custom: { ...g.custom } } : {}),
+});
 const EMPTY_CUSTOM: CustomRow = { innerDiameter: undefined, roughness: undefined, hazenWilliamsC: undefined, velocityClass: 'copper' };
 
 /** The form's rows; a custom pipe copied from a project material shows as that material and size. */
@@ -100,15 +133,25 @@ export function risersFormValues(doc: SystemDocument, projectMaterials: readonly
     segments: doc.segments.map((s) => {
       const match = s.material ? null : matchProjectPipe(s.custom, projectMaterials, doc.unitSystem);
       return {
-        id: s.id, label: s.label ?? '', from: s.from, to: s.to,
-        material: match ? projectOptionValue(match.entryId) : s.material ?? '',
-        size: match ? match.sizeKey : s.size ?? '',
-        length: s.length, rise: s.rise,
+        id: s.id,
+        label: s.label ?? '',
+        from: s.from,
+        to: s.to,
+        material: match ? projectOptionValue(match.entryId) : (s.material ?? ''),
+        size: match ? match.sizeKey : (s.size ?? ''),
+        length: s.length,
+        rise: s.rise,
         custom: s.custom ? { ...s.custom } : { ...EMPTY_CUSTOM },
         flowOverride: s.flowOverride,
       };
     }),
-    nodes: doc.nodes.map((n) => ({ id: n.id, label: n.label ?? '', elevation: n.elevation, continuousDemand: n.continuousDemand, fixtureGroups: n.fixtureGroups.map(groupToRow) })),
+    nodes: doc.nodes.map((n) => ({
+      id: n.id,
+      label: n.label ?? '',
+      elevation: n.elevation,
+      continuousDemand: n.continuousDemand,
+      fixtureGroups: n.fixtureGroups.map(groupToRow),
+    })),
   };
 }
 
@@ -119,7 +162,11 @@ const OPTIONAL_SEGMENT_KEYS = ['label', 'material', 'size', 'rise', 'custom', 'f
  * A fixture group of a project fixture type (`project:<id>`) gets the type's data copied in as its
  * own (catalog/lib/apply-entries.ts); a group of a seeded type carries none.
  */
-export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSchema>, projectFixtures: readonly ProjectEntryOf<'fixture-type'>[] = []): SystemDocument {
+export function applyRisers(
+  doc: SystemDocument,
+  v: z.output<typeof risersFormSchema>,
+  projectFixtures: readonly ProjectEntryOf<'fixture-type'>[] = [],
+): SystemDocument {
   const oldSegments = new Map(doc.segments.map((s) => [s.id, s]));
   const oldNodes = new Map(doc.nodes.map((n) => [n.id, n]));
   const segments: Segment[] = v.segments.map((r) => {
@@ -133,7 +180,9 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
   });
   const nodes = v.nodes.map((r) => {
     const old = oldNodes.get(r.id);
-    const fixtureGroups = r.fixtureGroups.map((g) => groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures));
+    const fixtureGroups = r.fixtureGroups.map((g) =>
+      groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures),
+    );
     // Document version 2: a node keeps the position it has (elevation, floor, or none: placed by its feed's rise).
     const next = { ...(old ?? { checkedFixtures: [] }), id: r.id, fixtureGroups } as SystemDocument['nodes'][number];
     if (!old && r.elevation !== undefined) next.elevation = r.elevation;
@@ -146,19 +195,31 @@ export function applyRisers(doc: SystemDocument, v: z.output<typeof risersFormSc
   return followTypedRises(doc, { ...doc, segments, nodes });
 }
 
-/** The material choices: the seeded materials, then the project's own (marked), then a custom pipe. */
-export function materialOptions(catalog: Catalog, project: ProjectCatalog) {
-  return [
-    { value: '', label: 'Custom pipe (give its data)' },
-    ...catalog.materials.map((m) => ({ value: m.id, label: m.label })),
-    ...project.of('material').map((m) => ({ value: projectOptionValue(m.id), label: `${m.label} — project` })),
-  ];
-}
+const DEMAND_CURVE_OPTIONS = [
+  { value: '', label: 'As the fixture type' },
+  { value: 'flush-tank', label: 'Flush tank' },
+  { value: 'flush-valve', label: 'Flush valve' },
+];
+const WSFU_BASIS_OPTIONS = [
+  { value: '', label: 'The system’s service' },
+  { value: 'cold', label: 'Cold' },
+  { value: 'hot', label: 'Hot' },
+  { value: 'total', label: 'Total (cold + hot)' },
+];
 
-const DEMAND_CURVE_OPTIONS = [{ value: '', label: 'As the fixture type' }, { value: 'flush-tank', label: 'Flush tank' }, { value: 'flush-valve', label: 'Flush valve' }];
-const WSFU_BASIS_OPTIONS = [{ value: '', label: 'The system’s service' }, { value: 'cold', label: 'Cold' }, { value: 'hot', label: 'Hot' }, { value: 'total', label: 'Total (cold + hot)' }];
-
-function FixtureGroups({ index, control, register, setValue, rows, projectFixtures, catalog, nodeLabel, errors, locked, units }: {
+function FixtureGroups({
+  index,
+  control,
+  register,
+  setValue,
+  rows,
+  projectFixtures,
+  catalog,
+  nodeLabel,
+  errors,
+  locked,
+  units,
+}: {
   index: number;
   control: Control<RisersForm>;
   register: UseFormRegister<RisersForm>;
@@ -181,35 +242,106 @@ function FixtureGroups({ index, control, register, setValue, rows, projectFixtur
       {groups.fields.map((g, k) => {
         const row = rows?.[k];
         // the copy the group carries, or what choosing the project type will copy
-        const own = row ? groupWithProjectData({ fixtureTypeId: row.fixtureTypeId, count: 1, ...(row.custom ? { custom: row.custom } : {}) }, projectFixtures).custom : undefined;
+        const own = row
+          ? groupWithProjectData({ fixtureTypeId: row.fixtureTypeId, count: 1, ...(row.custom ? { custom: row.custom } : {}) }, projectFixtures).custom
+          : undefined;
         return (
-        <div key={g.id} className="flex flex-col gap-1">
-          <div className="flex flex-wrap items-start gap-2">
-            <CellSelect className="min-w-64 flex-1" label={`${nodeLabel}: fixture group ${k + 1} type`} options={[...options, ...projectOptions]} {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`, { onChange: () => setValue(`nodes.${index}.fixtureGroups.${k}.custom`, undefined) })} />
-            <CellInput className="w-24" label={`${nodeLabel}: fixture group ${k + 1} count`} type="text" inputMode="numeric" autoComplete="off" error={plainError(errors?.[k]?.count?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)} />
-            <Button variant="quiet" disabled={locked} onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>Remove</Button>
-          </div>
-          {own ? (
-            <p className="ml-2 text-xs text-ink-muted" data-testid={`project-fixture-${index}-${k}`}>
-              Project data: {own.label} — fixture units each: cold {own.wsfuCold ?? 'none'}, hot {own.wsfuHot ?? 'none'}, total {own.wsfuTotal}; {own.flushValve ? 'flush valve' : 'flush tank'}; source: {own.source}
-            </p>
-          ) : null}
-          <details className="ml-2 text-sm">
-            <summary className="cursor-pointer text-ink-soft">Overrides of group {k + 1} (demand curve, fixture-unit basis, use for the binomial method)</summary>
-            <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
-              <label className="flex flex-col text-xs font-semibold">Demand curve<CellSelect label={`${nodeLabel}: fixture group ${k + 1} demand curve`} options={DEMAND_CURVE_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.demandCurve`)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Fixture units counted<CellSelect label={`${nodeLabel}: fixture group ${k + 1} fixture-unit basis`} options={WSFU_BASIS_OPTIONS} {...register(`nodes.${index}.fixtureGroups.${k}.wsfuBasis`)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Flow in use ({units.flow})<CellInput label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="the type’s" error={plainError(errors?.[k]?.usage?.flow?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.flow`, numberInput)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Use lasts (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.[k]?.usage?.durationSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.durationSeconds`, numberInput)} /></label>
-              <label className="flex flex-col text-xs font-semibold">Time between uses (s)<CellInput label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.[k]?.usage?.recurrenceSeconds?.message)} {...register(`nodes.${index}.fixtureGroups.${k}.usage.recurrenceSeconds`, numberInput)} /></label>
+          <div key={g.id} className="flex flex-col gap-1">
+            <div className="flex flex-wrap items-start gap-2">
+              <CellSelect
+                className="min-w-64 flex-1"
+                label={`${nodeLabel}: fixture group ${k + 1} type`}
+                options={[...options, ...projectOptions]}
+                {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`, {
+                  onChange: () => setValue(`nodes.${index}.fixtureGroups.${k}.custom`, undefined),
+                })}
+              />
+              <CellInput
+                className="w-24"
+                label={`${nodeLabel}: fixture group ${k + 1} count`}
+                type="text"
+                inputMode="numeric"
+                autoComplete="off"
+                error={plainError(errors?.[k]?.count?.message)}
+                {...register(`nodes.${index}.fixtureGroups.${k}.count`, numberInput)}
+              />
+              <Button variant="quiet" disabled={locked} onClick={() => groups.remove(k)} aria-label={`Remove fixture group ${k + 1} at ${nodeLabel}`}>
+                Remove
+              </Button>
             </div>
-            <p className="mt-1 text-xs text-ink-muted">Private or public use is chosen with the fixture type. Empty = the fixture type’s own value.</p>
-          </details>
-        </div>
+            {own ? (
+              <p className="ml-2 text-xs text-ink-muted" data-testid={`project-fixture-${index}-${k}`}>
+                Project data: {own.label} — fixture units each: cold {own.wsfuCold ?? 'none'}, hot {own.wsfuHot ?? 'none'}, total {own.wsfuTotal};{' '}
+                {own.flushValve ? 'flush valve' : 'flush tank'}; source: {own.source}
+              </p>
+            ) : null}
+            <details className="ml-2 text-sm">
+              <summary className="cursor-pointer text-ink-soft">
+                Overrides of group {k + 1} (demand curve, fixture-unit basis, use for the binomial method)
+              </summary>
+              <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
+                <label className="flex flex-col text-xs font-semibold">
+                  Demand curve
+                  <CellSelect
+                    label={`${nodeLabel}: fixture group ${k + 1} demand curve`}
+                    options={DEMAND_CURVE_OPTIONS}
+                    {...register(`nodes.${index}.fixtureGroups.${k}.demandCurve`)}
+                  />
+                </label>
+                <label className="flex flex-col text-xs font-semibold">
+                  Fixture units counted
+                  <CellSelect
+                    label={`${nodeLabel}: fixture group ${k + 1} fixture-unit basis`}
+                    options={WSFU_BASIS_OPTIONS}
+                    {...register(`nodes.${index}.fixtureGroups.${k}.wsfuBasis`)}
+                  />
+                </label>
+                <label className="flex flex-col text-xs font-semibold">
+                  Flow in use ({units.flow})
+                  <CellInput
+                    label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`}
+                    type="text"
+                    inputMode="decimal"
+                    autoComplete="off"
+                    placeholder="the type’s"
+                    error={plainError(errors?.[k]?.usage?.flow?.message)}
+                    {...register(`nodes.${index}.fixtureGroups.${k}.usage.flow`, numberInput)}
+                  />
+                </label>
+                <label className="flex flex-col text-xs font-semibold">
+                  Use lasts (s)
+                  <CellInput
+                    label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`}
+                    type="text"
+                    inputMode="decimal"
+                    autoComplete="off"
+                    error={plainError(errors?.[k]?.usage?.durationSeconds?.message)}
+                    {...register(`nodes.${index}.fixtureGroups.${k}.usage.durationSeconds`, numberInput)}
+                  />
+                </label>
+                <label className="flex flex-col text-xs font-semibold">
+                  Time between uses (s)
+                  <CellInput
+                    label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`}
+                    type="text"
+                    inputMode="decimal"
+                    autoComplete="off"
+                    error={plainError(errors?.[k]?.usage?.recurrenceSeconds?.message)}
+                    {...register(`nodes.${index}.fixtureGroups.${k}.usage.recurrenceSeconds`, numberInput)}
+                  />
+                </label>
+              </div>
+              <p className="mt-1 text-xs text-ink-muted">Private or public use is chosen with the fixture type. Empty = the fixture type’s own value.</p>
+            </details>
+          </div>
         );
       })}
       <div>
-        <Button variant="secondary" disabled={locked} onClick={() => groups.append({ fixtureTypeId: options[0]?.value ?? '', count: 1, demandCurve: '', wsfuBasis: '', usage: {} })}>
+        <Button
+          variant="secondary"
+          disabled={locked}
+          onClick={() => groups.append({ fixtureTypeId: options[0]?.value ?? '', count: 1, demandCurve: '', wsfuBasis: '', usage: {} })}
+        >
           Add fixtures at {nodeLabel}
         </Button>
       </div>
@@ -217,10 +349,22 @@ function FixtureGroups({ index, control, register, setValue, rows, projectFixtur
   );
 }
 
-const VELOCITY_CLASS_OPTIONS = [{ value: 'copper', label: 'Copper limits' }, { value: 'plastic', label: 'Plastic limits' }, { value: 'steel', label: 'Steel limits' }];
+const VELOCITY_CLASS_OPTIONS = [
+  { value: 'copper', label: 'Copper limits' },
+  { value: 'plastic', label: 'Plastic limits' },
+  { value: 'steel', label: 'Steel limits' },
+];
 
 /** A custom pipe's own data; read-only when it was copied from a project material (change the entry's size instead). */
-function CustomPipeFields({ index, name, register, errors, units, fromProject, source }: {
+function CustomPipeFields({
+  index,
+  name,
+  register,
+  errors,
+  units,
+  fromProject,
+  source,
+}: {
   index: number;
   name: string;
   register: UseFormRegister<RisersForm>;
@@ -233,10 +377,48 @@ function CustomPipeFields({ index, name, register, errors, units, fromProject, s
     <fieldset className="mt-2 rounded border border-rule p-2" disabled={fromProject || undefined}>
       <legend className="px-1 text-xs font-semibold">{fromProject ? 'Pipe data copied from the project catalog' : 'Custom pipe data'}</legend>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
-        <label className="flex flex-col text-xs font-semibold">Inside diameter ({units.diameter})<CellInput label={`${name} custom inside diameter (${units.diameter})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.innerDiameter?.message)} {...register(`segments.${index}.custom.innerDiameter`, numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Absolute roughness ({units.diameter})<CellInput label={`${name} custom roughness (${units.diameter})`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.roughness?.message)} {...register(`segments.${index}.custom.roughness`, numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Hazen–Williams C<CellInput label={`${name} custom Hazen–Williams C`} type="text" inputMode="decimal" autoComplete="off" error={plainError(errors?.hazenWilliamsC?.message)} {...register(`segments.${index}.custom.hazenWilliamsC`, numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Velocity limit<CellSelect label={`${name} custom velocity class`} options={VELOCITY_CLASS_OPTIONS} error={plainError(errors?.velocityClass?.message)} {...register(`segments.${index}.custom.velocityClass`)} /></label>
+        <label className="flex flex-col text-xs font-semibold">
+          Inside diameter ({units.diameter})
+          <CellInput
+            label={`${name} custom inside diameter (${units.diameter})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            error={plainError(errors?.innerDiameter?.message)}
+            {...register(`segments.${index}.custom.innerDiameter`, numberInput)}
+          />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Absolute roughness ({units.diameter})
+          <CellInput
+            label={`${name} custom roughness (${units.diameter})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            error={plainError(errors?.roughness?.message)}
+            {...register(`segments.${index}.custom.roughness`, numberInput)}
+          />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Hazen–Williams C
+          <CellInput
+            label={`${name} custom Hazen–Williams C`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            error={plainError(errors?.hazenWilliamsC?.message)}
+            {...register(`segments.${index}.custom.hazenWilliamsC`, numberInput)}
+          />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Velocity limit
+          <CellSelect
+            label={`${name} custom velocity class`}
+            options={VELOCITY_CLASS_OPTIONS}
+            error={plainError(errors?.velocityClass?.message)}
+            {...register(`segments.${index}.custom.velocityClass`)}
+          />
+        </label>
       </div>
       {source ? <p className="mt-1 text-xs text-ink-muted">Source: {source}</p> : null}
     </fieldset>
@@ -261,10 +443,11 @@ export function removalOf(values: RisersForm, doc: SystemDocument, index: number
     const node = queue.shift()!;
     if (node === doc.source.nodeId || nodeIds.has(node)) continue;
     nodeIds.add(node);
-    for (const s of values.segments) if (s.from === node && !segmentIds.has(s.id)) {
-      segmentIds.add(s.id);
-      queue.push(s.to);
-    }
+    for (const s of values.segments)
+      if (s.from === node && !segmentIds.has(s.id)) {
+        segmentIds.add(s.id);
+        queue.push(s.to);
+      }
   }
   const downstream = values.segments.filter((s) => segmentIds.has(s.id) && s.id !== seg.id).map((s) => s.label || s.id);
   const groups = values.nodes.filter((n) => nodeIds.has(n.id)).flatMap((n) => n.fixtureGroups.map(() => nodeName(n.id)));
@@ -276,7 +459,12 @@ export function removalOf(values: RisersForm, doc: SystemDocument, index: number
     checked.length ? `${plural(checked.length, 'checked fixture')}: ${checked.join(', ')}` : null,
   ].filter((l): l is string => l !== null);
   const name = seg.label || seg.id;
-  const summary = [name, downstream.length ? plural(downstream.length, 'downstream segment') : null, groups.length ? plural(groups.length, 'fixture group') : null, checked.length ? plural(checked.length, 'checked fixture') : null]
+  const summary = [
+    name,
+    downstream.length ? plural(downstream.length, 'downstream segment') : null,
+    groups.length ? plural(groups.length, 'fixture group') : null,
+    checked.length ? plural(checked.length, 'checked fixture') : null,
+  ]
     .filter(Boolean)
     .join(', ');
   return { segmentId: seg.id, segmentIds, nodeIds, lines, summary };
@@ -284,14 +472,21 @@ export function removalOf(values: RisersForm, doc: SystemDocument, index: number
 
 /** The details of the open row's segment and its end node: what the row has no room for. */
 const detailSegmentRow = z
-  .object({ id: z.string(), label: optionalText, material: z.string(), flowOverride: optionalOf(z.number({ error: 'Enter a number' }).nonnegative('Must be zero or more')), custom: customRow })
+  .object({
+    id: z.string(),
+    label: optionalText,
+    material: z.string(),
+    flowOverride: optionalOf(z.number({ error: 'Enter a number' }).nonnegative('Must be zero or more')),
+    custom: customRow,
+  })
   .transform((r, ctx) => {
     if (r.material !== '' && projectEntryIdOf(r.material) === null) return { ...r, custom: undefined, customGiven: false };
     if (projectEntryIdOf(r.material) !== null) return { ...r, custom: undefined, customGiven: false };
     const parsed = CustomPipeSchema.safeParse({ ...r.custom, velocityClass: r.custom?.velocityClass || undefined });
     if (parsed.success) return { ...r, custom: parsed.data, customGiven: true };
     if (!r.custom || Object.entries(r.custom).every(([k, v]) => k === 'velocityClass' || blank(v))) return { ...r, custom: undefined, customGiven: false };
-    for (const issue of parsed.error.issues) ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
+    for (const issue of parsed.error.issues)
+      ctx.addIssue({ code: 'custom', path: ['custom', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
     return z.NEVER;
   });
 const detailSchema = z.object({ segments: z.array(detailSegmentRow), nodes: z.array(nodeRow) });
@@ -314,7 +509,12 @@ function applyDetail(doc: SystemDocument, v: z.output<typeof detailSchema>, proj
     }),
     nodes: doc.nodes.map((node) => {
       if (!n || node.id !== n.id) return node;
-      const next = { ...node, fixtureGroups: n.fixtureGroups.map((g) => groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures)) };
+      const next = {
+        ...node,
+        fixtureGroups: n.fixtureGroups.map((g) =>
+          groupWithProjectData(Object.fromEntries(Object.entries(g).filter(([, x]) => x !== undefined)) as FixtureGroup, projectFixtures),
+        ),
+      };
       if (n.label === undefined) delete next.label;
       else next.label = n.label;
       if (n.continuousDemand === undefined) delete next.continuousDemand;
@@ -330,7 +530,8 @@ interface Pending {
   nodes: SystemDocument['nodes'];
 }
 const NO_PENDING: Pending = { segments: [], nodes: [] };
-const withPending = (doc: SystemDocument, p: Pending): SystemDocument => (p.segments.length ? { ...doc, segments: [...doc.segments, ...p.segments], nodes: [...doc.nodes, ...p.nodes] } : doc);
+const withPending = (doc: SystemDocument, p: Pending): SystemDocument =>
+  p.segments.length ? { ...doc, segments: [...doc.segments, ...p.segments], nodes: [...doc.nodes, ...p.nodes] } : doc;
 function splitPending(view: SystemDocument): { doc: SystemDocument; pending: Pending } {
   const waiting = view.segments.filter((s) => !(Number.isFinite(s.length) && s.length > 0));
   if (!waiting.length) return { doc: view, pending: NO_PENDING };
@@ -364,11 +565,27 @@ function SegmentDetail(p: DetailProps) {
   const s = p.segment;
   const node = p.view.nodes.find((n) => n.id === s.to);
   const [defaults] = useState(() => ({
-    segments: [{ id: s.id, label: s.label ?? '', material: p.materialValue, flowOverride: s.flowOverride, custom: s.custom ? { ...s.custom } : { ...EMPTY_CUSTOM } }],
-    nodes: [{ id: s.to, label: node?.label ?? '', elevation: node?.elevation, continuousDemand: node?.continuousDemand, fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow) }],
+    segments: [
+      { id: s.id, label: s.label ?? '', material: p.materialValue, flowOverride: s.flowOverride, custom: s.custom ? { ...s.custom } : { ...EMPTY_CUSTOM } },
+    ],
+    nodes: [
+      {
+        id: s.to,
+        label: node?.label ?? '',
+        elevation: node?.elevation,
+        continuousDemand: node?.continuousDemand,
+        fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow),
+      },
+    ],
   }));
   const form = useLiveForm(detailSchema, defaults, (v) => p.update((doc) => applyDetail(doc, v, p.projectFixtures)));
-  const { register, control, setValue, watch, formState: { errors } } = form;
+  const {
+    register,
+    control,
+    setValue,
+    watch,
+    formState: { errors },
+  } = form;
   const name = watch('segments.0.label') || s.id;
   const nodeLabel = watch('nodes.0.label') || s.to;
   const groups = watch('nodes.0.fixtureGroups');
@@ -379,42 +596,114 @@ function SegmentDetail(p: DetailProps) {
   return (
     <div className="flex flex-col gap-3" data-testid={`segment-detail-${s.id}`}>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
-        <label className="flex flex-col text-xs font-semibold">Name<CellInput label={`${name} name`} readOnly={p.policy.locked.name !== null} title={p.policy.locked.name ?? undefined} {...register('segments.0.label')} /></label>
-        <label className="flex flex-col text-xs font-semibold">Design flow override ({p.units.flow})<CellInput label={`${name} design flow override (${p.units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="from the fixture units" error={plainError(err?.flowOverride?.message)} {...register('segments.0.flowOverride', numberInput)} /></label>
-        <label className="flex flex-col text-xs font-semibold">Node name at the end<CellInput label={`Name of node ${s.to}`} {...register('nodes.0.label')} /></label>
-        <label className="flex flex-col text-xs font-semibold">Continuous demand at the end ({p.units.flow})<CellInput label={`Continuous demand at node ${s.to} (${p.units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[0]?.continuousDemand?.message)} {...register('nodes.0.continuousDemand', numberInput)} /></label>
+        <label className="flex flex-col text-xs font-semibold">
+          Name
+          <CellInput
+            label={`${name} name`}
+            readOnly={p.policy.locked.name !== null}
+            title={p.policy.locked.name ?? undefined}
+            {...register('segments.0.label')}
+          />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Design flow override ({p.units.flow})
+          <CellInput
+            label={`${name} design flow override (${p.units.flow})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="from the fixture units"
+            error={plainError(err?.flowOverride?.message)}
+            {...register('segments.0.flowOverride', numberInput)}
+          />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Node name at the end
+          <CellInput label={`Name of node ${s.to}`} {...register('nodes.0.label')} />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          Continuous demand at the end ({p.units.flow})
+          <CellInput
+            label={`Continuous demand at node ${s.to} (${p.units.flow})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="none"
+            error={plainError(errors.nodes?.[0]?.continuousDemand?.message)}
+            {...register('nodes.0.continuousDemand', numberInput)}
+          />
+        </label>
       </div>
       <p className="text-sm" data-testid={`segment-demand-${s.id}`}>
         {p.result ? (
           <>
-            <span className="font-semibold">{fmt(p.result.wsfu, 1)} WSFU</span> → {fmt(p.result.designFlow, 1)} {p.units.flow}, {fmt(p.result.velocity, 1)} {p.units.velocity}
+            <span className="font-semibold">{fmt(p.result.wsfu, 1)} WSFU</span> → {fmt(p.result.designFlow, 1)} {p.units.flow}, {fmt(p.result.velocity, 1)}{' '}
+            {p.units.velocity}
           </>
         ) : (
-          <span className="text-ink-muted">{Number.isFinite(s.length) ? 'Demand not computed yet' : 'Give its length to add it to the draft; the demand follows.'}</span>
+          <span className="text-ink-muted">
+            {Number.isFinite(s.length) ? 'Demand not computed yet' : 'Give its length to add it to the draft; the demand follows.'}
+          </span>
         )}
       </p>
       {p.materialValue === '' || projectEntryIdOf(p.materialValue) ? (
-        <CustomPipeFields index={0} name={name} register={register as never} errors={err?.custom as never} units={p.units} fromProject={projectEntryIdOf(p.materialValue) !== null} source={p.projectMaterialSource} />
+        <CustomPipeFields
+          index={0}
+          name={name}
+          register={register as never}
+          errors={err?.custom as never}
+          units={p.units}
+          fromProject={projectEntryIdOf(p.materialValue) !== null}
+          source={p.projectMaterialSource}
+        />
       ) : null}
       <div>
         <p className="mb-1 text-sm font-semibold">Fixtures served at {nodeLabel}</p>
-        <FixtureGroups index={0} control={control as never} register={register as never} setValue={setValue as never} rows={groups} projectFixtures={p.projectFixtures} catalog={p.catalog} nodeLabel={nodeLabel} errors={errors.nodes?.[0]?.fixtureGroups as never} locked={lockedFixtures !== null} units={p.units} />
+        <FixtureGroups
+          index={0}
+          control={control as never}
+          register={register as never}
+          setValue={setValue as never}
+          rows={groups}
+          projectFixtures={p.projectFixtures}
+          catalog={p.catalog}
+          nodeLabel={nodeLabel}
+          errors={errors.nodes?.[0]?.fixtureGroups as never}
+          locked={lockedFixtures !== null}
+          units={p.units}
+        />
       </div>
       <div className="flex flex-wrap items-center gap-2">
-        <Button variant="secondary" disabled={lockedTopology !== null} title={lockedTopology ?? undefined} onClick={() => p.onAddFrom(s.to)}>Add a segment from {nodeLabel}</Button>
-        <Button variant="danger" disabled={lockedTopology !== null || p.removing !== null} title={lockedTopology ?? undefined} onClick={p.onRemove}>Remove {name}{leaf ? '' : ' and what it feeds'}…</Button>
+        <Button variant="secondary" disabled={lockedTopology !== null} title={lockedTopology ?? undefined} onClick={() => p.onAddFrom(s.to)}>
+          Add a segment from {nodeLabel}
+        </Button>
+        <Button variant="danger" disabled={lockedTopology !== null || p.removing !== null} title={lockedTopology ?? undefined} onClick={p.onRemove}>
+          Remove {name}
+          {leaf ? '' : ' and what it feeds'}…
+        </Button>
       </div>
       <div className="flex flex-wrap items-end gap-3">
         <DeviceAdder segmentId={s.id} segmentName={name} doc={p.view} catalog={p.catalog} locked={p.policy.locked.devices} onChange={p.update} />
-        <Link to={p.devicesHref} className="text-sm">Its loss, a fixed loss, a PRV or a booster at Meter &amp; devices →</Link>
+        <Link to={p.devicesHref} className="text-sm">
+          Its loss, a fixed loss, a PRV or a booster at Meter &amp; devices →
+        </Link>
       </div>
       {p.removing?.segmentId === s.id ? (
-        <div className="flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm" role="group" aria-label={`Confirm removing ${name}`} data-testid="confirm-remove">
+        <div
+          className="flex flex-col gap-2 rounded-md border-2 border-fault bg-fault-soft p-3 text-sm"
+          role="group"
+          aria-label={`Confirm removing ${name}`}
+          data-testid="confirm-remove"
+        >
           <p className="font-semibold">Remove {name}? This also removes:</p>
           <ul className="list-disc pl-5">{p.removing.lines.length ? p.removing.lines.map((l) => <li key={l}>{l}</li>) : <li>nothing else</li>}</ul>
           <div className="flex flex-wrap gap-2">
-            <Button variant="danger" onClick={p.onConfirmRemove}>Yes, remove</Button>
-            <Button variant="secondary" onClick={p.onKeep}>Keep it</Button>
+            <Button variant="danger" onClick={p.onConfirmRemove}>
+              Yes, remove
+            </Button>
+            <Button variant="secondary" onClick={p.onKeep}>
+              Keep it
+            </Button>
           </div>
         </div>
       ) : null}
@@ -426,7 +715,14 @@ function SegmentDetail(p: DetailProps) {
  * The connection node itself: no segment ends there, so no row of the tree opens it. Fixtures served
  * right at the connection (a hose bibb at the meter, a yard hydrant) and its name are edited here.
  */
-function ConnectionNode({ view, update, policy, catalog, projectFixtures, units }: {
+function ConnectionNode({
+  view,
+  update,
+  policy,
+  catalog,
+  projectFixtures,
+  units,
+}: {
   view: SystemDocument;
   update: (change: (doc: SystemDocument) => SystemDocument) => void;
   policy: EditPolicy;
@@ -438,24 +734,64 @@ function ConnectionNode({ view, update, policy, catalog, projectFixtures, units 
   const node = view.nodes.find((n) => n.id === id);
   const [defaults] = useState(() => ({
     segments: [],
-    nodes: [{ id, label: node?.label ?? '', elevation: node?.elevation, continuousDemand: node?.continuousDemand, fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow) }],
+    nodes: [
+      {
+        id,
+        label: node?.label ?? '',
+        elevation: node?.elevation,
+        continuousDemand: node?.continuousDemand,
+        fixtureGroups: (node?.fixtureGroups ?? []).map(groupToRow),
+      },
+    ],
   }));
   const form = useLiveForm(detailSchema, defaults, (v) => update((doc) => applyDetail(doc, v, projectFixtures)));
-  const { register, control, setValue, watch, formState: { errors } } = form;
+  const {
+    register,
+    control,
+    setValue,
+    watch,
+    formState: { errors },
+  } = form;
   const nodeLabel = watch('nodes.0.label') || id;
   const groups = watch('nodes.0.fixtureGroups');
   if (!node) return null;
   return (
-    <details className="rounded-md border border-rule p-3" open={(node.fixtureGroups.length > 0) || undefined} data-testid="connection-node">
+    <details className="rounded-md border border-rule p-3" open={node.fixtureGroups.length > 0 || undefined} data-testid="connection-node">
       <summary className="cursor-pointer text-sm font-semibold">
         At the connection ({nodeLabel}): {groups?.length ? plural(groups.length, 'fixture group') : 'no fixtures'}
       </summary>
       <div className="mt-3 flex flex-col gap-3">
         <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
-          <label className="flex flex-col text-xs font-semibold">Node name<CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} /></label>
-          <label className="flex flex-col text-xs font-semibold">Continuous demand ({units.flow})<CellInput label={`Continuous demand at node ${id} (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" placeholder="none" error={plainError(errors.nodes?.[0]?.continuousDemand?.message)} {...register('nodes.0.continuousDemand', numberInput)} /></label>
+          <label className="flex flex-col text-xs font-semibold">
+            Node name
+            <CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} />
+          </label>
+          <label className="flex flex-col text-xs font-semibold">
+            Continuous demand ({units.flow})
+            <CellInput
+              label={`Continuous demand at node ${id} (${units.flow})`}
+              type="text"
+              inputMode="decimal"
+              autoComplete="off"
+              placeholder="none"
+              error={plainError(errors.nodes?.[0]?.continuousDemand?.message)}
+              {...register('nodes.0.continuousDemand', numberInput)}
+            />
+          </label>
         </div>
-        <FixtureGroups index={0} control={control as never} register={register as never} setValue={setValue as never} rows={groups} projectFixtures={projectFixtures} catalog={catalog} nodeLabel={nodeLabel} errors={errors.nodes?.[0]?.fixtureGroups as never} locked={policy.locked.fixtures !== null} units={units} />
+        <FixtureGroups
+          index={0}
+          control={control as never}
+          register={register as never}
+          setValue={setValue as never}
+          rows={groups}
+          projectFixtures={projectFixtures}
+          catalog={catalog}
+          nodeLabel={nodeLabel}
+          errors={errors.nodes?.[0]?.fixtureGroups as never}
+          locked={policy.locked.fixtures !== null}
+          units={units}
+        />
       </div>
     </details>
   );
@@ -487,7 +823,10 @@ export function RisersStep() {
   // a segment being entered is a value not saved yet: the save bar says so
   const report = draft.reportHeld;
   useEffect(() => {
-    report('risers-pending', pending.segments.map((s) => ({ path: `segments.${s.id}.length`, message: `${s.label || s.id}: give its length to add it to the draft` })));
+    report(
+      'risers-pending',
+      pending.segments.map((s) => ({ path: `segments.${s.id}.length`, message: `${s.label || s.id}: give its length to add it to the draft` })),
+    );
   }, [pending, report]);
   useEffect(() => () => report('risers-pending', []), [report]);
 
@@ -495,11 +834,19 @@ export function RisersStep() {
   const [detailEpoch, setDetailEpoch] = useState(0);
   const addSegmentFrom = (fromId: string) => {
     const v = viewRef.current;
-    const to = freshId('node', v.nodes.map((n) => n.id));
-    const id = freshId('seg', v.segments.map((s) => s.id));
+    const to = freshId(
+      'node',
+      v.nodes.map((n) => n.id),
+    );
+    const id = freshId(
+      'seg',
+      v.segments.map((s) => s.id),
+    );
     const feeding = v.segments.find((s) => s.to === fromId);
     const segment = {
-      id, from: fromId, to,
+      id,
+      from: fromId,
+      to,
       ...(feeding?.material ? { material: feeding.material } : feeding ? {} : { material: catalog.materials[0]?.id }),
       ...(feeding?.size ? { size: feeding.size } : {}),
       ...(feeding?.custom ? { custom: { ...feeding.custom } } : {}),
@@ -508,7 +855,11 @@ export function RisersStep() {
       reducerAuto: true,
     } as Segment;
     // a new node has no position: the new segment's rise places it (document version 2)
-    update((doc) => ({ ...doc, segments: [...doc.segments, segment], nodes: [...doc.nodes, { id: to, fixtureGroups: [], checkedFixtures: [] } as unknown as SystemDocument['nodes'][number]] }));
+    update((doc) => ({
+      ...doc,
+      segments: [...doc.segments, segment],
+      nodes: [...doc.nodes, { id: to, fixtureGroups: [], checkedFixtures: [] } as unknown as SystemDocument['nodes'][number]],
+    }));
     setActiveRequest({ id, at: Date.now() });
   };
 
@@ -517,12 +868,23 @@ export function RisersStep() {
   const [undo, setUndo] = useState<{ text: string; doc: SystemDocument; pending: Pending } | null>(null);
   const askRemove = (segmentId: string) => {
     const values = risersFormValues(view);
-    setRemoving(removalOf(values, view, values.segments.findIndex((s) => s.id === segmentId), nodeName));
+    setRemoving(
+      removalOf(
+        values,
+        view,
+        values.segments.findIndex((s) => s.id === segmentId),
+        nodeName,
+      ),
+    );
   };
   const removeSegment = () => {
     if (!removing) return;
     setUndo({ text: removing.summary, doc: document, pending });
-    update((doc) => ({ ...doc, segments: doc.segments.filter((s) => !removing.segmentIds.has(s.id)), nodes: doc.nodes.filter((n) => !removing.nodeIds.has(n.id)) }));
+    update((doc) => ({
+      ...doc,
+      segments: doc.segments.filter((s) => !removing.segmentIds.has(s.id)),
+      nodes: doc.nodes.filter((n) => !removing.nodeIds.has(n.id)),
+    }));
     setRemoving(null);
   };
   const undoRemove = () => {
@@ -590,19 +952,29 @@ export function RisersStep() {
   return (
     <div>
       <StepIntro title="Risers">
-        The tree of segments from the source up and out, one row each: material, size, developed length and rise in
-        place (arrow keys move, Enter or F2 edits, Escape cancels). Open a row for its name, its end node and the
-        fixtures served there; select rows (shift- or ctrl-click, or a whole branch) to change them together.
+        The tree of segments from the source up and out, one row each: material, size, developed length and rise in place (arrow keys move, Enter or F2 edits,
+        Escape cancels). Open a row for its name, its end node and the fixtures served there; select rows (shift- or ctrl-click, or a whole branch) to change
+        them together.
       </StepIntro>
-      {scope === 'design' ? <p className="mb-4"><Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>Build from floors: floors, typical units and a riser from a short form →</Link></p> : null}
+      {scope === 'design' ? (
+        <p className="mb-4">
+          <Link to={buildingPaths.building.getHref(ids.projectId, ids.systemId, ids.revisionId)}>
+            Build from floors: floors, typical units and a riser from a short form →
+          </Link>
+        </p>
+      ) : null}
       <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Risers">
         <fieldset disabled={readOnlyReason !== null} className="flex min-w-0 flex-col gap-4">
           <div aria-live="polite">
             {undo ? (
               <div className="flex flex-wrap items-center gap-3 rounded-md border-2 border-rule bg-paper-deep p-3 text-sm" data-testid="undo-remove">
                 <p>Removed {undo.text}.</p>
-                <Button variant="secondary" onClick={undoRemove}>Undo</Button>
-                <Button variant="quiet" onClick={() => setUndo(null)}>Dismiss</Button>
+                <Button variant="secondary" onClick={undoRemove}>
+                  Undo
+                </Button>
+                <Button variant="quiet" onClick={() => setUndo(null)}>
+                  Dismiss
+                </Button>
               </div>
             ) : null}
           </div>
@@ -621,20 +993,53 @@ export function RisersStep() {
             activeRequest={activeRequest}
           />
           <div>
-            <Button variant="secondary" disabled={policy.locked.topology !== null} onClick={() => addSegmentFrom(document.source.nodeId)}>Add a segment from the connection</Button>
+            <Button variant="secondary" disabled={policy.locked.topology !== null} onClick={() => addSegmentFrom(document.source.nodeId)}>
+              Add a segment from the connection
+            </Button>
           </div>
-          <ConnectionNode key={`${document.source.nodeId}:${detailEpoch}`} view={view} update={update} policy={policy} catalog={catalog} projectFixtures={projectFixtures} units={units} />
+          <ConnectionNode
+            key={`${document.source.nodeId}:${detailEpoch}`}
+            view={view}
+            update={update}
+            policy={policy}
+            catalog={catalog}
+            projectFixtures={projectFixtures}
+            units={units}
+          />
           <Section title="Import fixture groups (CSV)" headingLevel={3}>
-            <TextAreaField label="Lines of node id, fixture type id, count" hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named." value={csv} onChange={(ev) => setCsv(ev.target.value)} />
+            <TextAreaField
+              label="Lines of node id, fixture type id, count"
+              hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named."
+              value={csv}
+              onChange={(ev) => setCsv(ev.target.value)}
+            />
             <div className="mt-2 flex flex-wrap items-end gap-3">
-              <Button variant="secondary" onClick={() => importCsv(csv)} disabled={policy.locked.fixtures !== null || csv.trim() === ''}>Add these fixture groups</Button>
+              <Button variant="secondary" onClick={() => importCsv(csv)} disabled={policy.locked.fixtures !== null || csv.trim() === ''}>
+                Add these fixture groups
+              </Button>
               <label className="text-sm font-semibold">
                 Or a CSV file
-                <input type="file" accept=".csv,.txt,text/csv,text/plain" className="mt-1 block text-sm" disabled={policy.locked.fixtures !== null} onChange={async (ev) => { const f = ev.target.files?.[0]; if (f) importCsv(await f.text()); ev.target.value = ''; }} />
+                <input
+                  type="file"
+                  accept=".csv,.txt,text/csv,text/plain"
+                  className="mt-1 block text-sm"
+                  disabled={policy.locked.fixtures !== null}
+                  onChange={async (ev) => {
+                    const f = ev.target.files?.[0];
+                    if (f) importCsv(await f.text());
+                    ev.target.value = '';
+                  }}
+                />
               </label>
             </div>
             <div aria-live="polite" className="mt-2 text-sm">
-              {csvProblems.length ? <ul role="alert" className="list-disc pl-5 text-fault">{csvProblems.map((p) => <li key={p}>{p}</li>)}</ul> : null}
+              {csvProblems.length ? (
+                <ul role="alert" className="list-disc pl-5 text-fault">
+                  {csvProblems.map((p) => (
+                    <li key={p}>{p}</li>
+                  ))}
+                </ul>
+              ) : null}
               {csvDone ? <p>{csvDone}</p> : null}
             </div>
           </Section>

@@ -40,7 +40,9 @@ export const supplyFormSchema = z
     }
     if (v.hasFlowTest) {
       const test = FlowTestSchema.extend({ date: optionalDate }).safeParse(v.flowTest);
-      if (!test.success) for (const issue of test.error.issues) ctx.addIssue({ code: 'custom', path: ['flowTest', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
+      if (!test.success)
+        for (const issue of test.error.issues)
+          ctx.addIssue({ code: 'custom', path: ['flowTest', ...issue.path.map(String)], message: plainError(issue.message) ?? issue.message });
       else if (test.data.residualPressure > test.data.staticPressure) {
         ctx.addIssue({ code: 'custom', path: ['flowTest', 'residualPressure'], message: 'The residual pressure cannot be above the test’s static pressure' });
       }
@@ -97,7 +99,10 @@ export function SupplyStep() {
   const { document, draft, readOnlyReason, units, live } = useWalk();
   const [defaults] = useState(() => formValues(document));
   const form = useLiveForm(supplyFormSchema, defaults, (v) => draft.update((doc) => applySupply(doc, v)));
-  const { register, formState: { errors } } = form;
+  const {
+    register,
+    formState: { errors },
+  } = form;
   const hasFlowTest = form.watch('hasFlowTest');
   const e = (m?: string) => plainError(m);
   const source = live.ok ? live.analysis.source : null;
@@ -106,9 +111,8 @@ export function SupplyStep() {
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Supply">
       <StepIntro title="Supply">
-        Where the water enters and at what pressure. Design on the <strong>lowest</strong> pressure the utility will
-        deliver — the low static pressure in its letter, or a flow test taken in the season of lowest pressure — and check
-        the maximum static pressure against the high figure.
+        Where the water enters and at what pressure. Design on the <strong>lowest</strong> pressure the utility will deliver — the low static pressure in its
+        letter, or a flow test taken in the season of lowest pressure — and check the maximum static pressure against the high figure.
       </StepIntro>
       <fieldset disabled={readOnlyReason !== null} className="flex flex-col gap-6">
         {document.service === 'hot' ? <FedFromSection /> : null}
@@ -126,34 +130,92 @@ export function SupplyStep() {
             />
             {fed ? (
               <p className="text-sm text-ink-soft md:col-span-2" data-testid="fed-pressures-note">
-                The static pressures and their basis are read from the cold system (above), not typed: low {fmt(document.source.staticPressureLow, 2)} {units.pressure}, high {fmt(document.source.staticPressureHigh, 2)} {units.pressure}.
+                The static pressures and their basis are read from the cold system (above), not typed: low {fmt(document.source.staticPressureLow, 2)}{' '}
+                {units.pressure}, high {fmt(document.source.staticPressureHigh, 2)} {units.pressure}.
               </p>
             ) : (
               <>
-              <TextField label={`Static pressure, low (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The lowest the utility expects at the connection: the design figure." error={e(errors.staticPressureLow?.message)} {...register('staticPressureLow', numberInput)} />
-              <TextField label={`Static pressure, high (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" hint="The highest expected: for the maximum static pressure check." error={e(errors.staticPressureHigh?.message)} {...register('staticPressureHigh', numberInput)} />
-              <TextAreaField className="md:col-span-2" label="Where the pressure figures came from" hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main." error={e(errors.pressureBasis?.message)} {...register('pressureBasis')} />
+                <TextField
+                  label={`Static pressure, low (${units.pressure})`}
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
+                  hint="The lowest the utility expects at the connection: the design figure."
+                  error={e(errors.staticPressureLow?.message)}
+                  {...register('staticPressureLow', numberInput)}
+                />
+                <TextField
+                  label={`Static pressure, high (${units.pressure})`}
+                  type="text"
+                  inputMode="decimal"
+                  autoComplete="off"
+                  hint="The highest expected: for the maximum static pressure check."
+                  error={e(errors.staticPressureHigh?.message)}
+                  {...register('staticPressureHigh', numberInput)}
+                />
+                <TextAreaField
+                  className="md:col-span-2"
+                  label="Where the pressure figures came from"
+                  hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main."
+                  error={e(errors.pressureBasis?.message)}
+                  {...register('pressureBasis')}
+                />
               </>
             )}
             <TextField label="Date of the pressure figures" type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
-            <TextField label={`Water temperature (${units.temperature})`} type="text" inputMode="decimal" autoComplete="off" hint="Sets the water’s density and viscosity." error={e(errors.waterTemperature?.message)} {...register('waterTemperature', numberInput)} />
+            <TextField
+              label={`Water temperature (${units.temperature})`}
+              type="text"
+              inputMode="decimal"
+              autoComplete="off"
+              hint="Sets the water’s density and viscosity."
+              error={e(errors.waterTemperature?.message)}
+              {...register('waterTemperature', numberInput)}
+            />
           </div>
         </Section>
         <Section title="Flow test (optional)" headingLevel={3}>
           <CheckboxField label="A flow test was made at the connection" {...register('hasFlowTest')} />
           {hasFlowTest ? (
             <div className="mt-4 grid gap-4 md:grid-cols-2">
-              <TextField label={`Test static pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.staticPressure?.message)} {...register('flowTest.staticPressure', numberInput)} />
-              <TextField label={`Test residual pressure (${units.pressure})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.residualPressure?.message)} {...register('flowTest.residualPressure', numberInput)} />
-              <TextField label={`Test flow (${units.flow})`} type="text" inputMode="decimal" autoComplete="off" error={e(errors.flowTest?.flow?.message)} {...register('flowTest.flow', numberInput)} />
+              <TextField
+                label={`Test static pressure (${units.pressure})`}
+                type="text"
+                inputMode="decimal"
+                autoComplete="off"
+                error={e(errors.flowTest?.staticPressure?.message)}
+                {...register('flowTest.staticPressure', numberInput)}
+              />
+              <TextField
+                label={`Test residual pressure (${units.pressure})`}
+                type="text"
+                inputMode="decimal"
+                autoComplete="off"
+                error={e(errors.flowTest?.residualPressure?.message)}
+                {...register('flowTest.residualPressure', numberInput)}
+              />
+              <TextField
+                label={`Test flow (${units.flow})`}
+                type="text"
+                inputMode="decimal"
+                autoComplete="off"
+                error={e(errors.flowTest?.flow?.message)}
+                {...register('flowTest.flow', numberInput)}
+              />
               <TextField label="Date of the test" type="date" error={e(errors.flowTest?.date?.message)} {...register('flowTest.date')} />
             </div>
           ) : null}
           <div className="mt-4 rounded-md bg-paper-deep p-3 text-sm" data-testid="source-at-design-flow">
             {source ? (
               <p>
-                Design flow at the source: <strong>{fmt(source.designFlow, 1)} {units.flow}</strong>. Pressure at the design
-                flow: <strong>{fmt(source.pressureAtDesignFlow, 2)} {units.pressure}</strong>{' '}
+                Design flow at the source:{' '}
+                <strong>
+                  {fmt(source.designFlow, 1)} {units.flow}
+                </strong>
+                . Pressure at the design flow:{' '}
+                <strong>
+                  {fmt(source.pressureAtDesignFlow, 2)} {units.pressure}
+                </strong>{' '}
                 ({source.pressureBasis === 'flow-test' ? 'from the flow test' : 'the low static pressure, no flow test'}).
               </p>
             ) : (
