@@ -16,6 +16,7 @@ import { lossCurveAt } from '../devices/lossCurve';
 import { flowTestPressureAt } from '../supply/flowTest';
 import { G } from '../units';
 import { makeGroupedWarning, makeWarning, type EngineWarning } from '../warnings';
+import { inputError } from '../errors';
 import type { SiModel } from './input';
 import type { Topology } from './topology';
 import type { DemandResult } from './demand';
@@ -178,14 +179,27 @@ export function computeHydraulics(model: SiModel, topo: Topology, demand: Demand
         }
         let res: FlowFreeK | undefined = argsOk && bySize !== undefined ? bySize.get(fit.typeId) : undefined;
         if (res === undefined) {
-          const full = fittingK(fit.typeId, {
-            method: fittingMethod,
-            innerDiameterM: D,
-            nominalSizeIn: seg.nominalSizeIn[s],
-            nominalSizeKey: sizeKey,
-            Re,
-            frictionFactor: f,
-          });
+          let full: FittingKResult;
+          try {
+            full = fittingK(fit.typeId, {
+              method: fittingMethod,
+              innerDiameterM: D,
+              nominalSizeIn: seg.nominalSizeIn[s],
+              nominalSizeKey: sizeKey,
+              Re,
+              frictionFactor: f,
+            });
+          } catch (e) {
+            // a fitting type published only for some sizes (the PEX makers' tables stop at 1 in), used at another
+            if (!(e instanceof RangeError) || !e.message.includes('has no data')) throw e;
+            throw inputError(
+              'unknown-catalog-entry',
+              'fitting',
+              id,
+              'typeId',
+              `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId} has no published loss at size ${sizeKey || 'of this pipe'} on segment "${seg.label[s] ?? id}": choose a fitting type published for this size, or give the fitting's own K or equivalent length with its source`,
+            );
+          }
           res = full;
           if (full.method === 'crane' || full.fixedK === true) rememberFlowFreeK(flowFreeK, sizeKey, fit.typeId, full);
         }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem } from '../../../src/engine';
+import { analyzeSystem, safeAnalyzeSystem } from '../../../src/engine';
 import { clone, oneSegment, smallTree } from '../support/docs';
 
 const pexWarnings = (doc: unknown) => analyzeSystem(doc).warnings.filter((w) => w.code === 'pex-metal-fittings');
@@ -37,5 +37,22 @@ describe('a PEX segment still carrying metal-pipe fittings', () => {
     doc.segments[0].material = 'pex-sdr9';
     const [w] = pexWarnings(doc);
     expect(w.elementIds).toEqual(['s1']);
+  });
+
+  it('when a PEX fitting type is used at a size its published table does not cover, then the error names the segment and the fitting, not a raw range error', () => {
+    // the maker's PEX insert table stops at 1 in (REFERENCES §13g: Viega PEX Installation Manual §10.2)
+    const doc = clone(smallTree());
+    const seg = doc.segments[2];
+    seg.material = 'pex-sdr9';
+    seg.size = '1-1/4';
+    seg.fittings = [{ typeId: 'pex-insert-brass-elbow-90', count: 1 }];
+    const r = safeAnalyzeSystem(doc);
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.error.code).toBe('unknown-catalog-entry');
+    expect(r.error.elementType).toBe('fitting');
+    expect(r.error.elementId).toBe(seg.id);
+    expect(r.error.field).toBe('typeId');
+    expect(r.error.message).toContain('1-1/4');
   });
 });
