@@ -97,8 +97,13 @@ test('when a designer describes a recirculation loop on a fresh hot system, then
   await expect(page.getByTestId('recirculation-error')).toContainText('recirculation.segments[0].heatLoss');
 
   // 20 Btu/h per ft over the starting loop's 2 × 50 ft, 10 °F drop (invented figures).
+  // the save that carries this value (an earlier save of the starting loop may still be on its way)
+  const savedLoop = page.waitForResponse(
+    (r) => r.request().method() === 'PUT' && r.url().endsWith('/document') && (r.request().postData() ?? '').includes('"heatLossPerLength":20'),
+  );
   await page.getByLabel('Heat loss per length of pipe (Btu/h per ft)').fill('20');
   await expect(page.getByTestId('recirculation-pump-flow')).toContainText('gpm');
+  expect((await savedLoop).ok()).toBe(true);
   await saved(page);
   await shot(page, '03-recirculation');
 

@@ -57,14 +57,19 @@ describe('automatic sizing on the result step', () => {
     expect(within(screen.getByTestId('sizing-applied')).getByText(`Applied: ${changed.length} sizes changed in the draft.`)).toBeTruthy();
     await waitFor(() => expect(world.saves()).toHaveLength(1), SAVE_WAIT);
     expect(sizesOf(lastSaved(world))).toEqual(sizesOf(expected.document!));
-    // everything but the sizes is as it was
-    const strip = (doc: SystemDocument) => ({ ...doc, segments: doc.segments.map((s) => ({ ...s, size: undefined })) });
-    expect(JSON.parse(JSON.stringify(strip(lastSaved(world))))).toEqual(JSON.parse(JSON.stringify(strip(start))));
+    // the draft records what the sizing met, and everything else but the sizes is as it was
+    const saved = lastSaved(world);
+    expect(saved.sizingBasis?.segmentsChanged).toBe(changed.length);
+    expect(saved.sizingBasis?.scope).toBe('system');
+    const strip = (doc: SystemDocument) => ({ ...doc, sizingBasis: undefined, segments: doc.segments.map((s) => ({ ...s, size: undefined })) });
+    expect(JSON.parse(JSON.stringify(strip(saved)))).toEqual(JSON.parse(JSON.stringify(strip(start))));
 
     await user.click(screen.getByRole('button', { name: 'Undo sizing' }));
     await waitFor(() => expect(verdictText()).toMatch(/fail/), CATCH_UP);
     await waitFor(() => expect(world.saves()).toHaveLength(2), SAVE_WAIT);
     expect(sizesOf(lastSaved(world))).toEqual(sizesOf(start));
+    // undo takes the record back with the sizes
+    expect(lastSaved(world).sizingBasis).toEqual(start.sizingBasis);
     expect(world.unknown).toEqual([]);
   });
 
