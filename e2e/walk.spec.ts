@@ -95,11 +95,11 @@ test('when a designer walks a new system from the supply to the result, then the
   await page.getByRole('button', { name: 'Add fixtures at Apartment 401' }).click();
   await page.getByLabel('Apartment 401: fixture group 1 type').selectOption('lavatory-private');
   await page.getByLabel('Apartment 401: fixture group 1 count').fill('6');
-  // CSV import of fixture groups, with a line-numbered refusal first
-  await page.getByLabel('Lines of node id, fixture type id, count').fill('node-2,no-such-type,1');
+  // CSV import of fixture groups by the names on screen and the trade's words, with a line-numbered refusal first
+  await page.getByLabel('Lines of node, fixture, count').fill('Apartment 401,hot tub jet,1');
   await page.getByRole('button', { name: 'Add these fixture groups' }).click();
-  await expect(page.getByRole('alert').filter({ hasText: 'Line 1' })).toBeVisible();
-  await page.getByLabel('Lines of node id, fixture type id, count').fill('node id,fixture type id,count\nnode-2,kitchen-sink-private,3');
+  await expect(page.getByRole('alert').filter({ hasText: 'Line 1: “hot tub jet”' })).toBeVisible();
+  await page.getByLabel('Lines of node, fixture, count').fill('node,fixture,count\nApartment 401,kitchen sink,3');
   await page.getByRole('button', { name: 'Add these fixture groups' }).click();
   await expect(page.getByText('1 fixture group(s) added.')).toBeVisible();
   await expect(page.getByTestId('segment-demand-seg-2')).toContainText('WSFU');

@@ -1,9 +1,12 @@
 /**
- * A small, strict reader of comma- or tab-separated lines (what a spreadsheet copies or exports).
- * No CSV package is installed, and these files are a few dozen lines of numbers and ids, so this
- * reads one record per line (no line breaks inside quotes), allows "quoted, fields" with ""
- * for a quote, skips blank lines and lines starting with #, and names the line of every problem.
+ * Comma- or tab-separated lines (what a spreadsheet copies or exports), read one record per line
+ * with Papa Parse so quoting follows RFC 4180 ("quoted, fields", "" for a quote); blank lines and
+ * lines starting with # are skipped, and every problem names its line. One record per line keeps
+ * each message's line number the one the designer sees in their file.
  */
+import Papa from 'papaparse';
+import { matchFixtureType } from '../../../engine/building/schedule';
+
 export interface CsvRow {
   /** 1-based line number in the text */
   line: number;
@@ -15,59 +18,25 @@ export interface CsvResult<T> {
   errors: string[];
 }
 
-function splitLine(text: string, delimiter: string, line: number, errors: string[]): string[] | null {
-  const cells: string[] = [];
-  let i = 0;
-  while (i <= text.length) {
-    if (text[i] === '"') {
-      let value = '';
-      i++;
-      for (;;) {
-        if (i >= text.length) {
-          errors.push(`Line ${line}: a quoted value is not closed.`);
-          return null;
-        }
-        if (text[i] === '"') {
-          if (text[i + 1] === '"') {
-            value += '"';
-            i += 2;
-            continue;
-          }
-          i++;
-          break;
-        }
-        value += text[i++];
-      }
-      const rest = text.indexOf(delimiter, i);
-      const after = (rest === -1 ? text.slice(i) : text.slice(i, rest)).trim();
-      if (after !== '') {
-        errors.push(`Line ${line}: unexpected text after a quoted value.`);
-        return null;
-      }
-      cells.push(value.trim());
-      if (rest === -1) break;
-      i = rest + 1;
-    } else {
-      const next = text.indexOf(delimiter, i);
-      cells.push((next === -1 ? text.slice(i) : text.slice(i, next)).trim());
-      if (next === -1) break;
-      i = next + 1;
-    }
-  }
-  return cells;
-}
-
 /** Rows of cells; a line with a tab is split on tabs (spreadsheet paste), otherwise on commas. */
 export function readDelimited(text: string): CsvResult<CsvRow> {
   const errors: string[] = [];
   const rows: CsvRow[] = [];
-  text.split(/\r\n|\n|\r/).forEach((raw, index) => {
-    const line = index + 1;
-    const trimmed = raw.trim();
-    if (trimmed === '' || trimmed.startsWith('#')) return;
-    const cells = splitLine(raw, raw.includes('\t') ? '\t' : ',', line, errors);
-    if (cells) rows.push({ line, cells });
-  });
+  text
+    .replace(/^\uFEFF/, '')
+    .split(/\r\n|\n|\r/)
+    .forEach((raw, index) => {
+      const line = index + 1;
+      const trimmed = raw.trim();
+      if (trimmed === '' || trimmed.startsWith('#')) return;
+      const parsed = Papa.parse<string[]>(raw, { delimiter: raw.includes('\t') ? '\t' : ',', quoteChar: '"' });
+      const quoteProblem = parsed.errors.find((e) => e.type === 'Quotes');
+      if (quoteProblem) {
+        errors.push(`Line ${line}: ${quoteProblem.code === 'MissingQuotes' ? 'a quoted value is not closed' : 'a quoted value is followed by other text'}.`);
+        return;
+      }
+      rows.push({ line, cells: (parsed.data[0] ?? []).map((c) => c.trim()) });
+    });
   return { rows, errors };
 }
 
@@ -106,24 +75,55 @@ export interface FixtureGroupRow {
   count: number;
 }
 
-/** Fixture groups: three columns, node id, fixture type id, count (a whole number ≥ 1). */
-export function parseFixtureGroups(text: string, known: { nodeIds: ReadonlySet<string>; fixtureTypeIds: ReadonlySet<string> }): CsvResult<FixtureGroupRow> {
+export interface KnownForGroups {
+  /** the system's nodes: a line names one by its name (as the screens show it) or its id */
+  nodes: readonly { id: string; label?: string }[];
+  /** fixture types a line may name by id (the catalog's and the project's); the catalog's also by the trade's words */
+  fixtureTypeIds: ReadonlySet<string>;
+}
+
+const norm = (s: string) => s.trim().toLowerCase().replace(/\s+/g, ' ');
+
+/**
+ * Fixture groups: node (its name or id), fixture (the trade's words such as "water closet, flush
+ * tank" or "lavatory", a catalog label, or a type id), count (a whole number ≥ 1), and optionally
+ * occupancy (private when empty, or public).
+ */
+export function parseFixtureGroups(text: string, known: KnownForGroups): CsvResult<FixtureGroupRow> {
   const read = readDelimited(text);
   const errors = [...read.errors];
   const rows: FixtureGroupRow[] = [];
+  const ids = new Set(known.nodes.map((n) => n.id));
+  const byName = new Map<string, string[]>();
+  for (const n of known.nodes) if (n.label) byName.set(norm(n.label), [...(byName.get(norm(n.label)) ?? []), n.id]);
   for (const { line, cells } of withoutHeader(read.rows, [2])) {
-    if (cells.length !== 3) {
-      errors.push(`Line ${line}: expected 3 values (node id, fixture type id, count), found ${cells.length}.`);
+    if (cells.length !== 3 && cells.length !== 4) {
+      errors.push(`Line ${line}: expected 3 or 4 values (node, fixture, count, occupancy), found ${cells.length}.`);
       continue;
     }
-    const [nodeId, fixtureTypeId, countText] = cells;
+    const [node, fixture, countText, occupancyText = ''] = cells;
+    const named = byName.get(norm(node)) ?? [];
+    const nodeId = ids.has(node) ? node : named.length === 1 ? named[0] : null;
+    const occupancy = norm(occupancyText);
     const count = Number(countText);
-    if (!known.nodeIds.has(nodeId)) errors.push(`Line ${line}: there is no node “${nodeId}” in this system.`);
-    else if (!known.fixtureTypeIds.has(fixtureTypeId)) errors.push(`Line ${line}: “${fixtureTypeId}” is not a fixture type in the catalog.`);
-    else if (!isNumber(countText) || !Number.isInteger(count) || count < 1)
-      errors.push(`Line ${line}: the count “${countText}” is not a whole number of 1 or more.`);
-    else rows.push({ nodeId, fixtureTypeId, count });
+    if (nodeId === null)
+      errors.push(
+        named.length > 1
+          ? `Line ${line}: ${named.length} nodes are named “${node}” (${named.join(', ')}); write the node's id.`
+          : `Line ${line}: there is no node “${node}” in this system.`,
+      );
+    else if (occupancy !== '' && occupancy !== 'private' && occupancy !== 'public')
+      errors.push(`Line ${line}: occupancy “${occupancyText}” is neither private nor public.`);
+    else {
+      const fixtureTypeId = known.fixtureTypeIds.has(fixture)
+        ? fixture
+        : (matchFixtureType(fixture, occupancy === 'public' ? 'public' : 'private')?.id ?? null);
+      if (fixtureTypeId === null || !known.fixtureTypeIds.has(fixtureTypeId)) errors.push(`Line ${line}: “${fixture}” is not a fixture type in the catalog.`);
+      else if (!isNumber(countText) || !Number.isInteger(count) || count < 1)
+        errors.push(`Line ${line}: the count “${countText}” is not a whole number of 1 or more.`);
+      else rows.push({ nodeId, fixtureTypeId, count });
+    }
   }
-  if (rows.length === 0 && errors.length === 0) errors.push('No fixture groups found: lines of “node id, fixture type id, count” were expected.');
+  if (rows.length === 0 && errors.length === 0) errors.push('No fixture groups found: lines of “node, fixture, count” were expected.');
   return { rows, errors };
 }

@@ -900,7 +900,7 @@ export function RisersStep() {
   const [csvProblems, setCsvProblems] = useState<string[]>([]);
   const [csvDone, setCsvDone] = useState<string | null>(null);
   const importCsv = (text: string) => {
-    const result = parseFixtureGroups(text, { nodeIds: new Set(view.nodes.map((n) => n.id)), fixtureTypeIds: new Set(catalog.fixtureTypes.map((f) => f.id)) });
+    const result = parseFixtureGroups(text, { nodes: view.nodes, fixtureTypeIds: new Set(catalog.fixtureTypes.map((f) => f.id)) });
     setCsvProblems(result.errors);
     setCsvDone(null);
     if (result.errors.length) return;
@@ -1008,8 +1008,8 @@ export function RisersStep() {
           />
           <Section title="Import fixture groups (CSV)" headingLevel={3}>
             <TextAreaField
-              label="Lines of node id, fixture type id, count"
-              hint="Comma- or tab-separated; a header line is skipped. Groups are added to the nodes named."
+              label="Lines of node, fixture, count"
+              hint="Comma- or tab-separated, a header line is skipped: the node by its name, the fixture in the trade's words (“water closet, flush tank”, “lavatory”, “shower”), the count, and optionally private or public. Groups are added to the nodes named."
               value={csv}
               onChange={(ev) => setCsv(ev.target.value)}
             />
