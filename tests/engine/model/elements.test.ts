@@ -20,6 +20,7 @@ import {
 } from '../../../src/engine/model/describe';
 import { CUSTOM_PIPE, describedElements, FITTING, NODE, SEGMENT, SYSTEM_DOCUMENT } from '../../../src/engine/model/elements';
 import { readerSource } from '../../../src/engine/model/readerSource';
+import { rangeCheckSource } from '../../../src/engine/analysis/rangesSource';
 import { LIMITS } from '../../../src/engine/model/limits';
 import { NodeSchema, SegmentSchema, SystemDocumentSchema } from '../../../src/engine/model/schema';
 
@@ -192,5 +193,10 @@ describe('the generated readers', () => {
   it('are the committed readers.generated.ts (run `npx tsx scripts/generate-readers.ts` after changing a description)', () => {
     const committed = readFileSync(new URL('../../../src/engine/model/readers.generated.ts', import.meta.url), 'utf8');
     expect(committed).toBe(readerSource(describedElements()));
+  });
+
+  it('and the range checks are the committed analysis/ranges.generated.ts (the same script writes both)', () => {
+    const committed = readFileSync(new URL('../../../src/engine/analysis/ranges.generated.ts', import.meta.url), 'utf8');
+    expect(committed).toBe(rangeCheckSource(describedElements()));
   });
 });
