@@ -24,9 +24,9 @@ export type {
   ZoneResult,
   ZonePressureAt,
 } from './analysis/types';
+export { SCHEMA_VERSION } from './model/elements';
 export {
   SystemDocumentSchema,
-  SCHEMA_VERSION,
   DOCUMENT_BOUNDS,
   type Boost,
   type Floor,

@@ -75,6 +75,43 @@ export function readPositiveInt(v: unknown): number {
   if (!Number.isSafeInteger(v) || !((v as number) > 0)) decline();
   return v as number;
 }
+export function readNonNegativeInt(v: unknown): number {
+  if (!Number.isSafeInteger(v) || !((v as number) >= 0)) decline();
+  return v as number;
+}
+/** A number from `min` to `max`, both included. */
+export function readBetween(v: unknown, min: number, max: number): number {
+  if (!(readNumber(v) >= min && (v as number) <= max)) decline();
+  return v as number;
+}
+export function readLiteral<T extends string | number>(v: unknown, literal: T): T {
+  if (v !== literal) decline();
+  return literal;
+}
+/** A string other than `except` (a reserved name). */
+export function readExcept(v: string, except: string): string {
+  if (v === except) decline();
+  return v;
+}
+/**
+ * A record (an object used as a map) of at most `max` keys. zod reads a record's own keys
+ * (Reflect.ownKeys): one it would see and for-in would not (a symbol, a non-enumerable key) is
+ * declined, and so is a "__proto__" key (assigning it would not make an own key).
+ */
+export function readRecord<T>(v: unknown, key: Reader<string>, item: Reader<T>, max: number): Record<string, T> {
+  const o = obj(v);
+  if (Object.getOwnPropertySymbols(o).length > 0 || Object.getOwnPropertyNames(o).length !== keyCount(o)) decline();
+  const out: Record<string, T> = {};
+  let n = 0;
+  for (const k in o) {
+    if (k === '__proto__') decline();
+    key(k);
+    out[k] = item(o[k]);
+    n++;
+  }
+  if (n > max) decline();
+  return out;
+}
 export function readBoolean(v: unknown): boolean {
   if (typeof v !== 'boolean') decline();
   return v;
@@ -99,14 +136,16 @@ export function readList<T>(v: unknown, item: Reader<T>, min: number, max: numbe
 
 /** What a value is, for code that walks a description (generators, unit paths). */
 export type ValueShape =
-  | { kind: 'number'; sign: 'any' | 'positive' | 'nonNegative' }
-  | { kind: 'count' }
-  | { kind: 'string'; min: number; max: number }
+  | { kind: 'number'; sign: 'any' | 'positive' | 'nonNegative'; min?: number; max?: number }
+  | { kind: 'count'; min: 0 | 1 }
+  | { kind: 'string'; min: number; max: number; except?: string }
   | { kind: 'boolean' }
+  | { kind: 'literal'; value: string | number }
   | { kind: 'enum'; values: readonly string[] }
   | { kind: 'list'; item: ValueShape; min: number; max: number }
+  | { kind: 'record'; key: ValueShape; item: ValueShape; max: number }
   | { kind: 'element'; element: AnyElement }
-  | { kind: 'union'; of: readonly AnyElement[] };
+  | { kind: 'union'; of: readonly AnyElement[]; discriminator?: string };
 
 export interface Value<Z extends z.ZodType> {
   zod: Z;
@@ -119,15 +158,37 @@ export const value = {
   number: (): Value<z.ZodNumber> => ({ zod: z.number(), read: readNumber, shape: { kind: 'number', sign: 'any' } }),
   positive: (): Value<z.ZodNumber> => ({ zod: z.number().positive(), read: readPositive, shape: { kind: 'number', sign: 'positive' } }),
   nonNegative: (): Value<z.ZodNumber> => ({ zod: z.number().nonnegative(), read: readNonNegative, shape: { kind: 'number', sign: 'nonNegative' } }),
-  /** A whole number of at least 1 (how many fittings, fixtures). */
-  count: (): Value<z.ZodNumber> => ({ zod: z.number().int().positive(), read: readPositiveInt, shape: { kind: 'count' } }),
-  boolean: (): Value<z.ZodBoolean> => ({ zod: z.boolean(), read: readBoolean, shape: { kind: 'boolean' } }),
-  /** A string of `min` (at least 1: an id, a source) to `max` characters. */
-  string: (min: number, max: number): Value<z.ZodString> => ({
-    zod: z.string().min(min).max(max),
-    read: (v) => readBounded(v, min, max),
-    shape: { kind: 'string', min, max },
+  /** A number from `min` to `max`, both included. */
+  between: (min: number, max: number): Value<z.ZodNumber> => ({
+    zod: z.number().min(min).max(max),
+    read: (v) => readBetween(v, min, max),
+    shape: { kind: 'number', sign: 'any', min, max },
   }),
+  /** A whole number of at least 1 (how many fittings, fixtures). */
+  count: (): Value<z.ZodNumber> => ({ zod: z.number().int().positive(), read: readPositiveInt, shape: { kind: 'count', min: 1 } }),
+  /** A whole number of at least 0 (how many segments a sizing changed). */
+  wholeNumber: (): Value<z.ZodNumber> => ({ zod: z.number().int().nonnegative(), read: readNonNegativeInt, shape: { kind: 'count', min: 0 } }),
+  /** Exactly this string or number (a version, the tag of a union option). */
+  literal: <const T extends string | number>(literal: T): Value<z.ZodLiteral<T>> => ({
+    zod: z.literal(literal),
+    read: (v) => readLiteral(v, literal),
+    shape: { kind: 'literal', value: literal },
+  }),
+  boolean: (): Value<z.ZodBoolean> => ({ zod: z.boolean(), read: readBoolean, shape: { kind: 'boolean' } }),
+  /** A string of `min` (at least 1: an id, a source) to `max` characters; `except` a reserved name, refused with `message`. */
+  string: (min: number, max: number, reserved?: { except: string; message: string }): Value<z.ZodString> => {
+    if (!reserved) return { zod: z.string().min(min).max(max), read: (v) => readBounded(v, min, max), shape: { kind: 'string', min, max } };
+    const { except, message } = reserved;
+    return {
+      zod: z
+        .string()
+        .min(min)
+        .max(max)
+        .refine((v) => v !== except, { message }),
+      read: (v) => readExcept(readBounded(v, min, max), except),
+      shape: { kind: 'string', min, max, except },
+    };
+  },
   /** Text of at most `max` characters, at least one when `nonEmpty`. */
   text: (max: number, opts: { nonEmpty?: boolean } = {}): Value<z.ZodString> => {
     const min = opts.nonEmpty ? 1 : 0;
@@ -142,10 +203,29 @@ export const value = {
     read: (v) => readOneOf(v, values),
     shape: { kind: 'enum', values },
   }),
-  /** A list of values or described elements. */
-  list: <Z extends z.ZodType>(item: Value<Z>, max: number): Value<z.ZodArray<Z>> => {
+  /** A list of values or described elements, of `min` (default 0) to `max` items. */
+  list: <Z extends z.ZodType>(item: Value<Z>, max: number, min = 0): Value<z.ZodArray<Z>> => {
     const read = item.read;
-    return { zod: z.array(item.zod).max(max), read: (v) => readList(v, read, 0, max), shape: { kind: 'list', item: item.shape, min: 0, max } };
+    return {
+      zod: min > 0 ? z.array(item.zod).min(min).max(max) : z.array(item.zod).max(max),
+      read: (v) => readList(v, read, min, max),
+      shape: { kind: 'list', item: item.shape, min, max },
+    };
+  },
+  /**
+   * A record: an object whose keys are names (ids) and whose values are all of one kind. With
+   * `max`, at most that many keys, refused with `message`.
+   */
+  record: <K extends z.ZodString, Z extends z.ZodType>(key: Value<K>, item: Value<Z>, limit?: { max: number; message: string }): Value<z.ZodRecord<K, Z>> => {
+    const readKey = key.read as Reader<string>;
+    const readItem = item.read;
+    const max = limit?.max ?? Number.MAX_SAFE_INTEGER;
+    const zod = z.record(key.zod, item.zod);
+    return {
+      zod: limit ? zod.refine((r) => Object.keys(r).length <= limit.max, { message: limit.message }) : zod,
+      read: (v) => readRecord(v, readKey, readItem, max),
+      shape: { kind: 'record', key: key.shape, item: item.shape, max },
+    };
   },
   /** A nested described element. */
   element: <S extends z.ZodType>(e: Element<S>): Value<S> => ({ zod: e.schema, read: e.read, shape: { kind: 'element', element: e } }),
@@ -170,7 +250,34 @@ export const value = {
       shape: { kind: 'union', of },
     };
   },
+  /**
+   * One of several described elements told apart by the value of one required key, `discriminator`
+   * (a zod discriminated union): each option has it as a literal of its own.
+   */
+  tagged: <const E extends readonly [AnyElement, ...AnyElement[]]>(
+    discriminator: string,
+    of: E,
+  ): Value<z.ZodDiscriminatedUnion<{ [K in keyof E]: E[K]['schema'] }, string>> => {
+    const by = new Map<unknown, Reader>(of.map((e) => [tagOf(e, discriminator), e.read]));
+    return {
+      zod: z.discriminatedUnion(discriminator, of.map((e) => e.schema) as unknown as { [K in keyof E]: E[K]['schema'] }),
+      read: (v) => {
+        const o = obj(v);
+        const read = by.get(o[discriminator]);
+        return read ? read(o) : decline();
+      },
+      shape: { kind: 'union', of, discriminator },
+    };
+  },
 };
+
+/** The literal value of an option's discriminator key. */
+export function tagOf(e: AnyElement, discriminator: string): string | number {
+  const shape = e.keys[discriminator]?.shape;
+  if (shape?.kind !== 'literal' || e.keys[discriminator].presence !== 'required')
+    throw new Error(`option "${e.name}" has no required literal "${discriminator}"`);
+  return shape.value;
+}
 
 // ---- keys: a value with its presence and what the trade and the workflow say about it
 
@@ -273,10 +380,13 @@ function compileReader(keys: Keys): Reader<Obj> {
   };
 }
 
-/** A described element: its keys, the strict zod object derived from them, and its fast reader. */
-export function element<K extends Keys>(name: string, keys: K): Element<z.ZodObject<ShapeOf<K>, z.core.$strict>> {
+/**
+ * A described element: its keys, the strict zod object derived from them, and its fast reader.
+ * `help` describes the element itself (the schema's description wherever the element is used).
+ */
+export function element<K extends Keys>(name: string, keys: K, opts: { help?: string } = {}): Element<z.ZodObject<ShapeOf<K>, z.core.$strict>> {
   const shape = Object.fromEntries(Object.entries(keys).map(([k, d]) => [k, d.zod])) as ShapeOf<K>;
-  return { name, keys, schema: z.strictObject(shape), read: compileReader(keys) as Reader<never> };
+  return { name, keys, schema: described(z.strictObject(shape), opts.help), read: compileReader(keys) as Reader<never> };
 }
 
 // ---- what is derived from a description
@@ -292,8 +402,9 @@ export function keyOrder<S extends z.ZodType>(e: Element<S>): (keyof z.output<S>
 }
 
 /**
- * Every numeric key with a range inside the element, nested elements and lists included, as
- * [path parts, range]. `list` is the part written for "every item of a list" ("[]" or "*").
+ * Every numeric key with a range inside the element, nested elements, lists and records included,
+ * as [path parts, range]. `list` is the part written for "every item of a list" ("[]" or "*"); "*"
+ * is written for "every value of a record". A range on a list or record of numbers applies to each.
  */
 export function rangedPaths(e: AnyElement, list: string): [string[], LimitQuantity][] {
   const out: [string[], LimitQuantity][] = [];
@@ -304,14 +415,17 @@ export function rangedPaths(e: AnyElement, list: string): [string[], LimitQuanti
     seen.add(id);
     out.push([path, range]);
   };
+  const leaf = (shape: ValueShape, path: string[]): string[] =>
+    shape.kind === 'list' ? leaf(shape.item, [...path, list]) : shape.kind === 'record' ? leaf(shape.item, [...path, '*']) : path;
   const walk = (shape: ValueShape, path: string[]) => {
     if (shape.kind === 'list') walk(shape.item, [...path, list]);
+    else if (shape.kind === 'record') walk(shape.item, [...path, '*']);
     else if (shape.kind === 'element') walkElement(shape.element, path);
     else if (shape.kind === 'union') for (const el of shape.of) walkElement(el, path);
   };
   const walkElement = (el: AnyElement, path: string[]) => {
     for (const [k, d] of Object.entries(el.keys)) {
-      if (d.range) add([...path, k], d.range);
+      if (d.range) add(leaf(d.shape, [...path, k]), d.range);
       walk(d.shape, [...path, k]);
     }
   };

@@ -17,8 +17,8 @@
  * the checks (analysis/checks.ts) judge that. A range only keeps nonsense out.
  */
 import { toSI, UNIT_LABELS, type Quantity, type UnitSystem } from '../units';
-import { rangedPaths, type AnyElement } from './describe';
-import { CHECKED_FIXTURE, FIXTURE_GROUP, NODE, SEGMENT } from './elements';
+import { rangedPaths } from './describe';
+import { SYSTEM_DOCUMENT } from './elements';
 
 /** The kinds of numeric input a document holds, each with one range. */
 export type LimitQuantity =
@@ -432,76 +432,12 @@ export function checkRange(quantity: LimitQuantity, value: number, unitSystem: U
   return null;
 }
 
-/** The ranges of a described element's numbers, as FIELD_QUANTITIES paths under `prefix`. */
-function describedRanges(prefix: string, e: AnyElement): Record<string, LimitQuantity> {
-  return Object.fromEntries(rangedPaths(e, '[]').map(([path, range]) => [`${prefix}.${path.join('.').replaceAll('.[]', '[]')}`, range]));
-}
-
 /**
- * Which range applies to each numeric field of a document, by its path with `[]` for a list
- * index (the engine's checks in analysis/ranges.ts follow the same table; forms look fields up here).
+ * Which range applies to each numeric field of a document, by its path with `[]` for a list index
+ * and `*` for every key of a record: read from the document's description (elements.ts), where each
+ * number names its range. The engine's checks (analysis/ranges.ts) read the same descriptions; forms
+ * look fields up here.
  */
-export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.freeze({
-  waterTemperature: 'waterTemperature',
-  'source.staticPressureLow': 'staticPressure',
-  'source.staticPressureHigh': 'staticPressure',
-  'source.flowTest.staticPressure': 'staticPressure',
-  'source.flowTest.residualPressure': 'staticPressure',
-  'source.flowTest.flow': 'flow',
-  // Written by Headroom from the cold system (hotWater/fedFrom.ts), in this document's units.
-  'source.fedFrom.resolution.revisionNumber': 'revisionNumber',
-  'source.fedFrom.resolution.residualPressure': 'staticPressure',
-  'source.fedFrom.resolution.staticPressureHigh': 'staticPressure',
-  'devices[].loss.loss': 'pressureLoss',
-  'devices[].loss.points[].flow': 'flow',
-  'devices[].loss.points[].loss': 'pressureLoss',
-  'devices[].prv.setPressure': 'pressureSetting',
-  'devices[].prv.falloffPerFlow': 'pressureFalloff',
-  'devices[].boost.gain': 'pressureGain',
-  'devices[].boost.designGain': 'pressureGain',
-  'devices[].boost.shutoffGain': 'pressureGain',
-  'devices[].boost.designFlow': 'flow',
-  'devices[].boost.setPressure': 'pressureSetting',
-  'floors[].elevation': 'elevation',
-  // The node's and the segment's ranges are in their descriptions (elements.ts).
-  ...describedRanges('nodes[]', NODE),
-  ...describedRanges('segments[]', SEGMENT),
-  'criteria.maxStaticPressure': 'staticPressure',
-  'criteria.minStaticPressure': 'staticPressure',
-  'criteria.velocityLimits[].maxVelocity': 'velocityLimit',
-  'criteria.minFlowPressures.*': 'minFlowPressure',
-  'expansionTank.heaterVolume': 'heaterVolume',
-  'expansionTank.coldTemperature': 'waterTemperature',
-  'expansionTank.hotTemperature': 'waterTemperature',
-  'expansionTank.supplyPressure': 'staticPressure',
-  'expansionTank.reliefPressure': 'pressureSetting',
-  'recirculation.segments[].length': 'length',
-  'recirculation.segments[].heatLoss': 'loopHeatLoss',
-  'recirculation.heatLossPerLength': 'loopHeatLossPerLength',
-  'recirculation.temperatureDrop': 'loopTemperatureDrop',
-  'recirculation.hotTemperature': 'waterTemperature',
-  'recirculation.fittingAllowance': 'fittingAllowance',
-  'recirculation.heaterLoss': 'pressureLoss',
-  // The record of an applied sizing (written by Headroom, sizing/basis.ts).
-  'sizingBasis.margin': 'minFlowPressure',
-  'sizingBasis.supplyPressure': 'staticPressure',
-  'sizingBasis.velocityLimits[].maxVelocity': 'velocityLimit',
-  'sizingBasis.segmentsChanged': 'segmentCount',
-  'sizingBasis.segmentsLocked': 'segmentCount',
-  // Typical units and their placements (checked by the engine after expansion into nodes and segments).
-  'unitTypes[].nodes[].heightAboveFloor': 'heightAboveFloor',
-  ...describedRanges('unitTypes[].nodes[].fixtureGroups[]', FIXTURE_GROUP),
-  ...describedRanges('unitTypes[].nodes[].checkedFixtures[]', CHECKED_FIXTURE),
-  'unitTypes[].segments[].length': 'length',
-  'unitTypes[].segments[].custom.innerDiameter': 'innerDiameter',
-  'unitTypes[].segments[].custom.roughness': 'roughness',
-  'unitTypes[].segments[].custom.hazenWilliamsC': 'hazenWilliamsC',
-  'unitTypes[].segments[].fittings[].count': 'fittingCount',
-  'unitTypes[].segments[].fittings[].custom.k': 'lossCoefficient',
-  'unitTypes[].segments[].fittings[].custom.equivalentLength': 'equivalentLength',
-  'placements[].overrides.segments.*.length': 'length',
-  'placements[].overrides.segments.*.fittings[].count': 'fittingCount',
-  'placements[].overrides.segments.*.fittings[].custom.k': 'lossCoefficient',
-  'placements[].overrides.segments.*.fittings[].custom.equivalentLength': 'equivalentLength',
-  'placements[].overrides.nodes.*.heightAboveFloor': 'heightAboveFloor',
-});
+export const FIELD_QUANTITIES: Readonly<Record<string, LimitQuantity>> = Object.freeze(
+  Object.fromEntries(rangedPaths(SYSTEM_DOCUMENT, '[]').map(([path, range]) => [path.join('.').replaceAll('.[]', '[]'), range])),
+);

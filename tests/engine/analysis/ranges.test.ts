@@ -5,7 +5,16 @@
  * document before any per-element work.
  */
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, safeAnalyzeSystem, EngineInputError, LIMITS, DOCUMENT_BOUNDS, type LimitQuantity, type SystemDocumentInput } from '../../../src/engine';
+import {
+  analyzeSystem,
+  safeAnalyzeSystem,
+  EngineInputError,
+  FIELD_QUANTITIES,
+  LIMITS,
+  DOCUMENT_BOUNDS,
+  type LimitQuantity,
+  type SystemDocumentInput,
+} from '../../../src/engine';
 import { clone, oneSegment } from '../support/docs';
 
 type Doc = SystemDocumentInput & Record<string, unknown>;
@@ -193,6 +202,15 @@ const CASES: Case[] = [
     'boost.shutoffGain',
     (d, v) => {
       dev(d, 'b').boost.shutoffGain = v;
+    },
+  ],
+  [
+    'booster gain (version 1 form)',
+    'pressureGain',
+    'b',
+    'boost.gain',
+    (d, v) => {
+      dev(d, 'b').boost = { gain: v };
     },
   ],
   [
@@ -472,6 +490,26 @@ describe('every numeric input outside its plausible range', () => {
       expect(() => analyzeSystem(d)).toThrow(EngineInputError);
     });
   }
+
+  it('the cases reach every ranged number of the description the engine checks here (all but typical units, placements, the cold feed resolution, the hot-water inputs and the sizing basis)', () => {
+    const reached = new Set<string>();
+    for (const [, quantity, , , set] of CASES) {
+      const d = full();
+      set(d, LIMITS[quantity].integer ? LIMITS[quantity].SI.max + 1 : LIMITS[quantity].SI.max * 1.01 + 1e-9);
+      const r = safeAnalyzeSystem(d);
+      if (r.ok) continue;
+      const path = (r.error.issues?.[0]?.path ?? [])
+        .map((p) => (typeof p === 'number' ? '[]' : `.${p}`))
+        .join('')
+        .replace(/^\./, '')
+        .replaceAll('.[]', '[]');
+      // A record key (a fixture type id) stands for every key of the record.
+      reached.add(path in FIELD_QUANTITIES ? path : path.replace(/\.[^.[\]]+$/, '.*'));
+    }
+    const elsewhere = /^(unitTypes|placements|expansionTank|recirculation|sizingBasis|source\.fedFrom)\b/;
+    const described = Object.keys(FIELD_QUANTITIES).filter((p) => !elsewhere.test(p));
+    expect([...reached].sort()).toEqual(described.sort());
+  });
 
   it('a US document is checked against the US bounds: 1e9 ft of length, 99,999 psi, 250 °F, −20 psi', () => {
     const us = clone(oneSegment()) as Doc;
