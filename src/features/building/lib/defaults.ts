@@ -70,7 +70,7 @@ export function defaultStartNode(doc: SystemDocument): string {
  * The floor-to-floor height most of the stored floors share (the lower one where two are as common),
  * or undefined with fewer than two floors: what a floor added above them takes unless told otherwise.
  */
-export function typicalStoreyHeight(floors: readonly { elevation: number }[]): number | undefined {
+function typicalStoreyHeight(floors: readonly { elevation: number }[]): number | undefined {
   const sorted = [...floors].sort((a, b) => a.elevation - b.elevation);
   const counts = new Map<number, number>();
   for (let i = 1; i < sorted.length; i++) {
