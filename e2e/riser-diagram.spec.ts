@@ -1,13 +1,16 @@
 import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
+import { demoColdDocument } from './api';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
 
 // The on-screen riser diagram of the invented demo "Alder & Finch" (cold water, issued revision 1
 // seeded from src/engine/examples/alder-finch-cold.json): fitted to the window's width, with its
-// devices and levels, and on one printed sheet. Screenshots go to e2e-output/screens/.
+// devices and its named floors as levels, and on one printed sheet. Screenshots go to e2e-output/screens/.
 const DEVICES = ['2-inch water meter', '2-inch reduced-pressure backflow assembly', 'Level 2 pressure-reducing valve'];
-const LEVELS = ['Service entry, level 1 mechanical room', 'Level 7 corridor header', 'Roof mechanical room'];
+/** The demo building's floors, lowest to highest, as the key lists them (name and elevation). */
+const FLOORS = [...(demoColdDocument().floors as { name: string; elevation: number }[])].sort((a, b) => a.elevation - b.elevation);
+const LEVELS = FLOORS.map((f) => `${f.name} (el. ${f.elevation.toFixed(1)} ft)`);
 
 let pageProblems: string[] = [];
 test.beforeEach(({ page }) => {
@@ -29,8 +32,12 @@ test('when the designer opens the demo cold system’s riser diagram, then it fi
   const svg = page.getByTestId('riser-diagram');
   await expect(svg).toBeVisible();
   await expect(svg).toHaveAttribute('data-fit', 'width');
-  for (const name of [...DEVICES, ...LEVELS]) await expect(svg).toContainText(name); // a shortened name keeps its wording as its title
-  for (const name of LEVELS) await expect(page.getByTestId('riser-levels')).toContainText(name);
+  // the demo sits on eight named floors, Level 1 to the roof: they are the diagram's levels, not its nodes' names
+  expect(FLOORS.map((f) => f.name)).toEqual(['Level 1', 'Level 2', 'Level 3', 'Level 4', 'Level 5', 'Level 6', 'Level 7', 'Roof']);
+  for (const name of [...DEVICES, ...FLOORS.map((f) => f.name)]) await expect(svg).toContainText(name); // a shortened name keeps its wording as its title
+  await expect(page.getByTestId('riser-levels')).toHaveText(`Levels: ${LEVELS.join('; ')}.`);
+  await expect(page.getByTestId('riser-levels')).not.toContainText('corridor header');
+  await expect(page.getByTestId('riser-devices')).toContainText('PRV Level 2 pressure-reducing valve — Level 2');
   await expect(svg.locator('[data-testid^="diagram-fixture-"]').first()).toBeAttached();
 
   const frame = (await page.getByTestId('riser-diagram-box').boundingBox())!;
@@ -60,7 +67,7 @@ test('when the designer opens the demo cold system’s riser diagram, then it fi
   await page.pdf({ path: 'e2e-output/screens/riser-diagram-print.pdf', format: 'Letter' });
   // the whole drawing on the first printed sheet: its lowest and highest levels are both on page 1
   const first = execFileSync('pdftotext', ['-f', '1', '-l', '1', '-layout', 'e2e-output/screens/riser-diagram-print.pdf', '-'], { encoding: 'utf8' });
-  expect(first).toContain('Roof mechanical room');
-  expect(first).toContain('Utility main');
+  expect(first).toContain(FLOORS[0].name);
+  expect(first).toContain(FLOORS.at(-1)!.name);
   await page.screenshot({ path: 'e2e-output/screens/riser-diagram-print.png', fullPage: true });
 });

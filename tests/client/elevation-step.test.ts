@@ -9,27 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { SystemDocumentSchema } from '../../src/engine';
 import { applyElevations } from '../../src/features/walk/steps/elevation-step';
 
-const absolute = SystemDocumentSchema.parse(JSON.parse(readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
-/** The demo placed on named floors (invented levels 10.5 ft apart above a 17 ft ground floor, its own storeys): each node at or above 0 ft on the floor at or below it. */
-const FLOORS = [
-  { id: 'l1', name: 'Level 1', elevation: 0 },
-  { id: 'l2', name: 'Level 2', elevation: 17 },
-  { id: 'l3', name: 'Level 3', elevation: 27.5 },
-  { id: 'l4', name: 'Level 4', elevation: 38 },
-  { id: 'l5', name: 'Level 5', elevation: 48.5 },
-  { id: 'l6', name: 'Level 6', elevation: 59 },
-  { id: 'l7', name: 'Level 7', elevation: 69.5 },
-];
-const demo = {
-  ...absolute,
-  floors: FLOORS,
-  nodes: absolute.nodes.map((n) => {
-    if (n.elevation === undefined || n.elevation < 0) return n;
-    const floor = [...FLOORS].reverse().find((f) => f.elevation <= n.elevation!)!;
-    const { elevation, ...rest } = n;
-    return { ...rest, floor: floor.id, heightAboveFloor: elevation - floor.elevation };
-  }),
-} as typeof absolute;
+const demo = SystemDocumentSchema.parse(JSON.parse(readFileSync(new URL('../../src/engine/examples/alder-finch-cold.json', import.meta.url), 'utf8')));
 const floorZ = new Map(demo.floors.map((f) => [f.id, f.elevation]));
 const shown = (n: (typeof demo.nodes)[number]) => n.elevation ?? (n.floor !== undefined ? floorZ.get(n.floor)! + (n.heightAboveFloor ?? 0) : undefined);
 

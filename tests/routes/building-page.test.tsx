@@ -1,6 +1,6 @@
 /**
  * The building page under a draft revision, through the walk's real routes against the fake API:
- * floors with a typical height, a unit type defined once, the riser builder's short form, the
+ * the demo's named floors listed, floors added above them at a typical height, a unit type defined once, the riser builder's short form, the
  * preview's counts (against the engine's own riser builder run here on the same inputs), one
  * Generate that names what it replaces and is undone in one step, and the saved draft analysed
  * by the engine. Inputs are invented.
@@ -12,6 +12,7 @@ import { analyzeSystem, nodeElevations } from '../../src/engine';
 import { buildRiser, floorsFromTable } from '../../src/engine/building/riserBuilder';
 import type { UnitType } from '../../src/engine/building/schema';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
+import { fmt } from '../../src/features/walk/lib/format';
 import { buildingPaths } from '../../src/features/building/paths';
 import { demoDocument, fakeApi } from './support/fake-api';
 import type { FakeApi } from './support/fake-api';
@@ -44,6 +45,8 @@ const TYPE: UnitType = {
 };
 
 async function enterBuilding(user: Awaited<ReturnType<typeof renderWalk>>['user']) {
+  // two storeys above the demo's roof, 10 ft apart (invented)
+  await user.clear(field('Typical floor-to-floor height (ft)'));
   await user.type(field('Typical floor-to-floor height (ft)'), '10');
   await user.type(field('Floors to add'), '2');
   await user.click(screen.getByRole('button', { name: 'Add floors' }));
@@ -81,12 +84,13 @@ describe('the building page', () => {
       for (let el = removeFitting(point); el; el = removeFitting(point)) await user.click(el);
     }
 
-    const floors = floorsFromTable([{ name: 'Level 1', elevation: 0 }, { name: 'Level 2' }, { name: 'Level 3' }], 10);
+    // the demo's own floors, then the two added above them
+    const floors = floorsFromTable([...demo.floors.map((f) => ({ name: f.name, elevation: f.elevation })), { name: 'Level 9' }, { name: 'Level 10' }], 10);
     const expected = buildRiser({
       floors,
       startNodeId: start,
       startElevation: nodeElevations(demo).get(start)!,
-      riser: { material: 'copper-l', sizes: [{ fromFloor: floors[0].id, size: '2' }], fromFloor: floors[0].id, toFloor: floors[2].id, footLength: 0 },
+      riser: { material: 'copper-l', sizes: [{ fromFloor: floors[0].id, size: '2' }], fromFloor: floors[0].id, toFloor: floors.at(-1)!.id, footLength: 0 },
       floorMain: { material: 'copper-l', size: '1-1/4', heightAboveFloor: 0 },
       units: [{ unitTypeId: TYPE.id, labelPattern: 'Unit {floor}-{n}', mainLength: 8 }],
       unitTypes: [TYPE],
@@ -111,6 +115,8 @@ describe('the building page', () => {
     // the top floor's shower has the least margin: the highest, farthest
     expect(analysis.criticalFixtureId).toBe(`${expected.placements.at(-1)!.id}.shower`);
     expect(saved.segments.some((s) => s.id === demo.segments[1].id)).toBe(false);
+    // the demo's floors are kept, not doubled: the draft has each floor once, the two new ones on top
+    expect(saved.floors.map((f) => [f.id, f.name, f.elevation])).toEqual(floors.map((f) => [f.id, f.name, f.elevation]));
 
     const before = world.saves().length;
     await user.click(screen.getByRole('button', { name: 'Undo generate' }));
@@ -118,13 +124,33 @@ describe('the building page', () => {
     expect(lastSaved(world)).toEqual(demo);
   }, 90_000);
 
+  it('when the demo’s draft is opened, then the floors table lists its named floors from the lowest up with their elevations', async () => {
+    const world = fakeApi();
+    await renderWalk(world, href(world));
+    await screen.findByRole('heading', { name: 'Building' });
+    const floors = [...demo.floors].sort((a, b) => a.elevation - b.elevation);
+    // the demo building: Level 1 to Level 7 and the roof (invented scenario)
+    expect(floors).toHaveLength(8);
+    floors.forEach((f, i) => {
+      expect(field(`Floor ${i + 1} name`).value).toBe(f.name);
+      expect(field(`Floor ${i + 1} elevation`).value).toBe(String(f.elevation));
+      expect(screen.getByTestId(`floor-elevation-${i}`).textContent).toBe(fmt(f.elevation, 2));
+    });
+    expect(document.querySelector('[aria-label="Floor 9 name"]')).toBeNull();
+    // the typical height is the storey most of its floors share, so a floor added above takes it
+    const steps = floors.slice(1).map((f, i) => f.elevation - floors[i].elevation);
+    const typical = Number(field('Typical floor-to-floor height (ft)').value);
+    expect(steps.filter((h) => h === typical).length).toBeGreaterThan(steps.length / 2);
+    // nothing is written by opening the page
+    expect(world.saves()).toHaveLength(0);
+  }, 60_000);
+
   it('when a floor is not above the one below, then its row says so and nothing is generated', async () => {
     const world = fakeApi();
     const { user } = await renderWalk(world, href(world));
     await screen.findByRole('heading', { name: 'Building' });
-    await user.type(field('Typical floor-to-floor height (ft)'), '10');
-    await user.type(field('Floors to add'), '1');
-    await user.click(screen.getByRole('button', { name: 'Add floors' }));
+    // the demo's Level 2 moved below Level 1
+    await user.clear(field('Floor 2 elevation'));
     await user.type(field('Floor 2 elevation'), '-3');
     expect(await screen.findByText(/Not above Level 1/)).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Generate into draft' }));

@@ -6,9 +6,9 @@
  */
 import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, UNIT_LABELS } from '../../src/engine';
+import { analyzeSystem, nodeElevations, UNIT_LABELS, type SystemDocument } from '../../src/engine';
 import { CHAR_EM, DEVICE_TAG_WORDS, riserDiagram } from '../../src/shared/diagram/riserLayout';
-import { signed } from '../../src/features/walk/lib/format';
+import { fmt, signed } from '../../src/features/walk/lib/format';
 import { walkPaths } from '../../src/features/walk/paths';
 import { demoDocument, fakeApi } from './support/fake-api';
 import { renderWalk } from './support/render-walk';
@@ -17,6 +17,16 @@ const doc = demoDocument();
 const analysis = analyzeSystem(doc);
 const diagram = riserDiagram(doc, analysis);
 const u = UNIT_LABELS[doc.unitSystem];
+
+/** The same building with every node at its absolute elevation and no named floors (as a system entered without floors). */
+function withoutFloors(d: SystemDocument): SystemDocument {
+  const z = nodeElevations(d);
+  return {
+    ...d,
+    floors: [],
+    nodes: d.nodes.map(({ floor: _floor, heightAboveFloor: _height, ...n }) => ({ ...n, elevation: z.get(n.id)! })),
+  };
+}
 
 /** "translate(12.5,40) rotate(-90)" → [12.5, 40] */
 const translateOf = (transform: string | null) => {
@@ -95,6 +105,48 @@ describe('the riser diagram page', () => {
       const mark = screen.getByTestId(`diagram-fixture-${f.id}`);
       expect(mark.querySelector('text')?.textContent).toContain(`${signed(f.margin, 1)} ${f.pass ? 'pass' : 'FAIL'}`);
       expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(`${f.label}: ${signed(f.margin, 1)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
+    }
+    expect(world.unknown).toEqual([]);
+  });
+
+  it('when the system sits on named floors, then the diagram’s levels are its floors, by name and elevation, from the lowest up', async () => {
+    const world = fakeApi();
+    await renderWalk(world, walkPaths.diagram.getHref(world.ids.projectId, world.ids.systemId, world.ids.revisionId));
+    const svg = await screen.findByTestId('riser-diagram', undefined, { timeout: 20_000 });
+    const floors = [...doc.floors].sort((a, b) => a.elevation - b.elevation);
+    expect(floors.length).toBeGreaterThan(3);
+    const key = screen.getByTestId('riser-levels').textContent ?? '';
+    const listed = key
+      .replace(/^Levels:\s*/, '')
+      .replace(/\.$/, '')
+      .split('; ');
+    expect(listed).toEqual(floors.map((f) => `${f.name} (el. ${fmt(f.elevation, 1)} ${u.length})`));
+    // each floor's name is drawn on its level line
+    const texts = [...svg.querySelectorAll('text')].map((t) => t.textContent);
+    for (const f of floors) expect(texts).toContain(f.name);
+    // the devices are listed on the floor they sit on (the riser PRVs on their own floors)
+    const devices = screen.getByTestId('riser-devices').textContent ?? '';
+    for (const d of diagram.devices) expect(floors.map((f) => f.name)).toContain(d.floor);
+    expect(devices).toContain(`— ${floors[0].name}`);
+    expect(world.unknown).toEqual([]);
+  });
+
+  it('when the system names no floors, then the diagram’s levels are the points its risers reach, by name', async () => {
+    const flat = withoutFloors(doc);
+    // the same building, the same analysis: only the way its nodes are placed differs
+    expect(analyzeSystem(flat).fixtures.map((f) => f.residual)).toEqual(analysis.fixtures.map((f) => f.residual));
+    const world = fakeApi({ document: flat });
+    await renderWalk(world, walkPaths.diagram.getHref(world.ids.projectId, world.ids.systemId, world.ids.revisionId));
+    await screen.findByTestId('riser-diagram', undefined, { timeout: 20_000 });
+    const levels = riserDiagram(flat, analyzeSystem(flat)).levels;
+    expect(levels.length).toBeGreaterThan(3);
+    const key = screen.getByTestId('riser-levels').textContent ?? '';
+    const nodeNames = new Set(flat.nodes.map((n) => n.label ?? n.id));
+    const floorNames = new Set(doc.floors.map((f) => f.name));
+    for (const l of levels) {
+      expect(nodeNames.has(l.name), l.name).toBe(true);
+      expect(floorNames.has(l.name), l.name).toBe(false);
+      expect(key).toContain(`${l.name} (el. ${fmt(l.elevation, 1)} ${u.length})`);
     }
     expect(world.unknown).toEqual([]);
   });

@@ -48,9 +48,14 @@ const SHOWS: Record<WalkStepId, (a: Analysis, d: SystemDocument) => Promise<void
     const result = a.segments.find((s) => s.id === first.id)!;
     expect(screen.getByTestId(`fitting-loss-${first.id}`).textContent).toContain(`Σ K = ${fmt(result.fittingsK, 2)}`);
   },
-  elevation: async (_a, d) => {
-    const top = [...d.nodes].sort((x, y) => (y.elevation ?? 0) - (x.elevation ?? 0))[0];
-    expect(valueOf(`Elevation of ${top.label || top.id} (${u.elevation})`)).toBe(String(top.elevation));
+  elevation: async (a, d) => {
+    // the demo's nodes sit on named floors: each shows its floor's elevation + its height, as the engine placed it
+    const top = [...a.nodes].sort((x, y) => y.elevation - x.elevation)[0];
+    const node = d.nodes.find((n) => n.id === top.id)!;
+    const floor = d.floors.find((f) => f.id === node.floor);
+    expect(floor).toBeDefined();
+    expect(valueOf(`Elevation of ${node.label || node.id} (${u.elevation})`)).toBe(String(floor!.elevation + (node.heightAboveFloor ?? 0)));
+    expect(screen.getByTestId(`on-floor-${node.id}`).textContent).toContain(`on ${floor!.name}`);
   },
   fixtures: async (a) => {
     const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId)!;

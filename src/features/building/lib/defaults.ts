@@ -66,12 +66,30 @@ export function defaultStartNode(doc: SystemDocument): string {
   return (leaves[leaves.length - 1] ?? doc.nodes[doc.nodes.length - 1]).id;
 }
 
+/**
+ * The floor-to-floor height most of the stored floors share (the lower one where two are as common),
+ * or undefined with fewer than two floors: what a floor added above them takes unless told otherwise.
+ */
+function typicalStoreyHeight(floors: readonly { elevation: number }[]): number | undefined {
+  const sorted = [...floors].sort((a, b) => a.elevation - b.elevation);
+  const counts = new Map<number, number>();
+  for (let i = 1; i < sorted.length; i++) {
+    // to a thousandth of the length unit: elevations typed in feet or metres, not sums of floats
+    const step = Math.round((sorted[i].elevation - sorted[i - 1].elevation) * 1000) / 1000;
+    counts.set(step, (counts.get(step) ?? 0) + 1);
+  }
+  let best: [number, number] | undefined;
+  for (const [step, n] of counts) if (!best || n > best[1] || (n === best[1] && step < best[0])) best = [step, n];
+  return best?.[0];
+}
+
 export function defaultBuildingForm(doc: SystemDocument): BuildingForm {
   const stored = readBuilding(doc);
+  const sorted = [...stored.floors].sort((a, b) => a.elevation - b.elevation);
   return {
     floors: {
-      rows: stored.floors.length > 0 ? stored.floors.map((f) => ({ name: f.name, elevation: f.elevation })) : [{ name: 'Level 1', elevation: 0 }],
-      typicalHeight: undefined as unknown as number,
+      rows: sorted.length > 0 ? sorted.map((f) => ({ name: f.name, elevation: f.elevation })) : [{ name: 'Level 1', elevation: 0 }],
+      typicalHeight: typicalStoreyHeight(sorted) as number,
     },
     unitTypes: stored.unitTypes.length > 0 ? stored.unitTypes.map(unitTypeToForm) : [newUnitType('unit-a', 'Unit A')],
     riser: {
