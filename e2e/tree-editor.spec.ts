@@ -99,6 +99,43 @@ test('when a contractor opens a field change, then the same editor offers materi
   await shot(page, 'tree-editor-field-change');
 });
 
+test('when a cell far to the right takes the focus in a narrow window, then the grid scrolls sideways and the segment’s name stays in view', async ({
+  page,
+}) => {
+  const project = await newProject([], 'Kiln Row');
+  const system = await newSystem(project.designer, project.id, 'Domestic cold water', demoColdDocument(), false);
+  // narrower than the grid's columns, and than its first columns and the rise cell together: without the name kept
+  // at the left edge, the sideways scroll that shows the rise cell takes the name out of view
+  await page.setViewportSize({ width: 600, height: 800 });
+  await signIn(page, DEMO.designer);
+  await page.goto(walkStep(system, 'risers'));
+  const row = page.getByTestId('segment-service');
+  await expect(row).toBeVisible();
+  const grid = page.getByRole('grid', { name: 'Segments in tree order' });
+  expect(await grid.evaluate((el) => el.scrollLeft)).toBe(0);
+
+  const rise = row.getByLabel('Building service, main to entry rise (ft)');
+  await rise.focus();
+  await expect(rise).toBeFocused();
+  // the focus scrolled the grid sideways (without that, the test below would show nothing)
+  await expect.poll(() => grid.evaluate((el) => el.scrollLeft)).toBeGreaterThan(0);
+  const gridBox = (await grid.boundingBox())!;
+  const name = row.getByRole('button', { name: 'Open Building service, main to entry' });
+  const nameBox = (await name.boundingBox())!;
+  const riseBox = (await rise.boundingBox())!;
+  for (const box of [nameBox, riseBox]) {
+    expect(box.x).toBeGreaterThanOrEqual(gridBox.x - 1);
+    expect(box.x + box.width).toBeLessThanOrEqual(gridBox.x + gridBox.width + 1);
+  }
+  // and nothing scrolled over the name: the topmost element at its middle is the name itself
+  const onTop = await page.evaluate(({ x, y }) => document.elementFromPoint(x, y)?.closest('button')?.getAttribute('aria-label') ?? null, {
+    x: nameBox.x + Math.min(nameBox.width / 2, 20),
+    y: nameBox.y + nameBox.height / 2,
+  });
+  expect(onTop).toBe('Open Building service, main to entry');
+  await shot(page, 'tree-editor-sticky-name');
+});
+
 test('figures: the demo’s pipe and fittings step heights, and the 40-storey pipe step’s longest frame while scrolling (printed, not asserted)', async ({
   page,
 }) => {

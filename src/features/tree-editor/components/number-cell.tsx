@@ -7,7 +7,9 @@ import type { LimitKind } from '../../walk/lib/limits';
 const CELL =
   'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink tabular-nums aria-[invalid=true]:border-fault read-only:border-rule read-only:bg-paper-deep disabled:bg-paper-deep';
 
-const show = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? '' : String(v));
+/** A number as its box shows it: as typed, empty when not given. */
+export const shownNumber = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? '' : String(v));
+const show = shownNumber;
 
 /**
  * A number typed in a row: what parses and is in range is handed on at once (the ledger follows the

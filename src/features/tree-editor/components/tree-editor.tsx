@@ -1,4 +1,4 @@
-import { memo, useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
+import { memo, useCallback, useEffect, useId, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import type { KeyboardEvent, MouseEvent, ReactNode } from 'react';
 import { useVirtualizer } from '@tanstack/react-virtual';
 import { cx } from '../../../components/ui/cx';
@@ -14,7 +14,7 @@ import type { HeldValue } from '../../walk/draft/use-draft';
 import { fittingsSummary, lossOf, setCustomPipe, setLength, setMaterial, setRise, treeRows, visibleLines } from '../model';
 import type { TreeLine, TreeRow } from '../model';
 import type { EditPolicy } from '../policy';
-import { NumberCell } from './number-cell';
+import { NumberCell, shownNumber } from './number-cell';
 import { BulkBar } from './bulk-bar';
 
 /** Above this many segments the rows are virtualised (only those near the window are in the page). */
@@ -27,8 +27,6 @@ export const VIRTUALISE_AT = 150;
 export const ROW_HEIGHT = 38;
 /** The open row's height before it is measured, px (its details take a few hundred pixels). */
 const OPEN_ROW_ESTIMATE = 480;
-/** Recycled row slots of the virtualised list: more than a tall window's rows and overscan (see `slotted`). */
-const SLOTS = 160;
 
 export type DocChange = (doc: SystemDocument) => SystemDocument;
 
@@ -54,6 +52,13 @@ export interface TreeEditorProps {
   activeRequest?: { id: string; at: number } | null;
   label: string;
 }
+
+/**
+ * The segment's name stays at the left edge while the grid scrolls sideways, covering what passes
+ * under it (the selection box too) with the row's own opaque colour. One sticky cell a row: each
+ * is a layer of its own to the compositor, so no more than needed.
+ */
+const STICKY_NAME = 'sticky left-0 z-10 bg-inherit';
 
 const CELL =
   'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink aria-[invalid=true]:border-fault disabled:bg-paper-deep';
@@ -130,27 +135,78 @@ interface RowProps {
   onHeld: (cellKey: string, message: string | null) => void;
   measure?: (el: HTMLElement | null) => void;
   index?: number;
-  /** a virtualised row: its selects hold only their chosen option until the pointer or the focus comes to the row */
+  /** a virtualised row: its editable cells show text until the pointer or the focus comes to the row */
   lean: boolean;
 }
 
 type Options = readonly { value: string; label: string }[];
-/** A lean select's one option: the chosen one (or the first, as the select would show it). */
-function chosenOnly(options: Options, value: string): Options {
-  const hit = options.find((o) => o.value === value);
-  return hit ? [hit] : options.slice(0, 1);
+/** The option a select shows for a value (the first, as the select itself would, when none matches). */
+function chosenLabel(options: Options, value: string): string {
+  return (options.find((o) => o.value === value) ?? options[0])?.label ?? '';
+}
+
+/**
+ * One cell of a row: the grid's cell, its text placed as its column reads (`numeric`: figures
+ * right-aligned in tabular digits; `text`: a line of small text cut with an ellipsis).
+ */
+function Cell(p: { kind?: 'control' | 'numeric' | 'text' | 'plain'; title?: string; testId?: string; className?: string; children?: ReactNode }) {
+  const place = { control: '', numeric: 'pt-0.5 text-right tabular-nums', text: 'min-w-0 truncate pt-0.5 text-xs', plain: 'pt-0.5' }[p.kind ?? 'control'];
+  return (
+    <div role="gridcell" className={cx(place, p.className)} title={p.title} data-testid={p.testId}>
+      {p.children}
+    </div>
+  );
+}
+
+/**
+ * An editable cell of a row scrolled past, before anyone reaches it: its value as text in the box
+ * of the control it stands for (same size, so nothing moves), focusable at its keyboard position.
+ * A select or a text box is a small document of its own to lay out; a list scrolled one screen a
+ * frame replaces every row it shows, so its rows show text until the pointer or the focus comes.
+ */
+function ShownValue(p: { text: string; col: number; row: number; locked: string | null }) {
+  return (
+    <span
+      tabIndex={0}
+      className={cx(CELL, 'block truncate', p.locked !== null && 'bg-paper-deep')}
+      data-col={p.col}
+      data-row={p.row}
+      title={p.locked ?? undefined}
+    >
+      {p.text || '\u00a0'}
+    </span>
+  );
 }
 
 /** One segment's line; memoised on plain values, so an edit re-renders only the rows whose values changed. */
 const Row = memo(function Row(p: RowProps) {
   const id = p.id;
-  // Every option is an element to make and style: a list scrolled past thousands of rows makes the
-  // full lists only for the row a person reaches (pointer or keyboard focus), before any choice.
+  // A virtualised row shows its values as text until the pointer or the focus comes to it (see
+  // ShownValue); then its controls, with their full lists of choices, before any choice is made.
   const [warm, setWarm] = useState(false);
-  const full = !p.lean || warm;
-  const materialOptions = full ? p.materialOptions : chosenOnly(p.materialOptions, p.materialValue);
-  const sizeOptions = full ? p.sizeOptions : chosenOnly(p.sizeOptions, p.size);
-  const wake = p.lean && !warm ? () => setWarm(true) : undefined;
+  const live = !p.lean || warm;
+  const rowEl = useRef<HTMLDivElement | null>(null);
+  const { measure } = p;
+  const setRowEl = useCallback(
+    (el: HTMLDivElement | null) => {
+      rowEl.current = el;
+      measure?.(el);
+    },
+    [measure],
+  );
+  // the column whose shown value took the focus: its control takes it once made
+  const refocus = useRef<string | null>(null);
+  const wake = live
+    ? undefined
+    : (ev: { type: string; target: EventTarget }) => {
+        if (ev.type === 'focus') refocus.current = (ev.target as HTMLElement).dataset.col ?? null;
+        setWarm(true);
+      };
+  useLayoutEffect(() => {
+    const col = refocus.current;
+    refocus.current = null;
+    if (warm && col !== null) rowEl.current?.querySelector<HTMLElement>(`[data-col="${col}"]`)?.focus();
+  }, [warm]);
   return (
     <div
       role="row"
@@ -160,14 +216,18 @@ const Row = memo(function Row(p: RowProps) {
       data-changed={p.changed || undefined}
       data-active={p.active || undefined}
       data-index={p.index}
-      ref={p.measure}
+      ref={setRowEl}
       onPointerEnter={wake}
       onFocus={wake}
-      style={p.detail ? undefined : { height: ROW_HEIGHT }}
-      className={cx('border-b border-rule', p.active ? 'bg-standpipe-soft/40' : p.selected ? 'bg-paper-deep' : '')}
+      // a row of text only is laid out and painted on its own (nothing in it floats out of it)
+      style={p.detail ? undefined : live ? { height: ROW_HEIGHT } : { height: ROW_HEIGHT, contain: 'strict' }}
+      // opaque colours, so the sticky cells (bg-inherit) hide what scrolls under them: the open row is standpipe-soft at 40 % over the white surface.
+      // `relative` (no z-index: a cell's message still shows over the rows below) gives the row a paint layer of its
+      // own in Chromium, whose painting is kept and reused while the row does not change: an edit repaints its rows, not the page
+      className={cx('relative border-b border-rule', p.active ? 'bg-[#f1f6f7]' : p.selected ? 'bg-paper-deep' : 'bg-surface')}
     >
       <div className="grid items-start gap-x-2 py-1 text-sm" style={{ gridTemplateColumns: p.grid }} onClick={(ev) => p.onRowClick(id, ev)}>
-        <div role="gridcell" className="pt-1">
+        <Cell kind="plain">
           <input
             type="checkbox"
             aria-label={`Select ${p.name}`}
@@ -177,141 +237,152 @@ const Row = memo(function Row(p: RowProps) {
             onChange={() => p.onToggleSelect(id)}
             onClick={(ev) => ev.stopPropagation()}
           />
-        </div>
-        <div role="gridcell" className="flex min-w-0 items-start gap-1" style={{ paddingLeft: `${Math.min(p.depth - 1, 12) * 0.75}rem` }}>
-          {p.hasChildren ? (
+        </Cell>
+        <Cell className={cx(STICKY_NAME, 'min-w-0')}>
+          <span className="flex min-w-0 items-start gap-1" style={{ paddingLeft: `${Math.min(p.depth - 1, 12) * 0.75}rem` }}>
+            {p.hasChildren ? (
+              <button
+                type="button"
+                className="w-5 shrink-0 text-standpipe"
+                aria-expanded={!p.collapsed}
+                aria-label={`${p.collapsed ? 'Expand' : 'Collapse'} the branch of ${p.name} (${p.below} below)`}
+                onClick={(ev) => {
+                  ev.stopPropagation();
+                  p.onToggleCollapse(id);
+                }}
+              >
+                <span aria-hidden="true">{p.collapsed ? '▸' : '▾'}</span>
+              </button>
+            ) : (
+              <span className="w-5 shrink-0" aria-hidden="true" />
+            )}
             <button
               type="button"
-              className="w-5 shrink-0 text-standpipe"
-              aria-expanded={!p.collapsed}
-              aria-label={`${p.collapsed ? 'Expand' : 'Collapse'} the branch of ${p.name} (${p.below} below)`}
-              onClick={(ev) => {
-                ev.stopPropagation();
-                p.onToggleCollapse(id);
-              }}
+              className="min-w-0 truncate text-left font-semibold"
+              title={p.name}
+              data-col={1}
+              data-row={p.line}
+              aria-label={`Open ${p.name}`}
+              aria-pressed={p.active}
             >
-              <span aria-hidden="true">{p.collapsed ? '▸' : '▾'}</span>
+              {p.name}
             </button>
-          ) : (
-            <span className="w-5 shrink-0" aria-hidden="true" />
-          )}
-          <button
-            type="button"
-            className="min-w-0 truncate text-left font-semibold"
-            title={p.name}
-            data-col={1}
-            data-row={p.line}
-            aria-label={`Open ${p.name}`}
-            aria-pressed={p.active}
-          >
-            {p.name}
-          </button>
-          {p.collapsed && p.hiddenBelow > 0 ? (
-            <span className="shrink-0 text-xs text-ink-muted" data-testid="hidden-count">
-              +{p.hiddenBelow}
-            </span>
-          ) : null}
-        </div>
-        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs text-ink-soft" title={p.issuedText ? `${p.ends}; issued: ${p.issuedText}` : p.ends}>
+            {p.collapsed && p.hiddenBelow > 0 ? (
+              <span className="shrink-0 text-xs text-ink-muted" data-testid="hidden-count">
+                +{p.hiddenBelow}
+              </span>
+            ) : null}
+          </span>
+        </Cell>
+        <Cell kind="text" className="text-ink-soft" title={p.issuedText ? `${p.ends}; issued: ${p.issuedText}` : p.ends}>
           {p.changed ? <span className="mr-1 rounded border border-caution px-1 font-semibold text-ink">changed</span> : null}
           {p.ends}
           {p.issuedText ? <span className="text-ink-muted"> · Issued: {p.issuedText}</span> : null}
-        </div>
-        <div role="gridcell">
-          <select
-            aria-label={`${p.name} material`}
-            className={CELL}
-            value={p.materialValue}
-            disabled={p.lockMaterial !== null}
-            title={p.lockMaterial ?? undefined}
-            aria-description={p.lockMaterial ?? undefined}
-            data-col={2}
-            data-row={p.line}
-            onChange={(ev) => p.onMaterial(id, ev.target.value)}
-          >
-            {materialOptions.map((o) => (
-              <option key={o.value} value={o.value}>
-                {o.label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div role="gridcell">
-          <select
-            aria-label={`${p.name} size`}
-            className={CELL}
-            value={p.size}
-            disabled={p.lockSize !== null}
-            title={p.lockSize ?? undefined}
-            aria-description={p.lockSize ?? undefined}
-            data-col={3}
-            data-row={p.line}
-            onChange={(ev) => p.onSize(id, ev.target.value)}
-          >
-            {sizeOptions.map((o) => (
-              <option key={o.value} value={o.value}>
-                {o.label}
-              </option>
-            ))}
-          </select>
-        </div>
-        <div role="gridcell">
-          <NumberCell
-            label={`${p.name} length (${p.lengthUnit})`}
-            value={p.length}
-            kind="length"
-            system={p.system}
-            optional={false}
-            locked={p.lockLength}
-            cellKey={`${id}\u0000length`}
-            col={4}
-            row={p.line}
-            onCommit={p.onNumber}
-            onHeld={p.onHeld}
-          />
-        </div>
-        <div role="gridcell">
-          <NumberCell
-            label={`${p.name} rise (${p.lengthUnit})`}
-            value={p.rise}
-            kind="rise"
-            system={p.system}
-            optional
-            locked={p.riseLocked}
-            cellKey={`${id}\u0000rise`}
-            col={5}
-            row={p.line}
-            onCommit={p.onNumber}
-            onHeld={p.onHeld}
-          />
-        </div>
-        {p.hasFloors ? (
-          <div role="gridcell" className="pt-0.5">
-            {p.floor ?? '—'}
-          </div>
-        ) : null}
-        <div role="gridcell" className="min-w-0 truncate pt-0.5 text-xs" title={p.fittings} data-testid={`${p.prefix}-fittings-${id}`}>
+        </Cell>
+        <Cell>
+          {live ? (
+            <select
+              aria-label={`${p.name} material`}
+              className={CELL}
+              value={p.materialValue}
+              disabled={p.lockMaterial !== null}
+              title={p.lockMaterial ?? undefined}
+              aria-description={p.lockMaterial ?? undefined}
+              data-col={2}
+              data-row={p.line}
+              onChange={(ev) => p.onMaterial(id, ev.target.value)}
+            >
+              {p.materialOptions.map((o) => (
+                <option key={o.value} value={o.value}>
+                  {o.label}
+                </option>
+              ))}
+            </select>
+          ) : (
+            <ShownValue text={chosenLabel(p.materialOptions, p.materialValue)} col={2} row={p.line} locked={p.lockMaterial} />
+          )}
+        </Cell>
+        <Cell>
+          {live ? (
+            <select
+              aria-label={`${p.name} size`}
+              className={CELL}
+              value={p.size}
+              disabled={p.lockSize !== null}
+              title={p.lockSize ?? undefined}
+              aria-description={p.lockSize ?? undefined}
+              data-col={3}
+              data-row={p.line}
+              onChange={(ev) => p.onSize(id, ev.target.value)}
+            >
+              {p.sizeOptions.map((o) => (
+                <option key={o.value} value={o.value}>
+                  {o.label}
+                </option>
+              ))}
+            </select>
+          ) : (
+            <ShownValue text={chosenLabel(p.sizeOptions, p.size)} col={3} row={p.line} locked={p.lockSize} />
+          )}
+        </Cell>
+        <Cell>
+          {live ? (
+            <NumberCell
+              label={`${p.name} length (${p.lengthUnit})`}
+              value={p.length}
+              kind="length"
+              system={p.system}
+              optional={false}
+              locked={p.lockLength}
+              cellKey={`${id}\u0000length`}
+              col={4}
+              row={p.line}
+              onCommit={p.onNumber}
+              onHeld={p.onHeld}
+            />
+          ) : (
+            <ShownValue text={shownNumber(p.length)} col={4} row={p.line} locked={p.lockLength} />
+          )}
+        </Cell>
+        <Cell>
+          {live ? (
+            <NumberCell
+              label={`${p.name} rise (${p.lengthUnit})`}
+              value={p.rise}
+              kind="rise"
+              system={p.system}
+              optional
+              locked={p.riseLocked}
+              cellKey={`${id}\u0000rise`}
+              col={5}
+              row={p.line}
+              onCommit={p.onNumber}
+              onHeld={p.onHeld}
+            />
+          ) : (
+            <ShownValue text={shownNumber(p.rise)} col={5} row={p.line} locked={p.riseLocked} />
+          )}
+        </Cell>
+        {p.hasFloors ? <Cell kind="plain">{p.floor ?? '—'}</Cell> : null}
+        <Cell kind="text" title={p.fittings} testId={`${p.prefix}-fittings-${id}`}>
           {p.fittings}
-        </div>
-        <div role="gridcell" className="pt-0.5 text-right tabular-nums">
-          {p.flow}
-        </div>
-        <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-velocity-${id}`}>
+        </Cell>
+        <Cell kind="numeric">{p.flow}</Cell>
+        <Cell kind="numeric" testId={`${p.prefix}-velocity-${id}`}>
           {p.velocityText ?? p.velocity}
           {p.fast ? <span className="font-semibold text-fault"> ▲</span> : null}
-        </div>
-        <div role="gridcell" className="pt-0.5 text-right tabular-nums" data-testid={`${p.prefix}-loss-${id}`}>
+        </Cell>
+        <Cell kind="numeric" testId={`${p.prefix}-loss-${id}`}>
           {p.lossText ?? p.loss}
-        </div>
-        <div
-          role="gridcell"
+        </Cell>
+        <Cell
           className="min-w-0 truncate"
           title={
             [p.flagFast && `Velocity ${p.flagFast}`, p.flagFailing, p.flagMissing && `Incomplete: ${p.flagMissing}`].filter(Boolean).join('; ') || undefined
           }
         >
           <RowFlags fast={p.flagFast} failing={p.flagFailing} missing={p.flagMissing} />
-        </div>
+        </Cell>
       </div>
       {p.detail ? (
         <div className="border-t border-rule bg-surface px-3 py-3" data-testid="row-detail">
@@ -602,6 +673,13 @@ export function TreeEditor(props: TreeEditorProps) {
     },
     [lines],
   );
+  const setGridEl = useCallback(
+    (el: HTMLDivElement | null) => {
+      gridRef.current = el;
+      scrollRef.current = virtual ? el : null;
+    },
+    [virtual],
+  );
   const activeRef = useRef(active);
   activeRef.current = active;
   const virtualizer = useVirtualizer({
@@ -710,12 +788,16 @@ export function TreeEditor(props: TreeEditorProps) {
     const row = active && renderDetail ? rows.find((r) => r.id === active) : undefined;
     return row && renderDetail ? renderDetail(row) : null;
   }, [active, rows, renderDetail]);
-  // Recycled slots: a line keeps slot (index mod SLOTS) while it stays in the window, and a line
+  // Recycled slots: a line keeps slot (index mod slots) while it stays in the window, and a line
   // scrolled in takes the slot of one scrolled out, so React updates that row's elements in place
   // instead of removing ~60 elements and making ~60 new ones per row (the cost of a scroll frame).
-  // Unique while the window holds at most SLOTS lines (consecutive indices); else keyed by line.
+  // `slots` is the most lines the window has held: consecutive indices then never share a slot, and
+  // a jump of a whole screen (every line replaced) finds all but (slots − window) of its slots made.
   const virtualItems = virtual ? virtualizer.getVirtualItems() : [];
-  const slotted = virtualItems.length <= SLOTS;
+  const slotsRef = useRef(0);
+  slotsRef.current = Math.max(slotsRef.current, virtualItems.length);
+  const slots = slotsRef.current;
+  const slotted = virtual;
   const shownCount = useMemo(() => lines.reduce((n, l) => n + (l.kind === 'segment' ? 1 : 0), 0), [lines]);
   const lengthLock = policy.locked.length;
   // `slotted`: the line fills a recycled slot of the virtualised list, so its elements are not keyed by the segment
@@ -859,13 +941,18 @@ export function TreeEditor(props: TreeEditorProps) {
         onClear={() => setSelected(new Set())}
         pendingMaterial={pendingMaterial}
       />
+      {/* One box scrolls both ways (a virtualised list's rows are placed in it): the heading row stays
+          at its top, and the first two columns at its left, so a cell reached far to the right
+          still shows which segment it belongs to. */}
       <div
         role="grid"
         aria-label={props.label}
         aria-rowcount={lines.length + 1}
         aria-multiselectable
-        ref={gridRef}
-        className="min-w-0 overflow-x-auto"
+        ref={setGridEl}
+        className={cx('min-w-0 overflow-x-auto', virtual && 'overflow-y-auto')}
+        style={virtual ? { height: '70vh' } : undefined}
+        data-testid={virtual ? 'tree-scroll' : undefined}
         onKeyDown={onKeyDown}
         onFocus={onFocus}
       >
@@ -873,25 +960,27 @@ export function TreeEditor(props: TreeEditorProps) {
           <div
             role="row"
             aria-rowindex={1}
-            className="grid gap-x-2 border-b-2 border-rule py-1 text-left text-xs font-semibold"
+            className="sticky top-0 z-20 grid gap-x-2 border-b-2 border-rule bg-surface py-1 text-left text-xs font-semibold"
             style={{ gridTemplateColumns: grid }}
           >
-            {columns.map((c) => (
-              <div role="columnheader" key={c.key} className={['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : ''}>
+            {columns.map((c, i) => (
+              <div
+                role="columnheader"
+                key={c.key}
+                className={cx(['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : '', i === 1 ? STICKY_NAME : '', 'bg-surface')}
+              >
                 {c.header}
               </div>
             ))}
           </div>
           {virtual ? (
-            <div ref={scrollRef} className="max-h-[70vh] overflow-y-auto [contain:strict]" style={{ height: '70vh' }} data-testid="tree-scroll">
-              <div style={{ height: virtualizer.getTotalSize(), position: 'relative' }}>
-                {virtualItems.map((item) => (
-                  // placed by `top`, not a transform: no stacking context per row, so a cell's message (z-10) shows over the rows below
-                  <div key={slotted ? `slot:${item.index % SLOTS}` : item.key} style={{ position: 'absolute', top: item.start, left: 0, right: 0 }}>
-                    {renderLine(lines[item.index], item.index, virtualizer.measureElement, slotted)}
-                  </div>
-                ))}
-              </div>
+            <div style={{ height: virtualizer.getTotalSize(), position: 'relative' }}>
+              {virtualItems.map((item) => (
+                // placed by `top`, not a transform: no stacking context per row, so a cell's message (z-10) shows over the rows below
+                <div key={`slot:${item.index % slots}`} style={{ position: 'absolute', top: item.start, left: 0, right: 0 }}>
+                  {renderLine(lines[item.index], item.index, virtualizer.measureElement, slotted)}
+                </div>
+              ))}
             </div>
           ) : (
             <div data-testid="tree-rows">{lines.map((l, i) => renderLine(l, i))}</div>

@@ -52,7 +52,8 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
               <th scope="col" className="py-1 pr-3">
                 Critical fixture, margin ({u.pressure})
               </th>
-              <th scope="col" className="py-1">
+              {/* room for the verdict's words beside the ledger (the table scrolls sideways before this column squeezes) */}
+              <th scope="col" className="min-w-[10rem] py-1">
                 Verdict
               </th>
             </tr>
@@ -120,7 +121,7 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                     '—'
                   )}
                 </td>
-                <td className="py-1" data-testid={`zone-verdict-${z.index}`}>
+                <td className="min-w-[10rem] py-1" data-testid={`zone-verdict-${z.index}`}>
                   <VerdictMark verdict={zoneVerdict(z)}>{zoneVerdictWords(z)}</VerdictMark>
                 </td>
               </tr>

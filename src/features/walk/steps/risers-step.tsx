@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { useFieldArray } from 'react-hook-form';
-import type { Control, UseFormRegister, UseFormSetValue } from 'react-hook-form';
+import type { Control, UseFormRegister, UseFormReturn, UseFormSetValue } from 'react-hook-form';
 import { z } from 'zod';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
@@ -542,6 +542,73 @@ function splitPending(view: SystemDocument): { doc: SystemDocument; pending: Pen
   };
 }
 
+/** The detail forms' values: the open segment (none at the connection) and the node it ends at, `nodes.0`. */
+type DetailForm = { segments: unknown[]; nodes: NodeRow[] };
+
+/**
+ * A node's own fields, one form wherever a node is edited (a segment's end node, the connection):
+ * its name, a continuous demand, and the fixtures served there. `where` words the labels.
+ */
+function NodeFields(p: {
+  form: UseFormReturn<DetailForm>;
+  nodeId: string;
+  where: 'end' | 'connection';
+  policy: EditPolicy;
+  catalog: Catalog;
+  projectFixtures: readonly ProjectEntryOf<'fixture-type'>[];
+  units: WalkContextValue['units'];
+}) {
+  const {
+    register,
+    control,
+    setValue,
+    watch,
+    formState: { errors },
+  } = p.form;
+  const id = p.nodeId;
+  const nodeLabel = watch('nodes.0.label') || id;
+  const groups = watch('nodes.0.fixtureGroups');
+  const atEnd = p.where === 'end';
+  return (
+    <div className="flex flex-col gap-3" data-testid={`node-fields-${id}`}>
+      <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
+        <label className="flex flex-col text-xs font-semibold">
+          {atEnd ? 'Node name at the end' : 'Node name'}
+          <CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} />
+        </label>
+        <label className="flex flex-col text-xs font-semibold">
+          {atEnd ? 'Continuous demand at the end' : 'Continuous demand'} ({p.units.flow})
+          <CellInput
+            label={`Continuous demand at node ${id} (${p.units.flow})`}
+            type="text"
+            inputMode="decimal"
+            autoComplete="off"
+            placeholder="none"
+            error={plainError(errors.nodes?.[0]?.continuousDemand?.message)}
+            {...register('nodes.0.continuousDemand', numberInput)}
+          />
+        </label>
+      </div>
+      <div>
+        <p className="mb-1 text-sm font-semibold">Fixtures served at {nodeLabel}</p>
+        <FixtureGroups
+          index={0}
+          control={control as never}
+          register={register as never}
+          setValue={setValue as never}
+          rows={groups}
+          projectFixtures={p.projectFixtures}
+          catalog={p.catalog}
+          nodeLabel={nodeLabel}
+          errors={errors.nodes?.[0]?.fixtureGroups as never}
+          locked={p.policy.locked.fixtures !== null}
+          units={p.units}
+        />
+      </div>
+    </div>
+  );
+}
+
 interface DetailProps {
   segment: Segment;
   view: SystemDocument;
@@ -581,17 +648,13 @@ function SegmentDetail(p: DetailProps) {
   const form = useLiveForm(detailSchema, defaults, (v) => p.update((doc) => applyDetail(doc, v, p.projectFixtures)));
   const {
     register,
-    control,
-    setValue,
     watch,
     formState: { errors },
   } = form;
   const name = watch('segments.0.label') || s.id;
   const nodeLabel = watch('nodes.0.label') || s.to;
-  const groups = watch('nodes.0.fixtureGroups');
   const leaf = !p.view.segments.some((x) => x.from === s.to);
   const lockedTopology = p.policy.locked.topology;
-  const lockedFixtures = p.policy.locked.fixtures;
   const err = errors.segments?.[0];
   return (
     <div className="flex flex-col gap-3" data-testid={`segment-detail-${s.id}`}>
@@ -615,22 +678,6 @@ function SegmentDetail(p: DetailProps) {
             placeholder="from the fixture units"
             error={plainError(err?.flowOverride?.message)}
             {...register('segments.0.flowOverride', numberInput)}
-          />
-        </label>
-        <label className="flex flex-col text-xs font-semibold">
-          Node name at the end
-          <CellInput label={`Name of node ${s.to}`} {...register('nodes.0.label')} />
-        </label>
-        <label className="flex flex-col text-xs font-semibold">
-          Continuous demand at the end ({p.units.flow})
-          <CellInput
-            label={`Continuous demand at node ${s.to} (${p.units.flow})`}
-            type="text"
-            inputMode="decimal"
-            autoComplete="off"
-            placeholder="none"
-            error={plainError(errors.nodes?.[0]?.continuousDemand?.message)}
-            {...register('nodes.0.continuousDemand', numberInput)}
           />
         </label>
       </div>
@@ -657,22 +704,7 @@ function SegmentDetail(p: DetailProps) {
           source={p.projectMaterialSource}
         />
       ) : null}
-      <div>
-        <p className="mb-1 text-sm font-semibold">Fixtures served at {nodeLabel}</p>
-        <FixtureGroups
-          index={0}
-          control={control as never}
-          register={register as never}
-          setValue={setValue as never}
-          rows={groups}
-          projectFixtures={p.projectFixtures}
-          catalog={p.catalog}
-          nodeLabel={nodeLabel}
-          errors={errors.nodes?.[0]?.fixtureGroups as never}
-          locked={lockedFixtures !== null}
-          units={p.units}
-        />
-      </div>
+      <NodeFields form={form as never} nodeId={s.to} where="end" policy={p.policy} catalog={p.catalog} projectFixtures={p.projectFixtures} units={p.units} />
       <div className="flex flex-wrap items-center gap-2">
         <Button variant="secondary" disabled={lockedTopology !== null} title={lockedTopology ?? undefined} onClick={() => p.onAddFrom(s.to)}>
           Add a segment from {nodeLabel}
@@ -745,53 +777,16 @@ function ConnectionNode({
     ],
   }));
   const form = useLiveForm(detailSchema, defaults, (v) => update((doc) => applyDetail(doc, v, projectFixtures)));
-  const {
-    register,
-    control,
-    setValue,
-    watch,
-    formState: { errors },
-  } = form;
-  const nodeLabel = watch('nodes.0.label') || id;
-  const groups = watch('nodes.0.fixtureGroups');
+  const nodeLabel = form.watch('nodes.0.label') || id;
+  const groups = form.watch('nodes.0.fixtureGroups');
   if (!node) return null;
   return (
     <details className="rounded-md border border-rule p-3" open={node.fixtureGroups.length > 0 || undefined} data-testid="connection-node">
       <summary className="cursor-pointer text-sm font-semibold">
         At the connection ({nodeLabel}): {groups?.length ? plural(groups.length, 'fixture group') : 'no fixtures'}
       </summary>
-      <div className="mt-3 flex flex-col gap-3">
-        <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
-          <label className="flex flex-col text-xs font-semibold">
-            Node name
-            <CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} />
-          </label>
-          <label className="flex flex-col text-xs font-semibold">
-            Continuous demand ({units.flow})
-            <CellInput
-              label={`Continuous demand at node ${id} (${units.flow})`}
-              type="text"
-              inputMode="decimal"
-              autoComplete="off"
-              placeholder="none"
-              error={plainError(errors.nodes?.[0]?.continuousDemand?.message)}
-              {...register('nodes.0.continuousDemand', numberInput)}
-            />
-          </label>
-        </div>
-        <FixtureGroups
-          index={0}
-          control={control as never}
-          register={register as never}
-          setValue={setValue as never}
-          rows={groups}
-          projectFixtures={projectFixtures}
-          catalog={catalog}
-          nodeLabel={nodeLabel}
-          errors={errors.nodes?.[0]?.fixtureGroups as never}
-          locked={policy.locked.fixtures !== null}
-          units={units}
-        />
+      <div className="mt-3">
+        <NodeFields form={form as never} nodeId={id} where="connection" policy={policy} catalog={catalog} projectFixtures={projectFixtures} units={units} />
       </div>
     </details>
   );
