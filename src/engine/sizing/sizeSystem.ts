@@ -57,7 +57,7 @@ import type { SystemDocument } from '../model/schema';
 import { frictionBudgetOfStages, type FrictionBudget } from './frictionBudget';
 import { lossCurveAt } from '../devices/lossCurve';
 import { toSI } from '../units';
-import { combine, prune, type ParetoPoint } from './pareto';
+import { combine, ParetoStore, prune } from './pareto';
 
 /** Repairs of the size-change losses the model leaves out (step 5). */
 const MAX_REPAIRS = 3;
@@ -643,51 +643,56 @@ function search(
   maxAbove: Float64Array,
   roots: number[],
 ): Map<number, number> | null {
-  const sets: ParetoPoint[][] = new Array(children.length);
+  const store = new ParetoStore(4 * children.length);
+  const sets: number[][] = new Array(children.length);
+  const none: number[] = [];
   for (let k = order.length - 1; k >= 0; k--) {
     const e = order[k];
     let need = -Infinity;
     for (const f of leafNeed[e]) need = Math.max(need, -slack[f]);
-    let acc: ParetoPoint[] = [{ cost: 0, need, choice: -1, seg: -1, parts: [] }];
+    let acc: number[] = [store.add(0, need, -1, -1, -1, -1)];
     for (const c of children[e]) {
-      acc = combine(acc, sets[c]);
-      sets[c] = [];
+      acc = combine(store, acc, sets[c]);
+      sets[c] = none;
     }
     const fr = free.get(e);
-    let own: ParetoPoint[];
+    let own: number[];
     if (!fr) own = acc;
     else {
       own = [];
-      fr.sizes.forEach((_, s) => {
-        for (const p of acc) own.push({ cost: p.cost + fr.volume[s], need: p.need + fr.deltaPa[s], choice: s, seg: e, parts: [p] });
-      });
-      own = prune(own);
+      for (let s = 0; s < fr.sizes.length; s++) {
+        for (const p of acc) own.push(store.add(store.cost[p] + fr.volume[s], store.need[p] + fr.deltaPa[s], e, s, p, -1));
+      }
+      own = prune(store, own);
     }
     // Closing at a cut (PRV or variable-speed booster): every fixture below must be met here.
+    // Points that no choice above can rescue are dropped; those every choice above keeps
+    // feasible become one point, the cheapest of them.
     const lo = cuts.has(e) ? 0 : minAbove[e];
     const hi = cuts.has(e) ? 0 : maxAbove[e];
-    const kept = own.filter((p) => p.need + lo <= 0);
-    const safe = kept.filter((p) => p.need + hi <= 0);
-    const rest = kept.filter((p) => p.need + hi > 0);
-    const out = rest.slice();
-    if (safe.length) {
-      const cheapest = safe.reduce((a, b) => (b.cost < a.cost ? b : a));
-      out.push({ cost: cheapest.cost, need: -Infinity, choice: -1, seg: -1, parts: [cheapest] });
+    const out: number[] = [];
+    let cheapestSafe = -1;
+    for (const p of own) {
+      if (!(store.need[p] + lo <= 0)) continue;
+      if (store.need[p] + hi > 0) out.push(p);
+      else if (cheapestSafe === -1 || store.cost[p] < store.cost[cheapestSafe]) cheapestSafe = p;
     }
+    if (cheapestSafe !== -1) out.push(store.add(store.cost[cheapestSafe], -Infinity, -1, -1, cheapestSafe, -1));
     if (out.length === 0) return null;
-    sets[e] = prune(out);
+    sets[e] = prune(store, out);
   }
-  let top: ParetoPoint[] = [{ cost: 0, need: -Infinity, choice: -1, seg: -1, parts: [] }];
-  for (const r of roots) top = combine(top, sets[r]);
-  const feasible = top.filter((p) => p.need <= 0);
-  if (!feasible.length) return null;
-  const best = feasible.reduce((a, b) => (b.cost < a.cost ? b : a));
+  let top: number[] = [store.add(0, -Infinity, -1, -1, -1, -1)];
+  for (const r of roots) top = combine(store, top, sets[r]);
+  let best = -1;
+  for (const p of top) if (store.need[p] <= 0 && (best === -1 || store.cost[p] < store.cost[best])) best = p;
+  if (best === -1) return null;
   const chosen = new Map<number, number>();
   const walk = [best];
   while (walk.length) {
     const p = walk.pop()!;
-    if (p.seg >= 0) chosen.set(p.seg, p.choice);
-    walk.push(...p.parts);
+    if (store.seg[p] >= 0) chosen.set(store.seg[p], store.choice[p]);
+    if (store.left[p] >= 0) walk.push(store.left[p]);
+    if (store.right[p] >= 0) walk.push(store.right[p]);
   }
   return chosen;
 }
