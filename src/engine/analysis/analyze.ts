@@ -64,6 +64,25 @@ export function analyzeWithStages(parsed: SystemDocument): { analysis: Analysis;
   return { analysis, stages: { model, topo, demand, hyd, checks } };
 }
 
+/**
+ * Only the stages that compute the numbers (input → topology → elevations → demand → hydraulics
+ * → checks), without the static checks, zones, report or notes: what the sizing reads of the
+ * analyses it runs to measure candidate sizes and to verify a sized document. The same stage
+ * functions as analyzeWithStages, in the same order, so the same numbers; the warnings they
+ * raise are dropped (the sized document is analysed in full when the designer opens it).
+ */
+export function analyzeHydraulics(parsed: SystemDocument): StageResults {
+  const model = buildModel(expandBuilding(parsed) as SystemDocument);
+  const topo = buildTopology(model);
+  borrowPipes(model, topo.order, topo.parentSeg);
+  const elev = resolveElevations(model, topo);
+  const warnings: EngineWarning[] = [];
+  const demand = computeDemand(model, topo, warnings);
+  const hyd = computeHydraulics(model, topo, demand, elev, warnings);
+  const checks = runChecks(model, hyd, warnings);
+  return { model, topo, demand, hyd, checks };
+}
+
 export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };
 
 /** Like analyzeSystem, but returns the structured error instead of throwing it. */

@@ -46,7 +46,7 @@
  * Scope: the segments of the main tree that have a catalog material and size. Segments inside
  * typical units (placements) and custom pipes keep their size (they are sized in the unit type).
  */
-import { analyzeWithStages } from '../analysis/analyze';
+import { analyzeHydraulics, analyzeWithStages } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
 import type { StageResults } from '../analysis/results';
 import type { Analysis } from '../analysis/types';
@@ -175,21 +175,20 @@ interface Free {
   sizes: string[];
   /** ΔL per allowed size, Pa (loss at that size − loss at the current size). */
   deltaPa: number[];
+  /** The least and the most of deltaPa. */
+  minDeltaPa: number;
+  maxDeltaPa: number;
   volume: number[];
   velocityMet: boolean;
   /** The velocity limit ruled out at least one smaller allowed size. */
   velocityRemoved: boolean;
 }
 
-/**
- * What the sizing reads of one analysis: the stage arrays (results.ts builds its result objects
+/*
+ * What the sizing reads of an analysis are its stage arrays (results.ts builds its result objects
  * from the same arrays), so that reading every segment of a large building many times builds no
  * object per segment. Pressures in Pa, flows in m³/s, lengths in m: the SI results' own numbers.
  */
-interface Run {
-  analysis: Analysis;
-  stages: StageResults;
-}
 
 /** A checked fixture as the search reads it (SI), with its path of segment indices from the source. */
 interface FixtureRow {
@@ -242,14 +241,17 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   let analyses = 0;
   let analysesMs = 0;
   let searchMs = 0;
-  const run = (d: SystemDocument): Run => {
+  const timed = <T>(analyse: (d: SystemDocument) => T, d: SystemDocument): T => {
     analyses++;
     const t0 = performance.now();
-    const r = analyzeWithStages(d);
+    const r = analyse(d);
     analysesMs += performance.now() - t0;
     return r;
   };
-  const { analysis: base, stages: baseStages } = run(doc);
+  // The base analysis in full (its verdict, criteria and critical fixture); the probes and the
+  // verifications need only the computed numbers (analyzeHydraulics: the same stages, no report).
+  const run = (d: SystemDocument): StageResults => timed(analyzeHydraulics, d);
+  const { analysis: base, stages: baseStages } = timed(analyzeWithStages, doc);
   if (base.verdict.status === 'incomplete') {
     const first = base.verdict.incomplete[0];
     throw new SizingError(
@@ -274,6 +276,12 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
 
   // Which segments may change, and their candidate sizes (ascending inside diameter).
   const hasData = fittingDataCache();
+  const sortedSizes = new Map<MaterialId, CatalogSize[]>();
+  const bySizeAscending = (m: MaterialId) => {
+    let sizes = sortedSizes.get(m);
+    if (!sizes) sortedSizes.set(m, (sizes = [...MATERIALS[m].sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM)));
+    return sizes;
+  };
   const candidates = new Map<number, { docIndex: number; material: MaterialId; sizes: string[] }>();
   for (const [docIndex, s] of doc.segments.entries()) {
     if (locked.has(s.id) || (selected && !selected.has(s.id)) || !s.material || !s.size || s.custom) continue;
@@ -289,11 +297,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     const floorSize = s.minSize === undefined ? undefined : material.sizes.find((z) => z.key === s.minSize);
     if (s.minSize !== undefined && !floorSize)
       throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
-    const sizes = [...material.sizes]
-      .filter((z) => (!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM))
-      .filter((z) => hasData(s, z))
-      .sort((a, b) => a.innerDiameterM - b.innerDiameterM)
-      .map((z) => z.key);
+    const sizes: string[] = [];
+    for (const z of bySizeAscending(material.id)) {
+      if ((!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM) && hasData(s, z)) sizes.push(z.key);
+    }
     const index = segIndex.get(s.id);
     if (index !== undefined && sizes.length > 0) candidates.set(index, { docIndex, material: material.id, sizes });
   }
@@ -344,7 +351,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   }
   for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
     const batch = jobs.slice(from, from + PROBE_SEGMENTS);
-    const probe = run(probeDocument(doc, batch)).stages;
+    const probe = run(probeDocument(doc, batch));
     // The probe document holds no typical units: its segments are analysed in document order.
     batch.forEach((job, t) => {
       if (probe.model.seg.id[t] !== probeId(doc.segments[job.docIndex].id, job.k)) throw new Error('engine defect: a probe segment out of document order');
@@ -354,6 +361,12 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     });
   }
 
+  const diameterMaps = new Map<MaterialId, Map<string, number>>();
+  const diameters = (m: MaterialId) => {
+    let d = diameterMaps.get(m);
+    if (!d) diameterMaps.set(m, (d = innerDiameters(m)));
+    return d;
+  };
   const free = new Map<number, Free>();
   for (const [index, c] of candidates) {
     const limit = checks.velocityLimitMs[index];
@@ -363,13 +376,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     const velocityMet = ok.length > 0;
     if (!velocityMet) ok = rows.slice(-1);
     const length = model.seg.lengthM[index];
-    const diameter = innerDiameters(c.material);
+    const diameter = diameters(c.material);
+    const deltaPa = ok.map((r) => r.loss - baseLoss[index]);
     free.set(index, {
       index,
       docIndex: c.docIndex,
       material: c.material,
       sizes: ok.map((r) => r.key),
-      deltaPa: ok.map((r) => r.loss - baseLoss[index]),
+      deltaPa,
+      minDeltaPa: Math.min(...deltaPa),
+      maxDeltaPa: Math.max(...deltaPa),
       volume: ok.map((r) => {
         const d = diameter.get(r.key)!;
         return (length * Math.PI * d * d) / 4;
@@ -387,7 +403,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (parentOf[i] === -1) roots.push(i);
     else children[parentOf[i]].push(i);
   }
-  const minDelta = (e: number) => Math.min(...free.get(e)!.deltaPa);
+  const minDelta = (e: number) => free.get(e)!.minDeltaPa;
   const velocityDelta = (e: number) => free.get(e)!.deltaPa[0];
   /** Segment indices from the source down to e (inclusive). */
   const pathTo = (e: number): number[] => {
@@ -447,7 +463,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       afterPa: after ? (after.checks.fixtures[i]?.marginPa ?? null) : null,
     }));
   const volumeBefore = [...free.values()].reduce((sum, fr) => {
-    const d = innerDiameters(fr.material).get(doc.segments[fr.docIndex].size!)!;
+    const d = diameters(fr.material).get(doc.segments[fr.docIndex].size!)!;
     return sum + (model.seg.lengthM[fr.index] * Math.PI * d * d) / 4;
   }, 0);
   const describeInput = { doc, base: baseStages, segIndex, free, locked, selected, fixtures };
@@ -493,8 +509,8 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     for (const c of children[e]) {
       const fr = free.get(e);
       const own = cuts.has(c) ? null : e;
-      minAbove[c] = own === null ? 0 : minAbove[e] + (fr ? Math.min(...fr.deltaPa) : 0);
-      maxAbove[c] = own === null ? 0 : maxAbove[e] + (fr ? Math.max(...fr.deltaPa) : 0);
+      minAbove[c] = own === null ? 0 : minAbove[e] + (fr ? fr.minDeltaPa : 0);
+      maxAbove[c] = own === null ? 0 : maxAbove[e] + (fr ? fr.maxDeltaPa : 0);
       stack.push(c);
     }
   }
@@ -520,7 +536,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     if (!best) break;
     chosen = best;
     sized = withSizes(doc, free, chosen);
-    after = run(sized).stages;
+    after = run(sized);
     const nextAdjust = Float64Array.from(adjust);
     let repaired = false;
     // Predicted extra loss on each constraint's path (what the search counted) against the drop
@@ -789,7 +805,7 @@ function withSizes(doc: SystemDocument, free: Map<number, Free>, chosen: Map<num
   const segments = doc.segments.slice();
   for (const [e, k] of chosen) {
     const fr = free.get(e)!;
-    segments[fr.docIndex] = { ...segments[fr.docIndex], size: fr.sizes[k] };
+    if (segments[fr.docIndex].size !== fr.sizes[k]) segments[fr.docIndex] = { ...segments[fr.docIndex], size: fr.sizes[k] };
   }
   return { ...doc, segments };
 }
@@ -825,7 +841,10 @@ function describe({ doc, base, segIndex, free, locked, selected, chosen, governi
     const before = s.size ?? null;
     const w = e === undefined ? undefined : worst.get(e);
     const velocityPass = e === undefined ? undefined : base.checks.velocityPass[e];
-    const result = {
+    const isFree = fr !== undefined && !locked.has(s.id) && !(selected && !selected.has(s.id));
+    const k = isFree ? (chosen?.get(e!) ?? 0) : 0;
+    const g = isFree && k > 0 ? governing.get(e!) : undefined;
+    return {
       segmentId: s.id,
       label: s.label ?? null,
       material: s.material ?? null,
@@ -842,17 +861,17 @@ function describe({ doc, base, segIndex, free, locked, selected, chosen, governi
               marginBeforePa: fixtures[w].margin,
               marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
             },
-    };
-    if (locked.has(s.id)) return { ...result, after: before, governing: 'locked' as const, velocityMet: velocityPass !== false };
-    if (!fr || (selected && !selected.has(s.id))) return { ...result, after: before, governing: 'unchanged' as const, velocityMet: velocityPass !== false };
-    const k = chosen?.get(e!) ?? 0;
-    const g = k > 0 ? governing.get(e!) : undefined;
-    return {
-      ...result,
-      after: chosen ? fr.sizes[k] : before,
-      governing:
-        g !== undefined ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label } : fr.velocityRemoved ? ('velocity' as const) : ('smallest' as const),
-      velocityMet: fr.velocityMet,
+      after: isFree && chosen ? fr.sizes[k] : before,
+      governing: locked.has(s.id)
+        ? 'locked'
+        : !isFree
+          ? 'unchanged'
+          : g !== undefined
+            ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label }
+            : fr.velocityRemoved
+              ? 'velocity'
+              : 'smallest',
+      velocityMet: isFree ? fr.velocityMet : velocityPass !== false,
     };
   });
 }
