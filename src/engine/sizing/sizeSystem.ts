@@ -39,12 +39,12 @@
  *      if the verification finds a fixture short, its slack is reduced by the loss the search did
  *      not count on its path (or the shortfall, whichever asks more; times REPAIR_FACTOR) and step 4 repeats (at most MAX_REPAIRS times); the answer is
  *      then a safe, not necessarily the least, choice where sizes change along a path.
- * Cost: one full analysis (the base), one small probe analysis, and one or two verifications; the
- * probes and verifications run only the stages that compute the numbers (analyzeHydraulics), and
- * every step reads the analyses' stage arrays, never building a result object per segment.
  * On a tree without size-change losses the answer is therefore the exact minimum (proved by the
  * exhaustive-search test in tests/engine/sizing). When no choice passes, the result says by how
  * much (every free segment at its largest size) and what a booster at the source must add.
+ * Cost: one full analysis (the base), one small probe analysis, and one or two verifications; the
+ * probes and verifications run only the stages that compute the numbers (analyzeHydraulics), and
+ * every step reads the analyses' stage arrays, never building a result object per segment.
  *
  * Scope: the segments of the main tree that have a catalog material and size. Segments inside
  * typical units (placements) and custom pipes keep their size (they are sized in the unit type).
