@@ -334,13 +334,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const flowOf = (s: number) => demand.designFlowM3s[s] / flowUnit;
   // Segments alike in everything a probe measures (material, allowed sizes, length, fittings,
   // design flow) lose alike: one probe serves them all (a building's typical floors repeat).
-  const representative = new Map<string, number>();
+  // Keyed by the numbers and names; the fittings (a list of objects) are compared as values.
+  const representatives = new Map<string, number[]>();
   const probeOf = new Map<number, number>();
   for (const [index, c] of candidates) {
     const s = doc.segments[c.docIndex];
-    const key = `${s.material}|${c.sizes.join(',')}|${s.length}|${flowOf(index)}|${JSON.stringify(s.fittings)}`;
-    let rep = representative.get(key);
-    if (rep === undefined) representative.set(key, (rep = index));
+    const key = `${s.material}|${c.sizes.join(',')}|${s.length}|${flowOf(index)}`;
+    let reps = representatives.get(key);
+    if (!reps) representatives.set(key, (reps = []));
+    let rep = reps.find((r) => sameValue(doc.segments[candidates.get(r)!.docIndex].fittings, s.fittings));
+    if (rep === undefined) reps.push((rep = index));
     probeOf.set(index, rep);
   }
   // Each representative's sizes are measured by one twin each: its loss and velocity per size.
@@ -601,6 +604,19 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     analyses,
     timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
   };
+}
+
+/** Whether two plain data values (a segment's fittings) are equal as JSON would write them. */
+function sameValue(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return JSON.stringify(a) === JSON.stringify(b);
+  if (Array.isArray(a) || Array.isArray(b)) {
+    if (!Array.isArray(a) || !Array.isArray(b) || a.length !== b.length) return false;
+    return a.every((x, i) => sameValue(x, b[i]));
+  }
+  const ka = Object.keys(a).filter((k) => (a as Record<string, unknown>)[k] !== undefined);
+  const kb = Object.keys(b).filter((k) => (b as Record<string, unknown>)[k] !== undefined);
+  return ka.length === kb.length && ka.every((k, i) => k === kb[i] && sameValue((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));
 }
 
 /** Inside diameter of each catalog size of a material, by size key, m. */
