@@ -4,7 +4,7 @@
  * here), the worst-case static results, and the names of the elements a warning is about.
  * Pure functions over the stored document and analysis; summaryPdf.ts only draws what they return.
  */
-import { verdictStatus, type Analysis, type StaticChecks, type SystemDocument } from '../../src/engine';
+import { groupWarnings, verdictStatus, type Analysis, type StaticChecks, type SystemDocument } from '../../src/engine';
 import { FIXTURE_TYPES } from '../../src/engine/catalog/fixtures';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
@@ -240,18 +240,11 @@ export function fedFromText(doc: SystemDocument, pressureUnit: string): string |
   return `the cold-water system "${r.systemName}" at ${r.nodeLabel}, its revision ${r.revisionNumber} (${r.revisionStatus}): residual ${p(r.residualPressure)} at its design flow, high static ${p(r.staticPressureHigh)}. The water heater's loss is its device's, under Devices.`;
 }
 
-/** Warnings as the summary lists them: the same kind and words on several elements make one row naming them (up to 8, then a count). */
+/** Warnings as the summary lists them: the same kind and words on several elements make one row naming them (up to 8, then a count); the grouping is the screens' too (groupWarnings). */
 export function groupedWarningRows(a: Analysis, doc: SystemDocument): { severity: EngineWarning['severity']; what: string; where: string }[] {
-  const groups = new Map<string, { severity: EngineWarning['severity']; what: string; wheres: string[] }>();
-  for (const w of a.warnings) {
-    const what = w.detail ? `${w.message} (${w.detail})` : w.message;
-    const key = `${w.severity}\u0000${w.code}\u0000${what}`;
-    const g = groups.get(key) ?? { severity: w.severity, what, wheres: [] };
-    g.wheres.push(warningWhere(w, a, doc));
-    groups.set(key, g);
-  }
+  const groups = groupWarnings(a.warnings, (w) => warningWhere(w, a, doc));
   const SHOWN = 8;
-  return [...groups.values()].map((g) => ({
+  return groups.map((g) => ({
     severity: g.severity,
     what: g.what,
     where:

@@ -54,6 +54,7 @@ export { upgradeDocument, upgradeDocumentWithReport, type RiseConflictRule, type
 export { SystemDocumentSchemaV1, SCHEMA_VERSION_V1, type SystemDocumentV1 } from './model/schemaV1';
 export { EngineInputError, ERROR_CODES, isEngineInputError, type ErrorCode, type EngineInputErrorJSON, type EngineIssue } from './errors';
 export { WARNING_CODES, type WarningCode, type EngineWarning, type WarningSeverity } from './warnings';
+export { groupWarnings, type WarningGroup } from './warningGroups';
 export {
   LIMITS,
   FIELD_QUANTITIES,

@@ -20,6 +20,7 @@ import { computeHydraulics } from './hydraulics';
 import { runChecks } from './checks';
 import { assembleReport } from './report';
 import { computeZones } from './zones';
+import type { StageResults } from './results';
 import type { Analysis } from './types';
 import type { SystemDocument } from '../model/schema';
 
@@ -32,6 +33,15 @@ export function analyzeSystem(doc: unknown): Analysis {
  * what the live client re-runs on every edit. Catalog, reference and topology checks still run.
  */
 export function analyzeValidated(parsed: SystemDocument): Analysis {
+  return analyzeWithStages(parsed).analysis;
+}
+
+/**
+ * The same analysis, with the stage arrays its result objects are read from (results.ts): for a
+ * caller that reads every segment's numbers many times over (the sizing) without building the
+ * 20,000 result objects of a large building. The numbers are the same ones, not a second computation.
+ */
+export function analyzeWithStages(parsed: SystemDocument): { analysis: Analysis; stages: StageResults } {
   // Typical units placed on floors become ordinary nodes and segments first (building/expand.ts).
   const model = buildModel(expandBuilding(parsed) as SystemDocument);
   const topo = buildTopology(model);
@@ -51,7 +61,26 @@ export function analyzeValidated(parsed: SystemDocument): Analysis {
   const analysis = assembleReport(model, topo, demand, hyd, checks, elev, stat, warnings);
   analysis.zones = computeZones(model, topo, hyd, checks, analysis.verdict.incomplete);
   addRecirculation(analysis, model.doc, model.criteria);
-  return analysis;
+  return { analysis, stages: { model, topo, demand, hyd, checks } };
+}
+
+/**
+ * Only the stages that compute the numbers (input → topology → elevations → demand → hydraulics
+ * → checks), without the static checks, zones, report or notes: what the sizing reads of the
+ * analyses it runs to measure candidate sizes and to verify a sized document. The same stage
+ * functions as analyzeWithStages, in the same order, so the same numbers; the warnings they
+ * raise are dropped (the sized document is analysed in full when the designer opens it).
+ */
+export function analyzeHydraulics(parsed: SystemDocument): StageResults {
+  const model = buildModel(expandBuilding(parsed) as SystemDocument);
+  const topo = buildTopology(model);
+  borrowPipes(model, topo.order, topo.parentSeg);
+  const elev = resolveElevations(model, topo);
+  const warnings: EngineWarning[] = [];
+  const demand = computeDemand(model, topo, warnings);
+  const hyd = computeHydraulics(model, topo, demand, elev, warnings);
+  const checks = runChecks(model, hyd, warnings);
+  return { model, topo, demand, hyd, checks };
 }
 
 export type SafeAnalysis = { ok: true; analysis: Analysis } | { ok: false; error: EngineInputError };

@@ -21,6 +21,7 @@
  * SI inside: pressures Pa, lengths m, density kg/m³. A budget per 100 ft is returned in Pa per
  * 30.48 m (100 ft, exact by the definition of the foot).
  */
+import type { StageResults } from '../analysis/results';
 import type { Analysis } from '../analysis/types';
 import { G, M_PER_FT } from '../units';
 
@@ -77,6 +78,17 @@ export interface FrictionBudget {
   perHundredFtPa: number | null;
 }
 
+/** One segment's terms on the path, SI (a segment result, or the same numbers read from the stage arrays). */
+interface PathSegment {
+  frictionLoss: number;
+  fittingLoss: number;
+  riseLoss: number;
+  length: number;
+  frictionFactor: number;
+  totalK: number;
+  innerDiameter: number;
+}
+
 /**
  * The budget for the critical fixture of an analysis, from its SI results: the supply at the
  * design flow, the device and elevation terms on the fixture's path, and the lengths. Every term
@@ -87,19 +99,58 @@ export function frictionBudgetOf(analysis: Analysis, marginPa = 0): FrictionBudg
   const fixture = si.fixtures.find((f) => f.id === analysis.criticalFixtureId);
   if (!fixture) return null;
   const byId = new Map(si.segments.map((s) => [s.id, s]));
+  const path: PathSegment[] = [];
+  for (const id of fixture.path) {
+    const s = byId.get(id);
+    if (s) path.push(s);
+  }
+  return budgetOnPath(si.source.pressureAtDesignFlow, fixture, path, marginPa);
+}
+
+/**
+ * The same budget read from the stage arrays of the same analysis (the sizing reads these, so
+ * that no result object is built for a large building): the same numbers in the same order.
+ */
+export function frictionBudgetOfStages(analysis: Analysis, stages: StageResults, marginPa = 0): FrictionBudget | null {
+  const { model, topo, hyd, checks } = stages;
+  const k = model.fixtures.findIndex((f) => f.id === analysis.criticalFixtureId);
+  if (k === -1) return null;
+  const fx = model.fixtures[k];
+  const path: PathSegment[] = [];
+  for (let n = fx.nodeIdx; topo.feedSeg[n] !== -1; n = model.seg.from[topo.feedSeg[n]]) {
+    const s = topo.feedSeg[n];
+    path.push({
+      frictionLoss: hyd.frictionLossPa[s],
+      fittingLoss: hyd.fittingLossPa[s],
+      riseLoss: hyd.riseLossPa[s],
+      length: model.seg.lengthM[s],
+      frictionFactor: hyd.frictionFactor[s],
+      totalK: hyd.fittingsK[s] + hyd.sizeChangeK[s],
+      innerDiameter: model.seg.innerDiameterM[s],
+    });
+  }
+  path.reverse();
+  const fixture = { id: fx.id, label: fx.label, residual: checks.fixtures[k].residualPa, required: fx.requiredPa };
+  return budgetOnPath(hyd.source.pressurePa, fixture, path, marginPa);
+}
+
+/** The budget's terms summed from the source down the fixture's path. */
+function budgetOnPath(
+  supply: number,
+  fixture: { id: string; label: string; residual: number; required: number },
+  path: readonly PathSegment[],
+  marginPa: number,
+): FrictionBudget {
   let friction = 0;
   let elevation = 0;
   let developed = 0;
   let equivalent = 0;
-  for (const id of fixture.path) {
-    const s = byId.get(id);
-    if (!s) continue;
+  for (const s of path) {
     friction += s.frictionLoss + s.fittingLoss;
     elevation += s.riseLoss;
     developed += s.length;
     if (s.frictionFactor > 0) equivalent += (s.totalK * s.innerDiameter) / s.frictionFactor;
   }
-  const supply = si.source.pressureAtDesignFlow;
   const devices = supply - elevation - friction - fixture.residual;
   const available = supply - devices - elevation - fixture.required - marginPa;
   return {

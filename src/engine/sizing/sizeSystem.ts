@@ -42,21 +42,24 @@
  * On a tree without size-change losses the answer is therefore the exact minimum (proved by the
  * exhaustive-search test in tests/engine/sizing). When no choice passes, the result says by how
  * much (every free segment at its largest size) and what a booster at the source must add.
+ * Cost: one full analysis (the base), one small probe analysis, and one or two verifications; the
+ * probes and verifications run only the stages that compute the numbers (analyzeHydraulics), and
+ * every step reads the analyses' stage arrays, never building a result object per segment.
  *
  * Scope: the segments of the main tree that have a catalog material and size. Segments inside
  * typical units (placements) and custom pipes keep their size (they are sized in the unit type).
  */
-import { analyzeValidated } from '../analysis/analyze';
+import { analyzeHydraulics, analyzeWithStages } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
-import type { Analysis } from '../analysis/types';
+import type { StageResults } from '../analysis/results';
 import { MATERIALS, type MaterialId } from '../catalog/materials';
 import { fittingKOfEntry } from '../fittings/fittingK';
 import { FITTING_TYPES } from '../fittings/types';
 import type { SystemDocument } from '../model/schema';
-import { frictionBudgetOf, type FrictionBudget } from './frictionBudget';
+import { frictionBudgetOfStages, type FrictionBudget } from './frictionBudget';
 import { lossCurveAt } from '../devices/lossCurve';
 import { toSI } from '../units';
-import { combine, prune, type ParetoPoint } from './pareto';
+import { combine, ParetoStore, prune } from './pareto';
 
 /** Repairs of the size-change losses the model leaves out (step 5). */
 const MAX_REPAIRS = 3;
@@ -174,10 +177,57 @@ interface Free {
   sizes: string[];
   /** ΔL per allowed size, Pa (loss at that size − loss at the current size). */
   deltaPa: number[];
+  /** The least and the most of deltaPa. */
+  minDeltaPa: number;
+  maxDeltaPa: number;
   volume: number[];
   velocityMet: boolean;
   /** The velocity limit ruled out at least one smaller allowed size. */
   velocityRemoved: boolean;
+}
+
+/*
+ * What the sizing reads of an analysis are its stage arrays (results.ts builds its result objects
+ * from the same arrays), so that reading every segment of a large building many times builds no
+ * object per segment. Pressures in Pa, flows in m³/s, lengths in m: the SI results' own numbers.
+ */
+
+/** A checked fixture as the search reads it (SI), with its path of segment indices from the source. */
+interface FixtureRow {
+  id: string;
+  label: string;
+  residual: number;
+  required: number;
+  margin: number;
+  /** Segment indices from the source down to the fixture's node. */
+  path: number[];
+  /** The segment feeding the fixture's node (−1 at the source). */
+  feed: number;
+}
+
+/** Segment indices from the source down to node n (the path results.ts names by id, same order). */
+function pathToNode(stages: StageResults, n: number): number[] {
+  const { topo, model } = stages;
+  const path: number[] = [];
+  while (topo.feedSeg[n] !== -1) {
+    const s = topo.feedSeg[n];
+    path.push(s);
+    n = model.seg.from[s];
+  }
+  return path.reverse();
+}
+
+function fixtureRows(stages: StageResults): FixtureRow[] {
+  const { model, checks, topo } = stages;
+  return model.fixtures.map((fx, k) => ({
+    id: fx.id,
+    label: fx.label,
+    residual: checks.fixtures[k].residualPa,
+    required: fx.requiredPa,
+    margin: checks.fixtures[k].marginPa,
+    path: pathToNode(stages, fx.nodeIdx),
+    feed: topo.feedSeg[fx.nodeIdx],
+  }));
 }
 
 export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingResult {
@@ -193,14 +243,17 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   let analyses = 0;
   let analysesMs = 0;
   let searchMs = 0;
-  const run = (d: SystemDocument): Analysis => {
+  const timed = <T>(analyse: (d: SystemDocument) => T, d: SystemDocument): T => {
     analyses++;
     const t0 = performance.now();
-    const a = analyzeValidated(d);
+    const r = analyse(d);
     analysesMs += performance.now() - t0;
-    return a;
+    return r;
   };
-  const base = run(doc);
+  // The base analysis in full (its verdict, criteria and critical fixture); the probes and the
+  // verifications need only the computed numbers (analyzeHydraulics: the same stages, no report).
+  const run = (d: SystemDocument): StageResults => timed(analyzeHydraulics, d);
+  const { analysis: base, stages: baseStages } = timed(analyzeWithStages, doc);
   if (base.verdict.status === 'incomplete') {
     const first = base.verdict.incomplete[0];
     throw new SizingError(
@@ -209,9 +262,11 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       first?.elementId ?? null,
     );
   }
-  const segs = base.si.segments;
-  const segIndex = new Map(segs.map((s, i) => [s.id, i]));
-  const budget = frictionBudgetOf(base, marginPa);
+  const { model, topo, hyd, checks, demand } = baseStages;
+  const segCount = model.seg.count;
+  const segIndex = new Map(model.seg.id.map((id, i) => [id, i]));
+  const parentOf = topo.parentSeg;
+  const budget = frictionBudgetOfStages(base, baseStages, marginPa);
   const conditions: SizingConditions = {
     supplyPressurePa: base.si.source.pressureAtDesignFlow,
     velocityLimits: base.criteria.velocityLimits
@@ -222,6 +277,13 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
   // Which segments may change, and their candidate sizes (ascending inside diameter).
+  const hasData = fittingDataCache();
+  const sortedSizes = new Map<MaterialId, CatalogSize[]>();
+  const bySizeAscending = (m: MaterialId) => {
+    let sizes = sortedSizes.get(m);
+    if (!sizes) sortedSizes.set(m, (sizes = [...MATERIALS[m].sizes].sort((a, b) => a.innerDiameterM - b.innerDiameterM)));
+    return sizes;
+  };
   const candidates = new Map<number, { docIndex: number; material: MaterialId; sizes: string[] }>();
   for (const [docIndex, s] of doc.segments.entries()) {
     if (locked.has(s.id) || (selected && !selected.has(s.id)) || !s.material || !s.size || s.custom) continue;
@@ -237,11 +299,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     const floorSize = s.minSize === undefined ? undefined : material.sizes.find((z) => z.key === s.minSize);
     if (s.minSize !== undefined && !floorSize)
       throw new SizingError('unknown-size', `Smallest size "${s.minSize}" is not a size of ${material.label} (segment "${s.label ?? s.id}").`, s.id);
-    const sizes = [...material.sizes]
-      .filter((z) => (!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM))
-      .filter((z) => fittingsHaveData(s, z))
-      .sort((a, b) => a.innerDiameterM - b.innerDiameterM)
-      .map((z) => z.key);
+    const sizes: string[] = [];
+    for (const z of bySizeAscending(material.id)) {
+      if ((!allowed || allowed.includes(z.key)) && (!floorSize || z.innerDiameterM >= floorSize.innerDiameterM) && hasData(s, z)) sizes.push(z.key);
+    }
     const index = segIndex.get(s.id);
     if (index !== undefined && sizes.length > 0) candidates.set(index, { docIndex, material: material.id, sizes });
   }
@@ -263,52 +324,75 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   }
 
   // Step 2: probes. Loss at the current size, without the size-change part (the model leaves it out).
-  const baseLoss = segs.map((s) => s.frictionLoss + (s.totalK > 0 ? (s.fittingLoss * s.fittingsK) / s.totalK : 0));
-  const probeLoss = new Map<string, number>();
-  const probeVelocity = new Map<string, number>();
+  const baseLoss = new Float64Array(segCount);
+  for (let s = 0; s < segCount; s++) {
+    const totalK = hyd.fittingsK[s] + hyd.sizeChangeK[s];
+    baseLoss[s] = hyd.frictionLossPa[s] + (totalK > 0 ? (hyd.fittingLossPa[s] * hyd.fittingsK[s]) / totalK : 0);
+  }
+  // The design flow in the document's units, as the probe documents carry it (flowOverride).
+  const flowUnit = toSI('flow', 1, doc.unitSystem);
+  const flowOf = (s: number) => demand.designFlowM3s[s] / flowUnit;
   // Segments alike in everything a probe measures (material, allowed sizes, length, fittings,
   // design flow) lose alike: one probe serves them all (a building's typical floors repeat).
-  const flowOf = new Map(base.segments.map((s) => [s.id, s.designFlow]));
-  const representative = new Map<string, number>();
+  // Keyed by the numbers and names; the fittings (a list of objects) are compared as values.
+  const representatives = new Map<string, number[]>();
   const probeOf = new Map<number, number>();
   for (const [index, c] of candidates) {
     const s = doc.segments[c.docIndex];
-    const key = JSON.stringify([s.material, c.sizes, s.length, s.fittings, flowOf.get(s.id)]);
-    if (!representative.has(key)) representative.set(key, c.docIndex);
-    probeOf.set(index, representative.get(key)!);
+    const key = `${s.material}|${c.sizes.join(',')}|${s.length}|${flowOf(index)}`;
+    let reps = representatives.get(key);
+    if (!reps) representatives.set(key, (reps = []));
+    let rep = reps.find((r) => sameValue(doc.segments[candidates.get(r)!.docIndex].fittings, s.fittings));
+    if (rep === undefined) reps.push((rep = index));
+    probeOf.set(index, rep);
   }
-  const jobs = [...new Set(probeOf.values())].flatMap((docIndex) => {
-    const c = candidates.get(segIndex.get(doc.segments[docIndex].id)!)!;
-    return c.sizes.map((size, k) => ({ docIndex, size, k }));
-  });
+  // Each representative's sizes are measured by one twin each: its loss and velocity per size.
+  const measured = new Map<number, { loss: Float64Array; velocity: Float64Array }>();
+  const jobs: { docIndex: number; size: string; flow: number; rep: number; k: number }[] = [];
+  for (const rep of new Set(probeOf.values())) {
+    const c = candidates.get(rep)!;
+    measured.set(rep, { loss: new Float64Array(c.sizes.length), velocity: new Float64Array(c.sizes.length) });
+    c.sizes.forEach((size, k) => jobs.push({ docIndex: c.docIndex, size, flow: flowOf(rep), rep, k }));
+  }
   for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
-    const r = run(probeDocument(doc, base, jobs.slice(from, from + PROBE_SEGMENTS))).si.segments;
-    for (const s of r) {
-      probeLoss.set(s.id, s.frictionLoss + s.fittingLoss);
-      probeVelocity.set(s.id, s.velocity);
-    }
+    const batch = jobs.slice(from, from + PROBE_SEGMENTS);
+    const probe = run(probeDocument(doc, batch));
+    // The probe document holds no typical units: its segments are analysed in document order.
+    batch.forEach((job, t) => {
+      if (probe.model.seg.id[t] !== probeId(doc.segments[job.docIndex].id, job.k)) throw new Error('engine defect: a probe segment out of document order');
+      const m = measured.get(job.rep)!;
+      m.loss[job.k] = probe.hyd.frictionLossPa[t] + probe.hyd.fittingLossPa[t];
+      m.velocity[job.k] = probe.hyd.velocity[t];
+    });
   }
 
+  const diameterMaps = new Map<MaterialId, Map<string, number>>();
+  const diameters = (m: MaterialId) => {
+    let d = diameterMaps.get(m);
+    if (!d) diameterMaps.set(m, (d = innerDiameters(m)));
+    return d;
+  };
   const free = new Map<number, Free>();
   for (const [index, c] of candidates) {
-    const limit = segs[index].velocityLimit;
-    const rows = c.sizes.map((key, k) => {
-      const id = probeId(doc.segments[probeOf.get(index)!].id, k);
-      return { key, loss: probeLoss.get(id)!, velocity: probeVelocity.get(id)! };
-    });
+    const limit = checks.velocityLimitMs[index];
+    const m = measured.get(probeOf.get(index)!)!;
+    const rows = c.sizes.map((key, k) => ({ key, loss: m.loss[k], velocity: m.velocity[k] }));
     let ok = rows.filter((r) => limit === null || r.velocity <= limit * (1 + VELOCITY_RTOL));
     const velocityMet = ok.length > 0;
     if (!velocityMet) ok = rows.slice(-1);
-    const length = segs[index].length;
-    const material = MATERIALS[c.material];
+    const length = model.seg.lengthM[index];
+    const diameter = diameters(c.material);
+    const deltaPa = ok.map((r) => r.loss - baseLoss[index]);
     free.set(index, {
       index,
       docIndex: c.docIndex,
       material: c.material,
       sizes: ok.map((r) => r.key),
-      deltaPa: ok.map((r) => r.loss - baseLoss[index]),
+      deltaPa,
+      minDeltaPa: Math.min(...deltaPa),
+      maxDeltaPa: Math.max(...deltaPa),
       volume: ok.map((r) => {
-        const d = material.sizes.find((z) => z.key === r.key)!.innerDiameterM;
+        const d = diameter.get(r.key)!;
         return (length * Math.PI * d * d) / 4;
       }),
       velocityMet,
@@ -317,21 +401,19 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   }
 
   // Step 3: one constraint per checked fixture (slack_f), attached to its node's feed segment.
-  const nodeFeed = new Map(base.si.nodes.map((n) => [n.id, n.feedSegmentId]));
-  const fixtures = base.si.fixtures;
-  const children: number[][] = segs.map(() => []);
+  const fixtures = fixtureRows(baseStages);
+  const children: number[][] = Array.from({ length: segCount }, () => []);
   const roots: number[] = [];
-  segs.forEach((s, i) => {
-    const p = s.parentSegmentId === null ? undefined : segIndex.get(s.parentSegmentId);
-    if (p === undefined) roots.push(i);
-    else children[p].push(i);
-  });
-  const minDelta = (e: number) => Math.min(...free.get(e)!.deltaPa);
+  for (let i = 0; i < segCount; i++) {
+    if (parentOf[i] === -1) roots.push(i);
+    else children[parentOf[i]].push(i);
+  }
+  const minDelta = (e: number) => free.get(e)!.minDeltaPa;
   const velocityDelta = (e: number) => free.get(e)!.deltaPa[0];
   /** Segment indices from the source down to e (inclusive). */
   const pathTo = (e: number): number[] => {
     const out: number[] = [];
-    for (let k: number | undefined = e; k !== undefined; k = segs[k].parentSegmentId === null ? undefined : segIndex.get(segs[k].parentSegmentId!)) out.push(k);
+    for (let k = e; k !== -1; k = parentOf[k]) out.push(k);
     return out.reverse();
   };
 
@@ -341,7 +423,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   // does not hold now, or cannot at any size, is no cut. A variable-speed booster holds at least
   // its set pressure at any inlet; when it idles (inlet above the set pressure) the fixtures
   // below are counted from the set pressure, the least it delivers (a safe side).
-  const holding = deviceHolds(doc, base, segIndex);
+  const holding = deviceHolds(doc, baseStages, segIndex);
   const cuts = new Set<number>();
   const belowCutCredit = new Map<number, number>();
   const holds: { cut: number; slack: number }[] = [];
@@ -361,18 +443,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       continue;
     }
     if (h.holdSlackPa < 0) continue;
-    const parent = segs[e].parentSegmentId === null ? undefined : segIndex.get(segs[e].parentSegmentId!);
+    const parent = parentOf[e] === -1 ? undefined : parentOf[e];
     const above = parent === undefined ? [] : constrained(pathTo(parent), cuts);
     if (above.reduce((sum, k) => sum + minDelta(k), 0) > h.holdSlackPa) continue;
     cuts.add(e);
     if (parent !== undefined && above.length) holds.push({ cut: parent, slack: h.holdSlackPa });
   }
-  const fixturePath = (f: (typeof fixtures)[number]) => f.path.map((id) => segIndex.get(id)!);
-  const paths = fixtures.map((f) => constrained(fixturePath(f), cuts));
+  const paths = fixtures.map((f) => constrained(f.path, cuts));
   const slack = fixtures.map((f) => {
-    const path = fixturePath(f);
     let credit = 0;
-    for (const e of path) if (belowCutCredit.has(e)) credit = belowCutCredit.get(e)!;
+    for (const e of f.path) if (belowCutCredit.has(e)) credit = belowCutCredit.get(e)!;
     return f.residual - f.required - marginPa - credit;
   });
   // Constraint k ≥ fixtures.length is a PRV's hold: same search, no fixture of its own.
@@ -380,17 +460,18 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const allPaths = [...paths, ...holdPaths];
   const allSlack = [...slack, ...holds.map((h) => h.slack)];
 
-  const margins = (after: Analysis | null): FixtureMargin[] =>
+  const margins = (after: StageResults | null): FixtureMargin[] =>
     fixtures.map((f, i) => ({
       fixtureId: f.id,
       label: f.label,
       beforePa: f.margin,
-      afterPa: after ? (after.si.fixtures[i]?.margin ?? null) : null,
+      afterPa: after ? (after.checks.fixtures[i]?.marginPa ?? null) : null,
     }));
   const volumeBefore = [...free.values()].reduce((sum, fr) => {
-    const d = MATERIALS[fr.material].sizes.find((z) => z.key === doc.segments[fr.docIndex].size)!.innerDiameterM;
-    return sum + (segs[fr.index].length * Math.PI * d * d) / 4;
+    const d = diameters(fr.material).get(doc.segments[fr.docIndex].size!)!;
+    return sum + (model.seg.lengthM[fr.index] * Math.PI * d * d) / 4;
   }, 0);
+  const describeInput = { doc, base: baseStages, segIndex, free, locked, selected, fixtures };
 
   // Infeasible before any search: a fixture stays short with every free segment at its largest size.
   const shortfall = Math.max(0, ...paths.map((p, i) => p.reduce((sum, e) => sum + minDelta(e), 0) - slack[i]));
@@ -399,7 +480,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     return {
       feasible: false,
       verified: false,
-      segments: describe({ doc, segs, segIndex, free, locked, selected, chosen: null, governing: new Map(), fixtures, after: null }),
+      segments: describe({ ...describeInput, chosen: null, governing: new Map(), after: null }),
       changedSegments: 0,
       margins: margins(null),
       minMarginBeforePa: minOf(fixtures.map((f) => f.margin)),
@@ -416,16 +497,15 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     };
   }
 
-  const leafNeed: number[][] = segs.map(() => []);
+  const leafNeed: number[][] = Array.from({ length: segCount }, () => []);
   fixtures.forEach((f, i) => {
-    const feed = nodeFeed.get(f.nodeId);
-    if (feed) leafNeed[segIndex.get(feed)!].push(i);
+    if (f.feed !== -1) leafNeed[f.feed].push(i);
   });
   holds.forEach((h, k) => leafNeed[h.cut].push(fixtures.length + k));
 
   // Bounds for pruning: the least and the most the free segments above e (up to e's closing cut) can add.
-  const minAbove = new Float64Array(segs.length);
-  const maxAbove = new Float64Array(segs.length);
+  const minAbove = new Float64Array(segCount);
+  const maxAbove = new Float64Array(segCount);
   const order: number[] = [];
   const stack = [...roots];
   while (stack.length) {
@@ -434,15 +514,15 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     for (const c of children[e]) {
       const fr = free.get(e);
       const own = cuts.has(c) ? null : e;
-      minAbove[c] = own === null ? 0 : minAbove[e] + (fr ? Math.min(...fr.deltaPa) : 0);
-      maxAbove[c] = own === null ? 0 : maxAbove[e] + (fr ? Math.max(...fr.deltaPa) : 0);
+      minAbove[c] = own === null ? 0 : minAbove[e] + (fr ? fr.minDeltaPa : 0);
+      maxAbove[c] = own === null ? 0 : maxAbove[e] + (fr ? fr.maxDeltaPa : 0);
       stack.push(c);
     }
   }
 
   let adjust = new Float64Array(allSlack.length);
   let chosen = new Map<number, number>();
-  let after: Analysis | null = null;
+  let after: StageResults | null = null;
   let sized: SystemDocument | null = null;
   for (let round = 0; round <= MAX_REPAIRS; round++) {
     const searchStart = performance.now();
@@ -476,26 +556,26 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       }
     };
     const checked = after;
-    checked.si.fixtures.forEach((f, i) => shortOf(i, f.required + marginPa - f.residual, fixtures[i].residual - f.residual));
+    checked.checks.fixtures.forEach((c, i) => shortOf(i, fixtures[i].required + marginPa - c.residualPa, fixtures[i].residual - c.residualPa));
     const heldAfter = deviceHolds(doc, checked, segIndex);
     holds.forEach((h, k) => {
-      const cut = [...heldAfter].find(([e]) => segIndex.get(segs[e].parentSegmentId ?? '') === h.cut && cuts.has(e));
+      const cut = [...heldAfter].find(([e]) => parentOf[e] === h.cut && cuts.has(e));
       if (cut && cut[1].kind === 'prv') shortOf(fixtures.length + k, -cut[1].holdSlackPa, h.slack - cut[1].holdSlackPa);
     });
     if (!repaired) break;
     adjust = nextAdjust;
   }
 
-  const passes = (a: Analysis | null) =>
+  const passes = (a: StageResults | null) =>
     a !== null &&
-    a.si.fixtures.every((f) => f.residual - f.required >= marginPa * (1 - 1e-9) - 1e-6) &&
-    [...free.keys()].every((e) => a.si.segments[e].velocityPass !== false);
+    a.checks.fixtures.every((c, i) => c.residualPa - fixtures[i].required >= marginPa * (1 - 1e-9) - 1e-6) &&
+    [...free.keys()].every((e) => a.checks.velocityPass[e] !== false);
   const verified = passes(after);
   const allVelocity = [...free.values()].every((f) => f.velocityMet);
   // The fixture that holds a segment at its size: the one with the least slack left among the fixtures its loss counts for.
   const governingFixture = new Map<number, number>();
   if (after) {
-    const finalSlack = after.si.fixtures.map((f) => f.residual - f.required - marginPa);
+    const finalSlack = after.checks.fixtures.map((c, i) => c.residualPa - fixtures[i].required - marginPa);
     paths.forEach((p, i) => {
       for (const e of p) {
         const j = governingFixture.get(e);
@@ -503,8 +583,9 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       }
     });
   }
-  const segments = describe({ doc, segs, segIndex, free, locked, selected, chosen, governing: governingFixture, fixtures, after });
+  const segments = describe({ ...describeInput, chosen, governing: governingFixture, after });
   const volumeAfter = [...chosen].reduce((sum, [e, k]) => sum + free.get(e)!.volume[k], 0);
+  const afterMargins = after ? after.checks.fixtures.map((c) => c.marginPa) : null;
   return {
     feasible: verified && allVelocity,
     verified,
@@ -512,10 +593,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     changedSegments: segments.filter((s) => s.before !== s.after).length,
     margins: margins(after),
     minMarginBeforePa: minOf(fixtures.map((f) => f.margin)),
-    minMarginAfterPa: after ? minOf(after.si.fixtures.map((f) => f.margin)) : null,
+    minMarginAfterPa: afterMargins ? minOf(afterMargins) : null,
     volumeBeforeM3: volumeBefore,
     volumeAfterM3: chosen.size ? volumeAfter : null,
-    shortfallPa: verified ? 0 : Math.max(0, ...(after?.si.fixtures.map((f) => f.required + marginPa - f.residual) ?? [0])),
+    shortfallPa: verified ? 0 : Math.max(0, ...(after?.checks.fixtures.map((c, i) => fixtures[i].required + marginPa - c.residualPa) ?? [0])),
     boosterPressurePa: null,
     frictionBudget: budget,
     conditions,
@@ -525,31 +606,63 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   };
 }
 
+/** Whether two plain data values (a segment's fittings) are equal as JSON would write them. */
+function sameValue(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return JSON.stringify(a) === JSON.stringify(b);
+  if (Array.isArray(a) || Array.isArray(b)) {
+    if (!Array.isArray(a) || !Array.isArray(b) || a.length !== b.length) return false;
+    return a.every((x, i) => sameValue(x, b[i]));
+  }
+  const ka = Object.keys(a).filter((k) => (a as Record<string, unknown>)[k] !== undefined);
+  const kb = Object.keys(b).filter((k) => (b as Record<string, unknown>)[k] !== undefined);
+  return ka.length === kb.length && ka.every((k, i) => k === kb[i] && sameValue((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));
+}
+
+/** Inside diameter of each catalog size of a material, by size key, m. */
+function innerDiameters(material: MaterialId): Map<string, number> {
+  return new Map(MATERIALS[material].sizes.map((z) => [z.key, z.innerDiameterM]));
+}
+
+type CatalogSize = { key: string; nominalIn: number; innerDiameterM: number };
+
 /**
  * Whether every catalog fitting of the segment has loss data at this size: a fitting published only
  * by size (the manufacturers' PEX equivalent lengths, 1/2–1 in for some lines) rules out the sizes
  * its table does not cover, which the sizing then never offers (rather than fail the analysis).
+ * The answer depends only on the fitting type and the size, so one call asks each pair once.
  */
-function fittingsHaveData(s: SystemDocument['segments'][number], z: { key: string; nominalIn: number; innerDiameterM: number }): boolean {
-  return (s.fittings ?? []).every((f) => {
-    if (f.custom) return true;
-    const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, f.typeId) ? FITTING_TYPES[f.typeId] : undefined;
-    if (!entry) return true;
-    try {
-      // a nominal flow state (Re 1e5, f 0.02: turbulent, common practice) only to ask whether data exist
-      fittingKOfEntry(entry, {
-        method: 'crane',
-        innerDiameterM: z.innerDiameterM,
-        nominalSizeIn: z.nominalIn,
-        nominalSizeKey: z.key,
-        Re: 1e5,
-        frictionFactor: 0.02,
-      });
-      return true;
-    } catch {
-      return false;
-    }
-  });
+function fittingDataCache(): (s: SystemDocument['segments'][number], z: CatalogSize) => boolean {
+  const known = new Map<CatalogSize, Map<string, boolean>>();
+  return (s, z) => {
+    let bySize = known.get(z);
+    if (!bySize) known.set(z, (bySize = new Map()));
+    return (s.fittings ?? []).every((f) => {
+      if (f.custom) return true;
+      let has = bySize.get(f.typeId);
+      if (has === undefined) bySize.set(f.typeId, (has = fittingHasData(f.typeId, z)));
+      return has;
+    });
+  };
+}
+
+function fittingHasData(typeId: string, z: CatalogSize): boolean {
+  const entry = Object.prototype.hasOwnProperty.call(FITTING_TYPES, typeId) ? FITTING_TYPES[typeId] : undefined;
+  if (!entry) return true;
+  try {
+    // a nominal flow state (Re 1e5, f 0.02: turbulent, common practice) only to ask whether data exist
+    fittingKOfEntry(entry, {
+      method: 'crane',
+      innerDiameterM: z.innerDiameterM,
+      nominalSizeIn: z.nominalIn,
+      nominalSizeKey: z.key,
+      Re: 1e5,
+      frictionFactor: 0.02,
+    });
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 /** Step 4: the dynamic programme over the tree; returns the chosen size index of each free segment, or null. */
@@ -564,51 +677,56 @@ function search(
   maxAbove: Float64Array,
   roots: number[],
 ): Map<number, number> | null {
-  const sets: ParetoPoint[][] = new Array(children.length);
+  const store = new ParetoStore(4 * children.length);
+  const sets: number[][] = new Array(children.length);
+  const none: number[] = [];
   for (let k = order.length - 1; k >= 0; k--) {
     const e = order[k];
     let need = -Infinity;
     for (const f of leafNeed[e]) need = Math.max(need, -slack[f]);
-    let acc: ParetoPoint[] = [{ cost: 0, need, choice: -1, seg: -1, parts: [] }];
+    let acc: number[] = [store.add(0, need, -1, -1, -1, -1)];
     for (const c of children[e]) {
-      acc = combine(acc, sets[c]);
-      sets[c] = [];
+      acc = combine(store, acc, sets[c]);
+      sets[c] = none;
     }
     const fr = free.get(e);
-    let own: ParetoPoint[];
+    let own: number[];
     if (!fr) own = acc;
     else {
       own = [];
-      fr.sizes.forEach((_, s) => {
-        for (const p of acc) own.push({ cost: p.cost + fr.volume[s], need: p.need + fr.deltaPa[s], choice: s, seg: e, parts: [p] });
-      });
-      own = prune(own);
+      for (let s = 0; s < fr.sizes.length; s++) {
+        for (const p of acc) own.push(store.add(store.cost[p] + fr.volume[s], store.need[p] + fr.deltaPa[s], e, s, p, -1));
+      }
+      own = prune(store, own);
     }
     // Closing at a cut (PRV or variable-speed booster): every fixture below must be met here.
+    // Points that no choice above can rescue are dropped; those every choice above keeps
+    // feasible become one point, the cheapest of them.
     const lo = cuts.has(e) ? 0 : minAbove[e];
     const hi = cuts.has(e) ? 0 : maxAbove[e];
-    const kept = own.filter((p) => p.need + lo <= 0);
-    const safe = kept.filter((p) => p.need + hi <= 0);
-    const rest = kept.filter((p) => p.need + hi > 0);
-    const out = rest.slice();
-    if (safe.length) {
-      const cheapest = safe.reduce((a, b) => (b.cost < a.cost ? b : a));
-      out.push({ cost: cheapest.cost, need: -Infinity, choice: -1, seg: -1, parts: [cheapest] });
+    const out: number[] = [];
+    let cheapestSafe = -1;
+    for (const p of own) {
+      if (!(store.need[p] + lo <= 0)) continue;
+      if (store.need[p] + hi > 0) out.push(p);
+      else if (cheapestSafe === -1 || store.cost[p] < store.cost[cheapestSafe]) cheapestSafe = p;
     }
+    if (cheapestSafe !== -1) out.push(store.add(store.cost[cheapestSafe], -Infinity, -1, -1, cheapestSafe, -1));
     if (out.length === 0) return null;
-    sets[e] = prune(out);
+    sets[e] = prune(store, out);
   }
-  let top: ParetoPoint[] = [{ cost: 0, need: -Infinity, choice: -1, seg: -1, parts: [] }];
-  for (const r of roots) top = combine(top, sets[r]);
-  const feasible = top.filter((p) => p.need <= 0);
-  if (!feasible.length) return null;
-  const best = feasible.reduce((a, b) => (b.cost < a.cost ? b : a));
+  let top: number[] = [store.add(0, -Infinity, -1, -1, -1, -1)];
+  for (const r of roots) top = combine(store, top, sets[r]);
+  let best = -1;
+  for (const p of top) if (store.need[p] <= 0 && (best === -1 || store.cost[p] < store.cost[best])) best = p;
+  if (best === -1) return null;
   const chosen = new Map<number, number>();
   const walk = [best];
   while (walk.length) {
     const p = walk.pop()!;
-    if (p.seg >= 0) chosen.set(p.seg, p.choice);
-    walk.push(...p.parts);
+    if (store.seg[p] >= 0) chosen.set(store.seg[p], store.choice[p]);
+    if (store.left[p] >= 0) walk.push(store.left[p]);
+    if (store.right[p] >= 0) walk.push(store.right[p]);
   }
   return chosen;
 }
@@ -621,24 +739,24 @@ type Hold = { kind: 'prv'; holdSlackPa: number } | { kind: 'booster'; idleExcess
  * it delivers (negative: it does not hold); for a booster, how far an idling pump's outlet is
  * above its set pressure (0 when it is boosting). Read from the analysis's per-device losses.
  */
-function deviceHolds(doc: SystemDocument, analysis: Analysis, segIndex: Map<string, number>): Map<number, Hold> {
+function deviceHolds(doc: SystemDocument, stages: StageResults, segIndex: Map<string, number>): Map<number, Hold> {
   const out = new Map<number, Hold>();
   for (const d of doc.devices) {
     const isPrv = d.kind === 'prv' && d.prv !== undefined;
     const isVsBooster = d.kind === 'booster-pump' && d.boost !== undefined && 'control' in d.boost && d.boost.control === 'variable-speed';
     const e = segIndex.get(d.segmentId);
     if ((!isPrv && !isVsBooster) || e === undefined) continue;
-    const seg = analysis.si.segments[e];
-    let p = seg.inletPressure;
-    for (const r of seg.devices) {
+    const devices = stages.hyd.devices[e];
+    let p = stages.hyd.inletPa[e];
+    for (const r of devices) {
       if (r.deviceId === d.id) break;
-      p -= r.loss;
+      p -= r.lossPa;
     }
-    const result = seg.devices.find((r) => r.deviceId === d.id);
+    const result = devices.find((r) => r.deviceId === d.id);
     if (!result) continue;
-    const outlet = p - result.loss;
+    const outlet = p - result.lossPa;
     // The device's own loss at this flow, in SI (the document's units at the edge).
-    const flow = seg.designFlow;
+    const flow = stages.demand.designFlowM3s[e];
     const own = d.loss.kind === 'fixed' ? (flow > 0 ? toSI('pressure', d.loss.loss, doc.unitSystem) : 0) : ownCurveLossPa(d.loss.points, flow, doc.unitSystem);
     if (isPrv) {
       const target =
@@ -669,10 +787,9 @@ function ownCurveLossPa(points: readonly { flow: number; loss: number }[], flowS
  * change, which is left out here), so one small analysis measures every size of every segment;
  * the rest of the tree, its devices and typical units are left out.
  */
-function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: number; size: string; k: number }[]): SystemDocument {
-  const flow = new Map(base.segments.map((s) => [s.id, s.designFlow]));
+function probeDocument(doc: SystemDocument, jobs: readonly { docIndex: number; size: string; flow: number; k: number }[]): SystemDocument {
   const sourceNode = doc.nodes.find((n) => n.id === doc.source.nodeId)!;
-  const twins = jobs.map(({ docIndex, size, k }) => {
+  const twins = jobs.map(({ docIndex, size, flow, k }) => {
     const s = doc.segments[docIndex];
     return {
       ...s,
@@ -682,7 +799,7 @@ function probeDocument(doc: SystemDocument, base: Analysis, jobs: { docIndex: nu
       to: probeId(s.to, k),
       size,
       rise: 0,
-      flowOverride: flow.get(s.id) ?? 0,
+      flowOverride: flow,
       reducerAuto: false,
       sizeLocked: undefined,
     };
@@ -706,14 +823,14 @@ function withSizes(doc: SystemDocument, free: Map<number, Free>, chosen: Map<num
   const segments = doc.segments.slice();
   for (const [e, k] of chosen) {
     const fr = free.get(e)!;
-    segments[fr.docIndex] = { ...segments[fr.docIndex], size: fr.sizes[k] };
+    if (segments[fr.docIndex].size !== fr.sizes[k]) segments[fr.docIndex] = { ...segments[fr.docIndex], size: fr.sizes[k] };
   }
   return { ...doc, segments };
 }
 
 interface DescribeInput {
   doc: SystemDocument;
-  segs: Analysis['si']['segments'];
+  base: StageResults;
   segIndex: Map<string, number>;
   free: Map<number, Free>;
   locked: Set<string>;
@@ -721,35 +838,38 @@ interface DescribeInput {
   chosen: Map<number, number> | null;
   /** free segment → index of its governing fixture */
   governing: Map<number, number>;
-  fixtures: Analysis['si']['fixtures'];
-  after: Analysis | null;
+  fixtures: FixtureRow[];
+  after: StageResults | null;
 }
 
 /** The per-segment answer: sizes before and after, why, velocities, and the worst fixture downstream. */
-function describe({ doc, segs, segIndex, free, locked, selected, chosen, governing, fixtures, after }: DescribeInput): SegmentSizing[] {
+function describe({ doc, base, segIndex, free, locked, selected, chosen, governing, fixtures, after }: DescribeInput): SegmentSizing[] {
   // The worst fixture downstream of each segment (least margin after; before when nothing was sized).
-  const worst = new Map<string, number>();
-  const marginOf = (i: number) => (after ? after.si.fixtures[i].margin : fixtures[i].margin);
+  const worst = new Map<number, number>();
+  const marginOf = (i: number) => (after ? after.checks.fixtures[i].marginPa : fixtures[i].margin);
   fixtures.forEach((f, i) => {
-    for (const id of f.path) {
-      const j = worst.get(id);
-      if (j === undefined || marginOf(i) < marginOf(j)) worst.set(id, i);
+    for (const e of f.path) {
+      const j = worst.get(e);
+      if (j === undefined || marginOf(i) < marginOf(j)) worst.set(e, i);
     }
   });
   return doc.segments.map((s) => {
     const e = segIndex.get(s.id);
     const fr = e === undefined ? undefined : free.get(e);
     const before = s.size ?? null;
-    const w = worst.get(s.id);
-    const seg = e === undefined ? undefined : segs[e];
-    const base = {
+    const w = e === undefined ? undefined : worst.get(e);
+    const velocityPass = e === undefined ? undefined : base.checks.velocityPass[e];
+    const isFree = fr !== undefined && !locked.has(s.id) && !(selected && !selected.has(s.id));
+    const k = isFree ? (chosen?.get(e!) ?? 0) : 0;
+    const g = isFree && k > 0 ? governing.get(e!) : undefined;
+    return {
       segmentId: s.id,
       label: s.label ?? null,
       material: s.material ?? null,
       before,
-      velocityBefore: seg?.velocity ?? 0,
-      velocityAfter: after && e !== undefined ? after.si.segments[e].velocity : null,
-      velocityLimit: seg?.velocityLimit ?? null,
+      velocityBefore: e === undefined ? 0 : base.hyd.velocity[e],
+      velocityAfter: after && e !== undefined ? after.hyd.velocity[e] : null,
+      velocityLimit: e === undefined ? null : base.checks.velocityLimitMs[e],
       worstFixture:
         w === undefined
           ? null
@@ -757,19 +877,19 @@ function describe({ doc, segs, segIndex, free, locked, selected, chosen, governi
               fixtureId: fixtures[w].id,
               label: fixtures[w].label,
               marginBeforePa: fixtures[w].margin,
-              marginAfterPa: after ? after.si.fixtures[w].margin : null,
+              marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
             },
-    };
-    if (locked.has(s.id)) return { ...base, after: before, governing: 'locked' as const, velocityMet: seg?.velocityPass !== false };
-    if (!fr || (selected && !selected.has(s.id))) return { ...base, after: before, governing: 'unchanged' as const, velocityMet: seg?.velocityPass !== false };
-    const k = chosen?.get(e!) ?? 0;
-    const g = k > 0 ? governing.get(e!) : undefined;
-    return {
-      ...base,
-      after: chosen ? fr.sizes[k] : before,
-      governing:
-        g !== undefined ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label } : fr.velocityRemoved ? ('velocity' as const) : ('smallest' as const),
-      velocityMet: fr.velocityMet,
+      after: isFree && chosen ? fr.sizes[k] : before,
+      governing: locked.has(s.id)
+        ? 'locked'
+        : !isFree
+          ? 'unchanged'
+          : g !== undefined
+            ? { fixtureId: fixtures[g].id, fixtureLabel: fixtures[g].label }
+            : fr.velocityRemoved
+              ? 'velocity'
+              : 'smallest',
+      velocityMet: isFree ? fr.velocityMet : velocityPass !== false,
     };
   });
 }
