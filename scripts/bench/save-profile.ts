@@ -83,7 +83,12 @@ function summarise(file: string, window: [number, number]): void {
     const url = n.callFrame.url.replace(`file://${root}/`, '').replace(/^.*node_modules\//, 'node_modules/');
     const key = `${n.callFrame.functionName || '(anonymous)'} ${url}:${n.callFrame.lineNumber + 1}`;
     bySelf.set(key, (bySelf.get(key) ?? 0) + n.hitCount);
-    const where = url.startsWith('node_modules/') ? url.split('/').slice(0, url.startsWith('node_modules/@') ? 3 : 2).join('/') : url || n.callFrame.functionName;
+    const where = url.startsWith('node_modules/')
+      ? url
+          .split('/')
+          .slice(0, url.startsWith('node_modules/@') ? 3 : 2)
+          .join('/')
+      : url || n.callFrame.functionName;
     byFile.set(where, (byFile.get(where) ?? 0) + n.hitCount);
   }
   // total time: each function counted once in every sample it is on the stack of (Headroom's own code and its packages' entry points)
@@ -97,7 +102,11 @@ function summarise(file: string, window: [number, number]): void {
     for (let id: number | undefined = n.id; id !== undefined; id = parent.get(id)) {
       const f = byId.get(id)!.callFrame;
       const url = f.url.replace(`file://${root}/`, '');
-      if (!/^(server|src)\//.test(url) && !/node_modules\/(knex|pg|express|body-parser|express-session|connect-pg-simple|passport|csrf-csrf|helmet|piscina)\//.test(url)) continue;
+      if (
+        !/^(server|src)\//.test(url) &&
+        !/node_modules\/(knex|pg|express|body-parser|express-session|connect-pg-simple|passport|csrf-csrf|helmet|piscina)\//.test(url)
+      )
+        continue;
       const key = `${f.functionName || '(anonymous)'} ${url.replace(/^.*node_modules\//, '')}:${f.lineNumber + 1}`;
       if (seen.has(key)) continue;
       seen.add(key);
@@ -110,11 +119,14 @@ function summarise(file: string, window: [number, number]): void {
       .slice(0, k)
       .map(([name, hits]) => `  ${((100 * hits) / total).toFixed(1).padStart(5)} %  ${name}`)
       .join('\n');
-  console.log(`\n${path.basename(file)}: ${total} samples\nself time, top functions:\n${top(bySelf, 30)}\nself time by package or file:\n${top(byFile, 15)}\ntotal time (self and callees):\n${top(byTotal, 45)}`);
+  console.log(
+    `\n${path.basename(file)}: ${total} samples\nself time, top functions:\n${top(bySelf, 30)}\nself time by package or file:\n${top(byFile, 15)}\ntotal time (self and callees):\n${top(byTotal, 45)}`,
+  );
 }
 
 const cluster = await startCluster('profile');
-let window: [number, number] = [0, 0];
+/** the measured round, in the profiler's clock (µs) */
+const window: [number, number] = [0, 0];
 try {
   const app = await startNodeServer('server/index.ts', { DATABASE_URL: cluster.url }, ['--cpu-prof', `--cpu-prof-dir=${outDir}`]);
   try {
@@ -127,7 +139,7 @@ try {
     const t0 = Date.now();
     const micros0 = nowMicros();
     const result = await round(app.url, users, seconds, true);
-    window = [micros0, nowMicros()];
+    window.splice(0, 2, micros0, nowMicros());
     const wall = (Date.now() - t0) / 1000;
     const saves = result.rps * seconds;
     const appCpu = cpuSeconds(app.pid) - app0;

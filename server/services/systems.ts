@@ -1,13 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import {
-  ENGINE_VERSION,
-  readSystemDocument,
-  safeAnalyzeSystem,
-  SystemDocumentSchema,
-  verdictStatus,
-  type IncompleteReason,
-  type SystemDocument,
-} from '../../src/engine';
+import { ENGINE_VERSION, readSystemDocument, SystemDocumentSchema, verdictStatus, type IncompleteReason, type SystemDocument } from '../../src/engine';
 import { ServiceError, conflict, invalid, notFound, staleVersion } from './errors';
 import { fieldsFromZod } from './validationFields';
 import { assertStorable } from './storable';

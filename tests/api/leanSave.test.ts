@@ -28,7 +28,10 @@ const audits = (revisionId: string) => h.db('audit_log').where({ subject_id: rev
 describe('a draft save written in one statement', () => {
   it('when a draft is saved, then its audit entry names the actor, the project, the number and the new version', async () => {
     const { designer, designerUser, projectId, base, revision } = await withSystem();
-    const res = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument({ elbowCount: 3 }), version: revision.version });
+    const res = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, {
+      document: smallDocument({ elbowCount: 3 }),
+      version: revision.version,
+    });
     expect(res.status).toBe(200);
     const saved = (await audits(revision.id)).filter((a) => a.action === 'revision.saved');
     expect(saved).toHaveLength(1);
@@ -45,7 +48,10 @@ describe('a draft save written in one statement', () => {
     await designer.send('POST', `${base}/revisions/${revision.id}/issue`, { version: revision.version, attestation: ATTESTATION }).expect(200);
     const before = await h.db('revisions').where({ id: revision.id }).first('version', 'document', 'analysis');
     const auditsBefore = (await audits(revision.id)).length;
-    const res = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document: smallDocument({ elbowCount: 9 }), version: before.version });
+    const res = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, {
+      document: smallDocument({ elbowCount: 9 }),
+      version: before.version,
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/Revision 1 is issued/);
     expect(await h.db('revisions').where({ id: revision.id }).first('version', 'document', 'analysis')).toEqual(before);

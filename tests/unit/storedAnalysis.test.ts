@@ -90,19 +90,22 @@ describe('the current stored form (format 1)', () => {
 });
 
 describe('a draft’s stored analysis (format 2: its verdict; the analysis computed from its document on reading)', () => {
-  it.each(examples)('when %s is stored as a draft, then reading it with its stored document gives the analysis the save made, bit for bit, and the lists read the verdict as stored', (name) => {
-    const document = SystemDocumentSchema.parse(example(name));
-    // what the save does: the analysis of the document the body's reader returned …
-    const saved = analyseParsed(document);
-    const stored = throughJsonb(toStoredDraftAnalysis(saved, ENGINE_VERSION));
-    expect(stored).toEqual({ analysisFormat: DRAFT_ANALYSIS_FORMAT, engineVersion: ENGINE_VERSION, verdict: verdictOf(saved) });
-    // … and what a read does: the document as jsonb gives it back
-    const read = readStoredAnalysis(stored, 'column', throughJsonb(document));
-    expect(read.format).toBe(DRAFT_ANALYSIS_FORMAT);
-    expect(read.engineVersion).toBe(ENGINE_VERSION);
-    expect(throughJsonb(read.outcome)).toStrictEqual(throughJsonb(saved));
-    expect(readStoredVerdict(stored, 'column')).toEqual({ verdict: verdictOf(saved), engineVersion: ENGINE_VERSION, format: DRAFT_ANALYSIS_FORMAT });
-  });
+  it.each(examples)(
+    'when %s is stored as a draft, then reading it with its stored document gives the analysis the save made, bit for bit, and the lists read the verdict as stored',
+    (name) => {
+      const document = SystemDocumentSchema.parse(example(name));
+      // what the save does: the analysis of the document the body's reader returned …
+      const saved = analyseParsed(document);
+      const stored = throughJsonb(toStoredDraftAnalysis(saved, ENGINE_VERSION));
+      expect(stored).toEqual({ analysisFormat: DRAFT_ANALYSIS_FORMAT, engineVersion: ENGINE_VERSION, verdict: verdictOf(saved) });
+      // … and what a read does: the document as jsonb gives it back
+      const read = readStoredAnalysis(stored, 'column', throughJsonb(document));
+      expect(read.format).toBe(DRAFT_ANALYSIS_FORMAT);
+      expect(read.engineVersion).toBe(ENGINE_VERSION);
+      expect(throughJsonb(read.outcome)).toStrictEqual(throughJsonb(saved));
+      expect(readStoredVerdict(stored, 'column')).toEqual({ verdict: verdictOf(saved), engineVersion: ENGINE_VERSION, format: DRAFT_ANALYSIS_FORMAT });
+    },
+  );
 
   it('when a stored issued analysis (format 1) is listed, then its verdict is the one of the analysis it holds', () => {
     const outcome = analyse(example('small-house.json'));
