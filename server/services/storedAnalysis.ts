@@ -74,23 +74,35 @@ export function verdictOf(a: AnalysisOutcome): RevisionVerdict {
 /**
  * Drafts' analyses computed on reading, by the content of the document (the SHA-1 of its JSON):
  * a draft read again unchanged (the walk opening it, a hot-water system reading its cold supply)
- * is not analysed again. 16 entries, least recently used first out (a choice: a handful of
- * designers' open drafts per process; an analysis of the demo holds well under a megabyte).
+ * is not analysed again. At most 16 entries and 4 MB of document JSON, least recently used out
+ * first (choices: a handful of designers' open drafts per process; an analysis takes a few times
+ * its document's size in memory, so the cache stays in the tens of megabytes even for the largest
+ * documents, and one over 1 MB is not kept).
  */
 const CACHE_ENTRIES = 16;
-const computed = new Map<string, AnalysisOutcome>();
+const CACHE_DOCUMENT_BYTES = 4_000_000;
+const computed = new Map<string, { outcome: AnalysisOutcome; bytes: number }>();
+let cachedBytes = 0;
 
 function analysisOfDocument(document: unknown): AnalysisOutcome {
-  const key = createHash('sha1').update(JSON.stringify(document)).digest('base64');
+  const text = JSON.stringify(document);
+  const key = createHash('sha1').update(text).digest('base64');
   const hit = computed.get(key);
   if (hit) {
     computed.delete(key);
     computed.set(key, hit);
-    return hit;
+    return hit.outcome;
   }
   const outcome = analyse(document);
-  computed.set(key, outcome);
-  if (computed.size > CACHE_ENTRIES) computed.delete(computed.keys().next().value!);
+  if (text.length <= CACHE_DOCUMENT_BYTES / 4) {
+    computed.set(key, { outcome, bytes: text.length });
+    cachedBytes += text.length;
+    while (computed.size > CACHE_ENTRIES || cachedBytes > CACHE_DOCUMENT_BYTES) {
+      const [oldest, entry] = computed.entries().next().value!;
+      computed.delete(oldest);
+      cachedBytes -= entry.bytes;
+    }
+  }
   return outcome;
 }
 
