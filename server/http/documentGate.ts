@@ -98,10 +98,9 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     const target = route.field ? (req.body as Record<string, unknown>)[route.field] : req.body;
     if (target === undefined || target === null || typeof target !== 'object') return next();
     if (route.outer && !route.outer.safeParse(req.body).success) return next();
-    if (pool.queueSize >= MAX_QUEUE)
-      throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     const raw = rawBodies.get(req);
     const utf8 = !/charset=(?!"?utf-?8)/i.test(req.headers['content-type'] ?? '');
+    // a draft save the generated reader accepts never waits for the worker
     if (route.schema === 'SaveDocumentBody') {
       const read = readSaveBody(req.body);
       if (read) {
@@ -110,6 +109,8 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
         return next();
       }
     }
+    if (pool.queueSize >= MAX_QUEUE)
+      throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     let result: Checked<unknown>;
     try {
       result = raw && utf8 ? await validate(route.schema, undefined, { json: raw.toString('utf8'), field: route.field }) : await validate(route.schema, target);
