@@ -1,6 +1,6 @@
 import type { Tx } from '../db/rows';
 import type { AnalysisOutcome, RevisionVerdict } from '../../src/shared/api/systems';
-import { readStoredAnalysis, readStoredVerdict, toStoredDraftAnalysis, toStoredAnalysis, verdictOf } from '../services/storedAnalysis';
+import { readStoredAnalysis, readStoredVerdict, safeVerdictOf, toStoredDraftAnalysis, toStoredAnalysis, verdictOf } from '../services/storedAnalysis';
 
 export interface SystemRow {
   id: string;
@@ -83,7 +83,7 @@ function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined;
 function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined {
   if (!row) return undefined;
   const read = readStoredAnalysis(row.analysis, row.engine_version, row.document);
-  return { ...row, analysis: read.outcome, verdict: verdictOf(read.outcome), engine_version: read.engineVersion, analysis_format: read.format };
+  return { ...row, analysis: read.outcome, verdict: safeVerdictOf(read.outcome), engine_version: read.engineVersion, analysis_format: read.format };
 }
 /** The lists' boundary: the verdict as stored, no analysis computed. */
 function listedFromDb(row: StoredRevisionRow): RevisionListRow {

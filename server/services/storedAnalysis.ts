@@ -71,6 +71,15 @@ export function verdictOf(a: AnalysisOutcome): RevisionVerdict {
   };
 }
 
+/** The verdict of a stored analysis, or "not analysed" when the stored value is not an analysis this server can read. */
+export function safeVerdictOf(outcome: AnalysisOutcome): RevisionVerdict {
+  try {
+    return verdictOf(outcome);
+  } catch {
+    return verdictOf(unreadable('The stored analysis cannot be read'));
+  }
+}
+
 /**
  * Drafts' analyses computed on reading, by the content of the document (the SHA-1 of its JSON):
  * a draft read again unchanged (the walk opening it, a hot-water system reading its cold supply)
@@ -197,5 +206,5 @@ export function readStoredVerdict(stored: unknown, engineVersionColumn: string |
     return { verdict: v2.verdict, engineVersion: v2.engineVersion, format: 2 };
   }
   const read = readStoredAnalysis(raw, engineVersionColumn);
-  return { verdict: verdictOf(read.outcome), engineVersion: read.engineVersion, format: read.format };
+  return { verdict: safeVerdictOf(read.outcome), engineVersion: read.engineVersion, format: read.format };
 }

@@ -99,8 +99,11 @@ describe('the stored analysis as a versioned contract', () => {
   it('when a draft holds its verdict only, then the database refuses to issue it without its whole analysis', async () => {
     const { revision } = await withSystem();
     const row = await h.db('revisions').where({ id: revision.id }).first('analysis');
-    expect(row.analysis.analysisFormat).toBe(DRAFT_ANALYSIS_FORMAT);
-    await expect(h.db('revisions').where({ id: revision.id }).update({ status: 'issued' })).rejects.toThrow(/incomplete; it cannot be issued/);
+    expect(row.analysis).toMatchObject({ analysisFormat: DRAFT_ANALYSIS_FORMAT, verdict: { status: 'pass' } });
+    await expect(h.db('revisions').where({ id: revision.id }).update({ status: 'issued' })).rejects.toThrow(
+      /holds its verdict only; it is issued with its whole analysis/,
+    );
+    expect((await h.db('revisions').where({ id: revision.id }).first('status')).status).toBe('draft');
   });
 
   it('when a draft in the current format is issued, then the database’s issue rules read it and the issued revision keeps it', async () => {
