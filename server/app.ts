@@ -26,7 +26,7 @@ import { createMailer } from './mail/transport';
 import { OutboxWorker } from './mail/worker';
 import { startDevSink, type DevSink } from './mail/devSink';
 import { assertWithinBounds } from './http/bounds';
-import { createDocumentGate, keepRawBody } from './http/documentGate';
+import { createDocumentGate, keepRawBody, prescanned } from './http/documentGate';
 
 export interface HeadroomApp {
   app: Express;
@@ -77,9 +77,9 @@ export function createApp({
     }),
   );
   app.use(express.json({ limit: '2mb', verify: keepRawBody }));
-  // before any schema: arrays and objects no real request has (server/http/bounds.ts)
+  // before any schema: arrays and objects no real request has (server/http/bounds.ts); a JSON body's text was scanned for them already
   app.use((req, _res, next) => {
-    if (req.body && typeof req.body === 'object') assertWithinBounds(req.body);
+    if (req.body && typeof req.body === 'object' && !prescanned(req)) assertWithinBounds(req.body);
     next();
   });
   app.use(cookieParser());

@@ -32,11 +32,11 @@ export interface NodeServer {
   stop: () => Promise<void>;
 }
 
-/** `node --import tsx <entry>` on a free loopback port, ready when GET /api/health answers 200. */
-export async function startNodeServer(entry: string, env: Record<string, string>): Promise<NodeServer> {
+/** `node --import tsx <entry>` on a free loopback port, ready when GET /api/health answers 200 (`nodeArgs`: more of node's own flags, say --cpu-prof). */
+export async function startNodeServer(entry: string, env: Record<string, string>, nodeArgs: string[] = []): Promise<NodeServer> {
   const port: number = await pg.freePort();
   const url = `http://127.0.0.1:${port}`;
-  const proc: ChildProcess = spawn(process.execPath, ['--import', 'tsx', entry], {
+  const proc: ChildProcess = spawn(process.execPath, [...nodeArgs, '--import', 'tsx', entry], {
     cwd: root,
     stdio: ['ignore', 'pipe', 'pipe'],
     env: {

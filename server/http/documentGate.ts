@@ -10,7 +10,9 @@ import os from 'node:os';
 import { Piscina } from 'piscina';
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
-import { CreateSystemBody } from '../../src/shared/api/systems';
+import { CreateSystemBody, SaveDocumentBody } from '../../src/shared/api/systems';
+import { fastParseSystemDocument } from '../../src/engine/model/fastParse';
+import type { SystemDocument } from '../../src/engine';
 import { AppError } from './errors';
 import { firstOverBoundInJson } from './jsonPrescan';
 import { markValidated } from './validate';
@@ -35,12 +37,45 @@ export interface DocumentGate {
 
 /** The JSON text of each request as received (express.json's `verify` puts it here; server/app.ts). */
 const rawBodies = new WeakMap<object, Buffer>();
+/** True when the request's JSON text went through the bounds scan (its parsed body needs no walk: the two agree, tests/unit/jsonPrescan.test.ts). */
+export const prescanned = (req: object) => rawBodies.has(req);
 export const keepRawBody = (req: object, _res: unknown, buf: Buffer) => {
   // lists and objects over the bounds are refused on the text, before JSON.parse builds them (jsonPrescan.ts)
   const found = firstOverBoundInJson(buf);
   if (found) throw new AppError(400, 'VALIDATION_FAILED', 'The request is larger than any real one; nothing was read further.', { [found[0]]: found[1] });
   rawBodies.set(req, buf);
 };
+
+/**
+ * A draft save's body read by the schema's generated reader (src/engine/model/fastParse.ts, the
+ * schema's exact output, property-tested against it) on the request's own thread: the body
+ * SaveDocumentBody accepts, or undefined when the reader declines it (invalid, or a rarity it
+ * leaves to the schema) and the worker's zod check reports why. The reader costs less than the
+ * engine's analysis of the same document, which the save runs on this thread anyway; handing
+ * the text to the worker and its answer back cost the event loop more than this read.
+ */
+function readSaveBody(body: unknown): { document: SystemDocument; version: number } | undefined {
+  if (!body || typeof body !== 'object' || Array.isArray(body)) return undefined;
+  const keys = Object.keys(body);
+  if (keys.length !== 2 || !('document' in body) || !('version' in body)) return undefined;
+  const { document, version } = body as { document: unknown; version: unknown };
+  if (typeof version !== 'number' || !Number.isSafeInteger(version) || version < 1) return undefined;
+  try {
+    const read = fastParseSystemDocument(document);
+    return read === undefined ? undefined : { document: read, version };
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * True when the JSON text can hold no string PostgreSQL refuses (server/services/storable.ts): NUL
+ * and lone UTF-16 surrogates reach a parsed string only through a \u escape (JSON forbids raw
+ * control characters, and invalid UTF-8 decodes to U+FFFD). A text with such an escape (or a
+ * quoted backslash before one) is walked after parsing, as before.
+ */
+const UNSTORABLE_ESCAPE = /\\u(?:0000|d[89a-f][0-9a-f]{2})/i;
+export const storableText = (text: string) => !UNSTORABLE_ESCAPE.test(text);
 
 export function createDocumentGate(): DocumentGate & { validate: (schema: GatedSchema, value: unknown) => Promise<Checked<unknown>> } {
   const pool = new Piscina({
@@ -63,10 +98,19 @@ export function createDocumentGate(): DocumentGate & { validate: (schema: GatedS
     const target = route.field ? (req.body as Record<string, unknown>)[route.field] : req.body;
     if (target === undefined || target === null || typeof target !== 'object') return next();
     if (route.outer && !route.outer.safeParse(req.body).success) return next();
-    if (pool.queueSize >= MAX_QUEUE)
-      throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     const raw = rawBodies.get(req);
     const utf8 = !/charset=(?!"?utf-?8)/i.test(req.headers['content-type'] ?? '');
+    // a draft save the generated reader accepts never waits for the worker
+    if (route.schema === 'SaveDocumentBody') {
+      const read = readSaveBody(req.body);
+      if (read) {
+        req.body = read;
+        markValidated(SaveDocumentBody, read, { storable: raw !== undefined && utf8 && storableText(raw.toString('utf8')) });
+        return next();
+      }
+    }
+    if (pool.queueSize >= MAX_QUEUE)
+      throw new AppError(429, 'RATE_LIMITED', 'The server is busy checking other documents. Try again in a moment; nothing was saved.');
     let result: Checked<unknown>;
     try {
       result = raw && utf8 ? await validate(route.schema, undefined, { json: raw.toString('utf8'), field: route.field }) : await validate(route.schema, target);

@@ -13,6 +13,8 @@ declare global {
     interface User extends Omit<import('../../src/shared/api/auth').User, never> {}
     interface Request {
       projectRole?: ProjectRole;
+      /** the signed-in user's role in the path's project, read with the user (server/auth/passport.ts); role undefined: not a member */
+      projectMembership?: { projectId: string; role: ProjectRole | undefined };
     }
   }
 }
@@ -33,7 +35,7 @@ export const requireAdmin: RequestHandler = (req, _res, next) => {
   next();
 };
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+export const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * Loads the signed-in user's role in :projectId. A non-member gets 404 — the project's
@@ -45,7 +47,8 @@ export function requireProjectRole(db: Db, roles: readonly ProjectRole[] | 'any'
     if (!req.user) throw new AppError(401, 'NOT_SIGNED_IN', 'Sign in to continue.');
     const projectId = String(req.params.projectId ?? '');
     if (!UUID.test(projectId)) throw notFound('The project');
-    const role = await membersRepo.roleOf(db, projectId, req.user.id);
+    const known = req.projectMembership?.projectId === projectId ? req.projectMembership : undefined;
+    const role = known ? known.role : await membersRepo.roleOf(db, projectId, req.user.id);
     if (!role && req.user.isAdmin) {
       // site administrators see every project and manage membership (DESIGN.md) without being members
       if (!(await db('projects').where({ id: projectId }).first('id'))) throw notFound('The project');

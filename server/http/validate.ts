@@ -114,8 +114,11 @@ export function checkValue<S extends z.ZodType>(schema: S, value: unknown): Chec
  * `parse` returns them as they are instead of validating them again.
  */
 const validated = new WeakMap<object, z.ZodType>();
-export function markValidated(schema: z.ZodType, value: object): void {
+/** Values whose text was seen to hold no string the database cannot store (server/http/documentGate.ts): `parse` does not walk them again. */
+const storable = new WeakSet<object>();
+export function markValidated(schema: z.ZodType, value: object, opts: { storable?: boolean } = {}): void {
   validated.set(value, schema);
+  if (opts.storable) storable.add(value);
 }
 
 /** Parse with a shared zod schema; a failure is a 400 that names the bad fields (the first MAX_ISSUES). */
@@ -128,6 +131,6 @@ export function parse<S extends z.ZodType>(schema: S, value: unknown, opts: { st
     data = result.data;
   }
   // a route whose service validates a nested document itself checks storability after that (storableCheck: false)
-  if (opts.storableCheck !== false) assertStorable(data);
+  if (opts.storableCheck !== false && !(data && typeof data === 'object' && storable.has(data))) assertStorable(data);
   return data;
 }

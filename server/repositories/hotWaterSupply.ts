@@ -1,14 +1,14 @@
 import type { Tx } from '../db/rows';
 import type { AnalysisOutcome } from '../../src/shared/api/systems';
-import { readStoredAnalysis, toStoredAnalysis } from '../services/storedAnalysis';
+import { DRAFT_ANALYSIS_FORMAT, readStoredAnalysis, toStoredDraftAnalysis, verdictOf } from '../services/storedAnalysis';
 import type { RevisionRow, SystemRow } from './systems';
 
-type StoredRow = Omit<RevisionRow, 'analysis' | 'analysis_format'> & { analysis: unknown };
+type StoredRow = Omit<RevisionRow, 'analysis' | 'verdict' | 'analysis_format'> & { analysis: unknown };
 /** Every analysis read here goes through the one reader of the stored form (server/services/storedAnalysis.ts). */
 const read = (row: StoredRow | undefined): RevisionRow | undefined => {
   if (!row) return undefined;
-  const r = readStoredAnalysis(row.analysis, row.engine_version);
-  return { ...row, analysis: r.outcome, engine_version: r.engineVersion, analysis_format: r.format };
+  const r = readStoredAnalysis(row.analysis, row.engine_version, row.document);
+  return { ...row, analysis: r.outcome, verdict: verdictOf(r.outcome), engine_version: r.engineVersion, analysis_format: r.format };
 };
 
 /** The queries behind a hot system's supply read from a cold system (services/hotWaterSupply.ts). */
@@ -36,11 +36,12 @@ export const hotWaterSupplyRepo = {
       .where({ id: revisionId, status: 'draft' })
       .update({
         document: JSON.stringify(document),
-        analysis: JSON.stringify(toStoredAnalysis(analysis, engineVersion)),
+        analysis: JSON.stringify(toStoredDraftAnalysis(analysis, engineVersion)),
         engine_version: engineVersion,
         updated_at: db.fn.now(),
       } as never)
       .returning('*');
-    return read(row as StoredRow | undefined);
+    // the analysis just made is the one a read would compute from the stored document
+    return row ? { ...(row as StoredRow), analysis, verdict: verdictOf(analysis), analysis_format: DRAFT_ANALYSIS_FORMAT } : undefined;
   },
 };

@@ -1,6 +1,6 @@
 import type { Tx } from '../db/rows';
-import type { AnalysisOutcome } from '../../src/shared/api/systems';
-import { readStoredAnalysis, toStoredAnalysis } from '../services/storedAnalysis';
+import type { AnalysisOutcome, RevisionVerdict } from '../../src/shared/api/systems';
+import { readStoredAnalysis, readStoredVerdict, safeVerdictOf, toStoredDraftAnalysis, toStoredAnalysis, verdictOf } from '../services/storedAnalysis';
 
 export interface SystemRow {
   id: string;
@@ -16,8 +16,10 @@ export interface RevisionRow {
   number: number;
   status: 'draft' | 'issued' | 'superseded';
   document: unknown;
-  /** the stored analysis as read (server/services/storedAnalysis.ts), with every display value */
+  /** the stored analysis as read (server/services/storedAnalysis.ts), with every display value; a draft's computed from its document */
   analysis: AnalysisOutcome;
+  /** what the lists show of `analysis` */
+  verdict: RevisionVerdict;
   /** the engine version that made `analysis` */
   engine_version: string;
   /** the format the analysis was stored in (0: before formats) */
@@ -45,7 +47,9 @@ export interface RevisionRow {
 }
 
 /** A revision without its document and analysis: what a save answers (the large columns are neither read nor parsed). */
-export type RevisionSummaryRow = Omit<RevisionRow, 'document' | 'analysis' | 'analysis_format' | 'field_change_record'>;
+export type RevisionSummaryRow = Omit<RevisionRow, 'document' | 'analysis' | 'verdict' | 'analysis_format' | 'field_change_record'>;
+/** A revision as the lists read it: its verdict, and no analysis computed. */
+export type RevisionListRow = Omit<RevisionRow, 'analysis'>;
 
 const revisionColumns = ['r.*', 'u.name as issued_by_name', 'ua.name as failure_ack_by_name'];
 /** Every column of `revisions` but the document and the analysis. */
@@ -72,15 +76,23 @@ const SUMMARY_COLUMNS = [
 ];
 
 /** A row as the database holds it: the analysis in its stored form. */
-type StoredRevisionRow = Omit<RevisionRow, 'analysis' | 'analysis_format'> & { analysis: unknown };
+type StoredRevisionRow = Omit<RevisionRow, 'analysis' | 'verdict' | 'analysis_format'> & { analysis: unknown };
 /** The storage boundary of the analysis: every revision read goes through here. */
 function fromDb(row: StoredRevisionRow): RevisionRow;
 function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined;
 function fromDb(row: StoredRevisionRow | undefined): RevisionRow | undefined {
   if (!row) return undefined;
-  const read = readStoredAnalysis(row.analysis, row.engine_version);
-  return { ...row, analysis: read.outcome, engine_version: read.engineVersion, analysis_format: read.format };
+  const read = readStoredAnalysis(row.analysis, row.engine_version, row.document);
+  return { ...row, analysis: read.outcome, verdict: safeVerdictOf(read.outcome), engine_version: read.engineVersion, analysis_format: read.format };
 }
+/** The lists' boundary: the verdict as stored, no analysis computed. */
+function listedFromDb(row: StoredRevisionRow): RevisionListRow {
+  const { analysis, ...rest } = row;
+  const read = readStoredVerdict(analysis, row.engine_version);
+  return { ...rest, verdict: read.verdict, engine_version: read.engineVersion, analysis_format: read.format };
+}
+/** Every revision these functions write is a draft: its verdict only (format 2); issuing writes the whole analysis (format 1). */
+const storedDraftJson = (outcome: AnalysisOutcome, engineVersion: string) => JSON.stringify(toStoredDraftAnalysis(outcome, engineVersion));
 const storedJson = (outcome: AnalysisOutcome, engineVersion: string) => JSON.stringify(toStoredAnalysis(outcome, engineVersion));
 
 export const systemsRepo = {
@@ -93,7 +105,7 @@ export const systemsRepo = {
 };
 
 export const revisionsRepo = {
-  listForSystem: async (db: Tx, systemId: string): Promise<RevisionRow[]> =>
+  listForSystem: async (db: Tx, systemId: string): Promise<RevisionListRow[]> =>
     (
       (await db('revisions as r')
         .leftJoin('users as u', 'u.id', 'r.issued_by')
@@ -101,9 +113,9 @@ export const revisionsRepo = {
         .where('r.system_id', systemId)
         .select(revisionColumns)
         .orderBy('r.number', 'desc')) as StoredRevisionRow[]
-    ).map((r) => fromDb(r)),
+    ).map(listedFromDb),
   /** the newest revision of each of the given systems */
-  latestForSystems: async (db: Tx, systemIds: string[]): Promise<RevisionRow[]> =>
+  latestForSystems: async (db: Tx, systemIds: string[]): Promise<RevisionListRow[]> =>
     (
       (await db('revisions as r')
         .leftJoin('users as u', 'u.id', 'r.issued_by')
@@ -112,7 +124,7 @@ export const revisionsRepo = {
         .distinctOn('r.system_id')
         .select(revisionColumns)
         .orderBy([{ column: 'r.system_id' }, { column: 'r.number', order: 'desc' }])) as StoredRevisionRow[]
-    ).map((r) => fromDb(r)),
+    ).map(listedFromDb),
   find: async (db: Tx, systemId: string, revisionId: string): Promise<RevisionRow | undefined> =>
     fromDb(
       (await db('revisions as r')
@@ -165,9 +177,10 @@ export const revisionsRepo = {
     },
   ) {
     const [row] = await db('revisions')
-      .insert({ ...values, document: JSON.stringify(values.document), analysis: storedJson(values.analysis, values.engine_version) })
+      .insert({ ...values, document: JSON.stringify(values.document), analysis: storedDraftJson(values.analysis, values.engine_version) })
       .returning('*');
-    return fromDb(row as StoredRevisionRow);
+    // the analysis just made is the one a read would compute from the stored document
+    return { ...(row as StoredRevisionRow), analysis: values.analysis, verdict: verdictOf(values.analysis), analysis_format: 2 } satisfies RevisionRow;
   },
   /**
    * Optimistic save of a draft: undefined when the version is stale or the revision is no longer a
@@ -178,7 +191,7 @@ export const revisionsRepo = {
       .where({ id: revisionId, version, status: 'draft' })
       .update({
         document: JSON.stringify(document),
-        analysis: storedJson(analysis, engineVersion),
+        analysis: storedDraftJson(analysis, engineVersion),
         engine_version: engineVersion,
         version: db.raw('version + 1'),
         updated_at: db.fn.now(),
@@ -186,6 +199,63 @@ export const revisionsRepo = {
       .returning(SUMMARY_COLUMNS);
     return row as RevisionSummaryRow | undefined;
   },
+  /**
+   * The designer's save of a draft in one statement (one round trip, its own transaction): the
+   * optimistic write (`WHERE version = :version`: a stale version or a revision that is not a draft
+   * of this project's system changes nothing) and its audit entry (`revision.saved`, the new number
+   * and version) together. It writes nothing when a hot-water draft of the project is fed from this
+   * system (`dependents`): that save takes the transaction that recomputes them. `saved` is
+   * undefined when nothing was written; the caller asks `saveRefusal` why.
+   */
+  async saveDraftAlone(
+    db: Tx,
+    values: {
+      projectId: string;
+      systemId: string;
+      revisionId: string;
+      version: number;
+      actorId: string;
+      document: unknown;
+      analysis: AnalysisOutcome;
+      engineVersion: string;
+    },
+  ): Promise<{ saved: RevisionSummaryRow | undefined; dependents: boolean }> {
+    const columns = SUMMARY_COLUMNS.map((c) => `r.${c}`).join(', ');
+    const { rows } = (await db.raw(
+      `WITH dependents AS (
+         SELECT EXISTS (
+           SELECT 1 FROM systems s JOIN revisions d ON d.system_id = s.id AND d.status = 'draft'
+           WHERE s.project_id = :projectId AND s.service = 'hot' AND d.document #>> '{source,fedFrom,systemId}' = :systemId::text
+         ) AS found
+       ),
+       saved AS (
+         UPDATE revisions r
+         SET document = :document::jsonb, analysis = :analysis::jsonb, engine_version = :engineVersion, version = r.version + 1, updated_at = now()
+         WHERE r.id = :revisionId AND r.system_id = :systemId AND r.status = 'draft' AND r.version = :version
+           AND EXISTS (SELECT 1 FROM systems s WHERE s.id = :systemId AND s.project_id = :projectId)
+           AND NOT (SELECT found FROM dependents)
+         RETURNING ${columns}
+       ),
+       audited AS (
+         INSERT INTO audit_log (actor_id, project_id, action, subject_type, subject_id, details)
+         SELECT :actorId::uuid, :projectId::uuid, 'revision.saved', 'revision', saved.id, jsonb_build_object('number', saved.number, 'version', saved.version)
+         FROM saved
+       )
+       SELECT saved.*, (SELECT found FROM dependents) AS has_dependents FROM (SELECT 1) AS one LEFT JOIN saved ON true`,
+      {
+        ...values,
+        document: JSON.stringify(values.document),
+        analysis: storedDraftJson(values.analysis, values.engineVersion),
+      },
+    )) as { rows: (RevisionSummaryRow & { has_dependents: boolean })[] };
+    const { has_dependents: dependents, ...row } = rows[0];
+    return { saved: row.id ? row : undefined, dependents };
+  },
+  /** Why a draft save wrote nothing: the revision's number, status and version, or undefined when it is not this system's. */
+  saveRefusal: (db: Tx, systemId: string, revisionId: string) =>
+    db('revisions').where({ id: revisionId, system_id: systemId }).first('number', 'status', 'version') as Promise<
+      Pick<RevisionRow, 'number' | 'status' | 'version'> | undefined
+    >,
   /**
    * Issues a draft with the analysis it is issued on (made at issue time by the current engine) and,
    * for a failing one, the designer's acknowledgement; undefined when the version is stale.

@@ -26,6 +26,12 @@ export const toUser = (row: UserRow): User => ({
 
 export const usersRepo = {
   findById: (db: Tx, id: string) => db<UserRow>('users').where({ id }).first(),
+  /** The user and their role in one project (null when not a member), in one query: a request's sign-in and its project guard together. */
+  findWithRole: (db: Tx, id: string, projectId: string) =>
+    db('users as u')
+      .leftJoin('project_members as m', (j) => j.on('m.user_id', 'u.id').andOn('m.project_id', db.raw('?', [projectId])))
+      .where('u.id', id)
+      .first('u.*', 'm.role as project_role') as Promise<(UserRow & { project_role: string | null }) | undefined>,
   findByEmail: (db: Tx, email: string) => db<UserRow>('users').where({ email: email.toLowerCase() }).first(),
   list: (db: Tx) => db<UserRow>('users').orderBy([{ column: 'is_admin', order: 'desc' }, 'name']),
   async insert(db: Tx, values: Pick<UserRow, 'email' | 'name' | 'is_admin' | 'account_role'> & Partial<Pick<UserRow, 'password_hash' | 'status'>>) {

@@ -7,6 +7,7 @@ import { toUser, usersRepo } from '../repositories/users';
 import { auditRepo } from '../repositories/audit';
 import type { ServiceContext } from './context';
 import type { InvitationInfo, User } from '../../src/shared/api/auth';
+import type { ProjectRole } from '../../src/shared/api/projects';
 
 const invalidInvitation = () => new ServiceError('INVITATION_INVALID', 'This link has expired or was already used. Ask your administrator for a new one.');
 
@@ -21,6 +22,12 @@ export const authService = {
   async findActiveUser(ctx: ServiceContext, id: string): Promise<User | null> {
     const row = await usersRepo.findById(ctx.db, id);
     return row && row.status === 'active' ? toUser(row) : null;
+  },
+
+  /** The active user and their role in `projectId` (undefined when not a member); null for no active user. */
+  async findActiveUserWithRole(ctx: ServiceContext, id: string, projectId: string): Promise<{ user: User; role: ProjectRole | undefined } | null> {
+    const row = await usersRepo.findWithRole(ctx.db, id, projectId);
+    return row && row.status === 'active' ? { user: toUser(row), role: (row.project_role ?? undefined) as ProjectRole | undefined } : null;
   },
 
   async invitationInfo(ctx: ServiceContext, token: string): Promise<InvitationInfo> {

@@ -1,24 +1,17 @@
 import { randomUUID } from 'node:crypto';
-import {
-  ENGINE_VERSION,
-  readSystemDocument,
-  safeAnalyzeSystem,
-  SystemDocumentSchema,
-  verdictStatus,
-  type IncompleteReason,
-  type SystemDocument,
-} from '../../src/engine';
+import { ENGINE_VERSION, readSystemDocument, SystemDocumentSchema, verdictStatus, type IncompleteReason, type SystemDocument } from '../../src/engine';
 import { ServiceError, conflict, invalid, notFound, staleVersion } from './errors';
 import { fieldsFromZod } from './validationFields';
 import { assertStorable } from './storable';
 import { locks } from '../repositories/locks';
 import { log } from '../log';
 import { projectsRepo } from '../repositories/projects';
-import { revisionsRepo, systemsRepo, type RevisionRow, type RevisionSummaryRow, type SystemRow } from '../repositories/systems';
+import { revisionsRepo, systemsRepo, type RevisionListRow, type RevisionRow, type RevisionSummaryRow, type SystemRow } from '../repositories/systems';
 import { auditRepo } from '../repositories/audit';
 import { iso, type Tx } from '../db/rows';
 import { inputHash } from './canonicalJson';
 import { summariesService } from './summaries';
+import { analyse, analyseParsed, verdictOf } from './storedAnalysis';
 import { reviewLoopService } from './reviewLoop';
 import { hotWaterSupply } from './hotWaterSupply';
 import type { Actor, ServiceContext } from './context';
@@ -38,35 +31,8 @@ import { FieldChangeRecord } from '../../src/shared/api/fieldChanges';
 import { convertDocumentUnits } from '../../src/engine/building/convertUnits';
 import type { UnitSystem } from '../../src/engine';
 
-/** The server's analysis of a document: exactly what the engine returns, errors as their JSON. */
-export function analyse(document: unknown): AnalysisOutcome {
-  const result = safeAnalyzeSystem(document);
-  return result.ok ? { ok: true as const, analysis: result.analysis } : { ok: false as const, error: result.error.toJSON() };
-}
-
-function verdictOf(a: AnalysisOutcome): RevisionVerdict {
-  if (!a.ok)
-    return {
-      ok: false,
-      status: null,
-      allPass: null,
-      criticalFixtureId: null,
-      criticalMargin: null,
-      warningCount: 0,
-      errorMessage: a.error.message ?? 'Not analysed',
-    };
-  const critical = a.analysis.fixtures.find((f) => f.id === a.analysis.criticalFixtureId);
-  const status = verdictStatus(a.analysis);
-  return {
-    ok: true,
-    status,
-    allPass: status === 'pass',
-    criticalFixtureId: a.analysis.criticalFixtureId,
-    criticalMargin: critical?.margin ?? null,
-    warningCount: a.analysis.warnings.length,
-    errorMessage: null,
-  };
-}
+/** The server's analysis of a document (server/services/storedAnalysis.ts, where the stored form is made from it). */
+export { analyse };
 
 const toSummary = (r: RevisionSummaryRow, verdict: RevisionVerdict): RevisionSummary => ({
   id: r.id,
@@ -95,7 +61,7 @@ export const attestationOf = (r: RevisionSummaryRow): AttestationRecord | null =
         at: iso(r.attestation_at),
       }
     : null;
-const summaryOf = (r: RevisionRow): RevisionSummary => toSummary(r, verdictOf(r.analysis));
+const summaryOf = (r: RevisionListRow): RevisionSummary => toSummary(r, r.verdict);
 const toRevision = (r: RevisionRow): Revision => ({
   ...summaryOf(r),
   document: r.document,
@@ -123,7 +89,7 @@ function originOf(record: unknown): RevisionOrigin | null {
     changes: r.changes.map((c) => c.text),
   };
 }
-const toSystem = (s: SystemRow, latest: RevisionRow | undefined, returned: ReturnedMarker | null = null): SystemInfo => ({
+const toSystem = (s: SystemRow, latest: RevisionListRow | undefined, returned: ReturnedMarker | null = null): SystemInfo => ({
   id: s.id,
   projectId: s.project_id,
   name: s.name,
@@ -301,10 +267,12 @@ export const systemsService = {
 
   /**
    * Saves a draft; the server recomputes the analysis with the same engine the client runs, stores
-   * it, and answers the revision's summary (its new version and verdict): the client has the
-   * document and its own analysis of it, so neither is read back nor sent again. A hot system fed
-   * from a cold one has its supply resolved first (hotWaterSupply), and the hot drafts fed from this
-   * system are recomputed in the same transaction.
+   * the document with the verdict (the draft's whole analysis is computed again when it is read:
+   * server/services/storedAnalysis.ts), and answers the revision's summary (its new version and
+   * verdict): the client has the document and its own analysis of it, so neither is read back nor
+   * sent again. A hot system fed from a cold one has its supply resolved first (hotWaterSupply).
+   * The write and its audit entry are one statement; when hot drafts are fed from this system, the
+   * save is a transaction that recomputes them too.
    */
   async saveDraft(
     ctx: ServiceContext,
@@ -315,9 +283,42 @@ export const systemsService = {
     typed: SystemDocument,
     version: number,
   ): Promise<RevisionSummary> {
-    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     const document = await hotWaterSupply.resolve(ctx.db, projectId, typed);
-    const analysis = analyse(document);
+    // the body's document was read by the schema's reader (server/http/documentGate.ts); a resolved supply is a new document
+    const analysis = document === typed ? analyseParsed(typed) : analyse(document);
+    const { saved, dependents } = await revisionsRepo.saveDraftAlone(ctx.db, {
+      projectId,
+      systemId,
+      revisionId,
+      version,
+      actorId: actor.id,
+      document,
+      analysis,
+      engineVersion: ENGINE_VERSION,
+    });
+    // a draft has no issuer, acknowledgement or attestation: the summary needs no join
+    if (saved) return toSummary(saved, verdictOf(analysis));
+    if (dependents) return this.saveDraftWithDependents(ctx, actor, projectId, systemId, revisionId, document, analysis, version);
+    // nothing written: say why, as the checks of the transaction below do
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
+    const current = await revisionsRepo.saveRefusal(ctx.db, systemId, revisionId);
+    if (!current) throw notFound('The revision');
+    if (current.status !== 'draft') throw locked(current);
+    throw staleVersion();
+  },
+
+  /** A draft save when hot drafts are fed from this system: the save, its audit entry and their recomputation in one transaction. */
+  async saveDraftWithDependents(
+    ctx: ServiceContext,
+    actor: Actor,
+    projectId: string,
+    systemId: string,
+    revisionId: string,
+    document: SystemDocument,
+    analysis: AnalysisOutcome,
+    version: number,
+  ): Promise<RevisionSummary> {
+    if (!(await systemsRepo.find(ctx.db, projectId, systemId))) throw notFound('The system');
     return ctx.db.transaction(async (trx) => {
       const current = await revisionsRepo.lockForSave(trx, systemId, revisionId);
       if (!current) throw notFound('The revision');
@@ -334,7 +335,6 @@ export const systemsService = {
         details: { number: saved.number, version: saved.version },
       });
       await hotWaterSupply.refreshDependents(trx, projectId, systemId);
-      // a draft has no issuer, acknowledgement or attestation: the summary needs no join
       return toSummary(saved, verdictOf(analysis));
     });
   },

@@ -77,8 +77,9 @@ describe('a hot system fed from a cold system', () => {
     const expected = analyzeSystem(doc).nodes.find((n) => n.id === 'l1')!.pressure;
     expect(row.document.source.staticPressureLow).toBe(expected);
     expect(row.document.source.staticPressureLow).toBeLessThan(before.document.source.staticPressureLow - 9);
-    // the row holds the stored form; its one reader gives the analysis back whole
-    const stored = readStoredAnalysis(row.analysis, row.engine_version).outcome;
+    // the row holds the draft's stored form (its verdict); its one reader gives the analysis of the stored document back whole
+    expect(row.analysis.analysisFormat).toBe(2);
+    const stored = readStoredAnalysis(row.analysis, row.engine_version, row.document).outcome;
     expect(stored.ok && stored.analysis.source.pressureAtDesignFlow).toBe(expected);
     expect(row.version).toBe(before.version);
   });

@@ -2,15 +2,16 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { ENGINE_VERSION, analyzeSystem, SystemDocumentSchema, verdictStatus } from '../../src/engine';
 import { RevisionSummary, SaveDocumentResponse } from '../../src/shared/api/systems';
-import { ANALYSIS_FORMAT } from '../../server/services/storedAnalysis';
+import { ANALYSIS_FORMAT, DRAFT_ANALYSIS_FORMAT, analyse, toStoredAnalysis } from '../../server/services/storedAnalysis';
 import { projectWithRoles, startHarness, type Harness } from './support/harness';
 import { smallDocument } from './support/documents';
 import { ATTESTATION } from './support/attestation';
 import format0 from '../unit/fixtures/stored-analysis-format0.json';
 import smallHouse from '../../src/engine/examples/small-house.json';
 
-// The draft save answers the revision's summary; the analysis is stored once, in its versioned
-// compact form, and read back whole through the revision's GET. Invented data throughout.
+// The draft save answers the revision's summary; a draft stores its verdict only (its analysis is
+// computed from its document when read), an issued revision its analysis in the versioned compact
+// form; both are read back whole through the revision's GET. Invented data throughout.
 
 let h: Harness;
 beforeAll(() => {
@@ -77,19 +78,32 @@ describe('the draft save answers what the client needs', () => {
 });
 
 describe('the stored analysis as a versioned contract', () => {
-  it('when a draft is saved, then the row holds the current format without display copies, and the GET answers the whole analysis with its engine version', async () => {
+  it('when a draft is saved, then the row holds its verdict only, and the GET answers the whole analysis of its document with the engine version', async () => {
     const { designer, base, revision } = await withSystem();
     const document = smallDocument({ elbowCount: 4 });
-    await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document, version: revision.version }).expect(200);
+    const saved = await designer.send('PUT', `${base}/revisions/${revision.id}/document`, { document, version: revision.version }).expect(200);
     const row = await h.db('revisions').where({ id: revision.id }).first('analysis', 'engine_version');
-    expect(row.analysis.analysisFormat).toBe(ANALYSIS_FORMAT);
-    expect(row.analysis.engineVersion).toBe(ENGINE_VERSION);
+    expect(row.analysis).toEqual({ analysisFormat: DRAFT_ANALYSIS_FORMAT, engineVersion: ENGINE_VERSION, verdict: saved.body.revision.verdict });
     expect(row.engine_version).toBe(ENGINE_VERSION);
-    expect(Object.keys(row.analysis.result.analysis)).not.toContain('segments');
+    console.log(`stored analysis of a draft: ${Buffer.byteLength(JSON.stringify(row.analysis))} bytes`);
     const got = await designer.get(`${base}/revisions/${revision.id}`).expect(200);
     const engine = analyzeSystem(SystemDocumentSchema.parse(got.body.revision.document));
     expect(got.body.revision.analysis).toEqual({ ok: true, analysis: JSON.parse(JSON.stringify(engine)) });
     expect(got.body.revision.engineVersion).toBe(ENGINE_VERSION);
+    expect(got.body.revision.verdict).toEqual(saved.body.revision.verdict);
+    // read again (from the cache of computed analyses): the same answer
+    const again = await designer.get(`${base}/revisions/${revision.id}`).expect(200);
+    expect(again.body.revision.analysis).toEqual(got.body.revision.analysis);
+  });
+
+  it('when a draft holds its verdict only, then the database refuses to issue it without its whole analysis', async () => {
+    const { revision } = await withSystem();
+    const row = await h.db('revisions').where({ id: revision.id }).first('analysis');
+    expect(row.analysis).toMatchObject({ analysisFormat: DRAFT_ANALYSIS_FORMAT, verdict: { status: 'pass' } });
+    await expect(h.db('revisions').where({ id: revision.id }).update({ status: 'issued' })).rejects.toThrow(
+      /holds its verdict only; it is issued with its whole analysis/,
+    );
+    expect((await h.db('revisions').where({ id: revision.id }).first('status')).status).toBe('draft');
   });
 
   it('when a draft in the current format is issued, then the database’s issue rules read it and the issued revision keeps it', async () => {
@@ -105,8 +119,9 @@ describe('the stored analysis as a versioned contract', () => {
 
   it('when the database refuses to issue an incomplete analysis, then it finds the verdict inside the current format too', async () => {
     const { revision } = await withSystem();
-    const row = await h.db('revisions').where({ id: revision.id }).first('analysis');
-    const incomplete = structuredClone(row.analysis);
+    const row = await h.db('revisions').where({ id: revision.id }).first('document');
+    // the whole analysis in the issued form, its verdict made incomplete
+    const incomplete = JSON.parse(JSON.stringify(toStoredAnalysis(analyse(row.document), ENGINE_VERSION)));
     incomplete.result.analysis.verdict.status = 'incomplete';
     await h
       .db('revisions')

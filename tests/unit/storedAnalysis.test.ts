@@ -3,7 +3,17 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { ENGINE_VERSION } from '../../src/engine';
 import { analyse } from '../../server/services/systems';
-import { ANALYSIS_FORMAT, readStoredAnalysis, toStoredAnalysis } from '../../server/services/storedAnalysis';
+import {
+  ANALYSIS_FORMAT,
+  DRAFT_ANALYSIS_FORMAT,
+  analyseParsed,
+  readStoredAnalysis,
+  readStoredVerdict,
+  toStoredAnalysis,
+  toStoredDraftAnalysis,
+  verdictOf,
+} from '../../server/services/storedAnalysis';
+import { SystemDocumentSchema } from '../../src/engine';
 import type { AnalysisOutcome } from '../../src/shared/api/systems';
 import fixture from './fixtures/stored-analysis-format0.json';
 
@@ -67,14 +77,49 @@ describe('the current stored form (format 1)', () => {
   });
 
   it('when a row holds a format this server does not know (a newer server wrote it), then no numbers are guessed: it reads as not analysable, naming the format', () => {
-    const read = readStoredAnalysis({ analysisFormat: ANALYSIS_FORMAT + 1, engineVersion: '9.9.9', result: { whatever: true } }, ENGINE_VERSION);
+    const read = readStoredAnalysis({ analysisFormat: DRAFT_ANALYSIS_FORMAT + 1, engineVersion: '9.9.9', result: { whatever: true } }, ENGINE_VERSION);
     expect(read.outcome.ok).toBe(false);
-    expect(!read.outcome.ok && read.outcome.error.message).toContain(`format ${ANALYSIS_FORMAT + 1}`);
+    expect(!read.outcome.ok && read.outcome.error.message).toContain(`format ${DRAFT_ANALYSIS_FORMAT + 1}`);
     expect(read.engineVersion).toBe('9.9.9');
   });
 
   it('when a row holds no analysis at all, then it reads as not analysed', () => {
     const read = readStoredAnalysis(null, ENGINE_VERSION);
     expect(read.outcome.ok).toBe(false);
+  });
+});
+
+describe('a draft’s stored analysis (format 2: its verdict; the analysis computed from its document on reading)', () => {
+  it.each(examples)(
+    'when %s is stored as a draft, then reading it with its stored document gives the analysis the save made, bit for bit, and the lists read the verdict as stored',
+    (name) => {
+      const document = SystemDocumentSchema.parse(example(name));
+      // what the save does: the analysis of the document the body's reader returned …
+      const saved = analyseParsed(document);
+      const stored = throughJsonb(toStoredDraftAnalysis(saved, ENGINE_VERSION));
+      expect(stored).toEqual({ analysisFormat: DRAFT_ANALYSIS_FORMAT, engineVersion: ENGINE_VERSION, verdict: verdictOf(saved) });
+      // … and what a read does: the document as jsonb gives it back
+      const read = readStoredAnalysis(stored, 'column', throughJsonb(document));
+      expect(read.format).toBe(DRAFT_ANALYSIS_FORMAT);
+      expect(read.engineVersion).toBe(ENGINE_VERSION);
+      expect(throughJsonb(read.outcome)).toStrictEqual(throughJsonb(saved));
+      expect(readStoredVerdict(stored, 'column')).toEqual({ verdict: verdictOf(saved), engineVersion: ENGINE_VERSION, format: DRAFT_ANALYSIS_FORMAT });
+    },
+  );
+
+  it('when a stored issued analysis (format 1) is listed, then its verdict is the one of the analysis it holds', () => {
+    const outcome = analyse(example('small-house.json'));
+    const stored = throughJsonb(toStoredAnalysis(outcome, ENGINE_VERSION));
+    expect(readStoredVerdict(stored, null)).toEqual({ verdict: verdictOf(outcome), engineVersion: ENGINE_VERSION, format: ANALYSIS_FORMAT });
+  });
+
+  it('when a draft’s document cannot be computed, then the read answers the engine’s error and the verdict says it was not analysed', () => {
+    const doc = example('small-house.json');
+    doc.segments[0].from = 'no-such-node';
+    const outcome = analyse(doc);
+    const stored = throughJsonb(toStoredDraftAnalysis(outcome, ENGINE_VERSION));
+    expect(stored.verdict).toMatchObject({ ok: false, status: null });
+    const read = readStoredAnalysis(stored, null, doc);
+    expect(read.outcome).toStrictEqual(throughJsonb(outcome));
   });
 });
