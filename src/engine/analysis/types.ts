@@ -188,6 +188,11 @@ export interface ZoneResult {
    * serves none; empty when the document places no node on a floor). The elevations likewise.
    */
   floors: string[];
+  /**
+   * The same floors as runs of adjacent floors of the document (lowest first): one run for a zone
+   * of Levels 1–12, two for Level 1 and Levels 5–7. Absent from analyses stored before it existed.
+   */
+  floorRuns?: { from: string; to: string; count: number }[];
   lowestElevation: number | null;
   highestElevation: number | null;
   nodeCount: number;

@@ -20,10 +20,17 @@ export function zoneVerdictWords(z: ZoneResult): string {
   return `Passes: ${count(z.checkedFixtures, 'fixture')} checked`;
 }
 
-/** "Level 1 – Level 12 (12 floors)", or the elevation range where no node sits on a floor. */
+/**
+ * "Level 1 – Level 12 (12 floors)", "Level 1, Level 5 – Level 7 (4 floors)" where the floors are not
+ * adjacent, or the elevation range where no node sits on a floor.
+ */
 export function zoneFloorsWords(z: ZoneResult, elevationUnit: string, digits = 1): string {
   if (z.floors.length === 1) return z.floors[0];
-  if (z.floors.length > 1) return `${z.floors[0]} – ${z.floors[z.floors.length - 1]} (${z.floors.length} floors)`;
+  if (z.floors.length > 1) {
+    // an analysis stored before runs were recorded: its first and last floor, as it was issued
+    const runs = z.floorRuns ?? [{ from: z.floors[0], to: z.floors[z.floors.length - 1], count: z.floors.length }];
+    return `${runs.map((r) => (r.count === 1 ? r.from : `${r.from} – ${r.to}`)).join(', ')} (${z.floors.length} floors)`;
+  }
   if (z.lowestElevation === null || z.highestElevation === null) return '—';
   return `el. ${z.lowestElevation.toFixed(digits)} – ${z.highestElevation.toFixed(digits)} ${elevationUnit}`;
 }

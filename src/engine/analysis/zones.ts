@@ -166,6 +166,8 @@ export function computeZones(model: SiModel, topo: Topology, hyd: HydraulicsResu
   }
 
   const floorOrder = new Map(model.doc.floors.map((f, k) => [f.id, { name: f.name, elevation: f.elevation, k }]));
+  // each floor's rank from the lowest (document order breaks a tie), keyed by its document index
+  const floorRank = new Map([...floorOrder.values()].sort((a, b) => a.elevation - b.elevation || a.k - b.k).map((f, rank) => [f.k, rank] as const));
   const where = (i: number) => model.nodeLabels[i] ?? nodeName(model, i).replace(/^"|"$/g, '');
   const pressureUnit = UNIT_LABELS[sys].pressure;
   const maxStatic = model.criteria.maxStaticPressurePa;
@@ -178,11 +180,24 @@ export function computeZones(model: SiModel, topo: Topology, hyd: HydraulicsResu
         ? `Zone ${index} — from the supply`
         : `Zone ${index} — ${zb.deviceLabel} (${zb.settingKind === 'set' ? 'set' : 'gain'} ${formatSetting(setting!, sys)} ${pressureUnit})`;
     const served = minZ[z] !== Infinity;
-    const floors = [...(served ? floorIds[z] : allFloorIds[z])]
+    const zoneFloors = [...(served ? floorIds[z] : allFloorIds[z])]
       .map((id) => floorOrder.get(id))
       .filter((f) => f !== undefined)
-      .sort((a, b) => a.elevation - b.elevation || a.k - b.k)
-      .map((f) => f.name);
+      .sort((a, b) => a.elevation - b.elevation || a.k - b.k);
+    const floors = zoneFloors.map((f) => f.name);
+    // Runs of adjacent floors (adjacent among all the document's floors), so that a zone serving
+    // Level 1 and Levels 5–7 is not written as if it spanned Levels 1–7.
+    const floorRuns: ZoneResult['floorRuns'] = [];
+    let previous = -2;
+    for (const f of zoneFloors) {
+      const at = floorRank.get(f.k)!;
+      const run = floorRuns[floorRuns.length - 1];
+      if (run && at === previous + 1) {
+        run.to = f.name;
+        run.count += 1;
+      } else floorRuns.push({ from: f.name, to: f.name, count: 1 });
+      previous = at;
+    }
     const crit = critical[z] === -1 ? null : checks.fixtures[critical[z]];
     const hi = highest[z];
     const lo = lowest[z];
@@ -209,6 +224,7 @@ export function computeZones(model: SiModel, topo: Topology, hyd: HydraulicsResu
       entrySegmentId: entry === null ? null : entry.id,
       entryNodeId: entry === null ? model.nodeIds[model.source.nodeIdx] : model.nodeIds[entry.from],
       floors,
+      floorRuns,
       lowestElevation: nodeCount[z] === 0 ? null : zUnit(served ? minZ[z] : minZAll[z]),
       highestElevation: nodeCount[z] === 0 ? null : zUnit(served ? maxZ[z] : maxZAll[z]),
       nodeCount: nodeCount[z],

@@ -8,7 +8,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, type SystemDocumentInput } from '../../../src/engine';
+import { analyzeSystem, zoneFloorsWords, type SystemDocumentInput } from '../../../src/engine';
 import { G, M_PER_FT, PA_PER_PSI } from '../../../src/engine/units';
 import { waterProperties } from '../../../src/engine/water';
 import { expectClose } from '../../helpers/expectClose';
@@ -182,6 +182,28 @@ describe('pressure zones', () => {
     const d = clone(zoned());
     delete d.devices![0].prv;
     expect(() => analyzeSystem(d)).toThrow(expect.objectContaining({ code: 'missing-field', elementType: 'device', elementId: 'prv-2', field: 'prv' }));
+  });
+
+  it('a zone whose floors are not adjacent names each run of floors, not one span over the floors between', () => {
+    // a tap below the booster back down on Level 1: the booster's zone serves Level 1 and Level 3, not Level 2
+    const doc = clone(zoned());
+    doc.nodes.push({ id: 'b0', label: 'Level 1 boosted lavatory', floor: 'l1', heightAboveFloor: 3, checkedFixtures: [lav('lav5', 'Lavatory L1 boosted')] });
+    doc.segments.push({ id: 'down', from: 'b', to: 'b0', material: 'copper-l', size: '3/4', length: 25 });
+    const split = analyzeSystem(doc).zones!.find((z) => z.id === 'bp-1')!;
+    expect(split.floors).toEqual(['Level 1', 'Level 3']);
+    expect(split.floorRuns).toEqual([
+      { from: 'Level 1', to: 'Level 1', count: 1 },
+      { from: 'Level 3', to: 'Level 3', count: 1 },
+    ]);
+    expect(zoneFloorsWords(split, 'ft')).toBe('Level 1, Level 3 (2 floors)');
+    // adjacent floors stay one span: PRV-4's zone moved to take Level 3 and Level 4
+    const doc2 = clone(zoned());
+    doc2.nodes.push({ id: 'c3', label: 'Level 3 tap below PRV-4', floor: 'l3', heightAboveFloor: 6, checkedFixtures: [lav('lav6', 'Lavatory L3 reduced')] });
+    doc2.segments.push({ id: 'back', from: 'c', to: 'c3', material: 'copper-l', size: '3/4', length: 12 });
+    const span = analyzeSystem(doc2).zones!.find((z) => z.id === 'prv-4')!;
+    expect(zoneFloorsWords(span, 'ft')).toBe('Level 3 – Level 4 (2 floors)');
+    // an analysis stored before runs were recorded reads as it was issued
+    expect(zoneFloorsWords({ ...split, floorRuns: undefined }, 'ft')).toBe('Level 1 – Level 3 (2 floors)');
   });
 
   it("the demo building: every checked fixture in exactly one zone, and the zones' verdicts agree with the system's", () => {
