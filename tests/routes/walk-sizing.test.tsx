@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeSystem, sizeSystem } from '../../src/engine';
 import type { SystemDocument } from '../../src/engine';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
+import { apartmentBuildingDocument } from '../../src/engine/building/apartmentBuilding';
 import { demoDocument, fakeApi } from './support/fake-api';
 import type { FakeApi } from './support/fake-api';
 import { renderWalk, stepHref } from './support/render-walk';
@@ -89,5 +90,19 @@ describe('automatic sizing on the result step', () => {
     await waitFor(() => expect(screen.queryByTestId('sizing-stale')).toBeNull(), CATCH_UP);
     const row = await screen.findByTestId('sizing-row-service', {}, CATCH_UP);
     expect(row.textContent).toContain('Locked by the designer');
+  });
+
+  it('when a building of typical units is sized, then the answer says the piping inside the units keeps its sizes, and how much', async () => {
+    const start = apartmentBuildingDocument(4) as SystemDocument; // invented example: 16 apartments of one type
+    const expected = sizeSystem(start);
+    const world = fakeApi({ document: start });
+    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await screen.findByTestId('sizing-answer', {}, CATCH_UP);
+    const note = screen.getByTestId('sizing-unit-piping').textContent ?? '';
+    expect(note).toContain(`${expected.unitPiping!.segments} segments in 1 unit type, placed 16 times`);
+    expect(note).toContain('size it in the unit type');
+    expect(world.saves()).toHaveLength(0);
   });
 });

@@ -146,6 +146,12 @@ export interface SizingResult {
   frictionBudget: FrictionBudget | null;
   /** The supply pressure and velocity limits used, recorded with an applied sizing (basis.ts). */
   conditions: SizingConditions;
+  /**
+   * The piping inside typical units, which keeps its sizes (a unit type's segment is one size in
+   * every placement; it is sized in the unit type): how many unit types, their segments, and how
+   * many placements. Null when the system has no placements.
+   */
+  unitPiping: { unitTypes: number; segments: number; placements: number } | null;
   /** The sized document (null when not feasible: nothing changes). */
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
@@ -238,6 +244,16 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   for (const id of [...(options.lockedSegmentIds ?? []), ...(options.segmentIds ?? []), ...Object.keys(options.candidateSizes ?? {})]) {
     if (!docIndexById.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
   }
+
+  const placed = new Set((doc.placements ?? []).map((p) => p.unitTypeId));
+  const unitPiping =
+    placed.size === 0
+      ? null
+      : {
+          unitTypes: placed.size,
+          segments: (doc.unitTypes ?? []).filter((t) => placed.has(t.id)).reduce((n, t) => n + t.segments.length, 0),
+          placements: doc.placements!.length,
+        };
 
   const startedAt = performance.now();
   let analyses = 0;
@@ -491,6 +507,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       boosterPressurePa: booster,
       frictionBudget: budget,
       conditions,
+      unitPiping,
       document: null,
       analyses,
       timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },
@@ -600,6 +617,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     boosterPressurePa: null,
     frictionBudget: budget,
     conditions,
+    unitPiping,
     document: verified && allVelocity ? sized : null,
     analyses,
     timings: { analysesMs, searchMs, totalMs: performance.now() - startedAt },

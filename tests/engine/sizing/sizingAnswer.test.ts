@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeSystem, type SystemDocumentInput } from '../../../src/engine';
 import { frictionBudgetOf, frictionBudgetPer100Ft, pressureAvailableForFriction } from '../../../src/engine/sizing/frictionBudget';
 import { sizeSystem, SizingError } from '../../../src/engine/sizing/sizeSystem';
+import { apartmentBuildingDocument } from '../../../src/engine/building/apartmentBuilding';
 import { KGM3_PER_LBFT3, M_PER_FT, PA_PER_PSI } from '../../../src/engine/units';
 import { expectClose } from '../../helpers/expectClose';
 
@@ -231,6 +232,7 @@ describe('sizing a building with a booster and pressure-reducing valves', () => 
     const result = sizeSystem(doc);
     expect(result.feasible).toBe(true);
     expect(result.verified).toBe(true);
+    expect(result.unitPiping).toBeNull(); // the demo has no typical units
     const a = analyzeSystem(result.document!);
     expect(a.verdict.allFixturesPass).toBe(true);
     expect(a.verdict.allVelocitiesPass).toBe(true);
@@ -240,5 +242,16 @@ describe('sizing a building with a booster and pressure-reducing valves', () => 
     console.log(
       `demo sizing: ${result.changedSegments} segments changed, ${result.analyses} analyses, volume ${result.volumeBeforeM3.toFixed(4)} → ${result.volumeAfterM3!.toFixed(4)} m³`,
     );
+  });
+
+  it('when a building with typical units is sized, then the answer says how much piping inside the units kept its size, and none of it changed', () => {
+    // 4 storeys × 4 apartments of one type (invented example building)
+    const doc = apartmentBuildingDocument(4);
+    const result = sizeSystem(doc);
+    const perType = doc.unitTypes[0].segments.length;
+    expect(result.unitPiping).toEqual({ unitTypes: 1, segments: perType, placements: 16 });
+    // the unit types are the designer's: no sizing result row names a segment inside a unit
+    expect(result.segments.every((s) => !s.segmentId.includes('.'))).toBe(true);
+    if (result.document) expect(result.document.unitTypes).toEqual(doc.unitTypes);
   });
 });

@@ -167,6 +167,14 @@ export function SizingPanel() {
                 .
               </p>
             ) : null}
+            {result.unitPiping ? (
+              <p className="text-sm text-ink-soft" data-testid="sizing-unit-piping">
+                The piping inside typical units keeps its sizes: {result.unitPiping.segments} segment{result.unitPiping.segments === 1 ? '' : 's'} in{' '}
+                {result.unitPiping.unitTypes} unit type{result.unitPiping.unitTypes === 1 ? '' : 's'}, placed {result.unitPiping.placements} time
+                {result.unitPiping.placements === 1 ? '' : 's'}. A unit type’s pipe is one size in every placement: size it in the unit type on the Building
+                page; the margins above include it as entered.
+              </p>
+            ) : null}
             {stale ? (
               <p className="text-sm font-semibold text-caution" data-testid="sizing-stale">
                 The draft changed since this answer: size again before applying.
