@@ -178,6 +178,44 @@ function ShownValue(p: { text: string; col: number; row: number; locked: string 
   );
 }
 
+/** A choice cell (material, size): its select once the row is live, its chosen label as text before. */
+function ChoiceCell(p: {
+  live: boolean;
+  label: string;
+  value: string;
+  options: Options;
+  locked: string | null;
+  col: number;
+  row: number;
+  onChoose: (value: string) => void;
+}) {
+  return (
+    <Cell>
+      {p.live ? (
+        <select
+          aria-label={p.label}
+          className={CELL}
+          value={p.value}
+          disabled={p.locked !== null}
+          title={p.locked ?? undefined}
+          aria-description={p.locked ?? undefined}
+          data-col={p.col}
+          data-row={p.row}
+          onChange={(ev) => p.onChoose(ev.target.value)}
+        >
+          {p.options.map((o) => (
+            <option key={o.value} value={o.value}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+      ) : (
+        <ShownValue text={chosenLabel(p.options, p.value)} col={p.col} row={p.row} locked={p.locked} />
+      )}
+    </Cell>
+  );
+}
+
 /** One segment's line; memoised on plain values, so an edit re-renders only the rows whose values changed. */
 const Row = memo(function Row(p: RowProps) {
   const id = p.id;
@@ -279,52 +317,26 @@ const Row = memo(function Row(p: RowProps) {
           {p.ends}
           {p.issuedText ? <span className="text-ink-muted"> · Issued: {p.issuedText}</span> : null}
         </Cell>
-        <Cell>
-          {live ? (
-            <select
-              aria-label={`${p.name} material`}
-              className={CELL}
-              value={p.materialValue}
-              disabled={p.lockMaterial !== null}
-              title={p.lockMaterial ?? undefined}
-              aria-description={p.lockMaterial ?? undefined}
-              data-col={2}
-              data-row={p.line}
-              onChange={(ev) => p.onMaterial(id, ev.target.value)}
-            >
-              {p.materialOptions.map((o) => (
-                <option key={o.value} value={o.value}>
-                  {o.label}
-                </option>
-              ))}
-            </select>
-          ) : (
-            <ShownValue text={chosenLabel(p.materialOptions, p.materialValue)} col={2} row={p.line} locked={p.lockMaterial} />
-          )}
-        </Cell>
-        <Cell>
-          {live ? (
-            <select
-              aria-label={`${p.name} size`}
-              className={CELL}
-              value={p.size}
-              disabled={p.lockSize !== null}
-              title={p.lockSize ?? undefined}
-              aria-description={p.lockSize ?? undefined}
-              data-col={3}
-              data-row={p.line}
-              onChange={(ev) => p.onSize(id, ev.target.value)}
-            >
-              {p.sizeOptions.map((o) => (
-                <option key={o.value} value={o.value}>
-                  {o.label}
-                </option>
-              ))}
-            </select>
-          ) : (
-            <ShownValue text={chosenLabel(p.sizeOptions, p.size)} col={3} row={p.line} locked={p.lockSize} />
-          )}
-        </Cell>
+        <ChoiceCell
+          live={live}
+          label={`${p.name} material`}
+          value={p.materialValue}
+          options={p.materialOptions}
+          locked={p.lockMaterial}
+          col={2}
+          row={p.line}
+          onChoose={(v) => p.onMaterial(id, v)}
+        />
+        <ChoiceCell
+          live={live}
+          label={`${p.name} size`}
+          value={p.size}
+          options={p.sizeOptions}
+          locked={p.lockSize}
+          col={3}
+          row={p.line}
+          onChoose={(v) => p.onSize(id, v)}
+        />
         <Cell>
           {live ? (
             <NumberCell
