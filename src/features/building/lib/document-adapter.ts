@@ -70,7 +70,7 @@ export interface GenerateOptions {
  */
 export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: readonly UnitType[], opts: GenerateOptions): Doc {
   const before = readBuilding(doc);
-  const floors = mergeFloors(before.floors, built.floors);
+  const { floors, idOf } = mergeFloors(before.floors, built.floors);
   const removed = opts.mode === 'replace' ? downstreamOf(doc, opts.startNodeId) : { segments: [], nodes: [], placements: [] };
   const goneSegments = new Set(removed.segments.map((s) => s.id));
   const goneNodes = new Set(removed.nodes.map((n) => n.id));
@@ -86,7 +86,7 @@ export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: re
   const newNodes: DocNode[] = built.nodes.map((n) => ({
     id: n.id,
     label: n.label,
-    floor: n.floor,
+    floor: idOf(n.floor),
     heightAboveFloor: n.heightAboveFloor,
     fixtureGroups: [],
     checkedFixtures: [],
@@ -99,19 +99,37 @@ export function writeGenerated(doc: Doc, built: GeneratedBuilding, unitTypes: re
     nodes: [...keptNodes, ...newNodes],
     segments: [...doc.segments.filter((s) => !goneSegments.has(s.id)), ...newSegments],
     unitTypes: [...before.unitTypes.filter((t) => !unitTypes.some((u) => u.id === t.id)), ...unitTypes],
-    placements: [...keptPlacements, ...built.placements.map((p) => PlacementSchema.parse(p))],
+    placements: [...keptPlacements, ...built.placements.map((p) => PlacementSchema.parse({ ...p, floor: idOf(p.floor) }))],
   };
 }
 
-function mergeFloors(existing: readonly Floor[], added: readonly Floor[]): Floor[] {
+/**
+ * The draft's floors with the generated ones joined: a generated floor is the draft's floor of the
+ * same name (letter case and spaces aside), whatever id either has, so a draft whose floors came from
+ * elsewhere (an import, another tool's ids) does not get a second "Level 3"; a generated floor whose
+ * id the draft already gives to a floor of another name gets a fresh id. `idOf` maps a generated
+ * floor id to the id it has in the result.
+ */
+function mergeFloors(existing: readonly Floor[], added: readonly Floor[]): { floors: Floor[]; idOf: (generatedId: string) => string } {
   const out = [...existing];
+  const renamed = new Map<string, string>();
+  const key = (name: string) => name.trim().replace(/\s+/g, ' ').toLowerCase();
   for (const f of added) {
-    const same = out.find((e) => e.id === f.id);
-    if (!same) out.push(f);
-    else if (same.elevation !== f.elevation)
-      throw new Error(`Floor “${f.name}” is at ${same.elevation} in the draft and at ${f.elevation} here: use one elevation.`);
+    const same = out.find((e) => key(e.name) === key(f.name));
+    if (same) {
+      if (same.elevation !== f.elevation)
+        throw new Error(`Floor “${f.name}” is at ${same.elevation} in the draft and at ${f.elevation} here: use one elevation.`);
+      if (same.id !== f.id) renamed.set(f.id, same.id);
+      continue;
+    }
+    const level = out.find((e) => e.elevation === f.elevation);
+    if (level) throw new Error(`Floor “${f.name}” is at ${f.elevation}, where the draft has “${level.name}”: give it the draft's name, or another elevation.`);
+    let id = f.id;
+    for (let n = 2; out.some((e) => e.id === id); n++) id = `${f.id}-${n}`;
+    if (id !== f.id) renamed.set(f.id, id);
+    out.push({ ...f, id });
   }
-  return out.sort((a, b) => a.elevation - b.elevation);
+  return { floors: out.sort((a, b) => a.elevation - b.elevation), idOf: (generatedId) => renamed.get(generatedId) ?? generatedId };
 }
 
 /** The draft with a unit type changed: every placement of it follows (the analysis expands them). */
