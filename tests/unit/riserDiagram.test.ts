@@ -101,3 +101,17 @@ describe('the riser diagram on paper', () => {
     expect(d.devices.map((x) => x.tag).sort()).toEqual(['BFP', 'M']);
   });
 });
+
+describe('the riser diagram levels', () => {
+  it('when a hot system shares the building floors but stops below the roof, then the roof is not drawn as an empty level; the cold system that reaches it keeps it', () => {
+    const h = hot();
+    const c = demo();
+    const hotLevels = riserDiagram(h, analyzeSystem(h)).levels.map((l) => l.name);
+    const coldLevels = riserDiagram(c, analyzeSystem(c)).levels.map((l) => l.name);
+    // Both documents name the same eight floors (Level 1 … Roof); only the cold one has nodes on the roof.
+    expect(h.floors.map((f) => f.name)).toEqual(c.floors.map((f) => f.name));
+    expect(coldLevels).toContain('Roof');
+    expect(hotLevels).not.toContain('Roof');
+    expect(hotLevels).toEqual(h.floors.map((f) => f.name).filter((n) => n !== 'Roof'));
+  });
+});

@@ -120,9 +120,13 @@ export function riserDiagram(doc: SystemDocument, a: Analysis): RiserDiagram {
   const minRise = RISER_MIN_RISE[a.unitSystem];
   const isRiser = (s: (typeof a.segments)[number]) => Math.abs(s.rise) >= minRise;
 
-  // floors as the document names them; else the levels where risers end
+  // floors as the document names them, up to the highest the system reaches (a hot system that
+  // shares the building's floors but stops below the roof shows no empty roof level); else the
+  // levels where risers end
+  const highest = Math.max(...a.nodes.map((n) => n.elevation));
+  const floorsReached = [...doc.floors].sort((x, y) => x.elevation - y.elevation).filter((f, i) => i === 0 || f.elevation <= highest + 1e-6);
   const levels: DiagramLevel[] = doc.floors.length
-    ? [...doc.floors].sort((x, y) => x.elevation - y.elevation).map((f) => ({ name: f.name, elevation: f.elevation }))
+    ? floorsReached.map((f) => ({ name: f.name, elevation: f.elevation }))
     : [
         ...new Map(
           [doc.source.nodeId, ...a.segments.filter(isRiser).map((s) => s.to)]
