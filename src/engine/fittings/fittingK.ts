@@ -153,6 +153,14 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
  * hot path, without the argument guards. Same result as fittingK.
  */
 export function fittingKOfEntry(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
+  // A K measured at some sizes only (the push-to-connect fittings): that K under every method, at those sizes.
+  if (entry.kBySize !== undefined) {
+    const K = Object.prototype.hasOwnProperty.call(entry.kBySize, ctx.nominalSizeKey) ? entry.kBySize[ctx.nominalSizeKey] : undefined;
+    if (K === undefined) throw new RangeError(`fittingK: fitting type '${entry.id}' has no data for any method at size ${ctx.nominalSizeKey}`);
+    const result: FittingKResult = { K, method: ctx.method, fixedK: true, source: sourceFor(entry, 'fixed K') };
+    if (ctx.method === 'equivalent-length' && ctx.frictionFactor > 0) result.equivalentLengthM = (K * ctx.innerDiameterM) / ctx.frictionFactor;
+    return result;
+  }
   // Entrances and exits: one constant K whatever the method.
   if (!hasMethodData(entry) && entry.fixedK !== undefined) {
     const result: FittingKResult = { K: entry.fixedK, method: ctx.method, fixedK: true, source: entry.sources[0] };
