@@ -110,9 +110,15 @@ function tryDarby(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
 function tryEquivalentLength(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
   const Le = entry.equivalentLengthFt?.[ctx.nominalSizeKey];
   if (Le === undefined) return undefined;
-  const equivalentLengthM = Le * M_PER_FT;
+  let equivalentLengthM = Le * M_PER_FT;
+  let K = (ctx.frictionFactor * equivalentLengthM) / ctx.innerDiameterM;
+  // a published lowest K (the push-fit elbow's plateau) wins over a length that would give less
+  if (entry.kFloor !== undefined && K < entry.kFloor) {
+    K = entry.kFloor;
+    if (ctx.frictionFactor > 0) equivalentLengthM = (K * ctx.innerDiameterM) / ctx.frictionFactor;
+  }
   return {
-    K: (ctx.frictionFactor * equivalentLengthM) / ctx.innerDiameterM,
+    K,
     equivalentLengthM,
     method: 'equivalent-length',
     source: sourceFor(entry, 'equivalent-length'),

@@ -34,6 +34,8 @@ export interface FittingTypeEntry {
    * method at those sizes, and no value at any other size (the analysis then names the fitting).
    */
   kBySize?: Readonly<Record<string, number>>;
+  /** A published lowest K, with an equivalent length: the K used is never below it (named in the equivalent-length source line). */
+  kFloor?: number;
   /** One line per datum: which method, which table, which edition. A line that could not be checked
    * against the printed table says so (NOT_VERIFIED). */
   sources: string[];
@@ -151,9 +153,9 @@ function pexEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>>
  * - elbow: K falls as Re rises and levels off at 1.0 above Re 40 000 (the correlation below that is in
  *   the paper, not in the abstract read); its equivalent length is 0.8 to 1.1 m over the tested range.
  *   Listed as an equivalent length of 1.1 m, the upper end of that published range, used as that
- *   many metres of the segment's pipe (K = f·L/D, as a manufacturer's equivalent length is): over the
- *   tested range it does not understate the loss, and at Re 10^5 in 3/4 type L copper it gives the
- *   published K of about 1.0.
+ *   many metres of the segment's pipe (K = f·L/D, as a manufacturer's equivalent length is), with
+ *   the published plateau K = 1.0 as its floor (K only falls towards it as Re rises): neither
+ *   published bound is undercut. At Re 10^5 in 3/4 type L copper the length alone gives K ≈ 1.0.
  * - coupling: K = 0.007, independent of Re (the published average); equivalent length 4.5 to 7.5 mm.
  * Only 3/4 was tested, so no other size is listed; no push-fit tee was tested, so none is listed.
  */
@@ -166,6 +168,8 @@ interface PushLine {
   sizes: string;
   /** Equivalent length of the 90° elbow, m, by nominal size key. */
   elbowEquivalentLengthM: Record<string, number>;
+  /** The elbow's lowest K (its plateau at high Re). */
+  elbowKFloor: number;
   /** K of the coupling by nominal size key. */
   couplingK: Record<string, number>;
 }
@@ -176,6 +180,7 @@ export const PUSH_FITTING_LINES: Readonly<Record<string, PushLine>> = {
     label: 'Push-to-connect fitting (lead-free brass)',
     sizes: '3/4 in (the size tested)',
     elbowEquivalentLengthM: { '3/4': 1.1 },
+    elbowKFloor: 1.0,
     couplingK: { '3/4': 0.007 },
   },
 };
@@ -194,8 +199,9 @@ function pushEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>
       id: elbow,
       label: `${row.label}, elbow, 90°`,
       equivalentLengthFt: Object.freeze(Object.fromEntries(Object.entries(row.elbowEquivalentLengthM).map(([k, m]) => [k, m / M_PER_FT]))),
+      kFloor: row.elbowKFloor,
       sources: [
-        `equivalent-length: elbow, ${bySize(row.elbowEquivalentLengthM, ' m')} (the upper end of the published 0.8–1.1 m; K levels off at 1.0 above Re 40 000), used as metres of the segment's pipe, ${NIST_PUSH}`,
+        `equivalent-length: elbow, ${bySize(row.elbowEquivalentLengthM, ' m')} (the upper end of the published 0.8–1.1 m), used as metres of the segment's pipe, and K never below ${row.elbowKFloor} (the published level above Re 40 000), ${NIST_PUSH}`,
       ],
     };
     const coupling = `${stem}-coupling`;
