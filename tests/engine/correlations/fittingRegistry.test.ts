@@ -26,7 +26,7 @@ describe('FITTING_TYPES registry', () => {
   it('has every type the engine needs', () => {
     for (const id of REQUIRED) expect(FITTING_TYPES[id], id).toBeDefined();
   });
-  it('lists no copper press-connect fitting (no published K found); PEX press only from its maker\'s table, push-fit only from the NIST measurements', () => {
+  it("lists no copper press-connect fitting (no published K found); PEX press only from its maker's table, push-fit only from the NIST measurements", () => {
     for (const id of Object.keys(FITTING_TYPES)) {
       if (/push/.test(id)) expect(id).toMatch(/^push-brass-(elbow-90|coupling)$/);
       if (/press/.test(id)) expect(id).toMatch(/^pex-press-(bronze|polymer)-/);

@@ -40,7 +40,8 @@ describe('copper kept, soldered → push-to-connect', () => {
   });
 
   it('elbows (45° and 90°) become the push elbow and couplings the push coupling; tees and valves are kept', () => {
-    for (const metal of ['elbow-90-standard', 'elbow-90-long-radius', 'elbow-45-standard']) expect(copperFittingFor(metal, 'push-brass')).toBe('push-brass-elbow-90');
+    for (const metal of ['elbow-90-standard', 'elbow-90-long-radius', 'elbow-45-standard'])
+      expect(copperFittingFor(metal, 'push-brass')).toBe('push-brass-elbow-90');
     expect(copperFittingFor('coupling', 'push-brass')).toBe('push-brass-coupling');
     for (const id of ['tee-run', 'tee-branch', ...KEPT]) expect(copperFittingFor(id, 'push-brass'), id).toBeUndefined();
   });
@@ -81,9 +82,9 @@ describe('the caution on a PEX segment still carrying metal-pipe fittings', () =
     const [before] = pexWarnings(doc);
     expect(before.elementIds).toEqual(['sc', 'sd']);
     for (const s of doc.segments.filter((x) => x.material === 'pex-sdr9')) {
-      s.fittings = s.fittings.map((f) => ({ ...f, typeId: pexFittingFor(f.typeId, 'press-bronze', s.size) ?? f.typeId }));
+      s.fittings = (s.fittings ?? []).map((f) => ({ ...f, typeId: pexFittingFor(f.typeId, 'press-bronze', s.size) ?? f.typeId }));
     }
-    expect(doc.segments.find((s) => s.id === 'sc')!.fittings[0].typeId).toBe('pex-press-bronze-elbow-90');
+    expect(doc.segments.find((s) => s.id === 'sc')!.fittings?.[0].typeId).toBe('pex-press-bronze-elbow-90');
     expect(pexWarnings(doc)).toEqual([]);
   });
 
