@@ -160,7 +160,7 @@ function pexEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>>
  * Only 3/4 was tested, so no other size is listed; no push-fit tee was tested, so none is listed.
  */
 const NIST_PUSH =
-  'L. Lin, N. Milesi-Ferretti, G. Glaeser, K. Y. Kim, "Measurement and Uncertainty Analysis of Pressure Losses in Push-to-Connect Elbows and Couplings", NIST (abstract, https://www.nist.gov/node/1887021): lead-free brass push-to-connect fittings for copper or plastic pipe, 3/4 NTS, Re ≈ 10^4–10^5 — measured data, one elbow and one coupling';
+  'L. Lin, N. Milesi-Ferretti, G. Glaeser, K. Y. Kim, "Measurement and Uncertainty Analysis of Pressure Losses in Push-to-Connect Elbows and Couplings", National Institute of Standards and Technology publication (abstract): lead-free brass push-to-connect fittings for copper or plastic pipe, 3/4 NTS, Re ≈ 10^4–10^5 — measured data, one elbow and one coupling';
 
 interface PushLine {
   /** The fitting line, in Headroom's words. */
