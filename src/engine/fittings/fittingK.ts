@@ -40,6 +40,8 @@ export interface FittingKResult {
   fellBackFrom?: FittingMethod;
   /** True when a table was read outside its range (Crane f_T beyond 1/2–10 in, butterfly N beyond 24 in). */
   extrapolated?: boolean;
+  /** The tested Reynolds numbers of a measured fitting, when Re is outside them (its K is used as published). */
+  outsideTestedRe?: { min: number; max: number };
 }
 
 type Attempt = Omit<FittingKResult, 'fellBackFrom'> | undefined;
@@ -159,6 +161,12 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
  * hot path, without the argument guards. Same result as fittingK.
  */
 export function fittingKOfEntry(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
+  const result = fittingKOfData(entry, ctx);
+  const tested = entry.testedRe;
+  return tested !== undefined && ctx.Re > 0 && (ctx.Re < tested.min || ctx.Re > tested.max) ? { ...result, outsideTestedRe: tested } : result;
+}
+
+function fittingKOfData(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
   // A K measured at some sizes only (the push-to-connect fittings): that K under every method, at those sizes.
   if (entry.kBySize !== undefined) {
     const K = Object.prototype.hasOwnProperty.call(entry.kBySize, ctx.nominalSizeKey) ? entry.kBySize[ctx.nominalSizeKey] : undefined;

@@ -36,6 +36,8 @@ export interface FittingTypeEntry {
   kBySize?: Readonly<Record<string, number>>;
   /** A published lowest K, with an equivalent length: the K used is never below it (named in the equivalent-length source line). */
   kFloor?: number;
+  /** The Reynolds numbers a measured fitting was tested over; outside them fittingK says so (`outsideTestedRe`). */
+  testedRe?: { min: number; max: number };
   /** One line per datum: which method, which table, which edition. A line that could not be checked
    * against the printed table says so (NOT_VERIFIED). */
   sources: string[];
@@ -172,6 +174,8 @@ interface PushLine {
   elbowKFloor: number;
   /** K of the coupling by nominal size key. */
   couplingK: Record<string, number>;
+  /** The Reynolds numbers of the tests. */
+  testedRe: { min: number; max: number };
 }
 
 /** Keyed by the id stem: `<stem>-elbow-90`, `<stem>-coupling`. Values: NIST_PUSH, as above. */
@@ -182,6 +186,7 @@ export const PUSH_FITTING_LINES: Readonly<Record<string, PushLine>> = {
     elbowEquivalentLengthM: { '3/4': 1.1 },
     elbowKFloor: 1.0,
     couplingK: { '3/4': 0.007 },
+    testedRe: { min: 1e4, max: 1e5 },
   },
 };
 
@@ -200,6 +205,7 @@ function pushEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>
       label: `${row.label}, elbow, 90°`,
       equivalentLengthFt: Object.freeze(Object.fromEntries(Object.entries(row.elbowEquivalentLengthM).map(([k, m]) => [k, m / M_PER_FT]))),
       kFloor: row.elbowKFloor,
+      testedRe: row.testedRe,
       sources: [
         `equivalent-length: elbow, ${bySize(row.elbowEquivalentLengthM, ' m')} (the upper end of the published 0.8–1.1 m), used as metres of the segment's pipe, and K never below ${row.elbowKFloor} (the published level above Re 40 000), ${NIST_PUSH}`,
       ],
@@ -209,6 +215,7 @@ function pushEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>
       id: coupling,
       label: `${row.label}, coupling`,
       kBySize: Object.freeze({ ...row.couplingK }),
+      testedRe: row.testedRe,
       sources: [`fixed K by size: coupling, ${bySize(row.couplingK, '')} (independent of Re, the published average), ${NIST_PUSH}`],
     };
   }
@@ -430,6 +437,7 @@ function withVerified(entries: Record<FittingTypeId, Omit<FittingTypeEntry, 'ver
 
 for (const entry of Object.values(ENTRIES)) {
   Object.freeze(entry.sources);
+  if (entry.testedRe) Object.freeze(entry.testedRe);
   Object.freeze(entry);
 }
 

@@ -87,7 +87,9 @@ describe('push-to-connect brass fittings (NIST, 3/4)', () => {
     expect(push.sort()).toEqual(['push-brass-coupling', 'push-brass-elbow-90']);
     for (const id of push) {
       const e = FITTING_TYPES[id];
-      expect(e.sources.join(' ')).toMatch(/Lin, N\. Milesi-Ferretti.*Pressure Losses in Push-to-Connect Elbows and Couplings.*National Institute of Standards and Technology/);
+      expect(e.sources.join(' ')).toMatch(
+        /Lin, N\. Milesi-Ferretti.*Pressure Losses in Push-to-Connect Elbows and Couplings.*National Institute of Standards and Technology/,
+      );
       expect(e.verified).toBe(true);
       expect(e.pipeFamily).toBeUndefined();
     }
@@ -124,6 +126,35 @@ describe('a copper segment with push fittings, through the engine', () => {
     const V = 5e-4 / ((Math.PI * D_L_3_4 * D_L_3_4) / 4);
     // the engine's density at 20 °C against the IAPWS-95 table value printed to 6 digits: 1e-4
     expectClose(s.fittingLoss, 3 * NIST_COUPLING_K * 0.5 * RHO_20C * V * V, { rtol: 1e-4 });
+  });
+
+  it('inside the tested Reynolds numbers there is no caution; below them, each segment so used is named with its Re', () => {
+    const inRange = withFittings([{ typeId: 'push-brass-coupling', count: 1 }]);
+    expect(inRange.si.segments[0].reynolds).toBeGreaterThan(1e4); // ≈ 3.2e4 at 0.5 L/s
+    expect(inRange.warnings.map((w) => w.code)).not.toContain('fitting-outside-tested-re');
+
+    // two 3/4 segments in series: the first carries 0.5 L/s (tested range), the branch 0.05 L/s (Re ≈ 3200)
+    const doc = clone(oneSegment());
+    doc.nodes.push({ id: 'far', elevation: 3, continuousDemand: 0.05 });
+    doc.segments[0].fittings = [{ typeId: 'push-brass-coupling', count: 1 }];
+    doc.segments.push({
+      id: 's2',
+      from: 'end',
+      to: 'far',
+      material: 'copper-l',
+      size: '3/4',
+      length: 5,
+      fittings: [{ typeId: 'push-brass-coupling', count: 1 }],
+    });
+    const a = analyzeSystem(doc);
+    const cautions = a.warnings.filter((w) => w.code === 'fitting-outside-tested-re');
+    // the first segment's K is not carried over to the second without asking again
+    expect(cautions.map((w) => w.elementId)).toEqual(['s2']);
+    expect(cautions[0].severity).toBe('caution');
+    expect(cautions[0].detail).toMatch(/^Push-to-connect fitting \(lead-free brass\), coupling: Re = \d+, tested 10000–100000$/);
+    // its loss is still the published K
+    const s2 = a.si.segments.find((s) => s.id === 's2')!;
+    expectClose(s2.fittingsK, NIST_COUPLING_K, { rtol: 1e-12 });
   });
 
   it('on a 1 in segment the analysis names the segment and the fitting instead of guessing', () => {
