@@ -53,6 +53,10 @@ export const WARNING_CODES = {
     severity: 'caution',
     message: 'This fitting type has no data for the chosen loss method; another method was used for it.',
   },
+  'fitting-outside-tested-re': {
+    severity: 'caution',
+    message: "The flow here is outside the Reynolds numbers this fitting's loss was measured over; the published loss was used as it stands.",
+  },
   'pex-metal-fittings': {
     severity: 'caution',
     message:

@@ -33,6 +33,10 @@ describe('the catalogs in PostgreSQL', () => {
     ).toEqual(Object.keys(FIXTURE_TYPES).sort());
     const copperL = byKind('material').find((e) => e.id === 'copper-l')!.data;
     expect(copperL).toEqual(JSON.parse(JSON.stringify(MATERIALS['copper-l'])));
+    // a fitting published at one size only keeps its per-size K through the database (NIST push-fit coupling)
+    const pushCoupling = byKind('fitting-type').find((e) => e.id === 'push-brass-coupling')!;
+    expect(pushCoupling.data).toEqual(JSON.parse(JSON.stringify(FITTING_TYPES['push-brass-coupling'])));
+    expect(pushCoupling.source).toContain('Push-to-Connect Elbows and Couplings');
     expect(byKind('device-template').length).toBeGreaterThan(0);
   });
 });

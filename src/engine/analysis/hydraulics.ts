@@ -201,7 +201,21 @@ export function computeHydraulics(model: SiModel, topo: Topology, demand: Demand
             );
           }
           res = full;
-          if (full.method === 'crane' || full.fixedK === true) rememberFlowFreeK(flowFreeK, sizeKey, fit.typeId, full);
+          // a measured fitting's tested range depends on the flow: its K is asked for each segment
+          if ((full.method === 'crane' || full.fixedK === true) && FITTING_TYPES[fit.typeId]?.testedRe === undefined) {
+            rememberFlowFreeK(flowFreeK, sizeKey, fit.typeId, full);
+          }
+          if (full.outsideTestedRe !== undefined) {
+            const { min, max } = full.outsideTestedRe;
+            warnings.push(
+              makeWarning(
+                'fitting-outside-tested-re',
+                'fitting',
+                id,
+                `${FITTING_TYPES[fit.typeId]?.label ?? fit.typeId}: Re = ${Math.round(Re)}, tested ${Math.round(min)}–${Math.round(max)}`,
+              ),
+            );
+          }
         }
         kFittings += fit.count * res.K;
         if (res.fellBackFrom !== undefined) {

@@ -40,6 +40,8 @@ export interface FittingKResult {
   fellBackFrom?: FittingMethod;
   /** True when a table was read outside its range (Crane f_T beyond 1/2–10 in, butterfly N beyond 24 in). */
   extrapolated?: boolean;
+  /** The tested Reynolds numbers of a measured fitting, when Re is outside them (its K is used as published). */
+  outsideTestedRe?: { min: number; max: number };
 }
 
 type Attempt = Omit<FittingKResult, 'fellBackFrom'> | undefined;
@@ -110,9 +112,15 @@ function tryDarby(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
 function tryEquivalentLength(entry: FittingTypeEntry, ctx: FittingContext): Attempt {
   const Le = entry.equivalentLengthFt?.[ctx.nominalSizeKey];
   if (Le === undefined) return undefined;
-  const equivalentLengthM = Le * M_PER_FT;
+  let equivalentLengthM = Le * M_PER_FT;
+  let K = (ctx.frictionFactor * equivalentLengthM) / ctx.innerDiameterM;
+  // a published lowest K (the push-fit elbow's plateau) wins over a length that would give less
+  if (entry.kFloor !== undefined && K < entry.kFloor) {
+    K = entry.kFloor;
+    if (ctx.frictionFactor > 0) equivalentLengthM = (K * ctx.innerDiameterM) / ctx.frictionFactor;
+  }
   return {
-    K: (ctx.frictionFactor * equivalentLengthM) / ctx.innerDiameterM,
+    K,
     equivalentLengthM,
     method: 'equivalent-length',
     source: sourceFor(entry, 'equivalent-length'),
@@ -153,6 +161,20 @@ export function fittingK(typeId: FittingTypeId, ctx: FittingContext): FittingKRe
  * hot path, without the argument guards. Same result as fittingK.
  */
 export function fittingKOfEntry(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
+  const result = fittingKOfData(entry, ctx);
+  const tested = entry.testedRe;
+  return tested !== undefined && ctx.Re > 0 && (ctx.Re < tested.min || ctx.Re > tested.max) ? { ...result, outsideTestedRe: tested } : result;
+}
+
+function fittingKOfData(entry: FittingTypeEntry, ctx: FittingContext): FittingKResult {
+  // A K measured at some sizes only (the push-to-connect fittings): that K under every method, at those sizes.
+  if (entry.kBySize !== undefined) {
+    const K = Object.prototype.hasOwnProperty.call(entry.kBySize, ctx.nominalSizeKey) ? entry.kBySize[ctx.nominalSizeKey] : undefined;
+    if (K === undefined) throw new RangeError(`fittingK: fitting type '${entry.id}' has no data for any method at size ${ctx.nominalSizeKey}`);
+    const result: FittingKResult = { K, method: ctx.method, fixedK: true, source: sourceFor(entry, 'fixed K') };
+    if (ctx.method === 'equivalent-length' && ctx.frictionFactor > 0) result.equivalentLengthM = (K * ctx.innerDiameterM) / ctx.frictionFactor;
+    return result;
+  }
   // Entrances and exits: one constant K whatever the method.
   if (!hasMethodData(entry) && entry.fixedK !== undefined) {
     const result: FittingKResult = { K: entry.fixedK, method: ctx.method, fixedK: true, source: entry.sources[0] };

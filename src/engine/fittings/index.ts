@@ -9,5 +9,5 @@ export type { FittingTypeId, FittingTypeEntry } from './types';
 export { fittingK } from './fittingK';
 export type { FittingMethod, FittingContext, FittingKResult } from './fittingK';
 export type { FittingMethodInfo } from './methods';
-export { PEX_LINES, pexFittingFor, isMetalPipeFitting } from './pexSubstitute';
-export type { PexFittingLine } from './pexSubstitute';
+export { PEX_LINES, COPPER_LINES, pexFittingFor, copperFittingFor, isMetalPipeFitting, publishedAtSize } from './pexSubstitute';
+export type { PexFittingLine, CopperFittingLine } from './pexSubstitute';

@@ -1,13 +1,18 @@
 /**
  * The registry of fitting types. Each entry carries the data of every method that publishes it,
- * and names the source of each datum in `sources`. Copper press-connect and push-fit fittings are
- * not in any published table available here, so they are not listed (no K is invented for them).
- * PEX insert and PEX press fittings are listed from a manufacturer's published equivalent lengths;
- * PEX cold-expansion rows were not retrieved from any source, so none is listed.
+ * and names the source of each datum in `sources`.
+ * - PEX insert and PEX press fittings: a manufacturer's published equivalent lengths (VIEGA_PEX).
+ * - Push-to-connect brass fittings for copper tube: NIST's measured loss of a 3/4 elbow and coupling
+ *   (NIST_PUSH); no other size, and no push-fit tee, was published there, so none is listed.
+ * - PEX cold-expansion elbows, tees and couplings: not listed. The one maker's manual that publishes
+ *   them was retrieved only in part (its flow-through multiport tees), not its elbow, tee and
+ *   coupling rows; no value is invented for them.
+ * - Copper press-connect fittings: not listed; no published K or equivalent length was found.
  */
 import { ENTRANCE_REENTRANT_K, ENTRANCE_SHARP_K, EXIT_K } from './expansion';
 import { IPC_E103_3_5, IPC_E103_3_5_SOURCE, type EquivalentLengthRow } from './equivalentLength';
 import { NOT_VERIFIED } from '../catalog/notVerified';
+import { M_PER_FT } from '../units';
 
 export type FittingTypeId = string;
 
@@ -24,13 +29,23 @@ export interface FittingTypeEntry {
   equivalentLengthFt?: EquivalentLengthRow;
   /** Constant K, used by every method (entrances, exits) or as the last fallback. */
   fixedK?: number;
+  /**
+   * A constant K published only at some sizes (a measured fitting), by nominal size key; used by every
+   * method at those sizes, and no value at any other size (the analysis then names the fitting).
+   */
+  kBySize?: Readonly<Record<string, number>>;
+  /** A published lowest K, with an equivalent length: the K used is never below it (named in the equivalent-length source line). */
+  kFloor?: number;
+  /** The Reynolds numbers a measured fitting was tested over; outside them fittingK says so (`outsideTestedRe`). */
+  testedRe?: { min: number; max: number };
   /** One line per datum: which method, which table, which edition. A line that could not be checked
    * against the printed table says so (NOT_VERIFIED). */
   sources: string[];
   /**
    * The kind of pipe the fitting is made for, where it matters for a substitution: 'metal' for the
    * threaded or soldered elbows, tees and couplings whose data are metal-pipe tables; 'pex' for the
-   * PEX lines. Valves, entrances and exits have none (they fit any pipe).
+   * PEX lines. Valves, entrances and exits have none (they fit any pipe), and so have the
+   * push-to-connect fittings, which are made for copper tube and for plastic pipe of copper tube size.
    */
   pipeFamily?: 'metal' | 'pex';
   /** false when any source line is not verified (see which in `sources`; fittingK reports it per method). */
@@ -127,6 +142,82 @@ function pexEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>>
         sources: [`equivalent-length: ${row.line}, ${column} column, ${row.sizes}, ${VIEGA_PEX}`],
       };
     }
+  }
+  return out;
+}
+
+/**
+ * Push-to-connect fittings, measured data: L. Lin, N. Milesi-Ferretti, G. Glaeser, K. Y. Kim,
+ * "Measurement and Uncertainty Analysis of Pressure Losses in Push-to-Connect Elbows and Couplings",
+ * NIST (abstract read at https://www.nist.gov/node/1887021). One commercially available lead-free
+ * brass elbow and one coupling, push-to-connect, "for use with copper or plastic pipe", nominal tube
+ * size 3/4, water at Re from about 10^4 to 10^5:
+ * - elbow: K falls as Re rises and levels off at 1.0 above Re 40 000 (the correlation below that is in
+ *   the paper, not in the abstract read); its equivalent length is 0.8 to 1.1 m over the tested range.
+ *   Listed as an equivalent length of 1.1 m, the upper end of that published range, used as that
+ *   many metres of the segment's pipe (K = f·L/D, as a manufacturer's equivalent length is), with
+ *   the published plateau K = 1.0 as its floor (K only falls towards it as Re rises): neither
+ *   published bound is undercut. At Re 10^5 in 3/4 type L copper the length alone gives K ≈ 1.0.
+ * - coupling: K = 0.007, independent of Re (the published average); equivalent length 4.5 to 7.5 mm.
+ * Only 3/4 was tested, so no other size is listed; no push-fit tee was tested, so none is listed.
+ */
+const NIST_PUSH =
+  'L. Lin, N. Milesi-Ferretti, G. Glaeser, K. Y. Kim, "Measurement and Uncertainty Analysis of Pressure Losses in Push-to-Connect Elbows and Couplings", National Institute of Standards and Technology publication (abstract): lead-free brass push-to-connect fittings for copper or plastic pipe, 3/4 NTS, Re ≈ 10^4–10^5 — measured data, one elbow and one coupling';
+
+interface PushLine {
+  /** The fitting line, in Headroom's words. */
+  label: string;
+  sizes: string;
+  /** Equivalent length of the 90° elbow, m, by nominal size key. */
+  elbowEquivalentLengthM: Record<string, number>;
+  /** The elbow's lowest K (its plateau at high Re). */
+  elbowKFloor: number;
+  /** K of the coupling by nominal size key. */
+  couplingK: Record<string, number>;
+  /** The Reynolds numbers of the tests. */
+  testedRe: { min: number; max: number };
+}
+
+/** Keyed by the id stem: `<stem>-elbow-90`, `<stem>-coupling`. Values: NIST_PUSH, as above. */
+export const PUSH_FITTING_LINES: Readonly<Record<string, PushLine>> = {
+  'push-brass': {
+    label: 'Push-to-connect fitting (lead-free brass)',
+    sizes: '3/4 in (the size tested)',
+    elbowEquivalentLengthM: { '3/4': 1.1 },
+    elbowKFloor: 1.0,
+    couplingK: { '3/4': 0.007 },
+    testedRe: { min: 1e4, max: 1e5 },
+  },
+};
+
+/** '1.1 m at 3/4 in' — a value per size, as the source lines print them. */
+const bySize = (values: Record<string, number>, unit: string): string =>
+  Object.entries(values)
+    .map(([key, v]) => `${v}${unit} at ${key} in`)
+    .join(', ');
+
+function pushEntries(): Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> {
+  const out: Record<FittingTypeId, Omit<FittingTypeEntry, 'verified'>> = {};
+  for (const [stem, row] of Object.entries(PUSH_FITTING_LINES)) {
+    const elbow = `${stem}-elbow-90`;
+    out[elbow] = {
+      id: elbow,
+      label: `${row.label}, elbow, 90°`,
+      equivalentLengthFt: Object.freeze(Object.fromEntries(Object.entries(row.elbowEquivalentLengthM).map(([k, m]) => [k, m / M_PER_FT]))),
+      kFloor: row.elbowKFloor,
+      testedRe: row.testedRe,
+      sources: [
+        `equivalent-length: elbow, ${bySize(row.elbowEquivalentLengthM, ' m')} (the upper end of the published 0.8–1.1 m), used as metres of the segment's pipe, and K never below ${row.elbowKFloor} (the published level above Re 40 000), ${NIST_PUSH}`,
+      ],
+    };
+    const coupling = `${stem}-coupling`;
+    out[coupling] = {
+      id: coupling,
+      label: `${row.label}, coupling`,
+      kBySize: Object.freeze({ ...row.couplingK }),
+      testedRe: row.testedRe,
+      sources: [`fixed K by size: coupling, ${bySize(row.couplingK, '')} (independent of Re, the published average), ${NIST_PUSH}`],
+    };
   }
   return out;
 }
@@ -330,6 +421,7 @@ const ENTRIES: Record<FittingTypeId, FittingTypeEntry> = withVerified({
     sources: ['fixed K = 0.78: inward-projecting entrance, Crane Technical Paper No. 410 (2009)'],
   },
   ...pexEntries(),
+  ...pushEntries(),
   exit: {
     id: 'exit',
     label: 'Exit into a vessel',
@@ -345,6 +437,7 @@ function withVerified(entries: Record<FittingTypeId, Omit<FittingTypeEntry, 'ver
 
 for (const entry of Object.values(ENTRIES)) {
   Object.freeze(entry.sources);
+  if (entry.testedRe) Object.freeze(entry.testedRe);
   Object.freeze(entry);
 }
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { FITTING_TYPES, fittingK, type FittingMethod } from '../../../src/engine/fittings';
+import { FITTING_TYPES, fittingK, publishedAtSize, type FittingMethod } from '../../../src/engine/fittings';
 import { NOT_VERIFIED } from '../../../src/engine/catalog/notVerified';
 
 const REQUIRED = [
@@ -26,9 +26,9 @@ describe('FITTING_TYPES registry', () => {
   it('has every type the engine needs', () => {
     for (const id of REQUIRED) expect(FITTING_TYPES[id], id).toBeDefined();
   });
-  it("lists no copper press-connect or push-fit fitting (no published K available); PEX press only from its maker's table", () => {
+  it("lists no copper press-connect fitting (no published K found); PEX press only from its maker's table, push-fit only from the NIST measurements", () => {
     for (const id of Object.keys(FITTING_TYPES)) {
-      expect(id).not.toMatch(/push/);
+      if (/push/.test(id)) expect(id).toMatch(/^push-brass-(elbow-90|coupling)$/);
       if (/press/.test(id)) expect(id).toMatch(/^pex-press-(bronze|polymer)-/);
     }
   });
@@ -42,7 +42,7 @@ describe('FITTING_TYPES registry', () => {
       if (entry.hooper) expect(has('hooper-2k:')).toBe(true);
       if (entry.darby) expect(has('darby-3k:')).toBe(true);
       if (entry.equivalentLengthFt) expect(has('equivalent-length:')).toBe(true);
-      if (entry.fixedK !== undefined) expect(has('fixed K')).toBe(true);
+      if (entry.fixedK !== undefined || entry.kBySize !== undefined) expect(has('fixed K')).toBe(true);
       expect(entry.verified).toBe(entry.sources.every((line) => !line.includes(NOT_VERIFIED)));
     });
     it(`${id}: gives a finite, non-negative K by every method at every common size`, () => {
@@ -53,9 +53,8 @@ describe('FITTING_TYPES registry', () => {
           ['2', 2, 1.985],
           ['4', 4, 3.905],
         ] as const) {
-          // A manufacturer's line published only at some sizes (PEX inserts, 1/2–1 in) has no value at the others.
-          const lengthOnly = entry.equivalentLengthFt && entry.craneN === undefined && !entry.hooper && !entry.darby && entry.fixedK === undefined;
-          if (lengthOnly && entry.equivalentLengthFt![key] === undefined) continue;
+          // A line published only at some sizes (PEX inserts, 1/2–1 in; push-fit, 3/4 in) has no value at the others.
+          if (!publishedAtSize(entry, key)) continue;
           const r = fittingK(id, { method, nominalSizeIn: nominal, nominalSizeKey: key, innerDiameterM: idIn * 0.0254, Re: 5e4, frictionFactor: 0.022 });
           expect(Number.isFinite(r.K) && r.K >= 0, `${method} ${key}`).toBe(true);
           expect(r.source.length).toBeGreaterThan(5);

@@ -8,7 +8,16 @@ import { SelectField } from '../../../components/ui/field';
 import { toSI } from '../../../engine';
 import type { Analysis, CustomFitting, SegmentResult, SystemDocument } from '../../../engine';
 import { CriteriaOverridesSchema, FittingSchema } from '../../../engine/model/schema';
-import { fittingK, isMetalPipeFitting, pexFittingFor, PEX_LINES, type PexFittingLine } from '../../../engine/fittings';
+import {
+  COPPER_LINES,
+  copperFittingFor,
+  fittingK,
+  isMetalPipeFitting,
+  pexFittingFor,
+  PEX_LINES,
+  type CopperFittingLine,
+  type PexFittingLine,
+} from '../../../engine/fittings';
 import type { Catalog } from '../../systems/api/get-catalog';
 import { useWalk } from '../draft/walk-context';
 import { TreeEditor } from '../../tree-editor/components/tree-editor';
@@ -148,6 +157,11 @@ function SegmentFittings({
   const options = types.map((f) => ({ value: f.id, label: f.label }));
   const projectOptions = projectOptionsOf(projectFittings);
   const metalRows = isPex ? (rows ?? []).flatMap((r, k) => (r && !r.custom && isMetalPipeFitting(r.typeId) ? [k] : [])) : [];
+  // Copper kept, soldered → another line (push-fit): offered where the line publishes one of this segment's fittings at its size.
+  const size = segment?.size ?? '';
+  const copperLines = segment?.material?.startsWith('copper-')
+    ? COPPER_LINES.filter((l) => (rows ?? []).some((r) => r && !r.custom && copperFittingFor(r.typeId, l.id, size) !== undefined))
+    : [];
   return (
     <Section title={name} headingLevel={3}>
       <div data-testid={`fittings-${id}`}>
@@ -242,6 +256,19 @@ function SegmentFittings({
           testId={`pex-substitute-${id}`}
         />
       ) : null}
+      {copperLines.length > 0 ? (
+        <CopperLineSubstitute
+          name={name}
+          lines={copperLines}
+          onApply={(line) => {
+            (rows ?? []).forEach((r, k) => {
+              const next = r && !r.custom ? copperFittingFor(r.typeId, line, size) : undefined;
+              if (next) setValue(`segments.${index}.fittings.${k}.typeId`, next, { shouldDirty: true });
+            });
+          }}
+          testId={`copper-line-${id}`}
+        />
+      ) : null}
       <p className="mt-2 text-sm" data-testid={`fitting-loss-${id}`}>
         {display ? (
           <>
@@ -330,6 +357,45 @@ function PexSubstitute({ name, onApply, testId }: { name: string; onApply: (line
         />
         <Button variant="secondary" onClick={() => onApply(line)}>
           Use these PEX fittings on {name}
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+/**
+ * A copper segment whose soldered or threaded elbows and couplings are installed as another line
+ * (push-to-connect): replaces them by the line's fittings at this size (pexSubstitute.ts); tees keep
+ * their data, since no tee of the line has a published loss.
+ */
+function CopperLineSubstitute({
+  name,
+  lines,
+  onApply,
+  testId,
+}: {
+  name: string;
+  lines: readonly { id: CopperFittingLine; label: string }[];
+  onApply: (line: CopperFittingLine) => void;
+  testId: string;
+}) {
+  const [line, setLine] = useState<CopperFittingLine>(lines[0].id);
+  return (
+    <div className="mt-2 rounded border border-rule p-2 text-sm" data-testid={testId}>
+      <p>
+        Elbows and couplings of {name} installed as another line (push-to-connect instead of soldered)? Choose the line: its fittings replace them, at this
+        size. Tees keep their data: no tee of the line has a published loss.
+      </p>
+      <div className="mt-1 flex flex-wrap items-end gap-2">
+        <CellSelect
+          className="w-72"
+          label={`${name}: copper fitting line`}
+          value={line}
+          onChange={(e) => setLine(e.target.value as CopperFittingLine)}
+          options={lines.map((l) => ({ value: l.id, label: l.label }))}
+        />
+        <Button variant="secondary" onClick={() => onApply(line)}>
+          Use this line’s fittings on {name}
         </Button>
       </div>
     </div>
