@@ -22,6 +22,7 @@ import {
   NODE,
   PRV,
   RECIRCULATION,
+  RECIRCULATION_SEGMENT,
   SOURCE,
   SYSTEM_DOCUMENT,
 } from '../../src/engine/model/elements';
@@ -138,6 +139,8 @@ describe('the walkâ€™s rows read their labels, units and help from the documentâ
     for (const key of ['heaterVolume', 'coldTemperature', 'hotTemperature', 'supplyPressure', 'reliefPressure'] as const)
       expectDescribed(expected(EXPANSION_TANK, key, sys));
     for (const key of ['heatLossPerLength', 'temperatureDrop', 'fittingAllowance', 'heaterLoss'] as const) expectDescribed(expected(RECIRCULATION, key, sys));
+    for (const key of ['from', 'to', 'length', 'material', 'size', 'heatLoss'] as const)
+      expectDescribed(expected(RECIRCULATION_SEGMENT, key, sys, { row: 'Loop pipe 1' }));
     // the leaving temperature's hint names the system's own temperature instead of the help
     expect(field(expected(RECIRCULATION, 'hotTemperature', sys).label)).toBeTruthy();
     // the own quantities' units: gal and Btu/h per ft in US units

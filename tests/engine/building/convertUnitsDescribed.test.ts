@@ -4,6 +4,7 @@
  * description (each union option appears in some list item), so a key added to elements.ts with a
  * unit-bearing range is checked here without a line of this test.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { convertDocumentUnits } from '../../../src/engine/building/convertUnits';
 import { rangedPaths, type AnyElement, type ValueShape } from '../../../src/engine/model/describe';
@@ -55,8 +56,10 @@ function numbers(v: unknown, path: string[] = [], out: [concrete: string, patter
   return out;
 }
 
+const withUnitPaths = new Set(rangedPaths(SYSTEM_DOCUMENT, '*').flatMap(([path, range]) => (hasUnit(range) ? [path.join('.')] : [])));
+
 describe('the unit conversion reads the description', () => {
-  const withUnit = new Set(rangedPaths(SYSTEM_DOCUMENT, '*').flatMap(([path, range]) => (hasUnit(range) ? [path.join('.')] : [])));
+  const withUnit = withUnitPaths;
   const doc = { ...generateElement(SYSTEM_DOCUMENT, 0), unitSystem: 'US' as const };
   const before = numbers(doc);
 
@@ -88,4 +91,27 @@ describe('the unit conversion reads the description', () => {
       expectClose(back.get(concrete)!, value, { rtol: 1e-3 }, concrete);
     }
   });
+});
+
+describe('the demo documents converted and back', () => {
+  const example = (name: string) => JSON.parse(readFileSync(new URL(`../../../src/engine/examples/${name}.json`, import.meta.url), 'utf8'));
+  it.each(['alder-finch-cold', 'alder-finch-hot', 'small-house'])(
+    'when %s is converted to the other unit system and back with rounding, then every number returns within the rounding',
+    (name) => {
+      const doc = example(name);
+      const other = doc.unitSystem === 'US' ? 'SI' : 'US';
+      const there = convertDocumentUnits(doc, other);
+      const back = new Map(numbers(convertDocumentUnits(there, doc.unitSystem)).map(([concrete, , value]) => [concrete, value]));
+      const before = numbers(doc);
+      expect(back.size).toBe(before.length);
+      // Half a last place each way (PLACES in convertUnits.ts): the coarsest in absolute terms is a
+      // pressure, 0.05 kPa (0.0073 psi) then 0.005 psi back, within 0.013 psi; from SI, 0.005 psi
+      // (0.034 kPa) then 0.05 kPa, within 0.09 kPa (1 psi = 6.894757 kPa, NIST SP 811 App. B). A
+      // temperature (0.05 °C = 0.09 °F, then 0.05 °F) is within 0.5 % of any the demos hold.
+      const atol = doc.unitSystem === 'US' ? 0.013 : 0.09;
+      for (const [concrete, , value] of before) expectClose(back.get(concrete)!, value, { rtol: 5e-3, atol }, `${name} ${concrete}`);
+      // and a number without a unit is the same number
+      for (const [concrete, pattern, value] of before) if (!withUnitPaths.has(pattern)) expect(back.get(concrete), concrete).toBe(value);
+    },
+  );
 });

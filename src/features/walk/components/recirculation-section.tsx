@@ -7,8 +7,8 @@ import type { Recirculation, RecirculationAnalysis, RecirculationSegment, System
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect } from './cells';
 import { fmt } from '../lib/format';
-import { describedField } from '../lib/described';
-import { RECIRCULATION } from '../../../engine/model/elements';
+import { describedCell, describedField } from '../lib/described';
+import { RECIRCULATION, RECIRCULATION_SEGMENT } from '../../../engine/model/elements';
 
 type Loop = Recirculation;
 type Pipe = RecirculationSegment;
@@ -230,7 +230,7 @@ export function RecirculationSection() {
                   <tr key={p.id} className="border-b border-rule align-top">
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`From, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'from', sys)}
                         list={nodeListId}
                         disabled={disabled}
                         defaultValue={p.from}
@@ -240,7 +240,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`To, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'to', sys)}
                         list={nodeListId}
                         disabled={disabled}
                         defaultValue={p.to}
@@ -250,7 +250,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`Length, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'length', sys)}
                         inputMode="decimal"
                         autoComplete="off"
                         disabled={disabled}
@@ -261,7 +261,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellSelect
-                        label={`Material, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'material', sys)}
                         disabled={disabled}
                         value={p.material}
                         options={material ? materialOptions : [...materialOptions, { value: p.material, label: `${p.material} (not in the catalog)` }]}
@@ -276,7 +276,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellSelect
-                        label={`Size, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'size', sys)}
                         disabled={disabled}
                         value={p.size ?? ''}
                         options={sizeOptions}
@@ -292,7 +292,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`Heat loss, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'heatLoss', sys)}
                         inputMode="decimal"
                         autoComplete="off"
                         placeholder="per length"
