@@ -67,7 +67,7 @@ test('when a designer walks a new system from the supply to the result, then the
   await expect(page.getByLabel('Point 1 flow (gpm)')).toHaveValue('50');
   await page.getByRole('button', { name: 'Add a device' }).click();
   await page.getByLabel('Device 2 name').fill('Reduced-pressure backflow assembly');
-  await page.getByLabel('Device 2 fixed loss (psi)').fill('12');
+  await page.getByLabel('Device 2 loss at any flow (psi)').fill('12');
   await shot(page, '02-devices');
 
   // 3. Risers: service pipe, a riser, a floor branch; fixtures at the top.

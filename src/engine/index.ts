@@ -61,6 +61,7 @@ export {
   checkRange,
   rangeText,
   limitUnit,
+  fieldUnit,
   siBase,
   formatBound,
   type LimitQuantity,

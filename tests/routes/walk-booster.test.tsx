@@ -21,10 +21,10 @@ describe('the booster in the devices step', () => {
     await screen.findByTestId('step-devices', {}, { timeout: 10_000 });
     const control = screen.getByLabelText(`Device ${index} pump control`) as HTMLSelectElement;
     expect(control.value).toBe('variable-speed');
-    expect(field(`Device ${index} booster discharge pressure (psi)`).value).toBe('65');
+    expect(field(`Device ${index} discharge pressure held (psi)`).value).toBe('65');
     await user.selectOptions(control, 'constant-speed');
-    await user.type(field(`Device ${index} booster gain (psi)`), '24');
-    await user.type(field(`Device ${index} booster shutoff gain (psi)`), '30');
+    await user.type(field(`Device ${index} pressure added at design flow (psi)`), '24');
+    await user.type(field(`Device ${index} pressure added at shutoff (psi)`), '30');
     await waitFor(() => {
       const saves = world.saves();
       const last = saves[saves.length - 1]?.body as { document: SystemDocument } | undefined;

@@ -8,15 +8,15 @@
  * 1 kPa would be coarser than the analysis needs; these keep the converted design within 0.1 % of
  * the original). Catalog sizes ("3/4") are names, not numbers, and stay as they are.
  */
-import { rangedPaths, type AnyElement } from '../model/describe';
-import { CHECKED_FIXTURE, FIXTURE_GROUP, NODE, SEGMENT } from '../model/elements';
-import { LIMITS } from '../model/limits';
+import { rangedPaths } from '../model/describe';
+import { SYSTEM_DOCUMENT } from '../model/elements';
+import { LIMITS, type LimitQuantity, type OwnQuantity } from '../model/limits';
 import { fromSI, M3_PER_GAL, M_PER_FT, toSI, type Quantity, type UnitSystem } from '../units';
 import { W_PER_BTU_PER_H } from '../hotWater/recirculationDocument';
 
-/** The hot-water inputs' own quantities, which the units module does not carry: heat (Btu/h ↔ W), heat per length, a temperature difference (°F ↔ K) and a volume (gal ↔ L). */
-type HotWaterQ = 'heat' | 'heatPerLength' | 'temperatureDifference' | 'volume';
-type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | 'pressurePerFlow' | HotWaterQ;
+/** The hot-water inputs' own quantities (limits.ts), which the units module does not carry. */
+type HotWaterQ = Exclude<OwnQuantity, 'pressurePerFlow'>;
+type Q = Exclude<Quantity, 'density' | 'pressurePerLength'> | OwnQuantity;
 
 /**
  * SI per US unit: 1 Btu_IT = 1055.05585262 J (NIST SP 811 (2008) App. B.8), per hour; 1 ft = 0.3048 m;
@@ -45,66 +45,22 @@ const PLACES: Record<Q, Record<UnitSystem, number>> = {
   volume: { US: 2, SI: 1 },
 };
 
-/** The paths of a described element's numbers whose range has a unit, under `prefix`. */
-function describedUnits(prefix: string, e: AnyElement): [string, Q][] {
-  return rangedPaths(e, '*').flatMap(([path, range]): [string, Q][] => {
-    const q = LIMITS[range].unitQuantity;
-    return q && q !== 'density' && q !== 'pressurePerLength' ? [[[prefix, ...path].join('.'), q]] : [];
-  });
+/** The quantity a range converts as, or null for a number whose unit is the same in both systems (a count, a coefficient, seconds). */
+function convertedAs(range: LimitQuantity): Q | null {
+  const { unitQuantity, ownQuantity } = LIMITS[range];
+  if (unitQuantity) return unitQuantity === 'density' || unitQuantity === 'pressurePerLength' ? null : unitQuantity;
+  return ownQuantity ?? null;
 }
 
-/** Where the numbers with a unit are, as paths of keys ("*" = every element or every record key). */
-const FIELDS: readonly [path: string, q: Q][] = [
-  ['waterTemperature', 'temperature'],
-  ['source.staticPressureLow', 'pressure'],
-  ['source.staticPressureHigh', 'pressure'],
-  ['source.flowTest.staticPressure', 'pressure'],
-  ['source.flowTest.residualPressure', 'pressure'],
-  ['source.flowTest.flow', 'flow'],
-  ['floors.*.elevation', 'elevation'],
-  ['devices.*.loss.loss', 'pressure'],
-  ['devices.*.loss.points.*.flow', 'flow'],
-  ['devices.*.loss.points.*.loss', 'pressure'],
-  ['devices.*.prv.setPressure', 'pressure'],
-  ['devices.*.prv.falloffPerFlow', 'pressurePerFlow'],
-  ['devices.*.boost.gain', 'pressure'],
-  ['devices.*.boost.designGain', 'pressure'],
-  ['devices.*.boost.shutoffGain', 'pressure'],
-  ['devices.*.boost.setPressure', 'pressure'],
-  ['devices.*.boost.designFlow', 'flow'],
-  // The node's and the segment's numbers with a unit: those whose range (their descriptions, elements.ts) has one.
-  ...describedUnits('nodes.*', NODE),
-  ...describedUnits('segments.*', SEGMENT),
-  ['criteria.maxStaticPressure', 'pressure'],
-  ['criteria.minStaticPressure', 'pressure'],
-  ['criteria.velocityLimits.*.maxVelocity', 'velocity'],
-  ['sizingBasis.margin', 'pressure'],
-  ['sizingBasis.supplyPressure', 'pressure'],
-  ['sizingBasis.velocityLimits.*.maxVelocity', 'velocity'],
-  ['criteria.minFlowPressures.*', 'pressure'],
-  ['criteria.riseTolerance', 'length'],
-  ['unitTypes.*.nodes.*.heightAboveFloor', 'length'],
-  ...describedUnits('unitTypes.*.nodes.*.fixtureGroups.*', FIXTURE_GROUP),
-  ...describedUnits('unitTypes.*.nodes.*.checkedFixtures.*', CHECKED_FIXTURE),
-  ['unitTypes.*.segments.*.length', 'length'],
-  ['unitTypes.*.segments.*.custom.innerDiameter', 'diameter'],
-  ['unitTypes.*.segments.*.custom.roughness', 'diameter'],
-  ['unitTypes.*.segments.*.fittings.*.custom.equivalentLength', 'length'],
-  ['placements.*.overrides.segments.*.length', 'length'],
-  ['placements.*.overrides.segments.*.fittings.*.custom.equivalentLength', 'length'],
-  ['placements.*.overrides.nodes.*.heightAboveFloor', 'length'],
-  ['expansionTank.heaterVolume', 'volume'],
-  ['expansionTank.coldTemperature', 'temperature'],
-  ['expansionTank.hotTemperature', 'temperature'],
-  ['expansionTank.supplyPressure', 'pressure'],
-  ['expansionTank.reliefPressure', 'pressure'],
-  ['recirculation.segments.*.length', 'length'],
-  ['recirculation.segments.*.heatLoss', 'heat'],
-  ['recirculation.heatLossPerLength', 'heatPerLength'],
-  ['recirculation.temperatureDrop', 'temperatureDifference'],
-  ['recirculation.hotTemperature', 'temperature'],
-  ['recirculation.heaterLoss', 'pressure'],
-];
+/**
+ * Where the numbers with a unit are, as paths of keys ("*" = every item of a list or every key of a
+ * record), with their quantity and range: every ranged number of the document's description
+ * (elements.ts) whose range has a unit, so a new ranged key is converted without a line here.
+ */
+const CONVERTED_FIELDS: readonly { path: string; quantity: Q; range: LimitQuantity }[] = rangedPaths(SYSTEM_DOCUMENT, '*').flatMap(([path, range]) => {
+  const quantity = convertedAs(range);
+  return quantity ? [{ path: path.join('.'), quantity, range }] : [];
+});
 
 function convertValue(q: Q, value: number, from: UnitSystem, to: UnitSystem, round: boolean): number {
   let out: number;
@@ -154,12 +110,16 @@ export function convertDocumentUnits<D extends { unitSystem: UnitSystem }>(doc: 
   const out = structuredClone(doc);
   if (from === to) return out;
   const round = opts.round ?? true;
-  for (const [path, q] of FIELDS) {
-    visit(out, path.split('.'), (v) => convertValue(q, v, from, to, q === 'diameter' && path.endsWith('roughness') ? false : round));
-  }
-  // Roughness keeps 4 significant figures (its magnitude makes fixed places meaningless).
-  for (const path of ['segments.*.custom.roughness', 'unitTypes.*.segments.*.custom.roughness']) {
-    visit(out, path.split('.'), (v) => (round ? Number(v.toPrecision(4)) : v));
+  for (const { path, quantity, range } of CONVERTED_FIELDS) {
+    // Roughness keeps 4 significant figures (its magnitude makes fixed places meaningless).
+    const convert =
+      range === 'roughness'
+        ? (v: number) => {
+            const out = convertValue(quantity, v, from, to, false);
+            return round ? Number(out.toPrecision(4)) : out;
+          }
+        : (v: number) => convertValue(quantity, v, from, to, round);
+    visit(out, path.split('.'), convert);
   }
   out.unitSystem = to;
   return out;

@@ -76,7 +76,7 @@ export const FITTING = element('fitting', {
 
 export const CUSTOM_PIPE = element('custom pipe', {
   innerDiameter: required(value.positive(), { label: 'Inside diameter', help: 'Inside diameter, diameter unit.', range: 'innerDiameter' }),
-  roughness: required(value.nonNegative(), { label: 'Roughness', help: 'Absolute roughness, diameter unit.', range: 'roughness' }),
+  roughness: required(value.nonNegative(), { label: 'Absolute roughness', help: 'Absolute roughness, diameter unit.', range: 'roughness' }),
   hazenWilliamsC: required(value.positive(), { label: 'Hazen–Williams C', range: 'hazenWilliamsC' }),
   velocityClass: required(value.oneOf(['copper', 'plastic', 'steel']), { label: 'Velocity class', help: 'Which velocity limit applies.' }),
 });
@@ -161,7 +161,7 @@ export const FIXTURE_GROUP = element('fixture group', {
   custom: optional(value.element(CUSTOM_FIXTURE), { label: 'Project data', help: "The fixture type's own data, overriding the catalog's." }),
   demandCurve: optional(value.oneOf(['flush-tank', 'flush-valve']), { label: 'Demand curve', help: "Overrides the fixture type's demand curve." }),
   wsfuBasis: optional(value.oneOf(['cold', 'hot', 'total']), {
-    label: 'Fixture-unit basis',
+    label: 'Fixture units counted',
     help: "Which fixture-unit load counts: defaults to the system's service (cold or hot).",
   }),
   usage: optional(value.element(FIXTURE_USAGE), { label: 'Usage', help: "For Hunter's binomial method: flow, duration of use and time between uses." }),
@@ -173,7 +173,7 @@ export const CHECKED_FIXTURE = element('checked fixture', {
   label: optional(value.text(B.labelLength), { label: 'Name' }),
   minFlowPressure: optional(value.nonNegative(), {
     label: 'Minimum flow pressure',
-    help: 'Overrides the minimum flow pressure, pressure unit.',
+    help: "Overrides the fixture type's minimum flow pressure from the catalog, pressure unit.",
     range: 'minFlowPressure',
   }),
   flowRate: optional(value.positive(), { label: 'Flow rate', help: "Overrides the fixture's flow rate (reported), flow unit.", range: 'fixtureFlow' }),
@@ -192,10 +192,10 @@ export const NODE = element('node', {
   label: optional(value.text(B.labelLength), { label: 'Name' }),
   elevation: optional(value.number(), {
     label: 'Elevation',
-    help: 'Absolute elevation, length unit, any datum (the same for all nodes and floors).',
+    help: 'Absolute elevation, length unit, on the same datum as every other node and floor (any datum).',
     range: 'elevation',
   }),
-  floor: optional(id(), { label: 'Floor', help: 'Id of the floor the node is on (instead of an absolute elevation).' }),
+  floor: optional(id(), { label: 'Floor', help: 'The floor the node is on, by its id (instead of an absolute elevation).' }),
   heightAboveFloor: optional(value.number(), {
     label: 'Height above floor',
     help: 'Height above its floor, length unit (default 0); only with `floor`.',
@@ -212,17 +212,17 @@ export const FLOW_TEST = element(
   'flow test',
   {
     staticPressure: required(value.positive(), {
-      label: 'Static pressure',
+      label: 'Test static pressure',
       help: 'Static pressure during the test (no flow), pressure unit.',
       range: 'staticPressure',
     }),
     residualPressure: required(value.nonNegative(), {
-      label: 'Residual pressure',
+      label: 'Test residual pressure',
       help: 'Residual pressure while flowing the test flow, pressure unit.',
       range: 'staticPressure',
     }),
     flow: required(value.positive(), { label: 'Test flow', help: 'Flow during the test, flow unit.', range: 'flow' }),
-    date: optional(date(), { label: 'Test date', help: 'Date of the test (ISO 8601).' }),
+    date: optional(date(), { label: 'Date of the test', help: 'As YYYY-MM-DD (ISO 8601).' }),
   },
   { help: 'Hydrant flow test (NFPA 291) at the connection.' },
 );
@@ -282,8 +282,8 @@ export const FED_FROM_UNRESOLVED = element('unresolved feed', {
   message: required(sourceText(), { label: 'Message' }),
 });
 export const FED_FROM = element('cold-water feed', {
-  systemId: required(id(), { label: 'Cold system', help: 'The cold-water system whose analysis feeds this hot system.' }),
-  nodeId: required(id(), { label: 'Heater feed node', help: "The cold system's node that feeds the water heater." }),
+  systemId: required(id(), { label: 'Cold-water system feeding the heater', help: 'The cold-water system whose analysis feeds this hot system.' }),
+  nodeId: required(id(), { label: 'Node of the cold system that feeds the heater', help: "Where the cold system's pipe reaches the water heater." }),
   resolution: optional(value.tagged('status', [FED_FROM_RESOLVED, FED_FROM_UNRESOLVED]), {
     label: 'Resolution',
     help: 'Written by Headroom from the cold system, never typed.',
@@ -291,26 +291,26 @@ export const FED_FROM = element('cold-water feed', {
 });
 
 export const SOURCE = element('source', {
-  kind: required(value.oneOf(['utility-main', 'tank', 'booster-outlet']), { label: 'Source type' }),
+  kind: required(value.oneOf(['utility-main', 'tank', 'booster-outlet']), { label: 'Kind of source' }),
   nodeId: required(id(), {
     label: 'Connection node',
     help: 'The node where the water enters; its elevation (absolute or on a floor) is the connection elevation.',
   }),
   staticPressureLow: required(value.nonNegative(), {
     label: 'Static pressure, low',
-    help: 'Lowest expected static pressure at the connection, pressure unit.',
+    help: 'The lowest static pressure the utility expects at the connection, pressure unit: the design figure.',
     range: 'staticPressure',
   }),
   staticPressureHigh: required(value.nonNegative(), {
     label: 'Static pressure, high',
-    help: 'Highest expected static pressure at the connection, pressure unit.',
+    help: 'The highest static pressure expected at the connection, pressure unit: for the maximum static pressure check.',
     range: 'staticPressure',
   }),
   pressureBasis: required(sourceText(), {
-    label: 'Pressure basis',
-    help: 'Where the pressure figures came from: utility letter, flow test, gauge reading, ...',
+    label: 'Where the pressure figures came from',
+    help: 'For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main.',
   }),
-  pressureDate: optional(date(), { label: 'Pressure date', help: 'Date of the pressure figures (ISO 8601).' }),
+  pressureDate: optional(date(), { label: 'Date of the pressure figures', help: 'As YYYY-MM-DD (ISO 8601).' }),
   flowTest: optional(value.element(FLOW_TEST), { label: 'Flow test' }),
   fedFrom: optional(value.element(FED_FROM), {
     label: 'Fed from',
@@ -322,7 +322,7 @@ export const SOURCE = element('source', {
 
 export const DEVICE_LOSS_FIXED = element('fixed loss', {
   kind: required(value.literal('fixed'), { label: 'Loss kind' }),
-  loss: required(value.nonNegative(), { label: 'Loss', help: 'Pressure loss at any flow, pressure unit.', range: 'pressureLoss' }),
+  loss: required(value.nonNegative(), { label: 'Loss at any flow', help: 'Pressure loss at any flow, pressure unit.', range: 'pressureLoss' }),
 });
 export const CURVE_POINT = element('curve point', {
   flow: required(value.nonNegative(), { label: 'Flow', range: 'flow' }),
@@ -338,9 +338,9 @@ export const DEVICE_LOSS_CURVE = element('loss curve', {
 export const DEVICE_LOSS = value.tagged('kind', [DEVICE_LOSS_FIXED, DEVICE_LOSS_CURVE]);
 
 export const PRV = element('pressure-reducing valve', {
-  setPressure: required(value.positive(), { label: 'Set pressure', help: 'Outlet set pressure, pressure unit.', range: 'pressureSetting' }),
+  setPressure: required(value.positive(), { label: 'PRV set pressure', help: 'Outlet set pressure, pressure unit.', range: 'pressureSetting' }),
   falloffPerFlow: withDefault(value.nonNegative(), 0, {
-    label: 'Fall-off',
+    label: 'PRV fall-off',
     help: 'Drop of the outlet pressure per unit of flow (psi per gpm or kPa per L/s).',
     range: 'pressureFalloff',
   }),
@@ -362,9 +362,13 @@ export const PRV = element('pressure-reducing valve', {
  */
 export const BOOST_CONSTANT_SPEED = element('constant-speed pump', {
   control: required(value.literal('constant-speed'), { label: 'Control' }),
-  designGain: required(value.nonNegative(), { label: 'Design gain', help: 'Pressure added at the design point, pressure unit.', range: 'pressureGain' }),
+  designGain: required(value.nonNegative(), {
+    label: 'Pressure added at design flow',
+    help: 'Pressure added at the design point, pressure unit.',
+    range: 'pressureGain',
+  }),
   shutoffGain: required(value.nonNegative(), {
-    label: 'Shutoff gain',
+    label: 'Pressure added at shutoff',
     help: 'Pressure added at zero flow (shutoff), pressure unit; not below the design gain.',
     range: 'pressureGain',
   }),
@@ -376,7 +380,11 @@ export const BOOST_CONSTANT_SPEED = element('constant-speed pump', {
 });
 export const BOOST_VARIABLE_SPEED = element('variable-speed pump', {
   control: required(value.literal('variable-speed'), { label: 'Control' }),
-  setPressure: required(value.positive(), { label: 'Set pressure', help: 'Discharge pressure the drive holds, pressure unit.', range: 'pressureSetting' }),
+  setPressure: required(value.positive(), {
+    label: 'Discharge pressure held',
+    help: 'Discharge pressure the drive holds, pressure unit.',
+    range: 'pressureSetting',
+  }),
 });
 export const BOOST_GAIN = element('pump gain (version 1)', {
   gain: required(value.nonNegative(), {
@@ -393,7 +401,10 @@ export const DEVICE = element('device', {
     label: 'Kind',
   }),
   label: required(name(), { label: 'Name' }),
-  segmentId: required(id(), { label: 'Segment', help: 'The segment at whose inlet the device sits; devices on one segment act in list order.' }),
+  segmentId: required(id(), {
+    label: 'On segment (at its inlet)',
+    help: 'The segment at whose inlet the device sits; devices on one segment act in list order.',
+  }),
   loss: required(DEVICE_LOSS, { label: 'Loss' }),
   prv: optional(value.element(PRV), { label: 'PRV', help: 'Required when kind is "prv".' }),
   boost: optional(BOOST, { label: 'Booster pump', help: 'Required when kind is "booster-pump".' }),
@@ -437,7 +448,7 @@ export const CRITERIA = element(
     demandCurve: optional(value.oneOf(['auto', 'flush-tank', 'flush-valve']), { label: 'Demand curve' }),
     demandMethod: optional(value.oneOf(['hunter-table', 'hunter-binomial']), { label: 'Demand method' }),
     frictionMethod: optional(value.oneOf(['colebrook', 'swamee-jain', 'churchill-1977', 'hazen-williams']), { label: 'Friction method' }),
-    fittingMethod: optional(value.oneOf(['crane', 'hooper-2k', 'darby-3k', 'equivalent-length']), { label: 'Fitting method' }),
+    fittingMethod: optional(value.oneOf(['crane', 'hooper-2k', 'darby-3k', 'equivalent-length']), { label: 'Loss method for fittings' }),
   },
   { help: "Overrides of the engine's default criteria; the local code governs." },
 );
@@ -519,23 +530,27 @@ export const PLACEMENT = element('placement', {
  */
 export const EXPANSION_TANK = element('expansion tank', {
   heaterVolume: required(value.nonNegative(), {
-    label: 'Volume heated',
+    label: 'Volume of water heated',
     help: 'Volume of water heated, gal (US) or L (SI); must be above zero to size the tank.',
     range: 'heaterVolume',
   }),
   coldTemperature: required(value.number(), {
-    label: 'Cold-water temperature',
+    label: 'Cold water temperature',
     help: 'Temperature of the incoming cold water, °F or °C.',
     range: 'waterTemperature',
   }),
-  hotTemperature: required(value.number(), { label: 'Hot-water temperature', help: 'Stored hot-water temperature, °F or °C.', range: 'waterTemperature' }),
+  hotTemperature: required(value.number(), {
+    label: 'Stored hot water temperature',
+    help: 'Stored hot-water temperature, °F or °C.',
+    range: 'waterTemperature',
+  }),
   supplyPressure: required(value.nonNegative(), {
-    label: 'Supply pressure',
+    label: 'Supply pressure at the tank, its precharge',
     help: 'Supply pressure at the tank (its precharge), pressure unit.',
     range: 'staticPressure',
   }),
   reliefPressure: required(value.positive(), {
-    label: 'Relief pressure',
+    label: 'Pressure sized for: relief setting or somewhat below',
     help: 'Pressure the tank is sized for: the relief setting or somewhat below it, pressure unit.',
     range: 'pressureSetting',
   }),
@@ -581,28 +596,28 @@ export const RECIRCULATION = element('recirculation loop', {
     help: 'The loop, from the heater back to it.',
   }),
   heatLossPerLength: optional(value.nonNegative(), {
-    label: 'Heat loss per length',
-    help: 'Heat lost per length of loop pipe, Btu/h per ft (US) or W/m (SI), for pipes without their own heat loss.',
+    label: 'Heat loss per length of pipe',
+    help: 'For pipes without their own heat loss, Btu/h per ft (US) or W/m (SI): from the insulation maker’s tables.',
     range: 'loopHeatLossPerLength',
   }),
   temperatureDrop: required(value.number(), {
-    label: 'Temperature drop',
+    label: 'Temperature drop allowed around the loop',
     help: 'Temperature drop allowed around the loop, °F (US) or K (SI); must be above zero.',
     range: 'loopTemperatureDrop',
   }),
   hotTemperature: optional(value.number(), {
-    label: 'Leaving temperature',
+    label: 'Temperature leaving the heater',
     help: "Temperature leaving the heater, °F or °C; default the system's water temperature.",
     range: 'waterTemperature',
   }),
   fittingAllowance: optional(value.between(0, 5), {
-    label: 'Fitting allowance',
-    help: "Fittings and valves as a fraction of the loop's pipe friction, for the pump head (default 0.25, a designers' rule of thumb).",
+    label: 'Fitting allowance (fraction of the pipe friction)',
+    help: 'Fittings and valves as a fraction of the loop’s pipe friction, for the pump head. Default 0.25 (fittings as a quarter of the pipe, a designers’ rule of thumb); 0 when fittings are counted in the lengths.',
     range: 'fittingAllowance',
   }),
   heaterLoss: optional(value.nonNegative(), {
-    label: 'Heater loss',
-    help: 'Pressure lost through the heater at the loop flow, pressure unit (default 0).',
+    label: 'Heater loss at the loop flow',
+    help: 'Pressure lost through the heater at the loop flow, pressure unit: from the heater maker’s pressure-drop data. Default 0.',
     range: 'pressureLoss',
   }),
 });
@@ -657,7 +672,11 @@ export const SYSTEM_DOCUMENT = element('system', {
   name: required(name(), { label: 'Name' }),
   service: required(value.oneOf(['cold', 'hot']), { label: 'Service' }),
   unitSystem: required(value.oneOf(['US', 'SI']), { label: 'Unit system' }),
-  waterTemperature: required(value.number(), { label: 'Water temperature', help: 'Water temperature, °F or °C.', range: 'waterTemperature' }),
+  waterTemperature: required(value.number(), {
+    label: 'Water temperature',
+    help: 'Water temperature, °F or °C: sets the water’s density and viscosity.',
+    range: 'waterTemperature',
+  }),
   source: required(value.element(SOURCE), { label: 'Source' }),
   devices: withDefault(value.list(value.element(DEVICE), B.devices), [], { label: 'Devices' }),
   floors: withDefault(value.list(value.element(FLOOR), B.floors), [], { label: 'Floors', help: 'Named levels on which nodes may be placed.' }),

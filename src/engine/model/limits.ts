@@ -54,6 +54,23 @@ export type LimitQuantity =
   | 'fittingAllowance'
   | 'segmentCount';
 
+/**
+ * Quantities of a document's numbers that the units module does not carry, each converted by its
+ * own factor (building/convertUnits.ts): a PRV's fall-off (psi per gpm ↔ kPa per L/s), heat (Btu/h
+ * ↔ W), heat per length (Btu/h per ft ↔ W/m), a temperature difference (°F ↔ K) and a volume
+ * (gal ↔ L).
+ */
+export type OwnQuantity = 'pressurePerFlow' | 'heat' | 'heatPerLength' | 'temperatureDifference' | 'volume';
+
+/** The unit of each own quantity in each unit system, as screens write it. */
+export const OWN_UNIT_LABELS: Readonly<Record<OwnQuantity, Readonly<Record<UnitSystem, string>>>> = Object.freeze({
+  pressurePerFlow: { US: 'psi per gpm', SI: 'kPa per L/s' },
+  heat: { US: 'Btu/h', SI: 'W' },
+  heatPerLength: { US: 'Btu/h per ft', SI: 'W/m' },
+  temperatureDifference: { US: '°F', SI: 'K' },
+  volume: { US: 'gal', SI: 'L' },
+});
+
 export interface Bounds {
   min: number;
   max: number;
@@ -66,6 +83,8 @@ export interface QuantityLimit {
   unitQuantity: Quantity | null;
   /** Unit text when unitQuantity is null (e.g. "s"), or '' for a pure number. */
   fixedUnit?: string;
+  /** With unitQuantity null, a unit that still differs between the unit systems: its own quantity (converted by building/convertUnits.ts). */
+  ownQuantity?: OwnQuantity;
   /** True when the lower bound itself is refused (a length must be more than zero). */
   minExclusive: boolean;
   /** Whole numbers only (counts). */
@@ -175,6 +194,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
   pressureFalloff: {
     noun: 'PRV fall-off',
     unitQuantity: null,
+    ownQuantity: 'pressurePerFlow',
     minExclusive: false,
     integer: false,
     US: { min: 0, max: 10 },
@@ -259,6 +279,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     noun: 'volume of water heated (gal in US units, L in SI)',
     unitQuantity: null,
     fixedUnit: '',
+    ownQuantity: 'volume',
     minExclusive: false,
     integer: false,
     US: { min: 0, max: 20000 },
@@ -329,6 +350,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     noun: 'heat loss of a loop pipe (Btu/h in US units, W in SI)',
     unitQuantity: null,
     fixedUnit: '',
+    ownQuantity: 'heat',
     minExclusive: false,
     integer: false,
     US: { min: 0, max: 1000000 },
@@ -339,6 +361,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     noun: 'heat loss per length (Btu/h per ft in US units, W/m in SI)',
     unitQuantity: null,
     fixedUnit: '',
+    ownQuantity: 'heatPerLength',
     minExclusive: false,
     integer: false,
     US: { min: 0, max: 200 },
@@ -349,6 +372,7 @@ export const LIMITS: Readonly<Record<LimitQuantity, QuantityLimit>> = Object.fre
     noun: 'temperature drop around the loop (°F in US units, K in SI)',
     unitQuantity: null,
     fixedUnit: '',
+    ownQuantity: 'temperatureDifference',
     minExclusive: false,
     integer: false,
     US: { min: 0, max: 50 },
@@ -382,6 +406,18 @@ export function limitUnit(quantity: LimitQuantity, unitSystem: UnitSystem): stri
   const lim = LIMITS[quantity];
   if (quantity === 'pressureFalloff') return unitSystem === 'US' ? 'psi per gpm' : 'kPa per L/s';
   if (lim.unitQuantity) return UNIT_LABELS[unitSystem][lim.unitQuantity];
+  return lim.fixedUnit ?? '';
+}
+
+/**
+ * The unit a number of this quantity is written in, in a unit system, for a form's label: "psi",
+ * "gal", "Btu/h per ft", "s"; '' for a pure number or a count. (limitUnit gives the unit of a range
+ * message, whose noun already names the hot-water quantities' units.)
+ */
+export function fieldUnit(quantity: LimitQuantity, unitSystem: UnitSystem): string {
+  const lim = LIMITS[quantity];
+  if (lim.unitQuantity) return UNIT_LABELS[unitSystem][lim.unitQuantity];
+  if (lim.ownQuantity) return OWN_UNIT_LABELS[lim.ownQuantity][unitSystem];
   return lim.fixedUnit ?? '';
 }
 

@@ -5,6 +5,8 @@ import { closedSystemCheck, closingElementWords, sizeDocumentExpansionTank } fro
 import type { SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
 import { fmt } from '../lib/format';
+import { describedField } from '../lib/described';
+import { EXPANSION_TANK } from '../../../engine/model/elements';
 
 type Tank = NonNullable<SystemDocument['expansionTank']>;
 
@@ -20,21 +22,15 @@ function starterTank(doc: SystemDocument): Tank {
   };
 }
 
-const FIELDS: { key: keyof Tank; label: (u: { pressure: string; temperature: string }, volume: string) => string }[] = [
-  { key: 'heaterVolume', label: (_u, v) => `Volume of water heated (${v})` },
-  { key: 'coldTemperature', label: (u) => `Cold water temperature (${u.temperature})` },
-  { key: 'hotTemperature', label: (u) => `Stored hot water temperature (${u.temperature})` },
-  { key: 'supplyPressure', label: (u) => `Supply pressure at the tank, its precharge (${u.pressure})` },
-  { key: 'reliefPressure', label: (u) => `Pressure sized for: relief setting or somewhat below (${u.pressure})` },
-];
+/** The tank's inputs, in the description's order; each row's label, unit and help come from the description (EXPANSION_TANK). */
+const FIELDS: readonly (keyof Tank)[] = ['heaterVolume', 'coldTemperature', 'hotTemperature', 'supplyPressure', 'reliefPressure'];
 
 /** The thermal expansion tank of a hot system: whether the system is closed, the tank's inputs and its size. */
 export function ExpansionTankSection() {
-  const { document, draft, readOnlyReason, units } = useWalk();
+  const { document, draft, readOnlyReason } = useWalk();
   const tank = document.expansionTank;
   const closed = closedSystemCheck(document);
   const sizing = sizeDocumentExpansionTank(document);
-  const volume = document.unitSystem === 'US' ? 'gal' : 'L';
   const disabled = readOnlyReason !== null;
   const set = (key: keyof Tank, raw: string) => {
     const value = Number(raw.replace(',', '.'));
@@ -54,16 +50,16 @@ export function ExpansionTankSection() {
         {tank ? (
           <>
             <div className="grid gap-3 md:grid-cols-2">
-              {FIELDS.map((f) => (
+              {FIELDS.map((key) => (
                 <TextField
-                  key={f.key}
-                  label={f.label(units, volume)}
+                  key={key}
+                  {...describedField(EXPANSION_TANK, key, document.unitSystem)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
                   disabled={disabled}
-                  defaultValue={String(tank[f.key])}
-                  onChange={(e) => set(f.key, e.target.value)}
+                  defaultValue={String(tank[key])}
+                  onChange={(e) => set(key, e.target.value)}
                 />
               ))}
             </div>

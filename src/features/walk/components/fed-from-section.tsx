@@ -5,6 +5,8 @@ import { useColdSupply } from '../../systems/api/get-cold-supply';
 import { useSystems } from '../../systems/api/get-systems';
 import { useWalk } from '../draft/walk-context';
 import { fmt } from '../lib/format';
+import { describedField } from '../lib/described';
+import { FED_FROM } from '../../../engine/model/elements';
 
 /** The node id held until the designer chooses one: no cold system has it, so the verdict stays Incomplete meanwhile. */
 const NO_NODE = '(not chosen)';
@@ -41,7 +43,7 @@ export function FedFromSection() {
       </p>
       <div className="grid gap-4 md:grid-cols-2">
         <SelectField
-          label="Cold-water system feeding the heater"
+          {...describedField(FED_FROM, 'systemId', document.unitSystem)}
           disabled={disabled}
           value={fedFrom?.systemId ?? ''}
           onChange={(e) => {
@@ -60,7 +62,7 @@ export function FedFromSection() {
         />
         {fedFrom ? (
           <SelectField
-            label="Node of the cold system that feeds the heater"
+            {...describedField(FED_FROM, 'nodeId', document.unitSystem)}
             disabled={disabled}
             value={fedFrom.nodeId}
             onChange={(e) => {

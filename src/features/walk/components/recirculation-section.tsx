@@ -2,20 +2,17 @@ import { useState } from 'react';
 import { Section } from '../../../components/ui/card';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/field';
-import { checkRange, FIELD_QUANTITIES } from '../../../engine';
+import { checkRange, FIELD_QUANTITIES, fieldUnit } from '../../../engine';
 import type { Recirculation, RecirculationAnalysis, RecirculationSegment, SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect } from './cells';
 import { fmt } from '../lib/format';
+import { describedCell, describedField } from '../lib/described';
+import { RECIRCULATION, RECIRCULATION_SEGMENT } from '../../../engine/model/elements';
 
 type Loop = Recirculation;
 type Pipe = RecirculationSegment;
 type LoopNumber = 'heatLossPerLength' | 'temperatureDrop' | 'hotTemperature' | 'fittingAllowance' | 'heaterLoss';
-
-/** The heat and temperature-difference units of a document (the units module has no power quantity). */
-function heatUnits(sys: SystemDocument['unitSystem']) {
-  return sys === 'US' ? { heat: 'Btu/h', perLength: 'Btu/h per ft', drop: '°F' } : { heat: 'W', perLength: 'W/m', drop: 'K' };
-}
 
 /**
  * A starting loop, to be replaced by the project's: out from the heater (the source node) to the end
@@ -59,7 +56,6 @@ export function RecirculationSection() {
   const loop = document.recirculation;
   const disabled = readOnlyReason !== null;
   const sys = document.unitSystem;
-  const hu = heatUnits(sys);
   const [errors, setErrors] = useState<Record<string, string>>({});
   const result: RecirculationAnalysis | undefined = live.ok ? live.analysis.recirculation : undefined;
 
@@ -135,31 +131,31 @@ export function RecirculationSection() {
     );
   }
 
+  // Each field's label, unit and help come from the description (RECIRCULATION); the leaving
+  // temperature's hint names the system's own temperature, which it defaults to.
+  const described = (key: LoopNumber) => describedField(RECIRCULATION, key, sys);
   const loopFields: { key: LoopNumber; label: string; optional: boolean; hint?: string }[] = [
     {
       key: 'heatLossPerLength',
-      label: `Heat loss per length of pipe (${hu.perLength})`,
+      ...described('heatLossPerLength'),
       optional: true,
-      hint: 'For pipes without their own heat loss: from the insulation maker’s tables.',
     },
-    { key: 'temperatureDrop', label: `Temperature drop allowed around the loop (${hu.drop})`, optional: false },
+    { key: 'temperatureDrop', ...described('temperatureDrop'), optional: false },
     {
       key: 'hotTemperature',
-      label: `Temperature leaving the heater (${units.temperature})`,
+      label: described('hotTemperature').label,
       optional: true,
       hint: `Empty: the system's ${fmt(document.waterTemperature, 0)} ${units.temperature}.`,
     },
     {
       key: 'fittingAllowance',
-      label: 'Fitting allowance (fraction of the pipe friction)',
+      ...described('fittingAllowance'),
       optional: true,
-      hint: 'Empty: 0.25 (fittings as a quarter of the pipe, a designers’ rule of thumb); 0 when fittings are counted in the lengths.',
     },
     {
       key: 'heaterLoss',
-      label: `Heater loss at the loop flow (${units.pressure})`,
+      ...described('heaterLoss'),
       optional: true,
-      hint: 'Empty: 0. From the heater maker’s pressure-drop data.',
     },
   ];
 
@@ -214,7 +210,7 @@ export function RecirculationSection() {
                   Size
                 </th>
                 <th scope="col" className="py-1 pr-2">
-                  Heat loss ({hu.heat})
+                  Heat loss ({fieldUnit('loopHeatLoss', sys)})
                 </th>
                 <th scope="col" className="py-1">
                   <span className="sr-only">Remove</span>
@@ -234,7 +230,7 @@ export function RecirculationSection() {
                   <tr key={p.id} className="border-b border-rule align-top">
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`From, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'from', sys)}
                         list={nodeListId}
                         disabled={disabled}
                         defaultValue={p.from}
@@ -244,7 +240,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`To, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'to', sys)}
                         list={nodeListId}
                         disabled={disabled}
                         defaultValue={p.to}
@@ -254,7 +250,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`Length, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'length', sys)}
                         inputMode="decimal"
                         autoComplete="off"
                         disabled={disabled}
@@ -265,7 +261,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellSelect
-                        label={`Material, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'material', sys)}
                         disabled={disabled}
                         value={p.material}
                         options={material ? materialOptions : [...materialOptions, { value: p.material, label: `${p.material} (not in the catalog)` }]}
@@ -280,7 +276,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellSelect
-                        label={`Size, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'size', sys)}
                         disabled={disabled}
                         value={p.size ?? ''}
                         options={sizeOptions}
@@ -296,7 +292,7 @@ export function RecirculationSection() {
                     </td>
                     <td className="py-1 pr-2">
                       <CellInput
-                        label={`Heat loss, ${name}`}
+                        {...describedCell(`Loop pipe ${i + 1}`, RECIRCULATION_SEGMENT, 'heatLoss', sys)}
                         inputMode="decimal"
                         autoComplete="off"
                         placeholder="per length"

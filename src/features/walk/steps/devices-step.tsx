@@ -16,6 +16,8 @@ import { parseCurvePoints } from '../lib/csv';
 import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { describedCell, describedField } from '../lib/described';
+import { BOOST_CONSTANT_SPEED, BOOST_VARIABLE_SPEED, CURVE_POINT, DEVICE, DEVICE_LOSS_FIXED, PRV } from '../../../engine/model/elements';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { deviceFromProjectTemplate, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 
@@ -108,13 +110,13 @@ function BoosterFields({
   register,
   control,
   errors,
-  pressureUnit,
+  unitSystem,
 }: {
   index: number;
   register: UseFormRegister<DevicesForm>;
   control: Control<DevicesForm>;
   errors: FieldErrors<DeviceRow> | undefined;
-  pressureUnit: string;
+  unitSystem: SystemDocument['unitSystem'];
 }) {
   const boostControl = useWatch({ control, name: `devices.${index}.boostControl` });
   const n = index + 1;
@@ -129,9 +131,9 @@ function BoosterFields({
       </label>
       {boostControl === 'variable-speed' ? (
         <label className="flex flex-col gap-1 text-sm font-semibold">
-          Discharge pressure held ({pressureUnit})
+          {describedField(BOOST_VARIABLE_SPEED, 'setPressure', unitSystem).label}
           <CellInput
-            label={`Device ${n} booster discharge pressure (${pressureUnit})`}
+            {...describedCell(`Device ${n}`, BOOST_VARIABLE_SPEED, 'setPressure', unitSystem)}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -142,9 +144,9 @@ function BoosterFields({
       ) : (
         <>
           <label className="flex flex-col gap-1 text-sm font-semibold">
-            Pressure added at design flow ({pressureUnit})
+            {describedField(BOOST_CONSTANT_SPEED, 'designGain', unitSystem).label}
             <CellInput
-              label={`Device ${n} booster gain (${pressureUnit})`}
+              {...describedCell(`Device ${n}`, BOOST_CONSTANT_SPEED, 'designGain', unitSystem)}
               type="text"
               inputMode="decimal"
               autoComplete="off"
@@ -153,9 +155,9 @@ function BoosterFields({
             />
           </label>
           <label className="flex flex-col gap-1 text-sm font-semibold">
-            Pressure added at shutoff ({pressureUnit})
+            {describedField(BOOST_CONSTANT_SPEED, 'shutoffGain', unitSystem).label}
             <CellInput
-              label={`Device ${n} booster shutoff gain (${pressureUnit})`}
+              {...describedCell(`Device ${n}`, BOOST_CONSTANT_SPEED, 'shutoffGain', unitSystem)}
               type="text"
               inputMode="decimal"
               autoComplete="off"
@@ -196,6 +198,7 @@ function CurvePoints({
     }
   };
   const rowErrors = errors.devices?.[index]?.points;
+  const sys = useWalk().document.unitSystem;
   return (
     <div className="flex flex-col gap-3">
       <table className="w-full max-w-md text-sm">
@@ -214,7 +217,7 @@ function CurvePoints({
             <tr key={field.id}>
               <td className="pr-2">
                 <CellInput
-                  label={`Point ${k + 1} flow (${units.flow})`}
+                  {...describedCell(`Point ${k + 1}`, CURVE_POINT, 'flow', sys)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
@@ -231,7 +234,7 @@ function CurvePoints({
               </td>
               <td className="pr-2">
                 <CellInput
-                  label={`Point ${k + 1} loss (${units.pressure})`}
+                  {...describedCell(`Point ${k + 1}`, CURVE_POINT, 'loss', sys)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
@@ -395,13 +398,21 @@ export function DevicesStep() {
               }
             >
               <div className="grid gap-4 md:grid-cols-2">
-                <SelectField label="Kind" options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))} {...register(`devices.${i}.kind`)} />
+                <SelectField
+                  {...describedField(DEVICE, 'kind', document.unitSystem)}
+                  options={KINDS.map((k) => ({ value: k, label: KIND_LABELS[k] }))}
+                  {...register(`devices.${i}.kind`)}
+                />
                 <label className="flex flex-col gap-1 text-sm font-semibold">
-                  Name
-                  <CellInput label={`Device ${i + 1} name`} error={plainError(err?.label?.message)} {...register(`devices.${i}.label`)} />
+                  {describedField(DEVICE, 'label', document.unitSystem).label}
+                  <CellInput
+                    {...describedCell(`Device ${i + 1}`, DEVICE, 'label', document.unitSystem)}
+                    error={plainError(err?.label?.message)}
+                    {...register(`devices.${i}.label`)}
+                  />
                 </label>
                 <SelectField
-                  label="On segment (at its inlet)"
+                  {...describedField(DEVICE, 'segmentId', document.unitSystem)}
                   options={segmentOptions}
                   error={plainError(err?.segmentId?.message)}
                   {...register(`devices.${i}.segmentId`)}
@@ -416,9 +427,9 @@ export function DevicesStep() {
                 />
                 {lossKind === 'fixed' ? (
                   <label className="flex flex-col gap-1 text-sm font-semibold">
-                    Loss at any flow ({units.pressure})
+                    {describedField(DEVICE_LOSS_FIXED, 'loss', document.unitSystem).label}
                     <CellInput
-                      label={`Device ${i + 1} fixed loss (${units.pressure})`}
+                      {...describedCell(`Device ${i + 1}`, DEVICE_LOSS_FIXED, 'loss', document.unitSystem)}
                       type="text"
                       inputMode="decimal"
                       autoComplete="off"
@@ -430,9 +441,9 @@ export function DevicesStep() {
                 {kind === 'prv' ? (
                   <>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
-                      PRV set pressure ({units.pressure})
+                      {describedField(PRV, 'setPressure', document.unitSystem).label}
                       <CellInput
-                        label={`Device ${i + 1} PRV set pressure (${units.pressure})`}
+                        {...describedCell(`Device ${i + 1}`, PRV, 'setPressure', document.unitSystem)}
                         type="text"
                         inputMode="decimal"
                         autoComplete="off"
@@ -441,9 +452,9 @@ export function DevicesStep() {
                       />
                     </label>
                     <label className="flex flex-col gap-1 text-sm font-semibold">
-                      PRV fall-off ({units.pressure} per {units.flow})
+                      {describedField(PRV, 'falloffPerFlow', document.unitSystem).label}
                       <CellInput
-                        label={`Device ${i + 1} PRV fall-off`}
+                        {...describedCell(`Device ${i + 1}`, PRV, 'falloffPerFlow', document.unitSystem)}
                         type="text"
                         inputMode="decimal"
                         autoComplete="off"
@@ -453,7 +464,9 @@ export function DevicesStep() {
                     </label>
                   </>
                 ) : null}
-                {kind === 'booster-pump' ? <BoosterFields index={i} register={register} control={control} errors={err} pressureUnit={units.pressure} /> : null}
+                {kind === 'booster-pump' ? (
+                  <BoosterFields index={i} register={register} control={control} errors={err} unitSystem={document.unitSystem} />
+                ) : null}
               </div>
               {lossKind === 'curve' ? (
                 <div className="mt-4">

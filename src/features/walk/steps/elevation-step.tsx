@@ -13,6 +13,8 @@ import { treeOrder } from '../lib/tree';
 import { elevationsFromFloors, floorLevels, floorOf, planProblems, type FloorPlan } from '../lib/floors';
 import { TextField } from '../../../components/ui/field';
 import { useLiveForm } from '../lib/use-live-form';
+import { describedField } from '../lib/described';
+import { NODE, SEGMENT } from '../../../engine/model/elements';
 
 export const elevationFormSchema = z.object({
   nodes: z.array(
@@ -273,7 +275,7 @@ export function ElevationStep() {
                       <span className="text-ink-muted">connection</span>
                     ) : (
                       <CellSelect
-                        label={`Floor of ${label.get(n.id)}`}
+                        {...describedField(NODE, 'floor', document.unitSystem, { after: `of ${label.get(n.id)}` })}
                         options={floorOptions}
                         value={String(assignment.get(n.id) ?? '')}
                         onChange={(ev) =>
@@ -289,7 +291,7 @@ export function ElevationStep() {
                   </td>
                   <td className="w-40 py-1">
                     <CellInput
-                      label={`Elevation of ${label.get(n.id)} (${units.elevation})`}
+                      {...describedField(NODE, 'elevation', document.unitSystem, { after: `of ${label.get(n.id)}` })}
                       type="text"
                       inputMode="decimal"
                       autoComplete="off"
@@ -338,7 +340,7 @@ export function ElevationStep() {
                     </th>
                     <td className="w-40 py-1 pr-2">
                       <CellInput
-                        label={`Rise of ${s.label || s.id} (${units.length})`}
+                        {...describedField(SEGMENT, 'rise', document.unitSystem, { after: `of ${s.label || s.id}` })}
                         type="text"
                         inputMode="decimal"
                         autoComplete="off"

@@ -32,6 +32,8 @@ import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt } from '../lib/format';
 import { numberInput } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { describedCell, describedField } from '../lib/described';
+import { CRITERIA, FITTING } from '../../../engine/model/elements';
 
 const METHOD_LABELS = {
   crane: 'Crane K = N·f_T (size-dependent, default)',
@@ -218,7 +220,7 @@ function SegmentFittings({
                 </td>
                 <td className="w-20 py-1 pr-2">
                   <CellInput
-                    label={`${name}: fitting ${k + 1} count`}
+                    {...describedCell(`${name}: fitting ${k + 1}`, FITTING, 'count', doc.unitSystem)}
                     type="text"
                     inputMode="numeric"
                     autoComplete="off"
@@ -456,7 +458,7 @@ export function FittingsStep() {
             </p>
           ) : (
             <SelectField
-              label="Loss method for fittings"
+              label={describedField(CRITERIA, 'fittingMethod', document.unitSystem).label}
               options={METHODS.map((m) => ({ value: m, label: METHOD_LABELS[m] }))}
               hint={analysis ? `In use: ${analysis.methods.fittings.label} — ${analysis.methods.fittings.source}` : undefined}
               value={method}

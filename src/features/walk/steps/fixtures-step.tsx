@@ -17,6 +17,8 @@ import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { fmt, signed } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
+import { describedCell, describedField } from '../lib/described';
+import { CHECKED_FIXTURE } from '../../../engine/model/elements';
 
 const optional = <T extends z.ZodType>(schema: T) => z.preprocess((v) => (v === '' || (typeof v === 'number' && Number.isNaN(v)) ? undefined : v), schema);
 const fixtureRow = CheckedFixtureSchema.extend({
@@ -84,7 +86,7 @@ function NodeFixtures({
           <div key={f.id} className="mb-3 rounded-md border-2 border-rule p-3" data-testid={`checked-${row?.id}`}>
             <div className="grid gap-2 md:grid-cols-4">
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
-                Fixture type
+                {describedField(CHECKED_FIXTURE, 'fixtureTypeId', doc.unitSystem).label}
                 <CellSelect
                   label={`${name}: checked fixture ${k + 1} type`}
                   options={[...options, ...projectOptions]}
@@ -92,13 +94,16 @@ function NodeFixtures({
                 />
               </label>
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
-                Name
-                <CellInput label={`${name}: checked fixture ${k + 1} name`} {...register(`nodes.${index}.checkedFixtures.${k}.label`)} />
+                {describedField(CHECKED_FIXTURE, 'label', doc.unitSystem).label}
+                <CellInput
+                  {...describedCell(`${name}: checked fixture ${k + 1}`, CHECKED_FIXTURE, 'label', doc.unitSystem)}
+                  {...register(`nodes.${index}.checkedFixtures.${k}.label`)}
+                />
               </label>
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
-                Minimum flow pressure ({units.pressure})
+                {describedField(CHECKED_FIXTURE, 'minFlowPressure', doc.unitSystem).label}
                 <CellInput
-                  label={`${name}: checked fixture ${k + 1} minimum flow pressure (${units.pressure})`}
+                  {...describedCell(`${name}: checked fixture ${k + 1}`, CHECKED_FIXTURE, 'minFlowPressure', doc.unitSystem)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"

@@ -35,6 +35,8 @@ import { fmt } from '../lib/format';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { followTypedRises } from '../lib/rises';
 import { useLiveForm } from '../lib/use-live-form';
+import { describedCell, describedField } from '../lib/described';
+import { CUSTOM_PIPE, FIXTURE_GROUP, FIXTURE_USAGE, NODE, SEGMENT } from '../../../engine/model/elements';
 
 const optionalText = z.preprocess((v) => (v === '' || v === null ? undefined : v), z.string().optional());
 /** An empty number box (undefined or NaN from numberInput) or an empty select ('') is "not given". */
@@ -218,7 +220,6 @@ function FixtureGroups({
   nodeLabel,
   errors,
   locked,
-  units,
 }: {
   index: number;
   control: Control<RisersForm>;
@@ -232,9 +233,9 @@ function FixtureGroups({
   errors: { count?: { message?: string }; fixtureTypeId?: { message?: string }; usage?: Record<string, { message?: string } | undefined> }[] | undefined;
   /** in a field change no fixture is added or removed */
   locked: boolean;
-  units: { flow: string };
 }) {
   const groups = useFieldArray({ control, name: `nodes.${index}.fixtureGroups` });
+  const sys = useWalk().document.unitSystem;
   const options = catalog.fixtureTypes.map((f) => ({ value: f.id, label: f.label }));
   const projectOptions = projectOptionsOf(projectFixtures);
   return (
@@ -258,7 +259,7 @@ function FixtureGroups({
               />
               <CellInput
                 className="w-24"
-                label={`${nodeLabel}: fixture group ${k + 1} count`}
+                {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_GROUP, 'count', sys)}
                 type="text"
                 inputMode="numeric"
                 autoComplete="off"
@@ -281,25 +282,25 @@ function FixtureGroups({
               </summary>
               <div className="mt-2 grid gap-2 sm:grid-cols-2 xl:grid-cols-5">
                 <label className="flex flex-col text-xs font-semibold">
-                  Demand curve
+                  {describedField(FIXTURE_GROUP, 'demandCurve', sys).label}
                   <CellSelect
-                    label={`${nodeLabel}: fixture group ${k + 1} demand curve`}
+                    {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_GROUP, 'demandCurve', sys)}
                     options={DEMAND_CURVE_OPTIONS}
                     {...register(`nodes.${index}.fixtureGroups.${k}.demandCurve`)}
                   />
                 </label>
                 <label className="flex flex-col text-xs font-semibold">
-                  Fixture units counted
+                  {describedField(FIXTURE_GROUP, 'wsfuBasis', sys).label}
                   <CellSelect
-                    label={`${nodeLabel}: fixture group ${k + 1} fixture-unit basis`}
+                    {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_GROUP, 'wsfuBasis', sys)}
                     options={WSFU_BASIS_OPTIONS}
                     {...register(`nodes.${index}.fixtureGroups.${k}.wsfuBasis`)}
                   />
                 </label>
                 <label className="flex flex-col text-xs font-semibold">
-                  Flow in use ({units.flow})
+                  {describedField(FIXTURE_USAGE, 'flow', sys).label}
                   <CellInput
-                    label={`${nodeLabel}: fixture group ${k + 1} flow in use (${units.flow})`}
+                    {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_USAGE, 'flow', sys)}
                     type="text"
                     inputMode="decimal"
                     autoComplete="off"
@@ -309,9 +310,9 @@ function FixtureGroups({
                   />
                 </label>
                 <label className="flex flex-col text-xs font-semibold">
-                  Use lasts (s)
+                  {describedField(FIXTURE_USAGE, 'durationSeconds', sys).label}
                   <CellInput
-                    label={`${nodeLabel}: fixture group ${k + 1} duration of use (s)`}
+                    {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_USAGE, 'durationSeconds', sys)}
                     type="text"
                     inputMode="decimal"
                     autoComplete="off"
@@ -320,9 +321,9 @@ function FixtureGroups({
                   />
                 </label>
                 <label className="flex flex-col text-xs font-semibold">
-                  Time between uses (s)
+                  {describedField(FIXTURE_USAGE, 'recurrenceSeconds', sys).label}
                   <CellInput
-                    label={`${nodeLabel}: fixture group ${k + 1} time between uses (s)`}
+                    {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_USAGE, 'recurrenceSeconds', sys)}
                     type="text"
                     inputMode="decimal"
                     autoComplete="off"
@@ -361,7 +362,6 @@ function CustomPipeFields({
   name,
   register,
   errors,
-  units,
   fromProject,
   source,
 }: {
@@ -369,18 +369,18 @@ function CustomPipeFields({
   name: string;
   register: UseFormRegister<RisersForm>;
   errors: Record<string, { message?: string } | undefined> | undefined;
-  units: { diameter: string };
   fromProject: boolean;
   source: string | undefined;
 }) {
+  const sys = useWalk().document.unitSystem;
   return (
     <fieldset className="mt-2 rounded border border-rule p-2" disabled={fromProject || undefined}>
       <legend className="px-1 text-xs font-semibold">{fromProject ? 'Pipe data copied from the project catalog' : 'Custom pipe data'}</legend>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
         <label className="flex flex-col text-xs font-semibold">
-          Inside diameter ({units.diameter})
+          {describedField(CUSTOM_PIPE, 'innerDiameter', sys).label}
           <CellInput
-            label={`${name} custom inside diameter (${units.diameter})`}
+            {...describedCell(`${name} custom`, CUSTOM_PIPE, 'innerDiameter', sys)}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -389,9 +389,9 @@ function CustomPipeFields({
           />
         </label>
         <label className="flex flex-col text-xs font-semibold">
-          Absolute roughness ({units.diameter})
+          {describedField(CUSTOM_PIPE, 'roughness', sys).label}
           <CellInput
-            label={`${name} custom roughness (${units.diameter})`}
+            {...describedCell(`${name} custom`, CUSTOM_PIPE, 'roughness', sys)}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -400,9 +400,9 @@ function CustomPipeFields({
           />
         </label>
         <label className="flex flex-col text-xs font-semibold">
-          Hazen–Williams C
+          {describedField(CUSTOM_PIPE, 'hazenWilliamsC', sys).label}
           <CellInput
-            label={`${name} custom Hazen–Williams C`}
+            {...describedCell(`${name} custom`, CUSTOM_PIPE, 'hazenWilliamsC', sys)}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -411,9 +411,9 @@ function CustomPipeFields({
           />
         </label>
         <label className="flex flex-col text-xs font-semibold">
-          Velocity limit
+          {describedField(CUSTOM_PIPE, 'velocityClass', sys).label}
           <CellSelect
-            label={`${name} custom velocity class`}
+            {...describedCell(`${name} custom`, CUSTOM_PIPE, 'velocityClass', sys)}
             options={VELOCITY_CLASS_OPTIONS}
             error={plainError(errors?.velocityClass?.message)}
             {...register(`segments.${index}.custom.velocityClass`)}
@@ -569,17 +569,18 @@ function NodeFields(p: {
   const nodeLabel = watch('nodes.0.label') || id;
   const groups = watch('nodes.0.fixtureGroups');
   const atEnd = p.where === 'end';
+  const sys = useWalk().document.unitSystem;
   return (
     <div className="flex flex-col gap-3" data-testid={`node-fields-${id}`}>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
         <label className="flex flex-col text-xs font-semibold">
           {atEnd ? 'Node name at the end' : 'Node name'}
-          <CellInput label={`Name of node ${id}`} {...register('nodes.0.label')} />
+          <CellInput {...describedField(NODE, 'label', sys, { after: `of node ${id}` })} {...register('nodes.0.label')} />
         </label>
         <label className="flex flex-col text-xs font-semibold">
           {atEnd ? 'Continuous demand at the end' : 'Continuous demand'} ({p.units.flow})
           <CellInput
-            label={`Continuous demand at node ${id} (${p.units.flow})`}
+            {...describedField(NODE, 'continuousDemand', sys, { after: `at node ${id}` })}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -602,7 +603,6 @@ function NodeFields(p: {
           nodeLabel={nodeLabel}
           errors={errors.nodes?.[0]?.fixtureGroups as never}
           locked={p.policy.locked.fixtures !== null}
-          units={p.units}
         />
       </div>
     </div>
@@ -660,18 +660,18 @@ function SegmentDetail(p: DetailProps) {
     <div className="flex flex-col gap-3" data-testid={`segment-detail-${s.id}`}>
       <div className="grid gap-2 sm:grid-cols-2 xl:grid-cols-4">
         <label className="flex flex-col text-xs font-semibold">
-          Name
+          {describedField(SEGMENT, 'label', p.view.unitSystem).label}
           <CellInput
-            label={`${name} name`}
+            {...describedCell(name, SEGMENT, 'label', p.view.unitSystem)}
             readOnly={p.policy.locked.name !== null}
             title={p.policy.locked.name ?? undefined}
             {...register('segments.0.label')}
           />
         </label>
         <label className="flex flex-col text-xs font-semibold">
-          Design flow override ({p.units.flow})
+          {describedField(SEGMENT, 'flowOverride', p.view.unitSystem).label}
           <CellInput
-            label={`${name} design flow override (${p.units.flow})`}
+            {...describedCell(name, SEGMENT, 'flowOverride', p.view.unitSystem)}
             type="text"
             inputMode="decimal"
             autoComplete="off"
@@ -699,7 +699,6 @@ function SegmentDetail(p: DetailProps) {
           name={name}
           register={register as never}
           errors={err?.custom as never}
-          units={p.units}
           fromProject={projectEntryIdOf(p.materialValue) !== null}
           source={p.projectMaterialSource}
         />

@@ -11,6 +11,8 @@ import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { FedFromSection } from '../components/fed-from-section';
 import { SOURCE_KIND_LABELS } from '../../../engine/model/labels';
+import { FLOW_TEST, NODE, SOURCE, SYSTEM_DOCUMENT } from '../../../engine/model/elements';
+import { describedField } from '../lib/described';
 
 const SOURCE_KINDS = (['utility-main', 'tank', 'booster-outlet'] as const).map((value) => ({ value, label: SOURCE_KIND_LABELS[value] }));
 
@@ -107,6 +109,7 @@ export function SupplyStep() {
   const e = (m?: string) => plainError(m);
   const source = live.ok ? live.analysis.source : null;
   const fed = document.source.fedFrom !== undefined;
+  const sys = document.unitSystem;
 
   return (
     <form noValidate onSubmit={(ev) => ev.preventDefault()} aria-label="Supply">
@@ -118,13 +121,12 @@ export function SupplyStep() {
         {document.service === 'hot' ? <FedFromSection /> : null}
         <Section title="Source" headingLevel={3}>
           <div className="grid gap-4 md:grid-cols-2">
-            <SelectField label="Kind of source" options={SOURCE_KINDS} error={e(errors.kind?.message)} {...register('kind')} />
+            <SelectField {...describedField(SOURCE, 'kind', sys)} options={SOURCE_KINDS} error={e(errors.kind?.message)} {...register('kind')} />
             <TextField
-              label={`Elevation of the connection (${units.elevation})`}
+              {...describedField(NODE, 'elevation', sys, { after: 'of the connection' })}
               type="text"
               inputMode="decimal"
               autoComplete="off"
-              hint="The elevation of the source node, on the same datum as every other node."
               error={e(errors.connectionElevation?.message)}
               {...register('connectionElevation', numberInput)}
             />
@@ -136,39 +138,35 @@ export function SupplyStep() {
             ) : (
               <>
                 <TextField
-                  label={`Static pressure, low (${units.pressure})`}
+                  {...describedField(SOURCE, 'staticPressureLow', sys)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
-                  hint="The lowest the utility expects at the connection: the design figure."
                   error={e(errors.staticPressureLow?.message)}
                   {...register('staticPressureLow', numberInput)}
                 />
                 <TextField
-                  label={`Static pressure, high (${units.pressure})`}
+                  {...describedField(SOURCE, 'staticPressureHigh', sys)}
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
-                  hint="The highest expected: for the maximum static pressure check."
                   error={e(errors.staticPressureHigh?.message)}
                   {...register('staticPressureHigh', numberInput)}
                 />
                 <TextAreaField
                   className="md:col-span-2"
-                  label="Where the pressure figures came from"
-                  hint="For example: the utility’s pressure letter, a hydrant flow test, a gauge reading at the main."
+                  {...describedField(SOURCE, 'pressureBasis', sys)}
                   error={e(errors.pressureBasis?.message)}
                   {...register('pressureBasis')}
                 />
               </>
             )}
-            <TextField label="Date of the pressure figures" type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
+            <TextField {...describedField(SOURCE, 'pressureDate', sys)} type="date" error={e(errors.pressureDate?.message)} {...register('pressureDate')} />
             <TextField
-              label={`Water temperature (${units.temperature})`}
+              {...describedField(SYSTEM_DOCUMENT, 'waterTemperature', sys)}
               type="text"
               inputMode="decimal"
               autoComplete="off"
-              hint="Sets the water’s density and viscosity."
               error={e(errors.waterTemperature?.message)}
               {...register('waterTemperature', numberInput)}
             />
@@ -179,7 +177,7 @@ export function SupplyStep() {
           {hasFlowTest ? (
             <div className="mt-4 grid gap-4 md:grid-cols-2">
               <TextField
-                label={`Test static pressure (${units.pressure})`}
+                {...describedField(FLOW_TEST, 'staticPressure', sys)}
                 type="text"
                 inputMode="decimal"
                 autoComplete="off"
@@ -187,7 +185,7 @@ export function SupplyStep() {
                 {...register('flowTest.staticPressure', numberInput)}
               />
               <TextField
-                label={`Test residual pressure (${units.pressure})`}
+                {...describedField(FLOW_TEST, 'residualPressure', sys)}
                 type="text"
                 inputMode="decimal"
                 autoComplete="off"
@@ -195,14 +193,14 @@ export function SupplyStep() {
                 {...register('flowTest.residualPressure', numberInput)}
               />
               <TextField
-                label={`Test flow (${units.flow})`}
+                {...describedField(FLOW_TEST, 'flow', sys)}
                 type="text"
                 inputMode="decimal"
                 autoComplete="off"
                 error={e(errors.flowTest?.flow?.message)}
                 {...register('flowTest.flow', numberInput)}
               />
-              <TextField label="Date of the test" type="date" error={e(errors.flowTest?.date?.message)} {...register('flowTest.date')} />
+              <TextField {...describedField(FLOW_TEST, 'date', sys)} type="date" error={e(errors.flowTest?.date?.message)} {...register('flowTest.date')} />
             </div>
           ) : null}
           <div className="mt-4 rounded-md bg-paper-deep p-3 text-sm" data-testid="source-at-design-flow">
