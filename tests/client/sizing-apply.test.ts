@@ -76,7 +76,10 @@ describe('applying a sizing answer to a draft', () => {
     expect(applied.unitTypes).toEqual(result.document!.unitTypes);
     expect(applied.placements).toEqual(doc.placements);
     expect(sizingBasisState(applied)).toMatchObject({ kind: 'sized', edited: false });
-    const edited = { ...applied, unitTypes: applied.unitTypes!.map((t) => ({ ...t, segments: t.segments.map((s, i) => (i === 0 ? { ...s, size: '2' } : s)) })) };
+    const edited = {
+      ...applied,
+      unitTypes: applied.unitTypes!.map((t) => ({ ...t, segments: t.segments.map((s, i) => (i === 0 ? { ...s, size: '2' } : s)) })),
+    };
     expect(sizingBasisState(edited)).toMatchObject({ kind: 'sized', edited: true });
     expect(undoSizing(applied, result.segments, undefined)).toEqual(doc);
   });

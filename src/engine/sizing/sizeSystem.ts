@@ -46,8 +46,42 @@
  * probes and verifications run only the stages that compute the numbers (analyzeHydraulics), and
  * every step reads the analyses' stage arrays, never building a result object per segment.
  *
- * Scope: the segments of the main tree that have a catalog material and size. Segments inside
- * typical units (placements) and custom pipes keep their size (they are sized in the unit type).
+ * Typical units. A unit type's segment is one decision shared by every placement (the document
+ * stores its size in the unit type), so the placements' copies cannot be sized one by one. The
+ * probes also measure every copy (alike copies share a twin), so ΔL_{e,p}(s) is known per copy;
+ * a size passes the velocity limit only if it does in every copy. A fixture f of the unit in
+ * placement p has the constraint Σ_{main path to p} ΔL + Σ_{unit path of f} ΔL_{e,p}(u_e) ≤ slack_{f,p}.
+ *   - Classes: placements whose copies have the same ΔL tables (no length, fitting or size
+ *     override, same flows) and whose fixtures' slacks differ from the class's first placement's
+ *     by one number c_p for every fixture (the main tree and the floor shift them all alike) share
+ *     need_k(u) = max_f (Σ_{unit path} ΔL − s_{f,k}); placement p's need is need_k(u) − c_p. A
+ *     placement with an override is simply a class of its own, so overrides stay exact.
+ *   - The unit type's front (unitFront.ts): the same tree DP on one copy of the unit, over points
+ *     (volume of all copies, need of each class), keeping every undominated point. Any answer's
+ *     unit choice can be replaced by a front point no worse in volume or any need, so the fronts
+ *     hold an optimal choice.
+ *   - The main tree's DP runs with each placement as a leaf at the segment feeding its connection
+ *     node, need need_k(u) − c_p, for each combination of front points; the total is the main
+ *     volume plus the units' volume, and the cheapest feasible combination is kept. Combinations
+ *     go by units' volume ascending and stop once the main tree's least volume (its DP with every
+ *     placement at the least need any point gives, a lower bound for all) plus the units' volume
+ *     reaches the best found. The probes are shared: the extra cost is DP runs, not analyses.
+ *   - Exact, as for the main tree, up to the size-change loss (step 5; unit segments always carry
+ *     it, at the unit's inlet and inside), the tolerance of OFFSET_TOLERANCE_PA (placements are
+ *     split apart beyond it; within it the least offset is taken, the safe side), and two bounds:
+ *     beyond MAX_UNIT_COMBINATIONS combinations of several unit types the search is coordinate
+ *     descent over the types, and a unit's front beyond MAX_UNIT_POINTS is thinned; either marks
+ *     the answer `unitPiping.leastProven: false` (it still passes its verification).
+ *   - Left at their size (named in `unitPiping.left`): custom pipes, segments without a catalog
+ *     material and size, a segment whose material a placement changes, and a unit type with a
+ *     device on any copy (a device's hold would cut its fixtures' paths per placement). A copy
+ *     whose size a placement overrides keeps that size. Locks and selections name a unit type's
+ *     segment by unitTypeSegmentKey ("<unit type id>/<segment id>").
+ * The exhaustive-search tests in tests/engine/sizing (sizeSystem.test.ts, sizeUnits.test.ts) prove
+ * the least volume against every size assignment, analysed in full.
+ *
+ * Scope: the segments of the main tree and of the placed unit types that have a catalog material
+ * and size; custom pipes keep theirs.
  */
 import { analyzeHydraulics, analyzeWithStages } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
@@ -318,7 +352,8 @@ function unitCandidates({ doc, options, segIndex, locked, selected, hasData, byS
       if (copies.length === 0) return;
       const allowed = options.candidateSizes?.[key];
       for (const k of allowed ?? []) {
-        if (!material.sizes.some((z) => z.key === k)) throw new SizingError('unknown-size', `Size "${k}" is not a size of ${material.label} (segment "${label}").`, key);
+        if (!material.sizes.some((z) => z.key === k))
+          throw new SizingError('unknown-size', `Size "${k}" is not a size of ${material.label} (segment "${label}").`, key);
       }
       const sizes = bySizeAscending(material.id)
         .filter((z) => (!allowed || allowed.includes(z.key)) && copies.every((c) => hasData(c.seg, z)))
@@ -367,7 +402,6 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   for (const id of [...(options.lockedSegmentIds ?? []), ...(options.segmentIds ?? []), ...Object.keys(options.candidateSizes ?? {})]) {
     if (!docIndexById.has(id) && !unitKeys.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
   }
-
 
   const startedAt = performance.now();
   let analyses = 0;
@@ -619,7 +653,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const holdPaths = holds.map((h) => constrained(pathTo(h.cut), cuts));
   const allPaths = [...paths, ...holdPaths];
   const allSlack = [...slack, ...holds.map((h) => h.slack)];
-  const plan = unitPlan({ doc, units: units.segs, unitTypes, placements, fixtures, slack, segIndex, parentOf });
+  const plan = unitPlan({ units: units.segs, unitTypes, placements, fixtures, slack, segIndex });
   const unitPiping: SizingResult['unitPiping'] =
     placed.size === 0
       ? null
@@ -669,7 +703,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   ) => {
     const rows = describe({ ...describeInput, chosen: chosenSizes, governing, after });
     if (placed.size === 0) return rows;
-    return [...rows, ...describeUnits({ base: baseStages, segIndex, locked, fixtures, units: units.segs, unitTypes, placements, unitPick, unitGoverning, after })];
+    return [
+      ...rows,
+      ...describeUnits({ base: baseStages, segIndex, locked, fixtures, units: units.segs, unitTypes, placements, unitPick, unitGoverning, after }),
+    ];
   };
 
   // Infeasible before any search: a fixture stays short with every free segment at its largest size.
@@ -1159,14 +1196,12 @@ function sameTable(a: readonly number[] | null, b: readonly number[] | null): bo
  * OFFSET_TOLERANCE_PA; the least difference is taken, the safe side).
  */
 function unitPlan(input: {
-  doc: SystemDocument;
   units: UnitSeg[];
   unitTypes: NonNullable<SystemDocument['unitTypes']>;
   placements: NonNullable<SystemDocument['placements']>;
   fixtures: FixtureRow[];
   slack: number[];
   segIndex: Map<string, number>;
-  parentOf: Int32Array | number[];
 }): UnitPlan {
   const { units, unitTypes, placements, fixtures, slack, segIndex } = input;
   const rowOf = new Map(fixtures.map((f, i) => [f.id, i]));
@@ -1181,7 +1216,9 @@ function unitPlan(input: {
     const parentLocal = t.segments.map((s) => (s.from === UNIT_INLET ? -1 : feedOf.get(s.from)!));
     const inletLocal = parentLocal.indexOf(-1);
     const mine = placements.map((p, q) => ({ p, q })).filter(({ p }) => p.unitTypeId === t.id);
-    const unitFixtures = t.nodes.flatMap((n) => n.checkedFixtures.map((fx) => ({ feed: feedOf.get(n.id)!, rows: mine.map(({ p }) => rowOf.get(placedId(p.id, fx.id))!) })));
+    const unitFixtures = t.nodes.flatMap((n) =>
+      n.checkedFixtures.map((fx) => ({ feed: feedOf.get(n.id)!, rows: mine.map(({ p }) => rowOf.get(placedId(p.id, fx.id))!) })),
+    );
     const tables = mine.map(({ q }) => segs.map((u) => (u ? (u.copies.find((c) => c.placement === q)?.deltaPa ?? null) : null)));
     const classes: (number[] | null)[][] = [];
     const reps: number[] = [];
@@ -1217,7 +1254,14 @@ function unitPlan(input: {
 }
 
 /** The main tree without the decided unit types' piping: their inlets leave `children` and `roots`; each placement is a leaf constraint. */
-function unitLeaves(input: { plan: UnitPlan; children: number[][]; roots: number[]; leafNeed: number[][]; parentOf: Int32Array | number[]; firstConstraint: number }) {
+function unitLeaves(input: {
+  plan: UnitPlan;
+  children: number[][];
+  roots: number[];
+  leafNeed: number[][];
+  parentOf: Int32Array | number[];
+  firstConstraint: number;
+}) {
   const { plan, parentOf, firstConstraint } = input;
   const inlets = new Set(plan.types.flatMap((t) => t.placements.map((p) => p.inlet)));
   const children = input.children.map((c) => c.filter((e) => !inlets.has(e)));
@@ -1407,7 +1451,12 @@ function describeUnits(input: {
         worstFixture:
           w === undefined
             ? null
-            : { fixtureId: fixtures[w].id, label: fixtures[w].label, marginBeforePa: fixtures[w].margin, marginAfterPa: after ? after.checks.fixtures[w].marginPa : null },
+            : {
+                fixtureId: fixtures[w].id,
+                label: fixtures[w].label,
+                marginBeforePa: fixtures[w].margin,
+                marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
+              },
         after: u && k !== undefined ? u.sizes[k] : (s.size ?? null),
         governing: locked.has(key)
           ? 'locked'

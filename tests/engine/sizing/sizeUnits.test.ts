@@ -62,9 +62,36 @@ function unitTypeA(r: () => number): UnitTypeInput {
       },
     ],
     segments: [
-      { id: 'br', label: 'branch', from: 'inlet', to: 'm', material: 'copper-l', size: START, length: 10 + Math.round(r() * 30), fittings: [{ typeId: 'elbow-90-standard', count: 2 }] },
-      { id: 'la', label: 'to shower', from: 'm', to: 'a', material: 'copper-l', size: START, length: 8 + Math.round(r() * 20), fittings: [{ typeId: 'elbow-90-standard', count: 3 }] },
-      { id: 'lb', label: 'to sink', from: 'm', to: 'b', material: 'copper-l', size: START, length: 8 + Math.round(r() * 20), fittings: [{ typeId: 'elbow-90-standard', count: 2 }] },
+      {
+        id: 'br',
+        label: 'branch',
+        from: 'inlet',
+        to: 'm',
+        material: 'copper-l',
+        size: START,
+        length: 10 + Math.round(r() * 30),
+        fittings: [{ typeId: 'elbow-90-standard', count: 2 }],
+      },
+      {
+        id: 'la',
+        label: 'to shower',
+        from: 'm',
+        to: 'a',
+        material: 'copper-l',
+        size: START,
+        length: 8 + Math.round(r() * 20),
+        fittings: [{ typeId: 'elbow-90-standard', count: 3 }],
+      },
+      {
+        id: 'lb',
+        label: 'to sink',
+        from: 'm',
+        to: 'b',
+        material: 'copper-l',
+        size: START,
+        length: 8 + Math.round(r() * 20),
+        fittings: [{ typeId: 'elbow-90-standard', count: 2 }],
+      },
     ],
   };
 }
@@ -84,8 +111,26 @@ function unitTypeB(r: () => number): UnitTypeInput {
       },
     ],
     segments: [
-      { id: 'bx', label: 'branch', from: 'inlet', to: 'x', material: 'copper-l', size: START, length: 10 + Math.round(r() * 30), fittings: [{ typeId: 'tee-branch', count: 1 }] },
-      { id: 'xy', label: 'to lavatory', from: 'x', to: 'y', material: 'copper-l', size: START, length: 8 + Math.round(r() * 20), fittings: [{ typeId: 'elbow-90-standard', count: 2 }] },
+      {
+        id: 'bx',
+        label: 'branch',
+        from: 'inlet',
+        to: 'x',
+        material: 'copper-l',
+        size: START,
+        length: 10 + Math.round(r() * 30),
+        fittings: [{ typeId: 'tee-branch', count: 1 }],
+      },
+      {
+        id: 'xy',
+        label: 'to lavatory',
+        from: 'x',
+        to: 'y',
+        material: 'copper-l',
+        size: START,
+        length: 8 + Math.round(r() * 20),
+        fittings: [{ typeId: 'elbow-90-standard', count: 2 }],
+      },
     ],
   };
 }

@@ -272,12 +272,7 @@ export function SizingPanel() {
                         </td>
                         {editable ? (
                           <td className="py-1">
-                            <input
-                              type="checkbox"
-                              aria-label={`Lock the size of ${name}`}
-                              checked={locked}
-                              onChange={(e) => lock(r, e.target.checked)}
-                            />
+                            <input type="checkbox" aria-label={`Lock the size of ${name}`} checked={locked} onChange={(e) => lock(r, e.target.checked)} />
                           </td>
                         ) : null}
                       </tr>
