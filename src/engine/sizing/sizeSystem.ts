@@ -111,6 +111,8 @@ const VELOCITY_RTOL = 1e-9;
 const MAX_UNIT_COMBINATIONS = 256;
 /** Placements of one class whose fixtures' slack offsets differ by more than this are split apart, Pa (round-off only). */
 const OFFSET_TOLERANCE_PA = 1e-6;
+/** Classes of placements per unit type searched apart; beyond, they are merged on the safe side (our choice of bound: the front's points grow with the classes). */
+const MAX_UNIT_CLASSES = 8;
 
 /**
  * How the options name a unit type's segment (one decision shared by every placement): the unit
@@ -1177,6 +1179,8 @@ interface PlannedType {
   placements: { q: number; inlet: number; cls: number; offsetPa: number }[];
   /** Per class: the extra loss table of each local segment in the class's placements (null: no decided copy). */
   classes: (number[] | null)[][];
+  /** The classes were more than MAX_UNIT_CLASSES and merged into one (safe, not proven least). */
+  merged: boolean;
 }
 
 interface UnitPlan {
@@ -1239,8 +1243,27 @@ function unitPlan(input: {
       }
       return { q, inlet: segIndex.get(placedId(p.id, t.segments[inletLocal].id))!, cls, offsetPa };
     });
+    // Too many classes: one class whose table is the largest extra loss of any, each placement at
+    // its least offset from the first placement (every constraint kept or tightened: safe).
+    let merged = false;
+    if (classes.length > MAX_UNIT_CLASSES) {
+      merged = true;
+      const table = segs.map((u, e) => {
+        if (!u) return null;
+        const known = classes.map((c) => c[e]).filter((c): c is number[] => c !== null);
+        // a placement whose copy keeps an overridden size has no extra loss there (0 joins the maximum)
+        const fixedSomewhere = known.length < classes.length;
+        return known.length ? u.sizes.map((_, k) => Math.max(...known.map((c) => c[k]), ...(fixedSomewhere ? [0] : []))) : null;
+      });
+      classes.splice(0, classes.length, table);
+      planned.forEach((p, j) => {
+        const d = unitFixtures.map((f) => slack[f.rows[j]] - slack[f.rows[reps[0]]]);
+        p.cls = 0;
+        p.offsetPa = d.length ? Math.min(...d) : 0;
+      });
+    }
     const st = types.length;
-    types.push({ type, segs, parentLocal, fixtures: unitFixtures, placements: planned, classes });
+    types.push({ type, segs, parentLocal, fixtures: unitFixtures, placements: planned, classes, merged });
     for (const f of unitFixtures) {
       const localPath: number[] = [];
       for (let e = f.feed; e !== -1; e = parentLocal[e]) localPath.push(e);
@@ -1320,7 +1343,7 @@ function searchWithUnits(input: {
       deltaPa: t.classes.map((c) => (u ? (c[e] ?? u.volume.map(() => 0)) : [0])),
     }));
     const front = unitFront(segments, leafSlack, classes);
-    if (!front.whole) proven = false;
+    if (!front.whole || t.merged) proven = false;
     return front.points;
   });
   const placementSlack = (points: readonly UnitFrontPoint[]): number[] => {

@@ -13,8 +13,8 @@
  * no longer proven whole).
  */
 
-/** Points kept per subtree of a unit before thinning (a bound on time and memory, our choice). */
-export const MAX_UNIT_POINTS = 4000;
+/** Points kept per subtree of a unit before thinning (a bound on time and memory, our choice: two such sets combine in well under a second). */
+const MAX_UNIT_POINTS = 500;
 
 /** One segment of the unit type as the front reads it. */
 export interface UnitFrontSegment {
@@ -79,6 +79,10 @@ export function unitFront(segments: readonly UnitFrontSegment[], leafSlack: read
         }
       }
       acc = pruneFront(next);
+      if (acc.length > MAX_UNIT_POINTS) {
+        whole = false;
+        acc = thin(acc);
+      }
     }
     const seg = segments[e];
     const own: UnitFrontPoint[] = [];

@@ -324,3 +324,32 @@ describe('sizeSystem with typical units: locks and selections name the unit type
     expect(() => sizeSystem(b.doc, { lockedSegmentIds: [unitTypeSegmentKey('type-a', 'nope')] })).toThrow(/No segment "type-a\/nope"/);
   });
 });
+
+describe('sizeSystem with typical units: many kinds of placement', () => {
+  it('when more placements differ than the classes searched apart, then they are merged on the safe side: the answer passes and is not claimed least', () => {
+    // building 1 with ten placements of Unit A, each with its own shower-leg length: ten classes, beyond the bound of eight
+    const b1 = building(1);
+    const floors = b1.doc.segments.length;
+    const placements: PlacementInput[] = Array.from({ length: 10 }, (_, k) => ({
+      id: `m${k + 1}`,
+      unitTypeId: 'type-a',
+      label: `Unit M${k + 1}`,
+      floor: `l${1 + (k % floors)}`,
+      at: `r${1 + (k % floors)}`,
+      overrides: { segments: { la: { length: 6 + 4 * k } } },
+    }));
+    const many = { ...b1, doc: { ...b1.doc, placements } };
+    const b: Building = {
+      ...many,
+      doc: { ...many.doc, source: { ...many.doc.source, staticPressureLow: interestingPressure(many), staticPressureHigh: 150 } },
+    };
+    const { best } = exhaustive(b, 0);
+    if (best === null) throw new Error('building 1 with ten placements was expected to have a passing assignment');
+    const result = sizeSystem(b.doc, { candidateSizes: b.candidates });
+    expect(result.feasible).toBe(true);
+    expect(passes(result.document as SystemDocumentInput, 0)).toBe(true);
+    expect(result.unitPiping!.leastProven).toBe(false);
+    expect(result.volumeAfterM3!).toBeGreaterThanOrEqual(best * (1 - 1e-9));
+    console.log(`ten kinds of placement: volume ${(result.volumeAfterM3! * 1000).toFixed(2)} L against the least ${(best * 1000).toFixed(2)} L`);
+  });
+});
