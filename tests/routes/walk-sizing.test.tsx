@@ -123,4 +123,25 @@ describe('automatic sizing on the result step', () => {
     expect(sizesOf(saved)).toEqual(sizesOf(expected.document!));
     expect(world.unknown).toEqual([]);
   });
+
+  it('when a unit type segment is locked in the panel, then the answer asks to size again, and sized again it keeps its size and says why', async () => {
+    // invented example: 16 apartments of one type, on an invented 100 psi main where a sizing exists
+    const built = apartmentBuildingDocument(4) as SystemDocument;
+    const start: SystemDocument = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
+    const row = sizeSystem(start).segments.find((s) => s.unitType && s.before !== s.after)!;
+    const world = fakeApi({ document: start });
+    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await screen.findByTestId('sizing-answer', {}, CATCH_UP);
+    await user.click(screen.getByLabelText(`Lock the size of ${row.label}`));
+    await screen.findByTestId('sizing-stale', {}, CATCH_UP);
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await waitFor(() => expect(screen.queryByTestId('sizing-stale')).toBeNull(), CATCH_UP);
+    const locked = await screen.findByTestId(`sizing-row-${row.segmentId}`, {}, CATCH_UP);
+    expect(locked.textContent).toContain('Locked by the designer');
+    expect(screen.getByTestId(`sizing-after-${row.segmentId}`).textContent).toContain(`${row.before} → ${row.before}`);
+    // the lock is the panel's (a unit type's segment has no lock field): nothing was saved
+    expect(world.saves()).toHaveLength(0);
+  });
 });

@@ -68,10 +68,13 @@
  *     reaches the best found. The probes are shared: the extra cost is DP runs, not analyses.
  *   - Exact, as for the main tree, up to the size-change loss (step 5; unit segments always carry
  *     it, at the unit's inlet and inside), the tolerance of OFFSET_TOLERANCE_PA (placements are
- *     split apart beyond it; within it the least offset is taken, the safe side), and two bounds:
- *     beyond MAX_UNIT_COMBINATIONS combinations of several unit types the search is coordinate
- *     descent over the types, and a unit's front beyond MAX_UNIT_POINTS is thinned; either marks
- *     the answer `unitPiping.leastProven: false` (it still passes its verification).
+ *     split apart beyond it; within it the least offset is taken, the safe side), and three
+ *     bounds: beyond MAX_UNIT_COMBINATIONS combinations of several unit types the search is
+ *     coordinate descent over the types; beyond MAX_UNIT_CLASSES kinds of placement of one unit
+ *     type they are merged into one class with the largest extra loss of any and each placement's
+ *     least offset (every constraint kept or tightened); and a unit's front beyond its bound
+ *     (unitFront.ts) is thinned. Each marks the answer `unitPiping.leastProven: false`; it still
+ *     passes its verification.
  *   - Left at their size (named in `unitPiping.left`): custom pipes, segments without a catalog
  *     material and size, a segment whose material a placement changes, and a unit type with a
  *     device on any copy (a device's hold would cut its fixtures' paths per placement). A copy
