@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { sizeSystem, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
+import { apartmentBuildingDocument } from '../../src/engine/building/apartmentBuilding';
 import { sizingBasisState } from '../../src/engine';
 import {
   applySizes,
@@ -63,5 +64,23 @@ describe('applying a sizing answer to a draft', () => {
     // a second sizing over a recorded one: undo gives the first record back
     const again = applySizing(applied, answer, 0, new Date('2026-12-01T10:00:00Z'));
     expect(undoSizing(again, answer.segments, applied.sizingBasis).sizingBasis).toEqual(applied.sizingBasis);
+  });
+
+  it('when an answer sizes a unit type, then applying writes the unit type’s sizes (not the placements’), undo gives them back, and a later hand edit of a unit size is noticed', () => {
+    // invented example: 16 apartments of one type on an invented 100 psi main
+    const built = SystemDocumentSchema.parse(apartmentBuildingDocument(4));
+    const doc: SystemDocument = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
+    const result = sizeSystem(doc);
+    expect(changedRows(result.segments).some((r) => r.unitType)).toBe(true);
+    const applied = applySizing(doc, result, 0, new Date('2026-12-03T10:00:00Z'));
+    expect(applied.unitTypes).toEqual(result.document!.unitTypes);
+    expect(applied.placements).toEqual(doc.placements);
+    expect(sizingBasisState(applied)).toMatchObject({ kind: 'sized', edited: false });
+    const edited = {
+      ...applied,
+      unitTypes: applied.unitTypes!.map((t) => ({ ...t, segments: t.segments.map((s, i) => (i === 0 ? { ...s, size: '2' } : s)) })),
+    };
+    expect(sizingBasisState(edited)).toMatchObject({ kind: 'sized', edited: true });
+    expect(undoSizing(applied, result.segments, undefined)).toEqual(doc);
   });
 });

@@ -92,17 +92,56 @@ describe('automatic sizing on the result step', () => {
     expect(row.textContent).toContain('Locked by the designer');
   });
 
-  it('when a building of typical units is sized, then the answer says the piping inside the units keeps its sizes, and how much', async () => {
-    const start = apartmentBuildingDocument(4) as SystemDocument; // invented example: 16 apartments of one type
+  it('when a building of typical units is sized and applied, then each unit type segment is one row that applies to every placement, and the unit type takes the sizes', async () => {
+    // invented example: 16 apartments of one type, on an invented 100 psi main where a sizing exists
+    const built = apartmentBuildingDocument(4) as SystemDocument;
+    const start: SystemDocument = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
     const expected = sizeSystem(start);
+    expect(expected.feasible).toBe(true);
+    const unitRows = expected.segments.filter((s) => s.unitType);
+    const changedUnit = unitRows.filter((s) => s.before !== s.after);
+    expect(changedUnit.length).toBeGreaterThan(0);
     const world = fakeApi({ document: start });
     const { user } = await renderWalk(world, stepHref(world, 'result'));
     await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
     await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
     await screen.findByTestId('sizing-answer', {}, CATCH_UP);
-    const note = screen.getByTestId('sizing-unit-piping').textContent ?? '';
-    expect(note).toContain(`${expected.unitPiping!.segments} segments in 1 unit type, placed 16 times`);
-    expect(note).toContain('size it in the unit type');
+    // a changed unit type segment: its row names the unit type and says how many placements it applies to
+    const row = changedUnit[0];
+    const shown = screen.getByTestId(`sizing-row-${row.segmentId}`);
+    expect(shown.textContent).toContain(`${start.unitTypes![0].name} · `);
+    expect(screen.getByTestId(`sizing-applies-${row.segmentId}`).textContent).toBe('unit type segment: applies to 16 placements');
+    expect(screen.getByTestId(`sizing-after-${row.segmentId}`).textContent).toContain(`${row.before} → ${row.after}`);
+    // every unit segment was sized: nothing is left to say about the piping inside the units
+    expect(screen.queryByTestId('sizing-unit-piping')).toBeNull();
+    expect(world.saves()).toHaveLength(0);
+
+    await user.click(screen.getByRole('button', { name: 'Apply to draft' }));
+    await waitFor(() => expect(world.saves()).toHaveLength(1), SAVE_WAIT);
+    const saved = lastSaved(world);
+    expect(saved.unitTypes![0].segments.map((s) => s.size)).toEqual(expected.document!.unitTypes![0].segments.map((s) => s.size));
+    expect(sizesOf(saved)).toEqual(sizesOf(expected.document!));
+    expect(world.unknown).toEqual([]);
+  });
+
+  it('when a unit type segment is locked in the panel, then the answer asks to size again, and sized again it keeps its size and says why', async () => {
+    // invented example: 16 apartments of one type, on an invented 100 psi main where a sizing exists
+    const built = apartmentBuildingDocument(4) as SystemDocument;
+    const start: SystemDocument = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
+    const row = sizeSystem(start).segments.find((s) => s.unitType && s.before !== s.after)!;
+    const world = fakeApi({ document: start });
+    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await screen.findByTestId('sizing-answer', {}, CATCH_UP);
+    await user.click(screen.getByLabelText(`Lock the size of ${row.label}`));
+    await screen.findByTestId('sizing-stale', {}, CATCH_UP);
+    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await waitFor(() => expect(screen.queryByTestId('sizing-stale')).toBeNull(), CATCH_UP);
+    const locked = await screen.findByTestId(`sizing-row-${row.segmentId}`, {}, CATCH_UP);
+    expect(locked.textContent).toContain('Locked by the designer');
+    expect(screen.getByTestId(`sizing-after-${row.segmentId}`).textContent).toContain(`${row.before} → ${row.before}`);
+    // the lock is the panel's (a unit type's segment has no lock field): nothing was saved
     expect(world.saves()).toHaveLength(0);
   });
 });

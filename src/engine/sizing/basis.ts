@@ -7,16 +7,18 @@
  */
 import type { SizingBasis, SystemDocument } from '../model/schema';
 import { fromSI, UNIT_LABELS } from '../units';
-import type { SizingResult } from './sizeSystem';
+import { unitTypeSegmentKey, type SizingResult } from './sizeSystem';
 
 /**
- * A fingerprint of every segment's pipe (id, material, size, in id order): two 32-bit FNV-1a
+ * A fingerprint of every segment's pipe (id, material, size, in id order; a unit type's segments
+ * by "<unit type id>/<segment id>", present only in a document with unit types): two 32-bit FNV-1a
  * hashes with different offset bases, as 16 hex digits. FNV-1a is a published, non-cryptographic
  * hash (Fowler, Noll and Vo; offset basis 2166136261 and prime 16777619 for 32 bits); it detects
  * edits, it does not protect against a forger.
  */
-export function sizesFingerprint(doc: Pick<SystemDocument, 'segments'>): string {
-  const text = [...doc.segments]
+export function sizesFingerprint(doc: Pick<SystemDocument, 'segments'> & Partial<Pick<SystemDocument, 'unitTypes'>>): string {
+  const unitSegments = (doc.unitTypes ?? []).flatMap((t) => t.segments.map((s) => ({ ...s, id: unitTypeSegmentKey(t.id, s.id) })));
+  const text = [...doc.segments, ...unitSegments]
     .map((s) => `${s.id}\u0000${s.material ?? ''}\u0000${s.size ?? ''}`)
     .sort()
     .join('\u0001');

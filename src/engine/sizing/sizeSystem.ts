@@ -46,8 +46,45 @@
  * probes and verifications run only the stages that compute the numbers (analyzeHydraulics), and
  * every step reads the analyses' stage arrays, never building a result object per segment.
  *
- * Scope: the segments of the main tree that have a catalog material and size. Segments inside
- * typical units (placements) and custom pipes keep their size (they are sized in the unit type).
+ * Typical units. A unit type's segment is one decision shared by every placement (the document
+ * stores its size in the unit type), so the placements' copies cannot be sized one by one. The
+ * probes also measure every copy (alike copies share a twin), so ΔL_{e,p}(s) is known per copy;
+ * a size passes the velocity limit only if it does in every copy. A fixture f of the unit in
+ * placement p has the constraint Σ_{main path to p} ΔL + Σ_{unit path of f} ΔL_{e,p}(u_e) ≤ slack_{f,p}.
+ *   - Classes: placements whose copies have the same ΔL tables (no length, fitting or size
+ *     override, same flows) and whose fixtures' slacks differ from the class's first placement's
+ *     by one number c_p for every fixture (the main tree and the floor shift them all alike) share
+ *     need_k(u) = max_f (Σ_{unit path} ΔL − s_{f,k}); placement p's need is need_k(u) − c_p. A
+ *     placement with an override is simply a class of its own, so overrides stay exact.
+ *   - The unit type's front (unitFront.ts): the same tree DP on one copy of the unit, over points
+ *     (volume of all copies, need of each class), keeping every undominated point. Any answer's
+ *     unit choice can be replaced by a front point no worse in volume or any need, so the fronts
+ *     hold an optimal choice.
+ *   - The main tree's DP runs with each placement as a leaf at the segment feeding its connection
+ *     node, need need_k(u) − c_p, for each combination of front points; the total is the main
+ *     volume plus the units' volume, and the cheapest feasible combination is kept. Combinations
+ *     go by units' volume ascending and stop once the main tree's least volume (its DP with every
+ *     placement at the least need any point gives, a lower bound for all) plus the units' volume
+ *     reaches the best found. The probes are shared: the extra cost is DP runs, not analyses.
+ *   - Exact, as for the main tree, up to the size-change loss (step 5; unit segments always carry
+ *     it, at the unit's inlet and inside), the tolerance of OFFSET_TOLERANCE_PA (placements are
+ *     split apart beyond it; within it the least offset is taken, the safe side), and three
+ *     bounds: beyond MAX_UNIT_COMBINATIONS combinations of several unit types the search is
+ *     coordinate descent over the types; beyond MAX_UNIT_CLASSES kinds of placement of one unit
+ *     type they are merged into one class with the largest extra loss of any and each placement's
+ *     least offset (every constraint kept or tightened); and a unit's front beyond its bound
+ *     (unitFront.ts) is thinned. Each marks the answer `unitPiping.leastProven: false`; it still
+ *     passes its verification.
+ *   - Left at their size (named in `unitPiping.left`): custom pipes, segments without a catalog
+ *     material and size, a segment whose material a placement changes, and a unit type with a
+ *     device on any copy (a device's hold would cut its fixtures' paths per placement). A copy
+ *     whose size a placement overrides keeps that size. Locks and selections name a unit type's
+ *     segment by unitTypeSegmentKey ("<unit type id>/<segment id>").
+ * The exhaustive-search tests in tests/engine/sizing (sizeSystem.test.ts, sizeUnits.test.ts) prove
+ * the least volume against every size assignment, analysed in full.
+ *
+ * Scope: the segments of the main tree and of the placed unit types that have a catalog material
+ * and size; custom pipes keep theirs.
  */
 import { analyzeHydraulics, analyzeWithStages } from '../analysis/analyze';
 import { parseDocument } from '../analysis/input';
@@ -55,11 +92,15 @@ import type { StageResults } from '../analysis/results';
 import { MATERIALS, type MaterialId } from '../catalog/materials';
 import { fittingKOfEntry } from '../fittings/fittingK';
 import { FITTING_TYPES } from '../fittings/types';
-import type { SystemDocument } from '../model/schema';
+import { UNIT_INLET, type SystemDocument } from '../model/schema';
 import { frictionBudgetOfStages, type FrictionBudget } from './frictionBudget';
 import { lossCurveAt } from '../devices/lossCurve';
 import { toSI } from '../units';
 import { combine, ParetoStore, prune } from './pareto';
+import { placedId } from '../building/expand';
+import { describeUnits, searchWithUnits, unitLeaves, unitPlan, unitTypeSegmentKey, withUnitSizes, type UnitSeg } from './unitSizing';
+
+export { unitTypeSegmentKey } from './unitSizing';
 
 /** Repairs of the size-change losses the model leaves out (step 5). */
 const MAX_REPAIRS = 3;
@@ -70,13 +111,12 @@ const REPAIR_ALLOWANCE_PA = 10;
 const PROBE_SEGMENTS = 10_000;
 /** Velocities equal to the limit within round-off pass (as the analysis's check does). */
 const VELOCITY_RTOL = 1e-9;
-
 export interface SizingOptions {
   /** Pressure each checked fixture must keep above its minimum, Pa (default 0). */
   marginPa?: number;
   /** Segments that keep their size, besides those the document marks `sizeLocked`. */
   lockedSegmentIds?: readonly string[];
-  /** Only these segments may change (a selection, or a contractor's field change); default all. */
+  /** Only these segments may change (a selection, or a contractor's field change); default all. A unit type's segment is named by unitTypeSegmentKey. */
   segmentIds?: readonly string[];
   /** Size keys a segment may take (default: every size of its material's catalog). */
   candidateSizes?: Readonly<Record<string, readonly string[]>>;
@@ -104,6 +144,11 @@ export interface SegmentSizing {
   velocityLimit: number | null;
   /** The checked fixture downstream with the least margin after sizing (before, when nothing was sized), and its margins, Pa. */
   worstFixture: { fixtureId: string; label: string; marginBeforePa: number; marginAfterPa: number | null } | null;
+  /**
+   * A unit type's segment (one row for all its copies; segmentId is unitTypeSegmentKey): the unit
+   * type, the segment's local id, and how many placements its size applies to. Absent on the main tree's rows.
+   */
+  unitType?: { id: string; name: string; segmentId: string; placements: number };
 }
 
 export interface FixtureMargin {
@@ -147,11 +192,21 @@ export interface SizingResult {
   /** The supply pressure and velocity limits used, recorded with an applied sizing (basis.ts). */
   conditions: SizingConditions;
   /**
-   * The piping inside typical units, which keeps its sizes (a unit type's segment is one size in
-   * every placement; it is sized in the unit type): how many unit types, their segments, and how
-   * many placements. Null when the system has no placements.
+   * The piping inside typical units (a unit type's segment is one size in every placement): how
+   * many unit types are placed, their segments, how many placements; how many of those segments
+   * the sizing decided, and the ones it left at their size with why (custom pipe, no catalog
+   * size, a placement that changes its material, a device on it). `leastProven` is false when
+   * the unit types' choices were too many to search one by one (coordinate descent) or a unit's
+   * front was thinned: the answer passes, but is not proven the least. Null when the system has no placements.
    */
-  unitPiping: { unitTypes: number; segments: number; placements: number } | null;
+  unitPiping: {
+    unitTypes: number;
+    segments: number;
+    placements: number;
+    sized: number;
+    left: { segmentId: string; label: string; reason: 'custom-pipe' | 'no-catalog-size' | 'material-override' | 'device' }[];
+    leastProven: boolean;
+  } | null;
   /** The sized document (null when not feasible: nothing changes). */
   document: SystemDocument | null;
   /** Analyses run: the base, the probes and the verifications (for the performance ratio). */
@@ -199,7 +254,7 @@ interface Free {
  */
 
 /** A checked fixture as the search reads it (SI), with its path of segment indices from the source. */
-interface FixtureRow {
+export interface FixtureRow {
   id: string;
   label: string;
   residual: number;
@@ -209,6 +264,81 @@ interface FixtureRow {
   path: number[];
   /** The segment feeding the fixture's node (−1 at the source). */
   feed: number;
+}
+
+/** A segment as a probe copies it (a main segment, or a placement's copy of a unit type's segment). */
+export type ProbeSegment = SystemDocument['segments'][number];
+
+interface UnitCandidateInput {
+  doc: SystemDocument;
+  options: SizingOptions;
+  segIndex: Map<string, number>;
+  locked: Set<string>;
+  selected: Set<string> | null;
+  hasData: ReturnType<typeof fittingDataCache>;
+  bySizeAscending: (m: MaterialId) => CatalogSize[];
+  unitTypes: NonNullable<SystemDocument['unitTypes']>;
+  placements: NonNullable<SystemDocument['placements']>;
+  placed: Set<string>;
+}
+
+type LeftReason = NonNullable<SizingResult['unitPiping']>['left'][number]['reason'];
+
+/**
+ * The unit types' segments the sizing may decide, with their copies, and those it leaves at their
+ * size and why. A unit type with a device on any copy of its piping is left whole: a device's
+ * hold would cut its fixtures' paths differently per placement.
+ */
+function unitCandidates({ doc, options, segIndex, locked, selected, hasData, bySizeAscending, unitTypes, placements, placed }: UnitCandidateInput) {
+  const segs: UnitSeg[] = [];
+  const left: { segmentId: string; label: string; reason: LeftReason }[] = [];
+  const deviceSegs = new Set(doc.devices.map((d) => d.segmentId));
+  unitTypes.forEach((t, type) => {
+    if (!placed.has(t.id)) return;
+    const mine = placements.map((p, q) => ({ p, q })).filter(({ p }) => p.unitTypeId === t.id);
+    const withDevice = t.segments.some((s) => mine.some(({ p }) => deviceSegs.has(placedId(p.id, s.id))));
+    t.segments.forEach((s, local) => {
+      const key = unitTypeSegmentKey(t.id, s.id);
+      const label = `${t.name} · ${s.label ?? s.id}`;
+      if (locked.has(key) || (selected && !selected.has(key))) return;
+      const leave = (reason: LeftReason) => left.push({ segmentId: key, label, reason });
+      if (withDevice) return leave('device');
+      if (s.custom) return leave('custom-pipe');
+      const material = s.material ? MATERIALS[s.material as MaterialId] : undefined;
+      if (!material || !s.size) return leave('no-catalog-size');
+      if (mine.some(({ p }) => (p.overrides?.segments?.[s.id]?.material ?? s.material) !== s.material)) return leave('material-override');
+      const copies: UnitSeg['copies'] = [];
+      for (const { p, q } of mine) {
+        const o = p.overrides?.segments?.[s.id];
+        if (o?.size !== undefined) continue;
+        const index = segIndex.get(placedId(p.id, s.id));
+        if (index === undefined) continue;
+        const seg = {
+          id: placedId(p.id, s.id),
+          from: s.from === UNIT_INLET ? p.at : placedId(p.id, s.from),
+          to: placedId(p.id, s.to),
+          material: s.material,
+          size: s.size,
+          length: o?.length ?? s.length,
+          fittings: o?.fittings ?? s.fittings,
+          reducerAuto: true,
+        } as ProbeSegment;
+        copies.push({ placement: q, index, seg, deltaPa: [] });
+      }
+      if (copies.length === 0) return;
+      const allowed = options.candidateSizes?.[key];
+      for (const k of allowed ?? []) {
+        if (!material.sizes.some((z) => z.key === k))
+          throw new SizingError('unknown-size', `Size "${k}" is not a size of ${material.label} (segment "${label}").`, key);
+      }
+      const sizes = bySizeAscending(material.id)
+        .filter((z) => (!allowed || allowed.includes(z.key)) && copies.every((c) => hasData(c.seg, z)))
+        .map((z) => z.key);
+      if (sizes.length === 0) return;
+      segs.push({ key, type, local, material: material.id, sizes, volume: [], velocityMet: true, velocityRemoved: false, copies });
+    });
+  });
+  return { segs, left };
 }
 
 /** Segment indices from the source down to node n (the path results.ts names by id, same order). */
@@ -241,19 +371,13 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const marginPa = options.marginPa ?? 0;
   if (!(marginPa >= 0)) throw new SizingError('negative-margin', 'The margin must be zero or more.');
   const docIndexById = new Map(doc.segments.map((s, i) => [s.id, i]));
+  const unitTypes = doc.unitTypes ?? [];
+  const placements = doc.placements ?? [];
+  const placed = new Set(placements.map((p) => p.unitTypeId));
+  const unitKeys = new Set(unitTypes.filter((t) => placed.has(t.id)).flatMap((t) => t.segments.map((s) => unitTypeSegmentKey(t.id, s.id))));
   for (const id of [...(options.lockedSegmentIds ?? []), ...(options.segmentIds ?? []), ...Object.keys(options.candidateSizes ?? {})]) {
-    if (!docIndexById.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
+    if (!docIndexById.has(id) && !unitKeys.has(id)) throw new SizingError('unknown-segment', `No segment "${id}" in the system.`, id);
   }
-
-  const placed = new Set((doc.placements ?? []).map((p) => p.unitTypeId));
-  const unitPiping =
-    placed.size === 0
-      ? null
-      : {
-          unitTypes: placed.size,
-          segments: (doc.unitTypes ?? []).filter((t) => placed.has(t.id)).reduce((n, t) => n + t.segments.length, 0),
-          placements: doc.placements!.length,
-        };
 
   const startedAt = performance.now();
   let analyses = 0;
@@ -322,7 +446,10 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     const index = segIndex.get(s.id);
     if (index !== undefined && sizes.length > 0) candidates.set(index, { docIndex, material: material.id, sizes });
   }
-  if (candidates.size === 0) {
+
+  // Typical units: a unit type's segment is one decision for all its copies (the placements' segments).
+  const units = unitCandidates({ doc, options, segIndex, locked, selected, hasData, bySizeAscending, unitTypes, placements, placed });
+  if (candidates.size === 0 && units.segs.length === 0) {
     const inScope = doc.segments.filter((s) => (!selected || selected.has(s.id)) && s.material && s.size && !s.custom);
     if (inScope.length > 0 && inScope.every((s) => locked.has(s.id))) {
       const names =
@@ -351,31 +478,35 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   // Segments alike in everything a probe measures (material, allowed sizes, length, fittings,
   // design flow) lose alike: one probe serves them all (a building's typical floors repeat).
   // Keyed by the numbers and names; the fittings (a list of objects) are compared as values.
+  // The main tree's candidates first, then the copies of the unit types' segments (same probes).
+  const measuring = new Map<number, { seg: ProbeSegment; sizes: string[] }>();
+  for (const [index, c] of candidates) measuring.set(index, { seg: doc.segments[c.docIndex], sizes: c.sizes });
+  for (const u of units.segs) for (const c of u.copies) measuring.set(c.index, { seg: c.seg, sizes: u.sizes });
   const representatives = new Map<string, number[]>();
   const probeOf = new Map<number, number>();
-  for (const [index, c] of candidates) {
-    const s = doc.segments[c.docIndex];
+  for (const [index, c] of measuring) {
+    const s = c.seg;
     const key = `${s.material}|${c.sizes.join(',')}|${s.length}|${flowOf(index)}`;
     let reps = representatives.get(key);
     if (!reps) representatives.set(key, (reps = []));
-    let rep = reps.find((r) => sameValue(doc.segments[candidates.get(r)!.docIndex].fittings, s.fittings));
+    let rep = reps.find((r) => sameValue(measuring.get(r)!.seg.fittings, s.fittings));
     if (rep === undefined) reps.push((rep = index));
     probeOf.set(index, rep);
   }
   // Each representative's sizes are measured by one twin each: its loss and velocity per size.
   const measured = new Map<number, { loss: Float64Array; velocity: Float64Array }>();
-  const jobs: { docIndex: number; size: string; flow: number; rep: number; k: number }[] = [];
+  const jobs: { seg: ProbeSegment; size: string; flow: number; rep: number; k: number }[] = [];
   for (const rep of new Set(probeOf.values())) {
-    const c = candidates.get(rep)!;
+    const c = measuring.get(rep)!;
     measured.set(rep, { loss: new Float64Array(c.sizes.length), velocity: new Float64Array(c.sizes.length) });
-    c.sizes.forEach((size, k) => jobs.push({ docIndex: c.docIndex, size, flow: flowOf(rep), rep, k }));
+    c.sizes.forEach((size, k) => jobs.push({ seg: c.seg, size, flow: flowOf(rep), rep, k }));
   }
   for (let from = 0; from < jobs.length; from += PROBE_SEGMENTS) {
     const batch = jobs.slice(from, from + PROBE_SEGMENTS);
     const probe = run(probeDocument(doc, batch));
     // The probe document holds no typical units: its segments are analysed in document order.
     batch.forEach((job, t) => {
-      if (probe.model.seg.id[t] !== probeId(doc.segments[job.docIndex].id, job.k)) throw new Error('engine defect: a probe segment out of document order');
+      if (probe.model.seg.id[t] !== probeId(job.seg.id, job.k)) throw new Error('engine defect: a probe segment out of document order');
       const m = measured.get(job.rep)!;
       m.loss[job.k] = probe.hyd.frictionLossPa[t] + probe.hyd.fittingLossPa[t];
       m.velocity[job.k] = probe.hyd.velocity[t];
@@ -414,6 +545,29 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       velocityMet,
       velocityRemoved: ok.length < rows.length,
     });
+  }
+  // A unit type's segment: a size passes the velocity limit only if every copy's does.
+  for (const u of units.segs) {
+    const meets = u.sizes.map((_, k) =>
+      u.copies.every((c) => {
+        const limit = checks.velocityLimitMs[c.index];
+        return limit === null || measured.get(probeOf.get(c.index)!)!.velocity[k] <= limit * (1 + VELOCITY_RTOL);
+      }),
+    );
+    let ok = u.sizes.map((_, k) => k).filter((k) => meets[k]);
+    u.velocityMet = ok.length > 0;
+    if (!u.velocityMet) ok = [u.sizes.length - 1];
+    u.velocityRemoved = ok.length < u.sizes.length;
+    const diameter = diameters(u.material);
+    for (const c of u.copies) {
+      const m = measured.get(probeOf.get(c.index)!)!;
+      c.deltaPa = ok.map((k) => m.loss[k] - baseLoss[c.index]);
+    }
+    u.volume = ok.map((k) => {
+      const d = diameter.get(u.sizes[k])!;
+      return u.copies.reduce((sum, c) => sum + (model.seg.lengthM[c.index] * Math.PI * d * d) / 4, 0);
+    });
+    u.sizes = ok.map((k) => u.sizes[k]);
   }
 
   // Step 3: one constraint per checked fixture (slack_f), attached to its node's feed segment.
@@ -475,6 +629,29 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const holdPaths = holds.map((h) => constrained(pathTo(h.cut), cuts));
   const allPaths = [...paths, ...holdPaths];
   const allSlack = [...slack, ...holds.map((h) => h.slack)];
+  const plan = unitPlan({ units: units.segs, unitTypes, placements, fixtures, slack, segIndex });
+  const unitPiping: SizingResult['unitPiping'] =
+    placed.size === 0
+      ? null
+      : {
+          unitTypes: placed.size,
+          segments: unitTypes.filter((t) => placed.has(t.id)).reduce((n, t) => n + t.segments.length, 0),
+          placements: placements.length,
+          sized: units.segs.length,
+          left: units.left,
+          leastProven: true,
+        };
+  /** The extra loss inside its unit on fixture i's path in its placement, each unit segment at size index pick(u) (0 for the main tree's fixtures). */
+  const unitPathDelta = (i: number, pick: (u: UnitSeg, copy: UnitSeg['copies'][number]) => number) => {
+    const uf = plan.fixtureOf.get(i);
+    if (!uf) return 0;
+    let sum = 0;
+    for (const e of uf.localPath) {
+      const copy = uf.copies[e];
+      if (copy) sum += copy.deltaPa[pick(plan.types[uf.st].segs[e]!, copy)];
+    }
+    return sum;
+  };
 
   const margins = (after: StageResults | null): FixtureMargin[] =>
     fixtures.map((f, i) => ({
@@ -483,20 +660,42 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       beforePa: f.margin,
       afterPa: after ? (after.checks.fixtures[i]?.marginPa ?? null) : null,
     }));
-  const volumeBefore = [...free.values()].reduce((sum, fr) => {
-    const d = diameters(fr.material).get(doc.segments[fr.docIndex].size!)!;
-    return sum + (model.seg.lengthM[fr.index] * Math.PI * d * d) / 4;
-  }, 0);
+  const volumeBefore =
+    [...free.values()].reduce((sum, fr) => {
+      const d = diameters(fr.material).get(doc.segments[fr.docIndex].size!)!;
+      return sum + (model.seg.lengthM[fr.index] * Math.PI * d * d) / 4;
+    }, 0) +
+    units.segs.reduce((sum, u) => {
+      const d = diameters(u.material).get(unitTypes[u.type].segments[u.local].size!)!;
+      return sum + u.copies.reduce((v, c) => v + (model.seg.lengthM[c.index] * Math.PI * d * d) / 4, 0);
+    }, 0);
   const describeInput = { doc, base: baseStages, segIndex, free, locked, selected, fixtures };
+  const describeAll = (
+    chosenSizes: Map<number, number> | null,
+    unitPick: Map<UnitSeg, number> | null,
+    governing: Map<number, number>,
+    unitGoverning: Map<UnitSeg, number>,
+    after: StageResults | null,
+  ) => {
+    const rows = describe({ ...describeInput, chosen: chosenSizes, governing, after });
+    if (placed.size === 0) return rows;
+    return [
+      ...rows,
+      ...describeUnits({ base: baseStages, segIndex, locked, fixtures, units: units.segs, unitTypes, placements, unitPick, unitGoverning, after }),
+    ];
+  };
 
   // Infeasible before any search: a fixture stays short with every free segment at its largest size.
-  const shortfall = Math.max(0, ...paths.map((p, i) => p.reduce((sum, e) => sum + minDelta(e), 0) - slack[i]));
+  const shortfall = Math.max(
+    0,
+    ...paths.map((p, i) => p.reduce((sum, e) => sum + minDelta(e), 0) + unitPathDelta(i, (_, c) => c.deltaPa.indexOf(Math.min(...c.deltaPa))) - slack[i]),
+  );
   if (shortfall > 0) {
-    const booster = Math.max(0, ...paths.map((p, i) => p.reduce((sum, e) => sum + velocityDelta(e), 0) - slack[i]));
+    const booster = Math.max(0, ...paths.map((p, i) => p.reduce((sum, e) => sum + velocityDelta(e), 0) + unitPathDelta(i, () => 0) - slack[i]));
     return {
       feasible: false,
       verified: false,
-      segments: describe({ ...describeInput, chosen: null, governing: new Map(), after: null }),
+      segments: describeAll(null, null, new Map(), new Map(), null),
       changedSegments: 0,
       margins: margins(null),
       minMarginBeforePa: minOf(fixtures.map((f) => f.margin)),
@@ -537,35 +736,51 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     }
   }
 
+  // With typical units: the main tree without the units' piping, each placement a leaf at the
+  // segment feeding its connection node (constraint fixtures.length + holds.length + j).
+  const mainTree = plan.types.length === 0 ? null : unitLeaves({ plan, children, roots, leafNeed, parentOf, firstConstraint: allSlack.length });
+
   let adjust = new Float64Array(allSlack.length);
   let chosen = new Map<number, number>();
+  let unitPick = new Map<UnitSeg, number>();
   let after: StageResults | null = null;
   let sized: SystemDocument | null = null;
   for (let round = 0; round <= MAX_REPAIRS; round++) {
     const searchStart = performance.now();
-    const best = search(
-      order,
-      children,
-      free,
-      cuts,
-      leafNeed,
-      allSlack.map((s, i) => s - adjust[i]),
-      minAbove,
-      maxAbove,
-      roots,
-    );
+    const adjusted = allSlack.map((s, i) => s - adjust[i]);
+    let best: Map<number, number> | null;
+    let bestUnits = new Map<UnitSeg, number>();
+    if (!mainTree) {
+      best = search(order, children, free, cuts, leafNeed, adjusted, minAbove, maxAbove, roots);
+    } else {
+      const found = searchWithUnits({
+        plan,
+        adjusted,
+        atSource: mainTree.atSource,
+        main: (placementSlack) =>
+          search(mainTree.order, mainTree.children, free, cuts, mainTree.leafNeed, [...adjusted, ...placementSlack], minAbove, maxAbove, mainTree.roots),
+        mainVolume: (c) => [...c].reduce((sum, [e, k]) => sum + free.get(e)!.volume[k], 0),
+      });
+      best = found?.chosen ?? null;
+      if (found) {
+        bestUnits = found.unitPick;
+        if (!found.proven) unitPiping!.leastProven = false;
+      }
+    }
     searchMs += performance.now() - searchStart;
     if (!best) break;
     chosen = best;
-    sized = withSizes(doc, free, chosen);
+    unitPick = bestUnits;
+    sized = withUnitSizes(withSizes(doc, free, chosen), unitPick);
     after = run(sized);
     const nextAdjust = Float64Array.from(adjust);
     let repaired = false;
     // Predicted extra loss on each constraint's path (what the search counted) against the drop
     // the analysis finds: the difference is the size-change loss the model leaves out.
-    const predicted = (i: number) => allPaths[i].reduce((sum, e) => sum + free.get(e)!.deltaPa[chosen.get(e) ?? 0], 0);
+    const predicted = (i: number) =>
+      allPaths[i].reduce((sum, e) => sum + free.get(e)!.deltaPa[chosen.get(e) ?? 0], 0) + unitPathDelta(i, (u) => unitPick.get(u) ?? 0);
     const shortOf = (i: number, short: number, drop: number) => {
-      if (short > 0 && allPaths[i].length > 0) {
+      if (short > 0 && (allPaths[i].length > 0 || plan.fixtureOf.has(i))) {
         // Overshoot so that the sizes the repair moves do not need another round for their own size changes.
         const unmodelled = Math.max(0, drop - predicted(i));
         nextAdjust[i] = Math.max(adjust[i] + REPAIR_FACTOR * short, REPAIR_FACTOR * unmodelled) + REPAIR_ALLOWANCE_PA;
@@ -586,11 +801,13 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   const passes = (a: StageResults | null) =>
     a !== null &&
     a.checks.fixtures.every((c, i) => c.residualPa - fixtures[i].required >= marginPa * (1 - 1e-9) - 1e-6) &&
-    [...free.keys()].every((e) => a.checks.velocityPass[e] !== false);
+    [...free.keys()].every((e) => a.checks.velocityPass[e] !== false) &&
+    units.segs.every((u) => u.copies.every((c) => a.checks.velocityPass[c.index] !== false));
   const verified = passes(after);
-  const allVelocity = [...free.values()].every((f) => f.velocityMet);
+  const allVelocity = [...free.values()].every((f) => f.velocityMet) && units.segs.every((u) => u.velocityMet);
   // The fixture that holds a segment at its size: the one with the least slack left among the fixtures its loss counts for.
   const governingFixture = new Map<number, number>();
+  const unitGoverning = new Map<UnitSeg, number>();
   if (after) {
     const finalSlack = after.checks.fixtures.map((c, i) => c.residualPa - fixtures[i].required - marginPa);
     paths.forEach((p, i) => {
@@ -599,9 +816,17 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
         if (j === undefined || finalSlack[i] < finalSlack[j]) governingFixture.set(e, i);
       }
     });
+    for (const [i, uf] of plan.fixtureOf) {
+      for (const e of uf.localPath) {
+        const u = plan.types[uf.st].segs[e];
+        if (!u || !uf.copies[e]) continue;
+        const j = unitGoverning.get(u);
+        if (j === undefined || finalSlack[i] < finalSlack[j]) unitGoverning.set(u, i);
+      }
+    }
   }
-  const segments = describe({ ...describeInput, chosen, governing: governingFixture, after });
-  const volumeAfter = [...chosen].reduce((sum, [e, k]) => sum + free.get(e)!.volume[k], 0);
+  const segments = describeAll(chosen, unitPick, governingFixture, unitGoverning, after);
+  const volumeAfter = [...chosen].reduce((sum, [e, k]) => sum + free.get(e)!.volume[k], 0) + [...unitPick].reduce((sum, [u, k]) => sum + u.volume[k], 0);
   const afterMargins = after ? after.checks.fixtures.map((c) => c.marginPa) : null;
   return {
     feasible: verified && allVelocity,
@@ -612,7 +837,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
     minMarginBeforePa: minOf(fixtures.map((f) => f.margin)),
     minMarginAfterPa: afterMargins ? minOf(afterMargins) : null,
     volumeBeforeM3: volumeBefore,
-    volumeAfterM3: chosen.size ? volumeAfter : null,
+    volumeAfterM3: chosen.size || unitPick.size ? volumeAfter : null,
     shortfallPa: verified ? 0 : Math.max(0, ...(after?.checks.fixtures.map((c, i) => fixtures[i].required + marginPa - c.residualPa) ?? [0])),
     boosterPressurePa: null,
     frictionBudget: budget,
@@ -650,7 +875,7 @@ type CatalogSize = { key: string; nominalIn: number; innerDiameterM: number };
  * its table does not cover, which the sizing then never offers (rather than fail the analysis).
  * The answer depends only on the fitting type and the size, so one call asks each pair once.
  */
-function fittingDataCache(): (s: SystemDocument['segments'][number], z: CatalogSize) => boolean {
+function fittingDataCache(): (s: Pick<SystemDocument['segments'][number], 'fittings'>, z: CatalogSize) => boolean {
   const known = new Map<CatalogSize, Map<string, boolean>>();
   return (s, z) => {
     let bySize = known.get(z);
@@ -805,10 +1030,9 @@ function ownCurveLossPa(points: readonly { flow: number; loss: number }[], flowS
  * change, which is left out here), so one small analysis measures every size of every segment;
  * the rest of the tree, its devices and typical units are left out.
  */
-function probeDocument(doc: SystemDocument, jobs: readonly { docIndex: number; size: string; flow: number; k: number }[]): SystemDocument {
+function probeDocument(doc: SystemDocument, jobs: readonly { seg: ProbeSegment; size: string; flow: number; k: number }[]): SystemDocument {
   const sourceNode = doc.nodes.find((n) => n.id === doc.source.nodeId)!;
-  const twins = jobs.map(({ docIndex, size, flow, k }) => {
-    const s = doc.segments[docIndex];
+  const twins = jobs.map(({ seg: s, size, flow, k }) => {
     return {
       ...s,
       id: probeId(s.id, k),

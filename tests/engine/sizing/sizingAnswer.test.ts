@@ -244,14 +244,27 @@ describe('sizing a building with a booster and pressure-reducing valves', () => 
     );
   });
 
-  it('when a building with typical units is sized, then the answer says how much piping inside the units kept its size, and none of it changed', () => {
-    // 4 storeys × 4 apartments of one type (invented example building)
-    const doc = apartmentBuildingDocument(4);
+  it('when a building with typical units is sized, then each unit type segment is one row applying to every placement, and the sizes land in the unit type', () => {
+    // 4 storeys × 4 apartments of one type (invented example building) on an invented 100 psi main, where a sizing exists
+    const built = apartmentBuildingDocument(4);
+    const doc = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
     const result = sizeSystem(doc);
     const perType = doc.unitTypes[0].segments.length;
-    expect(result.unitPiping).toEqual({ unitTypes: 1, segments: perType, placements: 16 });
-    // the unit types are the designer's: no sizing result row names a segment inside a unit
+    expect(result.unitPiping).toEqual({ unitTypes: 1, segments: perType, placements: 16, sized: perType, left: [], leastProven: true });
+    // no row names a placement's copy ("<placement>.<segment>"); one row per unit type segment, applying to all 16 placements
     expect(result.segments.every((s) => !s.segmentId.includes('.'))).toBe(true);
-    if (result.document) expect(result.document.unitTypes).toEqual(doc.unitTypes);
+    const unitRows = result.segments.filter((s) => s.unitType);
+    expect(unitRows.map((r) => r.unitType!.segmentId)).toEqual(doc.unitTypes[0].segments.map((s) => s.id));
+    expect(unitRows.every((r) => r.unitType!.placements === 16 && r.label!.startsWith(doc.unitTypes[0].name))).toBe(true);
+    expect(result.feasible).toBe(true);
+    const sizedType = result.document!.unitTypes![0];
+    for (const r of unitRows) expect(sizedType.segments.find((s) => s.id === r.unitType!.segmentId)!.size).toBe(r.after);
+    // a row held by a fixture names a checked fixture of one placement (its label carries the placement's)
+    const fixtureIds = new Set(analyzeSystem(doc).fixtures.map((f) => f.id));
+    for (const r of unitRows) if (typeof r.governing === 'object') expect(fixtureIds.has(r.governing.fixtureId)).toBe(true);
+    // the sized document passes the engine's own analysis
+    const a = analyzeSystem(result.document!);
+    expect(a.verdict.allFixturesPass).toBe(true);
+    expect(a.verdict.allVelocitiesPass).toBe(true);
   });
 });

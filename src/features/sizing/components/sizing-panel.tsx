@@ -16,7 +16,16 @@ interface Answered {
   document: SystemDocument;
   /** The margin asked for, Pa (recorded with the sizes when applied). */
   marginPa: number;
+  /** The unit type segments locked in the panel when it was asked (see unitLocks). */
+  unitLocks: ReadonlySet<string>;
 }
+
+const UNIT_LEFT_REASON = {
+  'custom-pipe': 'a custom pipe',
+  'no-catalog-size': 'no catalog material and size',
+  'material-override': 'a placement changes its material',
+  device: 'a device sits in the unit’s piping',
+} as const;
 
 /** What was applied, to take it back. */
 interface Applied {
@@ -54,6 +63,8 @@ export function SizingPanel() {
   const [answered, setAnswered] = useState<Answered | null>(null);
   const [applied, setApplied] = useState<Applied | null>(null);
   const [showAll, setShowAll] = useState(false);
+  // A unit type's segment has no lock of its own in the document: the panel keeps it and asks the sizing to keep its size.
+  const [unitLocks, setUnitLocks] = useState<ReadonlySet<string>>(new Set());
   const run = useRef<SizingRun | null>(null);
   useEffect(() => () => run.current?.cancel(), []);
 
@@ -67,18 +78,19 @@ export function SizingPanel() {
     setApplied(null);
     const sizedFrom = document;
     const marginPa = toSI('pressure', margin, sys);
-    const current = runSizing({ document: sizedFrom, options: { marginPa } });
+    const locksAsked = unitLocks;
+    const current = runSizing({ document: sizedFrom, options: locksAsked.size ? { marginPa, lockedSegmentIds: [...locksAsked] } : { marginPa } });
     run.current = current;
     const reply = await current.answer;
     if (run.current !== current) return;
     run.current = null;
-    setAnswered({ reply, document: sizedFrom, marginPa });
+    setAnswered({ reply, document: sizedFrom, marginPa, unitLocks: locksAsked });
     setRunning(false);
   };
 
   const reply = answered?.reply ?? null;
   const result: SizingResult | null = reply?.ok ? reply.result : null;
-  const stale = answered !== null && answered.document !== document && applied === null;
+  const stale = answered !== null && (answered.document !== document || answered.unitLocks !== unitLocks) && applied === null;
   const rows = result ? result.segments : [];
   const changed = changedRows(rows);
   const shownRows = showAll ? rows : rows.filter((r) => r.before !== r.after || r.governing === 'locked' || typeof r.governing === 'object');
@@ -98,7 +110,13 @@ export function SizingPanel() {
     setApplied(null);
     setAnswered(null);
   };
-  const lock = (segmentId: string, locked: boolean) => draft.update((doc) => setSizeLocked(doc, segmentId, locked));
+  const lock = (row: SegmentSizing, locked: boolean) => {
+    if (!row.unitType) return draft.update((doc) => setSizeLocked(doc, row.segmentId, locked));
+    const next = new Set(unitLocks);
+    if (locked) next.add(row.segmentId);
+    else next.delete(row.segmentId);
+    setUnitLocks(next);
+  };
   const lockedNow = new Set(document.segments.filter((s) => s.sizeLocked).map((s) => s.id));
 
   return (
@@ -167,12 +185,14 @@ export function SizingPanel() {
                 .
               </p>
             ) : null}
-            {result.unitPiping ? (
+            {result.unitPiping && (result.unitPiping.left.length > 0 || !result.unitPiping.leastProven) ? (
               <p className="text-sm text-ink-soft" data-testid="sizing-unit-piping">
-                The piping inside typical units keeps its sizes: {result.unitPiping.segments} segment{result.unitPiping.segments === 1 ? '' : 's'} in{' '}
-                {result.unitPiping.unitTypes} unit type{result.unitPiping.unitTypes === 1 ? '' : 's'}, placed {result.unitPiping.placements} time
-                {result.unitPiping.placements === 1 ? '' : 's'}. A unit type’s pipe is one size in every placement: size it in the unit type on the Building
-                page; the margins above include it as entered.
+                {result.unitPiping.left.length > 0
+                  ? `Left at their sizes inside typical units: ${result.unitPiping.left.map((l) => `${l.label} (${UNIT_LEFT_REASON[l.reason]})`).join('; ')}; the margins above include them as entered. `
+                  : ''}
+                {result.unitPiping.leastProven
+                  ? ''
+                  : 'The unit types’ choices were too many to compare one by one: these sizes pass, but are not proven the least.'}
               </p>
             ) : null}
             {stale ? (
@@ -228,10 +248,16 @@ export function SizingPanel() {
                 <tbody>
                   {shownRows.map((r) => {
                     const name = r.label || r.segmentId;
+                    const locked = r.unitType ? unitLocks.has(r.segmentId) : lockedNow.has(r.segmentId);
                     return (
                       <tr key={r.segmentId} className="border-b border-rule" data-testid={`sizing-row-${r.segmentId}`}>
                         <th scope="row" className="py-1 pr-3 text-left font-normal">
                           {name}
+                          {r.unitType ? (
+                            <span className="block text-xs text-ink-soft" data-testid={`sizing-applies-${r.segmentId}`}>
+                              unit type segment: applies to {r.unitType.placements} placement{r.unitType.placements === 1 ? '' : 's'}
+                            </span>
+                          ) : null}
                         </th>
                         <td className="py-1 pr-3" data-testid={`sizing-after-${r.segmentId}`}>
                           {r.before ?? '—'} → {r.after ?? '—'}
@@ -246,12 +272,7 @@ export function SizingPanel() {
                         </td>
                         {editable ? (
                           <td className="py-1">
-                            <input
-                              type="checkbox"
-                              aria-label={`Lock the size of ${name}`}
-                              checked={lockedNow.has(r.segmentId)}
-                              onChange={(e) => lock(r.segmentId, e.target.checked)}
-                            />
+                            <input type="checkbox" aria-label={`Lock the size of ${name}`} checked={locked} onChange={(e) => lock(r, e.target.checked)} />
                           </td>
                         ) : null}
                       </tr>

@@ -9,9 +9,44 @@ import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '.
 /** The rows whose size changes. */
 export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) => r.after !== null && r.after !== r.before);
 
+/** The changed rows of a unit type's segments, by unit type id and the segment's local id. */
+function unitRowsOf(rows: readonly SegmentSizing[]): Map<string, Map<string, SegmentSizing>> {
+  const out = new Map<string, Map<string, SegmentSizing>>();
+  for (const r of changedRows(rows)) {
+    if (!r.unitType) continue;
+    let bySegment = out.get(r.unitType.id);
+    if (!bySegment) out.set(r.unitType.id, (bySegment = new Map()));
+    bySegment.set(r.unitType.segmentId, r);
+  }
+  return out;
+}
+
+/** A unit type's segments changed one by one (the document is returned as it is when none is). */
+function withUnitSegments(
+  doc: SystemDocument,
+  rows: readonly SegmentSizing[],
+  change: (s: NonNullable<SystemDocument['unitTypes']>[number]['segments'][number], r: SegmentSizing) => typeof s,
+): SystemDocument {
+  const byType = unitRowsOf(rows);
+  if (byType.size === 0 || !doc.unitTypes) return doc;
+  return {
+    ...doc,
+    unitTypes: doc.unitTypes.map((t) => {
+      const bySegment = byType.get(t.id);
+      return bySegment ? { ...t, segments: t.segments.map((s) => (bySegment.has(s.id) ? change(s, bySegment.get(s.id)!) : s)) } : t;
+    }),
+  };
+}
+
+/** The sizes an answer chose: the main tree's segments, and each unit type's segments (one size for all its placements). */
 export function applySizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
-  const next = new Map(changedRows(rows).map((r) => [r.segmentId, r.after!]));
-  return { ...doc, segments: doc.segments.map((s) => (next.has(s.id) ? { ...s, size: next.get(s.id)! } : s)) };
+  const next = new Map(
+    changedRows(rows)
+      .filter((r) => !r.unitType)
+      .map((r) => [r.segmentId, r.after!]),
+  );
+  const sized = { ...doc, segments: doc.segments.map((s) => (next.has(s.id) ? { ...s, size: next.get(s.id)! } : s)) };
+  return withUnitSegments(sized, rows, (s, r) => ({ ...s, size: r.after! }));
 }
 
 /**
@@ -32,10 +67,21 @@ export function undoSizing(doc: SystemDocument, rows: readonly SegmentSizing[], 
 }
 
 export function undoSizes(doc: SystemDocument, rows: readonly SegmentSizing[]): SystemDocument {
-  const back = new Map(changedRows(rows).map((r) => [r.segmentId, r]));
+  const back = new Map(
+    changedRows(rows)
+      .filter((r) => !r.unitType)
+      .map((r) => [r.segmentId, r]),
+  );
+  const unitsBack = withUnitSegments(doc, rows, (s, r) => {
+    if (s.size !== r.after) return s;
+    const restored = { ...s };
+    if (r.before === null) delete restored.size;
+    else restored.size = r.before;
+    return restored;
+  });
   return {
-    ...doc,
-    segments: doc.segments.map((s) => {
+    ...unitsBack,
+    segments: unitsBack.segments.map((s) => {
       const r = back.get(s.id);
       if (!r || s.size !== r.after) return s;
       const restored = { ...s };
