@@ -53,8 +53,8 @@ export const DECIMALS = {
   W: 0,
   'Btu/h per ft': 1,
   'W/m': 1,
-  // fixture units: the code tables step by 0.5 WSFU
-  WSFU: 1,
+  // fixture units: the code tables list values such as 2.25 and 0.25 WSFU
+  WSFU: 2,
   // a recompute time on the screen
   ms: 0,
   // dimensionless: loss coefficients as K tables print them; Hazen–Williams C as a whole number;
