@@ -31,7 +31,9 @@ describe('the same value prints the same string on the screen and on paper', () 
     const screenMargin = screen.getByTestId(`margin-${critical.id}`).textContent;
     expect(screen.getByTestId('critical-fixture').textContent).toBe(critical.label);
     const liveMargin = screen.getByTestId('live-margin').textContent?.replace(/\s+/g, ' ').trim();
-    const ledgerRows = within(within(screen.getByTestId('ledger-panel')).getByTestId('ledger-table')).getAllByRole('row').slice(1);
+    const ledgerRows = within(within(screen.getByTestId('ledger-panel')).getByTestId('ledger-table'))
+      .getAllByRole('row')
+      .slice(1);
 
     // the paper: the summary's verdict lines and the critical fixture's ledger (server/pdf models)
     const verdictLine = summaryVerdict(a, null).lines.find((l) => l.startsWith('Critical fixture'))!;

@@ -104,7 +104,9 @@ describe('the riser diagram page', () => {
     for (const f of analysis.fixtures) {
       const mark = screen.getByTestId(`diagram-fixture-${f.id}`);
       expect(mark.querySelector('text')?.textContent).toContain(`${signed(f.margin, u.pressure)} ${f.pass ? 'pass' : 'FAIL'}`);
-      expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(`${f.label}: ${signed(f.margin, u.pressure)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
+      expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(
+        `${f.label}: ${signed(f.margin, u.pressure)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`,
+      );
     }
     expect(world.unknown).toEqual([]);
   });

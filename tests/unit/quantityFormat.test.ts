@@ -90,7 +90,7 @@ describe('signs', () => {
       fc.property(fc.double({ min: -500, max: 500, noNaN: true }), fc.constantFrom('psi', 'kPa', 'ft', 'gpm'), (m, unit) => {
         const text = signed(m, unit);
         if (m === 0) return text === num(0, unit);
-        if ((m < 0) !== text.startsWith(MINUS) || (m > 0) !== text.startsWith('+')) return false;
+        if (m < 0 !== text.startsWith(MINUS) || m > 0 !== text.startsWith('+')) return false;
         const read = back(text);
         // half the unit's last digit, or, below that, one significant digit (at most half the value's own magnitude off)
         return Math.abs(read - m) <= Math.max(stepOf(unit) / 2, Math.abs(m) / 2) * (1 + 1e-9);

@@ -26,10 +26,7 @@ export function recirculationSection(c: { L: Layout; a: Analysis; doc: SystemDoc
   const dropUnit = u.heat === 'W' ? 'K' : '°F';
   const drop = withUnit(r.temperatureDrop, dropUnit);
   L.keyValues([
-    [
-      'Loop heat loss',
-      `${withUnit(r.heatLoss, u.heat)}, at ${withUnit(r.hotTemperature, u.temperature)} leaving the heater, drop allowed ${drop}`,
-    ],
+    ['Loop heat loss', `${withUnit(r.heatLoss, u.heat)}, at ${withUnit(r.hotTemperature, u.temperature)} leaving the heater, drop allowed ${drop}`],
     ['Loop flow = pump flow', withUnit(r.pumpFlow, u.flow, 'loop flow')],
     [
       'Pump head',

@@ -91,7 +91,8 @@ const missing = (v: number | null | undefined): v is null | undefined => v === n
 /** The decimals of a unit; a unit without a row is a programming error, named. */
 export function decimalsOf(unit: string, kind?: FinerKind): number {
   const d = kind ? (FINER[kind] as Record<string, number>)[unit] : (DECIMALS as Record<string, number>)[unit];
-  if (d === undefined) throw new RangeError(`format: no decimals are set for ${kind ? `${kind} in` : 'the unit'} "${unit}" (add it to ${kind ? 'FINER' : 'DECIMALS'})`);
+  if (d === undefined)
+    throw new RangeError(`format: no decimals are set for ${kind ? `${kind} in` : 'the unit'} "${unit}" (add it to ${kind ? 'FINER' : 'DECIMALS'})`);
   return d;
 }
 

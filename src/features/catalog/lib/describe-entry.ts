@@ -6,7 +6,7 @@ import { num } from '../../../shared/format/quantity';
 
 export function describeEntry(e: ProjectCatalogEntry, sys: UnitSystem): string {
   const u = UNIT_LABELS[sys];
-    switch (e.kind) {
+  switch (e.kind) {
     case 'material':
       return `${e.data.velocityClass} velocity limits; roughness ${num(fromSI('diameter', e.data.roughnessM, sys), u.diameter, 'roughness')} ${u.diameter}; C ${num(e.data.hazenWilliamsC, 'Hazen–Williams C')}; sizes ${e.data.sizes.map((s) => `${s.key} (inside ${num(fromSI('diameter', s.innerDiameterM, sys), u.diameter)} ${u.diameter})`).join(', ')}`;
     case 'fitting-type':

@@ -102,9 +102,7 @@ export function ReviewAnswersPanel({
           {moved.length ? (
             <FixtureRows fixtures={moved} testId="answers-fixtures-changed" unit={u} />
           ) : (
-            <p className="text-ink-soft">
-              No margin moved by {withUnit(stepOf(u), u)} or more.
-            </p>
+            <p className="text-ink-soft">No margin moved by {withUnit(stepOf(u), u)} or more.</p>
           )}
           {still.length ? (
             <details className="mt-2">

@@ -155,12 +155,12 @@ export function SizingPanel() {
             {result.frictionBudget ? (
               <p className="text-sm text-ink-soft" data-testid="friction-budget">
                 Hand check (the model codes’ pressure-available-for-friction method, common practice): to {result.frictionBudget.label}, the supply’s{' '}
-                {p(result.frictionBudget.supplyPa)} less devices {p(result.frictionBudget.devicesPa)}, elevation {p(result.frictionBudget.elevationPa)}
-                , the minimum {p(result.frictionBudget.requiredPa)}
-                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa)}` : ''} leaves{' '}
-                {p(result.frictionBudget.availablePa)} {units.pressure} for friction over{' '}
-                {num(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), units.length)} {units.length} of pipe
-                and fittings:{' '}
+                {p(result.frictionBudget.supplyPa)} less devices {p(result.frictionBudget.devicesPa)}, elevation {p(result.frictionBudget.elevationPa)}, the
+                minimum {p(result.frictionBudget.requiredPa)}
+                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa)}` : ''} leaves {p(result.frictionBudget.availablePa)}{' '}
+                {units.pressure} for friction over{' '}
+                {num(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), units.length)}{' '}
+                {units.length} of pipe and fittings:{' '}
                 {result.frictionBudget.perHundredFtPa === null
                   ? '—'
                   : `${num(fromSI('pressurePerLength', result.frictionBudget.availablePa / (result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM), sys), units.pressurePerLength)} ${units.pressurePerLength}`}

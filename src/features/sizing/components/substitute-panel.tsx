@@ -156,8 +156,8 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
               </ul>
             ) : (
               <Alert tone="fault" title="No sizes of this material pass">
-                Even at its largest sizes, the worst fixture stays {num(fromSI('pressure', result.shortfallPa, sys), units.pressure)} {units.pressure} short. Nothing was
-                changed.
+                Even at its largest sizes, the worst fixture stays {num(fromSI('pressure', result.shortfallPa, sys), units.pressure)} {units.pressure} short.
+                Nothing was changed.
               </Alert>
             )}
             {sub.skipped.length ? (

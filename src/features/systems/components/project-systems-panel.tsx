@@ -18,7 +18,17 @@ import { ImportSystemForm } from './import-system-form';
 import { NewSystemForm } from './new-system-form';
 import { revisionVerdict, VERDICT_WORDS, VerdictMark } from './verdict-mark';
 
-function SystemRow({ projectId, system, myRole, pressureUnit }: { projectId: string; system: SystemInfo; myRole: ProjectRole | null; pressureUnit: string | null }) {
+function SystemRow({
+  projectId,
+  system,
+  myRole,
+  pressureUnit,
+}: {
+  projectId: string;
+  system: SystemInfo;
+  myRole: ProjectRole | null;
+  pressureUnit: string | null;
+}) {
   const latest = system.latest;
   const v = latest?.verdict;
   return (
@@ -42,7 +52,11 @@ function SystemRow({ projectId, system, myRole, pressureUnit }: { projectId: str
           <VerdictMark verdict={revisionVerdict(v)}>
             {VERDICT_WORDS[revisionVerdict(v)]}
             {/* the margin waits for the project's unit system: a number is never shown in a unit it is not in */}
-            {v.criticalMargin === null ? ', no checked fixtures' : pressureUnit ? `, critical margin ${signed(v.criticalMargin, pressureUnit)} ${pressureUnit}` : ''}
+            {v.criticalMargin === null
+              ? ', no checked fixtures'
+              : pressureUnit
+                ? `, critical margin ${signed(v.criticalMargin, pressureUnit)} ${pressureUnit}`
+                : ''}
           </VerdictMark>
         ) : (
           <VerdictMark verdict="unknown">Not computed yet</VerdictMark>
@@ -99,7 +113,11 @@ export function ProjectSystemsPanel({ projectId, canEdit }: { projectId: string;
         ) : (
           <ul className="flex flex-col gap-2" aria-label="Systems">
             {systems.data.map((s) => (
-              <SystemRow key={s.id} projectId={projectId} system={s} myRole={project.data?.project.myRole ?? null}
+              <SystemRow
+                key={s.id}
+                projectId={projectId}
+                system={s}
+                myRole={project.data?.project.myRole ?? null}
                 pressureUnit={project.data ? UNIT_LABELS[project.data.project.unitSystem].pressure : null}
               />
             ))}

@@ -73,8 +73,8 @@ export function ExpansionTankSection() {
                 <strong>
                   {num(sizing.tankVolume, sizing.volumeUnit)} {sizing.volumeUnit}
                 </strong>{' '}
-                (the water gains {num(sizing.expansionVolume, sizing.volumeUnit)} {sizing.volumeUnit}; acceptance factor {num(sizing.result.acceptanceFactor, 'acceptance factor')}). Source:{' '}
-                {sizing.result.source}.
+                (the water gains {num(sizing.expansionVolume, sizing.volumeUnit)} {sizing.volumeUnit}; acceptance factor{' '}
+                {num(sizing.result.acceptanceFactor, 'acceptance factor')}). Source: {sizing.result.source}.
               </p>
             ) : sizing ? (
               <p role="alert" className="font-semibold text-fault" data-testid="expansion-tank-error">

@@ -80,8 +80,8 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
       >
         <title id={`${id}-t`}>Pressure along the path to {fixtureLabel}</title>
         <desc id={`${id}-d`}>
-          Pressure falls from {num(points[0].pressure, u.pressure)} {u.pressure} at the source to {num(last.pressure, u.pressure)} {u.pressure} at {fixtureLabel},{' '}
-          {num(last.distance, u.length)} {u.length} of pipe away; the minimum flow pressure is {num(ledger.required, u.pressure)} {u.pressure}.
+          Pressure falls from {num(points[0].pressure, u.pressure)} {u.pressure} at the source to {num(last.pressure, u.pressure)} {u.pressure} at{' '}
+          {fixtureLabel}, {num(last.distance, u.length)} {u.length} of pipe away; the minimum flow pressure is {num(ledger.required, u.pressure)} {u.pressure}.
           {crossings.map((c) => ` The path enters ${c.name} at ${num(c.distance, u.length)} ${u.length}.`).join('')}
         </desc>
         {ticks(minY, maxY, 5).map((t) => (

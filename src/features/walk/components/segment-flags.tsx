@@ -34,7 +34,10 @@ export function useSegmentFlags(): (segmentId: string) => SegmentFlagValues {
       missingBy.set(segId, [...(missingBy.get(segId) ?? []), r.message]);
     }
     for (const s of a.segments) {
-      const fast = s.velocityPass === false ? `${num(s.velocity, units.velocity)} ${units.velocity} over the limit of ${num(s.velocityLimit, units.velocity)} ${units.velocity}` : null;
+      const fast =
+        s.velocityPass === false
+          ? `${num(s.velocity, units.velocity)} ${units.velocity} over the limit of ${num(s.velocityLimit, units.velocity)} ${units.velocity}`
+          : null;
       const f = failing.get(s.id);
       const m = missingBy.get(s.id);
       if (fast || f || m)

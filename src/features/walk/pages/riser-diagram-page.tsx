@@ -199,7 +199,8 @@ export function RiserDiagramPage() {
       <section className="riser-key flex flex-col gap-2" aria-label="Levels, devices and checked fixtures" data-testid="riser-key">
         <h3 className="text-lg">Levels, devices and checked fixtures</h3>
         <p className="text-sm" data-testid="riser-levels">
-          <span className="font-semibold">Levels:</span> {diagram.levels.map((l) => `${l.name} (el. ${num(l.elevation, diagram.lengthUnit)} ${diagram.lengthUnit})`).join('; ')}.
+          <span className="font-semibold">Levels:</span>{' '}
+          {diagram.levels.map((l) => `${l.name} (el. ${num(l.elevation, diagram.lengthUnit)} ${diagram.lengthUnit})`).join('; ')}.
         </p>
         <ul className="text-sm" data-testid="riser-devices">
           {diagram.devices.map((d) => (

@@ -279,7 +279,7 @@ export function SegmentTablePage() {
       ]);
     }
     return map;
-  }, [catalog, project, sys]);
+  }, [catalog, project, sys, units.diameter]);
   const noSizes = useMemo(() => [{ value: '', label: '—' }], []);
   const sizeOptionsFor = (materialId: string) => sizeOptionsByMaterial.get(materialId) ?? noSizes;
   const unitOf: Partial<Record<SortKey, string>> = {

@@ -29,7 +29,9 @@ export function RevisionVerdictText({ revision, pressureUnit }: { revision: Revi
     <span className="flex flex-wrap items-center gap-2">
       <VerdictMark verdict={revisionVerdict(v)} />
       {v.criticalMargin !== null ? (
-        <span className="text-sm">critical margin {signed(v.criticalMargin, pressureUnit)} {pressureUnit}</span>
+        <span className="text-sm">
+          critical margin {signed(v.criticalMargin, pressureUnit)} {pressureUnit}
+        </span>
       ) : (
         <span className="text-sm text-ink-muted">no checked fixtures</span>
       )}

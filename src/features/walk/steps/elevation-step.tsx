@@ -164,7 +164,9 @@ export function ElevationStep() {
   const connectionElevation = numberOf(planText.connection);
   const floorOptions = [
     { value: '', label: '—' },
-    ...(problems.length ? [] : floorLevels(plan).map((lv, k) => ({ value: String(k + 1), label: `${k + 1}${k === 0 ? ' (ground)' : ''} at ${num(lv, units.elevation)}` }))),
+    ...(problems.length
+      ? []
+      : floorLevels(plan).map((lv, k) => ({ value: String(k + 1), label: `${k + 1}${k === 0 ? ' (ground)' : ''} at ${num(lv, units.elevation)}` }))),
   ];
   const planField = (key: keyof PlanText) => ({
     value: planText[key],

@@ -246,8 +246,8 @@ function SegmentFittings({
         {display ? (
           <>
             Σ K = {num(display.fittingsK, 'loss coefficient')}
-            {display.sizeChangeK > 0 ? ` + size change ${num(display.sizeChangeK, 'loss coefficient')}` : ''} · loss in fittings {num(display.fittingLoss, units.pressure)} {units.pressure}{' '}
-            at {analysis ? withUnit(display.velocity, analysis.units.velocity) : null}
+            {display.sizeChangeK > 0 ? ` + size change ${num(display.sizeChangeK, 'loss coefficient')}` : ''} · loss in fittings{' '}
+            {num(display.fittingLoss, units.pressure)} {units.pressure} at {analysis ? withUnit(display.velocity, analysis.units.velocity) : null}
           </>
         ) : (
           'Losses appear once the system can be computed.'

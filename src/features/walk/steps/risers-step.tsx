@@ -684,8 +684,8 @@ function SegmentDetail(p: DetailProps) {
       <p className="text-sm" data-testid={`segment-demand-${s.id}`}>
         {p.result ? (
           <>
-            <span className="font-semibold">{num(p.result.wsfu, 'WSFU')} WSFU</span> → {num(p.result.designFlow, p.units.flow)} {p.units.flow}, {num(p.result.velocity, p.units.velocity)}{' '}
-            {p.units.velocity}
+            <span className="font-semibold">{num(p.result.wsfu, 'WSFU')} WSFU</span> → {num(p.result.designFlow, p.units.flow)} {p.units.flow},{' '}
+            {num(p.result.velocity, p.units.velocity)} {p.units.velocity}
           </>
         ) : (
           <span className="text-ink-muted">

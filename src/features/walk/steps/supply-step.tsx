@@ -130,8 +130,9 @@ export function SupplyStep() {
             />
             {fed ? (
               <p className="text-sm text-ink-soft md:col-span-2" data-testid="fed-pressures-note">
-                The static pressures and their basis are read from the cold system (above), not typed: low {num(document.source.staticPressureLow, units.pressure)}{' '}
-                {units.pressure}, high {num(document.source.staticPressureHigh, units.pressure)} {units.pressure}.
+                The static pressures and their basis are read from the cold system (above), not typed: low{' '}
+                {num(document.source.staticPressureLow, units.pressure)} {units.pressure}, high {num(document.source.staticPressureHigh, units.pressure)}{' '}
+                {units.pressure}.
               </p>
             ) : (
               <>
