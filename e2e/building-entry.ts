@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import { expect } from '@playwright/test';
 import type { Locator, Page } from '@playwright/test';
+import { num } from '../src/shared/format/quantity';
 
 /**
  * A new user's entries and clicks, counted as they are made. An entry is a value typed, chosen or
@@ -122,7 +123,7 @@ export async function enterBuilding(page: Page, c: EntryCounter, name: string, b
   await c.fill(page.getByLabel(/Typical floor-to-floor height/), '10');
   await c.fill(page.getByLabel('Floors to add'), String(b.storeys - 1));
   await c.click(page.getByRole('button', { name: 'Add floors' }));
-  await expect(page.getByTestId(`floor-elevation-${b.storeys - 1}`)).toHaveText(String((b.storeys - 1) * 10) + '.00');
+  await expect(page.getByTestId(`floor-elevation-${b.storeys - 1}`)).toHaveText(num((b.storeys - 1) * 10, 'ft'));
 
   const type = page.getByTestId('unit-type-0');
   await c.fill(type.getByLabel('Unit type 1 name'), 'Apartment A');

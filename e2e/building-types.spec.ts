@@ -4,6 +4,7 @@ import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { analyzeSystem, SystemDocumentSchema, type SystemDocument } from '../src/engine';
 import { UNIT_INLET } from '../src/engine/model/schema';
+import { num } from '../src/shared/format/quantity';
 import { DEMO, signIn } from './helpers';
 import { createProject, createSystem, screenshotDir, waitSaved } from './building-entry';
 
@@ -70,7 +71,7 @@ async function enterThreeStoreys(page: Page, name: string): Promise<void> {
   await page.getByLabel(/Typical floor-to-floor height/).fill('10');
   await page.getByLabel('Floors to add').fill('2');
   await page.getByRole('button', { name: 'Add floors' }).click();
-  await expect(page.getByTestId('floor-elevation-2')).toHaveText('20.00');
+  await expect(page.getByTestId('floor-elevation-2')).toHaveText(num(20, 'ft'));
   const type = page.getByTestId('unit-type-0');
   await type.getByLabel('Unit type 1 name').fill('Apartment A');
   await type.getByLabel('Apartment A, unit manifold material').selectOption('pex-sdr9');

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { analyzeSystem, SystemDocumentSchema, verdictStatus } from '../src/engine';
-import { signed } from '../src/features/walk/lib/format';
+import { signed } from '../src/shared/format/quantity';
 import { DEMO, signIn } from './helpers';
 import { EntryCounter, enterBuilding, generate, INVENTED_BACKFLOW_POINTS, INVENTED_METER_POINTS, screenshotDir, waitSaved } from './building-entry';
 
@@ -54,13 +54,13 @@ async function enterAndCheck(page: Page, storeys: number, aims: { entries: numbe
   const critical = truth.fixtures.find((f) => f.id === truth.criticalFixtureId) ?? truth.fixtures.reduce((a, b) => (b.margin < a.margin ? b : a));
   // the top floor's farthest apartment governs (the issue's expectation for this building)
   expect(critical.label).toMatch(new RegExp(`Level ${storeys}-4\\b.*[Ss]hower`));
-  await expect(page.getByTestId(`margin-${critical.id}`)).toHaveText(signed(critical.margin, 2));
+  await expect(page.getByTestId(`margin-${critical.id}`)).toHaveText(signed(critical.margin, truth.units.pressure));
   await page.screenshot({ path: `${screenshotDir()}/${storeys}-storeys-result.png` });
 
   const line =
     `building entry: ${storeys} storeys, ${truth.fixtures.length} checked fixtures: ${c.entries} field entries, ${c.clicks} clicks ` +
     `(first version: 377 entries, 203 clicks for 4 storeys); verdict on screen ${shownAfterMs} ms after the last entry (Generate); ` +
-    `critical ${critical.label} ${signed(critical.margin, 2)}; fixtures ${truth.verdict.allFixturesPass ? 'pass' : 'fail'}, ` +
+    `critical ${critical.label} ${signed(critical.margin, truth.units.pressure)}; fixtures ${truth.verdict.allFixturesPass ? 'pass' : 'fail'}, ` +
     `velocities ${truth.verdict.allVelocitiesPass ? 'pass' : 'fail'}, static ${truth.verdict.allStaticPass ? 'pass' : 'fail'}`;
   console.log(line);
   fs.appendFileSync(`${screenshotDir()}/counts.txt`, `${line}\n`);

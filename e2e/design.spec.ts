@@ -17,6 +17,7 @@ import {
   issueThroughUi,
   waitSaved,
 } from './building-entry';
+import { withUnit } from '../src/shared/format/quantity';
 
 // Designing, not only checking, through the UI in fresh projects (invented "Wrenmoor" names and
 // figures): a system sized by Headroom and applied, whose basis the result step and the issued
@@ -95,7 +96,7 @@ test('when a designer sizes a system and applies it, then the result and the iss
   await page.getByLabel('Cold-water system feeding the heater').selectOption({ label: coldName });
   await page.getByLabel('Node of the cold system that feeds the heater').selectOption({ label: 'Building entry' });
   await expect(page.getByTestId('fed-from-supply')).toContainText(`Fed from ${coldName} at Building entry`);
-  await expect(page.getByTestId('fed-from-pressure')).toHaveText(`${entry.pressure.toFixed(2)} psi`);
+  await expect(page.getByTestId('fed-from-pressure')).toHaveText(withUnit(entry.pressure, 'psi'));
   await waitSaved(page);
   const hot = await storedDocument(page);
   expect(hot.source.fedFrom?.resolution).toMatchObject({ status: 'resolved', systemName: coldName, nodeLabel: 'Building entry' });

@@ -3,6 +3,7 @@ import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { PDFDocument, StandardFonts } from 'pdf-lib';
 import { analyzeSystem, SystemDocumentSchema } from '../src/engine';
+import { signed } from '../src/shared/format/quantity';
 import { DEMO, openProject, signIn } from './helpers';
 import { fresh, newProject, newSystem, proposedFieldChange } from './api';
 
@@ -98,15 +99,11 @@ test('when the contractor checks a substitution on the issued demo building, the
   expect(fc.id).toBe(id);
   const fixtureRows = page.getByTestId('fixture-effect-table').locator('tbody tr');
   await expect(fixtureRows).toHaveCount(proposed.fixtures.length);
-  const signed = (x: number) => {
-    const t = Math.abs(x).toFixed(2);
-    return Number(t) === 0 ? t : `${x < 0 ? '−' : '+'}${t}`;
-  };
   for (const f of proposed.fixtures.filter((x) => x.nodeId.startsWith('7') || x.nodeId === 'retail-wc')) {
     const before = issued.fixtures.find((x) => x.id === f.id)!;
     const row = page.getByTestId(`fixture-effect-${f.id}`);
-    await expect(row.getByTestId('new-margin')).toHaveText(signed(f.margin));
-    await expect(row.getByTestId('margin-difference')).toHaveText(signed(f.margin - before.margin));
+    await expect(row.getByTestId('new-margin')).toHaveText(signed(f.margin, proposed.units.pressure));
+    await expect(row.getByTestId('margin-difference')).toHaveText(signed(f.margin - before.margin, proposed.units.pressure));
   }
   // the PEX main costs the level-7 fixtures pressure
   const critical = proposed.fixtures.find((f) => f.id === proposed.criticalFixtureId)!;

@@ -3,6 +3,7 @@ import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { DEMO, signIn } from './helpers';
 import { fresh, newProject } from './api';
+import { withUnit } from '../src/shared/format/quantity';
 
 // A hot-water system fed from a cold one, through the UI, in a fresh project (invented "Wrenmoor"
 // names and figures): the hot system's supply is read from the cold system at the node feeding its
@@ -132,9 +133,9 @@ test('when a designer describes a recirculation loop on a fresh hot system, then
   if (!r?.ok) return;
   // 100 ft × 20 Btu/h per ft, through W and back (relative 1e-12: floating-point rounding only).
   expect(Math.abs(r.heatLoss - 2000) / 2000).toBeLessThan(1e-12);
-  await expect(page.getByTestId('recirculation-heat-loss')).toHaveText('2,000 Btu/h');
-  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(`${r.pumpFlow.toFixed(2)} gpm`);
-  await expect(page.getByTestId('recirculation-pump-head')).toHaveText(`${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft of water)`);
+  await expect(page.getByTestId('recirculation-heat-loss')).toHaveText(withUnit(r.heatLoss, 'Btu/h'));
+  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(withUnit(r.pumpFlow, 'gpm', 'loop flow'));
+  await expect(page.getByTestId('recirculation-pump-head')).toHaveText(`${withUnit(r.pumpHead, 'psi')} (${withUnit(r.pumpHeadLength, 'ft')} of water)`);
   for (const p of r.pipes) await expect(page.getByTestId(`recirculation-size-${p.segmentId}`)).toHaveText(`${p.size} (chosen)`);
   await expect(page.getByTestId('recirculation-sources')).toContainText('Rinnai design manual R-TRWH-E-02');
   console.log(`fresh loop: ${r.pumpFlow.toFixed(3)} gpm at ${r.pumpHead.toFixed(3)} psi; returns ${r.pipes.map((p) => p.size).join(', ')}`);
@@ -146,7 +147,7 @@ test('when a designer describes a recirculation loop on a fresh hot system, then
   await expect(page.getByTestId('overall-verdict')).toContainText('Incomplete');
   await expect(page.getByTestId('overall-verdict')).toContainText('Recirculation loop');
   await drop.fill('10');
-  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(`${r.pumpFlow.toFixed(2)} gpm`);
+  await expect(page.getByTestId('recirculation-pump-flow')).toHaveText(withUnit(r.pumpFlow, 'gpm', 'loop flow'));
   await saved(page);
   expect(problems).toEqual([]);
 });

@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
 import { analyzeSystem, nodeElevations, SystemDocumentSchema, verdictStatus } from '../src/engine';
-import { signed } from '../src/features/walk/lib/format';
+import { signed } from '../src/shared/format/quantity';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
 import { createSystem } from './building-entry';
 
@@ -118,7 +118,7 @@ test('when a new user enters a 4-storey building with the rises typed at the pip
   const overall = page.getByTestId('overall-verdict');
   await expect(overall.locator('[data-verdict]').first()).toHaveAttribute('data-verdict', 'fail');
   await expect(overall).not.toContainText('Every check passes');
-  await expect(page.getByTestId(`margin-${shower.id}`)).toHaveText(signed(shower.margin, 2));
+  await expect(page.getByTestId(`margin-${shower.id}`)).toHaveText(signed(shower.margin, truth.units.pressure));
   await expect(bar(page)).toHaveAttribute('data-status', 'fail');
   await expect(page.getByTestId(`verdict-${shower.id}`).locator('[data-verdict]')).toHaveAttribute('data-verdict', 'fail');
   await shot(page, 'four-storeys-result');

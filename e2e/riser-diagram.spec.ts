@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import { demoColdDocument } from './api';
 import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
+import { withUnit } from '../src/shared/format/quantity';
 
 // The on-screen riser diagram of the invented demo "Alder & Finch" (cold water, issued revision 1
 // seeded from src/engine/examples/alder-finch-cold.json): fitted to the window's width, with its
@@ -10,7 +11,7 @@ import { DEMO, DEMO_PROJECT, openProject, signIn } from './helpers';
 const DEVICES = ['2-inch water meter', '2-inch reduced-pressure backflow assembly', 'Level 2 pressure-reducing valve'];
 /** The demo building's floors, lowest to highest, as the key lists them (name and elevation). */
 const FLOORS = [...(demoColdDocument().floors as { name: string; elevation: number }[])].sort((a, b) => a.elevation - b.elevation);
-const LEVELS = FLOORS.map((f) => `${f.name} (el. ${f.elevation.toFixed(1)} ft)`);
+const LEVELS = FLOORS.map((f) => `${f.name} (el. ${withUnit(f.elevation, 'ft')})`);
 
 let pageProblems: string[] = [];
 test.beforeEach(({ page }) => {

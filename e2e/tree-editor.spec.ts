@@ -6,6 +6,7 @@ import { generateBuilding } from '../src/engine/testing/generateTree';
 import { DEMO, shot, signIn } from './helpers';
 import { Api, demoColdDocument, fresh, newProject, newSystem } from './api';
 import { longestScrollFrame, pageHeight } from './bench/tree-figures';
+import { signed } from '../src/shared/format/quantity';
 
 // The compact tree editor of the pipe step (issue #14), each test on a project of its own made
 // through the API (e2e/api.ts) holding the invented demo building "Alder & Finch".
@@ -63,7 +64,7 @@ test('when a size is changed with the keyboard and a branch’s material in bulk
   expect(saved.segments.find((s) => s.id === '2A-bath')!.material).toBe('pex-sdr9');
   const a = analyzeSystem(saved);
   const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId)!;
-  await expect(barMargin(page)).toContainText(Math.abs(critical.margin).toFixed(2));
+  await expect(barMargin(page)).toContainText(signed(critical.margin, a.units.pressure));
 });
 
 test('when a contractor opens a field change, then the same editor offers material, size and length, and shows the tree as issued, locked with the reason', async ({

@@ -6,7 +6,7 @@
  */
 import type { Analysis } from '../../src/engine';
 import { COLORS, type Layout } from './layout';
-import { signed, withUnit } from './format';
+import { axisTickLabel, signed, withUnit } from '../../src/shared/format/quantity';
 
 export interface ProfilePoint {
   x: number;
@@ -46,12 +46,6 @@ export function niceStep(span: number, target: number): number {
   return 10 * mag;
 }
 
-function fmtTick(v: number, step: number): string {
-  const decimals = step >= 1 ? 0 : Math.min(3, Math.ceil(-Math.log10(step) - 1e-9));
-  const s = v.toFixed(decimals);
-  return /^-0(\.0+)?$/.test(s) ? s.slice(1) : s;
-}
-
 /**
  * The ticks of an axis covering `min` to `max`: whole multiples of a 1-2-5 step, each computed as
  * k × step (never by adding steps up, which drifts), with its label.
@@ -61,7 +55,7 @@ export function axisTicks(min: number, max: number, target: number): { step: num
   const first = Math.floor(min / step + 1e-9);
   const last = Math.max(Math.ceil(max / step - 1e-9), first + 1);
   const ticks: { value: number; label: string }[] = [];
-  for (let k = first; k <= last; k++) ticks.push({ value: k * step, label: fmtTick(k * step, step) });
+  for (let k = first; k <= last; k++) ticks.push({ value: k * step, label: axisTickLabel(k * step, step) });
   return { step, ticks };
 }
 

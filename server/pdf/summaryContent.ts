@@ -10,7 +10,8 @@ import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import type { EngineWarning } from '../../src/engine/warnings';
 import { NOT_VERIFIED } from '../../src/engine/catalog/notVerified';
-import { num, signed, utc, withUnit } from './format';
+import { num, signed, withUnit } from '../../src/shared/format/quantity';
+import { utc } from './format';
 
 /** Printed beside every value whose source is not verified against the printed code (the catalog's own words). */
 export const UNVERIFIED_NOTE = NOT_VERIFIED;
@@ -236,7 +237,7 @@ export function fedFromText(doc: SystemDocument, pressureUnit: string): string |
   if (!fedFrom) return null;
   const r = fedFrom.resolution;
   if (r?.status !== 'resolved') return `NOT READ — ${r?.message ?? 'the cold system has not been read'}`;
-  const p = (x: number) => `${x.toFixed(2)} ${pressureUnit}`;
+  const p = (x: number) => withUnit(x, pressureUnit);
   return `the cold-water system "${r.systemName}" at ${r.nodeLabel}, its revision ${r.revisionNumber} (${r.revisionStatus}): residual ${p(r.residualPressure)} at its design flow, high static ${p(r.staticPressureHigh)}. The water heater's loss is its device's, under Devices.`;
 }
 

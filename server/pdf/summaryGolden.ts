@@ -10,7 +10,7 @@ import type { SummaryPdfInput } from './summaryPdf';
 import { summaryVerdict } from './summaryContent';
 import { attestationLines, permitFrame, permitRows } from './permitContent';
 import { fixtureLedgers, frictionBasis, namesOf, segmentRows, zoneRows } from './summaryTables';
-import { num, signed } from './format';
+import { num, signed } from '../../src/shared/format/quantity';
 import { profileAxes, profilePoints } from './chart';
 import { riserDiagram, riserElementsByFloor } from '../../src/shared/diagram/riserLayout';
 

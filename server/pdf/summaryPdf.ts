@@ -25,7 +25,8 @@ import { recirculationSection } from './sections/recirculation';
 import { riserDiagramSection } from './riserSection';
 import { COLORS, Layout, PAGE_SIZES } from './layout';
 import { drawProfile, profilePoints } from './chart';
-import { num, signed, utc, withUnit } from './format';
+import { num, signed, withUnit } from '../../src/shared/format/quantity';
+import { utc } from './format';
 import {
   catalogSourcesUsed,
   fedFromText,
@@ -216,7 +217,7 @@ function basisSection(c: SummaryContext) {
     ['Pipe sizes', sizingBasisText(doc)],
     [
       'Water temperature',
-      `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${a.water.densityKgM3.toFixed(2)} kg/m³, kinematic viscosity ${(a.water.kinematicViscosityM2s * 1e6).toFixed(4)} mm²/s`,
+      `${num(a.water.temperature, u.temperature)} ${u.temperature}: density ${withUnit(a.water.densityKgM3, 'kg/m³')}, kinematic viscosity ${withUnit(a.water.kinematicViscosityM2s * 1e6, 'mm²/s', 'kinematic viscosity')}`,
     ],
     ['Engine', `Headroom engine ${a.engineVersion}, document schema ${a.schemaVersion}`],
   ]);
@@ -371,8 +372,8 @@ function inputsSection(c: SummaryContext) {
           n.label ?? n.id,
           g.custom ? fixtureGroupLabel(g) : (t?.label ?? g.fixtureTypeId),
           String(g.count),
-          each === null ? '—' : String(each),
-          each === null ? '—' : String(Math.round(each * g.count * 100) / 100),
+          num(each, 'WSFU'),
+          num(each === null ? null : each * g.count, 'WSFU'),
           t ? num(fromSI('flow', t.flowRateM3s, a.unitSystem), u.flow) : '—',
           feed ? num(segById.get(feed)?.designFlow, u.flow) : '—',
         ],

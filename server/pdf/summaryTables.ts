@@ -8,7 +8,7 @@ import { ledgerFor, zoneFeedWords, zoneFloorsWords, zoneVerdictWords, type Analy
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import { fittingLabel } from '../../src/engine/model/labels';
-import { num, signed } from './format';
+import { num, signed } from '../../src/shared/format/quantity';
 
 /**
  * Names of nodes and segments as the user typed them: the label, else the id the user typed in the
@@ -95,7 +95,7 @@ export function segmentRows(a: Analysis, doc: SystemDocument, names: Names = nam
       length: num(s.length, u.length),
       rise: num(s.rise, u.elevation),
       fittings: fittings || 'none',
-      sumK: s.totalK.toFixed(2),
+      sumK: num(s.totalK, 'loss coefficient'),
       flow: num(s.designFlow, u.flow),
       velocity: num(s.velocity, u.velocity),
       frictionLoss: num(s.frictionLoss, u.pressure),

@@ -4,7 +4,7 @@
  * with an overall verdict in one sentence and the warnings the change brings.
  */
 import { safeAnalyzeSystem, UNIT_LABELS, type Analysis, type EngineWarning, type SystemDocument } from '../../src/engine';
-import { num } from '../pdf/format';
+import { num } from '../../src/shared/format/quantity';
 import type { ChangeItem, ComparisonResponse } from '../../src/shared/api/fieldChanges';
 
 type Comparison = Omit<ComparisonResponse, 'fieldChangeId' | 'baseRevision'>;

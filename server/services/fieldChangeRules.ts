@@ -18,7 +18,7 @@ import { fieldChangeKeys } from '../../src/engine/model/describe';
 import { SEGMENT } from '../../src/engine/model/elements';
 import { boosterText, fittingLabel } from '../../src/engine/model/labels';
 import { canonicalJson } from './canonicalJson';
-import { num } from '../pdf/format';
+import { num } from '../../src/shared/format/quantity';
 import type { ChangeField, ChangeItem } from '../../src/shared/api/fieldChanges';
 
 /** The keys of a segment a contractor may change: from the segment's description. */

@@ -20,7 +20,7 @@ import { iso, type Tx } from '../db/rows';
 import { renderSummaryPdf } from '../pdf/summaryPdf';
 import { summaryMessage } from '../mail/messages';
 import { summaryFileName } from '../mail/worker';
-import { withUnit, signed } from '../pdf/format';
+import { withUnit, signed } from '../../src/shared/format/quantity';
 import { issueInvitation } from './users';
 import { outboxService, toMessageInfo } from './outbox';
 import { reviewsService } from './reviews';

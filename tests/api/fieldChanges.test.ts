@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { analyzeSystem, SystemDocumentSchema, type Analysis, type EngineWarning } from '../../src/engine';
-import { num } from '../../server/pdf/format';
+import { num } from '../../src/shared/format/quantity';
 import { makeUser, signedIn, startHarness, type Harness } from './support/harness';
 import { edited, fieldChangeWorld, pdfPlainText, startFieldChange } from './support/fieldChangeFixtures';
 import { ATTESTATION } from './support/attestation';

@@ -6,6 +6,7 @@ import path from 'node:path';
 import { analyzeSystem, applyFedFrom, SystemDocumentSchema, type SystemDocument } from '../../src/engine';
 import { renderSummaryPdf } from '../../server/pdf/summaryPdf';
 import { fedFromText } from '../../server/pdf/summaryContent';
+import { withUnit } from '../../src/shared/format/quantity';
 
 // The summary of a hot system fed from a cold one (no database): the invented "Alder & Finch" demo systems.
 
@@ -50,7 +51,7 @@ describe("the summary names a hot system's source", () => {
     expect(text).toContain('Hot water fed from');
     expect(text).toContain('the cold-water system "Domestic cold water"');
     expect(text).toContain('revision 4 (issued)');
-    expect(text).toContain(`residual ${r.residualPressure.toFixed(2)} psi`);
+    expect(text).toContain(`residual ${withUnit(r.residualPressure, 'psi')}`);
     console.log(fedFromText(doc, 'psi'));
   });
 
@@ -87,8 +88,8 @@ describe("the summary shows the hot system's recirculation loop", () => {
     expect(text).toContain('Hot-water recirculation');
     // pdftotext reads the label column before the values: each is looked for on its own.
     expect(text).toContain('Loop flow = pump flow');
-    expect(text).toContain(`${r.pumpFlow.toFixed(2)} gpm`);
-    expect(text).toContain(`${r.pumpHead.toFixed(2)} psi (${r.pumpHeadLength.toFixed(1)} ft of water)`);
+    expect(text).toContain(withUnit(r.pumpFlow, 'gpm', 'loop flow'));
+    expect(text).toContain(`${withUnit(r.pumpHead, 'psi')} (${withUnit(r.pumpHeadLength, 'ft')} of water)`);
     for (const p of r.pipes.filter((x) => x.sizeChosen)) expect(text).toContain(`${p.size} (chosen, return)`);
     expect(text).toContain('Rinnai design manual R-TRWH-E-02');
     console.log(

@@ -7,7 +7,7 @@ import path from 'node:path';
 import { PDFDocument, PDFName, PDFSignature } from 'pdf-lib';
 import type { Analysis } from '../../src/engine';
 import { ATTESTATION_STATEMENTS } from '../../src/shared/api/systems';
-import { num } from '../../server/pdf/format';
+import { num } from '../../src/shared/format/quantity';
 import { SIGNATURE_FIELD_NAME } from '../../server/pdf/summaryPdf';
 import { projectWithRoles, startHarness, type Harness } from './support/harness';
 import { demoDocument } from './support/smtpSink';

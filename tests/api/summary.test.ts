@@ -8,7 +8,7 @@ import { analyzeSystem, ledgerFor, SystemDocumentSchema, type Analysis } from '.
 import { generateBuilding } from '../../src/engine/testing/generateTree';
 import { renderSummaryPdf } from '../../server/pdf/summaryPdf';
 import { MARGIN } from '../../server/pdf/layout';
-import { num, signed } from '../../server/pdf/format';
+import { num, signed } from '../../src/shared/format/quantity';
 import { SUMMARY_CAUTIONS } from '../../src/shared/api/summaries';
 import { makeUser, projectWithRoles, signedIn, startHarness, type Harness } from './support/harness';
 import { demoDocument, issuedSystem } from './support/smtpSink';

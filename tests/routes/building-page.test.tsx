@@ -12,7 +12,8 @@ import { analyzeSystem, nodeElevations } from '../../src/engine';
 import { buildRiser, floorsFromTable } from '../../src/engine/building/riserBuilder';
 import type { UnitType } from '../../src/engine/building/schema';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
-import { fmt } from '../../src/features/walk/lib/format';
+import { num } from '../../src/shared/format/quantity';
+import { UNIT_LABELS } from '../../src/engine';
 import { buildingPaths } from '../../src/features/building/paths';
 import { demoDocument, fakeApi } from './support/fake-api';
 import type { FakeApi } from './support/fake-api';
@@ -134,7 +135,7 @@ describe('the building page', () => {
     floors.forEach((f, i) => {
       expect(field(`Floor ${i + 1} name`).value).toBe(f.name);
       expect(field(`Floor ${i + 1} elevation`).value).toBe(String(f.elevation));
-      expect(screen.getByTestId(`floor-elevation-${i}`).textContent).toBe(fmt(f.elevation, 2));
+      expect(screen.getByTestId(`floor-elevation-${i}`).textContent).toBe(num(f.elevation, UNIT_LABELS[demo.unitSystem].elevation));
     });
     expect(document.querySelector('[aria-label="Floor 9 name"]')).toBeNull();
     // the typical height is the storey most of its floors share, so a floor added above takes it

@@ -8,7 +8,7 @@ import { screen } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem, nodeElevations, UNIT_LABELS, type SystemDocument } from '../../src/engine';
 import { CHAR_EM, DEVICE_TAG_WORDS, riserDiagram } from '../../src/shared/diagram/riserLayout';
-import { fmt, signed } from '../../src/features/walk/lib/format';
+import { num, signed } from '../../src/shared/format/quantity';
 import { walkPaths } from '../../src/features/walk/paths';
 import { demoDocument, fakeApi } from './support/fake-api';
 import { renderWalk } from './support/render-walk';
@@ -103,8 +103,10 @@ describe('the riser diagram page', () => {
     // each checked fixture: its margin and verdict written beside it and listed in the key
     for (const f of analysis.fixtures) {
       const mark = screen.getByTestId(`diagram-fixture-${f.id}`);
-      expect(mark.querySelector('text')?.textContent).toContain(`${signed(f.margin, 1)} ${f.pass ? 'pass' : 'FAIL'}`);
-      expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(`${f.label}: ${signed(f.margin, 1)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
+      expect(mark.querySelector('text')?.textContent).toContain(`${signed(f.margin, u.pressure)} ${f.pass ? 'pass' : 'FAIL'}`);
+      expect(screen.getByTestId(`key-fixture-${f.id}`).textContent).toContain(
+        `${f.label}: ${signed(f.margin, u.pressure)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`,
+      );
     }
     expect(world.unknown).toEqual([]);
   });
@@ -120,7 +122,7 @@ describe('the riser diagram page', () => {
       .replace(/^Levels:\s*/, '')
       .replace(/\.$/, '')
       .split('; ');
-    expect(listed).toEqual(floors.map((f) => `${f.name} (el. ${fmt(f.elevation, 1)} ${u.length})`));
+    expect(listed).toEqual(floors.map((f) => `${f.name} (el. ${num(f.elevation, u.length)} ${u.length})`));
     // each floor's name is drawn on its level line
     const texts = [...svg.querySelectorAll('text')].map((t) => t.textContent);
     for (const f of floors) expect(texts).toContain(f.name);
@@ -146,7 +148,7 @@ describe('the riser diagram page', () => {
     for (const l of levels) {
       expect(nodeNames.has(l.name), l.name).toBe(true);
       expect(floorNames.has(l.name), l.name).toBe(false);
-      expect(key).toContain(`${l.name} (el. ${fmt(l.elevation, 1)} ${u.length})`);
+      expect(key).toContain(`${l.name} (el. ${num(l.elevation, u.length)} ${u.length})`);
     }
     expect(world.unknown).toEqual([]);
   });

@@ -2,14 +2,14 @@
  * The walk's steps rendered through its real routes (issue #4: route-level tests of the steps).
  * Each page opens at its own address on the invented demo "Alder & Finch" (cold water, US units),
  * and what it shows is compared with the engine's own run on the same document, formatted the
- * way the screens format it (src/features/walk/lib/format.ts) — never with a number written here.
+ * way the screens format it (src/shared/format/quantity.ts) — never with a number written here.
  */
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem, UNIT_LABELS, verdictStatus } from '../../src/engine';
 import type { Analysis, SystemDocument } from '../../src/engine';
 import { CAUTIONS } from '../../src/features/walk/cautions';
-import { fmt, signed } from '../../src/features/walk/lib/format';
+import { num, signed } from '../../src/shared/format/quantity';
 import { walkPaths } from '../../src/features/walk/paths';
 import { WALK_STEPS } from '../../src/features/walk/steps';
 import type { WalkStepId } from '../../src/features/walk/steps';
@@ -29,14 +29,14 @@ const SHOWS: Record<WalkStepId, (a: Analysis, d: SystemDocument) => Promise<void
   supply: async (a, d) => {
     expect(valueOf(`Static pressure, low (${u.pressure})`)).toBe(String(d.source.staticPressureLow));
     expect(valueOf(`Static pressure, high (${u.pressure})`)).toBe(String(d.source.staticPressureHigh));
-    expect(screen.getByTestId('source-at-design-flow').textContent).toContain(`${fmt(a.source.designFlow, 1)} ${u.flow}`);
+    expect(screen.getByTestId('source-at-design-flow').textContent).toContain(`${num(a.source.designFlow, u.flow)} ${u.flow}`);
   },
   devices: async (a, d) => {
     const device = d.devices[0];
     expect(valueOf('Device 1 name')).toBe(device.label);
     const loss = a.segments.flatMap((s) => s.devices).find((x) => x.deviceId === device.id);
     expect(loss).toBeDefined();
-    expect(screen.getByTestId('device-loss-0').textContent).toContain(`Loss at the design flow: ${fmt(loss!.loss, 2)} ${u.pressure}`);
+    expect(screen.getByTestId('device-loss-0').textContent).toContain(`Loss at the design flow: ${num(loss!.loss, u.pressure)} ${u.pressure}`);
   },
   risers: async (_a, d) => {
     expect(valueOf(`${firstName} length (${u.length})`)).toBe(String(d.segments[0].length));
@@ -46,7 +46,7 @@ const SHOWS: Record<WalkStepId, (a: Analysis, d: SystemDocument) => Promise<void
   fittings: async (a, d) => {
     expect(valueOf(`${firstName}: fitting 1 count`)).toBe(String(d.segments[0].fittings[0].count));
     const result = a.segments.find((s) => s.id === first.id)!;
-    expect(screen.getByTestId(`fitting-loss-${first.id}`).textContent).toContain(`Σ K = ${fmt(result.fittingsK, 2)}`);
+    expect(screen.getByTestId(`fitting-loss-${first.id}`).textContent).toContain(`Σ K = ${num(result.fittingsK, 'loss coefficient')}`);
   },
   elevation: async (a, d) => {
     // the demo's nodes sit on named floors: each shows its floor's elevation + its height, as the engine placed it
@@ -61,13 +61,13 @@ const SHOWS: Record<WalkStepId, (a: Analysis, d: SystemDocument) => Promise<void
     const critical = a.fixtures.find((f) => f.id === a.criticalFixtureId)!;
     const summary = screen.getByTestId('critical-summary').textContent ?? '';
     expect(summary).toContain(critical.label);
-    expect(summary).toContain(`margin ${signed(critical.margin, 2)} ${u.pressure}`);
+    expect(summary).toContain(`margin ${signed(critical.margin, u.pressure)} ${u.pressure}`);
     expect(within(screen.getByTestId(`checked-${critical.id}`)).getByTestId('critical-marker')).toBeTruthy();
   },
   result: async (a) => {
     const rows = within(screen.getByTestId('verdict-table')).getAllByRole('row').slice(1);
     expect(rows).toHaveLength(a.fixtures.length);
-    for (const f of a.fixtures) expect(screen.getByTestId(`margin-${f.id}`).textContent).toBe(signed(f.margin, 2));
+    for (const f of a.fixtures) expect(screen.getByTestId(`margin-${f.id}`).textContent).toBe(signed(f.margin, u.pressure));
     // sorted by margin, the critical (smallest margin) first and marked
     expect(rows[0].getAttribute('data-testid')).toBe(`verdict-${a.criticalFixtureId}`);
     expect(rows[0].textContent).toContain('critical');
@@ -163,8 +163,8 @@ describe('the segment table and the riser diagram', () => {
     expect(valueOf(`${firstName} length (${u.length})`)).toBe(String(first.length));
     const row = screen.getByTestId(`row-${first.id}`);
     const result = analysis.segments.find((s) => s.id === first.id)!;
-    expect(row.textContent).toContain(fmt(result.designFlow, 1));
-    expect(row.textContent).toContain(fmt(result.frictionLoss + result.fittingLoss, 3));
+    expect(row.textContent).toContain(num(result.designFlow, u.flow));
+    expect(row.textContent).toContain(num(result.frictionLoss + result.fittingLoss, u.pressure));
     expect(shownMargin()).toBe(expectedMarginText(doc));
     expect(current()).toHaveLength(0);
     const table = within(screen.getByRole('navigation', { name: 'Steps of the walk' })).getByRole('link', { name: 'Segment table' });
@@ -184,7 +184,7 @@ describe('the segment table and the riser diagram', () => {
     );
     for (const f of analysis.fixtures) {
       const label = screen.getByTestId(`diagram-fixture-${f.id}`).textContent ?? '';
-      expect(label).toContain(`${f.label}: ${signed(f.margin, 1)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
+      expect(label).toContain(`${f.label}: ${signed(f.margin, u.pressure)} ${u.pressure} ${f.pass ? 'pass' : 'FAIL'}`);
       expect(label.includes('(critical)')).toBe(f.id === analysis.criticalFixtureId);
     }
     const link = within(screen.getByRole('navigation', { name: 'Steps of the walk' })).getByRole('link', { name: 'Riser diagram' });

@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { analyzeSystem, UNIT_LABELS, verdictStatus } from '../../src/engine';
 import type { SystemDocument } from '../../src/engine';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
-import { signed } from '../../src/features/walk/lib/format';
+import { signed } from '../../src/shared/format/quantity';
 import { rangeText } from '../../src/features/walk/lib/limits';
 import { walkPaths } from '../../src/features/walk/paths';
 import { SaveDocumentBody } from '../../src/shared/api/systems';
@@ -57,7 +57,7 @@ describe('the live verdict bar', () => {
     const bar = screen.getByTestId('verdict-bar');
     expect(bar.getAttribute('data-status')).toBe(verdictStatus(a));
     expect(within(bar).getByTestId('bar-critical').textContent).toBe(critical.label);
-    expect(within(bar).getByTestId('bar-margin').textContent).toBe(`${signed(critical.margin, 2)} ${u.pressure}`);
+    expect(within(bar).getByTestId('bar-margin').textContent).toBe(`${signed(critical.margin, u.pressure)} ${u.pressure}`);
     // the bar is pinned at the top of the window, the ledger panel no longer stretches its column
     expect(bar.className).toContain('sticky');
     expect(screen.getByTestId('ledger-panel').className).toContain('self-start');

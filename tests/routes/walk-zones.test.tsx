@@ -7,7 +7,7 @@
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { analyzeSystem, ledgerFor, zoneFloorsWords, zoneVerdictWords } from '../../src/engine';
-import { fmt, signed } from '../../src/features/walk/lib/format';
+import { num, signed } from '../../src/shared/format/quantity';
 import { zoneCrossings } from '../../src/features/walk/components/pressure-profile';
 import { demoDocument, fakeApi } from './support/fake-api';
 import { renderWalk, stepHref } from './support/render-walk';
@@ -28,9 +28,9 @@ describe('the result step: pressure zones', () => {
       const text = row.textContent ?? '';
       expect(text).toContain(z.name);
       expect(text).toContain(zoneFloorsWords(z, analysis.units.elevation));
-      if (z.lowestResidual) expect(text).toContain(fmt(z.lowestResidual.pressure, 1));
-      if (z.highestStatic) expect(screen.getByTestId(`zone-static-${z.index}`).textContent).toContain(fmt(z.highestStatic.pressure, 1));
-      if (z.criticalFixture) expect(text).toContain(signed(z.criticalFixture.margin, 2));
+      if (z.lowestResidual) expect(text).toContain(num(z.lowestResidual.pressure, analysis.units.pressure));
+      if (z.highestStatic) expect(screen.getByTestId(`zone-static-${z.index}`).textContent).toContain(num(z.highestStatic.pressure, analysis.units.pressure));
+      if (z.criticalFixture) expect(text).toContain(signed(z.criticalFixture.margin, analysis.units.pressure));
       const verdict = screen.getByTestId(`zone-verdict-${z.index}`);
       expect(verdict.textContent).toBe(zoneVerdictWords(z));
       // a zone without a checked fixture is never drawn as a pass

@@ -37,6 +37,6 @@ describe('the profile chart ticks at round values', () => {
     expect(ticks.map((t) => t.label)).toEqual(['0.0', '0.2', '0.4', '0.6', '0.8']);
     const negative = axisTicks(-12, 380, 5);
     expect(negative.step).toBe(100);
-    expect(negative.ticks.map((t) => t.label)).toEqual(['-100', '0', '100', '200', '300', '400']);
+    expect(negative.ticks.map((t) => t.label)).toEqual(['\u2212100', '0', '100', '200', '300', '400']);
   });
 });

@@ -8,10 +8,7 @@
 import { MATERIALS } from '../../../src/engine/catalog/materials';
 import type { Analysis, SystemDocument } from '../../../src/engine';
 import { COLORS, type Layout } from '../layout';
-import { num } from '../format';
-
-/** Loop flows are small: 0.01 gpm and 0.001 L/s (the summary's usual 0.1 gpm would print 0.8 for 0.76). */
-const flowText = (value: number, unit: string) => `${value.toFixed(unit === 'gpm' ? 2 : 3)} ${unit}`;
+import { num, withUnit } from '../../../src/shared/format/quantity';
 
 export function recirculationSection(c: { L: Layout; a: Analysis; doc: SystemDocument }) {
   const { L, a, doc } = c;
@@ -26,16 +23,14 @@ export function recirculationSection(c: { L: Layout; a: Analysis; doc: SystemDoc
     return;
   }
   const u = r.units;
-  const drop = `${num(r.temperatureDrop, u.temperature)} ${u.heat === 'W' ? 'K' : '°F'}`;
+  const dropUnit = u.heat === 'W' ? 'K' : '°F';
+  const drop = withUnit(r.temperatureDrop, dropUnit);
   L.keyValues([
-    [
-      'Loop heat loss',
-      `${r.heatLoss.toFixed(0)} ${u.heat}, at ${num(r.hotTemperature, u.temperature)} ${u.temperature} leaving the heater, drop allowed ${drop}`,
-    ],
-    ['Loop flow = pump flow', flowText(r.pumpFlow, u.flow)],
+    ['Loop heat loss', `${withUnit(r.heatLoss, u.heat)}, at ${withUnit(r.hotTemperature, u.temperature)} leaving the heater, drop allowed ${drop}`],
+    ['Loop flow = pump flow', withUnit(r.pumpFlow, u.flow, 'loop flow')],
     [
       'Pump head',
-      `${num(r.pumpHead, u.pressure)} ${u.pressure} (${num(r.pumpHeadLength, u.length)} ${u.length} of water): pipe friction × ${(1 + r.fittingAllowance).toFixed(2)} + heater loss ${num(r.heaterLoss, u.pressure)} ${u.pressure}`,
+      `${withUnit(r.pumpHead, u.pressure)} (${withUnit(r.pumpHeadLength, u.length)} of water): pipe friction × ${(1 + r.fittingAllowance).toFixed(2)} + heater loss ${withUnit(r.heaterLoss, u.pressure)}`,
     ],
   ]);
   const unverified = r.pipes.filter((p) => Object.hasOwn(MATERIALS, p.material) && !MATERIALS[p.material as keyof typeof MATERIALS].verified);
@@ -56,7 +51,7 @@ export function recirculationSection(c: { L: Layout; a: Analysis; doc: SystemDoc
           `${material?.label ?? p.material}${material && !material.verified ? ' (unverified)' : ''}, ${p.size} ${p.sizeChosen ? '(chosen, return)' : '(given)'}`,
           `${num(p.velocity, u.velocity)} / ${num(p.velocityLimit, u.velocity)}`,
           num(p.frictionLoss, u.pressure),
-          p.heatLoss.toFixed(0),
+          num(p.heatLoss, u.heat),
           p.withinLimits ? 'within' : 'over',
         ],
         style: p.withinLimits ? undefined : { fail: true },

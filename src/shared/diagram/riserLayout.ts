@@ -12,6 +12,7 @@ import { expandBuilding } from '../../engine/building/expand';
 import type { Analysis } from '../../engine/analysis/types';
 import type { SystemDocument } from '../../engine/model/schema';
 import { MATERIALS } from '../../engine/catalog/materials';
+import { withUnit } from '../format/quantity';
 
 export type DeviceTag = 'M' | 'BFP' | 'PRV' | 'BP' | 'WH' | 'ET' | 'D';
 
@@ -311,7 +312,7 @@ export function fitRiserDiagram(d: RiserDiagram, area: PaperArea, opts: { storey
           type: 'text',
           x: area.left,
           y: y - LEVEL_SIZE - 1,
-          text: `el. ${fmt(l.elevation)} ${d.lengthUnit}`,
+          text: `el. ${withUnit(l.elevation, d.lengthUnit)}`,
           size: LEVEL_SIZE - 1,
           maxWidth: gutterLeft - 6,
         });
@@ -482,15 +483,10 @@ function storeyOf(d: RiserDiagram): number {
   return gaps.length ? gaps[Math.floor(gaps.length / 2)] : Math.max(d.maxElevation - d.minElevation, 1);
 }
 
-function fmt(v: number): string {
-  const s = v.toFixed(1);
-  return s === '-0.0' ? '0.0' : s;
-}
-
 /** The diagram's elements listed by floor, for the golden text and the page's key. */
 export function riserElementsByFloor(d: RiserDiagram): string[] {
   const out: string[] = [];
-  out.push(`levels: ${d.levels.map((l) => `${l.name} (el. ${fmt(l.elevation)} ${d.lengthUnit})`).join('; ')}`);
+  out.push(`levels: ${d.levels.map((l) => `${l.name} (el. ${withUnit(l.elevation, d.lengthUnit)})`).join('; ')}`);
   const floors = new Map<string, string[]>();
   for (const dv of d.devices) floors.set(dv.floor, [...(floors.get(dv.floor) ?? []), `${dv.tag} ${dv.label}`]);
   for (const [floor, list] of floors) out.push(`devices on ${floor}: ${list.join('; ')}`);

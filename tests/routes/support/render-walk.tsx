@@ -13,7 +13,7 @@ import type { SystemDocument } from '../../../src/engine';
 import { walkPaths } from '../../../src/features/walk/paths';
 import { walkRoutes } from '../../../src/features/walk/routes';
 import type { WalkStepId } from '../../../src/features/walk/steps';
-import { signed } from '../../../src/features/walk/lib/format';
+import { signed } from '../../../src/shared/format/quantity';
 import { api } from '../../../src/lib/api-client';
 import { createQueryClient } from '../../../src/lib/query-client';
 import type { FakeApi } from './fake-api';
@@ -45,8 +45,8 @@ export function expectedMarginText(document: SystemDocument): string {
   const analysis = analyzeSystem(document);
   if (!analysis.criticalFixtureId) throw new Error('the demo has no critical fixture');
   const ledger = ledgerFor(analysis, analysis.criticalFixtureId);
-  // the panel writes signed(margin, 2) and the unit (src/features/walk/components/ledger-panel.tsx)
-  return `${signed(ledger.margin, 2)} ${ledger.pressureUnit}`;
+  // the panel writes signed(margin, unit) and the unit (src/features/walk/components/ledger-panel.tsx)
+  return `${signed(ledger.margin, ledger.pressureUnit)} ${ledger.pressureUnit}`;
 }
 
 /** The margin the live ledger panel shows now. */

@@ -3,7 +3,7 @@ import { useFieldArray, useFormContext, useWatch } from 'react-hook-form';
 import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { CellInput } from '../../walk/components/cells';
-import { fmt } from '../../walk/lib/format';
+import { num } from '../../../shared/format/quantity';
 import { floorElevations, type BuildingForm } from '../lib/form';
 import { asNumber, msg } from './form-helpers';
 
@@ -67,13 +67,13 @@ export function FloorsSection({ lengthUnit }: { lengthUnit: string }) {
                 <CellInput
                   label={`Floor ${i + 1} elevation`}
                   inputMode="decimal"
-                  placeholder={filled[i] === null ? '' : `${fmt(filled[i], 2)} (typical)`}
+                  placeholder={filled[i] === null ? '' : `${num(filled[i], lengthUnit)} (typical)`}
                   error={msg(errors.floors?.rows?.[i]?.elevation)}
                   {...register(`floors.rows.${i}.elevation`, asNumber)}
                 />
               </td>
               <td className="pr-2 pb-1 tabular-nums" data-testid={`floor-elevation-${i}`}>
-                {fmt(filled[i], 2)}
+                {num(filled[i], lengthUnit)}
               </td>
               <td className="pb-1">
                 {rows.fields.length > 1 ? (

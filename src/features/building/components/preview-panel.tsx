@@ -1,4 +1,4 @@
-import { fmt } from '../../walk/lib/format';
+import { num } from '../../../shared/format/quantity';
 import type { BuildingCounts } from '../lib/build';
 
 /** What "Generate" would write, counted before anything is written. */
@@ -15,7 +15,7 @@ export function PreviewPanel({ counts, problem }: { counts: BuildingCounts | nul
     ['nodes', 'Nodes', String(counts.nodes)],
     ['placements', 'Units placed', String(counts.placements)],
     ...(counts.devices > 0 ? ([['devices', 'Zone PRVs and boosters', String(counts.devices)]] as [string, string, string][]) : []),
-    ['fixture-units', 'Fixture units (WSFU)', fmt(counts.fixtureUnits, 1)],
+    ['fixture-units', 'Fixture units (WSFU)', num(counts.fixtureUnits, 'WSFU')],
     ['checked', 'Checked fixtures', String(counts.checkedFixtures)],
   ];
   return (

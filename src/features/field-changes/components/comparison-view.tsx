@@ -11,7 +11,7 @@ function statusOf(comparison: ComparisonResponse): Status | null {
   return status === 'pass' || status === 'fail' || status === 'incomplete' ? status : null;
 }
 const CHANGE_WORDS: Record<Verdict, string> = { pass: 'Still passes', fail: 'Fails', incomplete: 'Incomplete', unknown: 'Not computed' };
-import { fmt, signed } from '../../walk/lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 
 type Props = { comparison: ComparisonResponse };
 
@@ -74,15 +74,15 @@ export function FixtureEffectTable({ comparison }: Props) {
                 {f.label}
                 {f.id === comparison.verdict.criticalFixtureId ? <span className="ml-1 text-xs font-semibold">(critical)</span> : null}
               </th>
-              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.required, 2)}</td>
-              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.issuedResidual, 2)}</td>
-              <td className="py-1 pr-2 text-right tabular-nums">{fmt(f.newResidual, 2)}</td>
-              <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, 2)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{num(f.required, u)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{num(f.issuedResidual, u)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{num(f.newResidual, u)}</td>
+              <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, u)}</td>
               <td className="py-1 pr-2 text-right tabular-nums" data-testid="new-margin">
-                {signed(f.newMargin, 2)}
+                {signed(f.newMargin, u)}
               </td>
               <td className="py-1 pr-2 text-right tabular-nums" data-testid="margin-difference">
-                {signed(f.difference, 2)}
+                {signed(f.difference, u)}
               </td>
               <td className="py-1">
                 <VerdictMark verdict={fixtureVerdict(f.newPass, statusOf(comparison))} />
@@ -138,11 +138,11 @@ export function ChangedElements({ comparison }: Props) {
                   </th>
                   <td className="py-1 pr-2">{changeWords(s.changes)}</td>
                   <td className="py-1 pr-2 text-right tabular-nums">
-                    {fmt(s.issued?.loss, 2)} → {fmt(s.proposed?.loss, 2)}
+                    {num(s.issued?.loss, units.pressure)} → {num(s.proposed?.loss, units.pressure)}
                   </td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{signed(s.lossDifference, 2)}</td>
+                  <td className="py-1 pr-2 text-right tabular-nums">{signed(s.lossDifference, units.pressure)}</td>
                   <td className="py-1 text-right tabular-nums">
-                    {fmt(s.issued?.velocity, 1)} → {fmt(s.proposed?.velocity, 1)}
+                    {num(s.issued?.velocity, units.velocity)} → {num(s.proposed?.velocity, units.velocity)}
                     {s.proposed?.velocityPass === false ? <span className="block text-xs font-semibold text-fault">⚠ over the limit</span> : null}
                   </td>
                 </tr>
@@ -178,9 +178,9 @@ export function ChangedElements({ comparison }: Props) {
                 </th>
                 <td className="py-1 pr-2">{changeWords(d.changes)}</td>
                 <td className="py-1 pr-2 text-right tabular-nums">
-                  {fmt(d.issuedLoss, 2)} → {fmt(d.newLoss, 2)}
+                  {num(d.issuedLoss, units.pressure)} → {num(d.newLoss, units.pressure)}
                 </td>
-                <td className="py-1 text-right tabular-nums">{signed(d.lossDifference, 2)}</td>
+                <td className="py-1 text-right tabular-nums">{signed(d.lossDifference, units.pressure)}</td>
               </tr>
             ))}
           </tbody>

@@ -4,17 +4,17 @@ import { Loading } from '../../../components/ui/loading';
 import type { RevisionCompare } from '../../../shared/api/reviewLoop';
 import type { ComparisonResponse } from '../../../shared/api/fieldChanges';
 import { ChangedElements, ComparisonVerdict } from '../../field-changes/components/comparison-view';
-import { fmt, signed } from '../../walk/lib/format';
+import { signed, stepOf, withUnit } from '../../../shared/format/quantity';
 import { useAnswers } from '../api/get-answers';
 import { describeItem } from './review-items';
 import type { ItemCatalog } from './review-items';
 
 type Fixture = RevisionCompare['fixtures'][number];
 
-/** A margin that moved by at least the shown precision (0.01 in the unit shown), or a verdict that flipped. */
-const changed = (f: Fixture) => f.difference === null || Math.abs(f.difference) >= 0.005 || f.issuedPass !== f.newPass;
+/** A margin that moved by at least the shown precision (the unit's last printed digit), or a verdict that flipped. */
+const changed = (f: Fixture, unit: string) => f.difference === null || Math.abs(f.difference) >= stepOf(unit) / 2 || f.issuedPass !== f.newPass;
 
-function FixtureRows({ fixtures, testId }: { fixtures: Fixture[]; testId: string }) {
+function FixtureRows({ fixtures, testId, unit: U }: { fixtures: Fixture[]; testId: string; unit: string }) {
   return (
     <table className="w-full min-w-[36rem] text-sm" data-testid={testId}>
       <thead>
@@ -40,9 +40,9 @@ function FixtureRows({ fixtures, testId }: { fixtures: Fixture[]; testId: string
               {f.label}
               {f.newPass === false ? <span className="ml-1 text-xs font-semibold text-fault">⚠ short</span> : null}
             </th>
-            <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, 2)}</td>
-            <td className="py-1 pr-2 text-right tabular-nums">{signed(f.newMargin, 2)}</td>
-            <td className="py-1 text-right tabular-nums">{signed(f.difference, 2)}</td>
+            <td className="py-1 pr-2 text-right tabular-nums">{signed(f.issuedMargin, U)}</td>
+            <td className="py-1 pr-2 text-right tabular-nums">{signed(f.newMargin, U)}</td>
+            <td className="py-1 text-right tabular-nums">{signed(f.difference, U)}</td>
           </tr>
         ))}
       </tbody>
@@ -73,8 +73,8 @@ export function ReviewAnswersPanel({
   const { compare, reviews } = answers.data;
   const n = compare.returnedRevision.number;
   const u = compare.units.pressure;
-  const moved = compare.fixtures.filter(changed);
-  const still = compare.fixtures.filter((f) => !changed(f));
+  const moved = compare.fixtures.filter((f) => changed(f, u));
+  const still = compare.fixtures.filter((f) => !changed(f, u));
   // the field-change views take the same comparison; this one is against the returned revision
   const asComparison: ComparisonResponse = { ...compare, fieldChangeId: '', baseRevision: compare.returnedRevision };
   return (
@@ -100,16 +100,14 @@ export function ReviewAnswersPanel({
         <div className="overflow-x-auto">
           <h4 className="font-semibold">Margins at the checked fixtures ({u}): changed first</h4>
           {moved.length ? (
-            <FixtureRows fixtures={moved} testId="answers-fixtures-changed" />
+            <FixtureRows fixtures={moved} testId="answers-fixtures-changed" unit={u} />
           ) : (
-            <p className="text-ink-soft">
-              No margin moved by {fmt(0.01, 2)} {u} or more.
-            </p>
+            <p className="text-ink-soft">No margin moved by {withUnit(stepOf(u), u)} or more.</p>
           )}
           {still.length ? (
             <details className="mt-2">
               <summary className="cursor-pointer text-sm font-semibold">Unchanged fixtures ({still.length})</summary>
-              <FixtureRows fixtures={still} testId="answers-fixtures-unchanged" />
+              <FixtureRows fixtures={still} testId="answers-fixtures-unchanged" unit={u} />
             </details>
           ) : null}
         </div>

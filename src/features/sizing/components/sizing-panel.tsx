@@ -5,7 +5,7 @@ import { CheckboxField, TextField } from '../../../components/ui/field';
 import { fromSI, sizingBasisText, toSI } from '../../../engine';
 import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
 import { useWalk } from '../../walk/draft/walk-context';
-import { fmt, signed } from '../../walk/lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { applySizing, changedRows, setSizeLocked, undoSizing } from '../lib/apply';
 import type { SizingReply } from '../lib/compute';
 import { runSizing, type SizingRun } from '../lib/run-sizing';
@@ -40,7 +40,7 @@ function governingText(row: SegmentSizing, velocityUnit: string, sys: SystemDocu
   if (g === 'unchanged') return 'Not sized (outside the selection, or not a catalog pipe)';
   if (g === 'smallest') return 'Smallest size allowed';
   if (g === 'velocity') {
-    const limit = row.velocityLimit === null ? '—' : fmt(fromSI('velocity', row.velocityLimit, sys), 1);
+    const limit = row.velocityLimit === null ? '—' : num(fromSI('velocity', row.velocityLimit, sys), velocityUnit);
     return row.velocityMet
       ? `Velocity in this segment (limit ${limit} ${velocityUnit})`
       : `Velocity in this segment: above the limit of ${limit} ${velocityUnit} even at the largest size`;
@@ -94,9 +94,9 @@ export function SizingPanel() {
   const rows = result ? result.segments : [];
   const changed = changedRows(rows);
   const shownRows = showAll ? rows : rows.filter((r) => r.before !== r.after || r.governing === 'locked' || typeof r.governing === 'object');
-  const p = (pa: number | null | undefined, digits = 2) => (pa === null || pa === undefined ? '—' : fmt(fromSI('pressure', pa, sys), digits));
-  const ps = (pa: number | null | undefined, digits = 2) => (pa === null || pa === undefined ? '—' : signed(fromSI('pressure', pa, sys), digits));
-  const v = (ms: number | null) => (ms === null ? '—' : fmt(fromSI('velocity', ms, sys), 1));
+  const p = (pa: number | null | undefined) => (pa === null || pa === undefined ? '—' : num(fromSI('pressure', pa, sys), units.pressure));
+  const ps = (pa: number | null | undefined) => (pa === null || pa === undefined ? '—' : signed(fromSI('pressure', pa, sys), units.pressure));
+  const v = (ms: number | null) => (ms === null ? '—' : num(fromSI('velocity', ms, sys), units.velocity));
 
   const apply = () => {
     if (!answered || !result || !result.feasible || stale) return;
@@ -157,7 +157,7 @@ export function SizingPanel() {
                   ? 'Every segment already has its smallest passing size.'
                   : `${changed.length} segment${changed.length === 1 ? '' : 's'} change size.`}{' '}
                 Lowest fixture margin {ps(result.minMarginBeforePa)} → {ps(result.minMarginAfterPa)} {units.pressure}; pipe volume{' '}
-                {fmt(result.volumeBeforeM3 * 1000, 1)} → {fmt((result.volumeAfterM3 ?? 0) * 1000, 1)} L.
+                {num(result.volumeBeforeM3 * 1000, 'L')} → {num((result.volumeAfterM3 ?? 0) * 1000, 'L')} L.
               </p>
             ) : (
               <Alert tone="fault" title="No choice of sizes passes">
@@ -173,15 +173,15 @@ export function SizingPanel() {
             {result.frictionBudget ? (
               <p className="text-sm text-ink-soft" data-testid="friction-budget">
                 Hand check (the model codes’ pressure-available-for-friction method, common practice): to {result.frictionBudget.label}, the supply’s{' '}
-                {p(result.frictionBudget.supplyPa, 1)} less devices {p(result.frictionBudget.devicesPa, 1)}, elevation {p(result.frictionBudget.elevationPa, 1)}
-                , the minimum {p(result.frictionBudget.requiredPa, 1)}
-                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa, 1)}` : ''} leaves{' '}
-                {p(result.frictionBudget.availablePa, 1)} {units.pressure} for friction over{' '}
-                {fmt(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), 0)} {units.length} of pipe
-                and fittings:{' '}
+                {p(result.frictionBudget.supplyPa)} less devices {p(result.frictionBudget.devicesPa)}, elevation {p(result.frictionBudget.elevationPa)}, the
+                minimum {p(result.frictionBudget.requiredPa)}
+                {result.frictionBudget.marginPa > 0 ? ` and the margin ${p(result.frictionBudget.marginPa)}` : ''} leaves {p(result.frictionBudget.availablePa)}{' '}
+                {units.pressure} for friction over{' '}
+                {num(fromSI('length', result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM, sys), units.length)}{' '}
+                {units.length} of pipe and fittings:{' '}
                 {result.frictionBudget.perHundredFtPa === null
                   ? '—'
-                  : `${fmt(fromSI('pressurePerLength', result.frictionBudget.availablePa / (result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM), sys), 2)} ${units.pressurePerLength}`}
+                  : `${num(fromSI('pressurePerLength', result.frictionBudget.availablePa / (result.frictionBudget.developedLengthM + result.frictionBudget.fittingsEquivalentLengthM), sys), units.pressurePerLength)} ${units.pressurePerLength}`}
                 .
               </p>
             ) : null}

@@ -5,7 +5,7 @@ import { SelectField } from '../../../components/ui/field';
 import { DEFAULT_SUBSTITUTE_MATERIAL, fromSI } from '../../../engine';
 import type { SystemDocument } from '../../../engine';
 import { useWalk } from '../../walk/draft/walk-context';
-import { fmt, signed } from '../../walk/lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { treeOrder } from '../../walk/lib/tree';
 import { applySubstitution, undoSubstitution, type PipeBefore } from '../lib/apply';
 import type { SizingReply } from '../lib/compute';
@@ -63,7 +63,7 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
   const rows = result && sub ? result.segments.filter((r) => sub.substituted.includes(r.segmentId)) : [];
   const issued = new Map((answer?.document ?? document).segments.map((s) => [s.id, s]));
   const materialLabel = (id: string | undefined | null) => (id ? (catalog.material(id)?.label ?? id) : '—');
-  const p = (pa: number | null | undefined) => (pa === null || pa === undefined ? '—' : signed(fromSI('pressure', pa, sys), 2));
+  const p = (pa: number | null | undefined) => (pa === null || pa === undefined ? '—' : signed(fromSI('pressure', pa, sys), units.pressure));
 
   const use = () => {
     if (!result?.feasible || !sub || stale) return;
@@ -149,15 +149,15 @@ export function SubstitutePanel({ onChanged }: { onChanged: (doc: SystemDocument
                   return (
                     <li key={r.segmentId} data-testid={`substitute-${r.segmentId}`}>
                       {r.label || r.segmentId}: {materialLabel(was?.material)} {was?.size ?? '—'} → {materialLabel(sub.material)} {r.after} ({why};{' '}
-                      {fmt(r.velocityAfter === null ? null : fromSI('velocity', r.velocityAfter, sys), 1)} {units.velocity})
+                      {num(r.velocityAfter === null ? null : fromSI('velocity', r.velocityAfter, sys), units.velocity)} {units.velocity})
                     </li>
                   );
                 })}
               </ul>
             ) : (
               <Alert tone="fault" title="No sizes of this material pass">
-                Even at its largest sizes, the worst fixture stays {fmt(fromSI('pressure', result.shortfallPa, sys), 2)} {units.pressure} short. Nothing was
-                changed.
+                Even at its largest sizes, the worst fixture stays {num(fromSI('pressure', result.shortfallPa, sys), units.pressure)} {units.pressure} short.
+                Nothing was changed.
               </Alert>
             )}
             {sub.skipped.length ? (

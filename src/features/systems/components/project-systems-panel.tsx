@@ -6,6 +6,8 @@ import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { Loading } from '../../../components/ui/loading';
 import { formatDate } from '../../../lib/labels';
+import { UNIT_LABELS } from '../../../engine';
+import { signed } from '../../../shared/format/quantity';
 import type { SystemInfo } from '../../../shared/api/systems';
 import type { ProjectRole } from '../../../shared/api/projects';
 import { ReturnedSystemMark } from '../../reviews/components/returned-marker';
@@ -16,12 +18,17 @@ import { ImportSystemForm } from './import-system-form';
 import { NewSystemForm } from './new-system-form';
 import { revisionVerdict, VERDICT_WORDS, VerdictMark } from './verdict-mark';
 
-function fmtMargin(m: number) {
-  const t = Math.abs(m).toFixed(2);
-  return m < 0 ? `−${t}` : `+${t}`;
-}
-
-function SystemRow({ projectId, system, myRole }: { projectId: string; system: SystemInfo; myRole: ProjectRole | null }) {
+function SystemRow({
+  projectId,
+  system,
+  myRole,
+  pressureUnit,
+}: {
+  projectId: string;
+  system: SystemInfo;
+  myRole: ProjectRole | null;
+  pressureUnit: string | null;
+}) {
   const latest = system.latest;
   const v = latest?.verdict;
   return (
@@ -44,7 +51,12 @@ function SystemRow({ projectId, system, myRole }: { projectId: string; system: S
         {v && v.ok ? (
           <VerdictMark verdict={revisionVerdict(v)}>
             {VERDICT_WORDS[revisionVerdict(v)]}
-            {v.criticalMargin !== null ? `, critical margin ${fmtMargin(v.criticalMargin)}` : ', no checked fixtures'}
+            {/* the margin waits for the project's unit system: a number is never shown in a unit it is not in */}
+            {v.criticalMargin === null
+              ? ', no checked fixtures'
+              : pressureUnit
+                ? `, critical margin ${signed(v.criticalMargin, pressureUnit)} ${pressureUnit}`
+                : ''}
           </VerdictMark>
         ) : (
           <VerdictMark verdict="unknown">Not computed yet</VerdictMark>
@@ -101,7 +113,13 @@ export function ProjectSystemsPanel({ projectId, canEdit }: { projectId: string;
         ) : (
           <ul className="flex flex-col gap-2" aria-label="Systems">
             {systems.data.map((s) => (
-              <SystemRow key={s.id} projectId={projectId} system={s} myRole={project.data?.project.myRole ?? null} />
+              <SystemRow
+                key={s.id}
+                projectId={projectId}
+                system={s}
+                myRole={project.data?.project.myRole ?? null}
+                pressureUnit={project.data ? UNIT_LABELS[project.data.project.unitSystem].pressure : null}
+              />
             ))}
           </ul>
         )

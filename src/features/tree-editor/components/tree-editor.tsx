@@ -8,7 +8,7 @@ import type { Catalog } from '../../systems/api/get-catalog';
 import type { ProjectCatalog } from '../../catalog/api/get-project-catalog';
 import { matchProjectPipe, pipeFromProjectEntry, projectEntryIdOf, projectOptionValue } from '../../catalog/lib/apply-entries';
 import type { SegmentFlagValues } from '../../walk/components/segment-flags';
-import { fmt, signed } from '../../walk/lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { sizeChoices } from '../../walk/lib/sizes';
 import type { HeldValue } from '../../walk/draft/use-draft';
 import { fittingsSummary, lossOf, setCustomPipe, setLength, setMaterial, setRise, treeRows, visibleLines } from '../model';
@@ -865,15 +865,15 @@ export function TreeEditor(props: TreeEditorProps) {
         floor={r.floorLabel}
         hasFloors={hasFloors}
         fittings={fittingsSummary(s.fittings)}
-        flow={fmt(res?.designFlow, 2)}
-        velocity={fmt(res?.velocity, 1)}
-        loss={fmt(lossNow, 2)}
+        flow={num(res?.designFlow, units.flow)}
+        velocity={num(res?.velocity, units.velocity)}
+        loss={num(lossNow, units.pressure)}
         lossText={
           baseline
-            ? `${fmt(lossBefore, 2)} → ${fmt(lossNow, 2)} (${lossBefore !== undefined && lossNow !== undefined ? signed(lossNow - lossBefore, 2) : '—'})`
+            ? `${num(lossBefore, units.pressure)} → ${num(lossNow, units.pressure)} (${lossBefore !== undefined && lossNow !== undefined ? signed(lossNow - lossBefore, units.pressure) : '—'})`
             : null
         }
-        velocityText={baseline ? `${fmt(b?.velocity, 1)} → ${fmt(res?.velocity, 1)}` : null}
+        velocityText={baseline ? `${num(b?.velocity, units.velocity)} → ${num(res?.velocity, units.velocity)}` : null}
         fast={res?.velocityPass === false}
         flagFast={flags.fast}
         flagFailing={flags.failing}
@@ -881,7 +881,7 @@ export function TreeEditor(props: TreeEditorProps) {
         changed={changed}
         issuedText={
           was
-            ? `${was.material ? `${catalog.material(was.material)?.label ?? was.material}, ${was.size ?? '—'}` : 'custom pipe'}, ${fmt(was.length, 1)} ${units.length}`
+            ? `${was.material ? `${catalog.material(was.material)?.label ?? was.material}, ${was.size ?? '—'}` : 'custom pipe'}, ${num(was.length, units.length)} ${units.length}`
             : null
         }
         selected={selected.has(r.id)}

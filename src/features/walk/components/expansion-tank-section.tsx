@@ -4,9 +4,9 @@ import { Button } from '../../../components/ui/button';
 import { closedSystemCheck, closingElementWords, sizeDocumentExpansionTank } from '../../../engine';
 import type { SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
-import { fmt } from '../lib/format';
 import { describedField } from '../lib/described';
 import { EXPANSION_TANK } from '../../../engine/model/elements';
+import { num } from '../../../shared/format/quantity';
 
 type Tank = NonNullable<SystemDocument['expansionTank']>;
 
@@ -67,10 +67,10 @@ export function ExpansionTankSection() {
               <p data-testid="expansion-tank-size">
                 Tank volume needed:{' '}
                 <strong>
-                  {fmt(sizing.tankVolume, 2)} {sizing.volumeUnit}
+                  {num(sizing.tankVolume, sizing.volumeUnit)} {sizing.volumeUnit}
                 </strong>{' '}
-                (the water gains {fmt(sizing.expansionVolume, 3)} {sizing.volumeUnit}; acceptance factor {fmt(sizing.result.acceptanceFactor, 3)}). Source:{' '}
-                {sizing.result.source}.
+                (the water gains {num(sizing.expansionVolume, sizing.volumeUnit)} {sizing.volumeUnit}; acceptance factor{' '}
+                {num(sizing.result.acceptanceFactor, 'acceptance factor')}). Source: {sizing.result.source}.
               </p>
             ) : sizing ? (
               <p role="alert" className="font-semibold text-fault" data-testid="expansion-tank-error">

@@ -4,9 +4,9 @@ import type { SystemDocument } from '../../../engine';
 import { useColdSupply } from '../../systems/api/get-cold-supply';
 import { useSystems } from '../../systems/api/get-systems';
 import { useWalk } from '../draft/walk-context';
-import { fmt } from '../lib/format';
 import { describedField } from '../lib/described';
 import { FED_FROM } from '../../../engine/model/elements';
+import { num } from '../../../shared/format/quantity';
 
 /** The node id held until the designer chooses one: no cold system has it, so the verdict stays Incomplete meanwhile. */
 const NO_NODE = '(not chosen)';
@@ -84,9 +84,9 @@ export function FedFromSection() {
             <p>
               Fed from <strong>{resolution.systemName}</strong> at <strong>{resolution.nodeLabel}</strong>:{' '}
               <strong data-testid="fed-from-pressure">
-                {fmt(resolution.residualPressure, 2)} {units.pressure}
+                {num(resolution.residualPressure, units.pressure)} {units.pressure}
               </strong>{' '}
-              at its design flow (high static {fmt(resolution.staticPressureHigh, 2)} {units.pressure}; revision {resolution.revisionNumber},{' '}
+              at its design flow (high static {num(resolution.staticPressureHigh, units.pressure)} {units.pressure}; revision {resolution.revisionNumber},{' '}
               {resolution.revisionStatus}).
             </p>
           ) : (

@@ -3,7 +3,7 @@ import { ledgerFor } from '../../../engine';
 import type { Analysis, PressureLedger } from '../../../engine';
 import { fixtureVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import type { LiveAnalysis } from '../draft/live-analysis';
-import { fmt, signed } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { liveStatus, plural } from '../lib/verdict';
 
 export function criticalLedger(analysis: Analysis): PressureLedger | null {
@@ -35,8 +35,8 @@ export function LedgerTable({ ledger, caption }: { ledger: PressureLedger; capti
             <th scope="row" className="py-1 pr-2 text-left font-normal">
               {line.label}
             </th>
-            <td className="py-1 pr-2 text-right tabular-nums">{line.kind === 'start' ? '' : signed(line.change, 2)}</td>
-            <td className="py-1 text-right tabular-nums">{fmt(line.pressureAfter, 2)}</td>
+            <td className="py-1 pr-2 text-right tabular-nums">{line.kind === 'start' ? '' : signed(line.change, u)}</td>
+            <td className="py-1 text-right tabular-nums">{num(line.pressureAfter, u)}</td>
           </tr>
         ))}
       </tbody>
@@ -46,21 +46,21 @@ export function LedgerTable({ ledger, caption }: { ledger: PressureLedger; capti
             Residual pressure
           </th>
           <td />
-          <td className="py-1 text-right font-semibold tabular-nums">{fmt(ledger.residual, 2)}</td>
+          <td className="py-1 text-right font-semibold tabular-nums">{num(ledger.residual, u)}</td>
         </tr>
         <tr>
           <th scope="row" className="py-1 pr-2 text-left">
             Minimum flow pressure
           </th>
           <td />
-          <td className="py-1 text-right tabular-nums">{fmt(ledger.required, 2)}</td>
+          <td className="py-1 text-right tabular-nums">{num(ledger.required, u)}</td>
         </tr>
         <tr>
           <th scope="row" className="py-1 pr-2 text-left">
             Margin
           </th>
           <td />
-          <td className="py-1 text-right font-semibold tabular-nums">{signed(ledger.margin, 2)}</td>
+          <td className="py-1 text-right font-semibold tabular-nums">{signed(ledger.margin, u)}</td>
         </tr>
       </tfoot>
     </table>
@@ -105,7 +105,7 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
           <p className="mt-2 flex flex-wrap items-baseline gap-2">
             <span className="text-sm text-ink-soft">Margin</span>
             <span className="text-2xl font-bold tabular-nums" data-testid="live-margin">
-              {signed(ledger.margin, 2)} {ledger.pressureUnit}
+              {signed(ledger.margin, ledger.pressureUnit)} {ledger.pressureUnit}
             </span>
             <VerdictMark verdict={fixtureVerdict(ledger.pass, liveStatus(live))} />
           </p>
@@ -127,7 +127,7 @@ export const LedgerPanel = memo(function LedgerPanel({ live }: { live: LiveAnaly
       </h2>
       {body}
       <p className="mt-3 text-xs text-ink-muted">
-        Recomputed in your browser on every change ({fmt(live.millis, 0)} ms){live.ok ? ` · ${plural(live.analysis.warnings.length, 'warning')}` : ''}.
+        Recomputed in your browser on every change ({num(live.millis, 'ms')} ms){live.ok ? ` · ${plural(live.analysis.warnings.length, 'warning')}` : ''}.
       </p>
     </aside>
   );

@@ -1,6 +1,6 @@
 import { useId } from 'react';
 import type { Analysis, PressureLedger } from '../../../engine';
-import { fmt } from '../lib/format';
+import { axisTickLabel, num } from '../../../shared/format/quantity';
 
 export interface ProfilePoint {
   distance: number;
@@ -80,21 +80,21 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
       >
         <title id={`${id}-t`}>Pressure along the path to {fixtureLabel}</title>
         <desc id={`${id}-d`}>
-          Pressure falls from {fmt(points[0].pressure, 1)} {u.pressure} at the source to {fmt(last.pressure, 1)} {u.pressure} at {fixtureLabel},{' '}
-          {fmt(last.distance, 0)} {u.length} of pipe away; the minimum flow pressure is {fmt(ledger.required, 1)} {u.pressure}.
-          {crossings.map((c) => ` The path enters ${c.name} at ${fmt(c.distance, 0)} ${u.length}.`).join('')}
+          Pressure falls from {num(points[0].pressure, u.pressure)} {u.pressure} at the source to {num(last.pressure, u.pressure)} {u.pressure} at{' '}
+          {fixtureLabel}, {num(last.distance, u.length)} {u.length} of pipe away; the minimum flow pressure is {num(ledger.required, u.pressure)} {u.pressure}.
+          {crossings.map((c) => ` The path enters ${c.name} at ${num(c.distance, u.length)} ${u.length}.`).join('')}
         </desc>
         {ticks(minY, maxY, 5).map((t) => (
           <g key={`y${t}`}>
             <line x1={pad.l} x2={W - pad.r} y1={y(t)} y2={y(t)} stroke="#c7c9c3" strokeWidth="1" />
             <text x={pad.l - 6} y={y(t) + 4} textAnchor="end" fontSize="11" fill="#3d4a53">
-              {fmt(t, 0)}
+              {axisTickLabel(t, (maxY - minY) / 5)}
             </text>
           </g>
         ))}
         {ticks(0, maxX, 5).map((t) => (
           <text key={`x${t}`} x={x(t)} y={H - pad.b + 16} textAnchor="middle" fontSize="11" fill="#3d4a53">
-            {fmt(t, 0)}
+            {axisTickLabel(t, maxX / 5)}
           </text>
         ))}
         <text x={(pad.l + W - pad.r) / 2} y={H - 6} textAnchor="middle" fontSize="12" fill="#17222a">
@@ -105,7 +105,7 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
         </text>
         <line x1={pad.l} x2={W - pad.r} y1={y(ledger.required)} y2={y(ledger.required)} stroke="#9b1c1c" strokeWidth="2" strokeDasharray="8 5" />
         <text x={W - pad.r - 4} y={y(ledger.required) - 6} textAnchor="end" fontSize="11" fill="#9b1c1c">
-          minimum {fmt(ledger.required, 1)}
+          minimum {num(ledger.required, u.pressure)}
         </text>
         {crossings.map((c, i) => (
           <g key={`zone-${i}`} data-testid="zone-crossing">
@@ -145,8 +145,8 @@ export function PressureProfileChart({ analysis, ledger, fixtureLabel }: { analy
                 <th scope="row" className="pr-4 text-left font-normal">
                   {p.label}
                 </th>
-                <td className="pr-4 text-right tabular-nums">{fmt(p.distance, 1)}</td>
-                <td className="text-right tabular-nums">{fmt(p.pressure, 2)}</td>
+                <td className="pr-4 text-right tabular-nums">{num(p.distance, u.length)}</td>
+                <td className="text-right tabular-nums">{num(p.pressure, u.pressure)}</td>
               </tr>
             ))}
           </tbody>

@@ -6,9 +6,9 @@ import { checkRange, FIELD_QUANTITIES, fieldUnit } from '../../../engine';
 import type { Recirculation, RecirculationAnalysis, RecirculationSegment, SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect } from './cells';
-import { fmt } from '../lib/format';
 import { describedCell, describedField } from '../lib/described';
 import { RECIRCULATION, RECIRCULATION_SEGMENT } from '../../../engine/model/elements';
+import { num } from '../../../shared/format/quantity';
 
 type Loop = Recirculation;
 type Pipe = RecirculationSegment;
@@ -145,7 +145,7 @@ export function RecirculationSection() {
       key: 'hotTemperature',
       label: described('hotTemperature').label,
       optional: true,
-      hint: `Empty: the system's ${fmt(document.waterTemperature, 0)} ${units.temperature}.`,
+      hint: `Empty: the system's ${num(document.waterTemperature, units.temperature)} ${units.temperature}.`,
     },
     {
       key: 'fittingAllowance',
@@ -378,21 +378,20 @@ export function RecirculationResultView({ result, liveOk }: { result: Recirculat
     );
   }
   const u = result.units;
-  const flowDigits = u.flow === 'gpm' ? 2 : 3;
   return (
     <div className="flex flex-col gap-2" data-testid="recirculation-result">
       <dl className="grid max-w-prose grid-cols-[auto_1fr] gap-x-4 gap-y-1">
         <dt>Heat lost by the loop</dt>
         <dd data-testid="recirculation-heat-loss">
-          {fmt(result.heatLoss, 0)} {u.heat}
+          {num(result.heatLoss, u.heat)} {u.heat}
         </dd>
         <dt>Loop flow = pump flow</dt>
         <dd data-testid="recirculation-pump-flow" title="Q = heat loss / (ρ·c·ΔT); in US units gpm = Btu/h / (500·ΔT °F)">
-          {fmt(result.pumpFlow, flowDigits)} {u.flow}
+          {num(result.pumpFlow, u.flow, 'loop flow')} {u.flow}
         </dd>
         <dt>Pump head</dt>
         <dd data-testid="recirculation-pump-head" title="Σ pipe friction × (1 + fitting allowance) + heater loss">
-          {fmt(result.pumpHead, 2)} {u.pressure} ({fmt(result.pumpHeadLength, 1)} {u.length} of water)
+          {num(result.pumpHead, u.pressure)} {u.pressure} ({num(result.pumpHeadLength, u.length)} {u.length} of water)
         </dd>
       </dl>
       <div className="overflow-x-auto">
@@ -428,10 +427,10 @@ export function RecirculationResultView({ result, liveOk }: { result: Recirculat
                   {p.size} {p.sizeChosen ? '(chosen)' : '(given)'}
                 </td>
                 <td className="py-1 pr-3 text-right">
-                  {fmt(p.velocity, 2)} of {fmt(p.velocityLimit, 1)}
+                  {num(p.velocity, u.velocity)} of {num(p.velocityLimit, u.velocity)}
                 </td>
-                <td className="py-1 pr-3 text-right">{fmt(p.frictionLoss, 3)}</td>
-                <td className="py-1 pr-3 text-right">{fmt(p.heatLoss, 0)}</td>
+                <td className="py-1 pr-3 text-right">{num(p.frictionLoss, u.pressure)}</td>
+                <td className="py-1 pr-3 text-right">{num(p.heatLoss, u.heat)}</td>
                 <td className="py-1">{p.withinLimits ? 'within' : <strong className="text-fault">⚠ over the velocity or friction limit</strong>}</td>
               </tr>
             ))}

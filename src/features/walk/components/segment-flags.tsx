@@ -1,6 +1,6 @@
 import { memo, useMemo } from 'react';
 import { cx } from '../../../components/ui/cx';
-import { fmt } from '../lib/format';
+import { num } from '../../../shared/format/quantity';
 import { failingFixturesBelow, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
 
@@ -34,7 +34,10 @@ export function useSegmentFlags(): (segmentId: string) => SegmentFlagValues {
       missingBy.set(segId, [...(missingBy.get(segId) ?? []), r.message]);
     }
     for (const s of a.segments) {
-      const fast = s.velocityPass === false ? `${fmt(s.velocity, 1)} ${units.velocity} over the limit of ${fmt(s.velocityLimit, 1)} ${units.velocity}` : null;
+      const fast =
+        s.velocityPass === false
+          ? `${num(s.velocity, units.velocity)} ${units.velocity} over the limit of ${num(s.velocityLimit, units.velocity)} ${units.velocity}`
+          : null;
       const f = failing.get(s.id);
       const m = missingBy.get(s.id);
       if (fast || f || m)

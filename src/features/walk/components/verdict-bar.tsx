@@ -2,7 +2,7 @@ import { memo } from 'react';
 import { Link } from 'react-router-dom';
 import { VerdictMark, verdictOfStatus } from '../../systems/components/verdict-mark';
 import type { LiveAnalysis } from '../draft/live-analysis';
-import { signed } from '../lib/format';
+import { signed } from '../../../shared/format/quantity';
 import { liveStatus, plural } from '../lib/verdict';
 
 const STATUS_WORDS = { pass: 'Pass', fail: 'Fail', incomplete: 'Incomplete' } as const;
@@ -30,7 +30,7 @@ export const VerdictBar = memo(function VerdictBar({ live, resultHref }: { live:
               {critical.label}
             </span>
             <span className="ml-2 font-semibold tabular-nums" data-testid="bar-margin">
-              {signed(critical.margin, 2)} {a.units.pressure}
+              {signed(critical.margin, a.units.pressure)} {a.units.pressure}
             </span>
           </span>
         ) : (

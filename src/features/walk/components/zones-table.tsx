@@ -1,6 +1,6 @@
 import { zoneFloorsWords, zoneVerdictWords, type Analysis, type ZoneResult } from '../../../engine';
 import { VerdictMark, type Verdict } from '../../systems/components/verdict-mark';
-import { fmt, signed } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 
 /** A zone's mark: 'not-checked' shows as "not computed" (grey, dashed), never green. */
 export function zoneVerdict(z: ZoneResult): Verdict {
@@ -74,13 +74,13 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                   ) : null}
                 </td>
                 <td className="py-1 pr-3 text-right tabular-nums">
-                  {z.feed.pressure === null ? '—' : `${z.feed.setting === 'gain' ? 'gain ' : ''}${fmt(z.feed.pressure, 1)}`}
+                  {z.feed.pressure === null ? '—' : `${z.feed.setting === 'gain' ? 'gain ' : ''}${num(z.feed.pressure, u.pressure)}`}
                 </td>
                 <td className="py-1 pr-3">{zoneFloorsWords(z, u.elevation)}</td>
                 <td className="py-1 pr-3 text-right tabular-nums">
                   {z.highestResidual ? (
                     <>
-                      {fmt(z.highestResidual.pressure, 1)}
+                      {num(z.highestResidual.pressure, u.pressure)}
                       <span className="block text-xs text-ink-soft">{z.highestResidual.where}</span>
                     </>
                   ) : (
@@ -90,7 +90,7 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                 <td className="py-1 pr-3 text-right tabular-nums">
                   {z.lowestResidual ? (
                     <>
-                      {fmt(z.lowestResidual.pressure, 1)}
+                      {num(z.lowestResidual.pressure, u.pressure)}
                       <span className="block text-xs text-ink-soft">{z.lowestResidual.where}</span>
                     </>
                   ) : (
@@ -100,11 +100,11 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                 <td className="py-1 pr-3" data-testid={`zone-static-${z.index}`}>
                   {z.highestStatic ? (
                     <>
-                      <span className="tabular-nums">{fmt(z.highestStatic.pressure, 1)}</span>{' '}
+                      <span className="tabular-nums">{num(z.highestStatic.pressure, u.pressure)}</span>{' '}
                       {z.highestStatic.pass ? (
-                        `within the ${fmt(z.highestStatic.maximum, 0)} maximum`
+                        `within the ${num(z.highestStatic.maximum, u.pressure)} maximum`
                       ) : (
-                        <strong className="text-fault">over the {fmt(z.highestStatic.maximum, 0)} maximum</strong>
+                        <strong className="text-fault">over the {num(z.highestStatic.maximum, u.pressure)} maximum</strong>
                       )}
                       <span className="block text-xs text-ink-soft">{z.highestStatic.where}</span>
                     </>
@@ -115,7 +115,7 @@ export function ZonesTable({ analysis }: { analysis: Analysis }) {
                 <td className="py-1 pr-3">
                   {z.criticalFixture ? (
                     <>
-                      {z.criticalFixture.label} <span className="tabular-nums">{signed(z.criticalFixture.margin, 2)}</span>
+                      {z.criticalFixture.label} <span className="tabular-nums">{signed(z.criticalFixture.margin, u.pressure)}</span>
                     </>
                   ) : (
                     '—'

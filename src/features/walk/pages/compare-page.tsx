@@ -8,7 +8,7 @@ import { useDocumentTitle } from '../../../hooks/use-document-title';
 import { useCompareRevisions } from '../../systems/api/compare-revisions';
 import { useSystem } from '../../systems/api/get-system';
 import { fixtureVerdict, revisionVerdict, VerdictMark } from '../../systems/components/verdict-mark';
-import { signed, fmt } from '../lib/format';
+import { signed } from '../../../shared/format/quantity';
 import { walkPaths } from '../paths';
 
 /** Two revisions side by side: every checked fixture's margin in A and B and the difference; what segments changed. */
@@ -87,15 +87,15 @@ export function ComparePage() {
                     <th scope="row" className="py-1 pr-3 text-left font-normal">
                       {f.label}
                     </th>
-                    <td className="py-1 pr-3 text-right tabular-nums">{f.marginA === null ? 'not in A' : signed(f.marginA, 2)}</td>
+                    <td className="py-1 pr-3 text-right tabular-nums">{f.marginA === null ? 'not in A' : signed(f.marginA, u)}</td>
                     <td className="py-1 pr-3">
                       <VerdictMark verdict={fixtureVerdict(f.passA, data.a.verdict.status)} />
                     </td>
-                    <td className="py-1 pr-3 text-right tabular-nums">{f.marginB === null ? 'not in B' : signed(f.marginB, 2)}</td>
+                    <td className="py-1 pr-3 text-right tabular-nums">{f.marginB === null ? 'not in B' : signed(f.marginB, u)}</td>
                     <td className="py-1 pr-3">
                       <VerdictMark verdict={fixtureVerdict(f.passB, data.b.verdict.status)} />
                     </td>
-                    <td className="py-1 text-right tabular-nums">{f.delta === null ? '—' : signed(f.delta, 2)}</td>
+                    <td className="py-1 text-right tabular-nums">{f.delta === null ? '—' : signed(f.delta, u)}</td>
                   </tr>
                 ))}
               </tbody>
@@ -114,7 +114,7 @@ export function ComparePage() {
                 ))}
               </ul>
             )}
-            <p className="mt-2 text-xs text-ink-muted">{fmt(data.fixtures.length, 0)} fixture(s) compared.</p>
+            <p className="mt-2 text-xs text-ink-muted">{data.fixtures.length} fixture(s) compared.</p>
           </Section>
         </div>
       ) : null}

@@ -12,7 +12,7 @@ import {
 } from '../../systems/components/verdict-mark';
 import { liveStatus, plural } from '../lib/verdict';
 import { useWalk } from '../draft/walk-context';
-import { fmt, signed } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { fitText, screenDrawing, svgY } from '../lib/riser-screen';
 import { DEVICE_TAG_WORDS, textWidth, type DeviceTag, type DrawItem } from '../../../shared/diagram/riserLayout';
 
@@ -90,7 +90,7 @@ export function RiserDiagramPage() {
       if (item.type !== 'box' || !item.fixtureId) return [];
       const f = byId.get(item.fixtureId);
       if (!f) return [];
-      const label = fixtureLabel(item, f.margin, fixtureVerdict(f.pass, status), analysis.criticalFixtureId === f.id, area.height);
+      const label = fixtureLabel(item, f.margin, units.pressure, fixtureVerdict(f.pass, status), analysis.criticalFixtureId === f.id, area.height);
       return [label.y - textWidth(label.shown, FIXTURE_LABEL_SIZE) - 2];
     }),
   );
@@ -165,8 +165,8 @@ export function RiserDiagramPage() {
             if (!f) return [];
             const verdict = fixtureVerdict(f.pass, status);
             const critical = analysis.criticalFixtureId === f.id;
-            const full = `${f.label}: ${signed(f.margin, 1)} ${units.pressure} ${verdictText(verdict)}${critical ? ' (critical)' : ''}`;
-            const { x, y, shown } = fixtureLabel(item, f.margin, verdict, critical, area.height);
+            const full = `${f.label}: ${signed(f.margin, units.pressure)} ${units.pressure} ${verdictText(verdict)}${critical ? ' (critical)' : ''}`;
+            const { x, y, shown } = fixtureLabel(item, f.margin, units.pressure, verdict, critical, area.height);
             return [
               <g key={`f-${f.id}`} data-testid={`diagram-fixture-${f.id}`} data-verdict={verdict} color={VERDICT_COLOUR[verdict]}>
                 <title>{full}</title>
@@ -199,7 +199,8 @@ export function RiserDiagramPage() {
       <section className="riser-key flex flex-col gap-2" aria-label="Levels, devices and checked fixtures" data-testid="riser-key">
         <h3 className="text-lg">Levels, devices and checked fixtures</h3>
         <p className="text-sm" data-testid="riser-levels">
-          <span className="font-semibold">Levels:</span> {diagram.levels.map((l) => `${l.name} (el. ${fmt(l.elevation, 1)} ${diagram.lengthUnit})`).join('; ')}.
+          <span className="font-semibold">Levels:</span>{' '}
+          {diagram.levels.map((l) => `${l.name} (el. ${num(l.elevation, diagram.lengthUnit)} ${diagram.lengthUnit})`).join('; ')}.
         </p>
         <ul className="text-sm" data-testid="riser-devices">
           {diagram.devices.map((d) => (
@@ -226,11 +227,11 @@ export function RiserDiagramPage() {
                   const verdict = fixtureVerdict(f.pass, status);
                   return (
                     <li key={f.id} className="break-inside-avoid" data-testid={`key-fixture-${f.id}`}>
-                      <VerdictShape verdict={verdict} size={12} /> {f.label}: {signed(f.margin, 1)} {units.pressure} {verdictText(verdict)}
+                      <VerdictShape verdict={verdict} size={12} /> {f.label}: {signed(f.margin, units.pressure)} {units.pressure} {verdictText(verdict)}
                       {analysis.criticalFixtureId === f.id ? ' (critical)' : ''}
                       <span className="text-ink-soft">
                         {' '}
-                        · residual {fmt(f.residual, 1)} {units.pressure}
+                        · residual {num(f.residual, units.pressure)} {units.pressure}
                       </span>
                     </li>
                   );
@@ -254,6 +255,7 @@ const GLYPH_SCALE = 6 / 16;
 function fixtureLabel(
   marker: { x: number; y: number; width: number; height: number },
   margin: number,
+  pressureUnit: string,
   verdict: Verdict,
   critical: boolean,
   areaHeight: number,
@@ -261,7 +263,7 @@ function fixtureLabel(
   const x = marker.x + marker.width / 2 + 1 + FIXTURE_LABEL_SIZE * 0.8;
   // above the verdict's shape (6 pt across, centred on the marker)
   const y = areaHeight - (marker.y + marker.height / 2) - 4;
-  return { x, y, shown: `${signed(margin, 1)} ${verdictText(verdict)}${critical ? ' critical' : ''}` };
+  return { x, y, shown: `${signed(margin, pressureUnit)} ${verdictText(verdict)}${critical ? ' critical' : ''}` };
 }
 
 function DrawnItem({ item, areaHeight }: { item: DrawItem; areaHeight: number }) {

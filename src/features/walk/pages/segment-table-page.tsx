@@ -12,7 +12,7 @@ import { CellInput, CellSelect } from '../components/cells';
 import { LedgerPanel } from '../components/ledger-panel';
 import { SegmentFlags, useSegmentFlags } from '../components/segment-flags';
 import { plural } from '../lib/verdict';
-import { fmt } from '../lib/format';
+import { num } from '../../../shared/format/quantity';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { followTypedRises } from '../lib/rises';
@@ -85,6 +85,7 @@ type TableRowProps = {
   materialOptions: { value: string; label: string }[];
   sizeOptions: { value: string; label: string }[];
   lengthUnit: string;
+  units: { flow: string; velocity: string; pressure: string };
   sizeError: string | undefined;
   /** after a material or size change: copy a project material's pipe data (stable across renders) */
   onPipeChange: (index: number) => void;
@@ -140,13 +141,13 @@ const TableRow = memo(function TableRow(p: TableRowProps) {
           {...p.register(`segments.${i}.rise`, numberInput)}
         />
       </td>
-      <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.wsfu, 1)}</td>
-      <td className="py-1 pr-2 text-right tabular-nums">{fmt(p.flow, 1)}</td>
+      <td className="py-1 pr-2 text-right tabular-nums">{num(p.wsfu, 'WSFU')}</td>
+      <td className="py-1 pr-2 text-right tabular-nums">{num(p.flow, p.units.flow)}</td>
       <td className="py-1 pr-2 text-right tabular-nums">
-        {fmt(p.velocity, 2)}
+        {num(p.velocity, p.units.velocity)}
         {p.fast ? ' ▲ over' : ''}
       </td>
-      <td className="py-1 text-right tabular-nums">{p.loss === undefined ? '—' : fmt(p.loss, 3)}</td>
+      <td className="py-1 text-right tabular-nums">{p.loss === undefined ? '—' : num(p.loss, p.units.pressure)}</td>
     </tr>
   );
 });
@@ -268,17 +269,17 @@ export function SegmentTablePage() {
     for (const m of catalog.materials) {
       map.set(m.id, [
         { value: '', label: '—' },
-        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` })),
+        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${num(fromSI('diameter', z.innerDiameterM, sys), units.diameter)})` })),
       ]);
     }
     for (const m of project.of('material')) {
       map.set(projectOptionValue(m.id), [
         { value: '', label: '—' },
-        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${fmt(fromSI('diameter', z.innerDiameterM, sys), sys === 'US' ? 3 : 1)})` })),
+        ...m.data.sizes.map((z) => ({ value: z.key, label: `${z.key} (ID ${num(fromSI('diameter', z.innerDiameterM, sys), units.diameter)})` })),
       ]);
     }
     return map;
-  }, [catalog, project, sys]);
+  }, [catalog, project, sys, units.diameter]);
   const noSizes = useMemo(() => [{ value: '', label: '—' }], []);
   const sizeOptionsFor = (materialId: string) => sizeOptionsByMaterial.get(materialId) ?? noSizes;
   const unitOf: Partial<Record<SortKey, string>> = {
@@ -353,6 +354,7 @@ export function SegmentTablePage() {
                       materialOptions={materialOptions}
                       sizeOptions={sizeOptionsFor(r.material)}
                       lengthUnit={units.length}
+                      units={units}
                       sizeError={plainError(errors.segments?.[i]?.size?.message)}
                       onPipeChange={onPipeChange}
                     />

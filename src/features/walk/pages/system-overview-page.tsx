@@ -16,19 +16,22 @@ import { useSystem } from '../../systems/api/get-system';
 import { revisionVerdict, VerdictMark } from '../../systems/components/verdict-mark';
 import { plural } from '../lib/verdict';
 import { SystemFieldChanges } from '../../field-changes/components/system-field-changes';
-import { signed } from '../lib/format';
+import { signed } from '../../../shared/format/quantity';
+import { UNIT_LABELS } from '../../../engine';
 import { walkPaths } from '../paths';
 
 const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
 
-export function RevisionVerdictText({ revision }: { revision: RevisionSummary }) {
+export function RevisionVerdictText({ revision, pressureUnit }: { revision: RevisionSummary; pressureUnit: string }) {
   const v = revision.verdict;
   if (!v.ok) return <VerdictMark verdict="unknown">Not computed: {v.errorMessage}</VerdictMark>;
   return (
     <span className="flex flex-wrap items-center gap-2">
       <VerdictMark verdict={revisionVerdict(v)} />
       {v.criticalMargin !== null ? (
-        <span className="text-sm">critical margin {signed(v.criticalMargin, 2)}</span>
+        <span className="text-sm">
+          critical margin {signed(v.criticalMargin, pressureUnit)} {pressureUnit}
+        </span>
       ) : (
         <span className="text-sm text-ink-muted">no checked fixtures</span>
       )}
@@ -110,7 +113,7 @@ export function SystemOverviewPage() {
                     <Badge tone={STATUS_TONE[r.status]}>{r.status}</Badge>
                   </td>
                   <td className="py-2 pr-3">
-                    <RevisionVerdictText revision={r} />
+                    <RevisionVerdictText revision={r} pressureUnit={UNIT_LABELS[project.data.project.unitSystem].pressure} />
                   </td>
                   <td className="py-2 pr-3">
                     {r.issuedAt ? `${formatDateTime(r.issuedAt)}${r.issuedBy ? ` by ${r.issuedBy}` : ''}` : `changed ${formatDateTime(r.updatedAt)}`}

@@ -13,7 +13,7 @@ import { DeviceSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, StepIntro } from '../components/cells';
 import { parseCurvePoints } from '../lib/csv';
-import { fmt } from '../lib/format';
+import { withUnit } from '../../../shared/format/quantity';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { describedCell, describedField } from '../lib/described';
@@ -475,7 +475,7 @@ export function DevicesStep() {
               ) : null}
               <p className="mt-3 text-sm" data-testid={`device-loss-${i}`}>
                 {result
-                  ? `Loss at the design flow: ${fmt(result.loss, 2)} ${units.pressure}${result.extrapolated ? ' — beyond the curve, extrapolated' : ''}.`
+                  ? `Loss at the design flow: ${withUnit(result.loss, units.pressure)}${result.extrapolated ? ' — beyond the curve, extrapolated' : ''}.`
                   : 'The loss at the design flow appears once the system can be computed.'}
               </p>
             </Section>

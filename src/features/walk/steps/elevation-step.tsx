@@ -7,7 +7,7 @@ import { NodeSchema, SegmentSchema } from '../../../engine/model/schema';
 import { useWalk } from '../draft/walk-context';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { WarningList } from '../components/warning-list';
-import { fmt } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { numberInput, plainError } from '../lib/form-values';
 import { treeOrder } from '../lib/tree';
 import { elevationsFromFloors, floorLevels, floorOf, planProblems, type FloorPlan } from '../lib/floors';
@@ -166,7 +166,9 @@ export function ElevationStep() {
   const connectionElevation = numberOf(planText.connection);
   const floorOptions = [
     { value: '', label: '—' },
-    ...(problems.length ? [] : floorLevels(plan).map((lv, k) => ({ value: String(k + 1), label: `${k + 1}${k === 0 ? ' (ground)' : ''} at ${fmt(lv, 2)}` }))),
+    ...(problems.length
+      ? []
+      : floorLevels(plan).map((lv, k) => ({ value: String(k + 1), label: `${k + 1}${k === 0 ? ' (ground)' : ''} at ${num(lv, units.elevation)}` }))),
   ];
   const planField = (key: keyof PlanText) => ({
     value: planText[key],
@@ -347,13 +349,13 @@ export function ElevationStep() {
                         {...register(`segments.${i}.rise`, numberInput)}
                       />
                     </td>
-                    <td className="py-1 pr-2 text-right tabular-nums">{fmt(d, 2)}</td>
+                    <td className="py-1 pr-2 text-right tabular-nums">{num(d, units.length)}</td>
                     <td className="py-1">
                       {!given
                         ? 'No rise entered: the elevations are used'
                         : agrees
                           ? '✓ Agrees'
-                          : `✗ Differs by ${fmt(r - d, 2)} ${units.length}: the elevations are used`}
+                          : `✗ Differs by ${signed(r - d, units.length)} ${units.length}: the elevations are used`}
                     </td>
                   </tr>
                 );

@@ -29,7 +29,7 @@ import { fittingWithProjectData, projectOptions as projectOptionsOf } from '../.
 import type { ProjectEntryOf } from '../../../shared/api/catalog';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
-import { fmt } from '../lib/format';
+import { num, withUnit } from '../../../shared/format/quantity';
 import { numberInput } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { describedCell, describedField } from '../lib/described';
@@ -228,14 +228,14 @@ function SegmentFittings({
                   />
                 </td>
                 <td className="py-1 pr-2 text-right tabular-nums" data-testid={`k-${id}-${k}`}>
-                  {kr ? fmt(kr.K, 3) : '—'}
+                  {kr ? num(kr.K, 'loss coefficient') : '—'}
                   {kr?.fellBackFrom ? (
                     <span className="block text-xs text-caution">
                       no {kr.fellBackFrom} data: {kr.method} used
                     </span>
                   ) : null}
                 </td>
-                <td className="py-1 pr-2 text-right tabular-nums">{loss === null ? '—' : fmt(loss, 3)}</td>
+                <td className="py-1 pr-2 text-right tabular-nums">{loss === null ? '—' : num(loss, units.pressure)}</td>
                 <td className="py-1">
                   <Button variant="quiet" onClick={() => list.remove(k)} aria-label={`Remove fitting ${k + 1} of ${name}`}>
                     Remove
@@ -274,9 +274,9 @@ function SegmentFittings({
       <p className="mt-2 text-sm" data-testid={`fitting-loss-${id}`}>
         {display ? (
           <>
-            Σ K = {fmt(display.fittingsK, 2)}
-            {display.sizeChangeK > 0 ? ` + size change ${fmt(display.sizeChangeK, 2)}` : ''} · loss in fittings {fmt(display.fittingLoss, 3)} {units.pressure}{' '}
-            at {fmt(display.velocity, 2)} {analysis?.units.velocity}
+            Σ K = {num(display.fittingsK, 'loss coefficient')}
+            {display.sizeChangeK > 0 ? ` + size change ${num(display.sizeChangeK, 'loss coefficient')}` : ''} · loss in fittings{' '}
+            {num(display.fittingLoss, units.pressure)} {units.pressure} at {analysis ? withUnit(display.velocity, analysis.units.velocity) : null}
           </>
         ) : (
           'Losses appear once the system can be computed.'

@@ -14,7 +14,7 @@ import { useWalk } from '../draft/walk-context';
 import { unusableProjectOptions } from '../../catalog/lib/apply-entries';
 import { useProjectEntries } from '../../catalog/api/get-project-catalog';
 import { CellInput, CellSelect, StepIntro } from '../components/cells';
-import { fmt, signed } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { describedCell, describedField } from '../lib/described';
@@ -107,12 +107,12 @@ function NodeFixtures({
                   type="text"
                   inputMode="decimal"
                   autoComplete="off"
-                  placeholder={catalogMin === undefined ? '' : `catalog: ${fmt(catalogMin, 1)}`}
+                  placeholder={catalogMin === undefined ? '' : `catalog: ${num(catalogMin, units.pressure)}`}
                   error={plainError(err?.minFlowPressure?.message)}
                   {...register(`nodes.${index}.checkedFixtures.${k}.minFlowPressure`, numberInput)}
                 />
                 <span className="font-normal text-ink-muted">
-                  Empty = the catalog’s {catalogMin === undefined ? '—' : `${fmt(catalogMin, 1)} ${units.pressure}`}
+                  Empty = the catalog’s {catalogMin === undefined ? '—' : `${num(catalogMin, units.pressure)} ${units.pressure}`}
                   {type ? ` (${type.source})` : ''}
                 </span>
               </label>
@@ -125,10 +125,10 @@ function NodeFixtures({
               {result ? (
                 <>
                   <span>
-                    Residual {fmt(result.residual, 2)} {units.pressure}
+                    Residual {num(result.residual, units.pressure)} {units.pressure}
                   </span>
-                  <span>needs {fmt(result.required, 2)}</span>
-                  <span>margin {signed(result.margin, 2)}</span>
+                  <span>needs {num(result.required, units.pressure)}</span>
+                  <span>margin {signed(result.margin, units.pressure)}</span>
                   <VerdictMark verdict={fixtureVerdict(result.pass, analysis ? verdictStatus(analysis) : null)} />
                   {critical ? <strong data-testid="critical-marker">◆ Critical: the smallest margin</strong> : null}
                 </>
@@ -201,7 +201,7 @@ export function FixturesStep() {
         {critical ? (
           <p data-testid="critical-summary">
             Critical fixture: <strong>{critical.label}</strong> at {document.nodes.find((n) => n.id === critical.nodeId)?.label || critical.nodeId}, margin{' '}
-            {signed(critical.margin, 2)} {units.pressure}.
+            {signed(critical.margin, units.pressure)} {units.pressure}.
           </p>
         ) : null}
         {unexpected ? (

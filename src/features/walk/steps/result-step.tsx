@@ -24,7 +24,7 @@ import { criticalLedger, LedgerTable } from '../components/ledger-panel';
 import { PressureProfileChart } from '../components/pressure-profile';
 import { WarningList } from '../components/warning-list';
 import { CAUTIONS } from '../cautions';
-import { fmt, signed } from '../lib/format';
+import { num, signed } from '../../../shared/format/quantity';
 import { SizingPanel } from '../../sizing/components/sizing-panel';
 import { ZonesTable } from '../components/zones-table';
 import { ExpansionTankSection } from '../components/expansion-tank-section';
@@ -261,10 +261,10 @@ export function ResultStep() {
                         {f.id === a.criticalFixtureId ? <strong className="ml-2">◆ critical</strong> : null}
                       </th>
                       <td className="py-1 pr-3">{nodeName.get(f.nodeId)}</td>
-                      <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.residual, 2)}</td>
-                      <td className="py-1 pr-3 text-right tabular-nums">{fmt(f.required, 2)}</td>
+                      <td className="py-1 pr-3 text-right tabular-nums">{num(f.residual, units.pressure)}</td>
+                      <td className="py-1 pr-3 text-right tabular-nums">{num(f.required, units.pressure)}</td>
                       <td className="py-1 pr-3 text-right tabular-nums" data-testid={`margin-${f.id}`}>
-                        {signed(f.margin, 2)}
+                        {signed(f.margin, units.pressure)}
                       </td>
                       <td className="py-1">
                         <VerdictMark verdict={fixtureVerdict(f.pass, status)} />
@@ -293,14 +293,14 @@ export function ResultStep() {
           <p data-testid="velocity-check">
             <VerdictMark verdict={fixtureVerdict(a.verdict.allVelocitiesPass, status)}>Velocity</VerdictMark>{' '}
             {fastSegments.length === 0
-              ? `Every segment is within its velocity limit (highest ${fmt(Math.max(0, ...a.segments.map((s) => s.velocity)), 2)} ${units.velocity}).`
-              : `${plural(fastSegments.length, 'segment')} ${fastSegments.length === 1 ? 'is' : 'are'} above the limit: ${fastSegments.map((s) => `${s.label ?? s.id} ${fmt(s.velocity, 2)} > ${fmt(s.velocityLimit, 2)} ${units.velocity}`).join('; ')}.`}
+              ? `Every segment is within its velocity limit (highest ${num(Math.max(0, ...a.segments.map((s) => s.velocity)), units.velocity)} ${units.velocity}).`
+              : `${plural(fastSegments.length, 'segment')} ${fastSegments.length === 1 ? 'is' : 'are'} above the limit: ${fastSegments.map((s) => `${s.label ?? s.id} ${num(s.velocity, units.velocity)} > ${num(s.velocityLimit, units.velocity)} ${units.velocity}`).join('; ')}.`}
           </p>
           <p data-testid="static-check">
             <VerdictMark verdict={fixtureVerdict(a.verdict.allStaticPass, status)}>Static pressure</VerdictMark>{' '}
             {overStatic.length === 0
-              ? `The highest static pressure at a node serving fixtures is ${fmt(Math.max(0, ...staticNodes.map((n) => n.staticPressureHigh)), 1)} ${units.pressure}, within the maximum of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}.`
-              : `${plural(overStatic.length, 'node')} ${overStatic.length === 1 ? 'is' : 'are'} above the maximum static pressure of ${fmt(a.criteria.maxStaticPressure, 1)} ${units.pressure}: ${overStatic.map((n) => `${n.label ?? n.id} ${fmt(n.staticPressureHigh, 1)}`).join('; ')}. A pressure-reducing valve is likely needed.`}
+              ? `The highest static pressure at a node serving fixtures is ${num(Math.max(0, ...staticNodes.map((n) => n.staticPressureHigh)), units.pressure)} ${units.pressure}, within the maximum of ${num(a.criteria.maxStaticPressure, units.pressure)} ${units.pressure}.`
+              : `${plural(overStatic.length, 'node')} ${overStatic.length === 1 ? 'is' : 'are'} above the maximum static pressure of ${num(a.criteria.maxStaticPressure, units.pressure)} ${units.pressure}: ${overStatic.map((n) => `${n.label ?? n.id} ${num(n.staticPressureHigh, units.pressure)}`).join('; ')}. A pressure-reducing valve is likely needed.`}
           </p>
           <p className="text-ink-soft">
             Methods: {a.methods.friction.label}; fittings {a.methods.fittings.label}; demand {a.methods.demand.label}.

@@ -31,7 +31,7 @@ import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { useSegmentFlags } from '../components/segment-flags';
 import { plural } from '../lib/verdict';
 import { parseFixtureGroups } from '../lib/csv';
-import { fmt } from '../lib/format';
+import { num } from '../../../shared/format/quantity';
 import { freshId, numberInput, plainError } from '../lib/form-values';
 import { followTypedRises } from '../lib/rises';
 import { useLiveForm } from '../lib/use-live-form';
@@ -684,8 +684,8 @@ function SegmentDetail(p: DetailProps) {
       <p className="text-sm" data-testid={`segment-demand-${s.id}`}>
         {p.result ? (
           <>
-            <span className="font-semibold">{fmt(p.result.wsfu, 1)} WSFU</span> → {fmt(p.result.designFlow, 1)} {p.units.flow}, {fmt(p.result.velocity, 1)}{' '}
-            {p.units.velocity}
+            <span className="font-semibold">{num(p.result.wsfu, 'WSFU')} WSFU</span> → {num(p.result.designFlow, p.units.flow)} {p.units.flow},{' '}
+            {num(p.result.velocity, p.units.velocity)} {p.units.velocity}
           </>
         ) : (
           <span className="text-ink-muted">

@@ -6,7 +6,7 @@ import { FlowTestSchema, NodeSchema, SourceSchema, SystemDocumentSchema } from '
 import type { SystemDocument } from '../../../engine';
 import { useWalk } from '../draft/walk-context';
 import { StepIntro } from '../components/cells';
-import { fmt } from '../lib/format';
+import { num } from '../../../shared/format/quantity';
 import { numberInput, plainError } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
 import { FedFromSection } from '../components/fed-from-section';
@@ -132,8 +132,9 @@ export function SupplyStep() {
             />
             {fed ? (
               <p className="text-sm text-ink-soft md:col-span-2" data-testid="fed-pressures-note">
-                The static pressures and their basis are read from the cold system (above), not typed: low {fmt(document.source.staticPressureLow, 2)}{' '}
-                {units.pressure}, high {fmt(document.source.staticPressureHigh, 2)} {units.pressure}.
+                The static pressures and their basis are read from the cold system (above), not typed: low{' '}
+                {num(document.source.staticPressureLow, units.pressure)} {units.pressure}, high {num(document.source.staticPressureHigh, units.pressure)}{' '}
+                {units.pressure}.
               </p>
             ) : (
               <>
@@ -208,11 +209,11 @@ export function SupplyStep() {
               <p>
                 Design flow at the source:{' '}
                 <strong>
-                  {fmt(source.designFlow, 1)} {units.flow}
+                  {num(source.designFlow, units.flow)} {units.flow}
                 </strong>
                 . Pressure at the design flow:{' '}
                 <strong>
-                  {fmt(source.pressureAtDesignFlow, 2)} {units.pressure}
+                  {num(source.pressureAtDesignFlow, units.pressure)} {units.pressure}
                 </strong>{' '}
                 ({source.pressureBasis === 'flow-test' ? 'from the flow test' : 'the low static pressure, no flow test'}).
               </p>
