@@ -41,7 +41,11 @@ describe('the tree editor’s column headers read the segment’s description', 
       await renderWalk(world, stepHref(world, 'risers'));
       const grid = await screen.findByTestId('tree-editor', {}, LOADED);
       const headers = [...grid.querySelectorAll('[role="columnheader"]')];
-      const headerText = (h: Element) => [...h.childNodes].filter((n) => !(n instanceof HTMLElement && n.hidden)).map((n) => n.textContent).join('');
+      const headerText = (h: Element) =>
+        [...h.childNodes]
+          .filter((n) => !(n instanceof HTMLElement && n.hidden))
+          .map((n) => n.textContent)
+          .join('');
       const first = treeRows(doc)[0];
       for (const column of DESCRIBED_COLUMNS) {
         const key = columnKey(column);

@@ -69,7 +69,11 @@ describe('a PEX segment still carrying metal fittings', () => {
     const choice = within(panel).getByRole<HTMLSelectElement>('combobox', { name: 's1: PEX fitting line' });
     expect([...choice.options].map((o) => o.value)).toEqual(['press-bronze', 'press-polymer']);
     const missing = within(panel).getByRole('list', { name: 'PEX fitting lines not offered for s1' });
-    expect(within(missing).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+    expect(
+      within(missing)
+        .getAllByRole('listitem')
+        .map((li) => li.textContent),
+    ).toEqual([
       `${line('insert-brass').label}: no published data at 1-1/4 in (published 1/2–1 in)`,
       `${line('insert-polymer').label}: no published data at 1-1/4 in (published 1/2–1 in)`,
     ]);

@@ -496,7 +496,8 @@ export function TreeEditor(props: TreeEditorProps) {
   // the help of each editing column, held once in its header and read out with each of its cells
   const helpPrefix = useId();
   const helpIds = useMemo(
-    () => Object.fromEntries(DESCRIBED_COLUMNS.filter((c) => names[c].hint).map((c) => [c, `${helpPrefix}-help-${c}`])) as Partial<Record<DescribedColumn, string>>,
+    () =>
+      Object.fromEntries(DESCRIBED_COLUMNS.filter((c) => names[c].hint).map((c) => [c, `${helpPrefix}-help-${c}`])) as Partial<Record<DescribedColumn, string>>,
     [names, helpPrefix],
   );
   const grid = columns.map((c) => c.width).join(' ');

@@ -160,7 +160,13 @@ function SegmentFittings({
   const projectOptions = projectOptionsOf(projectFittings);
   const metalRows = isPex ? (rows ?? []).flatMap((r, k) => (r && !r.custom && isMetalPipeFitting(r.typeId) ? [k] : [])) : [];
   const size = segment?.size ?? '';
-  const pexLines = metalRows.length > 0 ? pexLinesAtSize(metalRows.map((k) => rows![k].typeId), size) : [];
+  const pexLines =
+    metalRows.length > 0
+      ? pexLinesAtSize(
+          metalRows.map((k) => rows![k].typeId),
+          size,
+        )
+      : [];
   // Copper kept, soldered → another line (push-fit): offered where the line publishes one of this segment's fittings at its size.
   const copperLines = segment?.material?.startsWith('copper-')
     ? COPPER_LINES.filter((l) => (rows ?? []).some((r) => r && !r.custom && copperFittingFor(r.typeId, l.id, size) !== undefined))
