@@ -18,6 +18,7 @@ import {
   DEVICE_LOSS_FIXED,
   EXPANSION_TANK,
   FITTING,
+  FIXTURE_GROUP,
   FLOW_TEST,
   NODE,
   PRV,
@@ -32,7 +33,10 @@ import { field, renderWalk, stepHref } from './support/render-walk';
 
 const LOADED = { timeout: 10_000 };
 
-/** What a row shows for a described key: "<label>[ <after>] (<unit>)", or "<row> <label in a sentence> (<unit>)" in a repeated row. */
+/**
+ * What a row shows for a described key: "<label>[ <after>] (<unit>)", or "<row> <short name or label in a
+ * sentence> (<unit>)" in a repeated row.
+ */
 function expected<E extends AnyElement>(
   element: E,
   key: keyof z.output<E['schema']> & string,
@@ -40,7 +44,7 @@ function expected<E extends AnyElement>(
   naming: { row?: string; after?: string } = {},
 ): { label: string; help: string | undefined } {
   const d = element.keys[key];
-  const name = naming.row ? `${naming.row} ${inSentence(d.label)}` : naming.after ? `${d.label} ${naming.after}` : d.label;
+  const name = naming.row ? `${naming.row} ${inSentence(d.short ?? d.label)}` : naming.after ? `${d.label} ${naming.after}` : d.label;
   const unit = d.range ? fieldUnit(d.range, sys) : '';
   return { label: unit ? `${name} (${unit})` : name, help: d.help };
 }
@@ -107,12 +111,38 @@ describe('the walk’s rows read their labels, units and help from the document�
     const node = doc.nodes.find((n) => n.checkedFixtures.length > 0)!;
     const row = `${node.label || node.id}: checked fixture 1`;
     expectDescribed(expected(CHECKED_FIXTURE, 'label', sys, { row }));
+    expectDescribed(expected(CHECKED_FIXTURE, 'fixtureTypeId', sys, { row }));
+    // the type picker keeps its short name inside the row's ("…: checked fixture 1 type", not "… fixture type")
+    expect(field(`${row} type`)).toBeTruthy();
     expectDescribed(expected(CHECKED_FIXTURE, 'minFlowPressure', sys, { row }));
 
     await router.navigate(stepHref(world, 'fittings'));
     await screen.findByTestId('step-fittings', {}, LOADED);
     const segment = doc.segments.find((s) => s.fittings.length > 0)!;
     expectDescribed(expected(FITTING, 'count', sys, { row: `${segment.label || segment.id}: fitting 1` }));
+    expectDescribed(expected(FITTING, 'typeId', sys, { row: `${segment.label || segment.id}: fitting 1` }));
+    expect(field(`${segment.label || segment.id}: fitting 1 type`)).toBeTruthy();
+    // the fittings table's column headers are the same keys' short names
+    const table = screen.getByTestId(`fittings-${segment.id}`).parentElement!;
+    const headers = [...table.querySelectorAll('th')].map((th) => th.textContent);
+    expect(headers).toEqual(expect.arrayContaining([FITTING.keys.typeId.short, FITTING.keys.count.label]));
+    expect(world.unknown).toEqual([]);
+  }, 120_000);
+
+  it('when a segment whose end serves fixture groups is opened in the pipe step, then its group rows are named with the row and the description’s short names', async () => {
+    const doc = demoDocument();
+    const sys = doc.unitSystem;
+    const world = fakeApi();
+    const { user } = await renderWalk(world, stepHref(world, 'risers'));
+    await screen.findByTestId('step-risers', {}, LOADED);
+    const segment = doc.segments.find((s) => doc.nodes.find((n) => n.id === s.to)!.fixtureGroups.length > 0)!;
+    const node = doc.nodes.find((n) => n.id === segment.to)!;
+    await user.click(screen.getByRole('button', { name: `Open ${segment.label || segment.id}` }));
+    const row = `${node.label || node.id}: fixture group 1`;
+    await screen.findByTestId(`node-fields-${node.id}`, {}, LOADED);
+    expectDescribed(expected(FIXTURE_GROUP, 'fixtureTypeId', sys, { row }));
+    expectDescribed(expected(FIXTURE_GROUP, 'count', sys, { row }));
+    expect(field(`${row} type`)).toBeTruthy();
     expect(world.unknown).toEqual([]);
   }, 120_000);
 

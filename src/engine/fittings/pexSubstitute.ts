@@ -26,9 +26,9 @@ const JOB_OF_METAL: Readonly<Record<string, FittingJob>> = {
 
 const has = (o: object, key: string): boolean => Object.prototype.hasOwnProperty.call(o, key);
 
-/** The PEX lines, for a choice list: id stem and label. */
-export const PEX_LINES: readonly { id: PexFittingLine; label: string }[] = Object.freeze(
-  Object.entries(PEX_FITTING_LINES).map(([id, line]) => ({ id, label: line.label })),
+/** The PEX lines, for a choice list: id stem, label and the sizes published ("1/2–1 in"). */
+export const PEX_LINES: readonly { id: PexFittingLine; label: string; sizes: string }[] = Object.freeze(
+  Object.entries(PEX_FITTING_LINES).map(([id, line]) => ({ id, label: line.label, sizes: line.sizes })),
 );
 
 /** The lines a copper segment may change to, keeping its tube: id stem and label (with the sizes published). */

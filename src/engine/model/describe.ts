@@ -15,7 +15,8 @@
  *   - `changedBy`: 'designer' (only the designer of a draft) or 'field-change' (a contractor's field
  *     change may change it too);
  *   - `editor`: the tree editor's columns that write the key;
- *   - `label` (a short name for screens) and `help` (the schema's description text).
+ *   - `label` (a short name for screens), `short` (its name inside a table of the element's rows)
+ *     and `help` (the schema's description text).
  *
  * Each element also gets a reader here, built once at module load from the same list (closures): it
  * either returns exactly what zod returns for the element, or declines (throws DECLINED). It is the
@@ -287,13 +288,20 @@ export type Presence = 'required' | 'optional' | 'default';
 export interface KeyMeta {
   /** Short name for screens ("Developed length"). */
   label: string;
+  /**
+   * The name where the element is already named: a table column's header over the element's rows
+   * ("Length" over segments), and after a row's name in a cell's accessible name ("Level 3: fixture
+   * group 1" + "type"). Without it, `label` serves both.
+   */
+  short?: string;
   /** The schema's description text (JSON Schema `description`); omitted where the key name says it all. */
   help?: string;
   /** Plausible range of a number (limits.ts); with it, its unit. */
   range?: LimitQuantity;
   /** Who may change it: the designer only (the default), or a contractor's field change too. */
   changedBy?: ChangedBy;
-  /** The tree editor's columns that write this key (src/features/tree-editor/policy.ts). */
+  /** The tree editor's columns that write this key (src/features/tree-editor/policy.ts); the column
+   * whose only writer this key is takes its header from it (tree-editor/columns.ts). */
   editor?: readonly string[];
 }
 

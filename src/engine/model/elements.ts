@@ -65,7 +65,8 @@ export const CUSTOM_FITTING = value.union([CUSTOM_FITTING_K, CUSTOM_FITTING_EQUI
 export const FITTING = element('fitting', {
   typeId: required(id(), {
     label: 'Fitting type',
-    help: 'Fitting type id from the fittings catalog; with `custom`, a reference to where the data came from (e.g. "project:<entry id>"), not looked up.',
+    short: 'Type',
+    help: 'The fitting’s type in the fittings catalog; a fitting with project data (`custom`) names where that data came from instead (e.g. "project:<entry id>"), not looked up.',
   }),
   count: required(value.count(), { label: 'Count', range: 'fittingCount' }),
   custom: optional(CUSTOM_FITTING, {
@@ -100,6 +101,7 @@ export const SEGMENT = element('segment', {
   }),
   length: required(value.positive(), {
     label: 'Developed length',
+    short: 'Length',
     help: 'Developed length of pipe, length unit.',
     range: 'length',
     changedBy: 'field-change',
@@ -155,7 +157,8 @@ export const FIXTURE_USAGE = element('fixture usage', {
 export const FIXTURE_GROUP = element('fixture group', {
   fixtureTypeId: required(id(), {
     label: 'Fixture type',
-    help: 'Fixture type id from the fixtures catalog; with `custom`, any reference (e.g. "project:<entry id>"), looked up only as a fallback.',
+    short: 'Type',
+    help: 'The fixture type in the fixtures catalog; a group with project data (`custom`) may name any reference instead (e.g. "project:<entry id>"), looked up only as a fallback.',
   }),
   count: required(value.count(), { label: 'Count', range: 'fixtureCount' }),
   custom: optional(value.element(CUSTOM_FIXTURE), { label: 'Project data', help: "The fixture type's own data, overriding the catalog's." }),
@@ -169,7 +172,7 @@ export const FIXTURE_GROUP = element('fixture group', {
 
 export const CHECKED_FIXTURE = element('checked fixture', {
   id: required(id(), { label: 'Fixture id' }),
-  fixtureTypeId: required(id(), { label: 'Fixture type' }),
+  fixtureTypeId: required(id(), { label: 'Fixture type', short: 'Type' }),
   label: optional(value.text(B.labelLength), { label: 'Name' }),
   minFlowPressure: optional(value.nonNegative(), {
     label: 'Minimum flow pressure',

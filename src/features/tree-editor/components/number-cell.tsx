@@ -24,6 +24,8 @@ export const NumberCell = memo(function NumberCell(p: {
   optional: boolean;
   /** why the cell may not be changed, or null */
   locked: string | null;
+  /** the id of the element holding the column's help */
+  describedBy?: string;
   cellKey: string;
   col: number;
   row: number;
@@ -64,6 +66,7 @@ export const NumberCell = memo(function NumberCell(p: {
     <div className="relative flex flex-col">
       <input
         aria-label={p.label}
+        aria-describedby={p.describedBy}
         type="text"
         inputMode="decimal"
         autoComplete="off"

@@ -16,6 +16,7 @@ import type { TreeLine, TreeRow } from '../model';
 import type { EditPolicy } from '../policy';
 import { NumberCell, shownNumber } from './number-cell';
 import { BulkBar } from './bulk-bar';
+import { columnNames, DESCRIBED_COLUMNS, type ColumnNames, type DescribedColumn } from '../columns';
 
 /** Above this many segments the rows are virtualised (only those near the window are in the page). */
 export const VIRTUALISE_AT = 150;
@@ -63,18 +64,21 @@ const STICKY_NAME = 'sticky left-0 z-10 bg-inherit';
 const CELL =
   'w-full min-w-0 rounded border-2 border-rule-strong bg-surface px-1.5 py-0.5 text-sm text-ink aria-[invalid=true]:border-fault disabled:bg-paper-deep';
 
-/** The columns, in order: their header, width and whether the keyboard stops at them. */
-function columnsOf(hasFloors: boolean, units: (typeof UNIT_LABELS)[UnitSystem]) {
+/**
+ * The columns, in order: their header, width and whether the keyboard stops at them. The editing
+ * columns are named by the segment's description (columns.ts); the others show results.
+ */
+function columnsOf(hasFloors: boolean, units: (typeof UNIT_LABELS)[UnitSystem], names: Record<DescribedColumn, ColumnNames>) {
   return [
     { key: 'select', header: <span className="sr-only">Selected</span>, width: '1.75rem' },
-    { key: 'name', header: 'Segment', width: 'minmax(11rem,1.4fr)' },
+    { key: 'name', header: names.name.header, width: 'minmax(11rem,1.4fr)' },
     { key: 'ends', header: 'From → to', width: 'minmax(9rem,1fr)' },
-    { key: 'material', header: 'Material', width: '9.5rem' },
-    { key: 'size', header: 'Size', width: '8.5rem' },
-    { key: 'length', header: `Length (${units.length})`, width: '5.5rem' },
-    { key: 'rise', header: `Rise (${units.length})`, width: '5.5rem' },
+    { key: 'material', header: names.material.header, width: '9.5rem' },
+    { key: 'size', header: names.size.header, width: '8.5rem' },
+    { key: 'length', header: names.length.header, width: '5.5rem' },
+    { key: 'rise', header: names.rise.header, width: '5.5rem' },
     ...(hasFloors ? [{ key: 'floor', header: 'Floor', width: '5rem' }] : []),
-    { key: 'fittings', header: 'Fittings', width: 'minmax(8rem,1fr)' },
+    { key: 'fittings', header: names.fittings.header, width: 'minmax(8rem,1fr)' },
     { key: 'flow', header: `Flow (${units.flow})`, width: '5rem' },
     { key: 'velocity', header: `Velocity (${units.velocity})`, width: '5.5rem' },
     { key: 'loss', header: `Loss (${units.pressure})`, width: '6rem' },
@@ -124,7 +128,10 @@ interface RowProps {
   lockSize: string | null;
   lockLength: string | null;
   system: UnitSystem;
-  lengthUnit: string;
+  /** the editing columns' names (the same object while the unit system stays) */
+  names: Record<DescribedColumn, ColumnNames>;
+  /** the element holding each editing column's help, by column (its cells' aria-describedby) */
+  helpIds: Readonly<Partial<Record<DescribedColumn, string>>>;
   detail: ReactNode;
   onRowClick: (id: string, ev: MouseEvent) => void;
   onToggleSelect: (id: string) => void;
@@ -185,6 +192,8 @@ function ChoiceCell(p: {
   value: string;
   options: Options;
   locked: string | null;
+  /** the id of the column's help */
+  describedBy?: string;
   col: number;
   row: number;
   onChoose: (value: string) => void;
@@ -194,6 +203,7 @@ function ChoiceCell(p: {
       {p.live ? (
         <select
           aria-label={p.label}
+          aria-describedby={p.describedBy}
           className={CELL}
           value={p.value}
           disabled={p.locked !== null}
@@ -319,7 +329,8 @@ const Row = memo(function Row(p: RowProps) {
         </Cell>
         <ChoiceCell
           live={live}
-          label={`${p.name} material`}
+          label={p.names.material.cell(p.name)}
+          describedBy={p.helpIds.material}
           value={p.materialValue}
           options={p.materialOptions}
           locked={p.lockMaterial}
@@ -329,7 +340,8 @@ const Row = memo(function Row(p: RowProps) {
         />
         <ChoiceCell
           live={live}
-          label={`${p.name} size`}
+          label={p.names.size.cell(p.name)}
+          describedBy={p.helpIds.size}
           value={p.size}
           options={p.sizeOptions}
           locked={p.lockSize}
@@ -340,7 +352,8 @@ const Row = memo(function Row(p: RowProps) {
         <Cell>
           {live ? (
             <NumberCell
-              label={`${p.name} length (${p.lengthUnit})`}
+              label={p.names.length.cell(p.name)}
+              describedBy={p.helpIds.length}
               value={p.length}
               kind="length"
               system={p.system}
@@ -359,7 +372,8 @@ const Row = memo(function Row(p: RowProps) {
         <Cell>
           {live ? (
             <NumberCell
-              label={`${p.name} rise (${p.lengthUnit})`}
+              label={p.names.rise.cell(p.name)}
+              describedBy={p.helpIds.rise}
               value={p.rise}
               kind="rise"
               system={p.system}
@@ -477,7 +491,15 @@ export function TreeEditor(props: TreeEditorProps) {
   const sys = doc.unitSystem;
   const units = UNIT_LABELS[sys];
   const hasFloors = (doc.floors ?? []).length > 0;
-  const columns = columnsOf(hasFloors, units);
+  const names = useMemo(() => columnNames(sys), [sys]);
+  const columns = columnsOf(hasFloors, units, names);
+  // the help of each editing column, held once in its header and read out with each of its cells
+  const helpPrefix = useId();
+  const helpIds = useMemo(
+    () =>
+      Object.fromEntries(DESCRIBED_COLUMNS.filter((c) => names[c].hint).map((c) => [c, `${helpPrefix}-help-${c}`])) as Partial<Record<DescribedColumn, string>>,
+    [names, helpPrefix],
+  );
   const grid = columns.map((c) => c.width).join(' ');
   const rows = useMemo(() => treeRows(doc), [doc]);
   const [collapsed, setCollapsed] = useState<ReadonlySet<string>>(() => new Set());
@@ -893,7 +915,8 @@ export function TreeEditor(props: TreeEditorProps) {
         lockSize={policy.locked.size}
         lockLength={lengthLock}
         system={sys}
-        lengthUnit={units.length}
+        names={names}
+        helpIds={helpIds}
         detail={active === r.id ? activeDetail : null}
         onRowClick={onRowClick}
         onToggleSelect={onToggleSelect}
@@ -975,15 +998,24 @@ export function TreeEditor(props: TreeEditorProps) {
             className="sticky top-0 z-20 grid gap-x-2 border-b-2 border-rule bg-surface py-1 text-left text-xs font-semibold"
             style={{ gridTemplateColumns: grid }}
           >
-            {columns.map((c, i) => (
-              <div
-                role="columnheader"
-                key={c.key}
-                className={cx(['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : '', i === 1 ? STICKY_NAME : '', 'bg-surface')}
-              >
-                {c.header}
-              </div>
-            ))}
+            {columns.map((c, i) => {
+              const help = c.key in names ? names[c.key as DescribedColumn].hint : undefined;
+              return (
+                <div
+                  role="columnheader"
+                  key={c.key}
+                  title={help}
+                  className={cx(['flow', 'velocity', 'loss'].includes(c.key) ? 'text-right' : '', i === 1 ? STICKY_NAME : '', 'bg-surface')}
+                >
+                  {c.header}
+                  {help ? (
+                    <span id={helpIds[c.key as DescribedColumn]} hidden>
+                      {help}
+                    </span>
+                  ) : null}
+                </div>
+              );
+            })}
           </div>
           {virtual ? (
             <div style={{ height: virtualizer.getTotalSize(), position: 'relative' }}>

@@ -15,11 +15,17 @@ export interface DescribedField {
 
 type KeyOf<E extends AnyElement> = keyof z.output<E['schema']> & string;
 
-function describe<E extends AnyElement>(element: E, key: KeyOf<E>, unitSystem: UnitSystem, name: (label: string) => string): DescribedField {
+function describe<E extends AnyElement>(
+  element: E,
+  key: KeyOf<E>,
+  unitSystem: UnitSystem,
+  name: (label: string) => string,
+  form: 'label' | 'short' = 'label',
+): DescribedField {
   const described = element.keys[key];
   if (!described) throw new Error(`${element.name} has no key "${key}"`);
   const unit = described.range ? fieldUnit(described.range, unitSystem) : '';
-  const label = name(described.label);
+  const label = name(form === 'short' ? (described.short ?? described.label) : described.label);
   return { label: unit === '' ? label : `${label} (${unit})`, ...(described.help ? { hint: described.help } : {}) };
 }
 
@@ -42,9 +48,18 @@ export function inSentence(label: string): string {
 }
 
 /**
- * `{ label, hint }` of a described key in a table cell or a repeated row, named with its row
- * ("Device 2" + "loss at any flow (psi)", "Level 3 branch: fixture group 1" + "count").
+ * `{ label, hint }` of a described key in a table cell or a repeated row, named with its row and
+ * the key's `short` name where it has one ("Device 2" + "loss at any flow (psi)", "Level 3 branch:
+ * fixture group 1" + "count", "Level 3 branch: fixture group 1" + "type" — not "fixture type").
  */
 export function describedCell<E extends AnyElement>(row: string, element: E, key: KeyOf<E>, unitSystem: UnitSystem): DescribedField {
-  return describe(element, key, unitSystem, (label) => `${row} ${inSentence(label)}`);
+  return describe(element, key, unitSystem, (label) => `${row} ${inSentence(label)}`, 'short');
+}
+
+/**
+ * `{ label, hint }` of a described key as a table column's header over the element's rows: its
+ * `short` name where it has one, with the unit ("Length (ft)" over segments, "Type" over fittings).
+ */
+export function describedColumn<E extends AnyElement>(element: E, key: KeyOf<E>, unitSystem: UnitSystem): DescribedField {
+  return describe(element, key, unitSystem, (label) => label, 'short');
 }

@@ -32,7 +32,7 @@ import { CellInput, CellSelect, StepIntro } from '../components/cells';
 import { num, withUnit } from '../../../shared/format/quantity';
 import { numberInput } from '../lib/form-values';
 import { useLiveForm } from '../lib/use-live-form';
-import { describedCell, describedField } from '../lib/described';
+import { describedCell, describedColumn, describedField } from '../lib/described';
 import { CRITERIA, FITTING } from '../../../engine/model/elements';
 
 const METHOD_LABELS = {
@@ -159,8 +159,15 @@ function SegmentFittings({
   const options = types.map((f) => ({ value: f.id, label: f.label }));
   const projectOptions = projectOptionsOf(projectFittings);
   const metalRows = isPex ? (rows ?? []).flatMap((r, k) => (r && !r.custom && isMetalPipeFitting(r.typeId) ? [k] : [])) : [];
-  // Copper kept, soldered → another line (push-fit): offered where the line publishes one of this segment's fittings at its size.
   const size = segment?.size ?? '';
+  const pexLines =
+    metalRows.length > 0
+      ? pexLinesAtSize(
+          metalRows.map((k) => rows![k].typeId),
+          size,
+        )
+      : [];
+  // Copper kept, soldered → another line (push-fit): offered where the line publishes one of this segment's fittings at its size.
   const copperLines = segment?.material?.startsWith('copper-')
     ? COPPER_LINES.filter((l) => (rows ?? []).some((r) => r && !r.custom && copperFittingFor(r.typeId, l.id, size) !== undefined))
     : [];
@@ -173,8 +180,8 @@ function SegmentFittings({
         <caption className="sr-only">Fittings of {name}</caption>
         <thead>
           <tr className="text-left">
-            <th scope="col">Type</th>
-            <th scope="col">Count</th>
+            <th scope="col">{describedColumn(FITTING, 'typeId', doc.unitSystem).label}</th>
+            <th scope="col">{describedColumn(FITTING, 'count', doc.unitSystem).label}</th>
             <th scope="col" className="text-right">
               K each
             </th>
@@ -200,7 +207,7 @@ function SegmentFittings({
               <tr key={f.id} className="border-t border-rule align-top">
                 <td className="py-1 pr-2">
                   <CellSelect
-                    label={`${name}: fitting ${k + 1} type`}
+                    {...describedCell(`${name}: fitting ${k + 1}`, FITTING, 'typeId', doc.unitSystem)}
                     options={[...options, ...projectOptions]}
                     {...register(`segments.${index}.fittings.${k}.typeId`, { onChange: () => setValue(`segments.${index}.fittings.${k}.custom`, undefined) })}
                   />
@@ -249,9 +256,11 @@ function SegmentFittings({
       {metalRows.length > 0 ? (
         <PexSubstitute
           name={name}
+          size={size}
+          lines={pexLines}
           onApply={(line) => {
             for (const k of metalRows) {
-              const next = pexFittingFor(rows![k].typeId, line);
+              const next = pexFittingFor(rows![k].typeId, line, size);
               if (next) setValue(`segments.${index}.fittings.${k}.typeId`, next, { shouldDirty: true });
             }
           }}
@@ -337,30 +346,84 @@ function ActiveFittings({
   );
 }
 
+/** A PEX fitting line and whether it publishes a loss for each of the segment's metal fittings at its size. */
+export interface PexLineAtSize {
+  id: PexFittingLine;
+  label: string;
+  sizes: string;
+  covers: boolean;
+}
+
+/**
+ * The PEX lines for a segment of size `sizeKey` carrying `metalTypeIds`: a line covers it when it
+ * publishes a loss for the replacement of every one of them at that size (pexSubstitute.ts); none
+ * covers a segment without a size.
+ */
+export function pexLinesAtSize(metalTypeIds: readonly string[], sizeKey: string): PexLineAtSize[] {
+  return PEX_LINES.map((l) => ({
+    ...l,
+    covers: sizeKey !== '' && metalTypeIds.every((typeId) => pexFittingFor(typeId, l.id, sizeKey) !== undefined),
+  }));
+}
+
 /**
  * A PEX segment still carrying metal-pipe fittings (after a change from copper to PEX): offers the
- * PEX fitting lines and replaces each elbow, tee and coupling by the chosen line's (pexSubstitute.ts).
+ * PEX fitting lines published at its size and replaces each elbow, tee and coupling by the chosen
+ * line's (pexSubstitute.ts); a line with no data at that size is named with the sizes it has, not
+ * offered (its fittings would have no loss to compute with).
  */
-function PexSubstitute({ name, onApply, testId }: { name: string; onApply: (line: PexFittingLine) => void; testId: string }) {
-  const [line, setLine] = useState<PexFittingLine>(PEX_LINES[0].id);
+function PexSubstitute({
+  name,
+  size,
+  lines,
+  onApply,
+  testId,
+}: {
+  name: string;
+  size: string;
+  lines: readonly PexLineAtSize[];
+  onApply: (line: PexFittingLine) => void;
+  testId: string;
+}) {
+  const offered = lines.filter((l) => l.covers);
+  const missing = lines.filter((l) => !l.covers);
+  const [line, setLine] = useState<PexFittingLine | undefined>(offered[0]?.id);
+  // the size changed under the choice: the first line offered at the new size
+  const chosen = offered.some((l) => l.id === line) ? line : offered[0]?.id;
   return (
     <div className="mt-2 rounded border border-caution p-2 text-sm" data-testid={testId}>
       <p>
         <span aria-hidden="true">⚠ </span>
-        {name} is PEX but still carries fittings made for metal pipe. Choose the PEX fittings installed:
+        {name} is PEX but still carries fittings made for metal pipe.{' '}
+        {offered.length > 0
+          ? 'Choose the PEX fittings installed:'
+          : size === ''
+            ? 'Give it a size first: the PEX fitting lines are published by size.'
+            : `No PEX fitting line has published data at ${size} in: give the fittings installed as project fitting types, with their source.`}
       </p>
-      <div className="mt-1 flex flex-wrap items-end gap-2">
-        <CellSelect
-          className="w-72"
-          label={`${name}: PEX fitting line`}
-          value={line}
-          onChange={(e) => setLine(e.target.value as PexFittingLine)}
-          options={PEX_LINES.map((l) => ({ value: l.id, label: l.label }))}
-        />
-        <Button variant="secondary" onClick={() => onApply(line)}>
-          Use these PEX fittings on {name}
-        </Button>
-      </div>
+      {chosen !== undefined ? (
+        <div className="mt-1 flex flex-wrap items-end gap-2">
+          <CellSelect
+            className="w-72"
+            label={`${name}: PEX fitting line`}
+            value={chosen}
+            onChange={(e) => setLine(e.target.value as PexFittingLine)}
+            options={offered.map((l) => ({ value: l.id, label: l.label }))}
+          />
+          <Button variant="secondary" onClick={() => onApply(chosen)}>
+            Use these PEX fittings on {name}
+          </Button>
+        </div>
+      ) : null}
+      {size !== '' && missing.length > 0 ? (
+        <ul className="mt-1 text-xs text-ink-muted" aria-label={`PEX fitting lines not offered for ${name}`} data-testid={`${testId}-missing`}>
+          {missing.map((l) => (
+            <li key={l.id}>
+              {l.label}: no published data at {size} in (published {l.sizes})
+            </li>
+          ))}
+        </ul>
+      ) : null}
     </div>
   );
 }

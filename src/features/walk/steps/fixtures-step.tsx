@@ -88,7 +88,7 @@ function NodeFixtures({
               <label className="flex flex-col text-xs font-semibold md:col-span-2">
                 {describedField(CHECKED_FIXTURE, 'fixtureTypeId', doc.unitSystem).label}
                 <CellSelect
-                  label={`${name}: checked fixture ${k + 1} type`}
+                  {...describedCell(`${name}: checked fixture ${k + 1}`, CHECKED_FIXTURE, 'fixtureTypeId', doc.unitSystem)}
                   options={[...options, ...projectOptions]}
                   {...register(`nodes.${index}.checkedFixtures.${k}.fixtureTypeId`)}
                 />

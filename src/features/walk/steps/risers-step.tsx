@@ -251,7 +251,7 @@ function FixtureGroups({
             <div className="flex flex-wrap items-start gap-2">
               <CellSelect
                 className="min-w-64 flex-1"
-                label={`${nodeLabel}: fixture group ${k + 1} type`}
+                {...describedCell(`${nodeLabel}: fixture group ${k + 1}`, FIXTURE_GROUP, 'fixtureTypeId', sys)}
                 options={[...options, ...projectOptions]}
                 {...register(`nodes.${index}.fixtureGroups.${k}.fixtureTypeId`, {
                   onChange: () => setValue(`nodes.${index}.fixtureGroups.${k}.custom`, undefined),
