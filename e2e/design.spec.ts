@@ -2,7 +2,8 @@ import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
-import { analyzeSystem, sizingBasisState, sizingBasisText, SystemDocumentSchema, zoneVerdictWords } from '../src/engine';
+import { analyzeSystem, sizingBasisState, sizingBasisText, SystemDocumentSchema } from '../src/engine';
+import { zoneVerdictWords } from '../src/shared/format/zoneWords';
 import { DEMO, signIn } from './helpers';
 import {
   addZones,

@@ -1,6 +1,7 @@
 import { expect, test } from '@playwright/test';
 import type { Page } from '@playwright/test';
-import { analyzeSystem, SystemDocumentSchema, zoneVerdictWords } from '../src/engine';
+import { analyzeSystem, SystemDocumentSchema } from '../src/engine';
+import { zoneVerdictWords } from '../src/shared/format/zoneWords';
 import { DEMO, signIn } from './helpers';
 import { addZones, EntryCounter, enterBuilding, generate, INVENTED_BACKFLOW_POINTS, INVENTED_METER_POINTS, screenshotDir, waitSaved } from './building-entry';
 

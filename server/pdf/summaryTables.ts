@@ -4,7 +4,8 @@
  * Every number is taken from the analysis (src/engine/analysis); nothing hydraulic is computed here.
  * Elements are named as the user typed them, never by an internal id.
  */
-import { ledgerFor, zoneFeedWords, zoneFloorsWords, zoneVerdictWords, type Analysis, type SystemDocument } from '../../src/engine';
+import { ledgerFor, type Analysis, type SystemDocument } from '../../src/engine';
+import { zoneFeedWords, zoneFloorsWords, zoneVerdictWords } from '../../src/shared/format/zoneWords';
 import { MATERIALS } from '../../src/engine/catalog/materials';
 import { FITTING_TYPES } from '../../src/engine/fittings/types';
 import { fittingLabel } from '../../src/engine/model/labels';
@@ -229,7 +230,7 @@ export function zoneRows(a: Analysis): ZoneRow[] {
   const u = a.units;
   return (a.zones ?? []).map((z) => ({
     name: z.name,
-    fedBy: zoneFeedWords(z, u.pressure, 0),
+    fedBy: zoneFeedWords(z, u.pressure),
     floors: zoneFloorsWords(z, u.elevation),
     highestResidual: z.highestResidual ? `${num(z.highestResidual.pressure, u.pressure)} at ${z.highestResidual.where}` : '—',
     lowestResidual: z.lowestResidual ? `${num(z.lowestResidual.pressure, u.pressure)} at ${z.lowestResidual.where}` : '—',

@@ -6,7 +6,6 @@ export { analyzeSystem, safeAnalyzeSystem, type SafeAnalysis } from './analysis/
 export { ledgerFor, formatLedger } from './analysis/ledger';
 export { ENGINE_VERSION, toDisplay } from './analysis/report';
 export { verdictStatus } from './analysis/verdict';
-export { zoneVerdictWords, zoneFloorsWords, zoneFeedWords } from './analysis/zoneWords';
 export type {
   Analysis,
   AnalysisResults,

@@ -6,7 +6,8 @@
  */
 import { screen, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, ledgerFor, zoneFloorsWords, zoneVerdictWords } from '../../src/engine';
+import { analyzeSystem, ledgerFor } from '../../src/engine';
+import { zoneFloorsWords, zoneVerdictWords } from '../../src/shared/format/zoneWords';
 import { num, signed } from '../../src/shared/format/quantity';
 import { zoneCrossings } from '../../src/features/walk/components/pressure-profile';
 import { demoDocument, fakeApi } from './support/fake-api';

@@ -8,7 +8,8 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, zoneFloorsWords, type SystemDocumentInput } from '../../../src/engine';
+import { analyzeSystem, type SystemDocumentInput } from '../../../src/engine';
+import { zoneFloorsWords } from '../../../src/shared/format/zoneWords';
 import { G, M_PER_FT, PA_PER_PSI } from '../../../src/engine/units';
 import { waterProperties } from '../../../src/engine/water';
 import { expectClose } from '../../helpers/expectClose';

@@ -1,4 +1,5 @@
-import { zoneFloorsWords, zoneVerdictWords, type Analysis, type ZoneResult } from '../../../engine';
+import type { Analysis, ZoneResult } from '../../../engine';
+import { zoneFloorsWords, zoneVerdictWords } from '../../../shared/format/zoneWords';
 import { VerdictMark, type Verdict } from '../../systems/components/verdict-mark';
 import { num, signed } from '../../../shared/format/quantity';
 

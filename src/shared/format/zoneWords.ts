@@ -1,8 +1,10 @@
 /**
- * Zones in words, the same on the screen and in the issued summary: the verdict of a zone and the
- * floors it spans. Display only; the numbers come from analysis/zones.ts.
+ * Zones in words, the same on the screen and in the issued summary: the verdict of a zone, the
+ * floors it spans and what feeds it. Display only (the numbers come from the engine's
+ * analysis/zones.ts), so it lives beside the one number format (quantity.ts) both print with.
  */
-import type { ZoneResult } from './types';
+import type { ZoneResult } from '../../engine';
+import { num } from './quantity';
 
 const count = (n: number, one: string, many: string = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
@@ -24,7 +26,7 @@ export function zoneVerdictWords(z: ZoneResult): string {
  * "Level 1 – Level 12 (12 floors)", "Level 1, Level 5 – Level 7 (4 floors)" where the floors are not
  * adjacent, or the elevation range where no node sits on a floor.
  */
-export function zoneFloorsWords(z: ZoneResult, elevationUnit: string, digits = 1): string {
+export function zoneFloorsWords(z: ZoneResult, elevationUnit: string): string {
   if (z.floors.length === 1) return z.floors[0];
   if (z.floors.length > 1) {
     // an analysis stored before runs were recorded: its first and last floor, as it was issued
@@ -32,11 +34,11 @@ export function zoneFloorsWords(z: ZoneResult, elevationUnit: string, digits = 1
     return `${runs.map((r) => (r.count === 1 ? r.from : `${r.from} – ${r.to}`)).join(', ')} (${z.floors.length} floors)`;
   }
   if (z.lowestElevation === null || z.highestElevation === null) return '—';
-  return `el. ${z.lowestElevation.toFixed(digits)} – ${z.highestElevation.toFixed(digits)} ${elevationUnit}`;
+  return `el. ${num(z.lowestElevation, elevationUnit)} – ${num(z.highestElevation, elevationUnit)} ${elevationUnit}`;
 }
 
 /** "PRV-2, set 65 psi" / "BP-1, gain 40 psi" / "the supply". */
-export function zoneFeedWords(z: ZoneResult, pressureUnit: string, digits = 1): string {
+export function zoneFeedWords(z: ZoneResult, pressureUnit: string): string {
   if (z.feed.kind === 'supply' || z.feed.pressure === null) return 'the supply';
-  return `${z.feed.deviceLabel}, ${z.feed.setting === 'gain' ? 'gain' : 'set'} ${z.feed.pressure.toFixed(digits)} ${pressureUnit}`;
+  return `${z.feed.deviceLabel}, ${z.feed.setting === 'gain' ? 'gain' : 'set'} ${num(z.feed.pressure, pressureUnit)} ${pressureUnit}`;
 }
