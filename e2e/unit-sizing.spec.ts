@@ -133,9 +133,11 @@ test('when a new user sizes a building of typical apartments whose sink branch i
   // 2. Size the pipes: the answer, with one row per unit type segment
   const expected = sizeSystem(start);
   expect(expected.feasible).toBe(true);
+  const askedAt = Date.now();
   await page.getByRole('button', { name: 'Size the pipes' }).click();
   const answer = page.getByTestId('sizing-answer');
   await expect(answer).toHaveAttribute('data-feasible', 'yes', { timeout: 60_000 });
+  const answerMs = Date.now() - askedAt;
   // nothing is changed until applied
   await expect(bar(page)).toHaveAttribute('data-status', 'fail');
 
@@ -196,11 +198,14 @@ test('when a new user sizes a building of typical apartments whose sink branch i
   );
   // every unit segment was sized: nothing left at its size inside the units
   await expect(page.getByTestId('sizing-unit-piping')).toHaveCount(0);
+  await page.getByTestId('sizing-panel').screenshot({ path: 'e2e-output/unit-sizing/answer-panel.png' });
   await shot(page, 'answer');
 
   // 3. Apply: the verdict turns to pass; the unit type holds the new sizes
+  const appliedAt = Date.now();
   await page.getByRole('button', { name: 'Apply to draft' }).click();
   await expect(bar(page)).toHaveAttribute('data-status', 'pass', { timeout: 60_000 });
+  const passMs = Date.now() - appliedAt;
   await expect(overall).toContainText('Every check passes');
   await waitSaved(page);
   const applied = await storedDocument(page);
@@ -241,4 +246,9 @@ test('when a new user sizes a building of typical apartments whose sink branch i
   expect(mainSizes(undone)).toEqual(mainSizes(start));
   expect(verdictStatus(analyzeSystem(undone))).toBe('fail');
   await shot(page, 'undone');
+  console.log(
+    `unit sizing: ${STOREYS} storeys, ${PLACEMENTS} placements of ${UNIT_TYPE} (${type.segments.length} segments), ${c.entries} entries and ${c.clicks} clicks to generate; ` +
+      `answer on screen ${answerMs} ms after "Size the pipes", ${expected.changedSegments} segments change (${unitRows.filter((r) => r.before !== r.after).length} of the unit type); ` +
+      `verdict pass ${passMs} ms after "Apply to draft"; lowest margin ${signed(lowest(before), 'psi')} → ${signed(lowest(after), 'psi')} psi`,
+  );
 });
