@@ -8,7 +8,7 @@ import { DEFAULT_CRITERIA } from '../src/engine/catalog/criteria';
 import { MATERIALS, type MaterialId } from '../src/engine/catalog/materials';
 import { unitTypeSegmentKey } from '../src/engine/sizing/unitSizing';
 import { PA_PER_PSI } from '../src/engine/units';
-import { signed } from '../src/shared/format/quantity';
+import { num, signed } from '../src/shared/format/quantity';
 import { expectClose } from '../tests/helpers/expectClose';
 import { DEMO, signIn } from './helpers';
 import { EntryCounter, enterBuilding, generate, INVENTED_BACKFLOW_POINTS, INVENTED_METER_POINTS, waitSaved } from './building-entry';
@@ -61,13 +61,15 @@ const mainSizes = (doc: SystemDocument) => Object.fromEntries(doc.segments.map((
  * analysis's design flow (gpm), the limit in ft/s.
  */
 function smallestWithinVelocity(material: MaterialId, designFlowGpm: number, limitFtPerS: number): string | null {
-  const q = (designFlowGpm * FT3_PER_GAL) / 60; // ft³/s
-  for (const size of MATERIALS[material].sizes) {
-    const d = size.innerDiameterM / M_PER_FT; // ft
-    const v = q / ((Math.PI * d * d) / 4);
-    if (v <= limitFtPerS) return size.key;
-  }
+  for (const size of MATERIALS[material].sizes) if (velocityFtPerS(material, size.key, designFlowGpm) <= limitFtPerS) return size.key;
   return null;
+}
+
+/** v = Q / (π d² / 4), ft/s: Q in gpm, d the catalog's inside diameter of the material's size. */
+function velocityFtPerS(material: MaterialId, size: string, designFlowGpm: number): number {
+  const q = (designFlowGpm * FT3_PER_GAL) / 60; // ft³/s
+  const d = MATERIALS[material].sizes.find((s) => s.key === size)!.innerDiameterM / M_PER_FT; // ft
+  return q / ((Math.PI * d * d) / 4);
 }
 
 let pageProblems: string[] = [];
@@ -161,6 +163,12 @@ test('when a new user sizes a building of typical apartments whose sink branch i
   await expect(page.getByTestId(`sizing-applies-${sinkKey}`)).toHaveText(`unit type segment: applies to ${PLACEMENTS} placements`);
   await expect(page.getByTestId(`sizing-after-${sinkKey}`)).toContainText(`3/8 → ${sinkAfter}`);
   await expect(shownRow).toContainText(/Velocity in this segment \(limit 8(\.0+)? ft\/s\)/);
+  // its velocity before and after, by hand; the analysis's before agrees (round-off only)
+  const sinkVelocityBefore = velocityFtPerS('pex-sdr9', '3/8', sinkFlow);
+  const sinkVelocityAfter = velocityFtPerS('pex-sdr9', sinkAfter!, sinkFlow);
+  expectClose(sinkVelocityBefore, Math.max(...copiesOf(sink.id).map((s) => s.velocity)), { rtol: 1e-9 }, 'sink branch velocity before (ft/s)');
+  expect(sinkVelocityBefore).toBeGreaterThan(limitFtPerS);
+  await expect(shownRow).toContainText(`${num(sinkVelocityBefore, 'ft/s')} → ${num(sinkVelocityAfter, 'ft/s')}`);
 
   // every unit type segment: one row for all its placements; where the velocity governs, the size
   // computed here; where nothing holds it, the catalog's smallest; where a fixture's pressure
