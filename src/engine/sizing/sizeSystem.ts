@@ -266,6 +266,17 @@ export interface FixtureRow {
   feed: number;
 }
 
+/** A segment's answer row names the checked fixture downstream with the least margin (index w), before and after. */
+export function worstFixtureOf(fixtures: readonly FixtureRow[], w: number | undefined, after: StageResults | null | undefined): SegmentSizing['worstFixture'] {
+  if (w === undefined) return null;
+  return {
+    fixtureId: fixtures[w].id,
+    label: fixtures[w].label,
+    marginBeforePa: fixtures[w].margin,
+    marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
+  };
+}
+
 /** A segment as a probe copies it (a main segment, or a placement's copy of a unit type's segment). */
 export type ProbeSegment = SystemDocument['segments'][number];
 
@@ -1112,15 +1123,7 @@ function describe({ doc, base, segIndex, free, locked, selected, chosen, governi
       velocityBefore: e === undefined ? 0 : base.hyd.velocity[e],
       velocityAfter: after && e !== undefined ? after.hyd.velocity[e] : null,
       velocityLimit: e === undefined ? null : base.checks.velocityLimitMs[e],
-      worstFixture:
-        w === undefined
-          ? null
-          : {
-              fixtureId: fixtures[w].id,
-              label: fixtures[w].label,
-              marginBeforePa: fixtures[w].margin,
-              marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
-            },
+      worstFixture: worstFixtureOf(fixtures, w, after),
       after: isFree && chosen ? fr.sizes[k] : before,
       governing: locked.has(s.id)
         ? 'locked'

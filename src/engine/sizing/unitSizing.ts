@@ -7,7 +7,7 @@ import type { StageResults } from '../analysis/results';
 import type { MaterialId } from '../catalog/materials';
 import { placedId } from '../building/expand';
 import { UNIT_INLET, type SystemDocument } from '../model/schema';
-import type { FixtureRow, ProbeSegment, SegmentSizing } from './sizeSystem';
+import { worstFixtureOf, type FixtureRow, type ProbeSegment, type SegmentSizing } from './sizeSystem';
 import { unitFront, type UnitFrontPoint, type UnitFrontSegment } from './unitFront';
 
 /** Combinations of unit-type front points searched one by one; beyond it, coordinate descent (our choice of bound). */
@@ -345,15 +345,7 @@ export function describeUnits(input: {
         velocityBefore: maxOf(base.hyd.velocity),
         velocityAfter: after ? maxOf(after.hyd.velocity) : null,
         velocityLimit: copies.length ? base.checks.velocityLimitMs[copies[0]] : null,
-        worstFixture:
-          w === undefined
-            ? null
-            : {
-                fixtureId: fixtures[w].id,
-                label: fixtures[w].label,
-                marginBeforePa: fixtures[w].margin,
-                marginAfterPa: after ? after.checks.fixtures[w].marginPa : null,
-              },
+        worstFixture: worstFixtureOf(fixtures, w, after),
         after: u && k !== undefined ? u.sizes[k] : (s.size ?? null),
         governing: locked.has(key)
           ? 'locked'

@@ -4,18 +4,10 @@ import { MATERIALS } from '../../../src/engine/catalog/materials';
 import { sizeSystem, SizingError } from '../../../src/engine/sizing/sizeSystem';
 import { PA_PER_PSI } from '../../../src/engine/units';
 import { expectClose } from '../../helpers/expectClose';
+import { mulberry32 } from '../../../src/engine/testing/generateTree';
 
-/** Small deterministic generator (mulberry32) so every tree is reproducible from its seed. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** Every generated case is reproducible from its seed. */
+const rng = mulberry32;
 
 const SIZES = ['1/2', '3/4', '1', '1-1/4', '1-1/2'];
 const FIXTURES = ['shower-private', 'lavatory-private', 'kitchen-sink-private', 'clothes-washer-private'];
