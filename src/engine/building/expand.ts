@@ -5,6 +5,7 @@
  * (`<placement>.<local id>`), so every element keeps one stable, readable id; labels read
  * "<placement label> · <local label>". The unit's "inlet" is the placement's `at` node. Unit
  * nodes sit on the placement's floor at their height above it; overrides replace single fields.
+ * A unit segment's `sizeLocked` is carried to each copy, so the expanded document keeps the lock.
  * Checked fixtures are copied with the same prefix, so "Apt 704 · shower valve" is its own
  * checked fixture with its own verdict.
  */
@@ -32,6 +33,7 @@ export interface ExpandedSegment {
   length: number;
   fittings: UnitType['segments'][number]['fittings'];
   reducerAuto: boolean;
+  sizeLocked?: boolean;
 }
 
 export const placedId = (placementId: string, localId: string) => `${placementId}.${localId}`;
@@ -118,6 +120,8 @@ export function expandPlacements(
       if (material !== undefined) seg.material = material;
       if (size !== undefined) seg.size = size;
       if (s.custom && o?.material === undefined && o?.size === undefined) seg.custom = s.custom;
+      // The unit type's lock holds in every copy, on the size the copy has (a placement's override of the size wins).
+      if (s.sizeLocked === true) seg.sizeLocked = true;
       segments.push(seg);
     }
   }

@@ -490,6 +490,7 @@ export const UNIT_SEGMENT = element('unit segment', {
   custom: optional(value.element(CUSTOM_PIPE), { label: 'Custom pipe' }),
   length: required(value.positive(), { label: 'Developed length', help: 'Developed length, length unit.', range: 'length' }),
   fittings: withDefault(value.list(value.element(FITTING), B.fittingsPerSegment), [], { label: 'Fittings' }),
+  sizeLocked: optional(value.boolean(), { label: 'Size locked', help: 'The designer fixed this size: automatic sizing keeps it.' }),
 });
 
 export const UNIT_TYPE = element('unit type', {

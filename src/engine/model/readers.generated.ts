@@ -737,6 +737,11 @@ export function readUnitSegment(v: unknown): Obj {
     out.fittings = x === undefined ? [] : readList(x, readFitting, 0, 100);
     if ("fittings" in o) known++;
   }
+  if ("sizeLocked" in o) {
+    const x = o.sizeLocked;
+    out.sizeLocked = x === undefined ? undefined : readBoolean(x);
+    known++;
+  }
   if (keyCount(o) !== known) decline();
   return out;
 }

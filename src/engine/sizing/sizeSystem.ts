@@ -78,8 +78,9 @@
  *   - Left at their size (named in `unitPiping.left`): custom pipes, segments without a catalog
  *     material and size, a segment whose material a placement changes, and a unit type with a
  *     device on any copy (a device's hold would cut its fixtures' paths per placement). A copy
- *     whose size a placement overrides keeps that size. Locks and selections name a unit type's
- *     segment by unitTypeSegmentKey ("<unit type id>/<segment id>").
+ *     whose size a placement overrides keeps that size. A unit type's segment marked `sizeLocked`
+ *     keeps its size in every placement; locks given as options and selections name a unit
+ *     type's segment by unitTypeSegmentKey ("<unit type id>/<segment id>").
  * The exhaustive-search tests in tests/engine/sizing (sizeSystem.test.ts, sizeUnits.test.ts) prove
  * the least volume against every size assignment, analysed in full.
  *
@@ -114,7 +115,7 @@ const VELOCITY_RTOL = 1e-9;
 export interface SizingOptions {
   /** Pressure each checked fixture must keep above its minimum, Pa (default 0). */
   marginPa?: number;
-  /** Segments that keep their size, besides those the document marks `sizeLocked`. */
+  /** Segments that keep their size, besides those the document marks `sizeLocked` (main segments and unit type segments). */
   lockedSegmentIds?: readonly string[];
   /** Only these segments may change (a selection, or a contractor's field change); default all. A unit type's segment is named by unitTypeSegmentKey. */
   segmentIds?: readonly string[];
@@ -424,7 +425,12 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       .filter((v) => v.service === doc.service)
       .map((v) => ({ material: v.material, maxVelocityMs: toSI('velocity', v.maxVelocity, doc.unitSystem) })),
   };
-  const locked = new Set([...(options.lockedSegmentIds ?? []), ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id)]);
+  // The document's locks: a main segment's by its id, a unit type segment's (one lock for every placement) by unitTypeSegmentKey.
+  const locked = new Set([
+    ...(options.lockedSegmentIds ?? []),
+    ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id),
+    ...unitTypes.flatMap((t) => t.segments.filter((s) => s.sizeLocked === true).map((s) => unitTypeSegmentKey(t.id, s.id))),
+  ]);
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
   // Which segments may change, and their candidate sizes (ascending inside diameter).
@@ -461,17 +467,25 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
   // Typical units: a unit type's segment is one decision for all its copies (the placements' segments).
   const units = unitCandidates({ doc, options, segIndex, locked, selected, hasData, bySizeAscending, unitTypes, placements, placed });
   if (candidates.size === 0 && units.segs.length === 0) {
-    const inScope = doc.segments.filter((s) => (!selected || selected.has(s.id)) && s.material && s.size && !s.custom);
-    if (inScope.length > 0 && inScope.every((s) => locked.has(s.id))) {
+    // The catalog pipes in scope: the main tree's, then the placed unit types' (named as the answer's rows name them).
+    const isPipe = (s: { material?: string; size?: string; custom?: unknown }) => Boolean(s.material && s.size && !s.custom);
+    const inScope = [
+      ...doc.segments.filter((s) => (!selected || selected.has(s.id)) && isPipe(s)).map((s) => ({ key: s.id, name: s.label ?? s.id })),
+      ...unitTypes
+        .filter((t) => placed.has(t.id))
+        .flatMap((t) => t.segments.filter(isPipe).map((s) => ({ key: unitTypeSegmentKey(t.id, s.id), name: `${t.name} · ${s.label ?? s.id}` })))
+        .filter((s) => !selected || selected.has(s.key)),
+    ];
+    if (inScope.length > 0 && inScope.every((s) => locked.has(s.key))) {
       const names =
         inScope
           .slice(0, 3)
-          .map((s) => `"${s.label ?? s.id}"`)
+          .map((s) => `"${s.name}"`)
           .join(', ') + (inScope.length > 3 ? ` and ${inScope.length - 3} more` : '');
       throw new SizingError(
         'all-locked',
         `Every segment ${selected ? 'selected' : 'of the system'} is locked (${names}): nothing can be sized and nothing was changed. Unlock a segment or select others.`,
-        inScope[0].id,
+        inScope[0].key,
       );
     }
     throw new SizingError('nothing-to-size', 'Every segment is locked, outside the selection or not a catalog pipe: nothing can be sized.');

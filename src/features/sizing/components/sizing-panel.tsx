@@ -6,7 +6,7 @@ import { fromSI, sizingBasisText, toSI } from '../../../engine';
 import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
 import { useWalk } from '../../walk/draft/walk-context';
 import { num, signed } from '../../../shared/format/quantity';
-import { applySizing, changedRows, setSizeLocked, undoSizing } from '../lib/apply';
+import { applySizing, changedRows, lockedSegmentKeys, setSizeLocked, setUnitSegmentSizeLocked, undoSizing } from '../lib/apply';
 import type { SizingReply } from '../lib/compute';
 import { runSizing, type SizingRun } from '../lib/run-sizing';
 
@@ -16,8 +16,6 @@ interface Answered {
   document: SystemDocument;
   /** The margin asked for, Pa (recorded with the sizes when applied). */
   marginPa: number;
-  /** The unit type segments locked in the panel when it was asked (see unitLocks). */
-  unitLocks: ReadonlySet<string>;
 }
 
 const UNIT_LEFT_REASON = {
@@ -63,8 +61,6 @@ export function SizingPanel() {
   const [answered, setAnswered] = useState<Answered | null>(null);
   const [applied, setApplied] = useState<Applied | null>(null);
   const [showAll, setShowAll] = useState(false);
-  // A unit type's segment has no lock of its own in the document: the panel keeps it and asks the sizing to keep its size.
-  const [unitLocks, setUnitLocks] = useState<ReadonlySet<string>>(new Set());
   const run = useRef<SizingRun | null>(null);
   useEffect(() => () => run.current?.cancel(), []);
 
@@ -78,19 +74,18 @@ export function SizingPanel() {
     setApplied(null);
     const sizedFrom = document;
     const marginPa = toSI('pressure', margin, sys);
-    const locksAsked = unitLocks;
-    const current = runSizing({ document: sizedFrom, options: locksAsked.size ? { marginPa, lockedSegmentIds: [...locksAsked] } : { marginPa } });
+    const current = runSizing({ document: sizedFrom, options: { marginPa } });
     run.current = current;
     const reply = await current.answer;
     if (run.current !== current) return;
     run.current = null;
-    setAnswered({ reply, document: sizedFrom, marginPa, unitLocks: locksAsked });
+    setAnswered({ reply, document: sizedFrom, marginPa });
     setRunning(false);
   };
 
   const reply = answered?.reply ?? null;
   const result: SizingResult | null = reply?.ok ? reply.result : null;
-  const stale = answered !== null && (answered.document !== document || answered.unitLocks !== unitLocks) && applied === null;
+  const stale = answered !== null && answered.document !== document && applied === null;
   const rows = result ? result.segments : [];
   const changed = changedRows(rows);
   const shownRows = showAll ? rows : rows.filter((r) => r.before !== r.after || r.governing === 'locked' || typeof r.governing === 'object');
@@ -110,14 +105,12 @@ export function SizingPanel() {
     setApplied(null);
     setAnswered(null);
   };
+  // A lock is one change of the draft: a main segment's `sizeLocked`, or the unit type's for a unit type segment (every placement).
   const lock = (row: SegmentSizing, locked: boolean) => {
-    if (!row.unitType) return draft.update((doc) => setSizeLocked(doc, row.segmentId, locked));
-    const next = new Set(unitLocks);
-    if (locked) next.add(row.segmentId);
-    else next.delete(row.segmentId);
-    setUnitLocks(next);
+    const unit = row.unitType;
+    draft.update((doc) => (unit ? setUnitSegmentSizeLocked(doc, unit.id, unit.segmentId, locked) : setSizeLocked(doc, row.segmentId, locked)));
   };
-  const lockedNow = new Set(document.segments.filter((s) => s.sizeLocked).map((s) => s.id));
+  const lockedNow = lockedSegmentKeys(document);
 
   return (
     <div className="flex flex-col gap-4" data-testid="sizing-panel">
@@ -248,7 +241,7 @@ export function SizingPanel() {
                 <tbody>
                   {shownRows.map((r) => {
                     const name = r.label || r.segmentId;
-                    const locked = r.unitType ? unitLocks.has(r.segmentId) : lockedNow.has(r.segmentId);
+                    const locked = lockedNow.has(r.segmentId);
                     return (
                       <tr key={r.segmentId} className="border-b border-rule" data-testid={`sizing-row-${r.segmentId}`}>
                         <th scope="row" className="py-1 pr-3 text-left font-normal">

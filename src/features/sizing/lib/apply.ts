@@ -1,10 +1,11 @@
 /**
  * The sizing's changes to a draft, as pure document edits: applying the sizes an answer chose,
  * taking them back (only where the size is still the one applied, so a later hand edit stays),
- * and the lock a designer puts on a segment's size.
+ * and the lock a designer puts on a segment's size (a main segment's, or a unit type segment's).
  */
 import { sizingBasisOf } from '../../../engine';
 import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
+import { unitTypeSegmentKey } from '../../../engine/sizing/unitSizing';
 
 /** The rows whose size changes. */
 export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) => r.after !== null && r.after !== r.before);
@@ -92,6 +93,18 @@ export function undoSizes(doc: SystemDocument, rows: readonly SegmentSizing[]): 
   };
 }
 
+/**
+ * The sizes the draft locks, named as the answer's rows name them: a main segment by its id, a
+ * unit type segment by unitTypeSegmentKey (one lock for every placement).
+ */
+export function lockedSegmentKeys(doc: SystemDocument): Set<string> {
+  return new Set([
+    ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id),
+    ...(doc.unitTypes ?? []).flatMap((t) => t.segments.filter((s) => s.sizeLocked === true).map((s) => unitTypeSegmentKey(t.id, s.id))),
+  ]);
+}
+
+/** The lock on a main segment's size (its `sizeLocked`; clearing removes the key). */
 export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: boolean): SystemDocument {
   return {
     ...doc,
@@ -102,6 +115,31 @@ export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: bo
       else delete next.sizeLocked;
       return next;
     }),
+  };
+}
+
+/**
+ * The lock on a unit type segment's size: the unit type's `sizeLocked`, one lock for every
+ * placement (clearing removes the key, so set and cleared gives the document back as it was).
+ */
+export function setUnitSegmentSizeLocked(doc: SystemDocument, unitTypeId: string, segmentId: string, locked: boolean): SystemDocument {
+  if (!doc.unitTypes) return doc;
+  return {
+    ...doc,
+    unitTypes: doc.unitTypes.map((t) =>
+      t.id !== unitTypeId
+        ? t
+        : {
+            ...t,
+            segments: t.segments.map((s) => {
+              if (s.id !== segmentId) return s;
+              const next = { ...s };
+              if (locked) next.sizeLocked = true;
+              else delete next.sizeLocked;
+              return next;
+            }),
+          },
+    ),
   };
 }
 
