@@ -8,9 +8,10 @@
  * (no size-change loss) can only under-count the losses, and an answer it verifies is the least.
  */
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, type SystemDocumentInput } from '../../../src/engine';
+import { analyzeSystem, SystemDocumentSchema, type SystemDocumentInput } from '../../../src/engine';
 import { MATERIALS } from '../../../src/engine/catalog/materials';
-import { sizeSystem, unitTypeSegmentKey } from '../../../src/engine/sizing/sizeSystem';
+import { sizeSystem, SizingError, unitTypeSegmentKey, type SizingResult } from '../../../src/engine/sizing/sizeSystem';
+import { expandBuilding } from '../../../src/engine/building/expand';
 import { M_PER_FT, PA_PER_PSI } from '../../../src/engine/units';
 import { expectClose } from '../../helpers/expectClose';
 import { mulberry32 } from '../../../src/engine/testing/generateTree';
@@ -314,6 +315,97 @@ describe('sizeSystem with typical units: locks and selections name the unit type
 
   it('when an option names an unknown unit type segment, then a named error', () => {
     expect(() => sizeSystem(b.doc, { lockedSegmentIds: [unitTypeSegmentKey('type-a', 'nope')] })).toThrow(/No segment "type-a\/nope"/);
+  });
+});
+
+describe('sizeSystem with typical units: the lock stored on a unit type segment', () => {
+  const b = building(4, interestingPressure(building(4)));
+  /** The building with these unit type segments marked sizeLocked in the document (unit type id → segment ids). */
+  const lockedIn = (doc: SystemDocumentInput, locks: Record<string, string[]>): SystemDocumentInput => ({
+    ...doc,
+    unitTypes: doc.unitTypes!.map((t) => ({ ...t, segments: t.segments.map((s) => (locks[t.id]?.includes(s.id) ? { ...s, sizeLocked: true } : s)) })),
+  });
+  /** The answer without its timings (the only part that differs between two runs of the same question). */
+  const answerOf = (r: SizingResult) => ({ ...r, timings: null });
+
+  it('when the unit type marks a segment sizeLocked, then it keeps its size in every placement, is reported locked, and the answer is the one an option lock gives', () => {
+    // the segment the unlocked sizing changes, so that keeping it says something
+    const free = sizeSystem(b.doc, { candidateSizes: b.candidates });
+    const moved = free.segments.find((s) => s.unitType && s.after !== s.before);
+    if (!moved) throw new Error('building 4 was expected to change a unit type segment when nothing is locked');
+    const { id: typeId, segmentId } = moved.unitType!;
+    const stored = sizeSystem(lockedIn(b.doc, { [typeId]: [segmentId] }), { candidateSizes: b.candidates });
+    const row = stored.segments.find((s) => s.segmentId === moved.segmentId)!;
+    expect(row.governing).toBe('locked');
+    expect(row.after).toBe(START);
+    expect(row.unitType!.placements).toBe(b.doc.placements!.filter((p) => p.unitTypeId === typeId).length);
+    expect(stored.feasible).toBe(true);
+    const sized = stored.document!;
+    expect(sized.unitTypes!.find((t) => t.id === typeId)!.segments.find((s) => s.id === segmentId)!.size).toBe(START);
+    // every placement's copy, as the analysis reads the sized document
+    const expanded = expandBuilding(sized);
+    const copies = b.doc.placements!.filter((p) => p.unitTypeId === typeId).map((p) => expanded.segments.find((s) => s.id === `${p.id}.${segmentId}`)!);
+    expect(copies.length).toBe(row.unitType!.placements);
+    for (const c of copies) expect(c.size).toBe(START);
+    // the same answer as the lock given as an option (the panel's way before the lock was stored)
+    const asOption = sizeSystem(b.doc, { candidateSizes: b.candidates, lockedSegmentIds: [moved.segmentId] });
+    expect(answerOf(stored)).toEqual({ ...answerOf(asOption), document: { ...asOption.document!, unitTypes: sized.unitTypes } });
+    expect(stored.segments).toEqual(asOption.segments);
+  });
+
+  it('when every segment is locked, main tree and unit types, then the all-locked error names them and nothing is changed', () => {
+    const locks = Object.fromEntries(b.doc.unitTypes!.map((t) => [t.id, t.segments.map((s) => s.id)]));
+    const all = lockedIn({ ...b.doc, segments: b.doc.segments.map((s) => ({ ...s, sizeLocked: true })) }, locks);
+    const copy = JSON.parse(JSON.stringify(all));
+    const total = b.doc.segments.length + b.doc.unitTypes!.reduce((n, t) => n + t.segments.length, 0);
+    let error: unknown = null;
+    try {
+      sizeSystem(all);
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(SizingError);
+    expect((error as SizingError).code).toBe('all-locked');
+    // the main tree's segments are named first, then the unit types' as their rows read; the rest counted
+    const names = [...b.doc.segments.map((s) => s.label), ...b.doc.unitTypes!.flatMap((t) => t.segments.map((s) => `${t.name} · ${s.label}`))];
+    expect((error as SizingError).message).toBe(
+      `Every segment of the system is locked (${names
+        .slice(0, 3)
+        .map((n) => `"${n}"`)
+        .join(', ')} and ${total - 3} more): nothing can be sized and nothing was changed. Unlock a segment or select others.`,
+    );
+    expect(all).toEqual(copy);
+    // the main tree locked and the units free: the units are still sized
+    const mainOnly = sizeSystem({ ...b.doc, segments: b.doc.segments.map((s) => ({ ...s, sizeLocked: true })) }, { candidateSizes: b.candidates });
+    expect(mainOnly.segments.filter((s) => !s.unitType).every((s) => s.governing === 'locked')).toBe(true);
+    expect(mainOnly.segments.some((s) => s.unitType && s.governing !== 'locked')).toBe(true);
+    // a selection of only a locked unit type segment: the same error, naming it as its row does
+    const one = lockedIn(b.doc, { 'type-a': ['br'] });
+    expect(() => sizeSystem(one, { segmentIds: [unitTypeSegmentKey('type-a', 'br')] })).toThrow(
+      'Every segment selected is locked ("Unit A · branch"): nothing can be sized and nothing was changed.',
+    );
+  });
+
+  it('when a locked unit type is expanded, then every copy carries the lock, a placement overriding the size keeps its own size, and sizing the expanded document keeps them all', () => {
+    const withOverride: SystemDocumentInput = {
+      ...lockedIn(b.doc, { 'type-a': ['br'] }),
+      placements: b.doc.placements!.map((p, k) => (k === 0 ? { ...p, overrides: { segments: { ...p.overrides?.segments, br: { size: '3/4' } } } } : p)),
+    };
+    const placedA = withOverride.placements!.filter((p) => p.unitTypeId === 'type-a');
+    const expanded = expandBuilding(SystemDocumentSchema.parse(withOverride));
+    const copies = placedA.map((p) => expanded.segments.find((s) => s.id === `${p.id}.br`)!);
+    for (const c of copies) expect(c.sizeLocked).toBe(true);
+    expect(copies.map((c) => c.size)).toEqual(placedA.map((p) => (p.id === withOverride.placements![0].id ? '3/4' : START)));
+    // the other unit segments are not locked
+    expect(expanded.segments.filter((s) => s.id.endsWith('.la')).every((s) => s.sizeLocked === undefined)).toBe(true);
+    // the expanded document, its copies now ordinary segments, sized: each locked copy keeps the size it has
+    const mainCandidates = Object.fromEntries(Object.entries(b.candidates).filter(([key]) => !key.includes('/')));
+    const result = sizeSystem(expanded, { candidateSizes: mainCandidates });
+    for (const c of copies) {
+      const row = result.segments.find((s) => s.segmentId === c.id)!;
+      expect(row.governing).toBe('locked');
+      expect(row.after).toBe(c.size);
+    }
   });
 });
 
