@@ -8,7 +8,9 @@ import {
   applySizing,
   applySubstitution,
   changedRows,
+  lockedSegmentKeys,
   setSizeLocked,
+  setUnitSegmentSizeLocked,
   undoSizes,
   undoSizing,
   undoSubstitution,
@@ -42,6 +44,30 @@ describe('applying a sizing answer to a draft', () => {
     const locked = setSizeLocked(start, 'service', true);
     expect(locked.segments.filter((s) => s.sizeLocked).map((s) => s.id)).toEqual(['service']);
     expect('sizeLocked' in setSizeLocked(locked, 'service', false).segments.find((s) => s.id === 'service')!).toBe(false);
+  });
+
+  it('when a unit type segment’s lock is set and cleared, then only that unit type segment carries sizeLocked, the answer’s row reads it, and clearing gives the draft back as it was', () => {
+    // invented example: 16 apartments of one type
+    const doc = SystemDocumentSchema.parse(apartmentBuildingDocument(4));
+    const type = doc.unitTypes![0];
+    const seg = type.segments[0];
+    const row = sizeSystem({ ...doc, source: { ...doc.source, staticPressureLow: 100, staticPressureHigh: 100 } }).segments.find(
+      (r) => r.unitType?.id === type.id && r.unitType.segmentId === seg.id,
+    )!;
+    expect(lockedSegmentKeys(doc).has(row.segmentId)).toBe(false);
+    const locked = setUnitSegmentSizeLocked(doc, type.id, seg.id, true);
+    const lockedSegments = locked.unitTypes!.flatMap((t) => t.segments.filter((s) => s.sizeLocked).map((s) => `${t.id}/${s.id}`));
+    expect(lockedSegments).toEqual([`${type.id}/${seg.id}`]);
+    // the placements, the main tree and the other unit segments are not touched
+    expect(locked.placements).toBe(doc.placements);
+    expect(locked.segments).toBe(doc.segments);
+    expect(lockedSegmentKeys(locked)).toEqual(new Set([row.segmentId]));
+    // clearing removes the key: the draft is as it was (undo)
+    const cleared = setUnitSegmentSizeLocked(locked, type.id, seg.id, false);
+    expect('sizeLocked' in cleared.unitTypes![0].segments[0]).toBe(false);
+    expect(cleared).toEqual(doc);
+    // a main segment's lock is read under its own id
+    expect(lockedSegmentKeys(setSizeLocked(doc, doc.segments[0].id, true))).toEqual(new Set([doc.segments[0].id]));
   });
 
   it('when a substitution is applied and undone, then material and size follow and come back', () => {

@@ -6,7 +6,7 @@
  */
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
-import { analyzeSystem, sizeSystem } from '../../src/engine';
+import { analyzeSystem, sizeSystem, SystemDocumentSchema } from '../../src/engine';
 import type { SystemDocument } from '../../src/engine';
 import { AUTOSAVE_DELAY_MS } from '../../src/features/walk/draft/use-draft';
 import { apartmentBuildingDocument } from '../../src/engine/building/apartmentBuilding';
@@ -124,24 +124,42 @@ describe('automatic sizing on the result step', () => {
     expect(world.unknown).toEqual([]);
   });
 
-  it('when a unit type segment is locked in the panel, then the answer asks to size again, and sized again it keeps its size and says why', async () => {
+  it('when a unit type segment is locked in the panel, then the unit type’s lock is saved in the draft, shows on its row after a reload, and sized again it keeps its size', async () => {
     // invented example: 16 apartments of one type, on an invented 100 psi main where a sizing exists
     const built = apartmentBuildingDocument(4) as SystemDocument;
     const start: SystemDocument = { ...built, source: { ...built.source, staticPressureLow: 100, staticPressureHigh: 100 } };
     const row = sizeSystem(start).segments.find((s) => s.unitType && s.before !== s.after)!;
+    const { id: typeId, segmentId } = row.unitType!;
+    const storedLock = (doc: SystemDocument) => doc.unitTypes!.find((t) => t.id === typeId)!.segments.find((s) => s.id === segmentId)!.sizeLocked;
     const world = fakeApi({ document: start });
-    const { user } = await renderWalk(world, stepHref(world, 'result'));
+    const first = await renderWalk(world, stepHref(world, 'result'));
     await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
-    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
+    await first.user.click(screen.getByRole('button', { name: 'Size the pipes' }));
     await screen.findByTestId('sizing-answer', {}, CATCH_UP);
-    await user.click(screen.getByLabelText(`Lock the size of ${row.label}`));
+    await first.user.click(screen.getByLabelText(`Lock the size of ${row.label}`));
     await screen.findByTestId('sizing-stale', {}, CATCH_UP);
-    await user.click(screen.getByRole('button', { name: 'Size the pipes' }));
-    await waitFor(() => expect(screen.queryByTestId('sizing-stale')).toBeNull(), CATCH_UP);
+    // one change of the draft, saved as any edit: the unit type's segment carries the lock, nothing else changed
+    await waitFor(() => expect(world.saves()).toHaveLength(1), SAVE_WAIT);
+    const saved = lastSaved(world);
+    expect(storedLock(saved)).toBe(true);
+    expect(saved.placements).toEqual(start.placements);
+    expect(saved.segments.some((s) => s.sizeLocked)).toBe(false);
+    first.unmount();
+
+    // the walk opened again on the saved draft (as after a reload): sized, the row shows the stored lock
+    const second = await renderWalk(world, stepHref(world, 'result'));
+    await screen.findByTestId('sizing-panel', {}, { timeout: 20_000 });
+    await second.user.click(screen.getByRole('button', { name: 'Size the pipes' }));
     const locked = await screen.findByTestId(`sizing-row-${row.segmentId}`, {}, CATCH_UP);
     expect(locked.textContent).toContain('Locked by the designer');
     expect(screen.getByTestId(`sizing-after-${row.segmentId}`).textContent).toContain(`${row.before} → ${row.before}`);
-    // the lock is the panel's (a unit type's segment has no lock field): nothing was saved
-    expect(world.saves()).toHaveLength(0);
+    expect((screen.getByLabelText(`Lock the size of ${row.label}`) as HTMLInputElement).checked).toBe(true);
+
+    // unlocked: the key leaves the unit type, and the draft is the one first loaded (as the draft reads it: defaults written out)
+    await second.user.click(screen.getByLabelText(`Lock the size of ${row.label}`));
+    await waitFor(() => expect(world.saves()).toHaveLength(2), SAVE_WAIT);
+    expect(storedLock(lastSaved(world))).toBeUndefined();
+    expect(JSON.parse(JSON.stringify(lastSaved(world)))).toEqual(JSON.parse(JSON.stringify(SystemDocumentSchema.parse(start))));
+    expect(world.unknown).toEqual([]);
   });
 });
