@@ -23,10 +23,16 @@ export function floorsOf(form: Pick<BuildingForm, 'floors'>): Floor[] {
 }
 
 /** Throws the builder's EngineInputError (its message names the field) when the form cannot be built. */
-export function buildFromForm(form: BuildingForm, startElevation: number): BuildResult {
+/** `storedTypes`: the draft's unit types, whose keys the form does not show are kept (unitTypeFromForm). */
+export function buildFromForm(form: BuildingForm, startElevation: number, storedTypes: readonly UnitType[] = []): BuildResult {
   const floors = floorsOf(form);
   const idOf = (name: string, fallback: Floor) => floors.find((f) => f.name === name.trim())?.id ?? fallback.id;
-  const unitTypes = form.unitTypes.map(unitTypeFromForm);
+  const unitTypes = form.unitTypes.map((t) =>
+    unitTypeFromForm(
+      t,
+      storedTypes.find((s) => s.id === t.id),
+    ),
+  );
   const r = form.riser;
   const from = idOf(r.fromFloor, floors[0]);
   const built = buildRiser({

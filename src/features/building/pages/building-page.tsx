@@ -27,7 +27,7 @@ function tryBuild(values: unknown, doc: SystemDocument) {
   const start = nodeElevation(doc, parsed.data.riser.startNodeId);
   if (start === null) return { result: null, problem: 'The start point has no elevation yet: give it one in the Elevation step.' };
   try {
-    return { result: buildFromForm(parsed.data, start), problem: null };
+    return { result: buildFromForm(parsed.data, start, readBuilding(doc).unitTypes), problem: null };
   } catch (error) {
     return { result: null, problem: error instanceof Error ? error.message : String(error) };
   }
@@ -59,7 +59,7 @@ export function BuildingPage() {
       const start = nodeElevation(document, v.riser.startNodeId);
       if (start === null) return setFailure('The start point has no elevation yet.');
       try {
-        const built = buildFromForm(v, start);
+        const built = buildFromForm(v, start, stored.unitTypes);
         const gone = v.riser.mode === 'replace' ? downstreamOf(document, v.riser.startNodeId) : null;
         const replaced = gone ? [...gone.segments.map((s) => s.label ?? s.id), ...gone.placements.map((p) => p.label)] : [];
         if (replaced.length > 0 && !confirmed) {
@@ -89,7 +89,12 @@ export function BuildingPage() {
   const applyTypes = () =>
     void form.trigger('unitTypes').then((ok) => {
       if (!ok) return;
-      const types = form.getValues('unitTypes').map(unitTypeFromForm);
+      const types = form.getValues('unitTypes').map((t) =>
+        unitTypeFromForm(
+          t,
+          stored.unitTypes.find((s) => s.id === t.id),
+        ),
+      );
       draft.update((doc) => types.reduce(writeUnitType, doc));
       setDone(`Unit types applied to ${stored.placements.length} placements.`);
     });
