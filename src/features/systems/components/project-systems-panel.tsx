@@ -6,7 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { Section } from '../../../components/ui/card';
 import { Loading } from '../../../components/ui/loading';
 import { formatDate } from '../../../lib/labels';
-import { UNIT_LABELS } from '../../../engine';
+import { UNIT_LABELS } from '../../../engine/units';
 import { signed } from '../../../shared/format/quantity';
 import type { SystemInfo } from '../../../shared/api/systems';
 import type { ProjectRole } from '../../../shared/api/projects';

@@ -17,7 +17,7 @@ import { revisionVerdict, VerdictMark } from '../../systems/components/verdict-m
 import { plural } from '../lib/verdict';
 import { SystemFieldChanges } from '../../field-changes/components/system-field-changes';
 import { signed } from '../../../shared/format/quantity';
-import { UNIT_LABELS } from '../../../engine';
+import { UNIT_LABELS } from '../../../engine/units';
 import { walkPaths } from '../paths';
 
 const STATUS_TONE = { draft: 'standpipe', issued: 'sound', superseded: 'neutral' } as const;
