@@ -103,6 +103,17 @@ import { describeUnits, searchWithUnits, unitLeaves, unitPlan, unitTypeSegmentKe
 
 export { unitTypeSegmentKey } from './unitSizing';
 
+/**
+ * The sizes the document locks (`sizeLocked`): a main segment's by its id, a unit type segment's
+ * (one lock for every placement) by unitTypeSegmentKey — the keys of the answer's rows.
+ */
+export function documentSizeLocks(doc: Pick<SystemDocument, 'segments' | 'unitTypes'>): Set<string> {
+  return new Set([
+    ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id),
+    ...(doc.unitTypes ?? []).flatMap((t) => t.segments.filter((s) => s.sizeLocked === true).map((s) => unitTypeSegmentKey(t.id, s.id))),
+  ]);
+}
+
 /** Repairs of the size-change losses the model leaves out (step 5). */
 const MAX_REPAIRS = 3;
 /** A repair asks for 1.5 × the shortfall plus 10 Pa (about 0.0015 psi): a tuning choice of this engine, not a published value, chosen to converge in one or two rounds. */
@@ -425,12 +436,7 @@ export function sizeSystem(input: unknown, options: SizingOptions = {}): SizingR
       .filter((v) => v.service === doc.service)
       .map((v) => ({ material: v.material, maxVelocityMs: toSI('velocity', v.maxVelocity, doc.unitSystem) })),
   };
-  // The document's locks: a main segment's by its id, a unit type segment's (one lock for every placement) by unitTypeSegmentKey.
-  const locked = new Set([
-    ...(options.lockedSegmentIds ?? []),
-    ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id),
-    ...unitTypes.flatMap((t) => t.segments.filter((s) => s.sizeLocked === true).map((s) => unitTypeSegmentKey(t.id, s.id))),
-  ]);
+  const locked = new Set([...(options.lockedSegmentIds ?? []), ...documentSizeLocks(doc)]);
   const selected = options.segmentIds ? new Set(options.segmentIds) : null;
 
   // Which segments may change, and their candidate sizes (ascending inside diameter).

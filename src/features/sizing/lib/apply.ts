@@ -5,7 +5,7 @@
  */
 import { sizingBasisOf } from '../../../engine';
 import type { SegmentSizing, SizingBasis, SizingResult, SystemDocument } from '../../../engine';
-import { unitTypeSegmentKey } from '../../../engine/sizing/unitSizing';
+import { documentSizeLocks } from '../../../engine/sizing/sizeSystem';
 
 /** The rows whose size changes. */
 export const changedRows = (rows: readonly SegmentSizing[]) => rows.filter((r) => r.after !== null && r.after !== r.before);
@@ -93,28 +93,20 @@ export function undoSizes(doc: SystemDocument, rows: readonly SegmentSizing[]): 
   };
 }
 
-/**
- * The sizes the draft locks, named as the answer's rows name them: a main segment by its id, a
- * unit type segment by unitTypeSegmentKey (one lock for every placement).
- */
-export function lockedSegmentKeys(doc: SystemDocument): Set<string> {
-  return new Set([
-    ...doc.segments.filter((s) => s.sizeLocked === true).map((s) => s.id),
-    ...(doc.unitTypes ?? []).flatMap((t) => t.segments.filter((s) => s.sizeLocked === true).map((s) => unitTypeSegmentKey(t.id, s.id))),
-  ]);
+/** The draft's size locks keyed like the answer's rows (the engine's reading of `sizeLocked`). */
+export const lockedSegmentKeys = documentSizeLocks;
+
+/** A segment with its size locked, or with the key removed (so locking then unlocking gives the segment back as it was). */
+function withSizeLocked<S extends { sizeLocked?: boolean }>(segment: S, locked: boolean): S {
+  const { sizeLocked: _was, ...rest } = segment;
+  return (locked ? { ...rest, sizeLocked: true } : rest) as S;
 }
 
 /** The lock on a main segment's size (its `sizeLocked`; clearing removes the key). */
 export function setSizeLocked(doc: SystemDocument, segmentId: string, locked: boolean): SystemDocument {
   return {
     ...doc,
-    segments: doc.segments.map((s) => {
-      if (s.id !== segmentId) return s;
-      const next = { ...s };
-      if (locked) next.sizeLocked = true;
-      else delete next.sizeLocked;
-      return next;
-    }),
+    segments: doc.segments.map((s) => (s.id === segmentId ? withSizeLocked(s, locked) : s)),
   };
 }
 
@@ -131,13 +123,7 @@ export function setUnitSegmentSizeLocked(doc: SystemDocument, unitTypeId: string
         ? t
         : {
             ...t,
-            segments: t.segments.map((s) => {
-              if (s.id !== segmentId) return s;
-              const next = { ...s };
-              if (locked) next.sizeLocked = true;
-              else delete next.sizeLocked;
-              return next;
-            }),
+            segments: t.segments.map((s) => (s.id === segmentId ? withSizeLocked(s, locked) : s)),
           },
     ),
   };
